@@ -1,0 +1,96 @@
+package solver
+
+import "sectionbench/model"
+
+// Element is one body as the solver sees it: panel nodes in the
+// configuration frame, trailing edge → upper surface → leading edge → lower
+// surface → trailing edge. For a closed trailing edge the first and last
+// nodes coincide; for an open one they stand apart and the gap is left
+// without a panel.
+type Element struct {
+	Name  string
+	Nodes []model.Point
+	LE    int // index of the leading-edge node in Nodes
+}
+
+// Config is a set of elements in one flow, optionally above a ground plane
+// y = GroundY parallel to the freestream (which must then be at 0°).
+type Config struct {
+	Elements  []Element
+	Ground    bool
+	GroundY   float64
+	RefChord  float64     // chord for the configuration's coefficients; 0 means the sum of element chords
+	MomentRef model.Point // reference point of the configuration's Cm
+}
+
+// Side tells which surface a panel belongs to.
+type Side int
+
+// The surfaces: upper runs from the trailing edge to the leading-edge node,
+// lower from the leading-edge node to the trailing edge, in node order.
+const (
+	Upper Side = iota
+	Lower
+)
+
+func (s Side) String() string {
+	if s == Upper {
+		return "upper"
+	}
+	return "lower"
+}
+
+// Panel is the solution at one panel's midpoint.
+type Panel struct {
+	X, Y float64 // midpoint, configuration frame
+	S    float64 // arc length from the first node to the midpoint
+	XC   float64 // position along the element's chord line, 0 at the leading edge, 1 at the trailing edge
+	Vt   float64 // tangential velocity / U∞, positive along the node ordering
+	Cp   float64 // pressure coefficient 1 − Vt²
+	Side Side
+}
+
+// Stagnation is where the surface velocity changes sign.
+type Stagnation struct {
+	X, Y float64 // configuration frame
+	S    float64 // arc length from the first node
+	XC   float64 // along the chord line
+}
+
+// ElementSolution is one element's share of a solution. Cl and Cm are on the
+// element's own chord; Cm about its own quarter-chord point, nose-up positive.
+type ElementSolution struct {
+	Name       string
+	Chord      float64
+	Gamma      []float64 // vortex strength at each node / U∞
+	Panels     []Panel
+	Cl         float64 // from circulation, Kutta–Joukowski: Cl = 2Γ/(U∞c)
+	ClPressure float64 // from integrating Cp over the panels
+	Cm         float64 // about the element's quarter chord, from pressure
+	CpMin      float64
+	XCpMin     float64 // x/c of CpMin
+	Stagnation Stagnation
+}
+
+// Solution is the flow about a configuration at one freestream angle.
+type Solution struct {
+	AlphaDeg   float64 // freestream angle to +x used in this solve
+	Elements   []ElementSolution
+	Cl         float64 // whole configuration, from circulation, on Config.RefChord
+	ClPressure float64 // whole configuration, from pressure
+	Cm         float64 // about Config.MomentRef, nose-up positive, on RefChord²
+	RefChord   float64
+
+	sys *System
+	g   []float64 // all nodal strengths, element after element
+}
+
+// Coefficients are the integrated results of one angle in a sweep.
+type Coefficients struct {
+	AlphaDeg   float64
+	Cl         float64
+	ClPressure float64
+	Cm         float64
+	CpMin      float64 // smallest Cp over all elements
+	XCpMin     float64 // x/c of CpMin on its element
+}
