@@ -113,7 +113,7 @@ type Flow struct {
 	SpeedMPS     float64 `json:"speed_mps,omitempty"`
 	TemperatureC float64 `json:"temperature_c"`
 	PressurePa   float64 `json:"pressure_pa"`
-	SpanM        float64 `json:"span_m,omitempty"` // span for total forces; 0 means per metre only
+	SpanM        float64 `json:"span_m,omitempty"`   // span for total forces; 0 means per metre only
 	Reynolds     float64 `json:"reynolds,omitempty"` // entered directly; overrides speed-derived Re when > 0
 }
 
