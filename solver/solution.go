@@ -80,6 +80,7 @@ type Solution struct {
 	ClPressure float64 // whole configuration, from pressure
 	Cm         float64 // about Config.MomentRef, nose-up positive, on RefChord²
 	RefChord   float64
+	Warnings   []string // e.g. an ill-conditioned system, with its condition number
 
 	sys *System
 	g   []float64 // all nodal strengths, element after element
