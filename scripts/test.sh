@@ -1,0 +1,36 @@
+#!/usr/bin/env bash
+# The whole Sectionbench test suite, from a fresh machine: installs what is
+# missing (scripts/setup.sh), then runs every package's tests, the solver and
+# UI tests again under the race detector, each fuzz target for a short
+# time, the CGO-free build of the command-line tool, and the real window
+# under Xvfb (scripts/screenshot.sh).
+#
+#   scripts/test.sh                 # everything
+#   FUZZTIME=60s scripts/test.sh    # longer fuzzing
+set -euo pipefail
+cd "$(dirname "$0")/.."
+export LANG=en_US.UTF-8
+scripts/setup.sh --quiet
+export PATH="$PATH:/usr/local/go/bin:$HOME/go/bin" GOTOOLCHAIN=auto
+fuzztime=${FUZZTIME:-15s}
+
+echo "== unit, validation and headless UI tests"
+go test -count=1 ./...
+
+echo "== race detector: solver and UI (rendering runs off the UI goroutine)"
+go test -count=1 -race ./solver/... ./ui/...
+
+echo "== fuzzing, $fuzztime per target"
+for pkg in ./model/ ./cmd/sectionbench-cli/; do
+  for target in $(go test -list '^Fuzz' "$pkg" | grep '^Fuzz' || true); do
+    echo "-- $pkg $target"
+    go test -run '^$' -fuzz "^${target}\$" -fuzztime "$fuzztime" "$pkg"
+  done
+done
+
+echo "== the command-line tool builds without cgo"
+CGO_ENABLED=0 go build -o /dev/null ./cmd/sectionbench-cli
+
+echo "== the desktop window appears under Xvfb"
+scripts/screenshot.sh "${SCREENSHOT_DIR:-$(mktemp -d)}"
+echo "all checks passed"
