@@ -62,14 +62,23 @@ type Stagnation struct {
 type ElementSolution struct {
 	Name       string
 	Chord      float64
-	Gamma      []float64 // vortex strength at each node / U∞
-	Panels     []Panel
-	Cl         float64 // from circulation, Kutta–Joukowski: Cl = 2Γ/(U∞c)
-	ClPressure float64 // from integrating Cp over the panels
-	Cm         float64 // about the element's quarter chord, from pressure
+	Gamma      []float64 // vortex strength at each node / U∞, clockwise positive (Vt = −γ)
+	Panels     []Panel   // in node order: upper surface TE → LE, then lower LE → TE
+	Cl         float64   // from circulation, Kutta–Joukowski: Cl = 2Γ/(U∞c)
+	ClPressure float64   // from integrating Cp over the panels
+	Cm         float64   // about the element's quarter chord, from pressure
 	CpMin      float64
 	XCpMin     float64 // x/c of CpMin
 	Stagnation Stagnation
+
+	// Circulation is Γ = ∮γ ds / U∞, clockwise positive (lifting), in the
+	// configuration's length unit.
+	Circulation float64
+	// CdPressure is the pressure force along the freestream on the
+	// element's chord. Potential flow has no drag on a lone body
+	// (d'Alembert), so for one element in free air it measures the
+	// discretisation error; it is not a drag estimate.
+	CdPressure float64
 }
 
 // Solution is the flow about a configuration at one freestream angle.
@@ -82,8 +91,9 @@ type Solution struct {
 	RefChord   float64
 	Warnings   []string // e.g. an ill-conditioned system, with its condition number
 
-	sys *System
-	g   []float64 // all nodal strengths, element after element
+	sys    *System
+	g      []float64   // all nodal strengths, element after element
+	forces []elemForce // each element's pressure force and moment
 }
 
 // Coefficients are the integrated results of one angle in a sweep.

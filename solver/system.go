@@ -1,15 +1,536 @@
 package solver
 
-// System is a configuration's assembled and factorised influence system.
-// Filled in by the panel-method implementation.
-type System struct{}
+import (
+	"errors"
+	"fmt"
+	"math"
+	"runtime"
+	"sync"
 
-// NewSystem assembles and factorises the influence matrix of cfg.
-func NewSystem(cfg Config) (*System, error) { panic("solver: NewSystem not implemented yet") }
+	"gonum.org/v1/gonum/mat"
 
-// Solve returns the flow at freestream angle alphaDeg by superposing the two
-// unit solutions.
-func (s *System) Solve(alphaDeg float64) *Solution { panic("solver: Solve not implemented yet") }
+	"sectionbench/model"
+)
 
-// Sweep returns the integrated coefficients at each angle.
-func (s *System) Sweep(alphaDeg []float64) []Coefficients { panic("solver: Sweep not implemented yet") }
+// The linear-strength vortex panel method (Katz & Plotkin, Low-Speed
+// Aerodynamics, 2nd ed., 2001, sec. 11.4; Kuethe & Chow, Foundations of
+// Aerodynamics, 5th ed., sec. 5.10).
+//
+// Element k has n_k nodes and N_k = n_k − 1 panels, node i to node i+1. The
+// strength γ is unknown at every node, linear along each panel and
+// continuous at nodes, so element k has N_k + 1 unknowns. The equations are
+//
+//	flow tangency at every panel midpoint m_i with outward normal n_i:
+//	  Σ_j (A_ij^a γ_j + A_ij^b γ_j+1) = −V∞·n_i,
+//	the Kutta condition at the trailing edge:
+//	  γ_1 + γ_(N+1) = 0,
+//
+// N_k + 1 equations per element, a square system of Σ_k (N_k + 1) unknowns
+// for any number of elements. A_ij^a, A_ij^b are the normal components at m_i
+// of the velocities induced by panel j per unit γ at its two nodes
+// (influence.go). For a closed trailing edge the first and last nodes
+// coincide and the Kutta condition makes the velocities leaving along the
+// upper and lower surfaces equal in size, the flow leaving the trailing edge
+// smoothly. For an open (blunt) trailing edge the gap between the first and
+// last nodes is left without a panel and the same condition is applied to
+// the two trailing-edge nodes. That ignores the base flow of the blunt edge;
+// it is the usual treatment, good for gaps of a percent or two of chord and
+// increasingly doubtful beyond (a Solution warns above MaxTEGapFraction).
+//
+// The matrix depends on the geometry only. It is factorised once (LU with
+// partial pivoting) and solved for two unit freestreams, V∞ = (1, 0) and
+// (0, 1), giving γ0 and γ90; by linearity the solution at angle α is
+// γ = cos α γ0 + sin α γ90.
+//
+// Ground effect uses the method of images (Katz & Plotkin sec. 11.4 and the
+// ground-effect discussion of ch. 5): every panel has a mirror image about
+// y = GroundY carrying −γ, so the plane is a streamline of the combined flow.
+// The images enter the influence matrix and the velocity field. The plane is
+// a streamline only if the freestream is parallel to it: in ground mode the
+// only angle Solve and Sweep accept is 0 and the configuration itself must
+// be placed at its angle of attack.
+
+// Tolerances of the system.
+const (
+	// CondWarn is the condition-number estimate (1-norm) above which a
+	// Solution carries a warning: float64 holds about 16 significant
+	// digits and an LU solve loses about log10(cond) of them, so beyond
+	// 1e12 fewer than four digits of γ can be trusted.
+	CondWarn = 1e12
+	// MaxTEGapFraction is the open trailing-edge gap, as a fraction of the
+	// element's chord, above which the two-node Kutta condition is reported
+	// as doubtful (see the method notes above; common practice).
+	MaxTEGapFraction = 0.02
+	// minPanelFraction is the shortest panel accepted, as a fraction of the
+	// element's chord: shorter ones are repeated or nearly repeated nodes
+	// and make the influence matrix singular.
+	minPanelFraction = 1e-9
+	// minPanels is the fewest panels an element may have.
+	minPanels = 3
+)
+
+// Sentinel errors of the geometry checks; match with errors.Is.
+var (
+	ErrNoElements      = errors.New("no elements")
+	ErrTooFewPanels    = errors.New("too few panels")
+	ErrDegeneratePanel = errors.New("degenerate panel (zero or tiny length)")
+	ErrClockwise       = errors.New("nodes run clockwise (signed area ≤ 0); expected trailing edge → upper → leading edge → lower")
+	ErrBelowGround     = errors.New("node below the ground plane")
+	ErrNonFinite       = model.ErrNonFinite
+	ErrLeadingEdge     = errors.New("leading-edge index out of range")
+	ErrBadRefChord     = errors.New("reference chord is negative or not finite")
+	ErrSingular        = errors.New("influence matrix is singular")
+)
+
+// GeometryError reports a problem with one element of a Config. Panel is the
+// zero-based index of the offending panel or node, or −1 when the problem
+// concerns the whole element (Element is −1 for the whole configuration).
+type GeometryError struct {
+	Element int
+	Name    string
+	Panel   int
+	Err     error
+}
+
+func (e *GeometryError) Error() string {
+	switch {
+	case e.Element < 0:
+		return "solver: configuration: " + e.Err.Error()
+	case e.Panel < 0:
+		return fmt.Sprintf("solver: element %d (%q): %v", e.Element+1, e.Name, e.Err)
+	}
+	return fmt.Sprintf("solver: element %d (%q), panel/node %d: %v", e.Element+1, e.Name, e.Panel+1, e.Err)
+}
+
+func (e *GeometryError) Unwrap() error { return e.Err }
+
+// SingularError reports an influence matrix that cannot be solved, with the
+// condition-number estimate (+Inf when exactly singular). It wraps
+// ErrSingular. Coincident or overlapping elements are the usual cause.
+type SingularError struct {
+	Cond float64
+}
+
+func (e *SingularError) Error() string {
+	return fmt.Sprintf("solver: influence matrix is singular (condition number estimate %g)", e.Cond)
+}
+
+func (e *SingularError) Unwrap() error { return ErrSingular }
+
+// panelGeom is one panel, precomputed.
+type panelGeom struct {
+	x1, y1, x2, y2 float64 // nodes
+	tx, ty         float64 // unit tangent, node 1 → node 2
+	nx, ny         float64 // unit outward normal (tx rotated −90°)
+	l              float64 // length
+	mx, my         float64 // midpoint (collocation point)
+	s              float64 // arc length of the midpoint from the element's first node
+	xc             float64 // midpoint's chord-line position
+	ia             int     // unknown index of node 1 (node 2 is ia+1)
+	elem           int
+	side           Side
+}
+
+// elemGeom is one element, precomputed.
+type elemGeom struct {
+	name        string
+	nodes       []model.Point // copy
+	sNode       []float64     // arc length of each node from the first
+	le          int
+	p0, np      int // first panel index, number of panels
+	u0          int // first unknown index (np+1 unknowns)
+	chord       float64
+	lePt, teMid model.Point
+	qc          model.Point // quarter-chord point on the chord line
+	teGap       float64
+	min, max    model.Point // bounding box of the nodes
+}
+
+// geometry is a validated configuration.
+type geometry struct {
+	elems    []elemGeom
+	panels   []panelGeom
+	n        int // unknowns
+	ground   bool
+	groundY  float64
+	refChord float64
+	mref     model.Point
+}
+
+// System is a configuration's assembled and factorised influence system
+// together with its two unit solutions. It is immutable after NewSystem and
+// safe for concurrent use.
+type System struct {
+	geo      *geometry
+	lu       mat.LU
+	cond     float64
+	warnings []string
+	g0, g90  []float64 // nodal γ for V∞ = (1, 0) and (0, 1) (g90 nil in ground mode)
+	vt0      []float64 // panel Vt for the unit solutions
+	vt90     []float64
+	forces   []elemQuad
+}
+
+// NewSystem validates cfg, assembles and factorises the influence matrix of
+// the linear-strength vortex panel method and solves it for the two unit
+// freestreams. It copies the nodes it keeps.
+//
+// Geometry problems return a *GeometryError wrapping one of ErrNoElements,
+// ErrTooFewPanels (fewer than 3), ErrDegeneratePanel, ErrClockwise,
+// ErrBelowGround, ErrNonFinite, ErrLeadingEdge or ErrBadRefChord; a singular
+// matrix returns a *SingularError.
+func NewSystem(cfg Config) (*System, error) {
+	g, err := newGeometry(cfg)
+	if err != nil {
+		return nil, err
+	}
+	a, b := g.assemble()
+	s := &System{geo: g}
+	if err := s.factorize(a); err != nil {
+		return nil, err
+	}
+	if err := s.solveUnit(b); err != nil {
+		return nil, err
+	}
+	s.prepare()
+	return s, nil
+}
+
+// newGeometry validates cfg and precomputes its panels.
+func newGeometry(cfg Config) (*geometry, error) {
+	if len(cfg.Elements) == 0 {
+		return nil, &GeometryError{Element: -1, Panel: -1, Err: ErrNoElements}
+	}
+	if !(cfg.RefChord >= 0) || math.IsInf(cfg.RefChord, 0) {
+		return nil, &GeometryError{Element: -1, Panel: -1, Err: ErrBadRefChord}
+	}
+	if cfg.Ground && (math.IsNaN(cfg.GroundY) || math.IsInf(cfg.GroundY, 0)) {
+		return nil, &GeometryError{Element: -1, Panel: -1, Err: fmt.Errorf("ground height: %w", ErrNonFinite)}
+	}
+	if !cfg.MomentRef.IsFinite() {
+		return nil, &GeometryError{Element: -1, Panel: -1, Err: fmt.Errorf("moment reference: %w", ErrNonFinite)}
+	}
+	g := &geometry{ground: cfg.Ground, groundY: cfg.GroundY, mref: cfg.MomentRef}
+	np := 0
+	for _, e := range cfg.Elements {
+		np += max(len(e.Nodes)-1, 0)
+	}
+	g.panels = make([]panelGeom, 0, np)
+	sumChord := 0.0
+	for k, e := range cfg.Elements {
+		ge, err := g.addElement(k, e)
+		if err != nil {
+			return nil, err
+		}
+		sumChord += ge.chord
+	}
+	g.refChord = cfg.RefChord
+	if g.refChord == 0 {
+		g.refChord = sumChord
+	}
+	return g, nil
+}
+
+// addElement validates element k and appends its panels.
+func (g *geometry) addElement(k int, e Element) (*elemGeom, error) {
+	gerr := func(i int, err error) error {
+		return &GeometryError{Element: k, Name: e.Name, Panel: i, Err: err}
+	}
+	n := len(e.Nodes)
+	if n-1 < minPanels {
+		return nil, gerr(-1, fmt.Errorf("%w: %d, need at least %d", ErrTooFewPanels, max(n-1, 0), minPanels))
+	}
+	for i, p := range e.Nodes {
+		if !p.IsFinite() {
+			return nil, gerr(i, ErrNonFinite)
+		}
+	}
+	if e.LE <= 0 || e.LE >= n-1 {
+		return nil, gerr(-1, fmt.Errorf("%w: %d not inside 1..%d", ErrLeadingEdge, e.LE, n-2))
+	}
+	nodes := make([]model.Point, n)
+	copy(nodes, e.Nodes)
+	ge := elemGeom{name: e.Name, nodes: nodes, le: e.LE, p0: len(g.panels), np: n - 1, u0: g.n}
+	ge.lePt = nodes[e.LE]
+	ge.teMid = nodes[0].Add(nodes[n-1]).Scale(0.5)
+	ge.chord = ge.teMid.Dist(ge.lePt)
+	ge.teGap = nodes[0].Dist(nodes[n-1])
+	if !(ge.chord > 0) {
+		return nil, gerr(-1, fmt.Errorf("%w: leading edge coincides with the trailing edge", ErrDegeneratePanel))
+	}
+	ge.qc = ge.lePt.Add(ge.teMid.Sub(ge.lePt).Scale(0.25))
+	area := 0.0
+	ge.min, ge.max = nodes[0], nodes[0]
+	for i := range n {
+		p, q := nodes[i], nodes[(i+1)%n]
+		area += p.Cross(q)
+		ge.min = model.Point{X: math.Min(ge.min.X, p.X), Y: math.Min(ge.min.Y, p.Y)}
+		ge.max = model.Point{X: math.Max(ge.max.X, p.X), Y: math.Max(ge.max.Y, p.Y)}
+		if g.ground && p.Y < g.groundY {
+			return nil, gerr(i, fmt.Errorf("%w: y = %g < %g", ErrBelowGround, p.Y, g.groundY))
+		}
+	}
+	if !(area > 0) {
+		return nil, gerr(-1, fmt.Errorf("%w (area %g)", ErrClockwise, area/2))
+	}
+	cx, cy := ge.teMid.X-ge.lePt.X, ge.teMid.Y-ge.lePt.Y
+	c2 := cx*cx + cy*cy
+	ge.sNode = make([]float64, n)
+	for i := 0; i+1 < n; i++ {
+		a, b := nodes[i], nodes[i+1]
+		l := a.Dist(b)
+		if !(l > minPanelFraction*ge.chord) {
+			return nil, gerr(i, fmt.Errorf("%w: length %g", ErrDegeneratePanel, l))
+		}
+		ge.sNode[i+1] = ge.sNode[i] + l
+		p := panelGeom{x1: a.X, y1: a.Y, x2: b.X, y2: b.Y, l: l, ia: ge.u0 + i, elem: k}
+		p.tx, p.ty = (b.X-a.X)/l, (b.Y-a.Y)/l
+		p.nx, p.ny = p.ty, -p.tx
+		p.mx, p.my = 0.5*(a.X+b.X), 0.5*(a.Y+b.Y)
+		p.s = ge.sNode[i] + 0.5*l
+		p.xc = ((p.mx-ge.lePt.X)*cx + (p.my-ge.lePt.Y)*cy) / c2
+		if i < e.LE {
+			p.side = Upper
+		} else {
+			p.side = Lower
+		}
+		g.panels = append(g.panels, p)
+	}
+	g.n += n
+	g.elems = append(g.elems, ge)
+	return &g.elems[len(g.elems)-1], nil
+}
+
+// nrhs returns the number of unit right-hand sides: two in free air, one
+// (V∞ = (1, 0)) in ground mode.
+func (g *geometry) nrhs() int {
+	if g.ground {
+		return 1
+	}
+	return 2
+}
+
+// assemble returns the influence matrix and the unit right-hand sides.
+// Rows are filled in parallel, GOMAXPROCS goroutines over blocks of rows;
+// the row loop allocates nothing.
+func (g *geometry) assemble() (a, b *mat.Dense) {
+	n := g.n
+	a = mat.NewDense(n, n, nil)
+	b = mat.NewDense(n, g.nrhs(), nil)
+	raw, rawb := a.RawMatrix(), b.RawMatrix()
+	maxNodes := 0
+	for _, e := range g.elems {
+		maxNodes = max(maxNodes, len(e.nodes))
+	}
+	// Rows of element e are u0 .. u0+np−1 (tangency at panel p0+r) and
+	// u0+np (Kutta), matching the unknown layout.
+	workers := min(runtime.GOMAXPROCS(0), max(1, n/minRowsPerWorker))
+	var wg sync.WaitGroup
+	for w := range workers {
+		lo, hi := w*n/workers, (w+1)*n/workers
+		wg.Go(func() {
+			sc := newRowScratch(maxNodes)
+			for r := lo; r < hi; r++ {
+				row := raw.Data[r*raw.Stride : r*raw.Stride+n]
+				rhs := rawb.Data[r*rawb.Stride : r*rawb.Stride+rawb.Cols]
+				g.fillRow(r, row, rhs, sc)
+			}
+		})
+	}
+	wg.Wait()
+	return a, b
+}
+
+// minRowsPerWorker keeps tiny systems on one goroutine, where starting
+// more would cost more than it saves.
+const minRowsPerWorker = 32
+
+// rowScratch holds per-node values shared by the two panels meeting at a
+// node: the vector from the node to the collocation point and ln r².
+type rowScratch struct{ dx, dy, lr []float64 }
+
+func newRowScratch(n int) *rowScratch {
+	return &rowScratch{dx: make([]float64, n), dy: make([]float64, n), lr: make([]float64, n)}
+}
+
+// fillRow writes equation r: tangency at a panel midpoint, or an element's
+// Kutta condition.
+func (g *geometry) fillRow(r int, row, rhs []float64, sc *rowScratch) {
+	clear(row)
+	// Find the element and the local row.
+	k := 0
+	for k+1 < len(g.elems) && g.elems[k+1].u0 <= r {
+		k++
+	}
+	e := &g.elems[k]
+	i := r - e.u0
+	if i == e.np {
+		// Kutta condition γ_first + γ_last = 0.
+		row[e.u0] = 1
+		row[e.u0+e.np] = 1
+		clear(rhs)
+		return
+	}
+	pi := e.p0 + i
+	p := &g.panels[pi]
+	g.addNormalInfluence(p.mx, p.my, p.nx, p.ny, pi, row, sc)
+	if g.ground {
+		// The image of panel j at m_i equals the reflection (u, −v) of
+		// panel j's velocity at the reflected point; its normal
+		// component is u n_x − v n_y.
+		g.addNormalInfluence(p.mx, 2*g.groundY-p.my, p.nx, -p.ny, -1, row, sc)
+	}
+	rhs[0] = -p.nx
+	if len(rhs) > 1 {
+		rhs[1] = -p.ny
+	}
+}
+
+// addNormalInfluence adds to row, column by unknown, the component along
+// (nx, ny) of the velocity induced at (px, py) by every panel per unit nodal
+// γ. Panel self (if ≥ 0) is the panel whose midpoint (px, py) is: its limit
+// on the outer face is taken exactly, λ = 0 and Δθ = −π.
+func (g *geometry) addNormalInfluence(px, py, nx, ny float64, self int, row []float64, sc *rowScratch) {
+	for ei := range g.elems {
+		e := &g.elems[ei]
+		floor := minDistFrac * minDistFrac * e.chord * e.chord
+		for k, q := range e.nodes {
+			dx, dy := px-q.X, py-q.Y
+			sc.dx[k], sc.dy[k] = dx, dy
+			sc.lr[k] = math.Log(math.Max(dx*dx+dy*dy, floor))
+		}
+		for k := range e.np {
+			j := e.p0 + k
+			pn := &g.panels[j]
+			r1x, r1y := sc.dx[k], sc.dy[k]
+			var dth, lam float64
+			if j == self {
+				dth, lam = -math.Pi, 0
+			} else {
+				r2x, r2y := sc.dx[k+1], sc.dy[k+1]
+				dth = math.Atan2(r1x*r2y-r1y*r2x, r1x*r2x+r1y*r2y)
+				lam = 0.5 * (sc.lr[k] - sc.lr[k+1])
+			}
+			x := r1x*pn.tx + r1y*pn.ty
+			y := -r1x*pn.ty + r1y*pn.tx
+			ua, va, ub, vb := linearVortex(x, y, pn.l, dth, lam)
+			tn := pn.tx*nx + pn.ty*ny  // panel x' axis · n
+			ln := -pn.ty*nx + pn.tx*ny // panel y' axis · n
+			row[pn.ia] += ua*tn + va*ln
+			row[pn.ia+1] += ub*tn + vb*ln
+		}
+	}
+}
+
+// factorize LU-factorises a and estimates its condition number.
+func (s *System) factorize(a *mat.Dense) error {
+	s.lu.Factorize(a)
+	s.cond = s.lu.Cond()
+	if math.IsInf(s.cond, 0) || math.IsNaN(s.cond) || s.cond > mat.ConditionTolerance {
+		return &SingularError{Cond: s.cond}
+	}
+	if s.cond > CondWarn {
+		s.warnings = append(s.warnings, fmt.Sprintf("ill-conditioned influence matrix (condition number estimate %.3g > %.0g): results may be inaccurate; check for overlapping or nearly touching elements", s.cond, CondWarn))
+	}
+	for _, e := range s.geo.elems {
+		if e.teGap > MaxTEGapFraction*e.chord {
+			s.warnings = append(s.warnings, fmt.Sprintf("element %q: open trailing edge gap %.2g%% of chord; the Kutta condition at the two trailing-edge nodes is doubtful beyond about %.0f%%", e.name, 100*e.teGap/e.chord, 100*MaxTEGapFraction))
+		}
+	}
+	return nil
+}
+
+// solveUnit solves for the unit right-hand sides.
+func (s *System) solveUnit(b *mat.Dense) error {
+	var x mat.Dense
+	if err := s.lu.SolveTo(&x, false, b); err != nil {
+		// factorize has rejected anything worse than
+		// mat.ConditionTolerance; a Condition error here is the
+		// ill-conditioning already warned about.
+		var c mat.Condition
+		if !errors.As(err, &c) || math.IsInf(float64(c), 0) {
+			return &SingularError{Cond: s.cond}
+		}
+	}
+	n := s.geo.n
+	s.g0 = make([]float64, n)
+	mat.Col(s.g0, 0, &x)
+	if !s.geo.ground {
+		s.g90 = make([]float64, n)
+		mat.Col(s.g90, 1, &x)
+	}
+	for _, v := range s.g0 {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return &SingularError{Cond: s.cond}
+		}
+	}
+	return nil
+}
+
+// Cond returns the condition-number estimate (1-norm) of the influence
+// matrix.
+func (s *System) Cond() float64 { return s.cond }
+
+// Unknowns returns the size of the linear system, Σ (N_k + 1).
+func (s *System) Unknowns() int { return s.geo.n }
+
+// Panels returns the total number of panels.
+func (s *System) Panels() int { return len(s.geo.panels) }
+
+// Ground reports whether the system includes a ground plane.
+func (s *System) Ground() bool { return s.geo.ground }
+
+// RefChord returns the reference chord of the configuration's coefficients.
+func (s *System) RefChord() float64 { return s.geo.refChord }
+
+// Warnings returns the warnings every solution of s carries.
+func (s *System) Warnings() []string { return append([]string(nil), s.warnings...) }
+
+// checkAlpha panics if alphaDeg is not allowed.
+func (s *System) checkAlpha(alphaDeg float64) {
+	if math.IsNaN(alphaDeg) || math.IsInf(alphaDeg, 0) {
+		panic(fmt.Sprintf("solver: angle of attack %g is not finite", alphaDeg))
+	}
+	if s.geo.ground && alphaDeg != 0 {
+		panic(fmt.Sprintf("solver: ground mode needs the freestream at 0° (got %g°); rotate the configuration instead", alphaDeg))
+	}
+}
+
+// weights returns the superposition factors of the unit solutions.
+func (s *System) weights(alphaDeg float64) (c, sn float64) {
+	if s.geo.ground {
+		return 1, 0
+	}
+	sn, c = math.Sincos(alphaDeg * math.Pi / 180)
+	return c, sn
+}
+
+// Solve returns the flow at freestream angle alphaDeg (degrees, to +x) by
+// superposing the two unit solutions: γ = cos α γ0 + sin α γ90. In ground
+// mode it panics unless alphaDeg is 0 (see the method notes); it panics on a
+// non-finite angle.
+func (s *System) Solve(alphaDeg float64) *Solution {
+	s.checkAlpha(alphaDeg)
+	c, sn := s.weights(alphaDeg)
+	g := make([]float64, s.geo.n)
+	for i := range g {
+		g[i] = c * s.g0[i]
+		if s.g90 != nil {
+			g[i] += sn * s.g90[i]
+		}
+	}
+	return s.solution(alphaDeg, c, sn, g)
+}
+
+// Sweep returns the integrated coefficients at each angle (degrees). It
+// costs O(N) per angle on top of the factorised system: lift and moment
+// come from precomputed quadratic forms in (cos α, sin α), CpMin from one
+// pass over the panels. In ground mode every angle must be 0.
+func (s *System) Sweep(alphaDeg []float64) []Coefficients {
+	out := make([]Coefficients, len(alphaDeg))
+	for i, a := range alphaDeg {
+		s.checkAlpha(a)
+		out[i] = s.coefficients(a)
+	}
+	return out
+}

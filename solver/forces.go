@@ -1,0 +1,241 @@
+package solver
+
+import (
+	"fmt"
+	"math"
+
+	"sectionbench/model"
+)
+
+// Surface velocity, pressure and integrated forces.
+//
+// Surface velocity. Across a vortex sheet of strength γ (clockwise
+// positive) the tangential velocity jumps by γ: in a panel's frame, whose y'
+// axis points into the body, the sheet's own contribution is −γ/2 on the
+// outer face and +γ/2 on the inner one (influence.go). The tangency
+// conditions make the body a streamline of the flow, so the fluid inside
+// the closed contour is at rest and the velocity just outside, along the
+// node ordering, is
+//
+//	Vt = V_inside − γ = −γ
+//
+// (Katz & Plotkin, Low-Speed Aerodynamics, 2nd ed., sec. 11.4; Kuethe &
+// Chow, Foundations of Aerodynamics, sec. 5.10). γ is linear along a panel,
+// so Vt at a panel's midpoint is −(γa + γb)/2. Cp = 1 − Vt².
+//
+// Circulation and lift. The clockwise circulation of element k is
+//
+//	Γ_k = ∮ γ ds = Σ_j L_j (γa + γb)/2 = −Σ_j L_j Vt_j,
+//
+// and Kutta–Joukowski gives Cl = 2Γ/(U∞ c). For a lone element in free air
+// this is its lift. In a multi-element configuration or above the ground the
+// other bodies (and images) induce velocity at the element, and its own
+// force is the pressure integral, ClPressure; the sum of circulations of all
+// elements is still the lift of the whole configuration in free air.
+//
+// Pressure forces. Each panel carries the midpoint Cp over its length; the
+// force per unit span and dynamic pressure on panel j is −Cp_j n_j L_j, n_j
+// the outward normal. Lift is the component along (−sin α, cos α), drag
+// along (cos α, sin α) (ideally zero in potential flow: a check of the
+// discretisation, d'Alembert), and the moment about a point r is
+// Σ (m_j − r) × F_j, nose-up positive = clockwise, so Cm = −M_ccw/c².
+//
+// Superposition for sweeps. With Vt_j = cos α a_j + sin α b_j (a, b the unit
+// solutions), every pressure integral Σ w_j (1 − Vt_j²) is a quadratic form
+// in (cos α, sin α): Σ w_j − c² Σ w a² − 2cs Σ w ab − s² Σ w b². The four
+// sums are computed once per element, so a sweep costs O(1) per angle for
+// forces and O(N) for CpMin.
+
+// quad is k + aa c² + ab c s + bb s², a quadratic form in (cos α, sin α).
+type quad struct{ k, aa, ab, bb float64 }
+
+func (q quad) at(c, s float64) float64 { return q.k + q.aa*c*c + q.ab*c*s + q.bb*s*s }
+
+// addCp adds the pressure integral Σ w (1 − Vt²) of one panel.
+func (q *quad) addCp(w, a, b float64) {
+	q.k += w
+	q.aa -= w * a * a
+	q.ab -= 2 * w * a * b
+	q.bb -= w * b * b
+}
+
+// elemQuad holds one element's integrals as forms in (cos α, sin α).
+type elemQuad struct {
+	fx, fy quad // pressure force components, per unit dynamic pressure
+	m      quad // moment about the element's quarter chord, counter-clockwise
+	gam0   float64
+	gam90  float64 // clockwise circulation, Γ = c gam0 + s gam90
+}
+
+// elemForce is one element's integrated force at one angle.
+type elemForce struct {
+	fx, fy, m, gam float64
+	qc             model.Point
+}
+
+// prepare computes the unit solutions' panel velocities and the
+// superposition forms.
+func (s *System) prepare() {
+	g := s.geo
+	s.vt0 = make([]float64, len(g.panels))
+	s.vt90 = make([]float64, len(g.panels))
+	for j, p := range g.panels {
+		s.vt0[j] = -0.5 * (s.g0[p.ia] + s.g0[p.ia+1])
+		if s.g90 != nil {
+			s.vt90[j] = -0.5 * (s.g90[p.ia] + s.g90[p.ia+1])
+		}
+	}
+	s.forces = make([]elemQuad, len(g.elems))
+	for k := range g.elems {
+		e := &g.elems[k]
+		f := &s.forces[k]
+		for j := e.p0; j < e.p0+e.np; j++ {
+			p := &g.panels[j]
+			a, b := s.vt0[j], s.vt90[j]
+			// F = −Cp n L; M = (m − qc) × F.
+			f.fx.addCp(-p.nx*p.l, a, b)
+			f.fy.addCp(-p.ny*p.l, a, b)
+			rx, ry := p.mx-e.qc.X, p.my-e.qc.Y
+			f.m.addCp(-(rx*p.ny-ry*p.nx)*p.l, a, b)
+			f.gam0 -= p.l * a
+			f.gam90 -= p.l * b
+		}
+	}
+}
+
+// elementForces evaluates the forms at (cos α, sin α).
+func (s *System) elementForces(c, sn float64) []elemForce {
+	out := make([]elemForce, len(s.forces))
+	for k, f := range s.forces {
+		out[k] = elemForce{
+			fx: f.fx.at(c, sn), fy: f.fy.at(c, sn), m: f.m.at(c, sn),
+			gam: c*f.gam0 + sn*f.gam90, qc: s.geo.elems[k].qc,
+		}
+	}
+	return out
+}
+
+// totals returns the configuration's Cl (circulation), ClPressure and Cm
+// about ref, on RefChord.
+func (s *System) totals(ef []elemForce, c, sn float64, ref model.Point) (cl, clp, cm float64) {
+	rc := s.geo.refChord
+	var gam, fx, fy, m float64
+	for _, f := range ef {
+		gam += f.gam
+		fx += f.fx
+		fy += f.fy
+		m += f.m + (f.qc.X-ref.X)*f.fy - (f.qc.Y-ref.Y)*f.fx
+	}
+	return 2 * gam / rc, (-fx*sn + fy*c) / rc, -m / (rc * rc)
+}
+
+// coefficients returns the sweep entry at one angle.
+func (s *System) coefficients(alphaDeg float64) Coefficients {
+	c, sn := s.weights(alphaDeg)
+	ef := s.elementForces(c, sn)
+	co := Coefficients{AlphaDeg: alphaDeg, CpMin: math.Inf(1)}
+	co.Cl, co.ClPressure, co.Cm = s.totals(ef, c, sn, s.geo.mref)
+	vmax, jmax := -1.0, 0
+	for j := range s.vt0 {
+		v := math.Abs(c*s.vt0[j] + sn*s.vt90[j])
+		if v > vmax {
+			vmax, jmax = v, j
+		}
+	}
+	co.CpMin = 1 - vmax*vmax
+	co.XCpMin = s.geo.panels[jmax].xc
+	return co
+}
+
+// solution builds the full result for nodal strengths g at (cos α, sin α).
+func (s *System) solution(alphaDeg, c, sn float64, g []float64) *Solution {
+	geo := s.geo
+	ef := s.elementForces(c, sn)
+	sol := &Solution{
+		AlphaDeg: alphaDeg,
+		Elements: make([]ElementSolution, len(geo.elems)),
+		RefChord: geo.refChord,
+		Warnings: s.Warnings(),
+		sys:      s,
+		g:        g,
+		forces:   ef,
+	}
+	sol.Cl, sol.ClPressure, sol.Cm = s.totals(ef, c, sn, geo.mref)
+	for k := range geo.elems {
+		e := &geo.elems[k]
+		f := ef[k]
+		es := &sol.Elements[k]
+		es.Name = e.name
+		es.Chord = e.chord
+		es.Gamma = append([]float64(nil), g[e.u0:e.u0+e.np+1]...)
+		es.Circulation = f.gam
+		es.Cl = 2 * f.gam / e.chord
+		es.ClPressure = (-f.fx*sn + f.fy*c) / e.chord
+		es.CdPressure = (f.fx*c + f.fy*sn) / e.chord
+		es.Cm = -f.m / (e.chord * e.chord)
+		es.Panels = make([]Panel, e.np)
+		es.CpMin = math.Inf(1)
+		for i := range es.Panels {
+			p := &geo.panels[e.p0+i]
+			vt := -0.5 * (g[p.ia] + g[p.ia+1])
+			cp := 1 - vt*vt
+			es.Panels[i] = Panel{X: p.mx, Y: p.my, S: p.s, XC: p.xc, Vt: vt, Cp: cp, Side: p.side}
+			if cp < es.CpMin {
+				es.CpMin, es.XCpMin = cp, p.xc
+			}
+		}
+		var ok bool
+		es.Stagnation, ok = stagnation(e, es.Gamma)
+		if !ok {
+			sol.Warnings = append(sol.Warnings, fmt.Sprintf("element %q: no stagnation point found (surface velocity does not change sign); reported at the leading edge", e.name))
+		}
+	}
+	return sol
+}
+
+// stagnation finds where the surface velocity Vt = −γ changes sign from
+// negative (upper surface, flowing against the node order) to positive,
+// nearest the leading-edge node in arc length. γ is linear in arc length
+// along each panel, so the zero is interpolated linearly between the two
+// nodes. If there is none, it returns the leading-edge node and false.
+func stagnation(e *elemGeom, gam []float64) (Stagnation, bool) {
+	best, bestD := Stagnation{}, math.Inf(1)
+	sLE := e.sNode[e.le]
+	for k := 0; k+1 < len(gam); k++ {
+		va, vb := -gam[k], -gam[k+1]
+		if !(va < 0 && vb >= 0) {
+			continue
+		}
+		f := va / (va - vb)
+		a, b := e.nodes[k], e.nodes[k+1]
+		p := a.Add(b.Sub(a).Scale(f))
+		st := Stagnation{X: p.X, Y: p.Y, S: e.sNode[k] + f*(e.sNode[k+1]-e.sNode[k]), XC: e.chordPos(p)}
+		if d := math.Abs(st.S - sLE); d < bestD {
+			best, bestD = st, d
+		}
+	}
+	if math.IsInf(bestD, 1) {
+		return Stagnation{X: e.lePt.X, Y: e.lePt.Y, S: sLE, XC: 0}, false
+	}
+	return best, true
+}
+
+// chordPos returns the projection of p on the element's chord line, 0 at
+// the leading edge and 1 at the trailing-edge midpoint.
+func (e *elemGeom) chordPos(p model.Point) float64 {
+	d := e.teMid.Sub(e.lePt)
+	return p.Sub(e.lePt).Dot(d) / d.Dot(d)
+}
+
+// CmAbout returns the whole configuration's pitching-moment coefficient
+// about p (nose-up positive, on RefChord²): M_p = Σ_k [M_k + (qc_k − p) × F_k]
+// with M_k, F_k each element's pressure moment about its quarter chord and
+// pressure force.
+func (s *Solution) CmAbout(p model.Point) float64 {
+	if s.sys == nil {
+		panic("solver: CmAbout on a Solution not made by Solve")
+	}
+	c, sn := s.sys.weights(s.AlphaDeg)
+	_, _, cm := s.sys.totals(s.forces, c, sn, p)
+	return cm
+}

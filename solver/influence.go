@@ -1,0 +1,83 @@
+package solver
+
+import "math"
+
+// The velocity induced by one linear-strength vortex panel.
+//
+// Take the panel in its own frame: it runs from P1 at the origin along +x' to
+// P2 at (L, 0); +y' points to the left of the direction P1 → P2, which for a
+// counter-clockwise contour is into the body. The sheet strength varies
+// linearly from γa at P1 to γb at P2,
+//
+//	γ(ξ) = γa + (γb − γa) ξ/L,  0 ≤ ξ ≤ L,
+//
+// and is positive clockwise (the convention of Katz & Plotkin, Low-Speed
+// Aerodynamics, 2nd ed., 2001, sec. 10.3.2, and of Kuethe & Chow,
+// Foundations of Aerodynamics, 5th ed., sec. 5.10): an element γ dξ at (ξ, 0)
+// induces at (x', y')
+//
+//	du' =  γ dξ y'/(2π r²),  dv' = −γ dξ (x' − ξ)/(2π r²),  r² = (x' − ξ)² + y'².
+//
+// With θ(ξ) = atan2(y', x' − ξ), dθ/dξ = y'/r², and the integrals over the
+// panel are elementary. Writing
+//
+//	Δθ = θ2 − θ1 = atan2(y', x' − L) − atan2(y', x'),  λ = ln(r1/r2),
+//
+// with r1, r2 the distances from P1 and P2 (the closed forms of Katz &
+// Plotkin sec. 10.3.2, derived again here in this package's notation):
+//
+//	2π u' = γa Δθ + (γb − γa)/L · (x' Δθ − y' λ)
+//	2π v' = −γa λ + (γb − γa)/L · (L − x' λ − y' Δθ)
+//
+// so the coefficients of γa and γb are
+//
+//	2π ua = Δθ − p,  2π ub = p,  p = (x' Δθ − y' λ)/L,
+//	2π va = −λ − q,  2π vb = q,  q = 1 − (x' λ + y' Δθ)/L.
+//
+// Δθ is the signed angle that the panel subtends at the point, in (−π, π);
+// it is computed with one atan2 of the cross and dot products of the vectors
+// P1 → point and P2 → point, which is frame independent. On the panel itself
+// (y' → 0, 0 < x' < L) Δθ tends to −π from outside the body (y' < 0) and to
+// +π from inside; λ is finite there and zero at the midpoint. The normal
+// component v' is continuous across the sheet and u' jumps by γ: just outside
+// the body the panel's own contribution is u' = −γ/2.
+
+// linearVortex returns the panel-frame velocity coefficients (ua, va) of γa
+// and (ub, vb) of γb at panel-frame point (x, y) of a panel of length l, given
+// the subtended angle dth = Δθ and lam = ln(r1/r2).
+func linearVortex(x, y, l, dth, lam float64) (ua, va, ub, vb float64) {
+	const inv2pi = 1 / (2 * math.Pi)
+	p := (x*dth - y*lam) / l
+	q := 1 - (x*lam+y*dth)/l
+	return (dth - p) * inv2pi, (-lam - q) * inv2pi, p * inv2pi, q * inv2pi
+}
+
+// minDistFrac bounds from below the distance, as a fraction of the panel
+// length, at which the logarithm ln(r1/r2) is evaluated: a field point that
+// falls exactly on a node would otherwise give ln 0. The velocity of a
+// continuous linear vortex sheet is bounded near a node (only the slope of
+// γ jumps there), so the clamp changes nothing measurable.
+const minDistFrac = 1e-12
+
+// panelInfluence returns the global velocity (u, v) per unit γa and per unit
+// γb that panel j induces at point (px, py). It is the exact closed form;
+// the near-node logarithm is clamped (minDistFrac).
+func (g *geometry) panelInfluence(j int, px, py float64) (ua, va, ub, vb float64) {
+	pn := &g.panels[j]
+	r1x, r1y := px-pn.x1, py-pn.y1
+	r2x, r2y := px-pn.x2, py-pn.y2
+	floor := minDistFrac * minDistFrac * pn.l * pn.l
+	r1 := math.Max(r1x*r1x+r1y*r1y, floor)
+	r2 := math.Max(r2x*r2x+r2y*r2y, floor)
+	lam := 0.5 * math.Log(r1/r2)
+	dth := math.Atan2(r1x*r2y-r1y*r2x, r1x*r2x+r1y*r2y)
+	x := r1x*pn.tx + r1y*pn.ty
+	y := -r1x*pn.ty + r1y*pn.tx
+	lua, lva, lub, lvb := linearVortex(x, y, pn.l, dth, lam)
+	// Back to the global frame: x' along t = (tx, ty), y' along (−ty, tx).
+	ua = lua*pn.tx - lva*pn.ty
+	va = lua*pn.ty + lva*pn.tx
+	ub = lub*pn.tx - lvb*pn.ty
+	vb = lub*pn.ty + lvb*pn.tx
+	return ua, va, ub, vb
+}
