@@ -1,0 +1,638 @@
+package model
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+)
+
+// CleanOptions controls Clean.
+type CleanOptions struct {
+	// Derotate turns the section so that the chord (leading edge to
+	// trailing-edge midpoint) lies along +x.
+	Derotate bool
+	// CloseTE closes a blunt trailing edge: both trailing-edge points move
+	// to their midpoint and the surfaces are blended into them over the
+	// last TECloseBlend of the chord.
+	CloseTE bool
+	// DuplicateTol is the distance, relative to the section's size, below
+	// which a point repeats the previous one; 0 means DefaultDuplicateTol.
+	// The size is the larger side of the bounding box of the input, which
+	// is the chord to within the cosine of the section's incidence.
+	DuplicateTol float64
+}
+
+// DefaultCleanOptions derotates and leaves the trailing edge as it is.
+var DefaultCleanOptions = CleanOptions{Derotate: true}
+
+// Cleaning thresholds. They are engineering choices of this package
+// (common practice in preparing coordinates for panel methods, not values
+// from a published source); each warning message states the value used.
+const (
+	// DefaultDuplicateTol: 1e-7 of the chord is far below the 5 or 6
+	// decimals coordinate files carry, so only true repeats are dropped.
+	DefaultDuplicateTol = 1e-7
+	// LESnapTol: when the listed point nearest to the leading edge found on
+	// the spline is within this distance (chord fractions), it is moved
+	// onto it; farther, the leading edge is inserted as a new point.
+	LESnapTol = 1e-5
+	// TECloseBlend: the fraction of the chord over which CloseTE blends
+	// the surfaces into the closed trailing edge, with the smoothstep
+	// weight w = 3s² − 2s³ (zero slope change where the blend starts).
+	TECloseBlend = 0.05
+	// KinkAngleDeg: a turning between consecutive segments above this is a
+	// kink, except at the leading-edge point and its two neighbours (where a
+	// sparse nose turns sharply; see SparseNoseChord) and at the trailing
+	// edge. A smooth section listed with 60 points per surface turns by
+	// under 10° per point away from the nose.
+	KinkAngleDeg = 20.0
+	// SpikeRatio: a point is a spike when it lies farther from the line
+	// through its two neighbours than SpikeRatio times their distance: a
+	// smooth curve gives about h·κ/8, a kink at most a quarter.
+	SpikeRatio = 1.0
+	// SparseNoseChord and MinNosePoints: fewer than MinNosePoints points
+	// within SparseNoseChord of the leading edge (in x) leave the suction
+	// peak unresolved, whatever the repanelling does.
+	SparseNoseChord = 0.02
+	MinNosePoints   = 5
+	// BluntTEGap: a trailing-edge gap above this fraction of the chord is
+	// very blunt; panel methods then need the base modelled explicitly.
+	BluntTEGap = 0.02
+	// MaxWarningsPerKind bounds the warnings of one kind; the rest are
+	// counted in one last warning.
+	MaxWarningsPerKind = 10
+)
+
+// Thresholds of the trailing-edge search (internal; see findTE).
+const (
+	// teSearchFrac: the trailing edge is searched within this distance
+	// (fraction of the size) of the two ends of the section.
+	teSearchFrac = 0.05
+	// bluntCornerDeg: each corner of a blunt trailing edge turns by at
+	// least this much (a square base turns by about 90° at each).
+	bluntCornerDeg = 30.0
+	// startPreference: the file's own start is kept as the trailing edge
+	// when its sharpness is at least this fraction of the best candidate's.
+	startPreference = 0.8
+	// maxClosingGap: a gap between the last and the first point larger than
+	// this fraction of the size means an open line, not a section.
+	maxClosingGap = 0.25
+	// flatAreaFrac: a contour enclosing less than this fraction of its
+	// squared size has no thickness.
+	flatAreaFrac = 1e-9
+	// monotoneTol and crossingTol: chord fractions below which a reversal
+	// of x or an overlap of the surfaces is rounding, not data.
+	monotoneTol = 1e-7
+	crossingTol = 1e-9
+	// reportTol: relative changes smaller than this are not reported.
+	reportTol = 1e-9
+)
+
+// Sentinel errors of Clean, wrapped by *ContourError.
+var (
+	ErrAllPointsEqual = errors.New("all points are equal")
+	ErrOpenContour    = errors.New("open contour: the points do not form a closed section")
+	ErrFlatContour    = errors.New("the contour encloses no area")
+)
+
+// ContourError reports a contour Clean cannot turn into a section.
+type ContourError struct {
+	Name  string
+	Index int // zero-based input point, or -1
+	Err   error
+}
+
+func (e *ContourError) Error() string {
+	if e.Index >= 0 {
+		return fmt.Sprintf("section %q: point %d: %v", e.Name, e.Index+1, e.Err)
+	}
+	return fmt.Sprintf("section %q: %v", e.Name, e.Err)
+}
+
+func (e *ContourError) Unwrap() error { return e.Err }
+
+// WarningKind classifies a CleanWarning.
+type WarningKind string
+
+// The warning kinds.
+const (
+	WarnKink        WarningKind = "kink"
+	WarnCrossing    WarningKind = "crossing"
+	WarnNonMonotone WarningKind = "non-monotone"
+	WarnSparseNose  WarningKind = "sparse-nose"
+	WarnBluntTE     WarningKind = "blunt-te"
+	WarnSpike       WarningKind = "spike"
+	WarnInclined    WarningKind = "inclined" // chord left inclined (Derotate off)
+)
+
+// CleanWarning is something suspicious Clean found and did not fix.
+type CleanWarning struct {
+	Kind    WarningKind
+	Index   int     // zero-based point of the cleaned section, -1 if none
+	X       float64 // x/c of the point, in the cleaned section
+	Message string
+}
+
+// CleanReport says what Clean found and did.
+type CleanReport struct {
+	Source   string   // where the points came from (set by Parsed.Clean)
+	Name     string   // the section's name
+	Detected []string // the parser's notes (set by Parsed.Clean)
+	Changes  []string // every change made, in order
+	Warnings []CleanWarning
+	TEGap    float64 // trailing-edge gap in chords, after normalising, before CloseTE
+	// InputPoints and OutputPoints count the points given and returned.
+	InputPoints, OutputPoints int
+}
+
+// String returns the report as readable lines.
+func (r *CleanReport) String() string {
+	var b strings.Builder
+	fmt.Fprintf(&b, "Section %q", r.Name)
+	if r.Source != "" {
+		fmt.Fprintf(&b, " from %s", r.Source)
+	}
+	fmt.Fprintf(&b, ": %d points in, %d out\n", r.InputPoints, r.OutputPoints)
+	list := func(title string, items []string) {
+		fmt.Fprintf(&b, "%s:", title)
+		if len(items) == 0 {
+			b.WriteString(" none\n")
+			return
+		}
+		b.WriteString("\n")
+		for _, s := range items {
+			fmt.Fprintf(&b, "  - %s\n", s)
+		}
+	}
+	if len(r.Detected) > 0 {
+		list("Detected", r.Detected)
+	}
+	list("Changes", r.Changes)
+	var ws []string
+	for _, w := range r.Warnings {
+		ws = append(ws, fmt.Sprintf("%s: %s", w.Kind, w.Message))
+	}
+	list("Warnings", ws)
+	fmt.Fprintf(&b, "Trailing-edge gap: %.4g%% of the chord\n", 100*r.TEGap)
+	return b.String()
+}
+
+// Clean brings a contour into the package convention and reports every
+// change. In order, it:
+//
+//  1. drops points that repeat the previous one to within DuplicateTol;
+//  2. finds the trailing edge (findTE): a sharp corner or the gap between
+//     two corners at one end of the section, preferring the file's own
+//     start, and starts the contour there (a loop may start anywhere);
+//  3. makes the contour run counter-clockwise: trailing edge, upper
+//     surface, leading edge, lower surface, trailing edge;
+//  4. finds the leading edge on a spline through the points
+//     (ContourSpline.LeadingEdge: the point farthest from the
+//     trailing-edge midpoint), moves it to the origin, scales the chord to
+//     1 and, with Derotate, turns the trailing-edge midpoint onto (1, 0);
+//  5. moves the nearest point onto the leading edge, or inserts it when
+//     that point is farther than LESnapTol;
+//  6. with CloseTE, closes the trailing-edge gap (see TECloseBlend).
+//
+// It then warns, without changing anything, of kinks, spikes, crossing
+// surfaces, x running backwards along a surface, a sparse nose and a very
+// blunt trailing edge (see the constants for the thresholds). Warning
+// indexes refer to the cleaned section's points.
+//
+// Errors are *ContourError wrapping ErrAllPointsEqual, ErrOpenContour,
+// ErrFlatContour, ErrTooFewPoints or ErrNonFinite, or a *FieldError for a
+// bad option. The report is returned even with an error, holding what was
+// found so far.
+func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, error) {
+	rep := &CleanReport{Name: name, InputPoints: len(pts)}
+	fail := func(idx int, err error) (*Section, *CleanReport, error) {
+		return nil, rep, &ContourError{Name: name, Index: idx, Err: err}
+	}
+	tol := opt.DuplicateTol
+	if tol == 0 {
+		tol = DefaultDuplicateTol
+	}
+	if !(tol > 0 && tol <= 1e-3) {
+		return nil, rep, &FieldError{Field: "clean.duplicate_tol", Err: fmt.Errorf("%g is outside (0, 1e-3]", opt.DuplicateTol)}
+	}
+	if len(pts) == 0 {
+		return fail(-1, fmt.Errorf("no points: %w", ErrTooFewPoints))
+	}
+	for i, p := range pts {
+		if !p.IsFinite() {
+			return fail(i, ErrNonFinite)
+		}
+	}
+
+	// Pre-normalise into a box of size 1 about its centre, so that every
+	// tolerance below is a fraction of the size and huge or tiny units
+	// neither overflow nor underflow. q = (p − c)/size.
+	lo, hi := bounds(pts)
+	ctr := Point{lo.X/2 + hi.X/2, lo.Y/2 + hi.Y/2}
+	half := math.Max(hi.X/2-lo.X/2, hi.Y/2-lo.Y/2)
+	if !(half > 1e-14*math.Max(math.Abs(ctr.X), math.Abs(ctr.Y))) {
+		return fail(-1, fmt.Errorf("all %d points are equal: %w", len(pts), ErrAllPointsEqual))
+	}
+	q := make([]Point, len(pts))
+	for i, p := range pts {
+		q[i] = Point{(p.X - ctr.X) / half / 2, (p.Y - ctr.Y) / half / 2}
+	}
+
+	// 1. Duplicates.
+	ring := make([]Point, 0, len(q))
+	orig := make([]int, 0, len(q))
+	var dropped []int
+	for i, p := range q {
+		if len(ring) > 0 && p.Dist(ring[len(ring)-1]) <= tol {
+			dropped = append(dropped, i)
+			continue
+		}
+		ring = append(ring, p)
+		orig = append(orig, i)
+	}
+	closed := false
+	if len(ring) > 2 && ring[len(ring)-1].Dist(ring[0]) <= tol {
+		closed = true
+		ring, orig = ring[:len(ring)-1], orig[:len(orig)-1]
+	}
+	if len(dropped) > 0 {
+		rep.Changes = append(rep.Changes, fmt.Sprintf("dropped %d duplicate %s (within %g of the size of the previous point): %s",
+			len(dropped), plural(len(dropped), "point", "points"), tol, pointList(dropped)))
+	}
+	if len(ring) < MinSectionPoints-1 {
+		return fail(-1, fmt.Errorf("only %d distinct points: %w", len(ring), ErrTooFewPoints))
+	}
+	if !closed {
+		if g := ring[len(ring)-1].Dist(ring[0]); g > maxClosingGap {
+			return fail(-1, fmt.Errorf("the first and last points are %.0f%% of the section's size apart, so the line does not close around a section (a single surface, or two surfaces not joined?): %w", 100*g, ErrOpenContour))
+		}
+	}
+	if a := shoelace(ring) / 2; math.Abs(a) < flatAreaFrac {
+		return fail(-1, fmt.Errorf("the points lie on a line: %w", ErrFlatContour))
+	}
+
+	// 2. Trailing edge, and the contour started there.
+	te := findTE(ring, closed)
+	n := len(ring)
+	var cont []Point
+	var idx []int
+	if te.edge {
+		for k := range n {
+			j := (te.i + 1 + k) % n
+			cont = append(cont, ring[j])
+			idx = append(idx, orig[j])
+		}
+	} else {
+		for k := range n + 1 {
+			j := (te.i + k) % n
+			cont = append(cont, ring[j])
+			idx = append(idx, orig[j])
+		}
+	}
+	fileStart := te.i == n-1 && te.edge && !closed || te.i == 0 && !te.edge && closed
+	switch {
+	case fileStart:
+	case te.i == 0 && !te.edge && !closed:
+		rep.Changes = append(rep.Changes, fmt.Sprintf("repeated the trailing-edge point (point %d) at the end to close the contour", orig[0]+1))
+	default:
+		where := fmt.Sprintf("the sharp corner at point %d (%s)", orig[te.i]+1, fmtPoint(pts[orig[te.i]]))
+		if te.edge {
+			j := (te.i + 1) % n
+			where = fmt.Sprintf("the gap between points %d (%s) and %d (%s)", orig[te.i]+1, fmtPoint(pts[orig[te.i]]), orig[j]+1, fmtPoint(pts[orig[j]]))
+		}
+		msg := "the list did not start at the trailing edge: started the contour at " + where
+		if closed {
+			msg += fmt.Sprintf("; the last point repeated the first (point %d) and was dropped", orig[0]+1)
+		}
+		rep.Changes = append(rep.Changes, msg)
+	}
+
+	// 3. Orientation.
+	if shoelace(cont) < 0 {
+		for i, j := 0, len(cont)-1; i < j; i, j = i+1, j-1 {
+			cont[i], cont[j] = cont[j], cont[i]
+			idx[i], idx[j] = idx[j], idx[i]
+		}
+		rep.Changes = append(rep.Changes, "reversed the point order: the contour ran clockwise (lower surface first); the package runs counter-clockwise, upper surface first")
+	}
+
+	// 4. Leading edge on the spline; translate, scale, derotate.
+	spl, err := NewContourSpline(cont)
+	if err != nil {
+		return fail(-1, err)
+	}
+	tLE, le := spl.LeadingEdge()
+	teMid := cont[0].Add(cont[len(cont)-1]).Scale(0.5)
+	chordQ := teMid.Dist(le)
+	if !(chordQ > 1e-6) {
+		return fail(-1, fmt.Errorf("the leading edge coincides with the trailing edge: %w", ErrFlatContour))
+	}
+	theta := math.Atan2(teMid.Y-le.Y, teMid.X-le.X)
+	rot := -theta
+	if !opt.Derotate {
+		rot = 0
+	}
+	sin, cos := math.Sincos(rot)
+	out := make([]Point, len(cont))
+	for i, p := range cont {
+		d := p.Sub(le).Scale(1 / chordQ)
+		out[i] = Point{cos*d.X - sin*d.Y, sin*d.X + cos*d.Y}
+	}
+	leOrig := Point{le.X*2*half + ctr.X, le.Y*2*half + ctr.Y}
+	chord := chordQ * 2 * half
+	if leOrig.Norm() > reportTol*chord {
+		rep.Changes = append(rep.Changes, fmt.Sprintf("moved the leading edge (found on the spline at %s) to the origin", fmtPoint(leOrig)))
+	}
+	if math.Abs(chord-1) > reportTol {
+		rep.Changes = append(rep.Changes, fmt.Sprintf("scaled by 1/%.6g to unit chord (the chord was %.6g)", chord, chord))
+	}
+	deg := theta * 180 / math.Pi
+	if math.Abs(theta) > reportTol {
+		if opt.Derotate {
+			rep.Changes = append(rep.Changes, fmt.Sprintf("rotated by %.4f° so that the chord lies along x (it was inclined at %.4f°)", -deg, deg))
+		} else {
+			rep.Warnings = append(rep.Warnings, CleanWarning{Kind: WarnInclined, Index: -1, Message: fmt.Sprintf("the chord is inclined at %.4f° and was left so (derotation off)", deg)})
+		}
+	}
+
+	// 5. The leading-edge point.
+	near, nd := 0, math.Inf(1)
+	for i, p := range out {
+		if d := p.Norm(); d < nd {
+			near, nd = i, d
+		}
+	}
+	leIdx := near
+	switch {
+	case nd <= LESnapTol:
+		out[near] = Point{}
+		if nd > reportTol {
+			rep.Changes = append(rep.Changes, fmt.Sprintf("moved point %d onto the leading edge found on the spline (by %.2g of the chord)", idx[near]+1, nd))
+		}
+	default:
+		knots := spl.Knots()
+		j := 0
+		for j+2 < len(knots) && knots[j+1] <= tLE {
+			j++
+		}
+		out = append(out[:j+1], append([]Point{{}}, out[j+1:]...)...)
+		idx = append(idx[:j+1], append([]int{-1}, idx[j+1:]...)...)
+		leIdx = j + 1
+		rep.Changes = append(rep.Changes, fmt.Sprintf("inserted the leading edge found on the spline as a new point %d (the nearest listed point was %.2g of the chord away)", leIdx+1, nd))
+	}
+
+	// 6. Trailing-edge gap.
+	last := len(out) - 1
+	rep.TEGap = out[0].Dist(out[last])
+	if opt.CloseTE && rep.TEGap > 0 {
+		mid := out[0].Add(out[last]).Scale(0.5)
+		blend := func(from, to, step int, p0 Point) {
+			x0 := p0.X - TECloseBlend
+			d := mid.Sub(p0)
+			for i := from; i != to; i += step {
+				s := (out[i].X - x0) / (p0.X - x0)
+				if s <= 0 {
+					continue
+				}
+				s = math.Min(s, 1)
+				out[i] = out[i].Add(d.Scale(s * s * (3 - 2*s)))
+			}
+		}
+		blend(1, leIdx, 1, out[0])
+		blend(last-1, leIdx, -1, out[last])
+		out[0], out[last] = mid, mid
+		rep.Changes = append(rep.Changes, fmt.Sprintf("closed the trailing-edge gap of %.4g%% of the chord: both trailing-edge points moved to their midpoint, the surfaces blended into it over the last %g%% of the chord", 100*rep.TEGap, 100*TECloseBlend))
+	}
+
+	rep.Warnings = append(rep.Warnings, sectionWarnings(out, leIdx, rep.TEGap, opt.CloseTE)...)
+	sec, err := NewSection(name, out)
+	if err != nil {
+		return fail(-1, err)
+	}
+	rep.OutputPoints = sec.Len()
+	return sec, rep, nil
+}
+
+// teChoice is the trailing edge in a ring: vertex i (sharp), or the gap
+// edge from ring[i] to ring[i+1] (blunt).
+type teChoice struct {
+	i     int
+	edge  bool
+	score float64 // turning in degrees: the vertex's, or both corners'
+}
+
+// findTE finds the trailing edge of a ring of distinct points. The two ends
+// of the section are the point A farthest from the centroid (either edge)
+// and the point B farthest from A; a third pass takes the point farthest
+// from B in place of A. Near each end (within teSearchFrac) the candidates
+// are single vertices, scored by their convex turning angle, and pairs of
+// neighbouring vertices that both turn by at least bluntCornerDeg (the
+// corners of a blunt trailing edge, the edge between them being the gap),
+// scored by the sum. The trailing edge, turning by 180° less its wedge
+// angle in one or two corners, outscores the round leading edge. The
+// file's own start (vertex 0 of a closed ring, the closing edge of an open
+// one) is kept when it scores at least startPreference of the best.
+func findTE(ring []Point, closed bool) teChoice {
+	n := len(ring)
+	sign := 1.0
+	if shoelace(ring) < 0 {
+		sign = -1
+	}
+	turn := make([]float64, n) // convex turning in degrees
+	for i := range ring {
+		a, b, c := ring[(i+n-1)%n], ring[i], ring[(i+1)%n]
+		u, v := b.Sub(a), c.Sub(b)
+		turn[i] = sign * math.Atan2(u.Cross(v), u.Dot(v)) * 180 / math.Pi
+	}
+	var cen Point
+	for _, p := range ring {
+		cen = cen.Add(p)
+	}
+	cen = cen.Scale(1 / float64(n))
+	far := func(from Point) int {
+		best, bd := 0, -1.0
+		for i, p := range ring {
+			if d := p.Dist(from); d > bd {
+				best, bd = i, d
+			}
+		}
+		return best
+	}
+	a := far(cen)
+	b := far(ring[a])
+	a = far(ring[b])
+	candidates := func(end int) []teChoice {
+		var cs []teChoice
+		near := func(i int) bool { return ring[i].Dist(ring[end]) <= teSearchFrac }
+		for i := range ring {
+			if !near(i) {
+				continue
+			}
+			cs = append(cs, teChoice{i: i, score: turn[i]})
+			j := (i + 1) % n
+			if near(j) && turn[i] >= bluntCornerDeg && turn[j] >= bluntCornerDeg {
+				cs = append(cs, teChoice{i: i, edge: true, score: turn[i] + turn[j]})
+			}
+		}
+		return cs
+	}
+	all := append(candidates(a), candidates(b)...)
+	best := all[0]
+	for _, c := range all[1:] {
+		if c.score > best.score {
+			best = c
+		}
+	}
+	start := teChoice{i: 0}
+	if !closed {
+		start = teChoice{i: n - 1, edge: true}
+	}
+	for _, c := range all {
+		if c.i == start.i && c.edge == start.edge && c.score >= startPreference*best.score {
+			return c
+		}
+	}
+	if !closed {
+		// A file that lists a sharp trailing edge once, at the start only.
+		for _, c := range all {
+			if c.i == 0 && !c.edge && c.score >= startPreference*best.score {
+				return c
+			}
+		}
+	}
+	return best
+}
+
+// sectionWarnings checks a normalised contour (leading edge at index le).
+func sectionWarnings(pts []Point, le int, gap float64, closedTE bool) []CleanWarning {
+	var ws []CleanWarning
+	count := map[WarningKind]int{}
+	add := func(k WarningKind, i int, msg string) {
+		count[k]++
+		if count[k] > MaxWarningsPerKind {
+			return
+		}
+		x := 0.0
+		if i >= 0 {
+			x = pts[i].X
+		}
+		ws = append(ws, CleanWarning{Kind: k, Index: i, X: x, Message: msg})
+	}
+	n := len(pts)
+	if gap > BluntTEGap {
+		msg := fmt.Sprintf("trailing-edge gap of %.3g%% of the chord, above %g%%: results near the trailing edge are unreliable", 100*gap, 100*BluntTEGap)
+		if closedTE {
+			msg += "; closing it reshaped the last part of the section considerably"
+		}
+		add(WarnBluntTE, -1, msg)
+	}
+	nose := 0
+	for _, p := range pts[:n-1] {
+		if p.X < SparseNoseChord {
+			nose++
+		}
+	}
+	if nose < MinNosePoints {
+		add(WarnSparseNose, le, fmt.Sprintf("%d points within %g%% of the chord from the leading edge, fewer than %d: the nose shape and the suction peak are poorly defined", nose, 100*SparseNoseChord, MinNosePoints))
+	}
+	// Spikes, then kinks away from them.
+	spike := make([]bool, n)
+	for i := 1; i < n-1; i++ {
+		if i == le {
+			continue
+		}
+		a, b, c := pts[i-1], pts[i], pts[i+1]
+		h := a.Dist(c)
+		d := math.Abs(c.Sub(a).Cross(b.Sub(a)))
+		if h > 0 {
+			d /= h
+		} else {
+			d = b.Dist(a)
+		}
+		if d > SpikeRatio*h {
+			spike[i] = true
+			add(WarnSpike, i, fmt.Sprintf("point %d (x/c = %.4f) lies %.3g of the chord off the line through its neighbours, more than %g times their distance", i+1, b.X, d, SpikeRatio))
+		}
+	}
+	for i := 1; i < n-1; i++ {
+		if i >= le-1 && i <= le+1 || spike[i] || spike[i-1] || (i+1 < n && spike[i+1]) {
+			continue
+		}
+		u, v := pts[i].Sub(pts[i-1]), pts[i+1].Sub(pts[i])
+		t := math.Atan2(u.Cross(v), u.Dot(v)) * 180 / math.Pi
+		if math.Abs(t) > KinkAngleDeg {
+			add(WarnKink, i, fmt.Sprintf("the contour turns by %.1f° at point %d (x/c = %.4f), more than %g°", t, i+1, pts[i].X, KinkAngleDeg))
+		}
+	}
+	// x must fall along the upper surface and rise along the lower.
+	for _, s := range []struct {
+		name      string
+		from, to  int
+		direction float64
+	}{{"upper", 0, le, -1}, {"lower", le, n - 1, 1}} {
+		bad, first := 0, -1
+		for i := s.from; i < s.to; i++ {
+			if s.direction*(pts[i+1].X-pts[i].X) < -monotoneTol {
+				if first < 0 {
+					first = i + 1
+				}
+				bad++
+			}
+		}
+		if bad > 0 {
+			add(WarnNonMonotone, first, fmt.Sprintf("x runs backwards along the %s surface at %d %s, first at point %d (x/c = %.4f)", s.name, bad, plural(bad, "point", "points"), first+1, pts[first].X))
+		}
+	}
+	// Crossing: an upper point below the lower surface, or a lower point
+	// above the upper surface, away from the ends.
+	upper, lower := pts[:le+1], pts[le:]
+	for _, s := range []struct {
+		name       string
+		own, other []Point
+		offset     int
+		sign       float64
+		otherName  string
+	}{{"upper", upper, lower, 0, 1, "lower"}, {"lower", lower, upper, le, -1, "upper"}} {
+		in := false
+		for k, p := range s.own {
+			if p.X <= 0 || p.X >= 1 {
+				continue
+			}
+			y, ok := interpAt(s.other, p.X)
+			cross := ok && s.sign*(p.Y-y) < -crossingTol
+			if cross && !in {
+				add(WarnCrossing, s.offset+k, fmt.Sprintf("the %s surface crosses the %s surface near point %d (x/c = %.4f)", s.name, s.otherName, s.offset+k+1, p.X))
+			}
+			in = cross
+		}
+	}
+	for _, k := range []WarningKind{WarnSpike, WarnKink, WarnNonMonotone, WarnCrossing} {
+		if c := count[k]; c > MaxWarningsPerKind {
+			ws = append(ws, CleanWarning{Kind: k, Index: -1, Message: fmt.Sprintf("and %d more %s warnings", c-MaxWarningsPerKind, k)})
+		}
+	}
+	return ws
+}
+
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
+}
+
+// pointList lists 1-based point numbers, at most 8 of them.
+func pointList(idx []int) string {
+	var s []string
+	for k, i := range idx {
+		if k == 8 {
+			s = append(s, fmt.Sprintf("and %d more", len(idx)-8))
+			break
+		}
+		s = append(s, fmt.Sprint(i+1))
+	}
+	return "points " + strings.Join(s, ", ")
+}
+
+func fmtPoint(p Point) string { return fmt.Sprintf("%.6g, %.6g", p.X, p.Y) }
