@@ -1,0 +1,353 @@
+// Package export turns Sectionbench's geometry and results into things that
+// leave the program: figures (gonum/plot), coordinate and table files, the
+// manufacturing outline (DXF, SVG) and, in export/report, the PDF report.
+// Writers take an io.Writer; the caller chooses the file (atomically, with
+// WriteFileAtomic). The package does no GUI work and never imports fyne.
+//
+// # Figures
+//
+// Each View is built as a *plot.Plot from a Scene by PlotView. Render draws
+// one into an *image.RGBA for the desktop app, off the UI thread if the
+// caller likes (it shares no state), and returns the transform between
+// pixels and data so the cursor can be read as data values. WriteFigure
+// writes PNG, SVG or PDF.
+//
+// Lengths in the panels and streamlines views are millimetres in the study
+// frame (the Layout's metres × 1000); the pressure view uses x/c, the polar
+// views the angle of attack in degrees.
+package export
+
+import (
+	"errors"
+	"fmt"
+	"image"
+	"io"
+	"math"
+	"strings"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgpdf"
+	"gonum.org/v1/plot/vg/vgsvg"
+
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+// View names one figure of the workbench.
+type View int
+
+// The views. The first four are the live views of the workbench.
+const (
+	// ViewPanels draws every element's panel nodes and control points.
+	ViewPanels View = iota
+	// ViewPressure draws Cp against x/c, negative up.
+	ViewPressure
+	// ViewStreamlines draws the sections and the streamlines about them.
+	ViewStreamlines
+	// ViewPolar draws Cl and Cm against the angle of attack.
+	ViewPolar
+	// ViewDragPolar draws Cl against Cd from the boundary-layer estimate
+	// of a sweep.
+	ViewDragPolar
+	// ViewBoundaryLayer draws θ, δ*, H and Cf against x/c per surface.
+	ViewBoundaryLayer
+	// ViewLiftToDrag draws Cl/Cd against the angle of attack.
+	ViewLiftToDrag
+)
+
+var viewNames = [...]string{"panels", "pressure", "streamlines", "polar", "drag-polar", "boundary-layer", "lift-to-drag"}
+
+// Views lists every view in order.
+var Views = []View{ViewPanels, ViewPressure, ViewStreamlines, ViewPolar, ViewDragPolar, ViewBoundaryLayer, ViewLiftToDrag}
+
+// String returns the view's short name, as used in file names.
+func (v View) String() string {
+	if v < 0 || int(v) >= len(viewNames) {
+		return fmt.Sprintf("View(%d)", int(v))
+	}
+	return viewNames[v]
+}
+
+// Window is the visible data range of the panels and streamlines views, in
+// millimetres. The zero value frames the configuration automatically.
+type Window struct {
+	XMin, XMax, YMin, YMax float64
+}
+
+// IsZero reports whether w is the zero value (automatic framing).
+func (w Window) IsZero() bool { return w == Window{} }
+
+func (w Window) valid() bool {
+	return w.XMax > w.XMin && w.YMax > w.YMin &&
+		!math.IsInf(w.XMin, 0) && !math.IsInf(w.XMax, 0) && !math.IsInf(w.YMin, 0) && !math.IsInf(w.YMax, 0)
+}
+
+// DragPoint is the boundary-layer estimate at one angle of a sweep. NaN
+// marks a value that is not available (the estimate failed at that angle).
+type DragPoint struct {
+	Cd       float64 // Squire–Young drag coefficient on the reference chord
+	XTrUpper float64 // transition x/c on the upper surface
+	XTrLower float64 // transition x/c on the lower surface
+}
+
+// Scene is everything the figures draw. Only the fields a view needs must be
+// set: the panels view needs Layout or Config; the pressure view Solution;
+// the streamlines view Layout or Config (and Streamlines); the polar view Sweep; the drag
+// polar and lift-to-drag views Sweep and Drag; the boundary-layer view Viscous.
+type Scene struct {
+	// Layout is the placed configuration, in metres. Config, when set, is
+	// the geometry as solved (rotated to the angle of attack in ground
+	// effect); the panels and streamlines views draw it in preference to
+	// Layout so that streamlines and bodies share a frame.
+	Layout   *model.Layout
+	Config   *solver.Config
+	Solution *solver.Solution
+	Sweep    []solver.Coefficients
+	Drag     []DragPoint // aligned with Sweep; nil when the sweep has no boundary-layer estimate
+
+	Pins        []model.Pin
+	AlphaDeg    float64 // current angle of attack, marked on the polars
+	Element     int     // element shown in the pressure view; -1 = all
+	SpeedColour bool    // colour streamlines by local speed
+
+	GroundY  float64 // ground plane height, m, in the Layout's frame
+	Ground   bool
+	Inverted bool
+
+	Window Window // zoom and pan of the panels and streamlines views
+	Dark   bool   // colours for a dark theme
+}
+
+// ErrNoData is wrapped by the errors of PlotView when the scene lacks what a
+// view needs.
+var ErrNoData = errors.New("nothing to draw")
+
+// ViewError reports why a view could not be built.
+type ViewError struct {
+	View View
+	Err  error
+}
+
+func (e *ViewError) Error() string { return "export: " + e.View.String() + " view: " + e.Err.Error() }
+
+func (e *ViewError) Unwrap() error { return e.Err }
+
+func noData(v View, what string) error {
+	return &ViewError{View: v, Err: fmt.Errorf("%w: %s", ErrNoData, what)}
+}
+
+// PlotView builds view v of sc. Views with equal aspect (panels,
+// streamlines) are framed for a 3:2 data area; Render and WriteFigure
+// reframe them for the actual size, and FitAspect does so for callers that
+// draw the plot themselves. It returns a *ViewError wrapping ErrNoData when
+// sc lacks the data v needs.
+func PlotView(v View, sc *Scene) (*plot.Plot, error) {
+	p, _, err := buildView(v, sc)
+	return p, err
+}
+
+// viewInfo carries what drawing needs to know beyond the plot itself.
+type viewInfo struct {
+	equal bool // equal aspect: one data unit is as long on both axes
+}
+
+func buildView(v View, sc *Scene) (*plot.Plot, viewInfo, error) {
+	if sc == nil {
+		panic("export: nil scene")
+	}
+	th := themeFor(sc.Dark)
+	var (
+		p    *plot.Plot
+		info viewInfo
+		err  error
+	)
+	switch v {
+	case ViewPanels:
+		p, err = panelsPlot(sc, th)
+		info.equal = true
+	case ViewPressure:
+		p, err = pressurePlot(sc, th)
+	case ViewStreamlines:
+		p, err = streamlinesPlot(sc, th)
+		info.equal = true
+	case ViewPolar:
+		p, err = polarPlot(sc, th)
+	case ViewDragPolar:
+		p, err = dragPolarPlot(sc, th)
+	case ViewBoundaryLayer:
+		p, err = boundaryLayerPlot(sc, th)
+	case ViewLiftToDrag:
+		p, err = liftToDragPlot(sc, th)
+	default:
+		panic(fmt.Sprintf("export: unknown view %d", int(v)))
+	}
+	if err != nil {
+		return nil, info, err
+	}
+	if info.equal {
+		fitAspect(p, draw.Canvas{Rectangle: vg.Rectangle{Max: vg.Point{X: 6 * vg.Inch, Y: 4 * vg.Inch}}})
+	}
+	return p, info, nil
+}
+
+// FitAspect widens p's x or y range about its centre so that one data unit
+// has the same length on both axes when p is drawn on a canvas of width w
+// and height h. The panels and streamlines views need it; it is harmless on
+// others only if their axes share a unit.
+func FitAspect(p *plot.Plot, w, h vg.Length) {
+	fitAspect(p, draw.Canvas{Rectangle: vg.Rectangle{Max: vg.Point{X: w, Y: h}}})
+}
+
+// fitAspect iterates because the data area depends on the tick labels,
+// which depend on the ranges; three rounds settle it in practice.
+func fitAspect(p *plot.Plot, c draw.Canvas) {
+	x0, x1, y0, y1 := p.X.Min, p.X.Max, p.Y.Min, p.Y.Max
+	for range 3 {
+		da := p.DataCanvas(c)
+		pw, ph := float64(da.Max.X-da.Min.X), float64(da.Max.Y-da.Min.Y)
+		if pw <= 0 || ph <= 0 {
+			return
+		}
+		dx, dy := x1-x0, y1-y0
+		if dx/pw > dy/ph { // x is the binding range: widen y
+			ny := dx / pw * ph
+			cy := (y0 + y1) / 2
+			p.X.Min, p.X.Max = x0, x1
+			p.Y.Min, p.Y.Max = cy-ny/2, cy+ny/2
+		} else {
+			nx := dy / ph * pw
+			cx := (x0 + x1) / 2
+			p.X.Min, p.X.Max = cx-nx/2, cx+nx/2
+			p.Y.Min, p.Y.Max = y0, y1
+		}
+	}
+}
+
+// Figure is a view rendered into an image, with the transform between its
+// pixels and the data.
+type Figure struct {
+	Image *image.RGBA
+	// Plot is the pixel rectangle of the data area in Image.
+	Plot image.Rectangle
+	// X and Y are the data ranges across Plot: X[0] at Plot.Min.X, X[1] at
+	// Plot.Max.X; Y[0] at the bottom edge unless YDown.
+	X, Y [2]float64
+	// YDown is true when the data y grows downwards in the image, as Cp
+	// does in the pressure view.
+	YDown bool
+
+	// Exact data-area edges in pixels (Plot is these rounded).
+	x0, x1, y0, y1 float64
+}
+
+// Render draws view v of sc into a widthPx × heightPx image at dpi dots per
+// inch (which sets the size of text and lines: 96 is a common screen
+// value). It panics if a size or the dpi is not positive.
+func Render(v View, sc *Scene, widthPx, heightPx int, dpi float64) (*Figure, error) {
+	if widthPx <= 0 || heightPx <= 0 || !(dpi > 0) {
+		panic(fmt.Sprintf("export: bad render size %d×%d at %g dpi", widthPx, heightPx, dpi))
+	}
+	p, info, err := buildView(v, sc)
+	if err != nil {
+		return nil, err
+	}
+	img := image.NewRGBA(image.Rect(0, 0, widthPx, heightPx))
+	cv := vgimg.NewWith(vgimg.UseImage(img), vgimg.UseDPI(int(math.Round(dpi))))
+	dc := draw.New(cv)
+	if info.equal {
+		fitAspect(p, dc)
+	}
+	p.Draw(dc)
+	da := p.DataCanvas(dc)
+	// vg lengths are points (1/72 in) from the bottom-left corner.
+	s := float64(cv.DPI()) / 72
+	f := &Figure{
+		Image: cv.Image().(*image.RGBA),
+		X:     [2]float64{p.X.Min, p.X.Max},
+		Y:     [2]float64{p.Y.Min, p.Y.Max},
+		x0:    float64(da.Min.X) * s,
+		x1:    float64(da.Max.X) * s,
+		y0:    float64(heightPx) - float64(da.Max.Y)*s,
+		y1:    float64(heightPx) - float64(da.Min.Y)*s,
+	}
+	_, f.YDown = p.Y.Scale.(plot.InvertedScale)
+	f.Plot = image.Rect(int(math.Round(f.x0)), int(math.Round(f.y0)), int(math.Round(f.x1)), int(math.Round(f.y1)))
+	return f, nil
+}
+
+// DataAt returns the data coordinates under pixel (px, py) of f.Image; ok is
+// false outside the data area.
+func (f *Figure) DataAt(px, py int) (x, y float64, ok bool) {
+	fx := (float64(px) + 0.5 - f.x0) / (f.x1 - f.x0)
+	fy := (float64(py) + 0.5 - f.y0) / (f.y1 - f.y0) // 0 at the top
+	if fx < 0 || fx > 1 || fy < 0 || fy > 1 {
+		return 0, 0, false
+	}
+	x = f.X[0] + fx*(f.X[1]-f.X[0])
+	if f.YDown {
+		y = f.Y[0] + fy*(f.Y[1]-f.Y[0])
+	} else {
+		y = f.Y[1] - fy*(f.Y[1]-f.Y[0])
+	}
+	return x, y, true
+}
+
+// PixelAt returns the pixel position of data point (x, y), the inverse of
+// DataAt; points outside the data range map outside f.Plot.
+func (f *Figure) PixelAt(x, y float64) (px, py float64) {
+	fx := (x - f.X[0]) / (f.X[1] - f.X[0])
+	fy := (y - f.Y[0]) / (f.Y[1] - f.Y[0])
+	if !f.YDown {
+		fy = 1 - fy
+	}
+	return f.x0 + fx*(f.x1-f.x0) - 0.5, f.y0 + fy*(f.y1-f.y0) - 0.5
+}
+
+// Figure formats accepted by WriteFigure.
+const (
+	FormatPNG = "png"
+	FormatSVG = "svg"
+	FormatPDF = "pdf"
+)
+
+// ErrFormat is wrapped by WriteFigure's error for an unknown format.
+var ErrFormat = errors.New("unknown figure format")
+
+// WriteFigure writes view v of sc to w as "png", "svg" or "pdf", widthIn ×
+// heightIn inches; dpi is used by PNG only. Text in SVG and PDF refers to the
+// Liberation fonts by name; PDF embeds them.
+func WriteFigure(w io.Writer, v View, sc *Scene, format string, widthIn, heightIn, dpi float64) error {
+	if !(widthIn > 0 && heightIn > 0) {
+		panic(fmt.Sprintf("export: bad figure size %g × %g in", widthIn, heightIn))
+	}
+	format = strings.ToLower(format)
+	var cv vg.CanvasWriterTo
+	wl, hl := vg.Length(widthIn)*vg.Inch, vg.Length(heightIn)*vg.Inch
+	switch format {
+	case FormatPNG:
+		if !(dpi > 0) {
+			panic(fmt.Sprintf("export: bad dpi %g", dpi))
+		}
+		cv = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(wl, hl), vgimg.UseDPI(int(math.Round(dpi))))}
+	case FormatSVG:
+		cv = vgsvg.New(wl, hl)
+	case FormatPDF:
+		cv = vgpdf.New(wl, hl)
+	default:
+		return fmt.Errorf("export: %q (want png, svg or pdf): %w", format, ErrFormat)
+	}
+	p, info, err := buildView(v, sc)
+	if err != nil {
+		return err
+	}
+	dc := draw.New(cv)
+	if info.equal {
+		fitAspect(p, dc)
+	}
+	p.Draw(dc)
+	_, err = cv.WriteTo(w)
+	return err
+}
