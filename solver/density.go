@@ -1,0 +1,273 @@
+package solver
+
+import (
+	"context"
+	"fmt"
+	"math"
+
+	"sectionbench/model"
+)
+
+// DefaultDensityPanels are the panel counts a density study runs when none
+// are given: a constant refinement ratio of 2, so that the three finest give
+// an observed order and a Richardson extrapolation.
+var DefaultDensityPanels = []int{20, 40, 80, 160, 320, 640}
+
+// Default tolerances of a density study's recommendation, in percent of the
+// extrapolated value.
+const (
+	DefaultTolClPct    = 0.5
+	DefaultTolCpMinPct = 2.0
+)
+
+// Floors of the denominators of the density study's relative tolerances,
+// so that a value near zero (Cl of a symmetric section at 0°) is judged on
+// an absolute scale: a tenth of a typical working Cl, and a tenth of a
+// typical suction peak.
+const (
+	densityClFloor    = 0.1
+	densityCpMinFloor = 0.1
+)
+
+// DensityOptions set up a density study.
+type DensityOptions struct {
+	Panels []int     // strictly increasing; empty means DefaultDensityPanels
+	Nose   []float64 // nose clustering values in [0, 1]; empty means model.DefaultPanelling.Nose only
+	// Tolerances of the recommendation in percent; 0 means
+	// DefaultTolClPct and DefaultTolCpMinPct.
+	TolClPct, TolCpMinPct float64
+}
+
+// DensityRow is the result at one panel count and nose clustering.
+type DensityRow struct {
+	Panels           int
+	Nose             float64
+	Cl, Cm, CpMin    float64 // of the whole configuration (CpMin: the lowest over all elements)
+	DCl, DCm, DCpMin float64 // change from the previous count at the same nose value; NaN for the first
+	// MinPanelLength and MaxPanelLength are the shortest and longest panel
+	// over all elements, each on its element's chord.
+	MinPanelLength, MaxPanelLength float64
+}
+
+// Extrapolation is a Richardson extrapolation from the three finest counts.
+type Extrapolation struct {
+	Value         float64 // extrapolated to infinitely many panels; the finest value when !OK
+	ErrorEstimate float64 // |Value − finest value|; NaN when !OK
+	ObservedOrder float64 // NaN when !OK or when the values did not change
+	OK            bool    // false when the three finest values are not monotonically converging or the ratio is not constant
+}
+
+// DensitySeries is the outcome for one nose clustering value.
+type DensitySeries struct {
+	Nose              float64
+	Cl, Cm, CpMin     Extrapolation
+	RecommendedPanels int // smallest count that, with every finer one, meets the tolerances; 0 if none
+}
+
+// DensityResult is the outcome of a density study. Cl, Cm, CpMin and
+// RecommendedPanels repeat Series[0], the first nose value, for callers
+// that run one.
+type DensityResult struct {
+	Rows              []DensityRow // nose-major: every count for the first nose, then the next
+	Cl, Cm, CpMin     Extrapolation
+	RecommendedPanels int
+	Series            []DensitySeries
+}
+
+// ObservedOrder returns the order of convergence observed in three values
+// from coarse to fine, f1, f2, f3, at a constant refinement ratio r > 1:
+//
+//	p = ln((f1 − f2)/(f2 − f3)) / ln r
+//
+// (Roache, Verification and Validation in Computational Science and
+// Engineering, 1998, ch. 5). ok is false unless the changes have the same
+// sign and shrink, that is unless the sequence converges monotonically.
+func ObservedOrder(f1, f2, f3, r float64) (p float64, ok bool) {
+	if !(r > 1) {
+		panic(fmt.Sprintf("solver: ObservedOrder: refinement ratio %g ≤ 1", r))
+	}
+	d12, d23 := f1-f2, f2-f3
+	if !(d12*d23 > 0) || !(math.Abs(d23) < math.Abs(d12)) {
+		return math.NaN(), false
+	}
+	return math.Log(d12/d23) / math.Log(r), true
+}
+
+// Richardson returns the extrapolation of the two finest values f2, f3 at
+// refinement ratio r and order p (Richardson, Phil. Trans. R. Soc. A 210,
+// 1911; Roache 1998):
+//
+//	value = f3 + (f3 − f2)/(r^p − 1),  errEstimate = |value − f3|.
+func Richardson(f2, f3, r, p float64) (value, errEstimate float64) {
+	d := (f3 - f2) / (math.Pow(r, p) - 1)
+	return f3 + d, math.Abs(d)
+}
+
+// DensityStudy runs solve at every panel count for every nose value, in
+// that order, and judges convergence: each quantity is extrapolated from
+// the three finest counts, and the recommendation is the smallest count
+// whose Cl and CpMin, and those of every finer count, lie within the
+// tolerances of the extrapolated values (relative, with floors of 0.1 in
+// the denominators). A count is recommended only where the Cl
+// extrapolation is OK; CpMin is compared with its extrapolation if that
+// is OK and with the finest value otherwise, because the suction peak
+// often converges unevenly as it moves between panels.
+//
+// progress, if not nil, is called after each solve with the number done and
+// the total. The context is checked before each solve; on cancellation
+// DensityStudy returns ctx.Err(). Bad options return a *model.FieldError
+// naming the density-plan field; an error from solve is returned wrapped
+// with the count and nose value.
+func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int, nose float64) (*Solution, error), progress func(done, total int)) (*DensityResult, error) {
+	opt, err := opt.withDefaults()
+	if err != nil {
+		return nil, err
+	}
+	total := len(opt.Panels) * len(opt.Nose)
+	res := &DensityResult{}
+	done := 0
+	for _, nose := range opt.Nose {
+		first := len(res.Rows)
+		for k, n := range opt.Panels {
+			if err := ctx.Err(); err != nil {
+				return nil, err
+			}
+			sol, err := solve(n, nose)
+			if err != nil {
+				return nil, fmt.Errorf("density study at %d panels, nose %g: %w", n, nose, err)
+			}
+			row := densityRow(sol, n, nose)
+			if k > 0 {
+				prev := res.Rows[len(res.Rows)-1]
+				row.DCl, row.DCm, row.DCpMin = row.Cl-prev.Cl, row.Cm-prev.Cm, row.CpMin-prev.CpMin
+			}
+			res.Rows = append(res.Rows, row)
+			done++
+			if progress != nil {
+				progress(done, total)
+			}
+		}
+		res.Series = append(res.Series, densitySeries(res.Rows[first:], nose, opt))
+	}
+	s0 := res.Series[0]
+	res.Cl, res.Cm, res.CpMin, res.RecommendedPanels = s0.Cl, s0.Cm, s0.CpMin, s0.RecommendedPanels
+	return res, nil
+}
+
+// withDefaults fills in defaults and validates the options.
+func (o DensityOptions) withDefaults() (DensityOptions, error) {
+	if len(o.Panels) == 0 {
+		o.Panels = DefaultDensityPanels
+	}
+	o.Panels = append([]int(nil), o.Panels...)
+	for i, n := range o.Panels {
+		if n < model.MinPanels || n > model.MaxPanels {
+			return o, &model.FieldError{Field: fmt.Sprintf("density.panels[%d]", i), Err: fmt.Errorf("%d is outside %d..%d", n, model.MinPanels, model.MaxPanels)}
+		}
+		if i > 0 && n <= o.Panels[i-1] {
+			return o, &model.FieldError{Field: fmt.Sprintf("density.panels[%d]", i), Err: fmt.Errorf("%d does not exceed the previous count %d", n, o.Panels[i-1])}
+		}
+	}
+	if len(o.Nose) == 0 {
+		o.Nose = []float64{model.DefaultPanelling.Nose}
+	}
+	o.Nose = append([]float64(nil), o.Nose...)
+	for i, v := range o.Nose {
+		if !(v >= 0 && v <= 1) {
+			return o, &model.FieldError{Field: fmt.Sprintf("density.nose[%d]", i), Err: fmt.Errorf("%g is outside [0, 1]", v)}
+		}
+	}
+	for _, t := range []struct {
+		field string
+		v     *float64
+		def   float64
+	}{{"density.tol_cl_pct", &o.TolClPct, DefaultTolClPct}, {"density.tol_cp_min_pct", &o.TolCpMinPct, DefaultTolCpMinPct}} {
+		if *t.v == 0 {
+			*t.v = t.def
+		}
+		if !(*t.v > 0 && *t.v <= 100) {
+			return o, &model.FieldError{Field: t.field, Err: fmt.Errorf("%g is outside (0, 100] %%", *t.v)}
+		}
+	}
+	return o, nil
+}
+
+// densityRow condenses one solution.
+func densityRow(sol *Solution, n int, nose float64) DensityRow {
+	nan := math.NaN()
+	row := DensityRow{Panels: n, Nose: nose, Cl: sol.Cl, Cm: sol.Cm, CpMin: math.Inf(1),
+		DCl: nan, DCm: nan, DCpMin: nan, MinPanelLength: math.Inf(1), MaxPanelLength: 0}
+	for _, e := range sol.Elements {
+		row.CpMin = math.Min(row.CpMin, e.CpMin)
+		// Panel lengths from the midpoint arc lengths: S_0 = L_0/2 and
+		// S_i − S_(i−1) = (L_(i−1) + L_i)/2.
+		l := 0.0
+		for i, p := range e.Panels {
+			if i == 0 {
+				l = 2 * p.S
+			} else {
+				l = 2*(p.S-e.Panels[i-1].S) - l
+			}
+			row.MinPanelLength = math.Min(row.MinPanelLength, l/e.Chord)
+			row.MaxPanelLength = math.Max(row.MaxPanelLength, l/e.Chord)
+		}
+	}
+	return row
+}
+
+// densitySeries extrapolates one nose value's rows and recommends a count.
+func densitySeries(rows []DensityRow, nose float64, opt DensityOptions) DensitySeries {
+	ser := DensitySeries{Nose: nose}
+	get := func(f func(DensityRow) float64) []float64 {
+		v := make([]float64, len(rows))
+		for i, r := range rows {
+			v[i] = f(r)
+		}
+		return v
+	}
+	counts := opt.Panels
+	cl := get(func(r DensityRow) float64 { return r.Cl })
+	cpm := get(func(r DensityRow) float64 { return r.CpMin })
+	ser.Cl = extrapolate(counts, cl)
+	ser.Cm = extrapolate(counts, get(func(r DensityRow) float64 { return r.Cm }))
+	ser.CpMin = extrapolate(counts, cpm)
+	if !ser.Cl.OK {
+		return ser
+	}
+	within := func(v, ref, floor, pct float64) bool {
+		return math.Abs(v-ref) <= pct/100*math.Max(math.Abs(ref), floor)
+	}
+	for i := len(rows) - 1; i >= 0; i-- {
+		if !within(cl[i], ser.Cl.Value, densityClFloor, opt.TolClPct) ||
+			!within(cpm[i], ser.CpMin.Value, densityCpMinFloor, opt.TolCpMinPct) {
+			break
+		}
+		ser.RecommendedPanels = counts[i]
+	}
+	return ser
+}
+
+// extrapolate applies ObservedOrder and Richardson to the three finest
+// values, which must be at a constant refinement ratio (to 1e-9).
+func extrapolate(counts []int, f []float64) Extrapolation {
+	n := len(f)
+	bad := Extrapolation{Value: f[n-1], ErrorEstimate: math.NaN(), ObservedOrder: math.NaN()}
+	if n < 3 {
+		return bad
+	}
+	n1, n2, n3 := float64(counts[n-3]), float64(counts[n-2]), float64(counts[n-1])
+	r := n3 / n2
+	if math.Abs(n2/n1-r) > 1e-9*r {
+		return bad
+	}
+	f1, f2, f3 := f[n-3], f[n-2], f[n-1]
+	if f1 == f2 && f2 == f3 { // converged to the last digit
+		return Extrapolation{Value: f3, ErrorEstimate: 0, ObservedOrder: math.NaN(), OK: true}
+	}
+	p, ok := ObservedOrder(f1, f2, f3, r)
+	if !ok {
+		return bad
+	}
+	v, e := Richardson(f2, f3, r, p)
+	return Extrapolation{Value: v, ErrorEstimate: e, ObservedOrder: p, OK: true}
+}

@@ -1,0 +1,196 @@
+package solver
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+	"testing"
+
+	"sectionbench/model"
+)
+
+// TestObservedOrderRichardson recovers p and f∞ from a synthetic sequence
+// f = f∞ + C h^p, h = 1/N, N doubling: the closed form gives p exactly and
+// Richardson's extrapolation returns f∞ exactly (Roache, Verification and
+// Validation in Computational Science and Engineering, 1998, ch. 5;
+// Richardson 1911).
+func TestObservedOrderRichardson(t *testing.T) {
+	for _, c := range []struct {
+		name       string
+		finf, C, p float64
+		r          float64
+	}{
+		{"second order from above", 0.4316, 3.0, 2, 2},
+		{"second order from below", -1.25, -40, 2, 2},
+		{"first order, ratio 3", 0.1, 0.5, 1, 3},
+		{"order 1.8, ratio 1.5", 2.0, 7, 1.8, 1.5},
+	} {
+		h := func(k int) float64 { return math.Pow(c.r, -float64(k)) / 20 }
+		f := func(k int) float64 { return c.finf + c.C*math.Pow(h(k), c.p) }
+		p, ok := ObservedOrder(f(0), f(1), f(2), c.r)
+		if !ok || math.Abs(p-c.p) > 1e-9 {
+			t.Errorf("%s: p = %g (ok %v), want %g", c.name, p, ok, c.p)
+		}
+		v, e := Richardson(f(1), f(2), c.r, p)
+		if math.Abs(v-c.finf) > 1e-12*math.Max(1, math.Abs(c.finf)) {
+			t.Errorf("%s: extrapolated %g, want %g", c.name, v, c.finf)
+		}
+		if want := math.Abs(f(2) - c.finf); math.Abs(e-want) > 1e-12 {
+			t.Errorf("%s: error estimate %g, want the true error %g", c.name, e, want)
+		}
+	}
+	for _, c := range []struct {
+		name       string
+		f1, f2, f3 float64
+	}{
+		{"oscillating", 1, 2, 1.5},
+		{"diverging", 1, 1.1, 1.3},
+		{"stalled", 1, 1.1, 1.1},
+	} {
+		if p, ok := ObservedOrder(c.f1, c.f2, c.f3, 2); ok {
+			t.Errorf("%s: ok with p = %g", c.name, p)
+		}
+	}
+}
+
+// fakeSolution returns a one-element solution with Cl = 1 + a/N², CpMin =
+// −2 + b/N², Cm = −0.05 + c/N and n equal panels on a unit chord.
+func fakeSolution(n int, nose float64, a, b, c float64) *Solution {
+	ps := make([]Panel, n)
+	for i := range ps {
+		ps[i] = Panel{S: (float64(i) + 0.5) * 2 / float64(n)} // total length 2: panel length 2/n
+	}
+	fn := float64(n)
+	return &Solution{
+		Cl: 1 + a/(fn*fn), Cm: -0.05 + c/fn, RefChord: 1,
+		Elements: []ElementSolution{{Name: "main", Chord: 1, Panels: ps, CpMin: -2 + b/(fn*fn) + 0*nose}},
+	}
+}
+
+func TestDensityStudySynthetic(t *testing.T) {
+	const a, b, c = 40.0, -300.0, 0.2
+	calls := 0
+	var prog [][2]int
+	res, err := DensityStudy(context.Background(), DensityOptions{Nose: []float64{0.2, 0.8}},
+		func(n int, nose float64) (*Solution, error) { calls++; return fakeSolution(n, nose, a, b, c), nil },
+		func(done, total int) { prog = append(prog, [2]int{done, total}) })
+	if err != nil {
+		t.Fatal(err)
+	}
+	np := len(DefaultDensityPanels)
+	if calls != 2*np || len(res.Rows) != 2*np || len(res.Series) != 2 {
+		t.Fatalf("%d calls, %d rows, %d series", calls, len(res.Rows), len(res.Series))
+	}
+	if prog[len(prog)-1] != [2]int{2 * np, 2 * np} || prog[0] != [2]int{1, 2 * np} {
+		t.Errorf("progress %v", prog)
+	}
+	for i, r := range res.Rows {
+		wantNose := 0.2
+		if i >= np {
+			wantNose = 0.8
+		}
+		if r.Nose != wantNose || r.Panels != DefaultDensityPanels[i%np] {
+			t.Errorf("row %d: panels %d nose %g", i, r.Panels, r.Nose)
+		}
+		if i%np == 0 != math.IsNaN(r.DCl) {
+			t.Errorf("row %d: DCl = %g", i, r.DCl)
+		}
+		if L := 2 / float64(r.Panels); math.Abs(r.MinPanelLength-L) > 1e-12 || math.Abs(r.MaxPanelLength-L) > 1e-12 {
+			t.Errorf("row %d: panel lengths %g..%g, want %g", i, r.MinPanelLength, r.MaxPanelLength, L)
+		}
+	}
+	// Exact data: p = 2 and the limits 1, −2 (closed form); Cm is first
+	// order in 1/N, limit −0.05.
+	for _, c := range []struct {
+		name  string
+		e     Extrapolation
+		value float64
+		order float64
+	}{
+		{"Cl", res.Cl, 1, 2}, {"CpMin", res.CpMin, -2, 2}, {"Cm", res.Cm, -0.05, 1},
+	} {
+		if !c.e.OK || math.Abs(c.e.Value-c.value) > 1e-12 || math.Abs(c.e.ObservedOrder-c.order) > 1e-6 {
+			t.Errorf("%s: %+v, want value %g order %g", c.name, c.e, c.value, c.order)
+		}
+	}
+	// Recommendation from the closed forms: Cl within 0.5 % needs
+	// 40/N² ≤ 0.005, N ≥ 89.4; CpMin within 2 % needs 300/N² ≤ 0.04,
+	// N ≥ 86.6; so 160 is the smallest default count.
+	if res.RecommendedPanels != 160 {
+		t.Errorf("recommended %d, want 160", res.RecommendedPanels)
+	}
+	if res.Series[1].RecommendedPanels != 160 || res.Series[1].Nose != 0.8 {
+		t.Errorf("second series %+v", res.Series[1])
+	}
+}
+
+func TestDensityStudyNoConvergence(t *testing.T) {
+	// Cl that oscillates with N: no extrapolation, no recommendation.
+	res, err := DensityStudy(context.Background(), DensityOptions{Panels: []int{20, 40, 80, 160}},
+		func(n int, _ float64) (*Solution, error) {
+			s := fakeSolution(n, 0, 0, 0, 0)
+			if n == 80 {
+				s.Cl += 0.01
+			}
+			return s, nil
+		}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Cl.OK || res.RecommendedPanels != 0 || !math.IsNaN(res.Cl.ErrorEstimate) {
+		t.Errorf("oscillating Cl: %+v, recommended %d", res.Cl, res.RecommendedPanels)
+	}
+}
+
+func TestDensityStudyCancel(t *testing.T) {
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	calls := 0
+	_, err := DensityStudy(ctx, DensityOptions{},
+		func(n int, _ float64) (*Solution, error) { calls++; return fakeSolution(n, 0, 1, 1, 1), nil },
+		func(done, _ int) {
+			if done == 2 {
+				cancel()
+			}
+		})
+	if !errors.Is(err, context.Canceled) || calls != 2 {
+		t.Errorf("err %v after %d solves, want context.Canceled after 2", err, calls)
+	}
+}
+
+func TestDensityStudyErrors(t *testing.T) {
+	ok := func(n int, _ float64) (*Solution, error) { return fakeSolution(n, 0, 1, 1, 1), nil }
+	for _, c := range []struct {
+		name  string
+		opt   DensityOptions
+		field string
+	}{
+		{"too few panels", DensityOptions{Panels: []int{8, 16, 32}}, "density.panels[0]"},
+		{"not increasing", DensityOptions{Panels: []int{20, 40, 40}}, "density.panels[2]"},
+		{"nose out of range", DensityOptions{Nose: []float64{0.5, 1.5}}, "density.nose[1]"},
+		{"negative tolerance", DensityOptions{TolClPct: -1}, "density.tol_cl_pct"},
+	} {
+		_, err := DensityStudy(context.Background(), c.opt, ok, nil)
+		var fe *model.FieldError
+		if !errors.As(err, &fe) || fe.Field != c.field {
+			t.Errorf("%s: error %v, want a FieldError on %s", c.name, err, c.field)
+		}
+	}
+	boom := errors.New("boom")
+	_, err := DensityStudy(context.Background(), DensityOptions{}, func(int, float64) (*Solution, error) { return nil, boom }, nil)
+	if !errors.Is(err, boom) {
+		t.Errorf("solver error not wrapped: %v", err)
+	}
+}
+
+// ExampleRichardson extrapolates Cl from 80, 160 and 320 panels of a
+// second-order sequence Cl = 0.5 + 10/N².
+func ExampleRichardson() {
+	f := func(n float64) float64 { return 0.5 + 10/(n*n) }
+	p, ok := ObservedOrder(f(80), f(160), f(320), 2)
+	v, e := Richardson(f(160), f(320), 2, p)
+	fmt.Printf("p = %.3f (%v), Cl∞ = %.6f ± %.1e\n", p, ok, v, e)
+	// Output:
+	// p = 2.000 (true), Cl∞ = 0.500000 ± 9.8e-05
+}
