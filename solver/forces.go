@@ -46,13 +46,13 @@ import (
 // sums are computed once per element, so a sweep costs O(1) per angle for
 // forces and O(N) for CpMin.
 
-// quad is k + aa c² + ab c s + bb s², a quadratic form in (cos α, sin α).
-type quad struct{ k, aa, ab, bb float64 }
+// qform is k + aa c² + ab c s + bb s², a quadratic form in (cos α, sin α).
+type qform struct{ k, aa, ab, bb float64 }
 
-func (q quad) at(c, s float64) float64 { return q.k + q.aa*c*c + q.ab*c*s + q.bb*s*s }
+func (q qform) at(c, s float64) float64 { return q.k + q.aa*c*c + q.ab*c*s + q.bb*s*s }
 
 // addCp adds the pressure integral Σ w (1 − Vt²) of one panel.
-func (q *quad) addCp(w, a, b float64) {
+func (q *qform) addCp(w, a, b float64) {
 	q.k += w
 	q.aa -= w * a * a
 	q.ab -= 2 * w * a * b
@@ -61,8 +61,8 @@ func (q *quad) addCp(w, a, b float64) {
 
 // elemQuad holds one element's integrals as forms in (cos α, sin α).
 type elemQuad struct {
-	fx, fy quad // pressure force components, per unit dynamic pressure
-	m      quad // moment about the element's quarter chord, counter-clockwise
+	fx, fy qform // pressure force components, per unit dynamic pressure
+	m      qform // moment about the element's quarter chord, counter-clockwise
 	gam0   float64
 	gam90  float64 // clockwise circulation, Γ = c gam0 + s gam90
 }

@@ -1,0 +1,257 @@
+package solver
+
+import (
+	"math"
+	"testing"
+
+	"sectionbench/model"
+)
+
+// Ellipse with semi-axes a, b at angle α, circulation fixed by the Kutta
+// condition at the rear end of the major axis. Mapping the circle of radius
+// R = (a+b)/2 by Joukowski's z = ζ + (R² − ((a−b)/2)²)... gives (Milne-Thomson,
+// Theoretical Hydrodynamics, ch. 6; Katz & Plotkin, Low-Speed Aerodynamics,
+// 2nd ed., sec. 6.5) Γ = 2πU(a+b) sin α, Cl = 2π(1 + b/a) sin α, and at the
+// surface point (a cos η, b sin η) the speed
+//
+//	q/U = (a+b) |sin(η − α) + sin α| / √(a² sin²η + b² cos²η),
+//
+// directed counter-clockwise (along the node order) where
+// sin(η − α) + sin α < 0. A circle is a = b.
+func ellipseExactVt(a, b, alpha, eta float64) float64 {
+	s, c := math.Sincos(eta)
+	return -(a + b) * (math.Sin(eta-alpha) + math.Sin(alpha)) / math.Sqrt(a*a*s*s+b*b*c*c)
+}
+
+func TestEllipseExact(t *testing.T) {
+	for _, tc := range []struct {
+		name    string
+		a, b    float64
+		n       int
+		alpha   float64
+		tolCl   float64 // relative
+		tolVt   float64 // max abs over the panels
+		tolStag float64 // arc length, fraction of the perimeter
+	}{
+		{"circle 200", 0.5, 0.5, 200, 5, 1e-4, 2e-3, 1e-4},
+		{"circle 100 α=-10", 0.5, 0.5, 100, -10, 4e-4, 6e-3, 2e-4},
+		{"ellipse b/a=0.3", 0.5, 0.15, 200, 4, 1e-3, 5e-3, 5e-4},
+		{"ellipse b/a=0.1", 0.5, 0.05, 300, 3, 2e-3, 1e-2, 1e-3},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			s := mustSystem(t, Config{Elements: []Element{{Nodes: ellipseNodes(tc.n, tc.a, tc.b, tc.a), LE: tc.n / 2}}})
+			sol := s.Solve(tc.alpha)
+			al := tc.alpha * math.Pi / 180
+			wantCl := 2 * math.Pi * (1 + tc.b/tc.a) * math.Sin(al)
+			e := sol.Elements[0]
+			if relErr(e.Cl, wantCl) > tc.tolCl {
+				t.Errorf("Cl = %.6f, exact %.6f", e.Cl, wantCl)
+			}
+			if relErr(sol.Cl, wantCl) > tc.tolCl {
+				t.Errorf("configuration Cl = %.6f, exact %.6f", sol.Cl, wantCl)
+			}
+			worst := 0.0
+			for i, p := range e.Panels {
+				// The midpoint lies on the chord between nodes; compare at
+				// the parameter of the arc midpoint.
+				eta := 2 * math.Pi * (float64(i) + 0.5) / float64(tc.n)
+				worst = math.Max(worst, math.Abs(p.Vt-ellipseExactVt(tc.a, tc.b, al, eta)))
+				if math.Abs(p.Cp-(1-p.Vt*p.Vt)) > 1e-15 {
+					t.Fatalf("panel %d: Cp %g ≠ 1 − Vt²", i, p.Cp)
+				}
+			}
+			if worst > tc.tolVt {
+				t.Errorf("max |Vt − exact| = %.3g, tolerance %g", worst, tc.tolVt)
+			}
+			// Stagnation at η = π + 2α: sin(η − α) = −sin α.
+			eta := math.Pi + 2*al
+			var perim, sExact float64
+			for i := 0; i < 20000; i++ {
+				e0, e1 := 2*math.Pi*float64(i)/20000, 2*math.Pi*float64(i+1)/20000
+				d := math.Hypot(tc.a*(math.Cos(e1)-math.Cos(e0)), tc.b*(math.Sin(e1)-math.Sin(e0)))
+				if e1 <= eta {
+					sExact += d
+				}
+				perim += d
+			}
+			if d := math.Abs(e.Stagnation.S-sExact) / perim; d > tc.tolStag {
+				t.Errorf("stagnation at S = %.5f, exact %.5f (%.2g of perimeter)", e.Stagnation.S, sExact, d)
+			}
+			wx := tc.a + tc.a*math.Cos(eta)
+			if math.Abs(e.Stagnation.XC-wx/(2*tc.a)) > 10*tc.tolStag {
+				t.Errorf("stagnation XC = %.5f, exact %.5f", e.Stagnation.XC, wx/(2*tc.a))
+			}
+			// Lift acts through the centre, a quarter chord behind c/4 with
+			// lever arm cos α across the freestream; an ellipse also feels
+			// the couple πρU²(a² − b²) sin α cos α turning it broadside on
+			// (Milne-Thomson, Theoretical Hydrodynamics, elliptic cylinder;
+			// from memory, and consistent with the circle's zero couple).
+			c := 2 * tc.a
+			wantCm := -wantCl*math.Cos(al)/4 + 2*math.Pi*(tc.a*tc.a-tc.b*tc.b)*math.Sin(al)*math.Cos(al)/(c*c)
+			if math.Abs(e.Cm-wantCm) > 5e-3*math.Abs(wantCl) {
+				t.Errorf("Cm(c/4) = %.6f, want %.6f", e.Cm, wantCm)
+			}
+			if math.Abs(e.CdPressure) > 1e-3 {
+				t.Errorf("pressure drag %.3g, want ≈ 0 (d'Alembert)", e.CdPressure)
+			}
+		})
+	}
+}
+
+// integrateDirect integrates Cp of an element's panels the plain way, as an
+// independent check of the superposition forms.
+func integrateDirect(e ElementSolution, nodes []model.Point, alphaDeg float64, ref model.Point) (cl, cm float64) {
+	sn, c := math.Sincos(alphaDeg * math.Pi / 180)
+	var fx, fy, m float64
+	for i, p := range e.Panels {
+		a, b := nodes[i], nodes[i+1]
+		// Outward normal times length: (dy, −dx).
+		nx, ny := b.Y-a.Y, -(b.X - a.X)
+		dfx, dfy := -p.Cp*nx, -p.Cp*ny
+		fx += dfx
+		fy += dfy
+		m += (p.X-ref.X)*dfy - (p.Y-ref.Y)*dfx
+	}
+	return (-fx*sn + fy*c) / e.Chord, -m / (e.Chord * e.Chord)
+}
+
+func TestForcesMatchDirectIntegration(t *testing.T) {
+	main := nacaElement(t, "4412", 120)
+	flap := transform(nacaElement(t, "2412", 80), 25, 0.35, model.Point{X: 1.0, Y: -0.06})
+	cfg := Config{Elements: []Element{main, flap}, MomentRef: model.Point{X: 0.3, Y: 0.02}}
+	s := mustSystem(t, cfg)
+	for _, alpha := range []float64{-4, 0, 6} {
+		sol := s.Solve(alpha)
+		for k, e := range sol.Elements {
+			nodes := cfg.Elements[k].Nodes
+			le, te := nodes[cfg.Elements[k].LE], nodes[0].Add(nodes[len(nodes)-1]).Scale(0.5)
+			qc := le.Add(te.Sub(le).Scale(0.25))
+			cl, cm := integrateDirect(e, nodes, alpha, qc)
+			if math.Abs(cl-e.ClPressure) > 1e-12 || math.Abs(cm-e.Cm) > 1e-12 {
+				t.Errorf("α=%g element %d: ClPressure %.15g Cm %.15g, direct %.15g %.15g", alpha, k, e.ClPressure, e.Cm, cl, cm)
+			}
+			// Circulation from the nodal strengths (trapezoid of a linear γ).
+			gam := 0.0
+			for i := range len(nodes) - 1 {
+				gam += nodes[i].Dist(nodes[i+1]) * (e.Gamma[i] + e.Gamma[i+1]) / 2
+			}
+			if math.Abs(2*gam/e.Chord-e.Cl) > 1e-12 {
+				t.Errorf("α=%g element %d: Cl %.15g, from Gamma %.15g", alpha, k, e.Cl, 2*gam/e.Chord)
+			}
+		}
+		// Totals on the sum of chords, Cm about MomentRef.
+		rc := sol.Elements[0].Chord + sol.Elements[1].Chord
+		if math.Abs(sol.RefChord-rc) > 1e-15 {
+			t.Errorf("RefChord %g, want the sum of chords %g", sol.RefChord, rc)
+		}
+		wantCl := (sol.Elements[0].Cl*sol.Elements[0].Chord + sol.Elements[1].Cl*sol.Elements[1].Chord) / rc
+		if math.Abs(sol.Cl-wantCl) > 1e-12 {
+			t.Errorf("total Cl %g, want %g", sol.Cl, wantCl)
+		}
+		var cmRef float64
+		for k, e := range sol.Elements {
+			_, cm := integrateDirect(e, cfg.Elements[k].Nodes, alpha, cfg.MomentRef)
+			cmRef += cm * e.Chord * e.Chord / (rc * rc)
+		}
+		if math.Abs(sol.Cm-cmRef) > 1e-12 || math.Abs(sol.CmAbout(cfg.MomentRef)-cmRef) > 1e-12 {
+			t.Errorf("total Cm %.15g, CmAbout %.15g, direct %.15g", sol.Cm, sol.CmAbout(cfg.MomentRef), cmRef)
+		}
+	}
+}
+
+// A moment moves with the force: M_p = M_q + (q − p) × F, so in the nose-up
+// sense (Cm = −M_ccw/c²) Cm(p) = Cm(q) + [(p − q) × F]/c².
+func TestCmAboutTransfer(t *testing.T) {
+	s := mustSystem(t, Config{Elements: []Element{nacaElement(t, "2412", 100)}, RefChord: 1})
+	sol := s.Solve(5)
+	q := model.Point{X: 0.25}
+	for _, p := range []model.Point{{X: 0}, {X: 1}, {X: 0.25, Y: 0.3}, {X: -2, Y: 5}} {
+		f := sol.forces[0]
+		want := sol.CmAbout(q) + ((p.X-q.X)*f.fy - (p.Y-q.Y)*f.fx)
+		if got := sol.CmAbout(p); math.Abs(got-want) > 1e-12 {
+			t.Errorf("CmAbout(%v) = %.12g, transfer from c/4 gives %.12g", p, got, want)
+		}
+	}
+	if math.Abs(sol.CmAbout(q)-sol.Elements[0].Cm) > 1e-12 {
+		t.Errorf("CmAbout(c/4) %g ≠ element Cm %g", sol.CmAbout(q), sol.Elements[0].Cm)
+	}
+	// Nose-up sense: about the leading edge a lifting section pitches
+	// nose-down, Cm(LE) ≈ Cm(c/4) − Cl/4 < 0 (thin-airfoil theory,
+	// Anderson, Fundamentals of Aerodynamics, ch. 4).
+	if cmLE := sol.CmAbout(model.Point{}); !(cmLE < sol.Elements[0].Cm-0.2) {
+		t.Errorf("Cm(LE) = %g at Cl %g, want about Cm(c/4) − Cl/4", cmLE, sol.Cl)
+	}
+}
+
+func TestSweepMatchesSolve(t *testing.T) {
+	main := nacaElement(t, "4412", 100)
+	flap := transform(nacaElement(t, "2412", 60), 30, 0.3, model.Point{X: 1.0, Y: -0.05})
+	s := mustSystem(t, Config{Elements: []Element{main, flap}, MomentRef: model.Point{X: 0.25}})
+	alphas := []float64{-10, -2.5, 0, 4, 13}
+	sw := s.Sweep(alphas)
+	for i, a := range alphas {
+		sol := s.Solve(a)
+		cpMin, xcMin := math.Inf(1), 0.0
+		for _, e := range sol.Elements {
+			if e.CpMin < cpMin {
+				cpMin, xcMin = e.CpMin, e.XCpMin
+			}
+		}
+		c := sw[i]
+		for _, q := range []struct {
+			name      string
+			got, want float64
+		}{{"AlphaDeg", c.AlphaDeg, a}, {"Cl", c.Cl, sol.Cl}, {"ClPressure", c.ClPressure, sol.ClPressure}, {"Cm", c.Cm, sol.Cm}, {"CpMin", c.CpMin, cpMin}, {"XCpMin", c.XCpMin, xcMin}} {
+			if math.Abs(q.got-q.want) > 1e-12*(1+math.Abs(q.want)) {
+				t.Errorf("α=%g: sweep %s %.15g, Solve %.15g", a, q.name, q.got, q.want)
+			}
+		}
+	}
+}
+
+func TestPanelsLayout(t *testing.T) {
+	el := nacaElement(t, "2412", 80)
+	s := mustSystem(t, Config{Elements: []Element{el}})
+	e := s.Solve(3).Elements[0]
+	if len(e.Panels) != len(el.Nodes)-1 || len(e.Gamma) != len(el.Nodes) {
+		t.Fatalf("%d panels, %d strengths for %d nodes", len(e.Panels), len(e.Gamma), len(el.Nodes))
+	}
+	s0 := 0.0
+	for i, p := range e.Panels {
+		a, b := el.Nodes[i], el.Nodes[i+1]
+		if p.X != (a.X+b.X)/2 || p.Y != (a.Y+b.Y)/2 {
+			t.Fatalf("panel %d midpoint (%g, %g), nodes %v %v", i, p.X, p.Y, a, b)
+		}
+		if math.Abs(p.S-(s0+a.Dist(b)/2)) > 1e-12 {
+			t.Errorf("panel %d: S %g, want %g", i, p.S, s0+a.Dist(b)/2)
+		}
+		s0 += a.Dist(b)
+		// Cleaned section: chord line is the x axis from 0 to 1.
+		if math.Abs(p.XC-p.X) > 1e-12 {
+			t.Errorf("panel %d: XC %g, X %g", i, p.XC, p.X)
+		}
+		if want := Upper; i >= el.LE {
+			if p.Side != Lower {
+				t.Errorf("panel %d after the LE node: side %v", i, p.Side)
+			}
+		} else if p.Side != want {
+			t.Errorf("panel %d before the LE node: side %v", i, p.Side)
+		}
+		if math.Abs(p.Vt+(e.Gamma[i]+e.Gamma[i+1])/2) > 1e-15 {
+			t.Errorf("panel %d: Vt %g ≠ −mean γ", i, p.Vt)
+		}
+	}
+	// Kutta condition.
+	if g := e.Gamma[0] + e.Gamma[len(e.Gamma)-1]; math.Abs(g) > 1e-12 {
+		t.Errorf("γ_first + γ_last = %g", g)
+	}
+	// Lifting section: upper surface flows against the node order.
+	if e.Panels[len(e.Panels)/4].Vt >= 0 || e.Panels[3*len(e.Panels)/4].Vt <= 0 {
+		t.Errorf("Vt signs upper %g lower %g, want negative then positive", e.Panels[len(e.Panels)/4].Vt, e.Panels[3*len(e.Panels)/4].Vt)
+	}
+	// The stagnation point of a section at positive α lies on the lower
+	// surface just behind the leading edge.
+	if st := e.Stagnation; !(st.Y < 0 && st.XC > 0 && st.XC < 0.05) {
+		t.Errorf("stagnation %+v, want on the lower surface near the LE", st)
+	}
+}
