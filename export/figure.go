@@ -56,12 +56,15 @@ const (
 	ViewBoundaryLayer
 	// ViewLiftToDrag draws Cl/Cd against the angle of attack.
 	ViewLiftToDrag
+	// ViewDensity draws a density study: Cl and Cp min against the panel
+	// count with their extrapolated values.
+	ViewDensity
 )
 
-var viewNames = [...]string{"panels", "pressure", "streamlines", "polar", "drag-polar", "boundary-layer", "lift-to-drag"}
+var viewNames = [...]string{"panels", "pressure", "streamlines", "polar", "drag-polar", "boundary-layer", "lift-to-drag", "density"}
 
 // Views lists every view in order.
-var Views = []View{ViewPanels, ViewPressure, ViewStreamlines, ViewPolar, ViewDragPolar, ViewBoundaryLayer, ViewLiftToDrag}
+var Views = []View{ViewPanels, ViewPressure, ViewStreamlines, ViewPolar, ViewDragPolar, ViewBoundaryLayer, ViewLiftToDrag, ViewDensity}
 
 // String returns the view's short name, as used in file names.
 func (v View) String() string {
@@ -95,8 +98,9 @@ type DragPoint struct {
 
 // Scene is everything the figures draw. Only the fields a view needs must be
 // set: the panels view needs Layout or Config; the pressure view Solution;
-// the streamlines view Layout or Config (and Streamlines); the polar view Sweep; the drag
-// polar and lift-to-drag views Sweep and Drag; the boundary-layer view Viscous.
+// the streamlines view Layout or Config (and Streamlines); the polar view
+// Sweep; the drag polar and lift-to-drag views Sweep and Drag; the
+// boundary-layer view Viscous; the density view Density.
 type Scene struct {
 	// Layout is the placed configuration, in metres. Config, when set, is
 	// the geometry as solved (rotated to the angle of attack in ground
@@ -108,9 +112,13 @@ type Scene struct {
 	Sweep    []solver.Coefficients
 	Drag     []DragPoint // aligned with Sweep; nil when the sweep has no boundary-layer estimate
 
+	Streamlines []solver.Streamline
+	Viscous     *solver.ViscousResult // may be nil
+	Density     *solver.DensityResult // may be nil
+
 	Pins        []model.Pin
 	AlphaDeg    float64 // current angle of attack, marked on the polars
-	Element     int     // element shown in the pressure view; -1 = all
+	Element     int     // element shown in the pressure view (-1 = all) and the boundary-layer view (-1 = the first)
 	SpeedColour bool    // colour streamlines by local speed
 
 	GroundY  float64 // ground plane height, m, in the Layout's frame
@@ -151,7 +159,8 @@ func PlotView(v View, sc *Scene) (*plot.Plot, error) {
 
 // viewInfo carries what drawing needs to know beyond the plot itself.
 type viewInfo struct {
-	equal bool // equal aspect: one data unit is as long on both axes
+	equal     bool // equal aspect: one data unit is as long on both axes
+	composite bool // panels in tiles: the outer plot has no data coordinates
 }
 
 func buildView(v View, sc *Scene) (*plot.Plot, viewInfo, error) {
@@ -179,8 +188,11 @@ func buildView(v View, sc *Scene) (*plot.Plot, viewInfo, error) {
 		p, err = dragPolarPlot(sc, th)
 	case ViewBoundaryLayer:
 		p, err = boundaryLayerPlot(sc, th)
+		info.composite = true
 	case ViewLiftToDrag:
 		p, err = liftToDragPlot(sc, th)
+	case ViewDensity:
+		p, err = densityPlot(sc, th)
 	default:
 		panic(fmt.Sprintf("export: unknown view %d", int(v)))
 	}
@@ -241,6 +253,7 @@ type Figure struct {
 
 	// Exact data-area edges in pixels (Plot is these rounded).
 	x0, x1, y0, y1 float64
+	composite      bool // several panels: DataAt reports nothing
 }
 
 // Render draws view v of sc into a widthPx × heightPx image at dpi dots per
@@ -274,13 +287,18 @@ func Render(v View, sc *Scene, widthPx, heightPx int, dpi float64) (*Figure, err
 		y1:    float64(heightPx) - float64(da.Min.Y)*s,
 	}
 	_, f.YDown = p.Y.Scale.(plot.InvertedScale)
+	f.composite = info.composite
 	f.Plot = image.Rect(int(math.Round(f.x0)), int(math.Round(f.y0)), int(math.Round(f.x1)), int(math.Round(f.y1)))
 	return f, nil
 }
 
 // DataAt returns the data coordinates under pixel (px, py) of f.Image; ok is
-// false outside the data area.
+// false outside the data area and everywhere on a figure made of several
+// panels (the boundary-layer view).
 func (f *Figure) DataAt(px, py int) (x, y float64, ok bool) {
+	if f.composite {
+		return 0, 0, false
+	}
 	fx := (float64(px) + 0.5 - f.x0) / (f.x1 - f.x0)
 	fy := (float64(py) + 0.5 - f.y0) / (f.y1 - f.y0) // 0 at the top
 	if fx < 0 || fx > 1 || fy < 0 || fy > 1 {

@@ -35,6 +35,9 @@ type speedLines struct {
 }
 
 func (s *speedLines) bin(v float64) int {
+	if math.IsNaN(v) {
+		return speedBins / 2
+	}
 	b := int((v - s.lo) / (s.hi - s.lo) * speedBins)
 	return min(max(b, 0), speedBins-1)
 }
@@ -120,7 +123,9 @@ func streamlinesPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			e.add(sp.x[i]*mmPerM, sp.y[i]*mmPerM)
 		}
 		for _, v := range sp.speed {
-			speedLo, speedHi = math.Min(speedLo, v), math.Max(speedHi, v)
+			if !math.IsNaN(v) && !math.IsInf(v, 0) {
+				speedLo, speedHi = math.Min(speedLo, v), math.Max(speedHi, v)
+			}
 		}
 	}
 	coloured := sc.SpeedColour && speedHi > speedLo
@@ -187,5 +192,19 @@ func (l *clippedLine) Plot(c draw.Canvas, p *plot.Plot) {
 	c.StrokeLines(l.style, c.ClipLinesXY(pts)...)
 }
 
-// sceneStreamlines converts the scene's streamlines to paths.
-func sceneStreamlines(sc *Scene) []streamPath { return nil }
+// sceneStreamlines converts the scene's streamlines to paths; speeds are
+// kept only when there is one per point.
+func sceneStreamlines(sc *Scene) []streamPath {
+	paths := make([]streamPath, 0, len(sc.Streamlines))
+	for _, s := range sc.Streamlines {
+		sp := streamPath{x: make([]float64, len(s.Points)), y: make([]float64, len(s.Points)), dividing: s.Dividing}
+		for i, q := range s.Points {
+			sp.x[i], sp.y[i] = q.X, q.Y
+		}
+		if len(s.Speed) == len(s.Points) {
+			sp.speed = s.Speed
+		}
+		paths = append(paths, sp)
+	}
+	return paths
+}

@@ -154,5 +154,82 @@ func synthScene() *Scene {
 		Layout: l, Solution: synthSolution(l, 4), Sweep: sw, Drag: synthDrag(sw),
 		Pins: synthPins(), AlphaDeg: 4, Element: -1,
 		Ground: true, GroundY: -0.06,
+		Streamlines: synthStreamlines(), Viscous: synthViscous(), Density: synthDensity(),
 	}
+}
+
+// synthStreamlines are horizontal lines displaced over a bump about the
+// main plane, with speed 1 + 0.3·bump (invented shapes).
+func synthStreamlines() []solver.Streamline {
+	var out []solver.Streamline
+	for k := -6; k <= 6; k++ {
+		y0 := 0.02 * float64(k)
+		var s solver.Streamline
+		for i := 0; i <= 200; i++ {
+			x := -0.3 + 0.9*float64(i)/200
+			bump := math.Exp(-math.Pow((x-0.12)/0.12, 2)) * 0.03 / (1 + math.Abs(y0)*20)
+			sign := 1.0
+			if y0 < 0 {
+				sign = -1
+			}
+			s.Points = append(s.Points, model.Point{X: x, Y: y0 + sign*bump})
+			s.Speed = append(s.Speed, 1+sign*10*bump)
+		}
+		s.Dividing = k == 0
+		if s.Dividing { // ends on the nose
+			s.Points = s.Points[:67]
+			s.Speed = s.Speed[:67]
+			for i := range s.Points {
+				s.Points[i].Y = 0
+			}
+		}
+		out = append(out, s)
+	}
+	return out
+}
+
+// synthViscous uses the flat-plate laminar closed forms θ = 0.664 √(x/Re),
+// H = 2.59, Cf = 0.664/√(Re x) (Blasius, in Schlichting, Boundary-Layer
+// Theory) up to a transition at x/c = 0.3 on the upper surface, then
+// turbulent-looking H = 1.4; Re = 5×10⁵.
+func synthViscous() *solver.ViscousResult {
+	const re = 5e5
+	surf := func(xtr float64) solver.SurfaceBL {
+		var s solver.SurfaceBL
+		for i := 1; i <= 60; i++ {
+			x := float64(i) / 60
+			h, th, cf := 2.59, 0.664*math.Sqrt(x/re), 0.664/math.Sqrt(re*x)
+			if x > xtr {
+				h, th, cf = 1.4, th*(1+3*(x-xtr)), 0.004
+			}
+			s.XC = append(s.XC, x)
+			s.S = append(s.S, x)
+			s.Ue = append(s.Ue, 1)
+			s.Theta = append(s.Theta, th)
+			s.H = append(s.H, h)
+			s.DeltaStar = append(s.DeltaStar, h*th)
+			s.Cf = append(s.Cf, cf)
+			s.Turbulent = append(s.Turbulent, x > xtr)
+		}
+		s.TransitionXC, s.LaminarSeparationXC, s.TurbulentSeparationXC = xtr, math.NaN(), math.NaN()
+		s.TransitionCause = solver.TransitionMichel
+		s.Cd = 0.004
+		return s
+	}
+	eb := solver.ElementBL{Name: "main", Upper: surf(0.3), Lower: surf(0.6), Cd: 0.008, Valid: true}
+	return &solver.ViscousResult{Elements: []solver.ElementBL{eb}, Cd: 0.008}
+}
+
+// synthDensity converges as Cl = 0.9 − 20/N², Cp min = −2 − 400/N² (second
+// order, as REFERENCES §7 describes for this panel method).
+func synthDensity() *solver.DensityResult {
+	d := &solver.DensityResult{RecommendedPanels: 160}
+	for _, nose := range []float64{0.3, 0.6} {
+		for _, n := range []int{40, 80, 160, 320} {
+			f := float64(n * n)
+			d.Rows = append(d.Rows, solver.DensityRow{Panels: n, Nose: nose, Cl: 0.9 - (20+10*nose)/f, CpMin: -2 - 400/f})
+		}
+	}
+	d.Cl = solver.Extrapolation{Value: 0.9, OK: true}
+	return d
 }

@@ -38,9 +38,6 @@ func TestRenderViews(t *testing.T) {
 		sc := synthScene()
 		sc.Dark = dark
 		for _, v := range Views {
-			if v == ViewBoundaryLayer {
-				continue // needs a boundary-layer result; see TestBoundaryLayerView
-			}
 			f, err := Render(v, sc, 600, 400, 96)
 			if err != nil {
 				t.Errorf("%v dark=%v: %v", v, dark, err)
@@ -49,7 +46,7 @@ func TestRenderViews(t *testing.T) {
 			if f.Image.Bounds() != image.Rect(0, 0, 600, 400) {
 				t.Errorf("%v: image bounds %v", v, f.Image.Bounds())
 			}
-			if !f.Plot.In(f.Image.Bounds()) || f.Plot.Dx() < 300 || f.Plot.Dy() < 200 {
+			if !f.Plot.In(f.Image.Bounds()) || f.Plot.Dx() < 300 || f.Plot.Dy() < 180 {
 				t.Errorf("%v: data area %v is not a sensible part of the image", v, f.Plot)
 			}
 			if n := distinctColours(f.Image, f.Plot, 8); n < 8 {
@@ -197,6 +194,7 @@ func TestViewErrors(t *testing.T) {
 		{"drag polar without drag", ViewDragPolar, &Scene{Sweep: full.Sweep}, true},
 		{"lift-to-drag without drag", ViewLiftToDrag, &Scene{Sweep: full.Sweep}, true},
 		{"boundary layer without result", ViewBoundaryLayer, &Scene{}, true},
+		{"density without study", ViewDensity, &Scene{}, true},
 		{"element out of range", ViewPressure, &Scene{Solution: full.Solution, Element: 2}, false},
 	} {
 		_, err := PlotView(c.view, c.sc)
@@ -284,6 +282,7 @@ func TestWriteFigureFiles(t *testing.T) {
 	for _, dark := range []bool{false, true} {
 		sc := synthScene()
 		sc.Dark = dark
+		sc.SpeedColour = dark
 		for _, v := range Views {
 			var b bytes.Buffer
 			err := WriteFigure(&b, v, sc, FormatPNG, 6.25, 4.17, 96)
