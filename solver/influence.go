@@ -53,11 +53,15 @@ func linearVortex(x, y, l, dth, lam float64) (ua, va, ub, vb float64) {
 }
 
 // minDistFrac bounds from below the distance, as a fraction of the panel
-// length, at which the logarithm ln(r1/r2) is evaluated: a field point that
-// falls exactly on a node would otherwise give ln 0. The velocity of a
-// continuous linear vortex sheet is bounded near a node (only the slope of
-// γ jumps there), so the clamp changes nothing measurable.
-const minDistFrac = 1e-12
+// length (of the element's chord in the matrix assembly), at which the
+// logarithm ln(r1/r2) is evaluated: a field point on a node would otherwise
+// give ln 0. Between two panels the velocity of a continuous linear vortex
+// sheet has only a weak (γ times the corner angle) logarithmic singularity at
+// a node, and at the open ends of the sheet, the trailing-edge nodes of a
+// blunt trailing edge, one of strength γ/(2π) ln r: clamping r at 10⁻⁶ panel
+// lengths keeps the field bounded there (|ln 10⁻⁶| ≈ 14) and changes nothing
+// farther out.
+const minDistFrac = 1e-6
 
 // panelInfluence returns the global velocity (u, v) per unit γa and per unit
 // γb that panel j induces at point (px, py). It is the exact closed form;
