@@ -1,0 +1,418 @@
+package ui
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"strings"
+	"sync"
+
+	"fyne.io/fyne/v2"
+
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+// liveSweepMaxAngles is the longest sweep that runs with every live update;
+// a longer one (or one with the boundary-layer estimate on) waits for the
+// Run button. With the factorised system cached, 41 angles cost a few
+// superpositions each.
+const liveSweepMaxAngles = 41
+
+// maxPins bounds the pins a study keeps; more would make the views unreadable.
+const maxPins = 6
+
+// sweepChunk is how many angles one engine call of a run sweep takes: the
+// progress bar and Cancel act between chunks.
+const sweepChunk = 8
+
+// Controller runs every change of the study through one engine call on a
+// worker goroutine and keeps the undo history. Its methods are called from
+// the UI goroutine; OnResult is called on the worker goroutine.
+type Controller struct {
+	state studyState
+	hist  history
+	act   *activity
+	sched *scheduler
+
+	// OnStudy is called after the study changed (edit, undo, open).
+	OnStudy func()
+	// OnResult is called on the worker goroutine with the scene of each
+	// result that is still current, or with the error of the current
+	// request (gen 0 for an error outside a solve).
+	OnResult func(gen uint64, sc *scene, res *engineResult, err error)
+
+	mu       sync.Mutex
+	result   *engineResult
+	resErr   error
+	resGen   uint64
+	sweep    []solver.Coefficients // shown in the polar; nil when out of date
+	pinBase  *model.Study          // study of the last pin, for its label
+	sweepRun context.CancelFunc
+}
+
+// NewController returns a controller editing st (a new study if nil).
+func NewController(st *model.Study) (*Controller, error) {
+	c := &Controller{act: newActivity()}
+	c.sched = newScheduler(newEngine(), c.act, c.deliver)
+	if st == nil {
+		st = newStudy()
+	}
+	if err := c.Load(st, ""); err != nil {
+		return nil, err
+	}
+	return c, nil
+}
+
+// Study returns a copy of the current study.
+func (c *Controller) Study() *model.Study { return cloneStudy(c.state.study) }
+
+// Path returns the study's file, "" if it was never saved.
+func (c *Controller) Path() string { return c.state.path }
+
+// Dirty reports unsaved changes.
+func (c *Controller) Dirty() bool { return c.state.dirty }
+
+// Reports returns the cleaning reports of the current sections.
+func (c *Controller) Reports() []*cleanReport { return c.state.reports }
+
+// Sections returns the current cleaned sections.
+func (c *Controller) Sections() []*model.Section { return c.state.sections }
+
+// Result returns the newest result shown, its generation and the error of
+// the newest request (nil if it succeeded).
+func (c *Controller) Result() (*engineResult, uint64, error) {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	return c.result, c.resGen, c.resErr
+}
+
+// Sweep returns the polar data that matches the current study, or nil.
+func (c *Controller) Sweep() []solver.Coefficients {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	return c.sweep
+}
+
+// WaitIdle blocks until no solve or render is in flight.
+func (c *Controller) WaitIdle() { c.act.wait() }
+
+// Load replaces the study (New, Open) and forgets the undo history.
+func (c *Controller) Load(st *model.Study, path string) error {
+	if err := validateStudy(st); err != nil {
+		return err
+	}
+	c.state.path = path
+	secs, reps, err := loadSections(st, c.state.baseDir())
+	if err != nil {
+		return err
+	}
+	c.CancelSweep()
+	c.state.set(cloneStudy(st), secs, reps)
+	c.state.dirty = false
+	c.hist.Reset()
+	c.mu.Lock()
+	c.pinBase, c.sweep = nil, nil
+	c.mu.Unlock()
+	c.changed(true)
+	return nil
+}
+
+// Save writes the study to path and makes it the study's file.
+func (c *Controller) Save(path string) error {
+	if err := saveStudy(path, c.state.study); err != nil {
+		return err
+	}
+	c.state.path = path
+	c.state.dirty = false
+	c.notify()
+	return nil
+}
+
+// Edit applies fn to a copy of the study. If the result is valid and its
+// sections load, it becomes the study (one undo step; edits with the same
+// non-empty key in a row merge into one) and is solved; otherwise the study
+// stays as it was and the error says why.
+func (c *Controller) Edit(key string, fn func(st *model.Study)) error {
+	next := cloneStudy(c.state.study)
+	fn(next)
+	if err := validateStudy(next); err != nil {
+		return err
+	}
+	secs, reps, err := c.state.sectionsFor(next)
+	if err != nil {
+		return err
+	}
+	geometry := !equalGeometry(c.state.study, next)
+	c.hist.Record(c.state.study, key)
+	c.state.set(next, secs, reps)
+	c.state.dirty = true
+	c.changed(geometry)
+	return nil
+}
+
+// BreakMerge ends a run of merged edits (a slider drag has ended).
+func (c *Controller) BreakMerge() { c.hist.Break() }
+
+// Undo goes back one study change; false if there was none.
+func (c *Controller) Undo() bool { return c.step(c.hist.Undo) }
+
+// Redo re-applies the change undone last; false if there was none.
+func (c *Controller) Redo() bool { return c.step(c.hist.Redo) }
+
+func (c *Controller) step(f func(*model.Study) (*model.Study, bool)) bool {
+	st, ok := f(c.state.study)
+	if !ok {
+		return false
+	}
+	secs, reps, err := c.state.sectionsFor(st)
+	if err != nil {
+		// The snapshot was valid when taken; a section that no longer
+		// loads leaves the current study in place.
+		c.reportError(err)
+		return false
+	}
+	c.state.set(st, secs, reps)
+	c.state.dirty = true
+	c.changed(true)
+	return true
+}
+
+// changed submits the study for solving and tells the UI.
+func (c *Controller) changed(geometry bool) {
+	st := c.state.study
+	live := liveSweep(st)
+	if geometry || live {
+		c.mu.Lock()
+		c.sweep = nil
+		c.mu.Unlock()
+	}
+	c.sched.Submit(engineRequest{
+		Study:       cloneStudy(st),
+		Sections:    c.state.sections,
+		Sweep:       live,
+		Streamlines: true,
+	})
+	c.notify()
+}
+
+func (c *Controller) notify() {
+	if c.OnStudy != nil {
+		c.OnStudy()
+	}
+}
+
+func (c *Controller) reportError(err error) {
+	if c.OnResult != nil {
+		c.OnResult(0, nil, nil, err)
+	}
+}
+
+// deliver runs on the worker goroutine with a result that was current when
+// its solve ended.
+func (c *Controller) deliver(u update, res *engineResult, err error) {
+	var sc *scene
+	c.mu.Lock()
+	c.resErr = err
+	if err == nil {
+		c.result, c.resGen = res, u.gen
+		if u.req.Sweep {
+			c.sweep = res.Sweep
+		}
+		sc = sceneOf(res, u.req.Study, c.sweep)
+	}
+	c.mu.Unlock()
+	if c.OnResult != nil {
+		c.OnResult(u.gen, sc, res, err)
+	}
+}
+
+// liveSweep reports whether the study's sweep runs with every update.
+func liveSweep(st *model.Study) bool {
+	a, err := st.Sweep.Angles()
+	return err == nil && len(a) <= liveSweepMaxAngles && !st.Viscous.Enabled
+}
+
+// equalGeometry reports whether two studies solve the same configuration
+// (only the angle of attack, pins or names may differ), so a sweep of one
+// holds for the other.
+func equalGeometry(a, b *model.Study) bool {
+	x, y := cloneStudy(a), cloneStudy(b)
+	for _, s := range []*model.Study{x, y} {
+		s.Flow.AlphaDeg = 0
+		s.Pins = nil
+		s.Name = ""
+		s.Sweep = model.SweepRange{}
+	}
+	ex, err1 := encodeStudy(x)
+	ey, err2 := encodeStudy(y)
+	return err1 == nil && err2 == nil && string(ex) == string(ey)
+}
+
+// RunSweep runs the study's sweep on its own goroutine, sweepChunk angles
+// per engine call. progress is called after each chunk with the angles done
+// and the total, done once at the end (with context.Canceled if cancelled);
+// both on the sweep goroutine.
+func (c *Controller) RunSweep(progress func(done, total int), done func(err error)) error {
+	st := cloneStudy(c.state.study)
+	angles, err := st.Sweep.Angles()
+	if err != nil {
+		return err
+	}
+	secs := c.state.sections
+	gen := c.sched.Latest()
+	ctx, cancel := context.WithCancel(context.Background())
+	c.mu.Lock()
+	if c.sweepRun != nil {
+		c.sweepRun()
+	}
+	c.sweepRun = cancel
+	c.mu.Unlock()
+	c.act.add()
+	go func() {
+		defer c.act.done()
+		defer cancel()
+		var all []solver.Coefficients
+		var err error
+		for i := 0; i < len(angles) && err == nil; i += sweepChunk {
+			if err = ctx.Err(); err != nil {
+				break
+			}
+			j := min(i+sweepChunk, len(angles)) - 1
+			chunk := cloneStudy(st)
+			chunk.Sweep = model.SweepRange{FromDeg: angles[i], ToDeg: angles[j], StepDeg: st.Sweep.StepDeg}
+			var res *engineResult
+			res, err = safeRun(c.sched.eng, ctx, engineRequest{Study: chunk, Sections: secs, Sweep: true})
+			if err == nil {
+				all = append(all, res.Sweep...)
+				if progress != nil {
+					progress(j+1, len(angles))
+				}
+			}
+		}
+		if err == nil && c.sched.Latest() != gen {
+			err = errors.New("the study changed while the sweep ran; run it again")
+		}
+		if err == nil {
+			c.mu.Lock()
+			c.sweep = all
+			c.mu.Unlock()
+		}
+		if done != nil {
+			done(err)
+		}
+		if err == nil {
+			fyne.Do(func() { c.changed(false) }) // redraw the polar with the new sweep
+		}
+	}()
+	return nil
+}
+
+// CancelSweep stops a running sweep.
+func (c *Controller) CancelSweep() {
+	c.mu.Lock()
+	if c.sweepRun != nil {
+		c.sweepRun()
+		c.sweepRun = nil
+	}
+	c.mu.Unlock()
+}
+
+// PinCurrent freezes the current result as a pin of the study.
+func (c *Controller) PinCurrent() error {
+	c.WaitIdle()
+	res, gen, err := c.Result()
+	if err != nil {
+		return err
+	}
+	if res == nil || gen != c.sched.Latest() {
+		return errors.New("no current result to pin yet")
+	}
+	if len(c.state.study.Pins) >= maxPins {
+		return fmt.Errorf("at most %d pins; clear them first", maxPins)
+	}
+	label := PinLabel(c.pinBase, c.state.study)
+	pin := pinFromResult(label, res, c.Sweep())
+	base := cloneStudy(c.state.study)
+	if err := c.Edit("", func(st *model.Study) { st.Pins = append(st.Pins, pin) }); err != nil {
+		return err
+	}
+	c.pinBase = base
+	return nil
+}
+
+// ClearPins removes all pins.
+func (c *Controller) ClearPins() error {
+	c.pinBase = nil
+	return c.Edit("", func(st *model.Study) { st.Pins = nil })
+}
+
+// pinFromResult copies the Cp curves of a solution and the polar into a pin.
+func pinFromResult(label string, res *engineResult, sweep []solver.Coefficients) model.Pin {
+	pin := model.Pin{Label: label}
+	for _, e := range res.Solution.Elements {
+		for _, side := range []solver.Side{solver.Upper, solver.Lower} {
+			pc := model.PinCurve{Element: e.Name, Side: side.String()}
+			for _, p := range e.Panels {
+				if p.Side == side {
+					pc.Points = append(pc.Points, [2]float64{p.XC, p.Cp})
+				}
+			}
+			pin.Cp = append(pin.Cp, pc)
+		}
+	}
+	for _, k := range sweep {
+		pin.Polar = append(pin.Polar, [3]float64{k.AlphaDeg, k.Cl, k.Cm})
+	}
+	return pin
+}
+
+// currentElement is the element the section and panelling controls edit.
+const currentElement = 0
+
+// SetNACA makes a NACA designation the current element's section. An
+// invalid designation returns the reason and leaves the study as it was.
+func (c *Controller) SetNACA(designation string) error {
+	d := strings.TrimSpace(designation)
+	if err := checkNACA(d); err != nil {
+		return err
+	}
+	return c.Edit("naca", func(st *model.Study) {
+		st.Elements[currentElement].Section = model.SectionSource{Spec: "naca:" + d}
+	})
+}
+
+// SetSectionFile reads, cleans and embeds a coordinate file as the current
+// element's section, so the study keeps working if the file moves.
+func (c *Controller) SetSectionFile(path string) error {
+	sec, rep, err := loadSectionFile(path)
+	if err != nil {
+		return err
+	}
+	err = c.Edit("", func(st *model.Study) {
+		st.Elements[currentElement].Section = model.EmbedSection(sec)
+	})
+	if err == nil && rep != nil {
+		c.state.reports[currentElement] = rep
+		c.notify()
+	}
+	return err
+}
+
+// SetPanelling replaces the panelling; key merges a run of slider ticks.
+func (c *Controller) SetPanelling(key string, p model.Panelling) error {
+	return c.Edit(key, func(st *model.Study) { st.Panelling = p })
+}
+
+// SetAlpha sets the angle of attack in degrees.
+func (c *Controller) SetAlpha(key string, deg float64) error {
+	return c.Edit(key, func(st *model.Study) { st.Flow.AlphaDeg = deg })
+}
+
+// SetSweep sets the sweep range.
+func (c *Controller) SetSweep(r model.SweepRange) error {
+	if err := r.Validate(); err != nil {
+		return err
+	}
+	return c.Edit("sweep", func(st *model.Study) { st.Sweep = r })
+}

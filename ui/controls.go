@@ -1,0 +1,406 @@
+package ui
+
+import (
+	"errors"
+	"fmt"
+	"strconv"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/model"
+)
+
+// Ranges of the sliders. The panel-count entry accepts up to
+// model.MaxPanels; the slider stops at sliderMaxPanels, beyond which a live
+// drag would be slow and fine steps meaningless. The angle slider covers
+// the range where a section is usually run; the entry takes ±MaxAlphaDeg.
+const (
+	sliderMaxPanels = 1000
+	sliderMaxAlpha  = 20
+	alphaSliderStep = 0.25
+	clusterStep     = 0.05
+)
+
+// controls is the left column. Its widgets edit the study only through the
+// controller; sync sets them from the study without feeding back.
+type controls struct {
+	w       *Workbench
+	box     *fyne.Container
+	syncing bool
+
+	naca      *widget.Entry
+	sourceMsg *widget.Label
+	source    *widget.Label
+
+	panelSlider *widget.Slider
+	panelEntry  *widget.Entry
+	spacing     *widget.Select
+	nose, tail  *widget.Slider
+	noseVal     *widget.Label
+	tailVal     *widget.Label
+	panelMsg    *widget.Label
+
+	alphaSlider *widget.Slider
+	alphaEntry  *widget.Entry
+	alphaDown   *widget.Button
+	alphaUp     *widget.Button
+	flowMsg     *widget.Label
+
+	from, to, step *widget.Entry
+	run, cancel    *widget.Button
+	progress       *widget.ProgressBar
+	sweepMsg       *widget.Label
+
+	pins *widget.Label
+}
+
+// message returns an empty label for inline errors.
+func message() *widget.Label {
+	l := widget.NewLabel("")
+	l.Importance = widget.DangerImportance
+	l.Wrapping = fyne.TextWrapWord
+	l.Hide()
+	return l
+}
+
+// setMessage shows err under a field, or hides the message when nil.
+func setMessage(l *widget.Label, err error) {
+	if err == nil {
+		l.Hide()
+		return
+	}
+	l.SetText(friendly(err))
+	l.Show()
+}
+
+// friendly turns an error into a short sentence for the user.
+func friendly(err error) string {
+	var fe *model.FieldError
+	if errors.As(err, &fe) {
+		return fieldLabel(fe.Field) + ": " + fe.Err.Error()
+	}
+	var ne *model.NACAError
+	if errors.As(err, &ne) {
+		return "Not a NACA designation: " + ne.Reason
+	}
+	return firstLine(err.Error())
+}
+
+// fieldLabel names a study field as the controls do.
+func fieldLabel(path string) string {
+	switch path {
+	case "panelling.panels":
+		return "Panel count"
+	case "panelling.nose":
+		return "Nose clustering"
+	case "panelling.tail":
+		return "Tail clustering"
+	case "flow.alpha_deg":
+		return "Angle of attack"
+	case "sweep.from_deg":
+		return "Sweep from"
+	case "sweep.to_deg":
+		return "Sweep to"
+	case "sweep.step_deg":
+		return "Sweep step"
+	}
+	return path
+}
+
+func heading(s string) *widget.Label {
+	return widget.NewLabelWithStyle(s, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+}
+
+// row puts a caption left of a field.
+func row(caption string, field fyne.CanvasObject) *fyne.Container {
+	return container.NewBorder(nil, nil, widget.NewLabel(caption), nil, field)
+}
+
+func newControls(w *Workbench) *controls {
+	c := &controls{w: w}
+	ctl := w.ctl
+
+	// Section source.
+	c.naca = widget.NewEntry()
+	c.naca.SetPlaceHolder("e.g. 4412 or 23012")
+	c.sourceMsg = message()
+	c.source = widget.NewLabel("")
+	c.source.Wrapping = fyne.TextWrapWord
+	c.source.Importance = widget.LowImportance
+	c.naca.OnChanged = func(s string) {
+		if c.syncing {
+			return
+		}
+		setMessage(c.sourceMsg, ctl.SetNACA(s))
+	}
+	openFile := widget.NewButton("Open coordinate file…", w.openSection)
+	report := widget.NewButton("Cleaning report", w.showReport)
+
+	// Panelling.
+	c.panelSlider = widget.NewSlider(model.MinPanels, sliderMaxPanels)
+	c.panelSlider.Step = 1
+	c.panelEntry = widget.NewEntry()
+	c.panelMsg = message()
+	c.panelSlider.OnChanged = func(v float64) {
+		if c.syncing {
+			return
+		}
+		c.editPanelling("panels", func(p *model.Panelling) { p.Panels = int(v) })
+	}
+	c.panelSlider.OnChangeEnded = func(float64) { ctl.BreakMerge() }
+	c.panelEntry.OnChanged = func(s string) {
+		if c.syncing {
+			return
+		}
+		n, err := strconv.Atoi(strings.TrimSpace(s))
+		if err != nil {
+			setMessage(c.panelMsg, fmt.Errorf("panel count must be a whole number from %d to %d", model.MinPanels, model.MaxPanels))
+			return
+		}
+		c.editPanelling("panels", func(p *model.Panelling) { p.Panels = n })
+	}
+	spacings := make([]string, len(model.Spacings))
+	for i, s := range model.Spacings {
+		spacings[i] = string(s)
+	}
+	c.spacing = widget.NewSelect(spacings, func(s string) {
+		if c.syncing {
+			return
+		}
+		c.editPanelling("", func(p *model.Panelling) { p.Spacing = model.Spacing(s) })
+	})
+	c.nose, c.noseVal = c.clusterSlider("nose", func(p *model.Panelling, v float64) { p.Nose = v })
+	c.tail, c.tailVal = c.clusterSlider("tail", func(p *model.Panelling, v float64) { p.Tail = v })
+
+	// Flow.
+	c.alphaSlider = widget.NewSlider(-sliderMaxAlpha, sliderMaxAlpha)
+	c.alphaSlider.Step = alphaSliderStep
+	c.alphaEntry = widget.NewEntry()
+	c.flowMsg = message()
+	c.alphaSlider.OnChanged = func(v float64) {
+		if !c.syncing {
+			setMessage(c.flowMsg, ctl.SetAlpha("alpha", v))
+		}
+	}
+	c.alphaSlider.OnChangeEnded = func(float64) { ctl.BreakMerge() }
+	c.alphaEntry.OnChanged = func(s string) {
+		if c.syncing {
+			return
+		}
+		v, err := parseNumber(s)
+		if err != nil {
+			setMessage(c.flowMsg, errors.New("angle of attack must be a number of degrees"))
+			return
+		}
+		setMessage(c.flowMsg, ctl.SetAlpha("alpha", v))
+	}
+	stepAlpha := func(sign float64) {
+		st := ctl.state.study
+		ctl.BreakMerge()
+		setMessage(c.flowMsg, ctl.SetAlpha("", st.Flow.AlphaDeg+sign*st.Sweep.StepDeg))
+	}
+	c.alphaDown = widget.NewButton("−", func() { stepAlpha(-1) })
+	c.alphaUp = widget.NewButton("+", func() { stepAlpha(1) })
+
+	// Sweep.
+	c.from, c.to, c.step = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
+	c.sweepMsg = message()
+	for _, e := range []*widget.Entry{c.from, c.to, c.step} {
+		e.OnChanged = func(string) { c.editSweep() }
+	}
+	c.progress = widget.NewProgressBar()
+	c.progress.Hide()
+	c.run = widget.NewButton("Run sweep", c.runSweep)
+	c.run.Importance = widget.HighImportance
+	c.cancel = widget.NewButton("Cancel", ctl.CancelSweep)
+	c.cancel.Hide()
+
+	// Pins.
+	c.pins = widget.NewLabel("")
+	c.pins.Wrapping = fyne.TextWrapWord
+	pin := widget.NewButton("Pin current", func() { w.userError(ctl.PinCurrent()) })
+	clear := widget.NewButton("Clear pins", func() { w.userError(ctl.ClearPins()) })
+
+	c.box = container.NewVBox(
+		heading("Section source"),
+		row("NACA", c.naca),
+		c.sourceMsg,
+		c.source,
+		container.NewGridWithColumns(2, openFile, report),
+		widget.NewSeparator(),
+
+		heading("Panelling"),
+		row("Panels", container.NewBorder(nil, nil, nil, sized(c.panelEntry, 64), c.panelSlider)),
+		row("Spacing", c.spacing),
+		row("Nose", container.NewBorder(nil, nil, nil, c.noseVal, c.nose)),
+		row("Tail", container.NewBorder(nil, nil, nil, c.tailVal, c.tail)),
+		c.panelMsg,
+		widget.NewSeparator(),
+
+		heading("Flow"),
+		row("α (°)", container.NewBorder(nil, nil, nil, container.NewHBox(sized(c.alphaEntry, 64), c.alphaDown, c.alphaUp), c.alphaSlider)),
+		c.flowMsg,
+		widget.NewSeparator(),
+
+		heading("Sweep"),
+		container.NewGridWithColumns(3, labelled("from (°)", c.from), labelled("to (°)", c.to), labelled("step (°)", c.step)),
+		c.sweepMsg,
+		container.NewBorder(nil, nil, nil, c.cancel, c.run),
+		c.progress,
+		widget.NewSeparator(),
+
+		heading("Pins"),
+		container.NewGridWithColumns(2, pin, clear),
+		c.pins,
+	)
+	return c
+}
+
+// sized gives an entry a fixed width.
+func sized(o fyne.CanvasObject, width float32) fyne.CanvasObject {
+	return container.NewStack(fixedWidth(width), o)
+}
+
+// labelled stacks a small caption over a field.
+func labelled(caption string, field fyne.CanvasObject) fyne.CanvasObject {
+	l := widget.NewLabel(caption)
+	l.Importance = widget.LowImportance
+	return container.NewVBox(l, field)
+}
+
+// clusterSlider builds a 0..1 slider for nose or tail clustering.
+func (c *controls) clusterSlider(key string, set func(*model.Panelling, float64)) (*widget.Slider, *widget.Label) {
+	s := widget.NewSlider(0, 1)
+	s.Step = clusterStep
+	val := widget.NewLabel("")
+	s.OnChanged = func(v float64) {
+		if c.syncing {
+			return
+		}
+		c.editPanelling(key, func(p *model.Panelling) { set(p, v) })
+	}
+	s.OnChangeEnded = func(float64) { c.w.ctl.BreakMerge() }
+	return s, val
+}
+
+func (c *controls) editPanelling(key string, f func(*model.Panelling)) {
+	p := c.w.ctl.state.study.Panelling
+	f(&p)
+	setMessage(c.panelMsg, c.w.ctl.SetPanelling(key, p))
+}
+
+func (c *controls) editSweep() {
+	if c.syncing {
+		return
+	}
+	var r model.SweepRange
+	var vals [3]float64
+	for i, e := range []*widget.Entry{c.from, c.to, c.step} {
+		v, err := parseNumber(e.Text)
+		if err != nil {
+			setMessage(c.sweepMsg, fmt.Errorf("sweep %s must be a number of degrees", [3]string{"from", "to", "step"}[i]))
+			return
+		}
+		vals[i] = v
+	}
+	r = model.SweepRange{FromDeg: vals[0], ToDeg: vals[1], StepDeg: vals[2]}
+	setMessage(c.sweepMsg, c.w.ctl.SetSweep(r))
+}
+
+func (c *controls) runSweep() {
+	ctl := c.w.ctl
+	c.progress.SetValue(0)
+	err := ctl.RunSweep(func(done, total int) {
+		fyne.Do(func() { c.progress.SetValue(float64(done) / float64(total)) })
+	}, func(err error) {
+		fyne.Do(func() {
+			c.progress.Hide()
+			c.cancel.Hide()
+			c.run.Enable()
+			if err != nil {
+				setMessage(c.sweepMsg, err)
+			}
+		})
+	})
+	if err != nil {
+		setMessage(c.sweepMsg, err)
+		return
+	}
+	setMessage(c.sweepMsg, nil)
+	c.run.Disable()
+	c.progress.Show()
+	c.cancel.Show()
+}
+
+// sourceError shows or clears a message under the section source.
+func (c *controls) sourceError(err error) { setMessage(c.sourceMsg, err) }
+
+// sync sets every control from st without editing the study.
+func (c *controls) sync(st *model.Study) {
+	c.syncing = true
+	defer func() { c.syncing = false }()
+	el := st.Elements[currentElement]
+	if d, ok := strings.CutPrefix(el.Section.Spec, "naca:"); ok {
+		if !strings.EqualFold(strings.TrimSpace(c.naca.Text), d) {
+			c.naca.SetText(d)
+		}
+		setMessage(c.sourceMsg, nil)
+	} else if c.sourceMsg.Hidden {
+		c.naca.SetText("")
+	}
+	c.source.SetText(fmt.Sprintf("%s — %s, chord %s mm", el.Name, shortSource(el.Section), num(el.ChordMM)))
+
+	p := st.Panelling
+	c.panelSlider.SetValue(float64(min(p.Panels, sliderMaxPanels)))
+	setIfDiffers(c.panelEntry, strconv.Itoa(p.Panels), func(s string) bool {
+		n, err := strconv.Atoi(strings.TrimSpace(s))
+		return err == nil && n == p.Panels
+	})
+	c.spacing.SetSelected(string(p.Spacing))
+	c.nose.SetValue(p.Nose)
+	c.tail.SetValue(p.Tail)
+	c.noseVal.SetText(fixed(p.Nose, 2))
+	c.tailVal.SetText(fixed(p.Tail, 2))
+	setMessage(c.panelMsg, nil)
+
+	a := st.Flow.AlphaDeg
+	c.alphaSlider.SetValue(max(-sliderMaxAlpha, min(sliderMaxAlpha, a)))
+	setIfDiffers(c.alphaEntry, num(a), numberIs(a))
+	step := num(st.Sweep.StepDeg) + "°"
+	c.alphaDown.SetText("−" + step)
+	c.alphaUp.SetText("+" + step)
+	setMessage(c.flowMsg, nil)
+
+	setIfDiffers(c.from, num(st.Sweep.FromDeg), numberIs(st.Sweep.FromDeg))
+	setIfDiffers(c.to, num(st.Sweep.ToDeg), numberIs(st.Sweep.ToDeg))
+	setIfDiffers(c.step, num(st.Sweep.StepDeg), numberIs(st.Sweep.StepDeg))
+	setMessage(c.sweepMsg, nil)
+
+	if len(st.Pins) == 0 {
+		c.pins.SetText("No pins. A pin freezes the current Cp and polar for comparison.")
+	} else {
+		var b strings.Builder
+		for i, p := range st.Pins {
+			fmt.Fprintf(&b, "%d. %s\n", i+1, p.Label)
+		}
+		c.pins.SetText(strings.TrimSpace(b.String()))
+	}
+}
+
+// setIfDiffers sets an entry's text unless it already says the same value,
+// so that typing "4." is not rewritten to "4" under the cursor.
+func setIfDiffers(e *widget.Entry, text string, same func(string) bool) {
+	if !same(e.Text) {
+		e.SetText(text)
+	}
+}
+
+func numberIs(x float64) func(string) bool {
+	return func(s string) bool {
+		v, err := parseNumber(s)
+		return err == nil && v == x
+	}
+}

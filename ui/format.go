@@ -1,0 +1,24 @@
+package ui
+
+import (
+	"strconv"
+	"strings"
+)
+
+// fixed formats x with prec decimals and a true minus sign.
+func fixed(x float64, prec int) string {
+	s := strconv.FormatFloat(x, 'f', prec, 64)
+	if s == "-"+strconv.FormatFloat(0, 'f', prec, 64) {
+		s = s[1:]
+	}
+	return strings.Replace(s, "-", "−", 1)
+}
+
+// parseNumber reads a number typed by the user, accepting a true minus
+// sign and a decimal comma.
+func parseNumber(s string) (float64, error) {
+	s = strings.TrimSpace(s)
+	s = strings.ReplaceAll(s, "−", "-")
+	s = strings.ReplaceAll(s, ",", ".")
+	return strconv.ParseFloat(s, 64)
+}

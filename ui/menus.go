@@ -1,0 +1,301 @@
+package ui
+
+import (
+	"errors"
+	"path/filepath"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/storage"
+	"fyne.io/fyne/v2/widget"
+)
+
+// Extensions offered in the file dialogs.
+var (
+	studyExtensions   = []string{".json"}
+	sectionExtensions = []string{".dat", ".txt", ".csv", ".xy"}
+)
+
+// shortcut returns the platform's primary modifier (Ctrl, or Cmd on macOS)
+// with key, plus Shift if shift is set.
+func shortcut(key fyne.KeyName, shift bool) fyne.Shortcut {
+	m := fyne.KeyModifierShortcutDefault
+	if shift {
+		m |= fyne.KeyModifierShift
+	}
+	return &desktop.CustomShortcut{KeyName: key, Modifier: m}
+}
+
+// item returns a menu item with a shortcut, and registers the shortcut on
+// the window's canvas so it works without opening the menu.
+func (w *Workbench) item(label string, sc fyne.Shortcut, action func()) *fyne.MenuItem {
+	it := fyne.NewMenuItem(label, action)
+	if sc != nil {
+		it.Shortcut = sc
+		w.win.Canvas().AddShortcut(sc, func(fyne.Shortcut) { action() })
+	}
+	return it
+}
+
+func (w *Workbench) menu() *fyne.MainMenu {
+	exportMenu := fyne.NewMenuItem("Export", nil)
+	exportMenu.ChildMenu = fyne.NewMenu("", w.exportItems()...)
+
+	quit := w.item("Quit", shortcut(fyne.KeyQ, false), w.closeRequested)
+	quit.IsQuit = true
+	file := fyne.NewMenu("File",
+		w.item("New study", shortcut(fyne.KeyN, false), w.newStudy),
+		w.item("Open section…", shortcut(fyne.KeyO, true), w.openSection),
+		w.item("Open study…", shortcut(fyne.KeyO, false), w.openStudy),
+		fyne.NewMenuItemSeparator(),
+		w.item("Save study", shortcut(fyne.KeyS, false), func() { w.save(false) }),
+		w.item("Save study as…", shortcut(fyne.KeyS, true), func() { w.save(true) }),
+		fyne.NewMenuItemSeparator(),
+		exportMenu,
+		fyne.NewMenuItemSeparator(),
+		quit,
+	)
+	edit := fyne.NewMenu("Edit",
+		w.item("Undo", shortcut(fyne.KeyZ, false), func() { w.ctl.Undo() }),
+		w.item("Redo", shortcut(fyne.KeyZ, true), func() { w.ctl.Redo() }),
+	)
+	var viewItems []*fyne.MenuItem
+	keys := [numViews]fyne.KeyName{fyne.Key1, fyne.Key2, fyne.Key3, fyne.Key4}
+	for k := range numViews {
+		viewItems = append(viewItems, w.item("Enlarge "+k.String(), shortcut(keys[k], false), func() { w.toggleEnlarge(k) }))
+	}
+	viewItems = append(viewItems,
+		w.item("Show all views", shortcut(fyne.Key0, false), func() { w.toggleEnlarge(numViews) }),
+		fyne.NewMenuItemSeparator(),
+		w.item("Leading-edge close-up", shortcut(fyne.KeyL, false), func() { w.views[viewPanels].canvas.CloseUpLE(0) }),
+		w.item("Reset zoom", shortcut(fyne.KeyR, false), func() {
+			w.views[viewPanels].canvas.ResetZoom()
+			w.views[viewStreamlines].canvas.ResetZoom()
+		}),
+	)
+	help := fyne.NewMenu("Help",
+		fyne.NewMenuItem("Methods and cautions", w.showMethods),
+		fyne.NewMenuItem("About", w.showAbout),
+	)
+	return fyne.NewMainMenu(file, edit, fyne.NewMenu("View", viewItems...), help)
+}
+
+// exportItems lists what File ▸ Export offers.
+func (w *Workbench) exportItems() []*fyne.MenuItem {
+	it := fyne.NewMenuItem("Not available yet", nil)
+	it.Disabled = true
+	return []*fyne.MenuItem{it}
+}
+
+// confirmDiscard runs then at once if the study has no unsaved changes,
+// otherwise after the user chose to save or discard them.
+func (w *Workbench) confirmDiscard(action string, then func()) {
+	if !w.ctl.Dirty() {
+		then()
+		return
+	}
+	msg := widget.NewLabel("The study “" + w.ctl.state.study.Name + "” has unsaved changes.")
+	var d dialog.Dialog
+	save := widget.NewButton("Save", func() {
+		d.Hide()
+		w.saveThen(false, then)
+	})
+	save.Importance = widget.HighImportance
+	discard := widget.NewButton(action+" without saving", func() { d.Hide(); then() })
+	cancel := widget.NewButton("Cancel", func() { d.Hide() })
+	d = dialog.NewCustomWithoutButtons("Unsaved changes",
+		container.NewVBox(msg, container.NewHBox(cancel, discard, save)), w.win)
+	d.Show()
+}
+
+func (w *Workbench) closeRequested() {
+	w.confirmDiscard("Close", func() {
+		w.ctl.CancelSweep()
+		w.win.Close()
+	})
+}
+
+func (w *Workbench) newStudy() {
+	w.confirmDiscard("Continue", func() {
+		w.userError(w.ctl.Load(newStudy(), ""))
+	})
+}
+
+func (w *Workbench) openStudy() {
+	w.confirmDiscard("Continue", func() {
+		w.openFile(studyExtensions, w.loadStudyFile)
+	})
+}
+
+func (w *Workbench) openSection() { w.openFile(sectionExtensions, w.loadSectionFile) }
+
+// loadStudyFile opens a study from disk; on error the current one stays.
+func (w *Workbench) loadStudyFile(path string) {
+	st, err := loadStudy(path)
+	if err == nil {
+		err = w.ctl.Load(st, path)
+	}
+	w.userError(err)
+}
+
+// loadSectionFile makes a coordinate file the current element's section.
+func (w *Workbench) loadSectionFile(path string) {
+	if err := w.ctl.SetSectionFile(path); err != nil {
+		w.controls.sourceError(err)
+		w.userError(err)
+		return
+	}
+	w.controls.sourceError(nil)
+}
+
+// openFile asks for a file with one of exts and passes its path on.
+func (w *Workbench) openFile(exts []string, then func(path string)) {
+	d := dialog.NewFileOpen(func(r fyne.URIReadCloser, err error) {
+		if err != nil {
+			w.userError(err)
+			return
+		}
+		if r == nil {
+			return // cancelled
+		}
+		path := r.URI().Path()
+		r.Close()
+		then(path)
+	}, w.win)
+	d.SetFilter(storage.NewExtensionFileFilter(exts))
+	if p := w.ctl.Path(); p != "" {
+		if l, err := storage.ListerForURI(storage.NewFileURI(filepath.Dir(p))); err == nil {
+			d.SetLocation(l)
+		}
+	}
+	d.Resize(fyne.NewSize(900, 600))
+	d.Show()
+}
+
+// save writes the study to its file, asking for one if it has none or as
+// is set.
+func (w *Workbench) save(as bool) { w.saveThen(as, nil) }
+
+func (w *Workbench) saveThen(as bool, then func()) {
+	if p := w.ctl.Path(); p != "" && !as {
+		if err := w.ctl.Save(p); err != nil {
+			w.userError(err)
+			return
+		}
+		if then != nil {
+			then()
+		}
+		return
+	}
+	d := dialog.NewFileSave(func(wc fyne.URIWriteCloser, err error) {
+		if err != nil {
+			w.userError(err)
+			return
+		}
+		if wc == nil {
+			return
+		}
+		path := wc.URI().Path()
+		wc.Close() // the study is written atomically by path, not through wc
+		if err := w.ctl.Save(path); err != nil {
+			w.userError(err)
+			return
+		}
+		if then != nil {
+			then()
+		}
+	}, w.win)
+	d.SetFileName(fileNameFor(w.ctl.state.study.Name))
+	d.SetFilter(storage.NewExtensionFileFilter(studyExtensions))
+	d.Resize(fyne.NewSize(900, 600))
+	d.Show()
+}
+
+// fileNameFor suggests a file name for a study name.
+func fileNameFor(name string) string {
+	var b strings.Builder
+	for _, r := range strings.ToLower(name) {
+		switch {
+		case r >= 'a' && r <= 'z', r >= '0' && r <= '9':
+			b.WriteRune(r)
+		case b.Len() > 0 && !strings.HasSuffix(b.String(), "-"):
+			b.WriteByte('-')
+		}
+	}
+	s := strings.Trim(b.String(), "-")
+	if s == "" {
+		s = "study"
+	}
+	return s + ".json"
+}
+
+// dropped opens a study (.json) or a coordinate file dropped on the window.
+func (w *Workbench) dropped(_ fyne.Position, uris []fyne.URI) {
+	if len(uris) == 0 {
+		return
+	}
+	u := uris[0]
+	if u.Scheme() != "file" {
+		w.userError(errors.New("only local files can be dropped here"))
+		return
+	}
+	if strings.EqualFold(u.Extension(), ".json") {
+		w.confirmDiscard("Continue", func() { w.loadStudyFile(u.Path()) })
+		return
+	}
+	w.loadSectionFile(u.Path())
+}
+
+// showReport shows the cleaning reports of the current sections.
+func (w *Workbench) showReport() {
+	var b strings.Builder
+	for i, r := range w.ctl.Reports() {
+		name := w.ctl.state.study.Elements[i].Name
+		b.WriteString(name + ": " + shortSource(w.ctl.state.study.Elements[i].Section) + "\n")
+		if r == nil || r.String() == "" {
+			b.WriteString("  no changes were needed\n\n")
+			continue
+		}
+		b.WriteString(r.String() + "\n\n")
+	}
+	text := widget.NewLabel(strings.TrimSpace(b.String()))
+	text.Wrapping = fyne.TextWrapWord
+	scroll := container.NewVScroll(text)
+	scroll.SetMinSize(fyne.NewSize(560, 360))
+	dialog.ShowCustom("Cleaning report", "Close", scroll, w.win)
+}
+
+// methodsText explains what the numbers are and how far to trust them.
+const methodsText = `Sectionbench solves the two-dimensional, inviscid, incompressible flow about one or more wing sections with a linear-strength vortex panel method and the Kutta condition at each trailing edge (Katz & Plotkin, Low-Speed Aerodynamics, 2nd ed., ch. 11). Lift comes from the circulation (Kutta–Joukowski); Cm is about the quarter chord, nose-up positive; Cp = 1 − (V/U∞)². A ground plane is modelled by an image system.
+
+Cautions
+• These are 2-D potential-flow estimates. Real wings have finite span, tip vortices, separation and interaction with the car; maximum lift and stall are not predicted.
+• Check panel-count convergence: results should not change when the panel count is doubled (pin both and compare).
+• Validate by test (wind tunnel, coast-down or on-track measurements) before relying on any number.
+• Structural design and mounting of wings follow the competition's rules and qualified engineering review; nothing here sizes a structure.`
+
+func (w *Workbench) showMethods() {
+	text := widget.NewLabel(methodsText)
+	text.Wrapping = fyne.TextWrapWord
+	scroll := container.NewVScroll(text)
+	scroll.SetMinSize(fyne.NewSize(620, 380))
+	dialog.ShowCustom("Methods and cautions", "Close", scroll, w.win)
+}
+
+func (w *Workbench) showAbout() {
+	v := w.app.Metadata().Version
+	if v == "" {
+		v = "development build"
+	}
+	text := widget.NewLabel("Sectionbench " + v + "\nA workbench for two-dimensional wing sections: panelling, surface pressure, streamlines and polars.\n\n" + caution)
+	text.Wrapping = fyne.TextWrapWord
+	c := container.NewVBox(text)
+	d := dialog.NewCustom("About Sectionbench", "Close", c, w.win)
+	d.Resize(fyne.NewSize(480, 240))
+	d.Show()
+}
+
+func showError(err error, win fyne.Window) { dialog.ShowError(err, win) }

@@ -1,0 +1,63 @@
+package ui
+
+import (
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/theme"
+	"fyne.io/fyne/v2/widget"
+)
+
+// plotView is one of the four views: a header with its title, the readout
+// and its buttons above the drawing area.
+type plotView struct {
+	widget.BaseWidget
+	kind    viewKind
+	canvas  *plotCanvas
+	readout *widget.Label
+	enlarge *widget.Button
+	tools   []fyne.CanvasObject
+}
+
+// newPlotView builds a view; onEnlarge toggles it between its cell and the
+// whole view area.
+func newPlotView(kind viewKind, act *activity, onEnlarge func(viewKind)) *plotView {
+	v := &plotView{kind: kind, canvas: newPlotCanvas(kind, act)}
+	v.readout = widget.NewLabel("")
+	v.readout.Importance = widget.LowImportance
+	v.canvas.onHover = func(s string) { v.readout.SetText(s) }
+	v.enlarge = widget.NewButtonWithIcon("", theme.ViewFullScreenIcon(), func() { onEnlarge(kind) })
+	v.enlarge.Importance = widget.LowImportance
+	switch kind {
+	case viewPanels:
+		le := widget.NewButtonWithIcon("LE", theme.ZoomInIcon(), func() { v.canvas.CloseUpLE(0) })
+		reset := widget.NewButtonWithIcon("", theme.ZoomFitIcon(), v.canvas.ResetZoom)
+		v.tools = []fyne.CanvasObject{le, reset}
+	case viewStreamlines:
+		in := widget.NewButtonWithIcon("", theme.ZoomInIcon(), func() { v.canvas.ZoomCentre(1 / zoomStep) })
+		out := widget.NewButtonWithIcon("", theme.ZoomOutIcon(), func() { v.canvas.ZoomCentre(zoomStep) })
+		reset := widget.NewButtonWithIcon("", theme.ZoomFitIcon(), v.canvas.ResetZoom)
+		v.tools = []fyne.CanvasObject{in, out, reset}
+	}
+	for _, t := range v.tools {
+		t.(*widget.Button).Importance = widget.LowImportance
+	}
+	v.ExtendBaseWidget(v)
+	return v
+}
+
+// setEnlarged switches the enlarge button's icon.
+func (v *plotView) setEnlarged(on bool) {
+	if on {
+		v.enlarge.SetIcon(theme.ViewRestoreIcon())
+	} else {
+		v.enlarge.SetIcon(theme.ViewFullScreenIcon())
+	}
+}
+
+// CreateRenderer is part of fyne.Widget.
+func (v *plotView) CreateRenderer() fyne.WidgetRenderer {
+	title := widget.NewLabelWithStyle(v.kind.String(), fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+	right := container.NewHBox(append(append([]fyne.CanvasObject{v.readout}, v.tools...), v.enlarge)...)
+	header := container.NewBorder(nil, nil, title, right)
+	return widget.NewSimpleRenderer(container.NewBorder(header, nil, nil, nil, v.canvas))
+}

@@ -1,0 +1,131 @@
+package ui
+
+import (
+	"context"
+	"fmt"
+	"runtime/debug"
+	"sync"
+)
+
+// activity counts work in flight (solves, renders) so that tests and the
+// benchmark can wait until the workbench is idle.
+type activity struct {
+	mu   sync.Mutex
+	cond *sync.Cond
+	n    int
+}
+
+func newActivity() *activity {
+	a := &activity{}
+	a.cond = sync.NewCond(&a.mu)
+	return a
+}
+
+func (a *activity) add() {
+	a.mu.Lock()
+	a.n++
+	a.mu.Unlock()
+}
+
+func (a *activity) done() {
+	a.mu.Lock()
+	a.n--
+	if a.n == 0 {
+		a.cond.Broadcast()
+	}
+	a.mu.Unlock()
+}
+
+// wait blocks until no work is in flight.
+func (a *activity) wait() {
+	a.mu.Lock()
+	for a.n > 0 {
+		a.cond.Wait()
+	}
+	a.mu.Unlock()
+}
+
+// update is one request to the engine with the generation it was made in.
+type update struct {
+	gen uint64
+	req engineRequest
+}
+
+// scheduler runs engine requests on one worker goroutine, latest request
+// wins: a request submitted while another runs replaces any request still
+// waiting, and a result whose generation is no longer the latest is dropped
+// without being shown.
+type scheduler struct {
+	eng     engine
+	act     *activity
+	deliver func(u update, res *engineResult, err error) // on the worker goroutine
+
+	mu      sync.Mutex
+	gen     uint64
+	pending *update
+	busy    bool
+}
+
+func newScheduler(eng engine, act *activity, deliver func(update, *engineResult, error)) *scheduler {
+	return &scheduler{eng: eng, act: act, deliver: deliver}
+}
+
+// Submit queues req and returns its generation.
+func (s *scheduler) Submit(req engineRequest) uint64 {
+	s.mu.Lock()
+	defer s.mu.Unlock()
+	s.gen++
+	s.pending = &update{gen: s.gen, req: req}
+	if !s.busy {
+		s.busy = true
+		s.act.add()
+		go s.loop()
+	}
+	return s.gen
+}
+
+// Latest returns the generation of the newest request.
+func (s *scheduler) Latest() uint64 {
+	s.mu.Lock()
+	defer s.mu.Unlock()
+	return s.gen
+}
+
+// Invalidate makes every request made so far stale.
+func (s *scheduler) Invalidate() {
+	s.mu.Lock()
+	s.gen++
+	s.pending = nil
+	s.mu.Unlock()
+}
+
+func (s *scheduler) loop() {
+	defer s.act.done()
+	for {
+		s.mu.Lock()
+		u := s.pending
+		s.pending = nil
+		if u == nil {
+			s.busy = false
+			s.mu.Unlock()
+			return
+		}
+		s.mu.Unlock()
+		res, err := safeRun(s.eng, context.Background(), u.req)
+		if u.gen != s.Latest() {
+			continue // stale: a newer request is waiting or the study changed
+		}
+		s.deliver(*u, res, err)
+	}
+}
+
+// safeRun calls the engine and turns a panic into an error, so that bad
+// input can never bring the workbench down.
+func safeRun(eng engine, ctx context.Context, req engineRequest) (res *engineResult, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			res, err = nil, fmt.Errorf("internal error in the solver: %v\n%s", r, debug.Stack())
+		}
+	}()
+	return eng.Run(ctx, req)
+}

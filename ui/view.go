@@ -1,0 +1,357 @@
+package ui
+
+import (
+	"image"
+	"math"
+	"sync"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/canvas"
+	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/widget"
+)
+
+// viewKind names the four live views.
+type viewKind int
+
+const (
+	viewPanels viewKind = iota
+	viewPressure
+	viewStreamlines
+	viewPolar
+	numViews
+)
+
+var viewTitles = [numViews]string{"Panels", "Surface pressure", "Streamlines", "Polar"}
+
+func (k viewKind) String() string { return viewTitles[k] }
+
+// baseDPI is the figure resolution at canvas scale 1: one Fyne unit is one
+// pixel of a 96 dpi screen (common practice for desktop toolkits).
+const baseDPI = 96
+
+// Zoom steps: one wheel notch or button press scales the window by
+// zoomStep; leCloseUpChords is the side of the square leading-edge close-up
+// in chords of the element.
+const (
+	zoomStep        = 1.25
+	wheelNotch      = 10.0 // Fyne scroll units per wheel notch (common practice: 10 on desktop drivers)
+	leCloseUpChords = 0.15
+)
+
+// plotCanvas is the drawing area of one view: it shows a figure rendered off
+// the UI goroutine and turns scrolls, drags and hovers into window changes
+// and readouts.
+type plotCanvas struct {
+	widget.BaseWidget
+	kind    viewKind
+	act     *activity
+	image   *canvas.Image
+	onHover func(text string)
+
+	mu      sync.Mutex
+	sc      *scene // newest scene, window not set
+	win     viewWindow
+	zoomed  bool
+	dark    bool
+	pxW     int
+	pxH     int
+	dpi     float64
+	ticket  uint64 // last render started
+	shown   uint64 // ticket of the figure on screen
+	fig     *figure
+	pending bool // a local render is queued
+	running bool
+	err     error
+}
+
+func newPlotCanvas(kind viewKind, act *activity) *plotCanvas {
+	p := &plotCanvas{kind: kind, act: act}
+	p.image = canvas.NewImageFromImage(image.NewRGBA(image.Rect(0, 0, 1, 1)))
+	p.image.FillMode = canvas.ImageFillStretch
+	p.image.ScaleMode = canvas.ImageScalePixels
+	p.ExtendBaseWidget(p)
+	return p
+}
+
+// CreateRenderer is part of fyne.Widget.
+func (p *plotCanvas) CreateRenderer() fyne.WidgetRenderer {
+	return &plotRenderer{p: p}
+}
+
+// MinSize keeps a view legible when the window is small.
+func (p *plotCanvas) MinSize() fyne.Size { return fyne.NewSize(200, 140) }
+
+type plotRenderer struct{ p *plotCanvas }
+
+func (r *plotRenderer) Layout(size fyne.Size) {
+	r.p.image.Resize(size)
+	r.p.image.Move(fyne.NewPos(0, 0))
+	r.p.sized(size)
+}
+func (r *plotRenderer) MinSize() fyne.Size           { return r.p.MinSize() }
+func (r *plotRenderer) Refresh()                     { r.p.image.Refresh() }
+func (r *plotRenderer) Objects() []fyne.CanvasObject { return []fyne.CanvasObject{r.p.image} }
+func (r *plotRenderer) Destroy()                     {}
+
+// scale returns the canvas scale the view is drawn at.
+func (p *plotCanvas) scale() float32 {
+	if c := fyne.CurrentApp().Driver().CanvasForObject(p); c != nil && c.Scale() > 0 {
+		return c.Scale()
+	}
+	return 1
+}
+
+// sized records the pixel size for the next render; on a change it
+// re-renders the newest scene.
+func (p *plotCanvas) sized(size fyne.Size) {
+	if size.Width < 1 || size.Height < 1 {
+		return
+	}
+	s := p.scale()
+	w, h := int(math.Round(float64(size.Width*s))), int(math.Round(float64(size.Height*s)))
+	p.mu.Lock()
+	changed := w != p.pxW || h != p.pxH
+	p.pxW, p.pxH = w, h
+	p.dpi = baseDPI * float64(w) / float64(size.Width)
+	p.mu.Unlock()
+	if changed {
+		p.renderLater()
+	}
+}
+
+// setDark chooses the figure colours; the UI goroutine calls it on theme
+// changes.
+func (p *plotCanvas) setDark(dark bool) {
+	p.mu.Lock()
+	changed := p.dark != dark
+	p.dark = dark
+	p.mu.Unlock()
+	if changed {
+		p.renderLater()
+	}
+}
+
+// frame is one rendered figure waiting to be shown.
+type frame struct {
+	p      *plotCanvas
+	ticket uint64
+	fig    *figure
+	err    error
+}
+
+// renderNow renders sc at the current size and window on the calling
+// goroutine (never the UI goroutine) and returns the frame to show.
+func (p *plotCanvas) renderNow(sc *scene) frame {
+	p.mu.Lock()
+	if sc != nil {
+		p.sc = sc
+	}
+	p.ticket++
+	t := p.ticket
+	s, w, h, dpi, win, zoomed, dark := p.sc, p.pxW, p.pxH, p.dpi, p.win, p.zoomed, p.dark
+	p.mu.Unlock()
+	if s == nil || w < 1 || h < 1 {
+		return frame{p: p, ticket: t}
+	}
+	c := *s
+	c.Dark = dark
+	if zoomed {
+		c.Window = win
+	}
+	fig, err := safeRender(p.kind, &c, w, h, dpi)
+	return frame{p: p, ticket: t, fig: fig, err: err}
+}
+
+// show puts a frame on screen unless a newer one is already there. UI
+// goroutine only.
+func (f frame) show() {
+	p := f.p
+	p.mu.Lock()
+	if f.ticket <= p.shown || (f.fig == nil && f.err == nil) {
+		p.mu.Unlock()
+		return
+	}
+	p.shown = f.ticket
+	p.err = f.err
+	if f.fig != nil {
+		p.fig = f.fig
+	}
+	p.mu.Unlock()
+	if f.fig != nil {
+		p.image.Image = f.fig.Image
+		p.image.Refresh()
+	}
+}
+
+// renderLater re-renders the newest scene on a goroutine of its own,
+// coalescing requests that arrive while one runs.
+func (p *plotCanvas) renderLater() {
+	p.mu.Lock()
+	if p.running {
+		p.pending = true
+		p.mu.Unlock()
+		return
+	}
+	p.running = true
+	p.mu.Unlock()
+	p.act.add()
+	go func() {
+		defer p.act.done()
+		for {
+			f := p.renderNow(nil)
+			fyne.Do(f.show)
+			p.mu.Lock()
+			if !p.pending {
+				p.running = false
+				p.mu.Unlock()
+				return
+			}
+			p.pending = false
+			p.mu.Unlock()
+		}
+	}()
+}
+
+// Figure returns the figure on screen, or nil.
+func (p *plotCanvas) Figure() *figure {
+	p.mu.Lock()
+	defer p.mu.Unlock()
+	return p.fig
+}
+
+// pixel converts a position in the view to figure pixels.
+func (p *plotCanvas) pixel(pos fyne.Position) (int, int) {
+	s := p.scale()
+	return int(pos.X * s), int(pos.Y * s)
+}
+
+// window returns the data window on screen.
+func (p *plotCanvas) window() (viewWindow, bool) {
+	f := p.Figure()
+	if f == nil {
+		return viewWindow{}, false
+	}
+	return figureWindow(f)
+}
+
+// setWindow zooms to w (zoomed false: the figure's own extent).
+func (p *plotCanvas) setWindow(w viewWindow, zoomed bool) {
+	p.mu.Lock()
+	p.win, p.zoomed = w, zoomed
+	p.mu.Unlock()
+	p.renderLater()
+}
+
+// ResetZoom returns to the figure's own extent.
+func (p *plotCanvas) ResetZoom() { p.setWindow(viewWindow{}, false) }
+
+// ZoomBy scales the window by f about the data point (cx, cy); f < 1 zooms in.
+func (p *plotCanvas) ZoomBy(f, cx, cy float64) {
+	w, ok := p.window()
+	if !ok || !(f > 0) {
+		return
+	}
+	p.setWindow(viewWindow{
+		XMin: cx + (w.XMin-cx)*f, XMax: cx + (w.XMax-cx)*f,
+		YMin: cy + (w.YMin-cy)*f, YMax: cy + (w.YMax-cy)*f,
+	}, true)
+}
+
+// ZoomCentre scales the window about its centre.
+func (p *plotCanvas) ZoomCentre(f float64) {
+	w, ok := p.window()
+	if ok {
+		p.ZoomBy(f, (w.XMin+w.XMax)/2, (w.YMin+w.YMax)/2)
+	}
+}
+
+// CloseUpLE zooms the Panels view onto an element's leading edge.
+func (p *plotCanvas) CloseUpLE(element int) {
+	p.mu.Lock()
+	sc := p.sc
+	p.mu.Unlock()
+	if sc == nil || sc.Layout == nil || element >= len(sc.Layout.Elements) {
+		return
+	}
+	p.setWindow(leWindow(sc.Layout, element, leCloseUpChords), true)
+}
+
+// Scrolled zooms the Panels view about the pointer.
+func (p *plotCanvas) Scrolled(e *fyne.ScrollEvent) {
+	if p.kind != viewPanels {
+		return
+	}
+	f := p.Figure()
+	if f == nil {
+		return
+	}
+	x, y, ok := f.DataAt(p.pixel(e.Position))
+	if !ok {
+		return
+	}
+	p.ZoomBy(math.Pow(zoomStep, -float64(e.Scrolled.DY)/wheelNotch), x, y)
+}
+
+// Dragged pans the Panels view.
+func (p *plotCanvas) Dragged(e *fyne.DragEvent) {
+	if p.kind != viewPanels {
+		return
+	}
+	f := p.Figure()
+	w, ok := p.window()
+	if f == nil || !ok {
+		return
+	}
+	x0, y0, ok0 := f.DataAt(p.pixel(e.Position))
+	x1, y1, ok1 := f.DataAt(p.pixel(e.Position.Subtract(e.Dragged)))
+	if !ok0 || !ok1 {
+		return
+	}
+	dx, dy := x1-x0, y1-y0
+	p.setWindow(viewWindow{XMin: w.XMin + dx, XMax: w.XMax + dx, YMin: w.YMin + dy, YMax: w.YMax + dy}, true)
+}
+
+// DragEnd is part of fyne.Draggable.
+func (p *plotCanvas) DragEnd() {}
+
+// MouseIn is part of desktop.Hoverable.
+func (p *plotCanvas) MouseIn(e *desktop.MouseEvent) { p.MouseMoved(e) }
+
+// MouseMoved shows the value under the pointer on Pressure and Polar.
+func (p *plotCanvas) MouseMoved(e *desktop.MouseEvent) {
+	if p.onHover == nil || (p.kind != viewPressure && p.kind != viewPolar) {
+		return
+	}
+	f := p.Figure()
+	if f == nil {
+		return
+	}
+	x, y, ok := f.DataAt(p.pixel(e.Position))
+	if !ok {
+		p.onHover("")
+		return
+	}
+	p.onHover(readout(p.kind, x, y))
+}
+
+// MouseOut is part of desktop.Hoverable.
+func (p *plotCanvas) MouseOut() {
+	if p.onHover != nil {
+		p.onHover("")
+	}
+}
+
+// readout formats the data under the pointer.
+func readout(k viewKind, x, y float64) string {
+	if k == viewPolar {
+		return "α " + fixed(x, 2) + "°   Cl " + fixed(y, 3)
+	}
+	return "x/c " + fixed(x, 3) + "   Cp " + fixed(y, 3)
+}
+
+var (
+	_ fyne.Scrollable   = (*plotCanvas)(nil)
+	_ fyne.Draggable    = (*plotCanvas)(nil)
+	_ desktop.Hoverable = (*plotCanvas)(nil)
+)

@@ -1,0 +1,267 @@
+// Package ui is Sectionbench's desktop workbench: the Fyne widgets and their
+// wiring. Each callback makes one call into model, solver or export through
+// the Controller; the package does no numerics of its own. It never creates
+// the Fyne app: cmd/sectionbench does and passes it in, so the package can be
+// tested with fyne.io/fyne/v2/test.
+package ui
+
+import (
+	"errors"
+	"fmt"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/canvas"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/theme"
+	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/assets"
+	"sectionbench/model"
+)
+
+// Default window size in Fyne units.
+const (
+	windowWidth  = 1280
+	windowHeight = 800
+	controlWidth = 330 // width of the control column
+)
+
+// caution is shown under the views and in Help.
+const caution = "2-D potential-flow estimates — validate by test. Structural design and mounting follow the competition's rules and qualified engineering review."
+
+// Workbench is the main window: the control column, the four views and the
+// status line.
+type Workbench struct {
+	app fyne.App
+	win fyne.Window
+	ctl *Controller
+
+	views    [numViews]*plotView
+	viewArea *fyne.Container
+	grid     *fyne.Container
+	enlarged viewKind // numViews when none
+
+	controls *controls
+	status   *widget.Label
+	statusOK bool
+	warnings *widget.Button
+}
+
+// New opens a workbench window in app for the study at path, or for the
+// embedded demo study if path is empty. The window is not shown yet.
+func New(app fyne.App, path string) (*Workbench, error) {
+	var st *model.Study
+	var err error
+	if path == "" {
+		st, err = decodeStudy(assets.DemoStudy)
+	} else {
+		st, err = loadStudy(path)
+	}
+	if err != nil {
+		return nil, err
+	}
+	ctl, err := NewController(nil)
+	if err != nil {
+		return nil, err
+	}
+	w := &Workbench{app: app, ctl: ctl, enlarged: numViews}
+	w.win = app.NewWindow("Sectionbench")
+	w.build()
+	ctl.OnStudy = func() { w.studyChanged() }
+	ctl.OnResult = w.present
+	if err := ctl.Load(st, path); err != nil {
+		return nil, err
+	}
+	if path == "" {
+		// The demo is a starting point, not a file: saving asks where.
+		ctl.state.path = ""
+	}
+	return w, nil
+}
+
+// Window returns the workbench window.
+func (w *Workbench) Window() fyne.Window { return w.win }
+
+// Controller returns the workbench's controller.
+func (w *Workbench) Controller() *Controller { return w.ctl }
+
+// ShowAndRun shows the window and runs the app until it quits.
+func (w *Workbench) ShowAndRun() { w.win.ShowAndRun() }
+
+// WaitIdle blocks until every solve and render in flight has been shown.
+func (w *Workbench) WaitIdle() { w.ctl.WaitIdle() }
+
+func (w *Workbench) build() {
+	for k := range numViews {
+		w.views[k] = newPlotView(k, w.ctl.act, w.toggleEnlarge)
+	}
+	w.grid = container.NewGridWithColumns(2,
+		w.views[viewPanels], w.views[viewPressure], w.views[viewStreamlines], w.views[viewPolar])
+	w.viewArea = container.NewStack(w.grid)
+
+	w.controls = newControls(w)
+	side := container.NewStack(fixedWidth(controlWidth), container.NewVScroll(w.controls.box))
+
+	w.status = widget.NewLabel("Solving…")
+	w.status.Truncation = fyne.TextTruncateEllipsis
+	w.warnings = widget.NewButtonWithIcon("", theme.WarningIcon(), w.showReport)
+	w.warnings.Importance = widget.LowImportance
+	w.warnings.Hide()
+	note := widget.NewLabelWithStyle(caution, fyne.TextAlignTrailing, fyne.TextStyle{Italic: true})
+	note.Truncation = fyne.TextTruncateEllipsis
+	note.Importance = widget.LowImportance
+	statusLine := container.NewBorder(nil, nil, nil, w.warnings, container.NewGridWithColumns(2, w.status, note))
+
+	content := container.NewBorder(nil, container.NewVBox(widget.NewSeparator(), statusLine), side, nil, w.viewArea)
+	w.win.SetContent(content)
+	w.win.Resize(fyne.NewSize(windowWidth, windowHeight))
+	w.win.SetMainMenu(w.menu())
+	w.win.SetCloseIntercept(w.closeRequested)
+	w.win.SetOnDropped(w.dropped)
+	w.win.SetIcon(fyne.NewStaticResource("icon.png", assets.Icon))
+	w.setDark(w.app.Settings().ThemeVariant() == theme.VariantDark)
+	w.app.Settings().AddListener(func(s fyne.Settings) {
+		w.setDark(s.ThemeVariant() == theme.VariantDark)
+	})
+}
+
+// fixedWidth is an invisible object that gives a column its width.
+func fixedWidth(width float32) fyne.CanvasObject {
+	r := canvas.NewRectangle(nil)
+	r.SetMinSize(fyne.NewSize(width, 0))
+	return r
+}
+
+func (w *Workbench) setDark(dark bool) {
+	for _, v := range w.views {
+		v.canvas.setDark(dark)
+	}
+}
+
+// toggleEnlarge shows view k alone, or the grid again if it already is.
+func (w *Workbench) toggleEnlarge(k viewKind) {
+	if w.enlarged == k || k == numViews {
+		w.enlarged = numViews
+		w.grid.Objects = []fyne.CanvasObject{w.views[viewPanels], w.views[viewPressure], w.views[viewStreamlines], w.views[viewPolar]}
+		w.viewArea.Objects = []fyne.CanvasObject{w.grid}
+	} else {
+		w.enlarged = k
+		w.viewArea.Objects = []fyne.CanvasObject{w.views[k]}
+	}
+	for i, v := range w.views {
+		v.setEnlarged(viewKind(i) == w.enlarged)
+	}
+	w.viewArea.Refresh()
+}
+
+// present renders a current result into the four views on the worker
+// goroutine, then shows them together on the UI goroutine unless a newer
+// request has been made meanwhile.
+func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error) {
+	if err != nil {
+		fyne.Do(func() { w.showStatusError(err) })
+		return
+	}
+	var frames [numViews]frame
+	for k, v := range w.views {
+		frames[k] = v.canvas.renderNow(sc)
+	}
+	fyne.Do(func() {
+		if gen != w.ctl.sched.Latest() {
+			return // stale: a newer request is on its way
+		}
+		for _, f := range frames {
+			f.show()
+		}
+		w.showStatus(res)
+	})
+}
+
+func (w *Workbench) showStatus(res *engineResult) {
+	w.status.Importance = widget.MediumImportance
+	w.status.SetText(statusText(res))
+	n := 0
+	for _, r := range w.ctl.Reports() {
+		if r != nil {
+			n += len(r.Warnings)
+		}
+	}
+	if n > 0 {
+		w.warnings.SetText(fmt.Sprintf("%d cleaning warning%s", n, plural(n)))
+		w.warnings.Show()
+	} else {
+		w.warnings.Hide()
+	}
+}
+
+func (w *Workbench) showStatusError(err error) {
+	w.status.Importance = widget.DangerImportance
+	w.status.SetText("Not solved: " + firstLine(err.Error()))
+}
+
+// statusText summarises a result: Cl, Cm, the suction peak and the solve
+// time.
+func statusText(res *engineResult) string {
+	s := res.Solution
+	if s == nil {
+		return "No solution"
+	}
+	parts := []string{"Cl " + fixed(s.Cl, 3), "Cm " + fixed(s.Cm, 3)}
+	best := -1
+	for i, e := range s.Elements {
+		if best < 0 || e.CpMin < s.Elements[best].CpMin {
+			best = i
+		}
+	}
+	if best >= 0 {
+		e := s.Elements[best]
+		where := "x/c " + fixed(e.XCpMin, 3)
+		if len(s.Elements) > 1 {
+			where += " on " + e.Name
+		}
+		parts = append(parts, "min Cp "+fixed(e.CpMin, 2)+" at "+where)
+	}
+	parts = append(parts, fmt.Sprintf("solve %d ms", res.Elapsed.Milliseconds()))
+	if n := len(s.Warnings); n > 0 {
+		parts = append(parts, fmt.Sprintf("%d solver warning%s", n, plural(n)))
+	}
+	return strings.Join(parts, "   ")
+}
+
+func plural(n int) string {
+	if n == 1 {
+		return ""
+	}
+	return "s"
+}
+
+func firstLine(s string) string {
+	if i := strings.IndexByte(s, '\n'); i >= 0 {
+		return s[:i]
+	}
+	return s
+}
+
+// studyChanged refreshes the title and the controls after the study changed.
+func (w *Workbench) studyChanged() {
+	st := w.ctl.state.study
+	title := st.Name
+	if w.ctl.Dirty() {
+		title += " •"
+	}
+	w.win.SetTitle(title + " — Sectionbench")
+	w.controls.sync(st)
+}
+
+// userError explains bad input in a dialog; the study is left unchanged.
+func (w *Workbench) userError(err error) {
+	if err == nil {
+		return
+	}
+	var fe *model.FieldError
+	if errors.As(err, &fe) {
+		err = fmt.Errorf("%s: %w", fe.Field, fe.Err)
+	}
+	showError(err, w.win)
+}

@@ -1,0 +1,340 @@
+package ui
+
+import (
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/test"
+
+	"sectionbench/model"
+)
+
+// newTestBench opens the demo study in a headless workbench and waits for
+// its first result.
+func newTestBench(t *testing.T) *Workbench {
+	t.Helper()
+	a := test.NewTempApp(t)
+	w, err := New(a, "")
+	if err != nil {
+		t.Fatalf("New: %v", err)
+	}
+	w.Window().Resize(fyne.NewSize(windowWidth, windowHeight))
+	w.WaitIdle()
+	t.Cleanup(func() { w.ctl.CancelSweep(); w.WaitIdle() })
+	return w
+}
+
+// current returns the newest result and fails if the newest request failed
+// or its result is not the one shown.
+func current(t *testing.T, w *Workbench) *engineResult {
+	t.Helper()
+	w.WaitIdle()
+	res, gen, err := w.ctl.Result()
+	if err != nil {
+		t.Fatalf("solve failed: %v", err)
+	}
+	if res == nil || gen != w.ctl.sched.Latest() {
+		t.Fatalf("no current result (gen %d, latest %d)", gen, w.ctl.sched.Latest())
+	}
+	return res
+}
+
+func panelCount(res *engineResult) int { return len(res.Solution.Elements[0].Panels) }
+
+func encoded(t *testing.T, st *model.Study) string {
+	t.Helper()
+	b, err := encodeStudy(st)
+	if err != nil {
+		t.Fatalf("encode: %v", err)
+	}
+	return string(b)
+}
+
+func TestDemoStartsSolved(t *testing.T) {
+	w := newTestBench(t)
+	res := current(t, w)
+	st := w.ctl.Study()
+	if got, want := panelCount(res), st.Panelling.Panels; got != want {
+		t.Errorf("first result has %d panels, study asks for %d", got, want)
+	}
+	if len(w.ctl.Sweep()) == 0 {
+		t.Error("the demo's sweep did not run with the first update")
+	}
+	if w.ctl.Dirty() {
+		t.Error("a freshly opened demo is marked unsaved")
+	}
+	for k, v := range w.views {
+		if v.canvas.Figure() == nil {
+			t.Errorf("view %v shows no figure after the first update (%v)", viewKind(k), v.canvas.err)
+		}
+	}
+}
+
+func TestPanelCountResolves(t *testing.T) {
+	w := newTestBench(t)
+	for _, c := range []struct {
+		name string
+		set  func()
+		want int
+	}{
+		{"entry", func() { w.controls.panelEntry.SetText("80") }, 80},
+		{"slider", func() { w.controls.panelSlider.SetValue(240) }, 240},
+		{"entry beyond slider", func() { w.controls.panelEntry.SetText("1500") }, 1500},
+	} {
+		c.set()
+		res := current(t, w)
+		if got := w.ctl.Study().Panelling.Panels; got != c.want {
+			t.Errorf("%s: study has %d panels, want %d", c.name, got, c.want)
+		}
+		if got := panelCount(res); got != c.want {
+			t.Errorf("%s: result has %d panels, want %d", c.name, got, c.want)
+		}
+	}
+	// Out of range: the message shows and the study keeps its count.
+	w.controls.panelEntry.SetText("5000")
+	w.WaitIdle()
+	if w.controls.panelMsg.Hidden {
+		t.Error("panel count 5000 shows no message")
+	}
+	if got := w.ctl.Study().Panelling.Panels; got != 1500 {
+		t.Errorf("after a rejected count the study has %d panels, want 1500", got)
+	}
+}
+
+func TestInvalidNACAKeepsSection(t *testing.T) {
+	w := newTestBench(t)
+	before := w.ctl.Study()
+	sec := w.ctl.Sections()[0]
+	res := current(t, w)
+
+	w.controls.naca.SetText("44x2")
+	w.WaitIdle()
+	if w.controls.sourceMsg.Hidden || w.controls.sourceMsg.Text == "" {
+		t.Error("invalid NACA code shows no message")
+	}
+	if got, want := encoded(t, w.ctl.Study()), encoded(t, before); got != want {
+		t.Error("an invalid NACA code changed the study")
+	}
+	if w.ctl.Sections()[0] != sec {
+		t.Error("an invalid NACA code replaced the section")
+	}
+	if r, _, _ := w.ctl.Result(); r != res {
+		t.Error("an invalid NACA code triggered a new solve")
+	}
+
+	w.controls.naca.SetText("0012")
+	current(t, w)
+	if got := w.ctl.Study().Elements[0].Section.Spec; got != "naca:0012" {
+		t.Errorf("after a valid code the section is %q, want naca:0012", got)
+	}
+	if !w.controls.sourceMsg.Hidden {
+		t.Error("the message stays after a valid code")
+	}
+	// The new section reached the solver: a symmetric and a cambered
+	// section give different lift at the same angle.
+	if r := current(t, w); r.Solution.Cl == res.Solution.Cl {
+		t.Error("the solution did not change with the section")
+	}
+}
+
+func TestUndoRedo(t *testing.T) {
+	w := newTestBench(t)
+	s0 := encoded(t, w.ctl.Study())
+	w.controls.panelEntry.SetText("90")
+	w.ctl.BreakMerge()
+	s1 := encoded(t, w.ctl.Study())
+	w.controls.alphaEntry.SetText("7.5")
+	s2 := encoded(t, w.ctl.Study())
+	if s0 == s1 || s1 == s2 {
+		t.Fatal("edits did not change the study")
+	}
+	steps := []struct {
+		name string
+		do   func() bool
+		want string
+	}{
+		{"undo alpha", w.ctl.Undo, s1},
+		{"undo panels", w.ctl.Undo, s0},
+		{"redo panels", w.ctl.Redo, s1},
+		{"redo alpha", w.ctl.Redo, s2},
+	}
+	for _, s := range steps {
+		if !s.do() {
+			t.Fatalf("%s: nothing to do", s.name)
+		}
+		if got := encoded(t, w.ctl.Study()); got != s.want {
+			t.Errorf("%s: study is\n%s\nwant\n%s", s.name, got, s.want)
+		}
+	}
+	if w.ctl.Redo() {
+		t.Error("redo past the newest change succeeded")
+	}
+	res := current(t, w)
+	if got := panelCount(res); got != 90 {
+		t.Errorf("after redo the result has %d panels, want 90", got)
+	}
+	if got := w.controls.alphaEntry.Text; got != "7.5" {
+		t.Errorf("after redo the angle entry says %q, want 7.5", got)
+	}
+}
+
+func TestSliderDragIsOneUndoStep(t *testing.T) {
+	w := newTestBench(t)
+	s0 := encoded(t, w.ctl.Study())
+	for _, n := range []float64{100, 120, 140, 160, 180} {
+		w.controls.panelSlider.SetValue(n)
+	}
+	w.ctl.BreakMerge()
+	if !w.ctl.Undo() {
+		t.Fatal("nothing to undo after a drag")
+	}
+	if got := encoded(t, w.ctl.Study()); got != s0 {
+		t.Error("one undo did not return to the study before the drag")
+	}
+}
+
+func TestSaveAndReopen(t *testing.T) {
+	w := newTestBench(t)
+	w.controls.panelEntry.SetText("120")
+	w.controls.alphaEntry.SetText("−2")
+	w.ctl.PinCurrent()
+	if !w.ctl.Dirty() || !strings.Contains(w.Window().Title(), "•") {
+		t.Errorf("edited study not marked unsaved (title %q)", w.Window().Title())
+	}
+	path := filepath.Join(t.TempDir(), "wing.json")
+	if err := w.ctl.Save(path); err != nil {
+		t.Fatal(err)
+	}
+	if w.ctl.Dirty() || strings.Contains(w.Window().Title(), "•") {
+		t.Errorf("saved study still marked unsaved (title %q)", w.Window().Title())
+	}
+	st, err := loadStudy(path)
+	if err != nil {
+		t.Fatalf("reopen: %v", err)
+	}
+	if got, want := encoded(t, st), encoded(t, w.ctl.Study()); got != want {
+		t.Errorf("reopened study differs:\n%s\nwant\n%s", got, want)
+	}
+	if st.Panelling.Panels != 120 || st.Flow.AlphaDeg != -2 || len(st.Pins) != 1 {
+		t.Errorf("reopened study has N=%d, α=%g, %d pins; want 120, −2, 1", st.Panelling.Panels, st.Flow.AlphaDeg, len(st.Pins))
+	}
+
+	// Open it in a second workbench: same study, solved.
+	a := fyne.CurrentApp()
+	w2, err := New(a, path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := panelCount(current(t, w2)); got != 120 {
+		t.Errorf("reopened study solved with %d panels, want 120", got)
+	}
+	if w2.ctl.Path() != path || w2.ctl.Dirty() {
+		t.Errorf("reopened workbench: path %q dirty %v", w2.ctl.Path(), w2.ctl.Dirty())
+	}
+}
+
+func TestPinsAppearAndClear(t *testing.T) {
+	w := newTestBench(t)
+	if err := w.ctl.PinCurrent(); err != nil {
+		t.Fatal(err)
+	}
+	w.controls.panelEntry.SetText("80")
+	if err := w.ctl.PinCurrent(); err != nil {
+		t.Fatal(err)
+	}
+	pins := w.ctl.Study().Pins
+	if len(pins) != 2 {
+		t.Fatalf("%d pins, want 2", len(pins))
+	}
+	if pins[1].Label != "N=80" {
+		t.Errorf("second pin label %q, want N=80", pins[1].Label)
+	}
+	var n int
+	for _, c := range pins[1].Cp {
+		n += len(c.Points)
+	}
+	if n != 80 {
+		t.Errorf("second pin holds %d Cp points, want one per panel (80)", n)
+	}
+	if len(pins[0].Polar) == 0 {
+		t.Error("pin holds no polar")
+	}
+	current(t, w)
+	if !strings.Contains(w.controls.pins.Text, "N=80") {
+		t.Errorf("pin list %q does not show the pin", w.controls.pins.Text)
+	}
+	if err := w.ctl.ClearPins(); err != nil {
+		t.Fatal(err)
+	}
+	if got := len(w.ctl.Study().Pins); got != 0 {
+		t.Errorf("%d pins after clearing", got)
+	}
+	if !w.ctl.Undo() || len(w.ctl.Study().Pins) != 2 {
+		t.Error("undo did not bring the pins back")
+	}
+}
+
+func TestRunSweep(t *testing.T) {
+	w := newTestBench(t)
+	w.controls.from.SetText("-6")
+	w.controls.to.SetText("10")
+	w.controls.step.SetText("0.5")
+	w.WaitIdle()
+	if got := w.ctl.Study().Sweep; got != (model.SweepRange{FromDeg: -6, ToDeg: 10, StepDeg: 0.5}) {
+		t.Fatalf("sweep is %+v", got)
+	}
+	w.controls.runSweep()
+	w.WaitIdle()
+	sw := w.ctl.Sweep()
+	if len(sw) != 33 {
+		t.Fatalf("sweep has %d angles, want 33", len(sw))
+	}
+	if sw[0].AlphaDeg != -6 || sw[len(sw)-1].AlphaDeg != 10 {
+		t.Errorf("sweep runs %g..%g, want −6..10", sw[0].AlphaDeg, sw[len(sw)-1].AlphaDeg)
+	}
+	if !w.controls.progress.Hidden || w.controls.run.Disabled() {
+		t.Error("sweep controls not restored after the run")
+	}
+	// A bad range leaves the study's sweep alone.
+	w.controls.step.SetText("0")
+	if w.controls.sweepMsg.Hidden {
+		t.Error("step 0 shows no message")
+	}
+	if w.ctl.Study().Sweep.StepDeg != 0.5 {
+		t.Error("a rejected step changed the study")
+	}
+}
+
+func TestEnlargeRestores(t *testing.T) {
+	w := newTestBench(t)
+	w.toggleEnlarge(viewPressure)
+	if len(w.viewArea.Objects) != 1 || w.viewArea.Objects[0] != w.views[viewPressure] {
+		t.Fatal("pressure view not enlarged")
+	}
+	w.toggleEnlarge(viewPressure)
+	if w.viewArea.Objects[0] != w.grid || len(w.grid.Objects) != int(numViews) {
+		t.Fatal("grid not restored")
+	}
+}
+
+func TestCloseUpAndZoom(t *testing.T) {
+	w := newTestBench(t)
+	p := w.views[viewPanels].canvas
+	full, ok := p.window()
+	if !ok {
+		t.Fatal("panels view has no window")
+	}
+	p.CloseUpLE(0)
+	w.WaitIdle()
+	near, _ := p.window()
+	if !(near.XMax-near.XMin < (full.XMax-full.XMin)/2) {
+		t.Errorf("close-up %+v is not much narrower than %+v", near, full)
+	}
+	p.ResetZoom()
+	w.WaitIdle()
+	if back, _ := p.window(); back != full {
+		t.Errorf("reset window %+v, want %+v", back, full)
+	}
+}
