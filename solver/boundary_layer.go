@@ -244,8 +244,11 @@ func SolveSurface(s, ue, xc []float64, opt BLOptions) (SurfaceBL, error) {
 		if opt.TripXC <= 0 || i < 1 || i < iLE || xc[i] < opt.TripXC {
 			return 0, false
 		}
-		if i-1 >= iLE && xc[i-1] < opt.TripXC {
+		switch {
+		case i-1 >= iLE && xc[i-1] < opt.TripXC:
 			return (opt.TripXC - xc[i-1]) / (xc[i] - xc[i-1]), true
+		case th2[i-1] > 0: // the trip lies ahead of the first station: trip there
+			return 0, true
 		}
 		return 1, true
 	}
