@@ -41,12 +41,14 @@ const (
 	// the surfaces into the closed trailing edge, with the smoothstep
 	// weight w = 3s² − 2s³ (zero slope change where the blend starts).
 	TECloseBlend = 0.05
-	// KinkAngleDeg: a turning between consecutive segments above this is a
-	// kink, except at the leading-edge point and its two neighbours (where a
-	// sparse nose turns sharply; see SparseNoseChord) and at the trailing
-	// edge. A smooth section listed with 60 points per surface turns by
-	// under 10° per point away from the nose.
+	// KinkAngleDeg and KinkContrast: a turning between consecutive
+	// segments is a kink when it exceeds KinkAngleDeg and KinkContrast times
+	// the turning at both neighbouring points (a slope discontinuity, not
+	// a tight but smooth curve, whose neighbours turn alike). The
+	// leading-edge point and its two neighbours are exempt (a sparse nose
+	// turns sharply there; see SparseNoseChord), as is the trailing edge.
 	KinkAngleDeg = 20.0
+	KinkContrast = 2.0
 	// SpikeRatio: a point is a spike when it lies farther from the line
 	// through its two neighbours than SpikeRatio times their distance: a
 	// smooth curve gives about h·κ/8, a kink at most a quarter.
@@ -68,7 +70,7 @@ const (
 const (
 	// teSearchFrac: the trailing edge is searched within this distance
 	// (fraction of the size) of the two ends of the section.
-	teSearchFrac = 0.05
+	teSearchFrac = 0.1
 	// bluntCornerDeg: each corner of a blunt trailing edge turns by at
 	// least this much (a square base turns by about 90° at each).
 	bluntCornerDeg = 30.0
@@ -345,7 +347,7 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 		rep.Changes = append(rep.Changes, fmt.Sprintf("moved the leading edge (found on the spline at %s) to the origin", fmtPoint(leOrig)))
 	}
 	if math.Abs(chord-1) > reportTol {
-		rep.Changes = append(rep.Changes, fmt.Sprintf("scaled by 1/%.6g to unit chord (the chord was %.6g)", chord, chord))
+		rep.Changes = append(rep.Changes, fmt.Sprintf("scaled by 1/%.9g to unit chord (the chord was %.9g)", chord, chord))
 	}
 	deg := theta * 180 / math.Pi
 	if math.Abs(theta) > reportTol {
@@ -478,6 +480,10 @@ func findTE(ring []Point, closed bool) teChoice {
 		return cs
 	}
 	all := append(candidates(a), candidates(b)...)
+	if !closed && turn[n-1] >= bluntCornerDeg && turn[0] >= bluntCornerDeg {
+		// The file's closing edge, however wide, as a blunt trailing edge.
+		all = append(all, teChoice{i: n - 1, edge: true, score: turn[n-1] + turn[0]})
+	}
 	best := all[0]
 	for _, c := range all[1:] {
 		if c.score > best.score {
@@ -534,7 +540,7 @@ func sectionWarnings(pts []Point, le int, gap float64, closedTE bool) []CleanWar
 		}
 	}
 	if nose < MinNosePoints {
-		add(WarnSparseNose, le, fmt.Sprintf("%d points within %g%% of the chord from the leading edge, fewer than %d: the nose shape and the suction peak are poorly defined", nose, 100*SparseNoseChord, MinNosePoints))
+		add(WarnSparseNose, le, fmt.Sprintf("%d %s within %g%% of the chord from the leading edge, fewer than %d: the nose shape and the suction peak are poorly defined", nose, plural(nose, "point", "points"), 100*SparseNoseChord, MinNosePoints))
 	}
 	// Spikes, then kinks away from them.
 	spike := make([]bool, n)
@@ -559,9 +565,8 @@ func sectionWarnings(pts []Point, le int, gap float64, closedTE bool) []CleanWar
 		if i >= le-1 && i <= le+1 || spike[i] || spike[i-1] || (i+1 < n && spike[i+1]) {
 			continue
 		}
-		u, v := pts[i].Sub(pts[i-1]), pts[i+1].Sub(pts[i])
-		t := math.Atan2(u.Cross(v), u.Dot(v)) * 180 / math.Pi
-		if math.Abs(t) > KinkAngleDeg {
+		t := turnAt(pts, i)
+		if math.Abs(t) > KinkAngleDeg && math.Abs(t) > KinkContrast*math.Max(math.Abs(turnAt(pts, i-1)), math.Abs(turnAt(pts, i+1))) {
 			add(WarnKink, i, fmt.Sprintf("the contour turns by %.1f° at point %d (x/c = %.4f), more than %g°", t, i+1, pts[i].X, KinkAngleDeg))
 		}
 	}
@@ -615,6 +620,16 @@ func sectionWarnings(pts []Point, le int, gap float64, closedTE bool) []CleanWar
 	return ws
 }
 
+// turnAt returns the turning angle in degrees at interior point i of an
+// open polyline (counter-clockwise positive), 0 at the ends.
+func turnAt(pts []Point, i int) float64 {
+	if i <= 0 || i >= len(pts)-1 {
+		return 0
+	}
+	u, v := pts[i].Sub(pts[i-1]), pts[i+1].Sub(pts[i])
+	return math.Atan2(u.Cross(v), u.Dot(v)) * 180 / math.Pi
+}
+
 func plural(n int, one, many string) string {
 	if n == 1 {
 		return one
@@ -632,7 +647,7 @@ func pointList(idx []int) string {
 		}
 		s = append(s, fmt.Sprint(i+1))
 	}
-	return "points " + strings.Join(s, ", ")
+	return plural(len(idx), "point ", "points ") + strings.Join(s, ", ")
 }
 
 func fmtPoint(p Point) string { return fmt.Sprintf("%.6g, %.6g", p.X, p.Y) }

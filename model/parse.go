@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"regexp"
+	"sort"
 	"strconv"
 	"strings"
 	"unicode"
@@ -399,6 +400,8 @@ func (p *parser) scan(lines []string) error {
 	}
 	var data []raw
 	var leading []raw // text lines before the first data line
+	var header []field
+	headLine, ix, iy := 0, -1, -1
 	for i, ln := range lines {
 		num := i + 1
 		if len(ln) > MaxLineBytes {
@@ -412,31 +415,36 @@ func (p *parser) scan(lines []string) error {
 			p.comments++
 			continue
 		}
-		first := splitFields(t, " \t,;", nil)[0].text
-		if !looksNumeric(first) {
-			if len(data) > 0 {
-				col := strings.Index(ln, first) + 1
-				return p.errAt(num, col, fmt.Errorf("text %q among the coordinates: %w", clip(t, 40), ErrNotNumber))
+		fs := splitFields(stripInline(ln), " \t,;", nil)
+		if len(data) > 0 {
+			// Among the data, a line is data when it starts with a number
+			// (or, under a header, has numbers in the x and y columns).
+			if len(fs) > 0 && (looksNumeric(fs[0].text) || header != nil && numericAt(fs, ix) && numericAt(fs, iy)) {
+				data = append(data, raw{num, stripInline(ln)})
+				continue
 			}
-			leading = append(leading, raw{num, ln})
+			col := strings.Index(ln, t) + 1
+			return p.errAt(num, col, fmt.Errorf("text %q among the coordinates: %w", clip(t, 40), ErrNotNumber))
+		}
+		// Before the data: a line is data when all its fields are numbers
+		// (or, under a header, those in the x and y columns are), so a
+		// name such as "250 mm section" stays a name.
+		allNum := len(fs) > 0
+		for _, f := range fs {
+			allNum = allNum && looksNumeric(f.text)
+		}
+		if allNum || header != nil && numericAt(fs, ix) && numericAt(fs, iy) {
+			data = append(data, raw{num, stripInline(ln)})
 			continue
 		}
-		data = append(data, raw{num, stripInline(ln)})
-	}
-	// Leading text lines: a header row naming x and y, the name, others.
-	for _, l := range leading {
-		if p.header == nil {
-			fs := splitFields(l.text, " \t,;", nil)
-			if ix, iy, ok := headerColumns(fs); ok {
-				p.header, p.headLine, p.ix, p.iy = fs, l.line, ix, iy
+		if header == nil {
+			hf := splitFields(ln, " \t,;", nil)
+			if x, y, ok := headerColumns(hf); ok {
+				header, headLine, ix, iy = hf, num, x, y
 				continue
 			}
 		}
-		if p.nameLine == 0 {
-			p.name, p.nameLine = cleanName(l.text), l.line
-			continue
-		}
-		p.notes = append(p.notes, fmt.Sprintf("text line %d skipped: %q", l.line, clip(strings.TrimSpace(l.text), 60)))
+		leading = append(leading, raw{num, ln})
 	}
 	if len(data) == 0 {
 		what := "no coordinate lines"
@@ -483,6 +491,24 @@ func (p *parser) scan(lines []string) error {
 		}
 		p.records = append(p.records, record{line: d.line, fields: fs})
 	}
+	// A header row must have as many fields as the first data line; if not,
+	// it was a text line (a name such as "x y z coordinates").
+	if header != nil && len(data) > 0 && len(p.records[0].fields) != len(header) {
+		leading = append(leading, raw{headLine, lines[headLine-1]})
+		sort.Slice(leading, func(i, j int) bool { return leading[i].line < leading[j].line })
+		header = nil
+	}
+	if header != nil {
+		p.header, p.headLine, p.ix, p.iy = header, headLine, ix, iy
+	}
+	// Leading text lines: the name, then others (noted).
+	for _, l := range leading {
+		if p.nameLine == 0 {
+			p.name, p.nameLine = cleanName(l.text), l.line
+			continue
+		}
+		p.notes = append(p.notes, fmt.Sprintf("text line %d skipped: %q", l.line, clip(strings.TrimSpace(l.text), 60)))
+	}
 	return nil
 }
 
@@ -511,6 +537,9 @@ func (p *parser) checkEmptyFields(line int, s string) error {
 	}
 	return nil
 }
+
+// numericAt reports whether field i exists and looks like a number.
+func numericAt(fs []field, i int) bool { return i >= 0 && i < len(fs) && looksNumeric(fs[i].text) }
 
 // headerColumns finds the x and y columns of a header row: a field that is
 // x or y, or starts with x or y followed by a non-letter (x/c, "Y (mm)").
@@ -601,14 +630,14 @@ func (p *parser) finish() (*Parsed, error) {
 				ignored = append(ignored, strings.Trim(f.text, `"' `))
 			}
 		}
-		note := fmt.Sprintf("header row on line %d: x in column %d (%q), y in column %d (%q)", p.headLine, p.ix+1, p.header[p.ix].text, p.iy+1, p.header[p.iy].text)
+		note := fmt.Sprintf("header row on line %d: x in column %d (%q), y in column %d (%q)", p.headLine, p.ix+1, strings.Trim(p.header[p.ix].text, `"' `), p.iy+1, strings.Trim(p.header[p.iy].text, `"' `))
 		if len(ignored) > 0 {
 			note += fmt.Sprintf("; other columns ignored: %s", strings.Join(ignored, ", "))
 		}
 		p.notes = append(p.notes, note)
 		for _, r := range recs {
 			if len(r.fields) < need {
-				return nil, p.errAt(r.line, 0, fmt.Errorf("%d values, but the header on line %d puts y in column %d and x in column %d: %w", len(r.fields), p.headLine, p.iy+1, p.ix+1, ErrColumns))
+				return nil, p.errAt(r.line, 0, fmt.Errorf("%d %s, but the header on line %d puts y in column %d and x in column %d: %w", len(r.fields), plural(len(r.fields), "value", "values"), p.headLine, p.iy+1, p.ix+1, ErrColumns))
 			}
 			x, err := p.number(r.line, r.fields[p.ix])
 			if err != nil {
@@ -626,6 +655,15 @@ func (p *parser) finish() (*Parsed, error) {
 		}
 	} else {
 		for k, r := range recs {
+			if len(r.fields) != 2 && !(k == 0 && len(r.fields) == 1) {
+				msg := fmt.Sprintf("%d %s; expected 2 (x and y)", len(r.fields), plural(len(r.fields), "value", "values"))
+				if len(r.fields) > 2 && p.seps["commas"] && !strings.Contains(lineText(r), ".") {
+					msg += "; if the commas are decimal commas, every data line must have two fields and no decimal points"
+				} else if len(r.fields) > 2 {
+					msg += "; for more columns use a header row naming x and y"
+				}
+				return nil, p.errAt(r.line, 0, fmt.Errorf("%s: %w", msg, ErrColumns))
+			}
 			vals := make([]float64, len(r.fields))
 			for i, f := range r.fields {
 				v, err := p.number(r.line, f)
@@ -645,13 +683,7 @@ func (p *parser) finish() (*Parsed, error) {
 				continue
 			}
 			if len(vals) != 2 {
-				msg := fmt.Sprintf("%d values; expected 2 (x and y)", len(vals))
-				if len(vals) > 2 && p.seps["commas"] && !p.decComma && !strings.Contains(lineText(r), ".") {
-					msg += "; if the commas are decimal commas, every data line must have two fields and no decimal points"
-				} else if len(vals) > 2 {
-					msg += "; for more columns use a header row naming x and y"
-				}
-				return nil, p.errAt(r.line, 0, fmt.Errorf("%s: %w", msg, ErrColumns))
+				return nil, p.errAt(r.line, 0, fmt.Errorf("1 value; expected 2 (x and y): %w", ErrColumns))
 			}
 			if len(pts) == MaxPoints {
 				return nil, p.errAt(r.line, 0, fmt.Errorf("more than %d points: %w", MaxPoints, ErrTooManyPoints))
@@ -684,7 +716,7 @@ func (p *parser) finish() (*Parsed, error) {
 		}
 	}
 	if len(pts) < MinSectionPoints {
-		return nil, p.errAt(0, 0, fmt.Errorf("%d points; a section needs at least %d: %w", len(pts), MinSectionPoints, ErrTooFewPoints))
+		return nil, p.errAt(0, 0, fmt.Errorf("%d %s; a section needs at least %d: %w", len(pts), plural(len(pts), "point", "points"), MinSectionPoints, ErrTooFewPoints))
 	}
 	switch len(counts) {
 	case 1:
