@@ -110,6 +110,11 @@ func validateStudy(st *model.Study) error { return st.Validate() }
 
 type cleanReport = model.CleanReport
 
+// ktPoints is how many points an analytic Kármán–Trefftz contour gets
+// before repanelling: dense enough that the spline through them is exact to
+// plotting accuracy.
+const ktPoints = 401
+
 // loadSections returns the cleaned sections of a study's elements.
 func loadSections(st *model.Study, baseDir string) ([]*model.Section, []*cleanReport, error) {
 	secs := make([]*model.Section, len(st.Elements))
@@ -135,6 +140,14 @@ func sectionFromSource(src model.SectionSource, baseDir string) (*model.Section,
 	}
 	if d, ok := strings.CutPrefix(src.Spec, "naca:"); ok {
 		s, err := model.NACA(d, model.NACAOptions{})
+		return s, nil, err
+	}
+	if d, ok := strings.CutPrefix(src.Spec, "kt:"); ok {
+		k, err := model.ParseKT(d)
+		if err != nil {
+			return nil, nil, err
+		}
+		s, err := k.Section(ktPoints)
 		return s, nil, err
 	}
 	return nil, nil, errors.New("section generators not available yet: " + src.Spec)
@@ -187,4 +200,21 @@ func saveStudy(path string, st *model.Study) error {
 		_, err := w.Write(b)
 		return err
 	})
+}
+
+// writeFile writes a file atomically: it appears whole or not at all.
+func writeFile(path string, write func(io.Writer) error) error {
+	return export.WriteFileAtomic(path, write)
+}
+
+func writeFigure(w io.Writer, v viewKind, sc *scene, format string, widthIn, heightIn, dpi float64) error {
+	c := *sc
+	c.Dark = false // printed figures are light
+	return export.WriteFigure(w, exportViews[v], &c, format, widthIn, heightIn, dpi)
+}
+
+func writeCpTable(w io.Writer, res *engineResult) error { return export.WriteCpTable(w, res.Solution) }
+
+func writeSweepTable(w io.Writer, sweep []solver.Coefficients) error {
+	return export.WriteSweepTable(w, sweep, nil)
 }

@@ -416,3 +416,13 @@ func (c *Controller) SetSweep(r model.SweepRange) error {
 	}
 	return c.Edit("sweep", func(st *model.Study) { st.Sweep = r })
 }
+
+// SetKT makes a Kármán–Trefftz section the current element's section.
+func (c *Controller) SetKT(k model.KarmanTrefftz) error {
+	if err := k.Validate(); err != nil {
+		return err
+	}
+	return c.Edit("", func(st *model.Study) {
+		st.Elements[currentElement].Section = model.SectionSource{Spec: "kt:" + k.String()}
+	})
+}

@@ -8,6 +8,7 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/model"
@@ -34,6 +35,9 @@ type controls struct {
 	naca      *widget.Entry
 	sourceMsg *widget.Label
 	source    *widget.Label
+	ktX, ktY  *widget.Entry
+	ktTau     *widget.Entry
+	ktMsg     *widget.Label
 
 	panelSlider *widget.Slider
 	panelEntry  *widget.Entry
@@ -106,6 +110,12 @@ func fieldLabel(path string) string {
 		return "Sweep to"
 	case "sweep.step_deg":
 		return "Sweep step"
+	case "kt.cx":
+		return "Centre x"
+	case "kt.cy":
+		return "Centre y"
+	case "kt.tau":
+		return "TE angle"
 	}
 	return path
 }
@@ -129,7 +139,7 @@ func newControls(w *Workbench) *controls {
 	c.sourceMsg = message()
 	c.source = widget.NewLabel("")
 	c.source.Wrapping = fyne.TextWrapWord
-	c.source.Importance = widget.LowImportance
+	c.source.SizeName = theme.SizeNameCaptionText
 	c.naca.OnChanged = func(s string) {
 		if c.syncing {
 			return
@@ -137,6 +147,12 @@ func newControls(w *Workbench) *controls {
 		setMessage(c.sourceMsg, ctl.SetNACA(s))
 	}
 	openFile := widget.NewButton("Open coordinate file…", w.openSection)
+	c.ktX, c.ktY, c.ktTau = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
+	c.ktX.SetText(num(ktDefault.CenterX))
+	c.ktY.SetText(num(ktDefault.CenterY))
+	c.ktTau.SetText(num(ktDefault.TEAngleDeg))
+	c.ktMsg = message()
+	useKT := widget.NewButton("Use Kármán–Trefftz section", c.useKT)
 	report := widget.NewButton("Cleaning report", w.showReport)
 
 	// Panelling.
@@ -230,6 +246,9 @@ func newControls(w *Workbench) *controls {
 		c.sourceMsg,
 		c.source,
 		container.NewGridWithColumns(2, openFile, report),
+		container.NewGridWithColumns(3, labelled("centre x", c.ktX), labelled("centre y", c.ktY), labelled("TE angle (°)", c.ktTau)),
+		useKT,
+		c.ktMsg,
 		widget.NewSeparator(),
 
 		heading("Panelling"),
@@ -259,6 +278,24 @@ func newControls(w *Workbench) *controls {
 	return c
 }
 
+// ktDefault is the analytic section offered first: a cambered 10° TE-angle
+// section (the sample case of REFERENCES.md, sec. 2).
+var ktDefault = model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}
+
+// useKT reads the three Kármán–Trefftz parameters and applies them.
+func (c *controls) useKT() {
+	var v [3]float64
+	for i, e := range []*widget.Entry{c.ktX, c.ktY, c.ktTau} {
+		x, err := parseNumber(e.Text)
+		if err != nil {
+			setMessage(c.ktMsg, fmt.Errorf("%s must be a number", [3]string{"centre x", "centre y", "TE angle"}[i]))
+			return
+		}
+		v[i] = x
+	}
+	setMessage(c.ktMsg, c.w.ctl.SetKT(model.KarmanTrefftz{CenterX: v[0], CenterY: v[1], TEAngleDeg: v[2]}))
+}
+
 // sized gives an entry a fixed width.
 func sized(o fyne.CanvasObject, width float32) fyne.CanvasObject {
 	return container.NewStack(fixedWidth(width), o)
@@ -267,8 +304,8 @@ func sized(o fyne.CanvasObject, width float32) fyne.CanvasObject {
 // labelled stacks a small caption over a field.
 func labelled(caption string, field fyne.CanvasObject) fyne.CanvasObject {
 	l := widget.NewLabel(caption)
-	l.Importance = widget.LowImportance
-	return container.NewVBox(l, field)
+	l.SizeName = theme.SizeNameCaptionText
+	return container.NewBorder(l, nil, nil, nil, field)
 }
 
 // clusterSlider builds a 0..1 slider for nose or tail clustering.
@@ -350,6 +387,14 @@ func (c *controls) sync(st *model.Study) {
 		setMessage(c.sourceMsg, nil)
 	} else if c.sourceMsg.Hidden {
 		c.naca.SetText("")
+	}
+	if d, ok := strings.CutPrefix(el.Section.Spec, "kt:"); ok {
+		if k, err := model.ParseKT(d); err == nil {
+			c.ktX.SetText(num(k.CenterX))
+			c.ktY.SetText(num(k.CenterY))
+			c.ktTau.SetText(num(k.TEAngleDeg))
+		}
+		setMessage(c.ktMsg, nil)
 	}
 	c.source.SetText(fmt.Sprintf("%s — %s, chord %s mm", el.Name, shortSource(el.Section), num(el.ChordMM)))
 

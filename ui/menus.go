@@ -83,13 +83,6 @@ func (w *Workbench) menu() *fyne.MainMenu {
 	return fyne.NewMainMenu(file, edit, fyne.NewMenu("View", viewItems...), help)
 }
 
-// exportItems lists what File ▸ Export offers.
-func (w *Workbench) exportItems() []*fyne.MenuItem {
-	it := fyne.NewMenuItem("Not available yet", nil)
-	it.Disabled = true
-	return []*fyne.MenuItem{it}
-}
-
 // confirmDiscard runs then at once if the study has no unsaved changes,
 // otherwise after the user chose to save or discard them.
 func (w *Workbench) confirmDiscard(action string, then func()) {

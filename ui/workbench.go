@@ -9,6 +9,7 @@ import (
 	"errors"
 	"fmt"
 	"strings"
+	"sync"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/canvas"
@@ -43,6 +44,8 @@ type Workbench struct {
 	enlarged viewKind // numViews when none
 
 	controls *controls
+	sceneMu  sync.Mutex
+	scene    *scene // newest scene shown
 	status   *widget.Label
 	statusOK bool
 	warnings *widget.Button
@@ -101,7 +104,9 @@ func (w *Workbench) build() {
 	w.viewArea = container.NewStack(w.grid)
 
 	w.controls = newControls(w)
-	side := container.NewStack(fixedWidth(controlWidth), container.NewVScroll(w.controls.box))
+	// The right inset keeps fields clear of the scroll bar.
+	inset := container.NewBorder(nil, nil, nil, fixedWidth(theme.Padding()*3), w.controls.box)
+	side := container.NewStack(fixedWidth(controlWidth), container.NewVScroll(inset))
 
 	w.status = widget.NewLabel("Solving…")
 	w.status.Truncation = fyne.TextTruncateEllipsis
@@ -174,8 +179,18 @@ func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error)
 		for _, f := range frames {
 			f.show()
 		}
+		w.sceneMu.Lock()
+		w.scene = sc
+		w.sceneMu.Unlock()
 		w.showStatus(res)
 	})
+}
+
+// lastScene returns the scene on screen, or nil before the first result.
+func (w *Workbench) lastScene() *scene {
+	w.sceneMu.Lock()
+	defer w.sceneMu.Unlock()
+	return w.scene
 }
 
 func (w *Workbench) showStatus(res *engineResult) {

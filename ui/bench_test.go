@@ -1,0 +1,51 @@
+package ui
+
+import (
+	"context"
+	"testing"
+
+	"sectionbench/assets"
+)
+
+// Size of each view in the update benchmarks, px.
+const benchViewW, benchViewH = 600, 400
+
+// benchUpdate measures one workbench update at N = 200: the engine call
+// (with the sweep and streamlines, as a live update asks) and the four views
+// rendered at 600×400. fresh selects a new engine per update (a panelling
+// change: assemble and factorise) instead of one engine stepping the angle
+// (factorisation cached).
+func benchUpdate(b *testing.B, fresh bool) {
+	st, err := decodeStudy(assets.DemoStudy)
+	if err != nil {
+		b.Fatal(err)
+	}
+	st.Panelling.Panels = 200
+	secs, _, err := loadSections(st, ".")
+	if err != nil {
+		b.Fatal(err)
+	}
+	eng := newEngine()
+	i := 0
+	for b.Loop() {
+		if fresh {
+			eng = newEngine()
+		} else {
+			st.Flow.AlphaDeg = float64(i%8) - 2
+			i++
+		}
+		res, err := eng.Run(context.Background(), engineRequest{Study: st, Sections: secs, Sweep: true, Streamlines: true})
+		if err != nil {
+			b.Fatal(err)
+		}
+		sc := sceneOf(res, st, res.Sweep)
+		for k := range numViews {
+			if _, err := renderView(k, sc, benchViewW, benchViewH, baseDPI); err != nil {
+				b.Fatalf("%v: %v", k, err)
+			}
+		}
+	}
+}
+
+func BenchmarkFullUpdate(b *testing.B)  { benchUpdate(b, true) }
+func BenchmarkAngleUpdate(b *testing.B) { benchUpdate(b, false) }
