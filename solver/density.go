@@ -40,9 +40,14 @@ type DensityOptions struct {
 
 // DensityRow is the result at one panel count and nose clustering.
 type DensityRow struct {
-	Panels           int
-	Nose             float64
-	Cl, Cm, CpMin    float64 // of the whole configuration (CpMin: the lowest over all elements)
+	Panels int
+	Nose   float64
+	Cl, Cm float64 // of the whole configuration
+	// CpMin is the lowest Cp over all elements ahead of
+	// TrailingEdgeCutXC: the suction peak. Cp next to a trailing edge does
+	// not converge pointwise (REFERENCES §7; at an open edge the corner
+	// panels' Cp grows without bound as panels shrink), so it is left out.
+	CpMin            float64
 	DCl, DCm, DCpMin float64 // change from the previous count at the same nose value; NaN for the first
 	// MinPanelLength and MaxPanelLength are the shortest and longest panel
 	// over all elements, each on its element's chord.
@@ -198,7 +203,11 @@ func densityRow(sol *Solution, n int, nose float64) DensityRow {
 	row := DensityRow{Panels: n, Nose: nose, Cl: sol.Cl, Cm: sol.Cm, CpMin: math.Inf(1),
 		DCl: nan, DCm: nan, DCpMin: nan, MinPanelLength: math.Inf(1), MaxPanelLength: 0}
 	for _, e := range sol.Elements {
-		row.CpMin = math.Min(row.CpMin, e.CpMin)
+		for _, p := range e.Panels {
+			if p.XC <= TrailingEdgeCutXC {
+				row.CpMin = math.Min(row.CpMin, p.Cp)
+			}
+		}
 		// Panel lengths from the midpoint arc lengths: S_0 = L_0/2 and
 		// S_i − S_(i−1) = (L_(i−1) + L_i)/2.
 		l := 0.0

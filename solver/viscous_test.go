@@ -93,24 +93,36 @@ func TestViscousErrors(t *testing.T) {
 	sol.Viscous(ViscousOptions{Re: []float64{1e6, 1e6}})
 }
 
-// nacaSystem builds a 200-panel cosine-spaced NACA section on a unit chord
-// (the generator's own cosine stations, 101 per surface; Kuethe & Chow
-// spacing, REFERENCES §7).
+// nacaSystem builds a NACA section repanelled with 200 cosine-spaced panels
+// on a unit chord (Kuethe & Chow spacing, REFERENCES §7).
 func nacaSystem(t *testing.T, digits string) *System {
 	t.Helper()
-	sec, err := model.NACA(digits, model.NACAOptions{PointsPerSurface: 101})
-	if err != nil {
-		t.Fatal(err)
-	}
-	sys, err := NewSystem(Config{
-		Elements:  []Element{{Name: "NACA " + digits, Nodes: sec.Points(), LE: sec.LeadingEdgeIndex()}},
-		RefChord:  1,
-		MomentRef: model.Point{X: 0.25},
-	})
+	return nacaPanels(t, digits, 200)
+}
+
+func nacaPanels(t *testing.T, digits string, panels int) *System {
+	t.Helper()
+	sys, err := nacaSystemErr(digits, panels)
 	if err != nil {
 		t.Fatal(err)
 	}
 	return sys
+}
+
+func nacaSystemErr(digits string, panels int) (*System, error) {
+	base, err := model.NACA(digits, model.NACAOptions{})
+	if err != nil {
+		return nil, err
+	}
+	sec, err := model.Repanel(base, model.Panelling{Panels: panels, Spacing: model.SpacingCosine})
+	if err != nil {
+		return nil, err
+	}
+	return NewSystem(Config{
+		Elements:  []Element{{Name: "NACA " + digits, Nodes: sec.Points(), LE: sec.LeadingEdgeIndex()}},
+		RefChord:  1,
+		MomentRef: model.Point{X: 0.25},
+	})
 }
 
 func viscousAt(t *testing.T, sys *System, alpha, re, trip float64) *ViscousResult {
