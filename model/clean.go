@@ -43,8 +43,9 @@ const (
 	TECloseBlend = 0.05
 	// KinkAngleDeg and KinkContrast: a turning between consecutive
 	// segments is a kink when it exceeds KinkAngleDeg and KinkContrast times
-	// the turning at both neighbouring points (a slope discontinuity, not
-	// a tight but smooth curve, whose neighbours turn alike). The
+	// the turning in the same direction at both neighbouring points (a
+	// slope discontinuity or a zigzag, not a tight but smooth curve, whose
+	// neighbours turn alike). The
 	// leading-edge point and its two neighbours are exempt (a sparse nose
 	// turns sharply there; see SparseNoseChord), as is the trailing edge.
 	KinkAngleDeg = 20.0
@@ -352,9 +353,9 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	deg := theta * 180 / math.Pi
 	if math.Abs(theta) > reportTol {
 		if opt.Derotate {
-			rep.Changes = append(rep.Changes, fmt.Sprintf("rotated by %.4f° so that the chord lies along x (it was inclined at %.4f°)", -deg, deg))
+			rep.Changes = append(rep.Changes, fmt.Sprintf("rotated by %s so that the chord lies along x (it was inclined at %s)", fmtDeg(-deg), fmtDeg(deg)))
 		} else {
-			rep.Warnings = append(rep.Warnings, CleanWarning{Kind: WarnInclined, Index: -1, Message: fmt.Sprintf("the chord is inclined at %.4f° and was left so (derotation off)", deg)})
+			rep.Warnings = append(rep.Warnings, CleanWarning{Kind: WarnInclined, Index: -1, Message: fmt.Sprintf("the chord is inclined at %s and was left so (derotation off)", fmtDeg(deg))})
 		}
 	}
 
@@ -566,7 +567,8 @@ func sectionWarnings(pts []Point, le int, gap float64, closedTE bool) []CleanWar
 			continue
 		}
 		t := turnAt(pts, i)
-		if math.Abs(t) > KinkAngleDeg && math.Abs(t) > KinkContrast*math.Max(math.Abs(turnAt(pts, i-1)), math.Abs(turnAt(pts, i+1))) {
+		sg := math.Copysign(1, t)
+		if math.Abs(t) > KinkAngleDeg && math.Abs(t) > KinkContrast*math.Max(0, math.Max(sg*turnAt(pts, i-1), sg*turnAt(pts, i+1))) {
 			add(WarnKink, i, fmt.Sprintf("the contour turns by %.1f° at point %d (x/c = %.4f), more than %g°", t, i+1, pts[i].X, KinkAngleDeg))
 		}
 	}
@@ -651,3 +653,11 @@ func pointList(idx []int) string {
 }
 
 func fmtPoint(p Point) string { return fmt.Sprintf("%.6g, %.6g", p.X, p.Y) }
+
+// fmtDeg formats an angle in degrees, with significant digits when tiny.
+func fmtDeg(d float64) string {
+	if math.Abs(d) < 1e-3 {
+		return fmt.Sprintf("%.2g°", d)
+	}
+	return fmt.Sprintf("%.4f°", d)
+}

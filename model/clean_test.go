@@ -1,0 +1,377 @@
+package model
+
+import (
+	"errors"
+	"math"
+	"math/rand/v2"
+	"strings"
+	"testing"
+)
+
+// naca0012Loop returns a NACA 0012 with the closed-trailing-edge thickness
+// coefficient −0.1036 (common practice, in place of Abbott & von
+// Doenhoff's −0.1015, so that y(1) = 0 to rounding), n points per surface at cosine
+// spacing, as the conventional loop. Its leading edge is (0, 0), its
+// trailing edge (1, 0), and by symmetry the point of the contour farthest
+// from the trailing edge is the leading edge: cleaning must leave it as it
+// is.
+func naca0012Loop(n int) []Point {
+	var up []Point
+	for i := range n {
+		x := (1 - math.Cos(math.Pi*float64(i)/float64(n-1))) / 2
+		y := 0.6 * (0.2969*math.Sqrt(x) - 0.1260*x - 0.3516*x*x + 0.2843*x*x*x - 0.1036*x*x*x*x)
+		up = append(up, Point{x, y})
+	}
+	up[n-1].Y = 0 // the coefficients sum to 1e-4, not 0: close exactly
+	var loop []Point
+	for i := n - 1; i >= 0; i-- {
+		loop = append(loop, up[i])
+	}
+	for i := 1; i < n; i++ {
+		loop = append(loop, Point{up[i].X, -up[i].Y})
+	}
+	return loop
+}
+
+func maxDist(a, b []Point) float64 {
+	if len(a) != len(b) {
+		return math.Inf(1)
+	}
+	d := 0.0
+	for i := range a {
+		d = math.Max(d, a[i].Dist(b[i]))
+	}
+	return d
+}
+
+func mustClean(t *testing.T, name string, pts []Point, opt CleanOptions) (*Section, *CleanReport) {
+	t.Helper()
+	sec, rep, err := Clean(name, pts, opt)
+	if err != nil {
+		t.Fatalf("%s: %v", name, err)
+	}
+	return sec, rep
+}
+
+// TestCleanConventionalUnchanged: a section already in the convention, with
+// its leading edge on a listed point, comes back unchanged and the report
+// says so.
+func TestCleanConventionalUnchanged(t *testing.T) {
+	in := naca0012Loop(61)
+	sec, rep := mustClean(t, "NACA 0012", in, DefaultCleanOptions)
+	if d := maxDist(sec.Points(), in); d > 1e-12 {
+		t.Errorf("points moved by %g", d)
+	}
+	if len(rep.Changes) != 0 || len(rep.Warnings) != 0 {
+		t.Errorf("report not empty:\n%s", rep)
+	}
+	if rep.InputPoints != 121 || rep.OutputPoints != 121 || rep.TEGap != 0 {
+		t.Errorf("counts %d→%d, gap %g", rep.InputPoints, rep.OutputPoints, rep.TEGap)
+	}
+	if !strings.Contains(rep.String(), "Changes: none") {
+		t.Errorf("String:\n%s", rep)
+	}
+}
+
+// TestCleanInvariance is a property test: scaling, translating and
+// rotating the input, reversing it and starting it elsewhere give the same
+// cleaned section.
+func TestCleanInvariance(t *testing.T) {
+	rng := rand.New(rand.NewPCG(1, 2))
+	shapes := []struct {
+		name string
+		pts  []Point
+	}{
+		{"NACA 0012 sharp", naca0012Loop(51)},
+		{"NACA 2412 blunt", testLoop(41)},
+	}
+	for _, s := range shapes {
+		ref, _ := mustClean(t, s.name, s.pts, DefaultCleanOptions)
+		for trial := range 20 {
+			scale := math.Pow(10, -3+6*rng.Float64())
+			rot := (rng.Float64()*2 - 1) * math.Pi / 6
+			off := Point{(rng.Float64()*2 - 1) * 1e3, (rng.Float64()*2 - 1) * 1e3}
+			pts := make([]Point, len(s.pts))
+			for i, p := range s.pts {
+				pts[i] = p.Rotate(Point{}, rot).Scale(scale).Add(off)
+			}
+			if trial%2 == 1 {
+				pts = reversed(pts)
+			}
+			if trial%3 == 2 {
+				// Start elsewhere: a sharp closed loop drops its repeated
+				// end point and repeats the new start instead.
+				k := 1 + rng.IntN(len(pts)-2)
+				ring := pts
+				if pts[0].Dist(pts[len(pts)-1]) < 1e-12*scale {
+					ring = pts[:len(pts)-1]
+				}
+				pts = append(append([]Point(nil), ring[k:]...), ring[:k]...)
+			}
+			got, rep := mustClean(t, s.name, pts, DefaultCleanOptions)
+			// The tolerance allows for rounding at coordinates of 1e3
+			// scaled down by up to 1e-3: 1e3/1e-3 × 1e-16 ≈ 1e-10.
+			if d := maxDist(got.Points(), ref.Points()); d > 1e-9 {
+				t.Errorf("%s trial %d (scale %g, rotation %g°, offset %v, reversed %v): differs by %g\n%s",
+					s.name, trial, scale, rot*180/math.Pi, off, trial%2 == 1, d, rep)
+			}
+		}
+	}
+}
+
+// TestCleanConvention checks the convention on a cleaned, transformed,
+// reversed section: LE at the origin, TE midpoint at (1, 0),
+// counter-clockwise, upper surface first.
+func TestCleanConvention(t *testing.T) {
+	var pts []Point
+	for _, p := range reversed(testLoop(41)) {
+		pts = append(pts, p.Rotate(Point{0.3, 0}, 0.2).Scale(180).Add(Point{-50, 7}))
+	}
+	sec, rep := mustClean(t, "moved", pts, DefaultCleanOptions)
+	le := sec.At(sec.LeadingEdgeIndex())
+	if le != (Point{}) {
+		t.Errorf("leading edge at %v", le)
+	}
+	mid := sec.At(0).Add(sec.At(sec.Len() - 1)).Scale(0.5)
+	if mid.Dist(Point{1, 0}) > 1e-12 {
+		t.Errorf("trailing-edge midpoint at %v", mid)
+	}
+	if sec.SignedArea() <= 0 {
+		t.Errorf("area %g, want counter-clockwise", sec.SignedArea())
+	}
+	if sec.At(1).Y <= sec.At(sec.Len()-2).Y {
+		t.Errorf("does not start on the upper surface: %v then %v", sec.At(1), sec.At(sec.Len()-2))
+	}
+	// NACA 2412 formula: open trailing edge of 2·5·0.12·(0.2969 − 0.1260 −
+	// 0.3516 + 0.2843 − 0.1015) = 0.252% chord (Abbott & von Doenhoff eq.
+	// 6.2), here measured along the cleaned chord.
+	if want := 2 * 5 * 0.12 * (0.2969 - 0.1260 - 0.3516 + 0.2843 - 0.1015); math.Abs(rep.TEGap-want)/want > 1e-3 {
+		t.Errorf("TE gap %g, want %g", rep.TEGap, want)
+	}
+	for _, c := range []string{"reversed the point order", "moved the leading edge", "scaled by 1/", "rotated by"} {
+		if !strings.Contains(strings.Join(rep.Changes, "\n"), c) {
+			t.Errorf("changes lack %q:\n%s", c, rep)
+		}
+	}
+}
+
+// TestCleanRecoversKnownShape: a NACA 0012 moved, scaled, turned and
+// listed backwards from the leading edge comes back as the formula gives
+// it.
+func TestCleanRecoversKnownShape(t *testing.T) {
+	ref := naca0012Loop(41)
+	le := 40
+	var pts []Point
+	for _, p := range append(append([]Point(nil), ref[le:]...), ref[1:le+1]...) {
+		pts = append(pts, p.Rotate(Point{}, -0.3).Scale(0.25).Add(Point{3, 4}))
+	}
+	sec, rep := mustClean(t, "0012", reversed(pts), DefaultCleanOptions)
+	if d := maxDist(sec.Points(), ref); d > 1e-12 {
+		t.Errorf("differs from the formula by %g\n%s", d, rep)
+	}
+}
+
+func TestCleanCloseTE(t *testing.T) {
+	in := testLoop(41)
+	open, _ := mustClean(t, "open", in, DefaultCleanOptions)
+	sec, rep := mustClean(t, "closed", in, CleanOptions{Derotate: true, CloseTE: true})
+	n := sec.Len()
+	if sec.At(0) != sec.At(n-1) {
+		t.Errorf("trailing-edge points %v and %v differ", sec.At(0), sec.At(n-1))
+	}
+	if sec.At(0).Dist(Point{1, 0}) > 1e-12 {
+		t.Errorf("closed trailing edge at %v, want the midpoint (1, 0)", sec.At(0))
+	}
+	if rep.TEGap < 0.002 {
+		t.Errorf("report gap %g, want the gap before closing", rep.TEGap)
+	}
+	if !strings.Contains(strings.Join(rep.Changes, "\n"), "closed the trailing-edge gap") {
+		t.Errorf("no change reported:\n%s", rep)
+	}
+	for i := range n {
+		p, q := sec.At(i), open.At(i)
+		if p.X < 1-TECloseBlend-1e-3 && p != q {
+			t.Errorf("point %d at x = %g moved from %v to %v, outside the blend", i, p.X, q, p)
+		}
+		if d := p.Dist(q); d > rep.TEGap/2+1e-12 {
+			t.Errorf("point %d moved by %g, more than half the gap", i, d)
+		}
+	}
+}
+
+func TestCleanNoDerotate(t *testing.T) {
+	var pts []Point
+	for _, p := range naca0012Loop(41) {
+		pts = append(pts, p.Rotate(Point{}, 10*math.Pi/180))
+	}
+	sec, rep := mustClean(t, "tilted", pts, CleanOptions{})
+	te := sec.At(0)
+	if ang := math.Atan2(te.Y, te.X) * 180 / math.Pi; math.Abs(ang-10) > 1e-9 {
+		t.Errorf("chord at %g°, want 10° kept", ang)
+	}
+	if len(rep.Warnings) != 1 || rep.Warnings[0].Kind != WarnInclined || !strings.Contains(rep.Warnings[0].Message, "10.0000°") {
+		t.Errorf("warnings %+v", rep.Warnings)
+	}
+}
+
+// TestCleanLeadingEdgePoint: a listed point near the spline's leading edge
+// is moved onto it, a farther one leaves the leading edge to be inserted.
+func TestCleanLeadingEdgePoint(t *testing.T) {
+	base := naca0012Loop(41)
+	for _, c := range []struct {
+		name   string
+		shift  float64 // of the listed leading-edge point along the upper surface, in chords
+		change string
+		points int
+	}{
+		{"exact", 0, "", 81},
+		{"snapped", LESnapTol / 4, "moved point 41 onto the leading edge", 81},
+		{"inserted", 20 * LESnapTol, "inserted the leading edge found on the spline as a new point 42", 82},
+	} {
+		pts := append([]Point(nil), base...)
+		if c.shift > 0 {
+			// Slide the leading-edge point along the circle of the nose
+			// (radius 1.1019 t², Abbott & von Doenhoff sec. 6.4).
+			r := 1.1019 * 0.12 * 0.12
+			a := c.shift / r
+			pts[40] = Point{r - r*math.Cos(a), r * math.Sin(a)}
+		}
+		sec, rep := mustClean(t, c.name, pts, DefaultCleanOptions)
+		if sec.Len() != c.points {
+			t.Errorf("%s: %d points, want %d", c.name, sec.Len(), c.points)
+		}
+		changes := strings.Join(rep.Changes, "\n")
+		if c.change == "" && strings.Contains(changes, "leading edge") || !strings.Contains(changes, c.change) {
+			t.Errorf("%s: changes\n%s", c.name, changes)
+		}
+		if p := sec.At(sec.LeadingEdgeIndex()); p != (Point{}) {
+			t.Errorf("%s: leading edge point %v", c.name, p)
+		}
+	}
+}
+
+// TestCleanKinkThreshold builds a tent of slope a on the upper surface:
+// the contour turns by 2·atan(a) at its peak.
+func TestCleanKinkThreshold(t *testing.T) {
+	for _, c := range []struct {
+		slope float64
+		kink  bool
+	}{{0.1, false}, {0.15, false}, {0.25, true}, {0.5, true}} {
+		pts := naca0012Loop(41)
+		xk := pts[20].X
+		for i := 1; i < 40; i++ {
+			pts[i].Y += c.slope * math.Max(0, 0.06-math.Abs(pts[i].X-xk))
+		}
+		_, rep := mustClean(t, "tent", pts, DefaultCleanOptions)
+		got := false
+		for _, w := range rep.Warnings {
+			if w.Kind == WarnKink && w.Index == 20 {
+				got = true
+				if math.Abs(w.X-xk) > 1e-9 {
+					t.Errorf("kink at x %g, want %g", w.X, xk)
+				}
+			}
+		}
+		turn := 2 * math.Atan(c.slope) * 180 / math.Pi
+		if got != c.kink {
+			t.Errorf("slope %g (turn %.1f°, threshold %g°): kink %v, want %v\n%s", c.slope, turn, KinkAngleDeg, got, c.kink, rep)
+		}
+	}
+}
+
+func TestCleanWarningsCapped(t *testing.T) {
+	// A saw-tooth on the lower surface: every other point kinks.
+	pts := naca0012Loop(81)
+	for i := 90; i < 150; i += 2 {
+		pts[i].Y -= 0.004
+	}
+	_, rep := mustClean(t, "saw", pts, DefaultCleanOptions)
+	kinks, more := 0, false
+	for _, w := range rep.Warnings {
+		if w.Kind == WarnKink {
+			kinks++
+			more = more || strings.HasPrefix(w.Message, "and ")
+		}
+	}
+	if kinks != MaxWarningsPerKind+1 || !more {
+		t.Errorf("%d kink warnings (summary %v), want %d and a summary\n%s", kinks, more, MaxWarningsPerKind+1, rep)
+	}
+}
+
+func TestCleanErrors(t *testing.T) {
+	good := naca0012Loop(11)
+	nan := append([]Point(nil), good...)
+	nan[4].Y = math.NaN()
+	for _, c := range []struct {
+		name  string
+		pts   []Point
+		opt   CleanOptions
+		is    error
+		index int
+	}{
+		{"nil", nil, DefaultCleanOptions, ErrTooFewPoints, -1},
+		{"NaN", nan, DefaultCleanOptions, ErrNonFinite, 4},
+		{"equal", []Point{{2, 3}, {2, 3}, {2, 3}, {2, 3}, {2, 3}, {2, 3}}, DefaultCleanOptions, ErrAllPointsEqual, -1},
+		{"equal large", []Point{{1e8, 1e8}, {1e8, 1e8}, {1e8, 1e8}}, DefaultCleanOptions, ErrAllPointsEqual, -1},
+		{"three distinct", []Point{{1, 0}, {1, 0}, {0, 0.1}, {0, 0.1}, {0, -0.1}, {1, 0}}, DefaultCleanOptions, ErrTooFewPoints, -1},
+		{"open", good[:11], DefaultCleanOptions, ErrOpenContour, -1},
+		{"flat", []Point{{1, 0}, {0.5, 0}, {0, 0}, {0.5, 0}, {0.75, 0}, {1, 0}}, DefaultCleanOptions, ErrFlatContour, -1},
+	} {
+		_, rep, err := Clean(c.name, c.pts, c.opt)
+		var ce *ContourError
+		if !errors.As(err, &ce) || !errors.Is(err, c.is) || ce.Index != c.index {
+			t.Errorf("%s: got %v, want a *ContourError at %d wrapping %v", c.name, err, c.index, c.is)
+		}
+		if rep == nil || rep.InputPoints != len(c.pts) {
+			t.Errorf("%s: report %v", c.name, rep)
+		}
+	}
+	_, _, err := Clean("tol", good, CleanOptions{DuplicateTol: -1})
+	var fe *FieldError
+	if !errors.As(err, &fe) {
+		t.Errorf("negative tolerance: %v", err)
+	}
+}
+
+func TestCleanDuplicateTol(t *testing.T) {
+	pts := naca0012Loop(41)
+	near := append([]Point(nil), pts[:10]...)
+	near = append(near, pts[9].Add(Point{1e-5, 0}))
+	near = append(near, pts[10:]...)
+	for _, c := range []struct {
+		tol  float64
+		drop bool
+	}{{0, false}, {1e-4, true}} {
+		_, rep := mustClean(t, "near", near, CleanOptions{Derotate: true, DuplicateTol: c.tol})
+		got := strings.Contains(strings.Join(rep.Changes, "\n"), "dropped 1 duplicate point")
+		if got != c.drop {
+			t.Errorf("tol %g: dropped %v, want %v\n%s", c.tol, got, c.drop, rep)
+		}
+	}
+}
+
+func TestCleanReportString(t *testing.T) {
+	p, err := ParseCoordinates(strings.NewReader(string(malformedCorpus()["spike.dat"])), "spike.dat")
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, rep, err := p.Clean(DefaultCleanOptions)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := rep.String()
+	for _, want := range []string{`Section "one point off" from spike.dat: 81 points in, 82 out`, "Detected:\n  - name line 1", "Changes:\n  - ", "Warnings:\n  - spike: point 57", "Trailing-edge gap: 0.2"} {
+		if !strings.Contains(s, want) {
+			t.Errorf("report lacks %q:\n%s", want, s)
+		}
+	}
+}
+
+func BenchmarkClean(b *testing.B) {
+	pts := testLoop(101)
+	for b.Loop() {
+		if _, _, err := Clean("b", pts, DefaultCleanOptions); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
