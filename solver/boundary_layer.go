@@ -455,18 +455,18 @@ type headState [2]float64
 func marchTurbulent(out *SurfaceBL, first int, sTr, thTr, re, hsep float64) error {
 	n := len(out.S)
 	s, ue := out.S, out.Ue
-	h1Max := headH1(TransitionH)
+	h1Start := headH1(TransitionH)
 	h1Min := headH1(headMaxH)
 	// Ue at the transition point, linear between the stations around it.
 	uAt := func(i int, x float64) float64 { // on the interval [s[i-1], s[i]]
 		return ue[i-1] + (ue[i]-ue[i-1])*(x-s[i-1])/(s[i]-s[i-1])
 	}
 	uTr := uAt(first, sTr)
-	y := headState{thTr, uTr * thTr * h1Max}
+	y := headState{thTr, uTr * thTr * h1Start}
 	x := sTr
 	hOf := func(y headState, u float64) float64 {
 		h1 := y[1] / (u * y[0])
-		return headH(math.Max(h1Min, math.Min(h1, 1e6)))
+		return headH(math.Max(h1Min, h1))
 	}
 	for i := first; i < n; i++ {
 		if x < s[i] {

@@ -221,6 +221,14 @@ func TestDensityStudyNACA2412(t *testing.T) {
 	if res.RecommendedPanels == 0 {
 		t.Errorf("no recommendation; rows %+v", res.Rows)
 	}
+	// Cosine spacing on a surface of N/2 panels: the longest panel, at
+	// mid-chord, is about (π/N)·c (from x = (1 − cos β)/2; thickness adds
+	// a little arc length).
+	for _, r := range res.Rows[2:] {
+		if want := math.Pi / float64(r.Panels); blRel(r.MaxPanelLength, want) > 0.03 || !(r.MinPanelLength < r.MaxPanelLength/10) {
+			t.Errorf("%d panels: lengths %.3g..%.3g, want the longest near %.3g", r.Panels, r.MinPanelLength, r.MaxPanelLength, want)
+		}
+	}
 	last := res.Rows[len(res.Rows)-1]
 	if blRel(last.Cl, res.Cl.Value) > 1e-3 {
 		t.Errorf("finest Cl %g far from the extrapolation %g", last.Cl, res.Cl.Value)

@@ -2,6 +2,7 @@ package solver
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -223,4 +224,43 @@ func TestViscousSeparationHighCamber(t *testing.T) {
 		t.Errorf("NACA 6412 at 0° separated at %g", low.Elements[0].Upper.TurbulentSeparationXC)
 	}
 	t.Logf("NACA 6412, Re 3e6, α = 12°: upper separation at x/c = %.3f", e.Upper.TurbulentSeparationXC)
+}
+
+// ExampleSolution_Viscous estimates the profile drag of NACA 0012 at 0°
+// and Re = 6e6 with free transition; measured smooth-model drag is about
+// 0.0055–0.0065 (Abbott & von Doenhoff 1959, App. IV; from memory).
+func ExampleSolution_Viscous() {
+	base, _ := model.NACA("0012", model.NACAOptions{})
+	sec, _ := model.Repanel(base, model.Panelling{Panels: 200, Spacing: model.SpacingCosine})
+	sys, err := NewSystem(Config{
+		Elements: []Element{{Name: "main", Nodes: sec.Points(), LE: sec.LeadingEdgeIndex()}},
+		RefChord: 1, MomentRef: model.Point{X: 0.25},
+	})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	res, err := sys.Solve(0).Viscous(ViscousOptions{Re: []float64{6e6}})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	up := res.Elements[0].Upper
+	fmt.Printf("Cd = %.4f, upper transition (%s) at x/c = %.2f\n", res.Cd, up.TransitionCause, up.TransitionXC)
+	// Output:
+	// Cd = 0.0061, upper transition (michel) at x/c = 0.28
+}
+
+func BenchmarkViscousNACA0012(b *testing.B) {
+	sys, err := nacaSystemErr("0012", 200)
+	if err != nil {
+		b.Fatal(err)
+	}
+	sol := sys.Solve(4)
+	opt := ViscousOptions{Re: []float64{6e6}}
+	for b.Loop() {
+		if _, err := sol.Viscous(opt); err != nil {
+			b.Fatal(err)
+		}
+	}
 }
