@@ -25,9 +25,11 @@ const (
 	// method is taken to separate when BLOptions leaves it at zero. Texts
 	// put turbulent separation anywhere in H ≈ 2.2–3.0 (2.2–2.4 in common
 	// teaching use); the low end is chosen because it flags separation
-	// early, which is the safe side for a user reading a drag estimate,
-	// and because H rises so steeply near separation in Head's method
-	// that the location changes little across the range.
+	// early, which is the safe side for a user reading a drag estimate.
+	// H rises steeply near separation in Head's method, so the location
+	// moves by only a few percent of chord between 2.4 and 3.0 (about
+	// 0.78c to 0.80c in TestBLTurbulentSeparation); a caller who wants the
+	// permissive end sets 2.8 or 3.0.
 	DefaultTurbulentSeparationH = 2.4
 	// MinTurbulentSeparationH and MaxTurbulentSeparationH bound the
 	// threshold a caller may choose: the published range, with margin
@@ -175,7 +177,8 @@ type SurfaceBL struct {
 // Transition is placed at the first of: Michel's criterion (Cebeci–Smith
 // form, Re_x and Re_θ on the local Ue and the arc length from the
 // stagnation point), the trip at x/c = TripXC (counted on the stations at
-// and after the smallest x/c, the leading edge), and laminar separation
+// and after the smallest x/c, the leading edge; at the first station if the
+// stagnation point already lies behind the trip), and laminar separation
 // (then Bubble is set). Events are located by linear interpolation between
 // stations.
 //
