@@ -80,8 +80,9 @@ var fiveDigitLines = map[string]fiveDigitLine{
 const fiveDigitDesignCl = 0.3
 
 // ParseNACA parses a 4- or 5-digit NACA designation. It accepts an optional
-// "NACA" prefix in any case, followed by optional spaces or a hyphen, and
-// surrounding spaces: "2412", "NACA 2412", "naca2412", "NACA-23012".
+// "NACA" prefix in any case, followed by optional blanks (spaces, tabs) or a
+// hyphen, and surrounding blanks: "2412", "NACA 2412", "naca2412",
+// "NACA-23012".
 //
 // It rejects, with a *NACAError naming the character where possible:
 // anything but 4 or 5 digits; a zero or too large thickness; a 4-digit code
@@ -95,18 +96,19 @@ func ParseNACA(designation string) (NACACode, error) {
 		}
 		return NACACode{}, &NACAError{Designation: designation, Pos: pos, Reason: fmt.Sprintf(format, a...)}
 	}
+	blank := func(c byte) bool { return c == ' ' || c == '\t' }
 	start := 0
-	for start < len(designation) && designation[start] == ' ' {
+	for start < len(designation) && blank(designation[start]) {
 		start++
 	}
 	if len(designation)-start >= 4 && strings.EqualFold(designation[start:start+4], "naca") {
 		start += 4
-		for start < len(designation) && (designation[start] == ' ' || designation[start] == '-') {
+		for start < len(designation) && (blank(designation[start]) || designation[start] == '-') {
 			start++
 		}
 	}
 	end := len(designation)
-	for end > start && designation[end-1] == ' ' {
+	for end > start && blank(designation[end-1]) {
 		end--
 	}
 	digits := designation[start:end]

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"math/rand/v2"
 	"testing"
 )
 
@@ -130,6 +131,112 @@ func TestRepanelCosine(t *testing.T) {
 				if math.Abs(got-want) > 1e-9 {
 					t.Errorf("%s N=%d node %d: x = %.12f, want %.12f", s.Name(), n, i, got, want)
 				}
+			}
+		}
+	}
+}
+
+func TestRepanelCosineHook(t *testing.T) {
+	// A lower surface whose x runs backwards for a while (a hook) has no
+	// station for every x: the cosine law falls back to cosine spacing in
+	// arc length there, s/S = (1 − cos πu)/2, and keeps x-based spacing on
+	// the regular upper surface.
+	const m = 60
+	var pts []Point
+	for i := m; i >= 0; i-- { // upper, TE to LE
+		u := (1 - math.Cos(math.Pi*float64(i)/m)) / 2
+		pts = append(pts, Point{u, 0.12 * math.Sqrt(u) * (1 - u)})
+	}
+	for i := 1; i <= m; i++ { // lower, LE to TE, hooked between u = 0.7 and 0.9
+		u := (1 - math.Cos(math.Pi*float64(i)/m)) / 2
+		x := u
+		if u > 0.7 && u < 0.9 {
+			x -= 0.2 * math.Sin(math.Pi*(u-0.7)/0.2)
+		}
+		pts = append(pts, Point{x, -0.12 * math.Sqrt(u) * (1 - u)})
+	}
+	s, err := NewSection("hooked", pts)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sp, err := NewContourSpline(pts)
+	if err != nil {
+		t.Fatal(err)
+	}
+	const n = 80
+	ts, err := repanelParams(sp, Panelling{Panels: n, Spacing: SpacingCosine})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := Repanel(s, Panelling{Panels: n, Spacing: SpacingCosine})
+	if err != nil {
+		t.Fatal(err)
+	}
+	nu := n / 2
+	for i := 0; i <= nu; i++ {
+		want := (1 - math.Cos(math.Pi*float64(nu-i)/float64(nu))) / 2
+		if math.Abs(r.At(i).X-want) > 1e-9 {
+			t.Errorf("upper node %d: x = %.12f, want %.12f", i, r.At(i).X, want)
+		}
+	}
+	sLE, S := sp.ArcLength(ts[nu]), sp.TotalArcLength()-sp.ArcLength(ts[nu])
+	backwards := false
+	for j := 0; j <= n-nu; j++ {
+		want := (1 - math.Cos(math.Pi*float64(j)/float64(n-nu))) / 2
+		if got := (sp.ArcLength(ts[nu+j]) - sLE) / S; math.Abs(got-want) > 1e-9 {
+			t.Errorf("lower node %d: s/S = %.12f, want %.12f", j, got, want)
+		}
+		if j > 0 && r.At(nu+j).X < r.At(nu+j-1).X {
+			backwards = true
+		}
+	}
+	if !backwards {
+		t.Error("no lower node steps backwards in x: the hook was not resolved")
+	}
+}
+
+func TestRepanelRandomSections(t *testing.T) {
+	// Property check over random NACA sections and panellings (fixed
+	// seed): node count, end points, leading-edge node and strictly
+	// increasing spline parameters.
+	rng := rand.New(rand.NewPCG(7, 11))
+	lines := []string{"210", "220", "230", "240", "250", "221", "231", "241", "251"}
+	for range 40 {
+		var code string
+		if rng.IntN(2) == 0 {
+			m := rng.IntN(10)
+			p := 0
+			if m > 0 {
+				p = 1 + rng.IntN(9)
+			}
+			code = fmt.Sprintf("%d%d%02d", m, p, 4+rng.IntN(27))
+		} else {
+			code = fmt.Sprintf("%s%02d", lines[rng.IntN(len(lines))], 6+rng.IntN(20))
+		}
+		s, err := NACA(code, NACAOptions{PointsPerSurface: 21 + rng.IntN(200), ClosedTE: rng.IntN(2) == 0})
+		if err != nil {
+			t.Fatalf("%s: %v", code, err)
+		}
+		p := Panelling{
+			Panels:  MinPanels + rng.IntN(MaxPanels/4),
+			Spacing: Spacings[rng.IntN(len(Spacings))],
+			Nose:    rng.Float64(),
+			Tail:    rng.Float64(),
+		}
+		r, err := Repanel(s, p)
+		if err != nil {
+			t.Fatalf("%s %+v: %v", code, p, err)
+		}
+		sp, _ := NewContourSpline(s.Points())
+		_, le := sp.LeadingEdge()
+		ts, _ := repanelParams(sp, p)
+		if r.Len() != p.Panels+1 || r.At(0) != s.At(0) || r.At(p.Panels) != s.At(s.Len()-1) || r.At((p.Panels+1)/2).Dist(le) > 1e-9 {
+			t.Errorf("%s %+v: bad ends or leading edge", code, p)
+		}
+		for i := 1; i < len(ts); i++ {
+			if !(ts[i] > ts[i-1]) {
+				t.Errorf("%s %+v: parameter %d not increasing", code, p, i)
+				break
 			}
 		}
 	}
