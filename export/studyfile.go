@@ -1,0 +1,108 @@
+package export
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+
+	"sectionbench/model"
+)
+
+// FileError reports a problem with a named file.
+type FileError struct {
+	Path string
+	Err  error
+}
+
+func (e *FileError) Error() string { return e.Path + ": " + e.Err.Error() }
+
+func (e *FileError) Unwrap() error { return e.Err }
+
+// ErrFileTooLarge reports a file larger than its kind may be.
+var ErrFileTooLarge = errors.New("file too large")
+
+// readLimited reads at most limit bytes of a file and refuses larger
+// files without reading them.
+func readLimited(path string, limit int64) ([]byte, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	if fi, err := f.Stat(); err == nil && fi.Size() > limit {
+		return nil, &FileError{Path: path, Err: fmt.Errorf("%w: %d bytes, at most %d", ErrFileTooLarge, fi.Size(), limit)}
+	}
+	b, err := io.ReadAll(io.LimitReader(f, limit+1))
+	if err != nil {
+		return nil, &FileError{Path: path, Err: err}
+	}
+	if int64(len(b)) > limit {
+		return nil, &FileError{Path: path, Err: fmt.Errorf("%w: more than %d bytes", ErrFileTooLarge, limit)}
+	}
+	return b, nil
+}
+
+// LoadStudy reads and validates a study file. Errors name the file and,
+// where known, the field (*model.FieldError inside a *FileError).
+func LoadStudy(path string) (*model.Study, error) {
+	b, err := readLimited(path, model.MaxStudyBytes)
+	if err != nil {
+		return nil, err
+	}
+	st, err := model.DecodeStudy(b)
+	if err != nil {
+		return nil, &FileError{Path: path, Err: err}
+	}
+	return st, nil
+}
+
+// SaveStudy writes the study atomically: the previous file stays intact if
+// anything fails.
+func SaveStudy(path string, st *model.Study) error {
+	b, err := st.Encode()
+	if err != nil {
+		return err
+	}
+	return WriteFileAtomic(path, func(w io.Writer) error {
+		_, err := w.Write(b)
+		return err
+	})
+}
+
+// SectionLoader returns a loader for model.SectionFromSpec that reads
+// coordinate files relative to baseDir, refusing files over the parser's
+// size limit without reading them.
+func SectionLoader(baseDir string) func(string) ([]byte, error) {
+	return func(p string) ([]byte, error) {
+		if !filepath.IsAbs(p) && baseDir != "" {
+			p = filepath.Join(baseDir, p)
+		}
+		return readLimited(p, model.MaxInputBytes)
+	}
+}
+
+// LoadSections resolves every element's section source; coordinate-file
+// paths are relative to baseDir (the study file's folder).
+func LoadSections(st *model.Study, baseDir string) ([]*model.Section, []*model.CleanReport, error) {
+	secs := make([]*model.Section, len(st.Elements))
+	reps := make([]*model.CleanReport, len(st.Elements))
+	for i, e := range st.Elements {
+		sec, rep, err := model.SectionFromSource(e.Section, SectionLoader(baseDir))
+		if err != nil {
+			return nil, nil, &model.FieldError{Field: fmt.Sprintf("elements[%d].section", i), Err: err}
+		}
+		secs[i], reps[i] = sec, rep
+	}
+	return secs, reps, nil
+}
+
+// LoadSectionFile reads, parses and cleans one coordinate file.
+func LoadSectionFile(path string) (*model.Section, *model.CleanReport, error) {
+	b, err := readLimited(path, model.MaxInputBytes)
+	if err != nil {
+		return nil, nil, err
+	}
+	return model.SectionFromFile(b, path)
+}

@@ -1,0 +1,107 @@
+package model
+
+import (
+	"errors"
+	"strings"
+	"testing"
+)
+
+func TestStudyRoundTrip(t *testing.T) {
+	st := twoElementStudy()
+	st.Name = "Demo — fictional team"
+	st.Flow.SpeedMPS = 25
+	st.Ground = Ground{Enabled: true, ClearanceMM: 60}
+	st.Inverted = true
+	st.Elements[1].Section = EmbedSection(mustNACA(t, "0012"))
+	st.Pins = []Pin{{Label: "N=80, cosine", Cp: []PinCurve{{Element: "main", Side: "upper", Points: [][2]float64{{0, 1}, {1, 0}}}}}}
+	b, err := st.Encode()
+	if err != nil {
+		t.Fatal(err)
+	}
+	got, err := DecodeStudy(b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b2, _ := got.Encode()
+	if string(b) != string(b2) {
+		t.Errorf("study changed in a round trip:\n%s\n---\n%s", b, b2)
+	}
+	if got.Elements[1].Section.Embedded == nil || len(got.Elements[1].Section.Embedded.Points) != mustNACA(t, "0012").Len() {
+		t.Error("embedded section lost")
+	}
+	c := got.Clone()
+	c.Elements[0].ChordMM = 1
+	if got.Elements[0].ChordMM == 1 {
+		t.Error("Clone shares elements")
+	}
+}
+
+// The documented example in the README loads.
+func TestStudyReadmeExample(t *testing.T) {
+	const doc = `{"format": "sectionbench-study", "version": 1, "name": "…",
+   "elements": [{"name": "main", "section": "naca:4412", "chord_mm": 250, "x_mm": 0, "y_mm": 0, "angle_deg": 0}],
+   "panelling": {"panels": 160, "spacing": "cosine", "nose": 0.5, "tail": 0.2},
+   "flow": {"alpha_deg": 4},
+   "sweep": {"from_deg": -4, "to_deg": 12, "step_deg": 1},
+   "pins": []}`
+	st, err := DecodeStudy([]byte(doc))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if st.Flow.TemperatureC != 15 || st.Flow.PressurePa != 101325 {
+		t.Errorf("air defaults %g °C %g Pa, want ISA sea level", st.Flow.TemperatureC, st.Flow.PressurePa)
+	}
+}
+
+func TestDecodeStudyErrors(t *testing.T) {
+	good := `{"format": "sectionbench-study", "version": 1, "name": "x",
+ "elements": [{"name": "main", "section": "naca:4412", "chord_mm": 250}],
+ "panelling": {"panels": 160, "spacing": "cosine", "nose": 0.5, "tail": 0.2},
+ "flow": {"alpha_deg": 4}, "sweep": {"from_deg": -4, "to_deg": 12, "step_deg": 1}}`
+	for _, tc := range []struct {
+		name, from, to string
+		field          string // FieldError path, or "" for a non-field error
+		contains       string
+	}{
+		{"wrong format", `"sectionbench-study"`, `"other"`, "format", "not"},
+		{"future version", `"version": 1`, `"version": 7`, "version", "not supported"},
+		{"wrong type", `"chord_mm": 250`, `"chord_mm": "big"`, "elements.chord_mm", "string"},
+		{"negative chord", `"chord_mm": 250`, `"chord_mm": -3`, "elements[0].chord_mm", "outside"},
+		{"unknown field", `"name": "x",`, `"name": "x", "wingspan": 3,`, "wingspan", "unknown"},
+		{"bad spacing", `"cosine"`, `"wavy"`, "panelling.spacing", "wavy"},
+		{"too many panels", `"panels": 160`, `"panels": 5000`, "panelling.panels", "5000"},
+		{"no elements", `[{"name": "main", "section": "naca:4412", "chord_mm": 250}]`, `[]`, "elements", "0 elements"},
+		{"missing section", `"section": "naca:4412", `, ``, "elements[0].section", "missing"},
+		{"NaN-like alpha", `"alpha_deg": 4`, `"alpha_deg": 1e999`, "", ""},
+		{"syntax error names the line", `"flow": {"alpha_deg": 4}`, `"flow": {"alpha_deg": 4,}`, "", "line 4"},
+		{"ground without clearance", `"flow"`, `"ground": {"enabled": true, "clearance_mm": 0}, "flow"`, "ground.clearance_mm", "positive"},
+		{"embedded with too few points", `"section": "naca:4412"`, `"section": {"name": "a", "points": [[0,0],[1,0]]}`, "elements[0].section.points", "too few"},
+		{"sweep backwards", `"to_deg": 12`, `"to_deg": -10`, "sweep.to_deg", "below"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			doc := strings.Replace(good, tc.from, tc.to, 1)
+			if doc == good {
+				t.Fatalf("test case does not change the document")
+			}
+			st, err := DecodeStudy([]byte(doc))
+			if err == nil {
+				t.Fatalf("accepted: %+v", st)
+			}
+			if st != nil {
+				t.Error("half-loaded study returned with the error")
+			}
+			var fe *FieldError
+			if tc.field != "" {
+				if !errors.As(err, &fe) || fe.Field != tc.field {
+					t.Errorf("error %q, want a FieldError on %q", err, tc.field)
+				}
+			}
+			if !strings.Contains(err.Error(), tc.contains) {
+				t.Errorf("error %q does not mention %q", err, tc.contains)
+			}
+		})
+	}
+	if _, err := DecodeStudy([]byte(good)); err != nil {
+		t.Fatalf("the good document fails: %v", err)
+	}
+}
