@@ -1,0 +1,249 @@
+package export
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"sectionbench/model"
+)
+
+// Sentinel errors of the inward offset; match them with errors.Is through
+// an *OffsetError.
+var (
+	// ErrOffsetFolds: the offset outline crosses itself away from the
+	// trailing edge, where a radius of curvature or the local thickness is
+	// smaller than the offset.
+	ErrOffsetFolds = errors.New("offset outline folds over itself")
+	// ErrOffsetCollapses: nothing, or more than one piece, is left: the
+	// section is thinner than twice the offset over too much of its chord.
+	ErrOffsetCollapses = errors.New("offset outline collapses")
+)
+
+// OffsetError reports where an inward offset failed: the element, the
+// position along its chord (x/c) and the surface.
+type OffsetError struct {
+	Element  string
+	XC       float64 // position along the chord, 0 at the leading edge
+	Surface  string  // "upper", "lower" or "" when not one surface
+	OffsetMM float64
+	Err      error
+}
+
+func (e *OffsetError) Error() string {
+	where := fmt.Sprintf("x/c %.3f", e.XC)
+	if e.Surface != "" {
+		where = e.Surface + " surface, " + where
+	}
+	return fmt.Sprintf("element %q: %.3g mm inward offset: %v (%s)", e.Element, e.OffsetMM, e.Err, where)
+}
+
+func (e *OffsetError) Unwrap() error { return e.Err }
+
+// Offset is an inward offset of a closed outline.
+type Offset struct {
+	Points []model.Point // closed loop, counter-clockwise, same unit as the input
+	// TrimmedXC is the x/c at which the offset ends short of a sharp
+	// trailing edge (where the section is thinner than twice the offset);
+	// NaN when nothing was trimmed.
+	TrimmedXC float64
+}
+
+// InwardOffset returns the closed polygon pts (counter-clockwise, the
+// interior on the left; the last point joins the first) moved inwards by
+// d > 0: every edge moves d along its inward normal n = (−t_y, t_x) and
+// consecutive moved edges meet at the intersection of their lines (the
+// mitre point), which for a convex polygon is the exact offset of the
+// polygon (Held, On the Computational Geometry of Pocket Machining, 1991,
+// ch. 2). Where the moved edges of a thin part cross (near a sharp
+// trailing edge, within distance d/sin(τ/2) of it, τ the included angle)
+// the raw offset forms reversed loops; a loop that holds the trailing edge
+// (pts[0]) is cut off at the crossing and TrimmedXC says where. Any other
+// crossing returns an *OffsetError wrapping ErrOffsetFolds, and an
+// offset that vanishes or splits wraps ErrOffsetCollapses; both say where
+// along chord (le → te) it happened.
+//
+// element names the outline in errors. pts must hold at least 3 points.
+func InwardOffset(element string, pts []model.Point, d float64, le, te model.Point) (*Offset, error) {
+	if len(pts) < 3 || !(d > 0) {
+		panic(fmt.Sprintf("export: InwardOffset of %d points by %g", len(pts), d))
+	}
+	chord := te.Sub(le)
+	xcOf := func(p model.Point) float64 { return p.Sub(le).Dot(chord) / chord.Dot(chord) }
+	fail := func(p model.Point, surface string, err error) error {
+		return &OffsetError{Element: element, XC: xcOf(p), Surface: surface, OffsetMM: d, Err: err}
+	}
+	// Drop repeated points (a closed trailing edge repeats the first).
+	in := make([]model.Point, 0, len(pts))
+	for _, p := range pts {
+		if len(in) == 0 || p.Dist(in[len(in)-1]) > 1e-12 {
+			in = append(in, p)
+		}
+	}
+	for len(in) > 1 && in[len(in)-1].Dist(in[0]) <= 1e-12 {
+		in = in[:len(in)-1]
+	}
+	n := len(in)
+	if n < 3 {
+		panic("export: InwardOffset of a degenerate polygon")
+	}
+	// Raw mitre offset.
+	raw := make([]model.Point, n)
+	for i := range n {
+		a, b, c := in[(i+n-1)%n], in[i], in[(i+1)%n]
+		n1, n2 := inwardNormal(a, b), inwardNormal(b, c)
+		p1, p2 := a.Add(n1.Scale(d)), b.Add(n2.Scale(d))
+		q, ok := lineIntersect(p1, b.Sub(a), p2, c.Sub(b))
+		if !ok { // collinear edges: the point moves along the normal
+			q = b.Add(n1.Scale(d))
+		}
+		raw[i] = q
+	}
+	// The trailing edge is pts[0]; the upper surface runs from it to the
+	// leading edge, the lower back. owner[i] is the input index of raw[i].
+	leIdx := 0
+	for i, p := range in {
+		if p.Sub(te).Norm() > in[leIdx].Sub(te).Norm() {
+			leIdx = i
+		}
+	}
+	surface := func(i int) string {
+		if i <= leIdx {
+			return "upper"
+		}
+		return "lower"
+	}
+	loop := raw
+	owner := make([]int, n)
+	for i := range owner {
+		owner[i] = i
+	}
+	trimmed := math.NaN()
+	for iter := 0; ; iter++ {
+		if iter > n {
+			return nil, fail(le, "", ErrOffsetCollapses)
+		}
+		i, j, x, ok := firstCrossing(loop)
+		if !ok {
+			break
+		}
+		// Split at x into A = x, loop[i+1..j] and B = x, loop[j+1..], loop[..i].
+		a := append([]model.Point{x}, loop[i+1:j+1]...)
+		ao := append([]int{owner[i]}, owner[i+1:j+1]...)
+		b := append([]model.Point{x}, loop[j+1:]...)
+		b = append(b, loop[:i+1]...)
+		bo := append([]int{owner[j]}, owner[j+1:]...)
+		bo = append(bo, owner[:i+1]...)
+		areaA, areaB := signedArea(a), signedArea(b)
+		holdsTE := containsIndex(bo, 0)
+		switch {
+		case areaA > 0 && areaB <= 0 && holdsTE:
+			// The reversed sliver at the trailing edge: cut it off.
+			loop, owner = a, ao
+			trimmed = xcOf(x)
+		case areaA > 0 && areaB > 0:
+			return nil, fail(x, surface(owner[i]), fmt.Errorf("%w: it splits in two", ErrOffsetCollapses))
+		case areaA <= 0 && areaB <= 0:
+			return nil, fail(x, surface(owner[i]), ErrOffsetCollapses)
+		default:
+			return nil, fail(x, surface(owner[i]), fmt.Errorf("%w (a radius of curvature or the thickness there is below the offset)", ErrOffsetFolds))
+		}
+	}
+	if signedArea(loop) <= 0 {
+		return nil, fail(le, "", ErrOffsetCollapses)
+	}
+	// Every remaining edge must keep the direction of the edge it came
+	// from; a reversed edge without a crossing means the whole outline
+	// turned inside out.
+	for k := range loop {
+		i := owner[k]
+		a, b := in[i], in[(i+1)%n]
+		p, q := loop[k], loop[(k+1)%len(loop)]
+		if owner[(k+1)%len(loop)] == (i+1)%n && q.Sub(p).Dot(b.Sub(a)) < 0 {
+			return nil, fail(a, surface(i), fmt.Errorf("%w (a radius of curvature there is below the offset)", ErrOffsetFolds))
+		}
+	}
+	return &Offset{Points: loop, TrimmedXC: trimmed}, nil
+}
+
+// inwardNormal is the unit left normal of edge a→b: inwards for a
+// counter-clockwise polygon.
+func inwardNormal(a, b model.Point) model.Point {
+	t := b.Sub(a)
+	l := t.Norm()
+	return model.Point{X: -t.Y / l, Y: t.X / l}
+}
+
+// lineIntersect intersects the lines p + s·u and q + t·v.
+func lineIntersect(p, u, q, v model.Point) (model.Point, bool) {
+	den := u.Cross(v)
+	if math.Abs(den) <= 1e-12*u.Norm()*v.Norm() {
+		return model.Point{}, false
+	}
+	s := q.Sub(p).Cross(v) / den
+	return p.Add(u.Scale(s)), true
+}
+
+// segmentCross returns the crossing of segments a→b and c→d, excluding
+// touching at their ends.
+func segmentCross(a, b, c, d model.Point) (model.Point, bool) {
+	r, s := b.Sub(a), d.Sub(c)
+	den := r.Cross(s)
+	if den == 0 {
+		return model.Point{}, false
+	}
+	ca := c.Sub(a)
+	t := ca.Cross(s) / den
+	u := ca.Cross(r) / den
+	const eps = 1e-12
+	if t <= eps || t >= 1-eps || u <= eps || u >= 1-eps {
+		return model.Point{}, false
+	}
+	return a.Add(r.Scale(t)), true
+}
+
+// firstCrossing finds the first pair of non-adjacent edges i < j of the
+// closed polygon loop (edge k joins loop[k] and loop[k+1]) that cross.
+// Bounding boxes prune the O(n²) search.
+func firstCrossing(loop []model.Point) (i, j int, x model.Point, ok bool) {
+	n := len(loop)
+	type box struct{ x0, x1, y0, y1 float64 }
+	bb := make([]box, n)
+	for k := range n {
+		a, b := loop[k], loop[(k+1)%n]
+		bb[k] = box{math.Min(a.X, b.X), math.Max(a.X, b.X), math.Min(a.Y, b.Y), math.Max(a.Y, b.Y)}
+	}
+	for i := 0; i < n; i++ {
+		for j := i + 2; j < n; j++ {
+			if i == 0 && j == n-1 {
+				continue // adjacent through the closing edge
+			}
+			if bb[i].x1 < bb[j].x0 || bb[j].x1 < bb[i].x0 || bb[i].y1 < bb[j].y0 || bb[j].y1 < bb[i].y0 {
+				continue
+			}
+			if x, ok := segmentCross(loop[i], loop[(i+1)%n], loop[j], loop[(j+1)%n]); ok {
+				return i, j, x, true
+			}
+		}
+	}
+	return 0, 0, model.Point{}, false
+}
+
+// signedArea is the shoelace area of the closed polygon, positive when
+// counter-clockwise.
+func signedArea(pts []model.Point) float64 {
+	a := 0.0
+	for i := range pts {
+		a += pts[i].Cross(pts[(i+1)%len(pts)])
+	}
+	return a / 2
+}
+
+func containsIndex(s []int, v int) bool {
+	for _, x := range s {
+		if x == v {
+			return true
+		}
+	}
+	return false
+}
