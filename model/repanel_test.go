@@ -69,6 +69,9 @@ func TestRepanelProperties(t *testing.T) {
 					if d := r.At(nu).Dist(le); d > 1e-9 {
 						t.Errorf("node %d is %g from the spline's leading edge", nu, d)
 					}
+					if i := r.LeadingEdgeIndex(); i != nu {
+						t.Errorf("LeadingEdgeIndex %d, want the node at the spline's leading edge, %d", i, nu)
+					}
 					ts, err := repanelParams(sp, p)
 					if err != nil {
 						t.Fatal(err)
