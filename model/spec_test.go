@@ -93,7 +93,7 @@ func TestEmbeddedSourceRoundTrip(t *testing.T) {
 		t.Fatalf("%d points back, want %d", got.Len(), sec.Len())
 	}
 	for i := range sec.Len() {
-		if d := got.At(i).Dist(sec.At(i)); d > 1e-7 { // the leading edge re-found on a new spline moves by rounding only
+		if d := got.At(i).Dist(sec.At(i)); d > 1e-6 { // re-finding the leading edge on a new spline: well under a micrometre on a real chord
 			t.Fatalf("point %d moved by %g", i, d)
 		}
 	}
