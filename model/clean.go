@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sort"
 	"strings"
 )
 
@@ -602,11 +603,12 @@ func sectionWarnings(pts []Point, le int, gap float64, closedTE bool) []CleanWar
 		otherName  string
 	}{{"upper", upper, lower, 0, 1, "lower"}, {"lower", lower, upper, le, -1, "upper"}} {
 		in := false
+		other := newSurface(s.other)
 		for k, p := range s.own {
 			if p.X <= 0 || p.X >= 1 {
 				continue
 			}
-			y, ok := interpAt(s.other, p.X)
+			y, ok := other.y(p.X)
 			cross := ok && s.sign*(p.Y-y) < -crossingTol
 			if cross && !in {
 				add(WarnCrossing, s.offset+k, fmt.Sprintf("the %s surface crosses the %s surface near point %d (x/c = %.4f)", s.name, s.otherName, s.offset+k+1, p.X))
@@ -660,4 +662,49 @@ func fmtDeg(d float64) string {
 		return fmt.Sprintf("%.2g°", d)
 	}
 	return fmt.Sprintf("%.4f°", d)
+}
+
+// surface interpolates y at x along a surface polyline: by bisection when
+// x is monotone along it, else by a linear scan for the first bracket.
+type surface struct {
+	pl        []Point
+	mono, inc bool
+}
+
+func newSurface(pl []Point) surface {
+	s := surface{pl: pl, mono: len(pl) >= 2}
+	if !s.mono {
+		return s
+	}
+	s.inc = pl[len(pl)-1].X > pl[0].X
+	for i := 0; i+1 < len(pl); i++ {
+		if (pl[i+1].X > pl[i].X) != s.inc && pl[i+1].X != pl[i].X {
+			s.mono = false
+		}
+	}
+	return s
+}
+
+func (s surface) y(x float64) (float64, bool) {
+	pl, n := s.pl, len(s.pl)
+	if !s.mono {
+		return interpAt(pl, x)
+	}
+	sg := 1.0
+	if !s.inc {
+		sg = -1
+	}
+	if sg*x < sg*pl[0].X || sg*x > sg*pl[n-1].X {
+		return 0, false
+	}
+	i := sort.Search(n, func(i int) bool { return sg*pl[i].X >= sg*x })
+	if i == 0 {
+		return pl[0].Y, true
+	}
+	a, b := pl[i-1], pl[i]
+	if a.X == b.X {
+		return b.Y, true
+	}
+	t := (x - a.X) / (b.X - a.X)
+	return a.Y + t*(b.Y-a.Y), true
 }

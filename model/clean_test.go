@@ -375,3 +375,12 @@ func BenchmarkClean(b *testing.B) {
 		}
 	}
 }
+
+func BenchmarkCleanMaxPoints(b *testing.B) {
+	pts := testLoop(MaxPoints / 2)
+	for b.Loop() {
+		if _, _, err := Clean("b", pts, DefaultCleanOptions); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

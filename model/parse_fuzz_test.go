@@ -1,0 +1,59 @@
+package model
+
+import (
+	"bytes"
+	"errors"
+	"testing"
+)
+
+// FuzzParseCoordinates checks that parsing and cleaning never panic, that
+// every parse error is a *ParseError, every cleaning error a *ContourError
+// (or *FieldError), and that every section that comes out has finite
+// points, at least MinSectionPoints of them, starts and ends on the
+// trailing edge with the leading edge at the origin. The seed corpus is in
+// testdata/fuzz/FuzzParseCoordinates.
+func FuzzParseCoordinates(f *testing.F) {
+	for _, c := range sectionLayouts()[:3] {
+		f.Add(c.data)
+	}
+	f.Add([]byte("1 0\n0.5 0.1\n0 0\n0.5 -0.1\n1 0\n"))
+	f.Fuzz(func(t *testing.T, data []byte) {
+		p, err := ParseCoordinates(bytes.NewReader(data), "fuzz.dat")
+		if err != nil {
+			var pe *ParseError
+			if !errors.As(err, &pe) {
+				t.Fatalf("parse error %T is not a *ParseError: %v", err, err)
+			}
+			return
+		}
+		if len(p.Points) < MinSectionPoints || len(p.Notes) == 0 {
+			t.Fatalf("parsed %d points with notes %q", len(p.Points), p.Notes)
+		}
+		for _, opt := range []CleanOptions{DefaultCleanOptions, {CloseTE: true}} {
+			sec, rep, err := p.Clean(opt)
+			if rep == nil {
+				t.Fatal("no report")
+			}
+			if err != nil {
+				var ce *ContourError
+				var fe *FieldError
+				if !errors.As(err, &ce) && !errors.As(err, &fe) {
+					t.Fatalf("clean error %T is not typed: %v", err, err)
+				}
+				continue
+			}
+			if sec.Len() < MinSectionPoints || rep.OutputPoints != sec.Len() {
+				t.Fatalf("%d points, report says %d", sec.Len(), rep.OutputPoints)
+			}
+			for i := range sec.Len() {
+				if !sec.At(i).IsFinite() {
+					t.Fatalf("point %d is %v", i, sec.At(i))
+				}
+			}
+			if le := sec.At(sec.LeadingEdgeIndex()); le.Norm() > 1e-9 {
+				t.Fatalf("leading edge at %v\n%s", le, rep)
+			}
+			_ = rep.String()
+		}
+	})
+}
