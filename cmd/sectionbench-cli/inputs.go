@@ -1,0 +1,170 @@
+package main
+
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"math"
+	"path/filepath"
+	"strconv"
+	"strings"
+
+	"sectionbench/export"
+	"sectionbench/model"
+)
+
+// inputs are the flags shared by the commands that solve: where the
+// configuration comes from and the panelling and flow that override it.
+type inputs struct {
+	section, study string
+	alpha          float64
+	panels         int
+	spacing        string
+	nose, tail, re float64
+	format         string
+	alphaRange     string          // sweep: FROM:TO:STEP
+	set            map[string]bool // flags given on the command line
+	formats        []string
+}
+
+// addInputs defines the shared flags; a sweep takes --alpha as a range.
+func addInputs(fs *flags, sweep bool, formats ...string) *inputs {
+	in := &inputs{formats: formats}
+	d := model.DefaultPanelling
+	fs.StringVar(&in.section, "section", "", "section `SPEC`: naca:DIGITS, kt:CX,CY,TAU or a coordinate file")
+	fs.StringVar(&in.study, "study", "", "study `FILE` (JSON) to solve instead of --section")
+	if sweep {
+		fs.StringVar(&in.alphaRange, "alpha", "", "angles of attack `FROM:TO:STEP` in degrees (default: the study's sweep, or -4:12:1)")
+	} else {
+		fs.Float64Var(&in.alpha, "alpha", 4, "angle of attack in `degrees` (nose-up positive)")
+	}
+	fs.IntVar(&in.panels, "panels", d.Panels, fmt.Sprintf("panel `count` per element, %d to %d", model.MinPanels, model.MaxPanels))
+	fs.StringVar(&in.spacing, "spacing", string(d.Spacing), "spacing `law`: cosine, uniform, blend or curvature")
+	fs.Float64Var(&in.nose, "nose", d.Nose, "nose clustering in [0, 1] (blend and curvature laws)")
+	fs.Float64Var(&in.tail, "tail", d.Tail, "tail clustering in [0, 1] (blend and curvature laws)")
+	fs.Float64Var(&in.re, "re", 0, "Reynolds `number` on the (first) element's chord; turns on the boundary-layer estimate")
+	fs.StringVar(&in.format, "format", formats[0], "output `format`: "+strings.Join(formats, ", "))
+	return in
+}
+
+// load builds the study and its sections from the flags. Flags given on
+// the command line override the study file's values.
+func (in *inputs) load(fs *flags) (*model.Study, []*model.Section, []*model.CleanReport, error) {
+	in.set = map[string]bool{}
+	fs.Visit(func(f *flag.Flag) { in.set[f.Name] = true })
+	if !contains(in.formats, in.format) {
+		return nil, nil, nil, usagef("--format %q: want one of %s", in.format, strings.Join(in.formats, ", "))
+	}
+	switch {
+	case in.section != "" && in.study != "":
+		return nil, nil, nil, usagef("give --section or --study, not both")
+	case in.section == "" && in.study == "":
+		return nil, nil, nil, usagef("give --section SPEC or --study FILE")
+	}
+	var st *model.Study
+	baseDir := "."
+	if in.study != "" {
+		var err error
+		if st, err = export.LoadStudy(in.study); err != nil {
+			return nil, nil, nil, err
+		}
+		baseDir = filepath.Dir(in.study)
+	} else {
+		st = model.NewStudy()
+		st.Name = in.section
+		// A 1 m chord at the origin: the layout's metres are chord lengths.
+		st.Elements = []model.StudyElement{{Name: "section", Section: model.SectionSource{Spec: in.section}, ChordMM: 1000}}
+	}
+	p := &st.Panelling
+	if in.set["panels"] || in.study == "" {
+		p.Panels = in.panels
+	}
+	if in.set["spacing"] || in.study == "" {
+		p.Spacing = model.Spacing(in.spacing)
+	}
+	if in.set["nose"] || in.study == "" {
+		p.Nose = in.nose
+	}
+	if in.set["tail"] || in.study == "" {
+		p.Tail = in.tail
+	}
+	if in.alphaRange != "" {
+		r, err := parseRange("--alpha", in.alphaRange)
+		if err != nil {
+			return nil, nil, nil, err
+		}
+		st.Sweep = r
+	} else if in.set["alpha"] || in.study == "" {
+		st.Flow.AlphaDeg = in.alpha
+	}
+	if in.set["re"] {
+		st.Flow.Reynolds = in.re
+		st.Viscous.Enabled = in.re > 0
+	}
+	if err := st.Validate(); err != nil {
+		return nil, nil, nil, flagError(err)
+	}
+	secs, reps, err := export.LoadSections(st, baseDir)
+	if err != nil {
+		if in.study == "" {
+			var fe *model.FieldError
+			if errors.As(err, &fe) {
+				err = fmt.Errorf("--section %s: %w", in.section, fe.Err)
+			}
+		}
+		return nil, nil, nil, err
+	}
+	return st, secs, reps, nil
+}
+
+// flagError names the command-line flag behind a study field where there is
+// one, so the message points at what the user typed.
+func flagError(err error) error {
+	var fe *model.FieldError
+	if !errors.As(err, &fe) {
+		return err
+	}
+	name := map[string]string{
+		"panelling.panels": "--panels", "panelling.spacing": "--spacing",
+		"panelling.nose": "--nose", "panelling.tail": "--tail",
+		"flow.alpha_deg": "--alpha", "flow.reynolds": "--re",
+	}[fe.Field]
+	if name == "" {
+		return err
+	}
+	return usagef("%s: %v", name, fe.Err)
+}
+
+func contains(list []string, s string) bool {
+	for _, x := range list {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}
+
+// parseRange reads FROM:TO:STEP.
+func parseRange(flagName, s string) (model.SweepRange, error) {
+	parts := strings.Split(s, ":")
+	if len(parts) != 3 {
+		return model.SweepRange{}, usagef("%s %q: want FROM:TO:STEP, e.g. -4:12:1", flagName, s)
+	}
+	var v [3]float64
+	for i, p := range parts {
+		x, err := strconv.ParseFloat(strings.TrimSpace(p), 64)
+		if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+			return model.SweepRange{}, usagef("%s %q: %q is not a number", flagName, s, p)
+		}
+		v[i] = x
+	}
+	r := model.SweepRange{FromDeg: v[0], ToDeg: v[1], StepDeg: v[2]}
+	if err := r.Validate(); err != nil {
+		var fe *model.FieldError
+		if errors.As(err, &fe) {
+			return r, usagef("%s %q: %v", flagName, s, fe.Err)
+		}
+		return r, usagef("%s %q: %v", flagName, s, err)
+	}
+	return r, nil
+}

@@ -1,0 +1,224 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// runCLI runs one command line in-process.
+func runCLI(t *testing.T, args ...string) (code int, stdout, stderr string) {
+	t.Helper()
+	var o, e bytes.Buffer
+	code = run(args, &o, &e)
+	return code, o.String(), e.String()
+}
+
+func TestExitCodesAndMessages(t *testing.T) {
+	dir := t.TempDir()
+	bad := filepath.Join(dir, "bad.dat")
+	os.WriteFile(bad, []byte("my section\n1.0 0.0\n0.5 x\n"), 0o644)
+	for _, tc := range []struct {
+		name     string
+		args     []string
+		code     int
+		contains []string // in stderr
+	}{
+		{"no command", nil, exitUsage, nil},
+		{"unknown command", []string{"fly"}, exitUsage, []string{`unknown command "fly"`}},
+		{"unknown flag", []string{"solve", "--section", "naca:0012", "--wings", "2"}, exitUsage, []string{"wings"}},
+		{"bad flag value", []string{"solve", "--section", "naca:0012", "--panels", "lots"}, exitUsage, []string{"panels"}},
+		{"panels out of range", []string{"solve", "--section", "naca:0012", "--panels", "5"}, exitUsage, []string{"--panels", "16"}},
+		{"alpha out of range", []string{"solve", "--section", "naca:0012", "--alpha", "80"}, exitUsage, []string{"--alpha"}},
+		{"bad spacing", []string{"solve", "--section", "naca:0012", "--spacing", "wavy"}, exitUsage, []string{"--spacing", "wavy"}},
+		{"bad format", []string{"solve", "--section", "naca:0012", "--format", "xml"}, exitUsage, []string{"--format"}},
+		{"no section", []string{"solve"}, exitUsage, []string{"--section"}},
+		{"both sources", []string{"solve", "--section", "naca:0012", "--study", "x.json"}, exitUsage, []string{"not both"}},
+		{"bad NACA code", []string{"solve", "--section", "naca:12"}, exitInput, []string{"12"}},
+		{"missing file", []string{"solve", "--section", filepath.Join(dir, "nope.dat")}, exitInput, []string{"nope.dat"}},
+		{"malformed file names the line", []string{"solve", "--section", bad}, exitInput, []string{"bad.dat", "line 3"}},
+		{"bad sweep range", []string{"sweep", "--section", "naca:0012", "--alpha", "0:10"}, exitUsage, []string{"FROM:TO:STEP"}},
+		{"sweep step zero", []string{"sweep", "--section", "naca:0012", "--alpha", "0:10:0"}, exitUsage, []string{"step"}},
+		{"missing study", []string{"solve", "--study", filepath.Join(dir, "none.json")}, exitInput, []string{"none.json"}},
+		{"clean without file", []string{"clean"}, exitUsage, []string{"clean IN"}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			code, _, stderr := runCLI(t, tc.args...)
+			if code != tc.code {
+				t.Errorf("exit %d, want %d; stderr: %s", code, tc.code, stderr)
+			}
+			if strings.Contains(stderr, "goroutine") || strings.Contains(stderr, "panic") {
+				t.Errorf("stderr shows a panic: %s", stderr)
+			}
+			for _, s := range tc.contains {
+				if !strings.Contains(stderr, s) {
+					t.Errorf("stderr %q does not mention %q", stderr, s)
+				}
+			}
+			if tc.code != exitOK && strings.Count(strings.TrimSpace(stderr), "\n") > 0 && len(tc.contains) > 0 {
+				t.Errorf("want one line on stderr, got %q", stderr)
+			}
+		})
+	}
+}
+
+// The JSON contract of solve that scripts rely on.
+func TestSolveJSONContract(t *testing.T) {
+	code, out, stderr := runCLI(t, "solve", "--section", "naca:2412", "--alpha", "4", "--panels", "160", "--format", "json")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var m map[string]any
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatalf("not JSON: %v\n%s", err, out)
+	}
+	for _, k := range []string{"cl", "cl_pressure", "cm", "cp_min", "x_cp_min", "stagnation", "panels", "alpha_deg", "points", "warnings", "elements"} {
+		if _, ok := m[k]; !ok {
+			t.Errorf("missing key %q", k)
+		}
+	}
+	if m["panels"].(float64) != 160 || m["alpha_deg"].(float64) != 4 {
+		t.Errorf("panels %v alpha %v, want 160 and 4", m["panels"], m["alpha_deg"])
+	}
+	pts := m["points"].([]any)
+	if len(pts) != 160 {
+		t.Fatalf("%d points, want one per panel (160)", len(pts))
+	}
+	sides := map[string]int{}
+	for _, p := range pts {
+		pm := p.(map[string]any)
+		for _, k := range []string{"x", "y", "cp", "side"} {
+			if _, ok := pm[k]; !ok {
+				t.Fatalf("point lacks %q: %v", k, pm)
+			}
+		}
+		sides[pm["side"].(string)]++
+	}
+	if sides["upper"] != 80 || sides["lower"] != 80 {
+		t.Errorf("sides %v, want 80 upper and 80 lower", sides)
+	}
+	st := m["stagnation"].(map[string]any)
+	if _, ok := st["x"]; !ok {
+		t.Error("stagnation lacks x")
+	}
+	// NACA 2412 at 4°: thin-airfoil theory gives 2π(α − α_L0) = 2π(4° +
+	// 2.077°) = 0.666 (Anderson, Fundamentals of Aerodynamics, NACA 2412
+	// example); a 12 % thick section in potential flow lies some 10 % above
+	// (REFERENCES.md §1, from memory: slope ≈ 2π(1 + 0.77 t/c)).
+	cl := m["cl"].(float64)
+	if cl < 0.66 || cl > 0.78 {
+		t.Errorf("cl = %.4f, want within the thin-airfoil to thick-section band 0.66–0.78", cl)
+	}
+	if d := math.Abs(cl-m["cl_pressure"].(float64)) / cl; d > 0.005 {
+		t.Errorf("circulation and pressure Cl differ by %.2f %%", 100*d)
+	}
+}
+
+func TestSweepJSONContract(t *testing.T) {
+	code, out, stderr := runCLI(t, "sweep", "--section", "naca:0012", "--alpha", "-2:2:1", "--format", "json")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var rows []map[string]float64
+	if err := json.Unmarshal([]byte(out), &rows); err != nil {
+		t.Fatalf("not a JSON array of rows: %v", err)
+	}
+	if len(rows) != 5 {
+		t.Fatalf("%d rows, want 5", len(rows))
+	}
+	for i, r := range rows {
+		for _, k := range []string{"alpha_deg", "cl", "cm", "cp_min"} {
+			if _, ok := r[k]; !ok {
+				t.Errorf("row %d lacks %q", i, k)
+			}
+		}
+		// Symmetric section: Cl(−α) = −Cl(α) (exact by symmetry).
+		if j := len(rows) - 1 - i; math.Abs(r["cl"]+rows[j]["cl"]) > 1e-9 {
+			t.Errorf("Cl(%g) = %g is not −Cl(%g) = %g", r["alpha_deg"], r["cl"], rows[j]["alpha_deg"], -rows[j]["cl"])
+		}
+	}
+}
+
+func TestSweepCSVAndText(t *testing.T) {
+	for _, f := range []string{"csv", "text"} {
+		code, out, stderr := runCLI(t, "sweep", "--section", "naca:4412", "--alpha", "0:4:2", "--format", f)
+		if code != exitOK {
+			t.Fatalf("%s: exit %d: %s", f, code, stderr)
+		}
+		if lines := strings.Count(strings.TrimSpace(out), "\n") + 1; lines != 4 {
+			t.Errorf("%s: %d lines, want a header and 3 rows:\n%s", f, lines, out)
+		}
+	}
+}
+
+// The answer must not depend on how the coordinate file was laid out.
+func TestCleanThenSolveMatchesGenerated(t *testing.T) {
+	dir := t.TempDir()
+	// Write the generated section as a file via the clean round trip.
+	src := filepath.Join(dir, "in.dat")
+	code, out, stderr := runCLI(t, "solve", "--section", "naca:4412", "--format", "json")
+	if code != exitOK {
+		t.Fatal(stderr)
+	}
+	var gen map[string]any
+	json.Unmarshal([]byte(out), &gen)
+	// Write the NACA points through the exporter and back.
+	code, _, stderr = runCLI(t, "export", "--section", "naca:4412", "--what", "coords", "-o", src)
+	if code != exitOK {
+		t.Skipf("export not available: %s", stderr)
+	}
+	code, out, stderr = runCLI(t, "solve", "--section", src, "--format", "json")
+	if code != exitOK {
+		t.Fatal(stderr)
+	}
+	var file map[string]any
+	json.Unmarshal([]byte(out), &file)
+	if d := math.Abs(file["cl"].(float64) - gen["cl"].(float64)); d > 2e-4 {
+		t.Errorf("Cl from the file %.6f, generated %.6f", file["cl"], gen["cl"])
+	}
+}
+
+func TestCleanCommand(t *testing.T) {
+	dir := t.TempDir()
+	in := filepath.Join(dir, "reversed.dat")
+	// A coarse symmetric section listed from the lower trailing edge
+	// (clockwise): the cleaner must reverse it and say so.
+	var b strings.Builder
+	b.WriteString("reversed test section\n")
+	const n = 40
+	for i := 0; i <= 2*n; i++ {
+		th := 2 * math.Pi * float64(i) / float64(2*n)
+		x := 0.5 + 0.5*math.Cos(th)
+		y := -0.06 * math.Sin(th) * math.Sqrt(math.Max(0, 1-x)) // lower first
+		if i == 2*n {
+			x, y = 1, 0
+		}
+		b.WriteString(strings.TrimSpace(strings.Join([]string{ftoa(x), ftoa(y)}, " ")) + "\n")
+	}
+	os.WriteFile(in, []byte(b.String()), 0o644)
+	out := filepath.Join(dir, "clean.dat")
+	code, stdout, stderr := runCLI(t, "clean", in, "-o", out)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if !strings.Contains(strings.ToLower(stdout), "revers") {
+		t.Errorf("report does not say the order was reversed:\n%s", stdout)
+	}
+	got, err := os.ReadFile(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	lines := strings.Split(strings.TrimSpace(string(got)), "\n")
+	if lines[0] != "reversed test section" {
+		t.Errorf("name line %q", lines[0])
+	}
+}
+
+func ftoa(f float64) string { return strings.TrimRight(strings.TrimRight(fmtF(f), "0"), ".") }
+
+func fmtF(f float64) string { return strconv.FormatFloat(f, 'f', 6, 64) }

@@ -1,0 +1,155 @@
+package main
+
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"strings"
+)
+
+// Exit codes.
+const (
+	exitOK    = 0
+	exitInput = 1
+	exitUsage = 2
+)
+
+// usageError marks a problem with the command line itself.
+type usageError struct{ msg string }
+
+func (e *usageError) Error() string { return e.msg }
+
+func usagef(format string, a ...any) error { return &usageError{fmt.Sprintf(format, a...)} }
+
+type command struct {
+	name, summary string
+	run           func(args []string, stdout, stderr io.Writer) error
+}
+
+func commands() []command {
+	return []command{
+		{"solve", "solve one angle of attack and print the coefficients and surface Cp", cmdSolve},
+		{"sweep", "solve a range of angles of attack (the polar)", cmdSweep},
+		{"clean", "clean a coordinate file and print what was changed", cmdClean},
+	}
+}
+
+const overview = `sectionbench-cli — two-dimensional wing sections with a linear-strength vortex
+panel method, without the window.
+
+Usage:
+  sectionbench-cli COMMAND [flags]
+
+Commands:
+%s
+Section specs (--section):
+  naca:DIGITS        a NACA 4- or 5-digit section, e.g. naca:2412, naca:23012
+  kt:CX,CY,TAU       the Kármán–Trefftz family: circle centre and trailing-edge
+                     angle in degrees, e.g. kt:-0.1,0.1,10 (exact solution known)
+  PATH               a coordinate file (cleaned on loading; see 'clean')
+
+Results are 2-D potential-flow estimates (plus a one-way boundary-layer
+estimate where asked): validate by test. Structural design and mounting of a
+wing follow the competition's rules and qualified engineering review.
+
+Run 'sectionbench-cli COMMAND -h' for a command's flags.
+`
+
+func printOverview(w io.Writer) {
+	var b strings.Builder
+	for _, c := range commands() {
+		fmt.Fprintf(&b, "  %-8s %s\n", c.name, c.summary)
+	}
+	fmt.Fprintf(w, overview, b.String())
+}
+
+// run executes one command line and returns the exit status. Every error
+// is printed as one line on stderr; nothing panics on user input.
+func run(args []string, stdout, stderr io.Writer) (code int) {
+	defer func() {
+		if r := recover(); r != nil {
+			fmt.Fprintf(stderr, "sectionbench-cli: internal error: %v (please report it with the command line)\n", r)
+			code = exitInput
+		}
+	}()
+	if len(args) == 0 || args[0] == "-h" || args[0] == "--help" || args[0] == "help" {
+		printOverview(stdout)
+		if len(args) == 0 {
+			return exitUsage
+		}
+		return exitOK
+	}
+	for _, c := range commands() {
+		if c.name != args[0] {
+			continue
+		}
+		err := c.run(args[1:], stdout, stderr)
+		var ue *usageError
+		switch {
+		case err == nil:
+			return exitOK
+		case errors.Is(err, flag.ErrHelp):
+			return exitOK
+		case errors.As(err, &ue):
+			fmt.Fprintf(stderr, "sectionbench-cli %s: %v\n", c.name, err)
+			return exitUsage
+		default:
+			fmt.Fprintf(stderr, "sectionbench-cli %s: %v\n", c.name, err)
+			return exitInput
+		}
+	}
+	fmt.Fprintf(stderr, "sectionbench-cli: unknown command %q (want one of %s)\n", args[0], commandNames())
+	return exitUsage
+}
+
+func commandNames() string {
+	var n []string
+	for _, c := range commands() {
+		n = append(n, c.name)
+	}
+	return strings.Join(n, ", ")
+}
+
+// flags is a command's flag set with the writer its help goes to.
+type flags struct {
+	*flag.FlagSet
+	usage string
+	help  io.Writer
+}
+
+// newFlags returns a flag set that reports errors instead of exiting.
+func newFlags(name, usage string, help io.Writer) *flags {
+	fs := flag.NewFlagSet(name, flag.ContinueOnError)
+	fs.SetOutput(io.Discard)
+	return &flags{FlagSet: fs, usage: usage, help: help}
+}
+
+// parse parses args and turns flag-package errors into usage errors; flags
+// may follow positional arguments, of which at most positional are allowed.
+func (fs *flags) parse(args []string, positional int) ([]string, error) {
+	err := fs.Parse(args)
+	if errors.Is(err, flag.ErrHelp) {
+		fmt.Fprintf(fs.help, "Usage: sectionbench-cli %s\n\nFlags:\n", fs.usage)
+		fs.SetOutput(fs.help)
+		fs.PrintDefaults()
+		return nil, err
+	}
+	if err != nil {
+		return nil, usagef("%v", err)
+	}
+	// Allow flags after positional arguments (clean IN -o OUT).
+	rest := fs.Args()
+	var pos []string
+	for len(rest) > 0 {
+		pos = append(pos, rest[0])
+		if err := fs.Parse(rest[1:]); err != nil {
+			return nil, usagef("%v", err)
+		}
+		rest = fs.Args()
+	}
+	if len(pos) > positional {
+		return nil, usagef("unexpected argument %q", pos[positional])
+	}
+	return pos, nil
+}

@@ -1,0 +1,103 @@
+package main
+
+import (
+	"context"
+	"encoding/csv"
+	"encoding/json"
+	"fmt"
+	"io"
+	"strconv"
+	"text/tabwriter"
+
+	"sectionbench/solver"
+)
+
+type jsonSweepRow struct {
+	AlphaDeg   num  `json:"alpha_deg"`
+	Cl         num  `json:"cl"`
+	ClPressure num  `json:"cl_pressure"`
+	Cm         num  `json:"cm"`
+	CpMin      num  `json:"cp_min"`
+	Cd         *num `json:"cd,omitempty"`
+	TrUpper    *num `json:"transition_upper,omitempty"`
+	TrLower    *num `json:"transition_lower,omitempty"`
+}
+
+func cmdSweep(args []string, stdout, stderr io.Writer) error {
+	fs := newFlags("sweep", "sweep (--section SPEC | --study FILE) --alpha FROM:TO:STEP [--panels N] [--spacing LAW] [--nose F] [--tail F] [--re RE] [--format text|csv|json]", stdout)
+	in := addInputs(fs, true, "text", "csv", "json")
+	if _, err := fs.parse(args, 0); err != nil {
+		return err
+	}
+	st, secs, _, err := in.load(fs)
+	if err != nil {
+		return err
+	}
+	res, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: true})
+	if err != nil {
+		return err
+	}
+	rows := make([]jsonSweepRow, len(res.Sweep))
+	for i, c := range res.Sweep {
+		rows[i] = jsonSweepRow{AlphaDeg: num(c.AlphaDeg), Cl: num(c.Cl), ClPressure: num(c.ClPressure), Cm: num(c.Cm), CpMin: num(c.CpMin)}
+		if res.SweepViscous != nil {
+			v := res.SweepViscous[i]
+			rows[i].Cd, rows[i].TrUpper, rows[i].TrLower = ptr(v.Cd), ptr(v.TransitionUpper), ptr(v.TransitionLower)
+		}
+	}
+	switch in.format {
+	case "json":
+		enc := json.NewEncoder(stdout)
+		enc.SetIndent("", "  ")
+		return enc.Encode(rows)
+	case "csv":
+		return sweepCSV(stdout, res)
+	}
+	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', tabwriter.AlignRight)
+	head := "alpha_deg\tcl\tcl_pressure\tcm\tcp_min\t"
+	if res.SweepViscous != nil {
+		head += "cd\tx_tr_upper\tx_tr_lower\t"
+	}
+	fmt.Fprintln(tw, head)
+	for i, c := range res.Sweep {
+		fmt.Fprintf(tw, "%.3f\t%.5f\t%.5f\t%.5f\t%.4f\t", c.AlphaDeg, c.Cl, c.ClPressure, c.Cm, c.CpMin)
+		if res.SweepViscous != nil {
+			v := res.SweepViscous[i]
+			fmt.Fprintf(tw, "%s\t%s\t%s\t", fmtShort(v.Cd, "%.5f"), fmtShort(v.TransitionUpper, "%.3f"), fmtShort(v.TransitionLower, "%.3f"))
+		}
+		fmt.Fprintln(tw)
+	}
+	return tw.Flush()
+}
+
+func fmtShort(f float64, format string) string {
+	if f != f {
+		return "—"
+	}
+	return fmt.Sprintf(format, f)
+}
+
+func sweepCSV(w io.Writer, res *solver.Result) error {
+	cw := csv.NewWriter(w)
+	head := []string{"alpha_deg", "cl", "cl_pressure", "cm", "cp_min", "x_cp_min"}
+	if res.SweepViscous != nil {
+		head = append(head, "cd", "x_tr_upper", "x_tr_lower")
+	}
+	cw.Write(head)
+	f := func(x float64) string {
+		if x != x {
+			return ""
+		}
+		return strconv.FormatFloat(x, 'g', 8, 64)
+	}
+	for i, c := range res.Sweep {
+		row := []string{f(c.AlphaDeg), f(c.Cl), f(c.ClPressure), f(c.Cm), f(c.CpMin), f(c.XCpMin)}
+		if res.SweepViscous != nil {
+			v := res.SweepViscous[i]
+			row = append(row, f(v.Cd), f(v.TransitionUpper), f(v.TransitionLower))
+		}
+		cw.Write(row)
+	}
+	cw.Flush()
+	return cw.Error()
+}
