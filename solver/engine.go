@@ -1,0 +1,310 @@
+package solver
+
+import (
+	"context"
+	"encoding/json"
+	"fmt"
+	"math"
+	"time"
+
+	"sectionbench/model"
+)
+
+// Request is everything one update of the workbench asks for.
+type Request struct {
+	Study       *model.Study
+	Sections    []*model.Section // cleaned unit-chord sections, one per study element
+	Sweep       bool             // also run the study's sweep
+	Streamlines bool             // also trace streamlines
+	Stream      StreamOptions    // zero value: DefaultBounds and default counts
+	// Progress, if not nil, is called after each angle of a sweep that
+	// needs one solve per angle (in ground effect, or with the boundary
+	// layer on).
+	Progress func(done, total int)
+}
+
+// Result is one update's answer.
+type Result struct {
+	Layout       *model.Layout
+	Config       Config    // what was solved at the study's angle of attack
+	Solution     *Solution // at the study's angle of attack
+	Sweep        []Coefficients
+	SweepViscous []ViscousPoint // parallel to Sweep when the boundary layer is on
+	Streamlines  []Streamline
+	Viscous      *ViscousResult // nil unless the study enables the boundary-layer estimate
+	Reynolds     []float64      // per element on its own chord; nil when neither speed nor Re is known
+	Forces       *Forces        // nil unless the study has a speed
+	Elapsed      time.Duration  // solve time (not drawing)
+}
+
+// ViscousPoint is the boundary-layer estimate at one angle of a sweep.
+type ViscousPoint struct {
+	AlphaDeg        float64
+	Cd              float64 // NaN when a surface separated (outside the method's range)
+	TransitionUpper float64 // x/c on the main element, NaN if none
+	TransitionLower float64
+	SeparationUpper float64
+	SeparationLower float64
+	Valid           bool
+}
+
+// Forces are the dimensional results when the flow has a speed.
+type Forces struct {
+	DynamicPressurePa float64
+	Density           float64   // kg/m³
+	Viscosity         float64   // Pa·s
+	LiftPerSpan       float64   // N/m, positive up (away from the ground)
+	DownforcePerSpan  float64   // N/m, = −LiftPerSpan
+	DragPerSpan       float64   // N/m from the boundary-layer estimate, NaN when not available
+	MomentPerSpan     float64   // N·m/m about the moment reference, nose-up positive
+	ElementLift       []float64 // N/m per element, positive up
+	SpanM             float64   // 0 when not given
+}
+
+// Engine turns study states into results. It keeps the last placed layout
+// and factorised system, so an update that only changes the angle of attack
+// (in free air) costs one superposition, not a new factorisation. An Engine
+// is used by one goroutine at a time.
+type Engine struct {
+	geomKey string
+	layout  *model.Layout
+	sys     *System // free air only
+	sysCfg  Config
+}
+
+// NewEngine returns an engine with nothing cached.
+func NewEngine() *Engine { return &Engine{} }
+
+// geometryKey identifies everything the placed geometry depends on.
+func geometryKey(st *model.Study, secs []*model.Section) string {
+	b, err := json.Marshal(struct {
+		E []model.StudyElement
+		P model.Panelling
+		I bool
+		G model.Ground
+		R float64
+	}{st.Elements, st.Panelling, st.Inverted, st.Ground, st.ReferenceChordMM})
+	if err != nil {
+		panic("solver: study cannot be encoded: " + err.Error())
+	}
+	return string(b) + sectionsKey(secs)
+}
+
+func sectionsKey(secs []*model.Section) string {
+	s := ""
+	for _, sec := range secs {
+		s += fmt.Sprintf("|%p", sec)
+	}
+	return s
+}
+
+// configAt builds the solver's configuration from the layout at an angle.
+func configAt(l *model.Layout, alphaDeg float64) (Config, float64) {
+	elems, groundY, fs := l.At(alphaDeg)
+	cfg := Config{Ground: l.Ground, GroundY: groundY, RefChord: l.RefChordM, MomentRef: l.MomentRef}
+	for _, e := range elems {
+		cfg.Elements = append(cfg.Elements, Element{Name: e.Name, Nodes: e.Nodes, LE: e.LE})
+	}
+	return cfg, fs
+}
+
+// Run solves the study at its angle of attack and, as asked, its sweep and
+// streamlines, the boundary-layer estimate and the forces. It returns
+// ctx.Err() if cancelled between solves.
+func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
+	start := time.Now()
+	st := req.Study
+	if err := st.Validate(); err != nil {
+		return nil, err
+	}
+	key := geometryKey(st, req.Sections)
+	if key != e.geomKey {
+		l, err := model.Place(st, req.Sections)
+		if err != nil {
+			return nil, err
+		}
+		e.geomKey, e.layout, e.sys = key, l, nil
+	}
+	l := e.layout
+	res := &Result{Layout: l}
+
+	sol, cfg, err := e.solveAt(st.Flow.AlphaDeg)
+	if err != nil {
+		return nil, err
+	}
+	res.Solution, res.Config = sol, cfg
+
+	res.Reynolds = reynolds(st, l)
+	var vopt ViscousOptions
+	if st.Viscous.Enabled {
+		if res.Reynolds == nil {
+			return nil, &model.FieldError{Field: "flow.speed_mps", Err: fmt.Errorf("the boundary-layer estimate needs a speed or a Reynolds number")}
+		}
+		vopt = ViscousOptions{Re: res.Reynolds, TripUpper: st.Viscous.TripUpper, TripLower: st.Viscous.TripLower}
+		v, err := sol.Viscous(vopt)
+		if err != nil {
+			return nil, err
+		}
+		res.Viscous = v
+	}
+	if req.Sweep {
+		if err := e.sweep(ctx, st, req, res, vopt); err != nil {
+			return nil, err
+		}
+	}
+	if req.Streamlines {
+		opt := req.Stream
+		if opt.Bounds == (Rect{}) {
+			opt.Bounds = DefaultBounds(cfg)
+		}
+		res.Streamlines = sol.Streamlines(opt)
+	}
+	if st.Flow.SpeedMPS > 0 {
+		res.Forces = forces(st, l, sol, res.Viscous)
+	}
+	res.Elapsed = time.Since(start)
+	return res, ctx.Err()
+}
+
+// solveAt solves the current layout at one angle of attack, reusing the
+// free-air factorisation.
+func (e *Engine) solveAt(alphaDeg float64) (*Solution, Config, error) {
+	l := e.layout
+	if !l.Ground {
+		if e.sys == nil {
+			cfg, _ := configAt(l, 0)
+			sys, err := NewSystem(cfg)
+			if err != nil {
+				return nil, Config{}, err
+			}
+			e.sys, e.sysCfg = sys, cfg
+		}
+		_, _, fs := l.At(alphaDeg)
+		sol := e.sys.Solve(fs)
+		sol.AlphaDeg = alphaDeg
+		return sol, e.sysCfg, nil
+	}
+	cfg, fs := configAt(l, alphaDeg)
+	sys, err := NewSystem(cfg)
+	if err != nil {
+		return nil, Config{}, err
+	}
+	sol := sys.Solve(fs)
+	sol.AlphaDeg = alphaDeg
+	return sol, cfg, nil
+}
+
+func (e *Engine) sweep(ctx context.Context, st *model.Study, req Request, res *Result, vopt ViscousOptions) error {
+	alphas, err := st.Sweep.Angles()
+	if err != nil {
+		return err
+	}
+	if !e.layout.Ground && !st.Viscous.Enabled {
+		fs := make([]float64, len(alphas))
+		for i, a := range alphas {
+			_, _, fs[i] = e.layout.At(a)
+		}
+		rows := e.sys.Sweep(fs)
+		for i := range rows {
+			rows[i].AlphaDeg = alphas[i]
+		}
+		res.Sweep = rows
+		return nil
+	}
+	for i, a := range alphas {
+		if err := ctx.Err(); err != nil {
+			return err
+		}
+		sol, _, err := e.solveAt(a)
+		if err != nil {
+			return fmt.Errorf("sweep at %g°: %w", a, err)
+		}
+		res.Sweep = append(res.Sweep, coefficientsOf(sol))
+		if st.Viscous.Enabled {
+			res.SweepViscous = append(res.SweepViscous, viscousPoint(a, sol, vopt))
+		}
+		if req.Progress != nil {
+			req.Progress(i+1, len(alphas))
+		}
+	}
+	return nil
+}
+
+func viscousPoint(alpha float64, sol *Solution, opt ViscousOptions) ViscousPoint {
+	p := ViscousPoint{AlphaDeg: alpha, Cd: math.NaN(), TransitionUpper: math.NaN(), TransitionLower: math.NaN(), SeparationUpper: math.NaN(), SeparationLower: math.NaN()}
+	v, err := sol.Viscous(opt)
+	if err != nil || len(v.Elements) == 0 {
+		return p
+	}
+	m := v.Elements[0]
+	p.TransitionUpper, p.TransitionLower = m.Upper.TransitionXC, m.Lower.TransitionXC
+	p.SeparationUpper, p.SeparationLower = m.Upper.TurbulentSeparationXC, m.Lower.TurbulentSeparationXC
+	p.Valid = true
+	for _, el := range v.Elements {
+		p.Valid = p.Valid && el.Valid
+	}
+	if p.Valid {
+		p.Cd = v.Cd
+	}
+	return p
+}
+
+// reynolds returns each element's Reynolds number on its own chord: from a
+// Reynolds number entered directly (taken on the first element's chord and
+// scaled by chord), or from speed, chord and air (model.Reynolds).
+func reynolds(st *model.Study, l *model.Layout) []float64 {
+	re := make([]float64, len(l.Elements))
+	switch {
+	case st.Flow.Reynolds > 0:
+		for i, e := range l.Elements {
+			re[i] = st.Flow.Reynolds * e.Chord / l.Elements[0].Chord
+		}
+	case st.Flow.SpeedMPS > 0:
+		air, err := model.AirFromCelsius(st.Flow.TemperatureC, st.Flow.PressurePa)
+		if err != nil {
+			return nil // Validate has already refused this
+		}
+		for i, e := range l.Elements {
+			re[i] = model.Reynolds(st.Flow.SpeedMPS, e.Chord, air)
+		}
+	default:
+		return nil
+	}
+	return re
+}
+
+// forces turns coefficients into forces per metre of span:
+// L' = q c_ref Cl, M' = q c_ref² Cm, with q = ½ρV².
+func forces(st *model.Study, l *model.Layout, sol *Solution, v *ViscousResult) *Forces {
+	air, err := model.AirFromCelsius(st.Flow.TemperatureC, st.Flow.PressurePa)
+	if err != nil {
+		return nil
+	}
+	q := model.DynamicPressure(st.Flow.SpeedMPS, air)
+	f := &Forces{
+		DynamicPressurePa: q, Density: air.Density(), Viscosity: air.Viscosity(),
+		LiftPerSpan:   q * l.RefChordM * sol.Cl,
+		MomentPerSpan: q * l.RefChordM * l.RefChordM * sol.Cm,
+		DragPerSpan:   math.NaN(),
+		SpanM:         st.Flow.SpanM,
+	}
+	f.DownforcePerSpan = -f.LiftPerSpan
+	for i, e := range sol.Elements {
+		f.ElementLift = append(f.ElementLift, q*l.Elements[i].Chord*e.Cl)
+	}
+	if v != nil && !math.IsNaN(v.Cd) {
+		f.DragPerSpan = q * l.RefChordM * v.Cd
+	}
+	return f
+}
+
+// coefficientsOf sums up a full solution as one sweep row.
+func coefficientsOf(sol *Solution) Coefficients {
+	c := Coefficients{AlphaDeg: sol.AlphaDeg, Cl: sol.Cl, ClPressure: sol.ClPressure, Cm: sol.Cm, CpMin: math.Inf(1)}
+	for _, e := range sol.Elements {
+		if e.CpMin < c.CpMin {
+			c.CpMin, c.XCpMin = e.CpMin, e.XCpMin
+		}
+	}
+	return c
+}
