@@ -88,18 +88,10 @@ func (w Window) valid() bool {
 		!math.IsInf(w.XMin, 0) && !math.IsInf(w.XMax, 0) && !math.IsInf(w.YMin, 0) && !math.IsInf(w.YMax, 0)
 }
 
-// DragPoint is the boundary-layer estimate at one angle of a sweep. NaN
-// marks a value that is not available (the estimate failed at that angle).
-type DragPoint struct {
-	Cd       float64 // Squire–Young drag coefficient on the reference chord
-	XTrUpper float64 // transition x/c on the upper surface
-	XTrLower float64 // transition x/c on the lower surface
-}
-
 // Scene is everything the figures draw. Only the fields a view needs must be
 // set: the panels view needs Layout or Config; the pressure view Solution;
 // the streamlines view Layout or Config (and Streamlines); the polar view
-// Sweep; the drag polar and lift-to-drag views Sweep and Drag; the
+// Sweep; the drag polar and lift-to-drag views Sweep and SweepViscous; the
 // boundary-layer view Viscous; the density view Density.
 type Scene struct {
 	// Layout is the placed configuration, in metres. Config, when set, is
@@ -110,7 +102,9 @@ type Scene struct {
 	Config   *solver.Config
 	Solution *solver.Solution
 	Sweep    []solver.Coefficients
-	Drag     []DragPoint // aligned with Sweep; nil when the sweep has no boundary-layer estimate
+	// SweepViscous is the boundary-layer estimate at each angle of Sweep;
+	// nil when the sweep has none.
+	SweepViscous []solver.ViscousPoint
 
 	Streamlines []solver.Streamline
 	Viscous     *solver.ViscousResult // may be nil

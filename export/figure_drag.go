@@ -15,10 +15,10 @@ import (
 func dragRows(sc *Scene) [][3]float64 {
 	var rows [][3]float64
 	for i, c := range sc.Sweep {
-		if i >= len(sc.Drag) {
+		if i >= len(sc.SweepViscous) {
 			break
 		}
-		if cd := sc.Drag[i].Cd; !math.IsNaN(cd) && !math.IsInf(cd, 0) && cd > 0 {
+		if cd := sc.SweepViscous[i].Cd; !math.IsNaN(cd) && !math.IsInf(cd, 0) && cd > 0 {
 			rows = append(rows, [3]float64{c.AlphaDeg, c.Cl, cd})
 		}
 	}

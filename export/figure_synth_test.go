@@ -128,10 +128,11 @@ func synthSweep() []solver.Coefficients {
 }
 
 // synthDrag is Cd = 0.008 + 0.01 Cl² for each row of sw.
-func synthDrag(sw []solver.Coefficients) []DragPoint {
-	d := make([]DragPoint, len(sw))
+func synthDrag(sw []solver.Coefficients) []solver.ViscousPoint {
+	d := make([]solver.ViscousPoint, len(sw))
 	for i, c := range sw {
-		d[i] = DragPoint{Cd: 0.008 + 0.01*c.Cl*c.Cl, XTrUpper: 0.3 - 0.02*c.AlphaDeg, XTrLower: 0.6}
+		d[i] = solver.ViscousPoint{AlphaDeg: c.AlphaDeg, Cd: 0.008 + 0.01*c.Cl*c.Cl, TransitionUpper: 0.3 - 0.02*c.AlphaDeg,
+			TransitionLower: 0.6, SeparationUpper: math.NaN(), SeparationLower: math.NaN(), Valid: true}
 	}
 	return d
 }
@@ -151,7 +152,7 @@ func synthScene() *Scene {
 	l := synthLayout(120)
 	sw := synthSweep()
 	return &Scene{
-		Layout: l, Solution: synthSolution(l, 4), Sweep: sw, Drag: synthDrag(sw),
+		Layout: l, Solution: synthSolution(l, 4), Sweep: sw, SweepViscous: synthDrag(sw),
 		Pins: synthPins(), AlphaDeg: 4, Element: -1,
 		Ground: true, GroundY: -0.06,
 		Streamlines: synthStreamlines(), Viscous: synthViscous(), Density: synthDensity(),

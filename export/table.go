@@ -68,16 +68,17 @@ func WriteCpTable(w io.Writer, sol *solver.Solution) error {
 }
 
 // WriteSweepTable writes a sweep as CSV, one row per angle: alpha_deg, cl
-// (from circulation), cl_pressure, cm, cp_min and x_cp_min; when drag is
-// not nil, also cd, xtr_upper and xtr_lower from the boundary-layer
-// estimate (empty where it failed). drag must be nil or as long as sweep.
-func WriteSweepTable(w io.Writer, sweep []solver.Coefficients, drag []DragPoint) error {
-	if drag != nil && len(drag) != len(sweep) {
-		panic(fmt.Sprintf("export: %d drag points for %d sweep angles", len(drag), len(sweep)))
+// (from circulation), cl_pressure, cm, cp_min and x_cp_min; when viscous
+// is not nil, also cd, xtr_upper, xtr_lower, xsep_upper and xsep_lower
+// (x/c on the main element) from the boundary-layer estimate, empty where
+// it is not available. viscous must be nil or as long as sweep.
+func WriteSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []solver.ViscousPoint) error {
+	if viscous != nil && len(viscous) != len(sweep) {
+		panic(fmt.Sprintf("export: %d boundary-layer points for %d sweep angles", len(viscous), len(sweep)))
 	}
 	head := []string{"alpha_deg", "cl", "cl_pressure", "cm", "cp_min", "x_cp_min"}
-	if drag != nil {
-		head = append(head, "cd", "xtr_upper", "xtr_lower")
+	if viscous != nil {
+		head = append(head, "cd", "xtr_upper", "xtr_lower", "xsep_upper", "xsep_lower")
 	}
 	t, err := newTable(w, head...)
 	if err != nil {
@@ -85,9 +86,9 @@ func WriteSweepTable(w io.Writer, sweep []solver.Coefficients, drag []DragPoint)
 	}
 	for i, c := range sweep {
 		r := []string{cell(c.AlphaDeg), cell(c.Cl), cell(c.ClPressure), cell(c.Cm), cell(c.CpMin), cell(c.XCpMin)}
-		if drag != nil {
-			d := drag[i]
-			r = append(r, cell(d.Cd), cell(d.XTrUpper), cell(d.XTrLower))
+		if viscous != nil {
+			v := viscous[i]
+			r = append(r, cell(v.Cd), cell(v.TransitionUpper), cell(v.TransitionLower), cell(v.SeparationUpper), cell(v.SeparationLower))
 		}
 		if err := t.row(r...); err != nil {
 			return err

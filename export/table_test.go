@@ -9,6 +9,8 @@ import (
 	"path/filepath"
 	"strconv"
 	"testing"
+
+	"sectionbench/solver"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files in testdata/golden")
@@ -111,11 +113,11 @@ func TestSweepTableGolden(t *testing.T) {
 	dr[2].Cd = math.NaN() // the estimate failed at one angle: an empty cell
 	for _, c := range []struct {
 		name string
-		drag []DragPoint
+		drag []solver.ViscousPoint
 		cols int
 	}{
 		{"sweep.csv", nil, 6},
-		{"sweep_drag.csv", dr, 9},
+		{"sweep_drag.csv", dr, 11},
 	} {
 		var b bytes.Buffer
 		if err := WriteSweepTable(&b, sw, c.drag); err != nil {
@@ -170,5 +172,5 @@ func TestSweepTableMismatch(t *testing.T) {
 			t.Error("no panic for drag of the wrong length")
 		}
 	}()
-	WriteSweepTable(&bytes.Buffer{}, synthSweep(), make([]DragPoint, 2))
+	WriteSweepTable(&bytes.Buffer{}, synthSweep(), make([]solver.ViscousPoint, 2))
 }
