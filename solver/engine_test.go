@@ -1,0 +1,156 @@
+package solver
+
+import (
+	"context"
+	"errors"
+	"math"
+	"testing"
+
+	"sectionbench/model"
+)
+
+func engineStudy(t *testing.T, code string) (*model.Study, []*model.Section) {
+	t.Helper()
+	st := model.NewStudy()
+	st.Elements[0].Section = model.SectionSource{Spec: "naca:" + code}
+	sec, _, err := model.SectionFromSpec("naca:"+code, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return st, []*model.Section{sec}
+}
+
+func run(t *testing.T, e *Engine, st *model.Study, secs []*model.Section, sweep bool) *Result {
+	t.Helper()
+	res, err := e.Run(context.Background(), Request{Study: st, Sections: secs, Sweep: sweep})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return res
+}
+
+// Only the angle changed: the engine keeps its factorised system.
+func TestEngineReusesFactorisation(t *testing.T) {
+	st, secs := engineStudy(t, "2412")
+	e := NewEngine()
+	run(t, e, st, secs, false)
+	sys := e.sys
+	st.Flow.AlphaDeg = 7
+	r := run(t, e, st, secs, false)
+	if e.sys != sys {
+		t.Error("a new system was factorised for an angle change")
+	}
+	if r.Solution.AlphaDeg != 7 {
+		t.Errorf("solution at %g°, want 7°", r.Solution.AlphaDeg)
+	}
+	st.Panelling.Panels = 100
+	run(t, e, st, secs, false)
+	if e.sys == sys {
+		t.Error("the panel count changed but the old system was kept")
+	}
+}
+
+// The sweep by superposition equals one solve per angle.
+func TestEngineSweepMatchesSolves(t *testing.T) {
+	st, secs := engineStudy(t, "4412")
+	st.Sweep = model.SweepRange{FromDeg: -4, ToDeg: 8, StepDeg: 4}
+	e := NewEngine()
+	r := run(t, e, st, secs, true)
+	if len(r.Sweep) != 4 {
+		t.Fatalf("%d rows, want 4", len(r.Sweep))
+	}
+	for _, row := range r.Sweep {
+		st.Flow.AlphaDeg = row.AlphaDeg
+		one := run(t, NewEngine(), st, secs, false).Solution
+		if math.Abs(one.Cl-row.Cl) > 1e-12 || math.Abs(one.Cm-row.Cm) > 1e-12 {
+			t.Errorf("α = %g: sweep Cl %.12f Cm %.12f, solve Cl %.12f Cm %.12f", row.AlphaDeg, row.Cl, row.Cm, one.Cl, one.Cm)
+		}
+	}
+}
+
+// Inverted mounting is the mirror image: Cl and Cm change sign exactly
+// (in free air, where nothing breaks the mirror symmetry).
+func TestEngineInvertedMirror(t *testing.T) {
+	st, secs := engineStudy(t, "4412")
+	up := run(t, NewEngine(), st, secs, false).Solution
+	st.Inverted = true
+	inv := run(t, NewEngine(), st, secs, false).Solution
+	if math.Abs(up.Cl+inv.Cl) > 1e-10 || math.Abs(up.Cm+inv.Cm) > 1e-10 {
+		t.Errorf("upright Cl %g Cm %g, inverted Cl %g Cm %g: want opposite signs", up.Cl, up.Cm, inv.Cl, inv.Cm)
+	}
+	if up.Elements[0].CpMin-inv.Elements[0].CpMin > 1e-10 {
+		t.Errorf("min Cp %g upright, %g inverted", up.Elements[0].CpMin, inv.Elements[0].CpMin)
+	}
+}
+
+// Forces follow L' = ½ρV² c Cl with the US Standard Atmosphere 1976 sea
+// level density 1.2250 kg/m³ (closed form).
+func TestEngineForces(t *testing.T) {
+	st, secs := engineStudy(t, "4412")
+	st.Elements[0].ChordMM = 250
+	st.Flow.SpeedMPS = 100 / 3.6 // 100 km/h
+	st.Inverted = true
+	r := run(t, NewEngine(), st, secs, false)
+	f := r.Forces
+	if f == nil {
+		t.Fatal("no forces with a speed")
+	}
+	q := 0.5 * 1.2250 * st.Flow.SpeedMPS * st.Flow.SpeedMPS
+	if math.Abs(f.DynamicPressurePa-q)/q > 1e-4 {
+		t.Errorf("q = %g Pa, want %g", f.DynamicPressurePa, q)
+	}
+	want := q * 0.25 * r.Solution.Cl
+	if math.Abs(f.LiftPerSpan-want) > 1e-3*math.Abs(want) || f.DownforcePerSpan != -f.LiftPerSpan {
+		t.Errorf("lift %g N/m, downforce %g N/m, want lift %g", f.LiftPerSpan, f.DownforcePerSpan, want)
+	}
+	if f.DownforcePerSpan <= 0 {
+		t.Errorf("an inverted cambered section at +4° gives downforce %g N/m, want positive", f.DownforcePerSpan)
+	}
+	// Re = ρVc/μ with μ = 1.7894e-5 Pa·s (US Standard Atmosphere 1976).
+	wantRe := 1.2250 * st.Flow.SpeedMPS * 0.25 / 1.7894e-5
+	if math.Abs(r.Reynolds[0]-wantRe)/wantRe > 1e-3 {
+		t.Errorf("Re = %g, want %g", r.Reynolds[0], wantRe)
+	}
+}
+
+// In ground effect the engine solves the pitched configuration over the
+// ground; a large clearance tends to free air.
+func TestEngineGroundTendsToFreeAir(t *testing.T) {
+	st, secs := engineStudy(t, "4412")
+	st.Inverted = true
+	free := run(t, NewEngine(), st, secs, false).Solution.Cl
+	prev := 0.0
+	for _, h := range []float64{25, 50, 100, 250, 1000, 10000} {
+		st.Ground = model.Ground{Enabled: true, ClearanceMM: h}
+		cl := run(t, NewEngine(), st, secs, false).Solution.Cl
+		// Downforce (−Cl) rises monotonically as clearance falls (common
+		// practice; Zerihan & Zhang, J. Aircraft 37(6), 2000, show the rise
+		// in experiments down to about h/c = 0.1).
+		if prev != 0 && -cl > -prev {
+			t.Errorf("h = %g mm: downforce %g rose above %g at a lower height", h, -cl, -prev)
+		}
+		prev = cl
+	}
+	if d := math.Abs(prev-free) / math.Abs(free); d > 0.002 {
+		t.Errorf("at h = 40 chords Cl = %g, free air %g (%.2f %% apart)", prev, free, 100*d)
+	}
+}
+
+func TestEngineErrors(t *testing.T) {
+	st, secs := engineStudy(t, "4412")
+	st.Viscous.Enabled = true // no speed, no Reynolds number
+	_, err := NewEngine().Run(context.Background(), Request{Study: st, Sections: secs})
+	var fe *model.FieldError
+	if !errors.As(err, &fe) || fe.Field != "flow.speed_mps" {
+		t.Errorf("boundary layer without a speed: %v, want a FieldError on flow.speed_mps", err)
+	}
+	st, secs = engineStudy(t, "4412")
+	st.Ground = model.Ground{Enabled: true, ClearanceMM: 50}
+	st.Viscous = model.Viscous{Enabled: true}
+	st.Flow.Reynolds = 5e5
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if _, err := NewEngine().Run(ctx, Request{Study: st, Sections: secs, Sweep: true}); !errors.Is(err, context.Canceled) {
+		t.Errorf("cancelled sweep: %v, want context.Canceled", err)
+	}
+}
