@@ -346,7 +346,15 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	leOrig := Point{le.X*2*half + ctr.X, le.Y*2*half + ctr.Y}
 	chord := chordQ * 2 * half
 	if leOrig.Norm() > reportTol*chord {
-		rep.Changes = append(rep.Changes, fmt.Sprintf("moved the leading edge (found on the spline at %s) to the origin", fmtPoint(leOrig)))
+		shown := leOrig
+		// Rounding noise (below 1e-12 of the chord) is shown as zero.
+		if math.Abs(shown.X) < 1e-12*chord {
+			shown.X = 0
+		}
+		if math.Abs(shown.Y) < 1e-12*chord {
+			shown.Y = 0
+		}
+		rep.Changes = append(rep.Changes, fmt.Sprintf("moved the leading edge (found on the spline at %s) to the origin", fmtPoint(shown)))
 	}
 	if math.Abs(chord-1) > reportTol {
 		rep.Changes = append(rep.Changes, fmt.Sprintf("scaled by 1/%.9g to unit chord (the chord was %.9g)", chord, chord))

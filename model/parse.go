@@ -614,7 +614,7 @@ func (p *parser) finish() (*Parsed, error) {
 		p.notes = append(p.notes, fmt.Sprintf("no name line; named %q after the source", out.Name))
 	}
 	if p.comments > 0 {
-		p.notes = append(p.notes, fmt.Sprintf("%d comment lines skipped", p.comments))
+		p.notes = append(p.notes, fmt.Sprintf("%d comment %s skipped", p.comments, plural(p.comments, "line", "lines")))
 	}
 	recs := p.records
 	var pts []Point
