@@ -297,6 +297,8 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	fileStart := te.i == n-1 && te.edge && !closed || te.i == 0 && !te.edge && closed
 	switch {
 	case fileStart:
+	case te.i == n-1 && te.edge && closed:
+		rep.Changes = append(rep.Changes, fmt.Sprintf("the last point repeated the first (point %d), closing the blunt trailing edge with a straight base; dropped it, leaving the gap open", orig[0]+1))
 	case te.i == 0 && !te.edge && !closed:
 		rep.Changes = append(rep.Changes, fmt.Sprintf("repeated the trailing-edge point (point %d) at the end to close the contour", orig[0]+1))
 	default:

@@ -384,3 +384,31 @@ func BenchmarkCleanMaxPoints(b *testing.B) {
 		}
 	}
 }
+
+// TestCleanTrailingEdgeForms covers how files list the trailing edge: once
+// at the start only (sharp), closed by repeating the first point across a
+// blunt base, and as listed.
+func TestCleanTrailingEdgeForms(t *testing.T) {
+	sharp := naca0012Loop(41)
+	blunt := testLoop(41)
+	refSharp, _ := mustClean(t, "sharp", sharp, DefaultCleanOptions)
+	refBlunt, _ := mustClean(t, "blunt", blunt, DefaultCleanOptions)
+	for _, c := range []struct {
+		name   string
+		pts    []Point
+		ref    *Section
+		change string
+	}{
+		{"sharp, listed once", sharp[:len(sharp)-1], refSharp, "repeated the trailing-edge point (point 1) at the end"},
+		{"blunt, base closed", append(append([]Point(nil), blunt...), blunt[0]), refBlunt, "closing the blunt trailing edge with a straight base; dropped it"},
+		{"sharp, from the lower surface", append(append([]Point(nil), sharp[60:80]...), sharp[:60]...), refSharp, "started the contour at the sharp corner at point 21"},
+	} {
+		sec, rep := mustClean(t, c.name, c.pts, DefaultCleanOptions)
+		if d := maxDist(sec.Points(), c.ref.Points()); d > 1e-12 {
+			t.Errorf("%s: differs by %g\n%s", c.name, d, rep)
+		}
+		if !strings.Contains(strings.Join(rep.Changes, "\n"), c.change) {
+			t.Errorf("%s: changes lack %q\n%s", c.name, c.change, rep)
+		}
+	}
+}

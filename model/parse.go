@@ -169,7 +169,8 @@ func (p *Parsed) Clean(opt CleanOptions) (*Section, *CleanReport, error) {
 //     data line has a decimal point. Otherwise commas separate values, and a
 //     line such as "0,5 0,25" is rejected as having four numbers;
 //   - a UTF-8 byte-order mark (removed) and UTF-16 with a byte-order mark
-//     (decoded); other encodings without a mark are read as UTF-8;
+//     (decoded); UTF-32 is rejected; text without a mark is read as UTF-8,
+//     invalid bytes (a Latin-1 name, say) being replaced and noted;
 //   - the layouts of FileLayout: one loop; two surfaces (recognised when x
 //     runs from one end to the other and jumps back); two surfaces after a
 //     point-count line, which must agree with the points that follow; a
@@ -214,6 +215,8 @@ func decodeText(data []byte) (string, []string, error) {
 		return "", nil, fmt.Errorf("the input is empty: %w", ErrEmpty)
 	}
 	switch {
+	case bytes.HasPrefix(data, []byte{0xFF, 0xFE, 0, 0}), bytes.HasPrefix(data, []byte{0, 0, 0xFE, 0xFF}):
+		return "", nil, fmt.Errorf("UTF-32 text (byte-order mark) is not read; save it as UTF-8: %w", ErrEncoding)
 	case bytes.HasPrefix(data, []byte{0xFF, 0xFE}), bytes.HasPrefix(data, []byte{0xFE, 0xFF}):
 		le := data[0] == 0xFF
 		body := data[2:]

@@ -778,3 +778,36 @@ func checkExpectation(t *testing.T, name string, data []byte, w expectation) {
 		}
 	}
 }
+
+func TestParseEncodings(t *testing.T) {
+	body := "1 0\n0.5 0.06\n0 0\n0.5 -0.06\n1 0\n"
+	be := []byte{0xFE, 0xFF}
+	for _, c := range utf16.Encode([]rune(body)) {
+		be = append(be, byte(c>>8), byte(c))
+	}
+	for _, c := range []struct {
+		name string
+		in   []byte
+		note string
+		is   error
+	}{
+		{"UTF-16 big-endian", be, "UTF-16 big-endian text", nil},
+		{"UTF-32", append([]byte{0xFF, 0xFE, 0, 0}, '1', 0, 0, 0), "", ErrEncoding},
+		{"Windows line ends", []byte(strings.ReplaceAll(body, "\n", "\r\n")), "one loop of 5 points", nil},
+	} {
+		p, err := ParseCoordinates(bytes.NewReader(c.in), "e.dat")
+		if c.is != nil {
+			if !errors.Is(err, c.is) {
+				t.Errorf("%s: got %v, want %v", c.name, err, c.is)
+			}
+			continue
+		}
+		if err != nil {
+			t.Errorf("%s: %v", c.name, err)
+			continue
+		}
+		if !strings.Contains(strings.Join(p.Notes, "\n"), c.note) || len(p.Points) != 5 {
+			t.Errorf("%s: %d points, notes %q", c.name, len(p.Points), p.Notes)
+		}
+	}
+}
