@@ -6,52 +6,26 @@ package ui
 
 import (
 	"context"
-	"errors"
 	"fmt"
 	"io"
-	"os"
-	"path/filepath"
-	"strings"
-	"time"
 
 	"sectionbench/export"
 	"sectionbench/model"
 	"sectionbench/solver"
 )
 
-// TODO(stub): the types and functions below stand in for solver.Engine,
-// export.Render and the model study functions until those land; they are
-// replaced by aliases and direct calls before the deadline.
+type (
+	engineRequest = solver.Request
+	engineResult  = solver.Result
+)
 
-type engineRequest struct {
-	Study       *model.Study
-	Sections    []*model.Section
-	Sweep       bool
-	Streamlines bool
-}
-
-type engineResult struct {
-	Layout      *model.Layout
-	Config      solver.Config
-	Solution    *solver.Solution
-	Sweep       []solver.Coefficients
-	Streamlines []struct{}
-	Viscous     *struct{}
-	Elapsed     time.Duration
-}
-
-// engine is what the scheduler runs: one call per update.
+// engine is what the scheduler runs: one call per update. *solver.Engine
+// is the real one; tests substitute their own.
 type engine interface {
 	Run(ctx context.Context, req engineRequest) (*engineResult, error)
 }
 
-type stubEngine struct{}
-
-func (stubEngine) Run(ctx context.Context, req engineRequest) (*engineResult, error) {
-	return nil, errors.New("solver engine not available yet")
-}
-
-func newEngine() engine { return stubEngine{} }
+func newEngine() engine { return solver.NewEngine() }
 
 type (
 	viewWindow = export.Window
@@ -85,16 +59,18 @@ const mmPerM = 1000
 func sceneOf(res *engineResult, st *model.Study, sweep []solver.Coefficients) *scene {
 	cfg := res.Config
 	return &scene{
-		Layout:   res.Layout,
-		Config:   &cfg,
-		Solution: res.Solution,
-		Sweep:    sweep,
-		Pins:     st.Pins,
-		AlphaDeg: st.Flow.AlphaDeg,
-		Element:  -1,
-		GroundY:  cfg.GroundY,
-		Ground:   cfg.Ground,
-		Inverted: st.Inverted,
+		Layout:      res.Layout,
+		Config:      &cfg,
+		Solution:    res.Solution,
+		Sweep:       sweep,
+		Streamlines: res.Streamlines,
+		Viscous:     res.Viscous,
+		Pins:        st.Pins,
+		AlphaDeg:    st.Flow.AlphaDeg,
+		Element:     -1,
+		GroundY:     cfg.GroundY,
+		Ground:      cfg.Ground,
+		Inverted:    st.Inverted,
 	}
 }
 
@@ -110,60 +86,15 @@ func validateStudy(st *model.Study) error { return st.Validate() }
 
 type cleanReport = model.CleanReport
 
-// ktPoints is how many points an analytic Kármán–Trefftz contour gets
-// before repanelling: dense enough that the spline through them is exact to
-// plotting accuracy.
-const ktPoints = 401
-
-// loadSections returns the cleaned sections of a study's elements.
+// loadSections returns the cleaned sections of a study's elements, with
+// relative file paths resolved against baseDir.
 func loadSections(st *model.Study, baseDir string) ([]*model.Section, []*cleanReport, error) {
-	secs := make([]*model.Section, len(st.Elements))
-	reps := make([]*cleanReport, len(st.Elements))
-	for i, e := range st.Elements {
-		s, r, err := sectionFromSource(e.Section, baseDir)
-		if err != nil {
-			return nil, nil, fmt.Errorf("element %q: %w", e.Name, err)
-		}
-		secs[i], reps[i] = s, r
-	}
-	return secs, reps, nil
+	return export.LoadSections(st, baseDir)
 }
 
-func sectionFromSource(src model.SectionSource, baseDir string) (*model.Section, *cleanReport, error) {
-	if src.Embedded != nil {
-		pts := make([]model.Point, len(src.Embedded.Points))
-		for i, p := range src.Embedded.Points {
-			pts[i] = model.Point{X: p[0], Y: p[1]}
-		}
-		s, err := model.NewSection(src.Embedded.Name, pts)
-		return s, nil, err
-	}
-	if d, ok := strings.CutPrefix(src.Spec, "naca:"); ok {
-		s, err := model.NACA(d, model.NACAOptions{})
-		return s, nil, err
-	}
-	if d, ok := strings.CutPrefix(src.Spec, "kt:"); ok {
-		k, err := model.ParseKT(d)
-		if err != nil {
-			return nil, nil, err
-		}
-		s, err := k.Section(ktPoints)
-		return s, nil, err
-	}
-	return nil, nil, errors.New("section generators not available yet: " + src.Spec)
-}
-
+// loadSectionFile reads and cleans a coordinate file.
 func loadSectionFile(path string) (*model.Section, *cleanReport, error) {
-	f, err := os.Open(path)
-	if err != nil {
-		return nil, nil, err
-	}
-	defer f.Close()
-	p, err := model.ParseCoordinates(f, filepath.Base(path))
-	if err != nil {
-		return nil, nil, err
-	}
-	return p.Clean(model.DefaultCleanOptions)
+	return export.LoadSectionFile(path)
 }
 
 // checkNACA reports why a designation is not a NACA section, or nil.
@@ -182,25 +113,10 @@ func safeRender(v viewKind, sc *scene, w, h int, dpi float64) (fig *figure, err 
 	return renderView(v, sc, w, h, dpi)
 }
 
-// TODO(stub): export.LoadStudy and export.SaveStudy.
-func loadStudy(path string) (*model.Study, error) {
-	b, err := os.ReadFile(path)
-	if err != nil {
-		return nil, err
-	}
-	return decodeStudy(b)
-}
+func loadStudy(path string) (*model.Study, error) { return export.LoadStudy(path) }
 
-func saveStudy(path string, st *model.Study) error {
-	b, err := encodeStudy(st)
-	if err != nil {
-		return err
-	}
-	return export.WriteFileAtomic(path, func(w io.Writer) error {
-		_, err := w.Write(b)
-		return err
-	})
-}
+// saveStudy writes the study atomically.
+func saveStudy(path string, st *model.Study) error { return export.SaveStudy(path, st) }
 
 // writeFile writes a file atomically: it appears whole or not at all.
 func writeFile(path string, write func(io.Writer) error) error {

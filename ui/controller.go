@@ -22,10 +22,6 @@ const liveSweepMaxAngles = 41
 // maxPins bounds the pins a study keeps; more would make the views unreadable.
 const maxPins = 6
 
-// sweepChunk is how many angles one engine call of a run sweep takes: the
-// progress bar and Cancel act between chunks.
-const sweepChunk = 8
-
 // Controller runs every change of the study through one engine call on a
 // worker goroutine and keeps the undo history. Its methods are called from
 // the UI goroutine; OnResult is called on the worker goroutine.
@@ -34,6 +30,8 @@ type Controller struct {
 	hist  history
 	act   *activity
 	sched *scheduler
+	// newEngine makes the engine of a sweep run.
+	newEngine func() engine
 
 	// OnStudy is called after the study changed (edit, undo, open).
 	OnStudy func()
@@ -53,7 +51,7 @@ type Controller struct {
 
 // NewController returns a controller editing st (a new study if nil).
 func NewController(st *model.Study) (*Controller, error) {
-	c := &Controller{act: newActivity()}
+	c := &Controller{act: newActivity(), newEngine: newEngine}
 	c.sched = newScheduler(newEngine(), c.act, c.deliver)
 	if st == nil {
 		st = newStudy()
@@ -228,9 +226,11 @@ func (c *Controller) deliver(u update, res *engineResult, err error) {
 }
 
 // liveSweep reports whether the study's sweep runs with every update.
+// Only a free-air inviscid sweep is cheap: in ground effect or with the
+// boundary layer every angle is a solve of its own.
 func liveSweep(st *model.Study) bool {
 	a, err := st.Sweep.Angles()
-	return err == nil && len(a) <= liveSweepMaxAngles && !st.Viscous.Enabled
+	return err == nil && len(a) <= liveSweepMaxAngles && !st.Viscous.Enabled && !st.Ground.Enabled
 }
 
 // equalGeometry reports whether two studies solve the same configuration
@@ -249,14 +249,13 @@ func equalGeometry(a, b *model.Study) bool {
 	return err1 == nil && err2 == nil && string(ex) == string(ey)
 }
 
-// RunSweep runs the study's sweep on its own goroutine, sweepChunk angles
-// per engine call. progress is called after each chunk with the angles done
-// and the total, done once at the end (with context.Canceled if cancelled);
-// both on the sweep goroutine.
+// RunSweep runs the study's sweep on its own goroutine with an engine of
+// its own (an engine serves one goroutine at a time). progress is called
+// after each angle that needs its own solve; done once at the end, with
+// context.Canceled if cancelled. Both run on the sweep goroutine.
 func (c *Controller) RunSweep(progress func(done, total int), done func(err error)) error {
 	st := cloneStudy(c.state.study)
-	angles, err := st.Sweep.Angles()
-	if err != nil {
+	if _, err := st.Sweep.Angles(); err != nil {
 		return err
 	}
 	secs := c.state.sections
@@ -272,30 +271,13 @@ func (c *Controller) RunSweep(progress func(done, total int), done func(err erro
 	go func() {
 		defer c.act.done()
 		defer cancel()
-		var all []solver.Coefficients
-		var err error
-		for i := 0; i < len(angles) && err == nil; i += sweepChunk {
-			if err = ctx.Err(); err != nil {
-				break
-			}
-			j := min(i+sweepChunk, len(angles)) - 1
-			chunk := cloneStudy(st)
-			chunk.Sweep = model.SweepRange{FromDeg: angles[i], ToDeg: angles[j], StepDeg: st.Sweep.StepDeg}
-			var res *engineResult
-			res, err = safeRun(c.sched.eng, ctx, engineRequest{Study: chunk, Sections: secs, Sweep: true})
-			if err == nil {
-				all = append(all, res.Sweep...)
-				if progress != nil {
-					progress(j+1, len(angles))
-				}
-			}
-		}
+		res, err := safeRun(c.newEngine(), ctx, engineRequest{Study: st, Sections: secs, Sweep: true, Progress: progress})
 		if err == nil && c.sched.Latest() != gen {
 			err = errors.New("the study changed while the sweep ran; run it again")
 		}
 		if err == nil {
 			c.mu.Lock()
-			c.sweep = all
+			c.sweep = res.Sweep
 			c.mu.Unlock()
 		}
 		if done != nil {

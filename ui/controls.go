@@ -1,6 +1,7 @@
 package ui
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"strconv"
@@ -148,9 +149,9 @@ func newControls(w *Workbench) *controls {
 	}
 	openFile := widget.NewButton("Open coordinate file…", w.openSection)
 	c.ktX, c.ktY, c.ktTau = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
-	c.ktX.SetText(num(ktDefault.CenterX))
-	c.ktY.SetText(num(ktDefault.CenterY))
-	c.ktTau.SetText(num(ktDefault.TEAngleDeg))
+	c.ktX.SetText(entryNum(ktDefault.CenterX))
+	c.ktY.SetText(entryNum(ktDefault.CenterY))
+	c.ktTau.SetText(entryNum(ktDefault.TEAngleDeg))
 	c.ktMsg = message()
 	useKT := widget.NewButton("Use Kármán–Trefftz section", c.useKT)
 	report := widget.NewButton("Cleaning report", w.showReport)
@@ -349,27 +350,32 @@ func (c *controls) editSweep() {
 
 func (c *controls) runSweep() {
 	ctl := c.w.ctl
-	c.progress.SetValue(0)
-	err := ctl.RunSweep(func(done, total int) {
-		fyne.Do(func() { c.progress.SetValue(float64(done) / float64(total)) })
-	}, func(err error) {
-		fyne.Do(func() {
-			c.progress.Hide()
-			c.cancel.Hide()
-			c.run.Enable()
-			if err != nil {
-				setMessage(c.sweepMsg, err)
-			}
-		})
-	})
-	if err != nil {
-		setMessage(c.sweepMsg, err)
-		return
-	}
+	// Set the running state before the sweep starts, so that its end,
+	// however soon, comes after.
 	setMessage(c.sweepMsg, nil)
+	c.progress.SetValue(0)
 	c.run.Disable()
 	c.progress.Show()
 	c.cancel.Show()
+	finish := func(err error) {
+		c.progress.Hide()
+		c.cancel.Hide()
+		c.run.Enable()
+		if errors.Is(err, context.Canceled) {
+			err = errors.New("sweep cancelled; the polar keeps the last complete sweep")
+		}
+		if err != nil {
+			setMessage(c.sweepMsg, err)
+		}
+	}
+	err := ctl.RunSweep(func(done, total int) {
+		fyne.Do(func() { c.progress.SetValue(float64(done) / float64(total)) })
+	}, func(err error) {
+		fyne.Do(func() { finish(err) })
+	})
+	if err != nil {
+		finish(err)
+	}
 }
 
 // sourceError shows or clears a message under the section source.
@@ -390,9 +396,9 @@ func (c *controls) sync(st *model.Study) {
 	}
 	if d, ok := strings.CutPrefix(el.Section.Spec, "kt:"); ok {
 		if k, err := model.ParseKT(d); err == nil {
-			c.ktX.SetText(num(k.CenterX))
-			c.ktY.SetText(num(k.CenterY))
-			c.ktTau.SetText(num(k.TEAngleDeg))
+			c.ktX.SetText(entryNum(k.CenterX))
+			c.ktY.SetText(entryNum(k.CenterY))
+			c.ktTau.SetText(entryNum(k.TEAngleDeg))
 		}
 		setMessage(c.ktMsg, nil)
 	}
@@ -413,15 +419,15 @@ func (c *controls) sync(st *model.Study) {
 
 	a := st.Flow.AlphaDeg
 	c.alphaSlider.SetValue(max(-sliderMaxAlpha, min(sliderMaxAlpha, a)))
-	setIfDiffers(c.alphaEntry, num(a), numberIs(a))
+	setIfDiffers(c.alphaEntry, entryNum(a), numberIs(a))
 	step := num(st.Sweep.StepDeg) + "°"
 	c.alphaDown.SetText("−" + step)
 	c.alphaUp.SetText("+" + step)
 	setMessage(c.flowMsg, nil)
 
-	setIfDiffers(c.from, num(st.Sweep.FromDeg), numberIs(st.Sweep.FromDeg))
-	setIfDiffers(c.to, num(st.Sweep.ToDeg), numberIs(st.Sweep.ToDeg))
-	setIfDiffers(c.step, num(st.Sweep.StepDeg), numberIs(st.Sweep.StepDeg))
+	setIfDiffers(c.from, entryNum(st.Sweep.FromDeg), numberIs(st.Sweep.FromDeg))
+	setIfDiffers(c.to, entryNum(st.Sweep.ToDeg), numberIs(st.Sweep.ToDeg))
+	setIfDiffers(c.step, entryNum(st.Sweep.StepDeg), numberIs(st.Sweep.StepDeg))
 	setMessage(c.sweepMsg, nil)
 
 	if len(st.Pins) == 0 {
@@ -442,6 +448,10 @@ func setIfDiffers(e *widget.Entry, text string, same func(string) bool) {
 		e.SetText(text)
 	}
 }
+
+// entryNum formats a number for an entry, with an ASCII minus that the
+// user can edit like any other character.
+func entryNum(x float64) string { return strconv.FormatFloat(x, 'g', 6, 64) }
 
 func numberIs(x float64) func(string) bool {
 	return func(s string) bool {

@@ -28,8 +28,11 @@ const (
 	controlWidth = 330 // width of the control column
 )
 
-// caution is shown under the views and in Help.
-const caution = "2-D potential-flow estimates — validate by test. Structural design and mounting follow the competition's rules and qualified engineering review."
+// caution is shown in About and Methods; cautionShort in the status line.
+const (
+	caution      = "2-D potential-flow estimates — validate by test. Structural design and mounting follow the competition's rules and qualified engineering review."
+	cautionShort = "2-D potential-flow estimates — validate by test (Help ▸ Methods and cautions)"
+)
 
 // Workbench is the main window: the control column, the four views and the
 // status line.
@@ -113,7 +116,7 @@ func (w *Workbench) build() {
 	w.warnings = widget.NewButtonWithIcon("", theme.WarningIcon(), w.showReport)
 	w.warnings.Importance = widget.LowImportance
 	w.warnings.Hide()
-	note := widget.NewLabelWithStyle(caution, fyne.TextAlignTrailing, fyne.TextStyle{Italic: true})
+	note := widget.NewLabelWithStyle(cautionShort, fyne.TextAlignTrailing, fyne.TextStyle{Italic: true})
 	note.Truncation = fyne.TextTruncateEllipsis
 	note.Importance = widget.LowImportance
 	statusLine := container.NewBorder(nil, nil, nil, w.warnings, container.NewGridWithColumns(2, w.status, note))
