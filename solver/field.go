@@ -34,11 +34,37 @@ import (
 // L⁴/(80 |z − z0|⁴), below 5·10⁻⁵ of the panel's own contribution beyond
 // farFieldPanelLengths = 4 panel lengths. TestFarField checks it against the
 // closed form.
+//
+// Groups of panels are lumped the same way, as in Barnes and Hut's tree
+// code (J. Barnes and P. Hut, Nature 324, 1986) with the multipole
+// expansions of Greengard and Rokhlin (J. Comput. Phys. 73, 1987): each
+// element's panels are split in halves recursively down to clusterLeaf
+// panels; a cluster with centre zc and radius R (all its panels within R of
+// zc) carries
+//
+//	a_k = ∫ γ(ζ) (ζ − zc)^k ds,  k = 0 … clusterOrder,
+//	w(z) ≈ (i/2π) Σ_k a_k / (z − zc)^{k+1},
+//
+// used when |z − zc| > clusterOpening·R, where the truncation error is at
+// most (R/|z − zc|)^{P+1}/(1 − R/|z − zc|) ≈ 10⁻⁶ of the cluster's
+// Σ|γ|L/(2π|z − zc|). A leaf's moments come from its panels' μ_m by the
+// binomial shift (ζ − zc)^k = Σ_m C(k, m) (z0 − zc)^{k−m} (s e^{iφ})^m, a
+// parent's from its children's by the same shift. Points near the surface
+// descend to the panels; TestFieldTree checks the whole against the
+// closed-form sum.
 
 // farFieldPanelLengths is the distance from a panel's midpoint, in panel
 // lengths, beyond which the panel's multipole expansion replaces its closed
 // form (error bound above).
 const farFieldPanelLengths = 4
+
+// Cluster expansion settings (see above): order P = clusterOrder and the
+// opening ratio 3 give (1/3)^13/(2/3) ≈ 10⁻⁶.
+const (
+	clusterOrder   = 12
+	clusterOpening = 3.0
+	clusterLeaf    = 8 // panels in a leaf cluster
+)
 
 // farPanel is one panel's multipole coefficients i e^{ikφ} μ_k /(2π).
 type farPanel struct {
@@ -46,28 +72,61 @@ type farPanel struct {
 	r2             float64 // squared distance beyond which the expansion is used
 }
 
+// cluster is a node of the per-element panel tree.
+type cluster struct {
+	zc          complex128
+	r2open      float64 // (clusterOpening·R)²
+	a           [clusterOrder + 1]complex128
+	lo, hi      int   // panel range
+	left, right int32 // children, −1 for a leaf
+}
+
 // field evaluates the velocity of one solution.
 type field struct {
 	geo    *geometry
 	g      []float64
 	far    []farPanel
+	tree   []cluster
+	roots  []int32
 	ux, uy float64 // freestream
+}
+
+// lazyField builds a Solution's field once, on first use.
+type lazyField struct {
+	once sync.Once
+	f    *field
 }
 
 func (s *Solution) field() *field {
 	if s.sys == nil {
 		panic("solver: velocity of a Solution not made by Solve")
 	}
+	s.lazy.once.Do(func() { s.lazy.f = newField(s) })
+	return s.lazy.f
+}
+
+// binom holds the binomial coefficients C(k, m), k, m ≤ clusterOrder.
+var binom = func() (c [clusterOrder + 1][clusterOrder + 1]float64) {
+	for k := range c {
+		c[k][0] = 1
+		for m := 1; m <= k; m++ {
+			c[k][m] = c[k-1][m-1] + c[k-1][m]
+		}
+	}
+	return c
+}()
+
+func newField(s *Solution) *field {
 	geo := s.sys.geo
 	c, sn := s.sys.weights(s.AlphaDeg)
 	f := &field{geo: geo, g: s.g, far: make([]farPanel, len(geo.panels)), ux: c, uy: sn}
+	k := complex(0, 1/(2*math.Pi))
 	for j := range geo.panels {
 		p := &geo.panels[j]
 		ga, gb := s.g[p.ia], s.g[p.ia+1]
 		gm, dg := 0.5*(ga+gb), gb-ga
 		e := complex(p.tx, p.ty)
 		l := p.l
-		k := complex(0, 1/(2*math.Pi))
 		f.far[j] = farPanel{
 			c0: k * complex(gm*l, 0),
 			c1: k * e * complex(dg*l*l/12, 0),
@@ -76,28 +135,149 @@ func (s *Solution) field() *field {
 			r2: farFieldPanelLengths * farFieldPanelLengths * l * l,
 		}
 	}
+	for ei := range geo.elems {
+		e := &geo.elems[ei]
+		f.roots = append(f.roots, f.build(e.p0, e.p0+e.np))
+	}
 	return f
 }
 
+// build makes the cluster of panels [lo, hi) and returns its index.
+func (f *field) build(lo, hi int) int32 {
+	idx := int32(len(f.tree))
+	f.tree = append(f.tree, cluster{lo: lo, hi: hi, left: -1, right: -1})
+	// Centre: mean of the nodes; radius: farthest node (the panels lie in
+	// the nodes' convex hull).
+	var zc complex128
+	for j := lo; j < hi; j++ {
+		p := &f.geo.panels[j]
+		zc += complex(p.x1, p.y1)
+	}
+	last := &f.geo.panels[hi-1]
+	zc = (zc + complex(last.x2, last.y2)) / complex(float64(hi-lo+1), 0)
+	r2 := 0.0
+	for j := lo; j < hi; j++ {
+		p := &f.geo.panels[j]
+		r2 = math.Max(r2, sqAbs(complex(p.x1, p.y1)-zc))
+		r2 = math.Max(r2, sqAbs(complex(p.x2, p.y2)-zc))
+	}
+	var a [clusterOrder + 1]complex128
+	if hi-lo <= clusterLeaf {
+		for j := lo; j < hi; j++ {
+			p := &f.geo.panels[j]
+			// t_m = e^{imφ} μ_m, μ_m = γm I_m + (Δγ/L) I_{m+1},
+			// I_m = ∫_{−L/2}^{L/2} s^m ds.
+			ga, gb := f.g[p.ia], f.g[p.ia+1]
+			gm, dgl := 0.5*(ga+gb), (gb-ga)/p.l
+			var t [clusterOrder + 1]complex128
+			e := complex(p.tx, p.ty)
+			em := complex(1, 0)
+			h := p.l / 2
+			for m := range t {
+				mu := gm*moment(h, m) + dgl*moment(h, m+1)
+				t[m] = em * complex(mu, 0)
+				em *= e
+			}
+			shiftAdd(&a, &t, complex(p.mx, p.my)-zc)
+		}
+	} else {
+		mid := (lo + hi) / 2
+		l := f.build(lo, mid)
+		r := f.build(mid, hi)
+		f.tree[idx].left, f.tree[idx].right = l, r
+		for _, ch := range []int32{l, r} {
+			shiftAdd(&a, &f.tree[ch].a, f.tree[ch].zc-zc)
+		}
+	}
+	cl := &f.tree[idx]
+	cl.zc = zc
+	cl.r2open = clusterOpening * clusterOpening * r2
+	cl.a = a
+	return idx
+}
+
+// moment returns ∫_{−h}^{h} s^m ds.
+func moment(h float64, m int) float64 {
+	if m%2 == 1 {
+		return 0
+	}
+	return 2 * math.Pow(h, float64(m+1)) / float64(m+1)
+}
+
+// shiftAdd adds to a the moments t (about z1) re-expressed about z0, where
+// d = z1 − z0: a_k += Σ_m C(k, m) d^{k−m} t_m.
+func shiftAdd(a, t *[clusterOrder + 1]complex128, d complex128) {
+	var dp [clusterOrder + 1]complex128
+	dp[0] = 1
+	for k := 1; k <= clusterOrder; k++ {
+		dp[k] = dp[k-1] * d
+	}
+	for k := range a {
+		var sum complex128
+		for m := 0; m <= k; m++ {
+			sum += complex(binom[k][m], 0) * dp[k-m] * t[m]
+		}
+		a[k] += sum
+	}
+}
+
+func sqAbs(z complex128) float64 { return real(z)*real(z) + imag(z)*imag(z) }
+
+// maxTreeDepth bounds the evaluation stack: the tree halves its panels at
+// every level, so 64 levels cover any panel count.
+const maxTreeDepth = 64
+
 // induced returns the velocity the panels (without images) induce at p.
 func (f *field) induced(px, py float64) (u, v float64) {
-	for j := range f.geo.panels {
-		p := &f.geo.panels[j]
-		dx, dy := px-p.mx, py-p.my
-		d2 := dx*dx + dy*dy
-		if fp := &f.far[j]; d2 > fp.r2 {
-			inv := complex(dx/d2, -dy/d2)
-			w := inv * (fp.c0 + inv*(fp.c1+inv*(fp.c2+inv*fp.c3)))
-			u += real(w)
-			v -= imag(w)
-			continue
+	var w complex128 // Σ a_k/(z − zc)^{k+1} over opened clusters; × i/2π below
+	z := complex(px, py)
+	var stack [maxTreeDepth + 1]int32
+	for _, root := range f.roots {
+		stack[0] = root
+		sp := 1
+		for sp > 0 {
+			sp--
+			cl := &f.tree[stack[sp]]
+			dz := z - cl.zc
+			if d2 := sqAbs(dz); d2 > cl.r2open {
+				inv := complex(real(dz)/d2, -imag(dz)/d2)
+				acc := cl.a[clusterOrder]
+				for k := clusterOrder - 1; k >= 0; k-- {
+					acc = acc*inv + cl.a[k]
+				}
+				w += acc * inv
+				continue
+			}
+			if cl.left >= 0 {
+				stack[sp], stack[sp+1] = cl.right, cl.left
+				sp += 2
+				continue
+			}
+			for j := cl.lo; j < cl.hi; j++ {
+				du, dv := f.panelVelocity(j, px, py)
+				u += du
+				v += dv
+			}
 		}
-		ua, va, ub, vb := f.geo.panelInfluence(j, px, py)
-		ga, gb := f.g[p.ia], f.g[p.ia+1]
-		u += ua*ga + ub*gb
-		v += va*ga + vb*gb
 	}
-	return u, v
+	w *= complex(0, 1/(2*math.Pi))
+	return u + real(w), v - imag(w)
+}
+
+// panelVelocity is panel j's velocity at p: its multipole expansion beyond
+// farFieldPanelLengths, the closed form nearer.
+func (f *field) panelVelocity(j int, px, py float64) (u, v float64) {
+	p := &f.geo.panels[j]
+	dx, dy := px-p.mx, py-p.my
+	d2 := dx*dx + dy*dy
+	if fp := &f.far[j]; d2 > fp.r2 {
+		inv := complex(dx/d2, -dy/d2)
+		w := inv * (fp.c0 + inv*(fp.c1+inv*(fp.c2+inv*fp.c3)))
+		return real(w), -imag(w)
+	}
+	ua, va, ub, vb := f.geo.panelInfluence(j, px, py)
+	ga, gb := f.g[p.ia], f.g[p.ia+1]
+	return ua*ga + ub*gb, va*ga + vb*gb
 }
 
 // inside reports whether p lies within an element's contour (closed across

@@ -1,8 +1,10 @@
 package solver
 
 import (
+	"cmp"
 	"fmt"
 	"math"
+	"slices"
 
 	"sectionbench/model"
 )
@@ -44,7 +46,8 @@ import (
 // solutions), every pressure integral Σ w_j (1 − Vt_j²) is a quadratic form
 // in (cos α, sin α): Σ w_j − c² Σ w a² − 2cs Σ w ab − s² Σ w b². The four
 // sums are computed once per element, so a sweep costs O(1) per angle for
-// forces and O(N) for CpMin.
+// forces, and CpMin comes from a convex hull of the unit velocities
+// (coefficients).
 
 // qform is k + aa c² + ab c s + bb s², a quadratic form in (cos α, sin α).
 type qform struct{ k, aa, ab, bb float64 }
@@ -85,6 +88,7 @@ func (s *System) prepare() {
 			s.vt90[j] = -0.5 * (s.g90[p.ia] + s.g90[p.ia+1])
 		}
 	}
+	s.hull = velocityHull(s.vt0, s.vt90)
 	s.forces = make([]elemQuad, len(g.elems))
 	for k := range g.elems {
 		e := &g.elems[k]
@@ -129,22 +133,75 @@ func (s *System) totals(ef []elemForce, c, sn float64, ref model.Point) (cl, clp
 	return 2 * gam / rc, (-fx*sn + fy*c) / rc, -m / (rc * rc)
 }
 
-// coefficients returns the sweep entry at one angle.
+// coefficients returns the sweep entry at one angle. It allocates nothing.
 func (s *System) coefficients(alphaDeg float64) Coefficients {
 	c, sn := s.weights(alphaDeg)
-	ef := s.elementForces(c, sn)
-	co := Coefficients{AlphaDeg: alphaDeg, CpMin: math.Inf(1)}
-	co.Cl, co.ClPressure, co.Cm = s.totals(ef, c, sn, s.geo.mref)
-	vmax, jmax := -1.0, 0
-	for j := range s.vt0 {
-		v := math.Abs(c*s.vt0[j] + sn*s.vt90[j])
-		if v > vmax {
-			vmax, jmax = v, j
+	co := Coefficients{AlphaDeg: alphaDeg}
+	ref := s.geo.mref
+	var gam, fx, fy, m float64
+	for k, f := range s.forces {
+		qc := s.geo.elems[k].qc
+		efx, efy := f.fx.at(c, sn), f.fy.at(c, sn)
+		gam += c*f.gam0 + sn*f.gam90
+		fx += efx
+		fy += efy
+		m += f.m.at(c, sn) + (qc.X-ref.X)*efy - (qc.Y-ref.Y)*efx
+	}
+	rc := s.geo.refChord
+	co.Cl, co.ClPressure, co.Cm = 2*gam/rc, (-fx*sn+fy*c)/rc, -m/(rc*rc)
+	// CpMin = 1 − max_j Vt_j², Vt_j = (cos α, sin α)·(a_j, b_j): the
+	// largest |Vt| is the support function of the point set {±(a_j, b_j)}
+	// in the direction (cos α, sin α), attained at a vertex of its convex
+	// hull (precomputed in prepare), so a sweep scans a few dozen
+	// vertices per angle instead of every panel.
+	vmax, jmax := math.Inf(-1), 0
+	for _, h := range s.hull {
+		if v := c*h.a + sn*h.b; v > vmax {
+			vmax, jmax = v, h.j
 		}
 	}
 	co.CpMin = 1 - vmax*vmax
 	co.XCpMin = s.geo.panels[jmax].xc
 	return co
+}
+
+// hullVertex is a vertex of the convex hull of {±(Vt0_j, Vt90_j)}.
+type hullVertex struct {
+	a, b float64
+	j    int // panel
+}
+
+// velocityHull returns the convex hull of the points ±(a_j, b_j), counter-
+// clockwise, by Andrew's monotone chain (A. M. Andrew, Inf. Process. Lett.
+// 9(5), 1979). Collinear points are dropped.
+func velocityHull(a, b []float64) []hullVertex {
+	pts := make([]hullVertex, 0, 2*len(a))
+	for j := range a {
+		pts = append(pts, hullVertex{a[j], b[j], j}, hullVertex{-a[j], -b[j], j})
+	}
+	slices.SortFunc(pts, func(p, q hullVertex) int {
+		if c := cmp.Compare(p.a, q.a); c != 0 {
+			return c
+		}
+		return cmp.Compare(p.b, q.b)
+	})
+	cross := func(o, p, q hullVertex) float64 { return (p.a-o.a)*(q.b-o.b) - (p.b-o.b)*(q.a-o.a) }
+	h := make([]hullVertex, 0, len(pts)+1)
+	for _, p := range pts { // lower hull
+		for len(h) >= 2 && cross(h[len(h)-2], h[len(h)-1], p) <= 0 {
+			h = h[:len(h)-1]
+		}
+		h = append(h, p)
+	}
+	lower := len(h) + 1
+	for i := len(pts) - 2; i >= 0; i-- { // upper hull
+		p := pts[i]
+		for len(h) >= lower && cross(h[len(h)-2], h[len(h)-1], p) <= 0 {
+			h = h[:len(h)-1]
+		}
+		h = append(h, p)
+	}
+	return h[:len(h)-1]
 }
 
 // solution builds the full result for nodal strengths g at (cos α, sin α).
@@ -159,6 +216,7 @@ func (s *System) solution(alphaDeg, c, sn float64, g []float64) *Solution {
 		sys:      s,
 		g:        g,
 		forces:   ef,
+		lazy:     &lazyField{},
 	}
 	sol.Cl, sol.ClPressure, sol.Cm = s.totals(ef, c, sn, geo.mref)
 	for k := range geo.elems {

@@ -2,6 +2,7 @@ package solver
 
 import (
 	"math"
+	"math/rand/v2"
 	"testing"
 
 	"sectionbench/model"
@@ -253,5 +254,51 @@ func TestPanelsLayout(t *testing.T) {
 	// surface just behind the leading edge.
 	if st := e.Stagnation; !(st.Y < 0 && st.XC > 0 && st.XC < 0.05) {
 		t.Errorf("stagnation %+v, want on the lower surface near the LE", st)
+	}
+}
+
+// The hull's support function equals the brute-force maximum of |d·p_j| in
+// every direction, including a collinear set (ground mode: b = 0).
+func TestVelocityHull(t *testing.T) {
+	rng := rand.New(rand.NewPCG(9, 10))
+	for _, tc := range []struct {
+		name      string
+		collinear bool
+	}{{"random", false}, {"collinear", true}} {
+		a, b := make([]float64, 300), make([]float64, 300)
+		for j := range a {
+			a[j] = rng.NormFloat64()
+			if !tc.collinear {
+				b[j] = rng.NormFloat64() * 0.5
+			}
+		}
+		h := velocityHull(a, b)
+		for k := range 720 {
+			sn, c := math.Sincos(float64(k) * math.Pi / 360)
+			want := 0.0
+			for j := range a {
+				want = math.Max(want, math.Abs(c*a[j]+sn*b[j]))
+			}
+			got := math.Inf(-1)
+			for _, v := range h {
+				got = math.Max(got, c*v.a+sn*v.b)
+			}
+			if math.Abs(got-want) > 1e-14 {
+				t.Fatalf("%s, direction %d: hull max %.17g, brute force %.17g", tc.name, k, got, want)
+			}
+		}
+		if tc.collinear && len(h) != 2 {
+			t.Errorf("collinear points: hull of %d vertices, want 2", len(h))
+		}
+	}
+}
+
+func TestSweepGroundMode(t *testing.T) {
+	el := transform(nacaElement(t, "4412", 100), 5, 1, model.Point{})
+	s := mustSystem(t, Config{Elements: []Element{el}, Ground: true, GroundY: -0.2})
+	sw := s.Sweep([]float64{0})[0]
+	sol := s.Solve(0)
+	if math.Abs(sw.Cl-sol.Cl) > 1e-12 || math.Abs(sw.CpMin-sol.Elements[0].CpMin) > 1e-12 || sw.XCpMin != sol.Elements[0].XCpMin {
+		t.Errorf("ground sweep %+v, Solve Cl %g CpMin %g at %g", sw, sol.Cl, sol.Elements[0].CpMin, sol.Elements[0].XCpMin)
 	}
 }

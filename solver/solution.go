@@ -94,6 +94,7 @@ type Solution struct {
 	sys    *System
 	g      []float64   // all nodal strengths, element after element
 	forces []elemForce // each element's pressure force and moment
+	lazy   *lazyField  // velocity field, built on first use
 }
 
 // Coefficients are the integrated results of one angle in a sweep.

@@ -169,6 +169,7 @@ type System struct {
 	vt0      []float64 // panel Vt for the unit solutions
 	vt90     []float64
 	forces   []elemQuad
+	hull     []hullVertex // of ±(vt0_j, vt90_j), for CpMin in sweeps
 }
 
 // NewSystem validates cfg, assembles and factorises the influence matrix of
@@ -522,10 +523,11 @@ func (s *System) Solve(alphaDeg float64) *Solution {
 	return s.solution(alphaDeg, c, sn, g)
 }
 
-// Sweep returns the integrated coefficients at each angle (degrees). It
-// costs O(N) per angle on top of the factorised system: lift and moment
-// come from precomputed quadratic forms in (cos α, sin α), CpMin from one
-// pass over the panels. In ground mode every angle must be 0.
+// Sweep returns the integrated coefficients at each angle (degrees). On top
+// of the factorised system it costs O(1) per angle for lift and moment
+// (precomputed quadratic forms in cos α and sin α) and a scan of a convex
+// hull of a few dozen points for CpMin (forces.go), so a sweep of tens of
+// angles costs about one Solve. In ground mode every angle must be 0.
 func (s *System) Sweep(alphaDeg []float64) []Coefficients {
 	out := make([]Coefficients, len(alphaDeg))
 	for i, a := range alphaDeg {

@@ -1,0 +1,170 @@
+package solver
+
+import (
+	"fmt"
+	"testing"
+
+	"sectionbench/model"
+)
+
+// Benchmarks of the panel method's stages on NACA 2412 (cosine spacing) at
+// N = 100, 200, 400 and 800 panels. Run with
+//
+//	go test -run '^$' -bench . -benchmem ./solver/
+//
+// Targets at N = 200 on the project's 2-core machine (medians):
+// NewSystemSolve (assembly + factorisation + solve) < 1.5 ms; a 41-angle
+// sweep < 1.3 × one solve; the 200 × 150 velocity field < 40 ms.
+
+var benchPanels = []int{100, 200, 400, 800}
+
+func benchConfig(b *testing.B, n int) Config {
+	return Config{Elements: []Element{nacaElement(b, "2412", n)}}
+}
+
+// sweep41 is −10° to 10° in steps of 0.5°.
+func sweep41() []float64 {
+	a := make([]float64, 41)
+	for i := range a {
+		a[i] = -10 + 0.5*float64(i)
+	}
+	return a
+}
+
+func forPanels(b *testing.B, f func(b *testing.B, cfg Config)) {
+	for _, n := range benchPanels {
+		b.Run(fmt.Sprintf("N=%d", n), func(b *testing.B) { f(b, benchConfig(b, n)) })
+	}
+}
+
+func BenchmarkAssemble(b *testing.B) {
+	forPanels(b, func(b *testing.B, cfg Config) {
+		g, err := newGeometry(cfg)
+		if err != nil {
+			b.Fatal(err)
+		}
+		for b.Loop() {
+			g.assemble()
+		}
+	})
+}
+
+func BenchmarkFactorize(b *testing.B) {
+	forPanels(b, func(b *testing.B, cfg Config) {
+		g, err := newGeometry(cfg)
+		if err != nil {
+			b.Fatal(err)
+		}
+		a, _ := g.assemble()
+		s := &System{geo: g}
+		for b.Loop() {
+			s.warnings = s.warnings[:0]
+			if err := s.factorize(a); err != nil {
+				b.Fatal(err)
+			}
+		}
+	})
+}
+
+// BenchmarkNewSystem is validation, assembly, factorisation and the two
+// unit solves.
+func BenchmarkNewSystem(b *testing.B) {
+	forPanels(b, func(b *testing.B, cfg Config) {
+		for b.Loop() {
+			if _, err := NewSystem(cfg); err != nil {
+				b.Fatal(err)
+			}
+		}
+	})
+}
+
+// BenchmarkNewSystemSolve is one complete solve from geometry: NewSystem
+// and Solve at one angle, with the full per-panel results.
+func BenchmarkNewSystemSolve(b *testing.B) {
+	forPanels(b, func(b *testing.B, cfg Config) {
+		for b.Loop() {
+			s, err := NewSystem(cfg)
+			if err != nil {
+				b.Fatal(err)
+			}
+			s.Solve(4)
+		}
+	})
+}
+
+// BenchmarkNewSystemSweep41 is a 41-angle sweep from geometry, to compare
+// with BenchmarkNewSystemSolve.
+func BenchmarkNewSystemSweep41(b *testing.B) {
+	alphas := sweep41()
+	forPanels(b, func(b *testing.B, cfg Config) {
+		for b.Loop() {
+			s, err := NewSystem(cfg)
+			if err != nil {
+				b.Fatal(err)
+			}
+			s.Sweep(alphas)
+		}
+	})
+}
+
+// BenchmarkSolve is Solve at one angle on a factorised system.
+func BenchmarkSolve(b *testing.B) {
+	forPanels(b, func(b *testing.B, cfg Config) {
+		s := mustSystem(b, cfg)
+		for b.Loop() {
+			s.Solve(4)
+		}
+	})
+}
+
+// BenchmarkSweep41 is Sweep over 41 angles on a factorised system.
+func BenchmarkSweep41(b *testing.B) {
+	alphas := sweep41()
+	forPanels(b, func(b *testing.B, cfg Config) {
+		s := mustSystem(b, cfg)
+		for b.Loop() {
+			s.Sweep(alphas)
+		}
+	})
+}
+
+// fieldGrid returns an nx × ny grid over r.
+func fieldGrid(r Rect, nx, ny int) []model.Point {
+	pts := make([]model.Point, 0, nx*ny)
+	for j := range ny {
+		for i := range nx {
+			pts = append(pts, model.Point{
+				X: r.Min.X + (r.Max.X-r.Min.X)*float64(i)/float64(nx-1),
+				Y: r.Min.Y + (r.Max.Y-r.Min.Y)*float64(j)/float64(ny-1),
+			})
+		}
+	}
+	return pts
+}
+
+// BenchmarkField200x150 is the velocity on a 200 × 150 grid over
+// DefaultBounds, including the Solve that precedes it and the cluster tree
+// the first velocity evaluation of a Solution builds.
+func BenchmarkField200x150(b *testing.B) {
+	forPanels(b, func(b *testing.B, cfg Config) {
+		s := mustSystem(b, cfg)
+		pts := fieldGrid(DefaultBounds(cfg), 200, 150)
+		u, v := make([]float64, len(pts)), make([]float64, len(pts))
+		in := make([]bool, len(pts))
+		for b.Loop() {
+			s.Solve(4).Velocity(pts, u, v, in)
+		}
+	})
+}
+
+// BenchmarkStreamlines is the default streamline set (DefaultSeeds seeded
+// lines and the dividing streamline) over DefaultBounds, including Solve
+// and the field's tree.
+func BenchmarkStreamlines(b *testing.B) {
+	forPanels(b, func(b *testing.B, cfg Config) {
+		s := mustSystem(b, cfg)
+		for b.Loop() {
+			s.Solve(4).Streamlines(StreamOptions{})
+		}
+	})
+}
