@@ -363,3 +363,34 @@ func WriteFigure(w io.Writer, v View, sc *Scene, format string, widthIn, heightI
 	_, err = cv.WriteTo(w)
 	return err
 }
+
+// NewScene returns the scene of an engine result for study st (which may
+// be nil): geometry, solution, sweep, streamlines, boundary layer and pins,
+// the angle of attack, ground and mounting. Element is −1 (all elements);
+// the caller sets Window, SpeedColour and Dark.
+func NewScene(r *solver.Result, st *model.Study) *Scene {
+	if r == nil {
+		panic("export: nil result")
+	}
+	sc := &Scene{
+		Layout: r.Layout, Solution: r.Solution, Sweep: r.Sweep, SweepViscous: r.SweepViscous,
+		Streamlines: r.Streamlines, Viscous: r.Viscous, Element: -1,
+	}
+	if len(r.Config.Elements) > 0 {
+		cfg := r.Config
+		sc.Config = &cfg
+		sc.Ground, sc.GroundY = cfg.Ground, cfg.GroundY
+	}
+	if r.Solution != nil {
+		sc.AlphaDeg = r.Solution.AlphaDeg
+	}
+	if r.Layout != nil {
+		sc.Inverted = r.Layout.Inverted
+	}
+	if st != nil {
+		sc.Pins = st.Pins
+		sc.AlphaDeg = st.Flow.AlphaDeg
+		sc.Inverted = st.Inverted
+	}
+	return sc
+}

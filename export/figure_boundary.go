@@ -115,18 +115,21 @@ func boundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		}
 		p := newPlot(th, "", xl, q.label)
 		p.Y.Label.TextStyle.Font.Size = vg.Points(9)
+		var lines []plotter.XYs
 		for _, s := range []struct {
 			bl  solver.SurfaceBL
 			sty draw.LineStyle
 		}{{eb.Upper, upSty}, {eb.Lower, loSty}} {
 			if xys := surfaceXYs(s.bl.XC, q.get(s.bl), q.scale); len(xys) > 1 {
 				p.Add(newLine(xys, s.sty))
+				lines = append(lines, xys)
 			}
 		}
 		blMarks(p, th, eb.Upper, th.upper, qi == 2, "upper")
 		blMarks(p, th, eb.Lower, th.lower, qi == 3, "lower")
 		if qi == 0 {
 			k := newKey(th, keyTopLeft)
+			k.keep(lines...)
 			k.add("upper surface", legendLine{upSty})
 			k.add("lower surface", legendLine{loSty})
 			p.Add(k)

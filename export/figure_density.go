@@ -76,6 +76,7 @@ func densityPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 				xc = append(xc, plotter.XY{X: float64(r.Panels), Y: tw.toLeft(p, r.CpMin)})
 			}
 		}
+		k.keep(xl, xc)
 		p.Add(newLine(xl, lineStyle(c, widthNormal, nil)), newScatter(xl, c, glyphSmall, draw.CircleGlyph{}))
 		p.Add(newLine(xc, lineStyle(c, widthThin, dashLower)), newScatter(xc, c, glyphSmall, draw.SquareGlyph{}))
 		k.add(fmt.Sprintf("nose %.2f: Cl", nose), legendLine{lineStyle(c, widthNormal, nil)})

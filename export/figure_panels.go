@@ -149,6 +149,7 @@ func panelsPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	ns := newScatter(nodes, th.node, glyphSmall, draw.CircleGlyph{})
 	cs := newScatter(ctrl, th.control, glyphSmall, draw.CrossGlyph{})
 	p.Add(ns, cs)
+	k.keep(nodes)
 	k.add("nodes", ns)
 	k.add("control points", cs)
 	if sc.Ground {

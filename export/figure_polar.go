@@ -155,6 +155,7 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			pl[i] = plotter.XY{X: r[0], Y: r[1]}
 			pm[i] = plotter.XY{X: r[0], Y: tw.toLeft(p, r[2])}
 		}
+		k.keep(pl, pm)
 		p.Add(newLine(pl, lineStyle(c, widthNormal, dashPin)), newLine(pm, lineStyle(c, widthThin, dashPin)))
 		k.add("pin: "+pin.Label, legendLine{lineStyle(c, widthNormal, dashPin)})
 	}
@@ -163,6 +164,7 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		xl[i] = plotter.XY{X: c.AlphaDeg, Y: c.Cl}
 		xm[i] = plotter.XY{X: c.AlphaDeg, Y: tw.toLeft(p, c.Cm)}
 	}
+	k.keep(xl, xm)
 	p.Add(newLine(xl, clSty), newScatter(xl, th.upper, glyphSmall, draw.CircleGlyph{}))
 	p.Add(newLine(xm, cmSty), newScatter(xm, th.second, glyphSmall, draw.SquareGlyph{}))
 	k.add("Cl (left axis)", legendLine{clSty})

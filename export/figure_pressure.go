@@ -118,6 +118,7 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			if pc.Side == solver.Lower.String() {
 				dash = dashLower
 			}
+			k.keep(xys)
 			l := newLine(xys, lineStyle(c, widthNormal, dash))
 			p.Add(l)
 			if !added {
@@ -142,6 +143,7 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 				lo = append(lo, q)
 			}
 		}
+		k.keep(up, lo)
 		if len(up) > 0 {
 			p.Add(newLine(up, upSty))
 		}
@@ -165,6 +167,7 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	ms := newScatter(mins, th.accent, glyphMarker, draw.CircleGlyph{})
 	ss := newScatter(stags, th.fg, glyphMarker, draw.TriangleGlyph{})
 	p.Add(ms, ss)
+	k.keep(mins, stags)
 	k.add("upper surface", legendLine{upSty})
 	k.add("lower surface", legendLine{loSty})
 	k.add("minimum Cp", ms)

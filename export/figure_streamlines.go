@@ -115,6 +115,7 @@ func streamlinesPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		poly.Color = th.bodyFill
 		poly.LineStyle = lineStyle(th.body, widthNormal, nil)
 		polys = append(polys, poly)
+		k.keep(xys)
 	}
 	bodyExt := e
 	speedLo, speedHi := math.Inf(1), math.Inf(-1)
@@ -155,6 +156,7 @@ func streamlinesPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			sty, hasDiv = divSty, true
 		}
 		p.Add(&clippedLine{xys: xys, style: sty})
+		k.keep(xys)
 	}
 	if hasDiv {
 		k.add("dividing streamline", legendLine{divSty})

@@ -309,10 +309,14 @@ const (
 // that it stays readable over curves.
 type key struct {
 	entries []keyEntry
-	corner  int
+	corner  int // preferred corner
 	text    text.Style
 	bg      color.Color
 	border  color.Color
+	// avoid holds the data the key should not cover: it goes to the corner
+	// whose box covers the fewest of these points, the preferred corner
+	// on a tie.
+	avoid []plotter.XYs
 }
 
 type keyEntry struct {
@@ -328,13 +332,73 @@ func (k *key) add(label string, t plot.Thumbnailer) {
 	k.entries = append(k.entries, keyEntry{label, t})
 }
 
+// keep registers data the key should not cover.
+func (k *key) keep(xys ...plotter.XYs) { k.avoid = append(k.avoid, xys...) }
+
+// keyRect returns the key's box of size w × h in corner of c.
+func keyRect(c draw.Canvas, corner int, w, h vg.Length) vg.Rectangle {
+	var x0, y1 vg.Length
+	switch corner {
+	case keyTopRight:
+		x0, y1 = c.Max.X-keyMargin-w, c.Max.Y-keyMargin
+	case keyTopLeft:
+		x0, y1 = c.Min.X+keyMargin, c.Max.Y-keyMargin
+	case keyBottomRight:
+		x0, y1 = c.Max.X-keyMargin-w, c.Min.Y+keyMargin+h
+	default:
+		x0, y1 = c.Min.X+keyMargin, c.Min.Y+keyMargin+h
+	}
+	return vg.Rectangle{Min: vg.Point{X: x0, Y: y1 - h}, Max: vg.Point{X: x0 + w, Y: y1}}
+}
+
+// bestCorner returns the corner whose box covers the fewest avoided
+// points, the preferred corner on a tie.
+func (k *key) bestCorner(c draw.Canvas, p *plot.Plot, w, h vg.Length) int {
+	if len(k.avoid) == 0 {
+		return k.corner
+	}
+	trX, trY := p.Transforms(&c)
+	best, bestN := k.corner, -1
+	for _, corner := range []int{k.corner, keyTopRight, keyTopLeft, keyBottomRight, keyBottomLeft} {
+		r := keyRect(c, corner, w, h)
+		in := func(x, y vg.Length) bool { return x >= r.Min.X && x <= r.Max.X && y >= r.Min.Y && y <= r.Max.Y }
+		n := 0
+		for _, xys := range k.avoid {
+			// Sparse curves (a sweep) are sampled along their segments.
+			sub := 1
+			if len(xys) < 100 {
+				sub = 12
+			}
+			for i, q := range xys {
+				x, y := trX(q.X), trY(q.Y)
+				if in(x, y) {
+					n++
+				}
+				if i+1 < len(xys) && sub > 1 {
+					x1, y1 := trX(xys[i+1].X), trY(xys[i+1].Y)
+					for j := 1; j < sub; j++ {
+						f := vg.Length(j) / vg.Length(sub)
+						if in(x+f*(x1-x), y+f*(y1-y)) {
+							n++
+						}
+					}
+				}
+			}
+		}
+		if bestN < 0 || n < bestN {
+			best, bestN = corner, n
+		}
+	}
+	return best
+}
+
 const (
 	keyThumb  = vg.Length(18)
 	keyPad    = vg.Length(4)
 	keyMargin = vg.Length(5)
 )
 
-func (k *key) Plot(c draw.Canvas, _ *plot.Plot) {
+func (k *key) Plot(c draw.Canvas, p *plot.Plot) {
 	if len(k.entries) == 0 {
 		return
 	}
@@ -345,18 +409,8 @@ func (k *key) Plot(c draw.Canvas, _ *plot.Plot) {
 	}
 	w := keyPad + keyThumb + keyPad + tw + keyPad
 	h := 2*keyPad + lh*vg.Length(len(k.entries))
-	var x0, y1 vg.Length
-	switch k.corner {
-	case keyTopRight:
-		x0, y1 = c.Max.X-keyMargin-w, c.Max.Y-keyMargin
-	case keyTopLeft:
-		x0, y1 = c.Min.X+keyMargin, c.Max.Y-keyMargin
-	case keyBottomRight:
-		x0, y1 = c.Max.X-keyMargin-w, c.Min.Y+keyMargin+h
-	default:
-		x0, y1 = c.Min.X+keyMargin, c.Min.Y+keyMargin+h
-	}
-	r := vg.Rectangle{Min: vg.Point{X: x0, Y: y1 - h}, Max: vg.Point{X: x0 + w, Y: y1}}
+	r := keyRect(c, k.bestCorner(c, p, w, h), w, h)
+	x0, y1 := r.Min.X, r.Max.Y
 	c.SetColor(k.bg)
 	c.Fill(r.Path())
 	c.SetLineStyle(lineStyle(k.border, widthThin, nil))

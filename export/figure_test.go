@@ -260,17 +260,6 @@ func TestTwinAxisMap(t *testing.T) {
 	}
 }
 
-func BenchmarkRenderFourViews(b *testing.B) {
-	sc := synthScene()
-	for b.Loop() {
-		for _, v := range []View{ViewPanels, ViewPressure, ViewStreamlines, ViewPolar} {
-			if _, err := Render(v, sc, 600, 400, 96); err != nil {
-				b.Fatal(err)
-			}
-		}
-	}
-}
-
 // figureDir, when set, makes TestWriteFigureFiles write every view of the
 // synthetic scene as PNG there, for looking at.
 var figureDir = flag.String("figures", "", "write the synthetic scene's figures as PNG to this directory")
