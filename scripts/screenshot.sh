@@ -10,6 +10,7 @@
 #   SHOT_WAIT=8        seconds to let the first solve and render settle
 #   SHOT_TIMEOUT=60    seconds to wait for the window before giving up
 #   SHOT_NAME=main     base name of the PNG files
+#   SHOT_BIN=path      use this sectionbench binary instead of building one
 #
 # Needs xvfb (Xvfb), xdotool, imagemagick (import, convert) and the Fyne
 # build dependencies (libgl1-mesa-dev, xorg-dev). Exits non-zero if the
@@ -31,8 +32,12 @@ root=$(cd "$(dirname "$0")/.." && pwd)
 mkdir -p "$out"
 out=$(cd "$out" && pwd)
 bin=$(mktemp -d)/sectionbench
-echo "building cmd/sectionbench…" >&2
-(cd "$root" && go build -o "$bin" ./cmd/sectionbench)
+if [ -n "${SHOT_BIN:-}" ]; then
+	cp "$SHOT_BIN" "$bin"
+else
+	echo "building cmd/sectionbench…" >&2
+	(cd "$root" && go build -o "$bin" ./cmd/sectionbench)
+fi
 
 # The screen is the window size times the scale, plus room for decorations.
 w=$(awk -v s="$scale" 'BEGIN { printf "%d", 1280 * s + 64 }')

@@ -23,7 +23,7 @@ type plotView struct {
 func newPlotView(kind viewKind, act *activity, onEnlarge func(viewKind)) *plotView {
 	v := &plotView{kind: kind, canvas: newPlotCanvas(kind, act)}
 	v.readout = widget.NewLabel("")
-	v.readout.Importance = widget.LowImportance
+	v.readout.TextStyle = fyne.TextStyle{Monospace: true}
 	v.canvas.onHover = func(s string) { v.readout.SetText(s) }
 	v.enlarge = widget.NewButtonWithIcon("", theme.ViewFullScreenIcon(), func() { onEnlarge(kind) })
 	v.enlarge.Importance = widget.LowImportance

@@ -290,7 +290,9 @@ func (p *plotCanvas) Scrolled(e *fyne.ScrollEvent) {
 	if !ok {
 		return
 	}
-	p.ZoomBy(math.Pow(zoomStep, -float64(e.Scrolled.DY)/wheelNotch), x, y)
+	// One event zooms one step at most, however fast the wheel spins.
+	steps := max(-1, min(1, -float64(e.Scrolled.DY)/wheelNotch))
+	p.ZoomBy(math.Pow(zoomStep, steps), x, y)
 }
 
 // Dragged pans the Panels view.
