@@ -6,6 +6,7 @@ package ui
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"io"
 
@@ -133,4 +134,19 @@ func writeCpTable(w io.Writer, res *engineResult) error { return export.WriteCpT
 
 func writeSweepTable(w io.Writer, sweep []solver.Coefficients) error {
 	return export.WriteSweepTable(w, sweep, nil)
+}
+
+func writeReport(w io.Writer, st *model.Study, res *engineResult, fileName, version string) error {
+	// TODO(stub): report.Write once export/report compiles.
+	return errors.New("the team report is not available in this build yet")
+}
+
+// recovered runs f, turning a panic into an error.
+func recovered(f func() error) (err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			err = fmt.Errorf("internal error: %v", r)
+		}
+	}()
+	return f()
 }

@@ -8,6 +8,7 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/widget"
 )
 
 // Size of exported figures: 6 × 4 in at 200 dpi reads well on a printed
@@ -22,6 +23,8 @@ const (
 // a folder the user picks, through one export call per file.
 func (w *Workbench) exportItems() []*fyne.MenuItem {
 	return []*fyne.MenuItem{
+		fyne.NewMenuItem("Team report (PDF)…", func() { w.exportTo(w.writeReport) }),
+		fyne.NewMenuItemSeparator(),
 		fyne.NewMenuItem("Figures (PNG)…", func() { w.exportTo(w.writeFigures("png")) }),
 		fyne.NewMenuItem("Figures (SVG)…", func() { w.exportTo(w.writeFigures("svg")) }),
 		fyne.NewMenuItem("Figures (PDF)…", func() { w.exportTo(w.writeFigures("pdf")) }),
@@ -42,12 +45,29 @@ func (w *Workbench) exportTo(write func(dir string) ([]string, error)) {
 		if u == nil {
 			return
 		}
-		files, err := write(u.Path())
-		if err != nil {
-			w.userError(err)
-			return
-		}
-		dialog.ShowInformation("Exported", "Wrote "+strings.Join(files, ", ")+"\nto "+u.Path(), w.win)
+		// Writing can take a few seconds (print-resolution figures): do it
+		// off the UI goroutine behind a busy dialog.
+		busy := dialog.NewCustomWithoutButtons("Exporting…", widget.NewProgressBarInfinite(), w.win)
+		busy.Show()
+		dir := u.Path()
+		w.ctl.act.add()
+		go func() {
+			defer w.ctl.act.done()
+			var files []string
+			err := recovered(func() error {
+				var err error
+				files, err = write(dir)
+				return err
+			})
+			fyne.Do(func() {
+				busy.Hide()
+				if err != nil {
+					w.userError(err)
+					return
+				}
+				dialog.ShowInformation("Exported", "Wrote "+strings.Join(files, ", ")+"\nto "+dir, w.win)
+			})
+		}()
 	}, w.win)
 	d.Resize(fyne.NewSize(900, 600))
 	d.Show()
@@ -80,6 +100,24 @@ func (w *Workbench) writeFigures(format string) func(dir string) ([]string, erro
 		}
 		return files, nil
 	}
+}
+
+func (w *Workbench) writeReport(dir string) ([]string, error) {
+	res, _, _ := w.ctl.Result()
+	if res == nil {
+		return nil, errNoResult
+	}
+	r := *res
+	r.Sweep = w.ctl.Sweep()
+	name := w.exportBase() + "-report.pdf"
+	st := w.ctl.Study()
+	file := filepath.Base(w.ctl.Path())
+	if w.ctl.Path() == "" {
+		file = "unsaved study"
+	}
+	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+		return writeReport(out, st, &r, file, w.app.Metadata().Version)
+	})
 }
 
 func (w *Workbench) writeCpTable(dir string) ([]string, error) {

@@ -240,6 +240,9 @@ func statusText(res *engineResult) string {
 		}
 		parts = append(parts, "min Cp "+fixed(e.CpMin, 2)+" at "+where)
 	}
+	if f := res.Forces; f != nil {
+		parts = append(parts, "downforce "+fixed(f.DownforcePerSpan, 1)+" N/m")
+	}
 	parts = append(parts, fmt.Sprintf("solve %d ms", res.Elapsed.Milliseconds()))
 	if n := len(s.Warnings); n > 0 {
 		parts = append(parts, fmt.Sprintf("%d solver warning%s", n, plural(n)))

@@ -1,6 +1,9 @@
 package ui
 
 import (
+	"bytes"
+	"image/png"
+	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -336,5 +339,72 @@ func TestCloseUpAndZoom(t *testing.T) {
 	w.WaitIdle()
 	if back, _ := p.window(); back != full {
 		t.Errorf("reset window %+v, want %+v", back, full)
+	}
+}
+
+func TestExportFiguresAndTables(t *testing.T) {
+	w := newTestBench(t)
+	dir := t.TempDir()
+	files, err := w.writeFigures("png")(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	more, err := w.writeCpTable(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sweep, err := w.writeSweepTable(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	files = append(append(files, more...), sweep...)
+	if len(files) != int(numViews)+2 {
+		t.Fatalf("wrote %v", files)
+	}
+	for _, f := range files {
+		b, err := os.ReadFile(filepath.Join(dir, f))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if strings.HasSuffix(f, ".png") {
+			img, err := png.Decode(bytes.NewReader(b))
+			if err != nil {
+				t.Errorf("%s: %v", f, err)
+				continue
+			}
+			// 6 × 4 in at 200 dpi.
+			if got := img.Bounds().Size(); got.X != figureWidthIn*figureDPI || got.Y != figureHeightIn*figureDPI {
+				t.Errorf("%s is %v px", f, got)
+			}
+		} else if n := bytes.Count(b, []byte("\n")); n < 10 {
+			t.Errorf("%s has %d lines", f, n)
+		}
+	}
+}
+
+func TestKarmanTrefftzSource(t *testing.T) {
+	w := newTestBench(t)
+	w.controls.ktX.SetText("-0.1")
+	w.controls.ktY.SetText("0.1")
+	w.controls.ktTau.SetText("10")
+	w.controls.useKT()
+	res := current(t, w)
+	if got := w.ctl.Study().Elements[0].Section.Spec; got != "kt:-0.1,0.1,10" {
+		t.Errorf("section is %q", got)
+	}
+	if w.controls.naca.Text != "" {
+		t.Errorf("NACA entry still says %q for a Kármán–Trefftz section", w.controls.naca.Text)
+	}
+	// A centre right of the origin is not a section: message, no change.
+	w.controls.ktX.SetText("0.2")
+	w.controls.useKT()
+	if w.controls.ktMsg.Hidden {
+		t.Error("invalid Kármán–Trefftz centre shows no message")
+	}
+	if got := w.ctl.Study().Elements[0].Section.Spec; got != "kt:-0.1,0.1,10" {
+		t.Errorf("invalid parameters changed the section to %q", got)
+	}
+	if r := current(t, w); r != res {
+		t.Error("invalid parameters triggered a solve")
 	}
 }
