@@ -134,7 +134,7 @@ const (
 type CleanWarning struct {
 	Kind    WarningKind
 	Index   int     // zero-based point of the cleaned section, -1 if none
-	X       float64 // x/c of the point, in the cleaned section
+	X       float64 // x/c of the point along the chord of the cleaned section
 	Message string
 }
 
@@ -334,12 +334,10 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	if !(chordQ > 1e-6) {
 		return fail(-1, fmt.Errorf("the leading edge coincides with the trailing edge: %w", ErrFlatContour))
 	}
+	// The steps below work in the derotated frame (chord along +x); without
+	// Derotate the result is turned back at the end.
 	theta := math.Atan2(teMid.Y-le.Y, teMid.X-le.X)
-	rot := -theta
-	if !opt.Derotate {
-		rot = 0
-	}
-	sin, cos := math.Sincos(rot)
+	sin, cos := math.Sincos(-theta)
 	out := make([]Point, len(cont))
 	for i, p := range cont {
 		d := p.Sub(le).Scale(1 / chordQ)
@@ -413,13 +411,20 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 				out[i] = out[i].Add(d.Scale(s * s * (3 - 2*s)))
 			}
 		}
-		blend(1, leIdx, 1, out[0])
-		blend(last-1, leIdx, -1, out[last])
+		if leIdx > 0 && leIdx < last {
+			blend(1, leIdx, 1, out[0])
+			blend(last-1, leIdx, -1, out[last])
+		}
 		out[0], out[last] = mid, mid
 		rep.Changes = append(rep.Changes, fmt.Sprintf("closed the trailing-edge gap of %.4g%% of the chord: both trailing-edge points moved to their midpoint, the surfaces blended into it over the last %g%% of the chord", 100*rep.TEGap, 100*TECloseBlend))
 	}
 
 	rep.Warnings = append(rep.Warnings, sectionWarnings(out, leIdx, rep.TEGap, opt.CloseTE)...)
+	if !opt.Derotate {
+		for i, p := range out {
+			out[i] = p.Rotate(Point{}, theta)
+		}
+	}
 	sec, err := NewSection(name, out)
 	if err != nil {
 		return fail(-1, err)

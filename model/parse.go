@@ -441,7 +441,7 @@ func (p *parser) scan(lines []string) error {
 			continue
 		}
 		if header == nil {
-			hf := splitFields(ln, " \t,;", nil)
+			hf := splitFields(stripInline(ln), " \t,;", nil)
 			if x, y, ok := headerColumns(hf); ok {
 				header, headLine, ix, iy = hf, num, x, y
 				continue
@@ -450,11 +450,9 @@ func (p *parser) scan(lines []string) error {
 		leading = append(leading, raw{num, ln})
 	}
 	if len(data) == 0 {
-		what := "no coordinate lines"
-		if len(leading) > 0 || p.comments > 0 {
+		what := "only blank lines"
+		if len(leading) > 0 || p.comments > 0 || header != nil {
 			what = "only text and comments, no coordinate lines"
-		} else {
-			what = "only blank lines"
 		}
 		return p.errAt(0, 0, fmt.Errorf("%s: %w", what, ErrEmpty))
 	}
