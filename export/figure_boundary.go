@@ -61,6 +61,7 @@ func surfaceXYs(xc, v []float64, scale float64) plotter.XYs {
 // blMarks draws the transition and separation positions of one surface as
 // vertical lines in the surface's colour, labelled when label is set.
 func blMarks(p *plot.Plot, th *theme, s solver.SurfaceBL, c color.Color, label bool, side string) {
+	drop := vg.Length(0)
 	for _, m := range []struct {
 		x    float64
 		name string
@@ -77,6 +78,8 @@ func blMarks(p *plot.Plot, th *theme, s solver.SurfaceBL, c color.Color, label b
 		if label {
 			r.label = fmt.Sprintf("%s %s %.2f", side, m.name, m.x)
 			r.labelSty = noteStyle(th, c, 7, text.XLeft, text.YTop)
+			r.drop = drop
+			drop += vg.Points(9)
 		}
 		p.Add(r)
 	}

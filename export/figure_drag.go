@@ -40,12 +40,12 @@ func dragPolarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			best, bestLD = i, ld
 		}
 	}
-	p := newPlot(th, fmt.Sprintf("Drag polar: best |Cl/Cd| %.1f at α = %.2f°", bestLD, rows[best][0]), "Cd (boundary-layer estimate)", "Cl")
+	p := newPlot(th, fmt.Sprintf("Drag polar: best |Cl/Cd| %.1f at α = %s°", bestLD, formatTick(rows[best][0], 2)), "Cd (boundary-layer estimate)", "Cl")
 	sty := lineStyle(th.upper, widthNormal, nil)
 	p.Add(newLine(xys, sty), newScatter(xys, th.upper, glyphSmall, draw.CircleGlyph{}))
 	b := plotter.XYs{xys[best]}
 	p.Add(newScatter(b, th.accent, glyphMarker, draw.RingGlyph{}))
-	p.Add(&note{x: b[0].X, y: b[0].Y, dx: vg.Points(6), text: fmt.Sprintf("α = %.2f°", rows[best][0]), style: noteStyle(th, th.accent, 8, text.XLeft, text.YCenter)})
+	p.Add(&note{x: b[0].X, y: b[0].Y, dx: vg.Points(6), text: fmt.Sprintf("α = %s°", formatTick(rows[best][0], 2)), style: noteStyle(th, th.accent, 8, text.XLeft, text.YCenter)})
 	p.X.Min = math.Min(p.X.Min, 0)
 	p.X.Min, p.X.Max = padRange(p.X.Min, p.X.Max, 0.04)
 	p.Y.Min, p.Y.Max = padRange(p.Y.Min, p.Y.Max, 0.06)
@@ -65,7 +65,7 @@ func liftToDragPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	p := newPlot(th, "Lift-to-drag ratio against α", "α, degrees", "Cl/Cd")
 	p.Add(newLine(xys, lineStyle(th.upper, widthNormal, nil)), newScatter(xys, th.upper, glyphSmall, draw.CircleGlyph{}))
 	p.Add(&refLine{value: sc.AlphaDeg, vertical: true, style: lineStyle(th.accent, widthThin, dashRef),
-		label: fmt.Sprintf("α = %.2f°", sc.AlphaDeg), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)})
+		label: fmt.Sprintf("α = %s°", formatTick(sc.AlphaDeg, 2)), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)})
 	p.Add(&refLine{value: 0, style: lineStyle(th.faint, widthThin, nil)})
 	p.X.Min, p.X.Max = padRange(p.X.Min, p.X.Max, 0.03)
 	p.Y.Min, p.Y.Max = padRange(p.Y.Min, p.Y.Max, 0.06)

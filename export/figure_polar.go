@@ -127,7 +127,7 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	}
 	title := "Polar: Cl and Cm against α"
 	if s := clSlope(alpha, cl); !math.IsNaN(s) {
-		title = fmt.Sprintf("Polar: Cl and Cm against α (mean lift slope %.4f per degree)", s)
+		title = fmt.Sprintf("Polar: Cl and Cm against α (mean lift slope %s per degree)", formatTick(s, 4))
 	}
 	ylabel := "Cl"
 	if sc.Inverted {
@@ -170,7 +170,7 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	k.add("Cl (left axis)", legendLine{clSty})
 	k.add("Cm (right axis)", legendLine{cmSty})
 	p.Add(&refLine{value: sc.AlphaDeg, vertical: true, style: lineStyle(th.accent, widthThin, dashRef),
-		label: fmt.Sprintf("α = %.2f°", sc.AlphaDeg), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)})
+		label: fmt.Sprintf("α = %s°", formatTick(sc.AlphaDeg, 2)), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)})
 	if s := sc.Solution; s != nil {
 		cur := plotter.XYs{{X: s.AlphaDeg, Y: s.Cl}}
 		curM := plotter.XYs{{X: s.AlphaDeg, Y: tw.toLeft(p, s.Cm)}}

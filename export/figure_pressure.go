@@ -81,12 +81,12 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		}
 		xlabel = "x/c (reference chord, from the foremost leading edge)"
 	}
-	title := fmt.Sprintf("Pressure: α = %.2f°, Cl = %.4f", sol.AlphaDeg, sol.Cl)
+	title := fmt.Sprintf("Pressure: α = %s°, Cl = %s", formatTick(sol.AlphaDeg, 2), formatTick(sol.Cl, 4))
 	if ab.perElement {
 		es := sol.Elements[shown[0]]
-		title = fmt.Sprintf("Pressure on %s: α = %.2f°, Cl = %.4f", es.Name, sol.AlphaDeg, es.Cl)
+		title = fmt.Sprintf("Pressure on %s: α = %s°, Cl = %s", es.Name, formatTick(sol.AlphaDeg, 2), formatTick(es.Cl, 4))
 		if len(sol.Elements) == 1 {
-			title = fmt.Sprintf("Pressure: α = %.2f°, Cl = %.4f", sol.AlphaDeg, es.Cl)
+			title = fmt.Sprintf("Pressure: α = %s°, Cl = %s", formatTick(sol.AlphaDeg, 2), formatTick(es.Cl, 4))
 		}
 	}
 	p := newPlot(th, title, xlabel, "Cp")
@@ -161,7 +161,7 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		if !ab.perElement {
 			name = es.Name + ": "
 		}
-		p.Add(&note{x: xmin, y: es.CpMin, dx: vg.Points(5), text: fmt.Sprintf("%sCp min %.3f at x/c %.3f", name, es.CpMin, es.XCpMin), style: noteSty})
+		p.Add(&note{x: xmin, y: es.CpMin, dx: vg.Points(5), text: fmt.Sprintf("%sCp min %s at x/c %.3f", name, formatTick(es.CpMin, 3), es.XCpMin), style: noteSty})
 		p.Add(&note{x: xst, y: cpStagnation, dx: vg.Points(5), dy: vg.Points(-2), text: fmt.Sprintf("stagnation x/c %.4f", es.Stagnation.XC), style: noteStyle(th, th.faint, 8, text.XLeft, text.YTop)})
 	}
 	ms := newScatter(mins, th.accent, glyphMarker, draw.CircleGlyph{})

@@ -93,7 +93,7 @@ func streamlinesPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	}
 	title := "Streamlines"
 	if sc.Solution != nil {
-		title = fmt.Sprintf("Streamlines: α = %.2f°", sc.Solution.AlphaDeg)
+		title = fmt.Sprintf("Streamlines: α = %s°", formatTick(sc.Solution.AlphaDeg, 2))
 	}
 	paths := sceneStreamlines(sc)
 	if sc.SpeedColour && len(paths) > 0 {

@@ -149,6 +149,7 @@ type refLine struct {
 	style    draw.LineStyle
 	label    string
 	labelSty text.Style
+	drop     vg.Length // moves a vertical line's label down, to stack labels
 }
 
 func (r *refLine) Plot(c draw.Canvas, p *plot.Plot) {
@@ -171,7 +172,7 @@ func (r *refLine) Plot(c draw.Canvas, p *plot.Plot) {
 	if r.label != "" {
 		pt := vg.Point{X: c.Min.X + vg.Points(4), Y: a.Y + vg.Points(2)}
 		if r.vertical {
-			pt = vg.Point{X: a.X + vg.Points(3), Y: c.Max.Y - vg.Points(3)}
+			pt = vg.Point{X: a.X + vg.Points(3), Y: c.Max.Y - vg.Points(3) - r.drop}
 		}
 		c.FillText(r.labelSty, pt, r.label)
 	}

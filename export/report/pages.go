@@ -1,0 +1,364 @@
+package report
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"sectionbench/export"
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+// Number formats of the report's tables. The tests format the solver's
+// numbers with the same functions and look for them in the PDF's text.
+
+// Coef formats a force or moment coefficient: four decimals.
+func Coef(v float64) string { return num(v, 4) }
+
+// Cp formats a pressure coefficient: three decimals.
+func Cp(v float64) string { return num(v, 3) }
+
+// XC formats a chord fraction: three decimals.
+func XC(v float64) string { return num(v, 3) }
+
+// num formats v with dec decimals, "n/a" for NaN and no negative zero.
+func num(v float64, dec int) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return "n/a"
+	}
+	s := strconv.FormatFloat(v, 'f', dec, 64)
+	if strings.Trim(s, "-0.") == "" {
+		return strings.TrimPrefix(s, "-")
+	}
+	return s
+}
+
+func mm(v float64) string { return num(v, 1) }
+
+// describe is the one-line description of the configuration.
+func describe(st *model.Study, l *model.Layout) string {
+	var b strings.Builder
+	names := make([]string, len(st.Elements))
+	for i, e := range st.Elements {
+		names[i] = e.Name
+	}
+	if len(names) == 1 {
+		fmt.Fprintf(&b, "Single element (%s)", names[0])
+	} else {
+		fmt.Fprintf(&b, "%d elements (%s)", len(names), strings.Join(names, ", "))
+	}
+	if st.Inverted {
+		b.WriteString(", inverted")
+	}
+	if st.Ground.Enabled {
+		fmt.Fprintf(&b, ", %s mm above the ground", mm(st.Ground.ClearanceMM))
+	} else {
+		b.WriteString(", free air")
+	}
+	fmt.Fprintf(&b, ", α = %s°, %d panels per element (%s spacing)", num(st.Flow.AlphaDeg, 2), st.Panelling.Panels, st.Panelling.Spacing)
+	if st.Flow.SpeedMPS > 0 {
+		fmt.Fprintf(&b, ", %s km/h", num(model.MpsToKmh(st.Flow.SpeedMPS), 0))
+	}
+	return b.String() + "."
+}
+
+func (r *writer) titlePage() {
+	p := r.pdf
+	st, res := r.in.Study, r.in.Result
+	p.AddPage()
+	p.SetFont(fontFamily, "B", titlePt)
+	p.MultiCell(0, 9, st.Name, "", "L", false)
+	p.SetFont(fontFamily, "", headingPt)
+	p.SetTextColor(70, 76, 84)
+	p.CellFormat(0, 7, "Wing-section study report", "", 1, "L", false, 0, "")
+	p.SetTextColor(0, 0, 0)
+	p.Ln(2)
+	p.SetFont(fontFamily, "", bodyPt)
+	for _, kv := range [][2]string{
+		{"Prepared by", orDash(r.in.Author)},
+		{"Date", r.in.Date.Format("2 January 2006")},
+		{"Study file", orDash(r.in.FileName)},
+		{"Application", "Sectionbench " + orDash(r.in.AppVersion)},
+	} {
+		p.SetFont(fontFamily, "B", bodyPt)
+		p.CellFormat(32, 5, kv[0], "", 0, "L", false, 0, "")
+		p.SetFont(fontFamily, "", bodyPt)
+		p.CellFormat(0, 5, kv[1], "", 1, "L", false, 0, "")
+	}
+	p.Ln(2)
+	r.box("Configuration", describe(st, res.Layout), [3]int{232, 239, 248})
+
+	r.heading("Inputs")
+	r.subheading("Elements")
+	rows := make([][]string, len(st.Elements))
+	for i, e := range st.Elements {
+		rows[i] = []string{e.Name, e.Section.String(), mm(e.ChordMM), mm(e.XMM) + ", " + mm(e.YMM), num(e.AngleDeg, 2)}
+	}
+	r.table([]string{"Element", "Section source", "Chord, mm", "Leading edge x, y, mm", "Angle, °"},
+		[]float64{1.1, 2.2, 0.9, 1.5, 0.8}, []string{"L", "L", "R", "R", "R"}, rows)
+	r.subheading("Panelling and flow")
+	pn := st.Panelling
+	lmin, lmax := panelLengths(res.Layout)
+	kv := [][2]string{
+		{"Panels per element", strconv.Itoa(pn.Panels)},
+		{"Spacing law, nose / tail clustering", fmt.Sprintf("%s, %s / %s", pn.Spacing, num(pn.Nose, 2), num(pn.Tail, 2))},
+		{"Panel length, smallest to largest", fmt.Sprintf("%s to %s mm", num(lmin*1000, 3), num(lmax*1000, 2))},
+		{"Angle of attack α (nose-up positive)", num(st.Flow.AlphaDeg, 2) + "°"},
+		{"Mounting", mounting(st)},
+		{"Ground", ground(st)},
+		{"Reference chord", mm(res.Layout.RefChordM*1000) + " mm"},
+		{"Moment reference (x, y)", mm(res.Layout.MomentRef.X*1000) + ", " + mm(res.Layout.MomentRef.Y*1000) + " mm"},
+	}
+	if st.Flow.SpeedMPS > 0 {
+		kv = append(kv, [2]string{"Speed", fmt.Sprintf("%s m/s (%s km/h)", num(st.Flow.SpeedMPS, 2), num(model.MpsToKmh(st.Flow.SpeedMPS), 1))})
+	}
+	if air, err := model.AirFromCelsius(st.Flow.TemperatureC, st.Flow.PressurePa); err == nil {
+		kv = append(kv, [2]string{"Air", fmt.Sprintf("%s °C, %s Pa: ρ = %s kg/m³, ν = %.4g m²/s",
+			num(st.Flow.TemperatureC, 1), num(st.Flow.PressurePa, 0), num(air.Density(), 4), air.KinematicViscosity())})
+	}
+	for i, re := range res.Reynolds {
+		if i < len(st.Elements) {
+			kv = append(kv, [2]string{"Reynolds number, " + st.Elements[i].Name, fmt.Sprintf("%.3g", re)})
+		}
+	}
+	if st.Viscous.Enabled {
+		kv = append(kv, [2]string{"Boundary-layer estimate", trips(st)})
+	}
+	r.keyValues(kv)
+
+	r.resultsSection()
+	r.box("Cautions", cautionText, [3]int{252, 240, 228})
+}
+
+func orDash(s string) string {
+	if strings.TrimSpace(s) == "" {
+		return "—"
+	}
+	return s
+}
+
+func mounting(st *model.Study) string {
+	if st.Inverted {
+		return "inverted (suction side towards the ground)"
+	}
+	return "upright"
+}
+
+func ground(st *model.Study) string {
+	if !st.Ground.Enabled {
+		return "off (free air)"
+	}
+	return fmt.Sprintf("on: %s mm below the lowest point, image method", mm(st.Ground.ClearanceMM))
+}
+
+func trips(st *model.Study) string {
+	s := "on, free transition"
+	if st.Viscous.TripUpper > 0 || st.Viscous.TripLower > 0 {
+		s = fmt.Sprintf("on, trips at x/c %s (upper), %s (lower)", XC(st.Viscous.TripUpper), XC(st.Viscous.TripLower))
+	}
+	return s
+}
+
+func panelLengths(l *model.Layout) (lmin, lmax float64) {
+	lmin = math.Inf(1)
+	for _, e := range l.Elements {
+		for i := 0; i+1 < len(e.Nodes); i++ {
+			d := e.Nodes[i].Dist(e.Nodes[i+1])
+			lmin, lmax = math.Min(lmin, d), math.Max(lmax, d)
+		}
+	}
+	return lmin, lmax
+}
+
+func (r *writer) resultsSection() {
+	st, res := r.in.Study, r.in.Result
+	sol := res.Solution
+	r.heading("Results")
+	r.subheading("Configuration")
+	kv := [][2]string{
+		{"Cl from circulation (Kutta–Joukowski)", Coef(sol.Cl)},
+		{"Cl from surface pressure", Coef(sol.ClPressure)},
+		{"Cm about the moment reference (nose-up positive)", Coef(sol.Cm)},
+	}
+	if st.Inverted {
+		kv = append(kv, [2]string{"Downforce coefficient −Cl (positive pushes the car down)", Coef(-sol.Cl)})
+	}
+	if v := res.Viscous; v != nil {
+		kv = append(kv, [2]string{"Cd, boundary-layer estimate (Squire–Young)", Coef(v.Cd)})
+	}
+	if f := res.Forces; f != nil {
+		kv = append(kv,
+			[2]string{"Dynamic pressure q", num(f.DynamicPressurePa, 1) + " Pa"},
+			[2]string{"Lift per metre of span (positive up)", num(f.LiftPerSpan, 1) + " N/m"},
+			[2]string{"Downforce per metre of span (= −lift)", num(f.DownforcePerSpan, 1) + " N/m"},
+			[2]string{"Pitching moment per metre of span", num(f.MomentPerSpan, 2) + " N·m/m"},
+		)
+		if !math.IsNaN(f.DragPerSpan) {
+			kv = append(kv, [2]string{"Drag per metre of span (estimate)", num(f.DragPerSpan, 2) + " N/m"})
+		}
+		if f.SpanM > 0 {
+			kv = append(kv, [2]string{fmt.Sprintf("Downforce over a %s m span (2-D, no end effects)", num(f.SpanM, 3)), num(f.DownforcePerSpan*f.SpanM, 1) + " N"})
+		}
+	}
+	r.keyValues(kv)
+	r.para("Signs: lift is positive up, away from the ground; downforce is −lift. Cm is positive nose-up. Cp = 1 − (V/U∞)², negative where the flow is faster than the freestream. Element coefficients are on the element's own chord, Cm about its own quarter chord; configuration coefficients are on the reference chord.")
+
+	r.subheading("Elements")
+	head := []string{"Element", "Cl (circ.)", "Cl (pressure)", "Cm (c/4)", "Cp min", "at x/c", "Stagnation x/c"}
+	widths := []float64{1.2, 1, 1.1, 1, 0.9, 0.8, 1.1}
+	align := []string{"L", "R", "R", "R", "R", "R", "R"}
+	var rows [][]string
+	for _, e := range sol.Elements {
+		rows = append(rows, []string{e.Name, Coef(e.Cl), Coef(e.ClPressure), Coef(e.Cm), Cp(e.CpMin), XC(e.XCpMin), XC(e.Stagnation.XC)})
+	}
+	r.table(head, widths, align, rows)
+	if v := res.Viscous; v != nil {
+		r.subheading("Boundary layer")
+		var rows [][]string
+		for _, e := range v.Elements {
+			rows = append(rows, []string{e.Name, Coef(e.Cd), XC(e.Upper.TransitionXC) + " / " + XC(e.Lower.TransitionXC),
+				XC(e.Upper.TurbulentSeparationXC) + " / " + XC(e.Lower.TurbulentSeparationXC), validity(e)})
+		}
+		r.table([]string{"Element", "Cd", "Transition x/c, upper / lower", "Separation x/c, upper / lower", "Estimate"},
+			[]float64{1, 0.8, 1.6, 1.6, 1.2}, []string{"L", "R", "R", "R", "L"}, rows)
+	}
+	var notes []string
+	notes = append(notes, sol.Warnings...)
+	if res.Viscous != nil {
+		notes = append(notes, res.Viscous.Notes...)
+	}
+	if st.Ground.Enabled || len(sol.Elements) > 1 {
+		notes = append(notes, caveatCirculation)
+	}
+	if st.Ground.Enabled {
+		notes = append(notes, caveatGround)
+	}
+	if len(notes) > 0 {
+		r.box("Notes on these results", strings.Join(notes, "\n"), [3]int{243, 244, 246})
+	}
+}
+
+func validity(e solver.ElementBL) string {
+	if e.Valid {
+		return "attached to the trailing edge"
+	}
+	return "separates: Cd not given"
+}
+
+func (r *writer) figurePages() {
+	sc := r.scene()
+	p := r.pdf
+	p.AddPage()
+	r.heading("Section and panels")
+	r.figure(export.ViewPanels, sc, "The configuration as solved, with panel nodes and control points (panel midpoints). Lengths in millimetres.", figureHMM)
+	l := r.in.Result.Layout
+	if len(l.Elements) > 0 {
+		size := 0.15 * l.Elements[0].Chord * 1000
+		le := *sc
+		le.Window = export.LEWindow(l, 0, size)
+		r.figure(export.ViewPanels, &le, fmt.Sprintf("Leading edge of %s, a %s mm window: nose panelling.", l.Elements[0].Name, num(size, 0)), figureHMM)
+	}
+	r.heading("Pressure and flow")
+	r.figure(export.ViewPressure, sc, "Pressure coefficient against chord position, negative up. Solid: upper surface; dashed: lower surface.", figureHMM)
+	r.figure(export.ViewStreamlines, sc, "Streamlines; the dividing streamline of each element is drawn bold.", figureHMM)
+}
+
+func (r *writer) sweepPage() {
+	res := r.in.Result
+	if len(res.Sweep) == 0 {
+		return
+	}
+	sc := r.scene()
+	r.pdf.AddPage()
+	r.heading("Sweep")
+	r.figure(export.ViewPolar, sc, "Cl (left axis) and Cm (right axis) against the angle of attack; the current angle is marked.", figureHMM)
+	head := []string{"α, °", "Cl", "Cl (pressure)", "Cm", "Cp min", "at x/c"}
+	widths := []float64{0.8, 1, 1.1, 1, 1, 0.9}
+	align := []string{"R", "R", "R", "R", "R", "R"}
+	vis := len(res.SweepViscous) == len(res.Sweep)
+	if vis {
+		head = append(head, "Cd", "Transition, upper / lower")
+		widths = append(widths, 0.9, 1.9)
+		align = append(align, "R", "R")
+	}
+	var rows [][]string
+	for i, c := range res.Sweep {
+		row := []string{num(c.AlphaDeg, 2), Coef(c.Cl), Coef(c.ClPressure), Coef(c.Cm), Cp(c.CpMin), XC(c.XCpMin)}
+		if vis {
+			v := res.SweepViscous[i]
+			row = append(row, Coef(v.Cd), XC(v.TransitionUpper)+" / "+XC(v.TransitionLower))
+		}
+		rows = append(rows, row)
+	}
+	r.table(head, widths, align, rows)
+	if vis {
+		r.figure(export.ViewDragPolar, sc, "Drag polar from the boundary-layer estimate; angles where a surface separates are left out.", figureHMM)
+	}
+}
+
+func (r *writer) viscousPage() {
+	v := r.in.Result.Viscous
+	if v == nil {
+		return
+	}
+	r.pdf.AddPage()
+	r.heading("Boundary layer")
+	for i, e := range v.Elements {
+		sc := r.scene()
+		sc.Element = i
+		r.figure(export.ViewBoundaryLayer, sc, fmt.Sprintf("Boundary layer on %s: momentum and displacement thickness, shape factor and skin friction; transition and separation marked.", e.Name), 110)
+	}
+}
+
+func (r *writer) densityPage() {
+	d := r.in.Density
+	if d == nil || len(d.Rows) == 0 {
+		return
+	}
+	r.pdf.AddPage()
+	r.heading("Panel density study")
+	r.figure(export.ViewDensity, r.scene(), "Cl and Cp min against the panel count for each nose clustering.", figureHMM)
+	var rows [][]string
+	for _, row := range d.Rows {
+		rows = append(rows, []string{strconv.Itoa(row.Panels), num(row.Nose, 2), Coef(row.Cl), Coef(row.Cm), Cp(row.CpMin), num(row.MinPanelLength*1000, 3)})
+	}
+	r.table([]string{"Panels", "Nose", "Cl", "Cm", "Cp min", "Smallest panel, mm"}, []float64{1, 1, 1, 1, 1, 1.4},
+		[]string{"R", "R", "R", "R", "R", "R"}, rows)
+	if d.RecommendedPanels > 0 {
+		r.para(fmt.Sprintf("Recommended: %d panels per element (the smallest count from which every finer count stays within the tolerances).", d.RecommendedPanels))
+	}
+}
+
+func (r *writer) methodsPage() {
+	r.pdf.AddPage()
+	r.heading("Methods")
+	r.para("Geometry. Each section is cleaned to unit chord (leading edge at the origin, trailing edge at x = 1), repanelled by the chosen spacing law, scaled to its chord and placed by its leading edge and setting angle. Inverted mounting mirrors the configuration about the horizontal so that the suction side faces the ground.")
+	r.para("Potential flow. The surface of every element carries a vortex sheet of linearly varying strength on straight panels (Katz & Plotkin, ch. 11); flow tangency is imposed at the panel midpoints and the Kutta condition at each trailing edge. In ground effect the ground is represented by the mirror image of the configuration with opposite circulation, which makes the ground a streamline; the configuration pitches about its reference point and the freestream stays parallel to the ground. Lift follows from the circulation (Kutta–Joukowski) and, as a check, from the integrated surface pressure; their difference indicates the discretisation error.")
+	r.para("Boundary layer (when enabled). From the inviscid surface speed: Thwaites' method for the laminar layer, Michel's criterion for transition, Head's entrainment method for the turbulent layer and the Squire–Young formula for the profile drag. The estimate is one-way: the boundary layer does not displace the outer flow, so Cl, Cm and Cp stay inviscid.")
+	r.para("Air. Density from the ideal-gas law with the constants of the U.S. Standard Atmosphere, 1976; viscosity from Sutherland's law.")
+	r.heading("References")
+	for _, ref := range references {
+		r.pdf.SetFont(fontFamily, "", bodyPt)
+		r.pdf.MultiCell(0, 4.6, ref, "", "L", false)
+		r.pdf.Ln(0.8)
+	}
+	r.pdf.Ln(2)
+	r.box("Limitations and cautions", limitations, [3]int{252, 240, 228})
+}
+
+var references = []string{
+	"Katz, J. and Plotkin, A., Low-Speed Aerodynamics, 2nd ed., Cambridge University Press, 2001.",
+	"Kuethe, A. M. and Chow, C.-Y., Foundations of Aerodynamics: Bases of Aerodynamic Design, 5th ed., Wiley, 1998.",
+	"Abbott, I. H. and von Doenhoff, A. E., Theory of Wing Sections, Dover, 1959.",
+	"Thwaites, B., Approximate calculation of the laminar boundary layer, Aeronautical Quarterly 1, 1949.",
+	"Head, M. R., Entrainment in the turbulent boundary layer, ARC R&M 3152, 1958.",
+	"Michel, R., Étude de la transition sur les profils d'aile, ONERA, 1951.",
+	"Squire, H. B. and Young, A. D., The calculation of the profile drag of aerofoils, ARC R&M 1838, 1938.",
+	"U.S. Standard Atmosphere, 1976, NOAA, NASA and USAF, U.S. Government Printing Office, Washington, 1976.",
+	"Sutherland, W., The viscosity of gases and molecular force, Philosophical Magazine 36, 1893.",
+}
+
+const limitations = "2-D potential-flow estimates; validate by test; structural design and mounting follow the competition's rules and qualified engineering review.\n" +
+	"The panel method assumes attached, incompressible, steady two-dimensional flow. It does not predict stall or maximum lift, and it overstates lift near and beyond separation. Ground effect is modelled with a fixed ground; a moving ground, wheels and the car's body change the flow. The boundary-layer estimate is sensitive to transition, which the criterion predicts only roughly; trips fix it where the test article has them. Check convergence with the panel density study before quoting a number."

@@ -1,0 +1,319 @@
+// Package report writes the PDF team report of a study: a title block,
+// the inputs and results tables, the figures, the sweep, the methods with
+// their references, and the cautions a team needs before it builds
+// anything from the numbers.
+//
+// Figures are drawn by package export and embedded as PNG images rendered
+// at FigureDPI. fpdf cannot place another PDF's vector pages, and its SVG
+// import draws paths but no text, so a figure's labels would be lost; a
+// 300 dpi raster prints as sharp as the printers a team uses and keeps
+// every figure exactly as the workbench draws it. Text and tables are real
+// PDF text in an embedded Unicode font (Liberation Sans), so they can be
+// searched and copied.
+package report
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+	"time"
+
+	"codeberg.org/go-fonts/liberation/liberationsansbold"
+	"codeberg.org/go-fonts/liberation/liberationsansitalic"
+	"codeberg.org/go-fonts/liberation/liberationsansregular"
+	"codeberg.org/go-pdf/fpdf"
+
+	"sectionbench/export"
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+// FigureDPI is the resolution figures are rendered at: print quality.
+const FigureDPI = 300
+
+// Page sizes Write accepts.
+const (
+	PageA4     = "A4"
+	PageLetter = "Letter"
+)
+
+// Input is everything a report shows.
+type Input struct {
+	Study  *model.Study
+	Result *solver.Result // at the study's angle of attack, with sweep, streamlines and boundary layer as run
+	// Density is a density study to report; nil leaves its page out.
+	Density *solver.DensityResult
+	// FileName is the study file's name, printed in every page's footer.
+	FileName string
+	// AppVersion is printed in the title block and the footer.
+	AppVersion string
+	// PageSize is PageA4 (the default when empty) or PageLetter.
+	PageSize string
+	// Author names who prepared the report; empty means the study's team.
+	Author string
+	// Date is the report's date; the zero value means now.
+	Date time.Time
+}
+
+// ErrInput is wrapped by Write's errors for input it cannot report.
+var ErrInput = errors.New("report: incomplete input")
+
+// Layout of the page, in millimetres.
+const (
+	marginMM          = 18
+	footerMM          = 12  // space kept for the footer
+	figureHMM         = 95  // height of a full-width figure
+	rowHMM            = 5.2 // table row height
+	bodyPt            = 9.5
+	tablePt           = 8.5
+	headingPt         = 12.5
+	titlePt           = 19
+	minSpaceMM        = 40 // a heading needs this much space below it on the page
+	maxUnsplitMM      = 90 // tables shorter than this are not split across pages
+	fontFamily        = "sans"
+	cautionText       = "These are two-dimensional potential-flow estimates, with an integral boundary-layer estimate where shown. They do not include three-dimensional effects (finite span, end plates, wheels and body), flow separation beyond its onset, unsteady flow or a moving ground. Validate by test before relying on them. Structural design, mounting and the wing's attachment to the car follow the competition's rules and qualified engineering review."
+	caveatCirculation = "With the ground or other elements present, Kutta–Joukowski lift from an element's own circulation is not the force on that element (it holds for a body alone in a uniform stream); the lift from surface pressure is. The two agree for the whole configuration only in free air."
+	caveatGround      = "Potential flow shows downforce rising as the wing nears the ground; real wings lose downforce close to the ground once the suction side separates."
+)
+
+// Write writes the report of in as a PDF to w. It returns an error
+// wrapping ErrInput when the study or its solution is missing, and the
+// errors of drawing the figures or writing the PDF.
+func Write(w io.Writer, in Input) error {
+	if in.Study == nil || in.Result == nil || in.Result.Solution == nil || in.Result.Layout == nil {
+		return fmt.Errorf("%w: a study with its solution and layout is needed", ErrInput)
+	}
+	size := in.PageSize
+	switch strings.ToLower(size) {
+	case "", "a4":
+		size = PageA4
+	case "letter":
+		size = PageLetter
+	default:
+		return fmt.Errorf("%w: page size %q (want A4 or Letter)", ErrInput, in.PageSize)
+	}
+	if in.Date.IsZero() {
+		in.Date = time.Now()
+	}
+	if in.Author == "" {
+		in.Author = in.Study.Team
+	}
+	r := &writer{in: in, pdf: fpdf.New("P", "mm", size, "")}
+	r.setup()
+	r.titlePage()
+	r.figurePages()
+	r.sweepPage()
+	r.viscousPage()
+	r.densityPage()
+	r.methodsPage()
+	if err := r.err(); err != nil {
+		return err
+	}
+	return r.pdf.Output(w)
+}
+
+// writer builds one report.
+type writer struct {
+	in     Input
+	pdf    *fpdf.Fpdf
+	figErr error
+	figN   int
+}
+
+func (r *writer) err() error {
+	if r.figErr != nil {
+		return r.figErr
+	}
+	return r.pdf.Error()
+}
+
+func (r *writer) setup() {
+	p := r.pdf
+	p.AddUTF8FontFromBytes(fontFamily, "", liberationsansregular.TTF)
+	p.AddUTF8FontFromBytes(fontFamily, "B", liberationsansbold.TTF)
+	p.AddUTF8FontFromBytes(fontFamily, "I", liberationsansitalic.TTF)
+	p.SetMargins(marginMM, marginMM, marginMM)
+	p.SetAutoPageBreak(true, marginMM+footerMM)
+	p.AliasNbPages("{nb}")
+	p.SetTitle(r.in.Study.Name+": section study report", true)
+	p.SetAuthor(r.in.Author, true)
+	p.SetCreator("Sectionbench "+r.in.AppVersion, true)
+	p.SetSubject("Two-dimensional wing-section study", true)
+	p.SetCreationDate(r.in.Date)
+	p.SetModificationDate(r.in.Date)
+	p.SetFooterFunc(func() {
+		_, ph := p.GetPageSize()
+		y := ph - marginMM - footerMM/2
+		p.SetDrawColor(160, 166, 173)
+		p.SetLineWidth(0.2)
+		p.Line(marginMM, y, r.width()+marginMM, y)
+		p.SetY(y + 1.5)
+		p.SetFont(fontFamily, "", 7.5)
+		p.SetTextColor(90, 96, 104)
+		name := r.in.FileName
+		if name == "" {
+			name = "(study not saved)"
+		}
+		third := r.width() / 3
+		p.CellFormat(third, 4, name, "", 0, "L", false, 0, "")
+		p.CellFormat(third, 4, "Sectionbench "+r.in.AppVersion, "", 0, "C", false, 0, "")
+		p.CellFormat(third, 4, fmt.Sprintf("Page %d of {nb}", p.PageNo()), "", 0, "R", false, 0, "")
+		p.SetTextColor(0, 0, 0)
+	})
+}
+
+// width is the text width of the page.
+func (r *writer) width() float64 {
+	w, _ := r.pdf.GetPageSize()
+	return w - 2*marginMM
+}
+
+// space is what is left above the footer on the current page.
+func (r *writer) space() float64 {
+	_, h := r.pdf.GetPageSize()
+	return h - marginMM - footerMM - r.pdf.GetY()
+}
+
+func (r *writer) need(mm float64) {
+	if r.space() < mm {
+		r.pdf.AddPage()
+	}
+}
+
+func (r *writer) heading(s string) {
+	r.need(minSpaceMM)
+	p := r.pdf
+	p.Ln(3)
+	p.SetFont(fontFamily, "B", headingPt)
+	p.CellFormat(0, 7, s, "", 1, "L", false, 0, "")
+	p.SetDrawColor(29, 79, 145)
+	p.SetLineWidth(0.4)
+	y := p.GetY()
+	p.Line(marginMM, y, marginMM+r.width(), y)
+	p.Ln(2)
+}
+
+func (r *writer) subheading(s string) {
+	r.need(20)
+	p := r.pdf
+	p.Ln(1)
+	p.SetFont(fontFamily, "B", bodyPt+0.5)
+	p.CellFormat(0, 5.5, s, "", 1, "L", false, 0, "")
+}
+
+func (r *writer) para(s string) {
+	p := r.pdf
+	p.SetFont(fontFamily, "", bodyPt)
+	p.MultiCell(0, 4.6, s, "", "L", false)
+	p.Ln(1)
+}
+
+// table writes a table with a shaded header row; align is one of "L", "R",
+// "C" per column. It breaks across pages, repeating the header.
+func (r *writer) table(head []string, widths []float64, align []string, rows [][]string) {
+	p := r.pdf
+	total := 0.0
+	for _, w := range widths {
+		total += w
+	}
+	scale := r.width() / total
+	header := func() {
+		p.SetFont(fontFamily, "B", tablePt)
+		p.SetFillColor(228, 232, 237)
+		p.SetDrawColor(190, 196, 204)
+		p.SetLineWidth(0.2)
+		for i, h := range head {
+			p.CellFormat(widths[i]*scale, rowHMM, h, "1", 0, align[i], true, 0, "")
+		}
+		p.Ln(-1)
+		p.SetFont(fontFamily, "", tablePt)
+	}
+	// A short table is kept on one page; a long one needs room for its
+	// header and a few rows.
+	if h := rowHMM * float64(len(rows)+1); h < maxUnsplitMM {
+		r.need(h + 2)
+	} else {
+		r.need(4 * rowHMM)
+	}
+	header()
+	for k, row := range rows {
+		if r.space() < rowHMM {
+			p.AddPage()
+			header()
+		}
+		fill := k%2 == 1
+		p.SetFillColor(246, 247, 249)
+		for i, c := range row {
+			p.CellFormat(widths[i]*scale, rowHMM, c, "1", 0, align[i], fill, 0, "")
+		}
+		p.Ln(-1)
+	}
+	p.Ln(2)
+}
+
+// keyValues writes a two-column table of names and values.
+func (r *writer) keyValues(rows [][2]string) {
+	t := make([][]string, len(rows))
+	for i, kv := range rows {
+		t[i] = []string{kv[0], kv[1]}
+	}
+	r.table([]string{"Quantity", "Value"}, []float64{1.45, 1.2}, []string{"L", "L"}, t)
+}
+
+// box writes text in a framed, tinted box.
+func (r *writer) box(title, text string, tint [3]int) {
+	p := r.pdf
+	p.SetFont(fontFamily, "", bodyPt)
+	lines := p.SplitText(text, r.width()-6)
+	h := 7 + 4.6*float64(len(lines)) + 3
+	r.need(h + 2)
+	x, y := p.GetX(), p.GetY()
+	p.SetFillColor(tint[0], tint[1], tint[2])
+	p.SetDrawColor(tint[0]*2/3, tint[1]*2/3, tint[2]*2/3)
+	p.SetLineWidth(0.4)
+	p.Rect(x, y, r.width(), h, "FD")
+	p.SetXY(x+3, y+2)
+	p.SetFont(fontFamily, "B", bodyPt+0.5)
+	p.CellFormat(r.width()-6, 5, title, "", 2, "L", false, 0, "")
+	p.SetX(x + 3)
+	p.SetFont(fontFamily, "", bodyPt)
+	p.MultiCell(r.width()-6, 4.6, text, "", "L", false)
+	p.SetXY(x, y+h+2)
+}
+
+// figure renders view v of sc and places it full width with a caption.
+func (r *writer) figure(v export.View, sc *export.Scene, caption string, heightMM float64) {
+	if r.figErr != nil {
+		return
+	}
+	const mmPerIn = 25.4
+	wmm := r.width()
+	var b bytes.Buffer
+	if err := export.WriteFigure(&b, v, sc, export.FormatPNG, wmm/mmPerIn, heightMM/mmPerIn, FigureDPI); err != nil {
+		if errors.Is(err, export.ErrNoData) {
+			return
+		}
+		r.figErr = fmt.Errorf("report: figure %v: %w", v, err)
+		return
+	}
+	r.need(heightMM + 10)
+	p := r.pdf
+	r.figN++
+	name := fmt.Sprintf("figure-%d", r.figN)
+	opt := fpdf.ImageOptions{ImageType: "PNG"}
+	p.RegisterImageOptionsReader(name, opt, &b)
+	p.ImageOptions(name, marginMM, p.GetY(), wmm, heightMM, false, opt, 0, "")
+	p.SetY(p.GetY() + heightMM + 1)
+	p.SetFont(fontFamily, "I", tablePt)
+	p.MultiCell(0, 4, fmt.Sprintf("Figure %d. %s", r.figN, caption), "", "L", false)
+	p.Ln(3)
+}
+
+// scene is the export scene of the report's result.
+func (r *writer) scene() *export.Scene {
+	sc := export.NewScene(r.in.Result, r.in.Study)
+	sc.Density = r.in.Density
+	return sc
+}
