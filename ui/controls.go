@@ -89,6 +89,9 @@ func friendly(err error) string {
 	}
 	var ne *model.NACAError
 	if errors.As(err, &ne) {
+		if ne.Pos >= 0 {
+			return fmt.Sprintf("Not a NACA designation: character %d %s", ne.Pos+1, ne.Reason)
+		}
 		return "Not a NACA designation: " + ne.Reason
 	}
 	return firstLine(err.Error())

@@ -9,6 +9,7 @@ import (
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/storage"
 	"fyne.io/fyne/v2/widget"
 )
@@ -100,7 +101,7 @@ func (w *Workbench) confirmDiscard(action string, then func()) {
 	discard := widget.NewButton(action+" without saving", func() { d.Hide(); then() })
 	cancel := widget.NewButton("Cancel", func() { d.Hide() })
 	d = dialog.NewCustomWithoutButtons("Unsaved changes",
-		container.NewVBox(msg, container.NewHBox(cancel, discard, save)), w.win)
+		container.NewVBox(msg, container.NewHBox(layout.NewSpacer(), cancel, discard, save)), w.win)
 	d.Show()
 }
 
