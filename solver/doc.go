@@ -4,6 +4,12 @@
 // boundary-layer estimate and the panel-density study. It imports model for
 // geometry; it has no GUI and does no file I/O.
 //
+// Results are two-dimensional potential-flow estimates. They leave out
+// separation, the wake's displacement and three-dimensional effects, so
+// they overstate lift near and beyond stall and say nothing about structural
+// loads: validate by test, and let the design and mounting of a wing follow
+// the competition's rules and qualified review.
+//
 // # Frames, units and signs
 //
 // Lengths are in whatever unit the geometry comes in (chord lengths for a
@@ -15,10 +21,12 @@
 // Each element's panel nodes run from the trailing edge over the upper
 // surface to the leading edge and back along the lower surface
 // (counter-clockwise, the body on the left). The vortex strength γ is given
-// at nodes, varies linearly along each panel and is continuous at nodes;
+// at nodes, varies linearly along each panel and is continuous at nodes; it
+// is positive clockwise, so a lifting element has positive circulation.
 // Panel.Vt, the surface velocity just outside the body, is signed positive
-// along the node ordering, so it is negative on the upper surface of a
-// lifting section and changes sign at the stagnation point.
+// along the node ordering and equals −γ (forces.go), so it is negative on
+// the upper surface of a lifting section and changes sign at the stagnation
+// point.
 //
 // Lift is positive perpendicular to the freestream, 90° counter-clockwise
 // from it (up for α = 0); the lift coefficient is Cl = L/(½ρU∞²c). Pitching
@@ -26,9 +34,36 @@
 // plane with x downstream), Cm = M/(½ρU∞²c²), about the quarter chord unless
 // a reference point is given. Cp = 1 − (V/U∞)².
 //
+// ElementSolution.Cl is the circulation lift 2Γ/(U∞c) (Kutta–Joukowski);
+// ClPressure integrates Cp. They agree for a lone element in free air. For
+// one element among several, or above the ground, the others and the images
+// induce velocity at the element and ClPressure is the force on it; the
+// configuration's circulation Cl is still its total lift in free air.
+//
+// # The method
+//
+// influence.go gives the closed-form velocity of a linear-strength vortex
+// panel (Katz & Plotkin, Low-Speed Aerodynamics, 2nd ed., 2001, sec.
+// 10.3.2); system.go assembles flow tangency at the panel midpoints and the
+// Kutta condition per element into one square system (Katz & Plotkin sec.
+// 11.4; Kuethe & Chow, Foundations of Aerodynamics, 5th ed., sec. 5.10),
+// factorises it once and solves for the freestreams at 0° and 90°, so any
+// angle is a superposition; ground effect uses mirror images. forces.go
+// turns γ into surface velocity, pressure, forces and sweeps; field.go
+// evaluates the velocity anywhere, with multipole expansions for distant
+// panels; streamline.go integrates streamlines with an adaptive Runge–Kutta
+// pair.
+//
+// In ground mode the freestream must be parallel to the ground: Solve and
+// Sweep accept only α = 0 there, and the configuration itself is placed at
+// its angle of attack.
+//
 // # Errors
 //
 // Programmer mistakes panic with a "solver: " prefix. Bad geometry (too few
-// nodes, wrong orientation, degenerate panels, a singular system) returns a
-// typed error.
+// panels, wrong orientation, degenerate panels, nodes below the ground,
+// non-finite coordinates) returns a *GeometryError naming the element and
+// panel, wrapping a sentinel such as ErrClockwise; a singular system returns
+// a *SingularError wrapping ErrSingular. An ill-conditioned system or a wide
+// open trailing edge is solved with a warning in Solution.Warnings.
 package solver

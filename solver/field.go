@@ -123,7 +123,7 @@ func newField(s *Solution) *field {
 	k := complex(0, 1/(2*math.Pi))
 	for j := range geo.panels {
 		p := &geo.panels[j]
-		ga, gb := s.g[p.ia], s.g[p.ia+1]
+		ga, gb := s.g[p.ia], s.g[p.ib]
 		gm, dg := 0.5*(ga+gb), gb-ga
 		e := complex(p.tx, p.ty)
 		l := p.l
@@ -167,7 +167,7 @@ func (f *field) build(lo, hi int) int32 {
 			p := &f.geo.panels[j]
 			// t_m = e^{imφ} μ_m, μ_m = γm I_m + (Δγ/L) I_{m+1},
 			// I_m = ∫_{−L/2}^{L/2} s^m ds.
-			ga, gb := f.g[p.ia], f.g[p.ia+1]
+			ga, gb := f.g[p.ia], f.g[p.ib]
 			gm, dgl := 0.5*(ga+gb), (gb-ga)/p.l
 			var t [clusterOrder + 1]complex128
 			e := complex(p.tx, p.ty)
@@ -275,8 +275,8 @@ func (f *field) panelVelocity(j int, px, py float64) (u, v float64) {
 		w := inv * (fp.c0 + inv*(fp.c1+inv*(fp.c2+inv*fp.c3)))
 		return real(w), -imag(w)
 	}
-	ua, va, ub, vb := f.geo.panelInfluence(j, px, py)
-	ga, gb := f.g[p.ia], f.g[p.ia+1]
+	ua, va, ub, vb := panelInfluence(p, px, py)
+	ga, gb := f.g[p.ia], f.g[p.ib]
 	return ua*ga + ub*gb, va*ga + vb*gb
 }
 

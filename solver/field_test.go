@@ -61,13 +61,13 @@ func TestFarField(t *testing.T) {
 	rng := rand.New(rand.NewPCG(5, 6))
 	for j := range s.geo.panels {
 		p := &s.geo.panels[j]
-		ga, gb := sol.g[p.ia], sol.g[p.ia+1]
+		ga, gb := sol.g[p.ia], sol.g[p.ib]
 		scale := (math.Abs(ga) + math.Abs(gb)) / 2 * p.l // |circulation| of the panel
 		for range 30 {
 			d := p.l * (farFieldPanelLengths * (1 + 1e-9) * (1 + 4*rng.Float64()))
 			th := 2 * math.Pi * rng.Float64()
 			px, py := p.mx+d*math.Cos(th), p.my+d*math.Sin(th)
-			ua, va, ub, vb := s.geo.panelInfluence(j, px, py)
+			ua, va, ub, vb := panelInfluence(&s.geo.panels[j], px, py)
 			eu, ev := ua*ga+ub*gb, va*ga+vb*gb
 			fp := f.far[j]
 			dx, dy := px-p.mx, py-p.my
@@ -174,11 +174,12 @@ func TestFieldTree(t *testing.T) {
 			u, v, _ := f.at(px, py)
 			eu, ev := f.ux, f.uy
 			add := func(x, y, sign float64) {
-				for j := range f.geo.panels {
-					p := &f.geo.panels[j]
-					ua, va, ub, vb := f.geo.panelInfluence(j, x, y)
-					eu += ua*sol.g[p.ia] + ub*sol.g[p.ia+1]
-					ev += sign * (va*sol.g[p.ia] + vb*sol.g[p.ia+1])
+				all := f.geo.panels
+				for j := range all {
+					p := &all[j]
+					ua, va, ub, vb := panelInfluence(p, x, y)
+					eu += ua*sol.g[p.ia] + ub*sol.g[p.ib]
+					ev += sign * (va*sol.g[p.ia] + vb*sol.g[p.ib])
 				}
 			}
 			add(px, py, 1)

@@ -83,12 +83,23 @@ func (s *System) prepare() {
 	s.vt0 = make([]float64, len(g.panels))
 	s.vt90 = make([]float64, len(g.panels))
 	for j, p := range g.panels {
-		s.vt0[j] = -0.5 * (s.g0[p.ia] + s.g0[p.ia+1])
+		s.vt0[j] = -0.5 * (s.g0[p.ia] + s.g0[p.ib])
 		if s.g90 != nil {
-			s.vt90[j] = -0.5 * (s.g90[p.ia] + s.g90[p.ia+1])
+			s.vt90[j] = -0.5 * (s.g90[p.ia] + s.g90[p.ib])
 		}
 	}
-	s.hull = velocityHull(s.vt0, s.vt90)
+	// CpMin candidates: panels ahead of the trailing-edge cut (system.go).
+	var ha, hb []float64
+	var hj []int
+	for j, p := range g.panels {
+		if p.xc <= TrailingEdgeCutXC {
+			ha, hb, hj = append(ha, s.vt0[j]), append(hb, s.vt90[j]), append(hj, j)
+		}
+	}
+	s.hull = velocityHull(ha, hb)
+	for i := range s.hull {
+		s.hull[i].j = hj[s.hull[i].j]
+	}
 	s.forces = make([]elemQuad, len(g.elems))
 	for k := range g.elems {
 		e := &g.elems[k]
@@ -235,10 +246,10 @@ func (s *System) solution(alphaDeg, c, sn float64, g []float64) *Solution {
 		es.CpMin = math.Inf(1)
 		for i := range es.Panels {
 			p := &geo.panels[e.p0+i]
-			vt := -0.5 * (g[p.ia] + g[p.ia+1])
+			vt := -0.5 * (g[p.ia] + g[p.ib])
 			cp := 1 - vt*vt
 			es.Panels[i] = Panel{X: p.mx, Y: p.my, S: p.s, XC: p.xc, Vt: vt, Cp: cp, Side: p.side}
-			if cp < es.CpMin {
+			if cp < es.CpMin && p.xc <= TrailingEdgeCutXC {
 				es.CpMin, es.XCpMin = cp, p.xc
 			}
 		}

@@ -43,12 +43,12 @@ import "math"
 // the body the panel's own contribution is u' = −γ/2.
 
 // linearVortex returns the panel-frame velocity coefficients (ua, va) of γa
-// and (ub, vb) of γb at panel-frame point (x, y) of a panel of length l, given
-// the subtended angle dth = Δθ and lam = ln(r1/r2).
-func linearVortex(x, y, l, dth, lam float64) (ua, va, ub, vb float64) {
+// and (ub, vb) of γb at panel-frame point (x, y) of a panel of inverse
+// length il = 1/L, given the subtended angle dth = Δθ and lam = ln(r1/r2).
+func linearVortex(x, y, il, dth, lam float64) (ua, va, ub, vb float64) {
 	const inv2pi = 1 / (2 * math.Pi)
-	p := (x*dth - y*lam) / l
-	q := 1 - (x*lam+y*dth)/l
+	p := (x*dth - y*lam) * il
+	q := 1 - (x*lam+y*dth)*il
 	return (dth - p) * inv2pi, (-lam - q) * inv2pi, p * inv2pi, q * inv2pi
 }
 
@@ -64,10 +64,9 @@ func linearVortex(x, y, l, dth, lam float64) (ua, va, ub, vb float64) {
 const minDistFrac = 1e-6
 
 // panelInfluence returns the global velocity (u, v) per unit γa and per unit
-// γb that panel j induces at point (px, py). It is the exact closed form;
+// γb that panel pn induces at point (px, py). It is the exact closed form;
 // the near-node logarithm is clamped (minDistFrac).
-func (g *geometry) panelInfluence(j int, px, py float64) (ua, va, ub, vb float64) {
-	pn := &g.panels[j]
+func panelInfluence(pn *panelGeom, px, py float64) (ua, va, ub, vb float64) {
 	r1x, r1y := px-pn.x1, py-pn.y1
 	r2x, r2y := px-pn.x2, py-pn.y2
 	floor := minDistFrac * minDistFrac * pn.l * pn.l
@@ -77,7 +76,7 @@ func (g *geometry) panelInfluence(j int, px, py float64) (ua, va, ub, vb float64
 	dth := math.Atan2(r1x*r2y-r1y*r2x, r1x*r2x+r1y*r2y)
 	x := r1x*pn.tx + r1y*pn.ty
 	y := -r1x*pn.ty + r1y*pn.tx
-	lua, lva, lub, lvb := linearVortex(x, y, pn.l, dth, lam)
+	lua, lva, lub, lvb := linearVortex(x, y, pn.il, dth, lam)
 	// Back to the global frame: x' along t = (tx, ty), y' along (−ty, tx).
 	ua = lua*pn.tx - lva*pn.ty
 	va = lua*pn.ty + lva*pn.tx

@@ -26,7 +26,7 @@ func TestLinearVortexAgainstQuadrature(t *testing.T) {
 			if math.Abs((px-p.x1)*p.nx+(py-p.y1)*p.ny) < 0.05*p.l {
 				continue
 			}
-			ua, va, ub, vb := g.panelInfluence(j, px, py)
+			ua, va, ub, vb := panelInfluence(&g.panels[j], px, py)
 			// Quadrature of u, v for γ = 1 − ξ/L (node a) and ξ/L (node b).
 			kern := func(xi float64, wa bool) (u, v float64) {
 				x, y := p.x1+xi*p.tx, p.y1+xi*p.ty
@@ -74,13 +74,13 @@ func TestSelfInfluenceLimit(t *testing.T) {
 	}{{"outside", 1, -0.5}, {"inside", -1, 0.5}} {
 		eps := 1e-9 * p.l
 		px, py := p.mx+side.sign*eps*p.nx, p.my+side.sign*eps*p.ny
-		ua, va, ub, vb := g.panelInfluence(j, px, py)
+		ua, va, ub, vb := panelInfluence(&g.panels[j], px, py)
 		ut := (ua+ub)*p.tx + (va+vb)*p.ty
 		if math.Abs(ut-side.ut) > 1e-8 {
 			t.Errorf("%s: tangential velocity %g, want %g", side.name, ut, side.ut)
 		}
 		// Exact limit: local v' coefficients −1/(2π) and +1/(2π).
-		lua, lva, lub, lvb := linearVortex(p.l/2, 0, p.l, -math.Pi, 0)
+		lua, lva, lub, lvb := linearVortex(p.l/2, 0, 1/p.l, -math.Pi, 0)
 		na := ua*p.nx + va*p.ny
 		nb := ub*p.nx + vb*p.ny
 		// Panel-frame y' is −n, so the outward normal component is −v'.
@@ -99,7 +99,7 @@ func TestInfluenceFiniteOnPanel(t *testing.T) {
 	}
 	p := g.panels[3]
 	for _, pt := range [][2]float64{{p.x1, p.y1}, {p.x2, p.y2}, {p.mx, p.my}, {p.x1 + 0.3*(p.x2-p.x1), p.y1 + 0.3*(p.y2-p.y1)}} {
-		ua, va, ub, vb := g.panelInfluence(3, pt[0], pt[1])
+		ua, va, ub, vb := panelInfluence(&g.panels[3], pt[0], pt[1])
 		for _, v := range []float64{ua, va, ub, vb} {
 			if math.IsNaN(v) || math.IsInf(v, 0) {
 				t.Errorf("at (%g, %g): non-finite coefficient %v", pt[0], pt[1], []float64{ua, va, ub, vb})

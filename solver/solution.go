@@ -67,8 +67,8 @@ type ElementSolution struct {
 	Cl         float64   // from circulation, Kutta–Joukowski: Cl = 2Γ/(U∞c)
 	ClPressure float64   // from integrating Cp over the panels
 	Cm         float64   // about the element's quarter chord, from pressure
-	CpMin      float64
-	XCpMin     float64 // x/c of CpMin
+	CpMin      float64   // suction peak: lowest Cp ahead of x/c = TrailingEdgeCutXC (see system.go)
+	XCpMin     float64   // x/c of CpMin
 	Stagnation Stagnation
 
 	// Circulation is Γ = ∮γ ds / U∞, clockwise positive (lifting), in the
@@ -103,6 +103,6 @@ type Coefficients struct {
 	Cl         float64
 	ClPressure float64
 	Cm         float64
-	CpMin      float64 // smallest Cp over all elements
+	CpMin      float64 // smallest Cp over all elements, ahead of TrailingEdgeCutXC
 	XCpMin     float64 // x/c of CpMin on its element
 }

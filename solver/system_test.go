@@ -140,21 +140,62 @@ func TestNewSystemCoincidentElements(t *testing.T) {
 	}
 }
 
-func TestNewSystemWarnsOnWideTEGap(t *testing.T) {
-	sec, err := model.NACA("0012", model.NACAOptions{PointsPerSurface: 51})
-	if err != nil {
-		t.Fatal(err)
+func TestNewSystemTEWarnings(t *testing.T) {
+	open5 := func() Element {
+		sec, err := model.NACA("0012", model.NACAOptions{PointsPerSurface: 21})
+		if err != nil {
+			t.Fatal(err)
+		}
+		pts := sec.Points()
+		// Open the trailing edge to 5% of chord.
+		pts[0].Y, pts[len(pts)-1].Y = 0.025, -0.025
+		return Element{Nodes: pts, LE: sec.LeadingEdgeIndex()}
 	}
-	pts := sec.Points()
-	// Open the trailing edge to 5% of chord.
-	pts[0].Y, pts[len(pts)-1].Y = 0.025, -0.025
-	s := mustSystem(t, Config{Elements: []Element{{Nodes: pts, LE: sec.LeadingEdgeIndex()}}})
-	if w := s.Solve(0).Warnings; len(w) != 1 || !strings.Contains(w[0], "trailing edge") {
-		t.Errorf("warnings %q, want one about the trailing-edge gap", w)
+	closed := func(n int) Element {
+		sec, err := model.NACA("0012", model.NACAOptions{PointsPerSurface: n/2 + 1, ClosedTE: true})
+		if err != nil {
+			t.Fatal(err)
+		}
+		return Element{Nodes: sec.Points(), LE: sec.LeadingEdgeIndex()}
 	}
-	closed := mustSystem(t, Config{Elements: []Element{nacaElement(t, "0012", 100)}})
-	if w := closed.Solve(0).Warnings; len(w) != 0 {
-		t.Errorf("NACA 0012 (TE gap 0.25%% of chord): unexpected warnings %q", w)
+	for _, tc := range []struct {
+		name string
+		el   Element
+		want []string // substrings, one per expected warning
+	}{
+		// 40 cosine panels: the last panels (6.2e-3) are longer than the
+		// standard 0.25% gap.
+		{"NACA 0012, 40 panels", nacaElement(t, "0012", 40), nil},
+		{"NACA 0012, 160 panels", nacaElement(t, "0012", 160), []string{"wider than its last panels"}},
+		{"NACA 0012 closed, 160 panels", closed(160), nil},
+		{"gap 5% of chord", open5(), []string{"doubtful beyond", "wider than its last panels"}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			w := mustSystem(t, Config{Elements: []Element{tc.el}}).Solve(0).Warnings
+			if len(w) != len(tc.want) {
+				t.Fatalf("warnings %q, want %d", w, len(tc.want))
+			}
+			for i := range w {
+				if !strings.Contains(w[i], tc.want[i]) {
+					t.Errorf("warning %q, want one about %q", w[i], tc.want[i])
+				}
+			}
+		})
+	}
+}
+
+// CpMin skips the panels behind TrailingEdgeCutXC, where an open trailing
+// edge's Cp grows without bound with panel count (system.go).
+func TestCpMinIgnoresTrailingEdge(t *testing.T) {
+	for _, n := range []int{160, 320} {
+		s := mustSystem(t, Config{Elements: []Element{nacaElement(t, "0012", n)}})
+		e := s.Solve(4).Elements[0]
+		if !(e.XCpMin < 0.05 && e.CpMin > -2 && e.CpMin < -1) {
+			t.Errorf("%d panels: CpMin %.3f at x/c %.4f, want the suction peak near the leading edge", n, e.CpMin, e.XCpMin)
+		}
+		if sw := s.Sweep([]float64{4})[0]; sw.CpMin != e.CpMin && math.Abs(sw.CpMin-e.CpMin) > 1e-12 {
+			t.Errorf("%d panels: sweep CpMin %.6f, Solve %.6f", n, sw.CpMin, e.CpMin)
+		}
 	}
 }
 
