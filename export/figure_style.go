@@ -170,11 +170,16 @@ func (r *refLine) Plot(c draw.Canvas, p *plot.Plot) {
 	}
 	c.StrokeLine2(r.style, a.X, a.Y, b.X, b.Y)
 	if r.label != "" {
+		sty := r.labelSty
 		pt := vg.Point{X: c.Min.X + vg.Points(4), Y: a.Y + vg.Points(2)}
 		if r.vertical {
 			pt = vg.Point{X: a.X + vg.Points(3), Y: c.Max.Y - vg.Points(3) - r.drop}
+			if pt.X+sty.Width(r.label) > c.Max.X { // label on the other side
+				sty.XAlign = text.XRight
+				pt.X = a.X - vg.Points(3)
+			}
 		}
-		c.FillText(r.labelSty, pt, r.label)
+		c.FillText(sty, pt, r.label)
 	}
 }
 

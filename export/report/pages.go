@@ -89,6 +89,7 @@ func (r *writer) titlePage() {
 	}
 	p.Ln(2)
 	r.box("Configuration", describe(st, res.Layout), [3]int{232, 239, 248})
+	r.box("Cautions", cautionText, [3]int{252, 240, 228})
 
 	r.heading("Inputs")
 	r.subheading("Elements")
@@ -98,7 +99,6 @@ func (r *writer) titlePage() {
 	}
 	r.table([]string{"Element", "Section source", "Chord, mm", "Leading edge x, y, mm", "Angle, °"},
 		[]float64{1.1, 2.2, 0.9, 1.5, 0.8}, []string{"L", "L", "R", "R", "R"}, rows)
-	r.subheading("Panelling and flow")
 	pn := st.Panelling
 	lmin, lmax := panelLengths(res.Layout)
 	kv := [][2]string{
@@ -126,10 +126,11 @@ func (r *writer) titlePage() {
 	if st.Viscous.Enabled {
 		kv = append(kv, [2]string{"Boundary-layer estimate", trips(st)})
 	}
+	r.need(tableHeight(len(kv)) + 10)
+	r.subheading("Panelling and flow")
 	r.keyValues(kv)
 
 	r.resultsSection()
-	r.box("Cautions", cautionText, [3]int{252, 240, 228})
 }
 
 func orDash(s string) string {
@@ -175,8 +176,6 @@ func panelLengths(l *model.Layout) (lmin, lmax float64) {
 func (r *writer) resultsSection() {
 	st, res := r.in.Study, r.in.Result
 	sol := res.Solution
-	r.heading("Results")
-	r.subheading("Configuration")
 	kv := [][2]string{
 		{"Cl from circulation (Kutta–Joukowski)", Coef(sol.Cl)},
 		{"Cl from surface pressure", Coef(sol.ClPressure)},
@@ -202,9 +201,13 @@ func (r *writer) resultsSection() {
 			kv = append(kv, [2]string{fmt.Sprintf("Downforce over a %s m span (2-D, no end effects)", num(f.SpanM, 3)), num(f.DownforcePerSpan*f.SpanM, 1) + " N"})
 		}
 	}
+	r.need(tableHeight(len(kv)) + 25)
+	r.heading("Results")
+	r.subheading("Configuration")
 	r.keyValues(kv)
 	r.para("Signs: lift is positive up, away from the ground; downforce is −lift. Cm is positive nose-up. Cp = 1 − (V/U∞)², negative where the flow is faster than the freestream. Element coefficients are on the element's own chord, Cm about its own quarter chord; configuration coefficients are on the reference chord.")
 
+	r.need(tableHeight(len(sol.Elements)) + 10)
 	r.subheading("Elements")
 	head := []string{"Element", "Cl (circ.)", "Cl (pressure)", "Cm (c/4)", "Cp min", "at x/c", "Stagnation x/c"}
 	widths := []float64{1.2, 1, 1.1, 1, 0.9, 0.8, 1.1}
@@ -215,6 +218,7 @@ func (r *writer) resultsSection() {
 	}
 	r.table(head, widths, align, rows)
 	if v := res.Viscous; v != nil {
+		r.need(tableHeight(len(v.Elements)) + 10)
 		r.subheading("Boundary layer")
 		var rows [][]string
 		for _, e := range v.Elements {

@@ -232,11 +232,7 @@ func (r *writer) table(head []string, widths []float64, align []string, rows [][
 	}
 	// A short table is kept on one page; a long one needs room for its
 	// header and a few rows.
-	if h := rowHMM * float64(len(rows)+1); h < maxUnsplitMM {
-		r.need(h + 2)
-	} else {
-		r.need(4 * rowHMM)
-	}
+	r.need(tableHeight(len(rows)) + 2)
 	header()
 	for k, row := range rows {
 		if r.space() < rowHMM {
@@ -251,6 +247,16 @@ func (r *writer) table(head []string, widths []float64, align []string, rows [][
 		p.Ln(-1)
 	}
 	p.Ln(2)
+}
+
+// tableHeight is the space a table of n rows must find on a page before it
+// starts: all of it when short (short tables are not split), else room
+// for its header and a few rows.
+func tableHeight(n int) float64 {
+	if h := rowHMM * float64(n+1); h < maxUnsplitMM {
+		return h
+	}
+	return 4 * rowHMM
 }
 
 // keyValues writes a two-column table of names and values.

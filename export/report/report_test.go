@@ -124,12 +124,29 @@ func TestReport(t *testing.T) {
 			t.Errorf("report text lacks %q", w)
 		}
 	}
-	// Title and inputs, results (2 pages); panels, close-up, Cp and
-	// streamlines at two figures a page (2); sweep with its table and
-	// the drag polar (2); one boundary-layer figure per element at two a
-	// page (1); methods (1).
+	// Title, cautions and inputs (1); results and notes (1); panels,
+	// close-up, Cp and streamlines at two figures a page (2); the polar
+	// with the sweep table (1; no drag polar, as every angle separates);
+	// a boundary-layer page per element (2); methods (1).
 	if want := 8; pages != want {
 		t.Errorf("%d pages, want %d", pages, want)
+	}
+}
+
+// TestReportLetter checks the US Letter page size, 612 × 792 pt.
+func TestReportLetter(t *testing.T) {
+	st := demoStudy()
+	st.Viscous.Enabled = false
+	var b bytes.Buffer
+	if err := Write(&b, Input{Study: st, Result: solve(t, st), PageSize: "letter"}); err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(t.TempDir(), "letter.pdf")
+	if err := os.WriteFile(path, b.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if info := tool(t, "pdfinfo", path); !strings.Contains(info, "612 x 792 pts") {
+		t.Errorf("not Letter:\n%s", info)
 	}
 }
 
