@@ -69,6 +69,7 @@ func (w *Workbench) exportTo(write func(dir string) ([]string, error)) {
 			})
 		}()
 	}, w.win)
+	d.SetLocation(w.startDir())
 	d.Resize(fyne.NewSize(900, 600))
 	d.Show()
 }

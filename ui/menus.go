@@ -2,6 +2,7 @@ package ui
 
 import (
 	"errors"
+	"os"
 	"path/filepath"
 	"strings"
 
@@ -160,13 +161,28 @@ func (w *Workbench) openFile(exts []string, then func(path string)) {
 		then(path)
 	}, w.win)
 	d.SetFilter(storage.NewExtensionFileFilter(exts))
-	if p := w.ctl.Path(); p != "" {
-		if l, err := storage.ListerForURI(storage.NewFileURI(filepath.Dir(p))); err == nil {
-			d.SetLocation(l)
-		}
-	}
+	d.SetLocation(w.startDir())
 	d.Resize(fyne.NewSize(900, 600))
 	d.Show()
+}
+
+// startDir is where file dialogs open: the study's folder, else the
+// working directory (nil: the dialog's own default).
+func (w *Workbench) startDir() fyne.ListableURI {
+	dir := ""
+	if p := w.ctl.Path(); p != "" {
+		dir = filepath.Dir(p)
+	} else if wd, err := os.Getwd(); err == nil {
+		dir = wd
+	}
+	if dir == "" {
+		return nil
+	}
+	l, err := storage.ListerForURI(storage.NewFileURI(dir))
+	if err != nil {
+		return nil
+	}
+	return l
 }
 
 // save writes the study to its file, asking for one if it has none or as
@@ -203,6 +219,7 @@ func (w *Workbench) saveThen(as bool, then func()) {
 		}
 	}, w.win)
 	d.SetFileName(fileNameFor(w.ctl.state.study.Name))
+	d.SetLocation(w.startDir())
 	d.SetFilter(storage.NewExtensionFileFilter(studyExtensions))
 	d.Resize(fyne.NewSize(900, 600))
 	d.Show()

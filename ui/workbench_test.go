@@ -408,3 +408,64 @@ func TestKarmanTrefftzSource(t *testing.T) {
 		t.Error("invalid parameters triggered a solve")
 	}
 }
+
+// flapCoordinates is an invented 17-point section with a blunt trailing
+// edge, in the common "name line, then x y rows" layout.
+const flapCoordinates = `Invented test flap
+1.0000 0.0013
+0.9000 0.0200
+0.7000 0.0500
+0.5000 0.0700
+0.3000 0.0800
+0.1500 0.0700
+0.0500 0.0450
+0.0100 0.0200
+0.0000 0.0000
+0.0100 -0.0150
+0.0500 -0.0250
+0.1500 -0.0300
+0.3000 -0.0280
+0.5000 -0.0200
+0.7000 -0.0120
+0.9000 -0.0040
+1.0000 -0.0013
+`
+
+func TestOpenSectionFile(t *testing.T) {
+	w := newTestBench(t)
+	dir := t.TempDir()
+	good := filepath.Join(dir, "flap.dat")
+	bad := filepath.Join(dir, "junk.dat")
+	if err := os.WriteFile(good, []byte(flapCoordinates), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(bad, []byte("no numbers here\nat all\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+
+	w.loadSectionFile(good)
+	res := current(t, w)
+	src := w.ctl.Study().Elements[0].Section
+	if src.Embedded == nil {
+		t.Fatalf("section source %v is not embedded", src)
+	}
+	if got, want := panelCount(res), w.ctl.Study().Panelling.Panels; got != want {
+		t.Errorf("file section solved with %d panels, want %d", got, want)
+	}
+	if w.controls.naca.Text != "" {
+		t.Errorf("NACA entry says %q for a file section", w.controls.naca.Text)
+	}
+	if r := w.ctl.Reports()[0]; r == nil || r.String() == "" {
+		t.Error("no cleaning report for a file section")
+	}
+
+	before := encoded(t, w.ctl.Study())
+	w.controls.sourceError(nil)
+	w.loadSectionFile(bad)
+	if w.controls.sourceMsg.Hidden {
+		t.Error("an unreadable file shows no message")
+	}
+	if encoded(t, w.ctl.Study()) != before {
+		t.Error("an unreadable file changed the study")
+	}
+}
