@@ -118,7 +118,7 @@ var binom = func() (c [clusterOrder + 1][clusterOrder + 1]float64) {
 
 func newField(s *Solution) *field {
 	geo := s.sys.geo
-	c, sn := s.sys.weights(s.AlphaDeg)
+	c, sn := s.cosA, s.sinA
 	f := &field{geo: geo, g: s.g, far: make([]farPanel, len(geo.panels)), ux: c, uy: sn}
 	k := complex(0, 1/(2*math.Pi))
 	for j := range geo.panels {

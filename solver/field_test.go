@@ -196,3 +196,19 @@ func TestFieldTree(t *testing.T) {
 		}
 	}
 }
+
+// Relabelling AlphaDeg (as a caller may, with its own angle convention)
+// does not change the field, which keeps the freestream of the solve.
+func TestFieldIgnoresRelabelledAlpha(t *testing.T) {
+	sol := mustSystem(t, Config{Elements: []Element{nacaElement(t, "2412", 80)}}).Solve(6)
+	p := model.Point{X: -0.5, Y: 0.3}
+	u0, v0 := sol.VelocityAt(p)
+	cm0 := sol.CmAbout(model.Point{})
+	relabelled := *sol
+	relabelled.AlphaDeg = -12
+	relabelled.lazy = &lazyField{}
+	u1, v1 := relabelled.VelocityAt(p)
+	if u1 != u0 || v1 != v0 || relabelled.CmAbout(model.Point{}) != cm0 {
+		t.Errorf("after relabelling: (%g, %g) Cm %g, was (%g, %g) Cm %g", u1, v1, relabelled.CmAbout(model.Point{}), u0, v0, cm0)
+	}
+}

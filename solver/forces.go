@@ -228,6 +228,8 @@ func (s *System) solution(alphaDeg, c, sn float64, g []float64) *Solution {
 		g:        g,
 		forces:   ef,
 		lazy:     &lazyField{},
+		cosA:     c,
+		sinA:     sn,
 	}
 	sol.Cl, sol.ClPressure, sol.Cm = s.totals(ef, c, sn, geo.mref)
 	for k := range geo.elems {
@@ -304,7 +306,7 @@ func (s *Solution) CmAbout(p model.Point) float64 {
 	if s.sys == nil {
 		panic("solver: CmAbout on a Solution not made by Solve")
 	}
-	c, sn := s.sys.weights(s.AlphaDeg)
+	c, sn := s.cosA, s.sinA
 	_, _, cm := s.sys.totals(s.forces, c, sn, p)
 	return cm
 }

@@ -95,6 +95,10 @@ type Solution struct {
 	g      []float64   // all nodal strengths, element after element
 	forces []elemForce // each element's pressure force and moment
 	lazy   *lazyField  // velocity field, built on first use
+	// The freestream direction of the solve, kept apart from AlphaDeg,
+	// which callers may relabel (e.g. with the study's angle when the
+	// configuration itself was rotated): the field and CmAbout use these.
+	cosA, sinA float64
 }
 
 // Coefficients are the integrated results of one angle in a sweep.

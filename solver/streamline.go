@@ -53,6 +53,9 @@ const (
 	// stagnationSpeed / U∞ ends a line at a stagnation point, where the
 	// direction of flow is undefined.
 	stagnationSpeed = 1e-9
+	// maxAttemptsPerStep bounds the attempted steps of a line at this
+	// multiple of MaxSteps.
+	maxAttemptsPerStep = 20
 	// dividingOffset is how far off the stagnation point, as a fraction of
 	// the element's chord along the surface's outward normal, the dividing
 	// streamline starts its upstream integration.
@@ -151,7 +154,8 @@ func (r Rect) contains(x, y float64) bool {
 // flow order and ending at the stagnation point. Lines are computed in
 // parallel over GOMAXPROCS goroutines.
 func (s *Solution) Streamlines(opt StreamOptions) []Streamline {
-	geo := s.sys.geo
+	f := s.field()
+	geo := f.geo
 	if opt.Bounds == (Rect{}) {
 		cfg := Config{Ground: geo.ground, GroundY: geo.groundY}
 		for _, e := range geo.elems {
@@ -173,7 +177,6 @@ func (s *Solution) Streamlines(opt StreamOptions) []Streamline {
 	if !(opt.Tol > 0) {
 		opt.Tol = DefaultTolFraction * diag
 	}
-	f := s.field()
 	type job struct {
 		start    model.Point
 		backward bool
@@ -276,15 +279,19 @@ func (in *integrator) run(p model.Point, backward bool) Streamline {
 	}
 	x, y := p.X, p.Y
 	h := math.Min(in.hmax, 100*in.hmin)
-	for steps := 0; steps < in.maxSteps; {
+	// Rejected steps do not count against MaxSteps, but every rejection
+	// shrinks h by at least half (or by the error control's factor, at
+	// most 0.9), so a line cannot stall; maxAttemptsPerStep is a backstop.
+	for steps, attempts := 0, 0; steps < in.maxSteps && attempts < maxAttemptsPerStep*in.maxSteps; attempts++ {
 		nx, ny, k7x, k7y, sp7, err, ok := in.step(x, y, h, k1x, k1y, backward)
-		if !ok || err > in.tol {
-			// Entered a body (or stagnation) or too inaccurate: shrink.
-			if !ok {
-				h *= 0.5
-			} else {
-				h *= math.Max(0.2, 0.9*math.Pow(in.tol/err, 0.2))
+		if !ok || !(err <= in.tol) {
+			// Entered a body (or a stagnation point), or too inaccurate
+			// (or a non-finite error): shrink.
+			f := 0.5
+			if ok && !math.IsInf(err, 1) && !math.IsNaN(err) {
+				f = math.Max(0.2, 0.9*math.Pow(in.tol/err, 0.2))
 			}
+			h *= f
 			if h < in.hmin {
 				return sl
 			}

@@ -58,8 +58,8 @@ import (
 // (0, 1), giving γ0 and γ90; by linearity the solution at angle α is
 // γ = cos α γ0 + sin α γ90.
 //
-// Ground effect uses the method of images (Katz & Plotkin sec. 11.4 and the
-// ground-effect discussion of ch. 5): every panel has a mirror image about
+// Ground effect uses the method of images (Katz & Plotkin's treatment of
+// ground effect; REFERENCES.md §5): every panel has a mirror image about
 // y = GroundY carrying −γ, so the plane is a streamline of the combined flow.
 // The images enter the influence matrix and the velocity field. The plane is
 // a streamline only if the freestream is parallel to it: in ground mode the
