@@ -171,6 +171,8 @@ func (p *Parsed) Clean(opt CleanOptions) (*Section, *CleanReport, error) {
 //   - a UTF-8 byte-order mark (removed) and UTF-16 with a byte-order mark
 //     (decoded); UTF-32 is rejected; text without a mark is read as UTF-8,
 //     invalid bytes (a Latin-1 name, say) being replaced and noted;
+//     Unicode minus signs and no-break spaces, as copied from typeset
+//     documents, are read as '-' and ' ';
 //   - the layouts of FileLayout: one loop; two surfaces (recognised when x
 //     runs from one end to the other and jumps back); two surfaces after a
 //     point-count line, which must agree with the points that follow; a
@@ -265,7 +267,18 @@ func decodeText(data []byte) (string, []string, error) {
 		notes = append(notes, fmt.Sprintf("%d bytes of invalid UTF-8 or control characters replaced", bad))
 		data = []byte(strings.ToValidUTF8(string(data), "\uFFFD"))
 	}
-	return string(data), notes, nil
+	text := string(data)
+	// Text copied from typeset documents carries Unicode minus signs and
+	// no-break spaces; read them as their ASCII forms, and say so.
+	if strings.ContainsRune(text, '\u2212') {
+		text = strings.ReplaceAll(text, "\u2212", "-")
+		notes = append(notes, "Unicode minus signs (\u2212) read as -")
+	}
+	if strings.ContainsRune(text, '\u00a0') {
+		text = strings.ReplaceAll(text, "\u00a0", " ")
+		notes = append(notes, "no-break spaces read as spaces")
+	}
+	return text, notes, nil
 }
 
 // looksUTF16 reports whether most NUL bytes sit at alternate positions, as

@@ -794,6 +794,8 @@ func TestParseEncodings(t *testing.T) {
 		{"UTF-16 big-endian", be, "UTF-16 big-endian text", nil},
 		{"UTF-32", append([]byte{0xFF, 0xFE, 0, 0}, '1', 0, 0, 0), "", ErrEncoding},
 		{"Windows line ends", []byte(strings.ReplaceAll(body, "\n", "\r\n")), "one loop of 5 points", nil},
+		{"typeset minus", []byte(strings.ReplaceAll(body, "-", "\u2212")), "Unicode minus signs", nil},
+		{"no-break spaces", []byte(strings.ReplaceAll(body, " ", "\u00a0")), "no-break spaces read as spaces", nil},
 	} {
 		p, err := ParseCoordinates(bytes.NewReader(c.in), "e.dat")
 		if c.is != nil {
