@@ -98,7 +98,7 @@ func WriteSVG(w io.Writer, o *Outline) error {
 	p("<title>%s</title>\n", svgEscape(o.Name+" (outline, millimetres, true scale)"))
 	p("<g id=\"outline\" fill=\"none\" stroke=\"#000000\" stroke-width=\"%s\" stroke-linejoin=\"round\">\n", svgNum(svgStrokeMM))
 	for i, e := range o.Elements {
-		p("<path id=\"element-%d\" d=\"%s\"><title>%s</title></path>\n", i, svgPath(e.Contour), svgEscape(e.Name))
+		p("<path id=\"element-%d\" d=\"%s\"/>\n", i, svgPath(e.Contour))
 	}
 	p("</g>\n")
 	p("<g id=\"rib-inner\" fill=\"none\" stroke=\"#b00000\" stroke-width=\"%s\" stroke-dasharray=\"2 1\">\n", svgNum(svgStrokeMM))
@@ -116,19 +116,25 @@ func WriteSVG(w io.Writer, o *Outline) error {
 		for _, m := range e.Marks {
 			r := m.DiameterMM / 2
 			cx, cy := m.Centre.X, -m.Centre.Y
-			p("<circle cx=\"%s\" cy=\"%s\" r=\"%s\"><title>%s</title></circle>\n", svgNum(cx), svgNum(cy), svgNum(r), svgEscape(m.Label))
+			p("<circle cx=\"%s\" cy=\"%s\" r=\"%s\"/>\n", svgNum(cx), svgNum(cy), svgNum(r))
 			// Centre cross, a little longer than the hole.
 			p("<path d=\"M%s %s H%s M%s %s V%s\"/>\n", svgNum(cx-1.4*r), svgNum(cy), svgNum(cx+1.4*r), svgNum(cx), svgNum(cy-1.4*r), svgNum(cy+1.4*r))
 		}
 	}
 	p("</g>\n")
-	p("<g id=\"labels\" font-family=\"Liberation Sans, Arial, Helvetica, sans-serif\" font-size=\"%s\" fill=\"#000000\">\n", svgNum(svgTextMM))
+	p("<g id=\"labels\" font-family=\"Liberation Sans, Arial, Helvetica, sans-serif\" font-size=\"%s\" fill=\"#000000\" stroke=\"none\">\n", svgNum(svgTextMM))
 	for _, e := range o.Elements {
 		ymax := math.Inf(-1)
 		for _, q := range e.Contour {
 			ymax = math.Max(ymax, q.Y)
 		}
 		p("<text x=\"%s\" y=\"%s\">%s</text>\n", svgNum(e.LE.X), svgNum(-ymax-1), svgEscape(e.Name))
+		for _, m := range e.Marks {
+			if m.Label != "" {
+				r := m.DiameterMM / 2
+				p("<text x=\"%s\" y=\"%s\" font-size=\"%s\">%s</text>\n", svgNum(m.Centre.X+1.5*r), svgNum(-m.Centre.Y-1.5*r), svgNum(svgTextMM*0.7), svgEscape(m.Label))
+			}
+		}
 	}
 	p("</g>\n")
 	// Scale bar: a bar of round length with end ticks and its length.

@@ -5,6 +5,8 @@ import (
 	"encoding/xml"
 	"io"
 	"math"
+	"os"
+	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
@@ -94,5 +96,36 @@ func TestScaleBarLength(t *testing.T) {
 		if got := scaleBarLength(c.width); got != c.want {
 			t.Errorf("scaleBarLength(%g) = %g, want %g", c.width, got, c.want)
 		}
+	}
+}
+
+// TestOutlineGolden pins the DXF and SVG text of a small outline: a
+// 40-panel NACA 0012 main plane and flap from synthLayout with a 1 mm skin,
+// chord lines and a spar hole. Run with -update after a deliberate change.
+func TestOutlineGolden(t *testing.T) {
+	o, err := NewOutline("golden demo", synthLayout(40), OutlineOptions{SkinMM: 1, ChordLine: true,
+		Marks: []Mark{{Element: 0, Label: "spar", XC: 0.3, DiameterMM: 8}}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var d, s bytes.Buffer
+	if err := WriteDXF(&d, o); err != nil {
+		t.Fatal(err)
+	}
+	if err := WriteSVG(&s, o); err != nil {
+		t.Fatal(err)
+	}
+	golden(t, "outline.dxf", d.Bytes())
+	golden(t, "outline.svg", s.Bytes())
+	if *figureDir != "" {
+		os.WriteFile(filepath.Join(*figureDir, "outline.svg"), s.Bytes(), 0o644)
+		o2, err := NewOutline("placed demo", synthLayout(120), OutlineOptions{Placed: true, SkinMM: 1, ChordLine: true,
+			Marks: []Mark{{Element: 0, Label: "spar", XC: 0.3, DiameterMM: 8}}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		var s2 bytes.Buffer
+		WriteSVG(&s2, o2)
+		os.WriteFile(filepath.Join(*figureDir, "outline-placed.svg"), s2.Bytes(), 0o644)
 	}
 }
