@@ -412,3 +412,40 @@ func TestCleanTrailingEdgeForms(t *testing.T) {
 		}
 	}
 }
+
+// TestCleanFindsTrailingEdge lists sections of very different shape from
+// several starting points, both ways round: the trailing edge must be
+// found each time, giving the same section as the conventional listing.
+func TestCleanFindsTrailingEdge(t *testing.T) {
+	for _, s := range []struct {
+		name    string
+		m, p, t float64
+		n       int
+	}{
+		{"NACA 0004, thin", 0, 0.4, 0.04, 61},
+		{"NACA 0030, thick", 0, 0.4, 0.30, 61},
+		{"NACA 9512, flap-like camber", 0.09, 0.5, 0.12, 61},
+		{"NACA 4412, 15 points per surface", 0.04, 0.4, 0.12, 15},
+	} {
+		up, lo := nacaSurfaces(s.m, s.p, s.t, s.n)
+		var loop []Point
+		for i := len(up) - 1; i >= 0; i-- {
+			loop = append(loop, up[i])
+		}
+		loop = append(loop, lo[1:]...)
+		ref, _ := mustClean(t, s.name, loop, DefaultCleanOptions)
+		for _, start := range []int{0, 1, s.n / 3, s.n - 1, s.n + 2, 2*s.n - 3} {
+			pts := append(append([]Point(nil), loop[start:]...), loop[:start]...)
+			for _, rev := range []bool{false, true} {
+				in := pts
+				if rev {
+					in = reversed(pts)
+				}
+				got, rep := mustClean(t, s.name, in, DefaultCleanOptions)
+				if d := maxDist(got.Points(), ref.Points()); d > 1e-9 {
+					t.Errorf("%s from point %d, reversed %v: differs by %g\n%s", s.name, start+1, rev, d, rep)
+				}
+			}
+		}
+	}
+}

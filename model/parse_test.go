@@ -24,8 +24,10 @@ var updateSections = flag.Bool("update-sections", false, "rewrite testdata/secti
 // 0.1015x⁴), camber m/p²(2px − x²) ahead of p, m/(1−p)²(1 − 2p + 2px − x²)
 // behind). The open-trailing-edge coefficient −0.1015 leaves a gap of about
 // 0.25% chord. n points per surface at cosine spacing x = (1 − cos β)/2.
-func testSurfaces(n int) (upper, lower []Point) {
-	const m, p, t = 0.02, 0.4, 0.12
+func testSurfaces(n int) (upper, lower []Point) { return nacaSurfaces(0.02, 0.4, 0.12, n) }
+
+// nacaSurfaces is testSurfaces for any 4-digit camber m at p and thickness t.
+func nacaSurfaces(m, p, t float64, n int) (upper, lower []Point) {
 	for i := range n {
 		beta := math.Pi * float64(i) / float64(n-1)
 		x := (1 - math.Cos(beta)) / 2
