@@ -150,3 +150,7 @@ func recovered(f func() error) (err error) {
 	}()
 	return f()
 }
+
+// isNoData reports a view that lacks what it draws (as opposed to a
+// failure).
+func isNoData(err error) bool { return errors.Is(err, export.ErrNoData) }

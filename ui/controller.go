@@ -408,3 +408,13 @@ func (c *Controller) SetKT(k model.KarmanTrefftz) error {
 		st.Elements[currentElement].Section = model.SectionSource{Spec: "kt:" + k.String()}
 	})
 }
+
+// SetInverted mounts the configuration upside down (suction side down).
+func (c *Controller) SetInverted(on bool) error {
+	return c.Edit("", func(st *model.Study) { st.Inverted = on })
+}
+
+// SetGround sets the ground plane.
+func (c *Controller) SetGround(key string, g model.Ground) error {
+	return c.Edit(key, func(st *model.Study) { st.Ground = g })
+}

@@ -53,6 +53,9 @@ type controls struct {
 	alphaDown   *widget.Button
 	alphaUp     *widget.Button
 	flowMsg     *widget.Label
+	inverted    *widget.Check
+	ground      *widget.Check
+	clearance   *widget.Entry
 
 	from, to, step *widget.Entry
 	run, cancel    *widget.Button
@@ -114,6 +117,8 @@ func fieldLabel(path string) string {
 		return "Sweep to"
 	case "sweep.step_deg":
 		return "Sweep step"
+	case "ground.clearance_mm":
+		return "Ground clearance"
 	case "kt.cx":
 		return "Centre x"
 	case "kt.cy":
@@ -222,6 +227,32 @@ func newControls(w *Workbench) *controls {
 		ctl.BreakMerge()
 		setMessage(c.flowMsg, ctl.SetAlpha("", st.Flow.AlphaDeg+sign*st.Sweep.StepDeg))
 	}
+	c.inverted = widget.NewCheck("Inverted (suction side down)", func(on bool) {
+		if !c.syncing {
+			setMessage(c.flowMsg, ctl.SetInverted(on))
+		}
+	})
+	c.clearance = widget.NewEntry()
+	c.ground = widget.NewCheck("Ground, clearance (mm)", func(on bool) {
+		if !c.syncing {
+			g := ctl.state.study.Ground
+			g.Enabled = on
+			setMessage(c.flowMsg, ctl.SetGround("", g))
+		}
+	})
+	c.clearance.OnChanged = func(s string) {
+		if c.syncing {
+			return
+		}
+		v, err := parseNumber(s)
+		if err != nil {
+			setMessage(c.flowMsg, errors.New("ground clearance must be a number of millimetres"))
+			return
+		}
+		g := ctl.state.study.Ground
+		g.ClearanceMM = v
+		setMessage(c.flowMsg, ctl.SetGround("clearance", g))
+	}
 	c.alphaDown = widget.NewButton("−", func() { stepAlpha(-1) })
 	c.alphaUp = widget.NewButton("+", func() { stepAlpha(1) })
 
@@ -265,6 +296,8 @@ func newControls(w *Workbench) *controls {
 
 		heading("Flow"),
 		row("α (°)", container.NewBorder(nil, nil, nil, container.NewHBox(sized(c.alphaEntry, 64), c.alphaDown, c.alphaUp), c.alphaSlider)),
+		c.inverted,
+		container.NewBorder(nil, nil, nil, sized(c.clearance, 72), c.ground),
 		c.flowMsg,
 		widget.NewSeparator(),
 
@@ -423,6 +456,9 @@ func (c *controls) sync(st *model.Study) {
 	a := st.Flow.AlphaDeg
 	c.alphaSlider.SetValue(max(-sliderMaxAlpha, min(sliderMaxAlpha, a)))
 	setIfDiffers(c.alphaEntry, entryNum(a), numberIs(a))
+	c.inverted.SetChecked(st.Inverted)
+	c.ground.SetChecked(st.Ground.Enabled)
+	setIfDiffers(c.clearance, entryNum(st.Ground.ClearanceMM), numberIs(st.Ground.ClearanceMM))
 	step := num(st.Sweep.StepDeg) + "°"
 	c.alphaDown.SetText("−" + step)
 	c.alphaUp.SetText("+" + step)

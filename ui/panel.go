@@ -14,6 +14,7 @@ type plotView struct {
 	kind    viewKind
 	canvas  *plotCanvas
 	readout *widget.Label
+	note    *widget.Label
 	enlarge *widget.Button
 	tools   []fyne.CanvasObject
 }
@@ -25,6 +26,16 @@ func newPlotView(kind viewKind, act *activity, onEnlarge func(viewKind)) *plotVi
 	v.readout = widget.NewLabel("")
 	v.readout.TextStyle = fyne.TextStyle{Monospace: true}
 	v.canvas.onHover = func(s string) { v.readout.SetText(s) }
+	v.note = widget.NewLabelWithStyle("", fyne.TextAlignCenter, fyne.TextStyle{Italic: true})
+	v.note.Hide()
+	v.canvas.onNote = func(s string) {
+		v.note.SetText(s)
+		if s == "" {
+			v.note.Hide()
+		} else {
+			v.note.Show()
+		}
+	}
 	v.enlarge = widget.NewButtonWithIcon("", theme.ViewFullScreenIcon(), func() { onEnlarge(kind) })
 	v.enlarge.Importance = widget.LowImportance
 	switch kind {
@@ -59,5 +70,6 @@ func (v *plotView) CreateRenderer() fyne.WidgetRenderer {
 	title := widget.NewLabelWithStyle(v.kind.String(), fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	right := container.NewHBox(append(append([]fyne.CanvasObject{v.readout}, v.tools...), v.enlarge)...)
 	header := container.NewBorder(nil, nil, title, right)
-	return widget.NewSimpleRenderer(container.NewBorder(header, nil, nil, nil, v.canvas))
+	body := container.NewStack(v.canvas, container.NewCenter(v.note))
+	return widget.NewSimpleRenderer(container.NewBorder(header, nil, nil, nil, body))
 }

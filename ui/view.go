@@ -48,6 +48,7 @@ type plotCanvas struct {
 	act     *activity
 	image   *canvas.Image
 	onHover func(text string)
+	onNote  func(text string) // says why the view is empty, "" when it is not
 
 	mu      sync.Mutex
 	sc      *scene // newest scene, window not set
@@ -168,20 +169,37 @@ func (p *plotCanvas) renderNow(sc *scene) frame {
 func (f frame) show() {
 	p := f.p
 	p.mu.Lock()
-	if f.ticket <= p.shown || (f.fig == nil && f.err == nil) {
+	if f.ticket <= p.shown || (f.fig == nil && f.err == nil) { // stale, or nothing was rendered
 		p.mu.Unlock()
 		return
 	}
 	p.shown = f.ticket
 	p.err = f.err
-	if f.fig != nil {
-		p.fig = f.fig
-	}
+	p.fig = f.fig
 	p.mu.Unlock()
 	if f.fig != nil {
 		p.image.Image = f.fig.Image
-		p.image.Refresh()
+	} else {
+		// Never leave an old figure up that no longer matches the study.
+		p.image.Image = image.NewRGBA(image.Rect(0, 0, 1, 1))
 	}
+	p.image.Refresh()
+	if p.onNote != nil {
+		p.onNote(viewNote(p.kind, f.err))
+	}
+}
+
+// viewNote explains an empty view.
+func viewNote(k viewKind, err error) string {
+	switch {
+	case err == nil:
+		return ""
+	case k == viewPolar && isNoData(err):
+		return "No sweep for this configuration yet: press Run sweep."
+	case isNoData(err):
+		return "Nothing to draw yet."
+	}
+	return friendly(err)
 }
 
 // renderLater re-renders the newest scene on a goroutine of its own,

@@ -84,7 +84,7 @@ func TestPanelCountResolves(t *testing.T) {
 	}{
 		{"entry", func() { w.controls.panelEntry.SetText("80") }, 80},
 		{"slider", func() { w.controls.panelSlider.SetValue(240) }, 240},
-		{"entry beyond slider", func() { w.controls.panelEntry.SetText("1500") }, 1500},
+		{"entry beyond slider", func() { w.controls.panelEntry.SetText("1100") }, 1100},
 	} {
 		c.set()
 		res := current(t, w)
@@ -101,8 +101,8 @@ func TestPanelCountResolves(t *testing.T) {
 	if w.controls.panelMsg.Hidden {
 		t.Error("panel count 5000 shows no message")
 	}
-	if got := w.ctl.Study().Panelling.Panels; got != 1500 {
-		t.Errorf("after a rejected count the study has %d panels, want 1500", got)
+	if got := w.ctl.Study().Panelling.Panels; got != 1100 {
+		t.Errorf("after a rejected count the study has %d panels, want 1100", got)
 	}
 }
 
@@ -467,5 +467,55 @@ func TestOpenSectionFile(t *testing.T) {
 	}
 	if encoded(t, w.ctl.Study()) != before {
 		t.Error("an unreadable file changed the study")
+	}
+}
+
+func TestGroundAndInverted(t *testing.T) {
+	w := newTestBench(t)
+	free := current(t, w)
+	w.controls.clearance.SetText("60")
+	w.controls.ground.SetChecked(true)
+	res := current(t, w)
+	if g := w.ctl.Study().Ground; !g.Enabled || g.ClearanceMM != 60 {
+		t.Fatalf("ground is %+v", g)
+	}
+	if !res.Layout.Ground || !res.Config.Ground {
+		t.Error("the result was not solved in ground effect")
+	}
+	// The free-air sweep no longer holds; in ground effect it waits for Run.
+	if w.ctl.Sweep() != nil {
+		t.Error("the free-air sweep is still shown in ground effect")
+	}
+	if pv := w.views[viewPolar]; pv.note.Hidden || pv.canvas.Figure() != nil {
+		t.Error("the polar still shows a figure, or no note, without a sweep")
+	}
+	w.controls.runSweep()
+	w.WaitIdle()
+	if len(w.ctl.Sweep()) != 17 {
+		t.Errorf("ground-effect sweep has %d angles, want 17", len(w.ctl.Sweep()))
+	}
+	if pv := w.views[viewPolar]; !pv.note.Hidden || pv.canvas.Figure() == nil {
+		t.Error("the polar shows no figure after the sweep ran")
+	}
+	res = current(t, w)
+	// Image-method trend (REFERENCES.md sec. 5, Zerihan & Zhang 2000): an
+	// inverted wing near the ground makes more downforce in potential flow.
+	if !(res.Solution.Cl < free.Solution.Cl) {
+		t.Errorf("Cl %g in ground effect is not below %g in free air", res.Solution.Cl, free.Solution.Cl)
+	}
+	w.controls.inverted.SetChecked(false)
+	up := current(t, w)
+	if w.ctl.Study().Inverted || up.Layout.Inverted {
+		t.Error("upright mounting not applied")
+	}
+	if !(up.Solution.Cl > 0) {
+		t.Errorf("upright cambered section at 4° has Cl %g, want positive", up.Solution.Cl)
+	}
+	w.controls.clearance.SetText("-5")
+	if w.controls.flowMsg.Hidden {
+		t.Error("a negative clearance shows no message")
+	}
+	if w.ctl.Study().Ground.ClearanceMM != 60 {
+		t.Error("a rejected clearance changed the study")
 	}
 }
