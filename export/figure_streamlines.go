@@ -53,10 +53,14 @@ func (s *speedLines) Plot(c draw.Canvas, p *plot.Plot) {
 			for j+1 < n && s.bin(0.5*(sp.speed[j]+sp.speed[j+1])) == b {
 				j++
 			}
-			pts := make([]vg.Point, 0, j-i+1)
-			for k := i; k <= j; k++ {
+			// One point of overlap on each side keeps the curve smooth
+			// across the colour change.
+			lo, hi := max(i-1, 0), min(j+1, n-1)
+			pts := make([]vg.Point, 0, hi-lo+1)
+			for k := lo; k <= hi; k++ {
 				pts = append(pts, vg.Point{X: trX(sp.x[k] * mmPerM), Y: trY(sp.y[k] * mmPerM)})
 			}
+			pts = smoothPath(pts, i-lo, len(pts)-1-(hi-j))
 			c.StrokeLines(lineStyle(s.ramp[b], s.width, nil), c.ClipLinesXY(pts)...)
 			i = j
 		}
@@ -112,9 +116,12 @@ func streamlinesPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		if err != nil {
 			return nil, &ViewError{View: ViewStreamlines, Err: fmt.Errorf("element %q: %w", b.name, err)}
 		}
+		// Fill clipped to the data area, outline drawn separately so that
+		// the clip edges of a zoomed view are not drawn as if they were
+		// the body's.
 		poly.Color = th.bodyFill
-		poly.LineStyle = lineStyle(th.body, widthNormal, nil)
-		polys = append(polys, poly)
+		poly.LineStyle.Width = 0
+		polys = append(polys, poly, &clippedLine{xys: xys, style: lineStyle(th.body, widthNormal, nil)})
 		k.keep(xys)
 	}
 	bodyExt := e
@@ -155,7 +162,7 @@ func streamlinesPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		if sp.dividing {
 			sty, hasDiv = divSty, true
 		}
-		p.Add(&clippedLine{xys: xys, style: sty})
+		p.Add(&clippedLine{xys: xys, style: sty, smooth: true})
 		k.keep(xys)
 	}
 	if hasDiv {
@@ -181,8 +188,9 @@ func streamlinesPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 // clippedLine is a polyline without a data range, clipped to the data
 // area, for curves that should not widen the framing.
 type clippedLine struct {
-	xys   plotter.XYs
-	style draw.LineStyle
+	xys    plotter.XYs
+	style  draw.LineStyle
+	smooth bool // draw a Catmull–Rom curve through the points
 }
 
 func (l *clippedLine) Plot(c draw.Canvas, p *plot.Plot) {
@@ -191,7 +199,48 @@ func (l *clippedLine) Plot(c draw.Canvas, p *plot.Plot) {
 	for i, q := range l.xys {
 		pts[i] = vg.Point{X: trX(q.X), Y: trY(q.Y)}
 	}
+	if l.smooth {
+		pts = smoothPath(pts, 0, len(pts)-1)
+	}
 	c.StrokeLines(l.style, c.ClipLinesXY(pts)...)
+}
+
+// smoothSegment is the longest straight piece, in points, that smoothPath
+// leaves: below it a polyline reads as a curve.
+const smoothSegment = vg.Length(3)
+
+// smoothPath returns the part of pts from index a to b (inclusive) with
+// every segment longer than smoothSegment replaced by the uniform
+// Catmull–Rom spline through its neighbours, P(t) = ½[2P₁ + (P₂ − P₀)t +
+// (2P₀ − 5P₁ + 4P₂ − P₃)t² + (3P₁ − P₀ − 3P₂ + P₃)t³] (Catmull & Rom,
+// A class of local interpolating splines, 1974), which passes through the
+// traced points. The integrator keeps only its accepted steps, which are
+// long where the flow is straight; zoomed in, straight chords between
+// them would show as corners.
+func smoothPath(pts []vg.Point, a, b int) []vg.Point {
+	if b-a < 1 {
+		return pts[a : b+1]
+	}
+	out := make([]vg.Point, 0, b-a+1)
+	at := func(i int) vg.Point { return pts[min(max(i, 0), len(pts)-1)] }
+	for i := a; i < b; i++ {
+		p0, p1, p2, p3 := at(i-1), at(i), at(i+1), at(i+2)
+		out = append(out, p1)
+		d := math.Hypot(float64(p2.X-p1.X), float64(p2.Y-p1.Y))
+		n := int(d / float64(smoothSegment))
+		if n > 64 {
+			n = 64 // a segment across the whole figure needs no more
+		}
+		for k := 1; k < n; k++ {
+			t := vg.Length(k) / vg.Length(n)
+			t2, t3 := t*t, t*t*t
+			f := func(a, b, c, d vg.Length) vg.Length {
+				return 0.5 * (2*b + (c-a)*t + (2*a-5*b+4*c-d)*t2 + (3*b-a-3*c+d)*t3)
+			}
+			out = append(out, vg.Point{X: f(p0.X, p1.X, p2.X, p3.X), Y: f(p0.Y, p1.Y, p2.Y, p3.Y)})
+		}
+	}
+	return append(out, pts[b])
 }
 
 // sceneStreamlines converts the scene's streamlines to paths; speeds are

@@ -12,6 +12,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"sync"
 	"testing"
 
 	"gonum.org/v1/plot"
@@ -295,5 +296,30 @@ func TestWriteFigureFiles(t *testing.T) {
 			t.Fatal(err)
 		}
 		os.WriteFile(filepath.Join(*figureDir, fmt.Sprintf("nose-dark%v.png", dark)), b.Bytes(), 0o644)
+	}
+}
+
+// TestRenderConcurrent renders views from several goroutines at once, as
+// the desktop app does off its UI thread; run with -race to check that
+// the figures share no mutable state.
+func TestRenderConcurrent(t *testing.T) {
+	sc := synthScene()
+	var wg sync.WaitGroup
+	errs := make(chan error, 8)
+	for i := range 8 {
+		wg.Add(1)
+		go func(v View) {
+			defer wg.Done()
+			s := *sc
+			s.Dark = v%2 == 0
+			if _, err := Render(v, &s, 300, 200, 72); err != nil {
+				errs <- err
+			}
+		}(Views[i%4])
+	}
+	wg.Wait()
+	close(errs)
+	for err := range errs {
+		t.Error(err)
 	}
 }
