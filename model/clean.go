@@ -199,6 +199,13 @@ func (r *CleanReport) String() string {
 //     that point is farther than LESnapTol;
 //  6. with CloseTE, closes the trailing-edge gap (see TECloseBlend).
 //
+// Steps 5 and 6 and the warnings work along the chord whether or not
+// Derotate is set; without it the result is turned back to the input's
+// chord angle at the end (and a WarnInclined warning states the angle).
+// The trailing-edge search compares how sharply the contour turns near its
+// two ends (findTE); it is a heuristic, and the report always says where
+// the contour was started when that is not where the input started.
+//
 // It then warns, without changing anything, of kinks, spikes, crossing
 // surfaces, x running backwards along a surface, a sparse nose and a very
 // blunt trailing edge (see the constants for the thresholds). Warning

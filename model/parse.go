@@ -157,9 +157,9 @@ func (p *Parsed) Clean(opt CleanOptions) (*Section, *CleanReport, error) {
 // ParseCoordinates reads a coordinate text file as the trade circulates
 // them. It accepts:
 //
-//   - an optional name line (the first line that does not start with a
-//     number) and further text lines before the data, which are noted and
-//     skipped;
+//   - an optional name line (the first line before the data that is not
+//     all numbers, so "250 mm flap" is a name) and further text lines
+//     before the data, which are noted and skipped;
 //   - comment lines starting with #, %, // or !, and comments after the
 //     numbers starting with #, // or !; blank lines anywhere;
 //   - numbers separated by spaces, tabs, commas or semicolons, in any mix;
@@ -175,9 +175,12 @@ func (p *Parsed) Clean(opt CleanOptions) (*Section, *CleanReport, error) {
 //     documents, are read as '-' and ' ';
 //   - the layouts of FileLayout: one loop; two surfaces (recognised when x
 //     runs from one end to the other and jumps back); two surfaces after a
-//     point-count line, which must agree with the points that follow; a
-//     header row naming x and y columns. A single number on the first data
-//     line is taken as the total point count and checked.
+//     point-count line, which must agree with the points that follow (two
+//     integers on the first data line lying well outside the box of the
+//     other points; inside it they are a point); a header row naming x and
+//     y columns, with as many fields as the first data line. A single
+//     number on the first data line is taken as the total point count and
+//     checked.
 //
 // It rejects, with a *ParseError naming the line and column: empty input,
 // binary data (NUL bytes, or more than 10% control bytes or invalid UTF-8),
