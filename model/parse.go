@@ -351,6 +351,12 @@ var numberRE = regexp.MustCompile(`^[+-]?([0-9]+\.?[0-9]*|\.[0-9]+)([eEdD][+-]?[
 var decCommaRE = regexp.MustCompile(`^[+-]?[0-9]*,[0-9]+([eEdD][+-]?[0-9]+)?$|^[+-]?[0-9]+([eEdD][+-]?[0-9]+)?$`)
 var nonFiniteRE = regexp.MustCompile(`^(?i)[+-]?(nan|inf|infinity)$`)
 
+// runTogetherRE matches two numbers with no blank between them, as
+// fixed-width columns print a negative value (0.500000-0.012345), which
+// is also how some Fortran output writes an exponent without its letter
+// (1.0-3). Being ambiguous, it is rejected with that explanation.
+var runTogetherRE = regexp.MustCompile(`^[+-]?[0-9]*\.?[0-9]+[+-][0-9]*\.?[0-9]+$`)
+
 // isComment reports whether a trimmed line is a whole-line comment.
 func isComment(s string) bool {
 	return strings.HasPrefix(s, "#") || strings.HasPrefix(s, "%") || strings.HasPrefix(s, "//") || strings.HasPrefix(s, "!")
@@ -370,7 +376,7 @@ func stripInline(s string) string {
 // looksNumeric reports whether a token starts a data line: a number in
 // either decimal convention, or NaN/Inf (rejected later with its place).
 func looksNumeric(tok string) bool {
-	return numberRE.MatchString(tok) || decCommaRE.MatchString(tok) || nonFiniteRE.MatchString(tok)
+	return numberRE.MatchString(tok) || decCommaRE.MatchString(tok) || nonFiniteRE.MatchString(tok) || runTogetherRE.MatchString(tok)
 }
 
 // splitFields splits a line at runs of the given separator characters,
@@ -605,6 +611,9 @@ func (p *parser) number(line int, f field) (float64, error) {
 		}
 		t = strings.Replace(t, ",", ".", 1)
 	} else if !numberRE.MatchString(t) {
+		if runTogetherRE.MatchString(t) {
+			return 0, p.errAt(line, f.col, fmt.Errorf("%q: two numbers run together (fixed-width columns without a blank) or an exponent without its E; put a blank between the numbers or write the E: %w", t, ErrNotNumber))
+		}
 		return 0, p.errAt(line, f.col, fmt.Errorf("%q: %w", clip(t, 30), ErrNotNumber))
 	}
 	if i := strings.IndexAny(t, "dD"); i >= 0 {

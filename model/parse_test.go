@@ -345,6 +345,8 @@ func TestParseColumns(t *testing.T) {
 		{"word after numbers", good + "0.3 abc\n", 6, 5, ErrNotNumber},
 		{"empty field", "1,,0\n" + good, 1, 3, ErrNotNumber},
 		{"hex float", "1 0\n0x1p-2 0\n" + good, 2, 0, ErrNotNumber},
+		{"run together, first line", "1.000000-0.000100\n" + good, 1, 1, ErrNotNumber},
+		{"run together, y", "1 0\n0.5 0.06\n 0.25 0.04-0.1\n" + good, 3, 7, ErrNotNumber},
 	} {
 		_, err := ParseCoordinates(strings.NewReader(c.in), "t.dat")
 		var pe *ParseError
