@@ -260,9 +260,17 @@ func (w *Workbench) dropped(_ fyne.Position, uris []fyne.URI) {
 	w.loadSectionFile(u.Path())
 }
 
-// showReport shows the cleaning reports of the current sections.
+// showReport shows the cleaning reports of the current sections and the
+// solver's warnings.
 func (w *Workbench) showReport() {
 	var b strings.Builder
+	if res, _, _ := w.ctl.Result(); res != nil && res.Solution != nil && len(res.Solution.Warnings) > 0 {
+		b.WriteString("Solver\n")
+		for _, m := range res.Solution.Warnings {
+			b.WriteString("  " + m + "\n")
+		}
+		b.WriteString("\n")
+	}
 	for i, r := range w.ctl.Reports() {
 		name := w.ctl.state.study.Elements[i].Name
 		b.WriteString(name + ": " + shortSource(w.ctl.state.study.Elements[i].Section) + "\n")
@@ -276,7 +284,7 @@ func (w *Workbench) showReport() {
 	text.Wrapping = fyne.TextWrapWord
 	scroll := container.NewVScroll(text)
 	scroll.SetMinSize(fyne.NewSize(560, 360))
-	dialog.ShowCustom("Cleaning report", "Close", scroll, w.win)
+	dialog.ShowCustom("Cleaning report and warnings", "Close", scroll, w.win)
 }
 
 // methodsText explains what the numbers are and how far to trust them.

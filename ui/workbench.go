@@ -31,7 +31,7 @@ const (
 // caution is shown in About and Methods; cautionShort in the status line.
 const (
 	caution      = "2-D potential-flow estimates — validate by test. Structural design and mounting follow the competition's rules and qualified engineering review."
-	cautionShort = "2-D potential-flow estimates — validate by test (Help ▸ Methods and cautions)"
+	cautionShort = "2-D potential-flow estimates — validate by test"
 )
 
 // Workbench is the main window: the control column, the four views and the
@@ -117,9 +117,7 @@ func (w *Workbench) build() {
 	w.warnings.Importance = widget.LowImportance
 	w.warnings.Hide()
 	note := widget.NewLabelWithStyle(cautionShort, fyne.TextAlignTrailing, fyne.TextStyle{Italic: true})
-	note.Truncation = fyne.TextTruncateEllipsis
-	note.Importance = widget.LowImportance
-	statusLine := container.NewBorder(nil, nil, nil, w.warnings, container.NewGridWithColumns(2, w.status, note))
+	statusLine := container.NewBorder(nil, nil, nil, container.NewHBox(w.warnings, note), w.status)
 
 	content := container.NewBorder(nil, container.NewVBox(widget.NewSeparator(), statusLine), side, nil, w.viewArea)
 	w.win.SetContent(content)
@@ -199,14 +197,25 @@ func (w *Workbench) lastScene() *scene {
 func (w *Workbench) showStatus(res *engineResult) {
 	w.status.Importance = widget.MediumImportance
 	w.status.SetText(statusText(res))
-	n := 0
+	clean := 0
 	for _, r := range w.ctl.Reports() {
 		if r != nil {
-			n += len(r.Warnings)
+			clean += len(r.Warnings)
 		}
 	}
-	if n > 0 {
-		w.warnings.SetText(fmt.Sprintf("%d cleaning warning%s", n, plural(n)))
+	solve := 0
+	if res.Solution != nil {
+		solve = len(res.Solution.Warnings)
+	}
+	var parts []string
+	if clean > 0 {
+		parts = append(parts, fmt.Sprintf("%d cleaning warning%s", clean, plural(clean)))
+	}
+	if solve > 0 {
+		parts = append(parts, fmt.Sprintf("%d solver warning%s", solve, plural(solve)))
+	}
+	if len(parts) > 0 {
+		w.warnings.SetText(strings.Join(parts, ", "))
 		w.warnings.Show()
 	} else {
 		w.warnings.Hide()
@@ -244,9 +253,6 @@ func statusText(res *engineResult) string {
 		parts = append(parts, "downforce "+fixed(f.DownforcePerSpan, 1)+" N/m")
 	}
 	parts = append(parts, fmt.Sprintf("solve %d ms", res.Elapsed.Milliseconds()))
-	if n := len(s.Warnings); n > 0 {
-		parts = append(parts, fmt.Sprintf("%d solver warning%s", n, plural(n)))
-	}
 	return strings.Join(parts, "   ")
 }
 
