@@ -26,10 +26,10 @@ func densityPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		title = fmt.Sprintf("Density study: %d panels recommended", d.RecommendedPanels)
 	}
 	if d.Cl.OK {
-		title += fmt.Sprintf(", Cl → %.4f (extrapolated)", d.Cl.Value)
+		title += fmt.Sprintf(", Cl → %s (extrapolated)", formatTick(d.Cl.Value, 4))
 	}
 	p := newPlot(th, title, "panels per element", "Cl")
-	k := newKey(th, keyBottomRight)
+	k := newKey(th, keyTopLeft)
 	p.X.Scale = plot.LogScale{}
 	counts := map[int]bool{}
 	cl0, cl1, cp0, cp1 := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
@@ -48,8 +48,12 @@ func densityPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	sort.Slice(ticks, func(i, j int) bool { return ticks[i].Value < ticks[j].Value })
 	p.X.Tick.Marker = plot.ConstantTicks(ticks)
 	p.X.Min, p.X.Max = ticks[0].Value/1.15, ticks[len(ticks)-1].Value*1.15
+	// Headroom above the curves holds the key.
+	const headroom = 0.6
 	p.Y.Min, p.Y.Max = padRange(cl0, cl1, 0.08)
+	p.Y.Max += headroom * (p.Y.Max - p.Y.Min)
 	lo, hi := padRange(cp0, cp1, 0.08)
+	hi += headroom * (hi - lo)
 	tw := &twinAxis{
 		min: lo, max: hi, label: "Cp min", color: th.second,
 		tickLabel: noteStyle(th, th.fg, 9, text.XLeft, text.YCenter),
@@ -84,9 +88,15 @@ func densityPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	}
 	if d.Cl.OK {
 		p.Add(&refLine{value: d.Cl.Value, style: lineStyle(th.faint, widthThin, dashRef),
-			label: fmt.Sprintf("Cl extrapolated %.4f", d.Cl.Value), labelSty: noteStyle(th, th.faint, 8, text.XLeft, text.YBottom)})
+			label: fmt.Sprintf("Cl extrapolated %s", formatTick(d.Cl.Value, 4)), labelSty: noteStyle(th, th.faint, 8, text.XLeft, text.YBottom)})
 	}
 	if d.RecommendedPanels > 0 {
+		// Keep the key off the line and its label at the top.
+		var line plotter.XYs
+		for i := range 11 {
+			line = append(line, plotter.XY{X: float64(d.RecommendedPanels), Y: p.Y.Min + float64(i)/10*(p.Y.Max-p.Y.Min)})
+		}
+		k.keep(line)
 		p.Add(&refLine{value: float64(d.RecommendedPanels), vertical: true, style: lineStyle(th.accent, widthThin, dashRef),
 			label: "recommended", labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)})
 	}

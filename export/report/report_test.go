@@ -58,6 +58,35 @@ func solve(t *testing.T, st *model.Study) *solver.Result {
 	return r
 }
 
+// density runs a small density study of st: 40 to 320 panels, two nose
+// clusterings, each a full engine solve.
+func density(t *testing.T, st *model.Study) *solver.DensityResult {
+	t.Helper()
+	secs := make([]*model.Section, len(st.Elements))
+	for i, e := range st.Elements {
+		s, _, err := model.SectionFromSource(e.Section, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		secs[i] = s
+	}
+	solve := func(panels int, nose float64) (*solver.Solution, error) {
+		c := st.Clone()
+		c.Panelling.Panels, c.Panelling.Nose = panels, nose
+		c.Viscous.Enabled = false
+		r, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: c, Sections: secs})
+		if err != nil {
+			return nil, err
+		}
+		return r.Solution, nil
+	}
+	d, err := solver.DensityStudy(context.Background(), solver.DensityOptions{Panels: []int{40, 80, 160, 320}, Nose: []float64{0.3, 0.7}}, solve, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return d
+}
+
 func tool(t *testing.T, name string, args ...string) string {
 	t.Helper()
 	path, err := exec.LookPath(name)
@@ -78,7 +107,7 @@ func TestReport(t *testing.T) {
 	st := demoStudy()
 	res := solve(t, st)
 	var b bytes.Buffer
-	in := Input{Study: st, Result: res, FileName: "demo-rear-wing.sbstudy", AppVersion: "0.9.0-test",
+	in := Input{Study: st, Result: res, Density: density(t, st), FileName: "demo-rear-wing.sbstudy", AppVersion: "0.9.0-test",
 		Date: time.Date(2026, 3, 14, 0, 0, 0, 0, time.UTC)}
 	if err := Write(&b, in); err != nil {
 		t.Fatal(err)
@@ -108,7 +137,7 @@ func TestReport(t *testing.T) {
 	}
 	sol := res.Solution
 	wants := []string{
-		st.Name, "Inputs", "Results", "Section and panels", "Pressure and flow", "Sweep", "Boundary layer", "Methods", "References", "Limitations and cautions",
+		st.Name, "Inputs", "Results", "Section and panels", "Pressure and flow", "Sweep", "Boundary layer", "Panel density study", "Methods", "References", "Limitations and cautions",
 		"Katz", "Thwaites", "Squire", "Sutherland", "U.S. Standard Atmosphere, 1976",
 		"validate by test", "qualified engineering review",
 		Coef(sol.Cl), Coef(sol.ClPressure), Coef(sol.Cm), Coef(-sol.Cl), "0.9.0-test", "14 March 2026",
@@ -119,6 +148,9 @@ func TestReport(t *testing.T) {
 	for _, c := range res.Sweep {
 		wants = append(wants, Coef(c.Cl), Coef(c.Cm))
 	}
+	for _, row := range in.Density.Rows {
+		wants = append(wants, Coef(row.Cl))
+	}
 	for _, w := range wants {
 		if !strings.Contains(text, w) {
 			t.Errorf("report text lacks %q", w)
@@ -127,8 +159,9 @@ func TestReport(t *testing.T) {
 	// Title, cautions and inputs (1); results and notes (1); panels,
 	// close-up, Cp and streamlines at two figures a page (2); the polar
 	// with the sweep table (1; no drag polar, as every angle separates);
-	// a boundary-layer page per element (2); methods (1).
-	if want := 8; pages != want {
+	// a boundary-layer page per element (2); the density study (1);
+	// methods (1).
+	if want := 9; pages != want {
 		t.Errorf("%d pages, want %d", pages, want)
 	}
 }
