@@ -54,6 +54,18 @@
 // panels; streamline.go integrates streamlines with an adaptive Runge–Kutta
 // pair.
 //
+// # Trailing edges
+//
+// The Kutta condition sets the strengths at the first and last nodes equal
+// and opposite. A closed trailing edge has those nodes coincide. An open
+// (blunt) one leaves the gap between them without a panel, which is good
+// for gaps of a percent or two of chord; but once its last panels are
+// shorter than the gap, the Cp of the panel or two next to it shows a
+// spurious suction that grows as panels shrink (flow through the gap; see
+// the notes in system.go). Cl is unaffected (it converges at second order),
+// CpMin and XCpMin ignore panels behind TrailingEdgeCutXC, and a Solution
+// warns. Cp plots of open trailing edges should be read with that in mind.
+//
 // In ground mode the freestream must be parallel to the ground: Solve and
 // Sweep accept only α = 0 there, and the configuration itself is placed at
 // its angle of attack.

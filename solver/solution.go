@@ -67,7 +67,7 @@ type ElementSolution struct {
 	Cl         float64   // from circulation, Kutta–Joukowski: Cl = 2Γ/(U∞c)
 	ClPressure float64   // from integrating Cp over the panels
 	Cm         float64   // about the element's quarter chord, from pressure
-	CpMin      float64   // suction peak: lowest Cp ahead of x/c = TrailingEdgeCutXC (see system.go)
+	CpMin      float64   // suction peak: lowest Cp ahead of x/c = TrailingEdgeCutXC (see the package doc, Trailing edges)
 	XCpMin     float64   // x/c of CpMin
 	Stagnation Stagnation
 
@@ -83,7 +83,7 @@ type ElementSolution struct {
 
 // Solution is the flow about a configuration at one freestream angle.
 type Solution struct {
-	AlphaDeg   float64 // freestream angle to +x used in this solve
+	AlphaDeg   float64 // freestream angle to +x used in this solve (a caller may relabel it; the field keeps the solve's own)
 	Elements   []ElementSolution
 	Cl         float64 // whole configuration, from circulation, on Config.RefChord
 	ClPressure float64 // whole configuration, from pressure

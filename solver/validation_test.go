@@ -305,7 +305,7 @@ func TestImageMethodEqualsMirror(t *testing.T) {
 		el   Element
 	}{
 		{"NACA 4412 at 5°", transform(nacaElement(t, "4412", 120), 5, 1, model.Point{})},
-		{"two elements", transform(nacaElement(t, "2412", 80), -8, 0.5, model.Point{X: 1.1, Y: 0.1})},
+		{"half-size NACA 2412 at -8°", transform(nacaElement(t, "2412", 80), -8, 0.5, model.Point{X: 1.1, Y: 0.1})},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			img := mustSystem(t, Config{Elements: []Element{tc.el}, Ground: true, GroundY: groundY}).Solve(0)
