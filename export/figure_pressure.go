@@ -33,16 +33,22 @@ func (a cpAbscissa) panel(p solver.Panel) float64 {
 }
 
 // pinX maps a pinned curve's x/c on element i to the axis; in the
-// configuration abscissa it needs the element's chord line from the scene.
+// configuration abscissa it needs the element's chord line from the
+// scene's geometry.
 func (a cpAbscissa) pinX(sc *Scene, i int, xc float64) (float64, bool) {
 	if a.perElement {
 		return xc, true
 	}
-	if sc.Layout == nil || i >= len(sc.Layout.Elements) {
+	bs := sceneBodies(sc)
+	if i >= len(bs) || len(bs[i].nodes) < 2 {
 		return 0, false
 	}
-	e := sc.Layout.Elements[i]
-	x := e.LeadingEdge.X + xc*(e.TrailingEdge.X-e.LeadingEdge.X)
+	// The chord line as solved: leading-edge node to the trailing-edge
+	// midpoint.
+	n := bs[i].nodes
+	le := n[bs[i].le]
+	te := n[0].Add(n[len(n)-1]).Scale(0.5)
+	x := le.X + xc*(te.X-le.X)
 	return (x - a.x0) / a.cref, true
 }
 
