@@ -16,6 +16,7 @@ import (
 	"testing"
 
 	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg"
 )
 
 // distinctColours counts the distinct colours in the rectangle r of img,
@@ -321,5 +322,71 @@ func TestRenderConcurrent(t *testing.T) {
 	close(errs)
 	for err := range errs {
 		t.Error(err)
+	}
+}
+
+// TestNiceTicks: major ticks at a 1, 2 or 5 × 10^k step inside the range,
+// labelled with the decimals the step needs and a true minus sign.
+func TestNiceTicks(t *testing.T) {
+	for _, c := range []struct {
+		lo, hi float64
+		labels []string
+	}{
+		{0, 1, []string{"0.0", "0.2", "0.4", "0.6", "0.8", "1.0"}},
+		{-25, 5, []string{"\u221225", "\u221220", "\u221215", "\u221210", "\u22125", "0", "5"}},
+		{-0.07, -0.04, []string{"\u22120.070", "\u22120.065", "\u22120.060", "\u22120.055", "\u22120.050", "\u22120.045", "\u22120.040"}},
+		{40, 360, []string{"50", "100", "150", "200", "250", "300", "350"}},
+	} {
+		var got []string
+		for _, tk := range (niceTicks{}).Ticks(c.lo, c.hi) {
+			if tk.Label != "" {
+				got = append(got, tk.Label)
+			}
+			if tk.Value < c.lo-1e-9 || tk.Value > c.hi+1e-9 {
+				t.Errorf("[%g, %g]: tick %g outside", c.lo, c.hi, tk.Value)
+			}
+		}
+		if fmt.Sprint(got) != fmt.Sprint(c.labels) {
+			t.Errorf("[%g, %g]: labels %q, want %q", c.lo, c.hi, got, c.labels)
+		}
+	}
+}
+
+// TestSmoothPath: the Catmull–Rom curve passes through every traced point
+// and leaves no piece longer than smoothSegment (but for the 64-piece cap).
+func TestSmoothPath(t *testing.T) {
+	pts := []vg.Point{{X: 0, Y: 0}, {X: 30, Y: 10}, {X: 60, Y: 0}, {X: 61, Y: 0}, {X: 100, Y: 40}}
+	out := smoothPath(pts, 0, len(pts)-1)
+	k := 0
+	for _, q := range out {
+		if k < len(pts) && q == pts[k] {
+			k++
+		}
+	}
+	if k != len(pts) {
+		t.Errorf("passes through %d of %d points", k, len(pts))
+	}
+	for i := 0; i+1 < len(out); i++ {
+		if d := math.Hypot(float64(out[i+1].X-out[i].X), float64(out[i+1].Y-out[i].Y)); d > 2*float64(smoothSegment) {
+			t.Errorf("piece %d is %.2f pt long", i, d)
+		}
+	}
+}
+
+// TestPinAbscissa: on the configuration abscissa a pin's x/c = 0 and 1
+// land on the element's leading and trailing edge.
+func TestPinAbscissa(t *testing.T) {
+	sc := synthScene()
+	ab := cpAbscissa{x0: -0.01, cref: 0.35}
+	for i, e := range sc.Layout.Elements {
+		for _, c := range []struct {
+			xc float64
+			x  float64
+		}{{0, e.Nodes[e.LE].X}, {1, (e.Nodes[0].X + e.Nodes[len(e.Nodes)-1].X) / 2}} {
+			got, ok := ab.pinX(sc, i, c.xc)
+			if want := (c.x - ab.x0) / ab.cref; !ok || math.Abs(got-want) > 1e-12 {
+				t.Errorf("element %d x/c %g: %g, want %g", i, c.xc, got, want)
+			}
+		}
 	}
 }

@@ -64,11 +64,15 @@ type OutlineOptions struct {
 const DefaultOutlineGapMM = 20
 
 // NewOutline builds the outline of layout l (metres). It returns a
-// *model.FieldError for bad options and an *OffsetError when an element's
-// inward offset fails.
+// *model.FieldError for bad options, an *OffsetError when an element's
+// inward offset fails and an error wrapping ErrNoData for a layout without
+// elements.
 func NewOutline(name string, l *model.Layout, opt OutlineOptions) (*Outline, error) {
 	if l == nil {
 		panic("export: nil layout")
+	}
+	if len(l.Elements) == 0 {
+		return nil, fmt.Errorf("export: outline %q: %w: no elements", name, ErrNoData)
 	}
 	if opt.SkinMM < 0 || math.IsNaN(opt.SkinMM) || math.IsInf(opt.SkinMM, 0) {
 		return nil, &model.FieldError{Field: "outline.skin_mm", Err: fmt.Errorf("%g is not a thickness", opt.SkinMM)}

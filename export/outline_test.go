@@ -59,6 +59,9 @@ func TestOutlineErrors(t *testing.T) {
 			t.Errorf("%s: error %v, want field %s", c.name, err, c.field)
 		}
 	}
+	if _, err := NewOutline("empty", &model.Layout{}, OutlineOptions{}); !errors.Is(err, ErrNoData) {
+		t.Errorf("empty layout: error %v does not wrap ErrNoData", err)
+	}
 	// A 6 mm skin is thicker than the main plane's nose radius, 1.1019 t² c
 	// = 3.97 mm for t = 0.12, c = 250 mm (Abbott & von Doenhoff, Theory of
 	// Wing Sections, 1959, eq. 6.3): the offset folds at the nose.
