@@ -308,3 +308,27 @@ func coefficientsOf(sol *Solution) Coefficients {
 	}
 	return c
 }
+
+// Density runs the study's density study (st.Density: panel counts, nose
+// clustering values and tolerances; defaults where empty) at the study's
+// angle of attack, re-placing and re-solving the whole configuration at
+// each count. progress is called after each solve.
+func (e *Engine) Density(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int)) (*DensityResult, error) {
+	if err := st.Validate(); err != nil {
+		return nil, err
+	}
+	opt := DensityOptions{Panels: st.Density.Panels, Nose: st.Density.Nose, TolClPct: st.Density.TolClPct, TolCpMinPct: st.Density.TolCpMinPct}
+	if len(opt.Nose) == 0 {
+		opt.Nose = []float64{st.Panelling.Nose}
+	}
+	solve := func(panels int, nose float64) (*Solution, error) {
+		s := st.Clone()
+		s.Panelling.Panels, s.Panelling.Nose = panels, nose
+		r, err := NewEngine().Run(ctx, Request{Study: s, Sections: secs})
+		if err != nil {
+			return nil, err
+		}
+		return r.Solution, nil
+	}
+	return DensityStudy(ctx, opt, solve, progress)
+}

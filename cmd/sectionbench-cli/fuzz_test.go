@@ -25,3 +25,27 @@ func FuzzParseRange(f *testing.F) {
 		}
 	})
 }
+
+// FuzzParseLists: the density study's list arguments never panic, and
+// what they accept is in range and increasing.
+func FuzzParseLists(f *testing.F) {
+	for _, s := range []string{"20,40,80", "16", "2000,2001", "40,20", "1e3", ",", "0.5,1", "-0,NaN"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		if l, err := parseIntList("--panels", s); err == nil {
+			for i, n := range l {
+				if n < 16 || n > 2000 || (i > 0 && n <= l[i-1]) {
+					t.Fatalf("accepted %q as %v", s, l)
+				}
+			}
+		}
+		if l, err := parseFloatList("--nose", s, 0, 1); err == nil {
+			for _, x := range l {
+				if !(x >= 0 && x <= 1) {
+					t.Fatalf("accepted %q as %v", s, l)
+				}
+			}
+		}
+	})
+}

@@ -32,6 +32,7 @@ func commands() []command {
 		{"solve", "solve one angle of attack and print the coefficients and surface Cp", cmdSolve},
 		{"sweep", "solve a range of angles of attack (the polar)", cmdSweep},
 		{"clean", "clean a coordinate file and print what was changed", cmdClean},
+		{"density", "density study: the answer against panel count, extrapolated", cmdDensity},
 	}
 }
 

@@ -2,13 +2,12 @@ package main
 
 import (
 	"context"
-	"encoding/csv"
 	"encoding/json"
 	"fmt"
 	"io"
-	"strconv"
 	"text/tabwriter"
 
+	"sectionbench/export"
 	"sectionbench/solver"
 )
 
@@ -78,26 +77,5 @@ func fmtShort(f float64, format string) string {
 }
 
 func sweepCSV(w io.Writer, res *solver.Result) error {
-	cw := csv.NewWriter(w)
-	head := []string{"alpha_deg", "cl", "cl_pressure", "cm", "cp_min", "x_cp_min"}
-	if res.SweepViscous != nil {
-		head = append(head, "cd", "x_tr_upper", "x_tr_lower")
-	}
-	cw.Write(head)
-	f := func(x float64) string {
-		if x != x {
-			return ""
-		}
-		return strconv.FormatFloat(x, 'g', 8, 64)
-	}
-	for i, c := range res.Sweep {
-		row := []string{f(c.AlphaDeg), f(c.Cl), f(c.ClPressure), f(c.Cm), f(c.CpMin), f(c.XCpMin)}
-		if res.SweepViscous != nil {
-			v := res.SweepViscous[i]
-			row = append(row, f(v.Cd), f(v.TransitionUpper), f(v.TransitionLower))
-		}
-		cw.Write(row)
-	}
-	cw.Flush()
-	return cw.Error()
+	return export.WriteSweepTable(w, res.Sweep, res.SweepViscous)
 }

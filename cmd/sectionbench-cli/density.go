@@ -1,0 +1,198 @@
+package main
+
+import (
+	"context"
+	"encoding/csv"
+	"encoding/json"
+	"fmt"
+	"io"
+	"strconv"
+	"strings"
+	"text/tabwriter"
+
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+type jsonDensityRow struct {
+	Panels int `json:"panels"`
+	Nose   num `json:"nose"`
+	Cl     num `json:"cl"`
+	Cm     num `json:"cm"`
+	CpMin  num `json:"cp_min"`
+	DCl    num `json:"d_cl"`
+	DCpMin num `json:"d_cp_min"`
+}
+
+type jsonExtrapolation struct {
+	Value num `json:"value"`
+	Error num `json:"error_estimate"`
+	Order num `json:"observed_order"`
+	OK    bool `json:"ok"`
+}
+
+type jsonDensity struct {
+	AlphaDeg     num                          `json:"alpha_deg"`
+	Spacing      string                       `json:"spacing"`
+	Rows         []jsonDensityRow             `json:"rows"`
+	Order        num                          `json:"observed_order"`
+	Extrapolated map[string]jsonExtrapolation `json:"extrapolated"`
+	Recommended  int                          `json:"recommended_panels"`
+	TolClPct     num                          `json:"tol_cl_pct"`
+	TolCpMinPct  num                          `json:"tol_cp_min_pct"`
+}
+
+func cmdDensity(args []string, stdout, stderr io.Writer) error {
+	fs := newFlags("density", "density (--section SPEC | --study FILE) --alpha DEG [--panels LIST] [--nose LIST] [--tol-cl PCT] [--tol-cp PCT] [--spacing LAW] [--format text|csv|json]", stdout)
+	in := addInputs(fs, false, "text", "csv", "json")
+	// --panels and --nose take lists here; the shared single values are
+	// replaced by these.
+	fs.FlagSet.Lookup("panels").Usage = "comma-separated panel `counts`, increasing (default 20,40,80,160,320,640)"
+	fs.FlagSet.Lookup("nose").Usage = "comma-separated nose clustering `values` in [0, 1] (blend spacing)"
+	var panelsList, noseList string
+	tolCl := fs.Float64("tol-cl", solver.DefaultTolClPct, "tolerance on Cl in `percent` for the recommendation")
+	tolCp := fs.Float64("tol-cp", solver.DefaultTolCpMinPct, "tolerance on minimum Cp in `percent`")
+	if _, err := fs.parse(rewriteLists(args, &panelsList, &noseList), 0); err != nil {
+		return err
+	}
+	st, secs, _, err := in.load(fs)
+	if err != nil {
+		return err
+	}
+	if panelsList != "" {
+		if st.Density.Panels, err = parseIntList("--panels", panelsList); err != nil {
+			return err
+		}
+	}
+	if noseList != "" {
+		if st.Density.Nose, err = parseFloatList("--nose", noseList, 0, 1); err != nil {
+			return err
+		}
+	}
+	st.Density.TolClPct, st.Density.TolCpMinPct = *tolCl, *tolCp
+	if err := st.Validate(); err != nil {
+		return flagError(err)
+	}
+	res, err := solver.NewEngine().Density(context.Background(), st, secs, nil)
+	if err != nil {
+		return flagError(err)
+	}
+	out := jsonDensity{
+		AlphaDeg: num(st.Flow.AlphaDeg), Spacing: string(st.Panelling.Spacing),
+		Order: num(res.Cl.ObservedOrder), Recommended: res.RecommendedPanels,
+		TolClPct: num(*tolCl), TolCpMinPct: num(*tolCp),
+		Extrapolated: map[string]jsonExtrapolation{
+			"cl": extrap(res.Cl), "cm": extrap(res.Cm), "cp_min": extrap(res.CpMin),
+		},
+	}
+	for _, r := range res.Rows {
+		out.Rows = append(out.Rows, jsonDensityRow{r.Panels, num(r.Nose), num(r.Cl), num(r.Cm), num(r.CpMin), num(r.DCl), num(r.DCpMin)})
+	}
+	switch in.format {
+	case "json":
+		enc := json.NewEncoder(stdout)
+		enc.SetIndent("", "  ")
+		return enc.Encode(out)
+	case "csv":
+		cw := csv.NewWriter(stdout)
+		cw.Write([]string{"panels", "nose", "cl", "cm", "cp_min", "d_cl", "d_cp_min"})
+		for _, r := range res.Rows {
+			cw.Write([]string{strconv.Itoa(r.Panels), g(r.Nose), g(r.Cl), g(r.Cm), g(r.CpMin), g(r.DCl), g(r.DCpMin)})
+		}
+		cw.Flush()
+		return cw.Error()
+	}
+	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprintln(tw, "panels\tnose\tCl\tΔCl\tCm\tmin Cp\tΔ min Cp\t")
+	for _, r := range res.Rows {
+		fmt.Fprintf(tw, "%d\t%.2f\t%.5f\t%s\t%.5f\t%.4f\t%s\t\n", r.Panels, r.Nose, r.Cl, fmtShort(r.DCl, "%+.5f"), r.Cm, r.CpMin, fmtShort(r.DCpMin, "%+.4f"))
+	}
+	tw.Flush()
+	for _, q := range []struct {
+		name string
+		e    solver.Extrapolation
+	}{{"Cl", res.Cl}, {"Cm", res.Cm}, {"min Cp", res.CpMin}} {
+		if q.e.OK {
+			fmt.Fprintf(stdout, "%-7s extrapolated %.5f ± %.5f, observed order %.2f\n", q.name, q.e.Value, q.e.ErrorEstimate, q.e.ObservedOrder)
+		} else {
+			fmt.Fprintf(stdout, "%-7s not converging monotonically over the finest counts; finest value %.5f\n", q.name, q.e.Value)
+		}
+	}
+	if res.RecommendedPanels > 0 {
+		fmt.Fprintf(stdout, "recommended: %d panels (Cl within %g %%, min Cp within %g %% of the extrapolated values)\n", res.RecommendedPanels, *tolCl, *tolCp)
+	} else {
+		fmt.Fprintf(stdout, "no count in the list meets Cl within %g %% and min Cp within %g %%: extend the list\n", *tolCl, *tolCp)
+	}
+	return nil
+}
+
+func extrap(e solver.Extrapolation) jsonExtrapolation {
+	return jsonExtrapolation{num(e.Value), num(e.ErrorEstimate), num(e.ObservedOrder), e.OK}
+}
+
+func g(x float64) string {
+	if x != x {
+		return ""
+	}
+	return strconv.FormatFloat(x, 'g', 8, 64)
+}
+
+// rewriteLists takes the list forms of --panels and --nose out of args
+// (the shared flags define them as single values) and returns the rest.
+func rewriteLists(args []string, panels, nose *string) []string {
+	var rest []string
+	for i := 0; i < len(args); i++ {
+		a := args[i]
+		name, val, hasVal := strings.Cut(strings.TrimLeft(a, "-"), "=")
+		if !strings.HasPrefix(a, "-") || (name != "panels" && name != "nose") {
+			rest = append(rest, a)
+			continue
+		}
+		if !hasVal {
+			if i+1 >= len(args) {
+				rest = append(rest, a) // let the flag package report it
+				continue
+			}
+			i++
+			val = args[i]
+		}
+		if name == "panels" {
+			*panels = val
+		} else {
+			*nose = val
+		}
+	}
+	return rest
+}
+
+// parseIntList reads "20,40,80".
+func parseIntList(flagName, s string) ([]int, error) {
+	var out []int
+	for _, f := range strings.Split(s, ",") {
+		n, err := strconv.Atoi(strings.TrimSpace(f))
+		if err != nil {
+			return nil, usagef("%s %q: %q is not a whole number", flagName, s, f)
+		}
+		if n < model.MinPanels || n > model.MaxPanels {
+			return nil, usagef("%s %q: %d is outside %d..%d", flagName, s, n, model.MinPanels, model.MaxPanels)
+		}
+		if len(out) > 0 && n <= out[len(out)-1] {
+			return nil, usagef("%s %q: counts must increase", flagName, s)
+		}
+		out = append(out, n)
+	}
+	return out, nil
+}
+
+// parseFloatList reads "0.2,0.5,0.8" with each value in [lo, hi].
+func parseFloatList(flagName, s string, lo, hi float64) ([]float64, error) {
+	var out []float64
+	for _, f := range strings.Split(s, ",") {
+		x, err := strconv.ParseFloat(strings.TrimSpace(f), 64)
+		if err != nil || !(x >= lo && x <= hi) {
+			return nil, usagef("%s %q: %q is not a number in [%g, %g]", flagName, s, f, lo, hi)
+		}
+		out = append(out, x)
+	}
+	return out, nil
+}
