@@ -32,13 +32,18 @@ type Controller struct {
 	sched *scheduler
 	// newEngine makes the engine of a sweep run.
 	newEngine func() engine
+	// do runs a function on the UI goroutine (fyne.Do; tests queue).
+	do func(func())
 
 	// OnStudy is called after the study changed (edit, undo, open).
 	OnStudy func()
 	// OnResult is called on the worker goroutine with the scene of each
 	// result that is still current, or with the error of the current
-	// request (gen 0 for an error outside a solve).
+	// request.
 	OnResult func(gen uint64, sc *scene, res *engineResult, err error)
+	// OnError is called on the UI goroutine when a change could not be
+	// made outside an edit (which returns its error instead).
+	OnError func(err error)
 
 	mu       sync.Mutex
 	result   *engineResult
@@ -49,17 +54,12 @@ type Controller struct {
 	sweepRun context.CancelFunc
 }
 
-// NewController returns a controller editing st (a new study if nil).
-func NewController(st *model.Study) (*Controller, error) {
-	c := &Controller{act: newActivity(), newEngine: newEngine}
+// NewController returns a controller with no study: set its hooks, then
+// Load one before anything else.
+func NewController() *Controller {
+	c := &Controller{act: newActivity(), newEngine: newEngine, do: fyne.Do}
 	c.sched = newScheduler(newEngine(), c.act, c.deliver)
-	if st == nil {
-		st = newStudy()
-	}
-	if err := c.Load(st, ""); err != nil {
-		return nil, err
-	}
-	return c, nil
+	return c
 }
 
 // Study returns a copy of the current study.
@@ -201,8 +201,8 @@ func (c *Controller) notify() {
 }
 
 func (c *Controller) reportError(err error) {
-	if c.OnResult != nil {
-		c.OnResult(0, nil, nil, err)
+	if c.OnError != nil {
+		c.OnError(err)
 	}
 }
 
@@ -284,7 +284,7 @@ func (c *Controller) RunSweep(progress func(done, total int), done func(err erro
 			done(err)
 		}
 		if err == nil {
-			fyne.Do(func() { c.changed(false) }) // redraw the polar with the new sweep
+			c.do(func() { c.changed(false) }) // redraw the polar with the new sweep
 		}
 	}()
 	return nil
@@ -300,9 +300,10 @@ func (c *Controller) CancelSweep() {
 	c.mu.Unlock()
 }
 
-// PinCurrent freezes the current result as a pin of the study.
+// PinCurrent freezes the current result as a pin of the study. It waits
+// for a solve in flight (not for a running sweep).
 func (c *Controller) PinCurrent() error {
-	c.WaitIdle()
+	c.sched.Wait()
 	res, gen, err := c.Result()
 	if err != nil {
 		return err

@@ -405,9 +405,9 @@ func (c *controls) runSweep() {
 		}
 	}
 	err := ctl.RunSweep(func(done, total int) {
-		fyne.Do(func() { c.progress.SetValue(float64(done) / float64(total)) })
+		c.w.do(func() { c.progress.SetValue(float64(done) / float64(total)) })
 	}, func(err error) {
-		fyne.Do(func() { finish(err) })
+		c.w.do(func() { finish(err) })
 	})
 	if err != nil {
 		finish(err)

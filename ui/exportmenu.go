@@ -59,7 +59,7 @@ func (w *Workbench) exportTo(write func(dir string) ([]string, error)) {
 				files, err = write(dir)
 				return err
 			})
-			fyne.Do(func() {
+			w.do(func() {
 				busy.Hide()
 				if err != nil {
 					w.userError(err)

@@ -21,8 +21,8 @@ type plotView struct {
 
 // newPlotView builds a view; onEnlarge toggles it between its cell and the
 // whole view area.
-func newPlotView(kind viewKind, act *activity, onEnlarge func(viewKind)) *plotView {
-	v := &plotView{kind: kind, canvas: newPlotCanvas(kind, act)}
+func newPlotView(kind viewKind, act *activity, do func(func()), onEnlarge func(viewKind)) *plotView {
+	v := &plotView{kind: kind, canvas: newPlotCanvas(kind, act, do)}
 	v.readout = widget.NewLabel("")
 	v.readout.TextStyle = fyne.TextStyle{Monospace: true}
 	v.canvas.onHover = func(s string) { v.readout.SetText(s) }

@@ -61,13 +61,25 @@ type scheduler struct {
 	deliver func(u update, res *engineResult, err error) // on the worker goroutine
 
 	mu      sync.Mutex
+	idle    *sync.Cond // signalled when the worker stops
 	gen     uint64
 	pending *update
 	busy    bool
 }
 
 func newScheduler(eng engine, act *activity, deliver func(update, *engineResult, error)) *scheduler {
-	return &scheduler{eng: eng, act: act, deliver: deliver}
+	s := &scheduler{eng: eng, act: act, deliver: deliver}
+	s.idle = sync.NewCond(&s.mu)
+	return s
+}
+
+// Wait blocks until the worker has delivered the newest request.
+func (s *scheduler) Wait() {
+	s.mu.Lock()
+	for s.busy {
+		s.idle.Wait()
+	}
+	s.mu.Unlock()
 }
 
 // Submit queues req and returns its generation.
@@ -107,6 +119,7 @@ func (s *scheduler) loop() {
 		s.pending = nil
 		if u == nil {
 			s.busy = false
+			s.idle.Broadcast()
 			s.mu.Unlock()
 			return
 		}

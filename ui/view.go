@@ -49,6 +49,7 @@ type plotCanvas struct {
 	image   *canvas.Image
 	onHover func(text string)
 	onNote  func(text string) // says why the view is empty, "" when it is not
+	do      func(func())      // runs a function on the UI goroutine
 
 	mu      sync.Mutex
 	sc      *scene // newest scene, window not set
@@ -66,8 +67,8 @@ type plotCanvas struct {
 	err     error
 }
 
-func newPlotCanvas(kind viewKind, act *activity) *plotCanvas {
-	p := &plotCanvas{kind: kind, act: act}
+func newPlotCanvas(kind viewKind, act *activity, do func(func())) *plotCanvas {
+	p := &plotCanvas{kind: kind, act: act, do: do}
 	p.image = canvas.NewImageFromImage(image.NewRGBA(image.Rect(0, 0, 1, 1)))
 	p.image.FillMode = canvas.ImageFillStretch
 	p.image.ScaleMode = canvas.ImageScalePixels
@@ -218,7 +219,7 @@ func (p *plotCanvas) renderLater() {
 		defer p.act.done()
 		for {
 			f := p.renderNow(nil)
-			fyne.Do(f.show)
+			p.do(f.show)
 			p.mu.Lock()
 			if !p.pending {
 				p.running = false

@@ -40,6 +40,10 @@ type Workbench struct {
 	app fyne.App
 	win fyne.Window
 	ctl *Controller
+	// do runs a function on the UI goroutine: fyne.Do, or in tests a
+	// queue that WaitIdle drains on the test goroutine.
+	do    func(func())
+	drain func() bool
 
 	views    [numViews]*plotView
 	viewArea *fyne.Container
@@ -57,6 +61,13 @@ type Workbench struct {
 // New opens a workbench window in app for the study at path, or for the
 // embedded demo study if path is empty. The window is not shown yet.
 func New(app fyne.App, path string) (*Workbench, error) {
+	return newWorkbench(app, path, fyne.Do, nil)
+}
+
+// newWorkbench is New with the UI-goroutine hook: do posts a function,
+// drain (if not nil) runs the posted ones and reports whether there were
+// any.
+func newWorkbench(app fyne.App, path string, do func(func()), drain func() bool) (*Workbench, error) {
 	var st *model.Study
 	var err error
 	if path == "" {
@@ -67,15 +78,14 @@ func New(app fyne.App, path string) (*Workbench, error) {
 	if err != nil {
 		return nil, err
 	}
-	ctl, err := NewController(nil)
-	if err != nil {
-		return nil, err
-	}
-	w := &Workbench{app: app, ctl: ctl, enlarged: numViews}
+	ctl := NewController()
+	ctl.do = do
+	w := &Workbench{app: app, ctl: ctl, enlarged: numViews, do: do, drain: drain}
 	w.win = app.NewWindow("Sectionbench")
 	w.build()
 	ctl.OnStudy = func() { w.studyChanged() }
 	ctl.OnResult = w.present
+	ctl.OnError = w.userError
 	if err := ctl.Load(st, path); err != nil {
 		return nil, err
 	}
@@ -96,11 +106,18 @@ func (w *Workbench) Controller() *Controller { return w.ctl }
 func (w *Workbench) ShowAndRun() { w.win.ShowAndRun() }
 
 // WaitIdle blocks until every solve and render in flight has been shown.
-func (w *Workbench) WaitIdle() { w.ctl.WaitIdle() }
+func (w *Workbench) WaitIdle() {
+	for {
+		w.ctl.WaitIdle()
+		if w.drain == nil || !w.drain() {
+			return
+		}
+	}
+}
 
 func (w *Workbench) build() {
 	for k := range numViews {
-		w.views[k] = newPlotView(k, w.ctl.act, w.toggleEnlarge)
+		w.views[k] = newPlotView(k, w.ctl.act, w.do, w.toggleEnlarge)
 	}
 	w.grid = container.NewGridWithColumns(2,
 		w.views[viewPanels], w.views[viewPressure], w.views[viewStreamlines], w.views[viewPolar])
@@ -166,14 +183,14 @@ func (w *Workbench) toggleEnlarge(k viewKind) {
 // request has been made meanwhile.
 func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error) {
 	if err != nil {
-		fyne.Do(func() { w.showStatusError(err) })
+		w.do(func() { w.showStatusError(err) })
 		return
 	}
 	var frames [numViews]frame
 	for k, v := range w.views {
 		frames[k] = v.canvas.renderNow(sc)
 	}
-	fyne.Do(func() {
+	w.do(func() {
 		if gen != w.ctl.sched.Latest() {
 			return // stale: a newer request is on its way
 		}
@@ -286,9 +303,5 @@ func (w *Workbench) userError(err error) {
 	if err == nil {
 		return
 	}
-	var fe *model.FieldError
-	if errors.As(err, &fe) {
-		err = fmt.Errorf("%s: %w", fe.Field, fe.Err)
-	}
-	showError(err, w.win)
+	showError(errors.New(friendly(err)), w.win)
 }

@@ -6,6 +6,7 @@ import (
 	"os"
 	"path/filepath"
 	"strings"
+	"sync"
 	"testing"
 
 	"fyne.io/fyne/v2"
@@ -14,12 +15,38 @@ import (
 	"sectionbench/model"
 )
 
-// newTestBench opens the demo study in a headless workbench and waits for
-// its first result.
-func newTestBench(t *testing.T) *Workbench {
+// uiQueue stands in for the UI goroutine in tests: the test driver runs
+// fyne.Do at once on the calling goroutine, which would let workers touch
+// widgets while the test does. Posted functions wait here until the test
+// goroutine drains them.
+type uiQueue struct {
+	mu sync.Mutex
+	fs []func()
+}
+
+func (q *uiQueue) post(f func()) {
+	q.mu.Lock()
+	q.fs = append(q.fs, f)
+	q.mu.Unlock()
+}
+
+func (q *uiQueue) drain() bool {
+	q.mu.Lock()
+	fs := q.fs
+	q.fs = nil
+	q.mu.Unlock()
+	for _, f := range fs {
+		f()
+	}
+	return len(fs) > 0
+}
+
+// openTestBench opens a study (the demo if path is "") in a headless
+// workbench and waits for its first result.
+func openTestBench(t *testing.T, path string) *Workbench {
 	t.Helper()
-	a := test.NewTempApp(t)
-	w, err := New(a, "")
+	q := new(uiQueue)
+	w, err := newWorkbench(fyne.CurrentApp(), path, q.post, q.drain)
 	if err != nil {
 		t.Fatalf("New: %v", err)
 	}
@@ -27,6 +54,12 @@ func newTestBench(t *testing.T) *Workbench {
 	w.WaitIdle()
 	t.Cleanup(func() { w.ctl.CancelSweep(); w.WaitIdle() })
 	return w
+}
+
+func newTestBench(t *testing.T) *Workbench {
+	t.Helper()
+	test.NewTempApp(t)
+	return openTestBench(t, "")
 }
 
 // current returns the newest result and fails if the newest request failed
@@ -225,11 +258,7 @@ func TestSaveAndReopen(t *testing.T) {
 	}
 
 	// Open it in a second workbench: same study, solved.
-	a := fyne.CurrentApp()
-	w2, err := New(a, path)
-	if err != nil {
-		t.Fatal(err)
-	}
+	w2 := openTestBench(t, path)
 	if got := panelCount(current(t, w2)); got != 120 {
 		t.Errorf("reopened study solved with %d panels, want 120", got)
 	}
