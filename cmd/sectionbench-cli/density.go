@@ -25,9 +25,9 @@ type jsonDensityRow struct {
 }
 
 type jsonExtrapolation struct {
-	Value num `json:"value"`
-	Error num `json:"error_estimate"`
-	Order num `json:"observed_order"`
+	Value num  `json:"value"`
+	Error num  `json:"error_estimate"`
+	Order num  `json:"observed_order"`
 	OK    bool `json:"ok"`
 }
 
