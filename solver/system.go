@@ -6,6 +6,7 @@ import (
 	"math"
 	"runtime"
 	"sync"
+	"time"
 
 	"gonum.org/v1/gonum/mat"
 
@@ -186,6 +187,7 @@ type System struct {
 	vt90     []float64
 	forces   []elemQuad
 	hull     []hullVertex // of ±(vt0_j, vt90_j), for CpMin in sweeps
+	timings  Timings
 }
 
 // NewSystem validates cfg, assembles and factorises the influence matrix of
@@ -201,17 +203,32 @@ func NewSystem(cfg Config) (*System, error) {
 	if err != nil {
 		return nil, err
 	}
+	t0 := time.Now()
 	a, b := g.assemble()
 	s := &System{geo: g}
+	t1 := time.Now()
 	if err := s.factorize(a); err != nil {
 		return nil, err
 	}
+	t2 := time.Now()
 	if err := s.solveUnit(b); err != nil {
 		return nil, err
 	}
 	s.prepare()
+	s.timings = Timings{Assembly: t1.Sub(t0), Factorization: t2.Sub(t1), UnitSolves: time.Since(t2)}
 	return s, nil
 }
+
+// Timings are the wall-clock durations of NewSystem's stages, for display
+// and reports (the benchmarks in bench_test.go measure them properly).
+type Timings struct {
+	Assembly      time.Duration // influence matrix, in parallel over rows
+	Factorization time.Duration // LU and condition estimate
+	UnitSolves    time.Duration // the two unit solutions and the sweep forms
+}
+
+// Timings returns how long NewSystem's stages took.
+func (s *System) Timings() Timings { return s.timings }
 
 // newGeometry validates cfg and precomputes its panels.
 func newGeometry(cfg Config) (*geometry, error) {

@@ -265,3 +265,10 @@ func TestAssembleParallelMatchesSerial(t *testing.T) {
 		}
 	}
 }
+
+func TestTimingsRecorded(t *testing.T) {
+	tm := mustSystem(t, Config{Elements: []Element{nacaElement(t, "2412", 100)}}).Timings()
+	if tm.Assembly <= 0 || tm.Factorization <= 0 || tm.UnitSolves <= 0 {
+		t.Errorf("timings %+v, want all positive", tm)
+	}
+}
