@@ -363,32 +363,34 @@ func (k *key) bestCorner(c draw.Canvas, p *plot.Plot, w, h vg.Length) int {
 	if len(k.avoid) == 0 {
 		return k.corner
 	}
+	// The avoided points on the canvas, sparse curves (a sweep) sampled
+	// along their segments too.
 	trX, trY := p.Transforms(&c)
+	var pts []vg.Point
+	for _, xys := range k.avoid {
+		sub := 1
+		if len(xys) < 100 {
+			sub = 12
+		}
+		for i, q := range xys {
+			a := vg.Point{X: trX(q.X), Y: trY(q.Y)}
+			pts = append(pts, a)
+			if i+1 < len(xys) && sub > 1 {
+				b := vg.Point{X: trX(xys[i+1].X), Y: trY(xys[i+1].Y)}
+				for j := 1; j < sub; j++ {
+					f := vg.Length(j) / vg.Length(sub)
+					pts = append(pts, vg.Point{X: a.X + f*(b.X-a.X), Y: a.Y + f*(b.Y-a.Y)})
+				}
+			}
+		}
+	}
 	best, bestN := k.corner, -1
 	for _, corner := range []int{k.corner, keyTopRight, keyTopLeft, keyBottomRight, keyBottomLeft} {
 		r := keyRect(c, corner, w, h)
-		in := func(x, y vg.Length) bool { return x >= r.Min.X && x <= r.Max.X && y >= r.Min.Y && y <= r.Max.Y }
 		n := 0
-		for _, xys := range k.avoid {
-			// Sparse curves (a sweep) are sampled along their segments.
-			sub := 1
-			if len(xys) < 100 {
-				sub = 12
-			}
-			for i, q := range xys {
-				x, y := trX(q.X), trY(q.Y)
-				if in(x, y) {
-					n++
-				}
-				if i+1 < len(xys) && sub > 1 {
-					x1, y1 := trX(xys[i+1].X), trY(xys[i+1].Y)
-					for j := 1; j < sub; j++ {
-						f := vg.Length(j) / vg.Length(sub)
-						if in(x+f*(x1-x), y+f*(y1-y)) {
-							n++
-						}
-					}
-				}
+		for _, q := range pts {
+			if q.X >= r.Min.X && q.X <= r.Max.X && q.Y >= r.Min.Y && q.Y <= r.Max.Y {
+				n++
 			}
 		}
 		if bestN < 0 || n < bestN {
