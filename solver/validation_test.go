@@ -2,6 +2,7 @@ package solver
 
 import (
 	"math"
+	"math/cmplx"
 	"testing"
 
 	"sectionbench/model"
@@ -400,5 +401,70 @@ func TestInvertedDownforceRisesNearGround(t *testing.T) {
 			t.Errorf("h/c=%g: ClPressure %.4f, no more downforce than %.4f higher up", h, cl, prev)
 		}
 		prev = cl
+	}
+}
+
+// vanDeVoorenNodes returns n panels' worth of nodes of the van de Vooren
+// section z = (ζ − a)^k / (ζ − εa)^(k−1) + l on the circle ζ = a e^{iθ},
+// a = 2l(1 + ε)^(k−1)/2^k, chord 2l from (−l, 0) to (l, 0) (Katz & Plotkin,
+// Low-Speed Aerodynamics, 2nd ed., ch. 6; REFERENCES.md §2), normalised
+// to the unit chord with the leading edge at the origin, counter-clockwise
+// from the trailing edge. θ is uniform, which clusters nodes at both edges.
+func vanDeVoorenNodes(n int, eps, k float64) []model.Point {
+	const l = 1.0
+	a := 2 * l * math.Pow(1+eps, k-1) / math.Pow(2, k)
+	pts := make([]model.Point, n+1)
+	prevArg := 0.0
+	for i := range pts {
+		th := 2 * math.Pi * float64(i) / float64(n)
+		// (ζ − a)^k on the continuous branch: ζ − a = 2a sin(θ/2) e^{i(θ+π)/2}.
+		num := cmplx.Rect(math.Pow(2*a*math.Sin(th/2), k), k*(th+math.Pi)/2)
+		// (ζ − εa)^(k−1) with the argument followed continuously from 0.
+		d := complex(a*math.Cos(th)-eps*a, a*math.Sin(th))
+		arg := cmplx.Phase(d)
+		for arg < prevArg-math.Pi {
+			arg += 2 * math.Pi
+		}
+		prevArg = arg
+		den := cmplx.Rect(math.Pow(cmplx.Abs(d), k-1), (k-1)*arg)
+		z := num/den + complex(l, 0)
+		if i == 0 || i == n {
+			z = complex(l, 0)
+		}
+		pts[i] = model.Point{X: (real(z) + l) / (2 * l), Y: imag(z) / (2 * l)}
+	}
+	// Make it counter-clockwise (upper surface first) if the map ran the
+	// other way.
+	area := 0.0
+	for i := range n {
+		area += pts[i].Cross(pts[i+1])
+	}
+	if area < 0 {
+		for i, j := 0, n; i < j; i, j = i+1, j-1 {
+			pts[i], pts[j] = pts[j], pts[i]
+		}
+	}
+	return pts
+}
+
+// The van de Vooren sample of REFERENCES.md §2 [derived]: ε = 0.1,
+// k = 1.9 (τ = 18°, t/c ≈ 0.205), c_l = 2π·2^(2−k)(1 + ε)^(k−1) sin α,
+// 0.6395 at 5°: an exact solution independent of the Kármán–Trefftz code.
+func TestVanDeVooren(t *testing.T) {
+	const eps, k = 0.1, 1.9
+	exact := func(alphaDeg float64) float64 {
+		return 2 * math.Pi * math.Pow(2, 2-k) * math.Pow(1+eps, k-1) * math.Sin(alphaDeg*math.Pi/180)
+	}
+	if math.Abs(exact(5)-0.6395) > 5e-5 {
+		t.Fatalf("formula gives %.5f, reference 0.6395", exact(5))
+	}
+	nodes := vanDeVoorenNodes(200, eps, k)
+	s := mustSystem(t, Config{Elements: []Element{{Name: "van de Vooren", Nodes: nodes, LE: 100}}})
+	for _, alpha := range []float64{-3, 5, 10} {
+		cl := s.Solve(alpha).Cl
+		t.Logf("α=%g: Cl %.5f, exact %.5f (%.2e)", alpha, cl, exact(alpha), relErr(cl, exact(alpha)))
+		if d := relErr(cl, exact(alpha)); d > 1e-3 {
+			t.Errorf("α=%g: Cl %.5f at 200 panels, exact %.5f", alpha, cl, exact(alpha))
+		}
 	}
 }
