@@ -135,6 +135,7 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	}
 	p := newPlot(th, title, "α, degrees", ylabel)
 	k := newKey(th, keyTopLeft)
+	k.above = true // a sweep's curves can reach every corner
 	p.Y.Min, p.Y.Max = padRange(cl0, cl1, 0.06)
 	p.X.Min, p.X.Max = padRange(a0, a1, 0.03)
 	lo, hi := padRange(cm0, cm1, 0.06)

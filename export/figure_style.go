@@ -323,6 +323,9 @@ type key struct {
 	// whose box covers the fewest of these points, the preferred corner
 	// on a tie.
 	avoid []plotter.XYs
+	// above puts the entries in a row in a band above the data area
+	// instead, where they cannot cover data.
+	above bool
 }
 
 type keyEntry struct {
@@ -406,8 +409,40 @@ const (
 	keyMargin = vg.Length(5)
 )
 
+// rowWidth is the width of the entries laid out in a row.
+func (k *key) rowWidth() vg.Length {
+	w := vg.Length(0)
+	for _, e := range k.entries {
+		w += keyThumb + keyPad + k.text.Width(e.label) + 3*keyPad
+	}
+	return w
+}
+
+// GlyphBoxes reserves the band above the data area for a key in a row.
+func (k *key) GlyphBoxes(*plot.Plot) []plot.GlyphBox {
+	if !k.above || len(k.entries) == 0 {
+		return nil
+	}
+	h := k.text.Height("Xg")*1.25 + keyPad
+	return []plot.GlyphBox{{X: 0.5, Y: 1, Rectangle: vg.Rectangle{Min: vg.Point{X: -1}, Max: vg.Point{X: 1, Y: h}}}}
+}
+
 func (k *key) Plot(c draw.Canvas, p *plot.Plot) {
 	if len(k.entries) == 0 {
+		return
+	}
+	if k.above && k.rowWidth() <= c.Max.X-c.Min.X { // else too many entries: a box in a corner
+		lh := k.text.Height("Xg") * 1.25
+		x := c.Center().X - k.rowWidth()/2
+		yc := c.Max.Y + keyPad/2 + lh/2
+		for _, e := range k.entries {
+			tc := draw.Canvas{Canvas: c.Canvas, Rectangle: vg.Rectangle{
+				Min: vg.Point{X: x, Y: yc - lh/2 + 1}, Max: vg.Point{X: x + keyThumb, Y: yc + lh/2 - 1},
+			}}
+			e.thumb.Thumbnail(&tc)
+			c.FillText(k.text, vg.Point{X: x + keyThumb + keyPad, Y: yc}, e.label)
+			x += keyThumb + keyPad + k.text.Width(e.label) + 3*keyPad
+		}
 		return
 	}
 	lh := k.text.Height("Xg") * 1.25
