@@ -42,6 +42,10 @@ const (
 	// the surfaces into the closed trailing edge, with the smoothstep
 	// weight w = 3s² − 2s³ (zero slope change where the blend starts).
 	TECloseBlend = 0.05
+	// MaxCloseTEGap: CloseTE leaves a gap wider than this fraction of the
+	// chord open (and says so): closing it would reshape, not tidy, the
+	// section.
+	MaxCloseTEGap = 0.1
 	// KinkAngleDeg and KinkContrast: a turning between consecutive
 	// segments is a kink when it exceeds KinkAngleDeg and KinkContrast times
 	// the turning in the same direction at both neighbouring points (a
@@ -404,7 +408,11 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	// 6. Trailing-edge gap.
 	last := len(out) - 1
 	rep.TEGap = out[0].Dist(out[last])
-	if opt.CloseTE && rep.TEGap > 0 {
+	closeTE := opt.CloseTE && rep.TEGap > 0 && rep.TEGap <= MaxCloseTEGap
+	if opt.CloseTE && rep.TEGap > MaxCloseTEGap {
+		rep.Warnings = append(rep.Warnings, CleanWarning{Kind: WarnBluntTE, Index: -1, X: 1, Message: fmt.Sprintf("the trailing-edge gap of %.3g%% of the chord was left open: closing more than %g%% would reshape the section", 100*rep.TEGap, 100*MaxCloseTEGap)})
+	}
+	if closeTE {
 		mid := out[0].Add(out[last]).Scale(0.5)
 		blend := func(from, to, step int, p0 Point) {
 			x0 := p0.X - TECloseBlend
@@ -426,7 +434,7 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 		rep.Changes = append(rep.Changes, fmt.Sprintf("closed the trailing-edge gap of %.4g%% of the chord: both trailing-edge points moved to their midpoint, the surfaces blended into it over the last %g%% of the chord", 100*rep.TEGap, 100*TECloseBlend))
 	}
 
-	rep.Warnings = append(rep.Warnings, sectionWarnings(out, leIdx, rep.TEGap, opt.CloseTE)...)
+	rep.Warnings = append(rep.Warnings, sectionWarnings(out, leIdx, rep.TEGap, closeTE)...)
 	if !opt.Derotate {
 		for i, p := range out {
 			out[i] = p.Rotate(Point{}, theta)
@@ -546,6 +554,8 @@ func sectionWarnings(pts []Point, le int, gap float64, closedTE bool) []CleanWar
 		x := 0.0
 		if i >= 0 {
 			x = pts[i].X
+		} else if k == WarnBluntTE {
+			x = 1
 		}
 		ws = append(ws, CleanWarning{Kind: k, Index: i, X: x, Message: msg})
 	}

@@ -449,3 +449,76 @@ func TestCleanFindsTrailingEdge(t *testing.T) {
 		}
 	}
 }
+
+// TestCleanRandomContours feeds random point sets (fixed seed) to Clean:
+// it must not panic, must return typed errors, and every section it
+// returns must be finite with its leading edge at the origin.
+func TestCleanRandomContours(t *testing.T) {
+	rng := rand.New(rand.NewPCG(7, 11))
+	for trial := range 2000 {
+		n := 1 + rng.IntN(40)
+		pts := make([]Point, n)
+		for i := range pts {
+			switch rng.IntN(4) {
+			case 0:
+				if i > 0 {
+					pts[i] = pts[i-1] // duplicates
+					continue
+				}
+				fallthrough
+			default:
+				pts[i] = Point{rng.NormFloat64(), rng.NormFloat64() * 0.1}
+			}
+		}
+		opt := CleanOptions{Derotate: trial%2 == 0, CloseTE: trial%3 == 0}
+		sec, rep, err := Clean("random", pts, opt)
+		if rep == nil {
+			t.Fatalf("trial %d: no report", trial)
+		}
+		if err != nil {
+			var ce *ContourError
+			if !errors.As(err, &ce) {
+				t.Fatalf("trial %d: error %T is not a *ContourError: %v", trial, err, err)
+			}
+			continue
+		}
+		for i := range sec.Len() {
+			if !sec.At(i).IsFinite() {
+				t.Fatalf("trial %d: point %d is %v", trial, i, sec.At(i))
+			}
+		}
+		if le := sec.At(sec.LeadingEdgeIndex()); le.Norm() > 1e-9 {
+			t.Errorf("trial %d: leading edge at %v", trial, le)
+		}
+	}
+}
+
+// TestCleanCloseTELimit: a gap above MaxCloseTEGap is left open, with a
+// warning, even with CloseTE.
+func TestCleanCloseTELimit(t *testing.T) {
+	for _, c := range []struct {
+		open   float64 // added to each surface at the trailing edge, in chords
+		closed bool
+	}{{0.04, true}, {0.08, false}} {
+		pts := testLoop(41)
+		for i := range pts {
+			switch {
+			case i < 40:
+				pts[i].Y += c.open * pts[i].X
+			case i > 40:
+				pts[i].Y -= c.open * pts[i].X
+			}
+		}
+		sec, rep := mustClean(t, "gap", pts, CleanOptions{Derotate: true, CloseTE: true})
+		if got := sec.TrailingEdgeGap() == 0; got != c.closed {
+			t.Errorf("gap %.3g: closed %v, want %v\n%s", rep.TEGap, got, c.closed, rep)
+		}
+		left := false
+		for _, w := range rep.Warnings {
+			left = left || w.Kind == WarnBluntTE && strings.Contains(w.Message, "left open")
+		}
+		if left == c.closed {
+			t.Errorf("gap %.3g: warning of a gap left open %v\n%s", rep.TEGap, left, rep)
+		}
+	}
+}
