@@ -11,6 +11,7 @@ import (
 	"io"
 
 	"sectionbench/export"
+	"sectionbench/export/report"
 	"sectionbench/model"
 	"sectionbench/solver"
 )
@@ -137,8 +138,7 @@ func writeSweepTable(w io.Writer, sweep []solver.Coefficients) error {
 }
 
 func writeReport(w io.Writer, st *model.Study, res *engineResult, fileName, version string) error {
-	// TODO(stub): report.Write once export/report compiles.
-	return errors.New("the team report is not available in this build yet")
+	return report.Write(w, report.Input{Study: st, Result: res, FileName: fileName, AppVersion: version})
 }
 
 // recovered runs f, turning a panic into an error.

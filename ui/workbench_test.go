@@ -386,8 +386,12 @@ func TestExportFiguresAndTables(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	files = append(append(files, more...), sweep...)
-	if len(files) != int(numViews)+2 {
+	rep, err := w.writeReport(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	files = append(append(append(files, more...), sweep...), rep...)
+	if len(files) != int(numViews)+3 {
 		t.Fatalf("wrote %v", files)
 	}
 	for _, f := range files {
@@ -404,6 +408,10 @@ func TestExportFiguresAndTables(t *testing.T) {
 			// 6 × 4 in at 200 dpi.
 			if got := img.Bounds().Size(); got.X != figureWidthIn*figureDPI || got.Y != figureHeightIn*figureDPI {
 				t.Errorf("%s is %v px", f, got)
+			}
+		} else if strings.HasSuffix(f, ".pdf") {
+			if !bytes.HasPrefix(b, []byte("%PDF-")) {
+				t.Errorf("%s is not a PDF", f)
 			}
 		} else if n := bytes.Count(b, []byte("\n")); n < 10 {
 			t.Errorf("%s has %d lines", f, n)
