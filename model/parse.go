@@ -190,6 +190,9 @@ func (p *Parsed) Clean(opt CleanOptions) (*Section, *CleanReport, error) {
 // line with other than two values. Every assumption is stated in
 // Parsed.Notes; nothing is guessed silently.
 func ParseCoordinates(r io.Reader, source string) (*Parsed, error) {
+	if r == nil {
+		panic("model: ParseCoordinates with a nil reader")
+	}
 	fail := func(line, col int, err error) (*Parsed, error) {
 		return nil, &ParseError{Source: source, Line: line, Column: col, Err: err}
 	}
@@ -347,8 +350,58 @@ func (p *parser) errAt(line, col int, err error) error {
 	return &ParseError{Source: p.source, Line: line, Column: col, Err: err}
 }
 
-var numberRE = regexp.MustCompile(`^[+-]?([0-9]+\.?[0-9]*|\.[0-9]+)([eEdD][+-]?[0-9]+)?$`)
-var decCommaRE = regexp.MustCompile(`^[+-]?[0-9]*,[0-9]+([eEdD][+-]?[0-9]+)?$|^[+-]?[0-9]+([eEdD][+-]?[0-9]+)?$`)
+// scanNumber reports whether s is a number with the decimal separator sep
+// ('.' or ','): an optional sign, digits with at most one separator and at
+// least one digit (for ',' at least one digit after it), and an optional
+// exponent of E, e, D or d, an optional sign and digits. As regular
+// expressions (checked in the tests):
+//
+//	'.': ^[+-]?([0-9]+\.?[0-9]*|\.[0-9]+)([eEdD][+-]?[0-9]+)?$
+//	',': ^[+-]?([0-9]*,[0-9]+|[0-9]+)([eEdD][+-]?[0-9]+)?$
+func scanNumber(s string, sep byte) bool {
+	i := 0
+	if i < len(s) && (s[i] == '+' || s[i] == '-') {
+		i++
+	}
+	before, after, seen := 0, 0, false
+	for ; i < len(s); i++ {
+		c := s[i]
+		switch {
+		case c >= '0' && c <= '9':
+			if seen {
+				after++
+			} else {
+				before++
+			}
+			continue
+		case c == sep && !seen:
+			seen = true
+			continue
+		}
+		break
+	}
+	if before+after == 0 || sep == ',' && seen && after == 0 {
+		return false
+	}
+	if i < len(s) && strings.IndexByte("eEdD", s[i]) >= 0 {
+		i++
+		if i < len(s) && (s[i] == '+' || s[i] == '-') {
+			i++
+		}
+		d := 0
+		for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
+			d++
+		}
+		if d == 0 {
+			return false
+		}
+	}
+	return i == len(s)
+}
+
+func isNumber(s string) bool         { return scanNumber(s, '.') }
+func isDecCommaNumber(s string) bool { return scanNumber(s, ',') }
+
 var nonFiniteRE = regexp.MustCompile(`^(?i)[+-]?(nan|inf|infinity)$`)
 
 // runTogetherRE matches two numbers with no blank between them, as
@@ -376,7 +429,7 @@ func stripInline(s string) string {
 // looksNumeric reports whether a token starts a data line: a number in
 // either decimal convention, or NaN/Inf (rejected later with its place).
 func looksNumeric(tok string) bool {
-	return numberRE.MatchString(tok) || decCommaRE.MatchString(tok) || nonFiniteRE.MatchString(tok) || runTogetherRE.MatchString(tok)
+	return isNumber(tok) || isDecCommaNumber(tok) || nonFiniteRE.MatchString(tok) || runTogetherRE.MatchString(tok)
 }
 
 // splitFields splits a line at runs of the given separator characters,
@@ -490,7 +543,7 @@ func (p *parser) scan(lines []string) error {
 			break
 		}
 		for _, f := range fs {
-			if !decCommaRE.MatchString(f.text) {
+			if !isDecCommaNumber(f.text) {
 				dec = false
 			}
 			anyComma = anyComma || strings.Contains(f.text, ",")
@@ -602,15 +655,15 @@ func columnAxis(name string) byte {
 // number parses one field, naming its place on error.
 func (p *parser) number(line int, f field) (float64, error) {
 	t := f.text
-	if nonFiniteRE.MatchString(t) {
+	if !isNumber(t) && nonFiniteRE.MatchString(t) {
 		return 0, p.errAt(line, f.col, fmt.Errorf("%q: %w", t, ErrNonFinite))
 	}
 	if p.decComma {
-		if !decCommaRE.MatchString(t) {
+		if !isDecCommaNumber(t) {
 			return 0, p.errAt(line, f.col, fmt.Errorf("%q is not a decimal-comma number: %w", clip(t, 30), ErrNotNumber))
 		}
 		t = strings.Replace(t, ",", ".", 1)
-	} else if !numberRE.MatchString(t) {
+	} else if !isNumber(t) {
 		if runTogetherRE.MatchString(t) {
 			return 0, p.errAt(line, f.col, fmt.Errorf("%q: two numbers run together (fixed-width columns without a blank) or an exponent without its E; put a blank between the numbers or write the E: %w", t, ErrNotNumber))
 		}

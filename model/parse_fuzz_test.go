@@ -16,6 +16,12 @@ func FuzzParseCoordinates(f *testing.F) {
 	// Small seeds keep minimisation quick; the layouts are in the corpus.
 	f.Add([]byte("1 0\n0.5 0.1\n0 0\n0.5 -0.1\n1 0\n"))
 	f.Add([]byte("x,y\n0,0\n0.5,0.1\n1,0\n0,0\n0.5,-0.1\n1,0\n"))
+	// The small files of the malformed corpus.
+	for _, data := range malformedCorpus() {
+		if len(data) <= 512 {
+			f.Add(data)
+		}
+	}
 	f.Fuzz(func(t *testing.T, data []byte) {
 		p, err := ParseCoordinates(bytes.NewReader(data), "fuzz.dat")
 		if err != nil {

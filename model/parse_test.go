@@ -7,6 +7,7 @@ import (
 	"flag"
 	"fmt"
 	"math"
+	"math/rand/v2"
 	"os"
 	"path/filepath"
 	"regexp"
@@ -828,6 +829,48 @@ func TestParseEncodings(t *testing.T) {
 		}
 		if !strings.Contains(strings.Join(p.Notes, "\n"), c.note) || len(p.Points) != 5 {
 			t.Errorf("%s: %d points, notes %q", c.name, len(p.Points), p.Notes)
+		}
+	}
+}
+
+// BenchmarkParseMaxPoints parses a file of MaxPoints points (about 0.7 MB).
+func BenchmarkParseMaxPoints(b *testing.B) {
+	var buf bytes.Buffer
+	for i := range MaxPoints {
+		a := 2 * math.Pi * float64(i) / MaxPoints
+		fmt.Fprintf(&buf, "%.9f %.9f\n", (1+math.Cos(a))/2, 0.06*math.Sin(a))
+	}
+	data := buf.Bytes()
+	b.SetBytes(int64(len(data)))
+	for b.Loop() {
+		if _, err := ParseCoordinates(bytes.NewReader(data), "b.dat"); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// TestScanNumber checks the hand-written number scanner against the
+// regular expressions in its documentation, on listed and random strings.
+func TestScanNumber(t *testing.T) {
+	dot := regexp.MustCompile(`^[+-]?([0-9]+\.?[0-9]*|\.[0-9]+)([eEdD][+-]?[0-9]+)?$`)
+	comma := regexp.MustCompile(`^[+-]?([0-9]*,[0-9]+|[0-9]+)([eEdD][+-]?[0-9]+)?$`)
+	cases := []string{"", "+", "-", ".", ",", "0", "-0", "+.5", "5.", "5,", ",5", "1e5", "1e", "1e+", "1.0D-03",
+		"1.2.3", "1,2,3", "e5", ".e5", "0x1p3", "1_0", "--1", "1-2", " 1", "1 ", "١"}
+	rng := rand.New(rand.NewPCG(3, 4))
+	const alphabet = "0123456789+-.,eEdDx "
+	for range 20000 {
+		b := make([]byte, 1+rng.IntN(7))
+		for i := range b {
+			b[i] = alphabet[rng.IntN(len(alphabet))]
+		}
+		cases = append(cases, string(b))
+	}
+	for _, s := range cases {
+		if got, want := isNumber(s), dot.MatchString(s); got != want {
+			t.Errorf("isNumber(%q) = %v, want %v", s, got, want)
+		}
+		if got, want := isDecCommaNumber(s), comma.MatchString(s); got != want {
+			t.Errorf("isDecCommaNumber(%q) = %v, want %v", s, got, want)
 		}
 	}
 }
