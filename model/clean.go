@@ -47,12 +47,12 @@ const (
 	// section.
 	MaxCloseTEGap = 0.1
 	// KinkAngleDeg and KinkContrast: a turning between consecutive
-	// segments is a kink when it exceeds KinkAngleDeg and KinkContrast times
-	// the turning in the same direction at both neighbouring points (a
-	// slope discontinuity or a zigzag, not a tight but smooth curve, whose
-	// neighbours turn alike). The
-	// leading-edge point and its two neighbours are exempt (a sparse nose
-	// turns sharply there; see SparseNoseChord), as is the trailing edge.
+	// segments is a kink when it exceeds KinkAngleDeg and KinkContrast
+	// times the turning in the same direction at both neighbouring points
+	// (a slope discontinuity or a zigzag, not a tight but smooth curve,
+	// whose neighbours turn alike). The leading-edge point and its two
+	// neighbours are exempt (a sparse nose turns sharply there; see
+	// SparseNoseChord), as is the trailing edge.
 	KinkAngleDeg = 20.0
 	KinkContrast = 2.0
 	// SpikeRatio: a point is a spike when it lies farther from the line
