@@ -51,6 +51,7 @@ type Controller struct {
 	resGen   uint64
 	sweep    []solver.Coefficients // shown in the polar; nil when out of date
 	pinBase  *model.Study          // study of the last pin, for its label
+	elem     int                   // element the section controls edit
 	sweepRun context.CancelFunc
 }
 
@@ -109,6 +110,7 @@ func (c *Controller) Load(st *model.Study, path string) error {
 	c.state.set(cloneStudy(st), secs, reps)
 	c.state.dirty = false
 	c.hist.Reset()
+	c.elem = 0
 	c.mu.Lock()
 	c.pinBase, c.sweep = nil, nil
 	c.mu.Unlock()
@@ -350,8 +352,23 @@ func pinFromResult(label string, res *engineResult, sweep []solver.Coefficients)
 	return pin
 }
 
-// currentElement is the element the section and panelling controls edit.
-const currentElement = 0
+// Element returns the element the section controls edit.
+func (c *Controller) Element() int {
+	if c.elem >= len(c.state.study.Elements) {
+		return 0
+	}
+	return c.elem
+}
+
+// SetElement chooses the element the section controls edit. It is a view
+// setting, not a change of the study.
+func (c *Controller) SetElement(i int) {
+	if i < 0 || i >= len(c.state.study.Elements) {
+		panic(fmt.Sprintf("ui: element %d out of range", i))
+	}
+	c.elem = i
+	c.notify()
+}
 
 // SetNACA makes a NACA designation the current element's section. An
 // invalid designation returns the reason and leaves the study as it was.
@@ -361,7 +378,7 @@ func (c *Controller) SetNACA(designation string) error {
 		return err
 	}
 	return c.Edit("naca", func(st *model.Study) {
-		st.Elements[currentElement].Section = model.SectionSource{Spec: "naca:" + d}
+		st.Elements[c.Element()].Section = model.SectionSource{Spec: "naca:" + d}
 	})
 }
 
@@ -373,10 +390,10 @@ func (c *Controller) SetSectionFile(path string) error {
 		return err
 	}
 	err = c.Edit("", func(st *model.Study) {
-		st.Elements[currentElement].Section = model.EmbedSection(sec)
+		st.Elements[c.Element()].Section = model.EmbedSection(sec)
 	})
 	if err == nil && rep != nil {
-		c.state.reports[currentElement] = rep
+		c.state.reports[c.Element()] = rep
 		c.notify()
 	}
 	return err
@@ -406,7 +423,7 @@ func (c *Controller) SetKT(k model.KarmanTrefftz) error {
 		return err
 	}
 	return c.Edit("", func(st *model.Study) {
-		st.Elements[currentElement].Section = model.SectionSource{Spec: "kt:" + k.String()}
+		st.Elements[c.Element()].Section = model.SectionSource{Spec: "kt:" + k.String()}
 	})
 }
 

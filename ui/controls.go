@@ -33,6 +33,7 @@ type controls struct {
 	box     *fyne.Container
 	syncing bool
 
+	element   *widget.Select
 	naca      *widget.Entry
 	sourceMsg *widget.Label
 	source    *widget.Label
@@ -143,6 +144,12 @@ func newControls(w *Workbench) *controls {
 	ctl := w.ctl
 
 	// Section source.
+	c.element = widget.NewSelect(nil, func(string) {
+		if !c.syncing && c.element.SelectedIndex() >= 0 {
+			ctl.SetElement(c.element.SelectedIndex())
+		}
+	})
+	c.element.Hide()
 	c.naca = widget.NewEntry()
 	c.naca.SetPlaceHolder("e.g. 4412 or 23012")
 	c.sourceMsg = message()
@@ -277,6 +284,7 @@ func newControls(w *Workbench) *controls {
 
 	c.box = container.NewVBox(
 		heading("Section source"),
+		c.element,
 		row("NACA", c.naca),
 		c.sourceMsg,
 		c.source,
@@ -421,7 +429,18 @@ func (c *controls) sourceError(err error) { setMessage(c.sourceMsg, err) }
 func (c *controls) sync(st *model.Study) {
 	c.syncing = true
 	defer func() { c.syncing = false }()
-	el := st.Elements[currentElement]
+	names := make([]string, len(st.Elements))
+	for i, e := range st.Elements {
+		names[i] = fmt.Sprintf("%d. %s", i+1, e.Name)
+	}
+	c.element.SetOptions(names)
+	c.element.SetSelectedIndex(c.w.ctl.Element())
+	if len(names) > 1 {
+		c.element.Show()
+	} else {
+		c.element.Hide()
+	}
+	el := st.Elements[c.w.ctl.Element()]
 	if d, ok := strings.CutPrefix(el.Section.Spec, "naca:"); ok {
 		if !strings.EqualFold(strings.TrimSpace(c.naca.Text), d) {
 			c.naca.SetText(d)

@@ -72,7 +72,7 @@ func (w *Workbench) menu() *fyne.MainMenu {
 	viewItems = append(viewItems,
 		w.item("Show all views", shortcut(fyne.Key0, false), func() { w.toggleEnlarge(numViews) }),
 		fyne.NewMenuItemSeparator(),
-		w.item("Leading-edge close-up", shortcut(fyne.KeyL, false), func() { w.views[viewPanels].canvas.CloseUpLE(0) }),
+		w.item("Leading-edge close-up", shortcut(fyne.KeyL, false), func() { w.views[viewPanels].canvas.CloseUpLE(w.ctl.Element()) }),
 		w.item("Reset zoom", shortcut(fyne.KeyR, false), func() {
 			w.views[viewPanels].canvas.ResetZoom()
 			w.views[viewStreamlines].canvas.ResetZoom()

@@ -21,7 +21,8 @@ type plotView struct {
 
 // newPlotView builds a view; onEnlarge toggles it between its cell and the
 // whole view area.
-func newPlotView(kind viewKind, act *activity, do func(func()), onEnlarge func(viewKind)) *plotView {
+// element tells which element the leading-edge close-up shows.
+func newPlotView(kind viewKind, act *activity, do func(func()), onEnlarge func(viewKind), element func() int) *plotView {
 	v := &plotView{kind: kind, canvas: newPlotCanvas(kind, act, do)}
 	v.readout = widget.NewLabel("")
 	v.readout.TextStyle = fyne.TextStyle{Monospace: true}
@@ -40,7 +41,7 @@ func newPlotView(kind viewKind, act *activity, do func(func()), onEnlarge func(v
 	v.enlarge.Importance = widget.LowImportance
 	switch kind {
 	case viewPanels:
-		le := widget.NewButtonWithIcon("LE", theme.ZoomInIcon(), func() { v.canvas.CloseUpLE(0) })
+		le := widget.NewButtonWithIcon("LE", theme.ZoomInIcon(), func() { v.canvas.CloseUpLE(element()) })
 		reset := widget.NewButtonWithIcon("", theme.ZoomFitIcon(), v.canvas.ResetZoom)
 		v.tools = []fyne.CanvasObject{le, reset}
 	case viewStreamlines:

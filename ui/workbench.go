@@ -117,7 +117,7 @@ func (w *Workbench) WaitIdle() {
 
 func (w *Workbench) build() {
 	for k := range numViews {
-		w.views[k] = newPlotView(k, w.ctl.act, w.do, w.toggleEnlarge)
+		w.views[k] = newPlotView(k, w.ctl.act, w.do, w.toggleEnlarge, w.ctl.Element)
 	}
 	w.grid = container.NewGridWithColumns(2,
 		w.views[viewPanels], w.views[viewPressure], w.views[viewStreamlines], w.views[viewPolar])

@@ -556,3 +556,34 @@ func TestGroundAndInverted(t *testing.T) {
 		t.Error("a rejected clearance changed the study")
 	}
 }
+
+func TestSecondElementEdits(t *testing.T) {
+	test.NewTempApp(t)
+	st := model.NewStudy()
+	st.Name = "Two elements (invented)"
+	st.Elements = append(st.Elements, model.StudyElement{
+		Name: "flap", Section: model.SectionSource{Spec: "naca:4412"}, ChordMM: 100, XMM: 300, YMM: 40, AngleDeg: -10,
+	})
+	b, err := encodeStudy(st)
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(t.TempDir(), "two.json")
+	if err := os.WriteFile(path, b, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	w := openTestBench(t, path)
+	if got := len(current(t, w).Solution.Elements); got != 2 {
+		t.Fatalf("solution has %d elements, want 2", got)
+	}
+	if w.controls.element.Hidden || len(w.controls.element.Options) != 2 {
+		t.Fatal("element choice not offered for two elements")
+	}
+	w.controls.element.SetSelectedIndex(1)
+	w.controls.naca.SetText("0012")
+	current(t, w)
+	els := w.ctl.Study().Elements
+	if els[1].Section.Spec != "naca:0012" || els[0].Section.Spec != "naca:4412" {
+		t.Errorf("sections are %q, %q; want naca:4412, naca:0012", els[0].Section.Spec, els[1].Section.Spec)
+	}
+}
