@@ -222,3 +222,52 @@ func TestCleanCommand(t *testing.T) {
 func ftoa(f float64) string { return strings.TrimRight(strings.TrimRight(fmtF(f), "0"), ".") }
 
 func fmtF(f float64) string { return strconv.FormatFloat(f, 'f', 6, 64) }
+
+func TestExportAndReport(t *testing.T) {
+	dir := t.TempDir()
+	for _, tc := range []struct {
+		name   string
+		args   []string
+		out    string
+		starts string // expected start of the file
+	}{
+		{"coords", []string{"--what", "coords", "--chord-mm", "250", "--points", "80"}, "c.dat", "NACA 4412"},
+		{"coords csv", []string{"--what", "csv"}, "c.csv", "x,y"},
+		{"cp table", []string{"--what", "csv", "--table", "cp"}, "cp.csv", "element,"},
+		{"sweep table", []string{"--what", "csv", "--table", "sweep"}, "s.csv", "alpha_deg,cl"},
+		{"dxf", []string{"--what", "outline-dxf", "--chord-mm", "250", "--skin-mm", "1.5", "--spar", "0.3,8"}, "o.dxf", "999\nSectionbench outline"},
+		{"svg", []string{"--what", "outline-svg", "--chord-mm", "250"}, "o.svg", "<?xml"},
+		{"figure", []string{"--what", "figure", "--view", "polar"}, "f.png", "\x89PNG"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			out := filepath.Join(dir, tc.out)
+			args := append([]string{"export", "--section", "naca:4412"}, tc.args...)
+			code, _, stderr := runCLI(t, append(args, "-o", out)...)
+			if code != exitOK {
+				t.Fatalf("exit %d: %s", code, stderr)
+			}
+			b, err := os.ReadFile(out)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !strings.HasPrefix(strings.TrimLeft(string(b), " "), tc.starts) {
+				t.Errorf("file starts %q, want %q", string(b[:min(len(b), 40)]), tc.starts)
+			}
+		})
+	}
+	code, _, stderr := runCLI(t, "export", "--section", "naca:4412", "--what", "figure", "-o", "-")
+	if code != exitUsage || !strings.Contains(stderr, "binary") {
+		t.Errorf("a PNG to standard output: exit %d, %s", code, stderr)
+	}
+	code, _, stderr = runCLI(t, "export", "--section", "naca:4412", "--what", "drawing", "-o", "x")
+	if code != exitUsage || !strings.Contains(stderr, "--what") {
+		t.Errorf("unknown --what: exit %d, %s", code, stderr)
+	}
+	pdf := filepath.Join(dir, "r.pdf")
+	if code, _, stderr := runCLI(t, "report", "--section", "naca:2412", "--alpha", "3", "-o", pdf); code != exitOK {
+		t.Fatalf("report: exit %d: %s", code, stderr)
+	}
+	if b, _ := os.ReadFile(pdf); !strings.HasPrefix(string(b), "%PDF-") {
+		t.Errorf("report is not a PDF")
+	}
+}

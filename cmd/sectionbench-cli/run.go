@@ -33,6 +33,8 @@ func commands() []command {
 		{"sweep", "solve a range of angles of attack (the polar)", cmdSweep},
 		{"clean", "clean a coordinate file and print what was changed", cmdClean},
 		{"density", "density study: the answer against panel count, extrapolated", cmdDensity},
+		{"report", "the team report as PDF", cmdReport},
+		{"export", "coordinates, CSV tables, manufacturing outlines (DXF, SVG) and figures", cmdExport},
 	}
 }
 

@@ -1,0 +1,238 @@
+package main
+
+import (
+	"context"
+	"fmt"
+	"io"
+	"strings"
+
+	"sectionbench/export"
+	"sectionbench/export/report"
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+// exportKinds lists --what values with what each writes.
+var exportKinds = []struct{ name, help string }{
+	{"coords", "cleaned coordinates of one element, plain text (name line, then x y)"},
+	{"csv", "a CSV table: --table coords, cp, sweep or bl"},
+	{"outline-dxf", "manufacturing outline, ASCII DXF in millimetres"},
+	{"outline-svg", "manufacturing outline, SVG at true scale with a scale bar"},
+	{"figure", "one view as PNG, SVG or PDF: --view panels, pressure, streamlines, polar, drag-polar, boundary-layer, lift-to-drag"},
+}
+
+func cmdExport(args []string, stdout, stderr io.Writer) error {
+	var names []string
+	for _, k := range exportKinds {
+		names = append(names, k.name)
+	}
+	fs := newFlags("export", "export (--study FILE | --section SPEC) --what "+strings.Join(names, "|")+" [options] -o OUT", stdout)
+	in := addInputs(fs, false, "text")
+	what := fs.String("what", "", "what to write: "+strings.Join(names, ", "))
+	out := fs.String("o", "", "output `file` (- for standard output, text formats only)")
+	table := fs.String("table", "coords", "with --what csv: coords, cp (surface Cp per element), sweep, or bl (boundary layer)")
+	element := fs.Int("element", 1, "element `number` for coords (1 = main)")
+	chordMM := fs.Float64("chord-mm", 0, "chord in `mm`: coordinates at this chord (0: unit chord); for an outline of --section, the chord (default 1000)")
+	points := fs.Int("points", 0, "repanel the coordinates to this many `panels` first (with --spacing)")
+	skin := fs.Float64("skin-mm", 0, "outline: also draw the inward offset by this skin thickness in `mm` (rib template)")
+	placed := fs.Bool("placed", false, "outline: keep the elements where the study puts them (assembly) instead of one rib template per element")
+	chordLine := fs.Bool("chord-line", false, "outline: draw each element's chord line")
+	spar := fs.String("spar", "", "outline: spar hole `XC,DIAMETER_MM` on the chord line of every element, e.g. 0.3,8")
+	view := fs.String("view", "pressure", "figure: the `view` to draw")
+	width := fs.Float64("width-in", 8, "figure width in `inches`")
+	height := fs.Float64("height-in", 5, "figure height in `inches`")
+	dpi := fs.Float64("dpi", 150, "figure resolution for PNG, `dots per inch`")
+	if _, err := fs.parse(args, 0); err != nil {
+		return err
+	}
+	if *what == "" {
+		return usagef("give --what: %s", strings.Join(names, ", "))
+	}
+	if *out == "" {
+		return usagef("give -o OUT (or -o - for standard output)")
+	}
+	st, secs, _, err := in.load(fs)
+	if err != nil {
+		return err
+	}
+	var write func(io.Writer) error
+	binary := false
+	switch *what {
+	case "coords", "csv":
+		if *what == "csv" && *table != "coords" {
+			write, err = tableWriter(*table, st, secs)
+			if err != nil {
+				return err
+			}
+			break
+		}
+		if *element < 1 || *element > len(secs) {
+			return usagef("--element %d: the study has %d element(s)", *element, len(secs))
+		}
+		o := export.CoordOptions{ChordMM: *chordMM}
+		if *points > 0 {
+			p := st.Panelling
+			p.Panels = *points
+			if err := p.Validate(); err != nil {
+				return usagef("--points: %v", err)
+			}
+			o.Panelling = &p
+		}
+		sec := secs[*element-1]
+		if *what == "coords" {
+			write = func(w io.Writer) error { return export.WriteCoordinates(w, sec, o) }
+		} else {
+			write = func(w io.Writer) error { return export.WriteCoordinatesCSV(w, sec, o) }
+		}
+	case "outline-dxf", "outline-svg":
+		if in.section != "" && *chordMM > 0 {
+			st.Elements[0].ChordMM = *chordMM
+		}
+		l, err := model.Place(st, secs)
+		if err != nil {
+			return err
+		}
+		opt := export.OutlineOptions{Placed: *placed, SkinMM: *skin, ChordLine: *chordLine}
+		if *spar != "" {
+			v, err := parseFloatList("--spar", *spar, 0, 1e4)
+			if err != nil || len(v) != 2 || v[0] > 1 {
+				return usagef("--spar %q: want XC,DIAMETER_MM with XC in [0, 1]", *spar)
+			}
+			for i := range st.Elements {
+				opt.Marks = append(opt.Marks, export.Mark{Element: i, Label: "spar", XC: v[0], DiameterMM: v[1]})
+			}
+		}
+		o, err := export.NewOutline(st.Name, l, opt)
+		if err != nil {
+			return err
+		}
+		if *what == "outline-dxf" {
+			write = func(w io.Writer) error { return export.WriteDXF(w, o) }
+		} else {
+			write = func(w io.Writer) error { return export.WriteSVG(w, o) }
+		}
+	case "figure":
+		v, format, err := figureKind(*view, *out)
+		if err != nil {
+			return err
+		}
+		res, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: true, Streamlines: v == export.ViewStreamlines})
+		if err != nil {
+			return err
+		}
+		sc := export.NewScene(res, st)
+		binary = format != "svg"
+		write = func(w io.Writer) error { return export.WriteFigure(w, v, sc, format, *width, *height, *dpi) }
+	default:
+		return usagef("--what %q: want one of %s", *what, strings.Join(names, ", "))
+	}
+	if *out == "-" {
+		if binary {
+			return usagef("-o -: %s is binary; give a file name", *what)
+		}
+		return write(stdout)
+	}
+	if err := export.WriteFileAtomic(*out, write); err != nil {
+		return err
+	}
+	fmt.Fprintf(stderr, "wrote %s\n", *out)
+	return nil
+}
+
+// figureKind finds the view by name and the format from the file name.
+func figureKind(name, out string) (export.View, string, error) {
+	var view export.View = -1
+	var names []string
+	for _, v := range export.Views {
+		if v.String() == name {
+			view = v
+		}
+		if v != export.ViewDensity {
+			names = append(names, v.String())
+		}
+	}
+	if view < 0 || view == export.ViewDensity {
+		return 0, "", usagef("--view %q: want one of %s", name, strings.Join(names, ", "))
+	}
+	format := "png"
+	for _, f := range []string{"png", "svg", "pdf"} {
+		if strings.HasSuffix(strings.ToLower(out), "."+f) {
+			format = f
+		}
+	}
+	return view, format, nil
+}
+
+// tableWriter returns the writer of a results table as CSV.
+func tableWriter(table string, st *model.Study, secs []*model.Section) (func(io.Writer) error, error) {
+	req := solver.Request{Study: st, Sections: secs, Sweep: table == "sweep"}
+	switch table {
+	case "cp", "sweep":
+	case "bl":
+		if !st.Viscous.Enabled {
+			return nil, usagef("--table bl needs the boundary layer: give --re or a study with viscous.enabled")
+		}
+	default:
+		return nil, usagef("--table %q: want coords, cp, sweep or bl", table)
+	}
+	res, err := solver.NewEngine().Run(context.Background(), req)
+	if err != nil {
+		return nil, err
+	}
+	switch table {
+	case "cp":
+		return func(w io.Writer) error { return export.WriteCpTable(w, res.Solution) }, nil
+	case "sweep":
+		return func(w io.Writer) error { return export.WriteSweepTable(w, res.Sweep, res.SweepViscous) }, nil
+	}
+	return func(w io.Writer) error { return export.WriteBoundaryLayerTable(w, res.Viscous) }, nil
+}
+
+func cmdReport(args []string, stdout, stderr io.Writer) error {
+	fs := newFlags("report", "report (--study FILE | --section SPEC [--alpha DEG]) -o OUT.pdf [--page A4|Letter] [--author NAME] [--density]", stdout)
+	in := addInputs(fs, false, "text")
+	out := fs.String("o", "", "output PDF `file`")
+	page := fs.String("page", report.PageA4, "page size: A4 or Letter")
+	author := fs.String("author", "", "who prepared the report (default: the study's team)")
+	density := fs.Bool("density", false, "include a density study (panel counts of the study, or 20 to 640)")
+	if _, err := fs.parse(args, 0); err != nil {
+		return err
+	}
+	if *out == "" {
+		return usagef("give -o OUT.pdf")
+	}
+	if !strings.EqualFold(*page, report.PageA4) && !strings.EqualFold(*page, report.PageLetter) {
+		return usagef("--page %q: want A4 or Letter", *page)
+	}
+	pageSize := report.PageA4
+	if strings.EqualFold(*page, report.PageLetter) {
+		pageSize = report.PageLetter
+	}
+	st, secs, _, err := in.load(fs)
+	if err != nil {
+		return err
+	}
+	e := solver.NewEngine()
+	res, err := e.Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: true, Streamlines: true})
+	if err != nil {
+		return err
+	}
+	input := report.Input{Study: st, Result: res, FileName: reportSource(in), AppVersion: version, PageSize: pageSize, Author: *author}
+	if *density || len(st.Density.Panels) > 0 {
+		if input.Density, err = e.Density(context.Background(), st, secs, nil); err != nil {
+			return err
+		}
+	}
+	if err := export.WriteFileAtomic(*out, func(w io.Writer) error { return report.Write(w, input) }); err != nil {
+		return err
+	}
+	fmt.Fprintf(stderr, "wrote %s\n", *out)
+	return nil
+}
+
+func reportSource(in *inputs) string {
+	if in.study != "" {
+		return in.study
+	}
+	return in.section
+}
