@@ -35,8 +35,9 @@ const (
 	// decimals coordinate files carry, so only true repeats are dropped.
 	DefaultDuplicateTol = 1e-7
 	// LESnapTol: when the listed point nearest to the leading edge found on
-	// the spline is within this distance (chord fractions), it is moved
-	// onto it; farther, the leading edge is inserted as a new point.
+	// the spline is within this distance (chord fractions), it is taken as
+	// the leading edge, which makes cleaning a clean section change
+	// nothing; farther, the spline's point is inserted as a new point.
 	LESnapTol = 1e-5
 	// TECloseBlend: the fraction of the chord over which CloseTE blends
 	// the surfaces into the closed trailing edge, with the smoothstep
@@ -146,7 +147,7 @@ type CleanWarning struct {
 type CleanReport struct {
 	Source   string   // where the points came from (set by Parsed.Clean)
 	Name     string   // the section's name
-	Detected []string // the parser's notes (set by Parsed.Clean)
+	Detected []string // the parser's notes (added by Parsed.Clean), then where the edges were found
 	Changes  []string // every change made, in order
 	Warnings []CleanWarning
 	TEGap    float64 // trailing-edge gap in chords, after normalising, before CloseTE
@@ -197,10 +198,10 @@ func (r *CleanReport) String() string {
 //     surface, leading edge, lower surface, trailing edge;
 //  4. finds the leading edge on a spline through the points
 //     (ContourSpline.LeadingEdge: the point farthest from the
-//     trailing-edge midpoint), moves it to the origin, scales the chord to
-//     1 and, with Derotate, turns the trailing-edge midpoint onto (1, 0);
-//  5. moves the nearest point onto the leading edge, or inserts it when
-//     that point is farther than LESnapTol;
+//     trailing-edge midpoint); a listed point within LESnapTol of it is
+//     taken as the leading edge, else the spline's point is inserted;
+//  5. moves the leading edge to the origin, scales the chord to 1 and,
+//     with Derotate, turns the trailing-edge midpoint onto (1, 0);
 //  6. with CloseTE, closes the trailing-edge gap (see TECloseBlend).
 //
 // Steps 5 and 6 and the warnings work along the chord whether or not
@@ -305,6 +306,12 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 			idx = append(idx, orig[j])
 		}
 	}
+	if te.edge {
+		j := (te.i + 1) % n
+		rep.Detected = append(rep.Detected, fmt.Sprintf("trailing edge: the gap between points %d and %d (corners turning by %.0f° together)", orig[te.i]+1, orig[j]+1, te.score))
+	} else {
+		rep.Detected = append(rep.Detected, fmt.Sprintf("trailing edge: the corner at point %d (turning by %.0f°)", orig[te.i]+1, te.score))
+	}
 	fileStart := te.i == n-1 && te.edge && !closed || te.i == 0 && !te.edge && closed
 	switch {
 	case fileStart:
@@ -334,7 +341,9 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 		rep.Changes = append(rep.Changes, "reversed the point order: the contour ran clockwise (lower surface first); the package runs counter-clockwise, upper surface first")
 	}
 
-	// 4. Leading edge on the spline; translate, scale, derotate.
+	// 4. Leading edge on the spline. A listed point within LESnapTol of
+	// it is taken as the leading edge itself (so cleaning a clean section
+	// changes nothing); otherwise the spline's point is inserted.
 	spl, err := NewContourSpline(cont)
 	if err != nil {
 		return fail(-1, err)
@@ -345,8 +354,37 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	if !(chordQ > 1e-6) {
 		return fail(-1, fmt.Errorf("the leading edge coincides with the trailing edge: %w", ErrFlatContour))
 	}
-	// The steps below work in the derotated frame (chord along +x); without
-	// Derotate the result is turned back at the end.
+	near, nd := 0, math.Inf(1)
+	for i, p := range cont {
+		if d := p.Dist(le) / chordQ; d < nd {
+			near, nd = i, d
+		}
+	}
+	leIdx := near
+	var leChange string
+	if nd <= LESnapTol {
+		le = cont[near]
+		if nd < reportTol {
+			rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d, the farthest point of the spline", idx[near]+1))
+		} else {
+			rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d, %.2g of the chord from the farthest point of the spline (within %g)", idx[near]+1, nd, LESnapTol))
+		}
+	} else {
+		knots := spl.Knots()
+		j := 0
+		for j+2 < len(knots) && knots[j+1] <= tLE {
+			j++
+		}
+		cont = append(cont[:j+1], append([]Point{le}, cont[j+1:]...)...)
+		idx = append(idx[:j+1], append([]int{-1}, idx[j+1:]...)...)
+		leIdx = j + 1
+		leChange = fmt.Sprintf("inserted the leading edge found on the spline as a new point %d (the nearest listed point was %.2g of the chord away)", leIdx+1, nd)
+	}
+
+	// 5. Translate, scale and derotate. The steps below work in the
+	// derotated frame (chord along +x); without Derotate the result is
+	// turned back at the end.
+	chordQ = teMid.Dist(le)
 	theta := math.Atan2(teMid.Y-le.Y, teMid.X-le.X)
 	sin, cos := math.Sincos(-theta)
 	out := make([]Point, len(cont))
@@ -354,6 +392,7 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 		d := p.Sub(le).Scale(1 / chordQ)
 		out[i] = Point{cos*d.X - sin*d.Y, sin*d.X + cos*d.Y}
 	}
+	out[leIdx] = Point{}
 	leOrig := Point{le.X*2*half + ctr.X, le.Y*2*half + ctr.Y}
 	chord := chordQ * 2 * half
 	if leOrig.Norm() > reportTol*chord {
@@ -365,7 +404,7 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 		if math.Abs(shown.Y) < 1e-12*chord {
 			shown.Y = 0
 		}
-		rep.Changes = append(rep.Changes, fmt.Sprintf("moved the leading edge (found on the spline at %s) to the origin", fmtPoint(shown)))
+		rep.Changes = append(rep.Changes, fmt.Sprintf("moved the leading edge from (%s) to the origin", fmtPoint(shown)))
 	}
 	if math.Abs(chord-1) > reportTol {
 		rep.Changes = append(rep.Changes, fmt.Sprintf("scaled by 1/%.9g to unit chord (the chord was %.9g)", chord, chord))
@@ -378,31 +417,8 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 			rep.Warnings = append(rep.Warnings, CleanWarning{Kind: WarnInclined, Index: -1, Message: fmt.Sprintf("the chord is inclined at %s and was left so (derotation off)", fmtDeg(deg))})
 		}
 	}
-
-	// 5. The leading-edge point.
-	near, nd := 0, math.Inf(1)
-	for i, p := range out {
-		if d := p.Norm(); d < nd {
-			near, nd = i, d
-		}
-	}
-	leIdx := near
-	switch {
-	case nd <= LESnapTol:
-		out[near] = Point{}
-		if nd > reportTol {
-			rep.Changes = append(rep.Changes, fmt.Sprintf("moved point %d onto the leading edge found on the spline (by %.2g of the chord)", idx[near]+1, nd))
-		}
-	default:
-		knots := spl.Knots()
-		j := 0
-		for j+2 < len(knots) && knots[j+1] <= tLE {
-			j++
-		}
-		out = append(out[:j+1], append([]Point{{}}, out[j+1:]...)...)
-		idx = append(idx[:j+1], append([]int{-1}, idx[j+1:]...)...)
-		leIdx = j + 1
-		rep.Changes = append(rep.Changes, fmt.Sprintf("inserted the leading edge found on the spline as a new point %d (the nearest listed point was %.2g of the chord away)", leIdx+1, nd))
+	if leChange != "" {
+		rep.Changes = append(rep.Changes, leChange)
 	}
 
 	// 6. Trailing-edge gap.

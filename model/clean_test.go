@@ -219,14 +219,15 @@ func TestCleanNoDerotate(t *testing.T) {
 func TestCleanLeadingEdgePoint(t *testing.T) {
 	base := naca0012Loop(41)
 	for _, c := range []struct {
-		name   string
-		shift  float64 // of the listed leading-edge point along the upper surface, in chords
-		change string
-		points int
+		name     string
+		shift    float64 // of the listed leading-edge point along the upper surface, in chords
+		change   string
+		detected string
+		points   int
 	}{
-		{"exact", 0, "", 81},
-		{"snapped", LESnapTol / 4, "moved point 41 onto the leading edge", 81},
-		{"inserted", 20 * LESnapTol, "inserted the leading edge found on the spline as a new point 42", 82},
+		{"exact", 0, "", "leading edge: point 41, the farthest point of the spline", 81},
+		{"near", LESnapTol / 4, "moved the leading edge from", "of the chord from the farthest point of the spline (within 1e-05)", 81},
+		{"inserted", 20 * LESnapTol, "inserted the leading edge found on the spline as a new point 42", "", 82},
 	} {
 		pts := append([]Point(nil), base...)
 		if c.shift > 0 {
@@ -243,6 +244,9 @@ func TestCleanLeadingEdgePoint(t *testing.T) {
 		changes := strings.Join(rep.Changes, "\n")
 		if c.change == "" && strings.Contains(changes, "leading edge") || !strings.Contains(changes, c.change) {
 			t.Errorf("%s: changes\n%s", c.name, changes)
+		}
+		if !strings.Contains(strings.Join(rep.Detected, "\n"), c.detected) {
+			t.Errorf("%s: detected\n%s", c.name, rep.Detected)
 		}
 		if p := sec.At(sec.LeadingEdgeIndex()); p != (Point{}) {
 			t.Errorf("%s: leading edge point %v", c.name, p)
@@ -521,4 +525,36 @@ func TestCleanCloseTELimit(t *testing.T) {
 			t.Errorf("gap %.3g: warning of a gap left open %v\n%s", rep.TEGap, left, rep)
 		}
 	}
+}
+
+// TestCleanIdempotent: cleaning a cleaned section changes nothing (a study
+// re-cleans the sections it embeds).
+func TestCleanIdempotent(t *testing.T) {
+	for _, c := range []struct {
+		name string
+		pts  []Point
+		opt  CleanOptions
+	}{
+		{"NACA 2412, leading edge inserted", testLoop(41), DefaultCleanOptions},
+		{"NACA 2412, closed", testLoop(41), CleanOptions{Derotate: true, CloseTE: true}},
+		{"NACA 0012 moved", malformedLoop(t, "millimetres-inclined.dat"), DefaultCleanOptions},
+	} {
+		once, _ := mustClean(t, c.name, c.pts, c.opt)
+		twice, rep := mustClean(t, c.name, once.Points(), c.opt)
+		if d := maxDist(once.Points(), twice.Points()); d > 1e-12 {
+			t.Errorf("%s: moved by %g on the second pass\n%s", c.name, d, rep)
+		}
+		if len(rep.Changes) != 0 {
+			t.Errorf("%s: second pass reports changes\n%s", c.name, rep)
+		}
+	}
+}
+
+func malformedLoop(t *testing.T, file string) []Point {
+	t.Helper()
+	p, err := ParseCoordinates(strings.NewReader(string(malformedCorpus()[file])), file)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p.Points
 }

@@ -46,9 +46,11 @@ func ExampleParseCoordinates() {
 	//   - 1 comment line skipped
 	//   - values separated by spaces, commas
 	//   - one loop of 15 points, taken in the order listed
+	//   - trailing edge: the corner at point 1 (turning by 166°)
+	//   - leading edge: point 8, the farthest point of the spline
 	// Changes:
 	//   - reversed the point order: the contour ran clockwise (lower surface first); the package runs counter-clockwise, upper surface first
-	//   - moved the leading edge (found on the spline at 10, 0) to the origin
+	//   - moved the leading edge from (10, 0) to the origin
 	//   - scaled by 1/200 to unit chord (the chord was 200)
 	// Warnings:
 	//   - sparse-nose: 3 points within 2% of the chord from the leading edge, fewer than 5: the nose shape and the suction peak are poorly defined

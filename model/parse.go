@@ -149,7 +149,7 @@ func (p *Parsed) Clean(opt CleanOptions) (*Section, *CleanReport, error) {
 	sec, rep, err := Clean(p.Name, p.Points, opt)
 	if rep != nil {
 		rep.Source = p.Source
-		rep.Detected = append([]string(nil), p.Notes...)
+		rep.Detected = append(append([]string(nil), p.Notes...), rep.Detected...)
 	}
 	return sec, rep, err
 }
