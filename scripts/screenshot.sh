@@ -50,8 +50,12 @@ Xvfb ":$disp" -screen 0 "${w}x${h}x24" -nolisten tcp >/dev/null 2>&1 &
 xvfb_pid=$!
 app_pid=
 cleanup() {
-	[ -n "$app_pid" ] && kill "$app_pid" 2>/dev/null || true
+	if [ -n "$app_pid" ]; then
+		kill "$app_pid" 2>/dev/null || true
+		wait "$app_pid" 2>/dev/null || true
+	fi
 	kill "$xvfb_pid" 2>/dev/null || true
+	wait "$xvfb_pid" 2>/dev/null || true
 	rm -rf "$(dirname "$bin")"
 }
 trap cleanup EXIT

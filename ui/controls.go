@@ -40,6 +40,7 @@ type controls struct {
 	ktX, ktY  *widget.Entry
 	ktTau     *widget.Entry
 	ktMsg     *widget.Label
+	kt        *widget.Accordion
 
 	panelSlider *widget.Slider
 	panelEntry  *widget.Entry
@@ -168,7 +169,14 @@ func newControls(w *Workbench) *controls {
 	c.ktY.SetText(entryNum(ktDefault.CenterY))
 	c.ktTau.SetText(entryNum(ktDefault.TEAngleDeg))
 	c.ktMsg = message()
-	useKT := widget.NewButton("Use Kármán–Trefftz section", c.useKT)
+	useKT := widget.NewButton("Use this section", c.useKT)
+	// The analytic family is for checking the method, less often used:
+	// folded away so that the sweep fits on screen.
+	c.kt = widget.NewAccordion(widget.NewAccordionItem("Kármán–Trefftz section",
+		container.NewVBox(
+			container.NewGridWithColumns(3, labelled("centre x", c.ktX), labelled("centre y", c.ktY), labelled("TE angle (°)", c.ktTau)),
+			useKT,
+			c.ktMsg)))
 	report := widget.NewButton("Cleaning report", w.showReport)
 
 	// Panelling.
@@ -289,9 +297,7 @@ func newControls(w *Workbench) *controls {
 		c.sourceMsg,
 		c.source,
 		container.NewGridWithColumns(2, openFile, report),
-		container.NewGridWithColumns(3, labelled("centre x", c.ktX), labelled("centre y", c.ktY), labelled("TE angle (°)", c.ktTau)),
-		useKT,
-		c.ktMsg,
+		c.kt,
 		widget.NewSeparator(),
 
 		heading("Panelling"),
@@ -450,6 +456,7 @@ func (c *controls) sync(st *model.Study) {
 		c.naca.SetText("")
 	}
 	if d, ok := strings.CutPrefix(el.Section.Spec, "kt:"); ok {
+		c.kt.Open(0)
 		if k, err := model.ParseKT(d); err == nil {
 			c.ktX.SetText(entryNum(k.CenterX))
 			c.ktY.SetText(entryNum(k.CenterY))
