@@ -34,6 +34,18 @@ const (
 	// DefaultDuplicateTol: 1e-7 of the chord is far below the 5 or 6
 	// decimals coordinate files carry, so only true repeats are dropped.
 	DefaultDuplicateTol = 1e-7
+	// FileFrameTol and FileChordTol: a file gives its own chord when a
+	// listed point lies at its origin and its trailing-edge midpoint on its
+	// +x axis, both to within FileFrameTol of the chord (rounding of a
+	// file printed to 3 decimals in millimetres or 5 in chords), and that
+	// point lies within FileChordTol of the spline's leading edge. Clean
+	// then keeps that chord line: published coordinates define it (for the
+	// NACA sections, from the nose of the mean line, Abbott & von
+	// Doenhoff, sec. 6.4), and the farthest point of a cambered section
+	// differs from it by a fraction of a degree, which would shift every
+	// angle of attack by as much.
+	FileFrameTol = 1e-5
+	FileChordTol = 0.01
 	// LESnapTol: when the listed point nearest to the leading edge found on
 	// the spline is within this distance (chord fractions), it is taken as
 	// the leading edge, which makes cleaning a clean section change
@@ -199,7 +211,8 @@ func (r *CleanReport) String() string {
 //  4. finds the leading edge on a spline through the points
 //     (ContourSpline.LeadingEdge: the point farthest from the
 //     trailing-edge midpoint); a listed point within LESnapTol of it is
-//     taken as the leading edge, else the spline's point is inserted;
+//     taken as the leading edge, else the spline's point is inserted; but
+//     a file that gives its own chord keeps it (see FileFrameTol);
 //  5. moves the leading edge to the origin, scales the chord to 1 and,
 //     with Derotate, turns the trailing-edge midpoint onto (1, 0);
 //  6. with CloseTE, closes the trailing-edge gap (see TECloseBlend).
@@ -362,14 +375,32 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	}
 	leIdx := near
 	var leChange string
-	if nd <= LESnapTol {
+	// A file that gives its own chord (a listed point at the origin, the
+	// trailing-edge midpoint on +x) keeps it, if that point is the nose.
+	toOrig := func(p Point) Point { return Point{p.X*2*half + ctr.X, p.Y*2*half + ctr.Y} }
+	origin, od := -1, math.Inf(1)
+	teOrig := toOrig(teMid)
+	for i, p := range cont {
+		if d := toOrig(p).Norm(); d < od {
+			origin, od = i, d
+		}
+	}
+	ownChord := teOrig.X > 0 && od <= FileFrameTol*teOrig.X && math.Abs(teOrig.Y) <= FileFrameTol*teOrig.X &&
+		cont[origin].Dist(le) <= FileChordTol*chordQ
+	switch {
+	case ownChord && cont[origin].Dist(le) > LESnapTol*chordQ:
+		d := cont[origin].Dist(le) / chordQ
+		alt := math.Abs(math.Atan2(teMid.Y-le.Y, teMid.X-le.X)-math.Atan2(teMid.Y-cont[origin].Y, teMid.X-cont[origin].X)) * 180 / math.Pi
+		le, leIdx = cont[origin], origin
+		rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d, at the origin of the file, whose trailing edge lies on its x axis: the file's own chord line is kept (the farthest point of the spline is %.2g of the chord away and would incline the chord by %.3g°)", idx[origin]+1, d, alt))
+	case nd <= LESnapTol:
 		le = cont[near]
 		if nd < reportTol {
 			rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d, the farthest point of the spline", idx[near]+1))
 		} else {
 			rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d, %.2g of the chord from the farthest point of the spline (within %g)", idx[near]+1, nd, LESnapTol))
 		}
-	} else {
+	default:
 		knots := spl.Knots()
 		j := 0
 		for j+2 < len(knots) && knots[j+1] <= tLE {

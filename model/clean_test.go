@@ -86,7 +86,13 @@ func TestCleanInvariance(t *testing.T) {
 		{"NACA 2412 blunt", testLoop(41)},
 	}
 	for _, s := range shapes {
-		ref, _ := mustClean(t, s.name, s.pts, DefaultCleanOptions)
+		// The reference is itself moved, so that neither it nor the trials
+		// give their own chord (see TestCleanKeepsFileChord).
+		moved := make([]Point, len(s.pts))
+		for i, p := range s.pts {
+			moved[i] = p.Rotate(Point{}, 0.1).Add(Point{0.5, 0.25})
+		}
+		ref, _ := mustClean(t, s.name, moved, DefaultCleanOptions)
 		for trial := range 20 {
 			scale := math.Pow(10, -3+6*rng.Float64())
 			rot := (rng.Float64()*2 - 1) * math.Pi / 6
@@ -364,7 +370,7 @@ func TestCleanReportString(t *testing.T) {
 		t.Fatal(err)
 	}
 	s := rep.String()
-	for _, want := range []string{`Section "one point off" from spike.dat: 81 points in, 82 out`, "Detected:\n  - name line 1", "Changes:\n  - ", "Warnings:\n  - spike: point 57", "Trailing-edge gap: 0.2"} {
+	for _, want := range []string{`Section "one point off" from spike.dat: 81 points in, 81 out`, "Detected:\n  - name line 1", "Changes: none", "Warnings:\n  - spike: point 56", "Trailing-edge gap: 0.2"} {
 		if !strings.Contains(s, want) {
 			t.Errorf("report lacks %q:\n%s", want, s)
 		}
@@ -557,4 +563,42 @@ func malformedLoop(t *testing.T, file string) []Point {
 		t.Fatal(err)
 	}
 	return p.Points
+}
+
+// TestCleanKeepsFileChord: a file already in the frame (a listed point at
+// the origin, the trailing edge on +x) keeps its chord line, as published
+// coordinates define it, although the cambered section's farthest point
+// from the trailing edge is elsewhere; moved off that frame, the same
+// section gets the farthest point as its leading edge.
+func TestCleanKeepsFileChord(t *testing.T) {
+	in := testLoop(41) // NACA 2412: nose of the mean line at (0, 0)
+	sec, rep := mustClean(t, "in frame", in, DefaultCleanOptions)
+	if d := maxDist(sec.Points(), in); d > 1e-12 || len(rep.Changes) != 0 {
+		t.Errorf("moved by %g\n%s", d, rep)
+	}
+	if !strings.Contains(strings.Join(rep.Detected, "\n"), "the file's own chord line is kept") {
+		t.Errorf("not reported:\n%s", rep)
+	}
+	var mm []Point
+	for _, p := range in {
+		mm = append(mm, p.Scale(250)) // millimetres, same frame
+	}
+	sec2, rep2 := mustClean(t, "in millimetres", mm, DefaultCleanOptions)
+	if d := maxDist(sec2.Points(), in); d > 1e-12 {
+		t.Errorf("millimetres: moved by %g\n%s", d, rep2)
+	}
+	var off []Point
+	for _, p := range in {
+		off = append(off, p.Add(Point{0.01, 0}))
+	}
+	sec3, rep3 := mustClean(t, "offset", off, DefaultCleanOptions)
+	if !strings.Contains(strings.Join(rep3.Changes, "\n"), "inserted the leading edge found on the spline") {
+		t.Errorf("offset: spline leading edge not used\n%s", rep3)
+	}
+	// The two chord lines differ by the angle of the farthest point seen
+	// from the trailing edge, about 0.09° here: mid-chord points move by
+	// about half a chord times that angle.
+	if sec3.Len() != sec.Len()+1 || sec3.At(20).Dist(sec.At(20)) < 1e-4 {
+		t.Errorf("offset: %d points, mid-chord point %v, in frame %v", sec3.Len(), sec3.At(20), sec.At(20))
+	}
 }
