@@ -240,28 +240,24 @@ func liveSweep(st *model.Study) bool {
 // holds for the other.
 func equalGeometry(a, b *model.Study) bool {
 	x, y := cloneStudy(a), cloneStudy(b)
-	for _, s := range []*model.Study{x, y} {
-		s.Flow.AlphaDeg = 0
-		s.Pins = nil
-		s.Name = ""
-		s.Sweep = model.SweepRange{}
-	}
+	y.Flow.AlphaDeg, y.Pins, y.Name, y.Team, y.Sweep = x.Flow.AlphaDeg, x.Pins, x.Name, x.Team, x.Sweep
 	ex, err1 := encodeStudy(x)
 	ey, err2 := encodeStudy(y)
 	return err1 == nil && err2 == nil && string(ex) == string(ey)
 }
 
 // RunSweep runs the study's sweep on its own goroutine with an engine of
-// its own (an engine serves one goroutine at a time). progress is called
-// after each angle that needs its own solve; done once at the end, with
-// context.Canceled if cancelled. Both run on the sweep goroutine.
+// its own (an engine serves one goroutine at a time). progress is called on
+// the sweep goroutine after each angle that needs its own solve; done on
+// the UI goroutine at the end, with context.Canceled if cancelled. A sweep
+// whose configuration changed meanwhile (other than the angle of attack) is
+// dropped with an error.
 func (c *Controller) RunSweep(progress func(done, total int), done func(err error)) error {
 	st := cloneStudy(c.state.study)
 	if _, err := st.Sweep.Angles(); err != nil {
 		return err
 	}
 	secs := c.state.sections
-	gen := c.sched.Latest()
 	ctx, cancel := context.WithCancel(context.Background())
 	c.mu.Lock()
 	if c.sweepRun != nil {
@@ -274,20 +270,20 @@ func (c *Controller) RunSweep(progress func(done, total int), done func(err erro
 		defer c.act.done()
 		defer cancel()
 		res, err := safeRun(c.newEngine(), ctx, engineRequest{Study: st, Sections: secs, Sweep: true, Progress: progress})
-		if err == nil && c.sched.Latest() != gen {
-			err = errors.New("the study changed while the sweep ran; run it again")
-		}
-		if err == nil {
-			c.mu.Lock()
-			c.sweep = res.Sweep
-			c.mu.Unlock()
-		}
-		if done != nil {
-			done(err)
-		}
-		if err == nil {
-			c.do(func() { c.changed(false) }) // redraw the polar with the new sweep
-		}
+		c.do(func() {
+			if err == nil && !equalGeometry(st, c.state.study) {
+				err = errors.New("the configuration changed while the sweep ran; run it again")
+			}
+			if err == nil {
+				c.mu.Lock()
+				c.sweep = res.Sweep
+				c.mu.Unlock()
+				c.changed(false) // redraw the polar with the new sweep
+			}
+			if done != nil {
+				done(err)
+			}
+		})
 	}()
 	return nil
 }

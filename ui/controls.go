@@ -420,9 +420,7 @@ func (c *controls) runSweep() {
 	}
 	err := ctl.RunSweep(func(done, total int) {
 		c.w.do(func() { c.progress.SetValue(float64(done) / float64(total)) })
-	}, func(err error) {
-		c.w.do(func() { finish(err) })
-	})
+	}, finish)
 	if err != nil {
 		finish(err)
 	}

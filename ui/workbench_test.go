@@ -312,16 +312,19 @@ func TestRunSweep(t *testing.T) {
 	w := newTestBench(t)
 	w.controls.from.SetText("-6")
 	w.controls.to.SetText("10")
-	w.controls.step.SetText("0.5")
+	w.controls.step.SetText("0.25") // 65 angles: more than a live update runs
 	w.WaitIdle()
-	if got := w.ctl.Study().Sweep; got != (model.SweepRange{FromDeg: -6, ToDeg: 10, StepDeg: 0.5}) {
+	if got := w.ctl.Study().Sweep; got != (model.SweepRange{FromDeg: -6, ToDeg: 10, StepDeg: 0.25}) {
 		t.Fatalf("sweep is %+v", got)
+	}
+	if len(w.ctl.Sweep()) == 65 {
+		t.Error("a long sweep ran with the live update")
 	}
 	w.controls.runSweep()
 	w.WaitIdle()
 	sw := w.ctl.Sweep()
-	if len(sw) != 33 {
-		t.Fatalf("sweep has %d angles, want 33", len(sw))
+	if len(sw) != 65 {
+		t.Fatalf("sweep has %d angles, want 65", len(sw))
 	}
 	if sw[0].AlphaDeg != -6 || sw[len(sw)-1].AlphaDeg != 10 {
 		t.Errorf("sweep runs %g..%g, want −6..10", sw[0].AlphaDeg, sw[len(sw)-1].AlphaDeg)
@@ -329,12 +332,23 @@ func TestRunSweep(t *testing.T) {
 	if !w.controls.progress.Hidden || w.controls.run.Disabled() {
 		t.Error("sweep controls not restored after the run")
 	}
+	// Changing only the angle keeps the sweep; changing the panelling drops it.
+	w.controls.alphaEntry.SetText("6")
+	w.WaitIdle()
+	if len(w.ctl.Sweep()) != 65 {
+		t.Error("an angle change dropped the sweep")
+	}
+	w.controls.panelEntry.SetText("120")
+	w.WaitIdle()
+	if w.ctl.Sweep() != nil {
+		t.Error("a panelling change kept a sweep of the old panelling")
+	}
 	// A bad range leaves the study's sweep alone.
 	w.controls.step.SetText("0")
 	if w.controls.sweepMsg.Hidden {
 		t.Error("step 0 shows no message")
 	}
-	if w.ctl.Study().Sweep.StepDeg != 0.5 {
+	if w.ctl.Study().Sweep.StepDeg != 0.25 {
 		t.Error("a rejected step changed the study")
 	}
 }
@@ -529,7 +543,7 @@ func TestGroundAndInverted(t *testing.T) {
 	w.controls.runSweep()
 	w.WaitIdle()
 	if len(w.ctl.Sweep()) != 17 {
-		t.Errorf("ground-effect sweep has %d angles, want 17", len(w.ctl.Sweep()))
+		t.Errorf("ground-effect sweep has %d angles, want 17 (%s)", len(w.ctl.Sweep()), w.controls.sweepMsg.Text)
 	}
 	if pv := w.views[viewPolar]; !pv.note.Hidden || pv.canvas.Figure() == nil {
 		t.Error("the polar shows no figure after the sweep ran")
