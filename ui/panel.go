@@ -48,7 +48,8 @@ func newPlotView(kind viewKind, act *activity, do func(func()), onEnlarge func(v
 		in := widget.NewButtonWithIcon("", theme.ZoomInIcon(), func() { v.canvas.ZoomCentre(1 / zoomStep) })
 		out := widget.NewButtonWithIcon("", theme.ZoomOutIcon(), func() { v.canvas.ZoomCentre(zoomStep) })
 		reset := widget.NewButtonWithIcon("", theme.ZoomFitIcon(), v.canvas.ResetZoom)
-		v.tools = []fyne.CanvasObject{in, out, reset}
+		speed := widget.NewButtonWithIcon("", theme.ColorPaletteIcon(), v.canvas.ToggleSpeedColour)
+		v.tools = []fyne.CanvasObject{speed, in, out, reset}
 	}
 	for _, t := range v.tools {
 		t.(*widget.Button).Importance = widget.LowImportance

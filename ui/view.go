@@ -56,6 +56,7 @@ type plotCanvas struct {
 	win     viewWindow
 	zoomed  bool
 	dark    bool
+	speed   bool // colour streamlines by local speed
 	pxW     int
 	pxH     int
 	dpi     float64
@@ -151,13 +152,14 @@ func (p *plotCanvas) renderNow(sc *scene) frame {
 	}
 	p.ticket++
 	t := p.ticket
-	s, w, h, dpi, win, zoomed, dark := p.sc, p.pxW, p.pxH, p.dpi, p.win, p.zoomed, p.dark
+	s, w, h, dpi, win, zoomed, dark, speed := p.sc, p.pxW, p.pxH, p.dpi, p.win, p.zoomed, p.dark, p.speed
 	p.mu.Unlock()
 	if s == nil || w < 1 || h < 1 {
 		return frame{p: p, ticket: t}
 	}
 	c := *s
 	c.Dark = dark
+	c.SpeedColour = speed
 	if zoomed {
 		c.Window = win
 	}
@@ -258,6 +260,14 @@ func (p *plotCanvas) window() (viewWindow, bool) {
 func (p *plotCanvas) setWindow(w viewWindow, zoomed bool) {
 	p.mu.Lock()
 	p.win, p.zoomed = w, zoomed
+	p.mu.Unlock()
+	p.renderLater()
+}
+
+// ToggleSpeedColour switches streamline colouring by local speed.
+func (p *plotCanvas) ToggleSpeedColour() {
+	p.mu.Lock()
+	p.speed = !p.speed
 	p.mu.Unlock()
 	p.renderLater()
 }
