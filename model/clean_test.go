@@ -497,9 +497,7 @@ func TestCleanRandomContours(t *testing.T) {
 				t.Fatalf("trial %d: point %d is %v", trial, i, sec.At(i))
 			}
 		}
-		if le := sec.At(sec.LeadingEdgeIndex()); le.Norm() > 1e-9 {
-			t.Errorf("trial %d: leading edge at %v", trial, le)
-		}
+		checkLeadingEdge(t, sec, rep)
 	}
 }
 
