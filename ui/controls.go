@@ -200,7 +200,7 @@ func newControls(w *Workbench) *controls {
 			setMessage(c.panelMsg, fmt.Errorf("panel count must be a whole number from %d to %d", model.MinPanels, model.MaxPanels))
 			return
 		}
-		c.editPanelling("panels", func(p *model.Panelling) { p.Panels = n })
+		c.editPanelling("panels-entry", func(p *model.Panelling) { p.Panels = n })
 	}
 	spacings := make([]string, len(model.Spacings))
 	for i, s := range model.Spacings {
@@ -235,7 +235,7 @@ func newControls(w *Workbench) *controls {
 			setMessage(c.flowMsg, errors.New("angle of attack must be a number of degrees"))
 			return
 		}
-		setMessage(c.flowMsg, ctl.SetAlpha("alpha", v))
+		setMessage(c.flowMsg, ctl.SetAlpha("alpha-entry", v))
 	}
 	stepAlpha := func(sign float64) {
 		st := ctl.state.study

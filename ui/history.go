@@ -1,10 +1,19 @@
 package ui
 
-import "sectionbench/model"
+import (
+	"time"
+
+	"sectionbench/model"
+)
 
 // maxUndo bounds the undo history; older snapshots are dropped. A study is
 // a few kilobytes unless it embeds coordinates, so this stays small.
 const maxUndo = 200
+
+// mergeWindow is how soon an edit must follow the last one with the same
+// key to join its undo step: typing "120" is one step, a second edit of
+// the same field a while later is another.
+const mergeWindow = 2 * time.Second
 
 // history keeps snapshots of the study for undo and redo. It stores clones;
 // callers hand in and get back studies they own.
@@ -14,16 +23,24 @@ const maxUndo = 200
 type history struct {
 	undo, redo []*model.Study
 	lastKey    string
+	lastAt     time.Time
+	now        func() time.Time // time.Now unless a test sets it
 }
 
 // Record saves before, the study as it was before an edit, as an undo step
 // and clears the redo stack.
 func (h *history) Record(before *model.Study, key string) {
 	h.redo = nil
-	if key != "" && key == h.lastKey && len(h.undo) > 0 {
+	now := time.Now
+	if h.now != nil {
+		now = h.now
+	}
+	t := now()
+	merge := key != "" && key == h.lastKey && len(h.undo) > 0 && t.Sub(h.lastAt) < mergeWindow
+	h.lastKey, h.lastAt = key, t
+	if merge {
 		return
 	}
-	h.lastKey = key
 	h.undo = append(h.undo, cloneStudy(before))
 	if len(h.undo) > maxUndo {
 		h.undo = h.undo[len(h.undo)-maxUndo:]
@@ -63,4 +80,4 @@ func (h *history) CanUndo() bool { return len(h.undo) > 0 }
 func (h *history) CanRedo() bool { return len(h.redo) > 0 }
 
 // Reset forgets all steps (a new or opened study).
-func (h *history) Reset() { *h = history{} }
+func (h *history) Reset() { *h = history{now: h.now} }

@@ -2,7 +2,6 @@ package ui
 
 import (
 	"context"
-	"errors"
 	"sync"
 	"testing"
 
@@ -75,59 +74,5 @@ func TestSchedulerRecoversPanic(t *testing.T) {
 	act.wait()
 	if err == nil {
 		t.Fatal("a panicking engine gave no error")
-	}
-}
-
-func TestHistoryBounds(t *testing.T) {
-	var h history
-	st := model.NewStudy()
-	for i := range maxUndo + 10 {
-		st.Panelling.Panels = 16 + i
-		h.Record(st, "")
-	}
-	if len(h.undo) != maxUndo {
-		t.Errorf("undo holds %d steps, want the bound %d", len(h.undo), maxUndo)
-	}
-	cur := model.NewStudy()
-	prev, ok := h.Undo(cur)
-	if !ok || prev.Panelling.Panels != 16+maxUndo+9 {
-		t.Errorf("undo gave %v, %v", prev, ok)
-	}
-	if !h.CanRedo() {
-		t.Error("no redo after undo")
-	}
-	h.Record(cur, "")
-	if h.CanRedo() {
-		t.Error("a new edit kept the redo stack")
-	}
-}
-
-func TestFriendlyMessages(t *testing.T) {
-	cases := []struct {
-		name string
-		err  error
-		want string
-	}{
-		{"field", &model.FieldError{Field: "panelling.panels", Err: errors.New("5000 is outside 16..2000")}, "Panel count: 5000 is outside 16..2000"},
-		{"naca", &model.NACAError{Designation: "44x2", Pos: 2, Reason: "is not a digit"}, "Not a NACA designation: character 3 is not a digit"},
-		{"naca without position", &model.NACAError{Designation: "", Pos: -1, Reason: "is empty"}, "Not a NACA designation: is empty"},
-		{"plain", errors.New("first\nsecond"), "first"},
-	}
-	for _, c := range cases {
-		if got := friendly(c.err); got != c.want {
-			t.Errorf("%s: %q, want %q", c.name, got, c.want)
-		}
-	}
-}
-
-func TestFileNameFor(t *testing.T) {
-	for in, want := range map[string]string{
-		"Demo — fictional student team, rear-wing main element": "demo-fictional-student-team-rear-wing-main-element.json",
-		"":       "study.json",
-		"Wing 2": "wing-2.json",
-	} {
-		if got := fileNameFor(in); got != want {
-			t.Errorf("fileNameFor(%q) = %q, want %q", in, got, want)
-		}
 	}
 }
