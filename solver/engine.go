@@ -2,6 +2,7 @@ package solver
 
 import (
 	"context"
+	"errors"
 	"encoding/json"
 	"fmt"
 	"math"
@@ -130,6 +131,9 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 
 	sol, cfg, err := e.solveAt(st.Flow.AlphaDeg)
 	if err != nil {
+		return nil, err
+	}
+	if err := checkFinite(sol); err != nil {
 		return nil, err
 	}
 	res.Solution, res.Config = sol, cfg
@@ -331,4 +335,25 @@ func (e *Engine) Density(ctx context.Context, st *model.Study, secs []*model.Sec
 		return r.Solution, nil
 	}
 	return DensityStudy(ctx, opt, solve, progress)
+}
+
+// ErrNonFiniteResult reports a solution with NaN or infinite values: a
+// guard against returning a silent wrong answer from a degenerate system.
+var ErrNonFiniteResult = errors.New("the solution has values that are not finite numbers")
+
+// checkFinite returns an error naming the first element and quantity of sol
+// that is NaN or infinite.
+func checkFinite(sol *Solution) error {
+	bad := func(x float64) bool { return math.IsNaN(x) || math.IsInf(x, 0) }
+	if bad(sol.Cl) || bad(sol.ClPressure) || bad(sol.Cm) {
+		return fmt.Errorf("configuration coefficients: %w", ErrNonFiniteResult)
+	}
+	for _, e := range sol.Elements {
+		for i, p := range e.Panels {
+			if bad(p.Cp) || bad(p.Vt) {
+				return fmt.Errorf("element %q, panel %d: %w", e.Name, i+1, ErrNonFiniteResult)
+			}
+		}
+	}
+	return nil
 }

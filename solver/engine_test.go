@@ -154,3 +154,15 @@ func TestEngineErrors(t *testing.T) {
 		t.Errorf("cancelled sweep: %v, want context.Canceled", err)
 	}
 }
+
+func TestCheckFinite(t *testing.T) {
+	st, secs := engineStudy(t, "0012")
+	sol := run(t, NewEngine(), st, secs, false).Solution
+	if err := checkFinite(sol); err != nil {
+		t.Fatalf("a good solution: %v", err)
+	}
+	sol.Elements[0].Panels[7].Cp = math.NaN()
+	if err := checkFinite(sol); !errors.Is(err, ErrNonFiniteResult) {
+		t.Errorf("NaN Cp: %v, want ErrNonFiniteResult", err)
+	}
+}
