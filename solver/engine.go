@@ -2,8 +2,8 @@ package solver
 
 import (
 	"context"
-	"errors"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"math"
 	"time"
