@@ -180,7 +180,9 @@ func (p *Parsed) Clean(opt CleanOptions) (*Section, *CleanReport, error) {
 //     other points; inside it they are a point); a header row naming x and
 //     y columns, with as many fields as the first data line. A single
 //     number on the first data line is taken as the total point count and
-//     checked.
+//     checked. A third column that is zero on every line (z, as CAD
+//     exports write it) is dropped and noted; other extra columns need a
+//     header row.
 //
 // It rejects, with a *ParseError naming the line and column: empty input,
 // binary data (NUL bytes, or more than 10% control bytes or invalid UTF-8),
@@ -733,6 +735,22 @@ func (p *parser) finish() (*Parsed, error) {
 			pointLines = append(pointLines, r.line)
 		}
 	} else {
+		// A third column that is zero on every line is a z coordinate, as
+		// CAD exports write it: unambiguous, so it is dropped (and noted).
+		zcol := len(recs) > 0
+		for _, r := range recs {
+			zcol = zcol && len(r.fields) == 3 && isNumber(r.fields[2].text)
+			if zcol {
+				v, err := strconv.ParseFloat(strings.Map(dToE, r.fields[2].text), 64)
+				zcol = err == nil && v == 0
+			}
+		}
+		if zcol {
+			for i := range recs {
+				recs[i].fields = recs[i].fields[:2]
+			}
+			p.notes = append(p.notes, "a third column, zero on every line (z), ignored")
+		}
 		for k, r := range recs {
 			if len(r.fields) != 2 && !(k == 0 && len(r.fields) == 1) {
 				msg := fmt.Sprintf("%d %s; expected 2 (x and y)", len(r.fields), plural(len(r.fields), "value", "values"))
@@ -986,4 +1004,12 @@ func nameFromSource(src string) string {
 		return "unnamed"
 	}
 	return src
+}
+
+// dToE turns a Fortran exponent letter into E.
+func dToE(r rune) rune {
+	if r == 'd' || r == 'D' {
+		return 'e'
+	}
+	return r
 }

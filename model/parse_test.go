@@ -622,6 +622,7 @@ func malformedCorpus() map[string][]byte {
 	files["text-in-middle.dat"] = bytes.Replace(text("text among the numbers", loop), []byte("\n"+num(loop[30].X)), []byte("\nupper surface ends here\n"+num(loop[30].X)), 1)
 	files["missing-y.dat"] = bytes.Replace(text("a line without y", loop), []byte(" "+num(loop[12].Y)+"\n"), []byte("\n"), 1)
 	files["three-columns.dat"] = []byte("x y z without a header\n1 0 0\n0.5 0.06 0\n0 0 0\n0.5 -0.05 0\n1 0 0\n")
+	files["numbered-points.dat"] = []byte("numbered points\n1 1 0\n2 0.5 0.06\n3 0 0\n4 0.5 -0.05\n5 1 0\n")
 	files["empty-field.dat"] = []byte("csv with a hole\n1,0\n0.5,,0.06\n0,0\n0.5,-0.05\n1,0\n")
 	var csvNoY bytes.Buffer
 	csvNoY.WriteString("x,z,w\n")
