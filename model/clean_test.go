@@ -257,6 +257,11 @@ func TestCleanLeadingEdgePoint(t *testing.T) {
 		if p := sec.At(sec.LeadingEdgeIndex()); p != (Point{}) {
 			t.Errorf("%s: leading edge point %v", c.name, p)
 		}
+		// The leading edge sits between an upper and a lower point.
+		k := sec.LeadingEdgeIndex()
+		if !(sec.At(k-1).Y > 0 && sec.At(k+1).Y < 0) {
+			t.Errorf("%s: leading edge %d between %v and %v", c.name, k, sec.At(k-1), sec.At(k+1))
+		}
 	}
 }
 
