@@ -133,8 +133,8 @@ type Parsed struct {
 	Layout FileLayout // how the file listed its points
 	// Points holds the contour as one loop in the file's traversal: a loop
 	// as listed, or two surfaces joined at the leading edge (the first
-	// surface reversed, then the second). Orientation, start point,
-	// duplicates and scale are left to Clean.
+	// surface run towards the leading edge, then the second away from it).
+	// Orientation, start point, duplicates and scale are left to Clean.
 	Points []Point
 	// Notes says, in words, everything that was detected or assumed.
 	Notes []string
