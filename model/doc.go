@@ -33,6 +33,8 @@
 // Programmer mistakes (an index out of range, a nil section) panic with a
 // "model: " prefix. Bad data returns typed errors carrying context:
 // *PointError (which point), *ParseError (which line and column), *FieldError
-// (which study field). Sentinel errors such as ErrTooFewPoints and
+// (which study field), *ContourError (a contour that cannot be a section),
+// *NACAError (which character of a designation), *GeometryError (which
+// elements of a configuration). Sentinel errors such as ErrTooFewPoints and
 // ErrNonFinite can be matched with errors.Is through any of them.
 package model
