@@ -37,43 +37,45 @@ type jsonXY struct {
 	Y num `json:"y"`
 }
 
+// jsonCoefficients are the keys an element and the whole configuration
+// share.
+type jsonCoefficients struct {
+	Cl         num    `json:"cl"`
+	ClPressure num    `json:"cl_pressure"`
+	Cm         num    `json:"cm"`
+	CpMin      num    `json:"cp_min"`
+	XCpMin     num    `json:"x_cp_min"`
+	Stagnation jsonXY `json:"stagnation"`
+}
+
+// jsonViscous are the boundary-layer keys, shared likewise.
+type jsonViscous struct {
+	Cd              *num `json:"cd,omitempty"`
+	TransitionUpper *num `json:"transition_upper,omitempty"`
+	TransitionLower *num `json:"transition_lower,omitempty"`
+	SeparationUpper *num `json:"separation_upper,omitempty"`
+	SeparationLower *num `json:"separation_lower,omitempty"`
+}
+
 type jsonElement struct {
-	Name            string      `json:"name"`
-	Cl              num         `json:"cl"`
-	ClPressure      num         `json:"cl_pressure"`
-	Cm              num         `json:"cm"`
-	CpMin           num         `json:"cp_min"`
-	XCpMin          num         `json:"x_cp_min"`
-	Stagnation      jsonXY      `json:"stagnation"`
-	Reynolds        *num        `json:"reynolds,omitempty"`
-	Cd              *num        `json:"cd,omitempty"`
-	TransitionUpper *num        `json:"transition_upper,omitempty"`
-	TransitionLower *num        `json:"transition_lower,omitempty"`
-	SeparationUpper *num        `json:"separation_upper,omitempty"`
-	SeparationLower *num        `json:"separation_lower,omitempty"`
-	LiftPerSpan     *num        `json:"lift_per_span_n_per_m,omitempty"`
-	Points          []jsonPoint `json:"points"`
+	Name string `json:"name"`
+	jsonCoefficients
+	Reynolds *num `json:"reynolds,omitempty"`
+	jsonViscous
+	LiftPerSpan *num        `json:"lift_per_span_n_per_m,omitempty"`
+	Points      []jsonPoint `json:"points"`
 }
 
 type jsonSolve struct {
-	Name       string        `json:"name"`
-	AlphaDeg   num           `json:"alpha_deg"`
-	Panels     int           `json:"panels"`
-	Cl         num           `json:"cl"`
-	ClPressure num           `json:"cl_pressure"`
-	Cm         num           `json:"cm"`
-	CpMin      num           `json:"cp_min"`
-	XCpMin     num           `json:"x_cp_min"`
-	Stagnation jsonXY        `json:"stagnation"`
-	Inverted   bool          `json:"inverted"`
-	Downforce  *num          `json:"downforce_coefficient,omitempty"`
-	Ground     *num          `json:"ground_clearance_mm,omitempty"`
-	RefChordM  num           `json:"reference_chord_m"`
-	Cd         *num          `json:"cd,omitempty"`
-	TrUpper    *num          `json:"transition_upper,omitempty"`
-	TrLower    *num          `json:"transition_lower,omitempty"`
-	SepUpper   *num          `json:"separation_upper,omitempty"`
-	SepLower   *num          `json:"separation_lower,omitempty"`
+	Name     string `json:"name"`
+	AlphaDeg num    `json:"alpha_deg"`
+	Panels   int    `json:"panels"`
+	jsonCoefficients
+	Inverted  bool `json:"inverted"`
+	Downforce *num `json:"downforce_coefficient,omitempty"`
+	Ground    *num `json:"ground_clearance_mm,omitempty"`
+	RefChordM num  `json:"reference_chord_m"`
+	jsonViscous
 	Q          *num          `json:"dynamic_pressure_pa,omitempty"`
 	Force      *num          `json:"force_per_span_n_per_m,omitempty"`
 	DownforceN *num          `json:"downforce_per_span_n_per_m,omitempty"`
@@ -128,20 +130,21 @@ func solveJSON(st *model.Study, res *solver.Result, warnings []string) jsonSolve
 	sol := res.Solution
 	out := jsonSolve{
 		Name: st.Name, AlphaDeg: num(sol.AlphaDeg), Panels: st.Panelling.Panels,
-		Cl: num(sol.Cl), ClPressure: num(sol.ClPressure), Cm: num(sol.Cm),
 		Inverted: st.Inverted, RefChordM: num(sol.RefChord), Warnings: warnings,
 	}
-	// The configuration's minimum Cp and stagnation point are those of the
-	// element with the lowest Cp (the main element of a lone section).
+	// The configuration's minimum Cp is that of the element with the lowest
+	// Cp; its stagnation point is the main element's.
 	best := 0
 	for i, e := range sol.Elements {
 		if e.CpMin < sol.Elements[best].CpMin {
 			best = i
 		}
 	}
-	m := sol.Elements[best]
-	out.CpMin, out.XCpMin = num(m.CpMin), num(m.XCpMin)
-	out.Stagnation = jsonXY{num(sol.Elements[0].Stagnation.X), num(sol.Elements[0].Stagnation.Y)}
+	out.jsonCoefficients = jsonCoefficients{
+		Cl: num(sol.Cl), ClPressure: num(sol.ClPressure), Cm: num(sol.Cm),
+		CpMin: num(sol.Elements[best].CpMin), XCpMin: num(sol.Elements[best].XCpMin),
+		Stagnation: jsonXY{num(sol.Elements[0].Stagnation.X), num(sol.Elements[0].Stagnation.Y)},
+	}
 	if st.Inverted {
 		out.Downforce = ptr(-sol.Cl)
 	}
@@ -149,11 +152,11 @@ func solveJSON(st *model.Study, res *solver.Result, warnings []string) jsonSolve
 		out.Ground = ptr(st.Ground.ClearanceMM)
 	}
 	for i, e := range sol.Elements {
-		je := jsonElement{
-			Name: e.Name, Cl: num(e.Cl), ClPressure: num(e.ClPressure), Cm: num(e.Cm),
+		je := jsonElement{Name: e.Name, jsonCoefficients: jsonCoefficients{
+			Cl: num(e.Cl), ClPressure: num(e.ClPressure), Cm: num(e.Cm),
 			CpMin: num(e.CpMin), XCpMin: num(e.XCpMin),
 			Stagnation: jsonXY{num(e.Stagnation.X), num(e.Stagnation.Y)},
-		}
+		}}
 		for _, p := range e.Panels {
 			je.Points = append(je.Points, jsonPoint{num(p.X), num(p.Y), num(p.XC), num(p.Cp), p.Side.String()})
 		}
@@ -162,9 +165,7 @@ func solveJSON(st *model.Study, res *solver.Result, warnings []string) jsonSolve
 		}
 		if v := res.Viscous; v != nil {
 			ev := v.Elements[i]
-			je.Cd = ptr(ev.Cd)
-			je.TransitionUpper, je.TransitionLower = ptr(ev.Upper.TransitionXC), ptr(ev.Lower.TransitionXC)
-			je.SeparationUpper, je.SeparationLower = ptr(ev.Upper.TurbulentSeparationXC), ptr(ev.Lower.TurbulentSeparationXC)
+			je.jsonViscous = jsonViscous{ptr(ev.Cd), ptr(ev.Upper.TransitionXC), ptr(ev.Lower.TransitionXC), ptr(ev.Upper.TurbulentSeparationXC), ptr(ev.Lower.TurbulentSeparationXC)}
 		}
 		if f := res.Forces; f != nil {
 			je.LiftPerSpan = ptr(f.ElementLift[i])
@@ -173,9 +174,8 @@ func solveJSON(st *model.Study, res *solver.Result, warnings []string) jsonSolve
 	}
 	out.Points = out.Elements[0].Points
 	if v := res.Viscous; v != nil {
+		out.jsonViscous = out.Elements[0].jsonViscous
 		out.Cd = ptr(v.Cd)
-		e0 := out.Elements[0]
-		out.TrUpper, out.TrLower, out.SepUpper, out.SepLower = e0.TransitionUpper, e0.TransitionLower, e0.SeparationUpper, e0.SeparationLower
 	}
 	if f := res.Forces; f != nil {
 		out.Q, out.Force = ptr(f.DynamicPressurePa), ptr(f.LiftPerSpan)
