@@ -48,7 +48,8 @@
 // Kutta condition per element into one square system (Katz & Plotkin sec.
 // 11.4; Kuethe & Chow, Foundations of Aerodynamics, 5th ed., sec. 5.10),
 // factorises it once and solves for the freestreams at 0° and 90°, so any
-// angle is a superposition; ground effect uses mirror images. forces.go
+// angle is a superposition; ground effect uses mirror images (vortices of
+// opposite sign, base sources of the same sign). forces.go
 // turns γ into surface velocity, pressure, forces and sweeps; field.go
 // evaluates the velocity anywhere, with multipole expansions for distant
 // panels; streamline.go integrates streamlines with an adaptive Runge–Kutta
@@ -58,13 +59,17 @@
 //
 // The Kutta condition sets the strengths at the first and last nodes equal
 // and opposite. A closed trailing edge has those nodes coincide. An open
-// (blunt) one leaves the gap between them without a panel, which is good
-// for gaps of a percent or two of chord; but once its last panels are
-// shorter than the gap, the Cp of the panel or two next to it shows a
-// spurious suction that grows as panels shrink (flow through the gap; see
-// the notes in system.go). Cl is unaffected (it converges at second order),
-// CpMin and XCpMin ignore panels behind TrailingEdgeCutXC, and a Solution
-// warns. Cp plots of open trailing edges should be read with that in mind.
+// (blunt) one has its gap closed by a straight base panel carrying an
+// unknown constant source σ, fixed by zero normal flow just inside the
+// base at its midpoint (system.go): the source is the outflow into the
+// dead-air region behind the base, and it keeps the flow from passing
+// through the gap, so the Cp of the last panels stays bounded however fine
+// the panelling (it rises towards stagnation at the two corners). The base
+// panel adds no circulation and its Cp is not a surface value; Panels,
+// CpMin and the forces cover the surface panels only, and
+// ElementSolution.BaseSource reports σ. A Solution warns when the gap is
+// wider than MaxTEGapFraction of chord, where a thin base model is
+// doubtful.
 //
 // In ground mode the freestream must be parallel to the ground: Solve and
 // Sweep accept only α = 0 there, and the configuration itself is placed at
@@ -76,6 +81,6 @@
 // panels, wrong orientation, degenerate panels, nodes below the ground,
 // non-finite coordinates) returns a *GeometryError naming the element and
 // panel, wrapping a sentinel such as ErrClockwise; a singular system returns
-// a *SingularError wrapping ErrSingular. An ill-conditioned system or a wide
-// open trailing edge is solved with a warning in Solution.Warnings.
+// a *SingularError wrapping ErrSingular. An ill-conditioned system or a
+// wide open trailing edge is solved with a warning in Solution.Warnings.
 package solver

@@ -35,7 +35,7 @@ func ExampleNewSystem() {
 	fmt.Println("panels:", len(e.Panels), "unknowns:", sys.Unknowns())
 	// Output:
 	// Cl 0.0000, Cm 0.0000, stagnation at x/c 0.0000
-	// panels: 160 unknowns: 161
+	// panels: 160 unknowns: 162
 }
 
 // A sweep reuses the factorised system: the lift slope of NACA 0012 is a
@@ -91,8 +91,8 @@ func ExampleConfig_ground() {
 	}
 	// Output:
 	// h/c 1.0: Cl -0.57
-	// h/c 0.5: Cl -0.68
-	// h/c 0.2: Cl -1.14
+	// h/c 0.5: Cl -0.67
+	// h/c 0.2: Cl -1.13
 }
 
 // Streamlines start on the upstream edge of the bounds; the last one per

@@ -13,10 +13,14 @@ import (
 // The velocity field.
 //
 // At a point z the velocity is the freestream plus the sum over panels of
-// the closed-form linear-vortex velocities (influence.go) and, in ground
-// mode, of their images: by symmetry the image sheet's velocity at z is the
-// reflection (u, −v) of the real sheet's velocity at the mirrored point
-// z' = (x, 2·GroundY − y).
+// the closed-form linear-vortex velocities (influence.go), plus the base
+// sources of open trailing edges (constant-strength source panels, always
+// in closed form), and, in ground mode, of their images: by symmetry the
+// image sheet's velocity at z is the reflection (u, −v) of the real sheet's
+// velocity at the mirrored point z' = (x, 2·GroundY − y). The reflection
+// turns a clockwise vortex into an anticlockwise one but leaves a source a
+// source, so vortex images carry −γ and source images +σ, both by the same
+// formula.
 //
 // Far from a panel the closed form (one atan2 and one logarithm) is
 // replaced by its multipole expansion about the panel midpoint z0. With the
@@ -88,7 +92,15 @@ type field struct {
 	far    []farPanel
 	tree   []cluster
 	roots  []int32
+	bases  []basePanel
 	ux, uy float64 // freestream
+}
+
+// basePanel is the source panel closing an open trailing edge. There is at
+// most one per element, so it is always evaluated in closed form.
+type basePanel struct {
+	p     *panelGeom
+	sigma float64
 }
 
 // lazyField builds a Solution's field once, on first use.
@@ -138,6 +150,9 @@ func newField(s *Solution) *field {
 	for ei := range geo.elems {
 		e := &geo.elems[ei]
 		f.roots = append(f.roots, f.build(e.p0, e.p0+e.np))
+		if e.open() {
+			f.bases = append(f.bases, basePanel{p: &e.base, sigma: s.g[e.us]})
+		}
 	}
 	return f
 }
@@ -227,7 +242,8 @@ func sqAbs(z complex128) float64 { return real(z)*real(z) + imag(z)*imag(z) }
 // every level, so 64 levels cover any panel count.
 const maxTreeDepth = 64
 
-// induced returns the velocity the panels (without images) induce at p.
+// induced returns the velocity the panels and base sources (without
+// images) induce at p.
 func (f *field) induced(px, py float64) (u, v float64) {
 	var w complex128 // Σ a_k/(z − zc)^{k+1} over opened clusters; × i/2π below
 	z := complex(px, py)
@@ -259,6 +275,11 @@ func (f *field) induced(px, py float64) (u, v float64) {
 				v += dv
 			}
 		}
+	}
+	for _, b := range f.bases {
+		su, sv := sourceInfluence(b.p, px, py)
+		u += b.sigma * su
+		v += b.sigma * sv
 	}
 	w *= complex(0, 1/(2*math.Pi))
 	return u + real(w), v - imag(w)

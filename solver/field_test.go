@@ -148,7 +148,8 @@ func TestVelocityNearSurface(t *testing.T) {
 }
 
 // The cluster tree of field.go against the plain sum of every panel's
-// closed form, near and far, in free air and with the ground.
+// closed form and the base sources, near and far, in free air and with the
+// ground.
 func TestFieldTree(t *testing.T) {
 	main := nacaElement(t, "4412", 240)
 	flap := transform(nacaElement(t, "2412", 120), 25, 0.35, model.Point{X: 1.0, Y: -0.06})
@@ -180,6 +181,13 @@ func TestFieldTree(t *testing.T) {
 					ua, va, ub, vb := panelInfluence(p, x, y)
 					eu += ua*sol.g[p.ia] + ub*sol.g[p.ib]
 					ev += sign * (va*sol.g[p.ia] + vb*sol.g[p.ib])
+				}
+				for k := range f.geo.elems {
+					if e := &f.geo.elems[k]; e.open() {
+						su, sv := sourceInfluence(&e.base, x, y)
+						eu += su * sol.g[e.us]
+						ev += sign * sv * sol.g[e.us]
+					}
 				}
 			}
 			add(px, py, 1)
@@ -240,6 +248,22 @@ func TestFieldSatisfiesTangency(t *testing.T) {
 		}
 		if worst > 1e-4 {
 			t.Errorf("trial %d (ground %v): max normal velocity %.3g at the collocation points", trial, cfg.Ground, worst)
+		}
+		// On an open trailing edge's base panel the fluid inside is at
+		// rest, so just outside its midpoint the normal velocity is the
+		// source's own σ (system.go; the flap's NACA section is open).
+		for k := range geo.elems {
+			e := &geo.elems[k]
+			if !e.open() {
+				continue
+			}
+			b := &e.base
+			sig := sol.Elements[k].BaseSource
+			q := model.Point{X: b.mx + 1e-9*b.l*b.nx, Y: b.my + 1e-9*b.l*b.ny}
+			u, v := sol.VelocityAt(q)
+			if vn := u*b.nx + v*b.ny; math.Abs(vn-sig) > 1e-4 {
+				t.Errorf("trial %d element %d: normal velocity %.6g outside the base, want σ = %.6g", trial, k, vn, sig)
+			}
 		}
 		for k, e := range sol.Elements {
 			if d := math.Abs(e.Gamma[0] + e.Gamma[len(e.Gamma)-1]); d > 1e-10 {

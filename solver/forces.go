@@ -94,18 +94,9 @@ func (s *System) prepare() {
 			s.vt90[j] = -0.5 * (s.g90[p.ia] + s.g90[p.ib])
 		}
 	}
-	// CpMin candidates: panels ahead of the trailing-edge cut (system.go).
-	var ha, hb []float64
-	var hj []int
-	for j, p := range g.panels {
-		if p.xc <= TrailingEdgeCutXC {
-			ha, hb, hj = append(ha, s.vt0[j]), append(hb, s.vt90[j]), append(hj, j)
-		}
-	}
-	s.hull = velocityHull(ha, hb)
-	for i := range s.hull {
-		s.hull[i].j = hj[s.hull[i].j]
-	}
+	// CpMin candidates: every surface panel (the base panel of an open
+	// trailing edge is not one; system.go).
+	s.hull = velocityHull(s.vt0, s.vt90)
 	s.forces = make([]elemQuad, len(g.elems))
 	for k := range g.elems {
 		e := &g.elems[k]
@@ -245,6 +236,9 @@ func (s *System) solution(alphaDeg, c, sn float64, g []float64) *Solution {
 		es.Name = e.name
 		es.Chord = e.chord
 		es.Gamma = append([]float64(nil), g[e.u0:e.u0+e.np+1]...)
+		if e.open() {
+			es.BaseSource = g[e.us]
+		}
 		es.Circulation = f.gam
 		es.Cl = 2 * f.gam / e.chord
 		es.ClPressure = (-f.fx*sn + f.fy*c) / e.chord
@@ -257,7 +251,7 @@ func (s *System) solution(alphaDeg, c, sn float64, g []float64) *Solution {
 			vt := -0.5 * (g[p.ia] + g[p.ib])
 			cp := 1 - vt*vt
 			es.Panels[i] = Panel{X: p.mx, Y: p.my, S: p.s, XC: p.xc, Vt: vt, Cp: cp, Side: p.side}
-			if cp < es.CpMin && p.xc <= TrailingEdgeCutXC {
+			if cp < es.CpMin {
 				es.CpMin, es.XCpMin = cp, p.xc
 			}
 		}

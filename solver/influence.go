@@ -84,3 +84,39 @@ func panelInfluence(pn *panelGeom, px, py float64) (ua, va, ub, vb float64) {
 	vb = lub*pn.ty + lvb*pn.tx
 	return ua, va, ub, vb
 }
+
+// The velocity induced by one constant-strength source panel, which closes
+// an open trailing edge (system.go). In the same panel frame as above, a
+// source of strength σ per unit length (outflow positive) on 0 ≤ ξ ≤ L
+// induces (Katz & Plotkin, Low-Speed Aerodynamics, 2nd ed., 2001, sec.
+// 10.2.1, constant-strength source element)
+//
+//	u' = σ/(4π) ln(r1²/r2²) = σ/(2π) λ,
+//	v' = σ/(2π) (θ2 − θ1) = σ/(2π) Δθ,
+//
+// with the same λ = ln(r1/r2) and subtended angle Δθ as the vortex panel.
+// On the panel, from outside the body (y' → 0−, Δθ → −π) the normal
+// velocity is σ/2 along the outward normal, from inside −σ/2: the sheet
+// emits σ per unit length, half to each side.
+
+// constantSource returns the panel-frame velocity (u', v') per unit σ
+// given dth = Δθ and lam = ln(r1/r2).
+func constantSource(dth, lam float64) (u, v float64) {
+	const inv2pi = 1 / (2 * math.Pi)
+	return lam * inv2pi, dth * inv2pi
+}
+
+// sourceInfluence returns the global velocity (u, v) per unit σ that the
+// constant-strength source panel pn induces at (px, py), with the
+// near-node logarithm clamped as in panelInfluence.
+func sourceInfluence(pn *panelGeom, px, py float64) (u, v float64) {
+	r1x, r1y := px-pn.x1, py-pn.y1
+	r2x, r2y := px-pn.x2, py-pn.y2
+	floor := minDistFrac * minDistFrac * pn.l * pn.l
+	r1 := math.Max(r1x*r1x+r1y*r1y, floor)
+	r2 := math.Max(r2x*r2x+r2y*r2y, floor)
+	lam := 0.5 * math.Log(r1/r2)
+	dth := math.Atan2(r1x*r2y-r1y*r2x, r1x*r2x+r1y*r2y)
+	lu, lv := constantSource(dth, lam)
+	return lu*pn.tx - lv*pn.ty, lu*pn.ty + lv*pn.tx
+}

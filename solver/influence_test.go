@@ -107,3 +107,47 @@ func TestInfluenceFiniteOnPanel(t *testing.T) {
 		}
 	}
 }
+
+// The constant-strength source panel of influence.go against direct
+// quadrature of the point-source kernel u = σ (x − ξ)/(2π r²),
+// v = σ y/(2π r²) (Katz & Plotkin, Low-Speed Aerodynamics, 2nd ed., sec.
+// 10.2.1), and its normal velocity ±σ/2 on the two faces at the midpoint.
+func TestConstantSourceAgainstQuadrature(t *testing.T) {
+	g, err := newGeometry(circleConfig(12))
+	if err != nil {
+		t.Fatal(err)
+	}
+	rng := rand.New(rand.NewPCG(13, 14))
+	for j := range g.panels {
+		p := &g.panels[j]
+		for range 20 {
+			px := p.mx + (rng.Float64()*2-1)*2*p.l
+			py := p.my + (rng.Float64()*2-1)*2*p.l
+			if math.Abs((px-p.x1)*p.nx+(py-p.y1)*p.ny) < 0.05*p.l {
+				continue
+			}
+			u, v := sourceInfluence(p, px, py)
+			ker := func(xi float64) (float64, float64) {
+				dx, dy := px-(p.x1+xi*p.tx), py-(p.y1+xi*p.ty)
+				r2 := dx*dx + dy*dy
+				return dx / (2 * math.Pi * r2), dy / (2 * math.Pi * r2)
+			}
+			const nq = 200
+			qu := quad.Fixed(func(x float64) float64 { u, _ := ker(x); return u }, 0, p.l, nq, nil, 0)
+			qv := quad.Fixed(func(x float64) float64 { _, v := ker(x); return v }, 0, p.l, nq, nil, 0)
+			if math.Abs(u-qu) > 1e-10 || math.Abs(v-qv) > 1e-10 {
+				t.Errorf("panel %d at (%.4g, %.4g): (%.12g, %.12g), quadrature (%.12g, %.12g)", j, px, py, u, v, qu, qv)
+			}
+		}
+		for _, side := range []struct {
+			name string
+			sign float64 // along the outward normal
+		}{{"outside", 1}, {"inside", -1}} {
+			eps := 1e-9 * p.l
+			u, v := sourceInfluence(p, p.mx+side.sign*eps*p.nx, p.my+side.sign*eps*p.ny)
+			if vn := u*p.nx + v*p.ny; math.Abs(vn-side.sign/2) > 1e-8 {
+				t.Errorf("panel %d %s: normal velocity %g per unit σ, want %g", j, side.name, vn, side.sign/2)
+			}
+		}
+	}
+}

@@ -5,8 +5,8 @@ import "sectionbench/model"
 // Element is one body as the solver sees it: panel nodes in the
 // configuration frame, trailing edge → upper surface → leading edge → lower
 // surface → trailing edge. For a closed trailing edge the first and last
-// nodes coincide; for an open one they stand apart and the gap is left
-// without a panel.
+// nodes coincide; for an open one they stand apart and the solver closes
+// the gap with a base panel carrying a constant source (system.go).
 type Element struct {
 	Name  string
 	Nodes []model.Point
@@ -67,7 +67,7 @@ type ElementSolution struct {
 	Cl         float64   // from circulation, Kutta–Joukowski: Cl = 2Γ/(U∞c)
 	ClPressure float64   // from integrating Cp over the panels
 	Cm         float64   // about the element's quarter chord, from pressure
-	CpMin      float64   // suction peak: lowest Cp ahead of x/c = TrailingEdgeCutXC (see the package doc, Trailing edges)
+	CpMin      float64   // suction peak: lowest Cp over the surface panels
 	XCpMin     float64   // x/c of CpMin
 	Stagnation Stagnation
 
@@ -79,6 +79,12 @@ type ElementSolution struct {
 	// (d'Alembert), so for one element in free air it measures the
 	// discretisation error; it is not a drag estimate.
 	CdPressure float64
+	// BaseSource is σ/U∞, the strength of the constant source on the base
+	// panel that closes an open trailing edge (outflow positive; the
+	// outflow per unit span is σ times the gap; system.go), 0 for a closed
+	// edge. The base panel is not part of Panels: its Cp is not a surface
+	// value.
+	BaseSource float64
 }
 
 // Solution is the flow about a configuration at one freestream angle.
@@ -107,6 +113,6 @@ type Coefficients struct {
 	Cl         float64
 	ClPressure float64
 	Cm         float64
-	CpMin      float64 // smallest Cp over all elements, ahead of TrailingEdgeCutXC
+	CpMin      float64 // smallest Cp over all elements' surface panels
 	XCpMin     float64 // x/c of CpMin on its element
 }

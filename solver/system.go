@@ -26,34 +26,66 @@ import (
 //	the Kutta condition at the trailing edge:
 //	  γ_1 + γ_(N+1) = 0,
 //
-// N_k + 1 equations per element, a square system of Σ_k (N_k + 1) unknowns
-// for any number of elements. A_ij^a, A_ij^b are the normal components at m_i
+// N_k + 1 equations per element (one more of each for an open trailing
+// edge, below), a square system for any number of elements. A_ij^a, A_ij^b are the normal components at m_i
 // of the velocities induced by panel j per unit γ at its two nodes
 // (influence.go). For a closed trailing edge the first and last nodes
 // coincide and the Kutta condition makes the velocities leaving along the
 // upper and lower surfaces equal in size, the flow leaving the trailing edge
 // smoothly.
 //
-// For an open (blunt) trailing edge the gap between the first and last
-// nodes is left without a panel and the same Kutta condition is applied to
-// the two trailing-edge nodes. That ignores the base flow of the blunt edge;
-// it is the usual treatment, good for gaps of a percent or two of chord and
-// increasingly doubtful beyond (a Solution warns above MaxTEGapFraction).
-// Its Cl converges cleanly (second order on NACA 2412, gap 0.25% of chord,
-// cosine spacing: changes of 5.6e-4, 1.4e-4, 3.4e-5, 8.4e-6 from 80 to
-// 1280 panels). Locally it has a flaw: the open gap lets the discrete flow
-// pass between the body's inside and outside, and once the trailing-edge
-// panels are shorter than the gap the flow round the two sheet ends is
-// resolved like flow round the edge of a plate, so the Cp of the last
-// panel or two grows without bound as panels shrink (NACA 0012 at 4°:
-// −0.80, −4.2, −17.9, −72 at 80, 160, 320, 640 panels). CpMin and XCpMin
-// therefore leave out panels behind TrailingEdgeCutXC, and a Solution warns
-// when an open gap is wider than its trailing-edge panels. (Closing the gap
-// with a linear vortex panel carrying γ_last → γ_first was tried: it keeps
-// that Cp bounded, but then the sheet turns a corner at both nodes and Cl
-// drifts logarithmically, −4.2e-5 per doubling of the panel count, which
-// spoils extrapolation in a density study.)
+// For an open (blunt) trailing edge the gap between the last and first
+// nodes is closed by a straight base panel carrying a constant-strength
+// source σ, an extra unknown of the element, with one extra equation: flow
+// tangency at the base panel's midpoint m_g, on its inner face,
 //
+//	Σ_j (A_gj^a γ_j + A_gj^b γ_j+1) + Σ_k S_gk σ_k = −V∞·n_g,
+//
+// and the source columns S_ik (normal velocity at m_i per unit σ_k) enter
+// every tangency row. So an element with an open trailing edge has N_k + 2
+// unknowns (N_k + 1 nodal γ and σ) and N_k + 2 equations (N_k panel
+// tangencies, the base tangency and the Kutta condition γ_1 + γ_(N+1) = 0,
+// kept at the two trailing-edge nodes). The constant-strength source panel
+// (Katz & Plotkin, Low-Speed Aerodynamics, 2nd ed., 2001, sec. 10.2.1) is
+// given in influence.go. Physically σ is the outflow that fills the
+// dead-air region behind the blunt edge, the start of the wake (its total
+// Q = σ times the gap): the fluid inside the body stays at rest, and the
+// outer flow meets the base's outflow instead of turning round the two
+// corners into the gap.
+//
+// Which face. A vortex sheet's normal velocity is continuous, so the
+// tangency rows of the vortex panels hold on both faces; a source sheet's
+// jumps by σ, and the two choices differ. The inner face is the condition
+// the whole formulation rests on, fluid at rest inside the contour (so that
+// the surface velocity is −γ, forces.go): the base then emits σ ≈ 0.8 U∞
+// on NACA 0012 at 4° and the outer normal velocity on the base is σ. The
+// outer face was tried: it turns σ into a sink (≈ −0.22 U∞) that swallows
+// the flow turning round the corners, and the last panels' Cp grew faster
+// than without the base panel (−118 at 640 panels).
+//
+// Why. Left without a panel, the open gap lets the discrete flow pass
+// between the body's inside and outside; once the trailing-edge panels are
+// shorter than the gap the flow round the two sheet ends is resolved like
+// flow round the edge of a plate, and the Cp of the last panel or two grows
+// without bound as panels shrink (NACA 0012 at 4°, gap 0.25% of chord,
+// cosine spacing: −0.80, −4.2, −17.9, −72 at 80, 160, 320, 640 panels).
+// Closing the gap with a vortex panel instead keeps that Cp bounded but
+// makes the sheet turn a corner at both nodes, and Cl then drifts
+// logarithmically (−4.2e-5 per doubling), which spoils a density study's
+// extrapolation. The source adds no circulation, so the Kutta condition
+// and Cl converge as before (second order; Cl at 200 panels moves by about
+// 1.4e-4 relative on NACA 2412 at 4°), and the Cp of the last panel stays
+// bounded: it rises towards stagnation at the two corners, where the outer
+// flow meets the base's outflow (NACA 0012 at 4°: 0.53, 0.60, 0.71, 0.89
+// at 80, 160, 320, 640 panels; TestOpenTrailingEdgeBounded).
+//
+// Validity: a thin base model, good for the gaps of ordinary sections (a
+// percent or two of chord); beyond MaxTEGapFraction a Solution warns,
+// because the real base flow of a thick blunt edge separates and is not a
+// potential flow. Gaps below openTEFraction of chord are treated as closed
+// (no base panel, the Kutta condition alone): there the gap is far shorter
+// than any panel and nothing can pass.
+
 // The matrix depends on the geometry only. It is factorised once (LU with
 // partial pivoting) and solved for two unit freestreams, V∞ = (1, 0) and
 // (0, 1), giving γ0 and γ90; by linearity the solution at angle α is
@@ -75,9 +107,17 @@ const (
 	// 1e12 fewer than four digits of γ can be trusted.
 	CondWarn = 1e12
 	// MaxTEGapFraction is the open trailing-edge gap, as a fraction of the
-	// element's chord, above which the two-node Kutta condition is reported
-	// as doubtful (see the method notes above; common practice).
+	// element's chord, above which the thin base-source model of a blunt
+	// edge is reported as doubtful (see the method notes above; common
+	// practice).
 	MaxTEGapFraction = 0.02
+	// openTEFraction is the trailing-edge gap, as a fraction of the
+	// element's chord, above which the gap is closed by a base source
+	// panel. It is ten times the logarithm's floor minDistFrac of the
+	// assembly, so that the base midpoint, half a gap from the two sheet
+	// ends, is never clamped; a smaller gap is far shorter than any panel
+	// and is treated as closed.
+	openTEFraction = 10 * minDistFrac
 	// minPanelFraction is the shortest panel accepted, as a fraction of the
 	// element's chord: shorter ones are repeated or nearly repeated nodes
 	// and make the influence matrix singular.
@@ -161,6 +201,24 @@ type elemGeom struct {
 	qc          model.Point // quarter-chord point on the chord line
 	teGap       float64
 	min, max    model.Point // bounding box of the nodes
+	// An open trailing edge (gap above openTEFraction of chord) has a base
+	// panel from the last node to the first carrying the source unknown
+	// us; us is −1 for a closed edge.
+	base panelGeom
+	us   int
+}
+
+// open reports whether the element's trailing edge is closed by a base
+// source panel.
+func (e *elemGeom) open() bool { return e.us >= 0 }
+
+// unknowns returns the element's number of unknowns: np + 1 nodal
+// strengths and, for an open trailing edge, the base source.
+func (e *elemGeom) unknowns() int {
+	if e.open() {
+		return e.np + 2
+	}
+	return e.np + 1
 }
 
 // geometry is a validated configuration.
@@ -198,8 +256,17 @@ type System struct {
 // ErrTooFewPanels (fewer than 3), ErrDegeneratePanel, ErrClockwise,
 // ErrBelowGround, ErrNonFinite, ErrLeadingEdge or ErrBadRefChord; a singular
 // matrix returns a *SingularError.
-func NewSystem(cfg Config) (*System, error) {
-	g, err := newGeometry(cfg)
+func NewSystem(cfg Config) (*System, error) { return newSystem(cfg, buildOptions{}) }
+
+// buildOptions select variants of the method for comparisons in tests.
+type buildOptions struct {
+	// unpanelledGap leaves open trailing edges without a base panel (the
+	// earlier treatment: the Kutta condition alone).
+	unpanelledGap bool
+}
+
+func newSystem(cfg Config, opt buildOptions) (*System, error) {
+	g, err := newGeometryOpts(cfg, opt)
 	if err != nil {
 		return nil, err
 	}
@@ -231,7 +298,9 @@ type Timings struct {
 func (s *System) Timings() Timings { return s.timings }
 
 // newGeometry validates cfg and precomputes its panels.
-func newGeometry(cfg Config) (*geometry, error) {
+func newGeometry(cfg Config) (*geometry, error) { return newGeometryOpts(cfg, buildOptions{}) }
+
+func newGeometryOpts(cfg Config, opt buildOptions) (*geometry, error) {
 	if len(cfg.Elements) == 0 {
 		return nil, &GeometryError{Element: -1, Panel: -1, Err: ErrNoElements}
 	}
@@ -252,7 +321,7 @@ func newGeometry(cfg Config) (*geometry, error) {
 	g.panels = make([]panelGeom, 0, np)
 	sumChord := 0.0
 	for k, e := range cfg.Elements {
-		ge, err := g.addElement(k, e)
+		ge, err := g.addElement(k, e, opt)
 		if err != nil {
 			return nil, err
 		}
@@ -266,7 +335,7 @@ func newGeometry(cfg Config) (*geometry, error) {
 }
 
 // addElement validates element k and appends its panels.
-func (g *geometry) addElement(k int, e Element) (*elemGeom, error) {
+func (g *geometry) addElement(k int, e Element, opt buildOptions) (*elemGeom, error) {
 	gerr := func(i int, err error) error {
 		return &GeometryError{Element: k, Name: e.Name, Panel: i, Err: err}
 	}
@@ -327,7 +396,13 @@ func (g *geometry) addElement(k int, e Element) (*elemGeom, error) {
 		}
 		g.panels = append(g.panels, p)
 	}
-	g.n += n
+	ge.us = -1
+	if ge.teGap > openTEFraction*ge.chord && !opt.unpanelledGap {
+		ge.us = ge.u0 + n
+		ge.base = newPanelGeom(nodes[n-1], nodes[0], -1, -1, k)
+		ge.base.xc = 1
+	}
+	g.n += ge.unknowns()
 	g.elems = append(g.elems, ge)
 	return &g.elems[len(g.elems)-1], nil
 }
@@ -364,8 +439,9 @@ func (g *geometry) assemble() (a, b *mat.Dense) {
 	for _, e := range g.elems {
 		maxNodes = max(maxNodes, len(e.nodes))
 	}
-	// Rows of element e are u0 .. u0+np−1 (tangency at panel p0+r) and
-	// u0+np (Kutta), matching the unknown layout.
+	// Rows of element e are u0 .. u0+np−1 (tangency at panel p0+r),
+	// u0+np (Kutta) and, for an open trailing edge, u0+np+1 (tangency at
+	// the base panel), matching the unknown layout.
 	workers := min(runtime.GOMAXPROCS(0), max(1, n/minRowsPerWorker))
 	var wg sync.WaitGroup
 	for w := range workers {
@@ -413,14 +489,21 @@ func (g *geometry) fillRow(r int, row, rhs []float64, sc *rowScratch) {
 		clear(rhs)
 		return
 	}
-	pi := e.p0 + i
-	p := &g.panels[pi]
-	g.addNormalInfluence(p.mx, p.my, p.nx, p.ny, pi, row, sc)
+	pi, selfBase := e.p0+i, -1
+	var p *panelGeom
+	if i == e.np+1 {
+		// Tangency at the base panel's midpoint.
+		pi, selfBase, p = -1, k, &e.base
+	} else {
+		p = &g.panels[pi]
+	}
+	g.addNormalInfluence(p.mx, p.my, p.nx, p.ny, pi, selfBase, row, sc)
 	if g.ground {
 		// The image of panel j at m_i equals the reflection (u, −v) of
 		// panel j's velocity at the reflected point; its normal
-		// component is u n_x − v n_y.
-		g.addNormalInfluence(p.mx, 2*g.groundY-p.my, p.nx, -p.ny, -1, row, sc)
+		// component is u n_x − v n_y. The same holds for a source with
+		// an image of the same sign (field.go).
+		g.addNormalInfluence(p.mx, 2*g.groundY-p.my, p.nx, -p.ny, -1, -1, row, sc)
 	}
 	rhs[0] = -p.nx
 	if len(rhs) > 1 {
@@ -430,9 +513,12 @@ func (g *geometry) fillRow(r int, row, rhs []float64, sc *rowScratch) {
 
 // addNormalInfluence adds to row, column by unknown, the component along
 // (nx, ny) of the velocity induced at (px, py) by every panel per unit nodal
-// γ. Panel self (if ≥ 0) is the panel whose midpoint (px, py) is: its limit
-// on the outer face is taken exactly, λ = 0 and Δθ = −π.
-func (g *geometry) addNormalInfluence(px, py, nx, ny float64, self int, row []float64, sc *rowScratch) {
+// γ and by every base source panel per unit σ. Panel self (if ≥ 0) is the
+// panel whose midpoint (px, py) is: its limit on the outer face is taken
+// exactly, λ = 0 and Δθ = −π. selfBase (if ≥ 0) is the element whose base
+// panel's midpoint it is: there the limit on the inner face is taken,
+// λ = 0 and Δθ = +π (see the method notes).
+func (g *geometry) addNormalInfluence(px, py, nx, ny float64, self, selfBase int, row []float64, sc *rowScratch) {
 	for ei := range g.elems {
 		e := &g.elems[ei]
 		floor := minDistFrac * minDistFrac * e.chord * e.chord
@@ -463,6 +549,23 @@ func (g *geometry) addNormalInfluence(px, py, nx, ny float64, self int, row []fl
 			row[pn.ia] += ua*tn + va*ln
 			row[pn.ib] += ub*tn + vb*ln
 		}
+		if e.open() {
+			// The base panel runs from the last node to the first: its
+			// r1, r2 and ln r² are those of the two end nodes.
+			var dth, lam float64
+			if ei == selfBase {
+				// The inner face of the base panel (see the method
+				// notes): Δθ → +π.
+				dth, lam = math.Pi, 0
+			} else {
+				r1x, r1y, r2x, r2y := dxs[nn-1], dys[nn-1], dxs[0], dys[0]
+				dth = math.Atan2(r1x*r2y-r1y*r2x, r1x*r2x+r1y*r2y)
+				lam = 0.5 * (lrs[nn-1] - lrs[0])
+			}
+			b := &e.base
+			us, vs := constantSource(dth, lam)
+			row[e.us] += us*(b.tx*nx+b.ty*ny) + vs*(-b.ty*nx+b.tx*ny)
+		}
 	}
 }
 
@@ -478,11 +581,7 @@ func (s *System) factorize(a *mat.Dense) error {
 	}
 	for _, e := range s.geo.elems {
 		if e.teGap > MaxTEGapFraction*e.chord {
-			s.warnings = append(s.warnings, fmt.Sprintf("element %q: open trailing edge gap %.2g%% of chord; the Kutta condition at the two trailing-edge nodes is doubtful beyond about %.0f%%", e.name, 100*e.teGap/e.chord, 100*MaxTEGapFraction))
-		}
-		first, last := s.geo.panels[e.p0].l, s.geo.panels[e.p0+e.np-1].l
-		if e.teGap > minPanelFraction*e.chord && e.teGap > math.Min(first, last) {
-			s.warnings = append(s.warnings, fmt.Sprintf("element %q: open trailing edge (gap %.2g%% of chord) wider than its last panels: Cp on the panels next to it is distorted by flow through the gap, not a suction peak (CpMin ignores x/c > %g)", e.name, 100*e.teGap/e.chord, TrailingEdgeCutXC))
+			s.warnings = append(s.warnings, fmt.Sprintf("element %q: open trailing edge gap %.2g%% of chord; the base-source model of a blunt edge is doubtful beyond about %.0f%% (the real flow behind a thick base separates)", e.name, 100*e.teGap/e.chord, 100*MaxTEGapFraction))
 		}
 	}
 	return nil
@@ -519,7 +618,8 @@ func (s *System) solveUnit(b *mat.Dense) error {
 // matrix.
 func (s *System) Cond() float64 { return s.cond }
 
-// Unknowns returns the size of the linear system, Σ (N_k + 1).
+// Unknowns returns the size of the linear system, Σ (N_k + 1) plus one base
+// source per open trailing edge.
 func (s *System) Unknowns() int { return s.geo.n }
 
 // Panels returns the total number of panels.
