@@ -154,3 +154,165 @@ func recovered(f func() error) (err error) {
 // isNoData reports a view that lacks what it draws (as opposed to a
 // failure).
 func isNoData(err error) bool { return errors.Is(err, export.ErrNoData) }
+
+// sceneWithViscous is sceneOf with the boundary-layer estimate of the
+// sweep shown in the drag polar and lift-to-drag views.
+func sceneWithViscous(res *engineResult, st *model.Study, sweep []solver.Coefficients, sweepViscous []solver.ViscousPoint) *scene {
+	sc := sceneOf(res, st, sweep)
+	if len(sweepViscous) == len(sweep) {
+		sc.SweepViscous = sweepViscous
+	}
+	return sc
+}
+
+// figKind is what a view cell draws: its own figure or one of the
+// boundary-layer figures it can switch to.
+type figKind int
+
+const (
+	figPanels figKind = iota
+	figPressure
+	figStreamlines
+	figPolar
+	figDragPolar
+	figBoundaryLayer
+	figLiftToDrag
+)
+
+var figureViews = [...]export.View{export.ViewPanels, export.ViewPressure, export.ViewStreamlines, export.ViewPolar,
+	export.ViewDragPolar, export.ViewBoundaryLayer, export.ViewLiftToDrag}
+
+// figureOf returns the figure a view cell draws by default.
+func figureOf(v viewKind) figKind { return figKind(v) }
+
+// safeRenderFigure renders a figure, turning a panic into an error.
+func safeRenderFigure(f figKind, sc *scene, w, h int, dpi float64) (fig *figure, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			fig, err = nil, fmt.Errorf("internal error drawing %s: %v", figureViews[f], r)
+		}
+	}()
+	return export.Render(figureViews[f], sc, w, h, dpi)
+}
+
+type (
+	studyElement  = model.StudyElement
+	flapPlacement = model.FlapPlacement
+)
+
+// flapPlacementOf returns gap, overlap and deflection of flap behind prev.
+func flapPlacementOf(prev, flap studyElement) flapPlacement { return model.FlapPlacementOf(prev, flap) }
+
+// setElement replaces element i of st by e and moves every element behind
+// it so that each keeps its gap, overlap and deflection relative to the one
+// before it (a flap follows the element it is hung from).
+func setElement(st *model.Study, i int, e studyElement) {
+	els := st.Elements
+	fps := make([]flapPlacement, len(els))
+	for j := i + 1; j < len(els); j++ {
+		fps[j] = model.FlapPlacementOf(els[j-1], els[j])
+	}
+	els[i] = e
+	for j := i + 1; j < len(els); j++ {
+		els[j] = model.PlaceFlap(els[j-1], els[j], fps[j])
+	}
+}
+
+// placeFlapAt sets element i (not the first) at fp behind element i-1,
+// the elements behind it following as in setElement.
+func placeFlapAt(st *model.Study, i int, fp flapPlacement) {
+	setElement(st, i, model.PlaceFlap(st.Elements[i-1], st.Elements[i], fp))
+}
+
+// Proportions of a flap added behind the last element, relative to that
+// element's chord: half its chord, the leading edge 5 % of its chord below
+// and 4 % ahead of its trailing edge, turned 20° trailing edge down. They
+// are those of the invented two-element rear-wing example
+// (testdata/studies/rear-wing.json: 120 mm behind 250 mm, gap 14 mm,
+// overlap 13 mm, 22°), rounded: a start for the user to adjust, not a
+// recommendation.
+const (
+	newFlapChordRatio    = 0.5
+	newFlapGapRatio      = 0.05
+	newFlapOverlapRatio  = 0.04
+	newFlapDeflectionDeg = 20
+)
+
+// newFlap returns an element named name placed behind prev with the
+// default proportions and prev's section.
+func newFlap(prev studyElement, name string) studyElement {
+	src := prev.Section
+	if src.Embedded != nil {
+		em := *src.Embedded
+		em.Points = append([][2]float64(nil), em.Points...)
+		src.Embedded = &em
+	}
+	flap := studyElement{Name: name, Section: src, ChordMM: newFlapChordRatio * prev.ChordMM}
+	return model.PlaceFlap(prev, flap, flapPlacement{
+		GapMM:         newFlapGapRatio * prev.ChordMM,
+		OverlapMM:     newFlapOverlapRatio * prev.ChordMM,
+		DeflectionDeg: newFlapDeflectionDeg,
+	})
+}
+
+// checkGeometry places the configuration as the solver will and reports
+// overlapping elements and gaps too small for the panels
+// (*model.GeometryError), so that such an edit can be refused before it
+// replaces a configuration that solves.
+func checkGeometry(st *model.Study, secs []*model.Section) error {
+	_, err := model.Place(st, secs)
+	return err
+}
+
+// Geometry errors, matched with errors.Is.
+var (
+	errOverlap  = model.ErrOverlap
+	errSmallGap = model.ErrSmallGap
+	errGround   = model.ErrGround
+)
+
+type (
+	modelGeometryError  = model.GeometryError
+	solverGeometryError = solver.GeometryError
+)
+
+func kmhToMps(v float64) float64 { return model.KmhToMps(v) }
+func mpsToKmh(v float64) float64 { return model.MpsToKmh(v) }
+
+// isaSeaLevel returns the standard sea-level temperature (°C) and pressure
+// (Pa).
+func isaSeaLevel() (tempC, pressurePa float64) {
+	a := model.ISASeaLevel()
+	return a.TemperatureC(), a.PressurePa
+}
+
+// airProperties returns the density (kg/m³), dynamic viscosity (Pa·s) and
+// kinematic viscosity (m²/s) of air at tc °C and p Pa.
+func airProperties(tc, p float64) (rho, mu, nu float64, err error) {
+	a, err := model.AirFromCelsius(tc, p)
+	if err != nil {
+		return 0, 0, 0, err
+	}
+	return a.Density(), a.Viscosity(), a.KinematicViscosity(), nil
+}
+
+// Presentation of the solver's signs and totals. solver.Forces and
+// Solution give lift positive up; downforce is −lift, and the downforce
+// coefficient −Cl (positive pushes the car down).
+
+func downforceOf(lift float64) float64 { return -lift }
+
+// overSpan returns a per-metre force over the span (2-D, no end effects).
+func overSpan(perSpan, spanM float64) float64 { return perSpan * spanM }
+
+// liftToDrag returns Cl/Cd.
+func liftToDrag(cl, cd float64) float64 { return cl / cd }
+
+// refChordMM returns the reference chord the result's coefficients are
+// on, in millimetres.
+func refChordMM(res *engineResult) float64 { return res.Layout.RefChordM * mmPerM }
+
+// elementChordMM returns a placed element's chord in millimetres.
+func elementChordMM(res *engineResult, i int) float64 { return res.Layout.Elements[i].Chord * mmPerM }
+
+type viscousResult = solver.ViscousResult

@@ -50,6 +50,7 @@ type Controller struct {
 	resErr   error
 	resGen   uint64
 	sweep    []solver.Coefficients // shown in the polar; nil when out of date
+	sweepVis []solver.ViscousPoint // boundary-layer estimate of sweep, nil when it has none
 	pinBase  *model.Study          // study of the last pin, for its label
 	elem     int                   // element the section controls edit
 	sweepRun context.CancelFunc
@@ -93,6 +94,14 @@ func (c *Controller) Sweep() []solver.Coefficients {
 	return c.sweep
 }
 
+// SweepViscous returns the boundary-layer estimate at each angle of
+// Sweep, or nil when the sweep ran without it.
+func (c *Controller) SweepViscous() []solver.ViscousPoint {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	return c.sweepVis
+}
+
 // WaitIdle blocks until no solve or render is in flight.
 func (c *Controller) WaitIdle() { c.act.wait() }
 
@@ -112,7 +121,7 @@ func (c *Controller) Load(st *model.Study, path string) error {
 	c.hist.Reset()
 	c.elem = 0
 	c.mu.Lock()
-	c.pinBase, c.sweep = nil, nil
+	c.pinBase, c.sweep, c.sweepVis = nil, nil, nil
 	c.mu.Unlock()
 	c.changed(true)
 	return nil
@@ -129,14 +138,18 @@ func (c *Controller) Save(path string) error {
 	return nil
 }
 
-// Edit applies fn to a copy of the study. If the result is valid and its
-// sections load, it becomes the study (one undo step; edits with the same
-// non-empty key in a row merge into one) and is solved; otherwise the study
-// stays as it was and the error says why.
+// Edit applies fn to a copy of the study. If the result is valid, its
+// sections load and (when the configuration changed) its elements can be
+// placed without overlapping or touching, it becomes the study (one undo
+// step; edits with the same non-empty key in a row merge into one) and is
+// solved; otherwise the study stays as it was and the error says why.
 func (c *Controller) Edit(key string, fn func(st *model.Study)) error {
 	next := cloneStudy(c.state.study)
 	fn(next)
 	if err := validateStudy(next); err != nil {
+		return err
+	}
+	if err := checkFlow(next); err != nil {
 		return err
 	}
 	secs, reps, err := c.state.sectionsFor(next)
@@ -144,6 +157,11 @@ func (c *Controller) Edit(key string, fn func(st *model.Study)) error {
 		return err
 	}
 	geometry := !equalGeometry(c.state.study, next)
+	if geometry {
+		if err := checkGeometry(next, secs); err != nil {
+			return err
+		}
+	}
 	c.hist.Record(c.state.study, key)
 	c.state.set(next, secs, reps)
 	c.state.dirty = true
@@ -184,7 +202,7 @@ func (c *Controller) changed(geometry bool) {
 	live := liveSweep(st)
 	if geometry || live {
 		c.mu.Lock()
-		c.sweep = nil
+		c.sweep, c.sweepVis = nil, nil
 		c.mu.Unlock()
 	}
 	c.sched.Submit(engineRequest{
@@ -217,9 +235,9 @@ func (c *Controller) deliver(u update, res *engineResult, err error) {
 	if err == nil {
 		c.result, c.resGen = res, u.gen
 		if u.req.Sweep {
-			c.sweep = res.Sweep
+			c.sweep, c.sweepVis = res.Sweep, res.SweepViscous
 		}
-		sc = sceneOf(res, u.req.Study, c.sweep)
+		sc = sceneWithViscous(res, u.req.Study, c.sweep, c.sweepVis)
 	}
 	c.mu.Unlock()
 	if c.OnResult != nil {
@@ -276,7 +294,7 @@ func (c *Controller) RunSweep(progress func(done, total int), done func(err erro
 			}
 			if err == nil {
 				c.mu.Lock()
-				c.sweep = res.Sweep
+				c.sweep, c.sweepVis = res.Sweep, res.SweepViscous
 				c.mu.Unlock()
 				c.changed(false) // redraw the polar with the new sweep
 			}

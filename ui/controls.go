@@ -65,6 +65,13 @@ type controls struct {
 	sweepMsg       *widget.Label
 
 	pins *widget.Label
+
+	alphaMsg   *widget.Label
+	sectionRow *fyne.Container // the element choice beside the section heading
+	tabs       *container.AppTabs
+	ec         *elementControls
+	fc         *flowControls
+	vc         *viscousControls
 }
 
 // message returns an empty label for inline errors.
@@ -220,9 +227,10 @@ func newControls(w *Workbench) *controls {
 	c.alphaSlider.Step = alphaSliderStep
 	c.alphaEntry = widget.NewEntry()
 	c.flowMsg = message()
+	c.alphaMsg = message()
 	c.alphaSlider.OnChanged = func(v float64) {
 		if !c.syncing {
-			setMessage(c.flowMsg, ctl.SetAlpha("alpha", v))
+			setMessage(c.alphaMsg, ctl.SetAlpha("alpha", v))
 		}
 	}
 	c.alphaSlider.OnChangeEnded = func(float64) { ctl.BreakMerge() }
@@ -232,15 +240,15 @@ func newControls(w *Workbench) *controls {
 		}
 		v, err := parseNumber(s)
 		if err != nil {
-			setMessage(c.flowMsg, errors.New("angle of attack must be a number of degrees"))
+			setMessage(c.alphaMsg, errors.New("angle of attack must be a number of degrees"))
 			return
 		}
-		setMessage(c.flowMsg, ctl.SetAlpha("alpha-entry", v))
+		setMessage(c.alphaMsg, ctl.SetAlpha("alpha-entry", v))
 	}
 	stepAlpha := func(sign float64) {
 		st := ctl.state.study
 		ctl.BreakMerge()
-		setMessage(c.flowMsg, ctl.SetAlpha("", st.Flow.AlphaDeg+sign*st.Sweep.StepDeg))
+		setMessage(c.alphaMsg, ctl.SetAlpha("", st.Flow.AlphaDeg+sign*st.Sweep.StepDeg))
 	}
 	c.inverted = widget.NewCheck("Inverted (suction side down)", func(on bool) {
 		if !c.syncing {
@@ -290,29 +298,47 @@ func newControls(w *Workbench) *controls {
 	pin := widget.NewButton("Pin current", func() { w.userError(ctl.PinCurrent()) })
 	clear := widget.NewButton("Clear pins", func() { w.userError(ctl.ClearPins()) })
 
-	c.box = container.NewVBox(
-		heading("Section source"),
-		c.element,
+	c.ec = newElementControls(c)
+	c.fc = newFlowControls(c)
+	c.vc = newViscousControls(c)
+	groundNote := caption(groundCaution)
+	groundNote.TextStyle = fyne.TextStyle{Italic: true}
+	groundNote.Importance = widget.WarningImportance
+	c.sectionRow = container.NewBorder(nil, nil, widget.NewLabel("of"), nil, c.element)
+
+	elements := container.NewVBox(
+		heading("Elements"),
+		c.ec.listBox(),
+		widget.NewSeparator(),
+		container.NewBorder(nil, nil, heading("Section source"), nil, c.sectionRow),
 		row("NACA", c.naca),
 		c.sourceMsg,
 		c.source,
 		container.NewGridWithColumns(2, openFile, report),
 		c.kt,
 		widget.NewSeparator(),
-
+		c.ec.placementBox(),
+	)
+	flow := container.NewVBox(
+		heading("Flow"),
+		c.fc.box(),
+		widget.NewSeparator(),
+		heading("Mounting and ground"),
+		c.inverted,
+		container.NewBorder(nil, nil, nil, sized(c.clearance, 72), c.ground),
+		groundNote,
+		c.flowMsg,
+		widget.NewSeparator(),
+		heading("Boundary layer"),
+		c.vc.box(),
+	)
+	solve := container.NewVBox(
 		heading("Panelling"),
 		row("Panels", container.NewBorder(nil, nil, nil, sized(c.panelEntry, 64), c.panelSlider)),
 		row("Spacing", c.spacing),
 		row("Nose", container.NewBorder(nil, nil, nil, c.noseVal, c.nose)),
 		row("Tail", container.NewBorder(nil, nil, nil, c.tailVal, c.tail)),
 		c.panelMsg,
-		widget.NewSeparator(),
-
-		heading("Flow"),
-		row("α (°)", container.NewBorder(nil, nil, nil, container.NewHBox(sized(c.alphaEntry, 64), c.alphaDown, c.alphaUp), c.alphaSlider)),
-		c.inverted,
-		container.NewBorder(nil, nil, nil, sized(c.clearance, 72), c.ground),
-		c.flowMsg,
 		widget.NewSeparator(),
 
 		heading("Sweep"),
@@ -326,7 +352,25 @@ func newControls(w *Workbench) *controls {
 		container.NewGridWithColumns(2, pin, clear),
 		c.pins,
 	)
+	c.tabs = container.NewAppTabs(
+		container.NewTabItem("Elements", scrolled(elements)),
+		container.NewTabItem("Flow", scrolled(flow)),
+		container.NewTabItem("Panels & sweep", scrolled(solve)),
+	)
+	// The angle of attack is the most used control: it stays above the
+	// tabs.
+	top := container.NewVBox(
+		row("α (°)", container.NewBorder(nil, nil, nil, container.NewHBox(sized(c.alphaEntry, 64), c.alphaDown, c.alphaUp), c.alphaSlider)),
+		c.alphaMsg,
+	)
+	c.box = container.NewBorder(top, nil, nil, nil, c.tabs)
 	return c
+}
+
+// scrolled puts a tab's content in a vertical scroll, with a right inset
+// that keeps fields clear of the scroll bar.
+func scrolled(o fyne.CanvasObject) fyne.CanvasObject {
+	return container.NewVScroll(container.NewBorder(nil, nil, nil, fixedWidth(theme.Padding()*3), o))
 }
 
 // ktDefault is the analytic section offered first: a cambered 10° TE-angle
@@ -441,10 +485,15 @@ func (c *controls) sync(st *model.Study) {
 	c.element.SetSelectedIndex(c.w.ctl.Element())
 	if len(names) > 1 {
 		c.element.Show()
+		c.sectionRow.Show()
 	} else {
 		c.element.Hide()
+		c.sectionRow.Hide()
 	}
 	el := st.Elements[c.w.ctl.Element()]
+	c.ec.sync(st, c.w.ctl.Element())
+	c.fc.sync(st)
+	c.vc.sync(st)
 	if d, ok := strings.CutPrefix(el.Section.Spec, "naca:"); ok {
 		if !strings.EqualFold(strings.TrimSpace(c.naca.Text), d) {
 			c.naca.SetText(d)
@@ -487,6 +536,7 @@ func (c *controls) sync(st *model.Study) {
 	c.alphaDown.SetText("−" + step)
 	c.alphaUp.SetText("+" + step)
 	setMessage(c.flowMsg, nil)
+	setMessage(c.alphaMsg, nil)
 
 	setIfDiffers(c.from, entryNum(st.Sweep.FromDeg), numberIs(st.Sweep.FromDeg))
 	setIfDiffers(c.to, entryNum(st.Sweep.ToDeg), numberIs(st.Sweep.ToDeg))
@@ -521,4 +571,10 @@ func numberIs(x float64) func(string) bool {
 		v, err := parseNumber(s)
 		return err == nil && v == x
 	}
+}
+
+// showResult shows what the column derives from a result.
+func (c *controls) showResult(st *model.Study, res *engineResult) {
+	c.ec.showResult(res)
+	c.fc.showResult(st, res)
 }

@@ -124,9 +124,7 @@ func (w *Workbench) build() {
 	w.viewArea = container.NewStack(w.grid)
 
 	w.controls = newControls(w)
-	// The right inset keeps fields clear of the scroll bar.
-	inset := container.NewBorder(nil, nil, nil, fixedWidth(theme.Padding()*3), w.controls.box)
-	side := container.NewStack(fixedWidth(controlWidth), container.NewVScroll(inset))
+	side := container.NewStack(fixedWidth(controlWidth), w.controls.box)
 
 	w.status = widget.NewLabel("Solving…")
 	w.status.Truncation = fyne.TextTruncateEllipsis

@@ -1,0 +1,154 @@
+package ui
+
+import (
+	"errors"
+	"fmt"
+	"strconv"
+
+	"sectionbench/model"
+)
+
+// Element editing: the controller's side. Each method is one study edit;
+// placements go through model.PlaceFlap and model.FlapPlacementOf (in
+// backend.go), so no geometry is computed here.
+
+// newFlapName is the name of an added element, numbered when taken.
+const newFlapName = "flap"
+
+// AddElement adds a flap behind the last element, with the default
+// proportions (see newFlap), and selects it. It fails when the study holds
+// model.MaxElements already or the new flap cannot be placed.
+func (c *Controller) AddElement() error {
+	st := c.state.study
+	n := len(st.Elements)
+	if n >= model.MaxElements {
+		return fmt.Errorf("a study holds at most %d elements", model.MaxElements)
+	}
+	name := uniqueElementName(st, newFlapName)
+	err := c.Edit("", func(s *model.Study) {
+		s.Elements = append(s.Elements, newFlap(s.Elements[n-1], name))
+	})
+	if err != nil {
+		return fmt.Errorf("no room for a flap behind %q: %w", st.Elements[n-1].Name, err)
+	}
+	c.elem = n
+	c.notify()
+	return nil
+}
+
+// uniqueElementName returns base, or base followed by the first number
+// that no element of st is named yet.
+func uniqueElementName(st *model.Study, base string) string {
+	taken := map[string]bool{}
+	for _, e := range st.Elements {
+		taken[e.Name] = true
+	}
+	if !taken[base] {
+		return base
+	}
+	for k := 2; ; k++ {
+		if s := base + " " + strconv.Itoa(k); !taken[s] {
+			return s
+		}
+	}
+}
+
+// errLastElement is returned when removing the only element.
+var errLastElement = errors.New("a study needs at least one element; the last one cannot be removed")
+
+// RemoveElement removes element i. The other elements stay where they are.
+func (c *Controller) RemoveElement(i int) error {
+	n := len(c.state.study.Elements)
+	c.checkIndex(i)
+	if n == 1 {
+		return errLastElement
+	}
+	err := c.Edit("", func(s *model.Study) {
+		s.Elements = append(s.Elements[:i], s.Elements[i+1:]...)
+	})
+	if err != nil {
+		return err
+	}
+	c.elem = min(i, n-2)
+	c.notify()
+	return nil
+}
+
+// MoveElement moves element i by delta places in the order (−1: up, one
+// place towards the main element) and keeps it selected. Elements keep
+// their positions; the order sets which element a flap's gap, overlap and
+// deflection refer to, and the first is the main element the moment and
+// the ground-effect pitch are taken about.
+func (c *Controller) MoveElement(i, delta int) error {
+	c.checkIndex(i)
+	j := i + delta
+	if j < 0 || j >= len(c.state.study.Elements) {
+		return fmt.Errorf("element %d cannot move %+d places", i+1, delta)
+	}
+	err := c.Edit("", func(s *model.Study) {
+		s.Elements[i], s.Elements[j] = s.Elements[j], s.Elements[i]
+	})
+	if err != nil {
+		return err
+	}
+	c.elem = j
+	c.notify()
+	return nil
+}
+
+func (c *Controller) checkIndex(i int) {
+	if i < 0 || i >= len(c.state.study.Elements) {
+		panic(fmt.Sprintf("ui: element %d out of range", i))
+	}
+}
+
+// Placement is where an element sits: chord, leading edge and setting
+// angle in the study frame (mm, °).
+type Placement struct {
+	ChordMM, XMM, YMM, AngleDeg float64
+}
+
+// PlacementOf returns element i's placement.
+func (c *Controller) PlacementOf(i int) Placement {
+	c.checkIndex(i)
+	e := c.state.study.Elements[i]
+	return Placement{ChordMM: e.ChordMM, XMM: e.XMM, YMM: e.YMM, AngleDeg: e.AngleDeg}
+}
+
+// SetPlacement places element i; the elements behind it follow, keeping
+// their gap, overlap and deflection. key merges a run of typing.
+func (c *Controller) SetPlacement(key string, i int, p Placement) error {
+	c.checkIndex(i)
+	return c.Edit(key, func(s *model.Study) {
+		e := s.Elements[i]
+		e.ChordMM, e.XMM, e.YMM, e.AngleDeg = p.ChordMM, p.XMM, p.YMM, p.AngleDeg
+		setElement(s, i, e)
+	})
+}
+
+// FlapPlacementOf returns the gap, overlap and deflection of element i
+// (not the first) relative to element i−1.
+func (c *Controller) FlapPlacementOf(i int) model.FlapPlacement {
+	c.checkIndex(i)
+	if i == 0 {
+		panic("ui: the first element has no flap placement")
+	}
+	els := c.state.study.Elements
+	return flapPlacementOf(els[i-1], els[i])
+}
+
+// SetFlapPlacement places element i (not the first) by gap, overlap and
+// deflection relative to element i−1; the elements behind it follow.
+func (c *Controller) SetFlapPlacement(key string, i int, fp model.FlapPlacement) error {
+	c.checkIndex(i)
+	if i == 0 {
+		panic("ui: the first element has no flap placement")
+	}
+	return c.Edit(key, func(s *model.Study) { placeFlapAt(s, i, fp) })
+}
+
+// SetReferenceChord sets the chord of the configuration's coefficients in
+// mm; 0 means the sum of the chords.
+func (c *Controller) SetReferenceChord(key string, mm float64) error {
+	return c.Edit(key, func(s *model.Study) { s.ReferenceChordMM = mm })
+}

@@ -1,0 +1,56 @@
+package ui
+
+import (
+	"errors"
+
+	"sectionbench/model"
+)
+
+// Flow editing: the controller's side.
+
+// errViscousNeedsFlow refuses the boundary-layer estimate without a
+// Reynolds number: the solver needs one per element.
+var errViscousNeedsFlow = &model.FieldError{Field: "viscous.enabled",
+	Err: errors.New("needs a speed or a Reynolds number (Flow tab)")}
+
+// checkFlow reports settings that validate one by one but cannot be
+// solved together.
+func checkFlow(st *model.Study) error {
+	if st.Viscous.Enabled && !(st.Flow.SpeedMPS > 0) && !(st.Flow.Reynolds > 0) {
+		return errViscousNeedsFlow
+	}
+	return nil
+}
+
+// SetSpeed sets the freestream speed in m/s (0: none, results stay
+// non-dimensional).
+func (c *Controller) SetSpeed(key string, mps float64) error {
+	return c.Edit(key, func(s *model.Study) { s.Flow.SpeedMPS = mps })
+}
+
+// SetAir sets the air temperature (°C) and static pressure (Pa).
+func (c *Controller) SetAir(key string, tempC, pressurePa float64) error {
+	return c.Edit(key, func(s *model.Study) { s.Flow.TemperatureC, s.Flow.PressurePa = tempC, pressurePa })
+}
+
+// ResetAir sets the air to the standard sea-level atmosphere.
+func (c *Controller) ResetAir() error {
+	t, p := isaSeaLevel()
+	return c.SetAir("", t, p)
+}
+
+// SetSpan sets the span for total forces in m (0: per metre only).
+func (c *Controller) SetSpan(key string, m float64) error {
+	return c.Edit(key, func(s *model.Study) { s.Flow.SpanM = m })
+}
+
+// SetReynolds sets a Reynolds number on the first element's chord that
+// overrides the one from the speed (0: from the speed).
+func (c *Controller) SetReynolds(key string, re float64) error {
+	return c.Edit(key, func(s *model.Study) { s.Flow.Reynolds = re })
+}
+
+// SetViscous sets the boundary-layer estimate's settings.
+func (c *Controller) SetViscous(key string, v model.Viscous) error {
+	return c.Edit(key, func(s *model.Study) { s.Viscous = v })
+}
