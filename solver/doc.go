@@ -34,11 +34,13 @@
 // plane with x downstream), Cm = M/(½ρU∞²c²), about the quarter chord unless
 // a reference point is given. Cp = 1 − (V/U∞)².
 //
-// ElementSolution.Cl is the circulation lift 2Γ/(U∞c) (Kutta–Joukowski);
-// ClPressure integrates Cp. They agree for a lone element in free air. For
-// one element among several, or above the ground, the others and the images
-// induce velocity at the element and ClPressure is the force on it; the
-// configuration's circulation Cl is still its total lift in free air.
+// ElementSolution.Cl is the vortex force on the element (Lagally's theorem:
+// Kutta–Joukowski on each piece of its vortex sheet in the velocity that
+// the freestream, the other elements and the images induce there; forces.go),
+// 2Γ/(U∞c) for a lone element in free air; ClPressure integrates Cp. The two
+// agree within the discretisation error (0.5% from 100 panels) for every
+// element, alone, among several or above the ground, and so do the
+// configuration's totals. ElementSolution.Circulation keeps Γ.
 //
 // # The method
 //

@@ -131,7 +131,10 @@ func TestEngineGroundTendsToFreeAir(t *testing.T) {
 		}
 		prev = cl
 	}
-	if d := math.Abs(prev-free) / math.Abs(free); d > 0.002 {
+	// The force (pressure or vortex force) tends to free air as 1/h: the
+	// image vortex adds Γ/(4πh) to the onset speed, a relative change of
+	// about |Cl| c/(4πh) in lift (0.2% at 40 chords; derived).
+	if d := math.Abs(prev-free) / math.Abs(free); d > 0.003 {
 		t.Errorf("at h = 40 chords Cl = %g, free air %g (%.2f %% apart)", prev, free, 100*d)
 	}
 }

@@ -101,6 +101,7 @@ type field struct {
 type basePanel struct {
 	p     *panelGeom
 	sigma float64
+	elem  int
 }
 
 // lazyField builds a Solution's field once, on first use.
@@ -128,14 +129,16 @@ var binom = func() (c [clusterOrder + 1][clusterOrder + 1]float64) {
 	return c
 }()
 
-func newField(s *Solution) *field {
-	geo := s.sys.geo
-	c, sn := s.cosA, s.sinA
-	f := &field{geo: geo, g: s.g, far: make([]farPanel, len(geo.panels)), ux: c, uy: sn}
+func newField(s *Solution) *field { return newFieldOf(s.sys.geo, s.g, s.cosA, s.sinA) }
+
+// newFieldOf returns the field of the strengths g (all unknowns, as the
+// system orders them) in the freestream (ux, uy).
+func newFieldOf(geo *geometry, g []float64, ux, uy float64) *field {
+	f := &field{geo: geo, g: g, far: make([]farPanel, len(geo.panels)), ux: ux, uy: uy}
 	k := complex(0, 1/(2*math.Pi))
 	for j := range geo.panels {
 		p := &geo.panels[j]
-		ga, gb := s.g[p.ia], s.g[p.ib]
+		ga, gb := g[p.ia], g[p.ib]
 		gm, dg := 0.5*(ga+gb), gb-ga
 		e := complex(p.tx, p.ty)
 		l := p.l
@@ -151,7 +154,7 @@ func newField(s *Solution) *field {
 		e := &geo.elems[ei]
 		f.roots = append(f.roots, f.build(e.p0, e.p0+e.np))
 		if e.open() {
-			f.bases = append(f.bases, basePanel{p: &e.base, sigma: s.g[e.us]})
+			f.bases = append(f.bases, basePanel{p: &e.base, sigma: g[e.us], elem: ei})
 		}
 	}
 	return f
@@ -244,11 +247,18 @@ const maxTreeDepth = 64
 
 // induced returns the velocity the panels and base sources (without
 // images) induce at p.
-func (f *field) induced(px, py float64) (u, v float64) {
+func (f *field) induced(px, py float64) (u, v float64) { return f.inducedExcept(px, py, -1) }
+
+// inducedExcept returns the velocity that the panels and base sources of
+// every element but skip (none if skip < 0), without images, induce at p.
+func (f *field) inducedExcept(px, py float64, skip int) (u, v float64) {
 	var w complex128 // Σ a_k/(z − zc)^{k+1} over opened clusters; × i/2π below
 	z := complex(px, py)
 	var stack [maxTreeDepth + 1]int32
-	for _, root := range f.roots {
+	for ei, root := range f.roots {
+		if ei == skip {
+			continue
+		}
 		stack[0] = root
 		sp := 1
 		for sp > 0 {
@@ -277,6 +287,9 @@ func (f *field) induced(px, py float64) (u, v float64) {
 		}
 	}
 	for _, b := range f.bases {
+		if b.elem == skip {
+			continue
+		}
 		su, sv := sourceInfluence(b.p, px, py)
 		u += b.sigma * su
 		v += b.sigma * sv

@@ -64,7 +64,7 @@ type ElementSolution struct {
 	Chord      float64
 	Gamma      []float64 // vortex strength at each node / U∞, clockwise positive (Vt = −γ)
 	Panels     []Panel   // in node order: upper surface TE → LE, then lower LE → TE
-	Cl         float64   // from circulation, Kutta–Joukowski: Cl = 2Γ/(U∞c)
+	Cl         float64   // vortex force (Lagally): 2Γ/(U∞c) alone in free air; with the local velocity of the others and the images otherwise (forces.go)
 	ClPressure float64   // from integrating Cp over the panels
 	Cm         float64   // about the element's quarter chord, from pressure
 	CpMin      float64   // suction peak: lowest Cp over the surface panels
@@ -72,7 +72,8 @@ type ElementSolution struct {
 	Stagnation Stagnation
 
 	// Circulation is Γ = ∮γ ds / U∞, clockwise positive (lifting), in the
-	// configuration's length unit.
+	// configuration's length unit. 2Γ/(U∞c) is the element's lift only
+	// when it is alone in free air; Cl is the force in every case.
 	Circulation float64
 	// CdPressure is the pressure force along the freestream on the
 	// element's chord. Potential flow has no drag on a lone body
@@ -91,7 +92,7 @@ type ElementSolution struct {
 type Solution struct {
 	AlphaDeg   float64 // freestream angle to +x used in this solve (a caller may relabel it; the field keeps the solve's own)
 	Elements   []ElementSolution
-	Cl         float64 // whole configuration, from circulation, on Config.RefChord
+	Cl         float64 // whole configuration, sum of the elements' vortex forces, on Config.RefChord
 	ClPressure float64 // whole configuration, from pressure
 	Cm         float64 // about Config.MomentRef, nose-up positive, on RefChord²
 	RefChord   float64
