@@ -95,6 +95,14 @@ func setMessage(l *widget.Label, err error) {
 
 // friendly turns an error into a short sentence for the user.
 func friendly(err error) string {
+	if g, ok := geometryText(err); ok {
+		var me *modelGeometryError
+		if errors.As(err, &me) {
+			// Only a refused edit meets the model's check first.
+			return g + " Not applied: the previous placement is kept."
+		}
+		return g
+	}
 	var fe *model.FieldError
 	if errors.As(err, &fe) {
 		return fieldLabel(fe.Field) + ": " + fe.Err.Error()
@@ -109,9 +117,80 @@ func friendly(err error) string {
 	return firstLine(err.Error())
 }
 
+// geometryText explains a configuration that cannot be solved as
+// placed, naming the elements by number and name.
+func geometryText(err error) (string, bool) {
+	var me *modelGeometryError
+	if errors.As(err, &me) {
+		a := fmt.Sprintf("%d “%s”", me.Elements[0]+1, me.Names[0])
+		if me.Elements[1] < 0 {
+			if errors.Is(err, errGround) {
+				return "Element " + a + " crosses the ground plane: raise the clearance.", true
+			}
+			return "Element " + a + ": " + me.Err.Error() + ".", true
+		}
+		b := fmt.Sprintf("%d “%s”", me.Elements[1]+1, me.Names[1])
+		switch {
+		case errors.Is(err, errOverlap):
+			return "Elements " + a + " and " + b + " overlap or touch: open the gap or reduce the overlap.", true
+		case errors.Is(err, errSmallGap):
+			return "Elements " + a + " and " + b + " are too close: " + me.Err.Error() + ".", true
+		}
+		return "Elements " + a + " and " + b + ": " + me.Err.Error() + ".", true
+	}
+	var se *solverGeometryError
+	if errors.As(err, &se) {
+		msg := firstLine(se.Err.Error())
+		if se.Element < 0 {
+			return "Configuration: " + msg + ".", true
+		}
+		if se.Panel >= 0 {
+			return fmt.Sprintf("Element %d “%s”, panel %d: %s.", se.Element+1, se.Name, se.Panel+1, msg), true
+		}
+		return fmt.Sprintf("Element %d “%s”: %s.", se.Element+1, se.Name, msg), true
+	}
+	return "", false
+}
+
+// elementFields names the per-element fields of a study.
+var elementFields = map[string]string{
+	"chord_mm":  "chord",
+	"x_mm":      "leading edge x",
+	"y_mm":      "leading edge y",
+	"angle_deg": "setting angle",
+	"section":   "section",
+}
+
 // fieldLabel names a study field as the controls do.
 func fieldLabel(path string) string {
+	var i int
+	var rest string
+	if n, _ := fmt.Sscanf(path, "elements[%d].%s", &i, &rest); n == 2 {
+		if name, ok := elementFields[rest]; ok {
+			return fmt.Sprintf("Element %d %s", i+1, name)
+		}
+	}
 	switch path {
+	case "flow.speed_mps":
+		return "Speed (m/s)"
+	case "flow.temperature_c":
+		return "Air temperature"
+	case "flow.pressure_pa":
+		return "Air pressure"
+	case "flow.span_m":
+		return "Span (m)"
+	case "flow.reynolds":
+		return "Reynolds number"
+	case "reference_chord_mm":
+		return "Reference chord"
+	case "viscous.trip_upper":
+		return "Upper trip"
+	case "viscous.trip_lower":
+		return "Lower trip"
+	case "viscous.enabled":
+		return "Boundary layer"
+	case "elements":
+		return "Elements"
 	case "panelling.panels":
 		return "Panel count"
 	case "panelling.nose":

@@ -17,13 +17,34 @@ type plotView struct {
 	note    *widget.Label
 	enlarge *widget.Button
 	tools   []fyne.CanvasObject
+	title   *widget.Label
+
+	// Pressure view: the element shown and the boundary-layer switch.
+	elements *widget.Select
+	blToggle *widget.Button
+	// Polar view: Cl and Cm, the drag polar or Cl/Cd.
+	polarMode *widget.Select
+	viscous   bool     // the study has the boundary-layer estimate on
+	names     []string // element names for the choice
 }
+
+// Polar view modes.
+const (
+	polarLift = "Cl, Cm – α"
+	polarDrag = "Cl – Cd"
+	polarLD   = "Cl/Cd – α"
+)
+
+// allElements is the pressure view's choice of every element.
+const allElements = "All elements"
 
 // newPlotView builds a view; onEnlarge toggles it between its cell and the
 // whole view area.
 // element tells which element the leading-edge close-up shows.
 func newPlotView(kind viewKind, act *activity, do func(func()), onEnlarge func(viewKind), element func() int) *plotView {
 	v := &plotView{kind: kind, canvas: newPlotCanvas(kind, act, do)}
+	v.title = widget.NewLabelWithStyle(kind.String(), fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+	v.title.Truncation = fyne.TextTruncateEllipsis
 	v.readout = widget.NewLabel("")
 	v.readout.TextStyle = fyne.TextStyle{Monospace: true}
 	v.canvas.onHover = func(s string) { v.readout.SetText(s) }
@@ -50,9 +71,28 @@ func newPlotView(kind viewKind, act *activity, do func(func()), onEnlarge func(v
 		reset := widget.NewButtonWithIcon("", theme.ZoomFitIcon(), v.canvas.ResetZoom)
 		speed := widget.NewButtonWithIcon("", theme.ColorPaletteIcon(), v.canvas.ToggleSpeedColour)
 		v.tools = []fyne.CanvasObject{speed, in, out, reset}
+	case viewPressure:
+		v.elements = widget.NewSelect(nil, func(string) {
+			i := v.elements.SelectedIndex()
+			if len(v.elements.Options) > 0 && v.elements.Options[0] == allElements {
+				i-- // "All elements" is −1
+			}
+			v.canvas.setElement(i)
+		})
+		v.elements.Hide()
+		v.blToggle = widget.NewButton("BL", func() { v.showBoundaryLayer(v.canvas.figure() != figBoundaryLayer) })
+		v.blToggle.Hide()
+		v.tools = []fyne.CanvasObject{v.elements, v.blToggle}
+	case viewPolar:
+		v.polarMode = widget.NewSelect([]string{polarLift, polarDrag, polarLD}, func(s string) { v.setPolarMode(s) })
+		v.polarMode.Selected = polarLift
+		v.polarMode.Hide()
+		v.tools = []fyne.CanvasObject{v.polarMode}
 	}
 	for _, t := range v.tools {
-		t.(*widget.Button).Importance = widget.LowImportance
+		if b, ok := t.(*widget.Button); ok {
+			b.Importance = widget.LowImportance
+		}
 	}
 	v.ExtendBaseWidget(v)
 	return v
@@ -69,9 +109,91 @@ func (v *plotView) setEnlarged(on bool) {
 
 // CreateRenderer is part of fyne.Widget.
 func (v *plotView) CreateRenderer() fyne.WidgetRenderer {
-	title := widget.NewLabelWithStyle(v.kind.String(), fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	right := container.NewHBox(append(append([]fyne.CanvasObject{v.readout}, v.tools...), v.enlarge)...)
-	header := container.NewBorder(nil, nil, title, right)
+	header := container.NewBorder(nil, nil, nil, right, v.title)
 	body := container.NewStack(v.canvas, container.NewCenter(v.note))
 	return widget.NewSimpleRenderer(container.NewBorder(header, nil, nil, nil, body))
+}
+
+// showBoundaryLayer switches the pressure view between Cp and the
+// boundary layer (θ, δ*, H, Cf) of the chosen element.
+func (v *plotView) showBoundaryLayer(on bool) {
+	f, title := figPressure, v.kind.String()
+	v.blToggle.Importance = widget.LowImportance
+	if on {
+		f, title = figBoundaryLayer, "Boundary layer"
+		v.blToggle.Importance = widget.HighImportance
+	}
+	v.blToggle.Refresh()
+	v.title.SetText(title)
+	v.canvas.setFigure(f)
+	v.refreshElements()
+}
+
+// refreshElements sets the element choice from the names and the element
+// shown. Cp can show all elements at once; the boundary layer one at a
+// time (the first when none was chosen).
+func (v *plotView) refreshElements() {
+	bl := v.canvas.figure() == figBoundaryLayer
+	sel := v.canvas.element
+	if sel >= len(v.names) {
+		sel = -1
+	}
+	opts := v.names
+	idx := sel
+	if bl {
+		idx = max(sel, 0)
+	} else {
+		opts = append([]string{allElements}, v.names...)
+		idx = sel + 1
+	}
+	v.elements.SetOptions(opts)
+	v.elements.SetSelectedIndex(idx)
+	if len(v.names) > 1 {
+		v.elements.Show()
+	} else {
+		v.elements.Hide()
+	}
+}
+
+// setPolarMode switches the polar view's figure.
+func (v *plotView) setPolarMode(mode string) {
+	f, title := figPolar, v.kind.String()
+	switch mode {
+	case polarDrag:
+		f, title = figDragPolar, "Drag polar"
+	case polarLD:
+		f, title = figLiftToDrag, "Lift to drag"
+	}
+	v.title.SetText(title)
+	v.canvas.setFigure(f)
+}
+
+// setStudy adapts the view's header to the study: the element names and
+// whether the boundary-layer figures are offered.
+func (v *plotView) setStudy(names []string, viscous bool) {
+	v.viscous = viscous
+	switch v.kind {
+	case viewPressure:
+		v.names = names
+		if v.canvas.figure() == figBoundaryLayer && !viscous {
+			v.showBoundaryLayer(false) // refreshes the elements
+		} else {
+			v.refreshElements()
+		}
+		if viscous {
+			v.blToggle.Show()
+		} else {
+			v.blToggle.Hide()
+		}
+	case viewPolar:
+		if !viscous && v.polarMode.Selected != polarLift {
+			v.polarMode.SetSelected(polarLift)
+		}
+		if viscous {
+			v.polarMode.Show()
+		} else {
+			v.polarMode.Hide()
+		}
+	}
 }

@@ -56,7 +56,9 @@ type plotCanvas struct {
 	win     viewWindow
 	zoomed  bool
 	dark    bool
-	speed   bool // colour streamlines by local speed
+	speed   bool    // colour streamlines by local speed
+	shows   figKind // what the view draws: its own figure or an alternative
+	element int     // element of the pressure and boundary-layer figures, −1 all (first)
 	pxW     int
 	pxH     int
 	dpi     float64
@@ -69,7 +71,7 @@ type plotCanvas struct {
 }
 
 func newPlotCanvas(kind viewKind, act *activity, do func(func())) *plotCanvas {
-	p := &plotCanvas{kind: kind, act: act, do: do}
+	p := &plotCanvas{kind: kind, act: act, do: do, shows: figureOf(kind), element: -1}
 	p.image = canvas.NewImageFromImage(image.NewRGBA(image.Rect(0, 0, 1, 1)))
 	p.image.FillMode = canvas.ImageFillStretch
 	p.image.ScaleMode = canvas.ImageScalePixels
@@ -153,6 +155,7 @@ func (p *plotCanvas) renderNow(sc *scene) frame {
 	p.ticket++
 	t := p.ticket
 	s, w, h, dpi, win, zoomed, dark, speed := p.sc, p.pxW, p.pxH, p.dpi, p.win, p.zoomed, p.dark, p.speed
+	fk, elem := p.shows, p.element
 	p.mu.Unlock()
 	if s == nil || w < 1 || h < 1 {
 		return frame{p: p, ticket: t}
@@ -163,7 +166,13 @@ func (p *plotCanvas) renderNow(sc *scene) frame {
 	if zoomed {
 		c.Window = win
 	}
-	fig, err := safeRender(p.kind, &c, w, h, dpi)
+	if fk == figPressure || fk == figBoundaryLayer {
+		c.Element = elem
+		if s.Solution != nil && elem >= len(s.Solution.Elements) {
+			c.Element = -1 // an element removed since the choice
+		}
+	}
+	fig, err := safeRenderFigure(fk, &c, w, h, dpi)
 	return frame{p: p, ticket: t, fig: fig, err: err}
 }
 
@@ -188,17 +197,51 @@ func (f frame) show() {
 	}
 	p.image.Refresh()
 	if p.onNote != nil {
-		p.onNote(viewNote(p.kind, f.err))
+		p.onNote(viewNote(p.figure(), f.err))
+	}
+}
+
+// figure returns what the view draws.
+func (p *plotCanvas) figure() figKind {
+	p.mu.Lock()
+	defer p.mu.Unlock()
+	return p.shows
+}
+
+// setFigure switches what the view draws and redraws it.
+func (p *plotCanvas) setFigure(f figKind) {
+	p.mu.Lock()
+	changed := p.shows != f
+	p.shows = f
+	p.mu.Unlock()
+	if changed {
+		p.renderLater()
+	}
+}
+
+// setElement chooses the element of the pressure and boundary-layer
+// figures (−1: all, or the first) and redraws.
+func (p *plotCanvas) setElement(i int) {
+	p.mu.Lock()
+	changed := p.element != i
+	p.element = i
+	p.mu.Unlock()
+	if changed {
+		p.renderLater()
 	}
 }
 
 // viewNote explains an empty view.
-func viewNote(k viewKind, err error) string {
+func viewNote(f figKind, err error) string {
 	switch {
 	case err == nil:
 		return ""
-	case k == viewPolar && isNoData(err):
+	case f == figPolar && isNoData(err):
 		return "No sweep for this configuration yet: press Run sweep."
+	case (f == figDragPolar || f == figLiftToDrag) && isNoData(err):
+		return "No boundary-layer sweep for this configuration yet: press Run sweep (Panels & sweep tab)."
+	case f == figBoundaryLayer && isNoData(err):
+		return "No boundary layer: turn the estimate on in the Flow tab."
 	case isNoData(err):
 		return "Nothing to draw yet."
 	}
@@ -351,7 +394,7 @@ func (p *plotCanvas) MouseIn(e *desktop.MouseEvent) { p.MouseMoved(e) }
 
 // MouseMoved shows the value under the pointer on Pressure and Polar.
 func (p *plotCanvas) MouseMoved(e *desktop.MouseEvent) {
-	if p.onHover == nil || (p.kind != viewPressure && p.kind != viewPolar) {
+	if p.onHover == nil || p.kind == viewPanels || p.kind == viewStreamlines {
 		return
 	}
 	f := p.Figure()
@@ -363,7 +406,7 @@ func (p *plotCanvas) MouseMoved(e *desktop.MouseEvent) {
 		p.onHover("")
 		return
 	}
-	p.onHover(readout(p.kind, x, y))
+	p.onHover(readout(p.figure(), x, y))
 }
 
 // MouseOut is part of desktop.Hoverable.
@@ -374,11 +417,18 @@ func (p *plotCanvas) MouseOut() {
 }
 
 // readout formats the data under the pointer.
-func readout(k viewKind, x, y float64) string {
-	if k == viewPolar {
+func readout(f figKind, x, y float64) string {
+	switch f {
+	case figPolar:
 		return "α " + fixed(x, 2) + "°   Cl " + fixed(y, 3)
+	case figDragPolar:
+		return "Cd " + fixed(x, 4) + "   Cl " + fixed(y, 3)
+	case figLiftToDrag:
+		return "α " + fixed(x, 2) + "°   Cl/Cd " + fixed(y, 1)
+	case figPressure:
+		return "x/c " + fixed(x, 3) + "   Cp " + fixed(y, 3)
 	}
-	return "x/c " + fixed(x, 3) + "   Cp " + fixed(y, 3)
+	return ""
 }
 
 var (

@@ -6,8 +6,10 @@
 package ui
 
 import (
+	"context"
 	"errors"
 	"fmt"
+	"math"
 	"strings"
 	"sync"
 
@@ -56,6 +58,8 @@ type Workbench struct {
 	status   *widget.Label
 	statusOK bool
 	warnings *widget.Button
+	results  *resultsPanel
+	showRes  *widget.Button
 }
 
 // New opens a workbench window in app for the study at path, or for the
@@ -132,9 +136,12 @@ func (w *Workbench) build() {
 	w.warnings.Importance = widget.LowImportance
 	w.warnings.Hide()
 	note := widget.NewLabelWithStyle(cautionShort, fyne.TextAlignTrailing, fyne.TextStyle{Italic: true})
-	statusLine := container.NewBorder(nil, nil, nil, container.NewHBox(w.warnings, note), w.status)
+	w.results = newResultsPanel()
+	w.showRes = widget.NewButtonWithIcon("Results", theme.ListIcon(), w.toggleResults)
+	w.showRes.Importance = widget.LowImportance
+	statusLine := container.NewBorder(nil, nil, nil, container.NewHBox(w.warnings, w.showRes, note), w.status)
 
-	content := container.NewBorder(nil, container.NewVBox(widget.NewSeparator(), statusLine), side, nil, w.viewArea)
+	content := container.NewBorder(nil, container.NewVBox(w.results.box, widget.NewSeparator(), statusLine), side, nil, w.viewArea)
 	w.win.SetContent(content)
 	w.win.Resize(fyne.NewSize(windowWidth, windowHeight))
 	w.win.SetMainMenu(w.menu())
@@ -157,6 +164,15 @@ func fixedWidth(width float32) fyne.CanvasObject {
 func (w *Workbench) setDark(dark bool) {
 	for _, v := range w.views {
 		v.canvas.setDark(dark)
+	}
+}
+
+// toggleResults shows or hides the results table under the views.
+func (w *Workbench) toggleResults() {
+	if w.results.box.Hidden {
+		w.results.box.Show()
+	} else {
+		w.results.box.Hide()
 	}
 }
 
@@ -199,6 +215,8 @@ func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error)
 		w.scene = sc
 		w.sceneMu.Unlock()
 		w.showStatus(res)
+		w.results.show(res)
+		w.controls.showResult(w.ctl.state.study, res)
 	})
 }
 
@@ -239,17 +257,40 @@ func (w *Workbench) showStatus(res *engineResult) {
 
 func (w *Workbench) showStatusError(err error) {
 	w.status.Importance = widget.DangerImportance
-	w.status.SetText("Not solved: " + firstLine(err.Error()))
+	msg := firstLine(err.Error())
+	if g, ok := geometryText(err); ok {
+		msg = g
+	} else if !errors.Is(err, context.Canceled) {
+		msg = friendly(err)
+	}
+	w.status.SetText("Not solved: " + msg)
 }
 
-// statusText summarises a result: Cl, Cm, the suction peak and the solve
-// time.
+// statusText summarises a result: Cl (the downforce coefficient −Cl when
+// inverted, with its sign stated), Cm, the suction peak, the forces, the
+// drag estimate and the solve time.
 func statusText(res *engineResult) string {
 	s := res.Solution
 	if s == nil {
 		return "No solution"
 	}
-	parts := []string{"Cl " + fixed(s.Cl, 3), "Cm " + fixed(s.Cm, 3)}
+	inv := res.Layout != nil && res.Layout.Inverted
+	var parts []string
+	if inv {
+		parts = append(parts, "−Cl "+fixed(downforceOf(s.Cl), 3)+" (downforce coefficient, + down)")
+	} else {
+		parts = append(parts, "Cl "+fixed(s.Cl, 3))
+	}
+	parts = append(parts, "Cm "+fixed(s.Cm, 3))
+	if v := res.Viscous; v != nil {
+		if math.IsNaN(v.Cd) {
+			parts = append(parts, "Cd — outside the method's range")
+		} else if inv {
+			parts = append(parts, "Cd "+fixed(v.Cd, 4), "−Cl/Cd "+fixed(liftToDrag(downforceOf(s.Cl), v.Cd), 1))
+		} else {
+			parts = append(parts, "Cd "+fixed(v.Cd, 4), "Cl/Cd "+fixed(liftToDrag(s.Cl, v.Cd), 1))
+		}
+	}
 	best := -1
 	for i, e := range s.Elements {
 		if best < 0 || e.CpMin < s.Elements[best].CpMin {
@@ -265,7 +306,15 @@ func statusText(res *engineResult) string {
 		parts = append(parts, "min Cp "+fixed(e.CpMin, 2)+" at "+where)
 	}
 	if f := res.Forces; f != nil {
-		parts = append(parts, "downforce "+fixed(f.DownforcePerSpan, 1)+" N/m")
+		name, per := "lift ", f.LiftPerSpan
+		if inv {
+			name, per = "downforce ", f.DownforcePerSpan
+		}
+		t := name + fixed(per, 1) + " N/m"
+		if f.SpanM > 0 {
+			t += " (" + fixed(overSpan(per, f.SpanM), 1) + " N over " + num(f.SpanM) + " m)"
+		}
+		parts = append(parts, t)
 	}
 	parts = append(parts, fmt.Sprintf("solve %d ms", res.Elapsed.Milliseconds()))
 	return strings.Join(parts, "   ")
@@ -294,6 +343,13 @@ func (w *Workbench) studyChanged() {
 	}
 	w.win.SetTitle(title + " — Sectionbench")
 	w.controls.sync(st)
+	names := make([]string, len(st.Elements))
+	for i, e := range st.Elements {
+		names[i] = fmt.Sprintf("%d %s", i+1, e.Name)
+	}
+	for _, v := range w.views {
+		v.setStudy(names, st.Viscous.Enabled)
+	}
 }
 
 // userError explains bad input in a dialog; the study is left unchanged.

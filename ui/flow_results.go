@@ -1,0 +1,174 @@
+package ui
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/theme"
+	"fyne.io/fyne/v2/widget"
+)
+
+// resultsPanel is the table under the views: per element and for the
+// configuration, the coefficients, forces and, with the boundary layer,
+// drag, transition and separation.
+type resultsPanel struct {
+	table *widget.Label
+	note  *widget.Label
+	box   *fyne.Container
+}
+
+func newResultsPanel() *resultsPanel {
+	r := &resultsPanel{}
+	r.table = widget.NewLabel("")
+	r.table.TextStyle = fyne.TextStyle{Monospace: true}
+	r.table.SizeName = theme.SizeNameCaptionText
+	r.note = widget.NewLabel("")
+	r.note.SizeName = theme.SizeNameCaptionText
+	r.note.Wrapping = fyne.TextWrapWord
+	r.note.TextStyle = fyne.TextStyle{Italic: true}
+	r.box = container.NewVBox(widget.NewSeparator(), r.table, r.note)
+	return r
+}
+
+func (r *resultsPanel) show(res *engineResult) {
+	table, note := resultsText(res)
+	r.table.SetText(table)
+	r.note.SetText(note)
+}
+
+// dash stands for a value that does not exist (no transition, no
+// separation, no drag).
+const dash = "—"
+
+// xcText formats an x/c, or a dash for NaN (none).
+func xcText(x float64) string {
+	if math.IsNaN(x) {
+		return dash
+	}
+	return fixed(x, 3)
+}
+
+// resultsText lays out the results table and the note on its signs.
+func resultsText(res *engineResult) (table, note string) {
+	s := res.Solution
+	if s == nil || res.Layout == nil {
+		return "", ""
+	}
+	inv := res.Layout.Inverted
+	f, v := res.Forces, res.Viscous
+	coef, force := "Cl", "lift N/m"
+	if inv {
+		coef, force = "−Cl", "downforce N/m"
+	}
+	cols := []string{"element", "chord mm", "Re", coef, "Cm"}
+	if f != nil {
+		cols = append(cols, force)
+		if f.SpanM > 0 {
+			cols = append(cols, fmt.Sprintf("N over %s m", num(f.SpanM)))
+		}
+	}
+	if v != nil {
+		cols = append(cols, "Cd", "transition up/low", "separation up/low")
+	}
+	sign := func(x float64) float64 {
+		if inv {
+			return downforceOf(x)
+		}
+		return x
+	}
+	var rows [][]string
+	for i, e := range s.Elements {
+		r := []string{fmt.Sprintf("%d %s", i+1, e.Name), num(elementChordMM(res, i)), reText(res, i), fixed(sign(e.Cl), 3), fixed(e.Cm, 3)}
+		if f != nil && i < len(f.ElementLift) {
+			r = append(r, fixed(sign(f.ElementLift[i]), 1))
+			if f.SpanM > 0 {
+				r = append(r, fixed(overSpan(sign(f.ElementLift[i]), f.SpanM), 1))
+			}
+		}
+		if v != nil && i < len(v.Elements) {
+			b := v.Elements[i]
+			r = append(r, cdText(b.Cd),
+				xcText(b.Upper.TransitionXC)+" / "+xcText(b.Lower.TransitionXC),
+				xcText(b.Upper.TurbulentSeparationXC)+" / "+xcText(b.Lower.TurbulentSeparationXC))
+		}
+		rows = append(rows, r)
+	}
+	if len(s.Elements) > 1 || res.Layout.RefChordM != res.Layout.Elements[0].Chord {
+		r := []string{"configuration", num(refChordMM(res)) + " ref", "", fixed(sign(s.Cl), 3), fixed(s.Cm, 3)}
+		if f != nil {
+			r = append(r, fixed(sign(f.LiftPerSpan), 1))
+			if f.SpanM > 0 {
+				r = append(r, fixed(overSpan(sign(f.LiftPerSpan), f.SpanM), 1))
+			}
+		}
+		if v != nil {
+			r = append(r, cdText(v.Cd), "", "")
+		}
+		rows = append(rows, r)
+	}
+	table = alignColumns(cols, rows)
+
+	var n []string
+	if inv {
+		n = append(n, "−Cl is the downforce coefficient: positive pushes the car down.")
+	} else {
+		n = append(n, "Cl positive up.")
+	}
+	n = append(n, "Elements on their own chord (Cm about their quarter chord), the configuration on the reference chord.")
+	if f != nil && f.SpanM > 0 {
+		n = append(n, "Span totals are 2-D values times the span (no end effects).")
+	}
+	if v != nil {
+		n = append(n, "x/c from each element's leading edge; — none. Cd "+dash+": a surface separated, outside the method's range.")
+	}
+	return table, strings.Join(n, " ")
+}
+
+func reText(res *engineResult, i int) string {
+	if i >= len(res.Reynolds) {
+		return dash
+	}
+	return strings.Replace(fmt.Sprintf("%.3g", res.Reynolds[i]), "e+0", "e", 1)
+}
+
+func cdText(cd float64) string {
+	if math.IsNaN(cd) {
+		return dash
+	}
+	return fixed(cd, 4)
+}
+
+// alignColumns lays out a monospace table, the first column left-aligned
+// and the others right-aligned.
+func alignColumns(head []string, rows [][]string) string {
+	width := make([]int, len(head))
+	for _, r := range append([][]string{head}, rows...) {
+		for j, c := range r {
+			if j < len(width) {
+				width[j] = max(width[j], len([]rune(c)))
+			}
+		}
+	}
+	var b strings.Builder
+	for k, r := range append([][]string{head}, rows...) {
+		if k > 0 {
+			b.WriteByte('\n')
+		}
+		for j := range head {
+			c := ""
+			if j < len(r) {
+				c = r[j]
+			}
+			pad := strings.Repeat(" ", width[j]-len([]rune(c)))
+			if j == 0 {
+				b.WriteString(c + pad)
+			} else {
+				b.WriteString("   " + pad + c)
+			}
+		}
+	}
+	return b.String()
+}
