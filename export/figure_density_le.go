@@ -133,8 +133,9 @@ func leadingEdgeCp(es solver.ElementSolution, xcMax float64) (upper, lower plott
 	return upper, lower
 }
 
-// ramp returns the colour of curve i of n: from faint (coarsest) to the
-// theme's upper-surface colour (finest), linear in RGB.
+// ramp returns the colour of curve i of n: from a pale tint of the
+// theme's upper-surface colour (coarsest) to the full colour (finest),
+// linear in RGB between the background and that colour.
 func ramp(th *theme, i, n int) color.Color {
 	f := 1.0
 	if n > 1 {
@@ -143,7 +144,7 @@ func ramp(th *theme, i, n int) color.Color {
 	// Keep the coarsest curve visible: start a quarter of the way along.
 	const start = 0.25
 	f = start + (1-start)*f
-	r0, g0, b0, _ := th.faint.RGBA()
+	r0, g0, b0, _ := th.bg.RGBA()
 	r1, g1, b1, _ := th.upper.RGBA()
 	mix := func(a, b uint32) uint8 { return uint8(math.Round((float64(a)*(1-f) + float64(b)*f) / 257)) }
 	return color.RGBA{R: mix(r0, r1), G: mix(g0, g1), B: mix(b0, b1), A: 255}

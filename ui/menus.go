@@ -77,7 +77,11 @@ func (w *Workbench) menu() *fyne.MainMenu {
 			w.views[viewPanels].canvas.ResetZoom()
 			w.views[viewStreamlines].canvas.ResetZoom()
 		}),
+		fyne.NewMenuItemSeparator(),
+		fyne.NewMenuItem("Density study…", func() { w.openDensity(densityTabConvergence) }),
+		fyne.NewMenuItem("Panel sizes…", func() { w.openDensity(densityTabSizes) }),
 	)
+	w.startAutosave()
 	help := fyne.NewMenu("Help",
 		fyne.NewMenuItem("Methods and cautions", w.showMethods),
 		fyne.NewMenuItem("About", w.showAbout),
@@ -109,6 +113,7 @@ func (w *Workbench) confirmDiscard(action string, then func()) {
 func (w *Workbench) closeRequested() {
 	w.confirmDiscard("Close", func() {
 		w.ctl.CancelSweep()
+		w.closeAutosave()
 		w.win.Close()
 	})
 }

@@ -1,0 +1,626 @@
+package ui
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/theme"
+	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/model"
+)
+
+// Size of the density window in Fyne units, and of its control column.
+const (
+	densityWidth        = 1220
+	densityHeight       = 780
+	densityControlWidth = 450
+)
+
+// maxDensityRuns bounds the solves of one density study (counts × nose
+// values): at the largest counts a solve of a two-element configuration
+// takes about a second on a laptop, so a minute at most.
+const maxDensityRuns = 60
+
+// The tabs of the density window.
+const (
+	densityTabConvergence = iota
+	densityTabLE
+	densityTabSizes
+)
+
+// densityWindow runs a density study of the current study and shows its
+// table, extrapolations, figures and recommendation, and the panel-size
+// chart of the current panelling.
+type densityWindow struct {
+	w   *Workbench
+	win fyne.Window
+
+	panels, nose   *widget.Entry
+	tolCl, tolCp   *widget.Entry
+	noseNote       *widget.Label
+	msg            *widget.Label
+	run, cancel    *widget.Button
+	progress       *widget.ProgressBar
+	caseLabel      *widget.Label
+	series         *widget.Select
+	extrap         [3][4]*widget.Label // Cl, Cm, min Cp × finest, extrapolated, error, order
+	recommend      *widget.Label
+	recommendWhy   *widget.Label
+	use            *widget.Button
+	table          *widget.Table
+	tabs           *container.AppTabs
+	conv, le       *figureBox
+	leElement      *widget.Select
+	sizes          *panelSizeView
+	visible        bool
+	running        context.CancelFunc
+	gen            int // runs started; a finished run that is not the newest is dropped
+	out            *densityOutcome
+	runStudy       *model.Study // the study the shown outcome was run for
+	seriesIdx      int
+	syncedPlan     model.DensityPlan
+	syncedPlanSeen bool
+}
+
+// openDensity shows the workbench's density window at a tab, making it on
+// first use.
+func (w *Workbench) openDensity(tab int) {
+	x := w.extra()
+	if x.density == nil {
+		x.density = newDensityWindow(w)
+		w.onStudyChange(x.density.studyChanged)
+	}
+	d := x.density
+	d.tabs.SelectIndex(tab)
+	d.visible = true
+	d.studyChanged()
+	d.win.Show()
+	d.win.RequestFocus()
+}
+
+func newDensityWindow(w *Workbench) *densityWindow {
+	d := &densityWindow{w: w}
+	d.win = w.app.NewWindow("Density study — Sectionbench")
+	d.win.SetCloseIntercept(func() {
+		d.stop()
+		d.visible = false
+		d.win.Hide()
+	})
+
+	d.panels, d.nose = widget.NewEntry(), widget.NewEntry()
+	d.panels.SetPlaceHolder("e.g. 20, 40, 80, 160, 320, 640")
+	d.nose.SetPlaceHolder("empty: the study's value")
+	d.tolCl, d.tolCp = widget.NewEntry(), widget.NewEntry()
+	d.noseNote = widget.NewLabel("")
+	d.noseNote.Wrapping = fyne.TextWrapWord
+	d.noseNote.SizeName = theme.SizeNameCaptionText
+	d.msg = message()
+	d.run = widget.NewButton("Run density study", d.start)
+	d.run.Importance = widget.HighImportance
+	d.cancel = widget.NewButton("Cancel", d.stop)
+	d.cancel.Hide()
+	d.progress = widget.NewProgressBar()
+	d.progress.Hide()
+
+	d.caseLabel = widget.NewLabel("Not run yet. The study runs at the current angle of attack, re-panelling every element at each count.")
+	d.caseLabel.Wrapping = fyne.TextWrapWord
+	d.series = widget.NewSelect(nil, func(string) {
+		if i := d.series.SelectedIndex(); i >= 0 && i != d.seriesIdx {
+			d.seriesIdx = i
+			d.showOutcome()
+			d.drawLE()
+		}
+	})
+	d.series.Hide()
+	grid := []fyne.CanvasObject{widget.NewLabel(""), densityCaption("finest"), densityCaption("extrapolated"), densityCaption("± estimate"), densityCaption("order")}
+	for i, q := range []string{"Cl", "Cm", "min Cp"} {
+		grid = append(grid, widget.NewLabel(q))
+		for j := range 4 {
+			d.extrap[i][j] = widget.NewLabel("—")
+			grid = append(grid, d.extrap[i][j])
+		}
+	}
+	d.recommend = widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+	d.recommendWhy = widget.NewLabel("")
+	d.recommendWhy.Wrapping = fyne.TextWrapWord
+	d.recommendWhy.SizeName = theme.SizeNameCaptionText
+	d.use = widget.NewButton("Use recommended count", d.useRecommended)
+	d.use.Importance = widget.HighImportance
+	d.use.Disable()
+
+	d.table = widget.NewTableWithHeaders(d.tableSize, func() fyne.CanvasObject {
+		return widget.NewLabel("−0.00000")
+	}, d.tableCell)
+	d.table.ShowHeaderColumn = false
+	d.table.CreateHeader = func() fyne.CanvasObject {
+		return widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+	}
+	d.table.UpdateHeader = func(id widget.TableCellID, o fyne.CanvasObject) {
+		if id.Col >= 0 && id.Col < len(densityColumns) {
+			o.(*widget.Label).SetText(densityColumns[id.Col])
+		}
+	}
+	for i, wd := range densityColumnWidths {
+		d.table.SetColumnWidth(i, wd)
+	}
+
+	d.conv = newFigureBox(w.ctl.act, w.do, fyne.NewSize(420, 320))
+	d.le = newFigureBox(w.ctl.act, w.do, fyne.NewSize(420, 320))
+	d.leElement = widget.NewSelect(nil, func(string) { d.drawLE() })
+	d.leElement.Hide()
+	d.sizes = newPanelSizeView(w)
+	convSplit := container.NewVSplit(d.conv, d.table)
+	convSplit.Offset = 0.64
+	d.tabs = container.NewAppTabs(
+		container.NewTabItem("Convergence", convSplit),
+		container.NewTabItem("Leading-edge Cp", container.NewBorder(d.leElement, nil, nil, nil, d.le)),
+		container.NewTabItem("Panel sizes", d.sizes.box),
+	)
+	d.tabs.OnSelected = func(*container.TabItem) { d.sizes.setActive(d.visible && d.tabs.SelectedIndex() == densityTabSizes) }
+
+	plan := container.NewVBox(
+		heading("Plan"),
+		row("Panel counts", d.panels),
+		row("Nose clustering", d.nose),
+		d.noseNote,
+		container.NewGridWithColumns(2, labelled("Cl within (%)", d.tolCl), labelled("min Cp within (%)", d.tolCp)),
+		d.msg,
+		container.NewBorder(nil, nil, nil, d.cancel, d.run),
+		d.progress,
+		widget.NewSeparator(),
+		heading("Result"),
+		d.caseLabel,
+		d.series,
+		container.NewGridWithColumns(5, grid...),
+		d.recommend,
+		d.recommendWhy,
+		d.use,
+	)
+	side := container.NewPadded(container.NewStack(widthOf(densityControlWidth), container.NewBorder(plan, nil, nil, nil)))
+	note := widget.NewLabelWithStyle(cautionShort+"; a converged count is converged for this method, not for the real flow.", fyne.TextAlignTrailing, fyne.TextStyle{Italic: true})
+	content := container.NewBorder(nil, note, side, nil, d.tabs)
+	d.win.SetContent(content)
+	d.win.Resize(fyne.NewSize(densityWidth, densityHeight))
+	return d
+}
+
+// Columns of the density table.
+var (
+	densityColumns      = []string{"panels", "nose", "Cl", "ΔCl", "Cm", "min Cp", "Δ min Cp"}
+	densityColumnWidths = []float32{76, 52, 76, 84, 70, 70, 84}
+)
+
+func (d *densityWindow) tableSize() (int, int) {
+	if d.out == nil {
+		return 0, len(densityColumns)
+	}
+	return len(d.out.res.Rows), len(densityColumns)
+}
+
+func (d *densityWindow) tableCell(id widget.TableCellID, o fyne.CanvasObject) {
+	l := o.(*widget.Label)
+	if d.out == nil || id.Row >= len(d.out.res.Rows) {
+		l.SetText("")
+		return
+	}
+	r := d.out.res.Rows[id.Row]
+	ser := d.out.res.Series[d.seriesIdx]
+	rec := r.Nose == ser.Nose && r.Panels == ser.RecommendedPanels
+	l.TextStyle = fyne.TextStyle{Bold: rec}
+	var s string
+	switch id.Col {
+	case 0:
+		s = strconv.Itoa(r.Panels)
+		if rec {
+			s += " ←"
+		}
+	case 1:
+		s = fixed(r.Nose, 2)
+	case 2:
+		s = fixed(r.Cl, 4)
+	case 3:
+		s = signed(r.DCl, 5)
+	case 4:
+		s = fixed(r.Cm, 4)
+	case 5:
+		s = fixed(r.CpMin, 3)
+	case 6:
+		s = signed(r.DCpMin, 4)
+	}
+	l.SetText(s)
+}
+
+// estimate formats an error estimate to two significant digits.
+func estimate(x float64) string {
+	if x == 0 {
+		return "0"
+	}
+	s := strconv.FormatFloat(x, 'g', 2, 64)
+	return strings.ReplaceAll(s, "-", "−")
+}
+
+// signed formats a change with its sign, "—" when there is none.
+func signed(x float64, prec int) string {
+	if math.IsNaN(x) {
+		return "—"
+	}
+	s := fixed(x, prec)
+	if x >= 0 && !strings.HasPrefix(s, "−") {
+		s = "+" + s
+	}
+	return s
+}
+
+// readPlan parses the plan fields. Values equal to the defaults are
+// stored as zero values, so that running the defaults leaves a study that
+// never had a plan unchanged.
+func (d *densityWindow) readPlan() (model.DensityPlan, error) {
+	var p model.DensityPlan
+	counts, err := parseList(d.panels.Text)
+	if err != nil {
+		return p, fmt.Errorf("panel counts: %v", err)
+	}
+	for i, v := range counts {
+		n := int(v)
+		if float64(n) != v {
+			return p, fmt.Errorf("panel counts: %s is not a whole number", entryNum(v))
+		}
+		if n < model.MinPanels || n > model.MaxPanels {
+			return p, fmt.Errorf("panel counts: %d is outside %d..%d", n, model.MinPanels, model.MaxPanels)
+		}
+		if i > 0 && n <= p.Panels[i-1] {
+			return p, errors.New("panel counts must increase from left to right")
+		}
+		p.Panels = append(p.Panels, n)
+	}
+	noses, err := parseList(d.nose.Text)
+	if err != nil {
+		return p, fmt.Errorf("nose clustering: %v", err)
+	}
+	for _, v := range noses {
+		if !(v >= 0 && v <= 1) {
+			return p, fmt.Errorf("nose clustering: %s is outside 0..1", entryNum(v))
+		}
+	}
+	p.Nose = noses
+	for _, t := range []struct {
+		e    *widget.Entry
+		name string
+		def  float64
+		v    *float64
+	}{{d.tolCl, "Cl tolerance", densityDefaultTolCl, &p.TolClPct}, {d.tolCp, "min Cp tolerance", densityDefaultTolCp, &p.TolCpMinPct}} {
+		if strings.TrimSpace(t.e.Text) == "" {
+			continue
+		}
+		v, err := parseNumber(t.e.Text)
+		if err != nil || !(v > 0 && v <= 100) {
+			return p, fmt.Errorf("%s must be a percentage above 0 and at most 100", t.name)
+		}
+		if v != t.def {
+			*t.v = v
+		}
+	}
+	if intsEqual(p.Panels, densityDefaultPanels) {
+		p.Panels = nil
+	}
+	n := max(len(p.Panels), 1)
+	if len(p.Panels) == 0 {
+		n = len(densityDefaultPanels)
+	}
+	if runs := n * max(len(p.Nose), 1); runs > maxDensityRuns {
+		return p, fmt.Errorf("%d solves: at most %d (fewer counts or nose values)", runs, maxDensityRuns)
+	}
+	return p, nil
+}
+
+func intsEqual(a, b []int) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for i := range a {
+		if a[i] != b[i] {
+			return false
+		}
+	}
+	return true
+}
+
+// parseList reads numbers separated by commas or spaces; with a semicolon
+// in the text, by semicolons, so that decimal commas can be used.
+func parseList(s string) ([]float64, error) {
+	sep := func(r rune) bool { return r == ',' || r == ' ' || r == '\t' }
+	if strings.ContainsRune(s, ';') {
+		sep = func(r rune) bool { return r == ';' }
+	}
+	var out []float64
+	for _, f := range strings.FieldsFunc(s, sep) {
+		if strings.TrimSpace(f) == "" {
+			continue
+		}
+		v, err := parseNumber(f)
+		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+			return nil, fmt.Errorf("%q is not a number", strings.TrimSpace(f))
+		}
+		out = append(out, v)
+	}
+	return out, nil
+}
+
+// syncPlan fills the plan fields from the study's plan when that plan
+// changed since the fields were last filled (opened, undone), leaving the
+// user's typing alone otherwise.
+func (d *densityWindow) syncPlan(st *model.Study) {
+	if d.syncedPlanSeen && densityPlansEqual(d.syncedPlan, st.Density) {
+		return
+	}
+	d.syncedPlan, d.syncedPlanSeen = st.Density, true
+	p := st.Density
+	counts := p.Panels
+	if len(counts) == 0 {
+		counts = densityDefaultPanels
+	}
+	cs := make([]string, len(counts))
+	for i, n := range counts {
+		cs[i] = strconv.Itoa(n)
+	}
+	d.panels.SetText(strings.Join(cs, ", "))
+	ns := make([]string, len(p.Nose))
+	for i, v := range p.Nose {
+		ns[i] = entryNum(v)
+	}
+	d.nose.SetText(strings.Join(ns, ", "))
+	tol := func(v, def float64) string {
+		if v == 0 {
+			v = def
+		}
+		return entryNum(v)
+	}
+	d.tolCl.SetText(tol(p.TolClPct, densityDefaultTolCl))
+	d.tolCp.SetText(tol(p.TolCpMinPct, densityDefaultTolCp))
+}
+
+// studyChanged follows the study: the plan fields, the nose note, whether
+// the shown outcome still holds, and the panel sizes.
+func (d *densityWindow) studyChanged() {
+	st := d.w.ctl.state.study
+	if st == nil {
+		return
+	}
+	d.syncPlan(st)
+	if st.Panelling.Spacing == model.SpacingBlend {
+		d.noseNote.SetText(fmt.Sprintf("Several values compare nose clusterings (e.g. 0.2, 0.5, 0.8); empty runs the study's %s.", fixed(st.Panelling.Nose, 2)))
+	} else {
+		d.noseNote.SetText(fmt.Sprintf("Nose clustering shapes only the blend spacing law; this study uses %s spacing, so every nose value gives the same panels.", st.Panelling.Spacing))
+	}
+	d.showOutcome()
+	d.sizes.setActive(d.visible && d.tabs.SelectedIndex() == densityTabSizes)
+	d.sizes.studyChanged()
+}
+
+// start stores the plan in the study and runs it on a goroutine.
+func (d *densityWindow) start() {
+	plan, err := d.readPlan()
+	if err != nil {
+		setMessage(d.msg, err)
+		return
+	}
+	ctl := d.w.ctl
+	if err := ctl.setDensityPlan(plan); err != nil {
+		setMessage(d.msg, err)
+		return
+	}
+	d.syncedPlan, d.syncedPlanSeen = plan, true
+	setMessage(d.msg, nil)
+	d.stop()
+	st, secs := ctl.Study(), ctl.Sections()
+	ctx, cancel := context.WithCancel(context.Background())
+	d.running = cancel
+	d.gen++
+	gen := d.gen
+	d.run.Disable()
+	d.cancel.Show()
+	d.progress.SetValue(0)
+	d.progress.Show()
+	ctl.act.add()
+	go func() {
+		defer ctl.act.done()
+		defer cancel()
+		out, err := runDensity(ctx, st, secs, func(done, total int) {
+			d.w.do(func() {
+				if gen == d.gen {
+					d.progress.SetValue(float64(done) / float64(total))
+				}
+			})
+		})
+		d.w.do(func() { d.finish(gen, st, out, err) })
+	}()
+}
+
+// stop cancels a running density study.
+func (d *densityWindow) stop() {
+	if d.running != nil {
+		d.running()
+		d.running = nil
+	}
+}
+
+func (d *densityWindow) finish(gen int, st *model.Study, out *densityOutcome, err error) {
+	if gen != d.gen {
+		return // a newer run was started
+	}
+	d.running = nil
+	d.run.Enable()
+	d.cancel.Hide()
+	d.progress.Hide()
+	if errors.Is(err, context.Canceled) {
+		setMessage(d.msg, errors.New("density study cancelled; the table keeps the last complete study"))
+		return
+	}
+	if err != nil {
+		setMessage(d.msg, err)
+		return
+	}
+	d.out, d.runStudy = out, st
+	d.seriesIdx = 0
+	names := make([]string, len(out.res.Series))
+	for i, s := range out.res.Series {
+		names[i] = "nose " + fixed(s.Nose, 2)
+	}
+	d.series.SetOptions(names)
+	d.series.SetSelectedIndex(0)
+	if len(names) > 1 {
+		d.series.Show()
+	} else {
+		d.series.Hide()
+	}
+	els := make([]string, len(st.Elements))
+	for i, e := range st.Elements {
+		els[i] = e.Name
+	}
+	d.leElement.SetOptions(els)
+	d.leElement.SetSelectedIndex(0)
+	if len(els) > 1 {
+		d.leElement.Show()
+	} else {
+		d.leElement.Hide()
+	}
+	d.showOutcome()
+	res := out.res
+	d.conv.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+		return renderDensity(res, dark, w, h, dpi)
+	}, "")
+	d.drawLE()
+}
+
+// fresh reports whether the shown outcome holds for the current study.
+func (d *densityWindow) fresh() bool {
+	return d.out != nil && sameDensityCase(d.runStudy, d.w.ctl.state.study)
+}
+
+// showOutcome fills the summary, extrapolations, recommendation and table.
+func (d *densityWindow) showOutcome() {
+	if d.out == nil {
+		return
+	}
+	res, st := d.out.res, d.runStudy
+	if d.seriesIdx >= len(res.Series) {
+		d.seriesIdx = 0
+	}
+	ser := res.Series[d.seriesIdx]
+	text := fmt.Sprintf("%s at α = %s°, %d solves.", st.Name, num(st.Flow.AlphaDeg), len(res.Rows))
+	fresh := d.fresh()
+	if !fresh {
+		text += " The study has changed since (other than its panelling): run it again."
+		d.caseLabel.Importance = widget.WarningImportance
+	} else {
+		d.caseLabel.Importance = widget.MediumImportance
+	}
+	d.caseLabel.SetText(text)
+	last := res.Rows[len(res.Rows)-1]
+	for _, r := range res.Rows {
+		if r.Nose == ser.Nose {
+			last = r
+		}
+	}
+	for i, q := range []struct {
+		ex     extrapolation
+		finest float64
+		prec   int
+	}{{ser.Cl, last.Cl, 4}, {ser.Cm, last.Cm, 4}, {ser.CpMin, last.CpMin, 3}} {
+		l := d.extrap[i]
+		l[0].SetText(fixed(q.finest, q.prec))
+		switch {
+		case !q.ex.OK:
+			l[1].SetText("—")
+			l[2].SetText("—")
+			l[3].SetText("not monotone")
+		case math.IsNaN(q.ex.ObservedOrder):
+			l[1].SetText(fixed(q.ex.Value, q.prec))
+			l[2].SetText(estimate(q.ex.ErrorEstimate))
+			l[3].SetText("converged")
+		default:
+			l[1].SetText(fixed(q.ex.Value, q.prec))
+			l[2].SetText(estimate(q.ex.ErrorEstimate))
+			l[3].SetText(fixed(q.ex.ObservedOrder, 2))
+		}
+	}
+	tolCl, tolCp := planTolerances(st.Density)
+	cur := d.w.ctl.state.study.Panelling
+	if ser.RecommendedPanels == 0 {
+		d.recommend.SetText("No count recommended")
+		d.recommendWhy.SetText(fmt.Sprintf("No count keeps Cl within %s %% and min Cp within %s %% of the extrapolated values (or Cl does not converge monotonically): add finer counts.", num(tolCl), num(tolCp)))
+		d.use.SetText("Use recommended count")
+		d.use.Disable()
+	} else {
+		d.recommend.SetText(fmt.Sprintf("Recommended: %d panels", ser.RecommendedPanels))
+		d.recommendWhy.SetText(fmt.Sprintf("The fewest for which this and every finer count keep Cl within %s %% and min Cp within %s %% of their extrapolated values.", num(tolCl), num(tolCp)))
+		label := fmt.Sprintf("Use %d panels", ser.RecommendedPanels)
+		if ser.Nose != cur.Nose {
+			label += ", nose " + fixed(ser.Nose, 2)
+		}
+		d.use.SetText(label)
+		if fresh && (cur.Panels != ser.RecommendedPanels || cur.Nose != ser.Nose) {
+			d.use.Enable()
+		} else {
+			d.use.Disable()
+		}
+	}
+	d.table.Refresh()
+}
+
+// planTolerances returns the plan's tolerances with the defaults filled in.
+func planTolerances(p model.DensityPlan) (cl, cp float64) {
+	cl, cp = p.TolClPct, p.TolCpMinPct
+	if cl == 0 {
+		cl = densityDefaultTolCl
+	}
+	if cp == 0 {
+		cp = densityDefaultTolCp
+	}
+	return cl, cp
+}
+
+// useRecommended sets the study's panel count (and nose clustering) to the
+// recommendation of the selected series: an undoable change.
+func (d *densityWindow) useRecommended() {
+	if d.out == nil || !d.fresh() {
+		return
+	}
+	ser := d.out.res.Series[d.seriesIdx]
+	if ser.RecommendedPanels == 0 {
+		return
+	}
+	setMessage(d.msg, d.w.ctl.useDensityPanels(ser.RecommendedPanels, ser.Nose))
+}
+
+// drawLE draws the leading-edge overlay of the selected series and element.
+func (d *densityWindow) drawLE() {
+	if d.out == nil {
+		return
+	}
+	nose := d.out.res.Series[d.seriesIdx].Nose
+	var curves []densityCurve
+	for _, c := range d.out.curves {
+		if c.Nose == nose {
+			curves = append(curves, c)
+		}
+	}
+	el := max(d.leElement.SelectedIndex(), 0)
+	d.le.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+		return renderDensityLE(curves, el, dark, w, h, dpi)
+	}, "")
+}
+
+// densityCaption is a small column heading.
+func densityCaption(s string) *widget.Label {
+	l := widget.NewLabel(s)
+	l.SizeName = theme.SizeNameCaptionText
+	return l
+}

@@ -1,0 +1,139 @@
+package ui
+
+// The density window, the panel-size chart and the autosave reach model,
+// solver and export only through the functions below, as the rest of the
+// workbench does through backend.go.
+
+import (
+	"context"
+	"fmt"
+	"io"
+	"os"
+
+	"sectionbench/export"
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+type (
+	densityResult = solver.DensityResult
+	densityCurve  = export.DensityCurve
+	densityPlan   = model.DensityPlan
+	panelSizes    = export.PanelSizes
+	extrapolation = solver.Extrapolation
+)
+
+// densityOutcome is a finished density study: the solver's judgement and
+// the solution at every count, kept for the leading-edge overlay.
+type densityOutcome struct {
+	res    *densityResult
+	curves []densityCurve
+}
+
+// Defaults of the density window, from the solver and export.
+var (
+	densityDefaultPanels = solver.DefaultDensityPanels
+	densityDefaultTolCl  = solver.DefaultTolClPct
+	densityDefaultTolCp  = solver.DefaultTolCpMinPct
+	densityLEChord       = export.DensityLEChord
+	defaultMaxRatio      = export.DefaultMaxNeighbourRatio
+)
+
+// runDensity runs the density study of st (its plan, at its angle of
+// attack) in one call of solver.DensityStudy. Each count is solved as
+// solver.(*Engine).Density solves it, by a fresh engine on a copy of the
+// study with that panel count and nose clustering; unlike Engine.Density
+// the solutions are kept, for the leading-edge overlay, so that nothing is
+// solved twice. A panic in the solver becomes an error.
+func runDensity(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int)) (out *densityOutcome, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			out, err = nil, fmt.Errorf("internal error in the density study: %v", r)
+		}
+	}()
+	if err := st.Validate(); err != nil {
+		return nil, err
+	}
+	opt := solver.DensityOptions{Panels: st.Density.Panels, Nose: st.Density.Nose, TolClPct: st.Density.TolClPct, TolCpMinPct: st.Density.TolCpMinPct}
+	if len(opt.Nose) == 0 {
+		opt.Nose = []float64{st.Panelling.Nose}
+	}
+	var curves []densityCurve
+	solve := func(panels int, nose float64) (*solver.Solution, error) {
+		s := st.Clone()
+		s.Panelling.Panels, s.Panelling.Nose = panels, nose
+		r, err := solver.NewEngine().Run(ctx, solver.Request{Study: s, Sections: secs})
+		if err != nil {
+			return nil, err
+		}
+		curves = append(curves, densityCurve{Panels: panels, Nose: nose, Solution: r.Solution})
+		return r.Solution, nil
+	}
+	res, err := solver.DensityStudy(ctx, opt, solve, progress)
+	if err != nil {
+		return nil, err
+	}
+	return &densityOutcome{res: res, curves: curves}, nil
+}
+
+// renderDensity draws the convergence figure of a density study.
+func renderDensity(res *densityResult, dark bool, w, h int, dpi float64) (*figure, error) {
+	return export.Render(export.ViewDensity, &export.Scene{Density: res, Dark: dark, Element: -1}, w, h, dpi)
+}
+
+// renderDensityLE draws the leading-edge Cp of every count on element.
+func renderDensityLE(curves []densityCurve, element int, dark bool, w, h int, dpi float64) (*figure, error) {
+	p, err := export.DensityLEPlot(curves, element, export.DensityLEChord, dark)
+	if err != nil {
+		return nil, err
+	}
+	return export.RenderPlot(p, false, w, h, dpi), nil
+}
+
+// placedPanelSizes places the study's elements with their panelling, as
+// the solver does, and returns every element's panel sizes.
+func placedPanelSizes(st *model.Study, secs []*model.Section) ([]panelSizes, error) {
+	l, err := model.Place(st, secs)
+	if err != nil {
+		return nil, err
+	}
+	return export.PanelSizesOf(l)
+}
+
+// renderPanelSizes draws one element's panel sizes.
+func renderPanelSizes(ps panelSizes, maxRatio float64, dark bool, w, h int, dpi float64) (*figure, error) {
+	p, err := export.PanelSizesPlot(ps, maxRatio, dark)
+	if err != nil {
+		return nil, err
+	}
+	return export.RenderPlot(p, true, w, h, dpi), nil
+}
+
+// writeAutosave writes the study atomically; wrap, if not nil, stands
+// between the encoder and the file (tests make it fail midway).
+func writeAutosave(path string, st []byte, wrap func(io.Writer) io.Writer) error {
+	return export.WriteFileAtomic(path, func(w io.Writer) error {
+		if wrap != nil {
+			w = wrap(w)
+		}
+		_, err := w.Write(st)
+		return err
+	})
+}
+
+// writeAutosaveNote writes the small file beside the autosave that says
+// which study file it belongs to.
+func writeAutosaveNote(path, note string) error {
+	return export.WriteFileAtomic(path, func(w io.Writer) error {
+		_, err := io.WriteString(w, note)
+		return err
+	})
+}
+
+// readAutosave reads an autosaved study, nil if there is none.
+func readAutosave(path string) (*model.Study, error) {
+	if _, err := os.Stat(path); os.IsNotExist(err) {
+		return nil, nil
+	}
+	return export.LoadStudy(path)
+}

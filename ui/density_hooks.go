@@ -1,0 +1,118 @@
+package ui
+
+import (
+	"sync"
+
+	"sectionbench/model"
+)
+
+// benchExtras holds what the density window and the autosave add to a
+// workbench, without fields in Workbench itself.
+type benchExtras struct {
+	density   *densityWindow
+	autosave  *autosaver
+	hooked    bool     // the controller's OnStudy has been wrapped
+	listeners []func() // called on the UI goroutine after the study changed
+}
+
+var (
+	extrasMu sync.Mutex
+	extras   = map[*Workbench]*benchExtras{}
+)
+
+// extra returns the workbench's extras, made on first use.
+func (w *Workbench) extra() *benchExtras {
+	extrasMu.Lock()
+	defer extrasMu.Unlock()
+	x := extras[w]
+	if x == nil {
+		x = &benchExtras{}
+		extras[w] = x
+	}
+	return x
+}
+
+// forgetExtras drops the workbench's extras when its window closes.
+func (w *Workbench) forgetExtras() {
+	extrasMu.Lock()
+	delete(extras, w)
+	extrasMu.Unlock()
+}
+
+// onStudyChange calls f on the UI goroutine after every change of the
+// study, after the workbench's own handler. UI goroutine only, after the
+// workbench is built.
+func (w *Workbench) onStudyChange(f func()) {
+	x := w.extra()
+	x.listeners = append(x.listeners, f)
+	if x.hooked {
+		return
+	}
+	x.hooked = true
+	prev := w.ctl.OnStudy
+	w.ctl.OnStudy = func() {
+		if prev != nil {
+			prev()
+		}
+		for _, l := range x.listeners {
+			l()
+		}
+	}
+}
+
+// setDensityPlan stores the plan in the study (an undoable change) unless
+// it is already the study's plan.
+func (c *Controller) setDensityPlan(p model.DensityPlan) error {
+	if densityPlansEqual(p, c.state.study.Density) {
+		return nil
+	}
+	return c.Edit("density", func(st *model.Study) { st.Density = p })
+}
+
+func densityPlansEqual(a, b model.DensityPlan) bool {
+	if len(a.Panels) != len(b.Panels) || len(a.Nose) != len(b.Nose) || a.TolClPct != b.TolClPct || a.TolCpMinPct != b.TolCpMinPct {
+		return false
+	}
+	for i := range a.Panels {
+		if a.Panels[i] != b.Panels[i] {
+			return false
+		}
+	}
+	for i := range a.Nose {
+		if a.Nose[i] != b.Nose[i] {
+			return false
+		}
+	}
+	return true
+}
+
+// useDensityPanels sets the study's panel count, and its nose clustering
+// when nose is not the study's: one undoable change.
+func (c *Controller) useDensityPanels(panels int, nose float64) error {
+	p := c.state.study.Panelling
+	p.Panels, p.Nose = panels, nose
+	return c.SetPanelling("", p)
+}
+
+// sameDensityCase reports whether a density study run on a still holds
+// for b: the studies differ at most in the panel count and nose clustering
+// (which the study varies), the plan, pins, names and sweep.
+func sameDensityCase(a, b *model.Study) bool {
+	x, y := cloneStudy(a), cloneStudy(b)
+	y.Panelling.Panels, y.Panelling.Nose = x.Panelling.Panels, x.Panelling.Nose
+	y.Density, y.Pins, y.Name, y.Team, y.Sweep = x.Density, x.Pins, x.Name, x.Team, x.Sweep
+	ex, err1 := encodeStudy(x)
+	ey, err2 := encodeStudy(y)
+	return err1 == nil && err2 == nil && string(ex) == string(ey)
+}
+
+// loadRecovered makes a recovered study current, as belonging to path
+// ("" if it was never saved) and with unsaved changes.
+func (c *Controller) loadRecovered(st *model.Study, path string) error {
+	if err := c.Load(st, path); err != nil {
+		return err
+	}
+	c.state.dirty = true
+	c.notify()
+	return nil
+}

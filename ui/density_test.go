@@ -1,0 +1,235 @@
+package ui
+
+import (
+	"context"
+	"math"
+	"reflect"
+	"strings"
+	"testing"
+
+	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/solver"
+)
+
+func TestParseList(t *testing.T) {
+	for _, c := range []struct {
+		in   string
+		want []float64
+		bad  bool
+	}{
+		{"20, 40, 80", []float64{20, 40, 80}, false},
+		{"20 40\t80", []float64{20, 40, 80}, false},
+		{"0,2; 0,5", []float64{0.2, 0.5}, false},
+		{"", nil, false},
+		{"20, forty", nil, true},
+		{"NaN", nil, true},
+		{"1e400", nil, true},
+	} {
+		got, err := parseList(c.in)
+		if (err != nil) != c.bad {
+			t.Errorf("%q: error %v, want error %v", c.in, err, c.bad)
+			continue
+		}
+		if !c.bad && !reflect.DeepEqual(got, c.want) {
+			t.Errorf("%q: %v, want %v", c.in, got, c.want)
+		}
+	}
+}
+
+// TestRunDensityMatchesEngine: the window's density study, which keeps the
+// solutions for the overlay, gives the rows and judgement of
+// solver.(*Engine).Density exactly.
+func TestRunDensityMatchesEngine(t *testing.T) {
+	w := newTestBench(t)
+	st := w.ctl.Study()
+	st.Density.Panels = []int{40, 80, 160}
+	secs := w.ctl.Sections()
+	want, err := solver.NewEngine().Density(context.Background(), st, secs, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	got, err := runDensity(context.Background(), st, secs, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(rowsNoNaN(got.res.Rows), rowsNoNaN(want.Rows)) || got.res.RecommendedPanels != want.RecommendedPanels {
+		t.Errorf("rows differ from Engine.Density:\n%+v\nwant\n%+v", got.res.Rows, want.Rows)
+	}
+	if len(got.curves) != 3 || got.curves[2].Panels != 160 || len(got.curves[2].Solution.Elements[0].Panels) != 160 {
+		t.Errorf("kept %d solutions, want one per count", len(got.curves))
+	}
+}
+
+// rowsNoNaN replaces the NaN changes of first rows so rows compare equal.
+func rowsNoNaN(rows []solver.DensityRow) []solver.DensityRow {
+	out := append([]solver.DensityRow(nil), rows...)
+	for i := range out {
+		for _, p := range []*float64{&out[i].DCl, &out[i].DCm, &out[i].DCpMin} {
+			if math.IsNaN(*p) {
+				*p = -1
+			}
+		}
+	}
+	return out
+}
+
+func openDensityTest(t *testing.T) (*Workbench, *densityWindow) {
+	t.Helper()
+	w := newTestBench(t)
+	w.openDensity(densityTabConvergence)
+	w.WaitIdle()
+	return w, w.extra().density
+}
+
+func TestDensityWindowRun(t *testing.T) {
+	w, d := openDensityTest(t)
+	if got := d.panels.Text; got != "20, 40, 80, 160, 320, 640" {
+		t.Errorf("panel counts start as %q, want the solver's defaults", got)
+	}
+	before := encoded(t, w.ctl.Study())
+	d.panels.SetText("40, 80, 160, 320")
+	d.start()
+	w.WaitIdle()
+	if !d.msg.Hidden {
+		t.Fatalf("run failed: %s", d.msg.Text)
+	}
+	if got := w.ctl.Study().Density.Panels; !reflect.DeepEqual(got, []int{40, 80, 160, 320}) {
+		t.Errorf("study's plan has counts %v", got)
+	}
+	if !w.ctl.Dirty() {
+		t.Error("storing the plan did not mark the study unsaved")
+	}
+	if rows, _ := d.tableSize(); rows != 4 {
+		t.Errorf("table has %d rows, want 4", rows)
+	}
+	d.tabs.SelectIndex(densityTabLE)
+	w.WaitIdle()
+	if d.conv.Figure() == nil || d.le.Figure() == nil {
+		t.Errorf("figures missing: convergence %v (%v), leading edge %v (%v)", d.conv.Figure() != nil, d.conv.err, d.le.Figure() != nil, d.le.err)
+	}
+	if d.extrap[0][1].Text == "—" && d.extrap[0][3].Text != "not monotone" {
+		t.Errorf("Cl extrapolation shows %q, order %q", d.extrap[0][1].Text, d.extrap[0][3].Text)
+	}
+	ser := d.out.res.Series[0]
+	if ser.RecommendedPanels == 0 {
+		t.Skipf("no recommendation for the demo at these counts: %s", d.recommend.Text)
+	}
+	if d.use.Disabled() && ser.RecommendedPanels != w.ctl.Study().Panelling.Panels {
+		t.Fatal("Use button disabled with a recommendation that differs from the study")
+	}
+	if !strings.Contains(d.use.Text, "Use ") {
+		t.Errorf("button says %q", d.use.Text)
+	}
+	if ser.RecommendedPanels != w.ctl.Study().Panelling.Panels {
+		d.useRecommended()
+		res := current(t, w)
+		if got := w.ctl.Study().Panelling.Panels; got != ser.RecommendedPanels {
+			t.Errorf("study has %d panels after Use, want %d", got, ser.RecommendedPanels)
+		}
+		if got := panelCount(res); got != ser.RecommendedPanels {
+			t.Errorf("result has %d panels after Use, want %d", got, ser.RecommendedPanels)
+		}
+		if !d.use.Disabled() {
+			t.Error("Use stays enabled once the study uses the count")
+		}
+		if !w.ctl.Undo() {
+			t.Fatal("Use was not an undoable change")
+		}
+	}
+	// Undoing the plan brings the default fields back.
+	w.ctl.Undo()
+	w.WaitIdle()
+	if got := encoded(t, w.ctl.Study()); got != before {
+		t.Error("undo did not return to the study before the density study")
+	}
+	if got := d.panels.Text; got != "20, 40, 80, 160, 320, 640" {
+		t.Errorf("after undo the counts say %q", got)
+	}
+	// A change of the configuration makes the outcome stale.
+	w.controls.alphaEntry.SetText("1")
+	w.WaitIdle()
+	if d.fresh() || !d.use.Disabled() || !strings.Contains(d.caseLabel.Text, "run it again") {
+		t.Error("an angle change left the density outcome current")
+	}
+}
+
+func TestDensityWindowRejectsBadPlans(t *testing.T) {
+	w, d := openDensityTest(t)
+	before := encoded(t, w.ctl.Study())
+	for _, c := range []struct{ panels, nose, tol string }{
+		{"40, 20", "", "0.5"},
+		{"10, 20, 40", "", "0.5"},
+		{"40, 80.5", "", "0.5"},
+		{"40, 80, 160", "1.5", "0.5"},
+		{"40, 80, 160", "", "-1"},
+		{"40, 80, 160", "", "abc"},
+		{"40, 80, 160", "NaN", "0.5"},
+		{"20, 40, 80, 160, 320, 640, 1280", "0, 0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9", "0.5"},
+	} {
+		d.panels.SetText(c.panels)
+		d.nose.SetText(c.nose)
+		d.tolCl.SetText(c.tol)
+		d.start()
+		w.WaitIdle()
+		if d.msg.Hidden {
+			t.Errorf("plan %+v shows no message", c)
+		}
+		if d.running != nil {
+			t.Errorf("plan %+v started a run", c)
+		}
+	}
+	if got := encoded(t, w.ctl.Study()); got != before {
+		t.Error("a rejected plan changed the study")
+	}
+}
+
+func TestDensityCancel(t *testing.T) {
+	w, d := openDensityTest(t)
+	d.start()
+	d.stop()
+	w.WaitIdle()
+	if d.cancel.Visible() || d.run.Disabled() || d.progress.Visible() {
+		t.Error("controls not restored after a cancelled run")
+	}
+	if d.out == nil && !strings.Contains(d.msg.Text, "cancelled") {
+		t.Errorf("cancelled run says %q", d.msg.Text)
+	}
+}
+
+func TestPanelSizesFollowStudy(t *testing.T) {
+	w := newTestBench(t)
+	w.openDensity(densityTabSizes)
+	w.WaitIdle()
+	d := w.extra().density
+	check := func(want int) {
+		t.Helper()
+		got, err := d.sizes.shownPanels()
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i, n := range got {
+			if n != want {
+				t.Errorf("element %d shows %d panels, study has %d", i, n, want)
+			}
+		}
+		if d.sizes.fig.Figure() == nil {
+			t.Errorf("no panel-size figure (%v)", d.sizes.fig.err)
+		}
+	}
+	check(w.ctl.Study().Panelling.Panels)
+	w.controls.panelEntry.SetText("48")
+	w.WaitIdle()
+	check(48)
+	// Uniform spacing on a smooth section keeps neighbours alike; the
+	// warning clears (property of equal arc-length steps).
+	w.controls.spacing.SetSelected("uniform")
+	w.WaitIdle()
+	if d.sizes.warn.Importance != widget.SuccessImportance {
+		t.Errorf("uniform spacing warns: %s", d.sizes.warn.Text)
+	}
+	d.sizes.ratio.SetText("0.5")
+	if d.sizes.msg.Hidden {
+		t.Error("a ratio limit below 1 shows no message")
+	}
+}
