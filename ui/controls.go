@@ -397,16 +397,15 @@ func newControls(w *Workbench) *controls {
 		c.kt,
 		widget.NewSeparator(),
 		c.ec.placementBox(),
-	)
-	flow := container.NewVBox(
-		heading("Flow"),
-		c.fc.box(),
 		widget.NewSeparator(),
 		heading("Mounting and ground"),
 		c.inverted,
 		container.NewBorder(nil, nil, nil, sized(c.clearance, 72), c.ground),
 		groundNote,
 		c.flowMsg,
+	)
+	flow := container.NewVBox(
+		c.fc.box(),
 		widget.NewSeparator(),
 		heading("Boundary layer"),
 		c.vc.box(),
@@ -432,7 +431,7 @@ func newControls(w *Workbench) *controls {
 		c.pins,
 	)
 	c.tabs = container.NewAppTabs(
-		container.NewTabItem("Elements", scrolled(elements)),
+		container.NewTabItem("Wing", scrolled(elements)),
 		container.NewTabItem("Flow", scrolled(flow)),
 		container.NewTabItem("Panels & sweep", scrolled(solve)),
 	)

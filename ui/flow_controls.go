@@ -128,13 +128,12 @@ func newFlowControls(c *controls) *flowControls {
 // box lays the flow fields out.
 func (fc *flowControls) box() fyne.CanvasObject {
 	return container.NewVBox(
+		labelled("speed (empty: none, coefficients only)", container.NewBorder(nil, nil, nil, sized(fc.unit, 96), fc.speed)),
 		container.NewGridWithColumns(2,
-			labelled("speed", container.NewBorder(nil, nil, nil, fc.unit, fc.speed)),
-			labelled("span (m)", fc.span)),
+			labelled("span (m)", fc.span),
+			labelled("Re, first element", fc.reynolds)),
 		container.NewGridWithColumns(2, labelled("air temperature (°C)", fc.temp), labelled("air pressure (Pa)", fc.pressure)),
-		container.NewGridWithColumns(2,
-			labelled("Reynolds number, first element", fc.reynolds),
-			labelled(" ", fc.isa)),
+		container.NewBorder(nil, nil, nil, fc.isa),
 		fc.msg,
 		fc.derived,
 	)

@@ -54,10 +54,10 @@ func newViscousControls(c *controls) *viscousControls {
 func (vc *viscousControls) box() fyne.CanvasObject {
 	return container.NewVBox(
 		vc.enabled,
+		caption(viscousNote),
 		container.NewGridWithColumns(2, labelled("trip, upper surface (x/c)", vc.upper), labelled("trip, lower surface (x/c)", vc.lower)),
 		caption("Empty or 0: free transition (Michel). Surfaces as drawn: inverted, the lower surface is the suction side."),
 		vc.msg,
-		caption(viscousNote),
 	)
 }
 

@@ -279,9 +279,19 @@ func statusText(res *engineResult) string {
 	if inv {
 		parts = append(parts, "−Cl "+fixed(downforceOf(s.Cl), 3)+" (downforce coefficient, + down)")
 	} else {
-		parts = append(parts, "Cl "+fixed(s.Cl, 3))
+		parts = append(parts, "Cl "+fixed(s.Cl, 3)+" (+ up)")
 	}
-	parts = append(parts, "Cm "+fixed(s.Cm, 3))
+	if f := res.Forces; f != nil {
+		name, per := "lift ", f.LiftPerSpan
+		if inv {
+			name, per = "downforce ", f.DownforcePerSpan
+		}
+		t := name + fixed(per, 1) + " N/m"
+		if f.SpanM > 0 {
+			t += " (" + fixed(overSpan(per, f.SpanM), 1) + " N on " + num(f.SpanM) + " m)"
+		}
+		parts = append(parts, t)
+	}
 	if v := res.Viscous; v != nil {
 		if math.IsNaN(v.Cd) {
 			parts = append(parts, "Cd — outside the method's range")
@@ -291,6 +301,7 @@ func statusText(res *engineResult) string {
 			parts = append(parts, "Cd "+fixed(v.Cd, 4), "Cl/Cd "+fixed(liftToDrag(s.Cl, v.Cd), 1))
 		}
 	}
+	parts = append(parts, "Cm "+fixed(s.Cm, 3))
 	best := -1
 	for i, e := range s.Elements {
 		if best < 0 || e.CpMin < s.Elements[best].CpMin {
@@ -305,19 +316,8 @@ func statusText(res *engineResult) string {
 		}
 		parts = append(parts, "min Cp "+fixed(e.CpMin, 2)+" at "+where)
 	}
-	if f := res.Forces; f != nil {
-		name, per := "lift ", f.LiftPerSpan
-		if inv {
-			name, per = "downforce ", f.DownforcePerSpan
-		}
-		t := name + fixed(per, 1) + " N/m"
-		if f.SpanM > 0 {
-			t += " (" + fixed(overSpan(per, f.SpanM), 1) + " N over " + num(f.SpanM) + " m)"
-		}
-		parts = append(parts, t)
-	}
 	parts = append(parts, fmt.Sprintf("solve %d ms", res.Elapsed.Milliseconds()))
-	return strings.Join(parts, "   ")
+	return strings.Join(parts, " · ")
 }
 
 func plural(n int) string {

@@ -1,0 +1,338 @@
+package ui
+
+import (
+	"errors"
+	"math"
+	"strings"
+	"testing"
+
+	"fyne.io/fyne/v2/test"
+
+	"sectionbench/model"
+)
+
+// rearWing is the invented two-element example study.
+const rearWing = "../testdata/studies/rear-wing.json"
+
+func openRearWing(t *testing.T) *Workbench {
+	t.Helper()
+	test.NewTempApp(t)
+	return openTestBench(t, rearWing)
+}
+
+func elementNames(res *engineResult) []string {
+	var n []string
+	for _, e := range res.Solution.Elements {
+		n = append(n, e.Name)
+	}
+	return n
+}
+
+func TestAddRemoveReorderElements(t *testing.T) {
+	w := newTestBench(t) // the demo: one element, inverted, free air
+	ec := w.controls.ec
+	alone := current(t, w)
+	if !ec.remove.Disabled() {
+		t.Error("Remove is enabled with a single element")
+	}
+
+	test.Tap(ec.add)
+	two := current(t, w)
+	st := w.ctl.Study()
+	if len(st.Elements) != 2 || len(two.Solution.Elements) != 2 {
+		t.Fatalf("after Add the study has %d elements and the result %d, want 2 (%s)", len(st.Elements), len(two.Solution.Elements), ec.msg.Text)
+	}
+	if w.ctl.Element() != 1 {
+		t.Errorf("the added flap is not selected (element %d)", w.ctl.Element())
+	}
+	// The new flap keeps the default gap, overlap and deflection.
+	fp := model.FlapPlacementOf(st.Elements[0], st.Elements[1])
+	c0 := st.Elements[0].ChordMM
+	if math.Abs(fp.GapMM-newFlapGapRatio*c0) > 1e-9 || math.Abs(fp.OverlapMM-newFlapOverlapRatio*c0) > 1e-9 || math.Abs(fp.DeflectionDeg-newFlapDeflectionDeg) > 1e-9 {
+		t.Errorf("new flap placed at %+v", fp)
+	}
+	// A flap behind an element raises that element's circulation (the
+	// "circulation effect": A. M. O. Smith, High-lift aerodynamics,
+	// J. Aircraft 12(6), 1975). The demo is inverted, so its lift is
+	// negative and grows in magnitude.
+	if m0, m1 := alone.Solution.Elements[0].Cl, two.Solution.Elements[0].Cl; !(math.Abs(m1) > math.Abs(m0)) || m0*m1 <= 0 {
+		t.Errorf("main element Cl %g with a flap, %g alone: want a larger magnitude of the same sign", m1, m0)
+	}
+
+	test.Tap(ec.add)
+	three := current(t, w)
+	if !ec.down.Disabled() {
+		t.Error("Down is enabled on the last element")
+	}
+	if got := elementNames(three); strings.Join(got, ",") != "main element,flap,flap 2" {
+		t.Fatalf("elements %v, want main element, flap, flap 2", got)
+	}
+
+	// Reorder: the last flap one place up. The geometry is the same and
+	// the main element stays first (the moment and pitch reference), so
+	// the solution must not change beyond rounding (a property of the
+	// method: the unknowns are only renumbered).
+	test.Tap(ec.up)
+	moved := current(t, w)
+	if got := elementNames(moved); strings.Join(got, ",") != "main element,flap 2,flap" {
+		t.Errorf("after moving up: %v", got)
+	}
+	if w.ctl.Element() != 1 {
+		t.Errorf("the moved element is not selected (element %d)", w.ctl.Element())
+	}
+	if d := math.Abs(moved.Solution.Cl - three.Solution.Cl); d > 1e-9*math.Abs(three.Solution.Cl) {
+		t.Errorf("reordering changed Cl from %g to %g", three.Solution.Cl, moved.Solution.Cl)
+	}
+
+	// Remove the selected element, then all but one.
+	test.Tap(ec.remove)
+	if got := len(current(t, w).Solution.Elements); got != 2 {
+		t.Errorf("after Remove the result has %d elements, want 2", got)
+	}
+	test.Tap(ec.remove)
+	res := current(t, w)
+	if len(res.Solution.Elements) != 1 || w.ctl.Study().Elements[0].Name != "main element" {
+		t.Errorf("after removing both flaps: %v", elementNames(res))
+	}
+	if math.Abs(res.Solution.Cl-alone.Solution.Cl) > 1e-12 {
+		t.Errorf("Cl %g after removing the flaps, %g before adding them", res.Solution.Cl, alone.Solution.Cl)
+	}
+	if !ec.remove.Disabled() {
+		t.Error("Remove is enabled with a single element")
+	}
+	if err := w.ctl.RemoveElement(0); !errors.Is(err, errLastElement) {
+		t.Errorf("removing the last element: %v", err)
+	}
+	// Undo brings the flaps back.
+	w.ctl.Undo()
+	if got := len(current(t, w).Solution.Elements); got != 2 {
+		t.Errorf("undo of a removal gives %d elements, want 2", got)
+	}
+}
+
+func TestMaxElements(t *testing.T) {
+	w := newTestBench(t)
+	for len(w.ctl.Study().Elements) < model.MaxElements {
+		if err := w.ctl.AddElement(); err != nil {
+			t.Fatalf("adding element %d: %v", len(w.ctl.Study().Elements)+1, err)
+		}
+	}
+	if got := len(current(t, w).Solution.Elements); got != model.MaxElements {
+		t.Fatalf("result has %d elements, want %d", got, model.MaxElements)
+	}
+	if !w.controls.ec.add.Disabled() {
+		t.Error("Add is enabled at the largest number of elements")
+	}
+	if err := w.ctl.AddElement(); err == nil {
+		t.Error("a sixth element was added")
+	}
+}
+
+func TestFlapPlacementRoundTrip(t *testing.T) {
+	w := openRearWing(t)
+	ec := w.controls.ec
+	ec.list.Select(1)
+	if w.ctl.Element() != 1 || ec.flap.Hidden {
+		t.Fatalf("selecting the flap: element %d, flap fields hidden %v", w.ctl.Element(), ec.flap.Hidden)
+	}
+	st := w.ctl.Study()
+	before := model.FlapPlacementOf(st.Elements[0], st.Elements[1])
+	if got := ec.gap.Text; got != entryNum(before.GapMM) {
+		t.Errorf("gap field says %q, want %q", got, entryNum(before.GapMM))
+	}
+
+	cases := []struct {
+		name  string
+		entry func() // types into one field
+		want  model.FlapPlacement
+	}{
+		{"gap", func() { ec.gap.SetText("15") }, model.FlapPlacement{GapMM: 15, OverlapMM: before.OverlapMM, DeflectionDeg: before.DeflectionDeg}},
+		{"overlap", func() { ec.overlap.SetText("10.5") }, model.FlapPlacement{GapMM: 15, OverlapMM: 10.5, DeflectionDeg: before.DeflectionDeg}},
+		{"deflection", func() { ec.deflec.SetText("26") }, model.FlapPlacement{GapMM: 15, OverlapMM: 10.5, DeflectionDeg: 26}},
+	}
+	const tol = 1e-9 // mm and degrees: the conversion is a rotation, exact to rounding
+	for _, c := range cases {
+		c.entry()
+		res := current(t, w)
+		st := w.ctl.Study()
+		got := model.FlapPlacementOf(st.Elements[0], st.Elements[1])
+		if math.Abs(got.GapMM-c.want.GapMM) > tol || math.Abs(got.OverlapMM-c.want.OverlapMM) > tol || math.Abs(got.DeflectionDeg-c.want.DeflectionDeg) > tol {
+			t.Errorf("%s: study places the flap at %+v, want %+v (%s)", c.name, got, c.want, ec.placeMsg.Text)
+		}
+		// The study's own fields are what PlaceFlap gives.
+		want := model.PlaceFlap(st.Elements[0], st.Elements[1], c.want)
+		if math.Abs(want.XMM-st.Elements[1].XMM) > tol || math.Abs(want.YMM-st.Elements[1].YMM) > tol || want.AngleDeg != st.Elements[1].AngleDeg {
+			t.Errorf("%s: flap at (%g, %g, %g°), PlaceFlap gives (%g, %g, %g°)", c.name, st.Elements[1].XMM, st.Elements[1].YMM, st.Elements[1].AngleDeg, want.XMM, want.YMM, want.AngleDeg)
+		}
+		if got := ec.x.Text; got != entryNum(st.Elements[1].XMM) {
+			t.Errorf("%s: x field says %q, study %g", c.name, got, st.Elements[1].XMM)
+		}
+		if len(res.Solution.Elements) != 2 {
+			t.Errorf("%s: %d elements solved", c.name, len(res.Solution.Elements))
+		}
+	}
+	// The saved and reopened study keeps the placement.
+	b, err := encodeStudy(w.ctl.Study())
+	if err != nil {
+		t.Fatal(err)
+	}
+	back, err := decodeStudy(b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := model.FlapPlacementOf(back.Elements[0], back.Elements[1]); math.Abs(got.GapMM-15) > tol || math.Abs(got.OverlapMM-10.5) > tol || math.Abs(got.DeflectionDeg-26) > tol {
+		t.Errorf("decoded study places the flap at %+v", got)
+	}
+
+	// A flap follows the element it hangs from: turning the main element
+	// keeps the flap's gap, overlap and deflection.
+	ec.list.Select(0)
+	ec.angle.SetText("5")
+	st = w.ctl.Study()
+	if got := model.FlapPlacementOf(st.Elements[0], st.Elements[1]); math.Abs(got.GapMM-15) > tol || math.Abs(got.OverlapMM-10.5) > tol || math.Abs(got.DeflectionDeg-26) > tol {
+		t.Errorf("after turning the main element the flap sits at %+v", got)
+	}
+	if st.Elements[0].AngleDeg != 5 || st.Elements[1].AngleDeg != 31 {
+		t.Errorf("setting angles %g, %g; want 5, 31", st.Elements[0].AngleDeg, st.Elements[1].AngleDeg)
+	}
+}
+
+func TestOverlapRefused(t *testing.T) {
+	w := openRearWing(t)
+	ec := w.controls.ec
+	ec.list.Select(1)
+	res := current(t, w)
+	before := encoded(t, w.ctl.Study())
+
+	// Gap 0 puts the flap's leading edge on the main element's chord line
+	// 13 mm ahead of its trailing edge, inside the NACA 4412 contour
+	// (there, at x/c ≈ 0.95, the section spans y/c ≈ −0.002 to +0.015:
+	// Abbott & von Doenhoff, Theory of Wing Sections, 1959, eq. 6.2 and
+	// the 4-digit thickness form).
+	ec.gap.SetText("0")
+	w.WaitIdle()
+	if ec.placeMsg.Hidden {
+		t.Fatal("an overlapping placement shows no message")
+	}
+	for _, want := range []string{"1 “main”", "2 “flap”", "overlap", "kept"} {
+		if !strings.Contains(ec.placeMsg.Text, want) {
+			t.Errorf("message %q does not say %q", ec.placeMsg.Text, want)
+		}
+	}
+	if encoded(t, w.ctl.Study()) != before {
+		t.Error("an overlapping placement changed the study")
+	}
+	if r, _, err := w.ctl.Result(); r != res || err != nil {
+		t.Errorf("an overlapping placement was solved (err %v)", err)
+	}
+	if ec.gap.Text != "0" {
+		t.Errorf("the typed gap was replaced by %q", ec.gap.Text)
+	}
+	// A leading edge typed straight into the main element: the same.
+	ec.x.SetText("100")
+	ec.y.SetText("0")
+	w.WaitIdle()
+	if encoded(t, w.ctl.Study()) == before && ec.placeMsg.Hidden {
+		t.Error("a leading edge inside the main element shows no message")
+	}
+	// Typing on to a valid value clears the message and solves.
+	ec.x.SetText("236.5")
+	ec.y.SetText("-22.2")
+	ec.gap.SetText("12")
+	res = current(t, w)
+	if !ec.placeMsg.Hidden {
+		t.Errorf("message stays after a valid placement: %q", ec.placeMsg.Text)
+	}
+	st := w.ctl.Study()
+	if got := model.FlapPlacementOf(st.Elements[0], st.Elements[1]).GapMM; math.Abs(got-12) > 1e-9 {
+		t.Errorf("gap %g after typing 12", got)
+	}
+	if len(res.Solution.Elements) != 2 {
+		t.Errorf("%d elements solved", len(res.Solution.Elements))
+	}
+}
+
+func TestInvalidEntriesKeepState(t *testing.T) {
+	w := openRearWing(t)
+	ec, fc, vc := w.controls.ec, w.controls.fc, w.controls.vc
+	before := encoded(t, w.ctl.Study())
+	res := current(t, w)
+	cases := []struct {
+		name  string
+		entry interface{ SetText(string) }
+		text  string
+		msg   func() bool // the message is shown
+	}{
+		{"text as chord", ec.chord, "wide", func() bool { return !ec.placeMsg.Hidden }},
+		{"negative chord", ec.chord, "-120", func() bool { return !ec.placeMsg.Hidden }},
+		{"zero chord", ec.chord, "0", func() bool { return !ec.placeMsg.Hidden }},
+		{"text as gap", ec.gap, "small", func() bool { return !ec.placeMsg.Hidden }},
+		{"text as angle", ec.angle, "2°°", func() bool { return !ec.placeMsg.Hidden }},
+		{"negative reference chord", ec.refChord, "-3", func() bool { return !ec.refMsg.Hidden }},
+		{"text as speed", fc.speed, "fast", func() bool { return !fc.msg.Hidden }},
+		{"negative speed", fc.speed, "-10", func() bool { return !fc.msg.Hidden }},
+		{"hot air", fc.temp, "300", func() bool { return !fc.msg.Hidden }},
+		{"pressure in kPa", fc.pressure, "101.3", func() bool { return !fc.msg.Hidden }},
+		{"text as span", fc.span, "one", func() bool { return !fc.msg.Hidden }},
+		{"trip behind the trailing edge", vc.upper, "1.5", func() bool { return !vc.msg.Hidden }},
+	}
+	for _, c := range cases {
+		if c.entry == ec.chord || c.entry == ec.gap || c.entry == ec.angle {
+			ec.list.Select(1)
+		}
+		c.entry.SetText(c.text)
+		w.WaitIdle()
+		if !c.msg() {
+			t.Errorf("%s: no message", c.name)
+		}
+		if encoded(t, w.ctl.Study()) != before {
+			t.Errorf("%s: the study changed", c.name)
+		}
+		if r, _, _ := w.ctl.Result(); r != res {
+			t.Errorf("%s: a new solve ran", c.name)
+		}
+		// Put the field back: undo the typing, as the user would.
+		w.controls.sync(w.ctl.state.study)
+	}
+}
+
+func TestReferenceChord(t *testing.T) {
+	w := openRearWing(t)
+	ec := w.controls.ec
+	res := current(t, w)
+	if got := refChordMM(res); got != 370 {
+		t.Fatalf("default reference chord %g mm, want the sum 250 + 120", got)
+	}
+	if !strings.Contains(ec.refChord.PlaceHolder, "370") {
+		t.Errorf("placeholder %q does not give the sum of the chords", ec.refChord.PlaceHolder)
+	}
+	ec.refChord.SetText("250")
+	on250 := current(t, w)
+	// Same flow, coefficients on a shorter chord: Cl scales as 370/250.
+	if got, want := on250.Solution.Cl, res.Solution.Cl*370/250; math.Abs(got-want) > 1e-9*math.Abs(want) {
+		t.Errorf("Cl on 250 mm is %g, want %g", got, want)
+	}
+	ec.refChord.SetText("")
+	if got := w.ctl.Study().ReferenceChordMM; got != 0 {
+		t.Errorf("empty reference chord sets %g", got)
+	}
+}
+
+func TestSelectedElementFollowsList(t *testing.T) {
+	w := openRearWing(t)
+	ec := w.controls.ec
+	ec.list.Select(1)
+	if w.controls.element.SelectedIndex() != 1 {
+		t.Error("the section-source choice does not follow the list")
+	}
+	if got := ec.chord.Text; got != "120" {
+		t.Errorf("chord field says %q for the flap, want 120", got)
+	}
+	if !strings.Contains(ec.placeHead.Text, "flap") {
+		t.Errorf("placement heading %q does not name the flap", ec.placeHead.Text)
+	}
+	w.controls.element.SetSelectedIndex(0)
+	if got := ec.chord.Text; got != "250" || !ec.flap.Hidden {
+		t.Errorf("main element selected: chord %q, flap fields hidden %v", got, ec.flap.Hidden)
+	}
+}

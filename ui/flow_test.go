@@ -1,0 +1,154 @@
+package ui
+
+import (
+	"math"
+	"strings"
+	"testing"
+
+	"fyne.io/fyne/v2/test"
+
+	"sectionbench/model"
+)
+
+// newStudyBench opens a workbench on a new study: one upright element,
+// ISA sea-level air and no speed.
+func newStudyBench(t *testing.T) *Workbench {
+	t.Helper()
+	w := newTestBench(t)
+	if err := w.ctl.Load(model.NewStudy(), ""); err != nil {
+		t.Fatal(err)
+	}
+	current(t, w)
+	return w
+}
+
+func TestSpeedInKmh(t *testing.T) {
+	w := newStudyBench(t)
+	fc := w.controls.fc
+	if fc.unit.Selected != unitKmh {
+		t.Fatalf("speed unit %q, want km/h", fc.unit.Selected)
+	}
+	for _, kmh := range []float64{100, 72, 43.2} {
+		fc.speed.SetText(entryNum(kmh))
+		current(t, w)
+		if got, want := w.ctl.Study().Flow.SpeedMPS, model.KmhToMps(kmh); got != want {
+			t.Errorf("%g km/h sets speed_mps %v, want exactly %v", kmh, got, want)
+		}
+	}
+	// Switching the unit rewrites the field and leaves the study alone.
+	before := encoded(t, w.ctl.Study())
+	fc.unit.SetSelected(unitMPS)
+	if got := fc.speed.Text; got != "12" {
+		t.Errorf("43.2 km/h shows as %q m/s, want 12", got)
+	}
+	if encoded(t, w.ctl.Study()) != before {
+		t.Error("switching the speed unit changed the study")
+	}
+	fc.speed.SetText("20")
+	current(t, w)
+	if got := w.ctl.Study().Flow.SpeedMPS; got != 20 {
+		t.Errorf("20 m/s sets speed_mps %v", got)
+	}
+	fc.speed.SetText("")
+	if got := w.ctl.Study().Flow.SpeedMPS; got != 0 {
+		t.Errorf("an empty speed sets speed_mps %v, want 0 (none)", got)
+	}
+}
+
+func TestForcesWithSpeed(t *testing.T) {
+	w := newStudyBench(t)
+	fc := w.controls.fc
+	if res := current(t, w); res.Forces != nil || strings.Contains(w.status.Text, "N/m") {
+		t.Fatalf("forces without a speed: %+v, status %q", res.Forces, w.status.Text)
+	}
+	fc.unit.SetSelected(unitMPS)
+	fc.speed.SetText("20")
+	res := current(t, w)
+	if res.Forces == nil {
+		t.Fatal("no forces with a speed")
+	}
+	// ISA sea level: ρ = 1.2250 kg/m³ (U.S. Standard Atmosphere, 1976;
+	// REFERENCES.md sec. 6), so q = ½ρV² = 245.0 Pa at 20 m/s.
+	if q := res.Forces.DynamicPressurePa; math.Abs(q-245.0) > 0.05 {
+		t.Errorf("q = %g Pa, want 245.0", q)
+	}
+	if !strings.Contains(fc.derived.Text, "ρ 1.225 kg/m³") || !strings.Contains(fc.derived.Text, "q 245") {
+		t.Errorf("derived values %q", fc.derived.Text)
+	}
+	if !strings.Contains(fc.derived.Text, "Re (own chord): main") {
+		t.Errorf("derived values %q give no Reynolds number", fc.derived.Text)
+	}
+	// Upright: lift, per metre.
+	lift := "lift " + fixed(res.Forces.LiftPerSpan, 1) + " N/m"
+	if !strings.Contains(w.status.Text, lift) || !strings.Contains(w.status.Text, "Cl ") {
+		t.Errorf("status %q does not give %q", w.status.Text, lift)
+	}
+	// With a span the total appears beside it.
+	fc.span.SetText("1.2")
+	res = current(t, w)
+	total := fixed(res.Forces.LiftPerSpan*1.2, 1) + " N on 1.2 m"
+	if !strings.Contains(w.status.Text, total) || !strings.Contains(w.results.table.Text, "N over 1.2 m") {
+		t.Errorf("status %q or table lacks the span total %q", w.status.Text, total)
+	}
+	// Inverted: downforce, positive, with the sign stated.
+	w.controls.inverted.SetChecked(true)
+	res = current(t, w)
+	f := res.Forces
+	if !(f.DownforcePerSpan > 0) {
+		t.Fatalf("inverted cambered section at 4°: downforce %g N/m, want positive", f.DownforcePerSpan)
+	}
+	for _, want := range []string{
+		"−Cl " + fixed(-res.Solution.Cl, 3) + " (downforce coefficient, + down)",
+		"downforce " + fixed(f.DownforcePerSpan, 1) + " N/m",
+	} {
+		if !strings.Contains(w.status.Text, want) {
+			t.Errorf("status %q does not say %q", w.status.Text, want)
+		}
+	}
+	if tb := w.results.table.Text; !strings.Contains(tb, "−Cl") || !strings.Contains(tb, "downforce N/m") || !strings.Contains(tb, fixed(f.DownforcePerSpan, 1)) {
+		t.Errorf("results table does not give the downforce:\n%s", tb)
+	}
+	if !strings.Contains(w.results.note.Text, "positive pushes the car down") {
+		t.Errorf("results note %q does not state the sign", w.results.note.Text)
+	}
+}
+
+func TestAirAndReynolds(t *testing.T) {
+	w := newStudyBench(t)
+	fc := w.controls.fc
+	fc.temp.SetText("30")
+	fc.pressure.SetText("95000")
+	if f := w.ctl.Study().Flow; f.TemperatureC != 30 || f.PressurePa != 95000 {
+		t.Fatalf("air %+v", f)
+	}
+	test.Tap(fc.isa)
+	current(t, w)
+	if f := w.ctl.Study().Flow; f.TemperatureC != 15 || f.PressurePa != 101325 {
+		t.Errorf("ISA sea level sets %g °C, %g Pa; want 15, 101325 (U.S. Standard Atmosphere, 1976)", f.TemperatureC, f.PressurePa)
+	}
+	if fc.temp.Text != "15" || fc.pressure.Text != "101325" {
+		t.Errorf("fields say %q, %q", fc.temp.Text, fc.pressure.Text)
+	}
+	fc.reynolds.SetText("3e5")
+	res := current(t, w)
+	if len(res.Reynolds) != 1 || res.Reynolds[0] != 3e5 {
+		t.Errorf("Re entered directly gives %v", res.Reynolds)
+	}
+	if !strings.Contains(fc.derived.Text, "main 3.00×10⁵") {
+		t.Errorf("derived values %q", fc.derived.Text)
+	}
+}
+
+func TestGroundCautionShown(t *testing.T) {
+	w := newTestBench(t)
+	// The caution sits right under the ground control in the Wing tab.
+	found := false
+	for _, it := range w.controls.tabs.Items {
+		if it.Text == "Wing" {
+			found = strings.Contains(dumpText(it.Content), "real wings lose downforce below about h/c = 0.1 (Zerihan & Zhang 2000)")
+		}
+	}
+	if !found {
+		t.Error("the ground-effect caution is not in the Wing tab")
+	}
+}
