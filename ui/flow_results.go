@@ -67,7 +67,7 @@ func resultsText(res *engineResult) (table, note string) {
 	if f != nil {
 		cols = append(cols, force)
 		if f.SpanM > 0 {
-			cols = append(cols, fmt.Sprintf("N over %s m", num(f.SpanM)))
+			cols = append(cols, fmt.Sprintf("N on %s m span", num(f.SpanM)))
 		}
 	}
 	if v != nil {

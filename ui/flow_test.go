@@ -87,7 +87,7 @@ func TestForcesWithSpeed(t *testing.T) {
 	fc.span.SetText("1.2")
 	res = current(t, w)
 	total := fixed(res.Forces.LiftPerSpan*1.2, 1) + " N on 1.2 m"
-	if !strings.Contains(w.status.Text, total) || !strings.Contains(w.results.table.Text, "N over 1.2 m") {
+	if !strings.Contains(w.status.Text, total) || !strings.Contains(w.results.table.Text, "N on 1.2 m span") {
 		t.Errorf("status %q or table lacks the span total %q", w.status.Text, total)
 	}
 	// Inverted: downforce, positive, with the sign stated.
