@@ -233,7 +233,7 @@ func TestGroundModeRejectsAngle(t *testing.T) {
 func TestSolveSuperposition(t *testing.T) {
 	two := Config{Elements: []Element{nacaElement(t, "4412", 80), transform(nacaElement(t, "0012", 60), 20, 0.4, model.Point{X: 1.02, Y: -0.05})}}
 	s := mustSystem(t, two)
-	a, _ := s.geo.assemble()
+	a, _, _ := s.geo.assemble()
 	for _, alpha := range []float64{-7, 0, 3.5, 12} {
 		sn, c := math.Sincos(alpha * math.Pi / 180)
 		b := mat.NewVecDense(s.geo.n, nil)
@@ -266,7 +266,7 @@ func TestAssembleParallelMatchesSerial(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	a, _ := g.assemble()
+	a, _, _ := g.assemble()
 	sc := newRowScratch(200)
 	row := make([]float64, g.n)
 	rhs := make([]float64, 1)
