@@ -88,11 +88,7 @@ func (w *Workbench) openDensity(tab int) {
 func newDensityWindow(w *Workbench) *densityWindow {
 	d := &densityWindow{w: w}
 	d.win = w.app.NewWindow("Density study — Sectionbench")
-	d.win.SetCloseIntercept(func() {
-		d.stop()
-		d.visible = false
-		d.win.Hide()
-	})
+	d.win.SetCloseIntercept(d.hide)
 
 	d.panels, d.nose = widget.NewEntry(), widget.NewEntry()
 	d.panels.SetPlaceHolder("e.g. 20, 40, 80, 160, 320, 640")
@@ -441,6 +437,15 @@ func (d *densityWindow) start() {
 		})
 		d.w.do(func() { d.finish(gen, st, out, err) })
 	}()
+}
+
+// hide puts the window away (its close button): the run stops, the
+// outcome and plan stay for the next opening.
+func (d *densityWindow) hide() {
+	d.stop()
+	d.visible = false
+	d.sizes.setActive(false)
+	d.win.Hide()
 }
 
 // stop cancels a running density study.
