@@ -50,8 +50,13 @@ type DensityRow struct {
 	CpMin            float64
 	DCl, DCm, DCpMin float64 // change from the previous count at the same nose value; NaN for the first
 	// MinPanelLength and MaxPanelLength are the shortest and longest panel
-	// over all elements, each on its element's chord.
+	// over all elements, each as a fraction of its own element's chord
+	// (0.0062 is 0.62% of chord, not a length: at 40 cosine-spaced panels
+	// on a 250 mm chord the shortest panel is 0.0062 × 250 mm ≈ 1.5 mm).
 	MinPanelLength, MaxPanelLength float64
+	// ShortestPanel and LongestPanel are the same panels' lengths in the
+	// configuration's length unit: metres for a placed study (Layout).
+	ShortestPanel, LongestPanel float64
 }
 
 // Extrapolation is a Richardson extrapolation from the three finest counts.
@@ -217,8 +222,13 @@ func densityRow(sol *Solution, n int, nose float64) DensityRow {
 			} else {
 				l = 2*(p.S-e.Panels[i-1].S) - l
 			}
-			row.MinPanelLength = math.Min(row.MinPanelLength, l/e.Chord)
-			row.MaxPanelLength = math.Max(row.MaxPanelLength, l/e.Chord)
+			f := l / e.Chord
+			if f < row.MinPanelLength {
+				row.MinPanelLength, row.ShortestPanel = f, l
+			}
+			if f > row.MaxPanelLength {
+				row.MaxPanelLength, row.LongestPanel = f, l
+			}
 		}
 	}
 	return row

@@ -236,3 +236,50 @@ func TestDensityStudyNACA2412(t *testing.T) {
 	t.Logf("NACA 2412 at 4°: Cl∞ = %.5f ± %.1e, p = %.3f; CpMin∞ = %.4f (ok %v, p = %.2f); recommended %d panels",
 		res.Cl.Value, res.Cl.ErrorEstimate, res.Cl.ObservedOrder, res.CpMin.Value, res.CpMin.OK, res.CpMin.ObservedOrder, res.RecommendedPanels)
 }
+
+// DensityRow's panel lengths on a placed study (250 mm chord, metres):
+// MinPanelLength is a fraction of the chord and ShortestPanel a length, both
+// equal to the shortest node-to-node distance of the solved configuration
+// (computed here directly from its nodes). With cosine spacing (REFERENCES
+// §7: x = (c/2)(1 − cos β), β in steps of π/(N/2)) the shortest panel of N
+// = 40 is the one at the nearly flat trailing edge, c(1 − cos(π/20))/2 ≈
+// 1.54 mm on 250 mm (0.62% of chord).
+func TestDensityRowPanelLengths(t *testing.T) {
+	st := model.NewStudy()
+	st.Elements[0].Section = model.SectionSource{Spec: "naca:2412"}
+	st.Elements[0].ChordMM = 250
+	st.Panelling = model.Panelling{Panels: 40, Spacing: model.SpacingCosine}
+	sec, _, err := model.SectionFromSpec("naca:2412", nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	secs := []*model.Section{sec}
+	r, err := NewEngine().Run(context.Background(), Request{Study: st, Sections: secs})
+	if err != nil {
+		t.Fatal(err)
+	}
+	nodes := r.Config.Elements[0].Nodes
+	short, long := math.Inf(1), 0.0
+	for i := 0; i+1 < len(nodes); i++ {
+		d := nodes[i].Dist(nodes[i+1])
+		short, long = math.Min(short, d), math.Max(long, d)
+	}
+	chord := r.Solution.Elements[0].Chord
+	row := densityRow(r.Solution, 40, st.Panelling.Nose)
+	for _, c := range []struct {
+		name      string
+		got, want float64
+	}{
+		{"ShortestPanel (m)", row.ShortestPanel, short},
+		{"LongestPanel (m)", row.LongestPanel, long},
+		{"MinPanelLength (of chord)", row.MinPanelLength, short / chord},
+		{"MaxPanelLength (of chord)", row.MaxPanelLength, long / chord},
+	} {
+		if math.Abs(c.got-c.want) > 1e-9*c.want {
+			t.Errorf("%s = %.6g, want %.6g", c.name, c.got, c.want)
+		}
+	}
+	if want := 0.25 * (1 - math.Cos(math.Pi/20)) / 2; math.Abs(row.ShortestPanel-want) > 0.02*want {
+		t.Errorf("shortest panel %.4g m, cosine spacing gives %.4g m", row.ShortestPanel, want)
+	}
+}
