@@ -67,6 +67,7 @@ type controls struct {
 	pins *widget.Label
 
 	alphaMsg   *widget.Label
+	runRow     *fyne.Container // Run sweep, and Cancel while it runs
 	sectionRow *fyne.Container // the element choice beside the section heading
 	tabs       *container.AppTabs
 	ec         *elementControls
@@ -370,6 +371,7 @@ func newControls(w *Workbench) *controls {
 	c.run.Importance = widget.HighImportance
 	c.cancel = widget.NewButton("Cancel", ctl.CancelSweep)
 	c.cancel.Hide()
+	c.runRow = container.NewBorder(nil, nil, nil, c.cancel, c.run)
 
 	// Pins.
 	c.pins = widget.NewLabel("")
@@ -422,7 +424,7 @@ func newControls(w *Workbench) *controls {
 		heading("Sweep"),
 		container.NewGridWithColumns(3, labelled("from (°)", c.from), labelled("to (°)", c.to), labelled("step (°)", c.step)),
 		c.sweepMsg,
-		container.NewBorder(nil, nil, nil, c.cancel, c.run),
+		c.runRow,
 		c.progress,
 		widget.NewSeparator(),
 
@@ -529,9 +531,11 @@ func (c *controls) runSweep() {
 	c.run.Disable()
 	c.progress.Show()
 	c.cancel.Show()
+	c.runRow.Refresh() // lay the row out again with Cancel beside Run
 	finish := func(err error) {
 		c.progress.Hide()
 		c.cancel.Hide()
+		c.runRow.Refresh()
 		c.run.Enable()
 		if errors.Is(err, context.Canceled) {
 			err = errors.New("sweep cancelled; the polar keeps the last complete sweep")

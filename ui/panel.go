@@ -3,6 +3,7 @@ package ui
 import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 )
@@ -49,6 +50,7 @@ func newPlotView(kind viewKind, act *activity, do func(func()), onEnlarge func(v
 	v.readout.TextStyle = fyne.TextStyle{Monospace: true}
 	v.canvas.onHover = func(s string) { v.readout.SetText(s) }
 	v.note = widget.NewLabelWithStyle("", fyne.TextAlignCenter, fyne.TextStyle{Italic: true})
+	v.note.Wrapping = fyne.TextWrapWord // a long note must not widen the view
 	v.note.Hide()
 	v.canvas.onNote = func(s string) {
 		v.note.SetText(s)
@@ -111,7 +113,7 @@ func (v *plotView) setEnlarged(on bool) {
 func (v *plotView) CreateRenderer() fyne.WidgetRenderer {
 	right := container.NewHBox(append(append([]fyne.CanvasObject{v.readout}, v.tools...), v.enlarge)...)
 	header := container.NewBorder(nil, nil, nil, right, v.title)
-	body := container.NewStack(v.canvas, container.NewCenter(v.note))
+	body := container.NewStack(v.canvas, container.NewVBox(layout.NewSpacer(), v.note, layout.NewSpacer()))
 	return widget.NewSimpleRenderer(container.NewBorder(header, nil, nil, nil, body))
 }
 

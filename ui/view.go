@@ -197,7 +197,10 @@ func (f frame) show() {
 	}
 	p.image.Refresh()
 	if p.onNote != nil {
-		p.onNote(viewNote(p.figure(), f.err))
+		p.mu.Lock()
+		visSweep := p.sc != nil && len(p.sc.SweepViscous) > 0
+		p.mu.Unlock()
+		p.onNote(viewNote(p.figure(), f.err, visSweep))
 	}
 }
 
@@ -231,13 +234,16 @@ func (p *plotCanvas) setElement(i int) {
 	}
 }
 
-// viewNote explains an empty view.
-func viewNote(f figKind, err error) string {
+// viewNote explains an empty view; visSweep tells whether the sweep has
+// a boundary-layer estimate (which may have no drag at any angle).
+func viewNote(f figKind, err error, visSweep bool) string {
 	switch {
 	case err == nil:
 		return ""
 	case f == figPolar && isNoData(err):
 		return "No sweep for this configuration yet: press Run sweep."
+	case (f == figDragPolar || f == figLiftToDrag) && isNoData(err) && visSweep:
+		return "No drag at any angle of the sweep: a surface separates before its trailing edge, outside the method's range (see the results table)."
 	case (f == figDragPolar || f == figLiftToDrag) && isNoData(err):
 		return "No boundary-layer sweep for this configuration yet: press Run sweep (Panels & sweep tab)."
 	case f == figBoundaryLayer && isNoData(err):

@@ -9,6 +9,8 @@ import (
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/test"
 	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/model"
 )
 
 // dumpText returns the text of every label, check and button under o.
@@ -180,5 +182,36 @@ func TestPressureElementChoice(t *testing.T) {
 	w.WaitIdle()
 	if pv.canvas.element != -1 || !pv.elements.Hidden || pv.canvas.Figure() == nil {
 		t.Errorf("after removing the flap: element %d, choice hidden %v", pv.canvas.element, pv.elements.Hidden)
+	}
+}
+
+func TestDragPolarOfSeparatedSweep(t *testing.T) {
+	w := openRearWing(t)
+	if err := w.ctl.SetViscous("", model.Viscous{Enabled: true}); err != nil {
+		t.Fatal(err)
+	}
+	w.controls.runSweep()
+	w.WaitIdle()
+	sv := w.ctl.SweepViscous()
+	if len(sv) == 0 || len(sv) != len(w.ctl.Sweep()) {
+		t.Fatalf("%d boundary-layer points for %d angles", len(sv), len(w.ctl.Sweep()))
+	}
+	polar := w.views[viewPolar]
+	polar.polarMode.SetSelected(polarDrag)
+	w.WaitIdle()
+	valid := 0
+	for _, p := range sv {
+		if p.Valid {
+			valid++
+		}
+	}
+	// The invented rear wing's flap separates at most angles; with no
+	// valid angle the view must say why rather than ask for a sweep.
+	if valid == 0 {
+		if polar.canvas.Figure() != nil || !strings.Contains(polar.note.Text, "No drag at any angle") {
+			t.Errorf("all angles separated: figure %v, note %q", polar.canvas.Figure() != nil, polar.note.Text)
+		}
+	} else if polar.canvas.Figure() == nil {
+		t.Errorf("%d valid angles but no drag polar (%v)", valid, polar.canvas.err)
 	}
 }
