@@ -184,6 +184,14 @@ func newDensityWindow(w *Workbench) *densityWindow {
 	content := container.NewBorder(nil, note, side, nil, d.tabs)
 	d.win.SetContent(content)
 	d.win.Resize(fyne.NewSize(densityWidth, densityHeight))
+	// Figures follow a change of the theme variant.
+	w.app.Settings().AddListener(func(fyne.Settings) {
+		w.do(func() {
+			d.conv.redraw()
+			d.le.redraw()
+			d.sizes.fig.redraw()
+		})
+	})
 	return d
 }
 

@@ -1,6 +1,7 @@
 package ui
 
 import (
+	"os"
 	"sync"
 
 	"sectionbench/model"
@@ -115,4 +116,34 @@ func (c *Controller) loadRecovered(st *model.Study, path string) error {
 	c.state.dirty = true
 	c.notify()
 	return nil
+}
+
+// openWindowEnv names a window to open at start, for screenshots of the
+// real app (scripts/screenshot.sh): "density" or "panel-sizes".
+const openWindowEnv = "SECTIONBENCH_OPEN_WINDOW"
+
+// startExtras starts the autosave and, if openWindowEnv asks, opens the
+// density window once the workbench is built. menu calls it.
+func (w *Workbench) startExtras() {
+	w.startAutosave()
+	tab := -1
+	switch os.Getenv(openWindowEnv) {
+	case "density":
+		tab = densityTabConvergence
+	case "panel-sizes":
+		tab = densityTabSizes
+	}
+	if tab < 0 {
+		return
+	}
+	w.ctl.act.add()
+	go func() {
+		defer w.ctl.act.done()
+		w.do(func() {
+			w.openDensity(tab)
+			if tab == densityTabConvergence {
+				w.extra().density.start()
+			}
+		})
+	}()
 }

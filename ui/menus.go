@@ -81,7 +81,7 @@ func (w *Workbench) menu() *fyne.MainMenu {
 		fyne.NewMenuItem("Density study…", func() { w.openDensity(densityTabConvergence) }),
 		fyne.NewMenuItem("Panel sizes…", func() { w.openDensity(densityTabSizes) }),
 	)
-	w.startAutosave()
+	w.startExtras()
 	help := fyne.NewMenu("Help",
 		fyne.NewMenuItem("Methods and cautions", w.showMethods),
 		fyne.NewMenuItem("About", w.showAbout),
