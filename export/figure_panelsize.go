@@ -18,6 +18,10 @@ import (
 // practice; see model.NeighbourRatios).
 const DefaultMaxNeighbourRatio = 1.5
 
+// logSpan is the ratio of the longest to the shortest panel from which
+// the length axis is logarithmic.
+const logSpan = 10
+
 // PanelSizes are the panel lengths of one placed element along its contour.
 type PanelSizes struct {
 	Element string
@@ -112,8 +116,6 @@ func PanelSizesPlot(s PanelSizes, maxRatio float64, dark bool) (*plot.Plot, erro
 	const xlabel = "position along the contour: upper TE 0 → LE → lower TE 1"
 
 	lp := newPlot(th, "", "", "panel length / chord")
-	lp.Y.Scale = plot.LogScale{}
-	lp.Y.Tick.Marker = plot.LogTicks{Prec: -1}
 	var xl plotter.XYs
 	lmin, lmax := math.Inf(1), 0.0
 	for i, v := range s.Length {
@@ -126,7 +128,16 @@ func PanelSizesPlot(s PanelSizes, maxRatio float64, dark bool) (*plot.Plot, erro
 		return nil, noData(ViewPanels, "every panel has zero length")
 	}
 	lp.Add(newLine(xl, lineStyle(th.upper, widthNormal, nil)), newScatter(xl, th.upper, glyphSmall, draw.CircleGlyph{}))
-	lp.Y.Min, lp.Y.Max = lmin/1.5, lmax*1.5
+	// Lengths spanning a decade or more (clustered edges) read best on a
+	// logarithmic axis; a narrower spread on a linear one.
+	if lmax >= logSpan*lmin {
+		lp.Y.Scale = plot.LogScale{}
+		lp.Y.Tick.Marker = plot.LogTicks{Prec: -1}
+		lp.Y.Min, lp.Y.Max = lmin/1.5, lmax*1.5
+	} else {
+		lp.Y.Min, lp.Y.Max = padRange(0, lmax, 0.08)
+		lp.Y.Min = 0
+	}
 	lp.X.Min, lp.X.Max = 0, 1
 
 	rp := newPlot(th, "", xlabel, "neighbour ratio")

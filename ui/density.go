@@ -47,6 +47,7 @@ type densityWindow struct {
 	noseNote       *widget.Label
 	msg            *widget.Label
 	run, cancel    *widget.Button
+	runRow         *fyne.Container
 	progress       *widget.ProgressBar
 	caseLabel      *widget.Label
 	series         *widget.Select
@@ -104,6 +105,7 @@ func newDensityWindow(w *Workbench) *densityWindow {
 	d.cancel.Hide()
 	d.progress = widget.NewProgressBar()
 	d.progress.Hide()
+	d.runRow = container.NewBorder(nil, nil, nil, d.cancel, d.run)
 
 	d.caseLabel = widget.NewLabel("Not run yet. The study runs at the current angle of attack, re-panelling every element at each count.")
 	d.caseLabel.Wrapping = fyne.TextWrapWord
@@ -168,7 +170,7 @@ func newDensityWindow(w *Workbench) *densityWindow {
 		d.noseNote,
 		container.NewGridWithColumns(2, labelled("Cl within (%)", d.tolCl), labelled("min Cp within (%)", d.tolCp)),
 		d.msg,
-		container.NewBorder(nil, nil, nil, d.cancel, d.run),
+		d.runRow,
 		d.progress,
 		widget.NewSeparator(),
 		heading("Result"),
@@ -404,6 +406,9 @@ func (d *densityWindow) studyChanged() {
 		d.noseNote.SetText(fmt.Sprintf("Nose clustering shapes only the blend spacing law; this study uses %s spacing, so every nose value gives the same panels.", st.Panelling.Spacing))
 	}
 	d.showOutcome()
+	if d.visible {
+		d.relayout()
+	}
 	d.sizes.setActive(d.visible && d.tabs.SelectedIndex() == densityTabSizes)
 	d.sizes.studyChanged()
 }
@@ -412,16 +417,16 @@ func (d *densityWindow) studyChanged() {
 func (d *densityWindow) start() {
 	plan, err := d.readPlan()
 	if err != nil {
-		setMessage(d.msg, err)
+		d.setMsg(err)
 		return
 	}
 	ctl := d.w.ctl
 	if err := ctl.setDensityPlan(plan); err != nil {
-		setMessage(d.msg, err)
+		d.setMsg(err)
 		return
 	}
 	d.syncedPlan, d.syncedPlanSeen = plan, true
-	setMessage(d.msg, nil)
+	d.setMsg(nil)
 	d.stop()
 	st, secs := ctl.Study(), ctl.Sections()
 	ctx, cancel := context.WithCancel(context.Background())
@@ -432,6 +437,7 @@ func (d *densityWindow) start() {
 	d.cancel.Show()
 	d.progress.SetValue(0)
 	d.progress.Show()
+	d.relayout()
 	ctl.act.add()
 	go func() {
 		defer ctl.act.done()
@@ -445,6 +451,21 @@ func (d *densityWindow) start() {
 		})
 		d.w.do(func() { d.finish(gen, st, out, err) })
 	}()
+}
+
+// setMsg shows an error under the plan (nil hides it) and lays the
+// window out again: a label shown after being hidden needs its container
+// laid out anew.
+func (d *densityWindow) setMsg(err error) {
+	setMessage(d.msg, err)
+	d.relayout()
+}
+
+// relayout lays the window out again after widgets were shown or hidden.
+func (d *densityWindow) relayout() {
+	if c := d.win.Content(); c != nil {
+		c.Refresh()
+	}
 }
 
 // hide puts the window away (its close button): the run stops, the
@@ -472,12 +493,13 @@ func (d *densityWindow) finish(gen int, st *model.Study, out *densityOutcome, er
 	d.run.Enable()
 	d.cancel.Hide()
 	d.progress.Hide()
+	d.relayout()
 	if errors.Is(err, context.Canceled) {
-		setMessage(d.msg, errors.New("density study cancelled; the table keeps the last complete study"))
+		d.setMsg(errors.New("density study cancelled; the table keeps the last complete study"))
 		return
 	}
 	if err != nil {
-		setMessage(d.msg, err)
+		d.setMsg(err)
 		return
 	}
 	d.out, d.runStudy = out, st
@@ -505,6 +527,7 @@ func (d *densityWindow) finish(gen int, st *model.Study, out *densityOutcome, er
 		d.leElement.Hide()
 	}
 	d.showOutcome()
+	d.relayout()
 	res := out.res
 	d.conv.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
 		return renderDensity(res, dark, w, h, dpi)
@@ -610,7 +633,7 @@ func (d *densityWindow) useRecommended() {
 	if ser.RecommendedPanels == 0 {
 		return
 	}
-	setMessage(d.msg, d.w.ctl.useDensityPanels(ser.RecommendedPanels, ser.Nose))
+	d.setMsg(d.w.ctl.useDensityPanels(ser.RecommendedPanels, ser.Nose))
 }
 
 // drawLE draws the leading-edge overlay of the selected series and element.

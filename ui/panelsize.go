@@ -46,9 +46,11 @@ func newPanelSizeView(w *Workbench) *panelSizeView {
 		r, err := parseNumber(s)
 		if err != nil || !(r > 1 && r <= maxRatioLimit) {
 			setMessage(v.msg, fmt.Errorf("the ratio limit must be a number above 1 and at most %d", maxRatioLimit))
+			v.box.Refresh()
 			return
 		}
 		setMessage(v.msg, nil)
+		v.box.Refresh()
 		v.maxRatio = r
 		v.showWarning()
 		v.draw()
@@ -115,6 +117,7 @@ func (v *panelSizeView) update() {
 				v.warn.Importance = widget.DangerImportance
 				v.warn.SetText("Cannot place the study: " + friendly(err))
 				v.fig.setDrawing(nil, "")
+				v.box.Refresh()
 				return
 			}
 			v.sizes, v.sizesFor = sizes, string(enc)
@@ -134,6 +137,7 @@ func (v *panelSizeView) update() {
 				v.element.Hide()
 			}
 			v.showWarning()
+			v.box.Refresh()
 			v.draw()
 		})
 	}()
