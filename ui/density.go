@@ -499,7 +499,10 @@ func (d *densityWindow) finish(gen int, st *model.Study, out *densityOutcome, er
 		return
 	}
 	if err != nil {
-		d.setMsg(err)
+		// Keep the solver's context (which count failed) that friendly
+		// would drop for the field's own message.
+		msg := firstLine(err.Error())
+		d.setMsg(errors.New(strings.ToUpper(msg[:1]) + msg[1:]))
 		return
 	}
 	d.out, d.runStudy = out, st
