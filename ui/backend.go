@@ -314,5 +314,3 @@ func refChordMM(res *engineResult) float64 { return res.Layout.RefChordM * mmPer
 
 // elementChordMM returns a placed element's chord in millimetres.
 func elementChordMM(res *engineResult, i int) float64 { return res.Layout.Elements[i].Chord * mmPerM }
-
-type viscousResult = solver.ViscousResult

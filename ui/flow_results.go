@@ -37,6 +37,21 @@ func (r *resultsPanel) show(res *engineResult) {
 	table, note := resultsText(res)
 	r.table.SetText(table)
 	r.note.SetText(note)
+	r.note.Importance = widget.MediumImportance
+	r.note.Refresh()
+}
+
+// staleNote heads the note while the newest request failed.
+const staleNote = "Not solved: the table shows the last configuration that solved. "
+
+// stale marks the table as belonging to an earlier configuration.
+func (r *resultsPanel) stale() {
+	if r.table.Text == "" || strings.HasPrefix(r.note.Text, staleNote) {
+		return
+	}
+	r.note.SetText(staleNote + r.note.Text)
+	r.note.Importance = widget.WarningImportance
+	r.note.Refresh()
 }
 
 // dash stands for a value that does not exist (no transition, no

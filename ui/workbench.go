@@ -197,7 +197,10 @@ func (w *Workbench) toggleEnlarge(k viewKind) {
 // request has been made meanwhile.
 func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error) {
 	if err != nil {
-		w.do(func() { w.showStatusError(err) })
+		w.do(func() {
+			w.showStatusError(err)
+			w.results.stale()
+		})
 		return
 	}
 	var frames [numViews]frame
