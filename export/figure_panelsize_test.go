@@ -1,6 +1,7 @@
 package export
 
 import (
+	"fmt"
 	"math"
 	"testing"
 
@@ -113,4 +114,27 @@ func TestRenderPanelSizes(t *testing.T) {
 			t.Error("a composite figure reports data coordinates")
 		}
 	}
+}
+
+// A square contour of side 1 on a chord of 1, with one side split at a
+// quarter: panels of 0.25 and 0.75 meet at a ratio of 3, above the
+// common-practice limit of 1.5.
+func ExamplePanelSizesOf() {
+	nodes := []model.Point{{X: 1, Y: 0}, {X: 1, Y: 0.25}, {X: 1, Y: 1}, {X: 0, Y: 1}, {X: 0, Y: 0}, {X: 1, Y: 0}}
+	l := &model.Layout{Elements: []model.PlacedElement{{Name: "square", Nodes: nodes, LE: 3, Chord: 1}}}
+	ps, err := PanelSizesOf(l)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	s := ps[0]
+	fmt.Println("lengths:", s.Length)
+	fmt.Printf("ratios: %.3g\n", s.Ratio)
+	fmt.Println("above 1.5 at:", s.Over(DefaultMaxNeighbourRatio))
+	fmt.Println("leading edge at:", s.LEPosition)
+	// Output:
+	// lengths: [0.25 0.75 1 1 1]
+	// ratios: [3 1.33 1 1]
+	// above 1.5 at: [0]
+	// leading edge at: 0.5
 }

@@ -113,7 +113,7 @@ func TestDensityWindowRun(t *testing.T) {
 	}
 	ser := d.out.res.Series[0]
 	if ser.RecommendedPanels == 0 {
-		t.Skipf("no recommendation for the demo at these counts: %s", d.recommend.Text)
+		t.Fatalf("no recommendation for the demo at 40–320 panels: %s", d.recommendWhy.Text)
 	}
 	if d.use.Disabled() && ser.RecommendedPanels != w.ctl.Study().Panelling.Panels {
 		t.Fatal("Use button disabled with a recommendation that differs from the study")
