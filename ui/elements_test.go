@@ -3,10 +3,13 @@ package ui
 import (
 	"errors"
 	"math"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 
 	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/model"
 )
@@ -334,5 +337,37 @@ func TestSelectedElementFollowsList(t *testing.T) {
 	w.controls.element.SetSelectedIndex(0)
 	if got := ec.chord.Text; got != "250" || !ec.flap.Hidden {
 		t.Errorf("main element selected: chord %q, flap fields hidden %v", got, ec.flap.Hidden)
+	}
+}
+
+func TestOverlappingStudyNamesElements(t *testing.T) {
+	test.NewTempApp(t)
+	st := model.NewStudy()
+	st.Elements = append(st.Elements, model.StudyElement{
+		Name: "flap", Section: model.SectionSource{Spec: "naca:4412"}, ChordMM: 100, XMM: 100, YMM: 0,
+	})
+	b, err := encodeStudy(st)
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(t.TempDir(), "overlap.json")
+	if err := os.WriteFile(path, b, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	// A study file is loaded as written; its solve reports the overlap.
+	w := openTestBench(t, path)
+	_, _, serr := w.ctl.Result()
+	if !errors.Is(serr, model.ErrOverlap) {
+		t.Fatalf("solve error %v, want an overlap", serr)
+	}
+	want := "Not solved: Elements 1 “main” and 2 “flap” overlap or touch"
+	if !strings.HasPrefix(w.status.Text, want) || w.status.Importance != widget.DangerImportance {
+		t.Errorf("status %q, want it to start with %q", w.status.Text, want)
+	}
+	// Moving the flap clear of the main element solves.
+	w.ctl.SetElement(1)
+	w.controls.ec.x.SetText("300")
+	if got := len(current(t, w).Solution.Elements); got != 2 {
+		t.Errorf("%d elements solved after moving the flap clear", got)
 	}
 }
