@@ -152,3 +152,18 @@ func TestGroundCautionShown(t *testing.T) {
 		t.Error("the ground-effect caution is not in the Wing tab")
 	}
 }
+
+func TestResultsToggle(t *testing.T) {
+	w := newTestBench(t)
+	if w.results.box.Hidden || w.results.table.Text == "" {
+		t.Fatal("the results table is not shown after the first solve")
+	}
+	test.Tap(w.showRes)
+	if !w.results.box.Hidden {
+		t.Error("Results did not hide the table")
+	}
+	test.Tap(w.showRes)
+	if w.results.box.Hidden {
+		t.Error("Results did not show the table again")
+	}
+}
