@@ -24,8 +24,9 @@ const (
 )
 
 // maxDensityRuns bounds the solves of one density study (counts × nose
-// values): at the largest counts a solve of a two-element configuration
-// takes about a second on a laptop, so a minute at most.
+// values), so that a mistyped list cannot start hours of work: each solve
+// factorises a dense system whose cost grows as the cube of the total
+// panel count.
 const maxDensityRuns = 60
 
 // The tabs of the density window.
@@ -316,8 +317,8 @@ func (d *densityWindow) readPlan() (model.DensityPlan, error) {
 	if intsEqual(p.Panels, densityDefaultPanels) {
 		p.Panels = nil
 	}
-	n := max(len(p.Panels), 1)
-	if len(p.Panels) == 0 {
+	n := len(p.Panels)
+	if n == 0 {
 		n = len(densityDefaultPanels)
 	}
 	if runs := n * max(len(p.Nose), 1); runs > maxDensityRuns {
