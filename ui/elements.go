@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"strconv"
+	"strings"
 
 	"sectionbench/model"
 )
@@ -151,4 +152,20 @@ func (c *Controller) SetFlapPlacement(key string, i int, fp model.FlapPlacement)
 // mm; 0 means the sum of the chords.
 func (c *Controller) SetReferenceChord(key string, mm float64) error {
 	return c.Edit(key, func(s *model.Study) { s.ReferenceChordMM = mm })
+}
+
+// SetElementName renames element i; names label the results, the report
+// and the pins. key merges a run of typing.
+func (c *Controller) SetElementName(key string, i int, name string) error {
+	c.checkIndex(i)
+	name = strings.TrimSpace(name)
+	if name == "" {
+		return errors.New("an element needs a name")
+	}
+	for j, e := range c.state.study.Elements {
+		if j != i && e.Name == name {
+			return fmt.Errorf("element %d is already named %q", j+1, name)
+		}
+	}
+	return c.Edit(key, func(s *model.Study) { s.Elements[i].Name = name })
 }

@@ -29,6 +29,7 @@ type elementControls struct {
 	msg        *widget.Label
 
 	placeHead            *widget.Label
+	name                 *widget.Entry
 	chord, x, y, angle   *widget.Entry
 	flapHead             *widget.Label
 	gap, overlap, deflec *widget.Entry
@@ -69,6 +70,14 @@ func newElementControls(c *controls) *elementControls {
 
 	ec.placeHead = heading("Placement")
 	ec.placeMsg = message()
+	ec.name = widget.NewEntry()
+	ec.name.OnChanged = func(s string) {
+		if c.syncing {
+			return
+		}
+		i := ctl.Element()
+		setMessage(ec.placeMsg, ctl.SetElementName(fmt.Sprintf("name-%d", i), i, s))
+	}
 	ec.chord, ec.x, ec.y, ec.angle = widget.NewEntry(), widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
 	placeFields := []struct {
 		e    *widget.Entry
@@ -138,6 +147,7 @@ func (ec *elementControls) listBox() fyne.CanvasObject {
 func (ec *elementControls) placementBox() fyne.CanvasObject {
 	return container.NewVBox(
 		ec.placeHead,
+		row("Name", ec.name),
 		container.NewGridWithColumns(2, labelled("chord (mm)", ec.chord), labelled("setting angle (°, nose-up)", ec.angle)),
 		container.NewGridWithColumns(2, labelled("leading edge x (mm)", ec.x), labelled("leading edge y (mm)", ec.y)),
 		ec.flap,
@@ -215,6 +225,9 @@ func (ec *elementControls) sync(st *model.Study, sel int) {
 
 	e := st.Elements[sel]
 	ec.placeHead.SetText("Placement of " + e.Name)
+	if strings.TrimSpace(ec.name.Text) != e.Name {
+		ec.name.SetText(e.Name)
+	}
 	setIfDiffers(ec.chord, entryNum(e.ChordMM), numberIs(e.ChordMM))
 	setIfDiffers(ec.x, entryNum(e.XMM), numberIs(e.XMM))
 	setIfDiffers(ec.y, entryNum(e.YMM), numberIs(e.YMM))

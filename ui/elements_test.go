@@ -371,3 +371,26 @@ func TestOverlappingStudyNamesElements(t *testing.T) {
 		t.Errorf("%d elements solved after moving the flap clear", got)
 	}
 }
+
+func TestRenameElement(t *testing.T) {
+	w := openRearWing(t)
+	ec := w.controls.ec
+	ec.list.Select(1)
+	ec.name.SetText("upper flap")
+	res := current(t, w)
+	if got := w.ctl.Study().Elements[1].Name; got != "upper flap" {
+		t.Errorf("name %q", got)
+	}
+	if got := res.Solution.Elements[1].Name; got != "upper flap" {
+		t.Errorf("solved element named %q", got)
+	}
+	if !strings.Contains(w.results.table.Text, "2 upper flap") {
+		t.Errorf("results table:\n%s", w.results.table.Text)
+	}
+	for _, bad := range []string{"", "  ", "main"} {
+		ec.name.SetText(bad)
+		if ec.placeMsg.Hidden || w.ctl.Study().Elements[1].Name != "upper flap" {
+			t.Errorf("name %q accepted or shows no message", bad)
+		}
+	}
+}
