@@ -46,16 +46,18 @@
 //
 // influence.go gives the closed-form velocity of a linear-strength vortex
 // panel (Katz & Plotkin, Low-Speed Aerodynamics, 2nd ed., 2001, sec.
-// 10.3.2); system.go assembles flow tangency at the panel midpoints and the
-// Kutta condition per element into one square system (Katz & Plotkin sec.
-// 11.4; Kuethe & Chow, Foundations of Aerodynamics, 5th ed., sec. 5.10),
-// factorises it once and solves for the freestreams at 0° and 90°, so any
-// angle is a superposition; ground effect uses mirror images (vortices of
-// opposite sign, base sources of the same sign). forces.go
-// turns γ into surface velocity, pressure, forces and sweeps; field.go
-// evaluates the velocity anywhere, with multipole expansions for distant
-// panels; streamline.go integrates streamlines with an adaptive Runge–Kutta
-// pair.
+// 10.3.2) and of the constant-strength source panel that closes an open
+// trailing edge (sec. 10.2.1); system.go assembles flow tangency at the
+// panel midpoints and the Kutta condition per element into one square
+// system (Katz & Plotkin sec. 11.4; Kuethe & Chow, Foundations of
+// Aerodynamics, 5th ed., sec. 5.10), factorises it once and solves for the
+// freestreams at 0° and 90°, so any angle is a superposition; ground effect
+// uses mirror images (vortices of opposite sign, base sources of the same
+// sign). forces.go turns γ into surface velocity, pressure, forces and
+// sweeps; field.go evaluates the velocity anywhere, with multipole
+// expansions for distant panels; streamline.go integrates streamlines with
+// an adaptive Runge–Kutta pair; MeasureStages (stages.go) times the stages
+// for benchmarks.
 //
 // # Trailing edges
 //

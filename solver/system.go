@@ -242,7 +242,7 @@ type geometry struct {
 // safe for concurrent use.
 type System struct {
 	geo      *geometry
-	lu       blas64.General // LU factors (lapack64.Getrf), row-major, in the assembled matrix's storage
+	lu       blas64.General // LU factors, row-major, in the assembled matrix's storage; released by NewSystem
 	ipiv     []int
 	cond     float64
 	warnings []string
@@ -297,6 +297,10 @@ func newSystem(cfg Config, opt buildOptions) (*System, error) {
 		s.prepare()
 	}
 	<-done
+	// Nothing after this needs the factors: their storage goes back to
+	// the pool for the next system.
+	putMatrix(s.lu.Data)
+	s.lu = blas64.General{}
 	if cerr := s.checkCond(); cerr != nil {
 		return nil, cerr
 	}
@@ -455,7 +459,7 @@ func (g *geometry) nrhs() int {
 // loop allocates nothing.
 func (g *geometry) assemble() (a, b *mat.Dense, anorm float64) {
 	n := g.n
-	a = mat.NewDense(n, n, nil)
+	a = mat.NewDense(n, n, getMatrix(n*n)) // every entry is written below
 	b = mat.NewDense(n, g.nrhs(), nil)
 	raw, rawb := a.RawMatrix(), b.RawMatrix()
 	maxNodes := 0
@@ -492,6 +496,28 @@ func (g *geometry) assemble() (a, b *mat.Dense, anorm float64) {
 		anorm = math.Max(anorm, sum)
 	}
 	return a, b, anorm
+}
+
+// matrixPool recycles the storage of influence matrices: NewSystem needs
+// its matrix only until the unit solutions, and a density study or a sweep
+// in ground effect builds one system after another, so reusing the storage
+// saves the allocation and the garbage collector's work.
+var matrixPool sync.Pool // of *[]float64
+
+// getMatrix returns storage for n float64s, recycled if possible; its
+// contents are arbitrary.
+func getMatrix(n int) []float64 {
+	if p, ok := matrixPool.Get().(*[]float64); ok && cap(*p) >= n {
+		return (*p)[:n]
+	}
+	return make([]float64, n)
+}
+
+// putMatrix returns storage obtained from getMatrix to the pool.
+func putMatrix(d []float64) {
+	if cap(d) > 0 {
+		matrixPool.Put(&d)
+	}
 }
 
 // minRowsPerWorker keeps tiny systems on one goroutine, where starting
