@@ -141,3 +141,35 @@ func TestClipToRect(t *testing.T) {
 		}
 	}
 }
+
+// Behind an open trailing edge the base source fills the dead-air region
+// (system.go): just behind the base the flow leaves it downstream, and a
+// streamline started there runs to the downstream edge of the bounds
+// without entering the body, also when the last panels are much shorter
+// than the gap (NACA 0012, 640 panels, gap 0.25% of chord, at 4°).
+func TestStreamlinesOpenTrailingEdge(t *testing.T) {
+	el := nacaElement(t, "0012", 640)
+	cfg := Config{Elements: []Element{el}}
+	sol := mustSystem(t, cfg).Solve(4)
+	up, lo := el.Nodes[0], el.Nodes[len(el.Nodes)-1]
+	gap := up.Dist(lo)
+	b := DefaultBounds(cfg)
+	diag := math.Hypot(b.Max.X-b.Min.X, b.Max.Y-b.Min.Y)
+	in := &integrator{f: sol.field(), b: b, tol: DefaultTolFraction * diag, hmax: maxStepFraction * diag, hmin: minStepFraction * diag, maxSteps: DefaultMaxSteps}
+	for _, f := range []float64{0.25, 0.5, 0.75} {
+		p := model.Point{X: lo.X + f*(up.X-lo.X) + 0.2*gap, Y: lo.Y + f*(up.Y-lo.Y)}
+		if u, _ := sol.VelocityAt(p); !(u > 0.5) {
+			t.Errorf("behind the base at %v: u = %g, want the outflow of the base", p, u)
+		}
+		sl := in.run(p, false)
+		last := sl.Points[len(sl.Points)-1]
+		if math.Abs(last.X-b.Max.X) > 1e-9 {
+			t.Errorf("line from %v ends at %v, not at the downstream edge %g", p, last, b.Max.X)
+		}
+		for _, q := range sl.Points {
+			if cfgInside(sol, q) {
+				t.Fatalf("line from %v enters the body at %v", p, q)
+			}
+		}
+	}
+}
