@@ -157,6 +157,9 @@ func (l *Layout) LowestPoint(alphaDeg float64) Point {
 }
 
 // check reports overlapping elements and gaps smaller than the panels.
+// Only nodes and panels near the other element are examined: those inside
+// its bounding box grown by the longest panel either element has, since
+// nothing farther away can touch it or come within a panel length.
 func (l *Layout) check(st *Study) error {
 	for a := 0; a < len(l.Elements); a++ {
 		for b := a + 1; b < len(l.Elements); b++ {
@@ -164,10 +167,15 @@ func (l *Layout) check(st *Study) error {
 			ge := func(err error) error {
 				return &GeometryError{Elements: [2]int{a, b}, Names: [2]string{ea.Name, eb.Name}, Err: err}
 			}
-			if polylinesCross(ea.Nodes, eb.Nodes) || pointInPolygon(ea.Nodes[ea.LE], eb.Nodes) || pointInPolygon(eb.Nodes[eb.LE], ea.Nodes) {
+			reach := minGapPanels * math.Max(longestPanel(ea.Nodes), longestPanel(eb.Nodes))
+			boxA, boxB := boundsOf(ea.Nodes).grow(reach), boundsOf(eb.Nodes).grow(reach)
+			if !boxA.overlaps(boxB) {
+				continue
+			}
+			if polylinesCross(ea.Nodes, eb.Nodes, boxB, boxA) || pointInPolygon(ea.Nodes[ea.LE], eb.Nodes) || pointInPolygon(eb.Nodes[eb.LE], ea.Nodes) {
 				return ge(ErrOverlap)
 			}
-			gap, pa, pb := closestApproach(ea.Nodes, eb.Nodes)
+			gap, pa, pb := closestApproach(ea.Nodes, eb.Nodes, boxB, boxA)
 			need := minGapPanels * math.Max(pa, pb)
 			if gap < need {
 				return ge(fmt.Errorf("%w: %.2f mm apart where the panels are %.2f mm long; open the gap or raise the panel count", ErrSmallGap, gap*1000, need*1000))
@@ -177,23 +185,63 @@ func (l *Layout) check(st *Study) error {
 	return nil
 }
 
+// box is an axis-aligned bounding box.
+type box struct{ min, max Point }
+
+func boundsOf(pts []Point) box {
+	b := box{pts[0], pts[0]}
+	for _, p := range pts[1:] {
+		b.min = Point{math.Min(b.min.X, p.X), math.Min(b.min.Y, p.Y)}
+		b.max = Point{math.Max(b.max.X, p.X), math.Max(b.max.Y, p.Y)}
+	}
+	return b
+}
+
+func (b box) grow(d float64) box {
+	return box{Point{b.min.X - d, b.min.Y - d}, Point{b.max.X + d, b.max.Y + d}}
+}
+
+func (b box) contains(p Point) bool {
+	return p.X >= b.min.X && p.X <= b.max.X && p.Y >= b.min.Y && p.Y <= b.max.Y
+}
+
+func (b box) overlaps(c box) bool {
+	return b.min.X <= c.max.X && c.min.X <= b.max.X && b.min.Y <= c.max.Y && c.min.Y <= b.max.Y
+}
+
+func longestPanel(pts []Point) float64 {
+	m := 0.0
+	for i := 0; i+1 < len(pts); i++ {
+		m = math.Max(m, pts[i].Dist(pts[i+1]))
+	}
+	return m
+}
+
 // closestApproach returns the smallest node-to-panel distance between two
-// polylines and the lengths of the panels of each at that place.
-func closestApproach(a, b []Point) (d, panelA, panelB float64) {
-	d1, la1, lb1 := nodeToPolyline(a, b)
-	d2, lb2, la2 := nodeToPolyline(b, a)
+// polylines and the lengths of the panels of each at that place; nearA and
+// nearB bound the parts of a and b near the other (see check).
+func closestApproach(a, b []Point, nearB, nearA box) (d, panelA, panelB float64) {
+	d1, la1, lb1 := nodeToPolyline(a, b, nearB, nearA)
+	d2, lb2, la2 := nodeToPolyline(b, a, nearA, nearB)
 	if d1 <= d2 {
 		return d1, la1, lb1
 	}
 	return d2, la2, lb2
 }
 
-// nodeToPolyline returns the smallest distance from a node of p to a panel
-// of q, the length of a panel of p at that node and that of the panel of q.
-func nodeToPolyline(p, q []Point) (d, lp, lq float64) {
+// nodeToPolyline returns the smallest distance from a node of p inside
+// nearQ to a panel of q inside nearP, the length of a panel of p at that
+// node and that of the panel of q.
+func nodeToPolyline(p, q []Point, nearQ, nearP box) (d, lp, lq float64) {
 	d = math.Inf(1)
 	for i, pt := range p {
+		if !nearQ.contains(pt) {
+			continue
+		}
 		for j := 0; j+1 < len(q); j++ {
+			if !nearP.contains(q[j]) && !nearP.contains(q[j+1]) {
+				continue
+			}
 			if dd := segmentDistance(pt, q[j], q[j+1]); dd < d {
 				d, lq = dd, q[j].Dist(q[j+1])
 				if i+1 < len(p) {
@@ -216,9 +264,17 @@ func segmentDistance(p, a, b Point) float64 {
 	return p.Dist(a.Add(ab.Scale(t)))
 }
 
-func polylinesCross(a, b []Point) bool {
+// polylinesCross reports whether a panel of a crosses a panel of b; only
+// panels with an end inside the other's near box (see check) can.
+func polylinesCross(a, b []Point, nearB, nearA box) bool {
 	for i := 0; i+1 < len(a); i++ {
+		if !nearB.contains(a[i]) && !nearB.contains(a[i+1]) {
+			continue
+		}
 		for j := 0; j+1 < len(b); j++ {
+			if !nearA.contains(b[j]) && !nearA.contains(b[j+1]) {
+				continue
+			}
 			if segmentsCross(a[i], a[i+1], b[j], b[j+1]) {
 				return true
 			}

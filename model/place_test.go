@@ -2,6 +2,7 @@ package model
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"testing"
 )
@@ -186,5 +187,20 @@ func TestPlaceGeometryErrors(t *testing.T) {
 	st := twoElementStudy()
 	if _, err := Place(st, []*Section{sec, sec}); err != nil {
 		t.Errorf("a 12 mm slot is fine: %v", err)
+	}
+}
+
+func BenchmarkPlaceTwoElements(b *testing.B) {
+	sec, _ := NACA("4412", NACAOptions{})
+	for _, n := range []int{160, 1000} {
+		b.Run(fmt.Sprintf("N=%d", n), func(b *testing.B) {
+			st := twoElementStudy()
+			st.Panelling.Panels = n
+			for b.Loop() {
+				if _, err := Place(st, []*Section{sec, sec}); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
 	}
 }
