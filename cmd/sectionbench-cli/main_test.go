@@ -271,3 +271,22 @@ func TestExportAndReport(t *testing.T) {
 		t.Errorf("report is not a PDF")
 	}
 }
+
+func TestBenchJSON(t *testing.T) {
+	code, out, stderr := runCLI(t, "bench", "--panels", "40", "--repeats", "2", "--format", "json")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var m map[string]any
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"assembly_ms", "factorization_ms", "solve_ms", "sweep_ms", "field_ms"} {
+		if v, ok := m[k].(float64); !ok || v < 0 {
+			t.Errorf("%s = %v", k, m[k])
+		}
+	}
+	if m["unknowns"].(float64) < 41 {
+		t.Errorf("unknowns %v for 40 panels", m["unknowns"])
+	}
+}

@@ -35,6 +35,7 @@ func commands() []command {
 		{"density", "density study: the answer against panel count, extrapolated", cmdDensity},
 		{"report", "the team report as PDF", cmdReport},
 		{"export", "coordinates, CSV tables, manufacturing outlines (DXF, SVG) and figures", cmdExport},
+		{"bench", "median times of the solver's stages, for comparing builds and machines", cmdBench},
 	}
 }
 
