@@ -195,9 +195,10 @@ func (c *Controller) step(f func(*model.Study) (*model.Study, bool)) bool {
 		c.reportError(err)
 		return false
 	}
+	geometry := !equalGeometry(c.state.study, st)
 	c.state.set(st, secs, reps)
 	c.state.dirty = true
-	c.changed(true)
+	c.changed(geometry)
 	return true
 }
 
@@ -258,12 +259,20 @@ func liveSweep(st *model.Study) bool {
 	return err == nil && len(a) <= liveSweepMaxAngles && !st.Viscous.Enabled && !st.Ground.Enabled
 }
 
-// equalGeometry reports whether two studies solve the same configuration
-// (only the angle of attack, pins or names may differ), so a sweep of one
-// holds for the other.
+// equalGeometry reports whether a sweep of one study holds for the other:
+// they solve the same placed configuration in the same flow. What the
+// sweep does not depend on may differ: the angle of attack (the sweep
+// sets its own), the sweep range, pins, names, the density plan and the
+// span (which only scales forces). The air and speed matter only to the
+// boundary-layer estimate, so they may differ when it is off in both.
 func equalGeometry(a, b *model.Study) bool {
 	x, y := cloneStudy(a), cloneStudy(b)
-	y.Flow.AlphaDeg, y.Pins, y.Name, y.Team, y.Sweep = x.Flow.AlphaDeg, x.Pins, x.Name, x.Team, x.Sweep
+	y.Flow.AlphaDeg, y.Flow.SpanM = x.Flow.AlphaDeg, x.Flow.SpanM
+	y.Pins, y.Name, y.Team, y.Sweep, y.Density = x.Pins, x.Name, x.Team, x.Sweep, x.Density
+	if !x.Viscous.Enabled && !y.Viscous.Enabled {
+		y.Flow.SpeedMPS, y.Flow.TemperatureC, y.Flow.PressurePa, y.Flow.Reynolds = x.Flow.SpeedMPS, x.Flow.TemperatureC, x.Flow.PressurePa, x.Flow.Reynolds
+		y.Viscous = x.Viscous
+	}
 	ex, err1 := encodeStudy(x)
 	ey, err2 := encodeStudy(y)
 	return err1 == nil && err2 == nil && string(ex) == string(ey)

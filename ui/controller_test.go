@@ -21,6 +21,13 @@ func TestEqualGeometry(t *testing.T) {
 		{"section", func(s *model.Study) { s.Elements[0].Section.Spec = "naca:0012" }, false},
 		{"ground", func(s *model.Study) { s.Ground.Enabled = true }, false},
 		{"inverted", func(s *model.Study) { s.Inverted = !s.Inverted }, false},
+		{"density plan", func(s *model.Study) { s.Density = model.DensityPlan{Panels: []int{40, 80}, TolClPct: 0.5} }, true},
+		{"span", func(s *model.Study) { s.Flow.SpanM = 1.2 }, true},
+		{"speed, inviscid", func(s *model.Study) { s.Flow.SpeedMPS = 25 }, true},
+		{"trip, inviscid", func(s *model.Study) { s.Viscous.TripUpper = 0.1 }, true},
+		{"boundary layer on", func(s *model.Study) { s.Viscous.Enabled = true }, false},
+		{"reference chord", func(s *model.Study) { s.ReferenceChordMM = 300 }, false},
+		{"element moved", func(s *model.Study) { s.Elements[0].YMM += 1 }, false},
 	}
 	for _, c := range cases {
 		a := model.NewStudy()
@@ -29,5 +36,64 @@ func TestEqualGeometry(t *testing.T) {
 		if got := equalGeometry(a, b); got != c.want {
 			t.Errorf("%s: equalGeometry = %v, want %v", c.name, got, c.want)
 		}
+	}
+	// With the boundary layer on, the air and speed set the Reynolds
+	// number of the sweep's drag estimate.
+	a := model.NewStudy()
+	a.Viscous.Enabled, a.Flow.SpeedMPS = true, 20
+	b := a.Clone()
+	b.Flow.SpeedMPS = 30
+	if equalGeometry(a, b) {
+		t.Error("speed change with the boundary layer on: equalGeometry = true")
+	}
+}
+
+// TestDensityPlanKeepsSweep stores a density plan after a sweep that does
+// not run with live updates, undoes and redoes it: the sweep stays.
+func TestDensityPlanKeepsSweep(t *testing.T) {
+	w := newTestBench(t)
+	w.controls.step.SetText("0.25") // more angles than a live update runs
+	w.WaitIdle()
+	w.controls.runSweep()
+	w.WaitIdle()
+	n := len(w.ctl.Sweep())
+	if n <= liveSweepMaxAngles {
+		t.Fatalf("sweep has %d angles, want more than %d", n, liveSweepMaxAngles)
+	}
+	steps := []struct {
+		name string
+		do   func() error
+	}{
+		{"store plan", func() error { return w.ctl.setDensityPlan(model.DensityPlan{Panels: []int{40, 80, 160}}) }},
+		{"undo", func() error { w.ctl.Undo(); return nil }},
+		{"redo", func() error { w.ctl.Redo(); return nil }},
+		{"pin", w.ctl.PinCurrent},
+		{"undo pin", func() error { w.ctl.Undo(); return nil }},
+	}
+	for _, s := range steps {
+		if err := s.do(); err != nil {
+			t.Fatalf("%s: %v", s.name, err)
+		}
+		w.WaitIdle()
+		if got := len(w.ctl.Sweep()); got != n {
+			t.Errorf("after %s the sweep has %d angles, want %d", s.name, got, n)
+		}
+	}
+	w.ctl.Undo() // the plan: still the same configuration
+	w.ctl.SetAlpha("", 3)
+	w.WaitIdle()
+	if got := len(w.ctl.Sweep()); got != n {
+		t.Errorf("after an angle change the sweep has %d angles, want %d", got, n)
+	}
+	w.ctl.Undo()
+	p := w.ctl.Study().Panelling
+	p.Panels += 20
+	if err := w.ctl.SetPanelling("", p); err != nil {
+		t.Fatal(err)
+	}
+	w.ctl.Undo() // back to the panelling the sweep ran with: still dropped
+	w.WaitIdle()
+	if w.ctl.Sweep() != nil {
+		t.Error("a sweep dropped by a panelling change came back on undo")
 	}
 }
