@@ -169,3 +169,44 @@ func TestCheckFinite(t *testing.T) {
 		t.Errorf("NaN Cp: %v, want ErrNonFiniteResult", err)
 	}
 }
+
+// A main element and flap (the invented rear-wing example's geometry, in
+// free air and in ground effect) converge with panel count at about second
+// order, as a lone section does (REFERENCES.md §7, derived: linear-vortex
+// panels clustered at both edges).
+func TestTwoElementConvergence(t *testing.T) {
+	st := model.NewStudy()
+	st.Elements = []model.StudyElement{
+		{Name: "main", Section: model.SectionSource{Spec: "naca:4412"}, ChordMM: 250},
+		{Name: "flap", Section: model.SectionSource{Spec: "naca:4412"}, ChordMM: 120},
+	}
+	st.Elements[1] = model.PlaceFlap(st.Elements[0], st.Elements[1], model.FlapPlacement{GapMM: 5, OverlapMM: 2.5, DeflectionDeg: 15})
+	sec, _, err := model.SectionFromSpec("naca:4412", nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	secs := []*model.Section{sec, sec}
+	for _, tc := range []struct {
+		name     string
+		ground   bool
+		minOrder float64
+	}{
+		{"free air", false, 1.5},
+		{"inverted over the ground", true, 1.5},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			st.Inverted = tc.ground
+			st.Ground = model.Ground{Enabled: tc.ground, ClearanceMM: 150}
+			var cl []float64
+			for _, n := range []int{80, 160, 320} {
+				st.Panelling = model.Panelling{Panels: n, Spacing: model.SpacingCosine}
+				cl = append(cl, run(t, NewEngine(), st, secs, false).Solution.Cl)
+			}
+			p, ok := ObservedOrder(cl[0], cl[1], cl[2], 2)
+			t.Logf("Cl at 80, 160, 320 panels: %.6f %.6f %.6f; observed order %.2f", cl[0], cl[1], cl[2], p)
+			if !ok || p < tc.minOrder {
+				t.Errorf("observed order %.2f (ok %v), want ≥ %.1f", p, ok, tc.minOrder)
+			}
+		})
+	}
+}
