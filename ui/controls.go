@@ -450,7 +450,7 @@ func newControls(w *Workbench) *controls {
 // scrolled puts a tab's content in a vertical scroll, with a right inset
 // that keeps fields clear of the scroll bar.
 func scrolled(o fyne.CanvasObject) fyne.CanvasObject {
-	return container.NewVScroll(container.NewBorder(nil, nil, nil, fixedWidth(theme.Padding()*3), o))
+	return container.NewVScroll(container.NewBorder(nil, nil, nil, widthOf(theme.Padding()*3), o))
 }
 
 // ktDefault is the analytic section offered first: a cambered 10° TE-angle
@@ -473,7 +473,7 @@ func (c *controls) useKT() {
 
 // sized gives an entry a fixed width.
 func sized(o fyne.CanvasObject, width float32) fyne.CanvasObject {
-	return container.NewStack(fixedWidth(width), o)
+	return container.NewStack(widthOf(width), o)
 }
 
 // labelled stacks a small caption over a field.

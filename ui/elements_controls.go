@@ -3,6 +3,7 @@ package ui
 import (
 	"errors"
 	"fmt"
+	"image/color"
 	"strings"
 
 	"fyne.io/fyne/v2"
@@ -61,7 +62,7 @@ func newElementControls(c *controls) *elementControls {
 			ctl.SetElement(id)
 		}
 	}
-	ec.listHeight = canvas.NewRectangle(nil)
+	ec.listHeight = canvas.NewRectangle(color.Transparent)
 	ec.msg = message()
 	ec.add = widget.NewButtonWithIcon("Add flap", theme.ContentAddIcon(), func() { setMessage(ec.msg, ctl.AddElement()) })
 	ec.remove = widget.NewButtonWithIcon("Remove", theme.ContentRemoveIcon(), func() { setMessage(ec.msg, ctl.RemoveElement(ctl.Element())) })

@@ -14,7 +14,6 @@ import (
 	"sync"
 
 	"fyne.io/fyne/v2"
-	"fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
@@ -128,7 +127,7 @@ func (w *Workbench) build() {
 	w.viewArea = container.NewStack(w.grid)
 
 	w.controls = newControls(w)
-	side := container.NewStack(fixedWidth(controlWidth), w.controls.box)
+	side := container.NewStack(widthOf(controlWidth), w.controls.box)
 
 	w.status = widget.NewLabel("Solving…")
 	w.status.Truncation = fyne.TextTruncateEllipsis
@@ -152,13 +151,6 @@ func (w *Workbench) build() {
 	w.app.Settings().AddListener(func(s fyne.Settings) {
 		w.setDark(s.ThemeVariant() == theme.VariantDark)
 	})
-}
-
-// fixedWidth is an invisible object that gives a column its width.
-func fixedWidth(width float32) fyne.CanvasObject {
-	r := canvas.NewRectangle(nil)
-	r.SetMinSize(fyne.NewSize(width, 0))
-	return r
 }
 
 func (w *Workbench) setDark(dark bool) {
