@@ -133,12 +133,15 @@ func writeFigure(w io.Writer, v viewKind, sc *scene, format string, widthIn, hei
 
 func writeCpTable(w io.Writer, res *engineResult) error { return export.WriteCpTable(w, res.Solution) }
 
-func writeSweepTable(w io.Writer, sweep []solver.Coefficients) error {
-	return export.WriteSweepTable(w, sweep, nil)
+// writeSweepTable writes the sweep, with its boundary-layer estimate when
+// viscous is not nil (parallel to sweep).
+func writeSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []solver.ViscousPoint) error {
+	return export.WriteSweepTable(w, sweep, viscous)
 }
 
-func writeReport(w io.Writer, st *model.Study, res *engineResult, fileName, version string) error {
-	return report.Write(w, report.Input{Study: st, Result: res, FileName: fileName, AppVersion: version})
+// writeReport writes the team report; density may be nil.
+func writeReport(w io.Writer, st *model.Study, res *engineResult, density *solver.DensityResult, fileName, version string) error {
+	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version})
 }
 
 // recovered runs f, turning a panic into an error.

@@ -109,6 +109,22 @@ func renderPanelSizes(ps panelSizes, maxRatio float64, dark bool, w, h int, dpi 
 	return export.RenderPlot(p, true, w, h, dpi), nil
 }
 
+// writeDensityFigure writes the convergence figure of a density study
+// (light, for print).
+func writeDensityFigure(w io.Writer, res *densityResult, format string, widthIn, heightIn, dpi float64) error {
+	return export.WriteFigure(w, export.ViewDensity, &export.Scene{Density: res, Element: -1}, format, widthIn, heightIn, dpi)
+}
+
+// writePanelSizeFigure writes one element's panel-size chart (light, for
+// print).
+func writePanelSizeFigure(w io.Writer, ps panelSizes, maxRatio float64, format string, widthIn, heightIn, dpi float64) error {
+	p, err := export.PanelSizesPlot(ps, maxRatio, false)
+	if err != nil {
+		return err
+	}
+	return export.WritePlot(w, p, format, widthIn, heightIn, dpi)
+}
+
 // writeAutosave writes the study atomically; wrap, if not nil, stands
 // between the encoder and the file (tests make it fail midway).
 func writeAutosave(path string, st []byte, wrap func(io.Writer) io.Writer) error {

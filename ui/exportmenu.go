@@ -2,6 +2,7 @@ package ui
 
 import (
 	"errors"
+	"fmt"
 	"io"
 	"path/filepath"
 	"strings"
@@ -9,6 +10,8 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/model"
 )
 
 // Size of exported figures: 6 × 4 in at 200 dpi reads well on a printed
@@ -23,7 +26,7 @@ const (
 // a folder the user picks, through one export call per file.
 func (w *Workbench) exportItems() []*fyne.MenuItem {
 	return []*fyne.MenuItem{
-		fyne.NewMenuItem("Team report (PDF)…", func() { w.exportTo(w.writeReport) }),
+		fyne.NewMenuItem("Team report (PDF)…", func() { w.exportTo(w.writeReport()) }),
 		fyne.NewMenuItemSeparator(),
 		fyne.NewMenuItem("Figures (PNG)…", func() { w.exportTo(w.writeFigures("png")) }),
 		fyne.NewMenuItem("Figures (SVG)…", func() { w.exportTo(w.writeFigures("svg")) }),
@@ -82,43 +85,115 @@ func (w *Workbench) exportBase() string {
 	return strings.TrimSuffix(fileNameFor(w.ctl.state.study.Name), ".json")
 }
 
+// writeFigures gathers, on the UI goroutine, what the figures draw: the
+// four views of the scene on screen, the density study when one has been
+// run for the current configuration, and the panel sizes of every
+// element. The returned function writes them, one file each.
 func (w *Workbench) writeFigures(format string) func(dir string) ([]string, error) {
+	sc := w.lastScene()
+	density := w.currentDensity()
+	st, secs := w.ctl.Study(), w.ctl.Sections()
+	maxRatio := defaultMaxRatio
+	if d := w.extra().density; d != nil {
+		maxRatio = d.sizes.maxRatio
+	}
+	base := w.exportBase()
 	return func(dir string) ([]string, error) {
-		sc := w.lastScene()
 		if sc == nil {
 			return nil, errNoResult
 		}
 		var files []string
-		for k := range numViews {
-			name := w.exportBase() + "-" + exportViews[k].String() + "." + format
-			err := writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-				return writeFigure(out, k, sc, format, figureWidthIn, figureHeightIn, figureDPI)
-			})
-			if err != nil {
-				return files, err
+		write := func(name string, f func(io.Writer) error) error {
+			if err := writeFile(filepath.Join(dir, name), f); err != nil {
+				return err
 			}
 			files = append(files, name)
+			return nil
+		}
+		for k := range numViews {
+			name := base + "-" + exportViews[k].String() + "." + format
+			if err := write(name, func(out io.Writer) error {
+				return writeFigure(out, k, sc, format, figureWidthIn, figureHeightIn, figureDPI)
+			}); err != nil {
+				return files, err
+			}
+		}
+		if density != nil {
+			if err := write(base+"-density."+format, func(out io.Writer) error {
+				return writeDensityFigure(out, density, format, figureWidthIn, figureHeightIn, figureDPI)
+			}); err != nil {
+				return files, err
+			}
+		}
+		sizes, err := placedPanelSizes(st, secs)
+		if err != nil {
+			return files, err
+		}
+		for i, ps := range sizes {
+			name := fmt.Sprintf("%s-panel-sizes-%d.%s", base, i+1, format)
+			if err := write(name, func(out io.Writer) error {
+				return writePanelSizeFigure(out, ps, maxRatio, format, figureWidthIn, figureHeightIn, figureDPI)
+			}); err != nil {
+				return files, err
+			}
 		}
 		return files, nil
 	}
 }
 
-func (w *Workbench) writeReport(dir string) ([]string, error) {
+// currentDensity returns the density study of the density window when it
+// holds for the current study, else nil. UI goroutine only.
+func (w *Workbench) currentDensity() *densityResult {
+	if d := w.extra().density; d != nil && d.fresh() {
+		return d.out.res
+	}
+	return nil
+}
+
+// reportJob is what the team report is made of, gathered on the UI
+// goroutine.
+type reportJob struct {
+	study   *model.Study
+	result  *engineResult // with the sweep and its boundary-layer estimate
+	density *densityResult
+	file    string
+	version string
+}
+
+// newReportJob gathers the report's input: the current result with the
+// sweep shown in the polar (and its drag and transition, when the sweep
+// ran with the boundary layer), and the density study when it holds for
+// the current study.
+func (w *Workbench) newReportJob() (*reportJob, error) {
 	res, _, _ := w.ctl.Result()
 	if res == nil {
 		return nil, errNoResult
 	}
 	r := *res
-	r.Sweep = w.ctl.Sweep()
-	name := w.exportBase() + "-report.pdf"
-	st := w.ctl.Study()
+	r.Sweep, r.SweepViscous = w.ctl.Sweep(), w.ctl.SweepViscous()
+	if len(r.SweepViscous) != len(r.Sweep) {
+		r.SweepViscous = nil
+	}
 	file := filepath.Base(w.ctl.Path())
 	if w.ctl.Path() == "" {
 		file = "unsaved study"
 	}
-	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-		return writeReport(out, st, &r, file, w.app.Metadata().Version)
-	})
+	return &reportJob{study: w.ctl.Study(), result: &r, density: w.currentDensity(), file: file, version: w.app.Metadata().Version}, nil
+}
+
+// writeReport gathers the report's input on the UI goroutine; the returned
+// function writes it.
+func (w *Workbench) writeReport() func(dir string) ([]string, error) {
+	job, err := w.newReportJob()
+	name := w.exportBase() + "-report.pdf"
+	return func(dir string) ([]string, error) {
+		if err != nil {
+			return nil, err
+		}
+		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+			return writeReport(out, job.study, job.result, job.density, job.file, job.version)
+		})
+	}
 }
 
 func (w *Workbench) writeCpTable(dir string) ([]string, error) {
@@ -133,12 +208,15 @@ func (w *Workbench) writeCpTable(dir string) ([]string, error) {
 }
 
 func (w *Workbench) writeSweepTable(dir string) ([]string, error) {
-	sw := w.ctl.Sweep()
+	sw, vis := w.ctl.Sweep(), w.ctl.SweepViscous()
 	if len(sw) == 0 {
 		return nil, errors.New("no sweep to export: run the sweep first")
 	}
+	if len(vis) != len(sw) {
+		vis = nil
+	}
 	name := w.exportBase() + "-sweep.csv"
 	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-		return writeSweepTable(out, sw)
+		return writeSweepTable(out, sw, vis)
 	})
 }

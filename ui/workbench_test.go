@@ -400,12 +400,12 @@ func TestExportFiguresAndTables(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	rep, err := w.writeReport(dir)
+	rep, err := w.writeReport()(dir)
 	if err != nil {
 		t.Fatal(err)
 	}
 	files = append(append(append(files, more...), sweep...), rep...)
-	if len(files) != int(numViews)+3 {
+	if len(files) != int(numViews)+1+3 { // the views, the panel sizes of the one element, three tables and the report
 		t.Fatalf("wrote %v", files)
 	}
 	for _, f := range files {
@@ -599,5 +599,74 @@ func TestSecondElementEdits(t *testing.T) {
 	els := w.ctl.Study().Elements
 	if els[1].Section.Spec != "naca:0012" || els[0].Section.Spec != "naca:4412" {
 		t.Errorf("sections are %q, %q; want naca:4412, naca:0012", els[0].Section.Spec, els[1].Section.Spec)
+	}
+}
+
+// TestExportCarriesSweepAndDensity: with a boundary-layer sweep and a
+// density study run for the current study, the report gets both, the
+// sweep table gains Cd, and the figures gain the density study and one
+// panel-size chart per element. A density study of another configuration
+// is left out.
+func TestExportCarriesSweepAndDensity(t *testing.T) {
+	w, d := openDensityTest(t)
+	w.controls.vc.enabled.SetChecked(true)
+	if err := w.ctl.SetSweep(model.SweepRange{FromDeg: -2, ToDeg: 2, StepDeg: 2}); err != nil {
+		t.Fatal(err)
+	}
+	w.WaitIdle()
+	w.controls.runSweep()
+	d.panels.SetText("40, 80, 160")
+	d.start()
+	w.WaitIdle()
+	if !d.msg.Hidden {
+		t.Fatalf("density run failed: %s", d.msg.Text)
+	}
+	job, err := w.newReportJob()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if n := len(job.result.Sweep); n != 3 || len(job.result.SweepViscous) != n {
+		t.Errorf("report sweep has %d angles, %d with the boundary layer; want 3 and 3", n, len(job.result.SweepViscous))
+	}
+	if job.density == nil || len(job.density.Rows) != 3 {
+		t.Errorf("report density study: %+v", job.density)
+	}
+	dir := t.TempDir()
+	tab, err := w.writeSweepTable(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := os.ReadFile(filepath.Join(dir, tab[0]))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if head, _, _ := strings.Cut(string(b), "\n"); !strings.Contains(head, "cd") && !strings.Contains(head, "Cd") {
+		t.Errorf("sweep table header %q has no drag column", head)
+	}
+	files, err := w.writeFigures("svg")(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := []string{"-density.svg", "-panel-sizes-1.svg"}
+	for _, suf := range want {
+		found := false
+		for _, f := range files {
+			found = found || strings.HasSuffix(f, suf)
+		}
+		if !found {
+			t.Errorf("figures %v lack *%s", files, suf)
+		}
+	}
+	if _, err := w.writeReport()(dir); err != nil {
+		t.Fatal(err)
+	}
+
+	// Another section: the density study no longer holds.
+	if err := w.ctl.SetNACA("0012"); err != nil {
+		t.Fatal(err)
+	}
+	w.WaitIdle()
+	if job, err := w.newReportJob(); err != nil || job.density != nil {
+		t.Errorf("after a section change the report carries a density study (%v)", err)
 	}
 }
