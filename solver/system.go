@@ -32,9 +32,9 @@ import (
 //	  γ_1 + γ_(N+1) = 0,
 //
 // N_k + 1 equations per element (one more of each for an open trailing
-// edge, below), a square system for any number of elements. A_ij^a, A_ij^b are the normal components at m_i
-// of the velocities induced by panel j per unit γ at its two nodes
-// (influence.go). For a closed trailing edge the first and last nodes
+// edge, below), a square system for any number of elements. A_ij^a, A_ij^b
+// are the normal components at m_i of the velocities induced by panel j
+// per unit γ at its two nodes (influence.go). For a closed trailing edge the first and last nodes
 // coincide and the Kutta condition makes the velocities leaving along the
 // upper and lower surfaces equal in size, the flow leaving the trailing edge
 // smoothly.
@@ -93,12 +93,14 @@ import (
 
 // The matrix depends on the geometry only. It is factorised once (LU with
 // partial pivoting) and solved for two unit freestreams, V∞ = (1, 0) and
-// (0, 1), giving γ0 and γ90; by linearity the solution at angle α is
-// γ = cos α γ0 + sin α γ90.
+// (0, 1), giving γ0 and γ90 (with the base sources σ0, σ90); by linearity
+// the solution at angle α is γ = cos α γ0 + sin α γ90, and likewise σ.
 //
 // Ground effect uses the method of images (Katz & Plotkin's treatment of
 // ground effect; REFERENCES.md §5): every panel has a mirror image about
-// y = GroundY carrying −γ, so the plane is a streamline of the combined flow.
+// y = GroundY carrying −γ, and every base source one carrying +σ (a
+// reflected source is a source), so the plane is a streamline of the
+// combined flow.
 // The images enter the influence matrix and the velocity field. The plane is
 // a streamline only if the freestream is parallel to it: in ground mode the
 // only angle Solve and Sweep accept is 0 and the configuration itself must
