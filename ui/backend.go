@@ -206,57 +206,17 @@ type (
 // flapPlacementOf returns gap, overlap and deflection of flap behind prev.
 func flapPlacementOf(prev, flap studyElement) flapPlacement { return model.FlapPlacementOf(prev, flap) }
 
-// setElement replaces element i of st by e and moves every element behind
-// it so that each keeps its gap, overlap and deflection relative to the one
-// before it (a flap follows the element it is hung from).
-func setElement(st *model.Study, i int, e studyElement) {
-	els := st.Elements
-	fps := make([]flapPlacement, len(els))
-	for j := i + 1; j < len(els); j++ {
-		fps[j] = model.FlapPlacementOf(els[j-1], els[j])
-	}
-	els[i] = e
-	for j := i + 1; j < len(els); j++ {
-		els[j] = model.PlaceFlap(els[j-1], els[j], fps[j])
-	}
-}
+// setElement replaces element i of st by e; the elements behind it follow
+// (model.Study.SetElement).
+func setElement(st *model.Study, i int, e studyElement) { st.SetElement(i, e) }
 
-// placeFlapAt sets element i (not the first) at fp behind element i-1,
-// the elements behind it following as in setElement.
-func placeFlapAt(st *model.Study, i int, fp flapPlacement) {
-	setElement(st, i, model.PlaceFlap(st.Elements[i-1], st.Elements[i], fp))
-}
-
-// Proportions of a flap added behind the last element, relative to that
-// element's chord: half its chord, the leading edge 5 % of its chord below
-// and 4 % ahead of its trailing edge, turned 20° trailing edge down. They
-// are those of the invented two-element rear-wing example
-// (testdata/studies/rear-wing.json: 120 mm behind 250 mm, gap 14 mm,
-// overlap 13 mm, 22°), rounded: a start for the user to adjust, not a
-// recommendation.
-const (
-	newFlapChordRatio    = 0.5
-	newFlapGapRatio      = 0.05
-	newFlapOverlapRatio  = 0.04
-	newFlapDeflectionDeg = 20
-)
+// placeFlapAt places element i (not the first) at fp behind element i−1
+// (model.Study.PlaceFlapAt).
+func placeFlapAt(st *model.Study, i int, fp flapPlacement) { st.PlaceFlapAt(i, fp) }
 
 // newFlap returns an element named name placed behind prev with the
-// default proportions and prev's section.
-func newFlap(prev studyElement, name string) studyElement {
-	src := prev.Section
-	if src.Embedded != nil {
-		em := *src.Embedded
-		em.Points = append([][2]float64(nil), em.Points...)
-		src.Embedded = &em
-	}
-	flap := studyElement{Name: name, Section: src, ChordMM: newFlapChordRatio * prev.ChordMM}
-	return model.PlaceFlap(prev, flap, flapPlacement{
-		GapMM:         newFlapGapRatio * prev.ChordMM,
-		OverlapMM:     newFlapOverlapRatio * prev.ChordMM,
-		DeflectionDeg: newFlapDeflectionDeg,
-	})
-}
+// default proportions (model.NewFlapAfter).
+func newFlap(prev studyElement, name string) studyElement { return model.NewFlapAfter(prev, name) }
 
 // checkGeometry places the configuration as the solver will and reports
 // overlapping elements and gaps too small for the panels
@@ -299,17 +259,9 @@ func airProperties(tc, p float64) (rho, mu, nu float64, err error) {
 	return a.Density(), a.Viscosity(), a.KinematicViscosity(), nil
 }
 
-// Presentation of the solver's signs and totals. solver.Forces and
-// Solution give lift positive up; downforce is −lift, and the downforce
-// coefficient −Cl (positive pushes the car down).
-
-func downforceOf(lift float64) float64 { return -lift }
-
-// overSpan returns a per-metre force over the span (2-D, no end effects).
-func overSpan(perSpan, spanM float64) float64 { return perSpan * spanM }
-
-// liftToDrag returns Cl/Cd.
-func liftToDrag(cl, cd float64) float64 { return cl / cd }
+// downforceOf returns −lift (solver.Downforce): the downforce of an
+// inverted configuration, positive pushing the car down.
+func downforceOf(lift float64) float64 { return solver.Downforce(lift) }
 
 // refChordMM returns the reference chord the result's coefficients are
 // on, in millimetres.

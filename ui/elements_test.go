@@ -51,7 +51,7 @@ func TestAddRemoveReorderElements(t *testing.T) {
 	// The new flap keeps the default gap, overlap and deflection.
 	fp := model.FlapPlacementOf(st.Elements[0], st.Elements[1])
 	c0 := st.Elements[0].ChordMM
-	if math.Abs(fp.GapMM-newFlapGapRatio*c0) > 1e-9 || math.Abs(fp.OverlapMM-newFlapOverlapRatio*c0) > 1e-9 || math.Abs(fp.DeflectionDeg-newFlapDeflectionDeg) > 1e-9 {
+	if math.Abs(fp.GapMM-model.NewFlapGapRatio*c0) > 1e-9 || math.Abs(fp.OverlapMM-model.NewFlapOverlapRatio*c0) > 1e-9 || math.Abs(fp.DeflectionDeg-model.NewFlapDeflectionDeg) > 1e-9 {
 		t.Errorf("new flap placed at %+v", fp)
 	}
 	// A flap behind an element raises that element's circulation (the

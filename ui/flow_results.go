@@ -100,7 +100,7 @@ func resultsText(res *engineResult) (table, note string) {
 		if f != nil && i < len(f.ElementLift) {
 			r = append(r, fixed(sign(f.ElementLift[i]), 1))
 			if f.SpanM > 0 {
-				r = append(r, fixed(overSpan(sign(f.ElementLift[i]), f.SpanM), 1))
+				r = append(r, fixed(f.SpanTotal(sign(f.ElementLift[i])), 1))
 			}
 		}
 		if v != nil && i < len(v.Elements) {
@@ -116,7 +116,7 @@ func resultsText(res *engineResult) (table, note string) {
 		if f != nil {
 			r = append(r, fixed(sign(f.LiftPerSpan), 1))
 			if f.SpanM > 0 {
-				r = append(r, fixed(overSpan(sign(f.LiftPerSpan), f.SpanM), 1))
+				r = append(r, fixed(f.SpanTotal(sign(f.LiftPerSpan)), 1))
 			}
 		}
 		if v != nil {

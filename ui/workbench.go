@@ -283,7 +283,7 @@ func statusText(res *engineResult) string {
 		}
 		t := name + fixed(per, 1) + " N/m"
 		if f.SpanM > 0 {
-			t += " (" + fixed(overSpan(per, f.SpanM), 1) + " N on " + num(f.SpanM) + " m)"
+			t += " (" + fixed(f.SpanTotal(per), 1) + " N on " + num(f.SpanM) + " m)"
 		}
 		parts = append(parts, t)
 	}
@@ -291,9 +291,9 @@ func statusText(res *engineResult) string {
 		if math.IsNaN(v.Cd) {
 			parts = append(parts, "Cd — outside the method's range")
 		} else if inv {
-			parts = append(parts, "Cd "+fixed(v.Cd, 4), "−Cl/Cd "+fixed(liftToDrag(downforceOf(s.Cl), v.Cd), 1))
+			parts = append(parts, "Cd "+fixed(v.Cd, 4), "−Cl/Cd "+fixed(downforceOf(res.LiftToDrag()), 1))
 		} else {
-			parts = append(parts, "Cd "+fixed(v.Cd, 4), "Cl/Cd "+fixed(liftToDrag(s.Cl, v.Cd), 1))
+			parts = append(parts, "Cd "+fixed(v.Cd, 4), "Cl/Cd "+fixed(res.LiftToDrag(), 1))
 		}
 	}
 	parts = append(parts, "Cm "+fixed(s.Cm, 3))
