@@ -7,7 +7,6 @@ import (
 	"os"
 	"path/filepath"
 	"sync"
-	"testing"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
@@ -18,10 +17,11 @@ import (
 	"sectionbench/model"
 )
 
-// Where the autosave lives: autosaveFile in the folder named by
-// autosaveDirEnv, else in autosaveDirName under the user's configuration
-// folder (os.UserConfigDir). autosaveNoteFile beside it holds the path of
-// the study file the autosave belongs to ("" for a study never saved).
+// Where the autosave lives: autosaveFile in Options.AutosaveDir (by
+// DefaultOptions, the folder named by autosaveDirEnv, else autosaveDirName
+// under the user's configuration folder, os.UserConfigDir).
+// autosaveNoteFile beside it holds the path of the study file the autosave
+// belongs to ("" for a study never saved).
 const (
 	autosaveDirEnv   = "SECTIONBENCH_CONFIG_DIR"
 	autosaveDirName  = "sectionbench"
@@ -32,15 +32,12 @@ const (
 	autosaveBadFile = "autosave-unreadable.json"
 )
 
-// autosaveDir returns the autosave folder, "" when autosave is off: in a
-// test binary unless autosaveDirEnv is set, so that tests never touch the
-// user's own folder.
-func autosaveDir() string {
+// defaultAutosaveDir returns the autosave folder of the desktop app: the
+// folder autosaveDirEnv names, else autosaveDirName in the user's
+// configuration folder, "" (off) if there is none.
+func defaultAutosaveDir() string {
 	if d := os.Getenv(autosaveDirEnv); d != "" {
 		return d
-	}
-	if testing.Testing() {
-		return ""
 	}
 	d, err := os.UserConfigDir()
 	if err != nil {
@@ -91,8 +88,8 @@ func (a *autosaver) path(name string) string { return filepath.Join(a.dir, name)
 //
 // menu calls it while the workbench is built; a second call does nothing.
 func (w *Workbench) startAutosave() {
-	dir := autosaveDir()
-	if dir == "" || w.extra().autosave != nil {
+	dir := w.opt.AutosaveDir
+	if dir == "" || w.autosave != nil {
 		return
 	}
 	a := &autosaver{w: w, dir: dir}
@@ -107,7 +104,7 @@ func (w *Workbench) startAutosave() {
 			a.foundPath = string(b)
 		}
 	}
-	w.extra().autosave = a
+	w.autosave = a
 	// Posted from a goroutine, the first check runs on the UI goroutine
 	// after the workbench is built (fyne.Do queues it until the app runs).
 	w.ctl.act.add()
@@ -124,7 +121,7 @@ func (w *Workbench) startAutosave() {
 
 // first hooks the study changes and offers the found autosave.
 func (a *autosaver) first() {
-	a.w.onStudyChange(a.check)
+	a.w.ctl.Subscribe(a.check)
 	if a.found != nil {
 		cur, err1 := encodeStudy(a.w.ctl.state.study)
 		old, err2 := encodeStudy(a.found)
@@ -286,16 +283,14 @@ func (a *autosaver) close() {
 	a.removeFiles()
 }
 
-// closeAutosave ends autosave and forgets the workbench's extras: the
+// closeAutosave ends autosave and closes the density window: the main
 // window is closing cleanly.
 func (w *Workbench) closeAutosave() {
-	x := w.extra()
-	if x.autosave != nil {
-		x.autosave.close()
+	if w.autosave != nil {
+		w.autosave.close()
 	}
-	if x.density != nil {
-		x.density.stop()
-		x.density.win.Close()
+	if w.density != nil {
+		w.density.stop()
+		w.density.win.Close()
 	}
-	w.forgetExtras()
 }

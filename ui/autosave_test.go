@@ -53,13 +53,18 @@ func findButton(win fyne.Window, text string) *widget.Button {
 	return walk(win.Content())
 }
 
-// autosaveDirForTest points the autosave at a temporary folder.
+// autosaveDirForTest makes a temporary folder for the autosave of
+// workbenches opened by openAutosaveBench.
 func autosaveDirForTest(t *testing.T) string {
 	t.Helper()
-	dir := t.TempDir()
-	t.Setenv(autosaveDirEnv, dir)
 	test.NewTempApp(t)
-	return dir
+	return t.TempDir()
+}
+
+// openAutosaveBench opens a headless workbench that autosaves in dir.
+func openAutosaveBench(t *testing.T, dir, path string) *Workbench {
+	t.Helper()
+	return openTestBenchWith(t, path, Options{AutosaveDir: dir})
 }
 
 func autosaved(t *testing.T, dir string) (string, bool) {
@@ -76,9 +81,9 @@ func autosaved(t *testing.T, dir string) (string, bool) {
 
 func TestAutosaveCrashAndRecover(t *testing.T) {
 	dir := autosaveDirForTest(t)
-	w1 := openTestBench(t, "")
-	if w1.extra().autosave == nil {
-		t.Fatal("autosave is off with " + autosaveDirEnv + " set")
+	w1 := openAutosaveBench(t, dir, "")
+	if w1.autosave == nil {
+		t.Fatal("autosave is off with a folder given")
 	}
 	if _, ok := autosaved(t, dir); ok {
 		t.Error("an unchanged study was autosaved")
@@ -96,8 +101,8 @@ func TestAutosaveCrashAndRecover(t *testing.T) {
 	}
 
 	// Crash: w1 never closes. The next start offers the autosave.
-	w2 := openTestBench(t, "")
-	a := w2.extra().autosave
+	w2 := openAutosaveBench(t, dir, "")
+	a := w2.autosave
 	if a.offer == nil || a.recoverB == nil {
 		t.Fatal("the next start offers no recovery")
 	}
@@ -119,7 +124,7 @@ func TestAutosaveCrashAndRecover(t *testing.T) {
 
 func TestAutosaveDiscard(t *testing.T) {
 	dir := autosaveDirForTest(t)
-	w1 := openTestBench(t, "")
+	w1 := openAutosaveBench(t, dir, "")
 	w1.controls.panelEntry.SetText("70")
 	w1.WaitIdle()
 	demoStudy, err := decodeStudy(assets.DemoStudy)
@@ -127,8 +132,8 @@ func TestAutosaveDiscard(t *testing.T) {
 		t.Fatal(err)
 	}
 	demo := encoded(t, demoStudy)
-	w2 := openTestBench(t, "")
-	a := w2.extra().autosave
+	w2 := openAutosaveBench(t, dir, "")
+	a := w2.autosave
 	if a.offer == nil {
 		t.Fatal("no offer")
 	}
@@ -144,7 +149,7 @@ func TestAutosaveDiscard(t *testing.T) {
 
 func TestAutosaveRemovedWhenSavedAndOnCleanExit(t *testing.T) {
 	dir := autosaveDirForTest(t)
-	w := openTestBench(t, "")
+	w := openAutosaveBench(t, dir, "")
 	w.controls.panelEntry.SetText("100")
 	w.WaitIdle()
 	if _, ok := autosaved(t, dir); !ok {
@@ -175,8 +180,8 @@ func TestAutosaveRemovedWhenSavedAndOnCleanExit(t *testing.T) {
 	if _, ok := autosaved(t, dir); ok {
 		t.Error("a clean exit left the autosave")
 	}
-	w2 := openTestBench(t, "")
-	if w2.extra().autosave.offer != nil {
+	w2 := openAutosaveBench(t, dir, "")
+	if w2.autosave.offer != nil {
 		t.Error("a start after a clean exit offers a recovery")
 	}
 }
@@ -202,8 +207,8 @@ func (f *failAfter) Write(p []byte) (int, error) {
 
 func TestAutosaveInterruptedWriteKeepsPrevious(t *testing.T) {
 	dir := autosaveDirForTest(t)
-	w := openTestBench(t, "")
-	a := w.extra().autosave
+	w := openAutosaveBench(t, dir, "")
+	a := w.autosave
 	w.controls.panelEntry.SetText("120")
 	w.WaitIdle()
 	before, ok := autosaved(t, dir)
@@ -239,11 +244,56 @@ func TestAutosaveUnreadableIsKeptAside(t *testing.T) {
 	if err := os.WriteFile(filepath.Join(dir, autosaveFile), []byte("{not a study"), 0o600); err != nil {
 		t.Fatal(err)
 	}
-	w := openTestBench(t, "")
-	if w.extra().autosave.offer != nil {
+	w := openAutosaveBench(t, dir, "")
+	if w.autosave.offer != nil {
 		t.Error("an unreadable autosave was offered")
 	}
 	if _, err := os.Stat(filepath.Join(dir, autosaveBadFile)); err != nil {
 		t.Errorf("the unreadable autosave was not kept aside: %v", err)
+	}
+}
+
+// TestAutosaveOptions: a workbench without an autosave folder writes
+// none; DefaultOptions takes the folder from the environment.
+func TestAutosaveOptions(t *testing.T) {
+	w := newTestBench(t)
+	w.controls.panelEntry.SetText("90")
+	w.WaitIdle()
+	if w.autosave != nil {
+		t.Error("autosave is on without a folder")
+	}
+	dir := t.TempDir()
+	t.Setenv(autosaveDirEnv, dir)
+	if got := DefaultOptions().AutosaveDir; got != dir {
+		t.Errorf("DefaultOptions().AutosaveDir = %q, want %q", got, dir)
+	}
+}
+
+// TestAutosaveFollowsWithDensityWindow: opening the density window (which
+// follows the study too) leaves the autosave following it, and both see
+// every change.
+func TestAutosaveFollowsWithDensityWindow(t *testing.T) {
+	dir := autosaveDirForTest(t)
+	w := openAutosaveBench(t, dir, "")
+	w.openDensity(densityTabConvergence)
+	w.WaitIdle()
+	w.controls.panelEntry.SetText("96")
+	w.WaitIdle()
+	got, ok := autosaved(t, dir)
+	if !ok || got != encoded(t, w.ctl.Study()) {
+		t.Fatal("with the density window open, a change was not autosaved")
+	}
+	if w.density.sizes == nil || !strings.Contains(w.density.panels.PlaceHolder, "20") {
+		t.Error("density window not built")
+	}
+	calls := 0
+	w.ctl.Subscribe(func() { calls++ })
+	w.controls.alphaEntry.SetText("1.5")
+	w.WaitIdle()
+	if calls != 1 {
+		t.Errorf("a subscriber added last was called %d times for one change", calls)
+	}
+	if got, _ := autosaved(t, dir); got != encoded(t, w.ctl.Study()) {
+		t.Error("a later subscriber detached the autosave")
 	}
 }

@@ -36,8 +36,9 @@ type Controller struct {
 	// do runs a function on the UI goroutine (fyne.Do; tests queue).
 	do func(func())
 
-	// OnStudy is called after the study changed (edit, undo, open).
-	OnStudy func()
+	// studyListeners are called in order on the UI goroutine after the
+	// study changed (edit, undo, open, save); see Subscribe.
+	studyListeners []func()
 	// OnResult is called on the worker goroutine with the scene of each
 	// result that is still current, or with the error of the current
 	// request.
@@ -57,8 +58,8 @@ type Controller struct {
 	sweepRun context.CancelFunc
 }
 
-// NewController returns a controller with no study: set its hooks, then
-// Load one before anything else.
+// NewController returns a controller with no study: set its hooks and
+// subscribe to its changes, then Load one before anything else.
 func NewController() *Controller {
 	c := &Controller{act: newActivity(), newEngine: newEngine, do: fyne.Do}
 	c.sched = newScheduler(newEngine(), c.act, c.deliver)
@@ -220,9 +221,22 @@ func (c *Controller) changed(geometry bool) {
 	c.notify()
 }
 
+// Subscribe adds f to the functions called on the UI goroutine after
+// every change of the study (an edit, undo or redo, a study opened or
+// saved, the element chosen), after those subscribed before it. Each part
+// of the workbench that follows the study (the window, the autosave, the
+// density window) subscribes on its own, so none can detach another. UI
+// goroutine only.
+func (c *Controller) Subscribe(f func()) {
+	if f == nil {
+		panic("ui: Subscribe(nil)")
+	}
+	c.studyListeners = append(c.studyListeners, f)
+}
+
 func (c *Controller) notify() {
-	if c.OnStudy != nil {
-		c.OnStudy()
+	for _, f := range c.studyListeners {
+		f()
 	}
 }
 

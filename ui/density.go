@@ -74,12 +74,11 @@ type densityWindow struct {
 // openDensity shows the workbench's density window at a tab, making it on
 // first use.
 func (w *Workbench) openDensity(tab int) {
-	x := w.extra()
-	if x.density == nil {
-		x.density = newDensityWindow(w)
-		w.onStudyChange(x.density.studyChanged)
+	if w.density == nil {
+		w.density = newDensityWindow(w)
+		w.ctl.Subscribe(w.density.studyChanged)
 	}
-	d := x.density
+	d := w.density
 	d.tabs.SelectIndex(tab)
 	d.visible = true
 	d.studyChanged()

@@ -2,64 +2,9 @@ package ui
 
 import (
 	"os"
-	"sync"
 
 	"sectionbench/model"
 )
-
-// benchExtras holds what the density window and the autosave add to a
-// workbench, without fields in Workbench itself.
-type benchExtras struct {
-	density   *densityWindow
-	autosave  *autosaver
-	hooked    bool     // the controller's OnStudy has been wrapped
-	listeners []func() // called on the UI goroutine after the study changed
-}
-
-var (
-	extrasMu sync.Mutex
-	extras   = map[*Workbench]*benchExtras{}
-)
-
-// extra returns the workbench's extras, made on first use.
-func (w *Workbench) extra() *benchExtras {
-	extrasMu.Lock()
-	defer extrasMu.Unlock()
-	x := extras[w]
-	if x == nil {
-		x = &benchExtras{}
-		extras[w] = x
-	}
-	return x
-}
-
-// forgetExtras drops the workbench's extras when its window closes.
-func (w *Workbench) forgetExtras() {
-	extrasMu.Lock()
-	delete(extras, w)
-	extrasMu.Unlock()
-}
-
-// onStudyChange calls f on the UI goroutine after every change of the
-// study, after the workbench's own handler. UI goroutine only, after the
-// workbench is built.
-func (w *Workbench) onStudyChange(f func()) {
-	x := w.extra()
-	x.listeners = append(x.listeners, f)
-	if x.hooked {
-		return
-	}
-	x.hooked = true
-	prev := w.ctl.OnStudy
-	w.ctl.OnStudy = func() {
-		if prev != nil {
-			prev()
-		}
-		for _, l := range x.listeners {
-			l()
-		}
-	}
-}
 
 // setDensityPlan stores the plan in the study (an undoable change) unless
 // it is already the study's plan.
@@ -142,7 +87,7 @@ func (w *Workbench) startExtras() {
 		w.do(func() {
 			w.openDensity(tab)
 			if tab == densityTabConvergence {
-				w.extra().density.start()
+				w.density.start()
 			}
 		})
 	}()

@@ -79,7 +79,7 @@ func openDensityTest(t *testing.T) (*Workbench, *densityWindow) {
 	w := newTestBench(t)
 	w.openDensity(densityTabConvergence)
 	w.WaitIdle()
-	return w, w.extra().density
+	return w, w.density
 }
 
 func TestDensityWindowRun(t *testing.T) {
@@ -201,7 +201,7 @@ func TestPanelSizesFollowStudy(t *testing.T) {
 	w := newTestBench(t)
 	w.openDensity(densityTabSizes)
 	w.WaitIdle()
-	d := w.extra().density
+	d := w.density
 	check := func(want int) {
 		t.Helper()
 		got, err := d.sizes.shownPanels()

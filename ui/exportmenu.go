@@ -94,7 +94,7 @@ func (w *Workbench) writeFigures(format string) func(dir string) ([]string, erro
 	density := w.currentDensity()
 	st, secs := w.ctl.Study(), w.ctl.Sections()
 	maxRatio := defaultMaxRatio
-	if d := w.extra().density; d != nil {
+	if d := w.density; d != nil {
 		maxRatio = d.sizes.maxRatio
 	}
 	base := w.exportBase()
@@ -144,7 +144,7 @@ func (w *Workbench) writeFigures(format string) func(dir string) ([]string, erro
 // currentDensity returns the density study of the density window when it
 // holds for the current study, else nil. UI goroutine only.
 func (w *Workbench) currentDensity() *densityResult {
-	if d := w.extra().density; d != nil && d.fresh() {
+	if d := w.density; d != nil && d.fresh() {
 		return d.out.res
 	}
 	return nil

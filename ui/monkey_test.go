@@ -116,7 +116,7 @@ func TestMonkey(t *testing.T) {
 	ctl := w.ctl
 	r := rand.New(rand.NewPCG(*monkeySeed, monkeySeed2))
 
-	density := func() *densityWindow { return w.extra().density }
+	density := func() *densityWindow { return w.density }
 	actions := []monkeyAction{
 		{6, func(r *rand.Rand) string {
 			s := pick(r, []string{"16", "24", "40", "64", "90", "120", "15", "2001", "0", "-40", "abc", "", "1e3", "NaN", " 80 ", "99999999999999999999", "12.5"})
@@ -403,7 +403,7 @@ func monkeyCheck(w *Workbench) error {
 			return fmt.Errorf("panel entry says %q without a message, study has %d", c.panelEntry.Text, st.Panelling.Panels)
 		}
 	}
-	if d := w.extra().density; d != nil {
+	if d := w.density; d != nil {
 		if d.running != nil {
 			return fmt.Errorf("idle, but a density study is still marked running")
 		}

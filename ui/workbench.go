@@ -59,18 +59,40 @@ type Workbench struct {
 	warnings *widget.Button
 	results  *resultsPanel
 	showRes  *widget.Button
+
+	opt      Options
+	density  *densityWindow // nil until first opened
+	autosave *autosaver     // nil when autosave is off
 }
+
+// Options configure a workbench.
+type Options struct {
+	// AutosaveDir is the folder where unsaved changes are kept for
+	// recovery after a crash; "" turns autosave off.
+	AutosaveDir string
+}
+
+// DefaultOptions are the desktop app's: autosave in the folder the
+// SECTIONBENCH_CONFIG_DIR environment variable names, else in
+// "sectionbench" under the user's configuration folder.
+func DefaultOptions() Options { return Options{AutosaveDir: defaultAutosaveDir()} }
 
 // New opens a workbench window in app for the study at path, or for the
-// embedded demo study if path is empty. The window is not shown yet.
+// embedded demo study if path is empty, with DefaultOptions. The window is
+// not shown yet.
 func New(app fyne.App, path string) (*Workbench, error) {
-	return newWorkbench(app, path, fyne.Do, nil)
+	return NewWithOptions(app, path, DefaultOptions())
 }
 
-// newWorkbench is New with the UI-goroutine hook: do posts a function,
-// drain (if not nil) runs the posted ones and reports whether there were
-// any.
-func newWorkbench(app fyne.App, path string, do func(func()), drain func() bool) (*Workbench, error) {
+// NewWithOptions is New with the given options.
+func NewWithOptions(app fyne.App, path string, opt Options) (*Workbench, error) {
+	return newWorkbench(app, path, opt, fyne.Do, nil)
+}
+
+// newWorkbench is NewWithOptions with the UI-goroutine hook: do posts a
+// function, drain (if not nil) runs the posted ones and reports whether
+// there were any.
+func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain func() bool) (*Workbench, error) {
 	var st *model.Study
 	var err error
 	if path == "" {
@@ -83,10 +105,10 @@ func newWorkbench(app fyne.App, path string, do func(func()), drain func() bool)
 	}
 	ctl := NewController()
 	ctl.do = do
-	w := &Workbench{app: app, ctl: ctl, enlarged: numViews, do: do, drain: drain}
+	w := &Workbench{app: app, ctl: ctl, enlarged: numViews, do: do, drain: drain, opt: opt}
 	w.win = app.NewWindow("Sectionbench")
+	ctl.Subscribe(w.studyChanged)
 	w.build()
-	ctl.OnStudy = func() { w.studyChanged() }
 	ctl.OnResult = w.present
 	ctl.OnError = w.userError
 	if err := ctl.Load(st, path); err != nil {

@@ -42,11 +42,17 @@ func (q *uiQueue) drain() bool {
 }
 
 // openTestBench opens a study (the demo if path is "") in a headless
-// workbench and waits for its first result.
+// workbench without autosave and waits for its first result.
 func openTestBench(t *testing.T, path string) *Workbench {
 	t.Helper()
+	return openTestBenchWith(t, path, Options{})
+}
+
+// openTestBenchWith is openTestBench with options.
+func openTestBenchWith(t *testing.T, path string, opt Options) *Workbench {
+	t.Helper()
 	q := new(uiQueue)
-	w, err := newWorkbench(fyne.CurrentApp(), path, q.post, q.drain)
+	w, err := newWorkbench(fyne.CurrentApp(), path, opt, q.post, q.drain)
 	if err != nil {
 		t.Fatalf("New: %v", err)
 	}
