@@ -184,6 +184,10 @@ func (c *Controller) Undo() bool { return c.step(c.hist.Undo) }
 // Redo re-applies the change undone last; false if there was none.
 func (c *Controller) Redo() bool { return c.step(c.hist.Redo) }
 
+// CanUndo and CanRedo report whether Undo and Redo have a step to take.
+func (c *Controller) CanUndo() bool { return c.hist.CanUndo() }
+func (c *Controller) CanRedo() bool { return c.hist.CanRedo() }
+
 func (c *Controller) step(f func(*model.Study) (*model.Study, bool)) bool {
 	st, ok := f(c.state.study)
 	if !ok {

@@ -60,10 +60,10 @@ func (w *Workbench) menu() *fyne.MainMenu {
 		fyne.NewMenuItemSeparator(),
 		quit,
 	)
-	edit := fyne.NewMenu("Edit",
-		w.item("Undo", shortcut(fyne.KeyZ, false), func() { w.ctl.Undo() }),
-		w.item("Redo", shortcut(fyne.KeyZ, true), func() { w.ctl.Redo() }),
-	)
+	w.undoItem = w.item("Undo", shortcut(fyne.KeyZ, false), func() { w.ctl.Undo() })
+	w.redoItem = w.item("Redo", shortcut(fyne.KeyZ, true), func() { w.ctl.Redo() })
+	w.undoItem.Disabled, w.redoItem.Disabled = true, true
+	edit := fyne.NewMenu("Edit", w.undoItem, w.redoItem)
 	var viewItems []*fyne.MenuItem
 	keys := [numViews]fyne.KeyName{fyne.Key1, fyne.Key2, fyne.Key3, fyne.Key4}
 	for k := range numViews {
@@ -87,6 +87,20 @@ func (w *Workbench) menu() *fyne.MainMenu {
 		fyne.NewMenuItem("About", w.showAbout),
 	)
 	return fyne.NewMainMenu(file, edit, fyne.NewMenu("View", viewItems...), help)
+}
+
+// syncUndoItems greys out Undo and Redo when there is no step to take. The
+// menu bar is rebuilt only when one of them changes (a native menu bar is
+// rebuilt whole).
+func (w *Workbench) syncUndoItems() {
+	undo, redo := !w.ctl.CanUndo(), !w.ctl.CanRedo()
+	if w.undoItem.Disabled == undo && w.redoItem.Disabled == redo {
+		return
+	}
+	w.undoItem.Disabled, w.redoItem.Disabled = undo, redo
+	if m := w.win.MainMenu(); m != nil {
+		w.win.SetMainMenu(m)
+	}
 }
 
 // confirmDiscard runs then at once if the study has no unsaved changes,

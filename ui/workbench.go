@@ -60,6 +60,8 @@ type Workbench struct {
 	results  *resultsPanel
 	showRes  *widget.Button
 
+	undoItem, redoItem *fyne.MenuItem // greyed out without a step to take
+
 	opt      Options
 	density  *densityWindow // nil until first opened
 	autosave *autosaver     // nil when autosave is off
@@ -359,6 +361,7 @@ func (w *Workbench) studyChanged() {
 		title += " •"
 	}
 	w.win.SetTitle(title + " — Sectionbench")
+	w.syncUndoItems()
 	w.controls.sync(st)
 	names := make([]string, len(st.Elements))
 	for i, e := range st.Elements {
