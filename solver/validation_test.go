@@ -489,7 +489,9 @@ func TestVanDeVooren(t *testing.T) {
 //     where the unpanelled gap (the earlier treatment) grows without bound
 //     (|Cp| > 10 at 640 panels is asserted, so this test would notice
 //     had the base panel no effect);
-//   - Cl at 200 panels moves by less than 0.5% from the unpanelled gap;
+//   - Cl at 200 panels moves by less than 0.5% from the unpanelled gap
+//     (measured: +1.4e-4 on NACA 2412 as generated, −1.3e-3 repanelled,
+//     whose gap is slanted across the camber line);
 //   - the base emits fluid (σ > 0: the dead-air region behind the base).
 func TestOpenTrailingEdgeBounded(t *testing.T) {
 	const maxCp = 1.5 // bound of the task, well above the stagnation value 1
@@ -526,14 +528,27 @@ func TestOpenTrailingEdgeBounded(t *testing.T) {
 				t.Errorf("NACA %s, %d panels: base source σ = %g, want an outflow", des, n, e.BaseSource)
 			}
 		}
-		el := nacaElement(t, des, 200)
-		cl := mustSystem(t, Config{Elements: []Element{el}}).Solve(4).Cl
-		old, err := newSystem(Config{Elements: []Element{el}}, buildOptions{unpanelledGap: true})
+		// At 200 panels, as generated and as the workbench repanels it
+		// (model.Repanel, cosine spacing).
+		base, err := model.NACA(des, model.NACAOptions{})
 		if err != nil {
 			t.Fatal(err)
 		}
-		if d := relErr(cl, old.Solve(4).Cl); d > 5e-3 {
-			t.Errorf("NACA %s, 200 panels: Cl %.6f, unpanelled gap %.6f (%.2g)", des, cl, old.Solve(4).Cl, d)
+		rep, err := model.Repanel(base, model.Panelling{Panels: 200, Spacing: model.SpacingCosine})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, el := range []Element{nacaElement(t, des, 200), {Nodes: rep.Points(), LE: rep.LeadingEdgeIndex()}} {
+			cl := mustSystem(t, Config{Elements: []Element{el}}).Solve(4).Cl
+			old, err := newSystem(Config{Elements: []Element{el}}, buildOptions{unpanelledGap: true})
+			if err != nil {
+				t.Fatal(err)
+			}
+			clOld := old.Solve(4).Cl
+			t.Logf("NACA %s, 200 panels: Cl %.6f, unpanelled gap %.6f (%+.2e)", des, cl, clOld, cl/clOld-1)
+			if d := relErr(cl, clOld); d > 5e-3 {
+				t.Errorf("NACA %s, 200 panels: Cl %.6f, unpanelled gap %.6f (%.2g)", des, cl, clOld, d)
+			}
 		}
 	}
 }
