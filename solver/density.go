@@ -43,10 +43,8 @@ type DensityRow struct {
 	Panels int
 	Nose   float64
 	Cl, Cm float64 // of the whole configuration
-	// CpMin is the lowest Cp over all elements ahead of
-	// TrailingEdgeCutXC: the suction peak. Cp next to a trailing edge does
-	// not converge pointwise (REFERENCES §7; at an open edge the corner
-	// panels' Cp grows without bound as panels shrink), so it is left out.
+	// CpMin is the lowest Cp over all elements (ElementSolution.CpMin): the
+	// suction peak.
 	CpMin            float64
 	DCl, DCm, DCpMin float64 // change from the previous count at the same nose value; NaN for the first
 	// MinPanelLength and MaxPanelLength are the shortest and longest panel
@@ -208,11 +206,7 @@ func densityRow(sol *Solution, n int, nose float64) DensityRow {
 	row := DensityRow{Panels: n, Nose: nose, Cl: sol.Cl, Cm: sol.Cm, CpMin: math.Inf(1),
 		DCl: nan, DCm: nan, DCpMin: nan, MinPanelLength: math.Inf(1), MaxPanelLength: 0}
 	for _, e := range sol.Elements {
-		for _, p := range e.Panels {
-			if p.XC <= TrailingEdgeCutXC {
-				row.CpMin = math.Min(row.CpMin, p.Cp)
-			}
-		}
+		row.CpMin = math.Min(row.CpMin, e.CpMin)
 		// Panel lengths from the midpoint arc lengths: S_0 = L_0/2 and
 		// S_i − S_(i−1) = (L_(i−1) + L_i)/2.
 		l := 0.0
