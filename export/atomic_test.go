@@ -66,7 +66,6 @@ func TestWriteFileAtomicKeepsOldFileOnFailure(t *testing.T) {
 	}
 }
 
-
 func TestWriteFileAtomicReplaces(t *testing.T) {
 	path := filepath.Join(t.TempDir(), "out.txt")
 	for _, content := range []string{"first", "second, longer", "3"} {
