@@ -261,10 +261,17 @@ func Render(v View, sc *Scene, widthPx, heightPx int, dpi float64) (*Figure, err
 	if err != nil {
 		return nil, err
 	}
+	return renderPlot(p, info.equal, info.composite, widthPx, heightPx, dpi), nil
+}
+
+// renderPlot draws p into a widthPx × heightPx image at dpi and records the
+// pixel rectangle of its data area; equal fits the axes to equal scales
+// first, composite marks a figure of several panels.
+func renderPlot(p *plot.Plot, equal, composite bool, widthPx, heightPx int, dpi float64) *Figure {
 	img := image.NewRGBA(image.Rect(0, 0, widthPx, heightPx))
 	cv := vgimg.NewWith(vgimg.UseImage(img), vgimg.UseDPI(int(math.Round(dpi))))
 	dc := draw.New(cv)
-	if info.equal {
+	if equal {
 		fitAspect(p, dc)
 	}
 	p.Draw(dc)
@@ -272,18 +279,18 @@ func Render(v View, sc *Scene, widthPx, heightPx int, dpi float64) (*Figure, err
 	// vg lengths are points (1/72 in) from the bottom-left corner.
 	s := float64(cv.DPI()) / 72
 	f := &Figure{
-		Image: cv.Image().(*image.RGBA),
-		X:     [2]float64{p.X.Min, p.X.Max},
-		Y:     [2]float64{p.Y.Min, p.Y.Max},
-		x0:    float64(da.Min.X) * s,
-		x1:    float64(da.Max.X) * s,
-		y0:    float64(heightPx) - float64(da.Max.Y)*s,
-		y1:    float64(heightPx) - float64(da.Min.Y)*s,
+		Image:     cv.Image().(*image.RGBA),
+		X:         [2]float64{p.X.Min, p.X.Max},
+		Y:         [2]float64{p.Y.Min, p.Y.Max},
+		x0:        float64(da.Min.X) * s,
+		x1:        float64(da.Max.X) * s,
+		y0:        float64(heightPx) - float64(da.Max.Y)*s,
+		y1:        float64(heightPx) - float64(da.Min.Y)*s,
+		composite: composite,
 	}
 	_, f.YDown = p.Y.Scale.(plot.InvertedScale)
-	f.composite = info.composite
 	f.Plot = image.Rect(int(math.Round(f.x0)), int(math.Round(f.y0)), int(math.Round(f.x1)), int(math.Round(f.y1)))
-	return f, nil
+	return f
 }
 
 // DataAt returns the data coordinates under pixel (px, py) of f.Image; ok is
@@ -332,35 +339,47 @@ var ErrFormat = errors.New("unknown figure format")
 // heightIn inches; dpi is used by PNG only. Text in SVG and PDF refers to the
 // Liberation fonts by name; PDF embeds them.
 func WriteFigure(w io.Writer, v View, sc *Scene, format string, widthIn, heightIn, dpi float64) error {
-	if !(widthIn > 0 && heightIn > 0) {
-		panic(fmt.Sprintf("export: bad figure size %g × %g in", widthIn, heightIn))
-	}
-	format = strings.ToLower(format)
-	var cv vg.CanvasWriterTo
-	wl, hl := vg.Length(widthIn)*vg.Inch, vg.Length(heightIn)*vg.Inch
-	switch format {
-	case FormatPNG:
-		if !(dpi > 0) {
-			panic(fmt.Sprintf("export: bad dpi %g", dpi))
-		}
-		cv = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(wl, hl), vgimg.UseDPI(int(math.Round(dpi))))}
-	case FormatSVG:
-		cv = vgsvg.New(wl, hl)
-	case FormatPDF:
-		cv = vgpdf.New(wl, hl)
-	default:
-		return fmt.Errorf("export: %q (want png, svg or pdf): %w", format, ErrFormat)
+	cv, err := figureCanvas(format, widthIn, heightIn, dpi)
+	if err != nil {
+		return err
 	}
 	p, info, err := buildView(v, sc)
 	if err != nil {
 		return err
 	}
+	return writePlot(w, cv, p, info.equal)
+}
+
+// figureCanvas returns a widthIn × heightIn inch canvas for format. It
+// panics on a non-positive size or PNG resolution.
+func figureCanvas(format string, widthIn, heightIn, dpi float64) (vg.CanvasWriterTo, error) {
+	if !(widthIn > 0 && heightIn > 0) {
+		panic(fmt.Sprintf("export: bad figure size %g × %g in", widthIn, heightIn))
+	}
+	wl, hl := vg.Length(widthIn)*vg.Inch, vg.Length(heightIn)*vg.Inch
+	switch strings.ToLower(format) {
+	case FormatPNG:
+		if !(dpi > 0) {
+			panic(fmt.Sprintf("export: bad dpi %g", dpi))
+		}
+		return vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(wl, hl), vgimg.UseDPI(int(math.Round(dpi))))}, nil
+	case FormatSVG:
+		return vgsvg.New(wl, hl), nil
+	case FormatPDF:
+		return vgpdf.New(wl, hl), nil
+	}
+	return nil, fmt.Errorf("export: %q (want png, svg or pdf): %w", format, ErrFormat)
+}
+
+// writePlot draws p on cv (fitted to equal axis scales if equal) and
+// writes the result to w.
+func writePlot(w io.Writer, cv vg.CanvasWriterTo, p *plot.Plot, equal bool) error {
 	dc := draw.New(cv)
-	if info.equal {
+	if equal {
 		fitAspect(p, dc)
 	}
 	p.Draw(dc)
-	_, err = cv.WriteTo(w)
+	_, err := cv.WriteTo(w)
 	return err
 }
 

@@ -2,14 +2,12 @@ package export
 
 import (
 	"fmt"
-	"image"
 	"image/color"
 	"math"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
 
 	"sectionbench/solver"
 )
@@ -158,23 +156,5 @@ func RenderPlot(p *plot.Plot, composite bool, widthPx, heightPx int, dpi float64
 	if widthPx <= 0 || heightPx <= 0 || !(dpi > 0) {
 		panic(fmt.Sprintf("export: bad render size %d×%d at %g dpi", widthPx, heightPx, dpi))
 	}
-	img := image.NewRGBA(image.Rect(0, 0, widthPx, heightPx))
-	cv := vgimg.NewWith(vgimg.UseImage(img), vgimg.UseDPI(int(math.Round(dpi))))
-	dc := draw.New(cv)
-	p.Draw(dc)
-	da := p.DataCanvas(dc)
-	s := float64(cv.DPI()) / 72
-	f := &Figure{
-		Image:     cv.Image().(*image.RGBA),
-		X:         [2]float64{p.X.Min, p.X.Max},
-		Y:         [2]float64{p.Y.Min, p.Y.Max},
-		x0:        float64(da.Min.X) * s,
-		x1:        float64(da.Max.X) * s,
-		y0:        float64(heightPx) - float64(da.Max.Y)*s,
-		y1:        float64(heightPx) - float64(da.Min.Y)*s,
-		composite: composite,
-	}
-	_, f.YDown = p.Y.Scale.(plot.InvertedScale)
-	f.Plot = image.Rect(int(math.Round(f.x0)), int(math.Round(f.y0)), int(math.Round(f.x1)), int(math.Round(f.y1)))
-	return f
+	return renderPlot(p, false, composite, widthPx, heightPx, dpi)
 }
