@@ -2,7 +2,6 @@ package main
 
 import (
 	"context"
-	"encoding/json"
 	"fmt"
 	"io"
 	"os"
@@ -81,9 +80,7 @@ func cmdBench(args []string, stdout, stderr io.Writer) error {
 		GOMAXPROCS: runtime.GOMAXPROCS(0), GoVersion: runtime.Version(), LoadAverage: loadAverage(),
 	}
 	if in.format == "json" {
-		enc := json.NewEncoder(stdout)
-		enc.SetIndent("", "  ")
-		return enc.Encode(out)
+		return writeJSON(stdout, out)
 	}
 	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "panels\t%d per element (%d unknowns), median of %d repeats\n", out.Panels, out.Unknowns, out.Repeats)

@@ -3,7 +3,6 @@ package main
 import (
 	"context"
 	"encoding/csv"
-	"encoding/json"
 	"fmt"
 	"io"
 	"strconv"
@@ -90,9 +89,7 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 	}
 	switch in.format {
 	case "json":
-		enc := json.NewEncoder(stdout)
-		enc.SetIndent("", "  ")
-		return enc.Encode(out)
+		return writeJSON(stdout, out)
 	case "csv":
 		cw := csv.NewWriter(stdout)
 		cw.Write([]string{"panels", "nose", "cl", "cm", "cp_min", "d_cl", "d_cp_min"})

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"encoding/json"
 	"errors"
 	"flag"
 	"fmt"
@@ -156,4 +157,12 @@ func (fs *flags) parse(args []string, positional int) ([]string, error) {
 		return nil, usagef("unexpected argument %q", pos[positional])
 	}
 	return pos, nil
+}
+
+// writeJSON writes v as indented JSON, the form every command's
+// --format json prints.
+func writeJSON(w io.Writer, v any) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(v)
 }

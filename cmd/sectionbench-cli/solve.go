@@ -2,7 +2,6 @@ package main
 
 import (
 	"context"
-	"encoding/json"
 	"fmt"
 	"io"
 	"math"
@@ -105,9 +104,7 @@ func cmdSolve(args []string, stdout, stderr io.Writer) error {
 	warnings := collectWarnings(reps, res)
 	out := solveJSON(st, res, warnings)
 	if in.format == "json" {
-		enc := json.NewEncoder(stdout)
-		enc.SetIndent("", "  ")
-		return enc.Encode(out)
+		return writeJSON(stdout, out)
 	}
 	return solveText(stdout, st, res, out)
 }

@@ -2,7 +2,6 @@ package main
 
 import (
 	"context"
-	"encoding/json"
 	"fmt"
 	"io"
 	"text/tabwriter"
@@ -46,9 +45,7 @@ func cmdSweep(args []string, stdout, stderr io.Writer) error {
 	}
 	switch in.format {
 	case "json":
-		enc := json.NewEncoder(stdout)
-		enc.SetIndent("", "  ")
-		return enc.Encode(rows)
+		return writeJSON(stdout, rows)
 	case "csv":
 		return sweepCSV(stdout, res)
 	}
