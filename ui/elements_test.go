@@ -361,8 +361,8 @@ func TestOverlappingStudyNamesElements(t *testing.T) {
 		t.Fatalf("solve error %v, want an overlap", serr)
 	}
 	want := "Not solved: Elements 1 “main” and 2 “flap” overlap or touch"
-	if !strings.HasPrefix(w.status.Text, want) || w.status.Importance != widget.DangerImportance {
-		t.Errorf("status %q, want it to start with %q", w.status.Text, want)
+	if !strings.HasPrefix(w.status.Full(), want) || w.status.label.Importance != widget.DangerImportance {
+		t.Errorf("status %q, want it to start with %q", w.status.Full(), want)
 	}
 	// Moving the flap clear of the main element solves.
 	w.ctl.SetElement(1)

@@ -139,6 +139,7 @@ func resultsText(res *engineResult) (table, note string) {
 	if v != nil {
 		n = append(n, "x/c from each element's leading edge; — none. Cd "+dash+": a surface separated, outside the method's range.")
 	}
+	n = append(n, fmt.Sprintf("Solved in %d ms.", res.Elapsed.Milliseconds()))
 	return table, strings.Join(n, " ")
 }
 

@@ -58,8 +58,8 @@ func TestSpeedInKmh(t *testing.T) {
 func TestForcesWithSpeed(t *testing.T) {
 	w := newStudyBench(t)
 	fc := w.controls.fc
-	if res := current(t, w); res.Forces != nil || strings.Contains(w.status.Text, "N/m") {
-		t.Fatalf("forces without a speed: %+v, status %q", res.Forces, w.status.Text)
+	if res := current(t, w); res.Forces != nil || strings.Contains(w.status.Full(), "N/m") {
+		t.Fatalf("forces without a speed: %+v, status %q", res.Forces, w.status.Full())
 	}
 	fc.unit.SetSelected(unitMPS)
 	fc.speed.SetText("20")
@@ -80,15 +80,15 @@ func TestForcesWithSpeed(t *testing.T) {
 	}
 	// Upright: lift, per metre.
 	lift := "lift " + fixed(res.Forces.LiftPerSpan, 1) + " N/m"
-	if !strings.Contains(w.status.Text, lift) || !strings.Contains(w.status.Text, "Cl ") {
-		t.Errorf("status %q does not give %q", w.status.Text, lift)
+	if !strings.Contains(w.status.Full(), lift) || !strings.Contains(w.status.Full(), "Cl ") {
+		t.Errorf("status %q does not give %q", w.status.Full(), lift)
 	}
 	// With a span the total appears beside it.
 	fc.span.SetText("1.2")
 	res = current(t, w)
 	total := fixed(res.Forces.LiftPerSpan*1.2, 1) + " N on 1.2 m"
-	if !strings.Contains(w.status.Text, total) || !strings.Contains(w.results.table.Text, "N on 1.2 m span") {
-		t.Errorf("status %q or table lacks the span total %q", w.status.Text, total)
+	if !strings.Contains(w.status.Full(), total) || !strings.Contains(w.results.table.Text, "N on 1.2 m span") {
+		t.Errorf("status %q or table lacks the span total %q", w.status.Full(), total)
 	}
 	// Inverted: downforce, positive, with the sign stated.
 	w.controls.inverted.SetChecked(true)
@@ -98,11 +98,11 @@ func TestForcesWithSpeed(t *testing.T) {
 		t.Fatalf("inverted cambered section at 4°: downforce %g N/m, want positive", f.DownforcePerSpan)
 	}
 	for _, want := range []string{
-		"−Cl " + fixed(-res.Solution.Cl, 3) + " (downforce coefficient, + down)",
+		"−Cl " + fixed(-res.Solution.Cl, 3) + " (+ down)",
 		"downforce " + fixed(f.DownforcePerSpan, 1) + " N/m",
 	} {
-		if !strings.Contains(w.status.Text, want) {
-			t.Errorf("status %q does not say %q", w.status.Text, want)
+		if !strings.Contains(w.status.Full(), want) {
+			t.Errorf("status %q does not say %q", w.status.Full(), want)
 		}
 	}
 	if tb := w.results.table.Text; !strings.Contains(tb, "−Cl") || !strings.Contains(tb, "downforce N/m") || !strings.Contains(tb, fixed(f.DownforcePerSpan, 1)) {

@@ -29,10 +29,13 @@ const (
 	controlWidth = 330 // width of the control column
 )
 
-// caution is shown in About and Methods; cautionShort in the status line.
+// caution is shown in About and Methods, cautionShort in the density
+// window and cautionStatus in the status line, where it opens Methods and
+// cautions.
 const (
-	caution      = "2-D potential-flow estimates — validate by test. Structural design and mounting follow the competition's rules and qualified engineering review."
-	cautionShort = "2-D potential-flow estimates — validate by test"
+	caution       = "2-D potential-flow estimates — validate by test. Structural design and mounting follow the competition's rules and qualified engineering review."
+	cautionShort  = "2-D potential-flow estimates — validate by test"
+	cautionStatus = "2-D estimates — validate by test"
 )
 
 // Workbench is the main window: the control column, the four views and the
@@ -54,8 +57,8 @@ type Workbench struct {
 	controls *controls
 	sceneMu  sync.Mutex
 	scene    *scene // newest scene shown
-	status   *widget.Label
-	statusOK bool
+	status   *statusLine
+	caution  *widget.Button
 	warnings *widget.Button
 	results  *resultsPanel
 	showRes  *widget.Button
@@ -153,16 +156,17 @@ func (w *Workbench) build() {
 	w.controls = newControls(w)
 	side := container.NewStack(widthOf(controlWidth), w.controls.box)
 
-	w.status = widget.NewLabel("Solving…")
-	w.status.Truncation = fyne.TextTruncateEllipsis
+	w.status = newStatusLine("Solving…")
 	w.warnings = widget.NewButtonWithIcon("", theme.WarningIcon(), w.showReport)
 	w.warnings.Importance = widget.LowImportance
 	w.warnings.Hide()
-	note := widget.NewLabelWithStyle(cautionShort, fyne.TextAlignTrailing, fyne.TextStyle{Italic: true})
+	// The caution stays on screen; its full text is one click away.
+	w.caution = widget.NewButtonWithIcon(cautionStatus, theme.InfoIcon(), w.showMethods)
+	w.caution.Importance = widget.LowImportance
 	w.results = newResultsPanel()
 	w.showRes = widget.NewButtonWithIcon("Results", theme.ListIcon(), w.toggleResults)
 	w.showRes.Importance = widget.LowImportance
-	statusLine := container.NewBorder(nil, nil, nil, container.NewHBox(w.warnings, w.showRes, note), w.status)
+	statusLine := container.NewBorder(nil, nil, nil, container.NewHBox(w.warnings, w.showRes, w.caution), w.status.box)
 
 	content := container.NewBorder(nil, container.NewVBox(w.results.box, widget.NewSeparator(), statusLine), side, nil, w.viewArea)
 	w.win.SetContent(content)
@@ -247,8 +251,7 @@ func (w *Workbench) lastScene() *scene {
 }
 
 func (w *Workbench) showStatus(res *engineResult) {
-	w.status.Importance = widget.MediumImportance
-	w.status.SetText(statusText(res))
+	w.status.set(statusItems(res), widget.MediumImportance)
 	clean := 0
 	for _, r := range w.ctl.Reports() {
 		if r != nil {
@@ -259,15 +262,9 @@ func (w *Workbench) showStatus(res *engineResult) {
 	if res.Solution != nil {
 		solve = len(res.Solution.Warnings)
 	}
-	var parts []string
-	if clean > 0 {
-		parts = append(parts, fmt.Sprintf("%d cleaning warning%s", clean, plural(clean)))
-	}
-	if solve > 0 {
-		parts = append(parts, fmt.Sprintf("%d solver warning%s", solve, plural(solve)))
-	}
-	if len(parts) > 0 {
-		w.warnings.SetText(strings.Join(parts, ", "))
+	// Short: the report it opens says which are which.
+	if n := clean + solve; n > 0 {
+		w.warnings.SetText(fmt.Sprintf("%d warning%s", n, plural(n)))
 		w.warnings.Show()
 	} else {
 		w.warnings.Hide()
@@ -275,28 +272,27 @@ func (w *Workbench) showStatus(res *engineResult) {
 }
 
 func (w *Workbench) showStatusError(err error) {
-	w.status.Importance = widget.DangerImportance
 	msg := firstLine(err.Error())
 	if g, ok := geometryText(err); ok {
 		msg = g
 	} else if !errors.Is(err, context.Canceled) {
 		msg = friendly(err)
 	}
-	w.status.SetText("Not solved: " + msg)
+	w.status.set([]string{"Not solved: " + msg}, widget.DangerImportance)
 }
 
-// statusText summarises a result: Cl (the downforce coefficient −Cl when
-// inverted, with its sign stated), Cm, the suction peak, the forces, the
-// drag estimate and the solve time.
-func statusText(res *engineResult) string {
+// statusItems summarises a result in order of importance: Cl (the
+// downforce coefficient −Cl when inverted, with its sign stated), the
+// force, the drag estimate, the suction peak, Cm and the solve time.
+func statusItems(res *engineResult) []string {
 	s := res.Solution
 	if s == nil {
-		return "No solution"
+		return []string{"No solution"}
 	}
 	inv := res.Layout != nil && res.Layout.Inverted
 	var parts []string
 	if inv {
-		parts = append(parts, "−Cl "+fixed(downforceOf(s.Cl), 3)+" (downforce coefficient, + down)")
+		parts = append(parts, "−Cl "+fixed(downforceOf(s.Cl), 3)+" (+ down)")
 	} else {
 		parts = append(parts, "Cl "+fixed(s.Cl, 3)+" (+ up)")
 	}
@@ -307,20 +303,19 @@ func statusText(res *engineResult) string {
 		}
 		t := name + fixed(per, 1) + " N/m"
 		if f.SpanM > 0 {
-			t += " (" + fixed(f.SpanTotal(per), 1) + " N on " + num(f.SpanM) + " m)"
+			t += ", " + fixed(f.SpanTotal(per), 1) + " N on " + num(f.SpanM) + " m"
 		}
 		parts = append(parts, t)
 	}
 	if v := res.Viscous; v != nil {
 		if math.IsNaN(v.Cd) {
-			parts = append(parts, "Cd — outside the method's range")
+			parts = append(parts, "no Cd (separated)")
 		} else if inv {
 			parts = append(parts, "Cd "+fixed(v.Cd, 4), "−Cl/Cd "+fixed(downforceOf(res.LiftToDrag()), 1))
 		} else {
 			parts = append(parts, "Cd "+fixed(v.Cd, 4), "Cl/Cd "+fixed(res.LiftToDrag(), 1))
 		}
 	}
-	parts = append(parts, "Cm "+fixed(s.Cm, 3))
 	best := -1
 	for i, e := range s.Elements {
 		if best < 0 || e.CpMin < s.Elements[best].CpMin {
@@ -335,8 +330,8 @@ func statusText(res *engineResult) string {
 		}
 		parts = append(parts, "min Cp "+fixed(e.CpMin, 2)+" at "+where)
 	}
-	parts = append(parts, fmt.Sprintf("solve %d ms", res.Elapsed.Milliseconds()))
-	return strings.Join(parts, " · ")
+	parts = append(parts, "Cm "+fixed(s.Cm, 3), fmt.Sprintf("solve %d ms", res.Elapsed.Milliseconds()))
+	return parts
 }
 
 func plural(n int) string {
