@@ -210,3 +210,20 @@ func TestTwoElementConvergence(t *testing.T) {
 		})
 	}
 }
+
+// BenchmarkDensityStudyDefault: the default density study (20 to 640
+// panels) of NACA 2412 at 4°, the whole job the density window runs.
+func BenchmarkDensityStudyDefault(b *testing.B) {
+	st := model.NewStudy()
+	st.Elements[0].Section = model.SectionSource{Spec: "naca:2412"}
+	sec, _, err := model.SectionFromSpec("naca:2412", nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	secs := []*model.Section{sec}
+	for b.Loop() {
+		if _, err := NewEngine().Density(context.Background(), st, secs, nil); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
