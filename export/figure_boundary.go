@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"math"
+	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
@@ -58,44 +59,152 @@ func surfaceXYs(xc, v []float64, scale float64) plotter.XYs {
 	return xys
 }
 
+// Layout of the boundary-layer figure.
+const (
+	// blRangeFromXC: the vertical axes range over the stations aft of this
+	// x/c. Just aft of the stagnation point the layer is thinnest while
+	// the edge velocity rises fastest towards the suction peak, so the
+	// wall shear, τw = μ Ue ℓ(λ)/θ in Thwaites' method (from memory), has
+	// a sharp peak there that would squash the rest of the curve into the
+	// bottom of the panel. The peak runs off the top and is noted.
+	blRangeFromXC = 0.05
+	// blPeakRatio: the peak is let run off the top only when it exceeds
+	// the range aft of blRangeFromXC by this factor, so that a curve that
+	// merely starts a little high is drawn whole.
+	blPeakRatio = 1.5
+	// Font sizes (points) of the caption under the title and of the axis
+	// labels, chosen to read at the workbench's view size (600 × 400 px
+	// at 96 dpi) as well as in print.
+	blCaptionPt = 8.5
+	blLabelPt   = 9
+)
+
+// blMarkKinds are the positions drawn as vertical lines, each with its
+// dash pattern, in the colour of its surface.
+var blMarkKinds = []struct {
+	name string
+	dash []vg.Length
+	get  func(solver.SurfaceBL) float64
+}{
+	{"transition", dashRef, func(s solver.SurfaceBL) float64 { return s.TransitionXC }},
+	{"laminar separation", dashPin, func(s solver.SurfaceBL) float64 { return s.LaminarSeparationXC }},
+	{"separation", nil, func(s solver.SurfaceBL) float64 { return s.TurbulentSeparationXC }},
+}
+
+func finiteXC(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+
 // blMarks draws the transition and separation positions of one surface as
-// vertical lines in the surface's colour, labelled when label is set.
-func blMarks(p *plot.Plot, th *theme, s solver.SurfaceBL, c color.Color, label bool, side string) {
-	drop := vg.Length(0)
-	for _, m := range []struct {
-		x    float64
-		name string
-		dash []vg.Length
-	}{
-		{s.TransitionXC, "transition", dashRef},
-		{s.LaminarSeparationXC, "laminar separation", dashPin},
-		{s.TurbulentSeparationXC, "separation", nil},
-	} {
-		if math.IsNaN(m.x) || math.IsInf(m.x, 0) {
-			continue
+// vertical lines in the surface's colour, unlabelled: blCaption names them.
+func blMarks(p *plot.Plot, s solver.SurfaceBL, c color.Color) {
+	for _, m := range blMarkKinds {
+		if x := m.get(s); finiteXC(x) {
+			p.Add(&refLine{value: x, vertical: true, style: lineStyle(c, widthThin, m.dash)})
 		}
-		r := &refLine{value: m.x, vertical: true, style: lineStyle(c, widthThin, m.dash)}
-		if label {
-			r.label = fmt.Sprintf("%s %s %.2f", side, m.name, m.x)
-			r.labelSty = noteStyle(th, c, 7, text.XLeft, text.YTop)
-			r.drop = drop
-			drop += vg.Points(9)
-		}
-		p.Add(r)
 	}
 }
 
-// boundaryLayerPlot draws θ, δ*, H and Cf against x/c on the upper and
-// lower surface of one element (sc.Element; the first when −1), in four
-// panels, with transition and separation marked.
+// blCaption says where each surface's boundary layer changes, one line per
+// kind of mark that occurs, and how each is drawn.
+func blCaption(eb solver.ElementBL) []string {
+	var lines []string
+	for _, m := range blMarkKinds {
+		var at []string
+		for _, s := range []struct {
+			name string
+			bl   solver.SurfaceBL
+		}{{"upper", eb.Upper}, {"lower", eb.Lower}} {
+			if x := m.get(s.bl); finiteXC(x) {
+				at = append(at, fmt.Sprintf("%s x/c %.2f", s.name, x))
+			}
+		}
+		if len(at) == 0 {
+			continue
+		}
+		how := "solid line"
+		switch {
+		case len(m.dash) > 0 && m.name == "transition":
+			how = "dashed"
+		case len(m.dash) > 0:
+			how = "dotted"
+		}
+		lines = append(lines, fmt.Sprintf("%s (%s): %s", m.name, how, strings.Join(at, ", ")))
+	}
+	if len(lines) == 0 {
+		lines = append(lines, "no transition or separation on either surface")
+	}
+	// Two kinds share a line when there are three, to keep the panels tall.
+	if len(lines) == 3 {
+		lines = []string{lines[0] + "  ·  " + lines[1], lines[2]}
+	}
+	return lines
+}
+
+// blPanels is the boundary-layer figure's layout inside the data area of a
+// plot without axes: the caption lines at the top, then θ and H side by
+// side, then Cf across the full width (the panel read most, given the
+// width of two).
+type blPanels struct {
+	caption    []string
+	captionSty text.Style
+	theta, h   *plot.Plot
+	cf         *plot.Plot
+}
+
+func (b *blPanels) Plot(c draw.Canvas, _ *plot.Plot) {
+	y := c.Max.Y
+	mid := (c.Min.X + c.Max.X) / 2
+	for _, l := range b.caption {
+		c.FillText(b.captionSty, vg.Point{X: mid, Y: y}, l)
+		y -= b.captionSty.Height(l)
+	}
+	area := c
+	area.Max.Y = y - vg.Points(2)
+	rows := draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Points(4)}
+	top := draw.Tiles{Rows: 1, Cols: 2, PadX: vg.Points(6)}
+	up := rows.At(area, 0, 0)
+	b.theta.Draw(top.At(up, 0, 0))
+	b.h.Draw(top.At(up, 1, 0))
+	b.cf.Draw(rows.At(area, 0, 1))
+}
+
+// blRange returns the largest value of lines aft of blRangeFromXC and the
+// largest of all (the stagnation peak), −Inf when there is none.
+func blRange(lines []plotter.XYs) (aft, all float64) {
+	aft, all = math.Inf(-1), math.Inf(-1)
+	for _, xys := range lines {
+		for _, p := range xys {
+			all = math.Max(all, p.Y)
+			if p.X >= blRangeFromXC {
+				aft = math.Max(aft, p.Y)
+			}
+		}
+	}
+	return aft, all
+}
+
+// boundaryLayerPlot draws θ, H and Cf against x/c on the upper and lower
+// surface of one element (sc.Element; the first when −1), in three
+// panels, with transition and separation marked and named in a caption.
+// δ* is left out: it is Hθ, from the two panels drawn.
 func boundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
+	b, title, err := boundaryLayerPanels(sc, th)
+	if err != nil {
+		return nil, err
+	}
+	p := compositePlot(th, title, 1, 1)
+	p.Add(b)
+	return p, nil
+}
+
+// boundaryLayerPanels returns the panels and title of boundaryLayerPlot.
+func boundaryLayerPanels(sc *Scene, th *theme) (*blPanels, string, error) {
 	vr := sc.Viscous
 	if vr == nil || len(vr.Elements) == 0 {
-		return nil, noData(ViewBoundaryLayer, "no boundary-layer result")
+		return nil, "", noData(ViewBoundaryLayer, "no boundary-layer result")
 	}
 	i := max(sc.Element, 0)
 	if i >= len(vr.Elements) {
-		return nil, &ViewError{View: ViewBoundaryLayer, Err: fmt.Errorf("element %d is not in 0..%d", i, len(vr.Elements)-1)}
+		return nil, "", &ViewError{View: ViewBoundaryLayer, Err: fmt.Errorf("element %d is not in 0..%d", i, len(vr.Elements)-1)}
 	}
 	eb := vr.Elements[i]
 	quantities := []struct {
@@ -104,7 +213,6 @@ func boundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		scale float64
 	}{
 		{"θ/c × 1000", func(s solver.SurfaceBL) []float64 { return s.Theta }, blScale},
-		{"δ*/c × 1000", func(s solver.SurfaceBL) []float64 { return s.DeltaStar }, blScale},
 		{"H = δ*/θ", func(s solver.SurfaceBL) []float64 { return s.H }, 1},
 		{"Cf × 1000 (on freestream q)", func(s solver.SurfaceBL) []float64 { return s.Cf }, blScale},
 	}
@@ -112,12 +220,9 @@ func boundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	loSty := lineStyle(th.lower, widthNormal, dashLower)
 	var subs []*plot.Plot
 	for qi, q := range quantities {
-		xl := ""
-		if qi >= 2 {
-			xl = "x/c"
-		}
-		p := newPlot(th, "", xl, q.label)
-		p.Y.Label.TextStyle.Font.Size = vg.Points(9)
+		p := newPlot(th, "", "x/c", q.label)
+		p.Y.Label.TextStyle.Font.Size = vg.Points(blLabelPt)
+		p.X.Label.TextStyle.Font.Size = vg.Points(blLabelPt)
 		var lines []plotter.XYs
 		for _, s := range []struct {
 			bl  solver.SurfaceBL
@@ -128,21 +233,27 @@ func boundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 				lines = append(lines, xys)
 			}
 		}
-		blMarks(p, th, eb.Upper, th.upper, qi == 2, "upper")
-		blMarks(p, th, eb.Lower, th.lower, qi == 3, "lower")
+		blMarks(p, eb.Upper, th.upper)
+		blMarks(p, eb.Lower, th.lower)
+		k := newKey(th, keyTopLeft)
+		k.keep(lines...)
 		if qi == 0 {
-			k := newKey(th, keyTopLeft)
-			k.keep(lines...)
 			k.add("upper surface", legendLine{upSty})
 			k.add("lower surface", legendLine{loSty})
-			p.Add(k)
 		}
 		p.X.Min, p.X.Max = 0, 1
 		if p.Y.Min > p.Y.Max { // nothing finite to draw
 			p.Y.Min, p.Y.Max = 0, 1
 		}
 		p.Y.Min = math.Min(p.Y.Min, 0)
+		if aft, all := blRange(lines); aft > 0 && all > blPeakRatio*aft {
+			p.Y.Max = aft
+			k.add(fmt.Sprintf("peak %.3g near the leading edge, off scale", all), legendLine{lineStyle(color.Transparent, 0, nil)})
+		}
 		_, p.Y.Max = padRange(p.Y.Min, p.Y.Max, 0.05)
+		if len(k.entries) > 0 {
+			p.Add(k)
+		}
 		subs = append(subs, p)
 	}
 	cd := "Cd not available (turbulent separation)"
@@ -150,5 +261,9 @@ func boundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		cd = fmt.Sprintf("Cd %.5f", eb.Cd)
 	}
 	title := fmt.Sprintf("Boundary layer on %s: %s", eb.Name, cd)
-	return compositePlot(th, title, 2, 2, subs...), nil
+	return &blPanels{
+		caption:    blCaption(eb),
+		captionSty: noteStyle(th, th.fg, blCaptionPt, text.XCenter, text.YTop),
+		theta:      subs[0], h: subs[1], cf: subs[2],
+	}, title, nil
 }
