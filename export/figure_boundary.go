@@ -77,7 +77,15 @@ const (
 	// at 96 dpi) as well as in print.
 	blCaptionPt = 8.5
 	blLabelPt   = 9
+	// blMinPanelPt is the height (points) a panel needs to be read: its
+	// axis and tick labels take about a third of it. With less room for
+	// two rows of panels (the workbench's view cell at 1280 × 800) the
+	// figure shows the Cf panel alone and says so (blSmallNote).
+	blMinPanelPt = 105
 )
+
+// blSmallNote ends the caption of a figure too small for every panel.
+const blSmallNote = "θ and H: enlarge the view"
 
 // blMarkKinds are the positions drawn as vertical lines, each with its
 // dash pattern, in the colour of its surface.
@@ -103,8 +111,9 @@ func blMarks(p *plot.Plot, s solver.SurfaceBL, c color.Color) {
 	}
 }
 
-// blCaption says where each surface's boundary layer changes, one line per
-// kind of mark that occurs, and how each is drawn.
+// blCaption says where each surface's boundary layer changes, an item per
+// kind of mark that occurs, and how each is drawn; blPanels packs the
+// items into lines that fit the figure.
 func blCaption(eb solver.ElementBL) []string {
 	var lines []string
 	for _, m := range blMarkKinds {
@@ -114,7 +123,7 @@ func blCaption(eb solver.ElementBL) []string {
 			bl   solver.SurfaceBL
 		}{{"upper", eb.Upper}, {"lower", eb.Lower}} {
 			if x := m.get(s.bl); finiteXC(x) {
-				at = append(at, fmt.Sprintf("%s x/c %.2f", s.name, x))
+				at = append(at, fmt.Sprintf("%s %.2f", s.name, x))
 			}
 		}
 		if len(at) == 0 {
@@ -127,14 +136,10 @@ func blCaption(eb solver.ElementBL) []string {
 		case len(m.dash) > 0:
 			how = "dotted"
 		}
-		lines = append(lines, fmt.Sprintf("%s (%s): %s", m.name, how, strings.Join(at, ", ")))
+		lines = append(lines, fmt.Sprintf("%s (%s) at x/c %s", m.name, how, strings.Join(at, ", ")))
 	}
 	if len(lines) == 0 {
 		lines = append(lines, "no transition or separation on either surface")
-	}
-	// Two kinds share a line when there are three, to keep the panels tall.
-	if len(lines) == 3 {
-		lines = []string{lines[0] + "  ·  " + lines[1], lines[2]}
 	}
 	return lines
 }
@@ -142,7 +147,7 @@ func blCaption(eb solver.ElementBL) []string {
 // blPanels is the boundary-layer figure's layout inside the data area of a
 // plot without axes: the caption lines at the top, then θ and H side by
 // side, then Cf across the full width (the panel read most, given the
-// width of two).
+// width of two). Below 2 blMinPanelPt of height it draws Cf alone.
 type blPanels struct {
 	caption    []string
 	captionSty text.Style
@@ -150,21 +155,62 @@ type blPanels struct {
 	cf         *plot.Plot
 }
 
+// layout returns the caption lines for a data area of w × h, and whether
+// it is too small for every panel.
+func (b *blPanels) layout(w, h vg.Length) (lines []string, small bool) {
+	lines = packLines(b.caption, blCaptionSep, b.captionSty, w)
+	if h-b.height(lines) >= 2*vg.Points(blMinPanelPt) {
+		return lines, false
+	}
+	return packLines(append(b.caption[:len(b.caption):len(b.caption)], blSmallNote), blCaptionSep, b.captionSty, w), true
+}
+
 func (b *blPanels) Plot(c draw.Canvas, _ *plot.Plot) {
+	lines, small := b.layout(c.Max.X-c.Min.X, c.Max.Y-c.Min.Y)
 	y := c.Max.Y
 	mid := (c.Min.X + c.Max.X) / 2
-	for _, l := range b.caption {
+	for _, l := range lines {
 		c.FillText(b.captionSty, vg.Point{X: mid, Y: y}, l)
 		y -= b.captionSty.Height(l)
 	}
 	area := c
 	area.Max.Y = y - vg.Points(2)
+	if small {
+		b.cf.Draw(area)
+		return
+	}
 	rows := draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Points(4)}
 	top := draw.Tiles{Rows: 1, Cols: 2, PadX: vg.Points(6)}
 	up := rows.At(area, 0, 0)
 	b.theta.Draw(top.At(up, 0, 0))
 	b.h.Draw(top.At(up, 1, 0))
 	b.cf.Draw(rows.At(area, 0, 1))
+}
+
+// height returns the height of caption lines.
+func (b *blPanels) height(lines []string) vg.Length {
+	var h vg.Length
+	for _, l := range lines {
+		h += b.captionSty.Height(l)
+	}
+	return h
+}
+
+// blCaptionSep separates caption items that share a line.
+const blCaptionSep = "  ·  "
+
+// packLines joins items with sep into as few lines as fit width in sty,
+// in order; an item wider than width has a line of its own.
+func packLines(items []string, sep string, sty text.Style, width vg.Length) []string {
+	var lines []string
+	for _, it := range items {
+		if n := len(lines); n > 0 && sty.Width(lines[n-1]+sep+it) <= width {
+			lines[n-1] += sep + it
+			continue
+		}
+		lines = append(lines, it)
+	}
+	return lines
 }
 
 // blRange returns the largest value of lines aft of blRangeFromXC and the
@@ -208,18 +254,21 @@ func boundaryLayerPanels(sc *Scene, th *theme) (*blPanels, string, error) {
 	}
 	eb := vr.Elements[i]
 	quantities := []struct {
-		label string
-		get   func(solver.SurfaceBL) []float64
-		scale float64
+		label  string
+		short  string // in the caption
+		get    func(solver.SurfaceBL) []float64
+		scale  float64
+		legend bool // the panel that carries the key of the surfaces
 	}{
-		{"θ/c × 1000", func(s solver.SurfaceBL) []float64 { return s.Theta }, blScale},
-		{"H = δ*/θ", func(s solver.SurfaceBL) []float64 { return s.H }, 1},
-		{"Cf × 1000 (on freestream q)", func(s solver.SurfaceBL) []float64 { return s.Cf }, blScale},
+		{"θ/c × 1000", "θ/c × 1000", func(s solver.SurfaceBL) []float64 { return s.Theta }, blScale, false},
+		{"H = δ*/θ", "H", func(s solver.SurfaceBL) []float64 { return s.H }, 1, false},
+		{"Cf × 1000, on q∞", "Cf × 1000", func(s solver.SurfaceBL) []float64 { return s.Cf }, blScale, true},
 	}
 	upSty := lineStyle(th.upper, widthNormal, nil)
 	loSty := lineStyle(th.lower, widthNormal, dashLower)
 	var subs []*plot.Plot
-	for qi, q := range quantities {
+	var peaks []string
+	for _, q := range quantities {
 		p := newPlot(th, "", "x/c", q.label)
 		p.Y.Label.TextStyle.Font.Size = vg.Points(blLabelPt)
 		p.X.Label.TextStyle.Font.Size = vg.Points(blLabelPt)
@@ -237,7 +286,7 @@ func boundaryLayerPanels(sc *Scene, th *theme) (*blPanels, string, error) {
 		blMarks(p, eb.Lower, th.lower)
 		k := newKey(th, keyTopLeft)
 		k.keep(lines...)
-		if qi == 0 {
+		if q.legend {
 			k.add("upper surface", legendLine{upSty})
 			k.add("lower surface", legendLine{loSty})
 		}
@@ -248,7 +297,7 @@ func boundaryLayerPanels(sc *Scene, th *theme) (*blPanels, string, error) {
 		p.Y.Min = math.Min(p.Y.Min, 0)
 		if aft, all := blRange(lines); aft > 0 && all > blPeakRatio*aft {
 			p.Y.Max = aft
-			k.add(fmt.Sprintf("peak %.3g near the leading edge, off scale", all), legendLine{lineStyle(color.Transparent, 0, nil)})
+			peaks = append(peaks, fmt.Sprintf("%s peak %.3g near the leading edge is off scale", q.short, all))
 		}
 		_, p.Y.Max = padRange(p.Y.Min, p.Y.Max, 0.05)
 		if len(k.entries) > 0 {
@@ -262,7 +311,7 @@ func boundaryLayerPanels(sc *Scene, th *theme) (*blPanels, string, error) {
 	}
 	title := fmt.Sprintf("Boundary layer on %s: %s", eb.Name, cd)
 	return &blPanels{
-		caption:    blCaption(eb),
+		caption:    append(blCaption(eb), peaks...),
 		captionSty: noteStyle(th, th.fg, blCaptionPt, text.XCenter, text.YTop),
 		theta:      subs[0], h: subs[1], cf: subs[2],
 	}, title, nil
