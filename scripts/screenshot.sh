@@ -16,6 +16,8 @@
 # build dependencies (libgl1-mesa-dev, xorg-dev). Exits non-zero if the
 # window never appears.
 set -euo pipefail
+export LANG=${LANG:-en_US.UTF-8}
+[ "$LANG" = C.UTF-8 ] && export LANG=en_US.UTF-8  # Fyne cannot parse the C locale
 
 out=${1:?usage: scripts/screenshot.sh OUTDIR [study.json]}
 study=${2:-}
