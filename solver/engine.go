@@ -318,6 +318,12 @@ func coefficientsOf(sol *Solution) Coefficients {
 // angle of attack, re-placing and re-solving the whole configuration at
 // each count. progress is called after each solve.
 func (e *Engine) Density(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int)) (*DensityResult, error) {
+	return e.DensityEach(ctx, st, secs, progress, nil)
+}
+
+// DensityEach is Density that also hands each count's solution to each (if
+// not nil), in the order solved, for callers that draw them.
+func (e *Engine) DensityEach(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int), each func(panels int, nose float64, sol *Solution)) (*DensityResult, error) {
 	if err := st.Validate(); err != nil {
 		return nil, err
 	}
@@ -331,6 +337,9 @@ func (e *Engine) Density(ctx context.Context, st *model.Study, secs []*model.Sec
 		r, err := NewEngine().Run(ctx, Request{Study: s, Sections: secs})
 		if err != nil {
 			return nil, err
+		}
+		if each != nil {
+			each(panels, nose, r.Solution)
 		}
 		return r.Solution, nil
 	}

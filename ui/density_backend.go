@@ -40,36 +40,20 @@ var (
 )
 
 // runDensity runs the density study of st (its plan, at its angle of
-// attack) in one call of solver.DensityStudy. Each count is solved as
-// solver.(*Engine).Density solves it, by a fresh engine on a copy of the
-// study with that panel count and nose clustering; unlike Engine.Density
-// the solutions are kept, for the leading-edge overlay, so that nothing is
-// solved twice. A panic in the solver becomes an error.
+// attack) in one call of solver.(*Engine).DensityEach, keeping each count's
+// solution for the leading-edge overlay, so that nothing is solved twice.
+// A panic in the solver becomes an error.
 func runDensity(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int)) (out *densityOutcome, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			out, err = nil, fmt.Errorf("internal error in the density study: %v", r)
 		}
 	}()
-	if err := st.Validate(); err != nil {
-		return nil, err
-	}
-	opt := solver.DensityOptions{Panels: st.Density.Panels, Nose: st.Density.Nose, TolClPct: st.Density.TolClPct, TolCpMinPct: st.Density.TolCpMinPct}
-	if len(opt.Nose) == 0 {
-		opt.Nose = []float64{st.Panelling.Nose}
-	}
 	var curves []densityCurve
-	solve := func(panels int, nose float64) (*solver.Solution, error) {
-		s := st.Clone()
-		s.Panelling.Panels, s.Panelling.Nose = panels, nose
-		r, err := solver.NewEngine().Run(ctx, solver.Request{Study: s, Sections: secs})
-		if err != nil {
-			return nil, err
-		}
-		curves = append(curves, densityCurve{Panels: panels, Nose: nose, Solution: r.Solution})
-		return r.Solution, nil
+	keep := func(panels int, nose float64, sol *solver.Solution) {
+		curves = append(curves, densityCurve{Panels: panels, Nose: nose, Solution: sol})
 	}
-	res, err := solver.DensityStudy(ctx, opt, solve, progress)
+	res, err := solver.NewEngine().DensityEach(ctx, st, secs, progress, keep)
 	if err != nil {
 		return nil, err
 	}
