@@ -30,7 +30,6 @@ func (e *GeometryError) Unwrap() error { return e.Err }
 var (
 	ErrOverlap  = errors.New("elements overlap or touch")
 	ErrSmallGap = errors.New("gap too small for the panels")
-	ErrGround   = errors.New("configuration crosses the ground plane")
 )
 
 // minGapPanels is the smallest gap between two elements, in lengths of the
@@ -48,7 +47,7 @@ const minGapPanels = 1.0
 // that it still runs trailing edge → upper → leading edge → lower.
 //
 // Place checks the configuration: elements must not overlap or touch and
-// their gaps must exceed the local panel length (GeometryError).
+// their gaps must exceed the local panel length (GeometryError). The ground cannot be crossed: its clearance is measured to the lowest point at each angle.
 func Place(st *Study, sections []*Section) (*Layout, error) {
 	if len(sections) != len(st.Elements) {
 		panic(fmt.Sprintf("model: %d sections for %d elements", len(sections), len(st.Elements)))

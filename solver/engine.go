@@ -47,6 +47,7 @@ type ViscousPoint struct {
 	SeparationUpper float64
 	SeparationLower float64
 	Valid           bool
+	Note            string // why the estimate failed at this angle, when it did
 }
 
 // Forces are the dimensional results when the flow has a speed.
@@ -68,6 +69,7 @@ type Forces struct {
 // is used by one goroutine at a time.
 type Engine struct {
 	geomKey string
+	secs    []*model.Section // the sections the cached layout was placed from, held so no other section can take their addresses
 	layout  *model.Layout
 	sys     *System // free air only
 	sysCfg  Config
@@ -76,27 +78,44 @@ type Engine struct {
 // NewEngine returns an engine with nothing cached.
 func NewEngine() *Engine { return &Engine{} }
 
-// geometryKey identifies everything the placed geometry depends on.
-func geometryKey(st *model.Study, secs []*model.Section) string {
+// geometryKey identifies the study fields the placed geometry depends on.
+// Each element's section enters by its source's name only: the section
+// itself is compared by identity (sameSections), which is cheaper than
+// encoding embedded points on every update.
+func geometryKey(st *model.Study) string {
+	type elem struct {
+		Name, Source                string
+		ChordMM, XMM, YMM, AngleDeg float64
+	}
+	es := make([]elem, len(st.Elements))
+	for i, e := range st.Elements {
+		es[i] = elem{e.Name, e.Section.String(), e.ChordMM, e.XMM, e.YMM, e.AngleDeg}
+	}
 	b, err := json.Marshal(struct {
-		E []model.StudyElement
+		E []elem
 		P model.Panelling
 		I bool
 		G model.Ground
 		R float64
-	}{st.Elements, st.Panelling, st.Inverted, st.Ground, st.ReferenceChordMM})
+	}{es, st.Panelling, st.Inverted, st.Ground, st.ReferenceChordMM})
 	if err != nil {
 		panic("solver: study cannot be encoded: " + err.Error())
 	}
-	return string(b) + sectionsKey(secs)
+	return string(b)
 }
 
-func sectionsKey(secs []*model.Section) string {
-	s := ""
-	for _, sec := range secs {
-		s += fmt.Sprintf("|%p", sec)
+// sameSections reports whether a and b hold the same section values, one by
+// one.
+func sameSections(a, b []*model.Section) bool {
+	if len(a) != len(b) {
+		return false
 	}
-	return s
+	for i := range a {
+		if a[i] != b[i] {
+			return false
+		}
+	}
+	return true
 }
 
 // configAt builds the solver's configuration from the layout at an angle.
@@ -118,13 +137,14 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 	if err := st.Validate(); err != nil {
 		return nil, err
 	}
-	key := geometryKey(st, req.Sections)
-	if key != e.geomKey {
+	key := geometryKey(st)
+	if key != e.geomKey || !sameSections(req.Sections, e.secs) {
 		l, err := model.Place(st, req.Sections)
 		if err != nil {
 			return nil, err
 		}
 		e.geomKey, e.layout, e.sys = key, l, nil
+		e.secs = append([]*model.Section(nil), req.Sections...)
 	}
 	l := e.layout
 	res := &Result{Layout: l}
@@ -166,8 +186,11 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 	if st.Flow.SpeedMPS > 0 {
 		res.Forces = forces(st, l, sol, res.Viscous)
 	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
 	res.Elapsed = time.Since(start)
-	return res, ctx.Err()
+	return res, nil
 }
 
 // solveAt solves the current layout at one angle of attack, reusing the
@@ -237,7 +260,8 @@ func (e *Engine) sweep(ctx context.Context, st *model.Study, req Request, res *R
 func viscousPoint(alpha float64, sol *Solution, opt ViscousOptions) ViscousPoint {
 	p := ViscousPoint{AlphaDeg: alpha, Cd: math.NaN(), TransitionUpper: math.NaN(), TransitionLower: math.NaN(), SeparationUpper: math.NaN(), SeparationLower: math.NaN()}
 	v, err := sol.Viscous(opt)
-	if err != nil || len(v.Elements) == 0 {
+	if err != nil {
+		p.Note = err.Error()
 		return p
 	}
 	m := v.Elements[0]
@@ -334,6 +358,7 @@ func (e *Engine) DensityEach(ctx context.Context, st *model.Study, secs []*model
 	solve := func(panels int, nose float64) (*Solution, error) {
 		s := st.Clone()
 		s.Panelling.Panels, s.Panelling.Nose = panels, nose
+		s.Viscous.Enabled = false // the study judges the panel method's convergence
 		r, err := NewEngine().Run(ctx, Request{Study: s, Sections: secs})
 		if err != nil {
 			return nil, err

@@ -227,3 +227,19 @@ func BenchmarkDensityStudyDefault(b *testing.B) {
 		}
 	}
 }
+
+// A new section under an unchanged study is a new geometry: the engine
+// compares sections by identity and holds the ones it placed.
+func TestEngineNewSectionSameStudy(t *testing.T) {
+	st, secs := engineStudy(t, "0012")
+	e := NewEngine()
+	a := run(t, e, st, secs, false).Solution.Cl
+	other, _, err := model.SectionFromSpec("naca:4412", nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b := run(t, e, st, []*model.Section{other}, false).Solution.Cl
+	if a == b {
+		t.Errorf("Cl %g for both sections: the cached geometry was reused", a)
+	}
+}

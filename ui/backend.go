@@ -231,7 +231,6 @@ func checkGeometry(st *model.Study, secs []*model.Section) error {
 var (
 	errOverlap  = model.ErrOverlap
 	errSmallGap = model.ErrSmallGap
-	errGround   = model.ErrGround
 )
 
 type (

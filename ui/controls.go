@@ -125,9 +125,6 @@ func geometryText(err error) (string, bool) {
 	if errors.As(err, &me) {
 		a := fmt.Sprintf("%d “%s”", me.Elements[0]+1, me.Names[0])
 		if me.Elements[1] < 0 {
-			if errors.Is(err, errGround) {
-				return "Element " + a + " crosses the ground plane: raise the clearance.", true
-			}
 			return "Element " + a + ": " + me.Err.Error() + ".", true
 		}
 		b := fmt.Sprintf("%d “%s”", me.Elements[1]+1, me.Names[1])
