@@ -68,7 +68,16 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 			return err
 		}
 	}
-	st.Density.TolClPct, st.Density.TolCpMinPct = *tolCl, *tolCp
+	if in.set["tol-cl"] || st.Density.TolClPct == 0 {
+		st.Density.TolClPct = *tolCl
+	}
+	if in.set["tol-cp"] || st.Density.TolCpMinPct == 0 {
+		st.Density.TolCpMinPct = *tolCp
+	}
+	*tolCl, *tolCp = st.Density.TolClPct, st.Density.TolCpMinPct
+	if len(st.Density.Nose) > 1 && st.Panelling.Spacing != model.SpacingBlend {
+		return usagef("--nose %q: nose clustering changes the panels only with --spacing blend (the study uses %s)", noseList, st.Panelling.Spacing)
+	}
 	if err := st.Validate(); err != nil {
 		return flagError(err)
 	}
@@ -120,6 +129,7 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 	} else {
 		fmt.Fprintf(stdout, "no count in the list meets Cl within %g %% and min Cp within %g %%: extend the list\n", *tolCl, *tolCp)
 	}
+	fmt.Fprintln(stdout, caution)
 	return nil
 }
 

@@ -48,6 +48,9 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 	if *what == "" {
 		return usagef("give --what: %s", strings.Join(names, ", "))
 	}
+	if err := checkFigureSize(*width, *height, *dpi); err != nil {
+		return err
+	}
 	if *out == "" {
 		return usagef("give -o OUT (or -o - for standard output)")
 	}
@@ -136,6 +139,32 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	fmt.Fprintf(stderr, "wrote %s\n", *out)
+	return nil
+}
+
+// Figure size limits: a poster is under 50 inches a side, 10 dpi is the
+// coarsest useful raster and 1200 dpi the finest a printer resolves; a
+// raster side over 20 000 pixels would take gigabytes.
+const (
+	maxFigureIn   = 50
+	minFigureDPI  = 10
+	maxFigureDPI  = 1200
+	maxFigureSide = 20000
+)
+
+// checkFigureSize refuses sizes the renderer cannot or should not draw.
+func checkFigureSize(w, h, dpi float64) error {
+	for _, v := range []struct {
+		flag      string
+		x, lo, hi float64
+	}{{"--width-in", w, 0, maxFigureIn}, {"--height-in", h, 0, maxFigureIn}, {"--dpi", dpi, minFigureDPI, maxFigureDPI}} {
+		if !(v.x > v.lo && v.x <= v.hi) && !(v.flag == "--dpi" && v.x == v.lo) {
+			return usagef("%s %g: want a number in (%g, %g]", v.flag, v.x, v.lo, v.hi)
+		}
+	}
+	if w*dpi > maxFigureSide || h*dpi > maxFigureSide {
+		return usagef("--width-in × --dpi: %.0f × %.0f pixels is more than %d a side", w*dpi, h*dpi, maxFigureSide)
+	}
 	return nil
 }
 

@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"math"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -40,8 +41,8 @@ func addInputs(fs *flags, sweep bool, formats ...string) *inputs {
 	}
 	fs.IntVar(&in.panels, "panels", d.Panels, fmt.Sprintf("panel `count` per element, %d to %d", model.MinPanels, model.MaxPanels))
 	fs.StringVar(&in.spacing, "spacing", string(d.Spacing), "spacing `law`: cosine, uniform, blend or curvature")
-	fs.Float64Var(&in.nose, "nose", d.Nose, "nose clustering in [0, 1] (blend and curvature laws)")
-	fs.Float64Var(&in.tail, "tail", d.Tail, "tail clustering in [0, 1] (blend and curvature laws)")
+	fs.Float64Var(&in.nose, "nose", d.Nose, "nose clustering in [0, 1] (blend law)")
+	fs.Float64Var(&in.tail, "tail", d.Tail, "tail clustering in [0, 1] (blend law)")
 	fs.Float64Var(&in.re, "re", 0, "Reynolds `number` on the (first) element's chord; turns on the boundary-layer estimate")
 	fs.StringVar(&in.format, "format", formats[0], "output `format`: "+strings.Join(formats, ", "))
 	return in
@@ -52,7 +53,7 @@ func addInputs(fs *flags, sweep bool, formats ...string) *inputs {
 func (in *inputs) load(fs *flags) (*model.Study, []*model.Section, []*model.CleanReport, error) {
 	in.set = map[string]bool{}
 	fs.Visit(func(f *flag.Flag) { in.set[f.Name] = true })
-	if !contains(in.formats, in.format) {
+	if !slices.Contains(in.formats, in.format) {
 		return nil, nil, nil, usagef("--format %q: want one of %s", in.format, strings.Join(in.formats, ", "))
 	}
 	switch {
@@ -133,15 +134,6 @@ func flagError(err error) error {
 		return err
 	}
 	return usagef("%s: %v", name, fe.Err)
-}
-
-func contains(list []string, s string) bool {
-	for _, x := range list {
-		if x == s {
-			return true
-		}
-	}
-	return false
 }
 
 // parseRange reads FROM:TO:STEP.

@@ -46,6 +46,11 @@ func TestExitCodesAndMessages(t *testing.T) {
 		{"sweep step zero", []string{"sweep", "--section", "naca:0012", "--alpha", "0:10:0"}, exitUsage, []string{"step"}},
 		{"missing study", []string{"solve", "--study", filepath.Join(dir, "none.json")}, exitInput, []string{"none.json"}},
 		{"clean without file", []string{"clean"}, exitUsage, []string{"clean IN"}},
+		{"figure dpi zero", []string{"export", "--section", "naca:0012", "--what", "figure", "--dpi", "0", "-o", "x.png"}, exitUsage, []string{"--dpi"}},
+		{"figure dpi rounds to zero", []string{"export", "--section", "naca:0012", "--what", "figure", "--dpi", "0.4", "-o", "x.png"}, exitUsage, []string{"--dpi"}},
+		{"figure negative width", []string{"export", "--section", "naca:0012", "--what", "figure", "--width-in", "-1", "-o", "x.png"}, exitUsage, []string{"--width-in"}},
+		{"figure huge", []string{"export", "--section", "naca:0012", "--what", "figure", "--width-in", "40", "--dpi", "1200", "-o", "x.png"}, exitUsage, []string{"pixels"}},
+		{"nose list without blend", []string{"density", "--section", "naca:0012", "--nose", "0.2,0.8"}, exitUsage, []string{"blend"}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			code, _, stderr := runCLI(t, tc.args...)
@@ -150,8 +155,17 @@ func TestSweepCSVAndText(t *testing.T) {
 		if code != exitOK {
 			t.Fatalf("%s: exit %d: %s", f, code, stderr)
 		}
-		if lines := strings.Count(strings.TrimSpace(out), "\n") + 1; lines != 4 {
-			t.Errorf("%s: %d lines, want a header and 3 rows:\n%s", f, lines, out)
+		rows := 0
+		for _, l := range strings.Split(strings.TrimSpace(out), "\n") {
+			if !strings.HasPrefix(l, "caution:") && !strings.HasPrefix(l, "warning:") {
+				rows++
+			}
+		}
+		if rows != 4 {
+			t.Errorf("%s: %d table lines, want a header and 3 rows:\n%s", f, rows, out)
+		}
+		if f == "text" && !strings.Contains(out, "caution: 2-D estimate") {
+			t.Errorf("text output without the caution:\n%s", out)
 		}
 	}
 }

@@ -6,6 +6,7 @@ import (
 	"io"
 	"math"
 	"strconv"
+	"strings"
 	"text/tabwriter"
 
 	"sectionbench/model"
@@ -211,7 +212,7 @@ func solveText(w io.Writer, st *model.Study, res *solver.Result, out jsonSolve) 
 	for _, m := range out.Warnings {
 		fmt.Fprintf(tw, "warning\t%s\n", m)
 	}
-	fmt.Fprintln(tw, "caution\t2-D estimate: validate by test; structural design and mounting follow the competition's rules and qualified engineering review")
+	fmt.Fprintln(tw, "caution\t"+strings.TrimPrefix(caution, "caution: "))
 	return tw.Flush()
 }
 
@@ -221,3 +222,7 @@ func fmtNum(f float64, format string) string {
 	}
 	return fmt.Sprintf(format, f)
 }
+
+// caution ends every text output: these are estimates that can hurt
+// someone if trusted blindly.
+const caution = "caution: 2-D estimate: validate by test; structural design and mounting follow the competition's rules and qualified engineering review"

@@ -63,7 +63,14 @@ func cmdSweep(args []string, stdout, stderr io.Writer) error {
 		}
 		fmt.Fprintln(tw)
 	}
-	return tw.Flush()
+	if err := tw.Flush(); err != nil {
+		return err
+	}
+	for _, w := range res.Solution.Warnings {
+		fmt.Fprintln(stdout, "warning: "+w)
+	}
+	_, err = fmt.Fprintln(stdout, caution)
+	return err
 }
 
 func fmtShort(f float64, format string) string {
