@@ -17,6 +17,15 @@ const (
 	MaxStudyBytes = 8 << 20
 	// MaxPins bounds the pins kept in a study.
 	MaxPins = 20
+	// MaxTotalPanels bounds the panels of all elements together. The
+	// influence matrix has about that many rows and columns: 3000 makes a
+	// 72 MB matrix whose LU takes a few seconds on a laptop; five elements
+	// at the 2000-panel maximum would take 800 MB and minutes.
+	MaxTotalPanels = 3000
+	// MaxDensityCounts and MaxDensityNose bound a density study's lists
+	// (each pair is one full solve).
+	MaxDensityCounts = 12
+	MaxDensityNose   = 6
 )
 
 // Physical ranges a study accepts. They are generous bounds on what a wing
@@ -210,7 +219,19 @@ func (st *Study) Validate() error {
 	if len(st.Pins) > MaxPins {
 		return &FieldError{Field: "pins", Err: fmt.Errorf("%d pins; at most %d", len(st.Pins), MaxPins)}
 	}
+	if n := st.Panelling.Panels * len(st.Elements); n > MaxTotalPanels {
+		return &FieldError{Field: "panelling.panels", Err: fmt.Errorf("%d panels on each of %d elements is %d in all, more than %d", st.Panelling.Panels, len(st.Elements), n, MaxTotalPanels)}
+	}
+	if n := len(st.Density.Panels); n > MaxDensityCounts {
+		return &FieldError{Field: "density.panels", Err: fmt.Errorf("%d counts; at most %d", n, MaxDensityCounts)}
+	}
+	if n := len(st.Density.Nose); n > MaxDensityNose {
+		return &FieldError{Field: "density.nose", Err: fmt.Errorf("%d values; at most %d", n, MaxDensityNose)}
+	}
 	for i, n := range st.Density.Panels {
+		if n*len(st.Elements) > MaxTotalPanels {
+			return &FieldError{Field: fmt.Sprintf("density.panels[%d]", i), Err: fmt.Errorf("%d panels on each of %d elements is more than %d in all", n, len(st.Elements), MaxTotalPanels)}
+		}
 		if n < MinPanels || n > MaxPanels {
 			return &FieldError{Field: fmt.Sprintf("density.panels[%d]", i), Err: fmt.Errorf("%d is outside %d..%d", n, MinPanels, MaxPanels)}
 		}

@@ -77,6 +77,7 @@ func TestDecodeStudyErrors(t *testing.T) {
 		{"ground without clearance", `"flow"`, `"ground": {"enabled": true, "clearance_mm": 0}, "flow"`, "ground.clearance_mm", "positive"},
 		{"embedded with too few points", `"section": "naca:4412"`, `"section": {"name": "a", "points": [[0,0],[1,0]]}`, "elements[0].section.points", "too few"},
 		{"sweep backwards", `"to_deg": 12`, `"to_deg": -10`, "sweep.to_deg", "below"},
+		{"density list too long", `"flow"`, `"density": {"panels": [16,17,18,19,20,21,22,23,24,25,26,27,28]}, "flow"`, "density.panels", "at most"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			doc := strings.Replace(good, tc.from, tc.to, 1)
@@ -103,5 +104,20 @@ func TestDecodeStudyErrors(t *testing.T) {
 	}
 	if _, err := DecodeStudy([]byte(good)); err != nil {
 		t.Fatalf("the good document fails: %v", err)
+	}
+}
+
+// Five elements at the per-element maximum would make an 800 MB system:
+// the total is bounded too.
+func TestStudyTotalPanels(t *testing.T) {
+	st := twoElementStudy()
+	st.Panelling.Panels = MaxPanels
+	var fe *FieldError
+	if err := st.Validate(); !errors.As(err, &fe) || fe.Field != "panelling.panels" {
+		t.Errorf("2 × %d panels: %v, want a FieldError on panelling.panels", MaxPanels, err)
+	}
+	st.Panelling.Panels = MaxTotalPanels / 2
+	if err := st.Validate(); err != nil {
+		t.Errorf("2 × %d panels: %v", MaxTotalPanels/2, err)
 	}
 }
