@@ -182,7 +182,9 @@ type Ground struct {
 type Viscous struct {
 	Enabled bool `json:"enabled"`
 	// Forced transition (trip) positions in x/c per surface; 0 or absent
-	// means free transition.
+	// means free transition. Surfaces are as mounted, like every upper and
+	// lower in the results: on an inverted wing the suction side is the
+	// lower surface.
 	TripUpper float64 `json:"trip_upper,omitempty"`
 	TripLower float64 `json:"trip_lower,omitempty"`
 }

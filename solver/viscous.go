@@ -34,8 +34,9 @@ type ViscousOptions struct {
 	Re []float64
 	// TripUpper and TripLower are forced-transition positions in x/c on the
 	// boundary layers that run from the stagnation point towards the first
-	// and the last node (the upper and lower surface of an upright
-	// section); 0 means free transition. They apply to every element.
+	// and the last node: the upper and lower surface as mounted (on an
+	// inverted wing the suction side is the lower surface); 0 means free
+	// transition. They apply to every element.
 	TripUpper, TripLower float64
 	// TurbulentSeparationH is the turbulent separation threshold; 0 means
 	// DefaultTurbulentSeparationH.
