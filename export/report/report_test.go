@@ -70,17 +70,9 @@ func density(t *testing.T, st *model.Study) *solver.DensityResult {
 		}
 		secs[i] = s
 	}
-	solve := func(panels int, nose float64) (*solver.Solution, error) {
-		c := st.Clone()
-		c.Panelling.Panels, c.Panelling.Nose = panels, nose
-		c.Viscous.Enabled = false
-		r, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: c, Sections: secs})
-		if err != nil {
-			return nil, err
-		}
-		return r.Solution, nil
-	}
-	d, err := solver.DensityStudy(context.Background(), solver.DensityOptions{Panels: []int{40, 80, 160, 320}, Nose: []float64{0.3, 0.7}}, solve, nil)
+	c := st.Clone()
+	c.Density = model.DensityPlan{Panels: []int{40, 80, 160, 320}, Nose: []float64{0.3, 0.7}}
+	d, err := solver.NewEngine().Density(context.Background(), c, secs, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
