@@ -115,22 +115,28 @@ func (p *plotCanvas) sized(size fyne.Size) {
 	}
 	s := p.scale()
 	w, h := int(math.Round(float64(size.Width*s))), int(math.Round(float64(size.Height*s)))
-	p.mu.Lock()
-	changed := w != p.pxW || h != p.pxH
-	p.pxW, p.pxH = w, h
-	p.dpi = baseDPI * float64(w) / float64(size.Width)
-	p.mu.Unlock()
-	if changed {
-		p.renderLater()
-	}
+	p.change(func() bool {
+		changed := w != p.pxW || h != p.pxH
+		p.pxW, p.pxH = w, h
+		p.dpi = baseDPI * float64(w) / float64(size.Width)
+		return changed
+	})
 }
 
 // setDark chooses the figure colours; the UI goroutine calls it on theme
 // changes.
 func (p *plotCanvas) setDark(dark bool) {
+	p.change(func() bool {
+		changed := p.dark != dark
+		p.dark = dark
+		return changed
+	})
+}
+
+// change runs set under the lock and redraws if it reports a change.
+func (p *plotCanvas) change(set func() (changed bool)) {
 	p.mu.Lock()
-	changed := p.dark != dark
-	p.dark = dark
+	changed := set()
 	p.mu.Unlock()
 	if changed {
 		p.renderLater()
@@ -213,25 +219,21 @@ func (p *plotCanvas) figure() figKind {
 
 // setFigure switches what the view draws and redraws it.
 func (p *plotCanvas) setFigure(f figKind) {
-	p.mu.Lock()
-	changed := p.shows != f
-	p.shows = f
-	p.mu.Unlock()
-	if changed {
-		p.renderLater()
-	}
+	p.change(func() bool {
+		changed := p.shows != f
+		p.shows = f
+		return changed
+	})
 }
 
 // setElement chooses the element of the pressure and boundary-layer
 // figures (−1: all, or the first) and redraws.
 func (p *plotCanvas) setElement(i int) {
-	p.mu.Lock()
-	changed := p.element != i
-	p.element = i
-	p.mu.Unlock()
-	if changed {
-		p.renderLater()
-	}
+	p.change(func() bool {
+		changed := p.element != i
+		p.element = i
+		return changed
+	})
 }
 
 // viewNote explains an empty view; visSweep tells whether the sweep has
