@@ -187,7 +187,19 @@ type Viscous struct {
 	// lower surface.
 	TripUpper float64 `json:"trip_upper,omitempty"`
 	TripLower float64 `json:"trip_lower,omitempty"`
+	// SeparationH is the shape factor at which the turbulent boundary
+	// layer is taken to separate; 0 or absent means the solver's default
+	// (2.4), else it lies in [MinSeparationH, MaxSeparationH].
+	SeparationH float64 `json:"separation_h,omitempty"`
 }
+
+// The range of turbulent separation thresholds a study may set: texts put
+// turbulent separation in Head's method anywhere in H ≈ 2.2–3.0 (2.2–2.4 in
+// common teaching use), with margin at the low end.
+const (
+	MinSeparationH = 2.0
+	MaxSeparationH = 3.0
+)
 
 // DensityPlan lists the panel counts and nose clusterings of a density
 // study and its tolerances.

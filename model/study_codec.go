@@ -205,6 +205,9 @@ func (st *Study) Validate() error {
 			return &FieldError{Field: c.name, Err: err}
 		}
 	}
+	if h := st.Viscous.SeparationH; h != 0 && !(h >= MinSeparationH && h <= MaxSeparationH) {
+		return &FieldError{Field: "viscous.separation_h", Err: fmt.Errorf("%g is outside %g..%g", h, float64(MinSeparationH), float64(MaxSeparationH))}
+	}
 	if st.Ground.Enabled && !(st.Ground.ClearanceMM > 0) {
 		return &FieldError{Field: "ground.clearance_mm", Err: errors.New("must be positive when the ground is on")}
 	}

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sectionbench/model"
 )
 
 // Constants of the integral boundary-layer estimate. Each says where it
@@ -32,10 +33,10 @@ const (
 	// permissive end sets 2.8 or 3.0.
 	DefaultTurbulentSeparationH = 2.4
 	// MinTurbulentSeparationH and MaxTurbulentSeparationH bound the
-	// threshold a caller may choose: the published range, with margin
-	// at the low end.
-	MinTurbulentSeparationH = 2.0
-	MaxTurbulentSeparationH = 3.0
+	// threshold a caller may choose (model.MinSeparationH and
+	// model.MaxSeparationH, which a study is validated against).
+	MinTurbulentSeparationH = model.MinSeparationH
+	MaxTurbulentSeparationH = model.MaxSeparationH
 )
 
 // Head's entrainment method and the Ludwieg–Tillmann skin friction law,

@@ -164,7 +164,7 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 		if res.Reynolds == nil {
 			return nil, &model.FieldError{Field: "flow.speed_mps", Err: fmt.Errorf("the boundary-layer estimate needs a speed or a Reynolds number")}
 		}
-		vopt = ViscousOptions{Re: res.Reynolds, TripUpper: st.Viscous.TripUpper, TripLower: st.Viscous.TripLower}
+		vopt = ViscousOptions{Re: res.Reynolds, TripUpper: st.Viscous.TripUpper, TripLower: st.Viscous.TripLower, TurbulentSeparationH: st.Viscous.SeparationH}
 		v, err := sol.Viscous(vopt)
 		if err != nil {
 			return nil, err

@@ -243,3 +243,25 @@ func TestEngineNewSectionSameStudy(t *testing.T) {
 		t.Errorf("Cl %g for both sections: the cached geometry was reused", a)
 	}
 }
+
+// The study's separation threshold reaches the boundary layer: a more
+// permissive H moves turbulent separation aft or removes it.
+func TestEngineSeparationThreshold(t *testing.T) {
+	st, secs := engineStudy(t, "4412")
+	st.Flow.Reynolds = 3e5
+	st.Flow.AlphaDeg = 8
+	st.Viscous.Enabled = true
+	sepAt := func(h float64) float64 {
+		st.Viscous.SeparationH = h
+		v := run(t, NewEngine(), st, secs, false).Viscous
+		x := v.Elements[0].Upper.TurbulentSeparationXC
+		if math.IsNaN(x) {
+			return 1
+		}
+		return x
+	}
+	strict, lax := sepAt(2.0), sepAt(3.0)
+	if !(lax > strict) {
+		t.Errorf("separation at x/c %g with H = 2.0 and %g with H = 3.0: want it later with the larger threshold", strict, lax)
+	}
+}
