@@ -282,3 +282,43 @@ func TestDensityRowPanelLengths(t *testing.T) {
 		t.Errorf("shortest panel %.4g m, cosine spacing gives %.4g m", row.ShortestPanel, want)
 	}
 }
+
+// TestExtrapolateOrderBand: Richardson extrapolation is accepted only for an
+// observed order in [MinObservedOrder, MaxObservedOrder] (Roache 1998, ch.
+// 5: an observed order far from the formal one means the counts are not in
+// the asymptotic range). The sequences are closed forms f = 1 − C h^p with
+// h halving, so p is known exactly.
+func TestExtrapolateOrderBand(t *testing.T) {
+	counts := []int{80, 160, 320}
+	seq := func(p float64) []float64 {
+		f := make([]float64, 3)
+		for i := range f {
+			f[i] = 1 - 0.2*math.Pow(2, -p*float64(i))
+		}
+		return f
+	}
+	for _, c := range []struct {
+		name string
+		f    []float64
+		ok   bool
+	}{
+		{"near-zero order (review case)", []float64{1.0, 0.8, 0.60001}, false},
+		{"order 0.3", seq(0.3), false},
+		{"order 0.5", seq(0.5 + 1e-9), true},
+		{"order 2", seq(2), true},
+		{"order 6", seq(6 - 1e-9), true},
+		{"order 8", seq(8), false},
+	} {
+		e := extrapolate(counts, c.f)
+		if e.OK != c.ok {
+			t.Errorf("%s: OK = %v, want %v (%+v)", c.name, e.OK, c.ok, e)
+			continue
+		}
+		if !c.ok && (e.Value != c.f[2] || !math.IsNaN(e.ErrorEstimate) || !math.IsNaN(e.ObservedOrder)) {
+			t.Errorf("%s: rejected extrapolation %+v, want the finest value %g and NaNs", c.name, e, c.f[2])
+		}
+		if c.ok && math.Abs(e.Value-1) > 1e-9 {
+			t.Errorf("%s: extrapolated %g, want 1", c.name, e.Value)
+		}
+	}
+}
