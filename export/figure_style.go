@@ -252,13 +252,22 @@ func (e extent) empty() bool { return e.x0 > e.x1 }
 // as many decimals as the step needs and a true minus sign.
 type niceTicks struct{}
 
-// Ticks implements plot.Ticker.
+// maxTickSteps bounds the major steps Ticks walks: about eight fall in any
+// range, plus one before the first; the bound only guards the loop.
+const maxTickSteps = 64
+
+// Ticks implements plot.Ticker. An empty, reversed, NaN or infinite range
+// has no ticks. A range so narrow that the step is below the resolution of
+// its ends (a few ulps wide: lo/step beyond 2^52, where k·step no longer
+// moves with k), or so wide that the steps overflow, gets one labelled tick
+// at each end instead. The loop runs
+// over an integer count of steps, so it always ends.
 func (niceTicks) Ticks(lo, hi float64) []plot.Tick {
 	if !(hi > lo) || math.IsInf(lo, 0) || math.IsInf(hi, 0) {
 		return nil
 	}
 	const target = 6
-	raw := (hi - lo) / target
+	raw := hi/target - lo/target // no overflow for ranges near ±MaxFloat64
 	mag := math.Pow(10, math.Floor(math.Log10(raw)))
 	var step float64
 	var minor int
@@ -272,11 +281,17 @@ func (niceTicks) Ticks(lo, hi float64) []plot.Tick {
 	default:
 		step, minor = 10*mag, 5
 	}
+	first := math.Ceil(lo/step - 1e-9)
+	last := math.Floor(hi/step + 1e-9)
+	if !(step > 0) || math.IsInf(step, 0) || math.IsNaN(first) || math.IsNaN(last) ||
+		math.Max(math.Abs(first), math.Abs(last)) > 1<<52 || last-first > maxTickSteps ||
+		math.IsInf((first-1)*step, 0) || math.IsInf((last+1)*step, 0) {
+		return endTicks(lo, hi)
+	}
 	dec := max(0, int(-math.Floor(math.Log10(step)+1e-9)))
 	var ts []plot.Tick
-	first := math.Ceil(lo/step - 1e-9)
-	for k := first - 1; ; k++ {
-		v := k * step
+	for i := range int(last-first) + 2 {
+		v := (first - 1 + float64(i)) * step
 		if v > hi+step*1e-9 {
 			break
 		}
@@ -291,6 +306,15 @@ func (niceTicks) Ticks(lo, hi float64) []plot.Tick {
 		}
 	}
 	return ts
+}
+
+// endTicks labels the two ends of a range too narrow (or too wide) for a
+// 1, 2, 5 step, with the shortest decimals that tell them apart.
+func endTicks(lo, hi float64) []plot.Tick {
+	label := func(v float64) string {
+		return strings.Replace(strconv.FormatFloat(v, 'g', -1, 64), "-", "\u2212", 1)
+	}
+	return []plot.Tick{{Value: lo, Label: label(lo)}, {Value: hi, Label: label(hi)}}
 }
 
 // formatTick formats v with dec decimals, a true minus sign and no
