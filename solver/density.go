@@ -2,6 +2,7 @@ package solver
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"math"
 
@@ -55,7 +56,17 @@ type DensityRow struct {
 	// ShortestPanel and LongestPanel are the same panels' lengths in the
 	// configuration's length unit: metres for a placed study (Layout).
 	ShortestPanel, LongestPanel float64
+	// Skipped is why this count was not solved, empty when it was: the
+	// geometry at this count failed a check (e.g. a gap between elements
+	// shorter than the panels, model.ErrSmallGap). Err is that error, for
+	// errors.Is and errors.As. A skipped row's values are NaN, and the
+	// extrapolations and the recommendation leave it out.
+	Skipped string
+	Err     error
 }
+
+// Solved reports whether the row holds a solution (it was not skipped).
+func (r DensityRow) Solved() bool { return r.Err == nil }
 
 // Extrapolation is a Richardson extrapolation from the three finest counts.
 type Extrapolation struct {
@@ -138,11 +149,19 @@ func Richardson(f2, f3, r, p float64) (value, errEstimate float64) {
 // is OK and with the finest value otherwise, because the suction peak
 // often converges unevenly as it moves between panels.
 //
+// A count whose geometry fails a check (solve returns an error matching
+// model.ErrSmallGap or model.ErrOverlap, or a *GeometryError: at coarse
+// counts the panels can be longer than the gap between two elements) is
+// recorded as a skipped row (DensityRow.Skipped, DensityRow.Err) and the
+// study goes on; extrapolation and recommendation use the counts that
+// solved, so with fewer than three of them no extrapolation is OK. If no
+// count solves at all, DensityStudy returns the first such error.
+//
 // progress, if not nil, is called after each solve with the number done and
 // the total. The context is checked before each solve; on cancellation
 // DensityStudy returns ctx.Err(). Bad options return a *model.FieldError
-// naming the density-plan field; an error from solve is returned wrapped
-// with the count and nose value.
+// naming the density-plan field; any other error from solve is returned
+// wrapped with the count and nose value.
 func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int, nose float64) (*Solution, error), progress func(done, total int)) (*DensityResult, error) {
 	opt, err := opt.withDefaults()
 	if err != nil {
@@ -151,20 +170,34 @@ func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int
 	total := len(opt.Panels) * len(opt.Nose)
 	res := &DensityResult{}
 	done := 0
+	var firstSkip error
+	solved := 0
 	for _, nose := range opt.Nose {
 		first := len(res.Rows)
-		for k, n := range opt.Panels {
+		prev := -1 // index in res.Rows of the last solved row of this nose value
+		for _, n := range opt.Panels {
 			if err := ctx.Err(); err != nil {
 				return nil, err
 			}
 			sol, err := solve(n, nose)
-			if err != nil {
+			var row DensityRow
+			switch {
+			case err == nil:
+				row = densityRow(sol, n, nose)
+				if prev >= 0 {
+					p := res.Rows[prev]
+					row.DCl, row.DCm, row.DCpMin = row.Cl-p.Cl, row.Cm-p.Cm, row.CpMin-p.CpMin
+				}
+				prev = len(res.Rows)
+				solved++
+			case skippableDensityError(err):
+				err = fmt.Errorf("density study at %d panels, nose %g: %w", n, nose, err)
+				if firstSkip == nil {
+					firstSkip = err
+				}
+				row = skippedRow(n, nose, err)
+			default:
 				return nil, fmt.Errorf("density study at %d panels, nose %g: %w", n, nose, err)
-			}
-			row := densityRow(sol, n, nose)
-			if k > 0 {
-				prev := res.Rows[len(res.Rows)-1]
-				row.DCl, row.DCm, row.DCpMin = row.Cl-prev.Cl, row.Cm-prev.Cm, row.CpMin-prev.CpMin
 			}
 			res.Rows = append(res.Rows, row)
 			done++
@@ -174,9 +207,27 @@ func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int
 		}
 		res.Series = append(res.Series, densitySeries(res.Rows[first:], nose, opt))
 	}
+	if solved == 0 {
+		return nil, firstSkip
+	}
 	s0 := res.Series[0]
 	res.Cl, res.Cm, res.CpMin, res.RecommendedPanels = s0.Cl, s0.Cm, s0.CpMin, s0.RecommendedPanels
 	return res, nil
+}
+
+// skippableDensityError reports whether err is a geometry check that a
+// density study records as a skipped count rather than an abort.
+func skippableDensityError(err error) bool {
+	var ge *GeometryError
+	return errors.Is(err, model.ErrSmallGap) || errors.Is(err, model.ErrOverlap) || errors.As(err, &ge)
+}
+
+// skippedRow is the row of a count that was not solved.
+func skippedRow(n int, nose float64, err error) DensityRow {
+	nan := math.NaN()
+	return DensityRow{Panels: n, Nose: nose, Cl: nan, Cm: nan, CpMin: nan, DCl: nan, DCm: nan, DCpMin: nan,
+		MinPanelLength: nan, MaxPanelLength: nan, ShortestPanel: nan, LongestPanel: nan,
+		Skipped: err.Error(), Err: err}
 }
 
 // withDefaults fills in defaults and validates the options.
@@ -246,20 +297,20 @@ func densityRow(sol *Solution, n int, nose float64) DensityRow {
 }
 
 // densitySeries extrapolates one nose value's rows and recommends a count.
+// Skipped rows are left out of the extrapolation; the recommended count and
+// every finer one must have solved.
 func densitySeries(rows []DensityRow, nose float64, opt DensityOptions) DensitySeries {
 	ser := DensitySeries{Nose: nose}
-	get := func(f func(DensityRow) float64) []float64 {
-		v := make([]float64, len(rows))
-		for i, r := range rows {
-			v[i] = f(r)
+	var counts []int
+	var cl, cm, cpm []float64
+	for _, r := range rows {
+		if r.Solved() {
+			counts = append(counts, r.Panels)
+			cl, cm, cpm = append(cl, r.Cl), append(cm, r.Cm), append(cpm, r.CpMin)
 		}
-		return v
 	}
-	counts := opt.Panels
-	cl := get(func(r DensityRow) float64 { return r.Cl })
-	cpm := get(func(r DensityRow) float64 { return r.CpMin })
 	ser.Cl = extrapolate(counts, cl)
-	ser.Cm = extrapolate(counts, get(func(r DensityRow) float64 { return r.Cm }))
+	ser.Cm = extrapolate(counts, cm)
 	ser.CpMin = extrapolate(counts, cpm)
 	if !ser.Cl.OK {
 		return ser
@@ -268,11 +319,12 @@ func densitySeries(rows []DensityRow, nose float64, opt DensityOptions) DensityS
 		return math.Abs(v-ref) <= pct/100*math.Max(math.Abs(ref), floor)
 	}
 	for i := len(rows) - 1; i >= 0; i-- {
-		if !within(cl[i], ser.Cl.Value, densityClFloor, opt.TolClPct) ||
-			!within(cpm[i], ser.CpMin.Value, densityCpMinFloor, opt.TolCpMinPct) {
+		r := rows[i]
+		if !r.Solved() || !within(r.Cl, ser.Cl.Value, densityClFloor, opt.TolClPct) ||
+			!within(r.CpMin, ser.CpMin.Value, densityCpMinFloor, opt.TolCpMinPct) {
 			break
 		}
-		ser.RecommendedPanels = counts[i]
+		ser.RecommendedPanels = r.Panels
 	}
 	return ser
 }
@@ -283,7 +335,10 @@ func densitySeries(rows []DensityRow, nose float64, opt DensityOptions) DensityS
 // MaxObservedOrder]; outside it OK is false.
 func extrapolate(counts []int, f []float64) Extrapolation {
 	n := len(f)
-	bad := Extrapolation{Value: f[n-1], ErrorEstimate: math.NaN(), ObservedOrder: math.NaN()}
+	bad := Extrapolation{Value: math.NaN(), ErrorEstimate: math.NaN(), ObservedOrder: math.NaN()}
+	if n > 0 {
+		bad.Value = f[n-1]
+	}
 	if n < 3 {
 		return bad
 	}

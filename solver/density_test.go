@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"os"
 	"testing"
 
 	"sectionbench/model"
@@ -321,4 +322,119 @@ func TestExtrapolateOrderBand(t *testing.T) {
 			t.Errorf("%s: extrapolated %g, want 1", c.name, e.Value)
 		}
 	}
+}
+
+// TestDensityStudySkipsGeometryErrors: a count whose geometry fails a check
+// is a skipped row carrying the error; the extrapolation and recommendation
+// use the counts that solved. Other errors still abort. The solved values
+// are the closed forms of fakeSolution (Cl = 1 + 40/N², exact p = 2).
+func TestDensityStudySkipsGeometryErrors(t *testing.T) {
+	gap := &model.GeometryError{Elements: [2]int{0, 1}, Names: [2]string{"main", "flap"}, Err: fmt.Errorf("%w: 2.09 mm apart where the panels are 6.12 mm long", model.ErrSmallGap)}
+	failAt := func(bad map[int]error) func(int, float64) (*Solution, error) {
+		return func(n int, _ float64) (*Solution, error) {
+			if err := bad[n]; err != nil {
+				return nil, err
+			}
+			return fakeSolution(n, 40, -300, 0.2), nil
+		}
+	}
+	for _, c := range []struct {
+		name    string
+		bad     map[int]error
+		skipped []int
+		clOK    bool
+	}{
+		{"small gap at 20", map[int]error{20: gap}, []int{20}, true},
+		{"overlap at 20 and 40", map[int]error{20: fmt.Errorf("placing: %w", model.ErrOverlap), 40: gap}, []int{20, 40}, true},
+		{"solver geometry error", map[int]error{20: &GeometryError{Element: 0, Panel: 3, Err: ErrDegeneratePanel}}, []int{20}, true},
+		{"only two solve", map[int]error{20: gap, 40: gap, 80: gap, 160: gap}, []int{20, 40, 80, 160}, false},
+	} {
+		res, err := DensityStudy(context.Background(), DensityOptions{}, failAt(c.bad), nil)
+		if err != nil {
+			t.Errorf("%s: %v", c.name, err)
+			continue
+		}
+		var skipped []int
+		for _, r := range res.Rows {
+			if !r.Solved() {
+				skipped = append(skipped, r.Panels)
+				if r.Skipped == "" || !errors.Is(r.Err, c.bad[r.Panels]) || !math.IsNaN(r.Cl) || !math.IsNaN(r.CpMin) {
+					t.Errorf("%s: skipped row %+v", c.name, r)
+				}
+			}
+		}
+		if fmt.Sprint(skipped) != fmt.Sprint(c.skipped) {
+			t.Errorf("%s: skipped %v, want %v", c.name, skipped, c.skipped)
+		}
+		if res.Cl.OK != c.clOK {
+			t.Errorf("%s: Cl extrapolation %+v, want OK %v", c.name, res.Cl, c.clOK)
+		}
+		if c.clOK && (math.Abs(res.Cl.Value-1) > 1e-12 || res.RecommendedPanels != 160) {
+			t.Errorf("%s: Cl → %g, recommended %d; want 1 and 160 (closed forms)", c.name, res.Cl.Value, res.RecommendedPanels)
+		}
+		if !c.clOK && res.RecommendedPanels != 0 {
+			t.Errorf("%s: recommended %d without an extrapolation", c.name, res.RecommendedPanels)
+		}
+		// The first solved row has no change; the next compares with it.
+		var solved []DensityRow
+		for _, r := range res.Rows {
+			if r.Solved() {
+				solved = append(solved, r)
+			}
+		}
+		if !math.IsNaN(solved[0].DCl) || math.Abs(solved[1].DCl-(solved[1].Cl-solved[0].Cl)) > 1e-15 {
+			t.Errorf("%s: DCl %g, %g", c.name, solved[0].DCl, solved[1].DCl)
+		}
+	}
+	// Every count failing is an error; so is anything not a geometry check.
+	all := map[int]error{}
+	for _, n := range DefaultDensityPanels {
+		all[n] = gap
+	}
+	if _, err := DensityStudy(context.Background(), DensityOptions{}, failAt(all), nil); !errors.Is(err, model.ErrSmallGap) {
+		t.Errorf("no count solves: error %v, want ErrSmallGap", err)
+	}
+	for _, bad := range []error{&SingularError{Cond: math.Inf(1)}, context.Canceled, errors.New("boom")} {
+		if _, err := DensityStudy(context.Background(), DensityOptions{}, failAt(map[int]error{40: bad}), nil); !errors.Is(err, bad) && !errors.Is(err, ErrSingular) {
+			t.Errorf("error %v at 40 panels: got %v, want an abort", bad, err)
+		}
+	}
+}
+
+// TestDensityStudyRearWing: the two-element example study, whose 20- and
+// 40-panel counts fail the placement check (the gap between main plane and flap is
+// shorter than the panels), completes with that count skipped.
+func TestDensityStudyRearWing(t *testing.T) {
+	b, err := os.ReadFile("../testdata/studies/rear-wing.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	st, err := model.DecodeStudy(b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var secs []*model.Section
+	for _, e := range st.Elements {
+		sec, _, err := model.SectionFromSource(e.Section, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		secs = append(secs, sec)
+	}
+	res, err := NewEngine().Density(context.Background(), st, secs, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The coarse counts (20 and 40 panels: 6.1 and 2.9 mm panels at a
+	// 2.1 mm gap) are skipped, every finer one solves.
+	first := res.Rows[0]
+	for _, r := range res.Rows {
+		if want := r.Panels <= 40; r.Solved() == want || want && !errors.Is(r.Err, model.ErrSmallGap) {
+			t.Errorf("%d panels: solved %v (%s), want skipped only at 20 and 40 for ErrSmallGap", r.Panels, r.Solved(), r.Skipped)
+		}
+	}
+	if !res.Cl.OK || res.RecommendedPanels == 0 {
+		t.Errorf("Cl %+v, recommended %d", res.Cl, res.RecommendedPanels)
+	}
+	t.Logf("rear wing: Cl → %.5f ± %.1e (p = %.2f), recommended %d; skipped: %s", res.Cl.Value, res.Cl.ErrorEstimate, res.Cl.ObservedOrder, res.RecommendedPanels, first.Skipped)
 }
