@@ -141,6 +141,11 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 			// The reversed sliver at the trailing edge: cut it off.
 			loop, owner = a, ao
 			trimmed = xcOf(x)
+		case areaA > 0 && areaB > 0 && holdsTE && areaB < tipSliverFrac*areaA:
+			// A small loop left at a sharp, curved trailing edge (the
+			// cambered tip folds over before it reverses): cut it off too.
+			loop, owner = a, ao
+			trimmed = xcOf(x)
 		case areaA > 0 && areaB > 0:
 			return nil, fail(x, surface(owner[i]), fmt.Errorf("%w: it splits in two", ErrOffsetCollapses))
 		case areaA <= 0 && areaB <= 0:
@@ -165,6 +170,13 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 	}
 	return &Offset{Points: loop, TrimmedXC: trimmed}, nil
 }
+
+// tipSliverFrac bounds the area, relative to the rest of the offset, of a
+// loop at the trailing edge that InwardOffset cuts off as part of the
+// trimmed tip rather than reporting the offset as split in two: a tip
+// thinner than twice the skin holds a sliver of the section's area, while a
+// real split (a thin waist mid-chord) leaves two parts of similar size.
+const tipSliverFrac = 0.02
 
 // inwardNormal is the unit left normal of edge a→b: inwards for a
 // counter-clockwise polygon.

@@ -130,20 +130,28 @@ func NewOutline(name string, l *model.Layout, opt OutlineOptions) (*Outline, err
 			le, te = le.Add(shift), te.Add(shift)
 			top = ymin
 		}
-		if len(pts) > 1 && pts[0].Dist(pts[len(pts)-1]) < 1e-9 {
+		closed := len(pts) > 1 && pts[0].Dist(pts[len(pts)-1]) < 1e-9
+		if closed {
 			pts = pts[:len(pts)-1] // closed trailing edge: drop the repeat
 		}
 		if signedArea(pts) < 0 { // mirrored for inverted mounting
-			for a, b := 0, len(pts)-1; a < b; a, b = a+1, b-1 {
-				pts[a], pts[b] = pts[b], pts[a]
-			}
-			pts = append(pts[len(pts)-1:], pts[:len(pts)-1]...) // trailing edge first again
+			pts = reverseLoop(pts, closed)
 		}
 		oe := OutlineElement{Name: e.Name, Contour: pts, LE: le, TE: te}
 		if opt.SkinMM > 0 {
-			in, err := InwardOffset(e.Name, pts, opt.SkinMM, le, te)
+			// The offset of a mirrored section is the mirror of the
+			// section's offset: compute it the right way up.
+			mirrored := l.Inverted && opt.Placed
+			src := pts
+			if mirrored {
+				src = mirrorLoop(pts, closed)
+			}
+			in, err := InwardOffset(e.Name, src, opt.SkinMM, mirrorY(le, mirrored), mirrorY(te, mirrored))
 			if err != nil {
 				return nil, err
+			}
+			if mirrored {
+				in.Points = mirrorLoop(in.Points, true)
 			}
 			oe.Inner = in
 		}
@@ -177,4 +185,37 @@ func (o *Outline) bounds() (lo, hi model.Point) {
 		}
 	}
 	return model.Point{X: e.x0, Y: e.y0}, model.Point{X: e.x1, Y: e.y1}
+}
+
+// reverseLoop reverses a trailing-edge-first loop and keeps the trailing
+// edge first: an open trailing edge has a point at each end, so reversing
+// keeps one first; a closed one's single point (its repeat dropped) would
+// end up last and is moved to the front.
+func reverseLoop(pts []model.Point, closed bool) []model.Point {
+	r := make([]model.Point, len(pts))
+	for i, p := range pts {
+		r[len(pts)-1-i] = p
+	}
+	if closed {
+		r = append(r[len(r)-1:], r[:len(r)-1]...)
+	}
+	return r
+}
+
+// mirrorLoop mirrors a loop about y = 0 and reverses it, so that it stays
+// counter-clockwise with its trailing edge first.
+func mirrorLoop(pts []model.Point, closed bool) []model.Point {
+	m := make([]model.Point, len(pts))
+	for i, p := range pts {
+		m[i] = model.Point{X: p.X, Y: -p.Y}
+	}
+	return reverseLoop(m, closed)
+}
+
+// mirrorY mirrors p about y = 0 when on is true.
+func mirrorY(p model.Point, on bool) model.Point {
+	if on {
+		p.Y = -p.Y
+	}
+	return p
 }

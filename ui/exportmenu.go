@@ -25,7 +25,7 @@ const (
 // exportItems lists what File ▸ Export offers: each item writes files into
 // a folder the user picks, through one export call per file.
 func (w *Workbench) exportItems() []*fyne.MenuItem {
-	return []*fyne.MenuItem{
+	items := []*fyne.MenuItem{
 		fyne.NewMenuItem("Team report (PDF)…", func() { w.exportTo(w.writeReport()) }),
 		fyne.NewMenuItemSeparator(),
 		fyne.NewMenuItem("Figures (PNG)…", func() { w.exportTo(w.writeFigures("png")) }),
@@ -34,7 +34,9 @@ func (w *Workbench) exportItems() []*fyne.MenuItem {
 		fyne.NewMenuItemSeparator(),
 		fyne.NewMenuItem("Surface Cp table (CSV)…", func() { w.exportTo(w.writeCpTable) }),
 		fyne.NewMenuItem("Sweep table (CSV)…", func() { w.exportTo(w.writeSweepTable) }),
+		fyne.NewMenuItemSeparator(),
 	}
+	return append(items, w.manufacturingItems()...)
 }
 
 // exportTo asks for a folder and runs write in it, reporting the files

@@ -1,0 +1,208 @@
+package ui
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"path/filepath"
+	"strconv"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/export"
+	"sectionbench/model"
+)
+
+// This file holds File ▸ Export's manufacturing items: cleaned coordinates
+// and the outlines a laser cutter or CNC takes. Like backend.go it is a
+// place where the workbench calls into model and export, one call per file.
+
+// outlineSettings are the choices of the outline dialog.
+type outlineSettings struct {
+	skinMM    float64 // inward offset for rib templates; 0: none
+	sparXC    float64 // spar hole position on the chord; 0: none
+	sparDiaMM float64
+	chordLine bool
+	placed    bool // the assembly as the study places it, else one template per element
+}
+
+// manufacturingItems are appended to File ▸ Export.
+func (w *Workbench) manufacturingItems() []*fyne.MenuItem {
+	return []*fyne.MenuItem{
+		fyne.NewMenuItem("Coordinates (text and CSV, mm and unit chord)…", func() { w.exportTo(w.writeCoordinates) }),
+		fyne.NewMenuItem("Outline for manufacturing (DXF and SVG)…", w.askOutline),
+		fyne.NewMenuItem("Boundary-layer table (CSV)…", func() { w.exportTo(w.writeBoundaryLayer) }),
+	}
+}
+
+// writeCoordinates writes each element's cleaned section four ways: plain
+// text and CSV, at unit chord and at its chord in millimetres.
+func (w *Workbench) writeCoordinates(dir string) ([]string, error) {
+	st, secs := w.ctl.Study(), w.ctl.Sections()
+	if len(secs) != len(st.Elements) {
+		return nil, errNoResult
+	}
+	var files []string
+	for i, e := range st.Elements {
+		stem := fmt.Sprintf("%s-%d-%s", w.exportBase(), i+1, fileStem(e.Name))
+		for _, f := range []struct {
+			suffix string
+			opt    export.CoordOptions
+			csv    bool
+		}{
+			{".dat", export.CoordOptions{}, false},
+			{"-mm.dat", export.CoordOptions{ChordMM: e.ChordMM}, false},
+			{".csv", export.CoordOptions{}, true},
+			{"-mm.csv", export.CoordOptions{ChordMM: e.ChordMM}, true},
+		} {
+			name := stem + f.suffix
+			sec, opt, csv := secs[i], f.opt, f.csv
+			err := writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+				if csv {
+					return export.WriteCoordinatesCSV(out, sec, opt)
+				}
+				return export.WriteCoordinates(out, sec, opt)
+			})
+			if err != nil {
+				return files, err
+			}
+			files = append(files, name)
+		}
+	}
+	return files, nil
+}
+
+// askOutline asks for the outline's options, then for the folder.
+func (w *Workbench) askOutline() {
+	skin := widget.NewEntry()
+	skin.SetPlaceHolder("0: outline only")
+	sparXC := widget.NewEntry()
+	sparXC.SetPlaceHolder("e.g. 0.3; empty: none")
+	sparDia := widget.NewEntry()
+	sparDia.SetPlaceHolder("e.g. 8")
+	chord := widget.NewCheck("draw each chord line", nil)
+	placed := widget.NewRadioGroup([]string{"one rib template per element", "the assembly as placed"}, nil)
+	placed.SetSelected("one rib template per element")
+	items := []*widget.FormItem{
+		widget.NewFormItem("skin thickness (mm)", skin),
+		widget.NewFormItem("spar hole at x/c", sparXC),
+		widget.NewFormItem("spar hole diameter (mm)", sparDia),
+		widget.NewFormItem("", chord),
+		widget.NewFormItem("layout", placed),
+	}
+	dialog.ShowForm("Outline for manufacturing", "Choose folder…", "Cancel", items, func(ok bool) {
+		if !ok {
+			return
+		}
+		s, err := parseOutlineSettings(skin.Text, sparXC.Text, sparDia.Text)
+		if err != nil {
+			w.userError(err)
+			return
+		}
+		s.chordLine, s.placed = chord.Checked, placed.Selected == "the assembly as placed"
+		w.exportTo(w.writeOutline(s))
+	}, w.win)
+}
+
+// parseOutlineSettings reads the outline dialog's fields; an error names
+// the field.
+func parseOutlineSettings(skin, sparXC, sparDia string) (outlineSettings, error) {
+	var s outlineSettings
+	num := func(field, text string, lo, hi float64) (float64, error) {
+		text = strings.TrimSpace(text)
+		if text == "" {
+			return 0, nil
+		}
+		v, err := strconv.ParseFloat(strings.ReplaceAll(text, ",", "."), 64)
+		if err != nil || !(v >= lo && v <= hi) {
+			return 0, fmt.Errorf("%s: %q is not a number from %g to %g", field, text, lo, hi)
+		}
+		return v, nil
+	}
+	var err error
+	if s.skinMM, err = num("skin thickness", skin, 0, 50); err != nil {
+		return s, err
+	}
+	if s.sparXC, err = num("spar hole position", sparXC, 0, 1); err != nil {
+		return s, err
+	}
+	if s.sparDiaMM, err = num("spar hole diameter", sparDia, 0, 200); err != nil {
+		return s, err
+	}
+	if (s.sparXC > 0) != (s.sparDiaMM > 0) {
+		return s, errors.New("spar hole: give both its position and its diameter, or neither")
+	}
+	return s, nil
+}
+
+// writeOutline returns the writer of the outline as DXF and SVG.
+func (w *Workbench) writeOutline(s outlineSettings) func(dir string) ([]string, error) {
+	st, secs := w.ctl.Study(), w.ctl.Sections()
+	base := w.exportBase()
+	return func(dir string) ([]string, error) {
+		if len(secs) != len(st.Elements) {
+			return nil, errNoResult
+		}
+		l, err := model.Place(st, secs)
+		if err != nil {
+			return nil, err
+		}
+		opt := export.OutlineOptions{Placed: s.placed, SkinMM: s.skinMM, ChordLine: s.chordLine}
+		if s.sparDiaMM > 0 {
+			for i := range st.Elements {
+				opt.Marks = append(opt.Marks, export.Mark{Element: i, Label: "spar", XC: s.sparXC, DiameterMM: s.sparDiaMM})
+			}
+		}
+		o, err := export.NewOutline(st.Name, l, opt)
+		if err != nil {
+			return nil, err
+		}
+		var files []string
+		for _, f := range []struct {
+			ext   string
+			write func(io.Writer, *export.Outline) error
+		}{{".dxf", export.WriteDXF}, {".svg", export.WriteSVG}} {
+			name := base + "-outline" + f.ext
+			write := f.write
+			if err := writeFile(filepath.Join(dir, name), func(out io.Writer) error { return write(out, o) }); err != nil {
+				return files, err
+			}
+			files = append(files, name)
+		}
+		return files, nil
+	}
+}
+
+// writeBoundaryLayer writes the boundary-layer quantities of the current
+// solution.
+func (w *Workbench) writeBoundaryLayer(dir string) ([]string, error) {
+	res, _, _ := w.ctl.Result()
+	if res == nil {
+		return nil, errNoResult
+	}
+	if res.Viscous == nil {
+		return nil, errors.New("no boundary layer to export: turn on the boundary-layer estimate in the Flow tab")
+	}
+	name := w.exportBase() + "-boundary-layer.csv"
+	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+		return export.WriteBoundaryLayerTable(out, res.Viscous)
+	})
+}
+
+// fileStem makes an element name safe in a file name.
+func fileStem(name string) string {
+	s := strings.Map(func(r rune) rune {
+		switch {
+		case r >= 'a' && r <= 'z', r >= 'A' && r <= 'Z', r >= '0' && r <= '9', r == '-', r == '_':
+			return r
+		}
+		return '-'
+	}, strings.TrimSpace(name))
+	if strings.Trim(s, "-") == "" {
+		return "element"
+	}
+	return s
+}
