@@ -17,10 +17,26 @@ const (
 	// MaxKTTEAngleDeg bounds the trailing-edge angle. The map exponent
 	// n = 2 − τ/π must stay above 1.
 	MaxKTTEAngleDeg = 90.0
+	// MinKTTEAngleDeg is the smallest trailing-edge angle of a section of
+	// the family. τ = 0 is Joukowski's cusp, whose two surfaces meet
+	// tangentially: the edge has no thickness to make, and a panel
+	// method's Cp on its last panels grows without bound as panels are
+	// added (the two surface sheets end up closer than a panel length:
+	// −1.1e4, −1.7e5, −2.1e6, −2.8e7 at 80, 160, 320, 640 cosine panels on
+	// μ = (−0.1, 0.1) at 4°). From 1° that spike stays bounded as panels
+	// are added, and the solver flags edges thinner than their panels
+	// (below about 4.6°) and keeps them out of the suction peak. The
+	// project's validation against the exact solution covers τ ≥ 5°
+	// (solver/validation_test.go). The map and Exact remain defined down
+	// to τ = 0 for checks of the theory.
+	MinKTTEAngleDeg = 1.0
 )
 
 // ErrKTCircle reports a mapping circle that does not enclose ζ = −1.
 var ErrKTCircle = errors.New("circle through ζ = 1 must enclose ζ = −1 (centre x < 0)")
+
+// ErrKTThinEdge reports a trailing-edge angle below MinKTTEAngleDeg.
+var ErrKTThinEdge = errors.New("trailing edge too thin for a panel method (cusped or nearly so)")
 
 // KarmanTrefftz is a Kármán–Trefftz section: the image of a circle through
 // ζ = b = 1 with centre μ = (CenterX, CenterY) under the map
@@ -44,10 +60,22 @@ type KarmanTrefftz struct {
 
 // Validate checks the parameters: finite, the circle enclosing ζ = −1
 // (which holds exactly when CenterX < 0, since the circle passes through
-// ζ = 1), |centre| components at most MaxKTCenter and 0 ≤ τ ≤
+// ζ = 1), |centre| components at most MaxKTCenter and MinKTTEAngleDeg ≤ τ ≤
 // MaxKTTEAngleDeg. It returns a *FieldError naming "kt.cx", "kt.cy" or
-// "kt.tau".
+// "kt.tau"; an angle below the minimum wraps ErrKTThinEdge.
 func (k KarmanTrefftz) Validate() error {
+	if err := k.validateMap(); err != nil {
+		return err
+	}
+	if k.TEAngleDeg < MinKTTEAngleDeg {
+		return &FieldError{Field: "kt.tau", Err: fmt.Errorf("%g° is below %g°: %w", k.TEAngleDeg, MinKTTEAngleDeg, ErrKTThinEdge)}
+	}
+	return nil
+}
+
+// validateMap checks what the map and its exact solution need: Validate's
+// conditions with τ down to 0 (the Joukowski cusp).
+func (k KarmanTrefftz) validateMap() error {
 	for _, f := range []struct {
 		name string
 		v    float64
@@ -125,7 +153,7 @@ type ktMap struct {
 const ktDense = 2048
 
 func (k KarmanTrefftz) geometry() *ktMap {
-	if err := k.Validate(); err != nil {
+	if err := k.validateMap(); err != nil {
 		panic("model: invalid Kármán–Trefftz section: " + err.Error())
 	}
 	m := &ktMap{n: 2 - k.TEAngleDeg/180, b: 1, mu: complex(k.CenterX, k.CenterY)}
@@ -302,7 +330,9 @@ type ktSample struct {
 }
 
 // Exact returns the exact solution at alphaDeg relative to the normalised
-// section's chord line. It panics if k is invalid.
+// section's chord line. It accepts trailing-edge angles down to 0 (the
+// Joukowski cusp, for checks), below MinKTTEAngleDeg; it panics if k is
+// otherwise invalid.
 func (k KarmanTrefftz) Exact(alphaDeg float64) *KTExact {
 	m := k.geometry()
 	e := &KTExact{m: m, AlphaDeg: alphaDeg}

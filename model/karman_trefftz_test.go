@@ -64,7 +64,7 @@ func TestKarmanTrefftzSymmetric(t *testing.T) {
 	// (the map commutes with complex conjugation): the upper and lower
 	// points mirror each other, the chord angle is zero, and at α = 0
 	// there is no lift and no moment.
-	for _, k := range []KarmanTrefftz{{CenterX: -0.1}, {CenterX: -0.05, TEAngleDeg: 12}} {
+	for _, k := range []KarmanTrefftz{{CenterX: -0.1, TEAngleDeg: MinKTTEAngleDeg}, {CenterX: -0.05, TEAngleDeg: 12}} {
 		t.Run(k.Name(), func(t *testing.T) {
 			const n = 101
 			s, err := k.Section(n)
@@ -97,7 +97,7 @@ func TestKarmanTrefftzSection(t *testing.T) {
 		{referenceKT, 161},
 		{KarmanTrefftz{CenterX: -0.05, CenterY: 0.08, TEAngleDeg: 5}, 200},
 		{KarmanTrefftz{CenterX: -0.2, CenterY: -0.1, TEAngleDeg: 30}, 81},
-		{KarmanTrefftz{CenterX: -0.1, CenterY: 0.1}, 64},
+		{KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: MinKTTEAngleDeg}, 64},
 	}
 	for _, tc := range cases {
 		t.Run(tc.k.Name(), func(t *testing.T) {
@@ -261,7 +261,9 @@ func TestKarmanTrefftzValidate(t *testing.T) {
 		is    error
 	}{
 		{"reference", referenceKT, "", nil},
-		{"joukowski", KarmanTrefftz{CenterX: -0.1}, "", nil},
+		{"thinnest edge", KarmanTrefftz{CenterX: -0.1, TEAngleDeg: MinKTTEAngleDeg}, "", nil},
+		{"joukowski cusp", KarmanTrefftz{CenterX: -0.1}, "kt.tau", ErrKTThinEdge},
+		{"nearly cusped", KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 0.5}, "kt.tau", ErrKTThinEdge},
 		{"centre on axis", KarmanTrefftz{CenterX: 0, CenterY: 0.1, TEAngleDeg: 10}, "kt.cx", ErrKTCircle},
 		{"circle misses -1", KarmanTrefftz{CenterX: 0.1, TEAngleDeg: 10}, "kt.cx", ErrKTCircle},
 		{"far left", KarmanTrefftz{CenterX: -1.5, TEAngleDeg: 10}, "kt.cx", nil},
@@ -301,7 +303,8 @@ func TestParseKT(t *testing.T) {
 	}{
 		{"-0.1,0.1,10", referenceKT, ""},
 		{" -0.1 , 0.1 , 10 ", referenceKT, ""},
-		{"-5e-2,0,0", KarmanTrefftz{CenterX: -0.05}, ""},
+		{"-5e-2,0,1", KarmanTrefftz{CenterX: -0.05, TEAngleDeg: 1}, ""},
+		{"-5e-2,0,0", KarmanTrefftz{}, "kt.tau"},
 		{"-0.1,0.1", KarmanTrefftz{}, "kt"},
 		{"-0.1,0.1,10,3", KarmanTrefftz{}, "kt"},
 		{"x,0.1,10", KarmanTrefftz{}, "kt.cx"},

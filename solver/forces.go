@@ -129,9 +129,10 @@ func (s *System) prepare() {
 			s.vt90[j] = -0.5 * (s.g90[p.ia] + s.g90[p.ib])
 		}
 	}
-	// CpMin candidates: every surface panel (the base panel of an open
-	// trailing edge is not one; system.go).
-	s.hull = velocityHull(s.vt0, s.vt90)
+	// CpMin candidates: every surface panel but those of a trailing edge
+	// thinner than its panels (the base panel of an open trailing edge is
+	// not one either; system.go).
+	s.hull = velocityHull(s.vt0, s.vt90, func(j int) bool { return g.panels[j].thin })
 	s.forces = make([]elemQuad, len(g.elems))
 	for k := range g.elems {
 		e := &g.elems[k]
@@ -315,13 +316,16 @@ type hullVertex struct {
 	j    int // panel
 }
 
-// velocityHull returns the convex hull of the points ±(a_j, b_j), counter-
-// clockwise, by Andrew's monotone chain (A. M. Andrew, Inf. Process. Lett.
-// 9(5), 1979). Collinear points are dropped.
-func velocityHull(a, b []float64) []hullVertex {
+// velocityHull returns the convex hull of the points ±(a_j, b_j) but those
+// j for which skip (if not nil) is true, counter-clockwise, by Andrew's
+// monotone chain (A. M. Andrew, Inf. Process. Lett. 9(5), 1979). Collinear
+// points are dropped.
+func velocityHull(a, b []float64, skip func(j int) bool) []hullVertex {
 	pts := make([]hullVertex, 0, 2*len(a))
 	for j := range a {
-		pts = append(pts, hullVertex{a[j], b[j], j}, hullVertex{-a[j], -b[j], j})
+		if skip == nil || !skip(j) {
+			pts = append(pts, hullVertex{a[j], b[j], j}, hullVertex{-a[j], -b[j], j})
+		}
 	}
 	slices.SortFunc(pts, func(p, q hullVertex) int {
 		if c := cmp.Compare(p.a, q.a); c != 0 {
@@ -387,7 +391,7 @@ func (s *System) solution(alphaDeg, c, sn float64, g []float64) *Solution {
 			vt := -0.5 * (g[p.ia] + g[p.ib])
 			cp := 1 - vt*vt
 			es.Panels[i] = Panel{X: p.mx, Y: p.my, S: p.s, XC: p.xc, Vt: vt, Cp: cp, Side: p.side}
-			if cp < es.CpMin {
+			if cp < es.CpMin && !p.thin {
 				es.CpMin, es.XCpMin = cp, p.xc
 			}
 		}

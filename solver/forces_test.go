@@ -272,7 +272,7 @@ func TestVelocityHull(t *testing.T) {
 				b[j] = rng.NormFloat64() * 0.5
 			}
 		}
-		h := velocityHull(a, b)
+		h := velocityHull(a, b, nil)
 		for k := range 720 {
 			sn, c := math.Sincos(float64(k) * math.Pi / 360)
 			want := 0.0

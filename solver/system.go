@@ -134,6 +134,23 @@ const (
 	minPanelFraction = 1e-9
 	// minPanels is the fewest panels an element may have.
 	minPanels = 3
+	// thinTEFraction is the distance, as a fraction of a panel's length,
+	// below which the panel's midpoint (its collocation point) counts as
+	// lying on top of a facing panel of its own element (thinTrailingEdge).
+	// Two vortex sheets that close make the midpoint tangency conditions
+	// nearly repeat and leave the strengths of the last panels free to
+	// spike. At a wedge trailing edge of angle τ the last panel's midpoint
+	// lies (L/2) sin τ from the facing last panel, a fraction sin(τ)/2 of
+	// its length whatever the panel count, so the threshold is a wedge
+	// angle: 0.04 is τ ≈ 4.6°. Measured on Kármán–Trefftz sections
+	// μ = (−0.1, 0.1) at 4°, 80–640 cosine panels (exact solution 0.2–0.4
+	// there): the last panel's Cp is −4 to −6 at τ = 4° (fraction
+	// 0.036–0.042), −16 to −22 at 3°, −68 to −119 at 2°, −450 to −1700 at
+	// 1°, and grows without bound at a cusp (−1.1e4 … −2.8e7); at τ = 5°
+	// (fraction ≥ 0.044) it stays above −1.3 there, the suction peak
+	// comes from the leading edge and the validation against the exact
+	// solution holds (validation_test.go).
+	thinTEFraction = 0.04
 )
 
 // Sentinel errors of the geometry checks; match with errors.Is.
@@ -196,6 +213,7 @@ type panelGeom struct {
 	ia, ib         int     // unknown indices of node 1 and node 2
 	elem           int
 	side           Side
+	thin           bool // in a trailing edge thinner than its panels (thinTrailingEdge): left out of CpMin
 }
 
 // elemGeom is one element, precomputed.
@@ -216,6 +234,12 @@ type elemGeom struct {
 	// us; us is −1 for a closed edge.
 	base panelGeom
 	us   int
+	// thinUpper and thinLower count the panels at each end of the node
+	// order (the upper and lower surface next to the trailing edge) that
+	// lie within thinTEFraction of their length of a facing panel;
+	// thinXC is the chord position where that region begins (1 if none).
+	thinUpper, thinLower int
+	thinXC               float64
 }
 
 // open reports whether the element's trailing edge is closed by a base
@@ -426,6 +450,7 @@ func (g *geometry) addElement(k int, e Element, opt buildOptions) (*elemGeom, er
 		}
 		g.panels = append(g.panels, p)
 	}
+	ge.thinTrailingEdge(g.panels[ge.p0:])
 	ge.us = -1
 	if ge.teGap > openTEFraction*ge.chord && !opt.unpanelledGap {
 		ge.us = ge.u0 + n
@@ -435,6 +460,58 @@ func (g *geometry) addElement(k int, e Element, opt buildOptions) (*elemGeom, er
 	g.n += ge.unknowns()
 	g.elems = append(g.elems, ge)
 	return &g.elems[len(g.elems)-1], nil
+}
+
+// thinTrailingEdge marks the panels of a trailing edge thinner than its
+// panels, ps being the element's panels. A panel is thin when its midpoint
+// lies closer than thinTEFraction of its length to a facing panel of the
+// same element (one running the opposite way, t_i·t_j < 0, the adjacent
+// panel across a closed trailing edge included: at a cusp that is the
+// nearest). The thin region is the run of thin panels from the trailing
+// edge along each surface, stopping short of the leading edge; thin panels
+// elsewhere (a sharp or very thin nose) are not a trailing-edge matter and
+// are left alone. The search costs O(run × panels) with a cheap distance
+// bound per pair.
+func (e *elemGeom) thinTrailingEdge(ps []panelGeom) {
+	thin := func(i int) bool {
+		p := &ps[i]
+		lim := thinTEFraction * p.l
+		for j := range ps {
+			q := &ps[j]
+			if j == i || p.tx*q.tx+p.ty*q.ty >= 0 {
+				continue
+			}
+			// |m_i − m_j| − L_j/2 bounds the distance to panel j below.
+			if d := math.Hypot(p.mx-q.mx, p.my-q.my) - 0.5*q.l; d >= lim {
+				continue
+			}
+			if segmentDist(p.mx, p.my, q) < lim {
+				return true
+			}
+		}
+		return false
+	}
+	for e.thinUpper < e.le-1 && thin(e.thinUpper) {
+		ps[e.thinUpper].thin = true
+		e.thinUpper++
+	}
+	for e.thinLower < e.np-e.le-1 && thin(e.np-1-e.thinLower) {
+		ps[e.np-1-e.thinLower].thin = true
+		e.thinLower++
+	}
+	e.thinXC = 1
+	if e.thinUpper > 0 {
+		e.thinXC = math.Min(e.thinXC, e.chordPos(e.nodes[e.thinUpper]))
+	}
+	if e.thinLower > 0 {
+		e.thinXC = math.Min(e.thinXC, e.chordPos(e.nodes[e.np-e.thinLower]))
+	}
+}
+
+// segmentDist returns the distance from (px, py) to panel q.
+func segmentDist(px, py float64, q *panelGeom) float64 {
+	t := math.Max(0, math.Min(q.l, (px-q.x1)*q.tx+(py-q.y1)*q.ty))
+	return math.Hypot(px-q.x1-t*q.tx, py-q.y1-t*q.ty)
 }
 
 // newPanelGeom returns the panel from a to b whose nodal strengths are
@@ -707,6 +784,9 @@ func (s *System) checkCond() error {
 	for _, e := range s.geo.elems {
 		if e.teGap > MaxTEGapFraction*e.chord {
 			s.warnings = append(s.warnings, fmt.Sprintf("element %q: open trailing edge gap %.2g%% of chord; the base-source model of a blunt edge is doubtful beyond about %.0f%% (the real flow behind a thick base separates)", e.name, 100*e.teGap/e.chord, 100*MaxTEGapFraction))
+		}
+		if n := e.thinUpper + e.thinLower; n > 0 {
+			s.warnings = append(s.warnings, fmt.Sprintf("element %q: trailing edge thinner than its panels over the last %.2g%% of chord (%d panels lie within %.0f%% of their length of the opposite surface): Cp there is unreliable and is left out of Cp min, and the pressure lift (ClPressure) integrates it; use fewer panels there or a thicker trailing edge", e.name, 100*(1-e.thinXC), n, 100*thinTEFraction))
 		}
 	}
 	return nil

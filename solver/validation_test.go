@@ -2,8 +2,10 @@ package solver
 
 import (
 	"context"
+	"fmt"
 	"math"
 	"math/cmplx"
+	"strings"
 	"testing"
 
 	"sectionbench/model"
@@ -618,5 +620,164 @@ func TestNACA0012LiftSlope(t *testing.T) {
 	t.Logf("lift slope %.5f /deg (Ladson 0.108, thin airfoil %.4f, thickness rule %.4f)", slope, thin, upper/1.03)
 	if slope < math.Max(0.108, thin) || slope > upper {
 		t.Errorf("lift slope %.5f /deg outside [%.4f, %.4f]", slope, math.Max(0.108, thin), upper)
+	}
+}
+
+// thinTEWarning is the start of the warning of a trailing edge thinner than
+// its panels (system.go, thinTrailingEdge).
+const thinTEWarning = "trailing edge thinner than its panels"
+
+func hasWarning(w []string, s string) bool {
+	for _, m := range w {
+		if strings.Contains(m, s) {
+			return true
+		}
+	}
+	return false
+}
+
+// exactCpMin returns the exact suction peak of a Kármán–Trefftz or
+// Joukowski section at alphaDeg (Milne-Thomson, Theoretical Hydrodynamics;
+// the exact solution of model.KTExact, defined down to the cusp τ = 0),
+// from a dense sample of the surface.
+func exactCpMin(k model.KarmanTrefftz, alphaDeg float64) (cp, x float64) {
+	cp = math.Inf(1)
+	for _, p := range k.Exact(alphaDeg).Sample(8001) {
+		if p.Cp < cp {
+			cp, x = p.Cp, p.P.X
+		}
+	}
+	return cp, x
+}
+
+// TestThinTrailingEdge: a cusped or nearly cusped trailing edge, where the
+// last upper and lower panels lie closer than a few percent of their length
+// (the last panels' Cp spikes: −1.7e5 on a cusp at 160 panels, −111 at
+// τ = 2°), is flagged with a warning, and those panels are left out of
+// CpMin, by Solve and by Sweep's fast path alike: the suction peak is then
+// the exact one at the leading edge (Joukowski and Kármán–Trefftz exact
+// solutions, Milne-Thomson, Theoretical Hydrodynamics) within the panel
+// error, 2%.
+func TestThinTrailingEdge(t *testing.T) {
+	const alpha = 4.0
+	cusp := model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1} // τ = 0: Joukowski
+	for _, tc := range []struct {
+		name string
+		kt   model.KarmanTrefftz
+	}{
+		{"Joukowski cusp", cusp},
+		{"τ = 1°", model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 1}},
+		{"τ = 2°", model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 2}},
+		{"τ = 3°, symmetric", model.KarmanTrefftz{CenterX: -0.1, TEAngleDeg: 3}},
+	} {
+		for _, n := range []int{80, 160, 320, 640} {
+			var el Element
+			if tc.kt.TEAngleDeg == 0 {
+				// Below the family's minimum: nodes from the exact
+				// solution's surface sample, equally spaced in circle
+				// angle (as model.KarmanTrefftz.Section lays them).
+				smp := tc.kt.Exact(0).Sample(n + 1)
+				for i, p := range smp {
+					el.Nodes = append(el.Nodes, p.P)
+					if p.Upper {
+						el.LE = i
+					}
+				}
+			} else {
+				el = ktElement(t, tc.kt, n, ktCosine)
+			}
+			alphaSec := alpha - tc.kt.ChordAngleDeg()
+			sys := mustSystem(t, Config{Elements: []Element{el}})
+			sol := sys.Solve(alphaSec)
+			e := sol.Elements[0]
+			want, wantX := exactCpMin(tc.kt, alphaSec)
+			if !hasWarning(sol.Warnings, thinTEWarning) || !hasWarning(sol.Warnings, "ClPressure") {
+				t.Errorf("%s, %d panels: warnings %q, want the thin-trailing-edge one naming ClPressure", tc.name, n, sol.Warnings)
+			}
+			// Exactly the flagged panels are left out.
+			low, lowAll := math.Inf(1), math.Inf(1)
+			nThin := 0
+			for i, p := range e.Panels {
+				lowAll = math.Min(lowAll, p.Cp)
+				if sys.geo.panels[i].thin {
+					nThin++
+					if p.XC < 0.99 {
+						t.Errorf("%s, %d panels: panel %d at x/c %.4f flagged", tc.name, n, i, p.XC)
+					}
+					continue
+				}
+				low = math.Min(low, p.Cp)
+			}
+			if e.CpMin != low || nThin == 0 {
+				t.Errorf("%s, %d panels: CpMin %g, the lowest unflagged Cp %g (%d flagged)", tc.name, n, e.CpMin, low, nThin)
+			}
+			if d := math.Abs(e.CpMin/want - 1); d > 0.02 || e.XCpMin > 0.3 {
+				t.Errorf("%s, %d panels: CpMin %.4f at x/c %.4f, exact %.4f at %.4f (all panels: %.4g)", tc.name, n, e.CpMin, e.XCpMin, want, wantX, lowAll)
+			}
+			if sw := sys.Sweep([]float64{alphaSec})[0]; math.Abs(sw.CpMin-e.CpMin) > 1e-9 || sw.XCpMin != e.XCpMin {
+				t.Errorf("%s, %d panels: Sweep CpMin %.6f at %.4f, Solve %.6f at %.4f", tc.name, n, sw.CpMin, sw.XCpMin, e.CpMin, e.XCpMin)
+			}
+			if n == 160 {
+				t.Logf("%s, 160 panels: CpMin %.4f at x/c %.4f (exact %.4f; all panels %.4g), %d panels flagged, Cl %.5f, ClPressure %.5f",
+					tc.name, e.CpMin, e.XCpMin, want, lowAll, nThin, e.Cl, e.ClPressure)
+			}
+		}
+	}
+}
+
+// TestOrdinaryTrailingEdgeNotThin: NACA sections (open trailing edges, as
+// generated) under every spacing law and Kármán–Trefftz sections of 5° and
+// more, from 20 to 640 panels, get no thin-trailing-edge warning and keep
+// CpMin the lowest Cp over all their panels, as before the check existed.
+func TestOrdinaryTrailingEdgeNotThin(t *testing.T) {
+	check := func(name string, el Element, alpha float64) {
+		t.Helper()
+		sys := mustSystem(t, Config{Elements: []Element{el}})
+		sol := sys.Solve(alpha)
+		if hasWarning(sol.Warnings, thinTEWarning) {
+			t.Errorf("%s: %q", name, sol.Warnings)
+		}
+		e := sol.Elements[0]
+		low := math.Inf(1)
+		for _, p := range e.Panels {
+			low = math.Min(low, p.Cp)
+		}
+		if e.CpMin != low {
+			t.Errorf("%s: CpMin %g, lowest Cp %g", name, e.CpMin, low)
+		}
+	}
+	laws := []model.Panelling{
+		{Spacing: model.SpacingCosine},
+		{Spacing: model.SpacingBlend, Nose: 0.5, Tail: 0.2},
+		{Spacing: model.SpacingCurvature, Nose: 0.5, Tail: 0.2},
+		{Spacing: model.SpacingUniform},
+	}
+	for _, des := range []string{"0006", "0012", "2412", "4412", "4415", "6409", "23012"} {
+		base, err := model.NACA(des, model.NACAOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, n := range []int{20, 40, 160, 640} {
+			for _, law := range laws {
+				law.Panels = n
+				sec, err := model.Repanel(base, law)
+				if err != nil {
+					t.Fatal(err)
+				}
+				check(fmt.Sprintf("NACA %s, %d panels, %v", des, n, law.Spacing), Element{Nodes: sec.Points(), LE: sec.LeadingEdgeIndex()}, 4)
+			}
+		}
+	}
+	for _, k := range []model.KarmanTrefftz{
+		{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 5},
+		{CenterX: -0.08, TEAngleDeg: 5},
+		{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10},
+		{CenterX: -0.2, CenterY: 0.05, TEAngleDeg: 20},
+	} {
+		for _, n := range []int{20, 40, 160, 640} {
+			for _, sp := range []ktSpacing{ktCosine, ktCircle} {
+				check(fmt.Sprintf("%s, %d panels, %v", k.Name(), n, sp), ktElement(t, k, n, sp), 4-k.ChordAngleDeg())
+			}
+		}
 	}
 }
