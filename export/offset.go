@@ -50,18 +50,41 @@ type Offset struct {
 }
 
 // InwardOffset returns the closed polygon pts (counter-clockwise, the
-// interior on the left; the last point joins the first) moved inwards by
-// d > 0: every edge moves d along its inward normal n = (−t_y, t_x) and
-// consecutive moved edges meet at the intersection of their lines (the
-// mitre point), which for a convex polygon is the exact offset of the
-// polygon (Held, On the Computational Geometry of Pocket Machining, 1991,
-// ch. 2). Where the moved edges of a thin part cross (near a sharp
-// trailing edge, within distance d/sin(τ/2) of it, τ the included angle)
-// the raw offset forms reversed loops; a loop that holds the trailing edge
-// (pts[0]) is cut off at the crossing and TrimmedXC says where. Any other
-// crossing returns an *OffsetError wrapping ErrOffsetFolds, and an
-// offset that vanishes or splits wraps ErrOffsetCollapses; both say where
-// along chord (le → te) it happened.
+// interior on the left; the last point joins the first; pts[0] the
+// trailing edge) moved inwards by d > 0.
+//
+// Every edge moves d along its inward normal n = (−t_y, t_x), t the unit
+// edge direction, and consecutive moved edges meet at the intersection of
+// their lines (the mitre point), which for a convex polygon is the exact
+// offset (Held, On the Computational Geometry of Pocket Machining, 1991,
+// ch. 2). The trailing edge pts[0] is not mitred: the outline is split
+// there into the upper surface U = pts[0..LE] and the lower surface
+// L = pts[LE..], closed back to pts[0] (so an open trailing edge's base
+// belongs to L), LE the point farthest from te. Each is offset as an open
+// polyline, mitred at its interior vertices and moved along the plain
+// normal of its end edge at pts[0]. The offset ends at the crossing of the
+// two offset curves nearest the trailing edge (least arc length from
+// pts[0] along both); both are cut there and joined.
+//
+//   - Where the trailing-edge corner is thick enough (a blunt base, a
+//     rectangle's corner, a circle) the end edges themselves cross at the
+//     mitre point and nothing is trimmed: TrimmedXC is NaN.
+//   - Where the section near its trailing edge is thinner than twice the
+//     offset (a sharp edge of included angle τ, open or closed, cambered or
+//     not) the offset curves cross at the centre of the circle of radius d
+//     touching both surfaces; the rib stops there and TrimmedXC gives its
+//     x/c. For a straight wedge that point lies d/sin(τ/2) from the apex
+//     along the bisector, just ahead of where the thickness is 2d
+//     (d/tan(τ/2) from the apex).
+//
+// A small loop left next to the cut (a curved tip whose offsets cross
+// more than once, less than tipSliverFrac of the remaining area) is cut
+// off too and moves TrimmedXC. Any other crossing of the remaining loop,
+// or an offset edge pointing against its source edge, returns an
+// *OffsetError wrapping ErrOffsetFolds (a radius of curvature or the
+// thickness there is below the offset); an offset that vanishes, turns
+// inside out or splits into comparable parts wraps ErrOffsetCollapses.
+// Both say where along the chord (le → te) it happened.
 //
 // element names the outline in errors. pts must hold at least 3 points.
 func InwardOffset(element string, pts []model.Point, d float64, le, te model.Point) (*Offset, error) {
@@ -87,7 +110,7 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 	if n < 3 {
 		panic("export: InwardOffset of a degenerate polygon")
 	}
-	// Raw mitre offset.
+	// Raw mitre offset; raw[i] starts the moved edge i (in[i] → in[i+1]).
 	raw := make([]model.Point, n)
 	for i := range n {
 		a, b, c := in[(i+n-1)%n], in[i], in[(i+1)%n]
@@ -99,26 +122,52 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 		}
 		raw[i] = q
 	}
-	// The trailing edge is pts[0]; the upper surface runs from it to the
-	// leading edge, the lower back. owner[i] is the input index of raw[i].
+	// The upper surface runs from the trailing edge to the leading edge
+	// (the point farthest from te), the lower back.
 	leIdx := 0
 	for i, p := range in {
 		if p.Sub(te).Norm() > in[leIdx].Sub(te).Norm() {
 			leIdx = i
 		}
 	}
+	if leIdx == 0 || leIdx == n-1 {
+		leIdx = n / 2 // te given at a neighbour of pts[0]: split opposite
+	}
 	surface := func(i int) string {
-		if i <= leIdx {
+		if i < leIdx {
 			return "upper"
 		}
 		return "lower"
 	}
-	loop := raw
-	owner := make([]int, n)
+	// up[k] is the offset of in[k] on the upper surface: up[0] the plain
+	// normal offset of in[0], segment up[k]→up[k+1] the moved edge k.
+	// lo[m] is the offset of in[leIdx+m]; its last point, the plain normal
+	// offset of in[0] by the closing edge, ends moved edge n−1.
+	up := make([]model.Point, leIdx+1)
+	up[0] = in[0].Add(inwardNormal(in[0], in[1]).Scale(d))
+	copy(up[1:], raw[1:leIdx+1])
+	lo := make([]model.Point, n-leIdx+1)
+	copy(lo, raw[leIdx:])
+	lo[n-leIdx] = in[0].Add(inwardNormal(in[n-1], in[0]).Scale(d))
+
+	loop, owner := raw, make([]int, n)
 	for i := range owner {
 		owner[i] = i
 	}
 	trimmed := math.NaN()
+	if i, j, x, ok := tipCrossing(up, lo); ok {
+		// loop = x, up[i+1..leIdx], lo[1..j]; x starts moved edge i.
+		loop = append([]model.Point{x}, up[i+1:]...)
+		loop = append(loop, lo[1:j+1]...)
+		owner = owner[:0]
+		owner = append(owner, i)
+		for k := i + 1; k <= leIdx+j; k++ {
+			owner = append(owner, k)
+		}
+		if i > 0 || j < len(lo)-2 {
+			trimmed = xcOf(x)
+		}
+	}
 	for iter := 0; ; iter++ {
 		if iter > n {
 			return nil, fail(le, "", ErrOffsetCollapses)
@@ -127,23 +176,17 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 		if !ok {
 			break
 		}
-		// Split at x into A = x, loop[i+1..j] and B = x, loop[j+1..], loop[..i].
+		// Split at x into A = x, loop[i+1..j] and B = x, loop[j+1..],
+		// loop[..i]; B holds loop[0], the end next to the trailing edge.
 		a := append([]model.Point{x}, loop[i+1:j+1]...)
 		ao := append([]int{owner[i]}, owner[i+1:j+1]...)
 		b := append([]model.Point{x}, loop[j+1:]...)
 		b = append(b, loop[:i+1]...)
-		bo := append([]int{owner[j]}, owner[j+1:]...)
-		bo = append(bo, owner[:i+1]...)
 		areaA, areaB := signedArea(a), signedArea(b)
-		holdsTE := containsIndex(bo, 0)
 		switch {
-		case areaA > 0 && areaB <= 0 && holdsTE:
-			// The reversed sliver at the trailing edge: cut it off.
-			loop, owner = a, ao
-			trimmed = xcOf(x)
-		case areaA > 0 && areaB > 0 && holdsTE && areaB < tipSliverFrac*areaA:
-			// A small loop left at a sharp, curved trailing edge (the
-			// cambered tip folds over before it reverses): cut it off too.
+		case areaA > 0 && math.Abs(areaB) < tipSliverFrac*areaA && !math.IsNaN(trimmed):
+			// A small loop beside the trimmed tip (a curved sharp edge
+			// whose offsets cross again): cut it off too.
 			loop, owner = a, ao
 			trimmed = xcOf(x)
 		case areaA > 0 && areaB > 0:
@@ -158,8 +201,8 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 		return nil, fail(le, "", ErrOffsetCollapses)
 	}
 	// Every remaining edge must keep the direction of the edge it came
-	// from; a reversed edge without a crossing means the whole outline
-	// turned inside out.
+	// from; a reversed edge without a crossing means the outline turned
+	// inside out there.
 	for k := range loop {
 		i := owner[k]
 		a, b := in[i], in[(i+1)%n]
@@ -169,6 +212,55 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 		}
 	}
 	return &Offset{Points: loop, TrimmedXC: trimmed}, nil
+}
+
+// tipCrossing finds the crossing of the open polylines up (from the
+// trailing edge to the leading edge) and lo (from the leading edge back)
+// nearest the trailing edge: the one with the least sum of the arc length
+// along up from up[0] and along lo to its last point. Segment i of up
+// (up[i]→up[i+1]) crosses segment j of lo at x. The segments meeting at
+// the shared leading-edge point are not compared.
+func tipCrossing(up, lo []model.Point) (i, j int, x model.Point, ok bool) {
+	su := make([]float64, len(up)) // arc length from up[0]
+	for k := 1; k < len(up); k++ {
+		su[k] = su[k-1] + up[k].Dist(up[k-1])
+	}
+	sl := make([]float64, len(lo)) // arc length to lo[last]
+	for k := len(lo) - 2; k >= 0; k-- {
+		sl[k] = sl[k+1] + lo[k].Dist(lo[k+1])
+	}
+	type box struct{ x0, x1, y0, y1 float64 }
+	boxOf := func(a, b model.Point) box {
+		return box{math.Min(a.X, b.X), math.Max(a.X, b.X), math.Min(a.Y, b.Y), math.Max(a.Y, b.Y)}
+	}
+	lb := make([]box, len(lo)-1)
+	for m := range lb {
+		lb[m] = boxOf(lo[m], lo[m+1])
+	}
+	best := math.Inf(1)
+	for k := 0; k+1 < len(up); k++ {
+		if su[k] >= best {
+			break // every later crossing is farther along up
+		}
+		ub := boxOf(up[k], up[k+1])
+		for m := len(lo) - 2; m >= 0; m-- {
+			if su[k]+sl[m+1] >= best {
+				break
+			}
+			if k == len(up)-2 && m == 0 {
+				continue // adjacent at the leading edge
+			}
+			if ub.x1 < lb[m].x0 || lb[m].x1 < ub.x0 || ub.y1 < lb[m].y0 || lb[m].y1 < ub.y0 {
+				continue
+			}
+			if p, hit := segmentCross(up[k], up[k+1], lo[m], lo[m+1]); hit {
+				if s := su[k] + up[k].Dist(p) + sl[m+1] + lo[m+1].Dist(p); s < best {
+					best, i, j, x, ok = s, k, m, p, true
+				}
+			}
+		}
+	}
+	return i, j, x, ok
 }
 
 // tipSliverFrac bounds the area, relative to the rest of the offset, of a
@@ -249,13 +341,4 @@ func signedArea(pts []model.Point) float64 {
 		a += pts[i].Cross(pts[(i+1)%len(pts)])
 	}
 	return a / 2
-}
-
-func containsIndex(s []int, v int) bool {
-	for _, x := range s {
-		if x == v {
-			return true
-		}
-	}
-	return false
 }
