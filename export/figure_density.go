@@ -34,6 +34,9 @@ func densityPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	counts := map[int]bool{}
 	cl0, cl1, cp0, cp1 := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
 	for _, r := range d.Rows {
+		if !r.Solved() { // skipped: the configuration could not be placed at that count
+			continue
+		}
 		counts[r.Panels] = true
 		cl0, cl1 = math.Min(cl0, r.Cl), math.Max(cl1, r.Cl)
 		cp0, cp1 = math.Min(cp0, r.CpMin), math.Max(cp1, r.CpMin)
@@ -75,7 +78,7 @@ func densityPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		}
 		var xl, xc plotter.XYs
 		for _, r := range d.Rows {
-			if r.Nose == nose {
+			if r.Nose == nose && r.Solved() {
 				xl = append(xl, plotter.XY{X: float64(r.Panels), Y: r.Cl})
 				xc = append(xc, plotter.XY{X: float64(r.Panels), Y: tw.toLeft(p, r.CpMin)})
 			}

@@ -564,7 +564,7 @@ func (d *densityWindow) showOutcome() {
 	d.caseLabel.SetText(text)
 	last := res.Rows[len(res.Rows)-1]
 	for _, r := range res.Rows {
-		if r.Nose == ser.Nose {
+		if r.Nose == ser.Nose && r.Solved() {
 			last = r
 		}
 	}

@@ -21,6 +21,9 @@ type jsonDensityRow struct {
 	CpMin  num `json:"cp_min"`
 	DCl    num `json:"d_cl"`
 	DCpMin num `json:"d_cp_min"`
+	// Skipped says why a count was not solved (the configuration could not
+	// be placed with that many panels); absent when it was.
+	Skipped string `json:"skipped,omitempty"`
 }
 
 type jsonExtrapolation struct {
@@ -94,26 +97,35 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 		},
 	}
 	for _, r := range res.Rows {
-		out.Rows = append(out.Rows, jsonDensityRow{r.Panels, num(r.Nose), num(r.Cl), num(r.Cm), num(r.CpMin), num(r.DCl), num(r.DCpMin)})
+		out.Rows = append(out.Rows, jsonDensityRow{r.Panels, num(r.Nose), num(r.Cl), num(r.Cm), num(r.CpMin), num(r.DCl), num(r.DCpMin), r.Skipped})
 	}
 	switch in.format {
 	case "json":
 		return writeJSON(stdout, out)
 	case "csv":
 		cw := csv.NewWriter(stdout)
-		cw.Write([]string{"panels", "nose", "cl", "cm", "cp_min", "d_cl", "d_cp_min"})
+		cw.Write([]string{"panels", "nose", "cl", "cm", "cp_min", "d_cl", "d_cp_min", "skipped"})
 		for _, r := range res.Rows {
-			cw.Write([]string{strconv.Itoa(r.Panels), g(r.Nose), g(r.Cl), g(r.Cm), g(r.CpMin), g(r.DCl), g(r.DCpMin)})
+			cw.Write([]string{strconv.Itoa(r.Panels), g(r.Nose), g(r.Cl), g(r.Cm), g(r.CpMin), g(r.DCl), g(r.DCpMin), r.Skipped})
 		}
 		cw.Flush()
 		return cw.Error()
 	}
 	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', tabwriter.AlignRight)
 	fmt.Fprintln(tw, "panels\tnose\tCl\tΔCl\tCm\tmin Cp\tΔ min Cp\t")
+	var skipped []string
 	for _, r := range res.Rows {
+		if !r.Solved() {
+			fmt.Fprintf(tw, "%d\t%.2f\tskipped\t\t\t\t\t\n", r.Panels, r.Nose)
+			skipped = append(skipped, fmt.Sprintf("%d panels: %s", r.Panels, r.Skipped))
+			continue
+		}
 		fmt.Fprintf(tw, "%d\t%.2f\t%.5f\t%s\t%.5f\t%.4f\t%s\t\n", r.Panels, r.Nose, r.Cl, fmtShort(r.DCl, "%+.5f"), r.Cm, r.CpMin, fmtShort(r.DCpMin, "%+.4f"))
 	}
 	tw.Flush()
+	for _, s := range skipped {
+		fmt.Fprintln(stdout, "skipped "+s)
+	}
 	for _, q := range []struct {
 		name string
 		e    solver.Extrapolation

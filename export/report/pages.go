@@ -326,6 +326,10 @@ func (r *writer) densityPage() {
 	r.figure(export.ViewDensity, r.scene(), "Cl and Cp min against the panel count for each nose clustering.", figureHMM)
 	var rows [][]string
 	for _, row := range d.Rows {
+		if !row.Solved() {
+			rows = append(rows, []string{strconv.Itoa(row.Panels), num(row.Nose, 2), "skipped", "", "", ""})
+			continue
+		}
 		rows = append(rows, []string{strconv.Itoa(row.Panels), num(row.Nose, 2), Coef(row.Cl), Coef(row.Cm), Cp(row.CpMin), num(row.ShortestPanel*1000, 3)})
 	}
 	r.table([]string{"Panels", "Nose", "Cl", "Cm", "Cp min", "Smallest panel, mm"}, []float64{1, 1, 1, 1, 1, 1.4},
