@@ -142,30 +142,63 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 	// up[k] is the offset of in[k] on the upper surface: up[0] the plain
 	// normal offset of in[0], segment up[k]→up[k+1] the moved edge k.
 	// lo[m] is the offset of in[leIdx+m]; its last point, the plain normal
-	// offset of in[0] by the closing edge, ends moved edge n−1.
+	// offset of in[0] by the closing edge, ends moved edge n−1. loOpen is
+	// lo without the closing edge, ending at the plain normal offset of
+	// in[n−1] by edge n−2.
 	up := make([]model.Point, leIdx+1)
 	up[0] = in[0].Add(inwardNormal(in[0], in[1]).Scale(d))
 	copy(up[1:], raw[1:leIdx+1])
 	lo := make([]model.Point, n-leIdx+1)
 	copy(lo, raw[leIdx:])
 	lo[n-leIdx] = in[0].Add(inwardNormal(in[n-1], in[0]).Scale(d))
+	loOpen := append([]model.Point(nil), lo[:n-leIdx]...)
+	loOpen[n-leIdx-1] = in[n-1].Add(inwardNormal(in[n-2], in[n-1]).Scale(d))
 
-	loop, owner := raw, make([]int, n)
-	for i := range owner {
-		owner[i] = i
-	}
-	trimmed := math.NaN()
-	if i, j, x, ok := tipCrossing(up, lo); ok {
-		// loop = x, up[i+1..leIdx], lo[1..j]; x starts moved edge i.
+	// cut joins up and l at their crossing x of segments i and j nearest
+	// the trailing edge: x, up[i+1..leIdx], l[1..j], x starting moved
+	// edge i. mitre reports that x joins the end edges of up and l.
+	cut := func(l []model.Point) (loop []model.Point, owner []int, x model.Point, mitre, ok bool) {
+		i, j, x, ok := tipCrossing(up, l)
+		if !ok {
+			return nil, nil, x, false, false
+		}
 		loop = append([]model.Point{x}, up[i+1:]...)
-		loop = append(loop, lo[1:j+1]...)
-		owner = owner[:0]
-		owner = append(owner, i)
+		loop = append(loop, l[1:j+1]...)
+		owner = []int{i}
 		for k := i + 1; k <= leIdx+j; k++ {
 			owner = append(owner, k)
 		}
-		if i > 0 || j < len(lo)-2 {
+		return loop, owner, x, i == 0 && j == len(l)-2, true
+	}
+	var (
+		loop    []model.Point
+		owner   []int
+		trimmed = math.NaN()
+	)
+	// A closing edge shorter than 2d (an open trailing edge's base, or
+	// the last panel of a closed one) holds no part of the offset once
+	// the offsets of the two surfaces cross: a circle of radius d touching
+	// it would stick out past its ends. Drop it and cut where the
+	// surfaces' offsets cross. Otherwise (a thick base, a corner, a
+	// smooth closed curve) the moved closing edge joins the two surfaces:
+	// each end of it is cut where it crosses the surface offset, which at
+	// a corner with long enough edges is the mitre point; nothing is
+	// trimmed. Failing both, the surfaces are joined where they cross
+	// next to the closing edge, and without any crossing the mitre offset
+	// stands as it is; the checks below judge either.
+	if l, o, x, _, ok := cut(loOpen); ok && in[n-1].Dist(in[0]) < 2*d {
+		loop, owner, trimmed = l, o, xcOf(x)
+	} else if l, o, ok := cutBase(up, loOpen, in[n-1], in[0], d, leIdx); ok {
+		loop, owner = l, o
+	} else if l, o, x, mitre, ok := cut(lo); ok {
+		loop, owner = l, o
+		if !mitre {
 			trimmed = xcOf(x)
+		}
+	} else {
+		loop, owner = raw, make([]int, n)
+		for i := range owner {
+			owner[i] = i
 		}
 	}
 	for iter := 0; ; iter++ {
@@ -214,10 +247,46 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 	return &Offset{Points: loop, TrimmedXC: trimmed}, nil
 }
 
+// cutBase joins the upper offset up (from the trailing edge, in[0], to the
+// leading edge in[leIdx]) and the lower offset lo (from the leading edge to
+// the plain normal offset of in[n−1]) through the closing edge p → q
+// (p = in[n−1], q = in[0]) moved d inwards: up is cut where it crosses the
+// moved edge nearest q, lo where it crosses it nearest p, and the moved
+// edge keeps the part between. It fails when either crossing is missing
+// or they come in the wrong order (the closing edge is used up). The loop
+// starts at the crossing on up, which starts moved edge i; the last point
+// starts moved edge n − 1, the closing edge.
+func cutBase(up, lo []model.Point, p, q model.Point, d float64, leIdx int) ([]model.Point, []int, bool) {
+	nb := inwardNormal(p, q).Scale(d)
+	base := []model.Point{p.Add(nb), q.Add(nb)}
+	i, _, x1, ok := tipCrossing(up, base)
+	if !ok {
+		return nil, nil, false
+	}
+	_, j, x2, ok := tipCrossing(base, lo)
+	if !ok {
+		return nil, nil, false
+	}
+	along := func(x model.Point) float64 { return x.Sub(base[0]).Dot(base[1].Sub(base[0])) }
+	if !(along(x2) < along(x1)) {
+		return nil, nil, false
+	}
+	loop := append([]model.Point{x1}, up[i+1:]...)
+	loop = append(loop, lo[1:j+1]...)
+	loop = append(loop, x2)
+	owner := []int{i}
+	for k := i + 1; k <= leIdx+j; k++ {
+		owner = append(owner, k)
+	}
+	owner = append(owner, leIdx+len(lo)-1) // n − 1
+	return loop, owner, true
+}
+
 // tipCrossing finds the crossing of the open polylines up (from the
 // trailing edge to the leading edge) and lo (from the leading edge back)
 // nearest the trailing edge: the one with the least sum of the arc length
-// along up from up[0] and along lo to its last point. Segment i of up
+// along up from up[0] and along lo to its last point, within the aft half
+// of both. Segment i of up
 // (up[i]→up[i+1]) crosses segment j of lo at x. The segments meeting at
 // the shared leading-edge point are not compared.
 func tipCrossing(up, lo []model.Point) (i, j int, x model.Point, ok bool) {
@@ -237,14 +306,18 @@ func tipCrossing(up, lo []model.Point) (i, j int, x model.Point, ok bool) {
 	for m := range lb {
 		lb[m] = boxOf(lo[m], lo[m+1])
 	}
+	// Only the aft half of each surface (by arc length) is searched: a
+	// crossing ahead of it is no trailing-edge trim but a fold, left to
+	// the checks of the joined loop.
+	halfU, halfL := su[len(su)-1]/2, sl[0]/2
 	best := math.Inf(1)
 	for k := 0; k+1 < len(up); k++ {
-		if su[k] >= best {
+		if su[k] >= best || su[k] >= halfU {
 			break // every later crossing is farther along up
 		}
 		ub := boxOf(up[k], up[k+1])
 		for m := len(lo) - 2; m >= 0; m-- {
-			if su[k]+sl[m+1] >= best {
+			if su[k]+sl[m+1] >= best || sl[m+1] >= halfL {
 				break
 			}
 			if k == len(up)-2 && m == 0 {

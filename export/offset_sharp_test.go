@@ -220,3 +220,64 @@ func insidePolygon(p model.Point, pts []model.Point) bool {
 	}
 	return in
 }
+
+// TestOffsetOpenTrailingEdge: a NACA 0012 at 250 mm (Abbott & von
+// Doenhoff, Theory of Wing Sections, 1959, eq. 6.2) thickened by a linear
+// ramp to an open trailing edge with a base perpendicular to the chord,
+// panelled finely towards the trailing edge (cosine spacing: the last
+// panels are far shorter than the skin). A base at least twice the skin
+// keeps its moved copy x = c − d between the two surfaces, with nothing
+// trimmed; a thinner base is cut off where the section is twice the skin
+// thick (just ahead of it, as for the sharp edges above).
+func TestOffsetOpenTrailingEdge(t *testing.T) {
+	const c = 250.0
+	for _, tc := range []struct{ baseMM, d float64 }{
+		{0.5, 0.5}, {0.5, 3}, {2, 0.5}, {2, 1.5}, {4, 1.5}, {8, 3},
+	} {
+		name := fmt.Sprintf("base %g mm, skin %g mm", tc.baseMM, tc.d)
+		half := func(x float64) float64 { // unit chord
+			return 5*0.12*(0.2969*math.Sqrt(x)-0.1260*x-0.3516*x*x+0.2843*x*x*x-0.1036*x*x*x*x) + tc.baseMM/c/2*x
+		}
+		unit := naca00xx(0.12, 200)
+		m := len(unit) / 2
+		var pts []model.Point
+		for i, p := range unit[:len(unit)-1] {
+			y := half(p.X)
+			if i > m {
+				y = -y
+			}
+			pts = append(pts, model.Point{X: p.X * c, Y: y * c})
+		}
+		pts = append(pts, model.Point{X: c, Y: -half(1) * c}) // lower trailing edge
+		o, err := InwardOffset(name, pts, tc.d, model.Point{}, model.Point{X: c})
+		if err != nil {
+			t.Errorf("%s: %v", name, err)
+			continue
+		}
+		checkInside(t, name, o, pts, tc.d, 1e-6)
+		if tc.baseMM >= 2*tc.d {
+			onBase := 0
+			for _, p := range o.Points {
+				if math.Abs(p.X-(c-tc.d)) < 1e-9 {
+					onBase++
+				}
+			}
+			if !math.IsNaN(o.TrimmedXC) || onBase != 2 {
+				t.Errorf("%s: TrimmedXC %g and %d points on the moved base, want NaN and 2", name, o.TrimmedXC, onBase)
+			}
+			continue
+		}
+		lo, hi := 0.5, 1.0
+		for range 60 {
+			x := (lo + hi) / 2
+			if 2*half(x)*c > 2*tc.d {
+				lo = x
+			} else {
+				hi = x
+			}
+		}
+		if !(o.TrimmedXC > lo-0.02 && o.TrimmedXC <= lo+1e-3) {
+			t.Errorf("%s: offset ends at x/c %.4f, want just ahead of %.4f where the section is %g mm thick", name, o.TrimmedXC, lo, 2*tc.d)
+		}
+	}
+}
