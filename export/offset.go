@@ -57,34 +57,44 @@ type Offset struct {
 // edge direction, and consecutive moved edges meet at the intersection of
 // their lines (the mitre point), which for a convex polygon is the exact
 // offset (Held, On the Computational Geometry of Pocket Machining, 1991,
-// ch. 2). The trailing edge pts[0] is not mitred: the outline is split
-// there into the upper surface U = pts[0..LE] and the lower surface
-// L = pts[LE..], closed back to pts[0] (so an open trailing edge's base
-// belongs to L), LE the point farthest from te. Each is offset as an open
-// polyline, mitred at its interior vertices and moved along the plain
-// normal of its end edge at pts[0]. The offset ends at the crossing of the
-// two offset curves nearest the trailing edge (least arc length from
-// pts[0] along both); both are cut there and joined.
+// ch. 2). The trailing edge is not mitred. The outline is split into the
+// upper surface U = pts[0..LE] (LE the point farthest from te), the lower
+// surface L = pts[LE..N−1] and the closing edge pts[N−1] → pts[0] (an open
+// trailing edge's base, or the last lower panel of a closed one). Each is
+// offset as an open polyline, mitred at its interior vertices and moved
+// along the plain normal of its end edges, and the pieces are cut where
+// they cross next to the trailing edge (least arc length from it, in the
+// aft half of each surface) and joined:
 //
-//   - Where the trailing-edge corner is thick enough (a blunt base, a
-//     rectangle's corner, a circle) the end edges themselves cross at the
-//     mitre point and nothing is trimmed: TrimmedXC is NaN.
-//   - Where the section near its trailing edge is thinner than twice the
-//     offset (a sharp edge of included angle τ, open or closed, cambered or
-//     not) the offset curves cross at the centre of the circle of radius d
-//     touching both surfaces; the rib stops there and TrimmedXC gives its
-//     x/c. For a straight wedge that point lies d/sin(τ/2) from the apex
-//     along the bisector, just ahead of where the thickness is 2d
-//     (d/tan(τ/2) from the apex).
+//   - A closing edge shorter than 2d holds no part of the offset once U
+//     and L cross: the offset ends where they cross, at the centre of the
+//     circle of radius d touching both surfaces, and TrimmedXC gives its
+//     x/c. This is where a sharp trailing edge (closed, or open with a
+//     thin base; cambered or not) is thinner than twice the offset: the
+//     rib stops there. For a straight wedge of included angle τ the point
+//     lies d/sin(τ/2) from the apex along the bisector, just ahead of where
+//     the wedge is 2d thick (d/tan(τ/2) from the apex).
+//   - Otherwise (a base at least 2d, a corner, a smooth closed curve) the
+//     moved closing edge joins U and L, each end cut where it crosses
+//     them: at a corner with long enough edges that is the mitre point,
+//     and short panels next to the corner are cut away. Nothing is
+//     trimmed: TrimmedXC is NaN, unless the loop so joined starts at a
+//     point sharper than sharpEdgeMaxDeg (coarse panels along a sharp
+//     trailing edge, whose closing edge is a long lower panel): the rib
+//     ends there and TrimmedXC says where.
+//   - Failing that, U and L are joined where they cross nearest the
+//     trailing edge, and without any crossing the plain mitre offset
+//     stands; the same sharpness rule sets TrimmedXC.
 //
-// A small loop left next to the cut (a curved tip whose offsets cross
-// more than once, less than tipSliverFrac of the remaining area) is cut
-// off too and moves TrimmedXC. Any other crossing of the remaining loop,
-// or an offset edge pointing against its source edge, returns an
-// *OffsetError wrapping ErrOffsetFolds (a radius of curvature or the
-// thickness there is below the offset); an offset that vanishes, turns
-// inside out or splits into comparable parts wraps ErrOffsetCollapses.
-// Both say where along the chord (le → te) it happened.
+// The joined loop must not cross itself: a small loop next to a trimmed
+// trailing edge (a curved tip whose offsets cross more than once, less
+// than tipSliverFrac of the remaining area) is cut off too and moves
+// TrimmedXC; any other crossing, or an offset edge pointing against its
+// source edge, returns an *OffsetError wrapping ErrOffsetFolds (a radius of
+// curvature or the thickness there is below the offset), and an offset
+// that vanishes, turns inside out or splits into comparable parts wraps
+// ErrOffsetCollapses. Both say where along the chord (le → te) it
+// happened.
 //
 // element names the outline in errors. pts must hold at least 3 points.
 func InwardOffset(element string, pts []model.Point, d float64, le, te model.Point) (*Offset, error) {
@@ -175,31 +185,33 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 		owner   []int
 		trimmed = math.NaN()
 	)
-	// A closing edge shorter than 2d (an open trailing edge's base, or
-	// the last panel of a closed one) holds no part of the offset once
-	// the offsets of the two surfaces cross: a circle of radius d touching
-	// it would stick out past its ends. Drop it and cut where the
-	// surfaces' offsets cross. Otherwise (a thick base, a corner, a
-	// smooth closed curve) the moved closing edge joins the two surfaces:
-	// each end of it is cut where it crosses the surface offset, which at
-	// a corner with long enough edges is the mitre point; nothing is
-	// trimmed. Failing both, the surfaces are joined where they cross
-	// next to the closing edge, and without any crossing the mitre offset
-	// stands as it is; the checks below judge either.
-	if l, o, x, _, ok := cut(loOpen); ok && in[n-1].Dist(in[0]) < 2*d {
-		loop, owner, trimmed = l, o, xcOf(x)
-	} else if l, o, ok := cutBase(up, loOpen, in[n-1], in[0], d, leIdx); ok {
-		loop, owner = l, o
-	} else if l, o, x, mitre, ok := cut(lo); ok {
-		loop, owner = l, o
-		if !mitre {
+	// A closing edge shorter than 2d holds no part of the offset once the
+	// surfaces' offsets cross: a circle of radius d touching it would
+	// stick out past its ends. Otherwise the moved closing edge joins the
+	// surfaces (see the doc comment for the order of the cases).
+	ok := false
+	if in[n-1].Dist(in[0]) < 2*d {
+		var x model.Point
+		if loop, owner, x, _, ok = cut(loOpen); ok {
 			trimmed = xcOf(x)
 		}
-	} else {
+	}
+	if !ok {
+		loop, owner, ok = cutBase(up, loOpen, in[n-1], in[0], d, leIdx)
+	}
+	if !ok {
+		loop, owner, _, _, ok = cut(lo)
+	}
+	if !ok {
 		loop, owner = raw, make([]int, n)
 		for i := range owner {
 			owner[i] = i
 		}
+	}
+	if math.IsNaN(trimmed) && sharpJoin(loop) {
+		// Coarse panels: the surfaces' offsets meet at a sharp point on
+		// the moved closing edge, or at its mitre with its neighbour.
+		trimmed = xcOf(loop[0])
 	}
 	for iter := 0; ; iter++ {
 		if iter > n {
@@ -334,6 +346,27 @@ func tipCrossing(up, lo []model.Point) (i, j int, x model.Point, ok bool) {
 		}
 	}
 	return i, j, x, ok
+}
+
+// sharpEdgeMaxDeg is the largest angle, in degrees, between the upper and
+// lower offsets where they meet at the start of the joined loop for the
+// meeting point to count as the end of the rib short of a sharp trailing
+// edge. Trailing-edge angles of wing sections lie well below it (5°–30°,
+// common practice); the corners of a blunt base or a rectangle are 90°,
+// and a smooth curve turns by little more than nothing.
+const sharpEdgeMaxDeg = 60
+
+// sharpJoin reports whether the closed loop meets itself at loop[0] at an
+// angle below sharpEdgeMaxDeg: the included angle there is π less the
+// turn from the incoming edge to the outgoing one.
+func sharpJoin(loop []model.Point) bool {
+	if len(loop) < 3 {
+		return false
+	}
+	in := loop[0].Sub(loop[len(loop)-1])
+	out := loop[1].Sub(loop[0])
+	turn := math.Atan2(in.Cross(out), in.Dot(out))
+	return math.Pi-math.Abs(turn) < sharpEdgeMaxDeg*math.Pi/180
 }
 
 // tipSliverFrac bounds the area, relative to the rest of the offset, of a

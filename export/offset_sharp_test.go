@@ -16,27 +16,26 @@ import (
 // contact form a right triangle with angle τ/2 at the apex). The wedge
 // there is 2(d/sin(τ/2))·tan(τ/2) = 2d/cos(τ/2) thick; it is 2d thick
 // d/tan(τ/2) from the apex. Closed (sharp) and open (a base e thinner than
-// 2d cut off the apex) trailing edges end at the same point. When the
-// flank segments at the apex are longer than d/sin(τ/2) no edge is cut
-// away: the end is the mitre point of the apex, the same point, and
-// TrimmedXC is NaN.
+// 2d cut off the apex) trailing edges end at the same point, and so do
+// flanks of segments longer than d/sin(τ/2), where no edge is cut away and
+// the end is the mitre point of the apex.
 func TestOffsetSharpWedge(t *testing.T) {
 	const c = 250.0
 	for _, tc := range []struct {
 		tauDeg, d float64
 		openMM    float64 // trailing-edge base; 0 for a sharp apex
 		segs      int     // segments per flank
-		mitre     bool    // the apex segments outlast the cut: nothing trimmed
+		coarse    bool    // the apex segments outlast the cut: even spacing
 	}{
 		{5, 0.5, 0, 100, false}, {5, 3, 0, 100, false}, {10, 1.5, 0, 100, false},
 		{15, 3, 0, 100, false}, {30, 1.5, 0, 100, false},
 		{10, 1.5, 0.5, 100, false}, {15, 3, 1, 100, false},
-		{30, 1.5, 0, 4, true},
+		{30, 1.5, 0, 4, true}, {10, 1.5, 0, 1, true},
 	} {
 		name := fmt.Sprintf("τ %g°, skin %g mm, base %g mm, %d segments", tc.tauDeg, tc.d, tc.openMM, tc.segs)
 		half := tc.tauDeg * math.Pi / 360
 		spacing := 2.0
-		if tc.mitre {
+		if tc.coarse {
 			spacing = 1
 		}
 		pts := wedge(c, half, tc.openMM, tc.segs, spacing)
@@ -49,13 +48,6 @@ func TestOffsetSharpWedge(t *testing.T) {
 		want := model.Point{X: c - dist}
 		if got := o.Points[0]; got.Dist(want) > 1e-9*c {
 			t.Errorf("%s: offset ends at %v, want %v", name, got, want)
-		}
-		if tc.mitre {
-			if !math.IsNaN(o.TrimmedXC) {
-				t.Errorf("%s: TrimmedXC %g, want NaN (the apex mitre)", name, o.TrimmedXC)
-			}
-			checkInside(t, name, o, pts, tc.d, 1e-9*c)
-			continue
 		}
 		if e := math.Abs(o.TrimmedXC - (1 - dist/c)); e > 1e-12 {
 			t.Errorf("%s: TrimmedXC %.9f, want 1 − d/(c sin(τ/2)) = %.9f", name, o.TrimmedXC, 1-dist/c)
@@ -280,4 +272,21 @@ func TestOffsetOpenTrailingEdge(t *testing.T) {
 			t.Errorf("%s: offset ends at x/c %.4f, want just ahead of %.4f where the section is %g mm thick", name, o.TrimmedXC, lo, 2*tc.d)
 		}
 	}
+}
+
+// A rib template under a 1.5 mm skin for a 250 mm wedge with a 10°
+// trailing edge stops where the two offset surfaces meet,
+// d/sin(τ/2) = 17.21 mm ahead of the trailing edge: x/c = 0.9312.
+func ExampleInwardOffset() {
+	const c, tau, skin = 250.0, 10.0, 1.5
+	h := c * math.Tan(tau*math.Pi/360) // half-thickness at the leading edge
+	pts := []model.Point{{X: c}, {X: 0, Y: h}, {X: 0, Y: -h}}
+	o, err := InwardOffset("flap", pts, skin, model.Point{}, model.Point{X: c})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("%d points, the rib ends at x/c %.4f\n", len(o.Points), o.TrimmedXC)
+	// Output:
+	// 3 points, the rib ends at x/c 0.9312
 }
