@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"os"
 	"testing"
 
 	"sectionbench/model"
@@ -405,22 +404,7 @@ func TestDensityStudySkipsGeometryErrors(t *testing.T) {
 // 40-panel counts fail the placement check (the gap between main plane and flap is
 // shorter than the panels), completes with that count skipped.
 func TestDensityStudyRearWing(t *testing.T) {
-	b, err := os.ReadFile("../testdata/studies/rear-wing.json")
-	if err != nil {
-		t.Fatal(err)
-	}
-	st, err := model.DecodeStudy(b)
-	if err != nil {
-		t.Fatal(err)
-	}
-	var secs []*model.Section
-	for _, e := range st.Elements {
-		sec, _, err := model.SectionFromSource(e.Section, nil)
-		if err != nil {
-			t.Fatal(err)
-		}
-		secs = append(secs, sec)
-	}
+	st, secs := loadStudy(t, "../testdata/studies/rear-wing.json")
 	res, err := NewEngine().Density(context.Background(), st, secs, nil)
 	if err != nil {
 		t.Fatal(err)

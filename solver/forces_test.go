@@ -4,7 +4,6 @@ import (
 	"context"
 	"math"
 	"math/rand/v2"
-	"os"
 	"testing"
 
 	"sectionbench/model"
@@ -395,22 +394,7 @@ func TestVortexForceFreeAir(t *testing.T) {
 // and 0.1% of the main plane's: dropping it or flipping its sign
 // would break the balance by more than the 0.015% allowed.
 func TestVortexForceBaseBalance(t *testing.T) {
-	b, err := os.ReadFile("../testdata/studies/rear-wing.json")
-	if err != nil {
-		t.Fatal(err)
-	}
-	st, err := model.DecodeStudy(b)
-	if err != nil {
-		t.Fatal(err)
-	}
-	var secs []*model.Section
-	for _, e := range st.Elements {
-		sec, _, err := model.SectionFromSource(e.Section, nil)
-		if err != nil {
-			t.Fatal(err)
-		}
-		secs = append(secs, sec)
-	}
+	st, secs := loadStudy(t, "../testdata/studies/rear-wing.json")
 	const tol = 1.5e-4
 	for _, ground := range []bool{true, false} {
 		for _, n := range []int{320, 640} {
