@@ -14,6 +14,7 @@ import (
 	"testing"
 	"time"
 
+	"sectionbench/export"
 	"sectionbench/model"
 	"sectionbench/solver"
 )
@@ -43,13 +44,9 @@ func demoStudy() *model.Study {
 
 func solve(t *testing.T, st *model.Study) *solver.Result {
 	t.Helper()
-	secs := make([]*model.Section, len(st.Elements))
-	for i, e := range st.Elements {
-		s, _, err := model.SectionFromSource(e.Section, nil)
-		if err != nil {
-			t.Fatal(err)
-		}
-		secs[i] = s
+	secs, _, err := export.LoadSections(st, "")
+	if err != nil {
+		t.Fatal(err)
 	}
 	r, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: true, Streamlines: true})
 	if err != nil {
@@ -62,13 +59,9 @@ func solve(t *testing.T, st *model.Study) *solver.Result {
 // clusterings, each a full engine solve.
 func density(t *testing.T, st *model.Study) *solver.DensityResult {
 	t.Helper()
-	secs := make([]*model.Section, len(st.Elements))
-	for i, e := range st.Elements {
-		s, _, err := model.SectionFromSource(e.Section, nil)
-		if err != nil {
-			t.Fatal(err)
-		}
-		secs[i] = s
+	secs, _, err := export.LoadSections(st, "")
+	if err != nil {
+		t.Fatal(err)
 	}
 	c := st.Clone()
 	c.Density = model.DensityPlan{Panels: []int{40, 80, 160, 320}, Nose: []float64{0.3, 0.7}}
