@@ -67,7 +67,7 @@ type ElementSolution struct {
 	Cl         float64   // vortex force (Lagally): 2Γ/(U∞c) alone in free air; with the local velocity of the others and the images otherwise (forces.go)
 	ClPressure float64   // from integrating Cp over the panels
 	Cm         float64   // about the element's quarter chord, from pressure
-	CpMin      float64   // suction peak: lowest Cp over the surface panels
+	CpMin      float64   // suction peak: lowest Cp over the surface panels, leaving out those of a trailing edge thinner than its panels (see the solution's warnings)
 	XCpMin     float64   // x/c of CpMin
 	Stagnation Stagnation
 
@@ -114,6 +114,6 @@ type Coefficients struct {
 	Cl         float64
 	ClPressure float64
 	Cm         float64
-	CpMin      float64 // smallest Cp over all elements' surface panels
+	CpMin      float64 // smallest Cp over all elements' surface panels, as ElementSolution.CpMin
 	XCpMin     float64 // x/c of CpMin on its element
 }
