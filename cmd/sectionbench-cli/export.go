@@ -51,6 +51,12 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 	if err := checkFigureSize(*width, *height, *dpi); err != nil {
 		return err
 	}
+	if !(*chordMM >= 0 && *chordMM <= model.MaxChordMM) {
+		return usagef("--chord-mm %g: want 0 (unit chord) to %g mm", *chordMM, float64(model.MaxChordMM))
+	}
+	if !(*skin >= 0 && *skin < 1000) {
+		return usagef("--skin-mm %g: want 0 (no offset) or a thickness in mm", *skin)
+	}
 	if *out == "" {
 		return usagef("give -o OUT (or -o - for standard output)")
 	}

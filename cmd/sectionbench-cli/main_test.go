@@ -50,6 +50,7 @@ func TestExitCodesAndMessages(t *testing.T) {
 		{"figure dpi rounds to zero", []string{"export", "--section", "naca:0012", "--what", "figure", "--dpi", "0.4", "-o", "x.png"}, exitUsage, []string{"--dpi"}},
 		{"figure negative width", []string{"export", "--section", "naca:0012", "--what", "figure", "--width-in", "-1", "-o", "x.png"}, exitUsage, []string{"--width-in"}},
 		{"figure huge", []string{"export", "--section", "naca:0012", "--what", "figure", "--width-in", "40", "--dpi", "1200", "-o", "x.png"}, exitUsage, []string{"pixels"}},
+		{"chord NaN", []string{"export", "--section", "naca:0012", "--what", "outline-svg", "--chord-mm", "NaN", "-o", "x.svg"}, exitUsage, []string{"--chord-mm"}},
 		{"nose list without blend", []string{"density", "--section", "naca:0012", "--nose", "0.2,0.8"}, exitUsage, []string{"blend"}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
