@@ -5,8 +5,6 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/mat"
-
-	"sectionbench/model"
 )
 
 // Benchmarks of the panel method's stages on NACA 2412 (cosine spacing) at
@@ -132,20 +130,6 @@ func BenchmarkSweep41(b *testing.B) {
 			s.Sweep(alphas)
 		}
 	})
-}
-
-// fieldGrid returns an nx × ny grid over r.
-func fieldGrid(r Rect, nx, ny int) []model.Point {
-	pts := make([]model.Point, 0, nx*ny)
-	for j := range ny {
-		for i := range nx {
-			pts = append(pts, model.Point{
-				X: r.Min.X + (r.Max.X-r.Min.X)*float64(i)/float64(nx-1),
-				Y: r.Min.Y + (r.Max.Y-r.Min.Y)*float64(j)/float64(ny-1),
-			})
-		}
-	}
-	return pts
 }
 
 // BenchmarkField200x150 is the velocity on a 200 × 150 grid over

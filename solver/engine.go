@@ -6,6 +6,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"time"
 
 	"sectionbench/model"
@@ -80,7 +81,7 @@ func NewEngine() *Engine { return &Engine{} }
 
 // geometryKey identifies the study fields the placed geometry depends on.
 // Each element's section enters by its source's name only: the section
-// itself is compared by identity (sameSections), which is cheaper than
+// itself is compared by identity (slices.Equal on the pointers), which is cheaper than
 // encoding embedded points on every update.
 func geometryKey(st *model.Study) string {
 	type elem struct {
@@ -104,20 +105,6 @@ func geometryKey(st *model.Study) string {
 	return string(b)
 }
 
-// sameSections reports whether a and b hold the same section values, one by
-// one.
-func sameSections(a, b []*model.Section) bool {
-	if len(a) != len(b) {
-		return false
-	}
-	for i := range a {
-		if a[i] != b[i] {
-			return false
-		}
-	}
-	return true
-}
-
 // configAt builds the solver's configuration from the layout at an angle.
 func configAt(l *model.Layout, alphaDeg float64) (Config, float64) {
 	elems, groundY, fs := l.At(alphaDeg)
@@ -138,7 +125,7 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 		return nil, err
 	}
 	key := geometryKey(st)
-	if key != e.geomKey || !sameSections(req.Sections, e.secs) {
+	if key != e.geomKey || !slices.Equal(req.Sections, e.secs) {
 		l, err := model.Place(st, req.Sections)
 		if err != nil {
 			return nil, err

@@ -65,15 +65,7 @@ func MeasureStages(cfg Config, alphas []float64, grid Rect, nx, ny, repeats int)
 	if err != nil {
 		return StageTimes{}, err
 	}
-	pts := make([]model.Point, 0, nx*ny)
-	for j := range ny {
-		for i := range nx {
-			pts = append(pts, model.Point{
-				X: grid.Min.X + (grid.Max.X-grid.Min.X)*float64(i)/float64(nx-1),
-				Y: grid.Min.Y + (grid.Max.Y-grid.Min.Y)*float64(j)/float64(ny-1),
-			})
-		}
-	}
+	pts := fieldGrid(grid, nx, ny)
 	u, v := make([]float64, len(pts)), make([]float64, len(pts))
 	var asm, fac, sol, swp, fld []time.Duration
 	for range repeats {
@@ -114,4 +106,19 @@ func median(d []time.Duration) time.Duration {
 		return d[n/2]
 	}
 	return (d[n/2-1] + d[n/2]) / 2
+}
+
+// fieldGrid returns an nx × ny grid of points over r, corners included,
+// row after row from the bottom; nx, ny ≥ 2.
+func fieldGrid(r Rect, nx, ny int) []model.Point {
+	pts := make([]model.Point, 0, nx*ny)
+	for j := range ny {
+		for i := range nx {
+			pts = append(pts, model.Point{
+				X: r.Min.X + (r.Max.X-r.Min.X)*float64(i)/float64(nx-1),
+				Y: r.Min.Y + (r.Max.Y-r.Min.Y)*float64(j)/float64(ny-1),
+			})
+		}
+	}
+	return pts
 }

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -313,7 +314,7 @@ func (d *densityWindow) readPlan() (model.DensityPlan, error) {
 			*t.v = v
 		}
 	}
-	if intsEqual(p.Panels, densityDefaultPanels) {
+	if slices.Equal(p.Panels, densityDefaultPanels) {
 		p.Panels = nil
 	}
 	n := len(p.Panels)
@@ -324,18 +325,6 @@ func (d *densityWindow) readPlan() (model.DensityPlan, error) {
 		return p, fmt.Errorf("%d solves: at most %d (fewer counts or nose values)", runs, maxDensityRuns)
 	}
 	return p, nil
-}
-
-func intsEqual(a, b []int) bool {
-	if len(a) != len(b) {
-		return false
-	}
-	for i := range a {
-		if a[i] != b[i] {
-			return false
-		}
-	}
-	return true
 }
 
 // parseList reads numbers separated by commas or spaces; with a semicolon
