@@ -126,9 +126,15 @@ func (p *plotCanvas) sized(size fyne.Size) {
 // setDark chooses the figure colours; the UI goroutine calls it on theme
 // changes.
 func (p *plotCanvas) setDark(dark bool) {
+	setAndRedraw(p, &p.dark, dark)
+}
+
+// setAndRedraw sets one of p's fields under the lock and redraws if its
+// value changed.
+func setAndRedraw[T comparable](p *plotCanvas, field *T, v T) {
 	p.change(func() bool {
-		changed := p.dark != dark
-		p.dark = dark
+		changed := *field != v
+		*field = v
 		return changed
 	})
 }
@@ -219,21 +225,13 @@ func (p *plotCanvas) figure() figKind {
 
 // setFigure switches what the view draws and redraws it.
 func (p *plotCanvas) setFigure(f figKind) {
-	p.change(func() bool {
-		changed := p.shows != f
-		p.shows = f
-		return changed
-	})
+	setAndRedraw(p, &p.shows, f)
 }
 
 // setElement chooses the element of the pressure and boundary-layer
 // figures (−1: all, or the first) and redraws.
 func (p *plotCanvas) setElement(i int) {
-	p.change(func() bool {
-		changed := p.element != i
-		p.element = i
-		return changed
-	})
+	setAndRedraw(p, &p.element, i)
 }
 
 // viewNote explains an empty view; visSweep tells whether the sweep has
