@@ -259,7 +259,7 @@ func (r *writer) figurePages() {
 	r.figure(export.ViewPanels, sc, "The configuration as solved, with panel nodes and control points (panel midpoints). Lengths in millimetres.", figureHMM)
 	l := r.in.Result.Layout
 	if len(l.Elements) > 0 {
-		size := 0.15 * l.Elements[0].Chord * 1000
+		size := leWindowChords * l.Elements[0].Chord * metresToMM
 		le := *sc
 		le.Window = export.LEWindow(l, 0, size)
 		r.figure(export.ViewPanels, &le, fmt.Sprintf("Leading edge of %s, a %s mm window: nose panelling.", l.Elements[0].Name, num(size, 0)), figureHMM)
@@ -370,3 +370,11 @@ var references = []string{
 
 const limitations = "2-D potential-flow estimates; validate by test; structural design and mounting follow the competition's rules and qualified engineering review.\n" +
 	"The panel method assumes attached, incompressible, steady two-dimensional flow. It does not predict stall or maximum lift, and it overstates lift near and beyond separation. Ground effect is modelled with a fixed ground; a moving ground, wheels and the car's body change the flow. The boundary-layer estimate is sensitive to transition, which the criterion predicts only roughly; trips fix it where the test article has them. Check convergence with the panel density study before quoting a number."
+
+// The leading-edge close-up of the report frames the first 15 % of the
+// main element's chord: the nose region where panel density matters most
+// (the suction peak of a wing section lies within a few percent of chord).
+const (
+	leWindowChords = 0.15
+	metresToMM     = 1000
+)
