@@ -45,7 +45,8 @@ func place(unit []model.Point, c, angleDeg float64, le model.Point) []model.Poin
 }
 
 // synthLayout is a two-element wing: a 250 mm main plane and a 100 mm flap
-// set 20° nose-down behind it (invented demo geometry).
+// set 20° nose-up (trailing edge down, as a flap deflects) behind it
+// (invented demo geometry).
 func synthLayout(panels int) *model.Layout {
 	type spec struct {
 		name       string
