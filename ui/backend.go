@@ -11,6 +11,8 @@ import (
 	"io"
 
 	"sectionbench/export"
+	figures "sectionbench/export/figure"
+	"sectionbench/export/format"
 	"sectionbench/export/report"
 	"sectionbench/model"
 	"sectionbench/solver"
@@ -30,16 +32,16 @@ type engine interface {
 func newEngine() engine { return solver.NewEngine() }
 
 type (
-	viewWindow = export.Window
-	scene      = export.Scene
-	figure     = export.Figure
+	viewWindow = figures.Window
+	scene      = figures.Scene
+	figure     = figures.Figure
 )
 
 // exportViews maps the workbench's views to export's.
-var exportViews = [numViews]export.View{export.ViewPanels, export.ViewPressure, export.ViewStreamlines, export.ViewPolar}
+var exportViews = [numViews]figures.View{figures.ViewPanels, figures.ViewPressure, figures.ViewStreamlines, figures.ViewPolar}
 
 func renderView(v viewKind, sc *scene, w, h int, dpi float64) (*figure, error) {
-	return export.Render(exportViews[v], sc, w, h, dpi)
+	return figures.Render(exportViews[v], sc, w, h, dpi)
 }
 
 // figureWindow returns the data ranges of a figure's data area.
@@ -51,7 +53,7 @@ func figureWindow(f *figure) (viewWindow, bool) {
 // leWindow returns the close-up window about an element's leading edge,
 // sized in chords.
 func leWindow(l *model.Layout, element int, chords float64) viewWindow {
-	return export.LEWindow(l, element, chords*l.Elements[element].Chord*mmPerM)
+	return figures.LEWindow(l, element, chords*l.Elements[element].Chord*mmPerM)
 }
 
 // mmPerM converts the layout's metres to the figures' millimetres.
@@ -128,15 +130,15 @@ func writeFile(path string, write func(io.Writer) error) error {
 func writeFigure(w io.Writer, v viewKind, sc *scene, format string, widthIn, heightIn, dpi float64) error {
 	c := *sc
 	c.Dark = false // printed figures are light
-	return export.WriteFigure(w, exportViews[v], &c, format, widthIn, heightIn, dpi)
+	return figures.WriteFigure(w, exportViews[v], &c, format, widthIn, heightIn, dpi)
 }
 
-func writeCpTable(w io.Writer, res *engineResult) error { return export.WriteCpTable(w, res.Solution) }
+func writeCpTable(w io.Writer, res *engineResult) error { return format.WriteCpTable(w, res.Solution) }
 
 // writeSweepTable writes the sweep, with its boundary-layer estimate when
 // viscous is not nil (parallel to sweep).
 func writeSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []solver.ViscousPoint) error {
-	return export.WriteSweepTable(w, sweep, viscous)
+	return format.WriteSweepTable(w, sweep, viscous)
 }
 
 // writeReport writes the team report; density may be nil.
@@ -156,7 +158,7 @@ func recovered(f func() error) (err error) {
 
 // isNoData reports a view that lacks what it draws (as opposed to a
 // failure).
-func isNoData(err error) bool { return errors.Is(err, export.ErrNoData) }
+func isNoData(err error) bool { return errors.Is(err, figures.ErrNoData) }
 
 // sceneWithViscous is sceneOf with the boundary-layer estimate of the
 // sweep shown in the drag polar and lift-to-drag views.
@@ -182,8 +184,8 @@ const (
 	figLiftToDrag
 )
 
-var figureViews = [...]export.View{export.ViewPanels, export.ViewPressure, export.ViewStreamlines, export.ViewPolar,
-	export.ViewDragPolar, export.ViewBoundaryLayer, export.ViewLiftToDrag}
+var figureViews = [...]figures.View{figures.ViewPanels, figures.ViewPressure, figures.ViewStreamlines, figures.ViewPolar,
+	figures.ViewDragPolar, figures.ViewBoundaryLayer, figures.ViewLiftToDrag}
 
 // figureOf returns the figure a view cell draws by default.
 func figureOf(v viewKind) figKind { return figKind(v) }
@@ -195,7 +197,7 @@ func safeRenderFigure(f figKind, sc *scene, w, h int, dpi float64) (fig *figure,
 			fig, err = nil, fmt.Errorf("internal error drawing %s: %v", figureViews[f], r)
 		}
 	}()
-	return export.Render(figureViews[f], sc, w, h, dpi)
+	return figures.Render(figureViews[f], sc, w, h, dpi)
 }
 
 type (

@@ -11,15 +11,16 @@ import (
 	"os"
 
 	"sectionbench/export"
+	figures "sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver"
 )
 
 type (
 	densityResult = solver.DensityResult
-	densityCurve  = export.DensityCurve
+	densityCurve  = figures.DensityCurve
 	densityPlan   = model.DensityPlan
-	panelSizes    = export.PanelSizes
+	panelSizes    = figures.PanelSizes
 	extrapolation = solver.Extrapolation
 )
 
@@ -35,8 +36,8 @@ var (
 	densityDefaultPanels = solver.DefaultDensityPanels
 	densityDefaultTolCl  = solver.DefaultTolClPct
 	densityDefaultTolCp  = solver.DefaultTolCpMinPct
-	densityLEChord       = export.DensityLEChord
-	defaultMaxRatio      = export.DefaultMaxNeighbourRatio
+	densityLEChord       = figures.DensityLEChord
+	defaultMaxRatio      = figures.DefaultMaxNeighbourRatio
 )
 
 // runDensity runs the density study of st (its plan, at its angle of
@@ -62,16 +63,16 @@ func runDensity(ctx context.Context, st *model.Study, secs []*model.Section, pro
 
 // renderDensity draws the convergence figure of a density study.
 func renderDensity(res *densityResult, dark bool, w, h int, dpi float64) (*figure, error) {
-	return export.Render(export.ViewDensity, &export.Scene{Density: res, Dark: dark, Element: -1}, w, h, dpi)
+	return figures.Render(figures.ViewDensity, &figures.Scene{Density: res, Dark: dark, Element: -1}, w, h, dpi)
 }
 
 // renderDensityLE draws the leading-edge Cp of every count on element.
 func renderDensityLE(curves []densityCurve, element int, dark bool, w, h int, dpi float64) (*figure, error) {
-	p, err := export.DensityLEPlot(curves, element, export.DensityLEChord, dark)
+	p, err := figures.DensityLEPlot(curves, element, figures.DensityLEChord, dark)
 	if err != nil {
 		return nil, err
 	}
-	return export.RenderPlot(p, false, w, h, dpi), nil
+	return figures.RenderPlot(p, false, w, h, dpi), nil
 }
 
 // placedPanelSizes places the study's elements with their panelling, as
@@ -81,32 +82,32 @@ func placedPanelSizes(st *model.Study, secs []*model.Section) ([]panelSizes, err
 	if err != nil {
 		return nil, err
 	}
-	return export.PanelSizesOf(l)
+	return figures.PanelSizesOf(l)
 }
 
 // renderPanelSizes draws one element's panel sizes.
 func renderPanelSizes(ps panelSizes, maxRatio float64, dark bool, w, h int, dpi float64) (*figure, error) {
-	p, err := export.PanelSizesPlot(ps, maxRatio, dark)
+	p, err := figures.PanelSizesPlot(ps, maxRatio, dark)
 	if err != nil {
 		return nil, err
 	}
-	return export.RenderPlot(p, true, w, h, dpi), nil
+	return figures.RenderPlot(p, true, w, h, dpi), nil
 }
 
 // writeDensityFigure writes the convergence figure of a density study
 // (light, for print).
 func writeDensityFigure(w io.Writer, res *densityResult, format string, widthIn, heightIn, dpi float64) error {
-	return export.WriteFigure(w, export.ViewDensity, &export.Scene{Density: res, Element: -1}, format, widthIn, heightIn, dpi)
+	return figures.WriteFigure(w, figures.ViewDensity, &figures.Scene{Density: res, Element: -1}, format, widthIn, heightIn, dpi)
 }
 
 // writePanelSizeFigure writes one element's panel-size chart (light, for
 // print).
 func writePanelSizeFigure(w io.Writer, ps panelSizes, maxRatio float64, format string, widthIn, heightIn, dpi float64) error {
-	p, err := export.PanelSizesPlot(ps, maxRatio, false)
+	p, err := figures.PanelSizesPlot(ps, maxRatio, false)
 	if err != nil {
 		return err
 	}
-	return export.WritePlot(w, p, format, widthIn, heightIn, dpi)
+	return figures.WritePlot(w, p, format, widthIn, heightIn, dpi)
 }
 
 // writeAutosave writes the study atomically; wrap, if not nil, stands

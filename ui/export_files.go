@@ -12,7 +12,8 @@ import (
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
 
-	"sectionbench/export"
+	"sectionbench/export/format"
+	"sectionbench/export/geometry"
 	"sectionbench/model"
 )
 
@@ -50,21 +51,21 @@ func (w *Workbench) writeCoordinates(dir string) ([]string, error) {
 		stem := fmt.Sprintf("%s-%d-%s", w.exportBase(), i+1, fileStem(e.Name))
 		for _, f := range []struct {
 			suffix string
-			opt    export.CoordOptions
+			opt    format.CoordOptions
 			csv    bool
 		}{
-			{".dat", export.CoordOptions{}, false},
-			{"-mm.dat", export.CoordOptions{ChordMM: e.ChordMM}, false},
-			{".csv", export.CoordOptions{}, true},
-			{"-mm.csv", export.CoordOptions{ChordMM: e.ChordMM}, true},
+			{".dat", format.CoordOptions{}, false},
+			{"-mm.dat", format.CoordOptions{ChordMM: e.ChordMM}, false},
+			{".csv", format.CoordOptions{}, true},
+			{"-mm.csv", format.CoordOptions{ChordMM: e.ChordMM}, true},
 		} {
 			name := stem + f.suffix
 			sec, opt, csv := secs[i], f.opt, f.csv
 			err := writeFile(filepath.Join(dir, name), func(out io.Writer) error {
 				if csv {
-					return export.WriteCoordinatesCSV(out, sec, opt)
+					return format.WriteCoordinatesCSV(out, sec, opt)
 				}
-				return export.WriteCoordinates(out, sec, opt)
+				return format.WriteCoordinates(out, sec, opt)
 			})
 			if err != nil {
 				return files, err
@@ -150,21 +151,21 @@ func (w *Workbench) writeOutline(s outlineSettings) func(dir string) ([]string, 
 		if err != nil {
 			return nil, err
 		}
-		opt := export.OutlineOptions{Placed: s.placed, SkinMM: s.skinMM, ChordLine: s.chordLine}
+		opt := geometry.OutlineOptions{Placed: s.placed, SkinMM: s.skinMM, ChordLine: s.chordLine}
 		if s.sparDiaMM > 0 {
 			for i := range st.Elements {
-				opt.Marks = append(opt.Marks, export.Mark{Element: i, Label: "spar", XC: s.sparXC, DiameterMM: s.sparDiaMM})
+				opt.Marks = append(opt.Marks, geometry.Mark{Element: i, Label: "spar", XC: s.sparXC, DiameterMM: s.sparDiaMM})
 			}
 		}
-		o, err := export.NewOutline(st.Name, l, opt)
+		o, err := geometry.NewOutline(st.Name, l, opt)
 		if err != nil {
 			return nil, err
 		}
 		var files []string
 		for _, f := range []struct {
 			ext   string
-			write func(io.Writer, *export.Outline) error
-		}{{".dxf", export.WriteDXF}, {".svg", export.WriteSVG}} {
+			write func(io.Writer, *geometry.Outline) error
+		}{{".dxf", format.WriteDXF}, {".svg", format.WriteSVG}} {
 			name := base + "-outline" + f.ext
 			write := f.write
 			if err := writeFile(filepath.Join(dir, name), func(out io.Writer) error { return write(out, o) }); err != nil {
@@ -188,7 +189,7 @@ func (w *Workbench) writeBoundaryLayer(dir string) ([]string, error) {
 	}
 	name := w.exportBase() + "-boundary-layer.csv"
 	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-		return export.WriteBoundaryLayerTable(out, res.Viscous)
+		return format.WriteBoundaryLayerTable(out, res.Viscous)
 	})
 }
 

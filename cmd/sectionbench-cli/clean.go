@@ -5,6 +5,7 @@ import (
 	"io"
 
 	"sectionbench/export"
+	"sectionbench/export/format"
 )
 
 func cmdClean(args []string, stdout, stderr io.Writer) error {
@@ -21,7 +22,7 @@ func cmdClean(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	write := func(w io.Writer) error { return export.WriteCoordinates(w, sec, export.CoordOptions{}) }
+	write := func(w io.Writer) error { return format.WriteCoordinates(w, sec, format.CoordOptions{}) }
 	reportTo := stdout
 	if *out == "" || *out == "-" {
 		if err := write(stdout); err != nil {

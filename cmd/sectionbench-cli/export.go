@@ -7,6 +7,9 @@ import (
 	"strings"
 
 	"sectionbench/export"
+	"sectionbench/export/figure"
+	"sectionbench/export/format"
+	"sectionbench/export/geometry"
 	"sectionbench/export/report"
 	"sectionbench/model"
 	"sectionbench/solver"
@@ -78,7 +81,7 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 		if *element < 1 || *element > len(secs) {
 			return usagef("--element %d: the study has %d element(s)", *element, len(secs))
 		}
-		o := export.CoordOptions{ChordMM: *chordMM}
+		o := format.CoordOptions{ChordMM: *chordMM}
 		if *points > 0 {
 			p := st.Panelling
 			p.Panels = *points
@@ -89,9 +92,9 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 		}
 		sec := secs[*element-1]
 		if *what == "coords" {
-			write = func(w io.Writer) error { return export.WriteCoordinates(w, sec, o) }
+			write = func(w io.Writer) error { return format.WriteCoordinates(w, sec, o) }
 		} else {
-			write = func(w io.Writer) error { return export.WriteCoordinatesCSV(w, sec, o) }
+			write = func(w io.Writer) error { return format.WriteCoordinatesCSV(w, sec, o) }
 		}
 	case "outline-dxf", "outline-svg":
 		if in.section != "" && *chordMM > 0 {
@@ -101,37 +104,37 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 		if err != nil {
 			return err
 		}
-		opt := export.OutlineOptions{Placed: *placed, SkinMM: *skin, ChordLine: *chordLine}
+		opt := geometry.OutlineOptions{Placed: *placed, SkinMM: *skin, ChordLine: *chordLine}
 		if *spar != "" {
 			v, err := parseFloatList("--spar", *spar, 0, 1e4)
 			if err != nil || len(v) != 2 || v[0] > 1 {
 				return usagef("--spar %q: want XC,DIAMETER_MM with XC in [0, 1]", *spar)
 			}
 			for i := range st.Elements {
-				opt.Marks = append(opt.Marks, export.Mark{Element: i, Label: "spar", XC: v[0], DiameterMM: v[1]})
+				opt.Marks = append(opt.Marks, geometry.Mark{Element: i, Label: "spar", XC: v[0], DiameterMM: v[1]})
 			}
 		}
-		o, err := export.NewOutline(st.Name, l, opt)
+		o, err := geometry.NewOutline(st.Name, l, opt)
 		if err != nil {
 			return err
 		}
 		if *what == "outline-dxf" {
-			write = func(w io.Writer) error { return export.WriteDXF(w, o) }
+			write = func(w io.Writer) error { return format.WriteDXF(w, o) }
 		} else {
-			write = func(w io.Writer) error { return export.WriteSVG(w, o) }
+			write = func(w io.Writer) error { return format.WriteSVG(w, o) }
 		}
 	case "figure":
 		v, format, err := figureKind(*view, *out)
 		if err != nil {
 			return err
 		}
-		res, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: true, Streamlines: v == export.ViewStreamlines})
+		res, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: true, Streamlines: v == figure.ViewStreamlines})
 		if err != nil {
 			return err
 		}
-		sc := export.NewScene(res, st)
+		sc := figure.NewScene(res, st)
 		binary = format != "svg"
-		write = func(w io.Writer) error { return export.WriteFigure(w, v, sc, format, *width, *height, *dpi) }
+		write = func(w io.Writer) error { return figure.WriteFigure(w, v, sc, format, *width, *height, *dpi) }
 	default:
 		return usagef("--what %q: want one of %s", *what, strings.Join(names, ", "))
 	}
@@ -175,18 +178,18 @@ func checkFigureSize(w, h, dpi float64) error {
 }
 
 // figureKind finds the view by name and the format from the file name.
-func figureKind(name, out string) (export.View, string, error) {
-	var view export.View = -1
+func figureKind(name, out string) (figure.View, string, error) {
+	var view figure.View = -1
 	var names []string
-	for _, v := range export.Views {
+	for _, v := range figure.Views {
 		if v.String() == name {
 			view = v
 		}
-		if v != export.ViewDensity {
+		if v != figure.ViewDensity {
 			names = append(names, v.String())
 		}
 	}
-	if view < 0 || view == export.ViewDensity {
+	if view < 0 || view == figure.ViewDensity {
 		return 0, "", usagef("--view %q: want one of %s", name, strings.Join(names, ", "))
 	}
 	format := "png"
@@ -216,11 +219,11 @@ func tableWriter(table string, st *model.Study, secs []*model.Section) (func(io.
 	}
 	switch table {
 	case "cp":
-		return func(w io.Writer) error { return export.WriteCpTable(w, res.Solution) }, nil
+		return func(w io.Writer) error { return format.WriteCpTable(w, res.Solution) }, nil
 	case "sweep":
-		return func(w io.Writer) error { return export.WriteSweepTable(w, res.Sweep, res.SweepViscous) }, nil
+		return func(w io.Writer) error { return format.WriteSweepTable(w, res.Sweep, res.SweepViscous) }, nil
 	}
-	return func(w io.Writer) error { return export.WriteBoundaryLayerTable(w, res.Viscous) }, nil
+	return func(w io.Writer) error { return format.WriteBoundaryLayerTable(w, res.Viscous) }, nil
 }
 
 func cmdReport(args []string, stdout, stderr io.Writer) error {

@@ -6,7 +6,7 @@ import (
 	"io"
 	"text/tabwriter"
 
-	"sectionbench/export"
+	"sectionbench/export/format"
 	"sectionbench/solver"
 )
 
@@ -81,5 +81,5 @@ func fmtShort(f float64, format string) string {
 }
 
 func sweepCSV(w io.Writer, res *solver.Result) error {
-	return export.WriteSweepTable(w, res.Sweep, res.SweepViscous)
+	return format.WriteSweepTable(w, res.Sweep, res.SweepViscous)
 }

@@ -6,7 +6,7 @@ import (
 	"strconv"
 	"strings"
 
-	"sectionbench/export"
+	"sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver"
 )
@@ -256,17 +256,17 @@ func (r *writer) figurePages() {
 	p := r.pdf
 	p.AddPage()
 	r.heading("Section and panels")
-	r.figure(export.ViewPanels, sc, "The configuration as solved, with panel nodes and control points (panel midpoints). Lengths in millimetres.", figureHMM)
+	r.figure(figure.ViewPanels, sc, "The configuration as solved, with panel nodes and control points (panel midpoints). Lengths in millimetres.", figureHMM)
 	l := r.in.Result.Layout
 	if len(l.Elements) > 0 {
 		size := leWindowChords * l.Elements[0].Chord * metresToMM
 		le := *sc
-		le.Window = export.LEWindow(l, 0, size)
-		r.figure(export.ViewPanels, &le, fmt.Sprintf("Leading edge of %s, a %s mm window: nose panelling.", l.Elements[0].Name, num(size, 0)), figureHMM)
+		le.Window = figure.LEWindow(l, 0, size)
+		r.figure(figure.ViewPanels, &le, fmt.Sprintf("Leading edge of %s, a %s mm window: nose panelling.", l.Elements[0].Name, num(size, 0)), figureHMM)
 	}
 	r.heading("Pressure and flow")
-	r.figure(export.ViewPressure, sc, "Pressure coefficient against chord position, negative up. Solid: upper surface; dashed: lower surface.", figureHMM)
-	r.figure(export.ViewStreamlines, sc, "Streamlines; the dividing streamline of each element is drawn bold.", figureHMM)
+	r.figure(figure.ViewPressure, sc, "Pressure coefficient against chord position, negative up. Solid: upper surface; dashed: lower surface.", figureHMM)
+	r.figure(figure.ViewStreamlines, sc, "Streamlines; the dividing streamline of each element is drawn bold.", figureHMM)
 }
 
 func (r *writer) sweepPage() {
@@ -277,7 +277,7 @@ func (r *writer) sweepPage() {
 	sc := r.scene()
 	r.pdf.AddPage()
 	r.heading("Sweep")
-	r.figure(export.ViewPolar, sc, "Cl (left axis) and Cm (right axis) against the angle of attack; the current angle is marked.", figureHMM)
+	r.figure(figure.ViewPolar, sc, "Cl (left axis) and Cm (right axis) against the angle of attack; the current angle is marked.", figureHMM)
 	head := []string{"α, °", "Cl", "Cl (pressure)", "Cm", "Cp min", "at x/c"}
 	widths := []float64{0.8, 1, 1.1, 1, 1, 0.9}
 	align := []string{"R", "R", "R", "R", "R", "R"}
@@ -298,7 +298,7 @@ func (r *writer) sweepPage() {
 	}
 	r.table(head, widths, align, rows)
 	if vis {
-		r.figure(export.ViewDragPolar, sc, "Drag polar from the boundary-layer estimate; angles where a surface separates are left out.", figureHMM)
+		r.figure(figure.ViewDragPolar, sc, "Drag polar from the boundary-layer estimate; angles where a surface separates are left out.", figureHMM)
 	}
 }
 
@@ -312,7 +312,7 @@ func (r *writer) viscousPage() {
 	for i, e := range v.Elements {
 		sc := r.scene()
 		sc.Element = i
-		r.figure(export.ViewBoundaryLayer, sc, fmt.Sprintf("Boundary layer on %s: momentum and displacement thickness, shape factor and skin friction; transition and separation marked.", e.Name), 110)
+		r.figure(figure.ViewBoundaryLayer, sc, fmt.Sprintf("Boundary layer on %s: momentum and displacement thickness, shape factor and skin friction; transition and separation marked.", e.Name), 110)
 	}
 }
 
@@ -323,7 +323,7 @@ func (r *writer) densityPage() {
 	}
 	r.pdf.AddPage()
 	r.heading("Panel density study")
-	r.figure(export.ViewDensity, r.scene(), "Cl and Cp min against the panel count for each nose clustering.", figureHMM)
+	r.figure(figure.ViewDensity, r.scene(), "Cl and Cp min against the panel count for each nose clustering.", figureHMM)
 	var rows [][]string
 	for _, row := range d.Rows {
 		if !row.Solved() {

@@ -25,7 +25,7 @@ import (
 	"codeberg.org/go-fonts/liberation/liberationsansregular"
 	"codeberg.org/go-pdf/fpdf"
 
-	"sectionbench/export"
+	"sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver"
 )
@@ -290,15 +290,15 @@ func (r *writer) box(title, text string, tint [3]int) {
 }
 
 // figure renders view v of sc and places it full width with a caption.
-func (r *writer) figure(v export.View, sc *export.Scene, caption string, heightMM float64) {
+func (r *writer) figure(v figure.View, sc *figure.Scene, caption string, heightMM float64) {
 	if r.figErr != nil {
 		return
 	}
 	const mmPerIn = 25.4
 	wmm := r.width()
 	var b bytes.Buffer
-	if err := export.WriteFigure(&b, v, sc, export.FormatPNG, wmm/mmPerIn, heightMM/mmPerIn, FigureDPI); err != nil {
-		if errors.Is(err, export.ErrNoData) {
+	if err := figure.WriteFigure(&b, v, sc, figure.FormatPNG, wmm/mmPerIn, heightMM/mmPerIn, FigureDPI); err != nil {
+		if errors.Is(err, figure.ErrNoData) {
 			return
 		}
 		r.figErr = fmt.Errorf("report: figure %v: %w", v, err)
@@ -318,8 +318,8 @@ func (r *writer) figure(v export.View, sc *export.Scene, caption string, heightM
 }
 
 // scene is the export scene of the report's result.
-func (r *writer) scene() *export.Scene {
-	sc := export.NewScene(r.in.Result, r.in.Study)
+func (r *writer) scene() *figure.Scene {
+	sc := figure.NewScene(r.in.Result, r.in.Study)
 	sc.Density = r.in.Density
 	return sc
 }

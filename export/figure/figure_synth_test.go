@@ -1,0 +1,78 @@
+package figure
+
+import (
+	"math"
+	"sectionbench/export/exporttest"
+
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+// Synthetic data for the figure and table tests: invented, not solved. The
+// shapes follow closed forms so that the tests know what they drew.
+
+func synthPins() []model.Pin {
+	return []model.Pin{{
+		Label: "160 panels",
+		Cp: []model.PinCurve{
+			{Element: "main", Side: "upper", Points: [][2]float64{{1, 0.2}, {0.5, -0.4}, {0.1, -0.9}, {0.01, -1.4}, {0, 1}}},
+			{Element: "main", Side: "lower", Points: [][2]float64{{0, 1}, {0.1, -0.1}, {0.5, -0.1}, {1, 0.2}}},
+		},
+		Polar: [][3]float64{{-4, -0.5, -0.04}, {0, 0, -0.05}, {4, 0.5, -0.06}, {8, 1.0, -0.07}},
+	}}
+}
+
+func synthScene() *Scene {
+	l := exporttest.TwoElementLayout(120)
+	sw := exporttest.Sweep()
+	return &Scene{
+		Layout: l, Solution: exporttest.Solution(l, 4), Sweep: sw, SweepViscous: exporttest.Drag(sw),
+		Pins: synthPins(), AlphaDeg: 4, Element: -1,
+		Ground: true, GroundY: -0.06,
+		Streamlines: synthStreamlines(), Viscous: exporttest.Viscous(), Density: synthDensity(),
+	}
+}
+
+// synthStreamlines are horizontal lines displaced over a bump about the
+// main plane, with speed 1 + 0.3·bump (invented shapes).
+func synthStreamlines() []solver.Streamline {
+	var out []solver.Streamline
+	for k := -6; k <= 6; k++ {
+		y0 := 0.02 * float64(k)
+		var s solver.Streamline
+		for i := 0; i <= 200; i++ {
+			x := -0.3 + 0.9*float64(i)/200
+			bump := math.Exp(-math.Pow((x-0.12)/0.12, 2)) * 0.03 / (1 + math.Abs(y0)*20)
+			sign := 1.0
+			if y0 < 0 {
+				sign = -1
+			}
+			s.Points = append(s.Points, model.Point{X: x, Y: y0 + sign*bump})
+			s.Speed = append(s.Speed, 1+sign*10*bump)
+		}
+		s.Dividing = k == 0
+		if s.Dividing { // ends on the nose
+			s.Points = s.Points[:67]
+			s.Speed = s.Speed[:67]
+			for i := range s.Points {
+				s.Points[i].Y = 0
+			}
+		}
+		out = append(out, s)
+	}
+	return out
+}
+
+// synthDensity converges as Cl = 0.9 − 20/N², Cp min = −2 − 400/N² (second
+// order, as REFERENCES §7 describes for this panel method).
+func synthDensity() *solver.DensityResult {
+	d := &solver.DensityResult{RecommendedPanels: 160}
+	for _, nose := range []float64{0.3, 0.6} {
+		for _, n := range []int{40, 80, 160, 320} {
+			f := float64(n * n)
+			d.Rows = append(d.Rows, solver.DensityRow{Panels: n, Nose: nose, Cl: 0.9 - (20+10*nose)/f, CpMin: -2 - 400/f})
+		}
+	}
+	d.Cl = solver.Extrapolation{Value: 0.9, OK: true}
+	return d
+}

@@ -1,0 +1,49 @@
+package format_test
+
+import (
+	"fmt"
+	"os"
+
+	"sectionbench/export/format"
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+// ExampleWriteCoordinates writes a coarse NACA 0012 at a 200 mm chord, as a
+// workshop would receive it. At x = 50 mm (x/c = 0.25) the half thickness
+// 11.881 mm is 200 × 0.6 × 0.099012 from the thickness formula of Abbott &
+// von Doenhoff, Theory of Wing Sections (1959), eq. 6.2.
+func ExampleWriteCoordinates() {
+	sec, err := model.NACA("0012", model.NACAOptions{PointsPerSurface: 4, ClosedTE: true})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	if err := format.WriteCoordinates(os.Stdout, sec, format.CoordOptions{ChordMM: 200}); err != nil {
+		fmt.Println(err)
+	}
+	// Output:
+	// NACA 0012 (chord 200 mm, coordinates in mm)
+	// 200.000   0.000
+	// 150.000   6.241
+	//  50.000  11.881
+	//   0.000   0.000
+	//  50.000 -11.881
+	// 150.000  -6.241
+	// 200.000   0.000
+}
+
+// ExampleWriteSweepTable writes two angles of a sweep as CSV.
+func ExampleWriteSweepTable() {
+	sweep := []solver.Coefficients{
+		{AlphaDeg: 0, Cl: 0.2512, ClPressure: 0.2498, Cm: -0.0541, CpMin: -0.612, XCpMin: 0.152},
+		{AlphaDeg: 2, Cl: 0.4845, ClPressure: 0.4822, Cm: -0.0563, CpMin: -1.107, XCpMin: 0.021},
+	}
+	if err := format.WriteSweepTable(os.Stdout, sweep, nil); err != nil {
+		fmt.Println(err)
+	}
+	// Output:
+	// alpha_deg,cl,cl_pressure,cm,cp_min,x_cp_min
+	// 0,0.2512,0.2498,-0.0541,-0.612,0.152
+	// 2,0.4845,0.4822,-0.0563,-1.107,0.021
+}

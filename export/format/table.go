@@ -1,0 +1,143 @@
+package format
+
+import (
+	"encoding/csv"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+
+	"sectionbench/solver"
+)
+
+// mmPerM converts the Layout's metres to the tables' millimetres.
+const mmPerM = 1000
+
+// TableDigits is the number of significant digits of numbers in the CSV
+// tables: more than any of the results deserves, so that rounding in the
+// file never shows in a comparison.
+const TableDigits = 7
+
+// cell formats v for a table: TableDigits significant digits, an empty
+// cell for a value that is not available (NaN) and no negative zero.
+func cell(v float64) string {
+	if math.IsNaN(v) {
+		return ""
+	}
+	if v == 0 {
+		return "0"
+	}
+	return strconv.FormatFloat(v, 'g', TableDigits, 64)
+}
+
+// table writes rows of cells as CSV.
+type table struct {
+	cw *csv.Writer
+}
+
+func newTable(w io.Writer, head ...string) (*table, error) {
+	t := &table{cw: csv.NewWriter(w)}
+	return t, t.cw.Write(head)
+}
+
+func (t *table) row(cells ...string) error { return t.cw.Write(cells) }
+
+func (t *table) close() error {
+	t.cw.Flush()
+	return t.cw.Error()
+}
+
+// WriteCpTable writes the surface pressure of every element as CSV, one row
+// per panel in node order: element, side (upper or lower), x_mm and y_mm
+// (panel midpoint in the study frame, the solution's metres × 1000), x_c
+// (along the element's chord), cp and vt (tangential velocity / U∞,
+// positive along the node ordering).
+func WriteCpTable(w io.Writer, sol *solver.Solution) error {
+	if sol == nil {
+		panic("format: nil solution")
+	}
+	t, err := newTable(w, "element", "side", "x_mm", "y_mm", "x_c", "cp", "vt")
+	if err != nil {
+		return err
+	}
+	for _, e := range sol.Elements {
+		for _, p := range e.Panels {
+			if err := t.row(e.Name, p.Side.String(), cell(p.X*mmPerM), cell(p.Y*mmPerM), cell(p.XC), cell(p.Cp), cell(p.Vt)); err != nil {
+				return err
+			}
+		}
+	}
+	return t.close()
+}
+
+// WriteSweepTable writes a sweep as CSV, one row per angle: alpha_deg, cl
+// (from circulation), cl_pressure, cm, cp_min and x_cp_min; when viscous
+// is not nil, also cd, xtr_upper, xtr_lower, xsep_upper and xsep_lower
+// (x/c on the main element) from the boundary-layer estimate, empty where
+// it is not available. viscous must be nil or as long as sweep.
+func WriteSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []solver.ViscousPoint) error {
+	if viscous != nil && len(viscous) != len(sweep) {
+		panic(fmt.Sprintf("format: %d boundary-layer points for %d sweep angles", len(viscous), len(sweep)))
+	}
+	head := []string{"alpha_deg", "cl", "cl_pressure", "cm", "cp_min", "x_cp_min"}
+	if viscous != nil {
+		head = append(head, "cd", "xtr_upper", "xtr_lower", "xsep_upper", "xsep_lower")
+	}
+	t, err := newTable(w, head...)
+	if err != nil {
+		return err
+	}
+	for i, c := range sweep {
+		r := []string{cell(c.AlphaDeg), cell(c.Cl), cell(c.ClPressure), cell(c.Cm), cell(c.CpMin), cell(c.XCpMin)}
+		if viscous != nil {
+			v := viscous[i]
+			r = append(r, cell(v.Cd), cell(v.TransitionUpper), cell(v.TransitionLower), cell(v.SeparationUpper), cell(v.SeparationLower))
+		}
+		if err := t.row(r...); err != nil {
+			return err
+		}
+	}
+	return t.close()
+}
+
+// WriteBoundaryLayerTable writes the boundary-layer estimate as CSV, one
+// row per station from the stagnation point to the trailing edge, upper
+// surface then lower for each element: element, side, s_c (arc length from
+// the stagnation point / c), x_c, ue (edge velocity / U∞), theta_c,
+// delta_star_c, h, cf (on the freestream dynamic pressure) and turbulent
+// (0 or 1). Values past a turbulent separation are empty.
+func WriteBoundaryLayerTable(w io.Writer, vr *solver.ViscousResult) error {
+	if vr == nil {
+		panic("format: nil boundary-layer result")
+	}
+	t, err := newTable(w, "element", "side", "s_c", "x_c", "ue", "theta_c", "delta_star_c", "h", "cf", "turbulent")
+	if err != nil {
+		return err
+	}
+	at := func(v []float64, i int) float64 {
+		if i < len(v) {
+			return v[i]
+		}
+		return math.NaN()
+	}
+	for _, e := range vr.Elements {
+		for _, side := range []struct {
+			name string
+			s    solver.SurfaceBL
+		}{{solver.Upper.String(), e.Upper}, {solver.Lower.String(), e.Lower}} {
+			s := side.s
+			for i := range s.XC {
+				turb := "0"
+				if i < len(s.Turbulent) && s.Turbulent[i] {
+					turb = "1"
+				}
+				err := t.row(e.Name, side.name, cell(at(s.S, i)), cell(s.XC[i]), cell(at(s.Ue, i)), cell(at(s.Theta, i)),
+					cell(at(s.DeltaStar, i)), cell(at(s.H, i)), cell(at(s.Cf, i)), turb)
+				if err != nil {
+					return err
+				}
+			}
+		}
+	}
+	return t.close()
+}

@@ -1,0 +1,177 @@
+package format
+
+import (
+	"bytes"
+	"encoding/csv"
+	"flag"
+	"math"
+	"os"
+	"path/filepath"
+	"sectionbench/export/exporttest"
+	"strconv"
+	"testing"
+
+	"sectionbench/solver"
+)
+
+var update = flag.Bool("update", false, "rewrite the golden files in testdata/golden")
+
+// golden compares got with the golden file name in ../testdata/golden, or
+// rewrites it with -update.
+func golden(t *testing.T, name string, got []byte) {
+	t.Helper()
+	path := filepath.Join("..", "..", "testdata", "golden", name)
+	if *update {
+		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(path, got, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run go test ./export -run %s -update to create it)", err, t.Name())
+	}
+	if !bytes.Equal(got, want) {
+		t.Errorf("%s differs from the golden file:\n got: %.400q\nwant: %.400q", name, got, want)
+	}
+}
+
+func readCSV(t *testing.T, b []byte) [][]string {
+	t.Helper()
+	recs, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
+	if err != nil {
+		t.Fatalf("not valid CSV: %v", err)
+	}
+	return recs
+}
+
+func num(t *testing.T, s string) float64 {
+	t.Helper()
+	if s == "" {
+		return math.NaN()
+	}
+	v, err := strconv.ParseFloat(s, 64)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return v
+}
+
+// relClose reports whether a and b agree to TableDigits significant digits
+// (half a unit in the last printed digit).
+func relClose(a, b float64) bool {
+	if math.IsNaN(a) || math.IsNaN(b) {
+		return math.IsNaN(a) && math.IsNaN(b)
+	}
+	return math.Abs(a-b) <= 0.5*math.Pow(10, 1-TableDigits)*math.Abs(b)+1e-300
+}
+
+func TestCpTable(t *testing.T) {
+	sol := exporttest.Solution(exporttest.TwoElementLayout(40), 3)
+	var b bytes.Buffer
+	if err := WriteCpTable(&b, sol); err != nil {
+		t.Fatal(err)
+	}
+	recs := readCSV(t, b.Bytes())
+	want := []string{"element", "side", "x_mm", "y_mm", "x_c", "cp", "vt"}
+	if len(recs[0]) != len(want) {
+		t.Fatalf("header %v, want %v", recs[0], want)
+	}
+	for i := range want {
+		if recs[0][i] != want[i] {
+			t.Fatalf("header %v, want %v", recs[0], want)
+		}
+	}
+	rows := recs[1:]
+	k := 0
+	for _, e := range sol.Elements {
+		for _, p := range e.Panels {
+			r := rows[k]
+			k++
+			if r[0] != e.Name || r[1] != p.Side.String() {
+				t.Fatalf("row %d: %v for %s %v", k, r, e.Name, p.Side)
+			}
+			for j, v := range []float64{p.X * 1000, p.Y * 1000, p.XC, p.Cp, p.Vt} {
+				if g := num(t, r[j+2]); !relClose(g, v) {
+					t.Errorf("row %d column %s = %g, want %g", k, want[j+2], g, v)
+				}
+			}
+		}
+	}
+	if k != len(rows) {
+		t.Errorf("%d rows, want %d panels", len(rows), k)
+	}
+}
+
+// TestSweepTableGolden writes the synthetic sweep (closed forms, see
+// synthSweep) with and without drag columns.
+func TestSweepTableGolden(t *testing.T) {
+	sw := exporttest.Sweep()
+	dr := exporttest.Drag(sw)
+	dr[2].Cd = math.NaN() // the estimate failed at one angle: an empty cell
+	for _, c := range []struct {
+		name string
+		drag []solver.ViscousPoint
+		cols int
+	}{
+		{"sweep.csv", nil, 6},
+		{"sweep_drag.csv", dr, 11},
+	} {
+		var b bytes.Buffer
+		if err := WriteSweepTable(&b, sw, c.drag); err != nil {
+			t.Fatal(err)
+		}
+		recs := readCSV(t, b.Bytes())
+		if len(recs) != len(sw)+1 || len(recs[0]) != c.cols {
+			t.Fatalf("%s: %d rows of %d columns", c.name, len(recs), len(recs[0]))
+		}
+		for i, s := range sw {
+			if g := num(t, recs[i+1][1]); !relClose(g, s.Cl) {
+				t.Errorf("%s: cl[%d] = %g, want %g", c.name, i, g, s.Cl)
+			}
+		}
+		if c.drag != nil && recs[3][6] != "" {
+			t.Errorf("%s: unavailable cd written as %q", c.name, recs[3][6])
+		}
+		golden(t, c.name, b.Bytes())
+	}
+}
+
+func TestBoundaryLayerTable(t *testing.T) {
+	vr := exporttest.Viscous()
+	vr.Elements[0].Lower.H[5] = math.NaN()
+	var b bytes.Buffer
+	if err := WriteBoundaryLayerTable(&b, vr); err != nil {
+		t.Fatal(err)
+	}
+	recs := readCSV(t, b.Bytes())
+	eb := vr.Elements[0]
+	if n := len(eb.Upper.XC) + len(eb.Lower.XC); len(recs) != n+1 {
+		t.Fatalf("%d rows, want %d", len(recs)-1, n)
+	}
+	r := recs[1+len(eb.Upper.XC)+5]
+	if r[1] != "lower" || r[7] != "" {
+		t.Errorf("row with NaN H: %v", r)
+	}
+	// Transition at x/c 0.3 on the upper surface: rows past it are turbulent.
+	for _, r := range recs[1 : 1+len(eb.Upper.XC)] {
+		if want := num(t, r[3]) > 0.3; (r[9] == "1") != want {
+			t.Errorf("x/c %s: turbulent %s", r[3], r[9])
+		}
+	}
+	if g := num(t, recs[1][5]); !relClose(g, eb.Upper.Theta[0]) {
+		t.Errorf("theta %g, want %g", g, eb.Upper.Theta[0])
+	}
+}
+
+func TestSweepTableMismatch(t *testing.T) {
+	defer func() {
+		if recover() == nil {
+			t.Error("no panic for drag of the wrong length")
+		}
+	}()
+	WriteSweepTable(&bytes.Buffer{}, exporttest.Sweep(), make([]solver.ViscousPoint, 2))
+}
