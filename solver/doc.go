@@ -1,8 +1,9 @@
 // Package solver holds Sectionbench's numerics: the linear-strength vortex
 // panel method for one or several elements, optionally above a ground plane,
 // the integrated forces, the velocity field and streamlines, the integral
-// boundary-layer estimate and the panel-density study. It imports model for
-// geometry; it has no GUI and does no file I/O.
+// boundary-layer estimate. It imports model for geometry; it has no GUI and
+// does no file I/O. Turning a study into results (air, forces in newtons,
+// density studies, caching) is package solver/engine's job.
 //
 // Results are two-dimensional potential-flow estimates. They leave out
 // separation, the wake's displacement and three-dimensional effects, so

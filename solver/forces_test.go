@@ -1,7 +1,6 @@
 package solver
 
 import (
-	"context"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -401,11 +400,12 @@ func TestVortexForceBaseBalance(t *testing.T) {
 			s := st.Clone()
 			s.Panelling.Panels = n
 			s.Ground.Enabled = ground
-			r, err := NewEngine().Run(context.Background(), Request{Study: s, Sections: secs})
+			l, err := model.Place(s, secs)
 			if err != nil {
 				t.Fatal(err)
 			}
-			sol := r.Solution
+			cfg, fs := LayoutConfig(l, s.Flow.AlphaDeg)
+			sol := mustSystem(t, cfg).Solve(fs)
 			for k, e := range sol.Elements {
 				ge := &sol.sys.geo.elems[k]
 				if !ge.open() {

@@ -1,7 +1,6 @@
 package solver
 
 import (
-	"context"
 	"fmt"
 	"math"
 	"math/cmplx"
@@ -574,36 +573,6 @@ func TestClosedTrailingEdgeUnchanged(t *testing.T) {
 	a, b := s.Solve(5), old.Solve(5)
 	if a.Cl != b.Cl || a.Cm != b.Cm || a.Elements[0].BaseSource != 0 {
 		t.Errorf("Cl %.15g Cm %.15g σ %g, without base treatment Cl %.15g Cm %.15g", a.Cl, a.Cm, a.Elements[0].BaseSource, b.Cl, b.Cm)
-	}
-}
-
-// The density study of NACA 2412 at 4° (model.NACA repanelled with cosine
-// spacing as the workbench does, open trailing edge, 20 … 640 panels)
-// converges monotonically at about second order (REFERENCES.md §7,
-// 1.8–2.0 on a finite-angle case [derived]; at least 1.5 required) and
-// extrapolates.
-func TestDensityStudyOpenTrailingEdge(t *testing.T) {
-	res, err := DensityStudy(context.Background(), DensityOptions{}, func(n int, _ float64) (*Solution, error) {
-		s, err := nacaSystemErr("2412", n)
-		if err != nil {
-			return nil, err
-		}
-		if s.Unknowns() != n+2 {
-			t.Fatalf("%d panels: %d unknowns, want %d with the base source", n, s.Unknowns(), n+2)
-		}
-		return s.Solve(4), nil
-	}, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	t.Logf("Cl extrapolation %+v", res.Cl)
-	if !res.Cl.OK || res.Cl.ObservedOrder < 1.5 {
-		t.Errorf("Cl extrapolation %+v, want OK with an observed order ≥ 1.5", res.Cl)
-	}
-	for i := 2; i < len(res.Rows); i++ {
-		if d1, d2 := res.Rows[i-1].DCl, res.Rows[i].DCl; !(d1*d2 > 0 && math.Abs(d2) < math.Abs(d1)) {
-			t.Errorf("%d panels: change %.3g after %.3g, not monotone convergence", res.Rows[i].Panels, d2, d1)
-		}
 	}
 }
 

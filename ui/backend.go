@@ -16,20 +16,21 @@ import (
 	"sectionbench/export/report"
 	"sectionbench/model"
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 type (
-	engineRequest = solver.Request
-	engineResult  = solver.Result
+	engineRequest = engine.Request
+	engineResult  = engine.Result
 )
 
-// engine is what the scheduler runs: one call per update. *solver.Engine
+// studyRunner is what the scheduler runs: one call per update. *engine.Engine
 // is the real one; tests substitute their own.
-type engine interface {
+type studyRunner interface {
 	Run(ctx context.Context, req engineRequest) (*engineResult, error)
 }
 
-func newEngine() engine { return solver.NewEngine() }
+func newEngine() studyRunner { return engine.NewEngine() }
 
 type (
 	viewWindow = figures.Window
@@ -137,12 +138,12 @@ func writeCpTable(w io.Writer, res *engineResult) error { return format.WriteCpT
 
 // writeSweepTable writes the sweep, with its boundary-layer estimate when
 // viscous is not nil (parallel to sweep).
-func writeSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []solver.ViscousPoint) error {
+func writeSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []engine.ViscousPoint) error {
 	return format.WriteSweepTable(w, sweep, viscous)
 }
 
 // writeReport writes the team report; density may be nil.
-func writeReport(w io.Writer, st *model.Study, res *engineResult, density *solver.DensityResult, fileName, version string) error {
+func writeReport(w io.Writer, st *model.Study, res *engineResult, density *engine.DensityResult, fileName, version string) error {
 	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version})
 }
 
@@ -162,7 +163,7 @@ func isNoData(err error) bool { return errors.Is(err, figures.ErrNoData) }
 
 // sceneWithViscous is sceneOf with the boundary-layer estimate of the
 // sweep shown in the drag polar and lift-to-drag views.
-func sceneWithViscous(res *engineResult, st *model.Study, sweep []solver.Coefficients, sweepViscous []solver.ViscousPoint) *scene {
+func sceneWithViscous(res *engineResult, st *model.Study, sweep []solver.Coefficients, sweepViscous []engine.ViscousPoint) *scene {
 	sc := sceneOf(res, st, sweep)
 	if len(sweepViscous) == len(sweep) {
 		sc.SweepViscous = sweepViscous
@@ -260,9 +261,9 @@ func airProperties(tc, p float64) (rho, mu, nu float64, err error) {
 	return a.Density(), a.Viscosity(), a.KinematicViscosity(), nil
 }
 
-// downforceOf returns −lift (solver.Downforce): the downforce of an
+// downforceOf returns −lift (engine.Downforce): the downforce of an
 // inverted configuration, positive pushing the car down.
-func downforceOf(lift float64) float64 { return solver.Downforce(lift) }
+func downforceOf(lift float64) float64 { return engine.Downforce(lift) }
 
 // refChordMM returns the reference chord the result's coefficients are
 // on, in millimetres.

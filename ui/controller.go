@@ -12,6 +12,7 @@ import (
 
 	"sectionbench/model"
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // liveSweepMaxAngles is the longest sweep that runs with every live update;
@@ -32,7 +33,7 @@ type Controller struct {
 	act   *activity
 	sched *scheduler
 	// newEngine makes the engine of a sweep run.
-	newEngine func() engine
+	newEngine func() studyRunner
 	// do runs a function on the UI goroutine (fyne.Do; tests queue).
 	do func(func())
 
@@ -52,7 +53,7 @@ type Controller struct {
 	resErr   error
 	resGen   uint64
 	sweep    []solver.Coefficients // shown in the polar; nil when out of date
-	sweepVis []solver.ViscousPoint // boundary-layer estimate of sweep, nil when it has none
+	sweepVis []engine.ViscousPoint // boundary-layer estimate of sweep, nil when it has none
 	pinBase  *model.Study          // study of the last pin, for its label
 	elem     int                   // element the section controls edit
 	sweepRun context.CancelFunc
@@ -98,7 +99,7 @@ func (c *Controller) Sweep() []solver.Coefficients {
 
 // SweepViscous returns the boundary-layer estimate at each angle of
 // Sweep, or nil when the sweep ran without it.
-func (c *Controller) SweepViscous() []solver.ViscousPoint {
+func (c *Controller) SweepViscous() []engine.ViscousPoint {
 	c.mu.Lock()
 	defer c.mu.Unlock()
 	return c.sweepVis

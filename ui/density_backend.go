@@ -14,14 +14,15 @@ import (
 	figures "sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 type (
-	densityResult = solver.DensityResult
+	densityResult = engine.DensityResult
 	densityCurve  = figures.DensityCurve
 	densityPlan   = model.DensityPlan
 	panelSizes    = figures.PanelSizes
-	extrapolation = solver.Extrapolation
+	extrapolation = engine.Extrapolation
 )
 
 // densityOutcome is a finished density study: the solver's judgement and
@@ -33,9 +34,9 @@ type densityOutcome struct {
 
 // Defaults of the density window, from the solver and export.
 var (
-	densityDefaultPanels = solver.DefaultDensityPanels
-	densityDefaultTolCl  = solver.DefaultTolClPct
-	densityDefaultTolCp  = solver.DefaultTolCpMinPct
+	densityDefaultPanels = engine.DefaultDensityPanels
+	densityDefaultTolCl  = engine.DefaultTolClPct
+	densityDefaultTolCp  = engine.DefaultTolCpMinPct
 	densityLEChord       = figures.DensityLEChord
 	defaultMaxRatio      = figures.DefaultMaxNeighbourRatio
 )
@@ -54,7 +55,7 @@ func runDensity(ctx context.Context, st *model.Study, secs []*model.Section, pro
 	keep := func(panels int, nose float64, sol *solver.Solution) {
 		curves = append(curves, densityCurve{Panels: panels, Nose: nose, Solution: sol})
 	}
-	res, err := solver.NewEngine().DensityEach(ctx, st, secs, progress, keep)
+	res, err := engine.NewEngine().DensityEach(ctx, st, secs, progress, keep)
 	if err != nil {
 		return nil, err
 	}

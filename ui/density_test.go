@@ -9,7 +9,7 @@ import (
 
 	"fyne.io/fyne/v2/widget"
 
-	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 func TestParseList(t *testing.T) {
@@ -45,7 +45,7 @@ func TestRunDensityMatchesEngine(t *testing.T) {
 	st := w.ctl.Study()
 	st.Density.Panels = []int{40, 80, 160}
 	secs := w.ctl.Sections()
-	want, err := solver.NewEngine().Density(context.Background(), st, secs, nil)
+	want, err := engine.NewEngine().Density(context.Background(), st, secs, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -62,8 +62,8 @@ func TestRunDensityMatchesEngine(t *testing.T) {
 }
 
 // rowsNoNaN replaces the NaN changes of first rows so rows compare equal.
-func rowsNoNaN(rows []solver.DensityRow) []solver.DensityRow {
-	out := append([]solver.DensityRow(nil), rows...)
+func rowsNoNaN(rows []engine.DensityRow) []engine.DensityRow {
+	out := append([]engine.DensityRow(nil), rows...)
 	for i := range out {
 		for _, p := range []*float64{&out[i].DCl, &out[i].DCm, &out[i].DCpMin} {
 			if math.IsNaN(*p) {

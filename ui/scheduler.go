@@ -56,7 +56,7 @@ type update struct {
 // waiting, and a result whose generation is no longer the latest is dropped
 // without being shown.
 type scheduler struct {
-	eng     engine
+	eng     studyRunner
 	act     *activity
 	deliver func(u update, res *engineResult, err error) // on the worker goroutine
 
@@ -67,7 +67,7 @@ type scheduler struct {
 	busy    bool
 }
 
-func newScheduler(eng engine, act *activity, deliver func(update, *engineResult, error)) *scheduler {
+func newScheduler(eng studyRunner, act *activity, deliver func(update, *engineResult, error)) *scheduler {
 	s := &scheduler{eng: eng, act: act, deliver: deliver}
 	s.idle = sync.NewCond(&s.mu)
 	return s
@@ -134,7 +134,7 @@ func (s *scheduler) loop() {
 
 // safeRun calls the engine and turns a panic into an error, so that bad
 // input can never bring the workbench down.
-func safeRun(eng engine, ctx context.Context, req engineRequest) (res *engineResult, err error) {
+func safeRun(eng studyRunner, ctx context.Context, req engineRequest) (res *engineResult, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			res, err = nil, fmt.Errorf("internal error in the solver: %v\n%s", r, debug.Stack())

@@ -11,6 +11,7 @@ import (
 	"time"
 
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // Stage-timing settings of the bench command: the 41-angle sweep and the
@@ -56,7 +57,7 @@ func cmdBench(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	res, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs})
+	res, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs})
 	if err != nil {
 		return err
 	}

@@ -10,7 +10,7 @@ import (
 	"text/tabwriter"
 
 	"sectionbench/model"
-	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 type jsonDensityRow struct {
@@ -52,8 +52,8 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 	fs.FlagSet.Lookup("panels").Usage = "comma-separated panel `counts`, increasing (default 20,40,80,160,320,640)"
 	fs.FlagSet.Lookup("nose").Usage = "comma-separated nose clustering `values` in [0, 1] (blend spacing)"
 	var panelsList, noseList string
-	tolCl := fs.Float64("tol-cl", solver.DefaultTolClPct, "tolerance on Cl in `percent` for the recommendation")
-	tolCp := fs.Float64("tol-cp", solver.DefaultTolCpMinPct, "tolerance on minimum Cp in `percent`")
+	tolCl := fs.Float64("tol-cl", engine.DefaultTolClPct, "tolerance on Cl in `percent` for the recommendation")
+	tolCp := fs.Float64("tol-cp", engine.DefaultTolCpMinPct, "tolerance on minimum Cp in `percent`")
 	if _, err := fs.parse(rewriteLists(args, &panelsList, &noseList), 0); err != nil {
 		return err
 	}
@@ -84,7 +84,7 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 	if err := st.Validate(); err != nil {
 		return flagError(err)
 	}
-	res, err := solver.NewEngine().Density(context.Background(), st, secs, nil)
+	res, err := engine.NewEngine().Density(context.Background(), st, secs, nil)
 	if err != nil {
 		return flagError(err)
 	}
@@ -128,7 +128,7 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 	}
 	for _, q := range []struct {
 		name string
-		e    solver.Extrapolation
+		e    engine.Extrapolation
 	}{{"Cl", res.Cl}, {"Cm", res.Cm}, {"min Cp", res.CpMin}} {
 		if q.e.OK {
 			fmt.Fprintf(stdout, "%-7s extrapolated %.5f ± %.5f, observed order %.2f\n", q.name, q.e.Value, q.e.ErrorEstimate, q.e.ObservedOrder)
@@ -145,7 +145,7 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 	return nil
 }
 
-func extrap(e solver.Extrapolation) jsonExtrapolation {
+func extrap(e engine.Extrapolation) jsonExtrapolation {
 	return jsonExtrapolation{num(e.Value), num(e.ErrorEstimate), num(e.ObservedOrder), e.OK}
 }
 

@@ -12,7 +12,7 @@ import (
 	"sectionbench/export/geometry"
 	"sectionbench/export/report"
 	"sectionbench/model"
-	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // exportKinds lists --what values with what each writes.
@@ -128,7 +128,7 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 		if err != nil {
 			return err
 		}
-		res, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: true, Streamlines: v == figure.ViewStreamlines})
+		res, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true, Streamlines: v == figure.ViewStreamlines})
 		if err != nil {
 			return err
 		}
@@ -203,7 +203,7 @@ func figureKind(name, out string) (figure.View, string, error) {
 
 // tableWriter returns the writer of a results table as CSV.
 func tableWriter(table string, st *model.Study, secs []*model.Section) (func(io.Writer) error, error) {
-	req := solver.Request{Study: st, Sections: secs, Sweep: table == "sweep"}
+	req := engine.Request{Study: st, Sections: secs, Sweep: table == "sweep"}
 	switch table {
 	case "cp", "sweep":
 	case "bl":
@@ -213,7 +213,7 @@ func tableWriter(table string, st *model.Study, secs []*model.Section) (func(io.
 	default:
 		return nil, usagef("--table %q: want coords, cp, sweep or bl", table)
 	}
-	res, err := solver.NewEngine().Run(context.Background(), req)
+	res, err := engine.NewEngine().Run(context.Background(), req)
 	if err != nil {
 		return nil, err
 	}
@@ -250,8 +250,8 @@ func cmdReport(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	e := solver.NewEngine()
-	res, err := e.Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: true, Streamlines: true})
+	e := engine.NewEngine()
+	res, err := e.Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true, Streamlines: true})
 	if err != nil {
 		return err
 	}

@@ -10,7 +10,7 @@ import (
 	"text/tabwriter"
 
 	"sectionbench/model"
-	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // num is a float that encodes NaN and ±Inf as JSON null.
@@ -98,7 +98,7 @@ func cmdSolve(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	res, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs})
+	res, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs})
 	if err != nil {
 		return err
 	}
@@ -110,7 +110,7 @@ func cmdSolve(args []string, stdout, stderr io.Writer) error {
 	return solveText(stdout, st, res, out)
 }
 
-func collectWarnings(reps []*model.CleanReport, res *solver.Result) []string {
+func collectWarnings(reps []*model.CleanReport, res *engine.Result) []string {
 	w := []string{}
 	for _, r := range reps {
 		for _, cw := range r.Warnings {
@@ -124,7 +124,7 @@ func collectWarnings(reps []*model.CleanReport, res *solver.Result) []string {
 	return w
 }
 
-func solveJSON(st *model.Study, res *solver.Result, warnings []string) jsonSolve {
+func solveJSON(st *model.Study, res *engine.Result, warnings []string) jsonSolve {
 	sol := res.Solution
 	out := jsonSolve{
 		Name: st.Name, AlphaDeg: num(sol.AlphaDeg), Panels: st.Panelling.Panels,
@@ -183,7 +183,7 @@ func solveJSON(st *model.Study, res *solver.Result, warnings []string) jsonSolve
 	return out
 }
 
-func solveText(w io.Writer, st *model.Study, res *solver.Result, out jsonSolve) error {
+func solveText(w io.Writer, st *model.Study, res *engine.Result, out jsonSolve) error {
 	sol := res.Solution
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "study\t%s\n", st.Name)

@@ -7,7 +7,7 @@ import (
 	"text/tabwriter"
 
 	"sectionbench/export/format"
-	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 type jsonSweepRow struct {
@@ -31,7 +31,7 @@ func cmdSweep(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	res, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: true})
+	res, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true})
 	if err != nil {
 		return err
 	}
@@ -80,6 +80,6 @@ func fmtShort(f float64, format string) string {
 	return fmt.Sprintf(format, f)
 }
 
-func sweepCSV(w io.Writer, res *solver.Result) error {
+func sweepCSV(w io.Writer, res *engine.Result) error {
 	return format.WriteSweepTable(w, res.Sweep, res.SweepViscous)
 }

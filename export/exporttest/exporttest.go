@@ -10,6 +10,7 @@ import (
 
 	"sectionbench/model"
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // NACA00XX returns the closed NACA four-digit symmetric section of
@@ -131,10 +132,10 @@ func Sweep() []solver.Coefficients {
 }
 
 // Drag is Cd = 0.008 + 0.01 Cl² for each row of sw.
-func Drag(sw []solver.Coefficients) []solver.ViscousPoint {
-	d := make([]solver.ViscousPoint, len(sw))
+func Drag(sw []solver.Coefficients) []engine.ViscousPoint {
+	d := make([]engine.ViscousPoint, len(sw))
 	for i, c := range sw {
-		d[i] = solver.ViscousPoint{AlphaDeg: c.AlphaDeg, Cd: 0.008 + 0.01*c.Cl*c.Cl, TransitionUpper: 0.3 - 0.02*c.AlphaDeg,
+		d[i] = engine.ViscousPoint{AlphaDeg: c.AlphaDeg, Cd: 0.008 + 0.01*c.Cl*c.Cl, TransitionUpper: 0.3 - 0.02*c.AlphaDeg,
 			TransitionLower: 0.6, SeparationUpper: math.NaN(), SeparationLower: math.NaN(), Valid: true}
 	}
 	return d

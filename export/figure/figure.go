@@ -17,6 +17,7 @@ import (
 
 	"sectionbench/model"
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // View names one figure of the workbench.
@@ -87,11 +88,11 @@ type Scene struct {
 	Sweep    []solver.Coefficients
 	// SweepViscous is the boundary-layer estimate at each angle of Sweep;
 	// nil when the sweep has none.
-	SweepViscous []solver.ViscousPoint
+	SweepViscous []engine.ViscousPoint
 
 	Streamlines []solver.Streamline
 	Viscous     *solver.ViscousResult // may be nil
-	Density     *solver.DensityResult // may be nil
+	Density     *engine.DensityResult // may be nil
 
 	Pins        []model.Pin
 	AlphaDeg    float64 // current angle of attack, marked on the polars
@@ -370,7 +371,7 @@ func writePlot(w io.Writer, cv vg.CanvasWriterTo, p *plot.Plot, equal bool) erro
 // be nil): geometry, solution, sweep, streamlines, boundary layer and pins,
 // the angle of attack, ground and mounting. Element is −1 (all elements);
 // the caller sets Window, SpeedColour and Dark.
-func NewScene(r *solver.Result, st *model.Study) *Scene {
+func NewScene(r *engine.Result, st *model.Study) *Scene {
 	if r == nil {
 		panic("figure: nil result")
 	}

@@ -10,6 +10,7 @@ import (
 
 	"sectionbench/model"
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // demoStudy is the invented demo team's two-element inverted wing: a
@@ -34,7 +35,7 @@ func demoStudy(panels int, ground bool) *model.Study {
 
 // solveDemo runs the engine on the demo study; streamlines and the sweep
 // as asked.
-func solveDemo(tb testing.TB, st *model.Study, sweep, stream bool) *solver.Result {
+func solveDemo(tb testing.TB, st *model.Study, sweep, stream bool) *engine.Result {
 	tb.Helper()
 	secs := make([]*model.Section, len(st.Elements))
 	for i, e := range st.Elements {
@@ -44,7 +45,7 @@ func solveDemo(tb testing.TB, st *model.Study, sweep, stream bool) *solver.Resul
 		}
 		secs[i] = s
 	}
-	r, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: sweep, Streamlines: stream})
+	r, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: sweep, Streamlines: stream})
 	if err != nil {
 		tb.Fatal(err)
 	}

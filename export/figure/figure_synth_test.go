@@ -6,6 +6,7 @@ import (
 
 	"sectionbench/model"
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // Synthetic data for the figure and table tests: invented, not solved. The
@@ -65,14 +66,14 @@ func synthStreamlines() []solver.Streamline {
 
 // synthDensity converges as Cl = 0.9 − 20/N², Cp min = −2 − 400/N² (second
 // order, as REFERENCES §7 describes for this panel method).
-func synthDensity() *solver.DensityResult {
-	d := &solver.DensityResult{RecommendedPanels: 160}
+func synthDensity() *engine.DensityResult {
+	d := &engine.DensityResult{RecommendedPanels: 160}
 	for _, nose := range []float64{0.3, 0.6} {
 		for _, n := range []int{40, 80, 160, 320} {
 			f := float64(n * n)
-			d.Rows = append(d.Rows, solver.DensityRow{Panels: n, Nose: nose, Cl: 0.9 - (20+10*nose)/f, CpMin: -2 - 400/f})
+			d.Rows = append(d.Rows, engine.DensityRow{Panels: n, Nose: nose, Cl: 0.9 - (20+10*nose)/f, CpMin: -2 - 400/f})
 		}
 	}
-	d.Cl = solver.Extrapolation{Value: 0.9, OK: true}
+	d.Cl = engine.Extrapolation{Value: 0.9, OK: true}
 	return d
 }

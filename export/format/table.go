@@ -8,6 +8,7 @@ import (
 	"strconv"
 
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // mmPerM converts the Layout's metres to the tables' millimetres.
@@ -75,7 +76,7 @@ func WriteCpTable(w io.Writer, sol *solver.Solution) error {
 // is not nil, also cd, xtr_upper, xtr_lower, xsep_upper and xsep_lower
 // (x/c on the main element) from the boundary-layer estimate, empty where
 // it is not available. viscous must be nil or as long as sweep.
-func WriteSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []solver.ViscousPoint) error {
+func WriteSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []engine.ViscousPoint) error {
 	if viscous != nil && len(viscous) != len(sweep) {
 		panic(fmt.Sprintf("format: %d boundary-layer points for %d sweep angles", len(viscous), len(sweep)))
 	}

@@ -11,7 +11,7 @@ import (
 	"strconv"
 	"testing"
 
-	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files in testdata/golden")
@@ -114,7 +114,7 @@ func TestSweepTableGolden(t *testing.T) {
 	dr[2].Cd = math.NaN() // the estimate failed at one angle: an empty cell
 	for _, c := range []struct {
 		name string
-		drag []solver.ViscousPoint
+		drag []engine.ViscousPoint
 		cols int
 	}{
 		{"sweep.csv", nil, 6},
@@ -173,5 +173,5 @@ func TestSweepTableMismatch(t *testing.T) {
 			t.Error("no panic for drag of the wrong length")
 		}
 	}()
-	WriteSweepTable(&bytes.Buffer{}, exporttest.Sweep(), make([]solver.ViscousPoint, 2))
+	WriteSweepTable(&bytes.Buffer{}, exporttest.Sweep(), make([]engine.ViscousPoint, 2))
 }

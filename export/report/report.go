@@ -27,7 +27,7 @@ import (
 
 	"sectionbench/export/figure"
 	"sectionbench/model"
-	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // FigureDPI is the resolution figures are rendered at: print quality.
@@ -42,9 +42,9 @@ const (
 // Input is everything a report shows.
 type Input struct {
 	Study  *model.Study
-	Result *solver.Result // at the study's angle of attack, with sweep, streamlines and boundary layer as run
+	Result *engine.Result // at the study's angle of attack, with sweep, streamlines and boundary layer as run
 	// Density is a density study to report; nil leaves its page out.
-	Density *solver.DensityResult
+	Density *engine.DensityResult
 	// FileName is the study file's name, printed in every page's footer.
 	FileName string
 	// AppVersion is printed in the title block and the footer.

@@ -17,6 +17,7 @@ import (
 	"sectionbench/export"
 	"sectionbench/model"
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 var keep = flag.String("keep", "", "also write the test report to this file")
@@ -42,13 +43,13 @@ func demoStudy() *model.Study {
 	return st
 }
 
-func solve(t *testing.T, st *model.Study) *solver.Result {
+func solve(t *testing.T, st *model.Study) *engine.Result {
 	t.Helper()
 	secs, _, err := export.LoadSections(st, "")
 	if err != nil {
 		t.Fatal(err)
 	}
-	r, err := solver.NewEngine().Run(context.Background(), solver.Request{Study: st, Sections: secs, Sweep: true, Streamlines: true})
+	r, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true, Streamlines: true})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -57,7 +58,7 @@ func solve(t *testing.T, st *model.Study) *solver.Result {
 
 // density runs a small density study of st: 40 to 320 panels, two nose
 // clusterings, each a full engine solve.
-func density(t *testing.T, st *model.Study) *solver.DensityResult {
+func density(t *testing.T, st *model.Study) *engine.DensityResult {
 	t.Helper()
 	secs, _, err := export.LoadSections(st, "")
 	if err != nil {
@@ -65,7 +66,7 @@ func density(t *testing.T, st *model.Study) *solver.DensityResult {
 	}
 	c := st.Clone()
 	c.Density = model.DensityPlan{Panels: []int{40, 80, 160, 320}, Nose: []float64{0.3, 0.7}}
-	d, err := solver.NewEngine().Density(context.Background(), c, secs, nil)
+	d, err := engine.NewEngine().Density(context.Background(), c, secs, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -175,7 +176,7 @@ func TestReportInputErrors(t *testing.T) {
 	}{
 		{"no study", Input{}},
 		{"no result", Input{Study: model.NewStudy()}},
-		{"bad page size", Input{Study: model.NewStudy(), Result: &solver.Result{Solution: &solver.Solution{}, Layout: &model.Layout{}}, PageSize: "A3"}},
+		{"bad page size", Input{Study: model.NewStudy(), Result: &engine.Result{Solution: &solver.Solution{}, Layout: &model.Layout{}}, PageSize: "A3"}},
 	} {
 		if err := Write(&bytes.Buffer{}, c.in); !errors.Is(err, ErrInput) {
 			t.Errorf("%s: error %v does not wrap ErrInput", c.name, err)

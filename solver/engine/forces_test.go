@@ -1,8 +1,10 @@
-package solver
+package engine
 
 import (
 	"math"
 	"testing"
+
+	"sectionbench/solver"
 )
 
 func TestSpanTotal(t *testing.T) {
@@ -50,9 +52,9 @@ func TestLiftToDrag(t *testing.T) {
 		res  Result
 		want float64 // NaN: none
 	}{
-		{"estimate", Result{Solution: &Solution{Cl: 1.2}, Viscous: &ViscousResult{Cd: 0.015}}, 80},
-		{"separated", Result{Solution: &Solution{Cl: 1.2}, Viscous: &ViscousResult{Cd: math.NaN()}}, math.NaN()},
-		{"inviscid", Result{Solution: &Solution{Cl: 1.2}}, math.NaN()},
+		{"estimate", Result{Solution: &solver.Solution{Cl: 1.2}, Viscous: &solver.ViscousResult{Cd: 0.015}}, 80},
+		{"separated", Result{Solution: &solver.Solution{Cl: 1.2}, Viscous: &solver.ViscousResult{Cd: math.NaN()}}, math.NaN()},
+		{"inviscid", Result{Solution: &solver.Solution{Cl: 1.2}}, math.NaN()},
 		{"empty", Result{}, math.NaN()},
 	} {
 		got := c.res.LiftToDrag()

@@ -1,4 +1,4 @@
-package solver
+package engine
 
 import (
 	"context"
@@ -7,6 +7,7 @@ import (
 	"math"
 
 	"sectionbench/model"
+	"sectionbench/solver"
 )
 
 // DefaultDensityPanels are the panel counts a density study runs when none
@@ -44,7 +45,7 @@ type DensityRow struct {
 	Panels int
 	Nose   float64
 	Cl, Cm float64 // of the whole configuration
-	// CpMin is the lowest Cp over all elements (ElementSolution.CpMin): the
+	// CpMin is the lowest Cp over all elements (solver.ElementSolution.CpMin): the
 	// suction peak.
 	CpMin            float64
 	DCl, DCm, DCpMin float64 // change from the previous count at the same nose value; NaN for the first
@@ -162,7 +163,7 @@ func Richardson(f2, f3, r, p float64) (value, errEstimate float64) {
 // DensityStudy returns ctx.Err(). Bad options return a *model.FieldError
 // naming the density-plan field; any other error from solve is returned
 // wrapped with the count and nose value.
-func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int, nose float64) (*Solution, error), progress func(done, total int)) (*DensityResult, error) {
+func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int, nose float64) (*solver.Solution, error), progress func(done, total int)) (*DensityResult, error) {
 	opt, err := opt.withDefaults()
 	if err != nil {
 		return nil, err
@@ -218,7 +219,7 @@ func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int
 // skippableDensityError reports whether err is a geometry check that a
 // density study records as a skipped count rather than an abort.
 func skippableDensityError(err error) bool {
-	var ge *GeometryError
+	var ge *solver.GeometryError
 	return errors.Is(err, model.ErrSmallGap) || errors.Is(err, model.ErrOverlap) || errors.As(err, &ge)
 }
 
@@ -269,13 +270,13 @@ func (o DensityOptions) withDefaults() (DensityOptions, error) {
 }
 
 // densityRow condenses one solution.
-func densityRow(sol *Solution, n int, nose float64) DensityRow {
+func densityRow(sol *solver.Solution, n int, nose float64) DensityRow {
 	nan := math.NaN()
 	row := DensityRow{Panels: n, Nose: nose, Cl: sol.Cl, Cm: sol.Cm, CpMin: math.Inf(1),
 		DCl: nan, DCm: nan, DCpMin: nan, MinPanelLength: math.Inf(1), MaxPanelLength: 0}
 	for _, e := range sol.Elements {
 		row.CpMin = math.Min(row.CpMin, e.CpMin)
-		// Panel lengths from the midpoint arc lengths: S_0 = L_0/2 and
+		// solver.Panel lengths from the midpoint arc lengths: S_0 = L_0/2 and
 		// S_i − S_(i−1) = (L_(i−1) + L_i)/2.
 		l := 0.0
 		for i, p := range e.Panels {

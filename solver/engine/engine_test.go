@@ -1,4 +1,4 @@
-package solver
+package engine
 
 import (
 	"context"

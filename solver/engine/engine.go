@@ -1,4 +1,4 @@
-package solver
+package engine
 
 import (
 	"context"
@@ -10,15 +10,16 @@ import (
 	"time"
 
 	"sectionbench/model"
+	"sectionbench/solver"
 )
 
 // Request is everything one update of the workbench asks for.
 type Request struct {
 	Study       *model.Study
-	Sections    []*model.Section // cleaned unit-chord sections, one per study element
-	Sweep       bool             // also run the study's sweep
-	Streamlines bool             // also trace streamlines
-	Stream      StreamOptions    // zero value: DefaultBounds and default counts
+	Sections    []*model.Section     // cleaned unit-chord sections, one per study element
+	Sweep       bool                 // also run the study's sweep
+	Streamlines bool                 // also trace streamlines
+	Stream      solver.StreamOptions // zero value: solver.DefaultBounds and default counts
 	// Progress, if not nil, is called after each angle of a sweep that
 	// needs one solve per angle (in ground effect, or with the boundary
 	// layer on).
@@ -28,15 +29,15 @@ type Request struct {
 // Result is one update's answer.
 type Result struct {
 	Layout       *model.Layout
-	Config       Config    // what was solved at the study's angle of attack
-	Solution     *Solution // at the study's angle of attack
-	Sweep        []Coefficients
+	Config       solver.Config    // what was solved at the study's angle of attack
+	Solution     *solver.Solution // at the study's angle of attack
+	Sweep        []solver.Coefficients
 	SweepViscous []ViscousPoint // parallel to Sweep when the boundary layer is on
-	Streamlines  []Streamline
-	Viscous      *ViscousResult // nil unless the study enables the boundary-layer estimate
-	Reynolds     []float64      // per element on its own chord; nil when neither speed nor Re is known
-	Forces       *Forces        // nil unless the study has a speed
-	Elapsed      time.Duration  // solve time (not drawing)
+	Streamlines  []solver.Streamline
+	Viscous      *solver.ViscousResult // nil unless the study enables the boundary-layer estimate
+	Reynolds     []float64             // per element on its own chord; nil when neither speed nor Re is known
+	Forces       *Forces               // nil unless the study has a speed
+	Elapsed      time.Duration         // solve time (not drawing)
 }
 
 // ViscousPoint is the boundary-layer estimate at one angle of a sweep.
@@ -51,19 +52,6 @@ type ViscousPoint struct {
 	Note            string // why the estimate failed at this angle, when it did
 }
 
-// Forces are the dimensional results when the flow has a speed.
-type Forces struct {
-	DynamicPressurePa float64
-	Density           float64   // kg/m³
-	Viscosity         float64   // Pa·s
-	LiftPerSpan       float64   // N/m, positive up (away from the ground)
-	DownforcePerSpan  float64   // N/m, = −LiftPerSpan
-	DragPerSpan       float64   // N/m from the boundary-layer estimate, NaN when not available
-	MomentPerSpan     float64   // N·m/m about the moment reference, nose-up positive
-	ElementLift       []float64 // N/m per element, positive up
-	SpanM             float64   // 0 when not given
-}
-
 // Engine turns study states into results. It keeps the last placed layout
 // and factorised system, so an update that only changes the angle of attack
 // (in free air) costs one superposition, not a new factorisation. An Engine
@@ -72,8 +60,8 @@ type Engine struct {
 	geomKey string
 	secs    []*model.Section // the sections the cached layout was placed from, held so no other section can take their addresses
 	layout  *model.Layout
-	sys     *System // free air only
-	sysCfg  Config
+	sys     *solver.System // free air only
+	sysCfg  solver.Config
 }
 
 // NewEngine returns an engine with nothing cached.
@@ -103,16 +91,6 @@ func geometryKey(st *model.Study) string {
 		panic("solver: study cannot be encoded: " + err.Error())
 	}
 	return string(b)
-}
-
-// configAt builds the solver's configuration from the layout at an angle.
-func configAt(l *model.Layout, alphaDeg float64) (Config, float64) {
-	elems, groundY, fs := l.At(alphaDeg)
-	cfg := Config{Ground: l.Ground, GroundY: groundY, RefChord: l.RefChordM, MomentRef: l.MomentRef}
-	for _, e := range elems {
-		cfg.Elements = append(cfg.Elements, Element{Name: e.Name, Nodes: e.Nodes, LE: e.LE})
-	}
-	return cfg, fs
 }
 
 // Run solves the study at its angle of attack and, as asked, its sweep and
@@ -146,12 +124,12 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 	res.Solution, res.Config = sol, cfg
 
 	res.Reynolds = reynolds(st, l)
-	var vopt ViscousOptions
+	var vopt solver.ViscousOptions
 	if st.Viscous.Enabled {
 		if res.Reynolds == nil {
 			return nil, &model.FieldError{Field: "flow.speed_mps", Err: fmt.Errorf("the boundary-layer estimate needs a speed or a Reynolds number")}
 		}
-		vopt = ViscousOptions{Re: res.Reynolds, TripUpper: st.Viscous.TripUpper, TripLower: st.Viscous.TripLower, TurbulentSeparationH: st.Viscous.SeparationH}
+		vopt = solver.ViscousOptions{Re: res.Reynolds, TripUpper: st.Viscous.TripUpper, TripLower: st.Viscous.TripLower, TurbulentSeparationH: st.Viscous.SeparationH}
 		v, err := sol.Viscous(vopt)
 		if err != nil {
 			return nil, err
@@ -165,8 +143,8 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 	}
 	if req.Streamlines {
 		opt := req.Stream
-		if opt.Bounds == (Rect{}) {
-			opt.Bounds = DefaultBounds(cfg)
+		if opt.Bounds == (solver.Rect{}) {
+			opt.Bounds = solver.DefaultBounds(cfg)
 		}
 		res.Streamlines = sol.Streamlines(opt)
 	}
@@ -182,14 +160,14 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 
 // solveAt solves the current layout at one angle of attack, reusing the
 // free-air factorisation.
-func (e *Engine) solveAt(alphaDeg float64) (*Solution, Config, error) {
+func (e *Engine) solveAt(alphaDeg float64) (*solver.Solution, solver.Config, error) {
 	l := e.layout
 	if !l.Ground {
 		if e.sys == nil {
-			cfg, _ := configAt(l, 0)
-			sys, err := NewSystem(cfg)
+			cfg, _ := solver.LayoutConfig(l, 0)
+			sys, err := solver.NewSystem(cfg)
 			if err != nil {
-				return nil, Config{}, err
+				return nil, solver.Config{}, err
 			}
 			e.sys, e.sysCfg = sys, cfg
 		}
@@ -198,17 +176,17 @@ func (e *Engine) solveAt(alphaDeg float64) (*Solution, Config, error) {
 		sol.AlphaDeg = alphaDeg
 		return sol, e.sysCfg, nil
 	}
-	cfg, fs := configAt(l, alphaDeg)
-	sys, err := NewSystem(cfg)
+	cfg, fs := solver.LayoutConfig(l, alphaDeg)
+	sys, err := solver.NewSystem(cfg)
 	if err != nil {
-		return nil, Config{}, err
+		return nil, solver.Config{}, err
 	}
 	sol := sys.Solve(fs)
 	sol.AlphaDeg = alphaDeg
 	return sol, cfg, nil
 }
 
-func (e *Engine) sweep(ctx context.Context, st *model.Study, req Request, res *Result, vopt ViscousOptions) error {
+func (e *Engine) sweep(ctx context.Context, st *model.Study, req Request, res *Result, vopt solver.ViscousOptions) error {
 	alphas, err := st.Sweep.Angles()
 	if err != nil {
 		return err
@@ -244,7 +222,7 @@ func (e *Engine) sweep(ctx context.Context, st *model.Study, req Request, res *R
 	return nil
 }
 
-func viscousPoint(alpha float64, sol *Solution, opt ViscousOptions) ViscousPoint {
+func viscousPoint(alpha float64, sol *solver.Solution, opt solver.ViscousOptions) ViscousPoint {
 	p := ViscousPoint{AlphaDeg: alpha, Cd: math.NaN(), TransitionUpper: math.NaN(), TransitionLower: math.NaN(), SeparationUpper: math.NaN(), SeparationLower: math.NaN()}
 	v, err := sol.Viscous(opt)
 	if err != nil {
@@ -264,58 +242,9 @@ func viscousPoint(alpha float64, sol *Solution, opt ViscousOptions) ViscousPoint
 	return p
 }
 
-// reynolds returns each element's Reynolds number on its own chord: from a
-// Reynolds number entered directly (taken on the first element's chord and
-// scaled by chord), or from speed, chord and air (model.Reynolds).
-func reynolds(st *model.Study, l *model.Layout) []float64 {
-	re := make([]float64, len(l.Elements))
-	switch {
-	case st.Flow.Reynolds > 0:
-		for i, e := range l.Elements {
-			re[i] = st.Flow.Reynolds * e.Chord / l.Elements[0].Chord
-		}
-	case st.Flow.SpeedMPS > 0:
-		air, err := model.AirFromCelsius(st.Flow.TemperatureC, st.Flow.PressurePa)
-		if err != nil {
-			return nil // Validate has already refused this
-		}
-		for i, e := range l.Elements {
-			re[i] = model.Reynolds(st.Flow.SpeedMPS, e.Chord, air)
-		}
-	default:
-		return nil
-	}
-	return re
-}
-
-// forces turns coefficients into forces per metre of span:
-// L' = q c_ref Cl, M' = q c_ref² Cm, with q = ½ρV².
-func forces(st *model.Study, l *model.Layout, sol *Solution, v *ViscousResult) *Forces {
-	air, err := model.AirFromCelsius(st.Flow.TemperatureC, st.Flow.PressurePa)
-	if err != nil {
-		return nil
-	}
-	q := model.DynamicPressure(st.Flow.SpeedMPS, air)
-	f := &Forces{
-		DynamicPressurePa: q, Density: air.Density(), Viscosity: air.Viscosity(),
-		LiftPerSpan:   q * l.RefChordM * sol.Cl,
-		MomentPerSpan: q * l.RefChordM * l.RefChordM * sol.Cm,
-		DragPerSpan:   math.NaN(),
-		SpanM:         st.Flow.SpanM,
-	}
-	f.DownforcePerSpan = -f.LiftPerSpan
-	for i, e := range sol.Elements {
-		f.ElementLift = append(f.ElementLift, q*l.Elements[i].Chord*e.Cl)
-	}
-	if v != nil && !math.IsNaN(v.Cd) {
-		f.DragPerSpan = q * l.RefChordM * v.Cd
-	}
-	return f
-}
-
 // coefficientsOf sums up a full solution as one sweep row.
-func coefficientsOf(sol *Solution) Coefficients {
-	c := Coefficients{AlphaDeg: sol.AlphaDeg, Cl: sol.Cl, ClPressure: sol.ClPressure, Cm: sol.Cm, CpMin: math.Inf(1)}
+func coefficientsOf(sol *solver.Solution) solver.Coefficients {
+	c := solver.Coefficients{AlphaDeg: sol.AlphaDeg, Cl: sol.Cl, ClPressure: sol.ClPressure, Cm: sol.Cm, CpMin: math.Inf(1)}
 	for _, e := range sol.Elements {
 		if e.CpMin < c.CpMin {
 			c.CpMin, c.XCpMin = e.CpMin, e.XCpMin
@@ -334,7 +263,7 @@ func (e *Engine) Density(ctx context.Context, st *model.Study, secs []*model.Sec
 
 // DensityEach is Density that also hands each count's solution to each (if
 // not nil), in the order solved, for callers that draw them.
-func (e *Engine) DensityEach(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int), each func(panels int, nose float64, sol *Solution)) (*DensityResult, error) {
+func (e *Engine) DensityEach(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int), each func(panels int, nose float64, sol *solver.Solution)) (*DensityResult, error) {
 	if err := st.Validate(); err != nil {
 		return nil, err
 	}
@@ -342,7 +271,7 @@ func (e *Engine) DensityEach(ctx context.Context, st *model.Study, secs []*model
 	if len(opt.Nose) == 0 {
 		opt.Nose = []float64{st.Panelling.Nose}
 	}
-	solve := func(panels int, nose float64) (*Solution, error) {
+	solve := func(panels int, nose float64) (*solver.Solution, error) {
 		s := st.Clone()
 		s.Panelling.Panels, s.Panelling.Nose = panels, nose
 		s.Viscous.Enabled = false // the study judges the panel method's convergence
@@ -364,7 +293,7 @@ var ErrNonFiniteResult = errors.New("the solution has values that are not finite
 
 // checkFinite returns an error naming the first element and quantity of sol
 // that is NaN or infinite.
-func checkFinite(sol *Solution) error {
+func checkFinite(sol *solver.Solution) error {
 	bad := func(x float64) bool { return math.IsNaN(x) || math.IsInf(x, 0) }
 	if bad(sol.Cl) || bad(sol.ClPressure) || bad(sol.Cm) {
 		return fmt.Errorf("configuration coefficients: %w", ErrNonFiniteResult)

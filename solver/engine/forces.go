@@ -1,0 +1,100 @@
+package engine
+
+import (
+	"math"
+
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+// Forces are the dimensional results when the flow has a speed.
+type Forces struct {
+	DynamicPressurePa float64
+	Density           float64   // kg/m³
+	Viscosity         float64   // Pa·s
+	LiftPerSpan       float64   // N/m, positive up (away from the ground)
+	DownforcePerSpan  float64   // N/m, = −LiftPerSpan
+	DragPerSpan       float64   // N/m from the boundary-layer estimate, NaN when not available
+	MomentPerSpan     float64   // N·m/m about the moment reference, nose-up positive
+	ElementLift       []float64 // N/m per element, positive up
+	SpanM             float64   // 0 when not given
+}
+
+// Downforce returns the downforce of a lift, force or coefficient: −lift,
+// positive towards the ground. Lift is positive up (away from the ground)
+// throughout the package; a wing mounted upside down on a car makes
+// downforce, and its results are read with this sign (Forces.DownforcePerSpan
+// is Downforce(LiftPerSpan)).
+func Downforce(lift float64) float64 { return -lift }
+
+// SpanTotal returns a per-metre force or moment over the span SpanM:
+// perSpan × span. This is the two-dimensional value taken as constant
+// along the span, with no tip losses or other end effects, so it is an
+// upper estimate of what a finite wing makes. It is NaN when no span was
+// given (SpanM is 0).
+func (f *Forces) SpanTotal(perSpan float64) float64 {
+	if !(f.SpanM > 0) {
+		return math.NaN()
+	}
+	return perSpan * f.SpanM
+}
+
+// LiftToDrag returns the configuration's Cl/Cd at the study's angle of
+// attack, with Cl inviscid and Cd from the boundary-layer estimate. It is
+// NaN without that estimate, or when the estimate gives no drag (a surface
+// separated, solver.ViscousResult.Cd is NaN).
+func (r *Result) LiftToDrag() float64 {
+	if r.Solution == nil || r.Viscous == nil {
+		return math.NaN()
+	}
+	return r.Solution.Cl / r.Viscous.Cd
+}
+
+// reynolds returns each element's Reynolds number on its own chord: from a
+// Reynolds number entered directly (taken on the first element's chord and
+// scaled by chord), or from speed, chord and air (model.Reynolds).
+func reynolds(st *model.Study, l *model.Layout) []float64 {
+	re := make([]float64, len(l.Elements))
+	switch {
+	case st.Flow.Reynolds > 0:
+		for i, e := range l.Elements {
+			re[i] = st.Flow.Reynolds * e.Chord / l.Elements[0].Chord
+		}
+	case st.Flow.SpeedMPS > 0:
+		air, err := model.AirFromCelsius(st.Flow.TemperatureC, st.Flow.PressurePa)
+		if err != nil {
+			return nil // Validate has already refused this
+		}
+		for i, e := range l.Elements {
+			re[i] = model.Reynolds(st.Flow.SpeedMPS, e.Chord, air)
+		}
+	default:
+		return nil
+	}
+	return re
+}
+
+// forces turns coefficients into forces per metre of span:
+// L' = q c_ref Cl, M' = q c_ref² Cm, with q = ½ρV².
+func forces(st *model.Study, l *model.Layout, sol *solver.Solution, v *solver.ViscousResult) *Forces {
+	air, err := model.AirFromCelsius(st.Flow.TemperatureC, st.Flow.PressurePa)
+	if err != nil {
+		return nil
+	}
+	q := model.DynamicPressure(st.Flow.SpeedMPS, air)
+	f := &Forces{
+		DynamicPressurePa: q, Density: air.Density(), Viscosity: air.Viscosity(),
+		LiftPerSpan:   q * l.RefChordM * sol.Cl,
+		MomentPerSpan: q * l.RefChordM * l.RefChordM * sol.Cm,
+		DragPerSpan:   math.NaN(),
+		SpanM:         st.Flow.SpanM,
+	}
+	f.DownforcePerSpan = -f.LiftPerSpan
+	for i, e := range sol.Elements {
+		f.ElementLift = append(f.ElementLift, q*l.Elements[i].Chord*e.Cl)
+	}
+	if v != nil && !math.IsNaN(v.Cd) {
+		f.DragPerSpan = q * l.RefChordM * v.Cd
+	}
+	return f
+}

@@ -1,0 +1,54 @@
+package engine
+
+import (
+	"math"
+	"os"
+	"testing"
+
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+// loadStudy reads a study file and resolves its sections (specs and
+// embedded coordinates; no coordinate files).
+func loadStudy(t *testing.T, path string) (*model.Study, []*model.Section) {
+	t.Helper()
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	st, err := model.DecodeStudy(b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var secs []*model.Section
+	for _, e := range st.Elements {
+		sec, _, err := model.SectionFromSource(e.Section, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		secs = append(secs, sec)
+	}
+	return st, secs
+}
+
+// nacaSystem is a NACA section on a unit chord, repanelled with cosine
+// spacing at the given count as the workbench does, factorised in free air
+// with the moment about the quarter chord.
+func nacaSystem(digits string, panels int) (*solver.System, error) {
+	base, err := model.NACA(digits, model.NACAOptions{})
+	if err != nil {
+		return nil, err
+	}
+	sec, err := model.Repanel(base, model.Panelling{Panels: panels, Spacing: model.SpacingCosine})
+	if err != nil {
+		return nil, err
+	}
+	return solver.NewSystem(solver.Config{
+		Elements:  []solver.Element{{Name: "NACA " + digits, Nodes: sec.Points(), LE: sec.LeadingEdgeIndex()}},
+		RefChord:  1,
+		MomentRef: model.Point{X: 0.25},
+	})
+}
+
+func relErr(got, want float64) float64 { return math.Abs(got-want) / math.Abs(want) }
