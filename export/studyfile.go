@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"os"
 	"path/filepath"
 
 	"sectionbench/model"
@@ -23,10 +22,11 @@ func (e *FileError) Unwrap() error { return e.Err }
 // ErrFileTooLarge reports a file larger than its kind may be.
 var ErrFileTooLarge = errors.New("file too large")
 
-// readLimited reads at most limit bytes of a file and refuses larger
-// files without reading them.
+// readLimited reads at most limit bytes of a regular file and refuses
+// larger files, and files that are not regular (a FIFO would hang the
+// read), without reading them.
 func readLimited(path string, limit int64) ([]byte, error) {
-	f, err := os.Open(path)
+	f, err := OpenRegular(path)
 	if err != nil {
 		return nil, err
 	}

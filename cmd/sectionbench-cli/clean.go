@@ -23,17 +23,19 @@ func cmdClean(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	write := func(w io.Writer) error { return format.WriteCoordinates(w, sec, format.CoordOptions{}) }
-	reportTo := stdout
-	if *out == "" || *out == "-" {
-		if err := write(stdout); err != nil {
-			return err
-		}
-		reportTo = stderr
-	} else if err := export.WriteFileAtomic(*out, write); err != nil {
+	if *out == "" {
+		*out = "-"
+	}
+	wrote, err := writeOutput(*out, false, stdout, write, []string{pos[0]})
+	if err != nil {
 		return err
 	}
+	reportTo := stdout
+	if !wrote {
+		reportTo = stderr
+	}
 	fmt.Fprint(reportTo, rep.String())
-	if *out != "" && *out != "-" {
+	if wrote {
 		fmt.Fprintf(reportTo, "wrote %s (%d points)\n", *out, sec.Len())
 	}
 	return nil

@@ -6,7 +6,6 @@ import (
 	"io"
 	"strings"
 
-	"sectionbench/export"
 	"sectionbench/export/figure"
 	"sectionbench/export/format"
 	"sectionbench/export/geometry"
@@ -138,16 +137,13 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 	default:
 		return usagef("--what %q: want one of %s", *what, strings.Join(names, ", "))
 	}
-	if *out == "-" {
-		if binary {
-			return usagef("-o -: %s is binary; give a file name", *what)
-		}
-		return write(stdout)
-	}
-	if err := export.WriteFileAtomic(*out, write); err != nil {
+	wrote, err := writeOutput(*out, binary, stdout, write, in.files(st))
+	if err != nil {
 		return err
 	}
-	fmt.Fprintf(stderr, "wrote %s\n", *out)
+	if wrote {
+		fmt.Fprintf(stderr, "wrote %s\n", *out)
+	}
 	return nil
 }
 
@@ -261,10 +257,13 @@ func cmdReport(args []string, stdout, stderr io.Writer) error {
 			return err
 		}
 	}
-	if err := export.WriteFileAtomic(*out, func(w io.Writer) error { return report.Write(w, input) }); err != nil {
+	wrote, err := writeOutput(*out, true, stdout, func(w io.Writer) error { return report.Write(w, input) }, in.files(st))
+	if err != nil {
 		return err
 	}
-	fmt.Fprintf(stderr, "wrote %s\n", *out)
+	if wrote {
+		fmt.Fprintf(stderr, "wrote %s\n", *out)
+	}
 	return nil
 }
 
