@@ -138,6 +138,18 @@ func OpenRegular(path string) (*os.File, error) {
 // (the files the command read; "" entries are skipped): if it is the same
 // file, the write is refused with ErrOwnInput. Errors are *FileError.
 func WriteOutput(path string, write func(io.Writer) error, inputs ...string) error {
+	return writeTarget(path, write, true, inputs)
+}
+
+// WriteRegularFile is WriteOutput for a file the program keeps (a study):
+// only a new or a writable regular file (or a link to one) is written, and
+// atomically; a device, FIFO or any other kind is refused (ErrOutputKind)
+// rather than written through.
+func WriteRegularFile(path string, write func(io.Writer) error) error {
+	return writeTarget(path, write, false, nil)
+}
+
+func writeTarget(path string, write func(io.Writer) error, through bool, inputs []string) error {
 	target := path
 	li, err := os.Lstat(path)
 	switch {
@@ -178,7 +190,7 @@ func WriteOutput(path string, write func(io.Writer) error, inputs ...string) err
 		}
 		f.Close()
 		return WriteFileAtomic(target, write)
-	case m&os.ModeCharDevice != 0, m&os.ModeNamedPipe != 0:
+	case through && (m&os.ModeCharDevice != 0 || m&os.ModeNamedPipe != 0):
 		f, err := os.OpenFile(target, os.O_WRONLY, 0)
 		if err != nil {
 			return &FileError{Path: path, Err: err}

@@ -11,6 +11,8 @@ import (
 	"syscall"
 	"testing"
 	"time"
+
+	"sectionbench/model"
 )
 
 // withTimeout fails the test if f has not returned after a few seconds:
@@ -207,4 +209,50 @@ func TestWriteOutputWritesThroughADevice(t *testing.T) {
 	if err != nil || fi.Mode()&os.ModeCharDevice == 0 {
 		t.Errorf("the device was replaced: %v, %v", fi.Mode(), err)
 	}
+}
+
+// TestSaveStudyOnlyToRegularFiles: saving a study over a FIFO or a device
+// is refused at once (never written through, never replaced), and a save
+// that fails midway (a full disk) leaves an existing file as it was and no
+// file at a new name.
+func TestSaveStudyOnlyToRegularFiles(t *testing.T) {
+	dir := t.TempDir()
+	fifo := filepath.Join(dir, "pipe.json")
+	mkfifo(t, fifo)
+	st := model.NewStudy()
+	var err error
+	withTimeout(t, "saving over a FIFO", func() { err = SaveStudy(fifo, st) })
+	if !errors.Is(err, ErrOutputKind) {
+		t.Errorf("saving over a FIFO: %v, want %v", err, ErrOutputKind)
+	}
+	full := func(w io.Writer) io.Writer { return &failingAfter{w: w, n: 10} }
+	old := filepath.Join(dir, "old.json")
+	must(t, os.WriteFile(old, []byte("previous study"), 0o644))
+	if err := SaveStudyThrough(old, st, full); !errors.Is(err, errInterrupted) {
+		t.Errorf("a full disk gave %v", err)
+	}
+	if b, _ := os.ReadFile(old); string(b) != "previous study" {
+		t.Errorf("a failed save left %q", b)
+	}
+	fresh := filepath.Join(dir, "new.json")
+	SaveStudyThrough(fresh, st, full)
+	if _, err := os.Lstat(fresh); !errors.Is(err, os.ErrNotExist) {
+		t.Errorf("a failed save to a new name left a file (%v)", err)
+	}
+}
+
+// failingAfter passes n bytes through, then fails as a full disk would.
+type failingAfter struct {
+	w io.Writer
+	n int
+}
+
+func (f *failingAfter) Write(p []byte) (int, error) {
+	if len(p) <= f.n {
+		f.n -= len(p)
+		return f.w.Write(p)
+	}
+	k, _ := f.w.Write(p[:f.n])
+	f.n = 0
+	return k, errInterrupted
 }

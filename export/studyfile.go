@@ -59,13 +59,23 @@ func LoadStudy(path string) (*model.Study, error) {
 }
 
 // SaveStudy writes the study atomically: the previous file stays intact if
-// anything fails.
+// anything fails. Only a regular file (or a link to one) is written; a
+// read-only file, a FIFO, a device or a folder at path is refused.
 func SaveStudy(path string, st *model.Study) error {
+	return SaveStudyThrough(path, st, nil)
+}
+
+// SaveStudyThrough is SaveStudy with a writer standing between the encoder
+// and the file (nil: none); tests use it to fill the disk midway.
+func SaveStudyThrough(path string, st *model.Study, wrap func(io.Writer) io.Writer) error {
 	b, err := st.Encode()
 	if err != nil {
 		return err
 	}
-	return WriteFileAtomic(path, func(w io.Writer) error {
+	return WriteRegularFile(path, func(w io.Writer) error {
+		if wrap != nil {
+			w = wrap(w)
+		}
 		_, err := w.Write(b)
 		return err
 	})

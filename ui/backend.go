@@ -120,8 +120,11 @@ func safeRender(v viewKind, sc *scene, w, h int, dpi float64) (fig *figure, err 
 
 func loadStudy(path string) (*model.Study, error) { return export.LoadStudy(path) }
 
-// saveStudy writes the study atomically.
-func saveStudy(path string, st *model.Study) error { return export.SaveStudy(path, st) }
+// saveStudy writes the study atomically; wrap (tests: a full disk) stands
+// between the encoder and the file when not nil.
+func saveStudy(path string, st *model.Study, wrap func(io.Writer) io.Writer) error {
+	return export.SaveStudyThrough(path, st, wrap)
+}
 
 // writeFile writes a file atomically: it appears whole or not at all.
 func writeFile(path string, write func(io.Writer) error) error {

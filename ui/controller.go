@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"io"
 	"reflect"
 	"strings"
 	"sync"
@@ -57,6 +58,8 @@ type Controller struct {
 	pinBase  *model.Study          // study of the last pin, for its label
 	elem     int                   // element the section controls edit
 	sweepRun context.CancelFunc
+
+	saveWrap func(io.Writer) io.Writer // tests: stands between Save's encoder and the file
 }
 
 // NewController returns a controller with no study: set its hooks and
@@ -132,7 +135,7 @@ func (c *Controller) Load(st *model.Study, path string) error {
 
 // Save writes the study to path and makes it the study's file.
 func (c *Controller) Save(path string) error {
-	if err := saveStudy(path, c.state.study); err != nil {
+	if err := saveStudy(path, c.state.study, c.saveWrap); err != nil {
 		return err
 	}
 	c.state.path = path

@@ -2,6 +2,7 @@ package ui
 
 import (
 	"errors"
+	"fmt"
 	"os"
 	"path/filepath"
 	"strings"
@@ -179,7 +180,7 @@ func (w *Workbench) openFile(exts []string, then func(path string)) {
 		r.Close()
 		then(path)
 	}, w.win)
-	d.SetFilter(storage.NewExtensionFileFilter(exts))
+	d.SetFilter(regularFileFilter{storage.NewExtensionFileFilter(exts)})
 	d.SetLocation(w.startDir())
 	d.Resize(fyne.NewSize(900, 600))
 	d.Show()
@@ -188,20 +189,30 @@ func (w *Workbench) openFile(exts []string, then func(path string)) {
 // startDir is where file dialogs open: the study's folder, else the
 // working directory (nil: the dialog's own default).
 func (w *Workbench) startDir() fyne.ListableURI {
-	dir := ""
-	if p := w.ctl.Path(); p != "" {
-		dir = filepath.Dir(p)
-	} else if wd, err := os.Getwd(); err == nil {
-		dir = wd
-	}
-	if dir == "" {
-		return nil
-	}
-	l, err := storage.ListerForURI(storage.NewFileURI(dir))
+	l, err := listerFor(w.startFolder())
 	if err != nil {
 		return nil
 	}
 	return l
+}
+
+// startFolder is the study's folder, else the working directory, else "".
+func (w *Workbench) startFolder() string {
+	if p := w.ctl.Path(); p != "" {
+		return filepath.Dir(p)
+	}
+	if wd, err := os.Getwd(); err == nil {
+		return wd
+	}
+	return ""
+}
+
+// listerFor returns a folder as the file dialogs take it.
+func listerFor(dir string) (fyne.ListableURI, error) {
+	if dir == "" {
+		return nil, errors.New("no folder")
+	}
+	return storage.ListerForURI(storage.NewFileURI(dir))
 }
 
 // save writes the study to its file, asking for one if it has none or as
@@ -210,38 +221,23 @@ func (w *Workbench) save(as bool) { w.saveThen(as, nil) }
 
 func (w *Workbench) saveThen(as bool, then func()) {
 	if p := w.ctl.Path(); p != "" && !as {
-		if err := w.ctl.Save(p); err != nil {
-			w.userError(err)
-			return
-		}
-		if then != nil {
-			then()
-		}
+		w.saveTo(p, then)
 		return
 	}
-	d := dialog.NewFileSave(func(wc fyne.URIWriteCloser, err error) {
-		if err != nil {
-			w.userError(err)
-			return
-		}
-		if wc == nil {
-			return
-		}
-		path := wc.URI().Path()
-		wc.Close() // the study is written atomically by path, not through wc
-		if err := w.ctl.Save(path); err != nil {
-			w.userError(err)
-			return
-		}
-		if then != nil {
-			then()
-		}
-	}, w.win)
-	d.SetFileName(fileNameFor(w.ctl.state.study.Name))
-	d.SetLocation(w.startDir())
-	d.SetFilter(storage.NewExtensionFileFilter(studyExtensions))
-	d.Resize(fyne.NewSize(900, 600))
-	d.Show()
+	w.saveDlg = newSaveDialog(w.win, w.startFolder(), fileNameFor(w.ctl.state.study.Name), func(p string) { w.saveTo(p, then) })
+	w.saveDlg.show()
+}
+
+// saveTo writes the study atomically to path; on failure it says that the
+// file on disk was left as it was.
+func (w *Workbench) saveTo(path string, then func()) {
+	if err := w.ctl.Save(path); err != nil {
+		w.userError(fmt.Errorf("the study was not saved, %s is as it was before: %s", filepath.Base(path), friendly(err)))
+		return
+	}
+	if then != nil {
+		then()
+	}
 }
 
 // fileNameFor suggests a file name for a study name.
@@ -337,3 +333,18 @@ func (w *Workbench) showAbout() {
 }
 
 func showError(err error, win fyne.Window) { dialog.ShowError(err, win) }
+
+// regularFileFilter lists only regular files (after links) that the inner
+// filter accepts. The open dialog shows each listed file with an icon; for
+// an extension without a known type the toolkit reads the file's first
+// line to choose it, and reading a FIFO waits for ever on the UI
+// goroutine. os.Stat never opens the file.
+type regularFileFilter struct{ storage.FileFilter }
+
+func (f regularFileFilter) Matches(u fyne.URI) bool {
+	if u.Scheme() != "file" {
+		return false
+	}
+	fi, err := os.Stat(u.Path())
+	return err == nil && fi.Mode().IsRegular() && f.FileFilter.Matches(u)
+}

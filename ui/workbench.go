@@ -68,6 +68,7 @@ type Workbench struct {
 	opt      Options
 	density  *densityWindow // nil until first opened
 	autosave *autosaver     // nil when autosave is off
+	saveDlg  *saveDialog    // the last "save as" dialog; nil until one opens
 }
 
 // Options configure a workbench.
