@@ -8,9 +8,6 @@ import (
 	"testing"
 )
 
-// failingWriter writes n bytes, then fails: a save interrupted midway.
-type failingWriter struct{ n int }
-
 var errInterrupted = errors.New("interrupted")
 
 func TestWriteFileAtomicKeepsOldFileOnFailure(t *testing.T) {

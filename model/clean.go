@@ -407,7 +407,6 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 			j++
 		}
 		cont = append(cont[:j+1], append([]Point{le}, cont[j+1:]...)...)
-		idx = append(idx[:j+1], append([]int{-1}, idx[j+1:]...)...)
 		leIdx = j + 1
 		leChange = fmt.Sprintf("inserted the leading edge found on the spline as a new point %d (the nearest listed point was %.2g of the chord away)", leIdx+1, nd)
 	}

@@ -94,10 +94,10 @@ func (w *Workbench) startAutosave() {
 	}
 	a := &autosaver{w: w, dir: dir}
 	st, err := readAutosave(a.path(autosaveFile))
-	var unreadable error
+	var unreadable, notKept error
 	if err != nil {
 		unreadable = err
-		os.Rename(a.path(autosaveFile), a.path(autosaveBadFile))
+		notKept = os.Rename(a.path(autosaveFile), a.path(autosaveBadFile))
 	} else if st != nil {
 		a.found = st
 		if b, err := os.ReadFile(a.path(autosaveNoteFile)); err == nil {
@@ -111,7 +111,10 @@ func (w *Workbench) startAutosave() {
 	go func() {
 		defer w.ctl.act.done()
 		w.do(func() {
-			if unreadable != nil {
+			switch {
+			case unreadable != nil && notKept != nil:
+				showError(fmt.Errorf("an autosaved study could not be read (%v), and moving it aside to %s failed: %v", friendly(unreadable), a.path(autosaveBadFile), notKept), w.win)
+			case unreadable != nil:
 				showError(fmt.Errorf("an autosaved study could not be read and was kept as %s: %v", a.path(autosaveBadFile), friendly(unreadable)), w.win)
 			}
 			a.first()

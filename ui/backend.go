@@ -7,7 +7,6 @@ package ui
 import (
 	"context"
 	"errors"
-	"fmt"
 	"io"
 
 	"sectionbench/export"
@@ -108,16 +107,6 @@ func checkNACA(designation string) error {
 	return err
 }
 
-// safeRender renders a view, turning a panic into an error.
-func safeRender(v viewKind, sc *scene, w, h int, dpi float64) (fig *figure, err error) {
-	defer func() {
-		if r := recover(); r != nil {
-			fig, err = nil, fmt.Errorf("internal error drawing %s: %v", v, r)
-		}
-	}()
-	return renderView(v, sc, w, h, dpi)
-}
-
 func loadStudy(path string) (*model.Study, error) { return export.LoadStudy(path) }
 
 // saveStudy writes the study atomically; wrap (tests: a full disk) stands
@@ -154,7 +143,7 @@ func writeReport(w io.Writer, st *model.Study, res *engineResult, density *engin
 func recovered(f func() error) (err error) {
 	defer func() {
 		if r := recover(); r != nil {
-			err = fmt.Errorf("internal error: %v", r)
+			err = internalError("", r)
 		}
 	}()
 	return f()
@@ -198,7 +187,7 @@ func figureOf(v viewKind) figKind { return figKind(v) }
 func safeRenderFigure(f figKind, sc *scene, w, h int, dpi float64) (fig *figure, err error) {
 	defer func() {
 		if r := recover(); r != nil {
-			fig, err = nil, fmt.Errorf("internal error drawing %s: %v", figureViews[f], r)
+			fig, err = nil, internalError("drawing "+figureViews[f].String(), r)
 		}
 	}()
 	return figures.Render(figureViews[f], sc, w, h, dpi)

@@ -6,7 +6,6 @@ package ui
 
 import (
 	"context"
-	"fmt"
 	"io"
 	"os"
 
@@ -20,7 +19,6 @@ import (
 type (
 	densityResult = engine.DensityResult
 	densityCurve  = figures.DensityCurve
-	densityPlan   = model.DensityPlan
 	panelSizes    = figures.PanelSizes
 	extrapolation = engine.Extrapolation
 )
@@ -37,7 +35,6 @@ var (
 	densityDefaultPanels = engine.DefaultDensityPanels
 	densityDefaultTolCl  = engine.DefaultTolClPct
 	densityDefaultTolCp  = engine.DefaultTolCpMinPct
-	densityLEChord       = figures.DensityLEChord
 	defaultMaxRatio      = figures.DefaultMaxNeighbourRatio
 )
 
@@ -48,7 +45,7 @@ var (
 func runDensity(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int)) (out *densityOutcome, err error) {
 	defer func() {
 		if r := recover(); r != nil {
-			out, err = nil, fmt.Errorf("internal error in the density study: %v", r)
+			out, err = nil, internalError("in the density study", r)
 		}
 	}()
 	var curves []densityCurve

@@ -117,7 +117,7 @@ func newFlowControls(c *controls) *flowControls {
 		}
 		v, err := optionalNumber(s)
 		if err != nil {
-			setMessage(fc.msg, errors.New("Reynolds number must be a number (e.g. 3e5), or empty to take it from the speed"))
+			setMessage(fc.msg, &model.FieldError{Field: "flow.reynolds", Err: errors.New("not a number: enter one (e.g. 3e5), or leave it empty to take it from the speed")})
 			return
 		}
 		setMessage(fc.msg, ctl.SetReynolds("reynolds", v))

@@ -2,8 +2,6 @@ package ui
 
 import (
 	"context"
-	"fmt"
-	"runtime/debug"
 	"sync"
 )
 
@@ -137,7 +135,7 @@ func (s *scheduler) loop() {
 func safeRun(eng studyRunner, ctx context.Context, req engineRequest) (res *engineResult, err error) {
 	defer func() {
 		if r := recover(); r != nil {
-			res, err = nil, fmt.Errorf("internal error in the solver: %v\n%s", r, debug.Stack())
+			res, err = nil, internalError("in the solver", r)
 		}
 	}()
 	return eng.Run(ctx, req)

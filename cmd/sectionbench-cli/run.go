@@ -6,6 +6,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"runtime/debug"
 	"strings"
 )
 
@@ -70,11 +71,12 @@ func printOverview(w io.Writer) {
 }
 
 // run executes one command line and returns the exit status. Every error
-// is printed as one line on stderr; nothing panics on user input.
+// is printed as one line on stderr (an internal error adds its trace);
+// nothing panics on user input.
 func run(args []string, stdout, stderr io.Writer) (code int) {
 	defer func() {
 		if r := recover(); r != nil {
-			fmt.Fprintf(stderr, "sectionbench-cli: internal error: %v (please report it with the command line)\n", r)
+			fmt.Fprintf(stderr, "sectionbench-cli: internal error: %v (please report it with the command line and the trace below)\n%s", r, debug.Stack())
 			code = exitInput
 		}
 	}()
