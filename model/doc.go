@@ -15,18 +15,26 @@
 // open (blunt) trailing edge keeps its first and last points apart; the gap
 // between them is not part of the contour.
 //
-// A Study describes elements in millimetres, in the study frame: x downstream
-// (the freestream direction at zero angle of attack), y up. An element's
-// position is that of its leading edge; its setting angle is in degrees,
-// nose-up positive, about its own leading edge. A Layout places the elements
-// in metres in the same frame, ready for the solver.
+// A Study describes elements in millimetres as mounted (FrameText): x
+// downstream (the freestream direction at zero angle of attack), y up, away
+// from the ground. An element's position is that of its leading edge; its
+// setting angle is in degrees about its own leading edge. A Layout places
+// the elements in metres in the same frame, ready for the solver.
 //
 // # Angles and signs
 //
 // Angles in the public API are in degrees unless a name says otherwise.
-// Angle of attack is positive nose-up: the freestream comes from the left at
-// angle α above the x axis. Inverted mounting mirrors the whole configuration
-// about y = 0 so that the suction side faces the ground (y below the wing).
+// Angles of attack, setting angles and flap deflections are positive in the
+// sense that loads the wing (AngleSense): nose-up on an upright wing; on an
+// inverted wing a positive angle lowers the leading edge towards the ground
+// and adds downforce. Inverted mounting turns each section upside down so
+// that its suction side faces the ground: Place sets each element in the
+// design frame (DesignElement: upright, nose-up positive) and mirrors the
+// configuration about y = 0. Cm stays nose-up positive as mounted
+// (MomentSense). Multi-element placement uses the trade's gap, overlap and
+// deflection (Slot, SlotText). The words every output uses for these
+// conventions are in frame.go, so that the app, the command line and the
+// report say them the same way.
 //
 // # Errors
 //

@@ -2,8 +2,10 @@ package model
 
 import "math"
 
-// FlapPlacement places an element relative to the one before it, the way
-// flaps are specified in the trade, in the previous element's chord frame:
+// FlapPlacement places an element relative to the one before it by its
+// leading edge, in the previous element's chord frame in the design frame
+// (DesignElement). The trade's gap, measured to the flap's surface, is Slot;
+// FlapPlacement is the rigid offset that SetElement keeps:
 // origin at its trailing edge, x along its chord towards the trailing edge,
 // y perpendicular to it towards its upper surface (the upright
 // configuration, before any inverted mounting).
@@ -12,8 +14,8 @@ import "math"
 //     previous trailing edge, along the previous chord (positive: the flap
 //     tucks under the element before it).
 //   - GapMM is how far the flap's leading edge lies below the previous
-//     trailing edge, perpendicular to the previous chord (positive: a slot
-//     opens between them).
+//     trailing edge, perpendicular to the previous chord (the leading-edge
+//     drop; not the trade's gap, which Slot measures).
 //   - DeflectionDeg is the flap's chord angle relative to the previous
 //     chord, trailing edge down positive (more camber, more lift; more
 //     downforce once inverted). Trailing edge down is nose-up, so the

@@ -41,10 +41,13 @@ const minGapPanels = 1.0
 
 // Place repanels each element's section with the study's panelling, scales
 // it to its chord, sets it at its angle about its leading edge and moves the
-// leading edge to its position, all in metres. sections[i] is the cleaned
-// unit-chord section of st.Elements[i]. If the study is inverted the whole
-// configuration is mirrored about y = 0 and each contour's order reversed so
-// that it still runs trailing edge → upper → leading edge → lower.
+// leading edge to its position, all in metres, as mounted. sections[i] is
+// the cleaned unit-chord section of st.Elements[i]. If the study is
+// inverted each section is mounted upside down: it is placed in the design
+// frame (the element's position mirrored, see DesignElement), then the whole
+// configuration is mirrored about y = 0 and each contour's order reversed
+// so that it still runs trailing edge → upper → leading edge → lower. A
+// positive setting angle thus lowers an inverted element's leading edge.
 //
 // Place checks the configuration: elements must not overlap or touch and
 // their gaps must exceed the local panel length (GeometryError). The ground cannot be crossed: its clearance is measured to the lowest point at each angle.
@@ -62,7 +65,7 @@ func Place(st *Study, sections []*Section) (*Layout, error) {
 		if err != nil {
 			return nil, &FieldError{Field: fmt.Sprintf("elements[%d].section", i), Err: err}
 		}
-		pe := placeElement(e, nodes, st.Inverted)
+		pe := placeElement(DesignElement(e, st.Inverted), nodes, st.Inverted)
 		l.Elements = append(l.Elements, pe)
 		sum += pe.Chord
 	}
@@ -79,6 +82,18 @@ func Place(st *Study, sections []*Section) (*Layout, error) {
 	return l, nil
 }
 
+// DesignElement returns e in the design frame, where its section is
+// upright and a positive setting angle is nose-up: e itself for an upright
+// study, e mirrored about y = 0 for an inverted one. It is its own inverse.
+func DesignElement(e StudyElement, inverted bool) StudyElement {
+	if inverted {
+		e.YMM = -e.YMM
+	}
+	return e
+}
+
+// placeElement places e, given in the design frame, and mirrors it when
+// inverted.
 func placeElement(e StudyElement, nodes *Section, inverted bool) PlacedElement {
 	c := e.ChordMM / 1000
 	origin := Point{e.XMM / 1000, e.YMM / 1000}

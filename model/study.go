@@ -10,8 +10,16 @@ import (
 // Study file identification.
 const (
 	StudyFormat  = "sectionbench-study"
-	StudyVersion = 1
+	StudyVersion = 2
 )
+
+// Study versions and what changed:
+//
+//   - 1: element positions of an inverted study in the upright design frame
+//     (mirrored about y = 0 when placed).
+//   - 2: element positions as mounted (FrameText) for every study; a
+//     version-1 inverted study is read with each y_mm negated, which places
+//     the same wing.
 
 // MaxElements is the largest number of elements a study may hold.
 const MaxElements = 5
@@ -36,9 +44,10 @@ type Study struct {
 	Pins             []Pin          `json:"pins"`
 }
 
-// StudyElement is one wing element: a section source placed in the study
-// frame by its leading edge (millimetres) and setting angle (degrees,
-// nose-up positive about its own leading edge).
+// StudyElement is one wing element: a section source placed as mounted
+// (FrameText) by its leading edge (millimetres) and setting angle (degrees
+// about its own leading edge, positive in the sense of AngleSense: nose-up
+// on an upright wing, leading edge down on an inverted one).
 type StudyElement struct {
 	Name     string        `json:"name"`
 	Section  SectionSource `json:"section"`

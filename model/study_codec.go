@@ -118,10 +118,22 @@ func DecodeStudy(b []byte) (*Study, error) {
 	if st.Pins == nil {
 		st.Pins = []Pin{}
 	}
+	migrate(st)
 	if err := st.Validate(); err != nil {
 		return nil, err
 	}
 	return st, nil
+}
+
+// migrate brings a study read from an older version to StudyVersion, same
+// wing, same meaning (see StudyVersion).
+func migrate(st *Study) {
+	if st.Version < 2 && st.Inverted {
+		for i := range st.Elements {
+			st.Elements[i].YMM = -st.Elements[i].YMM
+		}
+	}
+	st.Version = StudyVersion
 }
 
 // jsonFieldError turns an encoding/json error into a FieldError where the

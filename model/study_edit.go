@@ -8,7 +8,7 @@ import "fmt"
 // it (OverlapMM), turned 20° trailing edge down. They are a starting point
 // for the user to adjust, not a recommendation: the slot is wider than
 // that of the invented two-element example (testdata/studies/rear-wing.json:
-// 120 mm behind 250 mm, gap 5 mm, overlap 2.5 mm, 15°) so that the flap
+// 120 mm behind 250 mm, leading edge 5 mm below the trailing edge (a gap of 2.2 mm to the flap's surface), overlap 2.5 mm, 15°) so that the flap
 // places without touching for the generated sections up to 18 % thick at
 // the default panelling (TestNewFlapAfterPlaces checks it).
 const (
@@ -48,12 +48,37 @@ func (st *Study) SetElement(i int, e StudyElement) {
 	}
 	fps := make([]FlapPlacement, len(els))
 	for j := i + 1; j < len(els); j++ {
-		fps[j] = FlapPlacementOf(els[j-1], els[j])
+		fps[j] = st.FlapPlacementOf(j)
 	}
 	els[i] = e
 	for j := i + 1; j < len(els); j++ {
-		els[j] = PlaceFlap(els[j-1], els[j], fps[j])
+		st.placeFlap(j, fps[j])
 	}
+}
+
+// FlapPlacementOf returns where element i (not the first) sits relative to
+// element i−1 (FlapPlacementOf in the design frame, so that the same
+// numbers mean the same slot whether the wing is mounted upright or
+// inverted). It panics if i is 0 or out of range.
+func (st *Study) FlapPlacementOf(i int) FlapPlacement {
+	if i < 1 || i >= len(st.Elements) {
+		panic(fmt.Sprintf("model: FlapPlacementOf: element %d of %d has no element before it", i, len(st.Elements)))
+	}
+	return FlapPlacementOf(DesignElement(st.Elements[i-1], st.Inverted), DesignElement(st.Elements[i], st.Inverted))
+}
+
+// placeFlap places element i at fp behind element i−1, alone.
+func (st *Study) placeFlap(i int, fp FlapPlacement) {
+	inv := st.Inverted
+	st.Elements[i] = DesignElement(PlaceFlap(DesignElement(st.Elements[i-1], inv), DesignElement(st.Elements[i], inv), fp), inv)
+}
+
+// AppendFlap adds an element named name behind the last one with the
+// default proportions (NewFlapAfter), mounted like the rest.
+func (st *Study) AppendFlap(name string) {
+	n := len(st.Elements)
+	f := NewFlapAfter(DesignElement(st.Elements[n-1], st.Inverted), name)
+	st.Elements = append(st.Elements, DesignElement(f, st.Inverted))
 }
 
 // PlaceFlapAt places element i (not the first) at fp relative to element
@@ -63,5 +88,20 @@ func (st *Study) PlaceFlapAt(i int, fp FlapPlacement) {
 	if i < 1 || i >= len(st.Elements) {
 		panic(fmt.Sprintf("model: PlaceFlapAt: element %d of %d has no element before it", i, len(st.Elements)))
 	}
-	st.SetElement(i, PlaceFlap(st.Elements[i-1], st.Elements[i], fp))
+	inv := st.Inverted
+	st.SetElement(i, DesignElement(PlaceFlap(DesignElement(st.Elements[i-1], inv), DesignElement(st.Elements[i], inv), fp), inv))
+}
+
+// SetInverted mounts the wing upside down (on) or upright. The positions
+// are as mounted, so turning the wing over mirrors them about y = 0: the
+// elements keep their slots and setting angles, now in the new mounting's
+// sense (AngleSense).
+func (st *Study) SetInverted(on bool) {
+	if st.Inverted == on {
+		return
+	}
+	st.Inverted = on
+	for i := range st.Elements {
+		st.Elements[i].YMM = -st.Elements[i].YMM
+	}
 }

@@ -88,8 +88,8 @@ func TestAutosaveCrashAndRecover(t *testing.T) {
 	if _, ok := autosaved(t, dir); ok {
 		t.Error("an unchanged study was autosaved")
 	}
-	w1.controls.panelEntry.SetText("90")
-	w1.controls.alphaEntry.SetText("2.5")
+	w1.controls.panelEntry.submit("90")
+	w1.controls.alphaEntry.submit("2.5")
 	w1.WaitIdle()
 	got, ok := autosaved(t, dir)
 	if !ok {
@@ -125,7 +125,7 @@ func TestAutosaveCrashAndRecover(t *testing.T) {
 func TestAutosaveDiscard(t *testing.T) {
 	dir := autosaveDirForTest(t)
 	w1 := openAutosaveBench(t, dir, "")
-	w1.controls.panelEntry.SetText("70")
+	w1.controls.panelEntry.submit("70")
 	w1.WaitIdle()
 	demoStudy, err := decodeStudy(assets.DemoStudy)
 	if err != nil {
@@ -150,7 +150,7 @@ func TestAutosaveDiscard(t *testing.T) {
 func TestAutosaveRemovedWhenSavedAndOnCleanExit(t *testing.T) {
 	dir := autosaveDirForTest(t)
 	w := openAutosaveBench(t, dir, "")
-	w.controls.panelEntry.SetText("100")
+	w.controls.panelEntry.submit("100")
 	w.WaitIdle()
 	if _, ok := autosaved(t, dir); !ok {
 		t.Fatal("no autosave after a change")
@@ -162,7 +162,7 @@ func TestAutosaveRemovedWhenSavedAndOnCleanExit(t *testing.T) {
 	if _, ok := autosaved(t, dir); ok {
 		t.Error("the autosave stays after saving the study")
 	}
-	w.controls.panelEntry.SetText("110")
+	w.controls.panelEntry.submit("110")
 	w.WaitIdle()
 	if _, ok := autosaved(t, dir); !ok {
 		t.Fatal("no autosave after a change of a saved study")
@@ -209,14 +209,14 @@ func TestAutosaveInterruptedWriteKeepsPrevious(t *testing.T) {
 	dir := autosaveDirForTest(t)
 	w := openAutosaveBench(t, dir, "")
 	a := w.autosave
-	w.controls.panelEntry.SetText("120")
+	w.controls.panelEntry.submit("120")
 	w.WaitIdle()
 	before, ok := autosaved(t, dir)
 	if !ok {
 		t.Fatal("no autosave after a change")
 	}
 	a.wrap = func(out io.Writer) io.Writer { return &failAfter{w: out, n: 40} }
-	w.controls.panelEntry.SetText("130")
+	w.controls.panelEntry.submit("130")
 	w.WaitIdle()
 	if !errors.Is(a.lastErr, errDiskFull) {
 		t.Errorf("the failed write reports %v", a.lastErr)
@@ -232,7 +232,7 @@ func TestAutosaveInterruptedWriteKeepsPrevious(t *testing.T) {
 	}
 	// The next change is written again once the disk has room.
 	a.wrap = nil
-	w.controls.panelEntry.SetText("140")
+	w.controls.panelEntry.submit("140")
 	w.WaitIdle()
 	if got, _ := autosaved(t, dir); got != encoded(t, w.ctl.Study()) {
 		t.Error("autosave did not recover after the failure")
@@ -257,7 +257,7 @@ func TestAutosaveUnreadableIsKeptAside(t *testing.T) {
 // none; DefaultOptions takes the folder from the environment.
 func TestAutosaveOptions(t *testing.T) {
 	w := newTestBench(t)
-	w.controls.panelEntry.SetText("90")
+	w.controls.panelEntry.submit("90")
 	w.WaitIdle()
 	if w.autosave != nil {
 		t.Error("autosave is on without a folder")
@@ -277,7 +277,7 @@ func TestAutosaveFollowsWithDensityWindow(t *testing.T) {
 	w := openAutosaveBench(t, dir, "")
 	w.openDensity(densityTabConvergence)
 	w.WaitIdle()
-	w.controls.panelEntry.SetText("96")
+	w.controls.panelEntry.submit("96")
 	w.WaitIdle()
 	got, ok := autosaved(t, dir)
 	if !ok || got != encoded(t, w.ctl.Study()) {
@@ -288,7 +288,7 @@ func TestAutosaveFollowsWithDensityWindow(t *testing.T) {
 	}
 	calls := 0
 	w.ctl.Subscribe(func() { calls++ })
-	w.controls.alphaEntry.SetText("1.5")
+	w.controls.alphaEntry.submit("1.5")
 	w.WaitIdle()
 	if calls != 1 {
 		t.Errorf("a subscriber added last was called %d times for one change", calls)

@@ -198,20 +198,26 @@ type (
 	flapPlacement = model.FlapPlacement
 )
 
-// flapPlacementOf returns gap, overlap and deflection of flap behind prev.
-func flapPlacementOf(prev, flap studyElement) flapPlacement { return model.FlapPlacementOf(prev, flap) }
+// slotOf returns the trade's gap, overlap and deflection of element i
+// (not the first) behind element i−1 (model.Study.SlotOf).
+func slotOf(st *model.Study, i int, sec *model.Section) model.Slot { return st.SlotOf(i, sec) }
+
+// placeSlot places element i at s behind element i−1
+// (model.Study.PlaceSlot).
+func placeSlot(st *model.Study, i int, sec *model.Section, s model.Slot) error {
+	return st.PlaceSlot(i, sec, s)
+}
 
 // setElement replaces element i of st by e; the elements behind it follow
 // (model.Study.SetElement).
 func setElement(st *model.Study, i int, e studyElement) { st.SetElement(i, e) }
 
-// placeFlapAt places element i (not the first) at fp behind element i−1
-// (model.Study.PlaceFlapAt).
-func placeFlapAt(st *model.Study, i int, fp flapPlacement) { st.PlaceFlapAt(i, fp) }
+// appendFlap adds a flap behind the last element (model.Study.AppendFlap).
+func appendFlap(st *model.Study, name string) { st.AppendFlap(name) }
 
-// newFlap returns an element named name placed behind prev with the
-// default proportions (model.NewFlapAfter).
-func newFlap(prev studyElement, name string) studyElement { return model.NewFlapAfter(prev, name) }
+// setInverted mounts the study upside down or upright
+// (model.Study.SetInverted).
+func setInverted(st *model.Study, on bool) { st.SetInverted(on) }
 
 // checkGeometry places the configuration as the solver will and reports
 // overlapping elements and gaps too small for the panels

@@ -479,7 +479,7 @@ func (c *Controller) SetKT(k model.KarmanTrefftz) error {
 
 // SetInverted mounts the configuration upside down (suction side down).
 func (c *Controller) SetInverted(on bool) error {
-	return c.Edit("", func(st *model.Study) { st.Inverted = on })
+	return c.Edit("", func(st *model.Study) { setInverted(st, on) })
 }
 
 // SetGround sets the ground plane.

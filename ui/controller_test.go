@@ -52,7 +52,7 @@ func TestEqualGeometry(t *testing.T) {
 // not run with live updates, undoes and redoes it: the sweep stays.
 func TestDensityPlanKeepsSweep(t *testing.T) {
 	w := newTestBench(t)
-	w.controls.step.SetText("0.25") // more angles than a live update runs
+	w.controls.step.submit("0.25") // more angles than a live update runs
 	w.WaitIdle()
 	w.controls.runSweep()
 	w.WaitIdle()

@@ -34,16 +34,16 @@ type controls struct {
 	syncing bool
 
 	element   *widget.Select
-	naca      *widget.Entry
+	naca      *field
 	sourceMsg *widget.Label
 	source    *widget.Label
-	ktX, ktY  *widget.Entry
-	ktTau     *widget.Entry
+	ktX, ktY  *field
+	ktTau     *field
 	ktMsg     *widget.Label
 	kt        *widget.Accordion
 
 	panelSlider *widget.Slider
-	panelEntry  *widget.Entry
+	panelEntry  *field
 	spacing     *widget.Select
 	nose, tail  *widget.Slider
 	noseVal     *widget.Label
@@ -51,15 +51,15 @@ type controls struct {
 	panelMsg    *widget.Label
 
 	alphaSlider *widget.Slider
-	alphaEntry  *widget.Entry
+	alphaEntry  *field
 	alphaDown   *widget.Button
 	alphaUp     *widget.Button
 	flowMsg     *widget.Label
 	inverted    *widget.Check
 	ground      *widget.Check
-	clearance   *widget.Entry
+	clearance   *field
 
-	from, to, step *widget.Entry
+	from, to, step *field
 	run, cancel    *widget.Button
 	progress       *widget.ProgressBar
 	sweepMsg       *widget.Label
@@ -67,6 +67,7 @@ type controls struct {
 	pins *widget.Label
 
 	alphaMsg   *widget.Label
+	alphaSense *widget.Label   // the sign convention of α, in words
 	runRow     *fyne.Container // Run sweep, and Cancel while it runs
 	sectionRow *fyne.Container // the element choice beside the section heading
 	tabs       *container.AppTabs
@@ -235,24 +236,18 @@ func newControls(w *Workbench) *controls {
 		}
 	})
 	c.element.Hide()
-	c.naca = widget.NewEntry()
-	c.naca.SetPlaceHolder("e.g. 4412 or 23012")
 	c.sourceMsg = message()
+	c.naca = newField(w, c.sourceMsg, ctl.SetNACA)
+	c.naca.SetPlaceHolder("e.g. 4412 or 23012")
 	c.source = widget.NewLabel("")
 	c.source.Wrapping = fyne.TextWrapWord
 	c.source.SizeName = theme.SizeNameCaptionText
-	c.naca.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
-		setMessage(c.sourceMsg, ctl.SetNACA(s))
-	}
 	openFile := widget.NewButton("Open coordinate file…", w.openSection)
-	c.ktX, c.ktY, c.ktTau = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
+	c.ktMsg = message()
+	c.ktX, c.ktY, c.ktTau = newField(w, c.ktMsg, nil), newField(w, c.ktMsg, nil), newField(w, c.ktMsg, nil)
 	c.ktX.SetText(entryNum(ktDefault.CenterX))
 	c.ktY.SetText(entryNum(ktDefault.CenterY))
 	c.ktTau.SetText(entryNum(ktDefault.TEAngleDeg))
-	c.ktMsg = message()
 	useKT := widget.NewButton("Use this section", c.useKT)
 	// The analytic family is for checking the method, less often used:
 	// folded away so that the sweep fits on screen.
@@ -266,8 +261,16 @@ func newControls(w *Workbench) *controls {
 	// Panelling.
 	c.panelSlider = widget.NewSlider(model.MinPanels, sliderMaxPanels)
 	c.panelSlider.Step = 1
-	c.panelEntry = widget.NewEntry()
 	c.panelMsg = message()
+	c.panelEntry = newField(w, c.panelMsg, func(s string) error {
+		n, err := strconv.Atoi(strings.TrimSpace(s))
+		if err != nil {
+			return fmt.Errorf("panel count must be a whole number from %d to %d", model.MinPanels, model.MaxPanels)
+		}
+		p := ctl.state.study.Panelling
+		p.Panels = n
+		return ctl.SetPanelling("", p)
+	})
 	c.panelSlider.OnChanged = func(v float64) {
 		if c.syncing {
 			return
@@ -275,17 +278,6 @@ func newControls(w *Workbench) *controls {
 		c.editPanelling("panels", func(p *model.Panelling) { p.Panels = int(v) })
 	}
 	c.panelSlider.OnChangeEnded = func(float64) { ctl.BreakMerge() }
-	c.panelEntry.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
-		n, err := strconv.Atoi(strings.TrimSpace(s))
-		if err != nil {
-			setMessage(c.panelMsg, fmt.Errorf("panel count must be a whole number from %d to %d", model.MinPanels, model.MaxPanels))
-			return
-		}
-		c.editPanelling("panels-entry", func(p *model.Panelling) { p.Panels = n })
-	}
 	spacings := make([]string, len(model.Spacings))
 	for i, s := range model.Spacings {
 		spacings[i] = string(s)
@@ -302,26 +294,22 @@ func newControls(w *Workbench) *controls {
 	// Flow.
 	c.alphaSlider = widget.NewSlider(-sliderMaxAlpha, sliderMaxAlpha)
 	c.alphaSlider.Step = alphaSliderStep
-	c.alphaEntry = widget.NewEntry()
 	c.flowMsg = message()
 	c.alphaMsg = message()
+	c.alphaSense = caption("")
+	c.alphaEntry = newField(w, c.alphaMsg, func(s string) error {
+		v, err := parseNumber(s)
+		if err != nil {
+			return errors.New("angle of attack must be a number of degrees")
+		}
+		return ctl.SetAlpha("", v)
+	})
 	c.alphaSlider.OnChanged = func(v float64) {
 		if !c.syncing {
 			setMessage(c.alphaMsg, ctl.SetAlpha("alpha", v))
 		}
 	}
 	c.alphaSlider.OnChangeEnded = func(float64) { ctl.BreakMerge() }
-	c.alphaEntry.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
-		v, err := parseNumber(s)
-		if err != nil {
-			setMessage(c.alphaMsg, errors.New("angle of attack must be a number of degrees"))
-			return
-		}
-		setMessage(c.alphaMsg, ctl.SetAlpha("alpha-entry", v))
-	}
 	stepAlpha := func(sign float64) {
 		st := ctl.state.study
 		ctl.BreakMerge()
@@ -332,7 +320,15 @@ func newControls(w *Workbench) *controls {
 			setMessage(c.flowMsg, ctl.SetInverted(on))
 		}
 	})
-	c.clearance = widget.NewEntry()
+	c.clearance = newField(w, c.flowMsg, func(s string) error {
+		v, err := parseNumber(s)
+		if err != nil {
+			return errors.New("ground clearance must be a number of millimetres")
+		}
+		g := ctl.state.study.Ground
+		g.ClearanceMM = v
+		return ctl.SetGround("", g)
+	})
 	c.ground = widget.NewCheck("Ground, clearance (mm)", func(on bool) {
 		if !c.syncing {
 			g := ctl.state.study.Ground
@@ -340,28 +336,12 @@ func newControls(w *Workbench) *controls {
 			setMessage(c.flowMsg, ctl.SetGround("", g))
 		}
 	})
-	c.clearance.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
-		v, err := parseNumber(s)
-		if err != nil {
-			setMessage(c.flowMsg, errors.New("ground clearance must be a number of millimetres"))
-			return
-		}
-		g := ctl.state.study.Ground
-		g.ClearanceMM = v
-		setMessage(c.flowMsg, ctl.SetGround("clearance", g))
-	}
 	c.alphaDown = widget.NewButton("−", func() { stepAlpha(-1) })
 	c.alphaUp = widget.NewButton("+", func() { stepAlpha(1) })
 
 	// Sweep.
-	c.from, c.to, c.step = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
 	c.sweepMsg = message()
-	for _, e := range []*widget.Entry{c.from, c.to, c.step} {
-		e.OnChanged = func(string) { c.editSweep() }
-	}
+	c.from, c.to, c.step = newField(w, c.sweepMsg, c.editSweep), newField(w, c.sweepMsg, c.editSweep), newField(w, c.sweepMsg, c.editSweep)
 	c.progress = widget.NewProgressBar()
 	c.progress.Hide()
 	c.run = widget.NewButton("Run sweep", c.runSweep)
@@ -438,6 +418,7 @@ func newControls(w *Workbench) *controls {
 	// tabs.
 	top := container.NewVBox(
 		row("α (°)", container.NewBorder(nil, nil, nil, container.NewHBox(sized(c.alphaEntry, 64), c.alphaDown, c.alphaUp), c.alphaSlider)),
+		c.alphaSense,
 		c.alphaMsg,
 	)
 	c.box = container.NewBorder(top, nil, nil, nil, c.tabs)
@@ -457,7 +438,7 @@ var ktDefault = model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}
 // useKT reads the three Kármán–Trefftz parameters and applies them.
 func (c *controls) useKT() {
 	var v [3]float64
-	for i, e := range []*widget.Entry{c.ktX, c.ktY, c.ktTau} {
+	for i, e := range []*field{c.ktX, c.ktY, c.ktTau} {
 		x, err := parseNumber(e.Text)
 		if err != nil {
 			setMessage(c.ktMsg, fmt.Errorf("%s must be a number", [3]string{"centre x", "centre y", "TE angle"}[i]))
@@ -501,22 +482,17 @@ func (c *controls) editPanelling(key string, f func(*model.Panelling)) {
 	setMessage(c.panelMsg, c.w.ctl.SetPanelling(key, p))
 }
 
-func (c *controls) editSweep() {
-	if c.syncing {
-		return
-	}
-	var r model.SweepRange
+// editSweep applies the three sweep fields as they read.
+func (c *controls) editSweep(string) error {
 	var vals [3]float64
-	for i, e := range []*widget.Entry{c.from, c.to, c.step} {
+	for i, e := range []*field{c.from, c.to, c.step} {
 		v, err := parseNumber(e.Text)
 		if err != nil {
-			setMessage(c.sweepMsg, fmt.Errorf("sweep %s must be a number of degrees", [3]string{"from", "to", "step"}[i]))
-			return
+			return fmt.Errorf("sweep %s must be a number of degrees", [3]string{"from", "to", "step"}[i])
 		}
 		vals[i] = v
 	}
-	r = model.SweepRange{FromDeg: vals[0], ToDeg: vals[1], StepDeg: vals[2]}
-	setMessage(c.sweepMsg, c.w.ctl.SetSweep(r))
+	return c.w.ctl.SetSweep(model.SweepRange{FromDeg: vals[0], ToDeg: vals[1], StepDeg: vals[2]})
 }
 
 func (c *controls) runSweep() {
@@ -574,12 +550,10 @@ func (c *controls) sync(st *model.Study) {
 	c.fc.sync(st)
 	c.vc.sync(st)
 	if d, ok := strings.CutPrefix(el.Section.Spec, "naca:"); ok {
-		if !strings.EqualFold(strings.TrimSpace(c.naca.Text), d) {
-			c.naca.SetText(d)
-		}
+		c.naca.show(d, func(s string) bool { return strings.EqualFold(strings.TrimSpace(s), d) })
 		setMessage(c.sourceMsg, nil)
-	} else if c.sourceMsg.Hidden {
-		c.naca.SetText("")
+	} else {
+		c.naca.show("", nil)
 	}
 	if d, ok := strings.CutPrefix(el.Section.Spec, "kt:"); ok {
 		c.kt.Open(0)
@@ -608,6 +582,7 @@ func (c *controls) sync(st *model.Study) {
 	a := st.Flow.AlphaDeg
 	c.alphaSlider.SetValue(max(-sliderMaxAlpha, min(sliderMaxAlpha, a)))
 	setIfDiffers(c.alphaEntry, entryNum(a), numberIs(a))
+	c.alphaSense.SetText("Angle of attack as mounted: " + model.AngleSense(st.Inverted) + ".")
 	c.inverted.SetChecked(st.Inverted)
 	c.ground.SetChecked(st.Ground.Enabled)
 	setIfDiffers(c.clearance, entryNum(st.Ground.ClearanceMM), numberIs(st.Ground.ClearanceMM))
@@ -635,11 +610,7 @@ func (c *controls) sync(st *model.Study) {
 
 // setIfDiffers sets an entry's text unless it already says the same value,
 // so that typing "4." is not rewritten to "4" under the cursor.
-func setIfDiffers(e *widget.Entry, text string, same func(string) bool) {
-	if !same(e.Text) {
-		e.SetText(text)
-	}
-}
+func setIfDiffers(e *field, text string, same func(string) bool) { e.show(text, same) }
 
 // entryNum formats a number for an entry, with an ASCII minus that the
 // user can edit like any other character.

@@ -147,7 +147,7 @@ func TestDensityWindowRun(t *testing.T) {
 		t.Errorf("after undo the counts say %q", got)
 	}
 	// A change of the configuration makes the outcome stale.
-	w.controls.alphaEntry.SetText("1")
+	w.controls.alphaEntry.submit("1")
 	w.WaitIdle()
 	if d.fresh() || !d.use.Disabled() || !strings.Contains(d.caseLabel.Text, "run it again") {
 		t.Error("an angle change left the density outcome current")
@@ -218,7 +218,7 @@ func TestPanelSizesFollowStudy(t *testing.T) {
 		}
 	}
 	check(w.ctl.Study().Panelling.Panels)
-	w.controls.panelEntry.SetText("48")
+	w.controls.panelEntry.submit("48")
 	w.WaitIdle()
 	check(48)
 	// Uniform spacing on a smooth section keeps neighbours alike; the

@@ -10,7 +10,7 @@ import (
 )
 
 // Element editing: the controller's side. Each method is one study edit;
-// placements go through model.PlaceFlap and model.FlapPlacementOf (in
+// placements go through model.Study.SetElement and model.Study.PlaceSlot (in
 // backend.go), so no geometry is computed here.
 
 // newFlapName is the name of an added element, numbered when taken.
@@ -27,7 +27,7 @@ func (c *Controller) AddElement() error {
 	}
 	name := uniqueElementName(st, newFlapName)
 	err := c.Edit("", func(s *model.Study) {
-		s.Elements = append(s.Elements, newFlap(s.Elements[n-1], name))
+		appendFlap(s, name)
 	})
 	if err != nil {
 		return fmt.Errorf("no room for a flap behind %q: %w", st.Elements[n-1].Name, err)
@@ -104,7 +104,7 @@ func (c *Controller) checkIndex(i int) {
 }
 
 // Placement is where an element sits: chord, leading edge and setting
-// angle in the study frame (mm, °).
+// angle as mounted (mm, °; model.FrameText, model.AngleSense).
 type Placement struct {
 	ChordMM, XMM, YMM, AngleDeg float64
 }
@@ -127,25 +127,28 @@ func (c *Controller) SetPlacement(key string, i int, p Placement) error {
 	})
 }
 
-// FlapPlacementOf returns the gap, overlap and deflection of element i
-// (not the first) relative to element i−1.
-func (c *Controller) FlapPlacementOf(i int) model.FlapPlacement {
+// SlotOf returns the gap, overlap and deflection of element i (not the
+// first) behind element i−1, by the trade's definitions (model.Slot).
+func (c *Controller) SlotOf(i int) model.Slot {
 	c.checkIndex(i)
 	if i == 0 {
-		panic("ui: the first element has no flap placement")
+		panic("ui: the first element has no slot")
 	}
-	els := c.state.study.Elements
-	return flapPlacementOf(els[i-1], els[i])
+	return slotOf(c.state.study, i, c.state.sections[i])
 }
 
-// SetFlapPlacement places element i (not the first) by gap, overlap and
-// deflection relative to element i−1; the elements behind it follow.
-func (c *Controller) SetFlapPlacement(key string, i int, fp model.FlapPlacement) error {
+// SetSlot places element i (not the first) at gap, overlap and deflection
+// behind element i−1; the elements behind it follow.
+func (c *Controller) SetSlot(key string, i int, sl model.Slot) error {
 	c.checkIndex(i)
 	if i == 0 {
-		panic("ui: the first element has no flap placement")
+		panic("ui: the first element has no slot")
 	}
-	return c.Edit(key, func(s *model.Study) { placeFlapAt(s, i, fp) })
+	next := cloneStudy(c.state.study)
+	if err := placeSlot(next, i, c.state.sections[i], sl); err != nil {
+		return err
+	}
+	return c.Edit(key, func(s *model.Study) { s.Elements = next.Elements })
 }
 
 // SetReferenceChord sets the chord of the configuration's coefficients in

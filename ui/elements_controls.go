@@ -30,14 +30,19 @@ type elementControls struct {
 	msg        *widget.Label
 
 	placeHead            *widget.Label
-	name                 *widget.Entry
-	chord, x, y, angle   *widget.Entry
+	name                 *field
+	chord, x, y, angle   *field
+	angleLabel           *widget.Label
+	mainPlace            *fyne.Container // x, y and setting angle: the first element only
 	flapHead             *widget.Label
-	gap, overlap, deflec *widget.Entry
+	gap, overlap, deflec *field
+	deflecLabel          *widget.Label
+	flapPlace            *widget.Label   // a flap's position and setting angle, derived from its slot
 	flap                 *fyne.Container // the flap fields, hidden for the first element
+	frame                *widget.Label   // the frame and sign convention
 	placeMsg             *widget.Label
 
-	refChord *widget.Entry
+	refChord *field
 	refMsg   *widget.Label
 }
 
@@ -71,68 +76,64 @@ func newElementControls(c *controls) *elementControls {
 
 	ec.placeHead = heading("Placement")
 	ec.placeMsg = message()
-	ec.name = widget.NewEntry()
-	ec.name.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
+	w := c.w
+	ec.name = newField(w, ec.placeMsg, func(s string) error {
 		i := ctl.Element()
-		setMessage(ec.placeMsg, ctl.SetElementName(fmt.Sprintf("name-%d", i), i, s))
+		return ctl.SetElementName("", i, s)
+	})
+	placeField := func(name string, set func(*Placement, float64)) *field {
+		return newField(w, ec.placeMsg, func(s string) error { return ec.editPlacement(name, s, set) })
 	}
-	ec.chord, ec.x, ec.y, ec.angle = widget.NewEntry(), widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
-	placeFields := []struct {
-		e    *widget.Entry
-		name string
-		set  func(*Placement, float64)
-	}{
-		{ec.chord, "chord", func(p *Placement, v float64) { p.ChordMM = v }},
-		{ec.x, "leading edge x", func(p *Placement, v float64) { p.XMM = v }},
-		{ec.y, "leading edge y", func(p *Placement, v float64) { p.YMM = v }},
-		{ec.angle, "setting angle", func(p *Placement, v float64) { p.AngleDeg = v }},
+	ec.chord = placeField("chord", func(p *Placement, v float64) { p.ChordMM = v })
+	ec.x = placeField("leading edge x", func(p *Placement, v float64) { p.XMM = v })
+	ec.y = placeField("leading edge y", func(p *Placement, v float64) { p.YMM = v })
+	ec.angle = placeField("setting angle", func(p *Placement, v float64) { p.AngleDeg = v })
+	slotField := func(name string, set func(*model.Slot, float64)) *field {
+		return newField(w, ec.placeMsg, func(s string) error { return ec.editSlot(name, s, set) })
 	}
-	for _, f := range placeFields {
-		f.e.OnChanged = func(s string) { ec.editPlacement(f.name, s, f.set) }
-	}
-	ec.gap, ec.overlap, ec.deflec = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
-	flapFields := []struct {
-		e    *widget.Entry
-		name string
-		set  func(*model.FlapPlacement, float64)
-	}{
-		{ec.gap, "gap", func(p *model.FlapPlacement, v float64) { p.GapMM = v }},
-		{ec.overlap, "overlap", func(p *model.FlapPlacement, v float64) { p.OverlapMM = v }},
-		{ec.deflec, "deflection", func(p *model.FlapPlacement, v float64) { p.DeflectionDeg = v }},
-	}
-	for _, f := range flapFields {
-		f.e.OnChanged = func(s string) { ec.editFlap(f.name, s, f.set) }
-	}
+	ec.gap = slotField("gap", func(p *model.Slot, v float64) { p.GapMM = v })
+	ec.overlap = slotField("overlap", func(p *model.Slot, v float64) { p.OverlapMM = v })
+	ec.deflec = slotField("deflection", func(p *model.Slot, v float64) { p.DeflectionDeg = v })
+	ec.angleLabel = captionLabel("")
+	ec.deflecLabel = captionLabel("")
+	ec.mainPlace = container.NewVBox(
+		container.NewBorder(ec.angleLabel, nil, nil, nil, ec.angle),
+		container.NewGridWithColumns(2, labelled("leading edge x (mm)", ec.x), labelled("leading edge y (mm)", ec.y)),
+	)
 	ec.flapHead = caption("")
+	ec.flapPlace = caption("")
 	ec.flap = container.NewVBox(
 		ec.flapHead,
-		container.NewGridWithColumns(3, labelled("gap (mm)", ec.gap), labelled("overlap (mm)", ec.overlap), labelled("deflection (°)", ec.deflec)),
+		container.NewBorder(nil, nil, newSlotDiagram(), nil, container.NewVBox(
+			container.NewGridWithColumns(2, labelled("gap (mm)", ec.gap), labelled("overlap (mm)", ec.overlap)),
+			container.NewBorder(ec.deflecLabel, nil, nil, nil, ec.deflec),
+		)),
+		ec.flapPlace,
 	)
+	ec.frame = caption("")
 
-	ec.refChord = widget.NewEntry()
 	ec.refMsg = message()
-	ec.refChord.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
+	ec.refChord = newField(w, ec.refMsg, func(s string) error {
 		v := 0.0
 		if strings.TrimSpace(s) != "" {
 			var err error
 			if v, err = parseNumber(s); err != nil {
-				setMessage(ec.refMsg, errors.New("reference chord must be a number of millimetres, or empty for the sum of the chords"))
-				return
+				return errors.New("reference chord must be a number of millimetres, or empty for the sum of the chords")
 			}
 			if !(v > 0) {
-				setMessage(ec.refMsg, errors.New("reference chord must be positive, or empty for the sum of the chords"))
-				return
+				return errors.New("reference chord must be positive, or empty for the sum of the chords")
 			}
 		}
-		setMessage(ec.refMsg, ctl.SetReferenceChord("refchord", v))
-	}
+		return ctl.SetReferenceChord("", v)
+	})
 	return ec
+}
+
+// captionLabel is a small label over a field.
+func captionLabel(s string) *widget.Label {
+	l := widget.NewLabel(s)
+	l.SizeName = theme.SizeNameCaptionText
+	return l
 }
 
 // listBox returns the list with its buttons.
@@ -149,10 +150,11 @@ func (ec *elementControls) placementBox() fyne.CanvasObject {
 	return container.NewVBox(
 		ec.placeHead,
 		row("Name", ec.name),
-		container.NewGridWithColumns(2, labelled("chord (mm)", ec.chord), labelled("setting angle (°, nose-up)", ec.angle)),
-		container.NewGridWithColumns(2, labelled("leading edge x (mm)", ec.x), labelled("leading edge y (mm)", ec.y)),
+		labelled("chord (mm)", ec.chord),
+		ec.mainPlace,
 		ec.flap,
 		ec.placeMsg,
+		ec.frame,
 		labelled("reference chord (mm; empty: sum of the chords)", ec.refChord),
 		ec.refMsg,
 	)
@@ -169,41 +171,33 @@ func caption(s string) *widget.Label {
 // editPlacement sets one placement value of the selected element from
 // text; the others stay as they are in the study (not as rounded in their
 // entries).
-func (ec *elementControls) editPlacement(name, text string, set func(*Placement, float64)) {
-	if ec.c.syncing {
-		return
-	}
+func (ec *elementControls) editPlacement(name, text string, set func(*Placement, float64)) error {
 	v, err := parseNumber(text)
 	if err != nil {
-		setMessage(ec.placeMsg, fmt.Errorf("%s must be a number", name))
-		return
+		return fmt.Errorf("%s must be a number", name)
 	}
 	ctl := ec.c.w.ctl
 	i := ctl.Element()
 	p := ctl.PlacementOf(i)
 	set(&p, v)
-	setMessage(ec.placeMsg, ctl.SetPlacement(fmt.Sprintf("place-%d-%s", i, name), i, p))
+	return ctl.SetPlacement("", i, p)
 }
 
-// editFlap sets one of gap, overlap and deflection of the selected
-// element (not the first) from text.
-func (ec *elementControls) editFlap(name, text string, set func(*model.FlapPlacement, float64)) {
-	if ec.c.syncing {
-		return
-	}
+// editSlot sets one of gap, overlap and deflection of the selected element
+// (not the first) from text.
+func (ec *elementControls) editSlot(name, text string, set func(*model.Slot, float64)) error {
 	ctl := ec.c.w.ctl
 	i := ctl.Element()
 	if i == 0 {
-		return
+		return nil
 	}
 	v, err := parseNumber(text)
 	if err != nil {
-		setMessage(ec.placeMsg, fmt.Errorf("%s must be a number", name))
-		return
+		return fmt.Errorf("%s must be a number", name)
 	}
-	fp := ctl.FlapPlacementOf(i)
-	set(&fp, v)
-	setMessage(ec.placeMsg, ctl.SetFlapPlacement(fmt.Sprintf("flap-%d-%s", i, name), i, fp))
+	sl := ctl.SlotOf(i)
+	set(&sl, v)
+	return ctl.SetSlot("", i, sl)
 }
 
 // sync sets the list and the fields from st; sel is the selected element.
@@ -226,29 +220,35 @@ func (ec *elementControls) sync(st *model.Study, sel int) {
 
 	e := st.Elements[sel]
 	ec.placeHead.SetText("Placement of " + e.Name)
-	if strings.TrimSpace(ec.name.Text) != e.Name {
-		ec.name.SetText(e.Name)
-	}
-	setIfDiffers(ec.chord, entryNum(e.ChordMM), numberIs(e.ChordMM))
-	setIfDiffers(ec.x, entryNum(e.XMM), numberIs(e.XMM))
-	setIfDiffers(ec.y, entryNum(e.YMM), numberIs(e.YMM))
-	setIfDiffers(ec.angle, entryNum(e.AngleDeg), numberIs(e.AngleDeg))
-	if sel > 0 {
-		fp := flapPlacementOf(st.Elements[sel-1], e)
-		setIfDiffers(ec.gap, entryNum(fp.GapMM), numberNear(fp.GapMM))
-		setIfDiffers(ec.overlap, entryNum(fp.OverlapMM), numberNear(fp.OverlapMM))
-		setIfDiffers(ec.deflec, entryNum(fp.DeflectionDeg), numberNear(fp.DeflectionDeg))
-		ec.flapHead.SetText(fmt.Sprintf("Relative to %s: gap below, overlap ahead of its trailing edge; deflection trailing edge down (upright frame).", st.Elements[sel-1].Name))
-		ec.flap.Show()
-	} else {
+	ec.name.show(e.Name, func(s string) bool { return strings.TrimSpace(s) == e.Name })
+	ec.chord.show(entryNum(e.ChordMM), numberIs(e.ChordMM))
+	ec.frame.SetText("Positions " + model.FrameText + ". Angles: " + model.AngleSense(st.Inverted) + ".")
+	if sel == 0 {
+		ec.x.show(entryNum(e.XMM), numberIs(e.XMM))
+		ec.y.show(entryNum(e.YMM), numberIs(e.YMM))
+		ec.angle.show(entryNum(e.AngleDeg), numberIs(e.AngleDeg))
+		ec.angleLabel.SetText("setting angle (°, " + model.AngleShort(st.Inverted) + ")")
+		ec.mainPlace.Show()
 		ec.flap.Hide()
+	} else {
+		prev := st.Elements[sel-1]
+		sl := ec.c.w.ctl.SlotOf(sel)
+		ec.gap.show(entryNum(sl.GapMM), numberNear(sl.GapMM))
+		ec.overlap.show(entryNum(sl.OverlapMM), numberNear(sl.OverlapMM))
+		ec.deflec.show(entryNum(sl.DeflectionDeg), numberNear(sl.DeflectionDeg))
+		ec.deflecLabel.SetText("deflection (°, " + model.AngleShort(st.Inverted) + ")")
+		ec.flapHead.SetText(fmt.Sprintf("Slot behind %s (%s).", prev.Name, model.SlotText))
+		ec.flapPlace.SetText(fmt.Sprintf("Hence, as mounted: leading edge at x %s, y %s mm; setting angle %s° = %s's %s° + deflection %s°.",
+			num(e.XMM), num(e.YMM), num(e.AngleDeg), prev.Name, num(prev.AngleDeg), num(sl.DeflectionDeg)))
+		ec.mainPlace.Hide()
+		ec.flap.Show()
 	}
 	setMessage(ec.placeMsg, nil)
 
 	if st.ReferenceChordMM > 0 {
-		setIfDiffers(ec.refChord, entryNum(st.ReferenceChordMM), numberIs(st.ReferenceChordMM))
-	} else if strings.TrimSpace(ec.refChord.Text) != "" && ec.refMsg.Hidden {
-		ec.refChord.SetText("")
+		ec.refChord.show(entryNum(st.ReferenceChordMM), numberIs(st.ReferenceChordMM))
+	} else {
+		ec.refChord.show("", func(s string) bool { return strings.TrimSpace(s) == "" })
 	}
 	setMessage(ec.refMsg, nil)
 }

@@ -30,13 +30,13 @@ const groundCaution = "Potential flow shows only the rise of downforce near the 
 type flowControls struct {
 	c *controls
 
-	speed    *widget.Entry
+	speed    *field
 	unit     *widget.Select
-	temp     *widget.Entry
-	pressure *widget.Entry
+	temp     *field
+	pressure *field
 	isa      *widget.Button
-	span     *widget.Entry
-	reynolds *widget.Entry
+	span     *field
+	reynolds *field
 	msg      *widget.Label
 	derived  *widget.Label
 }
@@ -47,81 +47,57 @@ func newFlowControls(c *controls) *flowControls {
 	fc.msg = message()
 	fc.derived = caption("")
 
-	fc.speed = widget.NewEntry()
+	w := c.w
+	fc.speed = newField(w, fc.msg, func(s string) error {
+		v, err := fc.parseSpeed(s)
+		if err != nil {
+			return err
+		}
+		return ctl.SetSpeed("", v)
+	})
 	fc.speed.SetPlaceHolder("none")
 	fc.unit = widget.NewSelect([]string{unitKmh, unitMPS}, func(string) {
 		// A view setting: rewrite the field in the new unit.
 		// The study keeps its speed: no edit.
 		if !c.syncing {
 			c.syncing = true
-			fc.speed.SetText(fc.speedText(ctl.state.study.Flow.SpeedMPS))
+			fc.speed.show(fc.speedText(ctl.state.study.Flow.SpeedMPS), nil)
 			c.syncing = false
 		}
 	})
 	fc.unit.Selected = unitKmh // the unit a car team thinks in (set before any study exists)
-	fc.speed.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
-		v, err := fc.parseSpeed(s)
-		if err != nil {
-			setMessage(fc.msg, err)
-			return
-		}
-		setMessage(fc.msg, ctl.SetSpeed("speed", v))
-	}
-
-	fc.temp, fc.pressure = widget.NewEntry(), widget.NewEntry()
-	fc.temp.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
+	fc.temp = newField(w, fc.msg, func(s string) error {
 		v, err := parseNumber(s)
 		if err != nil {
-			setMessage(fc.msg, errors.New("air temperature must be a number of °C"))
-			return
+			return errors.New("air temperature must be a number of °C")
 		}
-		setMessage(fc.msg, ctl.SetAir("temperature", v, ctl.state.study.Flow.PressurePa))
-	}
-	fc.pressure.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
+		return ctl.SetAir("", v, ctl.state.study.Flow.PressurePa)
+	})
+	fc.pressure = newField(w, fc.msg, func(s string) error {
 		v, err := parseNumber(s)
 		if err != nil {
-			setMessage(fc.msg, errors.New("air pressure must be a number of pascals"))
-			return
+			return errors.New("air pressure must be a number of pascals")
 		}
-		setMessage(fc.msg, ctl.SetAir("pressure", ctl.state.study.Flow.TemperatureC, v))
-	}
+		return ctl.SetAir("", ctl.state.study.Flow.TemperatureC, v)
+	})
 	fc.isa = widget.NewButton("ISA sea level", func() { setMessage(fc.msg, ctl.ResetAir()) })
 
-	fc.span = widget.NewEntry()
+	fc.span = newField(w, fc.msg, func(s string) error {
+		v, err := optionalNumber(s)
+		if err != nil {
+			return errors.New("span must be a number of metres, or empty for forces per metre")
+		}
+		return ctl.SetSpan("", v)
+	})
 	fc.span.SetPlaceHolder("per metre")
-	fc.span.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
+	fc.reynolds = newField(w, fc.msg, func(s string) error {
 		v, err := optionalNumber(s)
 		if err != nil {
-			setMessage(fc.msg, errors.New("span must be a number of metres, or empty for forces per metre"))
-			return
+			return &model.FieldError{Field: "flow.reynolds", Err: errors.New("not a number: enter one (e.g. 3e5), or leave it empty to take it from the speed")}
 		}
-		setMessage(fc.msg, ctl.SetSpan("span", v))
-	}
-	fc.reynolds = widget.NewEntry()
+		return ctl.SetReynolds("", v)
+	})
 	fc.reynolds.SetPlaceHolder("from the speed")
-	fc.reynolds.OnChanged = func(s string) {
-		if c.syncing {
-			return
-		}
-		v, err := optionalNumber(s)
-		if err != nil {
-			setMessage(fc.msg, &model.FieldError{Field: "flow.reynolds", Err: errors.New("not a number: enter one (e.g. 3e5), or leave it empty to take it from the speed")})
-			return
-		}
-		setMessage(fc.msg, ctl.SetReynolds("reynolds", v))
-	}
 	return fc
 }
 

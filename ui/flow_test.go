@@ -29,7 +29,7 @@ func TestSpeedInKmh(t *testing.T) {
 		t.Fatalf("speed unit %q, want km/h", fc.unit.Selected)
 	}
 	for _, kmh := range []float64{100, 72, 43.2} {
-		fc.speed.SetText(entryNum(kmh))
+		fc.speed.submit(entryNum(kmh))
 		current(t, w)
 		if got, want := w.ctl.Study().Flow.SpeedMPS, model.KmhToMps(kmh); got != want {
 			t.Errorf("%g km/h sets speed_mps %v, want exactly %v", kmh, got, want)
@@ -44,12 +44,12 @@ func TestSpeedInKmh(t *testing.T) {
 	if encoded(t, w.ctl.Study()) != before {
 		t.Error("switching the speed unit changed the study")
 	}
-	fc.speed.SetText("20")
+	fc.speed.submit("20")
 	current(t, w)
 	if got := w.ctl.Study().Flow.SpeedMPS; got != 20 {
 		t.Errorf("20 m/s sets speed_mps %v", got)
 	}
-	fc.speed.SetText("")
+	fc.speed.submit("")
 	if got := w.ctl.Study().Flow.SpeedMPS; got != 0 {
 		t.Errorf("an empty speed sets speed_mps %v, want 0 (none)", got)
 	}
@@ -62,7 +62,7 @@ func TestForcesWithSpeed(t *testing.T) {
 		t.Fatalf("forces without a speed: %+v, status %q", res.Forces, w.status.Full())
 	}
 	fc.unit.SetSelected(unitMPS)
-	fc.speed.SetText("20")
+	fc.speed.submit("20")
 	res := current(t, w)
 	if res.Forces == nil {
 		t.Fatal("no forces with a speed")
@@ -84,7 +84,7 @@ func TestForcesWithSpeed(t *testing.T) {
 		t.Errorf("status %q does not give %q", w.status.Full(), lift)
 	}
 	// With a span the total appears beside it.
-	fc.span.SetText("1.2")
+	fc.span.submit("1.2")
 	res = current(t, w)
 	total := fixed(res.Forces.LiftPerSpan*1.2, 1) + " N on 1.2 m"
 	if !strings.Contains(w.status.Full(), total) || !strings.Contains(w.results.table.Text, "N on 1.2 m span") {
@@ -116,8 +116,8 @@ func TestForcesWithSpeed(t *testing.T) {
 func TestAirAndReynolds(t *testing.T) {
 	w := newStudyBench(t)
 	fc := w.controls.fc
-	fc.temp.SetText("30")
-	fc.pressure.SetText("95000")
+	fc.temp.submit("30")
+	fc.pressure.submit("95000")
 	if f := w.ctl.Study().Flow; f.TemperatureC != 30 || f.PressurePa != 95000 {
 		t.Fatalf("air %+v", f)
 	}
@@ -129,7 +129,7 @@ func TestAirAndReynolds(t *testing.T) {
 	if fc.temp.Text != "15" || fc.pressure.Text != "101325" {
 		t.Errorf("fields say %q, %q", fc.temp.Text, fc.pressure.Text)
 	}
-	fc.reynolds.SetText("3e5")
+	fc.reynolds.submit("3e5")
 	res := current(t, w)
 	if len(res.Reynolds) != 1 || res.Reynolds[0] != 3e5 {
 		t.Errorf("Re entered directly gives %v", res.Reynolds)

@@ -64,6 +64,14 @@ func (w *Workbench) menu() *fyne.MainMenu {
 	w.undoItem = w.item("Undo", shortcut(fyne.KeyZ, false), func() { w.ctl.Undo() })
 	w.redoItem = w.item("Redo", shortcut(fyne.KeyZ, true), func() { w.ctl.Redo() })
 	w.undoItem.Disabled, w.redoItem.Disabled = true, true
+	// The window's driver reports Ctrl+Z and Ctrl+Y as the toolkit's own
+	// undo and redo shortcuts, not as the menu's key combinations: both
+	// forms go to the study's history, and Ctrl+Y redoes too. Fields pass
+	// them on likewise (field.TypedShortcut).
+	cv := w.win.Canvas()
+	cv.AddShortcut(&fyne.ShortcutUndo{}, func(fyne.Shortcut) { w.ctl.Undo() })
+	cv.AddShortcut(&fyne.ShortcutRedo{}, func(fyne.Shortcut) { w.ctl.Redo() })
+	cv.AddShortcut(shortcut(fyne.KeyY, false), func(fyne.Shortcut) { w.ctl.Redo() })
 	edit := fyne.NewMenu("Edit", w.undoItem, w.redoItem)
 	var viewItems []*fyne.MenuItem
 	keys := [numViews]fyne.KeyName{fyne.Key1, fyne.Key2, fyne.Key3, fyne.Key4}

@@ -47,14 +47,14 @@ func TestUndoRedoGreyedOut(t *testing.T) {
 		}
 	}
 	check("fresh demo", false, false)
-	w.controls.panelEntry.SetText("90")
+	w.controls.panelEntry.submit("90")
 	check("edit", true, false)
 	w.ctl.Undo()
 	check("undo", false, true)
 	w.ctl.Redo()
 	check("redo", true, false)
 	w.ctl.Undo()
-	w.controls.alphaEntry.SetText("2")
+	w.controls.alphaEntry.submit("2")
 	check("new edit after undo", true, false)
 	if err := w.ctl.Load(newStudy(), ""); err != nil {
 		t.Fatal(err)

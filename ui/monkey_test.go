@@ -126,7 +126,7 @@ func TestMonkey(t *testing.T) {
 			case 1:
 				s = "240"
 			}
-			c.panelEntry.SetText(s)
+			c.panelEntry.submit(s)
 			return "panel entry " + strconv.Quote(s)
 		}},
 		{3, func(r *rand.Rand) string {
@@ -153,7 +153,7 @@ func TestMonkey(t *testing.T) {
 			if r.IntN(3) == 0 {
 				s = strconv.FormatFloat(-10+20*r.Float64(), 'f', 2, 64)
 			}
-			c.alphaEntry.SetText(s)
+			c.alphaEntry.submit(s)
 			return "alpha entry " + strconv.Quote(s)
 		}},
 		{2, func(r *rand.Rand) string {
@@ -171,15 +171,15 @@ func TestMonkey(t *testing.T) {
 		}},
 		{5, func(r *rand.Rand) string {
 			s := pick(r, []string{"0012", "4412", "23012", "2412", "6409", "0006", "44x2", "", "99999", "0000", "abcd", "9999", "0099", "63-412", "NACA 0012", "1", "24012", "4415"})
-			c.naca.SetText(s)
+			c.naca.submit(s)
 			return "NACA " + strconv.Quote(s)
 		}},
 		{2, func(r *rand.Rand) string {
 			vals := []string{"-0.1", "0.1", "10", "0", "-0.3", "abc", "NaN", "1e9", "-5", "30", "0.05"}
 			x, y, tau := pick(r, vals), pick(r, vals), pick(r, vals)
-			c.ktX.SetText(x)
-			c.ktY.SetText(y)
-			c.ktTau.SetText(tau)
+			c.ktX.submit(x)
+			c.ktY.submit(y)
+			c.ktTau.submit(tau)
 			c.useKT()
 			return fmt.Sprintf("Kármán–Trefftz %s %s %s", x, y, tau)
 		}},
@@ -193,15 +193,15 @@ func TestMonkey(t *testing.T) {
 				return "ground toggled"
 			}
 			s := pick(r, []string{"50", "80", "10", "0", "-5", "abc", "1e9", "NaN", "200", "25"})
-			c.clearance.SetText(s)
+			c.clearance.submit(s)
 			return "clearance " + strconv.Quote(s)
 		}},
 		{3, func(r *rand.Rand) string {
 			sets := [][3]string{{"-4", "12", "1"}, {"0", "8", "2"}, {"-2", "6", "0.5"}, {"4", "4", "1"}, {"10", "-2", "1"}, {"0", "10", "0"}, {"abc", "5", "1"}, {"0", "5", "-1"}, {"-90", "90", "0.01"}, {"0", "1e9", "1"}}
 			s := pick(r, sets)
-			c.from.SetText(s[0])
-			c.to.SetText(s[1])
-			c.step.SetText(s[2])
+			c.from.submit(s[0])
+			c.to.submit(s[1])
+			c.step.submit(s[2])
 			return fmt.Sprintf("sweep %v", s)
 		}},
 		{2, func(r *rand.Rand) string {

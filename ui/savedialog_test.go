@@ -41,7 +41,7 @@ func TestSaveAsOnAFullDiskLosesNothing(t *testing.T) {
 	if err := os.WriteFile(old, []byte(previous), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	w.controls.panelEntry.SetText("90")
+	w.controls.panelEntry.submit("90")
 	w.WaitIdle()
 	w.ctl.saveWrap = func(out io.Writer) io.Writer { return &failAfter{w: out, n: 40} }
 

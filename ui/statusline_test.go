@@ -18,8 +18,8 @@ func TestStatusLineFits(t *testing.T) {
 	w := openTestBench(t, rearWing)
 	fc := w.controls.fc
 	fc.unit.SetSelected(unitMPS)
-	fc.speed.SetText("25")
-	fc.span.SetText("1.1")
+	fc.speed.submit("25")
+	fc.span.submit("1.1")
 	w.controls.vc.enabled.SetChecked(true)
 	for _, width := range []float32{windowWidth, 1000} {
 		w.Window().Resize(fyne.NewSize(width, windowHeight))

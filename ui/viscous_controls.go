@@ -19,8 +19,8 @@ type viscousControls struct {
 	c *controls
 
 	enabled *widget.Check
-	upper   *widget.Entry
-	lower   *widget.Entry
+	upper   *field
+	lower   *field
 	msg     *widget.Label
 }
 
@@ -43,10 +43,9 @@ func newViscousControls(c *controls) *viscousControls {
 		}
 		setMessage(vc.msg, nil)
 	})
-	vc.upper, vc.lower = widget.NewEntry(), widget.NewEntry()
-	for _, e := range []*widget.Entry{vc.upper, vc.lower} {
+	vc.upper, vc.lower = newField(c.w, vc.msg, vc.editTrips), newField(c.w, vc.msg, vc.editTrips)
+	for _, e := range []*field{vc.upper, vc.lower} {
 		e.SetPlaceHolder("free")
-		e.OnChanged = func(string) { vc.editTrips() }
 	}
 	return vc
 }
@@ -61,23 +60,20 @@ func (vc *viscousControls) box() fyne.CanvasObject {
 	)
 }
 
-func (vc *viscousControls) editTrips() {
-	if vc.c.syncing {
-		return
-	}
+// editTrips applies both trip fields as they read.
+func (vc *viscousControls) editTrips(string) error {
 	var t [2]float64
-	for i, e := range []*widget.Entry{vc.upper, vc.lower} {
+	for i, e := range []*field{vc.upper, vc.lower} {
 		v, err := optionalNumber(e.Text)
 		if err != nil {
-			setMessage(vc.msg, errors.New("a trip position must be a number in x/c from 0 to 1, or empty for free transition"))
-			return
+			return errors.New("a trip position must be a number in x/c from 0 to 1, or empty for free transition")
 		}
 		t[i] = v
 	}
 	ctl := vc.c.w.ctl
 	v := ctl.state.study.Viscous
 	v.TripUpper, v.TripLower = t[0], t[1]
-	setMessage(vc.msg, ctl.SetViscous("trips", v))
+	return ctl.SetViscous("", v)
 }
 
 func (vc *viscousControls) sync(st *model.Study) {

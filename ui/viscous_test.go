@@ -61,7 +61,7 @@ func TestBoundaryLayerToggle(t *testing.T) {
 	if math.IsNaN(res.Viscous.Cd) && !strings.Contains(w.status.Full(), "no Cd (separated)") {
 		t.Errorf("separated: status %q", w.status.Full())
 	}
-	w.controls.alphaEntry.SetText("0")
+	w.controls.alphaEntry.submit("0")
 	res = current(t, w)
 	// A plausibility band, not a validation: profile drag of 12 % thick
 	// sections at Re ≈ 3×10⁵ lies around 0.01 (Abbott & von Doenhoff,
@@ -134,15 +134,15 @@ func TestBoundaryLayerNeedsSpeed(t *testing.T) {
 		t.Error("the estimate was switched on without a speed")
 	}
 	// With a Reynolds number entered directly it runs.
-	w.controls.fc.reynolds.SetText("5e5")
+	w.controls.fc.reynolds.submit("5e5")
 	vc.enabled.SetChecked(true)
 	if res := current(t, w); res.Viscous == nil {
 		t.Errorf("no boundary layer with Re = 5×10⁵ (%s)", vc.msg.Text)
 	}
 	// Trips reach the study and the estimate: a trip at 5 % chord on both
 	// surfaces moves transition there or ahead of it.
-	vc.upper.SetText("0.05")
-	vc.lower.SetText("0.05")
+	vc.upper.submit("0.05")
+	vc.lower.submit("0.05")
 	res := current(t, w)
 	if v := w.ctl.Study().Viscous; v.TripUpper != 0.05 || v.TripLower != 0.05 {
 		t.Fatalf("trips %+v", v)
@@ -156,7 +156,7 @@ func TestBoundaryLayerNeedsSpeed(t *testing.T) {
 		}
 	}
 	// Clearing the Reynolds number with the estimate on is refused.
-	w.controls.fc.reynolds.SetText("")
+	w.controls.fc.reynolds.submit("")
 	if w.ctl.Study().Flow.Reynolds != 5e5 || w.controls.fc.msg.Hidden {
 		t.Error("the Reynolds number was cleared with the estimate on")
 	}

@@ -121,9 +121,9 @@ func TestPanelCountResolves(t *testing.T) {
 		set  func()
 		want int
 	}{
-		{"entry", func() { w.controls.panelEntry.SetText("80") }, 80},
+		{"entry", func() { w.controls.panelEntry.submit("80") }, 80},
 		{"slider", func() { w.controls.panelSlider.SetValue(240) }, 240},
-		{"entry beyond slider", func() { w.controls.panelEntry.SetText("1100") }, 1100},
+		{"entry beyond slider", func() { w.controls.panelEntry.submit("1100") }, 1100},
 	} {
 		c.set()
 		res := current(t, w)
@@ -135,7 +135,7 @@ func TestPanelCountResolves(t *testing.T) {
 		}
 	}
 	// Out of range: the message shows and the study keeps its count.
-	w.controls.panelEntry.SetText("5000")
+	w.controls.panelEntry.submit("5000")
 	w.WaitIdle()
 	if w.controls.panelMsg.Hidden {
 		t.Error("panel count 5000 shows no message")
@@ -151,7 +151,7 @@ func TestInvalidNACAKeepsSection(t *testing.T) {
 	sec := w.ctl.Sections()[0]
 	res := current(t, w)
 
-	w.controls.naca.SetText("44x2")
+	w.controls.naca.submit("44x2")
 	w.WaitIdle()
 	if w.controls.sourceMsg.Hidden || w.controls.sourceMsg.Text == "" {
 		t.Error("invalid NACA code shows no message")
@@ -166,7 +166,7 @@ func TestInvalidNACAKeepsSection(t *testing.T) {
 		t.Error("an invalid NACA code triggered a new solve")
 	}
 
-	w.controls.naca.SetText("0012")
+	w.controls.naca.submit("0012")
 	current(t, w)
 	if got := w.ctl.Study().Elements[0].Section.Spec; got != "naca:0012" {
 		t.Errorf("after a valid code the section is %q, want naca:0012", got)
@@ -184,10 +184,10 @@ func TestInvalidNACAKeepsSection(t *testing.T) {
 func TestUndoRedo(t *testing.T) {
 	w := newTestBench(t)
 	s0 := encoded(t, w.ctl.Study())
-	w.controls.panelEntry.SetText("90")
+	w.controls.panelEntry.submit("90")
 	w.ctl.BreakMerge()
 	s1 := encoded(t, w.ctl.Study())
-	w.controls.alphaEntry.SetText("7.5")
+	w.controls.alphaEntry.submit("7.5")
 	s2 := encoded(t, w.ctl.Study())
 	if s0 == s1 || s1 == s2 {
 		t.Fatal("edits did not change the study")
@@ -239,8 +239,8 @@ func TestSliderDragIsOneUndoStep(t *testing.T) {
 
 func TestSaveAndReopen(t *testing.T) {
 	w := newTestBench(t)
-	w.controls.panelEntry.SetText("120")
-	w.controls.alphaEntry.SetText("−2")
+	w.controls.panelEntry.submit("120")
+	w.controls.alphaEntry.submit("−2")
 	w.ctl.PinCurrent()
 	if !w.ctl.Dirty() || !strings.Contains(w.Window().Title(), "•") {
 		t.Errorf("edited study not marked unsaved (title %q)", w.Window().Title())
@@ -278,7 +278,7 @@ func TestPinsAppearAndClear(t *testing.T) {
 	if err := w.ctl.PinCurrent(); err != nil {
 		t.Fatal(err)
 	}
-	w.controls.panelEntry.SetText("80")
+	w.controls.panelEntry.submit("80")
 	if err := w.ctl.PinCurrent(); err != nil {
 		t.Fatal(err)
 	}
@@ -316,9 +316,9 @@ func TestPinsAppearAndClear(t *testing.T) {
 
 func TestRunSweep(t *testing.T) {
 	w := newTestBench(t)
-	w.controls.from.SetText("-6")
-	w.controls.to.SetText("10")
-	w.controls.step.SetText("0.25") // 65 angles: more than a live update runs
+	w.controls.from.submit("-6")
+	w.controls.to.submit("10")
+	w.controls.step.submit("0.25") // 65 angles: more than a live update runs
 	w.WaitIdle()
 	if got := w.ctl.Study().Sweep; got != (model.SweepRange{FromDeg: -6, ToDeg: 10, StepDeg: 0.25}) {
 		t.Fatalf("sweep is %+v", got)
@@ -339,18 +339,18 @@ func TestRunSweep(t *testing.T) {
 		t.Error("sweep controls not restored after the run")
 	}
 	// Changing only the angle keeps the sweep; changing the panelling drops it.
-	w.controls.alphaEntry.SetText("6")
+	w.controls.alphaEntry.submit("6")
 	w.WaitIdle()
 	if len(w.ctl.Sweep()) != 65 {
 		t.Error("an angle change dropped the sweep")
 	}
-	w.controls.panelEntry.SetText("120")
+	w.controls.panelEntry.submit("120")
 	w.WaitIdle()
 	if w.ctl.Sweep() != nil {
 		t.Error("a panelling change kept a sweep of the old panelling")
 	}
 	// A bad range leaves the study's sweep alone.
-	w.controls.step.SetText("0")
+	w.controls.step.submit("0")
 	if w.controls.sweepMsg.Hidden {
 		t.Error("step 0 shows no message")
 	}
@@ -441,9 +441,9 @@ func TestExportFiguresAndTables(t *testing.T) {
 
 func TestKarmanTrefftzSource(t *testing.T) {
 	w := newTestBench(t)
-	w.controls.ktX.SetText("-0.1")
-	w.controls.ktY.SetText("0.1")
-	w.controls.ktTau.SetText("10")
+	w.controls.ktX.submit("-0.1")
+	w.controls.ktY.submit("0.1")
+	w.controls.ktTau.submit("10")
 	w.controls.useKT()
 	res := current(t, w)
 	if got := w.ctl.Study().Elements[0].Section.Spec; got != "kt:-0.1,0.1,10" {
@@ -453,7 +453,7 @@ func TestKarmanTrefftzSource(t *testing.T) {
 		t.Errorf("NACA entry still says %q for a Kármán–Trefftz section", w.controls.naca.Text)
 	}
 	// A centre right of the origin is not a section: message, no change.
-	w.controls.ktX.SetText("0.2")
+	w.controls.ktX.submit("0.2")
 	w.controls.useKT()
 	if w.controls.ktMsg.Hidden {
 		t.Error("invalid Kármán–Trefftz centre shows no message")
@@ -530,7 +530,7 @@ func TestOpenSectionFile(t *testing.T) {
 func TestGroundAndInverted(t *testing.T) {
 	w := newTestBench(t)
 	free := current(t, w)
-	w.controls.clearance.SetText("60")
+	w.controls.clearance.submit("60")
 	w.controls.ground.SetChecked(true)
 	res := current(t, w)
 	if g := w.ctl.Study().Ground; !g.Enabled || g.ClearanceMM != 60 {
@@ -568,7 +568,7 @@ func TestGroundAndInverted(t *testing.T) {
 	if !(up.Solution.Cl > 0) {
 		t.Errorf("upright cambered section at 4° has Cl %g, want positive", up.Solution.Cl)
 	}
-	w.controls.clearance.SetText("-5")
+	w.controls.clearance.submit("-5")
 	if w.controls.flowMsg.Hidden {
 		t.Error("a negative clearance shows no message")
 	}
@@ -600,7 +600,7 @@ func TestSecondElementEdits(t *testing.T) {
 		t.Fatal("element choice not offered for two elements")
 	}
 	w.controls.element.SetSelectedIndex(1)
-	w.controls.naca.SetText("0012")
+	w.controls.naca.submit("0012")
 	current(t, w)
 	els := w.ctl.Study().Elements
 	if els[1].Section.Spec != "naca:0012" || els[0].Section.Spec != "naca:4412" {

@@ -37,7 +37,7 @@ func addInputs(fs *flags, sweep bool, formats ...string) *inputs {
 	if sweep {
 		fs.StringVar(&in.alphaRange, "alpha", "", "angles of attack `FROM:TO:STEP` in degrees (default: the study's sweep, or -4:12:1)")
 	} else {
-		fs.Float64Var(&in.alpha, "alpha", 4, "angle of attack in `degrees` (nose-up positive)")
+		fs.Float64Var(&in.alpha, "alpha", 4, "angle of attack in `degrees` (positive loads the wing: nose-up upright; leading edge down, more downforce, on an inverted study)")
 	}
 	fs.IntVar(&in.panels, "panels", d.Panels, fmt.Sprintf("panel `count` per element, %d to %d", model.MinPanels, model.MaxPanels))
 	fs.StringVar(&in.spacing, "spacing", string(d.Spacing), "spacing `law`: cosine, uniform, blend or curvature")

@@ -195,7 +195,7 @@ func TestTwoElementConvergence(t *testing.T) {
 		{"inverted over the ground", true, 1.5},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			st.Inverted = tc.ground
+			st.SetInverted(tc.ground) // positions are as mounted: turning the wing over mirrors them
 			st.Ground = model.Ground{Enabled: tc.ground, ClearanceMM: 150}
 			var cl []float64
 			for _, n := range []int{80, 160, 320} {

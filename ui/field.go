@@ -1,0 +1,105 @@
+package ui
+
+import (
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/widget"
+)
+
+// field is an entry that applies what it shows: its text is applied when
+// the user presses Enter or leaves the field, never keystroke by keystroke.
+// A text that cannot be applied shows its message beside the field; when
+// the user leaves, the field returns to the value in use, so the value a
+// field shows is always the one the results are for. Undo and redo
+// shortcuts go to the study's history, not to the entry's own text.
+type field struct {
+	widget.Entry
+	apply func(text string) error // one study edit; nil for a field that only holds text
+	msg   *widget.Label
+	inUse string
+	w     *Workbench
+}
+
+// newField returns a field on w that applies its text with apply and shows
+// apply's error in msg.
+func newField(w *Workbench, msg *widget.Label, apply func(string) error) *field {
+	f := &field{w: w, msg: msg, apply: apply}
+	f.ExtendBaseWidget(f)
+	f.OnSubmitted = func(string) { f.commit(false) }
+	return f
+}
+
+// FocusLost applies the text, or reverts it to the value in use.
+func (f *field) FocusLost() {
+	f.Entry.FocusLost()
+	f.commit(true)
+}
+
+// TypedShortcut sends undo and redo to the study's history.
+func (f *field) TypedShortcut(s fyne.Shortcut) {
+	if f.w != nil {
+		switch historyShortcut(s) {
+		case -1:
+			f.w.ctl.Undo()
+			return
+		case 1:
+			f.w.ctl.Redo()
+			return
+		}
+	}
+	f.Entry.TypedShortcut(s)
+}
+
+// historyShortcut returns −1 for an undo shortcut (Ctrl+Z), 1 for redo
+// (Ctrl+Y, Ctrl+Shift+Z), 0 otherwise.
+func historyShortcut(s fyne.Shortcut) int {
+	switch s := s.(type) {
+	case *fyne.ShortcutUndo:
+		return -1
+	case *fyne.ShortcutRedo:
+		return 1
+	case *desktop.CustomShortcut:
+		if s.KeyName == fyne.KeyZ && s.Modifier&fyne.KeyModifierShortcutDefault != 0 {
+			if s.Modifier&fyne.KeyModifierShift != 0 {
+				return 1
+			}
+			return -1
+		}
+		if s.KeyName == fyne.KeyY && s.Modifier&fyne.KeyModifierShortcutDefault != 0 {
+			return 1
+		}
+	}
+	return 0
+}
+
+// commit applies the text if it differs from the value in use. leaving
+// says the field is losing the focus: a text that cannot be applied is then
+// replaced by the value in use, its message kept beside the field.
+func (f *field) commit(leaving bool) {
+	if f.apply == nil {
+		return
+	}
+	if f.Text == f.inUse {
+		return
+	}
+	if err := f.apply(f.Text); err != nil {
+		setMessage(f.msg, err)
+		if leaving {
+			f.SetText(f.inUse)
+		}
+		return
+	}
+	setMessage(f.msg, nil)
+	f.inUse = f.Text
+}
+
+// show sets the value in use. A text that already says the same value
+// (same reports it: "4." for 4) is left as typed.
+func (f *field) show(text string, same func(string) bool) {
+	if same != nil && same(f.Text) {
+		f.inUse = f.Text
+		return
+	}
+	f.inUse = text
+	f.SetText(text)
+}
