@@ -113,6 +113,9 @@ func TestKarmanTrefftzExact(t *testing.T) {
 			if d := math.Hypot(e.Stagnation.X-ex.Stagnation.X, e.Stagnation.Y-ex.Stagnation.Y); d > tc.tolStag {
 				t.Errorf("stagnation (%.5f, %.5f), exact (%.5f, %.5f)", e.Stagnation.X, e.Stagnation.Y, ex.Stagnation.X, ex.Stagnation.Y)
 			}
+			if tc.name == "sample μ=(-0.1,0.1) τ=10° cosine" {
+				recordReadme(t, "kt-sample", "Cl %.5f (error %.1e), Cp RMS %.4f", e.Cl, relErr(e.Cl, ex.Cl), ktCpRMS(e, ex, 0.95))
+			}
 		})
 	}
 }
@@ -143,7 +146,15 @@ func TestKarmanTrefftzSampleValue(t *testing.T) {
 // panels on (1.1e-4 at 320, 4.5e-5 at 640; circle-angle spacing has 4.7e-5
 // and 8.9e-6). That case's bound is set at what is observed, 1.5, and is
 // reported.
+//
+// The bound is the same for every case: 1.5, halfway between first and
+// second order, so that a method that lost an order (a first-order
+// collocation or Kutta error) fails, while the uneven asymptotic approach
+// of cosine spacing on the thick τ = 15° case passes. The README quotes the
+// whole range observed.
 func TestKarmanTrefftzConvergence(t *testing.T) {
+	const minOrder = 1.5
+	lo, hi := math.Inf(1), math.Inf(-1)
 	for _, tc := range []struct {
 		name     string
 		kt       model.KarmanTrefftz
@@ -158,6 +169,7 @@ func TestKarmanTrefftzConvergence(t *testing.T) {
 		{"τ=15°", model.KarmanTrefftz{CenterX: -0.12, CenterY: 0.06, TEAngleDeg: 15}, ktCosine, 1.5},
 	} {
 		t.Run(tc.name+" "+tc.sp.String(), func(t *testing.T) {
+			tc.minOrder = minOrder
 			alpha := 5 - tc.kt.ChordAngleDeg()
 			ex := tc.kt.Exact(alpha)
 			var errs []float64
@@ -168,12 +180,14 @@ func TestKarmanTrefftzConvergence(t *testing.T) {
 			for i := 0; i+1 < len(errs); i++ {
 				p := math.Log2(errs[i] / errs[i+1])
 				t.Logf("%s, %s: order %.2f (errors %.2e → %.2e)", tc.name, tc.sp, p, errs[i], errs[i+1])
+				lo, hi = math.Min(lo, p), math.Max(hi, p)
 				if p < tc.minOrder {
 					t.Errorf("observed order %.2f < %.1f (errors %.2e → %.2e)", p, tc.minOrder, errs[i], errs[i+1])
 				}
 			}
 		})
 	}
+	recordReadme(t, "kt-order", "%.2f–%.2f", lo, hi)
 }
 
 // Thin-airfoil theory (Anderson, Fundamentals of Aerodynamics, ch. 4, NACA
@@ -208,6 +222,7 @@ func TestThinAirfoilLimit(t *testing.T) {
 		t.Fatalf("thin-airfoil integrals: α_L0 %.4f°, cm %.5f; Anderson −2.077°, −0.053", aL0Deg, cmThin)
 	}
 	prev := math.Inf(1)
+	var a0s, cms []string
 	for _, tc := range []struct {
 		des   string
 		tolA  float64 // degrees
@@ -241,7 +256,11 @@ func TestThinAirfoilLimit(t *testing.T) {
 			t.Errorf("NACA %s: gap %.4f° smaller than the thinner section's %.4f°", tc.des, gap, prev)
 		}
 		prev = gap
+		if tc.des != "2412" {
+			a0s, cms = append(a0s, fmt.Sprintf("%.3f°", a0)), append(cms, fmt.Sprintf("%.4f", cm0))
+		}
 	}
+	recordReadme(t, "thin-airfoil", "%s", strings.ReplaceAll(strings.Join(a0s, "/")+"; Cm "+strings.Join(cms, "/"), "-", "−"))
 }
 
 // Circulation lift (Kutta–Joukowski) against the pressure integral for a
@@ -303,6 +322,7 @@ func TestMultiElementFarApart(t *testing.T) {
 // (REFERENCES.md §5 [derived; exact]; Katz & Plotkin sec. on ground effect).
 func TestImageMethodEqualsMirror(t *testing.T) {
 	const groundY = -0.3
+	worst := 0.0
 	for _, tc := range []struct {
 		name string
 		el   Element
@@ -318,7 +338,9 @@ func TestImageMethodEqualsMirror(t *testing.T) {
 				name      string
 				got, want float64
 			}{{"Cl", ge.Cl, me.Cl}, {"ClPressure", ge.ClPressure, me.ClPressure}, {"Cm", ge.Cm, me.Cm}} {
-				if math.Abs(q.got-q.want) > 1e-6*math.Max(1, math.Abs(q.want)) {
+				d := math.Abs(q.got-q.want) / math.Max(1, math.Abs(q.want))
+				worst = math.Max(worst, d)
+				if d > 1e-6 {
 					t.Errorf("%s: image %.10g, explicit mirror %.10g", q.name, q.got, q.want)
 				}
 			}
@@ -341,6 +363,11 @@ func TestImageMethodEqualsMirror(t *testing.T) {
 				t.Errorf("mirror circulation %g, body %g", exp.Elements[1].Circulation, me.Circulation)
 			}
 		})
+	}
+	if worst < 1e-9 {
+		recordReadme(t, "image", "Cl, ClPressure, Cm agree to 10⁻⁹")
+	} else {
+		recordReadme(t, "image", "Cl, ClPressure, Cm agree to %.0e", worst)
 	}
 }
 
@@ -381,16 +408,20 @@ func TestFlatPlateGroundEffect(t *testing.T) {
 		return mustSystem(t, Config{Elements: []Element{pl}, Ground: ground, GroundY: qcY - h}).Solve(0).Elements[0].Circulation
 	}
 	free := circ(1, false, 0) - circ(-1, false, 0)
+	var offs []string
 	for _, tc := range []struct {
 		h   float64 // chords
 		tol float64 // relative, on the excess (ratio − 1)
 	}{{1, 0.1}, {2, 0.03}, {4, 0.02}, {8, 0.02}} {
 		ratio := (circ(1, true, tc.h) - circ(-1, true, tc.h)) / free
 		lumped := 1 / (16 * tc.h * tc.h)
-		if d := math.Abs((ratio-1)/lumped - 1); d > tc.tol {
+		d := math.Abs((ratio-1)/lumped - 1)
+		if d > tc.tol {
 			t.Errorf("h/c=%g: Γ/Γ∞ − 1 = %.5f, lumped vortex %.5f (%.0f%% off)", tc.h, ratio-1, lumped, 100*d)
 		}
+		offs = append(offs, fmt.Sprintf("%.1f", 100*d))
 	}
+	recordReadme(t, "plate-ground", "%s %% off", strings.Join(offs, ", "))
 }
 
 // An inverted cambered section's downforce rises as the clearance falls
