@@ -47,6 +47,11 @@ type Offset struct {
 	// trailing edge (where the section is thinner than twice the offset);
 	// NaN when nothing was trimmed.
 	TrimmedXC float64
+	// LoopCutXC is the x/c of the first loop of reversed edges cut out of
+	// the offset where a radius of curvature, usually the nose radius, is
+	// below the offset (the rib's outline has a corner there rather than
+	// following the skin at a constant distance); NaN when none was.
+	LoopCutXC float64
 }
 
 // InwardOffset returns the closed polygon pts (counter-clockwise, the
@@ -213,6 +218,7 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 		// the moved closing edge, or at its mitre with its neighbour.
 		trimmed = xcOf(loop[0])
 	}
+	rounded, roundedXC := false, math.NaN()
 	for iter := 0; ; iter++ {
 		if iter > n {
 			return nil, fail(le, "", ErrOffsetCollapses)
@@ -234,6 +240,21 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 			// whose offsets cross again): cut it off too.
 			loop, owner = a, ao
 			trimmed = xcOf(x)
+		case areaA < 0 && areaB > 0:
+			// A swallowtail: where a radius of curvature (the nose) is
+			// below the offset, the moved edges run backwards and close a
+			// loop of reversed orientation. It lies closer than d to the
+			// contour and is no part of the offset: cut it out, keeping
+			// loop[0] first.
+			keep := append(append([]model.Point(nil), loop[:i+1]...), x)
+			keep = append(keep, loop[j+1:]...)
+			ko := append(append([]int(nil), owner[:i+1]...), owner[j])
+			ko = append(ko, owner[j+1:]...)
+			loop, owner = keep, ko
+			if !rounded {
+				rounded = true
+				roundedXC = xcOf(x)
+			}
 		case areaA > 0 && areaB > 0:
 			return nil, fail(x, surface(owner[i]), fmt.Errorf("%w: it splits in two", ErrOffsetCollapses))
 		case areaA <= 0 && areaB <= 0:
@@ -242,6 +263,7 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 			return nil, fail(x, surface(owner[i]), fmt.Errorf("%w (a radius of curvature or the thickness there is below the offset)", ErrOffsetFolds))
 		}
 	}
+	loop, owner = dropSpikes(loop, owner)
 	if signedArea(loop) <= 0 {
 		return nil, fail(le, "", ErrOffsetCollapses)
 	}
@@ -256,7 +278,7 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 			return nil, fail(a, surface(i), fmt.Errorf("%w (a radius of curvature there is below the offset)", ErrOffsetFolds))
 		}
 	}
-	return &Offset{Points: loop, TrimmedXC: trimmed}, nil
+	return &Offset{Points: loop, TrimmedXC: trimmed, LoopCutXC: roundedXC}, nil
 }
 
 // cutBase joins the upper offset up (from the trailing edge, in[0], to the
@@ -367,6 +389,28 @@ func sharpJoin(loop []model.Point) bool {
 	out := loop[1].Sub(loop[0])
 	turn := math.Atan2(in.Cross(out), in.Dot(out))
 	return math.Pi-math.Abs(turn) < sharpEdgeMaxDeg*math.Pi/180
+}
+
+// dropSpikes removes the points where the closed loop doubles back on
+// itself along a line: a moved edge shorter than zero between two parallel
+// neighbours (an edge shorter than the offset next to a corner, followed
+// by one in line with it) leaves a spike of no area that no crossing
+// reveals. owner[k] stays with the point that starts each remaining edge.
+func dropSpikes(loop []model.Point, owner []int) ([]model.Point, []int) {
+	for changed := true; changed && len(loop) > 3; {
+		changed = false
+		for k := 0; k < len(loop) && len(loop) > 3; k++ {
+			n := len(loop)
+			p, q, r := loop[(k+n-1)%n], loop[k], loop[(k+1)%n]
+			a, b := q.Sub(p), r.Sub(q)
+			if math.Abs(a.Cross(b)) <= 1e-9*a.Norm()*b.Norm() && a.Dot(b) < 0 {
+				loop = append(loop[:k:k], loop[k+1:]...)
+				owner = append(owner[:k:k], owner[k+1:]...)
+				changed = true
+			}
+		}
+	}
+	return loop, owner
 }
 
 // tipSliverFrac bounds the area, relative to the rest of the offset, of a

@@ -121,7 +121,6 @@ func TestOffsetErrors(t *testing.T) {
 		wantXC  float64 // where, ± 0.05
 	}{
 		{"thin plate collapses", []model.Point{{X: 100, Y: 0}, {X: 100, Y: 2}, {X: 0, Y: 2}, {X: 0, Y: 0}}, 1.5, ErrOffsetCollapses, -1},
-		{"nose radius below the skin", noseSection(), 1.5, ErrOffsetFolds, 0},
 	} {
 		_, err := InwardOffset(c.name, c.pts, c.d, model.Point{}, model.Point{X: 100})
 		var oe *OffsetError
@@ -139,6 +138,42 @@ func TestOffsetErrors(t *testing.T) {
 			t.Errorf("%s: reported at x/c %.3f, want about %.2f (%v)", c.name, oe.XC, c.wantXC, err)
 		}
 		t.Logf("%s: %v", c.name, err)
+	}
+}
+
+// A skin thicker than the nose radius is trimmed, not refused: the moved
+// edges round the nose run backwards and close a loop that is cut out, and
+// the offset ends in a point where the offsets of the two flanks meet. For
+// noseSection's straight flanks y = ±(x + 1)/2, which meet at (−1, 0) with
+// half-angle atan(1/2), that point lies d/sin(atan(1/2)) = d√5 from the
+// apex along the axis (the wedge closed form of TestOffsetSharpWedge), as
+// long as it stays nearer the flanks than the 1 mm nose arc.
+func TestOffsetNoseRadiusBelowSkin(t *testing.T) {
+	for _, c := range []struct {
+		name string
+		d    float64
+		tol  float64 // mm; the flank panels are 1 mm long, the offset exact on them
+	}{
+		{"1.5 mm skin on a 1 mm nose", 1.5, 1e-6},
+		{"3 mm skin on a 1 mm nose", 3, 1e-6},
+	} {
+		pts := noseSection()
+		o, err := InwardOffset(c.name, pts, c.d, model.Point{}, model.Point{X: 100})
+		if err != nil {
+			t.Errorf("%s: %v", c.name, err)
+			continue
+		}
+		front := math.Inf(1)
+		for _, p := range o.Points {
+			front = math.Min(front, p.X)
+		}
+		if want := -1 + c.d*math.Sqrt(5); math.Abs(front-want) > c.tol {
+			t.Errorf("%s: offset starts at x = %.6f mm, want %.6f (d√5 behind the flanks' apex)", c.name, front, want)
+		}
+		if !(o.LoopCutXC >= 0 && o.LoopCutXC < 0.1) {
+			t.Errorf("%s: loop cut at x/c %g, want at the nose", c.name, o.LoopCutXC)
+		}
+		checkInside(t, c.name, o, pts, c.d, 1e-6)
 	}
 }
 

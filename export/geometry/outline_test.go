@@ -63,14 +63,24 @@ func TestOutlineErrors(t *testing.T) {
 	if _, err := NewOutline("empty", &model.Layout{}, OutlineOptions{}); !errors.Is(err, ErrNoElements) {
 		t.Errorf("empty layout: error %v does not wrap ErrNoElements", err)
 	}
-	// A 6 mm skin is thicker than the main plane's nose radius, 1.1019 t² c
-	// = 3.97 mm for t = 0.12, c = 250 mm (Abbott & von Doenhoff, Theory of
-	// Wing Sections, 1959, eq. 6.3): the offset folds at the nose.
-	_, err := NewOutline("demo", l, OutlineOptions{SkinMM: 6})
-	var oe *OffsetError
-	if !errors.As(err, &oe) || oe.Element != "main" || !errors.Is(err, ErrOffsetFolds) || oe.XC > 0.05 {
-		t.Errorf("6 mm skin: error %v, want the main plane's offset folding at the nose", err)
+	// A 3 mm skin is thinner than the main plane's nose radius, 1.1019 t² c
+	// = 3.97 mm for t = 0.12, c = 250 mm, and thicker than the flap's,
+	// 1.10 mm for t = 0.10, c = 100 mm (Abbott & von Doenhoff, Theory of
+	// Wing Sections, 1959, eq. 6.3): the flap's offset is trimmed at the
+	// nose (within its coarse first panels, x/c < 0.1), not refused, the
+	// main plane's needs no trim, and both keep the skin everywhere.
+	o, err := NewOutline("demo", l, OutlineOptions{SkinMM: 3})
+	if err != nil {
+		t.Fatalf("3 mm skin: %v", err)
 	}
+	for _, e := range o.Elements {
+		wantCut := e.Name == "flap"
+		if cut := !math.IsNaN(e.Inner.LoopCutXC); cut != wantCut || e.Inner.LoopCutXC > 0.1 {
+			t.Errorf("3 mm skin, %s: loop cut at x/c %g, want a cut %v at the nose", e.Name, e.Inner.LoopCutXC, wantCut)
+		}
+		checkInside(t, e.Name, e.Inner, e.Contour, 3, 1e-6)
+	}
+	var oe *OffsetError
 	// The flap alone, 10 mm thick, with a 5.5 mm skin: an *OffsetError
 	// naming the flap.
 	_, err = NewOutline("demo", &model.Layout{Elements: l.Elements[1:]}, OutlineOptions{SkinMM: 5.5})
