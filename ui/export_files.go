@@ -7,6 +7,7 @@ import (
 	"path/filepath"
 	"strconv"
 	"strings"
+	"time"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/dialog"
@@ -151,10 +152,11 @@ func (w *Workbench) writeOutline(s outlineSettings) func(dir string) ([]string, 
 		if err != nil {
 			return nil, err
 		}
-		opt := geometry.OutlineOptions{Placed: s.placed, SkinMM: s.skinMM, ChordLine: s.chordLine}
+		opt := geometry.OutlineOptions{Placed: s.placed, SkinMM: s.skinMM, ChordLine: s.chordLine, MinLigamentMM: geometry.DefaultMinLigamentMM,
+			Title: geometry.TitleBlock{Team: st.Team, Version: w.app.Metadata().Version, Date: time.Now().UTC().Format("2006-01-02"), AlphaDeg: st.Flow.AlphaDeg, Solved: true}}
 		if s.sparDiaMM > 0 {
 			for i := range st.Elements {
-				opt.Marks = append(opt.Marks, geometry.Mark{Element: i, Label: "spar", XC: s.sparXC, DiameterMM: s.sparDiaMM})
+				opt.Marks = append(opt.Marks, geometry.Mark{Element: i, Label: "spar", XC: s.sparXC, DiameterMM: s.sparDiaMM, OnMeanLine: true})
 			}
 		}
 		o, err := geometry.NewOutline(st.Name, l, opt)

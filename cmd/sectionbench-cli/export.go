@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"strings"
+	"time"
 
 	"sectionbench/export/figure"
 	"sectionbench/export/format"
@@ -39,7 +40,10 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 	skin := fs.Float64("skin-mm", 0, "outline: also draw the inward offset by this skin thickness in `mm` (rib template)")
 	placed := fs.Bool("placed", false, "outline: keep the elements where the study puts them (assembly) instead of one rib template per element")
 	chordLine := fs.Bool("chord-line", false, "outline: draw each element's chord line")
-	spar := fs.String("spar", "", "outline: spar hole `XC,DIAMETER_MM` on the chord line of every element, e.g. 0.3,8")
+	spar := fs.String("spar", "", "outline: spar hole `XC,DIAMETER_MM` in every element, e.g. 0.3,8")
+	sparOn := fs.String("spar-on", "mean-line", "outline: the spar hole's centre on the `mean-line` (the usual choice for cambered ribs) or the chord-line")
+	minLigament := fs.Float64("min-ligament-mm", geometry.DefaultMinLigamentMM, "outline: least material in `mm` a spar hole must leave to the rib's edge (the skin offset); a hole that leaves less is refused")
+	material := fs.Float64("material-mm", 0, "outline: sheet thickness in `mm` for the title block (0: not given)")
 	view := fs.String("view", "pressure", "figure: the `view` to draw")
 	width := fs.Float64("width-in", 8, "figure width in `inches`")
 	height := fs.Float64("height-in", 5, "figure height in `inches`")
@@ -103,14 +107,25 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 		if err != nil {
 			return err
 		}
-		opt := geometry.OutlineOptions{Placed: *placed, SkinMM: *skin, ChordLine: *chordLine}
+		if *sparOn != "mean-line" && *sparOn != "chord-line" {
+			return usagef("--spar-on %q: want mean-line or chord-line", *sparOn)
+		}
+		if !(*minLigament >= 0 && *minLigament < 1000) {
+			return usagef("--min-ligament-mm %g: want a length in mm, 0 or more", *minLigament)
+		}
+		if !(*material >= 0 && *material < 1000) {
+			return usagef("--material-mm %g: want a thickness in mm, 0 or more", *material)
+		}
+		opt := geometry.OutlineOptions{Placed: *placed, SkinMM: *skin, ChordLine: *chordLine, MinLigamentMM: *minLigament,
+			Title: geometry.TitleBlock{Team: st.Team, MaterialMM: *material, Version: version, Date: time.Now().UTC().Format("2006-01-02"),
+				AlphaDeg: st.Flow.AlphaDeg, Solved: true}}
 		if *spar != "" {
 			v, err := parseFloatList("--spar", *spar, 0, 1e4)
 			if err != nil || len(v) != 2 || v[0] > 1 {
 				return usagef("--spar %q: want XC,DIAMETER_MM with XC in [0, 1]", *spar)
 			}
 			for i := range st.Elements {
-				opt.Marks = append(opt.Marks, geometry.Mark{Element: i, Label: "spar", XC: v[0], DiameterMM: v[1]})
+				opt.Marks = append(opt.Marks, geometry.Mark{Element: i, Label: "spar", XC: v[0], DiameterMM: v[1], OnMeanLine: *sparOn == "mean-line"})
 			}
 		}
 		o, err := geometry.NewOutline(st.Name, l, opt)

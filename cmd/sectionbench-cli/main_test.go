@@ -250,7 +250,7 @@ func TestExportAndReport(t *testing.T) {
 		{"coords csv", []string{"--what", "csv"}, "c.csv", "x,y"},
 		{"cp table", []string{"--what", "csv", "--table", "cp"}, "cp.csv", "element,"},
 		{"sweep table", []string{"--what", "csv", "--table", "sweep"}, "s.csv", "alpha_deg,cl"},
-		{"dxf", []string{"--what", "outline-dxf", "--chord-mm", "250", "--skin-mm", "1.5", "--spar", "0.3,8"}, "o.dxf", "999\nSectionbench outline"},
+		{"dxf", []string{"--what", "outline-dxf", "--chord-mm", "250", "--skin-mm", "1.5", "--spar", "0.3,8"}, "o.dxf", "999\nSectionbench drawing"},
 		{"svg", []string{"--what", "outline-svg", "--chord-mm", "250"}, "o.svg", "<?xml"},
 		{"figure", []string{"--what", "figure", "--view", "polar"}, "f.png", "\x89PNG"},
 	} {

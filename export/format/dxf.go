@@ -4,39 +4,22 @@ import (
 	"bufio"
 	"fmt"
 	"io"
-	"math"
 	"sectionbench/export/geometry"
 	"strconv"
-	"strings"
 
 	"sectionbench/model"
 )
 
-// DXF layers of an outline, one per kind of line so that a cutter or a CAD
-// user can switch them separately.
-const (
-	LayerOutline = "OUTLINE"    // element contours
-	LayerRib     = "RIB-INNER"  // inward offsets by the skin thickness
-	LayerChord   = "CHORD-LINE" // chord lines
-	LayerMarks   = "MARKS"      // reference marks (spar holes)
-	LayerLabels  = "LABELS"     // element names
-)
-
-// dxfLayers lists the layers with their ACI colour numbers (AutoCAD DXF
-// Reference: 7 white/black, 1 red, 8 grey, 5 blue, 3 green).
-var dxfLayers = []struct {
-	name   string
-	colour int
-}{
-	{LayerOutline, 7}, {LayerRib, 1}, {LayerChord, 8}, {LayerMarks, 5}, {LayerLabels, 3},
+// dxfColours gives each layer its ACI colour number (AutoCAD DXF
+// Reference: 1 red, 5 blue, 7 white/black, 8 grey); red cut and blue mark
+// follow the habit of laser-cutting shops (common practice).
+var dxfColours = map[string]int{
+	geometry.LayerCut: 1, geometry.LayerMark: 5, geometry.LayerEngrave: 7, geometry.LayerReference: 8, geometry.LayerTitle: 7,
 }
 
 // dxfDecimals is the number of decimals of coordinates in millimetres
 // written to DXF: a tenth of a micrometre.
 const dxfDecimals = 4
-
-// labelHeightMM is the height of element labels.
-const labelHeightMM = 3
 
 // dxfWriter writes group-code pairs, keeping the first error.
 type dxfWriter struct {
@@ -63,13 +46,17 @@ func (d *dxfWriter) point(code int, p model.Point) {
 	d.num(code+20, 0)
 }
 
-// polyline writes a closed R12 POLYLINE with its VERTEX entities and SEQEND.
-func (d *dxfWriter) polyline(layer string, pts []model.Point) {
+// polyline writes an R12 POLYLINE with its VERTEX entities and SEQEND.
+func (d *dxfWriter) polyline(layer string, pts []model.Point, closed bool) {
 	d.pair(0, "POLYLINE")
 	d.pair(8, layer)
 	d.int(66, 1) // vertices follow
 	d.point(10, model.Point{})
-	d.int(70, 1) // closed
+	flags := 0
+	if closed {
+		flags = 1
+	}
+	d.int(70, flags)
 	for _, p := range pts {
 		d.pair(0, "VERTEX")
 		d.pair(8, layer)
@@ -79,37 +66,19 @@ func (d *dxfWriter) polyline(layer string, pts []model.Point) {
 	d.pair(8, layer)
 }
 
-// dxfText cleans a string for a DXF value: one line, ASCII only (R12 has
-// no Unicode), so that any reader takes it.
-func dxfText(s string) string {
-	var b strings.Builder
-	for _, r := range s {
-		switch {
-		case r == '\n' || r == '\r' || r == '\t':
-			b.WriteByte(' ')
-		case r < 0x80:
-			b.WriteRune(r)
-		default:
-			b.WriteByte('?')
-		}
-	}
-	return b.String()
-}
-
-// WriteDXF writes the outline as an ASCII DXF drawing compatible with
-// Release 12 (AutoCAD DXF Reference, R12 group codes): a HEADER with
-// $ACADVER AC1009, $INSUNITS 4 (millimetres) and $MEASUREMENT 1 (metric),
-// a TABLES section with the line type and layers, and ENTITIES: one closed
-// POLYLINE per element contour (layer OUTLINE), one per inward offset
-// (RIB-INNER), a LINE per chord line (CHORD-LINE), a CIRCLE per mark
-// (MARKS) and a TEXT with each element's name (LABELS).
+// WriteDXF writes the outline's drawing (Outline.Drawing) as an ASCII DXF
+// compatible with Release 12 (AutoCAD DXF Reference, R12 group codes): a
+// HEADER with $ACADVER AC1009, $INSUNITS 4 (millimetres) and $MEASUREMENT 1
+// (metric), a TABLES section with the line type and the layers of
+// geometry.Layers, and ENTITIES: a POLYLINE (two points: a LINE) per path,
+// a CIRCLE per circle and a TEXT per text, each on its layer.
 func WriteDXF(w io.Writer, o *geometry.Outline) error {
 	if o == nil {
 		panic("format: nil outline")
 	}
+	dr := o.Drawing()
 	d := &dxfWriter{w: bufio.NewWriter(w)}
-	lo, hi := o.Bounds()
-	d.pair(999, dxfText("Sectionbench outline: "+o.Name+"; millimetres"))
+	d.pair(999, "Sectionbench drawing, millimetres, 1:1")
 	d.pair(0, "SECTION")
 	d.pair(2, "HEADER")
 	d.pair(9, "$ACADVER")
@@ -119,9 +88,9 @@ func WriteDXF(w io.Writer, o *geometry.Outline) error {
 	d.pair(9, "$MEASUREMENT")
 	d.int(70, 1)
 	d.pair(9, "$EXTMIN")
-	d.point(10, lo)
+	d.point(10, model.Point{})
 	d.pair(9, "$EXTMAX")
-	d.point(10, hi)
+	d.point(10, model.Point{X: dr.Width, Y: dr.Height})
 	d.pair(0, "ENDSEC")
 
 	d.pair(0, "SECTION")
@@ -139,12 +108,12 @@ func WriteDXF(w io.Writer, o *geometry.Outline) error {
 	d.pair(0, "ENDTAB")
 	d.pair(0, "TABLE")
 	d.pair(2, "LAYER")
-	d.int(70, len(dxfLayers))
-	for _, l := range dxfLayers {
+	d.int(70, len(dr.Layers))
+	for _, l := range dr.Layers {
 		d.pair(0, "LAYER")
-		d.pair(2, l.name)
+		d.pair(2, l.Name)
 		d.int(70, 0)
-		d.int(62, l.colour)
+		d.int(62, dxfColours[l.Name])
 		d.pair(6, "CONTINUOUS")
 	}
 	d.pair(0, "ENDTAB")
@@ -152,33 +121,30 @@ func WriteDXF(w io.Writer, o *geometry.Outline) error {
 
 	d.pair(0, "SECTION")
 	d.pair(2, "ENTITIES")
-	for _, e := range o.Elements {
-		d.polyline(LayerOutline, e.Contour)
-		if e.Inner != nil {
-			d.polyline(LayerRib, e.Inner.Points)
+	for _, l := range dr.Layers {
+		for _, p := range l.Paths {
+			if len(p.Points) == 2 && !p.Closed {
+				d.pair(0, "LINE")
+				d.pair(8, l.Name)
+				d.point(10, p.Points[0])
+				d.point(11, p.Points[1])
+				continue
+			}
+			d.polyline(l.Name, p.Points, p.Closed)
 		}
-		if o.ChordLines {
-			d.pair(0, "LINE")
-			d.pair(8, LayerChord)
-			d.point(10, e.LE)
-			d.point(11, e.TE)
-		}
-		for _, m := range e.Marks {
+		for _, c := range l.Circles {
 			d.pair(0, "CIRCLE")
-			d.pair(8, LayerMarks)
-			d.point(10, m.Centre)
-			d.num(40, m.DiameterMM/2)
+			d.pair(8, l.Name)
+			d.point(10, c.Centre)
+			d.num(40, c.Radius)
 		}
-		// The label sits above the leading edge, clear of the contour.
-		ymax := math.Inf(-1)
-		for _, p := range e.Contour {
-			ymax = math.Max(ymax, p.Y)
+		for _, t := range l.Texts {
+			d.pair(0, "TEXT")
+			d.pair(8, l.Name)
+			d.point(10, t.At)
+			d.num(40, t.Height)
+			d.pair(1, t.Text)
 		}
-		d.pair(0, "TEXT")
-		d.pair(8, LayerLabels)
-		d.point(10, model.Point{X: e.LE.X, Y: ymax + labelHeightMM})
-		d.num(40, labelHeightMM)
-		d.pair(1, dxfText(e.Name))
 	}
 	d.pair(0, "ENDSEC")
 	d.pair(0, "EOF")

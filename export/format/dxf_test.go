@@ -10,6 +10,7 @@ import (
 	"path/filepath"
 	"sectionbench/export/exporttest"
 	"sectionbench/export/geometry"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -210,8 +211,9 @@ func TestReadHandWrittenDXF(t *testing.T) {
 }
 
 // TestDXFRoundTrip writes the outline of the synthetic two-element wing
-// and reads it back: every contour, offset, chord line and mark within
-// 0.01 mm, in millimetres, on its layer.
+// and reads it back: every path, circle and text of the drawing on its
+// layer within 0.01 mm, in millimetres, all in the positive quadrant, and
+// the cut rib is the skin offset.
 func TestDXFRoundTrip(t *testing.T) {
 	l := exporttest.TwoElementLayout(120)
 	for _, placed := range []bool{true, false} {
@@ -233,36 +235,48 @@ func TestDXFRoundTrip(t *testing.T) {
 		if f.header["$INSUNITS"] != "4" {
 			t.Errorf("$INSUNITS = %q, want 4 (millimetres)", f.header["$INSUNITS"])
 		}
-		for _, name := range []string{LayerOutline, LayerRib, LayerChord, LayerMarks, LayerLabels} {
-			found := false
-			for _, l := range f.layers {
-				found = found || l == name
-			}
-			if !found {
-				t.Errorf("layer %s missing from the LAYER table %v", name, f.layers)
-			}
+		if !slices.Equal(f.layers, geometry.Layers) {
+			t.Errorf("layers %v, want %v", f.layers, geometry.Layers)
 		}
 		byLayer := map[string][]dxfEntity{}
 		for _, e := range f.entities {
 			byLayer[e.layer] = append(byLayer[e.layer], e)
+			for _, p := range e.points {
+				if p.X < 0 || p.Y < 0 {
+					t.Errorf("placed=%v: %s on %s at %v, outside the positive quadrant", placed, e.kind, e.layer, p)
+				}
+			}
 		}
-		if len(byLayer[LayerOutline]) != len(o.Elements) || len(byLayer[LayerRib]) != len(o.Elements) || len(byLayer[LayerChord]) != len(o.Elements) {
-			t.Fatalf("placed=%v: entities per layer %v", placed, len(byLayer))
+		dr := o.Drawing()
+		for _, dl := range dr.Layers {
+			got := byLayer[dl.Name]
+			if len(got) != len(dl.Paths)+len(dl.Circles)+len(dl.Texts) {
+				t.Fatalf("placed=%v layer %s: %d entities, want %d", placed, dl.Name, len(got), len(dl.Paths)+len(dl.Circles)+len(dl.Texts))
+			}
+			for i, p := range dl.Paths {
+				samePoints(t, fmt.Sprintf("placed=%v %s path %d", placed, dl.Name, i), got[i], p)
+			}
+			for i, c := range dl.Circles {
+				e := got[len(dl.Paths)+i]
+				if e.kind != "CIRCLE" || math.Abs(e.radius-c.Radius) > 0.01 || e.points[0].Dist(c.Centre) > 0.01 {
+					t.Errorf("placed=%v %s circle %d: %+v, want %+v", placed, dl.Name, i, e, c)
+				}
+			}
+			for i, tx := range dl.Texts {
+				if e := got[len(dl.Paths)+len(dl.Circles)+i]; e.kind != "TEXT" || e.text != tx.Text {
+					t.Errorf("placed=%v %s text %d: %q, want %q", placed, dl.Name, i, e.text, tx.Text)
+				}
+			}
+		}
+		// The cut layer holds the ribs (offsets) and the 8 mm hole.
+		cut := dr.Layer(geometry.LayerCut)
+		if len(cut.Paths) != len(o.Elements) || len(cut.Circles) != 1 || math.Abs(cut.Circles[0].Radius-4) > 1e-9 {
+			t.Errorf("placed=%v: cut layer %d paths, %d circles", placed, len(cut.Paths), len(cut.Circles))
 		}
 		for i, e := range o.Elements {
-			samePoints(t, fmt.Sprintf("placed=%v element %d contour", placed, i), byLayer[LayerOutline][i], e.Contour)
-			samePoints(t, fmt.Sprintf("placed=%v element %d rib", placed, i), byLayer[LayerRib][i], e.Inner.Points)
-			cl := byLayer[LayerChord][i].points
-			if cl[0].Dist(e.LE) > 0.01 || cl[1].Dist(e.TE) > 0.01 {
-				t.Errorf("chord line %v, want %v–%v", cl, e.LE, e.TE)
+			if len(cut.Paths[i].Points) != len(e.Inner.Points) {
+				t.Errorf("placed=%v: element %d's cut path is not its rib", placed, i)
 			}
-			if byLayer[LayerLabels][i].text != e.Name {
-				t.Errorf("label %q, want %q", byLayer[LayerLabels][i].text, e.Name)
-			}
-		}
-		m := byLayer[LayerMarks]
-		if len(m) != 1 || math.Abs(m[0].radius-4) > 0.01 || m[0].points[0].Dist(o.Elements[0].Marks[0].Centre) > 0.01 {
-			t.Errorf("marks %+v", m)
 		}
 		// Real size: the main plane's chord line is 250 mm long.
 		if c := o.Elements[0].TE.Dist(o.Elements[0].LE); math.Abs(c-250) > 0.01 {
@@ -271,14 +285,22 @@ func TestDXFRoundTrip(t *testing.T) {
 	}
 }
 
-func samePoints(t *testing.T, what string, e dxfEntity, want []model.Point) {
+// samePoints compares a DXF entity with a drawing path: a LINE for two
+// open points, a POLYLINE otherwise.
+func samePoints(t *testing.T, what string, e dxfEntity, want geometry.Path) {
 	t.Helper()
-	if !e.closed || len(e.points) != len(want) {
-		t.Errorf("%s: closed %v, %d points, want %d", what, e.closed, len(e.points), len(want))
+	if len(want.Points) == 2 && !want.Closed {
+		if e.kind != "LINE" || e.points[0].Dist(want.Points[0]) > 0.01 || e.points[1].Dist(want.Points[1]) > 0.01 {
+			t.Errorf("%s: %+v, want the line %v", what, e, want.Points)
+		}
 		return
 	}
-	for i := range want {
-		if d := e.points[i].Dist(want[i]); d > 0.01 {
+	if e.closed != want.Closed || len(e.points) != len(want.Points) {
+		t.Errorf("%s: closed %v, %d points, want %v, %d", what, e.closed, len(e.points), want.Closed, len(want.Points))
+		return
+	}
+	for i := range want.Points {
+		if d := e.points[i].Dist(want.Points[i]); d > 0.01 {
 			t.Errorf("%s: point %d off by %.4f mm", what, i, d)
 			return
 		}

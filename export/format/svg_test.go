@@ -10,14 +10,17 @@ import (
 	"path/filepath"
 	"sectionbench/export/exporttest"
 	"sectionbench/export/geometry"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
 )
 
 // TestSVGTrueScale: the SVG is well-formed XML whose width and height in
-// millimetres equal its viewBox size, so one user unit prints as 1 mm,
-// with one closed path per element and a scale bar.
+// millimetres equal its viewBox size from (0, 0), so one user unit prints
+// as 1 mm; it holds one group per layer of geometry.Layers, named as in the
+// DXF, with the drawing's paths, circles and texts, and the cut layer is
+// stroked as a hairline.
 func TestSVGTrueScale(t *testing.T) {
 	o, err := geometry.NewOutline("demo <wing> & flap", exporttest.TwoElementLayout(120), geometry.OutlineOptions{Placed: true, SkinMM: 1, ChordLine: true,
 		Marks: []geometry.Mark{{Element: 0, Label: "spar", XC: 0.3, DiameterMM: 8}}})
@@ -28,9 +31,12 @@ func TestSVGTrueScale(t *testing.T) {
 	if err := WriteSVG(&b, o); err != nil {
 		t.Fatal(err)
 	}
-	d := xml.NewDecoder(bytes.NewReader(b.Bytes()))
+	type count struct{ paths, circles int }
+	got := map[string]*count{}
+	var texts []string
 	var root xml.StartElement
-	paths, scaleBar := 0, false
+	var group string
+	d := xml.NewDecoder(bytes.NewReader(b.Bytes()))
 	for {
 		tok, err := d.Token()
 		if err == io.EOF {
@@ -39,37 +45,49 @@ func TestSVGTrueScale(t *testing.T) {
 		if err != nil {
 			t.Fatalf("not well-formed XML: %v", err)
 		}
-		se, ok := tok.(xml.StartElement)
-		if !ok {
-			continue
-		}
-		if root.Name.Local == "" {
-			root = se
-		}
-		for _, a := range se.Attr {
-			if a.Name.Local == "id" && strings.HasPrefix(a.Value, "element-") {
-				paths++
-				for _, a2 := range se.Attr {
-					if a2.Name.Local == "d" && !strings.HasSuffix(a2.Value, "Z") {
-						t.Errorf("path %s is not closed", a.Value)
-					}
-				}
+		switch tk := tok.(type) {
+		case xml.StartElement:
+			attr := map[string]string{}
+			for _, a := range tk.Attr {
+				attr[a.Name.Local] = a.Value
 			}
-			if a.Name.Local == "id" && a.Value == "scale-bar" {
-				scaleBar = true
+			switch tk.Name.Local {
+			case "svg":
+				root = tk
+			case "g":
+				group = attr["id"]
+				got[group] = &count{}
+				if group == geometry.LayerCut && attr["stroke-width"] != svgNum(svgHairlineMM) {
+					t.Errorf("cut stroke %s mm, want a hairline", attr["stroke-width"])
+				}
+			case "path":
+				got[group].paths++
+			case "circle":
+				got[group].circles++
+			}
+		case xml.CharData:
+			if group != "" && strings.TrimSpace(string(tk)) != "" {
+				texts = append(texts, string(tk))
 			}
 		}
 	}
-	if root.Name.Local != "svg" {
-		t.Fatalf("root element %q", root.Name.Local)
+	dr := o.Drawing()
+	var want []string
+	for _, l := range dr.Layers {
+		c := got[l.Name]
+		if c == nil || c.paths != len(l.Paths) || c.circles != len(l.Circles) {
+			t.Errorf("layer %s: %+v, want %d paths, %d circles", l.Name, c, len(l.Paths), len(l.Circles))
+		}
+		for _, tx := range l.Texts {
+			want = append(want, tx.Text)
+		}
+	}
+	if !slices.Equal(texts, want) {
+		t.Errorf("texts %q, want the DXF's %q", texts, want)
 	}
 	attr := map[string]string{}
 	for _, a := range root.Attr {
 		attr[a.Name.Local] = a.Value
-	}
-	vb := strings.Fields(attr["viewBox"])
-	if len(vb) != 4 {
-		t.Fatalf("viewBox %q", attr["viewBox"])
 	}
 	mm := func(s string) float64 {
 		if !strings.HasSuffix(s, "mm") {
@@ -78,27 +96,11 @@ func TestSVGTrueScale(t *testing.T) {
 		v, _ := strconv.ParseFloat(strings.TrimSuffix(s, "mm"), 64)
 		return v
 	}
-	vw, _ := strconv.ParseFloat(vb[2], 64)
-	vh, _ := strconv.ParseFloat(vb[3], 64)
-	if mm(attr["width"]) != vw || mm(attr["height"]) != vh {
-		t.Errorf("size %s × %s against viewBox %s", attr["width"], attr["height"], attr["viewBox"])
+	if vb := "0 0 " + strings.TrimSuffix(attr["width"], "mm") + " " + strings.TrimSuffix(attr["height"], "mm"); attr["viewBox"] != vb {
+		t.Errorf("viewBox %q, want %q", attr["viewBox"], vb)
 	}
-	// The drawing spans the two elements: 0 mm to the flap's trailing
-	// edge, plus the margins.
-	lo, hi := o.Bounds()
-	if math.Abs(vw-(hi.X-lo.X+2*svgMarginMM)) > 1e-3 {
-		t.Errorf("viewBox width %g, want %g", vw, hi.X-lo.X+2*svgMarginMM)
-	}
-	if paths != len(o.Elements) || !scaleBar {
-		t.Errorf("%d element paths, scale bar %v", paths, scaleBar)
-	}
-}
-
-func TestScaleBarLength(t *testing.T) {
-	for _, c := range []struct{ width, want float64 }{{350, 50}, {100, 20}, {40, 10}, {1000, 200}} {
-		if got := scaleBarLength(c.width); got != c.want {
-			t.Errorf("scaleBarLength(%g) = %g, want %g", c.width, got, c.want)
-		}
+	if math.Abs(mm(attr["width"])-dr.Width) > 1e-3 || math.Abs(mm(attr["height"])-dr.Height) > 1e-3 {
+		t.Errorf("size %s × %s, want %g × %g mm", attr["width"], attr["height"], dr.Width, dr.Height)
 	}
 }
 

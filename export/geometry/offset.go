@@ -42,7 +42,8 @@ func (e *OffsetError) Unwrap() error { return e.Err }
 
 // Offset is an inward offset of a closed outline.
 type Offset struct {
-	Points []model.Point // closed loop, counter-clockwise, same unit as the input
+	Points   []model.Point // closed loop, counter-clockwise, same unit as the input
+	Distance float64       // the offset, same unit
 	// TrimmedXC is the x/c at which the offset ends short of a sharp
 	// trailing edge (where the section is thinner than twice the offset);
 	// NaN when nothing was trimmed.
@@ -278,7 +279,7 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 			return nil, fail(a, surface(i), fmt.Errorf("%w (a radius of curvature there is below the offset)", ErrOffsetFolds))
 		}
 	}
-	return &Offset{Points: loop, TrimmedXC: trimmed, LoopCutXC: roundedXC}, nil
+	return &Offset{Points: loop, Distance: d, TrimmedXC: trimmed, LoopCutXC: roundedXC}, nil
 }
 
 // cutBase joins the upper offset up (from the trailing edge, in[0], to the

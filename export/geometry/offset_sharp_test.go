@@ -188,7 +188,7 @@ func checkInside(t *testing.T, name string, o *Offset, pts []model.Point, d, tol
 			t.Errorf("%s: offset point %d %v lies outside the outline", name, i, p)
 			return
 		}
-		if dist := distToPolygon(p, pts); dist < d-tol {
+		if dist := distToEdges(p, pts); dist < d-tol {
 			t.Errorf("%s: offset point %d is %.6f mm from the outline, less than the %g mm skin", name, i, dist, d)
 			return
 		}
@@ -199,19 +199,6 @@ func checkInside(t *testing.T, name string, o *Offset, pts []model.Point, d, tol
 	if i, j, x, ok := firstCrossing(o.Points); ok {
 		t.Errorf("%s: offset edges %d and %d cross at %v", name, i, j, x)
 	}
-}
-
-// insidePolygon is the even–odd rule (a ray towards +x crosses the edges
-// an odd number of times from inside).
-func insidePolygon(p model.Point, pts []model.Point) bool {
-	in := false
-	for i := range pts {
-		a, b := pts[i], pts[(i+1)%len(pts)]
-		if (a.Y > p.Y) != (b.Y > p.Y) && p.X < a.X+(p.Y-a.Y)*(b.X-a.X)/(b.Y-a.Y) {
-			in = !in
-		}
-	}
-	return in
 }
 
 // TestOffsetOpenTrailingEdge: a NACA 0012 at 250 mm (Abbott & von

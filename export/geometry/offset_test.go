@@ -103,7 +103,7 @@ func TestOffsetSectionTrailingEdge(t *testing.T) {
 		t.Errorf("offset ends at x/c %.4f, want just ahead of %.4f where the section is %g mm thick", o.TrimmedXC, lo, 2*d)
 	}
 	for i, p := range o.Points {
-		if dist := distToPolygon(p, pts); dist < d-1e-6 {
+		if dist := distToEdges(p, pts); dist < d-1e-6 {
 			t.Fatalf("offset point %d is %.4f mm from the contour, less than the skin", i, dist)
 		}
 	}
@@ -199,17 +199,4 @@ func noseSection() []model.Point {
 		pts = append(pts, model.Point{X: x, Y: -flank(x)})
 	}
 	return pts
-}
-
-// distToPolygon is the distance from p to the nearest edge of the closed
-// polygon pts.
-func distToPolygon(p model.Point, pts []model.Point) float64 {
-	best := math.Inf(1)
-	for i := range pts {
-		a, b := pts[i], pts[(i+1)%len(pts)]
-		ab := b.Sub(a)
-		t := math.Max(0, math.Min(1, p.Sub(a).Dot(ab)/ab.Dot(ab)))
-		best = math.Min(best, p.Dist(a.Add(ab.Scale(t))))
-	}
-	return best
 }

@@ -15,6 +15,15 @@ type Outline struct {
 	Name       string
 	Elements   []OutlineElement
 	ChordLines bool // draw each element's chord line
+	Inverted   bool // the wing is mounted upside down
+	Placed     bool // the assembly as mounted, not rib templates
+	// Ground is the ground datum's height (mm) in the assembly; HasGround
+	// is false when the study is out of ground effect or not placed.
+	Ground    float64
+	HasGround bool
+	Pivot     model.Point // the point the configuration pitches about, mm (assembly)
+	Pitched   bool        // the assembly is drawn pitched to the angle of attack solved
+	Title     TitleBlock
 }
 
 // OutlineElement is one element of an Outline, in millimetres.
@@ -33,14 +42,18 @@ type MarkShape struct {
 	DiameterMM float64
 }
 
-// Mark asks for a reference mark on an element, positioned in its chord
-// frame: XC along the chord from the leading edge, YC normal to it (towards
-// the upper surface), both as fractions of the chord.
+// Mark asks for a hole (a spar or a locating pin) on an element,
+// positioned in its chord frame: XC along the chord from the leading edge
+// and YC normal to it (towards the upper surface), both as fractions of
+// the chord, from the chord line or, with OnMeanLine, from the mean line
+// (the midpoint of the section's thickness measured normal to the chord
+// at XC), the usual place for a spar in a cambered rib.
 type Mark struct {
 	Element    int
 	Label      string
 	XC, YC     float64
 	DiameterMM float64
+	OnMeanLine bool
 }
 
 // OutlineOptions say what to draw.
@@ -57,8 +70,26 @@ type OutlineOptions struct {
 	SkinMM float64
 	// ChordLine draws each element's chord line.
 	ChordLine bool
-	// Marks places reference marks.
+	// Marks places holes (spars, locating pins).
 	Marks []Mark
+	// MinLigamentMM is the least material a hole must leave to the rib's
+	// edge: the inward offset when SkinMM is positive, else the contour.
+	// A hole that leaves less (or breaks out) is refused with a
+	// *HoleError. Zero asks only that the hole stays inside.
+	MinLigamentMM float64
+	// Title fills the drawing's title block.
+	Title TitleBlock
+}
+
+// TitleBlock is what a drawing's title block says besides the outline's
+// name: who, what material, which program, when. Empty fields are left out.
+type TitleBlock struct {
+	Team       string
+	MaterialMM float64 // sheet thickness; 0 when not given
+	Version    string  // program version
+	Date       string  // as the caller wants it printed, e.g. 2026-12-04
+	AlphaDeg   float64 // the angle of attack solved, for the assembly
+	Solved     bool    // AlphaDeg is set
 }
 
 // ErrNoElements reports a layout without elements to outline.
@@ -66,6 +97,11 @@ var ErrNoElements = errors.New("nothing to outline")
 
 // mmPerM converts the Layout's metres to the outline's millimetres.
 const mmPerM = 1000
+
+// DefaultMinLigamentMM is the minimum ligament the CLI and the app ask of
+// a spar hole unless told otherwise: a choice of this program, not a rule;
+// the material and the competition's rules decide.
+const DefaultMinLigamentMM = 2
 
 // DefaultOutlineGapMM is the space between unplaced elements.
 const DefaultOutlineGapMM = 20
@@ -88,6 +124,9 @@ func NewOutline(name string, l *model.Layout, opt OutlineOptions) (*Outline, err
 	if gap == 0 {
 		gap = DefaultOutlineGapMM
 	}
+	if opt.MinLigamentMM < 0 || math.IsNaN(opt.MinLigamentMM) || math.IsInf(opt.MinLigamentMM, 0) {
+		return nil, &model.FieldError{Field: "outline.min_ligament_mm", Err: fmt.Errorf("%g is not a length", opt.MinLigamentMM)}
+	}
 	if gap < 0 || math.IsNaN(gap) {
 		return nil, &model.FieldError{Field: "outline.gap_mm", Err: fmt.Errorf("%g is negative", opt.GapMM)}
 	}
@@ -99,9 +138,18 @@ func NewOutline(name string, l *model.Layout, opt OutlineOptions) (*Outline, err
 			return nil, &model.FieldError{Field: fmt.Sprintf("outline.marks[%d].diameter_mm", k), Err: fmt.Errorf("%g is not a diameter", m.DiameterMM)}
 		}
 	}
-	o := &Outline{Name: name, ChordLines: opt.ChordLine}
+	o := &Outline{Name: name, ChordLines: opt.ChordLine, Inverted: l.Inverted, Placed: opt.Placed, Title: opt.Title}
 	var top float64 // unplaced: the next element goes below this y
-	for i, e := range l.Elements {
+	// The assembly in ground effect is drawn at the attitude solved: the
+	// configuration pitched about PitchRef, the ground ClearanceM below
+	// its lowest point (model.Layout.At).
+	elems, groundY := l.Elements, 0.0
+	attitude := opt.Placed && l.Ground && opt.Title.Solved
+	if attitude {
+		elems, groundY, _ = l.At(opt.Title.AlphaDeg)
+		o.Pitched = true
+	}
+	for i, e := range elems {
 		le, te := e.LeadingEdge.Scale(mmPerM), e.TrailingEdge.Scale(mmPerM)
 		pts := make([]model.Point, len(e.Nodes))
 		for k, p := range e.Nodes {
@@ -167,13 +215,35 @@ func NewOutline(name string, l *model.Layout, opt OutlineOptions) (*Outline, err
 		if inverted := l.Inverted && opt.Placed; inverted {
 			up = up.Scale(-1) // the section's upper surface faces down
 		}
-		for _, m := range opt.Marks {
-			if m.Element == i {
-				c := le.Add(chord.Scale(m.XC)).Add(up.Scale(m.YC))
-				oe.Marks = append(oe.Marks, MarkShape{Label: m.Label, Centre: c, DiameterMM: m.DiameterMM})
+		for k, m := range opt.Marks {
+			if m.Element != i {
+				continue
 			}
+			c := le.Add(chord.Scale(m.XC))
+			if m.OnMeanLine {
+				mid, ok := meanLinePoint(pts, c, up)
+				if !ok {
+					return nil, &model.FieldError{Field: fmt.Sprintf("outline.marks[%d].xc", k), Err: fmt.Errorf("%g is not on the section of %s", m.XC, e.Name)}
+				}
+				c = mid
+			}
+			c = c.Add(up.Scale(m.YC))
+			shape := MarkShape{Label: m.Label, Centre: c, DiameterMM: m.DiameterMM}
+			if err := checkHole(e.Name, m, shape, oe, opt); err != nil {
+				return nil, err
+			}
+			oe.Marks = append(oe.Marks, shape)
 		}
 		o.Elements = append(o.Elements, oe)
+	}
+	if opt.Placed {
+		o.Pivot = l.PitchRef.Scale(mmPerM)
+		if attitude {
+			o.Ground, o.HasGround = groundY*mmPerM, true
+		} else if l.Ground {
+			lo, _ := o.Bounds()
+			o.Ground, o.HasGround = lo.Y-l.ClearanceM*mmPerM, true
+		}
 	}
 	return o, nil
 }
