@@ -11,7 +11,6 @@ import (
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
 	"gonum.org/v1/gonum/lapack"
-	"gonum.org/v1/gonum/lapack/gonum"
 	"gonum.org/v1/gonum/lapack/lapack64"
 	"gonum.org/v1/gonum/mat"
 
@@ -326,10 +325,9 @@ func newSystem(cfg Config, opt buildOptions) (*System, error) {
 		s.prepare()
 	}
 	<-done
-	// Nothing after this needs the factors: their storage goes back to
-	// the pool for the next system.
-	putMatrix(s.lu.Data)
-	s.lu = blas64.General{}
+	// The factors are kept: the coupled viscous solution solves the same
+	// matrix for the right-hand sides of its surface and wake sources
+	// (SolveColumns).
 	if cerr := s.checkCond(); cerr != nil {
 		return nil, cerr
 	}
@@ -731,26 +729,29 @@ func (s *System) factorize(a *mat.Dense, anorm float64) error {
 	return s.checkCond()
 }
 
-// factorLU LU-factorises a in place with partial pivoting, row-major on
-// the assembled storage: up to unblockedLUMax unknowns by gonum's unblocked
-// Dgetf2 (rank-1 updates), beyond by the blocked lapack64.Getrf. Both give
-// the same factors P A = L U up to rounding. An exactly zero pivot returns
-// a *SingularError.
+// factorLU LU-factorises a in place with partial pivoting, P A = L U, on
+// the assembled storage (lapack64.Getrf, gonum's blocked LAPACK routine).
+// An exactly zero pivot returns a *SingularError.
 func (s *System) factorLU(a *mat.Dense) error {
 	raw := a.RawMatrix()
 	s.lu = blas64.General{Rows: raw.Rows, Cols: raw.Cols, Stride: raw.Stride, Data: raw.Data}
 	s.ipiv = make([]int, raw.Rows)
-	var ok bool
-	if raw.Rows <= unblockedLUMax {
-		ok = gonum.Implementation{}.Dgetf2(raw.Rows, raw.Cols, raw.Data, raw.Stride, s.ipiv)
-	} else {
-		ok = lapack64.Getrf(s.lu, s.ipiv)
-	}
-	if !ok {
+	if !lapack64.Getrf(s.lu, s.ipiv) {
 		s.cond = math.Inf(1)
 		return &SingularError{Cond: s.cond}
 	}
 	return nil
+}
+
+// solveColumns overwrites each column of b (Unknowns() rows, row-major)
+// with the solution x of A x = b, A being the influence matrix, with the
+// kept LU factors (lapack64.Getrs). It is safe for concurrent use on
+// different b.
+func (s *System) solveColumns(b blas64.General) {
+	if b.Rows != s.geo.n {
+		panic(fmt.Sprintf("solver: solveColumns: %d rows for %d unknowns", b.Rows, s.geo.n))
+	}
+	lapack64.Getrs(blas.NoTrans, s.lu, b, s.ipiv)
 }
 
 // estimateCond sets s.cond, the condition number in the 1-norm estimated
@@ -761,16 +762,6 @@ func (s *System) estimateCond(anorm float64) {
 	rcond := lapack64.Gecon(lapack.MaxColumnSum, s.lu, anorm, make([]float64, 4*n), make([]int, n))
 	s.cond = 1 / rcond
 }
-
-// unblockedLUMax is the largest system factorised unblocked. Measured on
-// the project's 2-core machine (minimum of repeated runs, NACA 2412):
-// Dgetf2 took 0.48, 1.6, 3.9, 15 and 31 ms at 202, 302, 402, 602 and 802
-// unknowns, where the blocked Getrf (whose parallel Dgemm contends for the
-// shared cores) took 0.69, 2.1, 5.5, 21 and 60 ms. Dgetf2 is documented by
-// gonum as an internal routine exported for testing; larger systems, whose
-// matrix (8 MB at 1024 unknowns) outgrows the caches that make the
-// unblocked form fast, keep the blocked one.
-const unblockedLUMax = 1024
 
 // checkCond refuses a numerically singular matrix and adds the warnings of
 // an ill-conditioned one and of wide open trailing edges.

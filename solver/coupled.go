@@ -1,0 +1,131 @@
+package solver
+
+import (
+	"context"
+	"math"
+
+	bl "sectionbench/solver/boundarylayer"
+)
+
+// CoupledOptions are the settings of the coupled viscous solution.
+type CoupledOptions struct {
+	// Re is each element's Reynolds number U∞ c/ν on its own chord, in
+	// element order; the solution uses Re per unit length from the first
+	// (all elements share one flow).
+	Re []float64
+	// NCrit is the critical amplification exponent of the e^N method;
+	// 0 means 9 (boundarylayer.DefaultNCrit, a quiet wind tunnel). Mack's
+	// correlation relates it to the free-stream turbulence level Tu (in
+	// percent): N = −8.43 − 2.4 ln(Tu/100) (Mack, Transition and laminar
+	// instability, JPL Publication 77-15, 1977), so N = 9 is Tu ≈ 0.07 %
+	// and N = 4 is Tu ≈ 0.5 %.
+	NCrit float64
+	// TripUpper and TripLower force transition at these x/c on every
+	// element's upper and lower surface (the node order's: upper runs
+	// from the leading edge to the first node); 0 or ≥ 1 leaves the
+	// transition free.
+	TripUpper, TripLower float64
+	// MaxIterations bounds the Newton iterations; 0 means 60.
+	MaxIterations int
+	// Tolerance is the largest relative change of θ, m and √Cτ (and
+	// 0.01 of ñ) accepted as converged; 0 means 1e-5.
+	Tolerance float64
+}
+
+// CoupledStation is the boundary layer at one station of a surface or wake.
+type CoupledStation struct {
+	Xi      float64 // arc length from the stagnation point (surfaces) or the trailing edge (wakes), on the element's chord
+	XC      float64 // chord position x/c (1 + ξ/c on a wake)
+	X, Y    float64 // position, configuration frame
+	Ue      float64 // edge velocity / U∞
+	Cp      float64 // 1 − Ue²
+	Theta   float64 // momentum thickness, on the element's chord
+	DStar   float64 // displacement thickness, on the element's chord
+	H       float64 // δ*/θ
+	Cf      float64 // skin friction on the local Ue
+	N       float64 // amplification exponent ñ (laminar stations; at transition and beyond, NCrit)
+	CTau    float64 // shear-stress coefficient Cτ (turbulent and wake stations)
+	Regime  bl.Kind
+	Reverse bool // Cf < 0: reversed flow at the wall
+}
+
+// CoupledSurface is one surface (or the wake) of an element.
+type CoupledSurface struct {
+	Stations   []CoupledStation
+	Transition float64 // x/c of transition, NaN if the layer stays laminar to the trailing edge (forced there)
+	Tripped    bool    // transition forced by a trip
+	Separation float64 // x/c where the layer separates and stays separated to the trailing edge, NaN if attached
+	Bubble     [2]float64
+	HasBubble  bool // laminar separation bubble between Bubble[0] and Bubble[1] (x/c)
+}
+
+// CoupledElement is one element's coupled result.
+type CoupledElement struct {
+	Name         string
+	Chord        float64
+	Cl, Cd, Cm   float64 // on the element's chord; Cm about its quarter chord, nose-up positive
+	ClInviscid   float64
+	Upper, Lower CoupledSurface
+	Wake         CoupledSurface
+}
+
+// CoupledSolution is the converged (or last) state of the coupled
+// viscous–inviscid solution at one angle.
+type CoupledSolution struct {
+	AlphaDeg   float64
+	Cl, Cd, Cm float64 // configuration, on RefChord; Cm about Config.MomentRef
+	ClInviscid float64
+	CmInviscid float64
+	Elements   []CoupledElement
+	Converged  bool
+	Iterations int
+	Residual   float64 // largest relative change of the last iteration
+	Inviscid   *Solution
+
+	state *coupledState // for warm starts
+}
+
+// SolveCoupled is work in progress (see DEVELOPERS.md, "The coupled
+// viscous solution"): its parts are tested, but the coupled Newton
+// iterations do not yet converge (the trailing-edge stations' sensitivity
+// to the wake sources), so nothing in the application calls it and its
+// results must not be shown to a user.
+//
+// SolveCoupled solves the coupled viscous–inviscid flow at angle alphaDeg
+// (degrees; 0 in ground mode, as Solve): integral boundary layers on every
+// surface and wake (package boundarylayer) whose displacement acts back on
+// the panel solution through sources, all solved together by Newton's
+// method (coupled_newton.go). warm, if not nil, is a neighbouring
+// solution of the same System to start from (a polar's previous angle).
+//
+// A solution that did not converge within the iteration bound is returned
+// with Converged false and its last state; errors are reserved for
+// geometry the wakes cannot be traced through and cancellation.
+func (s *System) SolveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution) (*CoupledSolution, error) {
+	s.checkAlpha(alphaDeg)
+	if len(opt.Re) != len(s.geo.elems) {
+		panic("solver: SolveCoupled: one Reynolds number per element needed")
+	}
+	for _, r := range opt.Re {
+		if !(r > 0) || math.IsInf(r, 0) {
+			panic("solver: SolveCoupled: Reynolds numbers must be positive and finite")
+		}
+	}
+	inv := s.Solve(alphaDeg)
+	cs, err := newCoupledState(inv, opt)
+	if err != nil {
+		return nil, err
+	}
+	if warm != nil && warm.state != nil && warm.state.sol.sys == s {
+		cs.warmFrom(warm.state)
+	} else {
+		cs.march()
+	}
+	conv, iters, res, err := cs.iterate(ctx)
+	if err != nil {
+		return nil, err
+	}
+	out := cs.result()
+	out.Converged, out.Iterations, out.Residual = conv, iters, res
+	return out, nil
+}

@@ -1,0 +1,327 @@
+package solver
+
+import (
+	"context"
+	"math"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
+
+	bl "sectionbench/solver/boundarylayer"
+)
+
+// The coupled system. Every station i carries three unknowns, its third
+// variable c_i (ñ or √Cτ), θ_i and the mass defect m_i = Ue_i δ*_i, and
+// three residuals R_i (boundarylayer: an interval from the preceding
+// station, the stagnation similarity, or the wake's start at a trailing
+// edge), which depend on the unknowns and edge velocities of station i
+// and its predecessors. The edge velocities are Ue = Ue0 + D m
+// (coupled_influence.go), so the boundary layers and the panel solution
+// are one nonlinear system, solved by Newton's method as Drela & Giles
+// (AIAA J. 25(10), 1987) do.
+//
+// The Jacobian is block lower-bidiagonal in (c, θ) and dense in m. Its
+// blocks come from finite differences of each station's residuals. The
+// linear system is reduced station by station in marching order: with the
+// predecessors' local unknowns already written as L_p = P_p − Q_p Δm,
+// station i's three equations become A_i L_i + W_i Δm = r_i, A_i being 3×2;
+// the combination z = a1 × a2 orthogonal to A's columns gives one equation
+// in Δm alone, and L_i = A⁺ (r_i − W_i Δm). The Δm equations form a dense
+// system of one row per station, solved by LU; back-substitution gives the
+// rest. The cost per iteration is O(n²) plus the O(n³/3) of that LU.
+
+// Limits of one Newton update (as fractions of the current values): a
+// larger step is scaled down as a whole so no θ, m or √Cτ changes by more
+// than this, and ñ by no more than maxAmpStep (common practice in
+// Newton solutions of boundary layers).
+const (
+	maxRelDecrease = 0.5
+	maxRelIncrease = 1.5
+	maxAmpStep     = 2.0
+	// Largest shape factors of the initial march in direct mode; beyond
+	// them it holds H there and lets Ue follow (inverse mode), as at
+	// separation (Drela & Giles 1987 switch at similar values; from
+	// memory).
+	maxMarchHLaminar   = 3.8
+	maxMarchHTurbulent = 2.5
+	maxMarchHWake      = 3.0
+	minH               = 1.02
+	defaultMaxIter     = 60
+	defaultTolerance   = 1e-5
+)
+
+// stationOf returns station i's state with edge velocity ue.
+func (cs *coupledState) stationOf(i int, ue float64) bl.Station {
+	return bl.Station{Xi: cs.st[i].xi, Ue: ue, Theta: cs.th[i], DStar: cs.m[i] / ue, C: cs.c[i]}
+}
+
+// local holds the variables of a station and its predecessors for one
+// residual evaluation: per participant (c, θ, m, Ue).
+type local struct {
+	idx [3]int
+	n   int
+	v   [3][4]float64
+}
+
+func (cs *coupledState) localOf(i int, ue []float64) local {
+	s := &cs.st[i]
+	var l local
+	l.idx[0] = i
+	l.n = 1 + s.nprev
+	for q := 0; q < s.nprev; q++ {
+		l.idx[1+q] = s.prev[q]
+	}
+	for q := 0; q < l.n; q++ {
+		j := l.idx[q]
+		l.v[q] = [4]float64{cs.c[j], cs.th[j], cs.m[j], ue[j]}
+	}
+	return l
+}
+
+func (cs *coupledState) stationFrom(l *local, q int) bl.Station {
+	j := l.idx[q]
+	v := l.v[q]
+	ue := math.Max(v[3], 1e-6)
+	return bl.Station{Xi: cs.st[j].xi, Ue: ue, Theta: math.Max(v[1], 1e-12), DStar: math.Max(v[2], 1e-14) / ue, C: v[0]}
+}
+
+// residual returns station i's residuals from the local variables.
+func (cs *coupledState) residual(i int, l *local) bl.Residuals {
+	s := &cs.st[i]
+	me := cs.stationFrom(l, 0)
+	switch {
+	case s.first:
+		return bl.Similarity(me, cs.re)
+	case s.wakeStart:
+		return bl.WakeStart(cs.stationFrom(l, 1), cs.stationFrom(l, 2), me, 0)
+	}
+	p := cs.stationFrom(l, 1)
+	pk := cs.st[s.prev[0]].kind
+	if pk == bl.Laminar && s.kind == bl.Turbulent {
+		trip := s.tripXi
+		if s.last {
+			trip = math.Min(trip, s.xi)
+		}
+		r, _ := bl.TransitionInterval(p, me, cs.re, cs.ncrit, trip)
+		return r
+	}
+	return bl.Interval(s.kind, p, me, cs.re)
+}
+
+// fdStep returns the finite-difference step of local variable v of kind k
+// (0 c, 1 θ, 2 m, 3 Ue).
+func fdStep(k int, v float64, laminar bool) float64 {
+	if k == 0 && laminar {
+		return 1e-6
+	}
+	return 1e-7*math.Abs(v) + 1e-12
+}
+
+// iterate runs the Newton iterations from the current state.
+func (cs *coupledState) iterate(ctx context.Context) (converged bool, iters int, res float64, err error) {
+	maxIt := cs.opt.MaxIterations
+	if maxIt <= 0 {
+		maxIt = defaultMaxIter
+	}
+	tol := cs.opt.Tolerance
+	if tol <= 0 {
+		tol = defaultTolerance
+	}
+	n := len(cs.st)
+	for it := 1; it <= maxIt; it++ {
+		if err := ctx.Err(); err != nil {
+			return false, it - 1, res, err
+		}
+		dc, dth, dm, ok := cs.newtonStep()
+		if !ok {
+			return false, it, math.Inf(1), nil
+		}
+		// Relaxation.
+		rlx := 1.0
+		limit := func(rel float64) {
+			if rel*rlx < -maxRelDecrease {
+				rlx = -maxRelDecrease / rel
+			}
+			if rel*rlx > maxRelIncrease {
+				rlx = maxRelIncrease / rel
+			}
+		}
+		for i := range n {
+			limit(dth[i] / cs.th[i])
+			limit(dm[i] / cs.m[i])
+			if cs.st[i].kind == bl.Laminar {
+				if a := math.Abs(dc[i]); a*rlx > maxAmpStep {
+					rlx = maxAmpStep / a
+				}
+			} else {
+				limit(dc[i] / cs.c[i])
+			}
+		}
+		res = 0
+		for i := range n {
+			r := math.Max(math.Abs(dth[i]/cs.th[i]), math.Abs(dm[i]/cs.m[i]))
+			if cs.st[i].kind == bl.Laminar {
+				r = math.Max(r, 0.01*math.Abs(dc[i]))
+			} else {
+				r = math.Max(r, math.Abs(dc[i]/cs.c[i]))
+			}
+			res = math.Max(res, r)
+			cs.c[i] += rlx * dc[i]
+			cs.th[i] += rlx * dth[i]
+			cs.m[i] += rlx * dm[i]
+		}
+		cs.clampState()
+		retyped := cs.retype()
+		moved := cs.restagnate()
+		if res < tol && rlx == 1 && !retyped && !moved {
+			return true, it, res, nil
+		}
+		if math.IsNaN(res) {
+			return false, it, res, nil
+		}
+	}
+	return false, maxIt, res, nil
+}
+
+// clampState keeps the variables where the closures are defined.
+func (cs *coupledState) clampState() {
+	ue := cs.ue()
+	for i := range cs.st {
+		u := math.Max(ue[i], 1e-6)
+		if cs.m[i] < minH*cs.th[i]*u {
+			cs.m[i] = minH * cs.th[i] * u
+		}
+		if cs.st[i].kind != bl.Laminar {
+			cs.c[i] = math.Min(math.Max(cs.c[i], 1e-6), 0.3)
+		} else {
+			cs.c[i] = math.Max(cs.c[i], 0)
+		}
+	}
+}
+
+// newtonStep assembles and solves one Newton step; ok is false if the
+// reduced system is singular or not finite.
+func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
+	n := len(cs.st)
+	ue := cs.ue()
+	p := make([][2]float64, n)
+	q := make([]float64, 2*n*n) // Q_i rows: q[(2i+r)*n : ...]
+	mm := make([]float64, n*n)
+	bm := make([]float64, n)
+	w := make([]float64, 3*n)
+	for i := range n {
+		s := &cs.st[i]
+		l := cs.localOf(i, ue)
+		r0 := cs.residual(i, &l)
+		var jac [3][4][3]float64 // participant, variable, residual
+		lam := s.kind == bl.Laminar
+		for qq := 0; qq < l.n; qq++ {
+			plam := cs.st[l.idx[qq]].kind == bl.Laminar
+			for v := range 4 {
+				h := fdStep(v, l.v[qq][v], plam && qq >= 0)
+				save := l.v[qq][v]
+				l.v[qq][v] = save + h
+				r1 := cs.residual(i, &l)
+				l.v[qq][v] = save
+				for e := range 3 {
+					jac[qq][v][e] = (r1[e] - r0[e]) / h
+				}
+			}
+		}
+		_ = lam
+		// W = direct ∂R/∂m plus ∂R/∂Ue · D rows.
+		clear(w)
+		var rhs [3]float64
+		for e := range 3 {
+			rhs[e] = -r0[e]
+		}
+		for qq := 0; qq < l.n; qq++ {
+			j := l.idx[qq]
+			drow := cs.d[j*n : (j+1)*n]
+			for e := range 3 {
+				we := w[e*n : (e+1)*n]
+				we[j] += jac[qq][2][e]
+				if a := jac[qq][3][e]; a != 0 {
+					for c, dv := range drow {
+						we[c] += a * dv
+					}
+				}
+			}
+		}
+		// Eliminate the predecessors' local unknowns.
+		for qq := 1; qq < l.n; qq++ {
+			j := l.idx[qq]
+			for e := range 3 {
+				b0, b1 := jac[qq][0][e], jac[qq][1][e]
+				rhs[e] -= b0*p[j][0] + b1*p[j][1]
+				we := w[e*n : (e+1)*n]
+				q0 := q[(2*j)*n : (2*j+1)*n]
+				q1 := q[(2*j+1)*n : (2*j+2)*n]
+				for c := range we {
+					we[c] -= b0*q0[c] + b1*q1[c]
+				}
+			}
+		}
+		// A = [∂R/∂c_i, ∂R/∂θ_i] (3×2).
+		a0 := [3]float64{jac[0][0][0], jac[0][0][1], jac[0][0][2]}
+		a1 := [3]float64{jac[0][1][0], jac[0][1][1], jac[0][1][2]}
+		z := [3]float64{a0[1]*a1[2] - a0[2]*a1[1], a0[2]*a1[0] - a0[0]*a1[2], a0[0]*a1[1] - a0[1]*a1[0]}
+		zn := math.Sqrt(z[0]*z[0] + z[1]*z[1] + z[2]*z[2])
+		if !(zn > 0) {
+			return nil, nil, nil, false
+		}
+		for e := range 3 {
+			z[e] /= zn
+		}
+		row := mm[i*n : (i+1)*n]
+		for e := range 3 {
+			we := w[e*n : (e+1)*n]
+			for c := range row {
+				row[c] += z[e] * we[c]
+			}
+			bm[i] += z[e] * rhs[e]
+		}
+		// A⁺ = (AᵀA)⁻¹ Aᵀ.
+		g00 := a0[0]*a0[0] + a0[1]*a0[1] + a0[2]*a0[2]
+		g01 := a0[0]*a1[0] + a0[1]*a1[1] + a0[2]*a1[2]
+		g11 := a1[0]*a1[0] + a1[1]*a1[1] + a1[2]*a1[2]
+		det := g00*g11 - g01*g01
+		var pin [2][3]float64
+		for e := range 3 {
+			pin[0][e] = (g11*a0[e] - g01*a1[e]) / det
+			pin[1][e] = (-g01*a0[e] + g00*a1[e]) / det
+		}
+		for r := range 2 {
+			p[i][r] = pin[r][0]*rhs[0] + pin[r][1]*rhs[1] + pin[r][2]*rhs[2]
+			qr := q[(2*i+r)*n : (2*i+r+1)*n]
+			for c := range qr {
+				qr[c] = pin[r][0]*w[c] + pin[r][1]*w[n+c] + pin[r][2]*w[2*n+c]
+			}
+		}
+	}
+	// Solve the Δm system.
+	a := blas64.General{Rows: n, Cols: n, Stride: n, Data: mm}
+	ipiv := make([]int, n)
+	if !lapack64.Getrf(a, ipiv) {
+		return nil, nil, nil, false
+	}
+	b := blas64.General{Rows: n, Cols: 1, Stride: 1, Data: bm}
+	lapack64.Getrs(blas.NoTrans, a, b, ipiv)
+	dm = bm
+	dc, dth = make([]float64, n), make([]float64, n)
+	for i := range n {
+		q0 := q[(2*i)*n : (2*i+1)*n]
+		q1 := q[(2*i+1)*n : (2*i+2)*n]
+		s0, s1 := p[i][0], p[i][1]
+		for c, v := range dm {
+			s0 -= q0[c] * v
+			s1 -= q1[c] * v
+		}
+		dc[i], dth[i] = s0, s1
+		if math.IsNaN(s0) || math.IsNaN(s1) || math.IsNaN(dm[i]) {
+			return nil, nil, nil, false
+		}
+	}
+	return dc, dth, dm, true
+}

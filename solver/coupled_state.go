@@ -1,0 +1,333 @@
+package solver
+
+import (
+	"math"
+
+	bl "sectionbench/solver/boundarylayer"
+)
+
+// Sides of a station.
+const (
+	sideUpper = iota
+	sideLower
+	sideWake
+)
+
+// station is one boundary-layer station of the coupled solution: a body
+// node on one side of an element's stagnation point, or a wake node.
+type station struct {
+	elem, side, node int
+	kind             bl.Kind
+	prev             [2]int // preceding stations (two for the first wake station: the trailing edges)
+	nprev            int
+	first            bool // first station of a surface: the stagnation-point similarity solution
+	wakeStart        bool
+	last             bool    // last station of a surface (the trailing edge): transition is forced there
+	xi               float64 // from the stagnation point (surfaces) or the trailing edge (wakes)
+	xc               float64
+	tripXi           float64 // ξ of the trip on this station's surface, +Inf if none
+}
+
+// sigmaTerm is one term of a source column's dependence on the mass
+// defects: σ_c = Σ coef m_station.
+type sigmaTerm struct {
+	st   int
+	coef float64
+}
+
+// coupledState is the state of a coupled solution: the layout of the
+// stations, the sensitivities of the edge velocities to the mass defects,
+// and the boundary-layer variables.
+type coupledState struct {
+	sol   *Solution
+	geo   *geometry
+	opt   CoupledOptions
+	re    float64 // per unit length
+	ncrit float64
+	wakes []*wakeGeom
+	resp  *sourceResponse
+
+	stag  []int     // per element, the node before the stagnation point in node order
+	sStag []float64 // arc length of the stagnation point from the element's first node
+	base  []int     // first station of each element
+	st    []station
+	ue0   []float64 // inviscid edge velocity at each station
+	d     []float64 // ∂Ue/∂m, nst × nst, row-major
+	c     []float64 // ñ or √Cτ
+	th    []float64 // θ
+	m     []float64 // mass defect Ue δ*
+}
+
+// newCoupledState traces the wakes of the inviscid solution sol, builds
+// the source sensitivities and lays out the stations at its stagnation
+// points.
+func newCoupledState(sol *Solution, opt CoupledOptions) (*coupledState, error) {
+	geo := sol.sys.geo
+	cs := &coupledState{sol: sol, geo: geo, opt: opt}
+	cs.re = opt.Re[0] / geo.elems[0].chord
+	cs.ncrit = opt.NCrit
+	if cs.ncrit <= 0 {
+		cs.ncrit = bl.DefaultNCrit
+	}
+	for k := range geo.elems {
+		w, err := traceWake(sol, k)
+		if err != nil {
+			return nil, err
+		}
+		cs.wakes = append(cs.wakes, w)
+	}
+	cs.resp = newSourceResponse(sol, cs.wakes)
+	cs.stag = make([]int, len(geo.elems))
+	cs.sStag = make([]float64, len(geo.elems))
+	g := sol.g
+	for k := range geo.elems {
+		cs.stag[k], cs.sStag[k] = stagnationSplit(&geo.elems[k], g, -1)
+	}
+	cs.layout()
+	n := len(cs.st)
+	cs.c, cs.th, cs.m = make([]float64, n), make([]float64, n), make([]float64, n)
+	return cs, nil
+}
+
+// stagnationSplit returns the node k such that the stagnation point lies
+// on panel k (between nodes k and k+1) and its arc length, from the nodal
+// strengths gam of the whole system: the sign change of γ (the surface
+// speed −γ along the node order) nearest the previous split near (or the
+// leading edge when near < 0).
+func stagnationSplit(e *elemGeom, gam []float64, near int) (int, float64) {
+	ref := e.le
+	if near >= 0 {
+		ref = near
+	}
+	best, bestD := -1, math.MaxInt
+	for k := 0; k < e.np; k++ {
+		ga, gb := gam[e.u0+k], gam[e.u0+k+1]
+		if ga >= 0 && gb < 0 || ga > 0 && gb <= 0 {
+			if d := abs(k - ref); d < bestD {
+				best, bestD = k, d
+			}
+		}
+	}
+	if best < 0 {
+		best = min(max(ref, 1), e.np-2)
+		return best, 0.5 * (e.sNode[best] + e.sNode[best+1])
+	}
+	ga, gb := gam[e.u0+best], gam[e.u0+best+1]
+	f := ga / (ga - gb)
+	return best, e.sNode[best] + f*(e.sNode[best+1]-e.sNode[best])
+}
+
+func abs(i int) int {
+	if i < 0 {
+		return -i
+	}
+	return i
+}
+
+// layout builds the stations from the splits: per element its upper
+// surface from the stagnation point to the first node, its lower surface
+// to the last node, then its wake.
+func (cs *coupledState) layout() {
+	geo := cs.geo
+	cs.st = cs.st[:0]
+	cs.base = cs.base[:0]
+	for k := range geo.elems {
+		e := &geo.elems[k]
+		cs.base = append(cs.base, len(cs.st))
+		kk := cs.stag[k]
+		minXi := 1e-4 * e.chord
+		add := func(side, node int, xi float64, prev int) {
+			s := station{elem: k, side: side, node: node, prev: [2]int{prev, -1}, xi: math.Max(xi, minXi)}
+			if prev >= 0 {
+				s.nprev = 1
+				// Keep stations ordered even where the stagnation point
+				// sits next to a node.
+				s.xi = math.Max(s.xi, cs.st[prev].xi+minXi)
+			} else {
+				s.first = true
+			}
+			s.xc = e.chordPos(e.nodes[node])
+			cs.st = append(cs.st, s)
+		}
+		prev := -1
+		for i := kk; i >= 0; i-- {
+			add(sideUpper, i, cs.sStag[k]-e.sNode[i], prev)
+			prev = len(cs.st) - 1
+		}
+		upperTE := prev
+		cs.st[upperTE].last = true
+		prev = -1
+		for i := kk + 1; i <= e.np; i++ {
+			add(sideLower, i, e.sNode[i]-cs.sStag[k], prev)
+			prev = len(cs.st) - 1
+		}
+		lowerTE := prev
+		cs.st[lowerTE].last = true
+		w := cs.wakes[k]
+		for j := range w.nodes {
+			s := station{elem: k, side: sideWake, node: j, kind: bl.Wake, xi: w.xi[j], xc: 1 + w.xi[j]/e.chord}
+			if j == 0 {
+				s.wakeStart, s.prev, s.nprev = true, [2]int{upperTE, lowerTE}, 2
+			} else {
+				s.prev, s.nprev = [2]int{len(cs.st) - 1, -1}, 1
+			}
+			cs.st = append(cs.st, s)
+		}
+	}
+	cs.setTrips()
+	cs.buildSensitivities()
+}
+
+// setTrips converts the trips' x/c into arc lengths on each surface.
+func (cs *coupledState) setTrips() {
+	for i := range cs.st {
+		s := &cs.st[i]
+		s.tripXi = math.Inf(1)
+	}
+	for i := range cs.st {
+		s := &cs.st[i]
+		if s.side == sideWake || s.first {
+			continue
+		}
+		trip := cs.opt.TripUpper
+		if s.side == sideLower {
+			trip = cs.opt.TripLower
+		}
+		if !(trip > 0 && trip < 1) {
+			continue
+		}
+		p := &cs.st[s.prev[0]]
+		if p.xc < trip && s.xc >= trip {
+			f := (trip - p.xc) / (s.xc - p.xc)
+			xi := p.xi + f*(s.xi-p.xi)
+			// Every station of this surface gets it.
+			for j := range cs.st {
+				q := &cs.st[j]
+				if q.elem == s.elem && q.side == s.side {
+					q.tripXi = xi
+				}
+			}
+		}
+	}
+}
+
+// buildSensitivities sets ue0 and d = ∂Ue/∂m for the current layout.
+func (cs *coupledState) buildSensitivities() {
+	geo, r := cs.geo, cs.resp
+	n := len(cs.st)
+	ncol := r.cols.n
+	cs.ue0 = make([]float64, n)
+	if len(cs.d) != n*n {
+		cs.d = make([]float64, n*n)
+	}
+	// σ columns in terms of station mass defects.
+	terms := make([][]sigmaTerm, ncol)
+	stOfNode := func(k, node int) int {
+		if node <= cs.stag[k] {
+			return cs.base[k] + cs.stag[k] - node
+		}
+		return cs.base[k] + node
+	}
+	wake0 := func(k int) int { return cs.base[k] + geo.elems[k].np + 1 }
+	for k := range geo.elems {
+		e := &geo.elems[k]
+		kk := cs.stag[k]
+		for i := 0; i < e.np; i++ {
+			p := &geo.panels[e.p0+i]
+			a, b := stOfNode(k, i), stOfNode(k, i+1)
+			switch {
+			case i+1 <= kk:
+				terms[e.p0+i] = []sigmaTerm{{a, p.il}, {b, -p.il}}
+			case i >= kk+1:
+				terms[e.p0+i] = []sigmaTerm{{b, p.il}, {a, -p.il}}
+			default:
+				terms[e.p0+i] = []sigmaTerm{{a, p.il}, {b, p.il}}
+			}
+		}
+		w := cs.wakes[k]
+		nw := len(w.nodes)
+		w0 := wake0(k)
+		for j := range nw {
+			lo, hi := max(j-1, 0), min(j+1, nw-1)
+			h := 1 / (w.xi[hi] - w.xi[lo])
+			terms[r.cols.wake0[k]+j] = []sigmaTerm{{w0 + hi, h}, {w0 + lo, -h}}
+		}
+	}
+	row := make([]float64, ncol)
+	for i := range cs.st {
+		s := &cs.st[i]
+		switch {
+		case s.side == sideWake && s.wakeStart:
+			u, l := &cs.st[s.prev[0]], &cs.st[s.prev[1]]
+			ru, rl := cs.sigmaRow(u), cs.sigmaRow(l)
+			for c := range row {
+				row[c] = 0.5 * (ru[c] + rl[c])
+			}
+			cs.ue0[i] = 0.5 * (cs.ue0Of(u) + cs.ue0Of(l))
+		default:
+			copy(row, cs.sigmaRow(s))
+			cs.ue0[i] = cs.ue0Of(s)
+		}
+		d := cs.d[i*n : (i+1)*n]
+		clear(d)
+		for c, v := range row {
+			if v == 0 {
+				continue
+			}
+			for _, t := range terms[c] {
+				d[t.st] += v * t.coef
+			}
+		}
+	}
+}
+
+// sigmaRow returns ∂Ue/∂σ of a body or non-first wake station.
+func (cs *coupledState) sigmaRow(s *station) []float64 {
+	r := cs.resp
+	ncol := r.cols.n
+	out := make([]float64, ncol)
+	if s.side == sideWake {
+		row := r.cols.wake0[s.elem] - r.cols.body + s.node
+		copy(out, r.wakeUt.Data[row*ncol:(row+1)*ncol])
+		return out
+	}
+	e := &cs.geo.elems[s.elem]
+	u := e.u0 + s.node
+	sg := 1.0
+	if s.side == sideLower {
+		sg = -1
+	}
+	for c, v := range r.gam.Data[u*ncol : (u+1)*ncol] {
+		out[c] = sg * v
+	}
+	return out
+}
+
+// ue0Of returns the inviscid edge velocity of a body or non-first wake
+// station.
+func (cs *coupledState) ue0Of(s *station) float64 {
+	if s.side == sideWake {
+		return cs.resp.wakeU0[cs.resp.cols.wake0[s.elem]-cs.resp.cols.body+s.node]
+	}
+	e := &cs.geo.elems[s.elem]
+	g := cs.sol.g[e.u0+s.node]
+	if s.side == sideLower {
+		return -g
+	}
+	return g
+}
+
+// ue returns the edge velocities of the current mass defects.
+func (cs *coupledState) ue() []float64 {
+	n := len(cs.st)
+	out := make([]float64, n)
+	for i := range out {
+		v := cs.ue0[i]
+		d := cs.d[i*n : (i+1)*n]
+		for j, mj := range cs.m {
+			v += d[j] * mj
+		}
+		out[i] = v
+	}
+	return out
+}
