@@ -11,7 +11,7 @@ func airRelErr(got, want float64) float64 { return math.Abs(got-want) / math.Abs
 
 // TestISASeaLevel checks the sea-level values of the U.S. Standard
 // Atmosphere, 1976 (NOAA/NASA/USAF): ρ = 1.2250 kg/m³,
-// μ = 1.7894e-5 Pa·s, ν = 1.4607e-5 m²/s (REFERENCES §6).
+// μ = 1.7894e-5 Pa·s, ν = 1.4607e-5 m²/s (docs/validation.md §6).
 func TestISASeaLevel(t *testing.T) {
 	a := ISASeaLevel()
 	for _, c := range []struct {

@@ -7,14 +7,14 @@ import (
 	"testing"
 )
 
-// referenceKT is the sample of REFERENCES.md §2: μ = (−0.1, 0.1), b = 1,
+// referenceKT is the sample of docs/validation.md §2: μ = (−0.1, 0.1), b = 1,
 // τ = 10°.
 var referenceKT = KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}
 
 func TestKarmanTrefftzReferenceCl(t *testing.T) {
 	// μ = (−0.1, 0.1), b = 1, τ = 10°, α = 5° in the mapping plane, chord =
 	// the largest distance from the trailing edge: c_l = 1.2514 [derived
-	// from the exact solution, REFERENCES.md §2; Milne-Thomson, Theoretical
+	// from the exact solution, docs/validation.md §2; Milne-Thomson, Theoretical
 	// Hydrodynamics; Katz & Plotkin, Low-Speed Aerodynamics, 2nd ed., ch. 6].
 	e := referenceKT.Exact(5 - referenceKT.ChordAngleDeg())
 	if math.Abs(e.MappingAlphaDeg-5) > 1e-12 {

@@ -261,7 +261,7 @@ func TestNACAThinAirfoil(t *testing.T) {
 		// α_L0 and c_m,c/4 of the 4-digit mean lines: Anderson,
 		// Fundamentals of Aerodynamics, ch. 4 (NACA 2412 worked example,
 		// −2.077° and −0.053), values to four figures as derived in
-		// REFERENCES.md §1.
+		// docs/validation.md §1.
 		{"2412", -2.077, -0.0531, 0.001, 0.0001, -1, 0},
 		{"4412", -4.155, -0.1062, 0.001, 0.0001, -1, 0},
 		// The 5-digit mean lines were designed for an ideal lift

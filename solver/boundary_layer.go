@@ -41,7 +41,7 @@ const (
 
 // Head's entrainment method and the Ludwieg–Tillmann skin friction law,
 // coefficients as widely reproduced (Head, ARC R&M 3152, 1958; Ludwieg &
-// Tillmann, NACA TM 1285, 1950; from memory, see REFERENCES §4).
+// Tillmann, NACA TM 1285, 1950; from memory, see docs/validation.md §4).
 const (
 	headEntrainA = 0.0306  // (1/Ue) d(Ue θ H₁)/dx = a (H₁ − 3)^b
 	headEntrainB = -0.6169 //
@@ -58,7 +58,7 @@ const (
 // Michel's transition criterion in the form of Cebeci & Smith (Analysis of
 // Turbulent Boundary Layers, 1974): transition where
 // Re_θ ≥ 1.174 (1 + 22400/Re_x) Re_x^0.46 (formula as published; the
-// attribution is from memory, see REFERENCES §4).
+// attribution is from memory, see docs/validation.md §4).
 const (
 	michelA = 1.174
 	michelB = 22400
@@ -172,7 +172,7 @@ type SurfaceBL struct {
 // gives θ² = 0.075 ν/(dUe/dx) at a stagnation point, the classical start;
 // Cebeci & Bradshaw 1977, Moran, An Introduction to Theoretical and
 // Computational Aerodynamics, 1984), and the Cebeci & Bradshaw (1977)
-// correlations l(λ), H(λ) (REFERENCES §4); λ is clamped to [−0.1, 0.1],
+// correlations l(λ), H(λ) (docs/validation.md §4); λ is clamped to [−0.1, 0.1],
 // the range of the correlations. Laminar separation is at λ ≤ −0.09.
 //
 // Transition is placed at the first of: Michel's criterion (Cebeci–Smith
@@ -188,7 +188,7 @@ type SurfaceBL struct {
 //	dθ/dx = Cf/2 − (H + 2)(θ/Ue) dUe/dx,
 //	(1/Ue) d(Ue θ H₁)/dx = 0.0306 (H₁ − 3)^(−0.6169),
 //
-// with H₁(H) as in REFERENCES §4 (from memory) and the Ludwieg–Tillmann
+// with H₁(H) as in docs/validation.md §4 (from memory) and the Ludwieg–Tillmann
 // skin friction Cf = 0.246 · 10^(−0.678 H) Re_θ^(−0.268) (NACA TM 1285),
 // starting from H = TransitionH with θ continuous. The two equations are
 // integrated with an adaptive Dormand–Prince 5(4) scheme, Ue linear between
@@ -409,7 +409,7 @@ func edgeVelocityGradient(s, ue []float64) []float64 {
 }
 
 // thwaitesCorrelations returns l(λ) and H(λ) of Cebeci & Bradshaw (1977),
-// REFERENCES §4, with λ clamped to [−0.1, 0.1].
+// docs/validation.md §4, with λ clamped to [−0.1, 0.1].
 func thwaitesCorrelations(lam float64) (l, h float64) {
 	lam = math.Max(-0.1, math.Min(0.1, lam))
 	if lam >= 0 {
@@ -418,7 +418,7 @@ func thwaitesCorrelations(lam float64) (l, h float64) {
 	return 0.22 + 1.402*lam + 0.018*lam/(lam+0.107), 2.088 + 0.0731/(lam+0.14)
 }
 
-// headH1 returns Head's entrainment shape factor H₁(H) (REFERENCES §4).
+// headH1 returns Head's entrainment shape factor H₁(H) (docs/validation.md §4).
 func headH1(h float64) float64 {
 	if h <= headH1Split {
 		return 0.8234*math.Pow(h-1.1, -1.287) + 3.3

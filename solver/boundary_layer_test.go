@@ -38,7 +38,7 @@ func uniform(float64) float64 { return 1 }
 // Blasius' solution θ = 0.664 √(νx/U), Cf = 0.664/√Re_x, one-side
 // C_D = 1.328/√Re_L (Schlichting, Boundary-Layer Theory, ch. 7; White,
 // Viscous Fluid Flow, sec. 4-3). H = 2.61 is the Cebeci–Bradshaw
-// correlation at λ = 0 (REFERENCES §4).
+// correlation at λ = 0 (docs/validation.md §4).
 func TestBLFlatPlateLaminar(t *testing.T) {
 	const re = 1e5 // far below Michel's transition on a plate (Re_x ≈ 2.5e6)
 	s, ue, xc := blStations(0, 1, 1001, uniform)
@@ -117,7 +117,7 @@ func TestBLFlatPlateTurbulent(t *testing.T) {
 // Thwaites' closed form gives λ = −0.075((1 − x)^−6 − 1), so separation
 // (λ = −0.09) at x/L = 1 − 2.2^(−1/6) = 0.1231; the exact solution
 // separates at x/L ≈ 0.120 (Howarth, Proc. R. Soc. A 164, 1938; from
-// memory, REFERENCES §4).
+// memory, docs/validation.md §4).
 func TestBLHowarth(t *testing.T) {
 	const re = 1e5
 	s, ue, xc := blStations(0, 0.5, 2001, func(x float64) float64 { return 1 - x })
@@ -150,7 +150,7 @@ func TestBLHowarth(t *testing.T) {
 
 // michelPlate returns Re_x at transition on a flat plate: Thwaites gives
 // Re_θ = √(0.45 Re_x), set equal to Michel's 1.174 (1 + 22400/Re_x) Re_x^0.46
-// (Cebeci & Smith form, REFERENCES §4) and solved by bisection on log Re_x.
+// (Cebeci & Smith form, docs/validation.md §4) and solved by bisection on log Re_x.
 func michelPlate() float64 {
 	g := func(rx float64) float64 { return math.Sqrt(0.45*rx) - 1.174*(1+22400/rx)*math.Pow(rx, 0.46) }
 	lo, hi := 1e4, 1e9

@@ -40,7 +40,7 @@ func ExampleNewSystem() {
 
 // A sweep reuses the factorised system: the lift slope of NACA 0012 is a
 // little above thin-airfoil theory's 2π per radian, as thickness makes it
-// in potential flow (REFERENCES.md §1).
+// in potential flow (docs/validation.md §1).
 func ExampleSystem_Sweep() {
 	sys, err := solver.NewSystem(solver.Config{Elements: []solver.Element{element("0012", 160)}})
 	if err != nil {

@@ -10,7 +10,7 @@ import (
 )
 
 // circleExactVelocity is the flow past a circle of radius a centred at c
-// with the Kutta circulation Γ = 4πUa sin α (REFERENCES.md §2; Milne-Thomson,
+// with the Kutta circulation Γ = 4πUa sin α (docs/validation.md §2; Milne-Thomson,
 // Theoretical Hydrodynamics): u − iv = e^{−iα} − a² e^{iα}/Z² + iΓ/(2πZ).
 func circleExactVelocity(a float64, c model.Point, alpha float64, p model.Point) (u, v float64) {
 	z := complex(p.X-c.X, p.Y-c.Y)

@@ -99,7 +99,7 @@ import (
 // the solution at angle α is γ = cos α γ0 + sin α γ90, and likewise σ.
 //
 // Ground effect uses the method of images (Katz & Plotkin's treatment of
-// ground effect; REFERENCES.md §5): every panel has a mirror image about
+// ground effect; docs/validation.md §5): every panel has a mirror image about
 // y = GroundY carrying −γ, and every base source one carrying +σ (a
 // reflected source is a source), so the plane is a streamline of the
 // combined flow.

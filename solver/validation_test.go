@@ -11,7 +11,7 @@ import (
 )
 
 // Validation against published exact solutions and theory. Each check names
-// its source; REFERENCES.md is the project's collection of them.
+// its source; docs/validation.md lists them with their tags.
 
 // ktSpacing names how a Kármán–Trefftz contour is cut into panels.
 type ktSpacing int
@@ -56,7 +56,7 @@ func ktElement(t testing.TB, k model.KarmanTrefftz, n int, sp ktSpacing) Element
 // ktCpRMS returns the RMS difference between panel Cp and the exact Cp at
 // the nearest surface point, over panels with x/c ≤ maxXC: next to a
 // finite-angle trailing edge the pointwise Cp of a panel method does not
-// converge (REFERENCES.md §7).
+// converge (docs/validation.md §7).
 func ktCpRMS(e ElementSolution, ex *model.KTExact, maxXC float64) float64 {
 	var ss float64
 	n := 0
@@ -73,7 +73,7 @@ func ktCpRMS(e ElementSolution, ex *model.KTExact, maxXC float64) float64 {
 
 // Kármán–Trefftz sections against their exact solution (Milne-Thomson,
 // Theoretical Hydrodynamics; Katz & Plotkin, Low-Speed Aerodynamics, 2nd
-// ed., ch. 6; REFERENCES.md §2), at 200 panels: Cl within 0.1% and surface
+// ed., ch. 6; docs/validation.md §2), at 200 panels: Cl within 0.1% and surface
 // Cp within 0.01 RMS away from the last 5% of chord, for trailing-edge
 // angles of 5° and more; the stagnation point and Cm checked too.
 func TestKarmanTrefftzExact(t *testing.T) {
@@ -120,10 +120,12 @@ func TestKarmanTrefftzExact(t *testing.T) {
 	}
 }
 
-// The published sample of REFERENCES.md §2: μ = (−0.1, 0.1), b = 1,
-// τ = 10°, α = 5° in the mapping plane, c_l = 1.2514 [derived there].
+// The sample of docs/validation.md §2: μ = (−0.1, 0.1), b = 1, τ = 10°,
+// α = 5° in the mapping plane, c_l = 1.2514. The value is derived: the
+// exact conformal-map solution rounded to four decimals, not a number
+// from a publication; the panel solution is held to it at 0.1 %.
 func TestKarmanTrefftzSampleValue(t *testing.T) {
-	const want = 1.2514 // REFERENCES.md §2, four decimals
+	const want = 1.2514 // docs/validation.md §2, four decimals
 	k := model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}
 	alpha := 5 - k.ChordAngleDeg()
 	if ex := k.Exact(alpha); math.Abs(ex.Cl-want) > 5e-5 {
@@ -136,7 +138,7 @@ func TestKarmanTrefftzSampleValue(t *testing.T) {
 }
 
 // Observed order of convergence of Cl, p = log2(e_N / e_2N), between 80,
-// 160 and 320 panels. REFERENCES.md §7: about second order (1.8–2.0) for
+// 160 and 320 panels. docs/validation.md §7: about second order (1.8–2.0) for
 // nodes clustered toward both edges on a finite-angle section.
 //
 // Circle-angle spacing shows 1.9–2.4 on these cases. Cosine spacing in x
@@ -191,7 +193,7 @@ func TestKarmanTrefftzConvergence(t *testing.T) {
 }
 
 // Thin-airfoil theory (Anderson, Fundamentals of Aerodynamics, ch. 4, NACA
-// 2412 worked example: α_L0 = −2.077°, c_m,c/4 = −0.053; REFERENCES.md §1):
+// 2412 worked example: α_L0 = −2.077°, c_m,c/4 = −0.053; docs/validation.md §1):
 //
 //	α_L0 = −(1/π) ∫₀^π (dz/dx)(cos θ − 1) dθ,  A_n = (2/π) ∫₀^π (dz/dx) cos nθ dθ,
 //	c_m,c/4 = (π/4)(A₂ − A₁),  x = (1 − cos θ)/2.
@@ -248,7 +250,7 @@ func TestThinAirfoilLimit(t *testing.T) {
 		if math.Abs(cm0-cmThin) > tc.tolCm {
 			t.Errorf("NACA %s: zero-lift Cm %.5f, thin-airfoil %.5f", tc.des, cm0, cmThin)
 		}
-		// A thick section's α_L0 is slightly more negative (REFERENCES.md §1).
+		// A thick section's α_L0 is slightly more negative (docs/validation.md §1).
 		if !(a0 < aL0Deg) {
 			t.Errorf("NACA %s: α_L0 %.4f° not below the thin-airfoil value", tc.des, a0)
 		}
@@ -319,7 +321,7 @@ func TestMultiElementFarApart(t *testing.T) {
 
 // The method of images is exact: the ground-mode solution equals an explicit
 // two-body solution of the section and its mirror image with the ground off
-// (REFERENCES.md §5 [derived; exact]; Katz & Plotkin sec. on ground effect).
+// (docs/validation.md §5 [derived; exact]; Katz & Plotkin sec. on ground effect).
 func TestImageMethodEqualsMirror(t *testing.T) {
 	const groundY = -0.3
 	worst := 0.0
@@ -391,7 +393,7 @@ func TestGroundTendsToFreeAir(t *testing.T) {
 }
 
 // Lumped-vortex model in ground effect (vortex at c/4, control point at
-// 3c/4, height h): Γ/Γ∞ = 1 + (c/4h)² (REFERENCES.md §5 [derived]). A thin
+// 3c/4, height h): Γ/Γ∞ = 1 + (c/4h)² (docs/validation.md §5 [derived]). A thin
 // flat plate (ellipse, t/c = 1%) must approach it for h ≫ t. To keep
 // linear theory's setting, the lift slope is used: circulation differences
 // between ±1°, which cancel the thickness's own ground effect (even in α)
@@ -426,7 +428,7 @@ func TestFlatPlateGroundEffect(t *testing.T) {
 
 // An inverted cambered section's downforce rises as the clearance falls
 // (Zerihan & Zhang, J. Aircraft 37(6), 2000, measured above h/c ≈ 0.1;
-// REFERENCES.md §5: potential flow shows only the rise, not the loss below
+// docs/validation.md §5: potential flow shows only the rise, not the loss below
 // it caused by separation).
 func TestInvertedDownforceRisesNearGround(t *testing.T) {
 	// Inverted NACA 4412 at 4° of incidence (leading edge down), clearance
@@ -449,7 +451,7 @@ func TestInvertedDownforceRisesNearGround(t *testing.T) {
 // vanDeVoorenNodes returns n panels' worth of nodes of the van de Vooren
 // section z = (ζ − a)^k / (ζ − εa)^(k−1) + l on the circle ζ = a e^{iθ},
 // a = 2l(1 + ε)^(k−1)/2^k, chord 2l from (−l, 0) to (l, 0) (Katz & Plotkin,
-// Low-Speed Aerodynamics, 2nd ed., ch. 6; REFERENCES.md §2), normalised
+// Low-Speed Aerodynamics, 2nd ed., ch. 6; docs/validation.md §2), normalised
 // to the unit chord with the leading edge at the origin, counter-clockwise
 // from the trailing edge. θ is uniform, which clusters nodes at both edges.
 func vanDeVoorenNodes(n int, eps, k float64) []model.Point {
@@ -489,7 +491,7 @@ func vanDeVoorenNodes(n int, eps, k float64) []model.Point {
 	return pts
 }
 
-// The van de Vooren sample of REFERENCES.md §2 [derived]: ε = 0.1,
+// The van de Vooren sample of docs/validation.md §2 [derived]: ε = 0.1,
 // k = 1.9 (τ = 18°, t/c ≈ 0.205), c_l = 2π·2^(2−k)(1 + ε)^(k−1) sin α,
 // 0.6395 at 5°: an exact solution independent of the Kármán–Trefftz code.
 func TestVanDeVooren(t *testing.T) {
@@ -608,10 +610,10 @@ func TestClosedTrailingEdgeUnchanged(t *testing.T) {
 }
 
 // NACA 0012 lift slope over ±4° (200 panels, open trailing edge): at least
-// the measured 0.108/deg (Ladson, NASA TM 4074, 1988; REFERENCES.md §3) and
+// the measured 0.108/deg (Ladson, NASA TM 4074, 1988; docs/validation.md §3) and
 // the thin-airfoil 2π per radian (0.1097/deg), and potential flow a bit
 // above them: at most the thickness rule 2π(1 + 0.77 t/c) per radian
-// (REFERENCES.md §1, from memory) plus 3%.
+// (docs/validation.md §1, from memory) plus 3%.
 func TestNACA0012LiftSlope(t *testing.T) {
 	sw := mustSystem(t, Config{Elements: []Element{nacaElement(t, "0012", 200)}}).Sweep([]float64{-4, 4})
 	slope := (sw[1].Cl - sw[0].Cl) / 8

@@ -17,7 +17,7 @@ const LowReynolds = 1e5
 // Over the last few percent of chord the inviscid edge velocity does not
 // converge pointwise (it falls towards a stagnation point at a closed
 // finite-angle trailing edge and spikes at the corners of an open one;
-// REFERENCES §7), and a boundary layer driven by it separates spuriously
+// docs/validation.md §7), and a boundary layer driven by it separates spuriously
 // or reports a drag that depends on the last panel. On NACA 0012, 2412 and
 // 4412 at 200 panels the drag changes by about 1 % for a cut anywhere in
 // 0.97–0.99 and open and closed trailing edges agree to 1 %, while with

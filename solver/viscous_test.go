@@ -95,7 +95,7 @@ func TestViscousErrors(t *testing.T) {
 }
 
 // nacaSystem builds a NACA section repanelled with 200 cosine-spaced panels
-// on a unit chord (Kuethe & Chow spacing, REFERENCES §7).
+// on a unit chord (Kuethe & Chow spacing, docs/validation.md §7).
 func nacaSystem(t *testing.T, digits string) *System {
 	t.Helper()
 	return nacaPanels(t, digits, 200)
@@ -139,7 +139,7 @@ func viscousAt(t *testing.T, sys *System, alpha, re, trip float64) *ViscousResul
 // of NACA 0012 at Re = 6e6:
 //   - smooth, free transition, α = 0: c_d ≈ 0.0055–0.0065 (Abbott & von
 //     Doenhoff, Theory of Wing Sections, 1959, App. IV; from memory,
-//     REFERENCES §3); ±25 % around that band;
+//     docs/validation.md §3); ±25 % around that band;
 //   - transition fixed with grit, α = 4.04°: c_d = 0.00823 (Ladson, NASA
 //     TM 4074, 1988); the trip is placed at 5 % chord on both surfaces
 //     (grit position from memory); ±25 %.

@@ -432,7 +432,7 @@ func scrolled(o fyne.CanvasObject) fyne.CanvasObject {
 }
 
 // ktDefault is the analytic section offered first: a cambered 10° TE-angle
-// section (the sample case of REFERENCES.md, sec. 2).
+// section (the sample case of docs/validation.md §2).
 var ktDefault = model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}
 
 // useKT reads the three Kármán–Trefftz parameters and applies them.

@@ -68,7 +68,7 @@ func TestForcesWithSpeed(t *testing.T) {
 		t.Fatal("no forces with a speed")
 	}
 	// ISA sea level: ρ = 1.2250 kg/m³ (U.S. Standard Atmosphere, 1976;
-	// REFERENCES.md sec. 6), so q = ½ρV² = 245.0 Pa at 20 m/s.
+	// docs/validation.md §6), so q = ½ρV² = 245.0 Pa at 20 m/s.
 	if q := res.Forces.DynamicPressurePa; math.Abs(q-245.0) > 0.05 {
 		t.Errorf("q = %g Pa, want 245.0", q)
 	}

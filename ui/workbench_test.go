@@ -555,7 +555,7 @@ func TestGroundAndInverted(t *testing.T) {
 		t.Error("the polar shows no figure after the sweep ran")
 	}
 	res = current(t, w)
-	// Image-method trend (REFERENCES.md sec. 5, Zerihan & Zhang 2000): an
+	// Image-method trend (docs/validation.md §5, Zerihan & Zhang 2000): an
 	// inverted wing near the ground makes more downforce in potential flow.
 	if !(res.Solution.Cl < free.Solution.Cl) {
 		t.Errorf("Cl %g in ground effect is not below %g in free air", res.Solution.Cl, free.Solution.Cl)

@@ -115,7 +115,7 @@ func TestSolveJSONContract(t *testing.T) {
 	// NACA 2412 at 4°: thin-airfoil theory gives 2π(α − α_L0) = 2π(4° +
 	// 2.077°) = 0.666 (Anderson, Fundamentals of Aerodynamics, NACA 2412
 	// example); a 12 % thick section in potential flow lies some 10 % above
-	// (REFERENCES.md §1, from memory: slope ≈ 2π(1 + 0.77 t/c)).
+	// (docs/validation.md §1, from memory: slope ≈ 2π(1 + 0.77 t/c)).
 	cl := m["cl"].(float64)
 	if cl < 0.66 || cl > 0.78 {
 		t.Errorf("cl = %.4f, want within the thin-airfoil to thick-section band 0.66–0.78", cl)

@@ -65,7 +65,7 @@ func synthStreamlines() []solver.Streamline {
 }
 
 // synthDensity converges as Cl = 0.9 − 20/N², Cp min = −2 − 400/N² (second
-// order, as REFERENCES §7 describes for this panel method).
+// order, as docs/validation.md §7 describes for this panel method).
 func synthDensity() *engine.DensityResult {
 	d := &engine.DensityResult{RecommendedPanels: 160}
 	for _, nose := range []float64{0.3, 0.6} {

@@ -25,7 +25,7 @@ func (c KTCase) AlphaDeg() float64 { return c.MappingAlphaDeg - c.KT.ChordAngleD
 func (c KTCase) Exact() *model.KTExact { return c.KT.Exact(c.AlphaDeg()) }
 
 // KTCases are finite-trailing-edge-angle Kármán–Trefftz cases (τ ≥ 5°, so
-// that panel methods converge cleanly at the trailing edge; REFERENCES.md
+// that panel methods converge cleanly at the trailing edge; docs/validation.md
 // §2 and §7). The exact solution is that of Milne-Thomson, Theoretical
 // Hydrodynamics, and Katz & Plotkin, Low-Speed Aerodynamics, 2nd ed., ch.
 // 6, computed by model.KarmanTrefftz.Exact.
@@ -35,7 +35,7 @@ var KTCases = []KTCase{
 		KT:              model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10},
 		MappingAlphaDeg: 5,
 		RefCl:           1.2514,
-		Source:          "REFERENCES.md §2: μ = (−0.1, 0.1), b = 1, τ = 10°, α = 5° in the mapping plane, chord = largest distance from the TE [derived]",
+		Source:          "docs/validation.md §2: μ = (−0.1, 0.1), b = 1, τ = 10°, α = 5° in the mapping plane, chord = largest distance from the TE [derived]",
 	},
 	{
 		Name:            "thin",

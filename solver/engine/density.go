@@ -79,7 +79,7 @@ type Extrapolation struct {
 
 // The band of observed orders a density study accepts for a Richardson
 // extrapolation. The method's formal order is about 2 (linear-strength
-// vortex panels, REFERENCES §7), and an observed order far from the formal
+// vortex panels, docs/validation.md §7), and an observed order far from the formal
 // one says that the three finest counts are not yet in the asymptotic range
 // (or that the changes are rounding noise), so the extrapolation is not to
 // be trusted (Roache, Verification and Validation in Computational Science

@@ -200,9 +200,9 @@ func ExampleRichardson() {
 }
 
 // TestDensityStudyNACA2412 runs the default counts on NACA 2412 at 4°,
-// repanelled with cosine spacing (REFERENCES §7: x = (1 − cos β)/2). Cl of
+// repanelled with cosine spacing (docs/validation.md §7: x = (1 − cos β)/2). Cl of
 // linear-strength vortex panels with edge-clustered nodes converges at
-// about second order (REFERENCES §7, observed 1.8–2.0 on a Kármán–Trefftz
+// about second order (docs/validation.md §7, observed 1.8–2.0 on a Kármán–Trefftz
 // case [derived]); [1.5, 2.5] is allowed. The study must recommend a count.
 func TestDensityStudyNACA2412(t *testing.T) {
 	res, err := DensityStudy(context.Background(), DensityOptions{}, func(n int, _ float64) (*solver.Solution, error) {
@@ -240,7 +240,7 @@ func TestDensityStudyNACA2412(t *testing.T) {
 // DensityRow's panel lengths on a placed study (250 mm chord, metres):
 // MinPanelLength is a fraction of the chord and ShortestPanel a length, both
 // equal to the shortest node-to-node distance of the solved configuration
-// (computed here directly from its nodes). With cosine spacing (REFERENCES
+// (computed here directly from its nodes). With cosine spacing (docs/validation.md
 // §7: x = (c/2)(1 − cos β), β in steps of π/(N/2)) the shortest panel of N
 // = 40 is the one at the nearly flat trailing edge, c(1 − cos(π/20))/2 ≈
 // 1.54 mm on 250 mm (0.62% of chord).
@@ -426,7 +426,7 @@ func TestDensityStudyRearWing(t *testing.T) {
 
 // The density study of NACA 2412 at 4° (model.NACA repanelled with cosine
 // spacing as the workbench does, open trailing edge, 20 … 640 panels)
-// converges monotonically at about second order (REFERENCES.md §7,
+// converges monotonically at about second order (docs/validation.md §7,
 // 1.8–2.0 on a finite-angle case [derived]; at least 1.5 required) and
 // extrapolates.
 func TestDensityStudyOpenTrailingEdge(t *testing.T) {

@@ -172,7 +172,7 @@ func TestCheckFinite(t *testing.T) {
 
 // A main element and flap (the invented rear-wing example's geometry, in
 // free air and in ground effect) converge with panel count at about second
-// order, as a lone section does (REFERENCES.md §7, derived: linear-vortex
+// order, as a lone section does (docs/validation.md §7, derived: linear-vortex
 // panels clustered at both edges).
 func TestTwoElementConvergence(t *testing.T) {
 	st := model.NewStudy()
