@@ -206,3 +206,7 @@ func writeTarget(path string, write func(io.Writer) error, through bool, inputs 
 	}
 	return &FileError{Path: path, Err: fmt.Errorf("%w: it is %s", ErrOutputKind, fileKind(m))}
 }
+
+// ReadRegular reads a regular file of at most limit bytes (OpenRegular's
+// checks; larger files are refused with ErrFileTooLarge without reading).
+func ReadRegular(path string, limit int64) ([]byte, error) { return readLimited(path, limit) }

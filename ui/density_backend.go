@@ -7,9 +7,7 @@ package ui
 import (
 	"context"
 	"io"
-	"os"
 
-	"sectionbench/export"
 	figures "sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver"
@@ -106,33 +104,4 @@ func writePanelSizeFigure(w io.Writer, ps panelSizes, maxRatio float64, format s
 		return err
 	}
 	return figures.WritePlot(w, p, format, widthIn, heightIn, dpi)
-}
-
-// writeAutosave writes the study atomically; wrap, if not nil, stands
-// between the encoder and the file (tests make it fail midway).
-func writeAutosave(path string, st []byte, wrap func(io.Writer) io.Writer) error {
-	return export.WriteFileAtomic(path, func(w io.Writer) error {
-		if wrap != nil {
-			w = wrap(w)
-		}
-		_, err := w.Write(st)
-		return err
-	})
-}
-
-// writeAutosaveNote writes the small file beside the autosave that says
-// which study file it belongs to.
-func writeAutosaveNote(path, note string) error {
-	return export.WriteFileAtomic(path, func(w io.Writer) error {
-		_, err := io.WriteString(w, note)
-		return err
-	})
-}
-
-// readAutosave reads an autosaved study, nil if there is none.
-func readAutosave(path string) (*model.Study, error) {
-	if _, err := os.Stat(path); os.IsNotExist(err) {
-		return nil, nil
-	}
-	return export.LoadStudy(path)
 }

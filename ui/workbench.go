@@ -69,6 +69,8 @@ type Workbench struct {
 	density  *densityWindow // nil until first opened
 	autosave *autosaver     // nil when autosave is off
 	saveDlg  *saveDialog    // the last "save as" dialog; nil until one opens
+	// startupErr says why the study named at start could not be opened.
+	startupErr error
 }
 
 // Options configure a workbench.
@@ -100,14 +102,20 @@ func NewWithOptions(app fyne.App, path string, opt Options) (*Workbench, error) 
 // there were any.
 func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain func() bool) (*Workbench, error) {
 	var st *model.Study
-	var err error
-	if path == "" {
-		st, err = decodeStudy(assets.DemoStudy)
-	} else {
-		st, err = loadStudy(path)
+	var err, pathErr error
+	requested := path
+	if path != "" {
+		// A study that cannot be opened does not stop the app: it starts
+		// on the demo, says what is wrong with the file, and still offers
+		// the autosave of a window that crashed.
+		if st, pathErr = loadStudy(path); pathErr != nil {
+			path = ""
+		}
 	}
-	if err != nil {
-		return nil, err
+	if path == "" {
+		if st, err = decodeStudy(assets.DemoStudy); err != nil {
+			return nil, err
+		}
 	}
 	ctl := NewController()
 	ctl.do = do
@@ -123,6 +131,10 @@ func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain
 	if path == "" {
 		// The demo is a starting point, not a file: saving asks where.
 		ctl.state.path = ""
+	}
+	if pathErr != nil {
+		w.startupErr = fmt.Errorf("%s could not be opened: %s. The demo study is open instead; the file is left as it is", requested, friendly(pathErr))
+		showError(w.startupErr, w.win)
 	}
 	return w, nil
 }
