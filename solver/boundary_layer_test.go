@@ -29,8 +29,6 @@ func blAt(bl SurfaceBL, f []float64, x float64) float64 {
 	return math.NaN()
 }
 
-func blRel(got, want float64) float64 { return math.Abs(got-want) / math.Abs(want) }
-
 func uniform(float64) float64 { return 1 }
 
 // TestBLFlatPlateLaminar compares Thwaites' method on a flat plate
@@ -63,14 +61,14 @@ func TestBLFlatPlateLaminar(t *testing.T) {
 			{"H vs 2.61", blAt(bl, bl.H, x), 2.61, 1e-12},
 			{"H vs Blasius 2.59", blAt(bl, bl.H, x), 2.59, 0.01},
 		} {
-			if e := blRel(c.got, c.want); e > c.tol {
+			if e := relErr(c.got, c.want); e > c.tol {
 				t.Errorf("x = %g: %s: got %.6g, want %.6g (rel. %.3g > %.3g)", x, c.name, c.got, c.want, e, c.tol)
 			}
 		}
 	}
 	// Squire–Young on a plate (Ue = 1): Cd = 2θ_TE, against Blasius'
 	// one-side drag 1.328/√Re (Schlichting).
-	if e := blRel(bl.Cd, 1.328/math.Sqrt(re)); e > 0.015 {
+	if e := relErr(bl.Cd, 1.328/math.Sqrt(re)); e > 0.015 {
 		t.Errorf("Cd = %.5g, Blasius %.5g (rel. %.3g)", bl.Cd, 1.328/math.Sqrt(re), e)
 	}
 	recordReadme(t, "blasius", "%.3f, %.3f", blAt(bl, bl.Theta, 0.3)*math.Sqrt(re/0.3), blAt(bl, bl.Cf, 0.3)*math.Sqrt(0.3*re))
@@ -98,7 +96,7 @@ func TestBLFlatPlateTurbulent(t *testing.T) {
 	}
 	for _, x := range []float64{0.2, 0.5, 1} {
 		want := 0.0592 * math.Pow(re*x, -0.2)
-		if got := blAt(bl, bl.Cf, x); blRel(got, want) > 0.15 {
+		if got := blAt(bl, bl.Cf, x); relErr(got, want) > 0.15 {
 			t.Errorf("x = %g: Cf = %.5g, power law %.5g", x, got, want)
 		}
 		if h := blAt(bl, bl.H, x); !(h > 1.2 && h < 1.5) { // common practice: H ≈ 1.3 on a turbulent plate
@@ -106,7 +104,7 @@ func TestBLFlatPlateTurbulent(t *testing.T) {
 		}
 	}
 	want := 0.074 * math.Pow(re, -0.2)
-	if blRel(bl.Cd, want) > 0.15 {
+	if relErr(bl.Cd, want) > 0.15 {
 		t.Errorf("Cd = %.5g, power law %.5g", bl.Cd, want)
 	}
 	t.Logf("turbulent plate Re=%g: Cf(0.5) = %.5f (power law %.5f), H(1) = %.3f, Cd = %.5f (power law %.5f)",
@@ -221,7 +219,7 @@ func TestBLStagnationStart(t *testing.T) {
 		const lam = 0.075
 		h := 2.61 - 3.75*lam + 5.24*lam*lam
 		for i := range s {
-			if blRel(bl.Theta[i], want) > 1e-9 || blRel(bl.H[i], h) > 1e-6 {
+			if relErr(bl.Theta[i], want) > 1e-9 || relErr(bl.H[i], h) > 1e-6 {
 				t.Fatalf("%s: station %d: θ = %g, H = %g, want %g, %g", c.name, i, bl.Theta[i], bl.H[i], want, h)
 			}
 		}

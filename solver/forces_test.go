@@ -6,22 +6,22 @@ import (
 	"testing"
 
 	"sectionbench/model"
+	"sectionbench/model/modeltest"
 )
 
-// Ellipse with semi-axes a, b at angle α, circulation fixed by the Kutta
-// condition at the rear end of the major axis. Mapping the circle of radius
-// R = (a+b)/2 by Joukowski's z = ζ + (R² − ((a−b)/2)²)... gives (Milne-Thomson,
-// Theoretical Hydrodynamics, ch. 6; Katz & Plotkin, Low-Speed Aerodynamics,
-// 2nd ed., sec. 6.5) Γ = 2πU(a+b) sin α, Cl = 2π(1 + b/a) sin α, and at the
-// surface point (a cos η, b sin η) the speed
-//
-//	q/U = (a+b) |sin(η − α) + sin α| / √(a² sin²η + b² cos²η),
-//
-// directed counter-clockwise (along the node order) where
-// sin(η − α) + sin α < 0. A circle is a = b.
-func ellipseExactVt(a, b, alpha, eta float64) float64 {
-	s, c := math.Sincos(eta)
-	return -(a + b) * (math.Sin(eta-alpha) + math.Sin(alpha)) / math.Sqrt(a*a*s*s+b*b*c*c)
+// ellipseVt is the exact surface velocity on the ellipse of modeltest
+// (thickness ratio tc, Kutta circulation at the rear end of the major
+// axis) at eccentric angle eta, signed along the node order: the speed
+// modeltest.EllipseSpeed (Milne-Thomson, the elliptic cylinder; docs/
+// validation.md §2), negative where sin(η − α) + sin α > 0, where the flow
+// runs against the node order.
+func ellipseVt(tc, alphaDeg, eta float64) float64 {
+	q := modeltest.EllipseSpeed(tc, eta, alphaDeg, true)
+	al := alphaDeg * math.Pi / 180
+	if math.Sin(eta-al)+math.Sin(al) > 0 {
+		return -q
+	}
+	return q
 }
 
 func TestEllipseExact(t *testing.T) {
@@ -43,7 +43,7 @@ func TestEllipseExact(t *testing.T) {
 			s := mustSystem(t, Config{Elements: []Element{{Nodes: ellipseNodes(tc.n, tc.a, tc.b, tc.a), LE: tc.n / 2}}})
 			sol := s.Solve(tc.alpha)
 			al := tc.alpha * math.Pi / 180
-			wantCl := 2 * math.Pi * (1 + tc.b/tc.a) * math.Sin(al)
+			wantCl := modeltest.EllipseCl(tc.b/tc.a, tc.alpha)
 			e := sol.Elements[0]
 			if relErr(e.Cl, wantCl) > tc.tolCl {
 				t.Errorf("Cl = %.6f, exact %.6f", e.Cl, wantCl)
@@ -56,7 +56,7 @@ func TestEllipseExact(t *testing.T) {
 				// The midpoint lies on the chord between nodes; compare at
 				// the parameter of the arc midpoint.
 				eta := 2 * math.Pi * (float64(i) + 0.5) / float64(tc.n)
-				worst = math.Max(worst, math.Abs(p.Vt-ellipseExactVt(tc.a, tc.b, al, eta)))
+				worst = math.Max(worst, math.Abs(p.Vt-ellipseVt(tc.b/tc.a, tc.alpha, eta)))
 				if math.Abs(p.Cp-(1-p.Vt*p.Vt)) > 1e-15 {
 					t.Fatalf("panel %d: Cp %g ≠ 1 − Vt²", i, p.Cp)
 				}

@@ -9,6 +9,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"sectionbench/model"
+	"sectionbench/model/modeltest"
 )
 
 // ellipseNodes returns n panels' worth of nodes (n+1 points, the first and
@@ -73,7 +74,8 @@ func mustSystem(t testing.TB, cfg Config) *System {
 	return s
 }
 
-func relErr(got, want float64) float64 { return math.Abs(got-want) / math.Abs(want) }
+// relErr is the shared relative error of the project's checks.
+var relErr = modeltest.RelErr
 
 func TestNewSystemGeometryErrors(t *testing.T) {
 	good := ellipseNodes(40, 0.5, 0.1, 0.5)

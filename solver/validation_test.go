@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"sectionbench/model"
+	"sectionbench/model/modeltest"
 )
 
 // Validation against published exact solutions and theory. Each check names
@@ -125,10 +126,9 @@ func TestKarmanTrefftzExact(t *testing.T) {
 // exact conformal-map solution rounded to four decimals, not a number
 // from a publication; the panel solution is held to it at 0.1 %.
 func TestKarmanTrefftzSampleValue(t *testing.T) {
-	const want = 1.2514 // docs/validation.md §2, four decimals
-	k := model.KarmanTrefftz{CenterX: -0.1, CenterY: 0.1, TEAngleDeg: 10}
-	alpha := 5 - k.ChordAngleDeg()
-	if ex := k.Exact(alpha); math.Abs(ex.Cl-want) > 5e-5 {
+	c := modeltest.KTCases[0]
+	want, k, alpha := c.RefCl, c.KT, c.AlphaDeg()
+	if ex := c.Exact(); math.Abs(ex.Cl-want) > 5e-5 {
 		t.Fatalf("exact solution Cl %.5f, reference %.4f", ex.Cl, want)
 	}
 	cl := mustSystem(t, Config{Elements: []Element{ktElement(t, k, 200, ktCosine)}}).Solve(alpha).Cl

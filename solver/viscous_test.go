@@ -58,7 +58,7 @@ func TestViscousSplitsAtStagnation(t *testing.T) {
 				if i > 0 && !(s > bl.S[i-1]) {
 					t.Fatalf("%s: s not increasing at %d", e.Name, i)
 				}
-				if want := math.Sqrt(0.45 / (re * []float64{1, 0.4}[k]) * (s - 5*s0/6)); blRel(bl.Theta[i], want) > 1e-9 {
+				if want := math.Sqrt(0.45 / (re * []float64{1, 0.4}[k]) * (s - 5*s0/6)); relErr(bl.Theta[i], want) > 1e-9 {
 					t.Fatalf("%s: θ(%g) = %g, want %g", e.Name, s, bl.Theta[i], want)
 				}
 			}
@@ -66,12 +66,12 @@ func TestViscousSplitsAtStagnation(t *testing.T) {
 				t.Errorf("%s: last station at x/c %g, want just ahead of %g", e.Name, last, TrailingEdgeCutXC)
 			}
 		}
-		if math.Abs(e.Cd-(e.Upper.Cd+e.Lower.Cd)) > 1e-15 || blRel(e.Upper.Cd, e.Lower.Cd) > 1e-12 {
+		if math.Abs(e.Cd-(e.Upper.Cd+e.Lower.Cd)) > 1e-15 || relErr(e.Upper.Cd, e.Lower.Cd) > 1e-12 {
 			t.Errorf("%s: Cd %g, upper %g, lower %g", e.Name, e.Cd, e.Upper.Cd, e.Lower.Cd)
 		}
 		sum += e.Cd * []float64{1, 0.4}[k]
 	}
-	if blRel(res.Cd, sum) > 1e-12 {
+	if relErr(res.Cd, sum) > 1e-12 {
 		t.Errorf("configuration Cd %g, want %g", res.Cd, sum)
 	}
 	if len(res.Notes) == 0 || !strings.Contains(res.Notes[0], "displacement") {
@@ -151,11 +151,11 @@ func TestViscousNACA0012Drag(t *testing.T) {
 	}
 	// Symmetry: both surfaces alike at α = 0 (property of the section).
 	e := free.Elements[0]
-	if blRel(e.Upper.Cd, e.Lower.Cd) > 0.01 || math.Abs(e.Upper.TransitionXC-e.Lower.TransitionXC) > 0.01 {
+	if relErr(e.Upper.Cd, e.Lower.Cd) > 0.01 || math.Abs(e.Upper.TransitionXC-e.Lower.TransitionXC) > 0.01 {
 		t.Errorf("α = 0: upper Cd %g / transition %g, lower %g / %g", e.Upper.Cd, e.Upper.TransitionXC, e.Lower.Cd, e.Lower.TransitionXC)
 	}
 	fixed := viscousAt(t, sys, 4.04, 6e6, 0.05)
-	if cd := fixed.Cd; blRel(cd, 0.00823) > 0.25 {
+	if cd := fixed.Cd; relErr(cd, 0.00823) > 0.25 {
 		t.Errorf("fixed transition, α = 4.04°: Cd = %.5f, Ladson 0.00823 ± 25 %%", cd)
 	}
 	if c := fixed.Elements[0].Upper.TransitionCause; c != TransitionTrip {

@@ -113,3 +113,8 @@ func EllipseCl(tc, alphaDeg float64) float64 {
 // 1 − 4 sin²θ at α = 0 (Milne-Thomson, Theoretical Hydrodynamics; Katz &
 // Plotkin 2nd ed. ch. 3, flow past a cylinder with circulation).
 func CircleCp(theta, alphaDeg float64) float64 { return EllipseCp(1, theta, alphaDeg, true) }
+
+// RelErr returns the relative error |got − want| / |want| of a check: the
+// one definition the tests of the project share. It is +Inf (or NaN) when
+// want is 0; compare with an absolute tolerance there.
+func RelErr(got, want float64) float64 { return math.Abs(got-want) / math.Abs(want) }

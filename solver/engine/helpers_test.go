@@ -1,11 +1,11 @@
 package engine
 
 import (
-	"math"
 	"os"
 	"testing"
 
 	"sectionbench/model"
+	"sectionbench/model/modeltest"
 	"sectionbench/solver"
 )
 
@@ -51,4 +51,5 @@ func nacaSystem(digits string, panels int) (*solver.System, error) {
 	})
 }
 
-func relErr(got, want float64) float64 { return math.Abs(got-want) / math.Abs(want) }
+// relErr is the shared relative error of the project's checks.
+var relErr = modeltest.RelErr
