@@ -1,7 +1,109 @@
 package ui
 
+import (
+	"testing"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/test"
+)
+
 // submit types s into the field and presses Enter, as a user would.
 func (f *field) submit(s string) {
 	f.SetText(s)
 	f.OnSubmitted(s)
+}
+
+// TestFieldAppliesOnCommit: typing does not apply; Enter does; a bad value
+// shows its message and, when the field is left, returns to the value in
+// use (the value the results are for).
+func TestFieldAppliesOnCommit(t *testing.T) {
+	w := newTestBench(t)
+	c := w.controls
+	cv := w.Window().Canvas()
+	before := w.ctl.Study().Flow.AlphaDeg
+
+	cv.Focus(c.alphaEntry)
+	c.alphaEntry.SetText("")
+	test.Type(c.alphaEntry, "9")
+	w.WaitIdle()
+	if got := w.ctl.Study().Flow.AlphaDeg; got != before {
+		t.Fatalf("typing applied α = %g before Enter", got)
+	}
+	test.Type(c.alphaEntry, "0") // "90": outside ±45°
+	c.alphaEntry.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
+	w.WaitIdle()
+	if got := w.ctl.Study().Flow.AlphaDeg; got != before {
+		t.Errorf("α = 90 was applied as %g", got)
+	}
+	if c.alphaMsg.Hidden {
+		t.Error("α = 90 shows no message")
+	}
+	cv.Unfocus()
+	if c.alphaEntry.Text != entryNum(before) {
+		t.Errorf("left with a bad value, the field shows %q, want the value in use %q", c.alphaEntry.Text, entryNum(before))
+	}
+
+	c.tabs.SelectIndex(2) // Panels & sweep: a field takes the focus only when shown
+	cv.Focus(c.panelEntry)
+	c.panelEntry.SetText("")
+	test.Type(c.panelEntry, "120")
+	cv.Unfocus() // leaving applies
+	w.WaitIdle()
+	if got := w.ctl.Study().Panelling.Panels; got != 120 {
+		t.Errorf("leaving the panel field applied %d panels, want 120 (field %q, message %q)", got, c.panelEntry.Text, c.panelMsg.Text)
+	}
+}
+
+// TestUndoShortcutsEverywhere: Ctrl+Z undoes and Ctrl+Y or Ctrl+Shift+Z
+// redoes a study edit whether the focus is in a field or nowhere, as the
+// window's driver delivers them (the toolkit's undo and redo shortcuts).
+func TestUndoShortcutsEverywhere(t *testing.T) {
+	w := newTestBench(t)
+	c := w.controls
+	cv := w.Window().Canvas()
+	base := w.ctl.Study().Panelling.Panels
+	c.panelEntry.submit("100")
+	w.WaitIdle()
+	for _, tc := range []struct {
+		name  string
+		focus fyne.Focusable
+		undo  fyne.Shortcut
+		redo  fyne.Shortcut
+	}{
+		{"focus in a field", c.alphaEntry, &fyne.ShortcutUndo{}, &fyne.ShortcutRedo{}},
+		{"no focus", nil, &fyne.ShortcutUndo{}, &fyne.ShortcutRedo{}},
+		{"Ctrl+Shift+Z in a field", c.naca, &fyne.ShortcutUndo{}, shortcut(fyne.KeyZ, true)},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			if tc.focus != nil {
+				cv.Focus(tc.focus)
+			} else {
+				cv.Unfocus()
+			}
+			test.TypeOnCanvas(cv, "") // nothing typed: only the shortcut acts
+			sendShortcut(cv, tc.undo)
+			w.WaitIdle()
+			if got := w.ctl.Study().Panelling.Panels; got != base {
+				t.Errorf("after undo %d panels, want %d", got, base)
+			}
+			if got := c.panelEntry.Text; got != entryNum(float64(base)) {
+				t.Errorf("after undo the panel field shows %q", got)
+			}
+			sendShortcut(cv, tc.redo)
+			w.WaitIdle()
+			if got := w.ctl.Study().Panelling.Panels; got != 100 {
+				t.Errorf("after redo %d panels, want 100", got)
+			}
+		})
+	}
+}
+
+// sendShortcut delivers s as the window's driver does: to the focused
+// widget when it takes shortcuts, otherwise to the canvas.
+func sendShortcut(cv fyne.Canvas, s fyne.Shortcut) {
+	if f, ok := cv.Focused().(fyne.Shortcutable); ok {
+		f.TypedShortcut(s)
+		return
+	}
+	cv.(interface{ TypedShortcut(fyne.Shortcut) }).TypedShortcut(s)
 }
