@@ -8,6 +8,7 @@ import (
 	"context"
 	"errors"
 	"io"
+	"math"
 
 	"sectionbench/export"
 	figures "sectionbench/export/figure"
@@ -269,3 +270,31 @@ func refChordMM(res *engineResult) float64 { return res.Layout.RefChordM * mmPer
 
 // elementChordMM returns a placed element's chord in millimetres.
 func elementChordMM(res *engineResult, i int) float64 { return res.Layout.Elements[i].Chord * mmPerM }
+
+// resultFlags returns the plausibility flags of a result at the study's
+// angle (model.Plausibility).
+func resultFlags(res *engineResult) []model.Flag {
+	if res == nil || res.Solution == nil {
+		return nil
+	}
+	cp := math.Inf(1)
+	for _, e := range res.Solution.Elements {
+		cp = math.Min(cp, e.CpMin)
+	}
+	return model.Plausibility(model.PointFacts{CpMin: cp, HOverC: hOverC(res)})
+}
+
+// sweepFlags returns the plausibility flags of one angle of a sweep.
+func sweepFlags(res *engineResult, c solver.Coefficients) []model.Flag {
+	return model.Plausibility(model.PointFacts{CpMin: c.CpMin, HOverC: hOverC(res)})
+}
+
+// hOverC is the ground clearance over the main element's chord, NaN in
+// free air.
+func hOverC(res *engineResult) float64 {
+	l := res.Layout
+	if l == nil || !l.Ground || len(l.Elements) == 0 {
+		return math.NaN()
+	}
+	return l.ClearanceM / l.Elements[0].Chord
+}

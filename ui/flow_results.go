@@ -38,6 +38,9 @@ func (r *resultsPanel) show(res *engineResult) {
 	r.table.SetText(table)
 	r.note.SetText(note)
 	r.note.Importance = widget.MediumImportance
+	if len(resultFlags(res)) > 0 {
+		r.note.Importance = widget.WarningImportance
+	}
 	r.note.Refresh()
 }
 
@@ -140,6 +143,13 @@ func resultsText(res *engineResult) (table, note string) {
 		n = append(n, "x/c from each element's leading edge; — none. Cd "+dash+": a surface separated, outside the method's range.")
 	}
 	n = append(n, fmt.Sprintf("Solved in %d ms.", res.Elapsed.Milliseconds()))
+	if fl := resultFlags(res); len(fl) > 0 {
+		var w []string
+		for _, f := range fl {
+			w = append(w, "Caution, "+string(f.Kind)+": "+f.Message+".")
+		}
+		n = append(w, n...)
+	}
 	return table, strings.Join(n, " ")
 }
 

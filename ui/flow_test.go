@@ -98,7 +98,7 @@ func TestForcesWithSpeed(t *testing.T) {
 		t.Fatalf("inverted cambered section at 4°: downforce %g N/m, want positive", f.DownforcePerSpan)
 	}
 	for _, want := range []string{
-		"−Cl " + fixed(-res.Solution.Cl, 3) + " (+ down)",
+		"−Cl " + fixed(-res.Solution.Cl, 3) + " (from circulation, + down)",
 		"downforce " + fixed(f.DownforcePerSpan, 1) + " N/m",
 	} {
 		if !strings.Contains(w.status.Full(), want) {

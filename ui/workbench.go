@@ -264,7 +264,13 @@ func (w *Workbench) lastScene() *scene {
 }
 
 func (w *Workbench) showStatus(res *engineResult) {
-	w.status.set(statusItems(res), widget.MediumImportance)
+	items, imp := statusItems(res), widget.MediumImportance
+	if fl := resultFlags(res); len(fl) > 0 {
+		// First, so that it is never left off a narrow line.
+		items = append([]string{"Caution: " + model.FlagWords(fl) + " (see results)"}, items...)
+		imp = widget.WarningImportance
+	}
+	w.status.set(items, imp)
 	clean := 0
 	for _, r := range w.ctl.Reports() {
 		if r != nil {
@@ -305,9 +311,9 @@ func statusItems(res *engineResult) []string {
 	inv := res.Layout != nil && res.Layout.Inverted
 	var parts []string
 	if inv {
-		parts = append(parts, "−Cl "+fixed(downforceOf(s.Cl), 3)+" (+ down)")
+		parts = append(parts, "−Cl "+fixed(downforceOf(s.Cl), 3)+" (from circulation, + down)")
 	} else {
-		parts = append(parts, "Cl "+fixed(s.Cl, 3)+" (+ up)")
+		parts = append(parts, "Cl "+fixed(s.Cl, 3)+" (from circulation, + up)")
 	}
 	if f := res.Forces; f != nil {
 		name, per := "lift ", f.LiftPerSpan

@@ -1,0 +1,97 @@
+package model
+
+import (
+	"fmt"
+	"math"
+)
+
+// A Flag marks a result that must not be taken at face value, saying in
+// plain words what it means for the wing. Rules live here, not in the user
+// interface, so the app, the command line and the report flag alike.
+type Flag struct {
+	Kind    FlagKind
+	Message string
+}
+
+// FlagKind names what a flag is about, in words fit for a table column.
+type FlagKind string
+
+// The kinds of flag. The viscous ones are raised from facts the coupled
+// viscous solution supplies (PointFacts.Viscous); until it does, they stay
+// silent.
+const (
+	FlagSuction      FlagKind = "suction beyond real flows"
+	FlagGround       FlagKind = "very close to the ground"
+	FlagPastClMax    FlagKind = "past maximum lift"
+	FlagNotConverged FlagKind = "viscous solution not converged"
+	FlagSeparated    FlagKind = "separated"
+)
+
+// CpMinPlausible is the lowest suction-peak pressure coefficient taken as
+// physically possible at the team's Reynolds numbers (1.5e5–8e5). From
+// memory, common practice: measured suction peaks on wing sections in this
+// range seldom go below about −6 to −8 before the boundary layer separates
+// (flight-Reynolds-number high-lift rules such as Valarezo and Chin's
+// pressure-difference rule allow more, up to about −12); a potential-flow
+// answer beyond −8 is a wing that would have stalled.
+const CpMinPlausible = -8
+
+// GroundHOverCMin is the clearance over chord below which real inverted
+// wings lose downforce as the suction side separates (Zerihan & Zhang,
+// J. Aircraft 37(6), 2000: the force peaks near h/c ≈ 0.1 and falls below);
+// potential flow shows only the rise.
+const GroundHOverCMin = 0.1
+
+// PointFacts are what the plausibility rules look at for one result.
+type PointFacts struct {
+	CpMin float64 // smallest Cp over every element
+	// HOverC is the ground clearance over the main element's chord; NaN
+	// without a ground.
+	HOverC float64
+	// Viscous holds the viscous solution's verdict on this point; nil
+	// when it has not run.
+	Viscous *ViscousFacts
+}
+
+// ViscousFacts are the states the coupled viscous solution reports for a
+// point; each true one raises its flag.
+type ViscousFacts struct {
+	PastClMax    bool // beyond the angle of the viscous solution's maximum lift
+	NotConverged bool
+	Separated    bool // the viscous solution finds the flow separated: the inviscid answer does not hold
+}
+
+// Plausibility returns the flags a result raises, most serious first.
+func Plausibility(f PointFacts) []Flag {
+	var flags []Flag
+	if v := f.Viscous; v != nil {
+		if v.Separated {
+			flags = append(flags, Flag{FlagSeparated, "the viscous solution finds the flow separated: the wing would stall here and the inviscid downforce or lift is not reached"})
+		}
+		if v.PastClMax {
+			flags = append(flags, Flag{FlagPastClMax, "past the viscous solution's maximum lift: the real wing gives less, not more, as the angle grows"})
+		}
+		if v.NotConverged {
+			flags = append(flags, Flag{FlagNotConverged, "the viscous solution did not converge at this point: its numbers are not an answer"})
+		}
+	}
+	if f.CpMin < CpMinPlausible {
+		flags = append(flags, Flag{FlagSuction, fmt.Sprintf("suction peak Cp %.1f is beyond the about %d real flows sustain at these Reynolds numbers: the wing would separate and give far less force than shown", f.CpMin, CpMinPlausible)})
+	}
+	if !math.IsNaN(f.HOverC) && f.HOverC < GroundHOverCMin {
+		flags = append(flags, Flag{FlagGround, fmt.Sprintf("ground clearance %.2f chords is below about %.1f, where real wings lose downforce as the suction side separates; this model shows only the rise", f.HOverC, GroundHOverCMin)})
+	}
+	return flags
+}
+
+// FlagWords joins the kinds of flags for a status line or table cell.
+func FlagWords(flags []Flag) string {
+	s := ""
+	for i, f := range flags {
+		if i > 0 {
+			s += "; "
+		}
+		s += string(f.Kind)
+	}
+	return s
+}

@@ -1,0 +1,34 @@
+package ui
+
+import (
+	"strings"
+	"testing"
+
+	"sectionbench/model"
+)
+
+// TestPlausibilityFlagsShown: the two-element wing at 5 mm from the ground
+// (h/c 0.02) is flagged in the status line and the results note, in words.
+func TestPlausibilityFlagsShown(t *testing.T) {
+	w := openRearWing(t)
+	w.controls.clearance.submit("5")
+	current(t, w)
+	status := w.status.Full()
+	if !strings.HasPrefix(status, "Caution: ") || !strings.Contains(status, string(model.FlagGround)) {
+		t.Errorf("status line %q does not lead with the ground flag", status)
+	}
+	if note := w.results.note.Text; !strings.Contains(note, "lose downforce") {
+		t.Errorf("results note %q does not say what the flag means", note)
+	}
+	for _, s := range []string{status, w.results.note.Text} {
+		if strings.Contains(s, "ClPressure") || strings.Contains(s, "CpMin") {
+			t.Errorf("a code identifier in %q", s)
+		}
+	}
+	// At a sensible clearance the flag goes.
+	w.controls.clearance.submit("150")
+	current(t, w)
+	if s := w.status.Full(); strings.Contains(s, string(model.FlagGround)) {
+		t.Errorf("status line %q still flags the ground at 150 mm", s)
+	}
+}
