@@ -93,6 +93,14 @@ const (
 	// bluntCornerDeg: each corner of a blunt trailing edge turns by at
 	// least this much (a square base turns by about 90° at each).
 	bluntCornerDeg = 30.0
+	// baseStraightDeg and baseStraightness: points drawn along a blunt
+	// trailing edge's base (as CAD exports list them) turn by at most
+	// baseStraightDeg each, and the run from corner to corner is at most
+	// baseStraightness times the straight distance: a nearly straight
+	// run, not a rounded end.
+	baseStraightDeg  = 10.0
+	baseStraightness = 1.05
+	maxBaseRunPoints = 50
 	// startPreference: the file's own start is kept as the trailing edge
 	// when its sharpness is at least this fraction of the best candidate's.
 	startPreference = 0.8
@@ -307,8 +315,8 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	var cont []Point
 	var idx []int
 	if te.edge {
-		for k := range n {
-			j := (te.i + 1 + k) % n
+		for k := range n - te.base {
+			j := (te.other(n) + k) % n
 			cont = append(cont, ring[j])
 			idx = append(idx, orig[j])
 		}
@@ -319,15 +327,25 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 			idx = append(idx, orig[j])
 		}
 	}
-	if te.edge {
+	switch {
+	case te.edge && te.base > 0:
+		j := te.other(n)
+		var onBase []int
+		for m := 1; m <= te.base; m++ {
+			onBase = append(onBase, orig[(te.i+m)%n])
+		}
+		mid := toOrigPoint(ring[te.i].Add(ring[j]).Scale(0.5), ctr, half)
+		rep.Detected = append(rep.Detected, fmt.Sprintf("trailing edge: a blunt base drawn from point %d to point %d with %d %s on it (corners turning by %.0f° together)", orig[te.i]+1, orig[j]+1, te.base, plural(te.base, "point", "points"), te.score))
+		rep.Changes = append(rep.Changes, fmt.Sprintf("dropped %s, drawn along the trailing-edge base, and took the base's midpoint (%s) as the trailing edge; the base is left open as a blunt trailing edge", pointList(onBase), fmtPoint(mid)))
+	case te.edge:
 		j := (te.i + 1) % n
 		rep.Detected = append(rep.Detected, fmt.Sprintf("trailing edge: the gap between points %d and %d (corners turning by %.0f° together)", orig[te.i]+1, orig[j]+1, te.score))
-	} else {
+	default:
 		rep.Detected = append(rep.Detected, fmt.Sprintf("trailing edge: the corner at point %d (turning by %.0f°)", orig[te.i]+1, te.score))
 	}
 	fileStart := te.i == n-1 && te.edge && !closed || te.i == 0 && !te.edge && closed
 	switch {
-	case fileStart:
+	case fileStart, te.base > 0 && te.other(n) == 0:
 	case te.i == n-1 && te.edge && closed:
 		rep.Changes = append(rep.Changes, fmt.Sprintf("the last point repeated the first (point %d), closing the blunt trailing edge with a straight base; dropped it, leaving the gap open", orig[0]+1))
 	case te.i == 0 && !te.edge && !closed:
@@ -335,7 +353,7 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	default:
 		where := fmt.Sprintf("the sharp corner at point %d (%s)", orig[te.i]+1, fmtPoint(pts[orig[te.i]]))
 		if te.edge {
-			j := (te.i + 1) % n
+			j := te.other(n)
 			where = fmt.Sprintf("the gap between points %d (%s) and %d (%s)", orig[te.i]+1, fmtPoint(pts[orig[te.i]]), orig[j]+1, fmtPoint(pts[orig[j]]))
 		}
 		msg := "the list did not start at the trailing edge: started the contour at " + where
@@ -495,12 +513,17 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 }
 
 // teChoice is the trailing edge in a ring: vertex i (sharp), or the gap
-// edge from ring[i] to ring[i+1] (blunt).
+// from corner ring[i] to corner ring[i+1+base] (blunt), with base points
+// drawn along the base between them.
 type teChoice struct {
 	i     int
 	edge  bool
+	base  int     // points drawn on the base between the two corners
 	score float64 // turning in degrees: the vertex's, or both corners'
 }
+
+// other returns the second corner of a blunt trailing edge.
+func (c teChoice) other(n int) int { return (c.i + 1 + c.base) % n }
 
 // findTE finds the trailing edge of a ring of distinct points. The two ends
 // of the section are the point A farthest from the centroid (either edge)
@@ -554,6 +577,23 @@ func findTE(ring []Point, closed bool) teChoice {
 			if near(j) && turn[i] >= bluntCornerDeg && turn[j] >= bluntCornerDeg {
 				cs = append(cs, teChoice{i: i, edge: true, score: turn[i] + turn[j]})
 			}
+			if turn[i] < bluntCornerDeg {
+				continue
+			}
+			// A base drawn with points on it: corner i, a nearly straight
+			// run of points, corner j.
+			run := 0.0
+			for m := 1; m <= maxBaseRunPoints && m < n-2; m++ {
+				k := (i + m) % n
+				run += ring[k].Dist(ring[(i+m-1)%n])
+				if !near(k) || math.Abs(turn[k]) > baseStraightDeg {
+					break
+				}
+				j := (i + m + 1) % n
+				if near(j) && turn[j] >= bluntCornerDeg && run+ring[j].Dist(ring[k]) <= baseStraightness*ring[j].Dist(ring[i]) {
+					cs = append(cs, teChoice{i: i, edge: true, base: m, score: turn[i] + turn[j]})
+				}
+			}
 		}
 		return cs
 	}
@@ -573,7 +613,8 @@ func findTE(ring []Point, closed bool) teChoice {
 		start = teChoice{i: n - 1, edge: true}
 	}
 	for _, c := range all {
-		if c.i == start.i && c.edge == start.edge && c.score >= startPreference*best.score {
+		own := c.i == start.i && c.edge == start.edge && c.base == 0 || c.edge && c.base > 0 && c.other(n) == 0
+		if own && c.score >= startPreference*best.score {
 			return c
 		}
 	}
@@ -785,4 +826,9 @@ func (s surface) y(x float64) (float64, bool) {
 	}
 	t := (x - a.X) / (b.X - a.X)
 	return a.Y + t*(b.Y-a.Y), true
+}
+
+// toOrigPoint undoes Clean's pre-normalisation: p·2·half + ctr.
+func toOrigPoint(p, ctr Point, half float64) Point {
+	return Point{p.X*2*half + ctr.X, p.Y*2*half + ctr.Y}
 }
