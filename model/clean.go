@@ -123,6 +123,7 @@ var (
 	ErrAllPointsEqual = errors.New("all points are equal")
 	ErrOpenContour    = errors.New("open contour: the points do not form a closed section")
 	ErrFlatContour    = errors.New("the contour encloses no area")
+	ErrSeveralLoops   = errors.New("several closed loops in one section")
 )
 
 // ContourError reports a contour Clean cannot turn into a section.
@@ -274,6 +275,21 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	q := make([]Point, len(pts))
 	for i, p := range pts {
 		q[i] = Point{(p.X - ctr.X) / half / 2, (p.Y - ctr.Y) / half / 2}
+	}
+
+	// 0. Several loops: the list comes back to its first point and goes
+	// on (a main plane and a flap drawn in one file).
+	if loops := closedLoops(q, tol); len(loops) > 1 {
+		var parts []string
+		for k, from := range loops {
+			to := len(q)
+			if k+1 < len(loops) {
+				to = loops[k+1]
+			}
+			parts = append(parts, fmt.Sprintf("points %d–%d", from+1, to))
+		}
+		return fail(loops[1], fmt.Errorf("the points close a loop and go on: %d closed loops (%s), as when a main plane and a flap are drawn in one file; one section is one loop, so give each loop its own file and load it as its own element: %w",
+			len(loops), strings.Join(parts, ", "), ErrSeveralLoops))
 	}
 
 	// 1. Duplicates.
@@ -831,4 +847,20 @@ func (s surface) y(x float64) (float64, bool) {
 // toOrigPoint undoes Clean's pre-normalisation: p·2·half + ctr.
 func toOrigPoint(p, ctr Point, half float64) Point {
 	return Point{p.X*2*half + ctr.X, p.Y*2*half + ctr.Y}
+}
+
+// closedLoops returns the first index of each loop in pts: a loop ends at
+// a point within tol of its own first point that is followed by at least
+// MinSectionPoints more points, which start the next loop. One loop (a
+// section, closed at its end or not) gives [0].
+func closedLoops(pts []Point, tol float64) []int {
+	starts := []int{0}
+	s := 0
+	for i := 3; i < len(pts); i++ {
+		if i-s >= 3 && pts[i].Dist(pts[s]) <= tol && len(pts)-1-i >= MinSectionPoints {
+			s = i + 1
+			starts = append(starts, s)
+		}
+	}
+	return starts
 }

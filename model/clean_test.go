@@ -2,6 +2,7 @@ package model
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"strings"
@@ -696,5 +697,41 @@ func TestCleanDrawnBase(t *testing.T) {
 				t.Errorf("the report does not say the base was found:\n%s", rep)
 			}
 		})
+	}
+}
+
+// TestCleanRefusesSeveralLoops: a main plane and a flap drawn in one file
+// (each a closed loop) used to be accepted as one section and solved; it
+// is refused with the reason, naming where the second loop starts.
+func TestCleanRefusesSeveralLoops(t *testing.T) {
+	main := naca0012Loop(31)
+	var flap []Point
+	for _, p := range naca0012Loop(21) {
+		flap = append(flap, p.Rotate(Point{}, -0.4).Scale(0.3).Add(Point{1.02, -0.06}))
+	}
+	for _, tc := range []struct {
+		name  string
+		pts   []Point
+		loops int
+		at    int // zero-based first point of the second loop
+	}{
+		{"main plane and flap", append(append([]Point{}, main...), flap...), 2, len(main)},
+		{"three loops", append(append(append([]Point{}, main...), flap...), main...), 3, len(main)},
+		{"second loop left open", append(append([]Point{}, main...), flap[:len(flap)-1]...), 2, len(main)},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			_, _, err := Clean(tc.name, tc.pts, DefaultCleanOptions)
+			var ce *ContourError
+			if !errors.Is(err, ErrSeveralLoops) || !errors.As(err, &ce) || ce.Index != tc.at {
+				t.Fatalf("error %v, want ErrSeveralLoops at point %d", err, tc.at+1)
+			}
+			if want := fmt.Sprintf("%d closed loops", tc.loops); !strings.Contains(err.Error(), want) || !strings.Contains(err.Error(), "own element") {
+				t.Errorf("message %q does not say %q and what to do", err, want)
+			}
+		})
+	}
+	// One loop closed at its end is one section.
+	if _, _, err := Clean("one loop", main, DefaultCleanOptions); err != nil {
+		t.Errorf("one closed loop: %v", err)
 	}
 }
