@@ -114,6 +114,14 @@ const (
 	// of x or an overlap of the surfaces is rounding, not data.
 	monotoneTol = 1e-7
 	crossingTol = 1e-9
+	// noseCurlXC: ahead of this chord fraction x may rise towards the
+	// leading edge. A cambered section kept on its published chord curls
+	// slightly ahead of the leading edge on the upper surface: the upper
+	// surface lies at x − y_t sin θ (Abbott & von Doenhoff, Theory of Wing
+	// Sections, 1959, eq. 6.1), about −0.0005 c at its foremost for the
+	// NACA 23012 and less for the 4- and 6-digit families, so that is no
+	// fault of the file.
+	noseCurlXC = 0.002
 	// reportTol: relative changes smaller than this are not reported.
 	reportTol = 1e-9
 )
@@ -716,6 +724,9 @@ func sectionWarnings(pts []Point, le int, gap float64, closedTE bool) []CleanWar
 	}{{"upper", 0, le, -1}, {"lower", le, n - 1, 1}} {
 		bad, first := 0, -1
 		for i := s.from; i < s.to; i++ {
+			if math.Max(pts[i].X, pts[i+1].X) < noseCurlXC {
+				continue // the nose, see noseCurlXC
+			}
 			if s.direction*(pts[i+1].X-pts[i].X) < -monotoneTol {
 				if first < 0 {
 					first = i + 1

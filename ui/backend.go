@@ -127,12 +127,19 @@ func writeFigure(w io.Writer, v viewKind, sc *scene, format string, widthIn, hei
 	return figures.WriteFigure(w, exportViews[v], &c, format, widthIn, heightIn, dpi)
 }
 
-func writeCpTable(w io.Writer, res *engineResult) error { return format.WriteCpTable(w, res.Solution) }
+func writeCpTable(w io.Writer, meta format.Metadata, res *engineResult) error {
+	return format.WriteCpTable(w, meta, res.Solution)
+}
 
 // writeSweepTable writes the sweep, with its boundary-layer estimate when
 // viscous is not nil (parallel to sweep).
-func writeSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []engine.ViscousPoint) error {
-	return format.WriteSweepTable(w, sweep, viscous)
+func writeSweepTable(w io.Writer, meta format.Metadata, sweep []solver.Coefficients, viscous []engine.ViscousPoint) error {
+	return format.WriteSweepTable(w, meta, sweep, viscous)
+}
+
+// tableMetadata heads a CSV of study st solved as res (nil when unknown).
+func tableMetadata(st *model.Study, res *engineResult, version string) format.Metadata {
+	return format.StudyMetadata(st, res, "Sectionbench "+version)
 }
 
 // writeReport writes the team report; density may be nil.

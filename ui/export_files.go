@@ -55,10 +55,10 @@ func (w *Workbench) writeCoordinates(dir string) ([]string, error) {
 			opt    format.CoordOptions
 			csv    bool
 		}{
-			{".dat", format.CoordOptions{}, false},
-			{"-mm.dat", format.CoordOptions{ChordMM: e.ChordMM}, false},
-			{".csv", format.CoordOptions{}, true},
-			{"-mm.csv", format.CoordOptions{ChordMM: e.ChordMM}, true},
+			{".dat", format.CoordOptions{Element: e.Name, Study: st.Name}, false},
+			{"-mm.dat", format.CoordOptions{ChordMM: e.ChordMM, Element: e.Name, Study: st.Name}, false},
+			{".csv", format.CoordOptions{Element: e.Name, Study: st.Name, Program: "Sectionbench " + w.app.Metadata().Version}, true},
+			{"-mm.csv", format.CoordOptions{ChordMM: e.ChordMM, Element: e.Name, Study: st.Name, Program: "Sectionbench " + w.app.Metadata().Version}, true},
 		} {
 			name := stem + f.suffix
 			sec, opt, csv := secs[i], f.opt, f.csv
@@ -191,7 +191,7 @@ func (w *Workbench) writeBoundaryLayer(dir string) ([]string, error) {
 	}
 	name := w.exportBase() + "-boundary-layer.csv"
 	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-		return format.WriteBoundaryLayerTable(out, res.Viscous)
+		return format.WriteBoundaryLayerTable(out, tableMetadata(w.ctl.Study(), res, w.app.Metadata().Version), res.Viscous)
 	})
 }
 

@@ -205,7 +205,7 @@ func (w *Workbench) writeCpTable(dir string) ([]string, error) {
 	}
 	name := w.exportBase() + "-cp.csv"
 	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-		return writeCpTable(out, res)
+		return writeCpTable(out, tableMetadata(w.ctl.Study(), res, w.app.Metadata().Version), res)
 	})
 }
 
@@ -219,6 +219,6 @@ func (w *Workbench) writeSweepTable(dir string) ([]string, error) {
 	}
 	name := w.exportBase() + "-sweep.csv"
 	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-		return writeSweepTable(out, sw, vis)
+		return writeSweepTable(out, tableMetadata(w.ctl.Study(), nil, w.app.Metadata().Version), sw, vis)
 	})
 }

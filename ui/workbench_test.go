@@ -646,7 +646,11 @@ func TestExportCarriesSweepAndDensity(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if head, _, _ := strings.Cut(string(b), "\n"); !strings.Contains(head, "cd") && !strings.Contains(head, "Cd") {
+	body := string(b)
+	for strings.HasPrefix(body, "# ") { // CSV metadata
+		_, body, _ = strings.Cut(body, "\n")
+	}
+	if head, _, _ := strings.Cut(body, "\n"); !strings.Contains(head, "cd") && !strings.Contains(head, "Cd") {
 		t.Errorf("sweep table header %q has no drag column", head)
 	}
 	files, err := w.writeFigures("svg")(dir)

@@ -35,7 +35,7 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 	out := fs.String("o", "", "output `file` (- for standard output, text formats only)")
 	table := fs.String("table", "coords", "with --what csv: coords, cp (surface Cp per element), sweep, or bl (boundary layer)")
 	element := fs.Int("element", 1, "element `number` for coords (1 = main)")
-	chordMM := fs.Float64("chord-mm", 0, "chord in `mm`: coordinates at this chord (0: unit chord); for an outline of --section, the chord (default 1000)")
+	chordMM := fs.Float64("chord-mm", -1, "chord in `mm`: coordinates at this chord (default: the element's own chord with --study, unit chord with --section; 0: unit chord); for an outline of --section, the chord (default 1000)")
 	points := fs.Int("points", 0, "repanel the coordinates to this many `panels` first (with --spacing)")
 	skin := fs.Float64("skin-mm", 0, "outline: also draw the inward offset by this skin thickness in `mm` (rib template)")
 	placed := fs.Bool("placed", false, "outline: keep the elements where the study puts them (assembly) instead of one rib template per element")
@@ -57,7 +57,7 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 	if err := checkFigureSize(*width, *height, *dpi); err != nil {
 		return err
 	}
-	if !(*chordMM >= 0 && *chordMM <= model.MaxChordMM) {
+	if *chordMM != -1 && !(*chordMM >= 0 && *chordMM <= model.MaxChordMM) {
 		return usagef("--chord-mm %g: want 0 (unit chord) to %g mm", *chordMM, float64(model.MaxChordMM))
 	}
 	if !(*skin >= 0 && *skin < 1000) {
@@ -84,7 +84,13 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 		if *element < 1 || *element > len(secs) {
 			return usagef("--element %d: the study has %d element(s)", *element, len(secs))
 		}
-		o := format.CoordOptions{ChordMM: *chordMM}
+		o := format.CoordOptions{ChordMM: max(*chordMM, 0), Program: "Sectionbench " + version}
+		if in.study != "" {
+			o.Element, o.Study = st.Elements[*element-1].Name, st.Name
+			if *chordMM < 0 {
+				o.ChordMM = st.Elements[*element-1].ChordMM
+			}
+		}
 		if *points > 0 {
 			p := st.Panelling
 			p.Panels = *points
@@ -230,11 +236,17 @@ func tableWriter(table string, st *model.Study, secs []*model.Section) (func(io.
 	}
 	switch table {
 	case "cp":
-		return func(w io.Writer) error { return format.WriteCpTable(w, res.Solution) }, nil
+		return func(w io.Writer) error {
+			return format.WriteCpTable(w, format.StudyMetadata(st, res, "Sectionbench "+version), res.Solution)
+		}, nil
 	case "sweep":
-		return func(w io.Writer) error { return format.WriteSweepTable(w, res.Sweep, res.SweepViscous) }, nil
+		return func(w io.Writer) error {
+			return format.WriteSweepTable(w, format.StudyMetadata(st, res, "Sectionbench "+version), res.Sweep, res.SweepViscous)
+		}, nil
 	}
-	return func(w io.Writer) error { return format.WriteBoundaryLayerTable(w, res.Viscous) }, nil
+	return func(w io.Writer) error {
+		return format.WriteBoundaryLayerTable(w, format.StudyMetadata(st, res, "Sectionbench "+version), res.Viscous)
+	}, nil
 }
 
 func cmdReport(args []string, stdout, stderr io.Writer) error {

@@ -160,7 +160,7 @@ func TestSweepCSVAndText(t *testing.T) {
 		}
 		rows := 0
 		for _, l := range strings.Split(strings.TrimSpace(out), "\n") {
-			if !strings.HasPrefix(l, "caution:") && !strings.HasPrefix(l, "warning:") {
+			if !strings.HasPrefix(l, "caution:") && !strings.HasPrefix(l, "warning:") && !strings.HasPrefix(l, "# ") {
 				rows++
 			}
 		}
@@ -276,7 +276,11 @@ func TestExportAndReport(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			if !strings.HasPrefix(strings.TrimLeft(string(b), " "), tc.starts) {
+			body := strings.TrimLeft(string(b), " ")
+			for strings.HasPrefix(body, "# ") { // CSV metadata
+				_, body, _ = strings.Cut(body, "\n")
+			}
+			if !strings.HasPrefix(body, tc.starts) {
 				t.Errorf("file starts %q, want %q", string(b[:min(len(b), 40)]), tc.starts)
 			}
 		})

@@ -4,6 +4,7 @@ import (
 	"context"
 	"fmt"
 	"io"
+	"sectionbench/model"
 	"text/tabwriter"
 
 	"sectionbench/export/format"
@@ -47,7 +48,7 @@ func cmdSweep(args []string, stdout, stderr io.Writer) error {
 	case "json":
 		return writeJSON(stdout, rows)
 	case "csv":
-		return sweepCSV(stdout, res)
+		return sweepCSV(stdout, st, res)
 	}
 	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', tabwriter.AlignRight)
 	head := "alpha_deg\tcl\tcl_pressure\tcm\tcp_min\t"
@@ -80,6 +81,6 @@ func fmtShort(f float64, format string) string {
 	return fmt.Sprintf(format, f)
 }
 
-func sweepCSV(w io.Writer, res *engine.Result) error {
-	return format.WriteSweepTable(w, res.Sweep, res.SweepViscous)
+func sweepCSV(w io.Writer, st *model.Study, res *engine.Result) error {
+	return format.WriteSweepTable(w, format.StudyMetadata(st, res, "Sectionbench "+version), res.Sweep, res.SweepViscous)
 }

@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"strconv"
+	"slices"
 	"strings"
 
 	"sectionbench/model"
@@ -32,6 +33,11 @@ type CoordOptions struct {
 	// Decimals after the point; 0 means DefaultUnitDecimals or
 	// DefaultMMDecimals.
 	Decimals int
+	// Element and Study name where the section comes from, written in the
+	// name line and the CSV metadata; empty for a section on its own.
+	Element, Study string
+	// Program names the program and its version in the CSV metadata.
+	Program string
 }
 
 func (o CoordOptions) validate() error {
@@ -88,14 +94,49 @@ func coordPoints(sec *model.Section, o CoordOptions) ([]model.Point, error) {
 // coordName is the name line: the section's name, with the chord when the
 // coordinates are in millimetres.
 func coordName(sec *model.Section, o CoordOptions) string {
-	name := strings.TrimSpace(strings.ReplaceAll(sec.Name(), "\n", " "))
+	name, about := splitNameNote(oneLine(sec.Name()))
 	if name == "" {
 		name = "section"
 	}
+	if o.Element != "" && !slices.Contains(about, "element "+oneLine(o.Element)) {
+		about = append(about, "element "+oneLine(o.Element))
+	}
 	if o.ChordMM > 0 {
-		name += fmt.Sprintf(" (chord %s mm, coordinates in mm)", strconv.FormatFloat(o.ChordMM, 'f', -1, 64))
+		about = append(about, fmt.Sprintf("chord %s mm, coordinates in mm", strconv.FormatFloat(o.ChordMM, 'f', -1, 64)))
+	}
+	if len(about) > 0 {
+		name += " (" + strings.Join(about, ", ") + ")"
 	}
 	return name
+}
+
+// splitNameNote splits a name line this package wrote, "NAME (element E,
+// chord C mm, coordinates in mm)", into the name and the notes that still
+// hold whatever the coordinates' scale: the chord and units are dropped,
+// so that a file read back and written at another scale (a cleaned mm
+// file is at unit chord) never states the old units.
+func splitNameNote(line string) (string, []string) {
+	if !strings.HasSuffix(line, ")") {
+		return line, nil
+	}
+	open := strings.LastIndex(line, " (")
+	if open < 0 {
+		return line, nil
+	}
+	var keep []string
+	ours := false
+	for _, part := range strings.Split(line[open+2:len(line)-1], ", ") {
+		switch {
+		case strings.HasPrefix(part, "chord ") && strings.HasSuffix(part, " mm"), part == "coordinates in mm":
+			ours = true
+		default:
+			keep = append(keep, part)
+		}
+	}
+	if !ours && !(len(keep) == 1 && strings.HasPrefix(keep[0], "element ")) {
+		return line, nil // someone else's parentheses
+	}
+	return line[:open], keep
 }
 
 // formatCoord formats v with dec decimals and no negative zero.
@@ -131,11 +172,21 @@ func WriteCoordinates(w io.Writer, sec *model.Section, o CoordOptions) error {
 	return bw.Flush()
 }
 
-// WriteCoordinatesCSV writes the same points as CSV with a header row,
-// "x,y" in unit chord or "x_mm,y_mm" at real chord.
+// WriteCoordinatesCSV writes the same points as CSV: metadata comment
+// lines (section, element, study, units, chord), then a header row, "x,y"
+// in unit chord or "x_mm,y_mm" at real chord.
 func WriteCoordinatesCSV(w io.Writer, sec *model.Section, o CoordOptions) error {
 	pts, err := coordPoints(sec, o)
 	if err != nil {
+		return err
+	}
+	units := "fractions of the chord (unit chord)"
+	if o.ChordMM > 0 {
+		units = fmt.Sprintf("millimetres at a chord of %s mm", strconv.FormatFloat(o.ChordMM, 'f', -1, 64))
+	}
+	m := Metadata{Study: o.Study, Element: o.Element, AlphaDeg: NoAngle, Program: o.Program,
+		Extra: []string{"section: " + sec.Name(), "order: trailing edge, upper surface, leading edge, lower surface, trailing edge"}}
+	if err := m.write(w, units, "x runs along the element's own chord from its leading edge at (0, 0)"); err != nil {
 		return err
 	}
 	dec := o.decimals()

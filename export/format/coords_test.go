@@ -2,7 +2,6 @@ package format
 
 import (
 	"bytes"
-	"encoding/csv"
 	"errors"
 	"math"
 	"strings"
@@ -81,10 +80,7 @@ func TestCoordinatesCSV(t *testing.T) {
 		if err := WriteCoordinatesCSV(&b, sec, c.opt); err != nil {
 			t.Fatal(err)
 		}
-		recs, err := csv.NewReader(&b).ReadAll()
-		if err != nil {
-			t.Fatal(err)
-		}
+		recs := readCSV(t, b.Bytes())
 		if strings.Join(recs[0], ",") != c.head || len(recs) != sec.Len()+1 {
 			t.Errorf("header %v, %d rows for %d points", recs[0], len(recs)-1, sec.Len())
 		}
@@ -122,6 +118,29 @@ func TestFormatCoord(t *testing.T) {
 	}{{-0.0000001, 6, "0.000000"}, {-0.5, 3, "-0.500"}, {1, 6, "1.000000"}} {
 		if got := formatCoord(c.v, c.dec); got != c.want {
 			t.Errorf("formatCoord(%g, %d) = %q, want %q", c.v, c.dec, got, c.want)
+		}
+	}
+}
+
+// A name line this package wrote is rewritten for the scale written, so a
+// mm file cleaned back to unit chord never says "coordinates in mm".
+func TestCoordNameRewritesUnits(t *testing.T) {
+	for _, c := range []struct {
+		name, in string
+		o        CoordOptions
+		want     string
+	}{
+		{"mm file to unit chord", "NACA 4412 (element flap, chord 120 mm, coordinates in mm)", CoordOptions{}, "NACA 4412 (element flap)"},
+		{"mm file to another chord", "NACA 4412 (chord 120 mm, coordinates in mm)", CoordOptions{ChordMM: 250}, "NACA 4412 (chord 250 mm, coordinates in mm)"},
+		{"element kept once", "NACA 4412 (element flap)", CoordOptions{Element: "flap"}, "NACA 4412 (element flap)"},
+		{"other parentheses kept", "Team section B (modified)", CoordOptions{}, "Team section B (modified)"},
+	} {
+		sec, err := model.NewSection(c.in, []model.Point{{X: 1}, {X: 0.5, Y: 0.05}, {X: 0}, {X: 0.5, Y: -0.05}, {X: 1}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := coordName(sec, c.o); got != c.want {
+			t.Errorf("%s: %q, want %q", c.name, got, c.want)
 		}
 	}
 }

@@ -33,17 +33,24 @@ func ExampleWriteCoordinates() {
 	// 200.000   0.000
 }
 
-// ExampleWriteSweepTable writes two angles of a sweep as CSV.
+// ExampleWriteSweepTable writes two angles of a sweep as CSV after its
+// metadata (invented values).
 func ExampleWriteSweepTable() {
 	sweep := []solver.Coefficients{
 		{AlphaDeg: 0, Cl: 0.2512, ClPressure: 0.2498, Cm: -0.0541, CpMin: -0.612, XCpMin: 0.152},
 		{AlphaDeg: 2, Cl: 0.4845, ClPressure: 0.4822, Cm: -0.0563, CpMin: -1.107, XCpMin: 0.021},
 	}
-	if err := format.WriteSweepTable(os.Stdout, sweep, nil); err != nil {
+	meta := format.Metadata{Study: "demo section (invented)", Reynolds: 3e5, Program: "Sectionbench"}
+	if err := format.WriteSweepTable(os.Stdout, meta, sweep, nil); err != nil {
 		fmt.Println(err)
 	}
 	// Output:
-	// alpha_deg,cl,cl_pressure,cm,cp_min,x_cp_min
+	// # study: demo section (invented)
+	// # reynolds number: 3e+05 on the element's own chord
+	// # units: alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive
+	// # x/c: along the main element's own chord from its leading edge; empty: none found or outside the method's range
+	// # program: Sectionbench
+	// alpha_deg,cl,cl_pressure,cm,cp_min,cp_min_xc
 	// 0,0.2512,0.2498,-0.0541,-0.612,0.152
 	// 2,0.4845,0.4822,-0.0563,-1.107,0.021
 }

@@ -48,16 +48,24 @@ func (t *table) close() error {
 	return t.cw.Error()
 }
 
-// WriteCpTable writes the surface pressure of every element as CSV, one row
-// per panel in node order: element, side (upper or lower), x_mm and y_mm
-// (panel midpoint in the study frame, the solution's metres × 1000), x_c
-// (along the element's chord), cp and vt (tangential velocity / U∞,
-// positive along the node ordering).
-func WriteCpTable(w io.Writer, sol *solver.Solution) error {
+// WriteCpTable writes the surface pressure of every element as CSV after
+// the metadata m, one row per panel in node order: element, side (upper or
+// lower), x_mm and y_mm (panel midpoint in the study frame, the solution's
+// metres × 1000), xc (along the element's own chord), cp and
+// tangential_velocity (over the freestream speed, positive along the node
+// ordering).
+func WriteCpTable(w io.Writer, m Metadata, sol *solver.Solution) error {
 	if sol == nil {
 		panic("format: nil solution")
 	}
-	t, err := newTable(w, "element", "side", "x_mm", "y_mm", "x_c", "cp", "vt")
+	if math.IsNaN(m.AlphaDeg) {
+		m.AlphaDeg = sol.AlphaDeg
+	}
+	if err := m.write(w, "x_mm and y_mm in millimetres in the study frame as mounted (x downstream, y up); cp and tangential_velocity without units (tangential_velocity over the freestream speed, positive along the node order)",
+		"along each element's own chord from its leading edge"); err != nil {
+		return err
+	}
+	t, err := newTable(w, "element", "side", "x_mm", "y_mm", "xc", "cp", "tangential_velocity")
 	if err != nil {
 		return err
 	}
@@ -71,18 +79,24 @@ func WriteCpTable(w io.Writer, sol *solver.Solution) error {
 	return t.close()
 }
 
-// WriteSweepTable writes a sweep as CSV, one row per angle: alpha_deg, cl
-// (from circulation), cl_pressure, cm, cp_min and x_cp_min; when viscous
-// is not nil, also cd, xtr_upper, xtr_lower, xsep_upper and xsep_lower
-// (x/c on the main element) from the boundary-layer estimate, empty where
-// it is not available. viscous must be nil or as long as sweep.
-func WriteSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []engine.ViscousPoint) error {
+// WriteSweepTable writes a sweep as CSV after the metadata m, one row per
+// angle: alpha_deg, cl (from circulation), cl_pressure, cm, cp_min and
+// cp_min_xc; when viscous is not nil, also cd, transition_upper_xc,
+// transition_lower_xc, separation_upper_xc and separation_lower_xc (on the
+// main element) from the boundary-layer estimate, empty where there is
+// none or it is not available. viscous must be nil or as long as sweep.
+func WriteSweepTable(w io.Writer, m Metadata, sweep []solver.Coefficients, viscous []engine.ViscousPoint) error {
 	if viscous != nil && len(viscous) != len(sweep) {
 		panic(fmt.Sprintf("format: %d boundary-layer points for %d sweep angles", len(viscous), len(sweep)))
 	}
-	head := []string{"alpha_deg", "cl", "cl_pressure", "cm", "cp_min", "x_cp_min"}
+	m.AlphaDeg = NoAngle
+	if err := m.write(w, "alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive",
+		"along the main element's own chord from its leading edge; empty: none found or outside the method's range"); err != nil {
+		return err
+	}
+	head := []string{"alpha_deg", "cl", "cl_pressure", "cm", "cp_min", "cp_min_xc"}
 	if viscous != nil {
-		head = append(head, "cd", "xtr_upper", "xtr_lower", "xsep_upper", "xsep_lower")
+		head = append(head, "cd", "transition_upper_xc", "transition_lower_xc", "separation_upper_xc", "separation_lower_xc")
 	}
 	t, err := newTable(w, head...)
 	if err != nil {
@@ -101,17 +115,24 @@ func WriteSweepTable(w io.Writer, sweep []solver.Coefficients, viscous []engine.
 	return t.close()
 }
 
-// WriteBoundaryLayerTable writes the boundary-layer estimate as CSV, one
-// row per station from the stagnation point to the trailing edge, upper
-// surface then lower for each element: element, side, s_c (arc length from
-// the stagnation point / c), x_c, ue (edge velocity / U∞), theta_c,
-// delta_star_c, h, cf (on the freestream dynamic pressure) and turbulent
-// (0 or 1). Values past a turbulent separation are empty.
-func WriteBoundaryLayerTable(w io.Writer, vr *solver.ViscousResult) error {
+// WriteBoundaryLayerTable writes the boundary-layer estimate as CSV after
+// the metadata m, one row per station from the stagnation point to the
+// trailing edge, upper surface then lower for each element: element, side,
+// arc_length_over_chord (from the stagnation point), xc, edge_velocity
+// (over the freestream speed), momentum_thickness_over_chord,
+// displacement_thickness_over_chord, shape_factor, skin_friction (on the
+// freestream dynamic pressure) and turbulent (yes or no). Values past a
+// turbulent separation are empty.
+func WriteBoundaryLayerTable(w io.Writer, m Metadata, vr *solver.ViscousResult) error {
 	if vr == nil {
 		panic("format: nil boundary-layer result")
 	}
-	t, err := newTable(w, "element", "side", "s_c", "x_c", "ue", "theta_c", "delta_star_c", "h", "cf", "turbulent")
+	if err := m.write(w, "lengths over each element's own chord; velocities over the freestream speed; skin_friction on the freestream dynamic pressure",
+		"along each element's own chord from its leading edge"); err != nil {
+		return err
+	}
+	t, err := newTable(w, "element", "side", "arc_length_over_chord", "xc", "edge_velocity", "momentum_thickness_over_chord",
+		"displacement_thickness_over_chord", "shape_factor", "skin_friction", "turbulent")
 	if err != nil {
 		return err
 	}
@@ -128,9 +149,9 @@ func WriteBoundaryLayerTable(w io.Writer, vr *solver.ViscousResult) error {
 		}{{solver.Upper.String(), e.Upper}, {solver.Lower.String(), e.Lower}} {
 			s := side.s
 			for i := range s.XC {
-				turb := "0"
+				turb := "no"
 				if i < len(s.Turbulent) && s.Turbulent[i] {
-					turb = "1"
+					turb = "yes"
 				}
 				err := t.row(e.Name, side.name, cell(at(s.S, i)), cell(s.XC[i]), cell(at(s.Ue, i)), cell(at(s.Theta, i)),
 					cell(at(s.DeltaStar, i)), cell(at(s.H, i)), cell(at(s.Cf, i)), turb)

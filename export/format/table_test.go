@@ -8,7 +8,9 @@ import (
 	"os"
 	"path/filepath"
 	"sectionbench/export/exporttest"
+	"sectionbench/model"
 	"strconv"
+	"strings"
 	"testing"
 
 	"sectionbench/solver/engine"
@@ -39,9 +41,12 @@ func golden(t *testing.T, name string, got []byte) {
 	}
 }
 
+// readCSV reads a CSV whose metadata comment lines start with "#".
 func readCSV(t *testing.T, b []byte) [][]string {
 	t.Helper()
-	recs, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
+	r := csv.NewReader(bytes.NewReader(b))
+	r.Comment = '#'
+	recs, err := r.ReadAll()
 	if err != nil {
 		t.Fatalf("not valid CSV: %v", err)
 	}
@@ -72,11 +77,11 @@ func relClose(a, b float64) bool {
 func TestCpTable(t *testing.T) {
 	sol := exporttest.Solution(exporttest.TwoElementLayout(40), 3)
 	var b bytes.Buffer
-	if err := WriteCpTable(&b, sol); err != nil {
+	if err := WriteCpTable(&b, Metadata{Study: "demo", AlphaDeg: NoAngle}, sol); err != nil {
 		t.Fatal(err)
 	}
 	recs := readCSV(t, b.Bytes())
-	want := []string{"element", "side", "x_mm", "y_mm", "x_c", "cp", "vt"}
+	want := []string{"element", "side", "x_mm", "y_mm", "xc", "cp", "tangential_velocity"}
 	if len(recs[0]) != len(want) {
 		t.Fatalf("header %v, want %v", recs[0], want)
 	}
@@ -121,7 +126,7 @@ func TestSweepTableGolden(t *testing.T) {
 		{"sweep_drag.csv", dr, 11},
 	} {
 		var b bytes.Buffer
-		if err := WriteSweepTable(&b, sw, c.drag); err != nil {
+		if err := WriteSweepTable(&b, Metadata{Study: "synthetic sweep (invented)", Reynolds: 5e5, Program: "Sectionbench test"}, sw, c.drag); err != nil {
 			t.Fatal(err)
 		}
 		recs := readCSV(t, b.Bytes())
@@ -144,7 +149,7 @@ func TestBoundaryLayerTable(t *testing.T) {
 	vr := exporttest.Viscous()
 	vr.Elements[0].Lower.H[5] = math.NaN()
 	var b bytes.Buffer
-	if err := WriteBoundaryLayerTable(&b, vr); err != nil {
+	if err := WriteBoundaryLayerTable(&b, Metadata{AlphaDeg: 4}, vr); err != nil {
 		t.Fatal(err)
 	}
 	recs := readCSV(t, b.Bytes())
@@ -158,7 +163,7 @@ func TestBoundaryLayerTable(t *testing.T) {
 	}
 	// Transition at x/c 0.3 on the upper surface: rows past it are turbulent.
 	for _, r := range recs[1 : 1+len(eb.Upper.XC)] {
-		if want := num(t, r[3]) > 0.3; (r[9] == "1") != want {
+		if want := num(t, r[3]) > 0.3; (r[9] == "yes") != want {
 			t.Errorf("x/c %s: turbulent %s", r[3], r[9])
 		}
 	}
@@ -173,5 +178,58 @@ func TestSweepTableMismatch(t *testing.T) {
 			t.Error("no panic for drag of the wrong length")
 		}
 	}()
-	WriteSweepTable(&bytes.Buffer{}, exporttest.Sweep(), make([]engine.ViscousPoint, 2))
+	WriteSweepTable(&bytes.Buffer{}, Metadata{}, exporttest.Sweep(), make([]engine.ViscousPoint, 2))
+}
+
+// TestCSVMetadata: every CSV starts with comment lines naming the study,
+// the element, the angle of attack, the Reynolds number, the units and the
+// chord x/c refers to, and its columns are full words.
+func TestCSVMetadata(t *testing.T) {
+	sol := exporttest.Solution(exporttest.TwoElementLayout(40), 3)
+	sec, err := model.NACA("4412", model.NACAOptions{PointsPerSurface: 10, ClosedTE: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	meta := Metadata{Study: "rear wing", Element: "flap", AlphaDeg: NoAngle, Reynolds: 2.5e5, Program: "Sectionbench test"}
+	for _, c := range []struct {
+		name  string
+		write func(*bytes.Buffer) error
+		want  []string // comment lines that must be there
+		head  string
+	}{
+		{"cp", func(b *bytes.Buffer) error { return WriteCpTable(b, meta, sol) },
+			[]string{"# study: rear wing", "# element: flap", "# angle of attack: 3 deg", "# reynolds number: 2.5e+05 on the element's own chord", "# units: x_mm and y_mm in millimetres", "# x/c: along each element's own chord"},
+			"element,side,x_mm,y_mm,xc,cp,tangential_velocity"},
+		{"sweep", func(b *bytes.Buffer) error {
+			sw := exporttest.Sweep()
+			return WriteSweepTable(b, meta, sw, exporttest.Drag(sw))
+		}, []string{"# study: rear wing", "# units: alpha_deg in degrees", "# x/c: along the main element's own chord"},
+			"alpha_deg,cl,cl_pressure,cm,cp_min,cp_min_xc,cd,transition_upper_xc,transition_lower_xc,separation_upper_xc,separation_lower_xc"},
+		{"boundary layer", func(b *bytes.Buffer) error { return WriteBoundaryLayerTable(b, meta, exporttest.Viscous()) },
+			[]string{"# study: rear wing", "# units: lengths over each element's own chord"},
+			"element,side,arc_length_over_chord,xc,edge_velocity,momentum_thickness_over_chord,displacement_thickness_over_chord,shape_factor,skin_friction,turbulent"},
+		{"coordinates", func(b *bytes.Buffer) error {
+			return WriteCoordinatesCSV(b, sec, CoordOptions{ChordMM: 120, Element: "flap", Study: "rear wing"})
+		}, []string{"# study: rear wing", "# element: flap", "# units: millimetres at a chord of 120 mm", "# x/c: x runs along the element's own chord", "# section: NACA 4412"},
+			"x_mm,y_mm"},
+	} {
+		var b bytes.Buffer
+		if err := c.write(&b); err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		lines := strings.Split(b.String(), "\n")
+		k := 0
+		for k < len(lines) && strings.HasPrefix(lines[k], "# ") {
+			k++
+		}
+		comments := strings.Join(lines[:k], "\n")
+		for _, w := range c.want {
+			if !strings.Contains(comments, w) {
+				t.Errorf("%s: metadata lacks %q:\n%s", c.name, w, comments)
+			}
+		}
+		if k == len(lines) || lines[k] != c.head {
+			t.Errorf("%s: header %q, want %q", c.name, lines[min(k, len(lines)-1)], c.head)
+		}
+	}
 }
