@@ -21,7 +21,7 @@ var exportKinds = []struct{ name, help string }{
 	{"csv", "a CSV table: --table coords, cp, sweep or bl"},
 	{"outline-dxf", "manufacturing outline, ASCII DXF in millimetres"},
 	{"outline-svg", "manufacturing outline, SVG at true scale with a scale bar"},
-	{"figure", "one view as PNG, SVG or PDF: --view panels, pressure, streamlines, polar, drag-polar, boundary-layer, lift-to-drag"},
+	{"figure", "one view as PNG, SVG or PDF (the format from the file name): --view " + strings.Join(figureViewNames(), ", ")},
 }
 
 func cmdExport(args []string, stdout, stderr io.Writer) error {
@@ -35,7 +35,7 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 	out := fs.String("o", "", "output `file` (- for standard output, text formats only)")
 	table := fs.String("table", "coords", "with --what csv: coords, cp (surface Cp per element), sweep, or bl (boundary layer)")
 	element := fs.Int("element", 1, "element `number` for coords (1 = main)")
-	chordMM := fs.Float64("chord-mm", -1, "chord in `mm`: coordinates at this chord (default: the element's own chord with --study, unit chord with --section; 0: unit chord); for an outline of --section, the chord (default 1000)")
+	chordMM := fs.Float64("chord-mm", -1, "chord in `mm` of coordinates; 0: unit chord; -1: the element's own chord with --study, unit chord with --section; for an outline of --section, its chord (1000 when not given)")
 	points := fs.Int("points", 0, "repanel the coordinates to this many `panels` first (with --spacing)")
 	skin := fs.Float64("skin-mm", 0, "outline: also draw the inward offset by this skin thickness in `mm` (rib template)")
 	placed := fs.Bool("placed", false, "outline: keep the elements where the study puts them (assembly) instead of one rib template per element")
@@ -44,7 +44,7 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 	sparOn := fs.String("spar-on", "mean-line", "outline: the spar hole's centre on the `mean-line` (the usual choice for cambered ribs) or the chord-line")
 	minLigament := fs.Float64("min-ligament-mm", geometry.DefaultMinLigamentMM, "outline: least material in `mm` a spar hole must leave to the rib's edge (the skin offset); a hole that leaves less is refused")
 	material := fs.Float64("material-mm", 0, "outline: sheet thickness in `mm` for the title block (0: not given)")
-	view := fs.String("view", "pressure", "figure: the `view` to draw")
+	view := fs.String("view", "pressure", "figure: the `view` to draw: "+strings.Join(figureViewNames(), ", "))
 	width := fs.Float64("width-in", 8, "figure width in `inches`")
 	height := fs.Float64("height-in", 5, "figure height in `inches`")
 	dpi := fs.Float64("dpi", 150, "figure resolution for PNG, `dots per inch`")
@@ -194,20 +194,27 @@ func checkFigureSize(w, h, dpi float64) error {
 	return nil
 }
 
-// figureKind finds the view by name and the format from the file name.
-func figureKind(name, out string) (figure.View, string, error) {
-	var view figure.View = -1
+// figureViewNames lists the views a figure can show.
+func figureViewNames() []string {
 	var names []string
 	for _, v := range figure.Views {
-		if v.String() == name {
-			view = v
-		}
 		if v != figure.ViewDensity {
 			names = append(names, v.String())
 		}
 	}
+	return names
+}
+
+// figureKind finds the view by name and the format from the file name.
+func figureKind(name, out string) (figure.View, string, error) {
+	var view figure.View = -1
+	for _, v := range figure.Views {
+		if v.String() == name {
+			view = v
+		}
+	}
 	if view < 0 || view == figure.ViewDensity {
-		return 0, "", usagef("--view %q: want one of %s", name, strings.Join(names, ", "))
+		return 0, "", usagef("--view %q: want one of %s", name, strings.Join(figureViewNames(), ", "))
 	}
 	format := "png"
 	for _, f := range []string{"png", "svg", "pdf"} {

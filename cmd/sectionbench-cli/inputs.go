@@ -44,7 +44,10 @@ func addInputs(fs *flags, sweep bool, formats ...string) *inputs {
 	fs.Float64Var(&in.nose, "nose", d.Nose, "nose clustering in [0, 1] (blend law)")
 	fs.Float64Var(&in.tail, "tail", d.Tail, "tail clustering in [0, 1] (blend law)")
 	fs.Float64Var(&in.re, "re", 0, "Reynolds `number` on the (first) element's chord; turns on the boundary-layer estimate")
-	fs.StringVar(&in.format, "format", formats[0], "output `format`: "+strings.Join(formats, ", "))
+	in.format = formats[0]
+	if len(formats) > 1 { // a command with one output format offers no choice
+		fs.StringVar(&in.format, "format", formats[0], "output `format`: "+strings.Join(formats, ", "))
+	}
 	return in
 }
 

@@ -117,7 +117,7 @@ type ViewError struct {
 	Err  error
 }
 
-func (e *ViewError) Error() string { return "export: " + e.View.String() + " view: " + e.Err.Error() }
+func (e *ViewError) Error() string { return e.View.String() + " view: " + e.Err.Error() }
 
 func (e *ViewError) Unwrap() error { return e.Err }
 
@@ -352,7 +352,7 @@ func figureCanvas(format string, widthIn, heightIn, dpi float64) (vg.CanvasWrite
 	case FormatPDF:
 		return vgpdf.New(wl, hl), nil
 	}
-	return nil, fmt.Errorf("export: %q (want png, svg or pdf): %w", format, ErrFormat)
+	return nil, fmt.Errorf("figure format %q (want png, svg or pdf): %w", format, ErrFormat)
 }
 
 // writePlot draws p on cv (fitted to equal axis scales if equal) and

@@ -70,7 +70,7 @@ func PanelSizesOf(l *model.Layout) ([]PanelSizes, error) {
 	for _, e := range l.Elements {
 		sec, err := model.NewSection(e.Name, e.Nodes)
 		if err != nil {
-			return nil, fmt.Errorf("export: panel sizes of %s: %w", e.Name, err)
+			return nil, fmt.Errorf("panel sizes of %s: %w", e.Name, err)
 		}
 		lengths := model.PanelLengths(sec)
 		total := 0.0
@@ -79,7 +79,7 @@ func PanelSizesOf(l *model.Layout) ([]PanelSizes, error) {
 		}
 		ps := PanelSizes{Element: e.Name, Ratio: model.NeighbourRatios(sec)}
 		if !(total > 0) || !(e.Chord > 0) {
-			return nil, fmt.Errorf("export: panel sizes of %s: contour of zero length", e.Name)
+			return nil, fmt.Errorf("panel sizes of %s: contour of zero length", e.Name)
 		}
 		s := 0.0
 		for i, v := range lengths {

@@ -115,7 +115,7 @@ func NewOutline(name string, l *model.Layout, opt OutlineOptions) (*Outline, err
 		panic("geometry: nil layout")
 	}
 	if len(l.Elements) == 0 {
-		return nil, fmt.Errorf("export: outline %q: %w: no elements", name, ErrNoElements)
+		return nil, fmt.Errorf("outline %q: %w: no elements", name, ErrNoElements)
 	}
 	if opt.SkinMM < 0 || math.IsNaN(opt.SkinMM) || math.IsInf(opt.SkinMM, 0) {
 		return nil, &model.FieldError{Field: "outline.skin_mm", Err: fmt.Errorf("%g is not a thickness", opt.SkinMM)}
