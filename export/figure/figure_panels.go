@@ -157,6 +157,6 @@ func panelsPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		e.add(e.x0, sc.GroundY*mmPerM)
 	}
 	frame(p, sc.Window, e, 0.04)
-	p.Add(k)
+	p.Add(k, newFrameKey(sc, th))
 	return p, nil
 }

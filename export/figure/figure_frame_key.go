@@ -1,0 +1,91 @@
+package figure
+
+import (
+	"fmt"
+	"image/color"
+	"math"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/text"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+
+	"sectionbench/model"
+)
+
+// frameKey is the panels view's sign-convention key, drawn in the bottom
+// left of the data area on a backing that keeps it readable over a body: an arrow along the freestream, the angle of
+// attack with the way a positive angle moves the leading edge as mounted
+// (model.AngleShort), and the axes of the as-mounted frame.
+type frameKey struct {
+	freestreamDeg float64 // direction of the freestream against +x, as drawn
+	lines         []string
+	arrow         draw.LineStyle
+	sty           text.Style
+	back          color.Color
+}
+
+// newFrameKey returns the key for sc: in ground effect the freestream is
+// parallel to the ground and the configuration is pitched; in free air
+// the configuration stays and the freestream turns (model.Layout.At).
+func newFrameKey(sc *Scene, th *theme) *frameKey {
+	fs := 0.0
+	if !sc.Ground && sc.Layout != nil {
+		_, _, fs = sc.Layout.At(sc.AlphaDeg)
+	}
+	return &frameKey{
+		freestreamDeg: fs,
+		lines: []string{
+			"freestream",
+			fmt.Sprintf("α %s° as mounted (%s)", trimZero(sc.AlphaDeg), model.AngleShort(sc.Inverted)),
+			"x downstream, y up (away from the ground)",
+		},
+		arrow: lineStyle(th.accent, widthBold, nil),
+		sty:   noteStyle(th, th.fg, 8, text.XLeft, text.YTop),
+		back:  fade(th.bg, 0xd0),
+	}
+}
+
+// trimZero formats an angle with at most two decimals.
+func trimZero(x float64) string {
+	return fmt.Sprintf("%.4g", math.Round(x*100)/100)
+}
+
+// Plot draws the key (plot.Plotter).
+func (k *frameKey) Plot(c draw.Canvas, _ *plot.Plot) {
+	pad := vg.Points(6)
+	length := vg.Points(28)
+	h := k.sty.Height("Ag") * 1.2
+	first := vg.Length(math.Max(float64(h), float64(length/2+pad/2)))
+	height := first + h*vg.Length(len(k.lines)-1)
+	width := length + pad + k.sty.Width(k.lines[0])
+	for _, l := range k.lines[1:] {
+		width = vg.Length(math.Max(float64(width), float64(k.sty.Width(l))))
+	}
+	left := c.Min.X + pad
+	// Above the bottom of the data area by a line, clear of the ground's label.
+	top := c.Min.Y + pad + 2*h + height
+	box := vg.Rectangle{Min: vg.Point{X: left - pad/2, Y: top - height - pad/2}, Max: vg.Point{X: left + width + pad/2, Y: top + pad/2}}
+	c.SetColor(k.back)
+	c.Fill(box.Path())
+	// The arrow, centred on its box so a turned freestream stays inside.
+	mid := vg.Point{X: left + length/2, Y: top - length/4}
+	s, co := math.Sincos(k.freestreamDeg * math.Pi / 180)
+	d := vg.Point{X: vg.Length(co) * length / 2, Y: vg.Length(s) * length / 2}
+	tail, head := mid.Sub(d), mid.Add(d)
+	c.StrokeLine2(k.arrow, tail.X, tail.Y, head.X, head.Y)
+	// Arrow head: two strokes 25° off the shaft.
+	for _, turn := range []float64{25, -25} {
+		a := (k.freestreamDeg + 180 + turn) * math.Pi / 180
+		hs, hc := math.Sincos(a)
+		tip := vg.Point{X: head.X + vg.Length(hc)*vg.Points(6), Y: head.Y + vg.Length(hs)*vg.Points(6)}
+		c.StrokeLine2(k.arrow, head.X, head.Y, tip.X, tip.Y)
+	}
+	y := top
+	c.FillText(k.sty, vg.Point{X: left + length + pad, Y: y}, k.lines[0])
+	y -= first
+	for _, l := range k.lines[1:] {
+		c.FillText(k.sty, vg.Point{X: left, Y: y}, l)
+		y -= h
+	}
+}
