@@ -16,3 +16,22 @@ var Icon []byte
 //
 //go:embed demo-study.json
 var DemoStudy []byte
+
+// Example is a study offered under File ▸ Examples. Its data are invented
+// and its name and team say so.
+type Example struct {
+	Title string // the menu item
+	Study []byte
+}
+
+//go:embed examples/two-element-ground.json
+var exampleTwoElement []byte
+
+//go:embed examples/single-free-air.json
+var exampleSingle []byte
+
+// Examples are the example studies, in menu order.
+var Examples = []Example{
+	{"Two-element inverted rear wing in ground effect", exampleTwoElement},
+	{"Single element in free air", exampleSingle},
+}

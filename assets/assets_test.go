@@ -32,3 +32,17 @@ func TestIconIsSquarePNG(t *testing.T) {
 		t.Errorf("icon is %v, want a square of at least 256 px", b)
 	}
 }
+
+// TestExamplesDecode: every example is a valid study that says its data
+// are invented.
+func TestExamplesDecode(t *testing.T) {
+	for _, ex := range Examples {
+		st, err := model.DecodeStudy(ex.Study)
+		if err != nil {
+			t.Fatalf("%s: %v", ex.Title, err)
+		}
+		if !strings.Contains(strings.ToLower(st.Team), "invented") {
+			t.Errorf("%s: team %q does not say the data are invented", ex.Title, st.Team)
+		}
+	}
+}

@@ -67,7 +67,10 @@ type controls struct {
 	pins *widget.Label
 
 	alphaMsg   *widget.Label
-	alphaSense *widget.Label   // the sign convention of α, in words
+	alphaSense *widget.Label // the sign convention of α, in words
+	studyName  *field
+	team       *field
+	studyMsg   *widget.Label
 	runRow     *fyne.Container // Run sweep, and Cancel while it runs
 	sectionRow *fyne.Container // the element choice beside the section heading
 	tabs       *container.AppTabs
@@ -364,7 +367,16 @@ func newControls(w *Workbench) *controls {
 	groundNote.Importance = widget.WarningImportance
 	c.sectionRow = container.NewBorder(nil, nil, widget.NewLabel("of"), nil, c.element)
 
+	c.studyMsg = message()
+	c.studyName = newField(w, c.studyMsg, ctl.SetStudyName)
+	c.team = newField(w, c.studyMsg, ctl.SetTeam)
+	c.team.SetPlaceHolder("none")
 	elements := container.NewVBox(
+		heading("Study"),
+		row("Name", c.studyName),
+		row("Team", c.team),
+		c.studyMsg,
+		widget.NewSeparator(),
 		heading("Elements"),
 		c.ec.listBox(),
 		widget.NewSeparator(),
@@ -546,6 +558,9 @@ func (c *controls) sync(st *model.Study) {
 		c.sectionRow.Hide()
 	}
 	el := st.Elements[c.w.ctl.Element()]
+	c.studyName.show(st.Name, func(s string) bool { return strings.TrimSpace(s) == st.Name })
+	c.team.show(st.Team, func(s string) bool { return strings.TrimSpace(s) == st.Team })
+	setMessage(c.studyMsg, nil)
 	c.ec.sync(st, c.w.ctl.Element())
 	c.fc.sync(st)
 	c.vc.sync(st)

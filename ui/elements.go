@@ -172,3 +172,19 @@ func (c *Controller) SetElementName(key string, i int, name string) error {
 	}
 	return c.Edit(key, func(s *model.Study) { s.Elements[i].Name = name })
 }
+
+// SetStudyName names the study; the title bar, the report and every export
+// file name use it.
+func (c *Controller) SetStudyName(name string) error {
+	name = strings.TrimSpace(name)
+	if name == "" {
+		return errors.New("a study needs a name: it names the report and the exported files")
+	}
+	return c.Edit("", func(s *model.Study) { s.Name = name })
+}
+
+// SetTeam sets the team named on the report and the drawings; empty for
+// none.
+func (c *Controller) SetTeam(team string) error {
+	return c.Edit("", func(s *model.Study) { s.Team = strings.TrimSpace(team) })
+}

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
+	"sectionbench/assets"
 	"strings"
 
 	"fyne.io/fyne/v2"
@@ -49,8 +50,15 @@ func (w *Workbench) menu() *fyne.MainMenu {
 
 	quit := w.item("Quit", shortcut(fyne.KeyQ, false), w.closeRequested)
 	quit.IsQuit = true
+	examples := fyne.NewMenuItem("Examples", nil)
+	var exItems []*fyne.MenuItem
+	for _, ex := range assets.Examples {
+		exItems = append(exItems, fyne.NewMenuItem(ex.Title+" (invented data)", func() { w.openExample(ex) }))
+	}
+	examples.ChildMenu = fyne.NewMenu("", exItems...)
 	file := fyne.NewMenu("File",
 		w.item("New study", shortcut(fyne.KeyN, false), w.newStudy),
+		examples,
 		w.item("Open section…", shortcut(fyne.KeyO, true), w.openSection),
 		w.item("Open study…", shortcut(fyne.KeyO, false), w.openStudy),
 		fyne.NewMenuItemSeparator(),
@@ -144,6 +152,17 @@ func (w *Workbench) closeRequested() {
 func (w *Workbench) newStudy() {
 	w.confirmDiscard("Continue", func() {
 		w.userError(w.ctl.Load(newStudy(), ""))
+	})
+}
+
+// openExample opens an example study as a new, unsaved study.
+func (w *Workbench) openExample(ex assets.Example) {
+	w.confirmDiscard("Continue", func() {
+		st, err := decodeStudy(ex.Study)
+		if err == nil {
+			err = w.ctl.Load(st, "")
+		}
+		w.userError(err)
 	})
 }
 
