@@ -85,12 +85,6 @@ type CoupledSolution struct {
 	state *coupledState // for warm starts
 }
 
-// SolveCoupled is work in progress (see DEVELOPERS.md, "The coupled
-// viscous solution"): its parts are tested, but the coupled Newton
-// iterations do not yet converge (the trailing-edge stations' sensitivity
-// to the wake sources), so nothing in the application calls it and its
-// results must not be shown to a user.
-//
 // SolveCoupled solves the coupled viscous–inviscid flow at angle alphaDeg
 // (degrees; 0 in ground mode, as Solve): integral boundary layers on every
 // surface and wake (package boundarylayer) whose displacement acts back on
@@ -101,7 +95,45 @@ type CoupledSolution struct {
 // A solution that did not converge within the iteration bound is returned
 // with Converged false and its last state; errors are reserved for
 // geometry the wakes cannot be traced through and cancellation.
+//
+// From a warm start that does not converge it tries again through the
+// angle half way between (twice at most: a continuation in α), then
+// cold.
 func (s *System) SolveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution) (*CoupledSolution, error) {
+	return s.solveCoupled(ctx, alphaDeg, opt, warm, maxAlphaHalvings)
+}
+
+// maxAlphaHalvings bounds the continuation in α of SolveCoupled, and
+// minAlphaStep the smallest step (degrees) it splits.
+const (
+	maxAlphaHalvings = 2
+	minAlphaStep     = 0.25
+)
+
+func (s *System) solveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, halvings int) (*CoupledSolution, error) {
+	if warm != nil && halvings > 0 && math.Abs(alphaDeg-warm.AlphaDeg) > minAlphaStep {
+		out, err := s.solveOnce(ctx, alphaDeg, opt, warm, false)
+		if err != nil || out.Converged {
+			return out, err
+		}
+		mid, err := s.solveCoupled(ctx, 0.5*(alphaDeg+warm.AlphaDeg), opt, warm, halvings-1)
+		if err != nil {
+			return nil, err
+		}
+		if mid.Converged {
+			out, err := s.solveCoupled(ctx, alphaDeg, opt, mid, halvings-1)
+			if err != nil || out.Converged {
+				return out, err
+			}
+		}
+		warm = nil
+	}
+	return s.solveOnce(ctx, alphaDeg, opt, warm, true)
+}
+
+// solveOnce solves at one angle from warm (if any) and, when that fails
+// and cold is set, from the march.
+func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, cold bool) (*CoupledSolution, error) {
 	s.checkAlpha(alphaDeg)
 	if len(opt.Re) != len(s.geo.elems) {
 		panic("solver: SolveCoupled: one Reynolds number per element needed")
@@ -116,14 +148,31 @@ func (s *System) SolveCoupled(ctx context.Context, alphaDeg float64, opt Coupled
 	if err != nil {
 		return nil, err
 	}
-	if warm != nil && warm.state != nil && warm.state.sol.sys == s {
-		cs.warmFrom(warm.state)
-	} else {
-		cs.march()
+	var conv bool
+	var iters int
+	var res float64
+	if warm != nil && warm.state != nil && warm.state.sol.sys == s && cs.warmFrom(warm.state) {
+		// The neighbour's boundary layers solve their own equations on
+		// the neighbour's edge velocities: the continuation starts from
+		// there.
+		conv, iters, res, err = cs.solve(ctx, warm.state.ue())
+		if err != nil {
+			return nil, err
+		}
 	}
-	conv, iters, res, err := cs.iterate(ctx)
-	if err != nil {
-		return nil, err
+	if !conv && (cold || iters == 0) {
+		// A cold start, or a warm start that failed: from the march.
+		if iters > 0 {
+			if cs, err = newCoupledState(inv, opt); err != nil {
+				return nil, err
+			}
+		}
+		n := iters
+		conv, iters, res, err = cs.solve(ctx, cs.march())
+		iters += n
+		if err != nil {
+			return nil, err
+		}
 	}
 	out := cs.result()
 	out.Converged, out.Iterations, out.Residual = conv, iters, res

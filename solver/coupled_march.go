@@ -86,16 +86,27 @@ func (cs *coupledState) solveStation(i int, ueM []float64) {
 	save := [3]float64{cs.c[i], cs.th[i], cs.m[i]}
 	pp := s.prev[0]
 	hPrev := cs.m[pp] / (ueM[pp] * cs.th[pp])
-	cs.localNewton(i, ueM, 0)
+	uePrev := ueM[i]
+	ok := cs.localNewton(i, ueM, 0)
 	h := cs.m[i] / (ueM[i] * cs.th[i])
 	grow := cs.th[i] / save[1]
-	if !(h <= hmax && h >= minMarchH && grow < maxMarchGrowth && grow > 1/maxMarchGrowth) {
-		// Outside the direct solution's range (separation, or the
-		// discrete stagnation of the inviscid flow at a trailing edge):
-		// hold H and let Ue follow.
-		cs.c[i], cs.th[i], cs.m[i] = save[0], save[1], save[2]
-		cs.localNewton(i, ueM, math.Min(math.Max(hPrev, minMarchH), hmax))
+	if ok && h <= hmax && h >= minMarchH && grow < maxMarchGrowth && grow > 1/maxMarchGrowth {
+		return
 	}
+	// Outside the direct solution's range (separation, or the discrete
+	// stagnation of the inviscid flow at a trailing edge): hold H and
+	// let Ue follow.
+	cs.c[i], cs.th[i], cs.m[i] = save[0], save[1], save[2]
+	ok = cs.localNewton(i, ueM, math.Min(math.Max(hPrev, minMarchH), hmax))
+	grow = cs.th[i] / save[1]
+	if ok && ueM[i] > uePrev/maxMarchGrowth && ueM[i] < uePrev*maxMarchGrowth && grow < maxMarchGrowth && grow > 1/maxMarchGrowth {
+		return
+	}
+	// Neither converged: carry the station before over (the coupled
+	// iterations, which start by solving the march's problem as a
+	// whole, put it right).
+	ueM[i] = uePrev
+	cs.c[i], cs.th[i], cs.m[i] = save[0], save[1], uePrev*hPrev*save[1]
 }
 
 // The march's acceptance of a direct solution: H at least minMarchH and θ
@@ -107,8 +118,8 @@ const (
 
 // localNewton solves station i's three residuals with its predecessors
 // fixed: for hFix = 0 in (c, θ, m) with Ue = ueM[i]; otherwise in (c, θ,
-// Ue) with m = Ue hFix θ.
-func (cs *coupledState) localNewton(i int, ueM []float64, hFix float64) {
+// Ue) with m = Ue hFix θ. It reports convergence.
+func (cs *coupledState) localNewton(i int, ueM []float64, hFix float64) bool {
 	for range 30 {
 		x := [3]float64{cs.c[i], cs.th[i], cs.m[i]}
 		if hFix > 0 {
@@ -141,7 +152,7 @@ func (cs *coupledState) localNewton(i int, ueM []float64, hFix float64) {
 		}
 		dx, ok := solve3(j, [3]float64{-r0[0], -r0[1], -r0[2]})
 		if !ok {
-			return
+			return false
 		}
 		rlx := 1.0
 		for v := 1; v < 3; v++ {
@@ -167,10 +178,14 @@ func (cs *coupledState) localNewton(i int, ueM []float64, hFix float64) {
 		} else {
 			cs.c[i], cs.th[i], cs.m[i] = x[0], x[1], x[2]
 		}
+		if math.IsNaN(x[1]) || !(x[1] > 0) || !(x[2] > 0) {
+			return false
+		}
 		if math.Max(math.Abs(dx[1]/x[1]), math.Abs(dx[2]/x[2])) < 1e-8 {
-			return
+			return true
 		}
 	}
+	return false
 }
 
 // solve3 solves the 3×3 system a x = b by Cramer's rule.
@@ -243,8 +258,8 @@ func (cs *coupledState) retype() bool {
 // restagnate follows the stagnation points: from the current edge
 // velocities it finds each element's sign change of the surface speed;
 // if it left its panel, the surfaces are laid out anew (nodes that
-// changed side take the values of the first station of their new side),
-// otherwise only the stations' ξ follow. It reports a new layout.
+// changed side take the values of the first station of their new side).
+// It reports a new layout.
 func (cs *coupledState) restagnate() bool {
 	ue := cs.ue()
 	g := make([]float64, cs.geo.n)
@@ -272,24 +287,11 @@ func (cs *coupledState) restagnate() bool {
 		}
 	}
 	if !moved {
-		for i := range cs.st {
-			s := &cs.st[i]
-			if s.side == sideWake {
-				continue
-			}
-			e := &cs.geo.elems[s.elem]
-			minXi := 1e-4 * e.chord
-			xi := cs.sStag[s.elem] - e.sNode[s.node]
-			if s.side == sideLower {
-				xi = -xi
-			}
-			xi = math.Max(xi, minXi)
-			if !s.first {
-				xi = math.Max(xi, cs.st[s.prev[0]].xi+minXi)
-			}
-			s.xi = xi
-		}
-		cs.setTrips()
+		// Within its panel the stagnation point is held where the
+		// layout put it: moving the stations' ξ between Newton steps,
+		// outside the Jacobian, makes the iterations diverge (the first
+		// station's θ ∝ √ξ). The error is below one leading-edge panel
+		// in ξ.
 		return false
 	}
 	cs.relayout(newStag)
@@ -300,14 +302,17 @@ func (cs *coupledState) restagnate() bool {
 // over by node.
 func (cs *coupledState) relayout(newStag []int) {
 	type vals struct {
-		c, th, m float64
-		kind     bl.Kind
+		c, th, m, ueM float64
+		kind          bl.Kind
 	}
 	type key struct{ elem, side, node int }
 	old := make(map[key]vals, len(cs.st))
 	firsts := make(map[[2]int]vals)
 	for i, s := range cs.st {
-		v := vals{cs.c[i], cs.th[i], cs.m[i], s.kind}
+		v := vals{c: cs.c[i], th: cs.th[i], m: cs.m[i], kind: s.kind}
+		if cs.ueMarch != nil {
+			v.ueM = cs.ueMarch[i]
+		}
 		old[key{s.elem, s.side, s.node}] = v
 		if s.first {
 			firsts[[2]int{s.elem, s.side}] = v
@@ -320,6 +325,12 @@ func (cs *coupledState) relayout(newStag []int) {
 		v, ok := old[key{s.elem, s.side, s.node}]
 		if !ok {
 			v = firsts[[2]int{s.elem, s.side}]
+			if o, ok := old[key{s.elem, 1 - s.side, s.node}]; ok {
+				v.ueM = o.ueM // the speed near the stagnation point, small either way
+			}
+		}
+		if cs.ueMarch != nil {
+			cs.ueMarch[i] = v.ueM
 		}
 		if s.side != sideWake {
 			s.kind = v.kind
@@ -335,12 +346,11 @@ func (cs *coupledState) relayout(newStag []int) {
 }
 
 // warmFrom starts from a neighbouring solution's state: its stagnation
-// splits and variables, by node; a station it lacks (a wake of another
-// length) falls back to the march.
-func (cs *coupledState) warmFrom(w *coupledState) {
+// splits and variables; it reports false (and changes nothing) when the
+// layouts differ (a wake of another length).
+func (cs *coupledState) warmFrom(w *coupledState) bool {
 	if len(w.st) != len(cs.st) {
-		cs.march()
-		return
+		return false
 	}
 	copy(cs.stag, w.stag)
 	copy(cs.sStag, w.sStag)
@@ -352,4 +362,5 @@ func (cs *coupledState) warmFrom(w *coupledState) {
 		cs.c[i], cs.th[i], cs.m[i] = w.c[i], w.th[i], w.m[i]
 	}
 	cs.retype()
+	return true
 }

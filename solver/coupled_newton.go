@@ -92,6 +92,18 @@ func (cs *coupledState) residual(i int, l *local) bl.Residuals {
 	me := cs.stationFrom(l, 0)
 	switch {
 	case s.first:
+		// The stagnation station takes its speed from the flow without
+		// its own coupling (Ue0, or the march's during the
+		// continuation): its ξ and Ue are both small and the coupled Ue
+		// there moves with every mass defect nearby, which made the
+		// similarity condition, ∝ √(ξ/Ue), the least stable equation of
+		// the system.
+		u := cs.ue0[i]
+		if cs.ueMarch != nil {
+			u = (1-cs.lam)*cs.ueMarch[i] + cs.lam*u
+		}
+		me.Ue = math.Max(u, 1e-6)
+		me.DStar = math.Max(l.v[0][2], 1e-14) / me.Ue
 		return bl.Similarity(me, cs.re)
 	case s.wakeStart:
 		return bl.WakeStart(cs.stationFrom(l, 1), cs.stationFrom(l, 2), me, 0)
@@ -118,8 +130,32 @@ func fdStep(k int, v float64, laminar bool) float64 {
 	return 1e-7*math.Abs(v) + 1e-12
 }
 
-// iterate runs the Newton iterations from the current state.
-func (cs *coupledState) iterate(ctx context.Context) (converged bool, iters int, res float64, err error) {
+// homotopySteps are the coupling strengths λ of a cold start. The march
+// solves the layers on its own edge velocities Ue_march; the coupled
+// problem is reached through the family
+//
+//	Ue(λ) = (1 − λ) Ue_march + λ (Ue0 + D m),
+//
+// each member solved by Newton's method from the one before, starting
+// with λ = 0, the march's own problem solved as a whole (a
+// continuation, Allgower & Georg, Numerical Continuation Methods, 1990,
+// ch. 1). Near a trailing edge Ue0 + D m is very sensitive to the mass
+// defects (entries of D of order 1/panel length), so the full coupling
+// from the march's state puts edge velocities far from any solution;
+// each step of the family starts within Newton's reach.
+var homotopySteps = []float64{0, 0.1, 0.2, 0.35, 0.5, 0.65, 0.8, 0.9, 0.95}
+
+// Iteration bounds of the continuation's intermediate steps, which need
+// only be close enough to start the next.
+const (
+	homotopyMaxIter   = 12
+	homotopyTolerance = 1e-3
+)
+
+// solve runs the coupled iterations. With ueMarch (a cold start from the
+// march) it first follows the continuation; otherwise it iterates the
+// full coupling from the current state (a warm start).
+func (cs *coupledState) solve(ctx context.Context, ueMarch []float64) (converged bool, iters int, res float64, err error) {
 	maxIt := cs.opt.MaxIterations
 	if maxIt <= 0 {
 		maxIt = defaultMaxIter
@@ -128,6 +164,30 @@ func (cs *coupledState) iterate(ctx context.Context) (converged bool, iters int,
 	if tol <= 0 {
 		tol = defaultTolerance
 	}
+	if ueMarch != nil {
+		cs.ueMarch = ueMarch
+		for _, lam := range homotopySteps {
+			cs.lam = lam
+			maxIt := homotopyMaxIter
+			if lam == 0 {
+				maxIt = 2 * homotopyMaxIter
+			}
+			_, n, _, err := cs.iterate(ctx, maxIt, homotopyTolerance, lam > 0)
+			iters += n
+			if err != nil {
+				cs.ueMarch, cs.lam = nil, 1
+				return false, iters, math.Inf(1), err
+			}
+		}
+		cs.ueMarch, cs.lam = nil, 1
+	}
+	converged, n, res, err := cs.iterate(ctx, maxIt, tol, true)
+	return converged, iters + n, res, err
+}
+
+// iterate runs at most maxIt Newton iterations from the current state;
+// follow lets the stagnation points move to other panels (a new layout).
+func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64, follow bool) (converged bool, iters int, res float64, err error) {
 	n := len(cs.st)
 	for it := 1; it <= maxIt; it++ {
 		if err := ctx.Err(); err != nil {
@@ -171,14 +231,17 @@ func (cs *coupledState) iterate(ctx context.Context) (converged bool, iters int,
 			cs.th[i] += rlx * dth[i]
 			cs.m[i] += rlx * dm[i]
 		}
-		cs.clampState()
-		retyped := cs.retype()
-		moved := cs.restagnate()
-		if res < tol && rlx == 1 && !retyped && !moved {
-			return true, it, res, nil
-		}
 		if math.IsNaN(res) {
 			return false, it, res, nil
+		}
+		cs.clampState()
+		retyped := cs.retype()
+		moved := false
+		if follow {
+			moved = cs.restagnate()
+		}
+		if res < tol && rlx == 1 && !retyped && !moved {
+			return true, it, res, nil
 		}
 	}
 	return false, maxIt, res, nil
@@ -189,6 +252,9 @@ func (cs *coupledState) clampState() {
 	ue := cs.ue()
 	for i := range cs.st {
 		u := math.Max(ue[i], 1e-6)
+		if cs.st[i].first {
+			u = math.Max(cs.ue0[i], 1e-6) // as its residual (residual)
+		}
 		if cs.m[i] < minH*cs.th[i]*u {
 			cs.m[i] = minH * cs.th[i] * u
 		}
@@ -210,16 +276,15 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 	mm := make([]float64, n*n)
 	bm := make([]float64, n)
 	w := make([]float64, 3*n)
+	coup := cs.coupling()
 	for i := range n {
-		s := &cs.st[i]
 		l := cs.localOf(i, ue)
 		r0 := cs.residual(i, &l)
 		var jac [3][4][3]float64 // participant, variable, residual
-		lam := s.kind == bl.Laminar
 		for qq := 0; qq < l.n; qq++ {
 			plam := cs.st[l.idx[qq]].kind == bl.Laminar
 			for v := range 4 {
-				h := fdStep(v, l.v[qq][v], plam && qq >= 0)
+				h := fdStep(v, l.v[qq][v], plam)
 				save := l.v[qq][v]
 				l.v[qq][v] = save + h
 				r1 := cs.residual(i, &l)
@@ -229,7 +294,6 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 				}
 			}
 		}
-		_ = lam
 		// W = direct ∂R/∂m plus ∂R/∂Ue · D rows.
 		clear(w)
 		var rhs [3]float64
@@ -242,7 +306,7 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 			for e := range 3 {
 				we := w[e*n : (e+1)*n]
 				we[j] += jac[qq][2][e]
-				if a := jac[qq][3][e]; a != 0 {
+				if a := coup * jac[qq][3][e]; a != 0 {
 					for c, dv := range drow {
 						we[c] += a * dv
 					}

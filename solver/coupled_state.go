@@ -53,6 +53,11 @@ type coupledState struct {
 	st    []station
 	ue0   []float64 // inviscid edge velocity at each station
 	d     []float64 // ∂Ue/∂m, nst × nst, row-major
+	// The continuation of a cold start (coupled_newton.go): Ue =
+	// (1 − lam) ueMarch + lam (ue0 + D m); ueMarch is nil outside it.
+	lam     float64
+	ueMarch []float64
+
 	c     []float64 // ñ or √Cτ
 	th    []float64 // θ
 	m     []float64 // mass defect Ue δ*
@@ -63,7 +68,7 @@ type coupledState struct {
 // points.
 func newCoupledState(sol *Solution, opt CoupledOptions) (*coupledState, error) {
 	geo := sol.sys.geo
-	cs := &coupledState{sol: sol, geo: geo, opt: opt}
+	cs := &coupledState{sol: sol, geo: geo, opt: opt, lam: 1}
 	cs.re = opt.Re[0] / geo.elems[0].chord
 	cs.ncrit = opt.NCrit
 	if cs.ncrit <= 0 {
@@ -327,7 +332,19 @@ func (cs *coupledState) ue() []float64 {
 		for j, mj := range cs.m {
 			v += d[j] * mj
 		}
+		if cs.ueMarch != nil {
+			v = (1-cs.lam)*cs.ueMarch[i] + cs.lam*v
+		}
 		out[i] = v
 	}
 	return out
+}
+
+// coupling returns the factor of D in the edge velocities: lam during
+// the continuation, 1 otherwise.
+func (cs *coupledState) coupling() float64 {
+	if cs.ueMarch != nil {
+		return cs.lam
+	}
+	return 1
 }

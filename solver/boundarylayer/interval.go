@@ -12,8 +12,9 @@ type Residuals [3]float64
 // b, both of kind k, at Reynolds number re per unit length.
 //
 // The equations of the package notes are integrated from ξa to ξb in
-// logarithmic differences: with Δ = ξb − ξa and each source term f averaged
-// as (1 − w) f_a + w f_b,
+// logarithmic differences: with Δ = ξb − ξa (on a surface Δ = ln(ξb/ξa)
+// and each source term multiplied by its ξ) and each source term f
+// averaged as (1 − w) f_a + w f_b,
 //
 //	ln(θb/θa) + (2 + H̄) ln(Ueb/Uea) − Δ · avg(Cf/(2θ))                    (momentum, w = ½)
 //	ln(H*b/H*a) + (1 − H_w) ln(Ueb/Uea) − Δ · avg_w((2CD/H* − Cf/2)/θ)     (shape)
@@ -33,23 +34,33 @@ func Interval(k Kind, a, b Station, re float64) Residuals {
 }
 
 func interval(k Kind, a, b Station, ca, cb Closure) Residuals {
+	// On a surface the source terms are integrated in ln ξ: each is
+	// multiplied by ξ and the step is Δ ln ξ, which is exact for the
+	// power-law (similar) layers near a stagnation point, where the edge
+	// velocity grows tenfold between the first stations; a wake starts
+	// at ξ = 0 and keeps the plain step.
 	d := b.Xi - a.Xi
+	xa, xb := 1.0, 1.0
+	if k != Wake && a.Xi > 0 {
+		d = math.Log(b.Xi / a.Xi)
+		xa, xb = a.Xi, b.Xi
+	}
 	dlu := math.Log(b.Ue / a.Ue)
 	w := upwind(ca.Hk, cb.Hk)
 	avg := func(fa, fb float64) float64 { return (1-w)*fa + w*fb }
 	var r Residuals
-	r[0] = math.Log(b.Theta/a.Theta) + (2+0.5*(ca.H+cb.H))*dlu - d*0.5*(ca.Cf/(2*a.Theta)+cb.Cf/(2*b.Theta))
+	r[0] = math.Log(b.Theta/a.Theta) + (2+0.5*(ca.H+cb.H))*dlu - d*0.5*(xa*ca.Cf/(2*a.Theta)+xb*cb.Cf/(2*b.Theta))
 	shape := func(c Closure, st Station) float64 { return (2*c.CD/c.Hs - 0.5*c.Cf) / st.Theta }
-	r[1] = math.Log(cb.Hs/ca.Hs) + (1-avg(ca.H, cb.H))*dlu - d*avg(shape(ca, a), shape(cb, b))
+	r[1] = math.Log(cb.Hs/ca.Hs) + (1-avg(ca.H, cb.H))*dlu - d*avg(xa*shape(ca, a), xb*shape(cb, b))
 	if k == Laminar {
-		r[2] = b.C - a.C - d*0.5*(ca.AmpRate+cb.AmpRate)
+		r[2] = b.C - a.C - d*0.5*(xa*ca.AmpRate+xb*cb.AmpRate)
 		return r
 	}
 	lag := func(c Closure, st Station) float64 {
 		g := (c.Hk - 1) / (gbA * c.Hk)
 		return lagConstant*(c.SEq-st.C)/(2*c.Delta) + 4/(3*st.DStar)*(0.5*c.Cf-g*g)
 	}
-	r[2] = math.Log(b.C/a.C) + dlu - d*avg(lag(ca, a), lag(cb, b))
+	r[2] = math.Log(b.C/a.C) + dlu - d*avg(xa*lag(ca, a), xb*lag(cb, b))
 	return r
 }
 
