@@ -58,9 +58,9 @@ type coupledState struct {
 	lam     float64
 	ueMarch []float64
 
-	c     []float64 // ñ or √Cτ
-	th    []float64 // θ
-	m     []float64 // mass defect Ue δ*
+	c  []float64 // ñ or √Cτ
+	th []float64 // θ
+	m  []float64 // mass defect Ue δ*
 }
 
 // newCoupledState traces the wakes of the inviscid solution sol, builds
