@@ -68,6 +68,7 @@ type controls struct {
 
 	alphaMsg   *widget.Label
 	alphaSense *widget.Label // the sign convention of α, in words
+	sweepSeq   int // the latest sweep run; the end of an earlier one is ignored
 	studyName  *field
 	team       *field
 	studyMsg   *widget.Label
@@ -510,7 +511,10 @@ func (c *controls) editSweep(string) error {
 func (c *controls) runSweep() {
 	ctl := c.w.ctl
 	// Set the running state before the sweep starts, so that its end,
-	// however soon, comes after.
+	// however soon, comes after. A run that replaces one still going
+	// (the configuration changed) owns the progress from now on.
+	c.sweepSeq++
+	seq := c.sweepSeq
 	setMessage(c.sweepMsg, nil)
 	c.progress.SetValue(0)
 	c.run.Disable()
@@ -518,6 +522,9 @@ func (c *controls) runSweep() {
 	c.cancel.Show()
 	c.runRow.Refresh() // lay the row out again with Cancel beside Run
 	finish := func(err error) {
+		if seq != c.sweepSeq {
+			return
+		}
 		c.progress.Hide()
 		c.cancel.Hide()
 		c.runRow.Refresh()

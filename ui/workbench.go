@@ -384,6 +384,20 @@ func (w *Workbench) studyChanged() {
 	for _, v := range w.views {
 		v.setStudy(names, st.Viscous.Enabled)
 	}
+	if autoSweep(st) && w.ctl.Sweep() == nil {
+		w.controls.runSweep()
+	}
+}
+
+// autoSweep reports whether a study's polar runs by itself, with progress,
+// whenever it is out of date: in ground effect, where every angle is a
+// solve of its own but an inviscid sweep of up to liveSweepMaxAngles
+// angles still takes a fraction of a second. A free-air sweep runs with
+// every update instead (liveSweep); one with the boundary layer waits for
+// the Run button.
+func autoSweep(st *model.Study) bool {
+	a, err := st.Sweep.Angles()
+	return err == nil && len(a) <= liveSweepMaxAngles && !st.Viscous.Enabled && st.Ground.Enabled
 }
 
 // userError explains bad input in a dialog; the study is left unchanged.
