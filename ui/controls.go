@@ -68,7 +68,7 @@ type controls struct {
 
 	alphaMsg   *widget.Label
 	alphaSense *widget.Label // the sign convention of α, in words
-	sweepSeq   int // the latest sweep run; the end of an earlier one is ignored
+	sweepSeq   int           // the latest sweep run; the end of an earlier one is ignored
 	studyName  *field
 	team       *field
 	studyMsg   *widget.Label
