@@ -7,6 +7,7 @@ package ui
 import (
 	"context"
 	"errors"
+	"image/color"
 	"io"
 	"math"
 
@@ -305,3 +306,6 @@ func hOverC(res *engineResult) float64 {
 	}
 	return l.ClearanceM / l.Elements[0].Chord
 }
+
+// pinColour is the colour the views draw pin i in (figure.PinColour).
+func pinColour(i int, dark bool) color.Color { return figures.PinColour(i, dark) }

@@ -49,15 +49,16 @@ type Controller struct {
 	// made outside an edit (which returns its error instead).
 	OnError func(err error)
 
-	mu       sync.Mutex
-	result   *engineResult
-	resErr   error
-	resGen   uint64
-	sweep    []solver.Coefficients // shown in the polar; nil when out of date
-	sweepVis []engine.ViscousPoint // boundary-layer estimate of sweep, nil when it has none
-	pinBase  *model.Study          // study of the last pin, for its label
-	elem     int                   // element the section controls edit
-	sweepRun context.CancelFunc
+	mu          sync.Mutex
+	result      *engineResult
+	resErr      error
+	resGen      uint64
+	sweep       []solver.Coefficients // shown in the polar; nil when out of date
+	sweepVis    []engine.ViscousPoint // boundary-layer estimate of sweep, nil when it has none
+	pinBase     *model.Study          // study of the last pin, for its label
+	pinBaseSecs []*model.Section      // its sections
+	elem        int                   // element the section controls edit
+	sweepRun    context.CancelFunc
 
 	saveWrap func(io.Writer) io.Writer // tests: stands between Save's encoder and the file
 }
@@ -366,14 +367,33 @@ func (c *Controller) PinCurrent() error {
 	if len(c.state.study.Pins) >= maxPins {
 		return fmt.Errorf("at most %d pins; clear them first", maxPins)
 	}
-	label := PinLabel(c.pinBase, c.state.study)
+	label := pinLabel(c.pinBase, c.state.study, c.pinBaseSecs, c.state.sections)
 	pin := pinFromResult(label, res, c.Sweep())
 	base := cloneStudy(c.state.study)
 	if err := c.Edit("", func(st *model.Study) { st.Pins = append(st.Pins, pin) }); err != nil {
 		return err
 	}
-	c.pinBase = base
+	c.pinBase, c.pinBaseSecs = base, c.state.sections
 	return nil
+}
+
+// RenamePin gives pin i a label of the user's choosing; names must not be
+// empty and no two pins may share one.
+func (c *Controller) RenamePin(i int, label string) error {
+	pins := c.state.study.Pins
+	if i < 0 || i >= len(pins) {
+		panic(fmt.Sprintf("ui: pin %d out of range", i))
+	}
+	label = strings.TrimSpace(label)
+	if label == "" {
+		return errors.New("a pin needs a name")
+	}
+	for j, p := range pins {
+		if j != i && p.Label == label {
+			return fmt.Errorf("pin %d is already named %q", j+1, label)
+		}
+	}
+	return c.Edit("", func(st *model.Study) { st.Pins[i].Label = label })
 }
 
 // ClearPins removes all pins.

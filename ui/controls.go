@@ -8,6 +8,7 @@ import (
 	"strings"
 
 	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
@@ -64,7 +65,11 @@ type controls struct {
 	progress       *widget.ProgressBar
 	sweepMsg       *widget.Label
 
-	pins *widget.Label
+	pins        *widget.Label
+	pinRows     *fyne.Container
+	pinFields   []*field
+	pinSwatches []*canvas.Rectangle
+	pinMsg      *widget.Label
 
 	alphaMsg   *widget.Label
 	alphaSense *widget.Label // the sign convention of α, in words
@@ -357,6 +362,8 @@ func newControls(w *Workbench) *controls {
 	// Pins.
 	c.pins = widget.NewLabel("")
 	c.pins.Wrapping = fyne.TextWrapWord
+	c.pinMsg = message()
+	c.pinRows = container.NewVBox()
 	pin := widget.NewButton("Pin current", func() { w.userError(ctl.PinCurrent()) })
 	clear := widget.NewButton("Clear pins", func() { w.userError(ctl.ClearPins()) })
 
@@ -421,6 +428,8 @@ func newControls(w *Workbench) *controls {
 		heading("Pins"),
 		container.NewGridWithColumns(2, pin, clear),
 		c.pins,
+		c.pinRows,
+		c.pinMsg,
 	)
 	c.tabs = container.NewAppTabs(
 		container.NewTabItem("Wing", scrolled(elements)),
@@ -622,12 +631,36 @@ func (c *controls) sync(st *model.Study) {
 	if len(st.Pins) == 0 {
 		c.pins.SetText("No pins. A pin freezes the current Cp and polar for comparison.")
 	} else {
-		var b strings.Builder
-		for i, p := range st.Pins {
-			fmt.Fprintf(&b, "%d. %s\n", i+1, p.Label)
-		}
-		c.pins.SetText(strings.TrimSpace(b.String()))
+		c.pins.SetText("Each pin has its own colour and line style in the views; its name says what differed from the pin before. Rename a pin in its field.")
 	}
+	c.syncPins(st)
+}
+
+// syncPins shows one row per pin: its colour and its name in a field that
+// renames it.
+func (c *controls) syncPins(st *model.Study) {
+	for len(c.pinFields) < len(st.Pins) {
+		i := len(c.pinFields)
+		f := newField(c.w, c.pinMsg, func(s string) error { return c.w.ctl.RenamePin(i, s) })
+		sw := canvas.NewRectangle(pinColour(i, c.w.dark()))
+		sw.SetMinSize(fyne.NewSize(18, 18))
+		c.pinFields = append(c.pinFields, f)
+		c.pinSwatches = append(c.pinSwatches, sw)
+		c.pinRows.Add(container.NewBorder(nil, nil, container.NewCenter(sw), nil, f))
+	}
+	for i, f := range c.pinFields {
+		row := c.pinRows.Objects[i]
+		if i >= len(st.Pins) {
+			row.Hide()
+			continue
+		}
+		label := st.Pins[i].Label
+		f.show(label, func(s string) bool { return strings.TrimSpace(s) == label })
+		c.pinSwatches[i].FillColor = pinColour(i, c.w.dark())
+		c.pinSwatches[i].Refresh()
+		row.Show()
+	}
+	setMessage(c.pinMsg, nil)
 }
 
 // setIfDiffers sets an entry's text unless it already says the same value,

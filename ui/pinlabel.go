@@ -12,7 +12,11 @@ import (
 // pinned before it, for example "N=80, cosine". With no earlier pin (prev
 // nil) it names the section, the panel count and the spacing law. If nothing
 // differs the label says so, so that no two pins look alike by accident.
-func PinLabel(prev, cur *model.Study) string {
+func PinLabel(prev, cur *model.Study) string { return pinLabel(prev, cur, nil, nil) }
+
+// pinLabel is PinLabel with the studies' sections, which give a flap's
+// gap (model.Slot); without them a changed gap is named without its value.
+func pinLabel(prev, cur *model.Study, prevSecs, curSecs []*model.Section) string {
 	if prev == nil {
 		return strings.Join([]string{sourceLabel(cur), panelsLabel(cur), string(cur.Panelling.Spacing)}, ", ")
 	}
@@ -29,12 +33,72 @@ func PinLabel(prev, cur *model.Study) string {
 	add(prev.Panelling.Nose != cur.Panelling.Nose, "nose "+num(cur.Panelling.Nose))
 	add(prev.Panelling.Tail != cur.Panelling.Tail, "tail "+num(cur.Panelling.Tail))
 	add(prev.Flow.AlphaDeg != cur.Flow.AlphaDeg, "α="+num(cur.Flow.AlphaDeg)+"°")
+	if len(prev.Elements) == len(cur.Elements) {
+		parts = append(parts, elementDiffs(prev, cur, prevSecs, curSecs)...)
+	}
 	add(prev.Ground != cur.Ground, groundLabel(cur.Ground))
 	add(prev.Inverted != cur.Inverted, map[bool]string{true: "inverted", false: "upright"}[cur.Inverted])
+	add(prev.Flow.SpeedMPS != cur.Flow.SpeedMPS, speedLabel(cur.Flow.SpeedMPS))
+	add(prev.Flow.Reynolds != cur.Flow.Reynolds, "Re "+num(cur.Flow.Reynolds))
+	add(prev.Flow.TemperatureC != cur.Flow.TemperatureC || prev.Flow.PressurePa != cur.Flow.PressurePa,
+		"air "+num(cur.Flow.TemperatureC)+" °C, "+num(cur.Flow.PressurePa)+" Pa")
+	add(prev.Viscous.Enabled != cur.Viscous.Enabled, map[bool]string{true: "boundary layer on", false: "boundary layer off"}[cur.Viscous.Enabled])
+	add(prev.Viscous.TripUpper != cur.Viscous.TripUpper || prev.Viscous.TripLower != cur.Viscous.TripLower,
+		"trips "+num(cur.Viscous.TripUpper)+"/"+num(cur.Viscous.TripLower))
+	add(prev.Viscous.SeparationH != cur.Viscous.SeparationH, "separation H "+num(cur.Viscous.SeparationH))
 	if len(parts) == 0 {
 		return panelsLabel(cur) + ", " + string(cur.Panelling.Spacing) + " (unchanged)"
 	}
 	return strings.Join(parts, ", ")
+}
+
+// elementDiffs names what differs element by element: section (beyond
+// the first element, which the label names already), chord, the main
+// element's setting angle and position, and each flap's gap, overlap and
+// deflection.
+func elementDiffs(prev, cur *model.Study, prevSecs, curSecs []*model.Section) []string {
+	var parts []string
+	for i, e := range cur.Elements {
+		p := prev.Elements[i]
+		if i > 0 && p.Section.String() != e.Section.String() {
+			parts = append(parts, e.Name+" "+shortSource(e.Section))
+		}
+		if p.ChordMM != e.ChordMM {
+			parts = append(parts, e.Name+" chord "+num(e.ChordMM)+" mm")
+		}
+		if i == 0 {
+			if p.AngleDeg != e.AngleDeg {
+				parts = append(parts, e.Name+" "+num(e.AngleDeg)+"°")
+			}
+			if p.XMM != e.XMM || p.YMM != e.YMM {
+				parts = append(parts, e.Name+" at "+num(e.XMM)+", "+num(e.YMM)+" mm")
+			}
+			continue
+		}
+		fp, fc := prev.FlapPlacementOf(i), cur.FlapPlacementOf(i)
+		if fp.DeflectionDeg != fc.DeflectionDeg {
+			parts = append(parts, e.Name+" deflection "+num(fc.DeflectionDeg)+"°")
+		}
+		if fp.OverlapMM != fc.OverlapMM {
+			parts = append(parts, e.Name+" overlap "+num(fc.OverlapMM)+" mm")
+		}
+		if fp.GapMM != fc.GapMM {
+			if i < len(curSecs) && i < len(prevSecs) && curSecs[i] != nil {
+				parts = append(parts, e.Name+" gap "+num(cur.SlotOf(i, curSecs[i]).GapMM)+" mm")
+			} else {
+				parts = append(parts, e.Name+" gap changed")
+			}
+		}
+	}
+	return parts
+}
+
+// speedLabel names a speed in km/h, the unit a car team thinks in.
+func speedLabel(mps float64) string {
+	if mps == 0 {
+		return "no speed"
+	}
+	return num(mps*3.6) + " km/h"
 }
 
 func panelsLabel(st *model.Study) string { return "N=" + strconv.Itoa(st.Panelling.Panels) }

@@ -32,6 +32,9 @@ func TestPinLabel(t *testing.T) {
 		{"file section", base(), func(s *model.Study) { s.Elements[0].Section.Spec = "sections/flap.dat" }, "flap.dat"},
 		{"ground", base(), func(s *model.Study) { s.Ground = model.Ground{Enabled: true, ClearanceMM: 60} }, "ground 60 mm"},
 		{"nothing", base(), func(*model.Study) {}, "N=160, cosine (unchanged)"},
+		{"speed", base(), func(s *model.Study) { s.Flow.SpeedMPS = 25 }, "90 km/h"},
+		{"viscous", base(), func(s *model.Study) { s.Viscous.Enabled = true }, "boundary layer on"},
+		{"main angle", base(), func(s *model.Study) { s.Elements[0].AngleDeg = 3 }, "main 3°"},
 	}
 	for _, c := range cases {
 		cur := base()
@@ -39,5 +42,27 @@ func TestPinLabel(t *testing.T) {
 		if got := PinLabel(c.prev, cur); got != c.want {
 			t.Errorf("%s: PinLabel = %q, want %q", c.name, got, c.want)
 		}
+	}
+}
+
+// TestPinLabelFlap: two flap settings pinned one after the other are named
+// by the flap's deflection and its gap (model.Slot, with the sections).
+func TestPinLabelFlap(t *testing.T) {
+	sec, err := model.NACA("4412", model.NACAOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	secs := []*model.Section{sec, sec}
+	prev := model.NewStudy()
+	prev.Elements = append(prev.Elements, model.StudyElement{Name: "flap", Section: model.SectionSource{Spec: "naca:4412"}, ChordMM: 120})
+	if err := prev.PlaceSlot(1, sec, model.Slot{GapMM: 8, OverlapMM: 5, DeflectionDeg: 15}); err != nil {
+		t.Fatal(err)
+	}
+	cur := prev.Clone()
+	if err := cur.PlaceSlot(1, sec, model.Slot{GapMM: 10, OverlapMM: 5, DeflectionDeg: 25}); err != nil {
+		t.Fatal(err)
+	}
+	if got, want := pinLabel(prev, cur, secs, secs), "flap deflection 25°, flap gap 10 mm"; got != want {
+		t.Errorf("pinLabel = %q, want %q", got, want)
 	}
 }

@@ -407,3 +407,9 @@ func (w *Workbench) userError(err error) {
 	}
 	showError(errors.New(friendly(err)), w.win)
 }
+
+// dark reports whether the app uses the dark theme (the figures' colours
+// follow it).
+func (w *Workbench) dark() bool {
+	return w.app.Settings().ThemeVariant() == theme.VariantDark
+}

@@ -300,8 +300,17 @@ func TestPinsAppearAndClear(t *testing.T) {
 		t.Error("pin holds no polar")
 	}
 	current(t, w)
-	if !strings.Contains(w.controls.pins.Text, "N=80") {
-		t.Errorf("pin list %q does not show the pin", w.controls.pins.Text)
+	if got := w.controls.pinFields[1].Text; got != "N=80" {
+		t.Errorf("pin list shows %q for the second pin, want N=80", got)
+	}
+	// A pin can be renamed in its field; an empty or taken name is refused.
+	w.controls.pinFields[1].submit("80 panels, cosine")
+	if got := w.ctl.Study().Pins[1].Label; got != "80 panels, cosine" {
+		t.Errorf("renamed pin is %q", got)
+	}
+	w.controls.pinFields[1].submit(pins[0].Label)
+	if w.controls.pinMsg.Hidden || w.ctl.Study().Pins[1].Label != "80 panels, cosine" {
+		t.Errorf("a taken name: message hidden %v, label %q", w.controls.pinMsg.Hidden, w.ctl.Study().Pins[1].Label)
 	}
 	if err := w.ctl.ClearPins(); err != nil {
 		t.Fatal(err)

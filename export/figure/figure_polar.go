@@ -10,6 +10,8 @@ import (
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
+
+	"sectionbench/model"
 )
 
 // twinAxis is a second vertical axis on the right of the data area for a
@@ -97,6 +99,16 @@ func clSlope(alpha, cl []float64) float64 {
 	return (n*sac - sa*sc) / den
 }
 
+// sceneHOverC is the ground clearance over the main element's chord, NaN
+// in free air.
+func sceneHOverC(sc *Scene) float64 {
+	l := sc.Layout
+	if l == nil || !sc.Ground || len(l.Elements) == 0 {
+		return math.NaN()
+	}
+	return l.ClearanceM / l.Elements[0].Chord
+}
+
 // polarPlot draws Cl (left axis) and Cm (right axis) against the angle of
 // attack for the sweep, the current angle marked and pins as faded dotted
 // curves.
@@ -129,9 +141,9 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	if s := clSlope(alpha, cl); !math.IsNaN(s) {
 		title = fmt.Sprintf("Polar: Cl and Cm against α (mean lift slope %s per degree)", formatTick(s, 4))
 	}
-	ylabel := "Cl"
+	ylabel := "Cl from circulation"
 	if sc.Inverted {
-		ylabel = "Cl (negative: downforce)"
+		ylabel = "Cl from circulation (negative: downforce)"
 	}
 	p := newPlot(th, title, "α, degrees", ylabel)
 	k := newKey(th, keyTopLeft)
@@ -157,8 +169,8 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			pm[i] = plotter.XY{X: r[0], Y: tw.toLeft(p, r[2])}
 		}
 		k.keep(pl, pm)
-		p.Add(newLine(pl, lineStyle(c, widthNormal, dashPin)), newLine(pm, lineStyle(c, widthThin, dashPin)))
-		k.add("pin: "+pin.Label, legendLine{lineStyle(c, widthNormal, dashPin)})
+		p.Add(newLine(pl, lineStyle(c, widthNormal, pinDash(j))), newLine(pm, lineStyle(c, widthThin, pinDash(j))))
+		k.add("pin: "+pin.Label, legendLine{lineStyle(c, widthNormal, pinDash(j))})
 	}
 	xl, xm := make(plotter.XYs, len(sc.Sweep)), make(plotter.XYs, len(sc.Sweep))
 	for i, c := range sc.Sweep {
@@ -168,8 +180,25 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	k.keep(xl, xm)
 	p.Add(newLine(xl, clSty), newScatter(xl, th.upper, glyphSmall, draw.CircleGlyph{}))
 	p.Add(newLine(xm, cmSty), newScatter(xm, th.second, glyphSmall, draw.SquareGlyph{}))
-	k.add("Cl (left axis)", legendLine{clSty})
+	k.add("Cl from circulation (left axis)", legendLine{clSty})
 	k.add("Cm (right axis)", legendLine{cmSty})
+	// Points the plausibility rules flag (model.Plausibility), ringed.
+	var flagged plotter.XYs
+	var kinds []model.Flag
+	hc := sceneHOverC(sc)
+	for i, c := range sc.Sweep {
+		if fl := model.Plausibility(model.PointFacts{CpMin: c.CpMin, HOverC: hc}); len(fl) > 0 {
+			flagged = append(flagged, xl[i])
+			if len(fl) > len(kinds) {
+				kinds = fl
+			}
+		}
+	}
+	if len(flagged) > 0 {
+		fs := newScatter(flagged, th.lower, glyphMarker, draw.RingGlyph{})
+		p.Add(fs)
+		k.add("not to be trusted: "+model.FlagWords(kinds), fs)
+	}
 	p.Add(&refLine{value: sc.AlphaDeg, vertical: true, style: lineStyle(th.accent, widthThin, dashRef),
 		label: fmt.Sprintf("α = %s°", formatTick(sc.AlphaDeg, 2)), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)})
 	if s := sc.Solution; s != nil {

@@ -87,12 +87,12 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		}
 		xlabel = "x/c (reference chord, from the foremost leading edge)"
 	}
-	title := fmt.Sprintf("Pressure: α = %s°, Cl = %s", formatTick(sol.AlphaDeg, 2), formatTick(sol.Cl, 4))
+	title := fmt.Sprintf("Pressure: α = %s°, Cl from circulation %s", formatTick(sol.AlphaDeg, 2), formatTick(sol.Cl, 4))
 	if ab.perElement {
 		es := sol.Elements[shown[0]]
-		title = fmt.Sprintf("Pressure on %s: α = %s°, Cl = %s", es.Name, formatTick(sol.AlphaDeg, 2), formatTick(es.Cl, 4))
+		title = fmt.Sprintf("Pressure on %s: α = %s°, Cl from circulation %s", es.Name, formatTick(sol.AlphaDeg, 2), formatTick(es.Cl, 4))
 		if len(sol.Elements) == 1 {
-			title = fmt.Sprintf("Pressure: α = %s°, Cl = %s", formatTick(sol.AlphaDeg, 2), formatTick(es.Cl, 4))
+			title = fmt.Sprintf("Pressure: α = %s°, Cl from circulation %s", formatTick(sol.AlphaDeg, 2), formatTick(es.Cl, 4))
 		}
 	}
 	p := newPlot(th, title, xlabel, "Cp")
@@ -120,7 +120,7 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			if len(xys) < 2 {
 				continue
 			}
-			dash := dashPin
+			dash := pinDash(j)
 			if pc.Side == solver.Lower.String() {
 				dash = dashLower
 			}
@@ -128,7 +128,7 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			l := newLine(xys, lineStyle(c, widthNormal, dash))
 			p.Add(l)
 			if !added {
-				k.add("pin: "+pin.Label, legendLine{lineStyle(c, widthNormal, dashPin)})
+				k.add("pin: "+pin.Label, legendLine{lineStyle(c, widthNormal, pinDash(j))})
 				added = true
 			}
 		}

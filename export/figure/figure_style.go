@@ -67,6 +67,24 @@ func themeFor(dark bool) *theme {
 
 func (th *theme) pin(i int) color.Color { return th.pins[i%len(th.pins)] }
 
+// PinColour is the colour pin i is drawn in, so that a list of pins can
+// show it beside each name.
+func PinColour(i int, dark bool) color.Color { return themeFor(dark).pin(i) }
+
+// pinDashes give each pin its own line style as well as its own colour, so
+// that pins stay apart in grey print.
+var pinDashes = [][]vg.Length{
+	{vg.Points(1.5), vg.Points(2)},
+	{vg.Points(6), vg.Points(2), vg.Points(1.5), vg.Points(2)},
+	{vg.Points(4), vg.Points(4)},
+	{vg.Points(9), vg.Points(3)},
+	{vg.Points(1.5), vg.Points(2), vg.Points(1.5), vg.Points(5)},
+	{vg.Points(6), vg.Points(2), vg.Points(1.5), vg.Points(2), vg.Points(1.5), vg.Points(2)},
+}
+
+// pinDash is pin i's line style.
+func pinDash(i int) []vg.Length { return pinDashes[i%len(pinDashes)] }
+
 // Line widths and glyph sizes in points.
 const (
 	widthThin   = vg.Length(0.6)
