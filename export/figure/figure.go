@@ -12,7 +12,6 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
-	"gonum.org/v1/plot/vg/vgpdf"
 	"gonum.org/v1/plot/vg/vgsvg"
 
 	"sectionbench/model"
@@ -350,7 +349,7 @@ func figureCanvas(format string, widthIn, heightIn, dpi float64) (vg.CanvasWrite
 	case FormatSVG:
 		return vgsvg.New(wl, hl), nil
 	case FormatPDF:
-		return vgpdf.New(wl, hl), nil
+		return newPDFCanvas(wl, hl), nil
 	}
 	return nil, fmt.Errorf("figure format %q (want png, svg or pdf): %w", format, ErrFormat)
 }

@@ -85,7 +85,7 @@ const (
 )
 
 // blSmallNote ends the caption of a figure too small for every panel.
-const blSmallNote = "θ and H: enlarge the view"
+const blSmallNote = "θ and H left out: too small a figure for them"
 
 // blMarkKinds are the positions drawn as vertical lines, each with its
 // dash pattern, in the colour of its surface.
