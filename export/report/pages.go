@@ -64,48 +64,26 @@ func describe(st *model.Study, l *model.Layout) string {
 	return b.String() + "."
 }
 
-func (r *writer) titlePage() {
-	p := r.pdf
+func (r *writer) inputsSection() {
 	st, res := r.in.Study, r.in.Result
-	p.AddPage()
-	p.SetFont(fontFamily, "B", titlePt)
-	p.MultiCell(0, 9, st.Name, "", "L", false)
-	p.SetFont(fontFamily, "", headingPt)
-	p.SetTextColor(70, 76, 84)
-	p.CellFormat(0, 7, "Wing-section study report", "", 1, "L", false, 0, "")
-	p.SetTextColor(0, 0, 0)
-	p.Ln(2)
-	p.SetFont(fontFamily, "", bodyPt)
-	for _, kv := range [][2]string{
-		{"Prepared by", orDash(r.in.Author)},
-		{"Date", r.in.Date.Format("2 January 2006")},
-		{"Study file", orDash(r.in.FileName)},
-		{"Application", "Sectionbench " + orDash(r.in.AppVersion)},
-	} {
-		p.SetFont(fontFamily, "B", bodyPt)
-		p.CellFormat(32, 5, kv[0], "", 0, "L", false, 0, "")
-		p.SetFont(fontFamily, "", bodyPt)
-		p.CellFormat(0, 5, kv[1], "", 1, "L", false, 0, "")
-	}
-	p.Ln(2)
-	r.box("Configuration", describe(st, res.Layout), [3]int{232, 239, 248})
-	r.box("Cautions", cautionText, [3]int{252, 240, 228})
-
 	r.heading("Inputs")
+	r.box("Configuration", describe(st, res.Layout), [3]int{232, 239, 248})
+	r.subheading("Frame and signs")
+	r.signSketch()
 	r.subheading("Elements")
 	rows := make([][]string, len(st.Elements))
 	for i, e := range st.Elements {
 		rows[i] = []string{e.Name, e.Section.String(), mm(e.ChordMM), mm(e.XMM) + ", " + mm(e.YMM), num(e.AngleDeg, 2)}
 	}
-	r.table([]string{"Element", "Section source", "Chord, mm", "Leading edge x, y, mm", "Angle, °"},
-		[]float64{1.1, 2.2, 0.9, 1.5, 0.8}, []string{"L", "L", "R", "R", "R"}, rows)
+	r.table([]string{"Element", "Section source", "Chord, mm", "Leading edge x, y, mm (as mounted)", "Angle, ° (" + model.AngleShort(st.Inverted) + ")"},
+		[]float64{1.3, 2.0, 0.8, 1.7, 1.2}, []string{"L", "L", "R", "R", "R"}, rows)
 	pn := st.Panelling
 	lmin, lmax := panelLengths(res.Layout)
 	kv := [][2]string{
 		{"Panels per element", strconv.Itoa(pn.Panels)},
 		{"Spacing law, nose / tail clustering", fmt.Sprintf("%s, %s / %s", pn.Spacing, num(pn.Nose, 2), num(pn.Tail, 2))},
 		{"Panel length, smallest to largest", fmt.Sprintf("%s to %s mm", num(lmin*1000, 3), num(lmax*1000, 2))},
-		{"Angle of attack α (nose-up positive)", num(st.Flow.AlphaDeg, 2) + "°"},
+		{"Angle of attack α (" + model.AngleShort(st.Inverted) + ")", num(st.Flow.AlphaDeg, 2) + "°"},
 		{"Mounting", mounting(st)},
 		{"Ground", ground(st)},
 		{"Reference chord", mm(res.Layout.RefChordM*1000) + " mm"},
@@ -129,8 +107,6 @@ func (r *writer) titlePage() {
 	r.need(tableHeight(len(kv)) + 10)
 	r.subheading("Panelling and flow")
 	r.keyValues(kv)
-
-	r.resultsSection()
 }
 
 func orDash(s string) string {
@@ -217,6 +193,7 @@ func (r *writer) resultsSection() {
 		rows = append(rows, []string{e.Name, Coef(e.Cl), Coef(e.ClPressure), Coef(e.Cm), Cp(e.CpMin), XC(e.XCpMin), XC(e.Stagnation.XC)})
 	}
 	r.table(head, widths, align, rows)
+	r.loadsTable()
 	if v := res.Viscous; v != nil {
 		r.need(tableHeight(len(v.Elements)) + 10)
 		r.subheading("Boundary layer")
@@ -253,8 +230,6 @@ func validity(e solver.ElementBL) string {
 
 func (r *writer) figurePages() {
 	sc := r.scene()
-	p := r.pdf
-	p.AddPage()
 	r.heading("Section and panels")
 	r.figure(figure.ViewPanels, sc, "The configuration as solved, with panel nodes and control points (panel midpoints). Lengths in millimetres.", figureHMM)
 	l := r.in.Result.Layout
@@ -275,7 +250,6 @@ func (r *writer) sweepPage() {
 		return
 	}
 	sc := r.scene()
-	r.pdf.AddPage()
 	r.heading("Sweep")
 	r.figure(figure.ViewPolar, sc, "Cl (left axis) and Cm (right axis) against the angle of attack; the current angle is marked.", figureHMM)
 	head := []string{"α, °", "Cl", "Cl (pressure)", "Cm", "Cp min", "at x/c"}
@@ -307,7 +281,6 @@ func (r *writer) viscousPage() {
 	if v == nil {
 		return
 	}
-	r.pdf.AddPage()
 	r.heading("Boundary layer")
 	for i, e := range v.Elements {
 		sc := r.scene()
@@ -321,7 +294,6 @@ func (r *writer) densityPage() {
 	if d == nil || len(d.Rows) == 0 {
 		return
 	}
-	r.pdf.AddPage()
 	r.heading("Panel density study")
 	r.figure(figure.ViewDensity, r.scene(), "Cl and Cp min against the panel count for each nose clustering.", figureHMM)
 	var rows [][]string
@@ -340,7 +312,6 @@ func (r *writer) densityPage() {
 }
 
 func (r *writer) methodsPage() {
-	r.pdf.AddPage()
 	r.heading("Methods")
 	r.para("Geometry. Each section is cleaned to unit chord (leading edge at the origin, trailing edge at x = 1), repanelled by the chosen spacing law, scaled to its chord and placed by its leading edge and setting angle. Inverted mounting mirrors the configuration about the horizontal so that the suction side faces the ground.")
 	r.para("Potential flow. The surface of every element carries a vortex sheet of linearly varying strength on straight panels (Katz & Plotkin, ch. 11); flow tangency is imposed at the panel midpoints and the Kutta condition at each trailing edge. In ground effect the ground is represented by the mirror image of the configuration with opposite circulation, which makes the ground a streamline; the configuration pitches about its reference point and the freestream stays parallel to the ground. Lift follows from the circulation (Kutta–Joukowski) and from the integrated surface pressure. For a configuration in free air the two agree to within the discretisation error; near the ground, and for one element among others, only the pressure gives the force on the body (see the notes with the results).")

@@ -20,6 +20,7 @@ import (
 	"strings"
 	"time"
 
+	"codeberg.org/go-fonts/liberation/liberationmonoregular"
 	"codeberg.org/go-fonts/liberation/liberationsansbold"
 	"codeberg.org/go-fonts/liberation/liberationsansitalic"
 	"codeberg.org/go-fonts/liberation/liberationsansregular"
@@ -55,6 +56,25 @@ type Input struct {
 	Author string
 	// Date is the report's date; the zero value means now.
 	Date time.Time
+	// Sections are the elements' cleaned sections, parallel to
+	// Study.Elements; nil leaves out the gaps and geometry descriptors.
+	Sections []*model.Section
+	// CleanReports are the cleaning reports of the sections, parallel to
+	// Study.Elements (nil for a generated section); their warnings and
+	// changes are reported.
+	CleanReports []*model.CleanReport
+	// Inputs are the files read to make the report, each with its SHA-256.
+	Inputs []InputFile
+	// CommandLine is the command that made the report, when run from the
+	// command line.
+	CommandLine string
+	// Coupled is the coupled viscous solution's answer; nil until it runs.
+	Coupled *Coupled
+}
+
+// InputFile is a file the report was made from and its SHA-256, in hex.
+type InputFile struct {
+	Path, SHA256 string
 }
 
 // ErrInput is wrapped by Write's errors for input it cannot report.
@@ -73,6 +93,7 @@ const (
 	minSpaceMM        = 40 // a heading needs this much space below it on the page
 	maxUnsplitMM      = 90 // tables shorter than this are not split across pages
 	fontFamily        = "sans"
+	monoFamily        = "mono"
 	cautionText       = "These are two-dimensional potential-flow estimates, with an integral boundary-layer estimate where shown. They do not include three-dimensional effects (finite span, end plates, wheels and body), flow separation beyond its onset, unsteady flow or a moving ground. Validate by test before relying on them. Structural design, mounting and the wing's attachment to the car follow the competition's rules and qualified engineering review."
 	caveatCirculation = "With the ground or other elements present, the circulation lift of an element is its vortex force: its vortex sheet in the velocity induced by the other elements and the ground's images (Lagally's theorem), not 2Γ/(Uc) alone. It and the lift from surface pressure agree to the discretisation error."
 	caveatGround      = "Potential flow shows downforce rising as the wing nears the ground; real wings lose downforce close to the ground once the suction side separates."
@@ -102,12 +123,16 @@ func Write(w io.Writer, in Input) error {
 	}
 	r := &writer{in: in, pdf: fpdf.New("P", "mm", size, "")}
 	r.setup()
-	r.titlePage()
+	r.summaryPage()
+	r.inputsSection()
+	r.resultsSection()
+	r.warningsSection()
 	r.figurePages()
 	r.sweepPage()
 	r.viscousPage()
 	r.densityPage()
 	r.methodsPage()
+	r.appendix()
 	if err := r.err(); err != nil {
 		return err
 	}
@@ -134,6 +159,7 @@ func (r *writer) setup() {
 	p.AddUTF8FontFromBytes(fontFamily, "", liberationsansregular.TTF)
 	p.AddUTF8FontFromBytes(fontFamily, "B", liberationsansbold.TTF)
 	p.AddUTF8FontFromBytes(fontFamily, "I", liberationsansitalic.TTF)
+	p.AddUTF8FontFromBytes(monoFamily, "", liberationmonoregular.TTF)
 	p.SetMargins(marginMM, marginMM, marginMM)
 	p.SetAutoPageBreak(true, marginMM+footerMM)
 	p.AliasNbPages("{nb}")
@@ -220,14 +246,30 @@ func (r *writer) table(head []string, widths []float64, align []string, rows [][
 	}
 	scale := r.width() / total
 	header := func() {
+		// Header cells wrap onto as many lines as the longest needs.
 		p.SetFont(fontFamily, "B", tablePt)
 		p.SetFillColor(228, 232, 237)
 		p.SetDrawColor(190, 196, 204)
 		p.SetLineWidth(0.2)
+		lines := make([][]string, len(head))
+		n := 1
 		for i, h := range head {
-			p.CellFormat(widths[i]*scale, rowHMM, h, "1", 0, align[i], true, 0, "")
+			lines[i] = p.SplitText(h, widths[i]*scale-2)
+			n = max(n, len(lines[i]))
 		}
-		p.Ln(-1)
+		const lineH = 3.8
+		hh := float64(n)*lineH + 1.4
+		x, y := float64(marginMM), p.GetY()
+		for i := range head {
+			w := widths[i] * scale
+			p.Rect(x, y, w, hh, "FD")
+			for k, l := range lines[i] {
+				p.SetXY(x, y+0.7+float64(k)*lineH)
+				p.CellFormat(w, lineH, l, "", 0, align[i], false, 0, "")
+			}
+			x += w
+		}
+		p.SetXY(marginMM, y+hh)
 		p.SetFont(fontFamily, "", tablePt)
 	}
 	// A short table is kept on one page; a long one needs room for its
@@ -242,11 +284,26 @@ func (r *writer) table(head []string, widths []float64, align []string, rows [][
 		fill := k%2 == 1
 		p.SetFillColor(246, 247, 249)
 		for i, c := range row {
-			p.CellFormat(widths[i]*scale, rowHMM, c, "1", 0, align[i], fill, 0, "")
+			w := widths[i] * scale
+			p.CellFormat(w, rowHMM, r.fit(c, w-2*p.GetCellMargin()), "1", 0, align[i], fill, 0, "")
 		}
 		p.Ln(-1)
 	}
 	p.Ln(2)
+}
+
+// fit shortens s with an ellipsis to at most w millimetres in the current
+// font, so that a long name never runs into the next cell.
+func (r *writer) fit(s string, w float64) string {
+	p := r.pdf
+	if p.GetStringWidth(s) <= w {
+		return s
+	}
+	rs := []rune(s)
+	for len(rs) > 0 && p.GetStringWidth(string(rs)+"…") > w {
+		rs = rs[:len(rs)-1]
+	}
+	return string(rs) + "…"
 }
 
 // tableHeight is the space a table of n rows must find on a page before it
@@ -259,13 +316,40 @@ func tableHeight(n int) float64 {
 	return 4 * rowHMM
 }
 
-// keyValues writes a two-column table of names and values.
+// keyValues writes a two-column table of names and values; long values
+// wrap within their cell.
 func (r *writer) keyValues(rows [][2]string) {
-	t := make([][]string, len(rows))
-	for i, kv := range rows {
-		t[i] = []string{kv[0], kv[1]}
+	p := r.pdf
+	w := r.width()
+	wk, wv := w*0.36, w*0.64
+	const lineH = 4.0
+	p.SetFont(fontFamily, "", tablePt)
+	p.SetDrawColor(190, 196, 204)
+	p.SetLineWidth(0.2)
+	cm := p.GetCellMargin()
+	for k, kv := range rows {
+		kl := p.SplitText(kv[0], wk-2*cm)
+		vl := p.SplitText(kv[1], wv-2*cm)
+		h := float64(max(len(kl), len(vl), 1))*lineH + 1.2
+		r.need(h)
+		x, y := float64(marginMM), p.GetY()
+		if k%2 == 1 {
+			p.SetFillColor(246, 247, 249)
+			p.Rect(x, y, w, h, "F")
+		}
+		p.Rect(x, y, wk, h, "D")
+		p.Rect(x+wk, y, wv, h, "D")
+		for i, l := range kl {
+			p.SetXY(x, y+0.6+float64(i)*lineH)
+			p.CellFormat(wk, lineH, l, "", 0, "L", false, 0, "")
+		}
+		for i, l := range vl {
+			p.SetXY(x+wk, y+0.6+float64(i)*lineH)
+			p.CellFormat(wv, lineH, l, "", 0, "L", false, 0, "")
+		}
+		p.SetXY(x, y+h)
 	}
-	r.table([]string{"Quantity", "Value"}, []float64{1.45, 1.2}, []string{"L", "L"}, t)
+	p.Ln(2)
 }
 
 // box writes text in a framed, tinted box.

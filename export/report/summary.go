@@ -1,0 +1,381 @@
+package report
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"sectionbench/model"
+	"sectionbench/solver/engine"
+)
+
+// Coupled holds what the coupled viscous solution adds to a report: its
+// convergence, drag, transition and separation per element and the
+// maximum lift of the sweep. The report shows these numbers where they go
+// (the summary, the element table, the sweep's marks) as soon as a caller
+// fills them in; until the coupled solution runs, Input.Coupled is nil and
+// the report says what is not known.
+type Coupled struct {
+	Converged  bool
+	Iterations int
+	Cd         float64 // configuration, on the reference chord
+	// ClMax is the largest lift coefficient of the sweep in the sense that
+	// loads the wing (−Cl, downforce, for an inverted study) and
+	// AlphaClMaxDeg its angle; NaN when the sweep found no maximum.
+	ClMax, AlphaClMaxDeg float64
+	Elements             []CoupledElement
+	// PastClMax, NotConverged and Separated are per sweep angle (parallel
+	// to Result.Sweep), nil when not known.
+	PastClMax, NotConverged, Separated []bool
+}
+
+// CoupledElement is the coupled solution on one element; x/c NaN for none.
+type CoupledElement struct {
+	Name                                 string
+	Cd                                   float64
+	TransitionUpperXC, TransitionLowerXC float64
+	SeparationUpperXC, SeparationLowerXC float64
+}
+
+// headline is page 1's set of numbers, computed once so that the tests can
+// check them against the engine's own.
+type headline struct {
+	LoadName     string  // "Downforce" or "Lift"
+	LoadCoef     float64 // in the loading sense: −Cl inverted, Cl upright
+	LoadN        float64 // over the span, N (per metre when no span: NaN)
+	LoadPerSpan  float64 // N/m
+	DragN        float64 // NaN when not estimated
+	DragPerSpan  float64 // N/m, NaN when not estimated
+	DragSource   string
+	LiftToDrag   float64 // NaN when no drag
+	ClMaxMargin  float64 // NaN when Cl max is not known
+	AlphaMargin  float64 // degrees to the angle of Cl max
+	WarningCount int
+}
+
+// loadSign turns a standard-sense lift into the loading sense of the study.
+func loadSign(st *model.Study) float64 {
+	if st.Inverted {
+		return -1
+	}
+	return 1
+}
+
+func (r *writer) headline() headline {
+	st, res := r.in.Study, r.in.Result
+	s := loadSign(st)
+	h := headline{LoadName: "Lift", LoadCoef: s * res.Solution.Cl, LoadN: math.NaN(), LoadPerSpan: math.NaN(),
+		DragN: math.NaN(), DragPerSpan: math.NaN(), LiftToDrag: math.NaN(), ClMaxMargin: math.NaN(), AlphaMargin: math.NaN()}
+	if st.Inverted {
+		h.LoadName = "Downforce"
+	}
+	q := math.NaN()
+	if f := res.Forces; f != nil {
+		q = f.DynamicPressurePa
+		h.LoadPerSpan = s * f.LiftPerSpan
+		h.DragPerSpan = f.DragPerSpan
+		if f.SpanM > 0 {
+			h.LoadN = h.LoadPerSpan * f.SpanM
+			h.DragN = f.DragPerSpan * f.SpanM
+		}
+	}
+	switch {
+	case r.in.Coupled != nil && !math.IsNaN(r.in.Coupled.Cd):
+		h.DragSource = "coupled viscous solution"
+		h.DragPerSpan = q * res.Layout.RefChordM * r.in.Coupled.Cd
+		if f := res.Forces; f != nil && f.SpanM > 0 {
+			h.DragN = h.DragPerSpan * f.SpanM
+		}
+	case res.Viscous != nil && !math.IsNaN(h.DragPerSpan):
+		h.DragSource = "one-way boundary-layer estimate (Squire–Young)"
+	}
+	if h.DragPerSpan > 0 {
+		h.LiftToDrag = h.LoadPerSpan / h.DragPerSpan
+	}
+	if c := r.in.Coupled; c != nil && !math.IsNaN(c.ClMax) {
+		h.ClMaxMargin = c.ClMax - h.LoadCoef
+		h.AlphaMargin = c.AlphaClMaxDeg - st.Flow.AlphaDeg
+	}
+	h.WarningCount = len(r.warnings())
+	return h
+}
+
+// newtons formats a force: no decimals from 100 N, one below.
+func newtons(v float64) string {
+	if math.Abs(v) >= 100 {
+		return num(v, 0) + " N"
+	}
+	return num(v, 1) + " N"
+}
+
+func (r *writer) summaryPage() {
+	p := r.pdf
+	st, res := r.in.Study, r.in.Result
+	p.AddPage()
+	p.SetFont(fontFamily, "B", titlePt)
+	p.MultiCell(0, 9, st.Name, "", "L", false)
+	p.SetFont(fontFamily, "", headingPt)
+	p.SetTextColor(70, 76, 84)
+	p.CellFormat(0, 7, "Wing-section study report — summary", "", 1, "L", false, 0, "")
+	p.SetFont(fontFamily, "", bodyPt)
+	p.CellFormat(0, 5, fmt.Sprintf("%s · %s · Sectionbench %s", orDash(r.in.Author), r.in.Date.Format("2 January 2006"), orDash(r.in.AppVersion)), "", 1, "L", false, 0, "")
+	p.SetTextColor(0, 0, 0)
+	p.Ln(2)
+	h := r.headline()
+	f := res.Forces
+	speed := "no speed given: forces not computed"
+	if f != nil {
+		speed = fmt.Sprintf("at %s km/h (%s m/s), q = %s Pa", num(model.MpsToKmh(st.Flow.SpeedMPS), 0), num(st.Flow.SpeedMPS, 1), num(f.DynamicPressurePa, 0))
+		if f.SpanM > 0 {
+			speed += fmt.Sprintf(", over a %s m span (2-D, no end effects)", num(f.SpanM, 2))
+		} else {
+			speed += ", per metre of span (no span given)"
+		}
+	}
+	kv := [][2]string{{h.LoadName, r.loadText(h)}}
+	drag := "not estimated: the boundary layer is off"
+	switch {
+	case !math.IsNaN(h.DragPerSpan) && !math.IsNaN(h.DragN):
+		drag = fmt.Sprintf("%s (%s N/m), %s", newtons(h.DragN), num(h.DragPerSpan, 2), h.DragSource)
+	case !math.IsNaN(h.DragPerSpan):
+		drag = fmt.Sprintf("%s N/m, %s", num(h.DragPerSpan, 2), h.DragSource)
+	case res.Viscous != nil:
+		drag = "not given: the boundary layer separates before the trailing edge on at least one element"
+	}
+	kv = append(kv, [2]string{"Drag", drag})
+	ld := "not known (no drag)"
+	if !math.IsNaN(h.LiftToDrag) {
+		ld = num(h.LiftToDrag, 1)
+	}
+	kv = append(kv, [2]string{h.LoadName + " over drag", ld})
+	margin := "not known: maximum lift needs the coupled viscous solution, which has not run; potential flow never stalls"
+	if !math.IsNaN(h.ClMaxMargin) {
+		margin = fmt.Sprintf("%s in the coefficient (%s of %s at Cl max), %s° in angle of attack", Coef(h.ClMaxMargin), Coef(h.LoadCoef), Coef(r.in.Coupled.ClMax), num(h.AlphaMargin, 1))
+	}
+	kv = append(kv, [2]string{"Margin to maximum lift", margin})
+	r.box("Conditions", speed+".", [3]int{232, 239, 248})
+	r.keyValues(kv)
+
+	r.subheading("Setting as mounted")
+	r.para("Frame " + model.FrameText + "; angles: " + model.AngleSense(st.Inverted) + ".")
+	r.settingTable()
+
+	r.subheading("Confidence")
+	r.keyValues(r.confidence(h))
+
+	r.subheading("Open issues")
+	issues := r.openIssues(h)
+	if len(issues) == 0 {
+		issues = []string{"None found by the checks this program makes. The cautions below still apply."}
+	}
+	r.bullets(issues)
+	r.box("Cautions", cautionText, [3]int{252, 240, 228})
+}
+
+func (r *writer) loadText(h headline) string {
+	res := r.in.Result
+	if res.Forces == nil {
+		return fmt.Sprintf("coefficient %s (no speed given, so no force)", Coef(h.LoadCoef))
+	}
+	s := fmt.Sprintf("%s N/m, coefficient %s on the %s mm reference chord", num(h.LoadPerSpan, 1), Coef(h.LoadCoef), mm(res.Layout.RefChordM*1000))
+	if !math.IsNaN(h.LoadN) {
+		s = newtons(h.LoadN) + " (" + s + ")"
+	}
+	if h.LoadN < 0 || (math.IsNaN(h.LoadN) && h.LoadPerSpan < 0) {
+		s += fmt.Sprintf("; negative: the wing makes %s, not %s", map[bool]string{true: "lift", false: "downforce"}[r.in.Study.Inverted], strings.ToLower(h.LoadName))
+	}
+	return s
+}
+
+// settingTable is every element's setting as mounted: its angle and the
+// chord rise a team measures with a ruler, and for each flap its slot
+// behind the element before; then the height over the ground.
+func (r *writer) settingTable() {
+	st, l := r.in.Study, r.in.Result.Layout
+	rows := make([][]string, len(st.Elements))
+	for i, e := range st.Elements {
+		rise := "—"
+		if i < len(l.Elements) {
+			pe := l.Elements[i]
+			rise = num((pe.TrailingEdge.Y-pe.LeadingEdge.Y)*1000, 1)
+		}
+		gap, overlap, defl := "—", "—", "—"
+		if i > 0 {
+			var sec *model.Section
+			if i < len(r.in.Sections) {
+				sec = r.in.Sections[i]
+			}
+			if sec != nil {
+				s := st.SlotOf(i, sec)
+				gap, overlap, defl = mm(s.GapMM), mm(s.OverlapMM), num(s.DeflectionDeg, 1)
+			} else {
+				fp := st.FlapPlacementOf(i)
+				overlap, defl = mm(fp.OverlapMM), num(fp.DeflectionDeg, 1)
+			}
+		}
+		rows[i] = []string{e.Name, mm(e.ChordMM), mm(e.XMM) + ", " + mm(e.YMM), num(e.AngleDeg, 2), rise, gap, overlap, defl}
+	}
+	r.table([]string{"Element", "Chord, mm", "Leading edge x, y, mm", "Angle, ° (" + model.AngleShort(st.Inverted) + ")", "Chord rise, mm", "Gap, mm", "Overlap, mm", "Deflection, °"},
+		[]float64{1.5, 0.8, 1.3, 1.2, 0.9, 0.8, 0.9, 1.1}, []string{"L", "R", "R", "R", "R", "R", "R", "R"}, rows)
+	notes := []string{"Chord rise: trailing edge height above the leading edge as mounted, at the setting (α = 0), in mm over the chord; what a ruler from the leading edge shows. " + model.SlotText + "."}
+	if st.Ground.Enabled && len(l.Elements) > 0 {
+		notes = append(notes, fmt.Sprintf("Ground: %s mm below the lowest point at the angle of attack solved; h/c = %s on the %s chord.",
+			mm(st.Ground.ClearanceMM), num(st.Ground.ClearanceMM/(l.Elements[0].Chord*1000), 3), l.Elements[0].Name))
+	}
+	r.small(strings.Join(notes, " "))
+}
+
+// confidence lists how far the numbers can be trusted.
+func (r *writer) confidence(h headline) [][2]string {
+	st, res := r.in.Study, r.in.Result
+	var kv [][2]string
+	conv := "not applicable: potential flow (a direct solve)"
+	switch c := r.in.Coupled; {
+	case c != nil && c.Converged:
+		conv = fmt.Sprintf("yes, the coupled viscous solution converged in %d iterations", c.Iterations)
+	case c != nil:
+		conv = fmt.Sprintf("NO: the coupled viscous solution did not converge (%d iterations); its numbers are not an answer", c.Iterations)
+	case res.Viscous != nil:
+		conv = "potential flow with a one-way boundary-layer estimate (no iteration)"
+	}
+	kv = append(kv, [2]string{"Converged", conv})
+	d := r.in.Density
+	if d == nil || len(d.Rows) == 0 {
+		kv = append(kv, [2]string{"Panel density study", "not run"})
+	} else {
+		band := "no steady convergence seen over the counts tried: no error band"
+		if d.Cl.OK {
+			band = fmt.Sprintf("Cl → %s ± %s extrapolated (observed order %s)", Coef(loadSign(st)*d.Cl.Value), Coef(d.Cl.ErrorEstimate), num(d.Cl.ObservedOrder, 2))
+		}
+		rec := "no count met the tolerances"
+		if d.RecommendedPanels > 0 {
+			rec = fmt.Sprintf("%d recommended against %d used", d.RecommendedPanels, st.Panelling.Panels)
+		}
+		kv = append(kv, [2]string{"Panel density study", band + "; " + rec})
+	}
+	kv = append(kv, [2]string{"Warnings", fmt.Sprintf("%d (listed under Warnings)", h.WarningCount)})
+	return kv
+}
+
+// openIssues says in plain words what a reader must know before acting.
+func (r *writer) openIssues(h headline) []string {
+	st, res := r.in.Study, r.in.Result
+	var out []string
+	for _, f := range r.flags() {
+		out = append(out, "At the angle solved: "+f.Message+".")
+	}
+	if c := r.in.Coupled; c != nil && !c.Converged {
+		out = append(out, "The viscous solution did not converge: drag, transition and maximum lift are not answers until it does.")
+	}
+	if d := r.in.Density; d != nil && len(d.Rows) > 0 {
+		switch {
+		case d.RecommendedPanels == 0:
+			out = append(out, "The density study found no panel count whose answer stays within its tolerances: the numbers still change with the panelling.")
+		case d.RecommendedPanels > st.Panelling.Panels:
+			out = append(out, fmt.Sprintf("The study uses %d panels per element but the density study recommends %d: solve again at %d before quoting a number.", st.Panelling.Panels, d.RecommendedPanels, d.RecommendedPanels))
+		}
+		for _, row := range d.Rows {
+			if !row.Solved() {
+				out = append(out, fmt.Sprintf("The density study could not place %d panels (nose %s): %s.", row.Panels, num(row.Nose, 2), row.Skipped))
+			}
+		}
+	}
+	if res.Viscous == nil && r.in.Coupled == nil {
+		out = append(out, "No drag and no warning of stall: the boundary layer was off. Turn it on (a speed or a Reynolds number) for drag, transition and separation.")
+	}
+	if v := res.Viscous; v != nil {
+		for _, e := range v.Elements {
+			if !e.Valid {
+				out = append(out, fmt.Sprintf("The boundary layer on %s separates before the trailing edge: the real wing is near or past stall there, and its drag is not given.", e.Name))
+			}
+		}
+	}
+	if math.IsNaN(h.ClMaxMargin) {
+		out = append(out, "How far the wing is from stall is not known: this program estimates no maximum lift yet. Find it by test.")
+	}
+	if n := reynoldsMismatch(st, res); n != "" {
+		out = append(out, n)
+	}
+	if h.WarningCount > 0 {
+		out = append(out, fmt.Sprintf("%d warning%s from loading the sections and solving: see Warnings.", h.WarningCount, map[bool]string{true: "", false: "s"}[h.WarningCount == 1]))
+	}
+	return out
+}
+
+// flags are the plausibility flags at the study's angle of attack.
+func (r *writer) flags() []model.Flag {
+	res := r.in.Result
+	cp := math.Inf(1)
+	for _, e := range res.Solution.Elements {
+		cp = math.Min(cp, e.CpMin)
+	}
+	return model.Plausibility(model.PointFacts{CpMin: cp, HOverC: hOverC(res), Viscous: r.viscousFacts(-1)})
+}
+
+// viscousFacts are the coupled solution's verdicts at sweep row i, or at
+// the study's angle for i < 0; nil without a coupled solution.
+func (r *writer) viscousFacts(i int) *model.ViscousFacts {
+	c := r.in.Coupled
+	if c == nil {
+		return nil
+	}
+	at := func(v []bool) bool {
+		if i < 0 {
+			return false
+		}
+		return i < len(v) && v[i]
+	}
+	if i < 0 {
+		return &model.ViscousFacts{NotConverged: !c.Converged}
+	}
+	return &model.ViscousFacts{PastClMax: at(c.PastClMax), NotConverged: at(c.NotConverged), Separated: at(c.Separated)}
+}
+
+func hOverC(res *engine.Result) float64 {
+	l := res.Layout
+	if l == nil || !l.Ground || len(l.Elements) == 0 {
+		return math.NaN()
+	}
+	return l.ClearanceM / l.Elements[0].Chord
+}
+
+// reynoldsMismatch notes a Reynolds number set directly that disagrees by
+// more than 10 % with the one speed and air give (a project choice: the
+// Reynolds numbers a team quotes are seldom closer than that).
+func reynoldsMismatch(st *model.Study, res *engine.Result) string {
+	if !(st.Flow.Reynolds > 0) || !(st.Flow.SpeedMPS > 0) || len(res.Layout.Elements) == 0 {
+		return ""
+	}
+	air, err := model.AirFromCelsius(st.Flow.TemperatureC, st.Flow.PressurePa)
+	if err != nil {
+		return ""
+	}
+	fromSpeed := model.Reynolds(st.Flow.SpeedMPS, res.Layout.Elements[0].Chord, air)
+	if math.Abs(st.Flow.Reynolds-fromSpeed) <= 0.1*fromSpeed {
+		return ""
+	}
+	return fmt.Sprintf("The Reynolds number was set directly to %s, but the speed and air give %s on the %s chord: the boundary layer uses the number set, the forces the speed.",
+		strconv.FormatFloat(st.Flow.Reynolds, 'g', 3, 64), strconv.FormatFloat(fromSpeed, 'g', 3, 64), res.Layout.Elements[0].Name)
+}
+
+// bullets writes a list, one paragraph an item.
+func (r *writer) bullets(items []string) {
+	p := r.pdf
+	p.SetFont(fontFamily, "", bodyPt)
+	for _, it := range items {
+		x := p.GetX()
+		p.CellFormat(4, 4.6, "•", "", 0, "L", false, 0, "")
+		p.MultiCell(r.width()-4, 4.6, it, "", "L", false)
+		p.SetX(x)
+	}
+	p.Ln(1)
+}
+
+// small writes a paragraph in the table font.
+func (r *writer) small(s string) {
+	p := r.pdf
+	p.SetFont(fontFamily, "I", tablePt)
+	p.MultiCell(0, 4, s, "", "L", false)
+	p.Ln(1.5)
+}
