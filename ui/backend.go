@@ -143,9 +143,17 @@ func tableMetadata(st *model.Study, res *engineResult, version string) format.Me
 	return format.StudyMetadata(st, res, "Sectionbench "+version)
 }
 
-// writeReport writes the team report; density may be nil.
-func writeReport(w io.Writer, st *model.Study, res *engineResult, density *engine.DensityResult, fileName, version string) error {
-	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version})
+// writeReport writes the team report of st solved as res from its sections
+// and their cleaning reports. Without a density study the report runs one
+// (a report always carries its convergence evidence); it takes tens of
+// milliseconds inviscid, and this runs off the UI goroutine.
+func writeReport(w io.Writer, st *model.Study, res *engineResult, secs []*model.Section, reps []*cleanReport, density *engine.DensityResult, fileName, version string) error {
+	if density == nil && len(secs) == len(st.Elements) {
+		if d, err := engine.NewEngine().Density(context.Background(), st, secs, nil); err == nil {
+			density = d
+		}
+	}
+	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version, Sections: secs, CleanReports: reps})
 }
 
 // recovered runs f, turning a panic into an error.

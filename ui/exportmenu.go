@@ -155,11 +155,13 @@ func (w *Workbench) currentDensity() *densityResult {
 // reportJob is what the team report is made of, gathered on the UI
 // goroutine.
 type reportJob struct {
-	study   *model.Study
-	result  *engineResult // with the sweep and its boundary-layer estimate
-	density *densityResult
-	file    string
-	version string
+	study    *model.Study
+	result   *engineResult // with the sweep and its boundary-layer estimate
+	sections []*model.Section
+	reports  []*cleanReport
+	density  *densityResult
+	file     string
+	version  string
 }
 
 // newReportJob gathers the report's input: the current result with the
@@ -180,7 +182,7 @@ func (w *Workbench) newReportJob() (*reportJob, error) {
 	if w.ctl.Path() == "" {
 		file = "unsaved study"
 	}
-	return &reportJob{study: w.ctl.Study(), result: &r, density: w.currentDensity(), file: file, version: w.app.Metadata().Version}, nil
+	return &reportJob{study: w.ctl.Study(), result: &r, sections: w.ctl.Sections(), reports: w.ctl.Reports(), density: w.currentDensity(), file: file, version: w.app.Metadata().Version}, nil
 }
 
 // writeReport gathers the report's input on the UI goroutine; the returned
@@ -193,7 +195,7 @@ func (w *Workbench) writeReport() func(dir string) ([]string, error) {
 			return nil, err
 		}
 		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-			return writeReport(out, job.study, job.result, job.density, job.file, job.version)
+			return writeReport(out, job.study, job.result, job.sections, job.reports, job.density, job.file, job.version)
 		})
 	}
 }

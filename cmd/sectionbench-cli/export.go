@@ -4,6 +4,7 @@ import (
 	"context"
 	"fmt"
 	"io"
+	"os"
 	"strings"
 	"time"
 
@@ -257,12 +258,12 @@ func tableWriter(table string, st *model.Study, secs []*model.Section) (func(io.
 }
 
 func cmdReport(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("report", "report (--study FILE | --section SPEC [--alpha DEG]) -o OUT.pdf [--page A4|Letter] [--author NAME] [--density]", stdout)
-	in := addInputs(fs, false, "text")
+	fs := newFlags("report", "report (--study FILE | --section SPEC [--alpha DEG]) -o OUT.pdf [--page A4|Letter] [--author NAME] [--no-density]", stdout)
+	in := addInputs(fs, false, "pdf")
 	out := fs.String("o", "", "output PDF `file`")
 	page := fs.String("page", report.PageA4, "page size: A4 or Letter")
 	author := fs.String("author", "", "who prepared the report (default: the study's team)")
-	density := fs.Bool("density", false, "include a density study (panel counts of the study, or 20 to 640)")
+	noDensity := fs.Bool("no-density", false, "leave out the panel density study (run by default: the study's panel counts, or 20 to 640)")
 	if _, err := fs.parse(args, 0); err != nil {
 		return err
 	}
@@ -276,7 +277,7 @@ func cmdReport(args []string, stdout, stderr io.Writer) error {
 	if strings.EqualFold(*page, report.PageLetter) {
 		pageSize = report.PageLetter
 	}
-	st, secs, _, err := in.load(fs)
+	st, secs, reps, err := in.load(fs)
 	if err != nil {
 		return err
 	}
@@ -285,8 +286,9 @@ func cmdReport(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	input := report.Input{Study: st, Result: res, FileName: reportSource(in), AppVersion: version, PageSize: pageSize, Author: *author}
-	if *density || len(st.Density.Panels) > 0 {
+	input := report.Input{Study: st, Result: res, FileName: reportSource(in), AppVersion: version, PageSize: pageSize, Author: *author,
+		Sections: secs, CleanReports: reps, Inputs: reportInputs(in, st), CommandLine: commandLine(append([]string{"report"}, args...))}
+	if !*noDensity {
 		if input.Density, err = e.Density(context.Background(), st, secs, nil); err != nil {
 			return err
 		}
@@ -299,6 +301,31 @@ func cmdReport(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintf(stderr, "wrote %s\n", *out)
 	}
 	return nil
+}
+
+// reportInputs lists the files the report was made from (inputs.files)
+// with their SHA-256.
+func reportInputs(in *inputs, st *model.Study) []report.InputFile {
+	var files []report.InputFile
+	for _, path := range in.files(st) {
+		if b, err := os.ReadFile(path); err == nil {
+			files = append(files, report.InputFile{Path: path, SHA256: report.Hash(b)})
+		}
+	}
+	return files
+}
+
+// commandLine is the command as typed, each argument quoted when a shell
+// would need it.
+func commandLine(args []string) string {
+	q := []string{"sectionbench-cli"}
+	for _, a := range args {
+		if a == "" || strings.ContainsAny(a, " \t'\"$\\;&|<>()*?[]{}~`!#") {
+			a = "'" + strings.ReplaceAll(a, "'", `'\''`) + "'"
+		}
+		q = append(q, a)
+	}
+	return strings.Join(q, " ")
 }
 
 func reportSource(in *inputs) string {

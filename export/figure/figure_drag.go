@@ -40,7 +40,7 @@ func dragPolarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			best, bestLD = i, ld
 		}
 	}
-	p := newPlot(th, fmt.Sprintf("Drag polar: best |Cl/Cd| %.1f at α = %s°", bestLD, formatTick(rows[best][0], 2)), "Cd (boundary-layer estimate)", "Cl")
+	p := newPlot(th, fmt.Sprintf("Drag polar: best |Cl/Cd| %.1f at α = %s°", bestLD, formatTick(rows[best][0], 2)), "Cd (boundary-layer estimate)"+cutOff(sc, len(rows)), "Cl")
 	sty := lineStyle(th.upper, widthNormal, nil)
 	p.Add(newLine(xys, sty), newScatter(xys, th.upper, glyphSmall, draw.CircleGlyph{}))
 	b := plotter.XYs{xys[best]}
@@ -50,6 +50,16 @@ func dragPolarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	p.X.Min, p.X.Max = padRange(p.X.Min, p.X.Max, 0.04)
 	p.Y.Min, p.Y.Max = padRange(p.Y.Min, p.Y.Max, 0.06)
 	return p, nil
+}
+
+// cutOff says, for the axis label, how many sweep angles a drag figure
+// leaves out because the estimate gives no drag there; "" for none.
+func cutOff(sc *Scene, drawn int) string {
+	n := min(len(sc.Sweep), len(sc.SweepViscous))
+	if drawn >= n {
+		return ""
+	}
+	return fmt.Sprintf("; cut off: %d of %d angles left out, no drag where the flow separates", n-drawn, n)
 }
 
 // liftToDragPlot draws Cl/Cd against α with the current angle marked.
@@ -62,7 +72,7 @@ func liftToDragPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	for i, r := range rows {
 		xys[i] = plotter.XY{X: r[0], Y: r[1] / r[2]}
 	}
-	p := newPlot(th, "Lift-to-drag ratio against α", "α, degrees", "Cl/Cd")
+	p := newPlot(th, "Lift-to-drag ratio against α", "α, degrees"+cutOff(sc, len(rows)), "Cl/Cd")
 	p.Add(newLine(xys, lineStyle(th.upper, widthNormal, nil)), newScatter(xys, th.upper, glyphSmall, draw.CircleGlyph{}))
 	p.Add(&refLine{value: sc.AlphaDeg, vertical: true, style: lineStyle(th.accent, widthThin, dashRef),
 		label: fmt.Sprintf("α = %s°", formatTick(sc.AlphaDeg, 2)), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)})

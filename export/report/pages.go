@@ -3,12 +3,14 @@ package report
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
 	"sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // Number formats of the report's tables. The tests format the solver's
@@ -68,6 +70,7 @@ func (r *writer) inputsSection() {
 	st, res := r.in.Study, r.in.Result
 	r.heading("Inputs")
 	r.box("Configuration", describe(st, res.Layout), [3]int{232, 239, 248})
+	r.need(sketchHMM + 12)
 	r.subheading("Frame and signs")
 	r.signSketch()
 	r.subheading("Elements")
@@ -177,7 +180,7 @@ func (r *writer) resultsSection() {
 			kv = append(kv, [2]string{fmt.Sprintf("Downforce over a %s m span (2-D, no end effects)", num(f.SpanM, 3)), num(f.DownforcePerSpan*f.SpanM, 1) + " N"})
 		}
 	}
-	r.need(tableHeight(len(kv)) + 25)
+	r.need(minSpaceMM + 20)
 	r.heading("Results")
 	r.subheading("Configuration")
 	r.keyValues(kv)
@@ -205,11 +208,7 @@ func (r *writer) resultsSection() {
 		r.table([]string{"Element", "Cd", "Transition x/c, upper / lower", "Separation x/c, upper / lower", "Estimate"},
 			[]float64{1, 0.8, 1.6, 1.6, 1.2}, []string{"L", "R", "R", "R", "L"}, rows)
 	}
-	var notes []string
-	notes = append(notes, sol.Warnings...)
-	if res.Viscous != nil {
-		notes = append(notes, res.Viscous.Notes...)
-	}
+	var notes []string // the solver's and boundary layer's own notes are under Warnings
 	if st.Ground.Enabled || len(sol.Elements) > 1 {
 		notes = append(notes, caveatCirculation)
 	}
@@ -230,6 +229,7 @@ func validity(e solver.ElementBL) string {
 
 func (r *writer) figurePages() {
 	sc := r.scene()
+	r.need(figureHMM + 32)
 	r.heading("Section and panels")
 	r.figure(figure.ViewPanels, sc, "The configuration as solved, with panel nodes and control points (panel midpoints). Lengths in millimetres.", figureHMM)
 	l := r.in.Result.Layout
@@ -239,8 +239,16 @@ func (r *writer) figurePages() {
 		le.Window = figure.LEWindow(l, 0, size)
 		r.figure(figure.ViewPanels, &le, fmt.Sprintf("Leading edge of %s, a %s mm window: nose panelling.", l.Elements[0].Name, num(size, 0)), figureHMM)
 	}
+	r.need(figureHMM + 32)
 	r.heading("Pressure and flow")
 	r.figure(figure.ViewPressure, sc, "Pressure coefficient against chord position, negative up. Solid: upper surface; dashed: lower surface.", figureHMM)
+	if dwarfed(r.in.Result.Solution) {
+		for i, e := range r.in.Result.Solution.Elements {
+			one := *sc
+			one.Element = i
+			r.figure(figure.ViewPressure, &one, fmt.Sprintf("Pressure coefficient on %s alone, on its own scale: its suction peak is far smaller than another element's.", e.Name), figureHMM*0.8)
+		}
+	}
 	r.figure(figure.ViewStreamlines, sc, "Streamlines; the dividing streamline of each element is drawn bold.", figureHMM)
 }
 
@@ -250,27 +258,49 @@ func (r *writer) sweepPage() {
 		return
 	}
 	sc := r.scene()
+	r.need(figureHMM + 32)
 	r.heading("Sweep")
 	r.figure(figure.ViewPolar, sc, "Cl (left axis) and Cm (right axis) against the angle of attack; the current angle is marked.", figureHMM)
 	head := []string{"α, °", "Cl", "Cl (pressure)", "Cm", "Cp min", "at x/c"}
-	widths := []float64{0.8, 1, 1.1, 1, 1, 0.9}
+	widths := []float64{0.7, 0.9, 1, 0.9, 0.9, 0.8}
 	align := []string{"R", "R", "R", "R", "R", "R"}
 	vis := len(res.SweepViscous) == len(res.Sweep)
 	if vis {
-		head = append(head, "Cd", "Transition, upper / lower")
-		widths = append(widths, 0.9, 1.9)
+		head = append(head, "Cd", "Transition x/c, upper / lower")
+		widths = append(widths, 0.8, 1.6)
 		align = append(align, "R", "R")
 	}
+	head = append(head, "Marks")
+	widths = append(widths, 0.9)
+	align = append(align, "L")
 	var rows [][]string
+	order := []model.FlagKind{model.FlagSeparated, model.FlagPastClMax, model.FlagNotConverged, model.FlagSuction, model.FlagGround, flagBLSeparates}
+	marked := map[model.FlagKind]bool{}
 	for i, c := range res.Sweep {
 		row := []string{num(c.AlphaDeg, 2), Coef(c.Cl), Coef(c.ClPressure), Coef(c.Cm), Cp(c.CpMin), XC(c.XCpMin)}
 		if vis {
 			v := res.SweepViscous[i]
 			row = append(row, Coef(v.Cd), XC(v.TransitionUpper)+" / "+XC(v.TransitionLower))
 		}
+		var marks []string
+		for _, f := range r.sweepFlags(i) {
+			marked[f.Kind] = true
+			marks = append(marks, strconv.Itoa(slices.Index(order, f.Kind)+1))
+		}
+		row = append(row, strings.Join(marks, ", "))
 		rows = append(rows, row)
 	}
 	r.table(head, widths, align, rows)
+	var foot []string
+	for k, kind := range order {
+		if marked[kind] {
+			foot = append(foot, fmt.Sprintf("(%d) %s: %s", k+1, kind, flagMeaning[kind]))
+		}
+	}
+	if len(foot) > 0 {
+		r.small("Marked rows are not to be taken at face value. " + strings.Join(foot, " "))
+	}
+	r.small(sweepPositioning(r.in.Study))
 	if vis {
 		r.figure(figure.ViewDragPolar, sc, "Drag polar from the boundary-layer estimate; angles where a surface separates are left out.", figureHMM)
 	}
@@ -281,6 +311,7 @@ func (r *writer) viscousPage() {
 	if v == nil {
 		return
 	}
+	r.need(110 + 32)
 	r.heading("Boundary layer")
 	for i, e := range v.Elements {
 		sc := r.scene()
@@ -294,21 +325,49 @@ func (r *writer) densityPage() {
 	if d == nil || len(d.Rows) == 0 {
 		return
 	}
+	r.need(figureHMM + 32)
 	r.heading("Panel density study")
 	r.figure(figure.ViewDensity, r.scene(), "Cl and Cp min against the panel count for each nose clustering.", figureHMM)
+	st := r.in.Study
+	tolCl, tolCp := st.Density.TolClPct, st.Density.TolCpMinPct
+	if tolCl == 0 {
+		tolCl = engine.DefaultTolClPct
+	}
+	if tolCp == 0 {
+		tolCp = engine.DefaultTolCpMinPct
+	}
 	var rows [][]string
 	for _, row := range d.Rows {
 		if !row.Solved() {
-			rows = append(rows, []string{strconv.Itoa(row.Panels), num(row.Nose, 2), "skipped", "", "", ""})
+			rows = append(rows, []string{strconv.Itoa(row.Panels), num(row.Nose, 2), "skipped: " + row.Skipped, "", "", "", "", ""})
 			continue
 		}
-		rows = append(rows, []string{strconv.Itoa(row.Panels), num(row.Nose, 2), Coef(row.Cl), Coef(row.Cm), Cp(row.CpMin), num(row.ShortestPanel*1000, 3)})
+		rows = append(rows, []string{strconv.Itoa(row.Panels), num(row.Nose, 2), Coef(row.Cl), Coef(row.DCl), Coef(row.Cm), Cp(row.CpMin), Cp(row.DCpMin), num(row.ShortestPanel*1000, 3)})
 	}
-	r.table([]string{"Panels", "Nose", "Cl", "Cm", "Cp min", "Smallest panel, mm"}, []float64{1, 1, 1, 1, 1, 1.4},
-		[]string{"R", "R", "R", "R", "R", "R"}, rows)
+	r.table([]string{"Panels", "Nose", "Cl", "ΔCl from the count before", "Cm", "Cp min", "ΔCp min", "Smallest panel, mm"}, []float64{0.7, 0.6, 1.3, 1, 0.9, 0.9, 0.9, 1},
+		[]string{"R", "R", "R", "R", "R", "R", "R", "R"}, rows)
+	ex := func(name string, e engine.Extrapolation) string {
+		if !e.OK {
+			return name + ": no steady convergence over the three finest counts (no extrapolation)"
+		}
+		return fmt.Sprintf("%s → %s ± %.2g (observed order %s)", name, num(e.Value, 4), e.ErrorEstimate, num(e.ObservedOrder, 2))
+	}
+	var lines []string
+	for _, se := range d.Series {
+		rec := "no count meets the tolerances"
+		if se.RecommendedPanels > 0 {
+			rec = fmt.Sprintf("%d panels recommended", se.RecommendedPanels)
+		}
+		lines = append(lines, fmt.Sprintf("Nose %s: %s; %s; %s; %s.", num(se.Nose, 2), ex("Cl", se.Cl), ex("Cm", se.Cm), ex("Cp min", se.CpMin), rec))
+	}
+	r.bullets(lines)
+	used := fmt.Sprintf("This study uses %d panels per element.", st.Panelling.Panels)
 	if d.RecommendedPanels > 0 {
-		r.para(fmt.Sprintf("Recommended: %d panels per element (the smallest count from which every finer count stays within the tolerances).", d.RecommendedPanels))
+		used = fmt.Sprintf("Recommended: %d panels per element, the smallest count from which every finer count stays within %s %% in Cl and %s %% in Cp min; this study uses %d.",
+			d.RecommendedPanels, num(tolCl, 2), num(tolCp, 2), st.Panelling.Panels)
 	}
+	r.para(used + " The extrapolation is Richardson's from the three finest counts, kept only for an observed order between " +
+		num(engine.MinObservedOrder, 1) + " and " + num(engine.MaxObservedOrder, 1) + " (Roache, Verification and Validation in Computational Science and Engineering, 1998, ch. 5); its ± is the error band of the finest count.")
 }
 
 func (r *writer) methodsPage() {
@@ -349,3 +408,58 @@ const (
 	leWindowChords = 0.15
 	metresToMM     = 1000
 )
+
+// flagBLSeparates marks a sweep angle where the one-way boundary-layer
+// estimate finds the flow separating before the trailing edge.
+const flagBLSeparates model.FlagKind = "boundary layer separates"
+
+// flagMeaning says in a footnote what each mark means for the wing.
+var flagMeaning = map[model.FlagKind]string{
+	model.FlagSeparated:    "the viscous solution finds the flow separated; the real wing stalls there.",
+	model.FlagPastClMax:    "beyond the angle of maximum lift; the real wing gives less, not more.",
+	model.FlagNotConverged: "the viscous solution did not converge; the row is no answer.",
+	model.FlagSuction:      fmt.Sprintf("suction peak below Cp %d, beyond what real flows sustain at these Reynolds numbers; the wing would separate.", model.CpMinPlausible),
+	model.FlagGround:       fmt.Sprintf("closer to the ground than %.1f chords, where real wings lose downforce; potential flow shows only the rise.", model.GroundHOverCMin),
+	flagBLSeparates:        "the boundary-layer estimate separates before the trailing edge: near or past stall, drag not given.",
+}
+
+// sweepFlags are the marks of sweep row i: the plausibility rules of
+// package model, with the coupled solution's verdicts when it ran, and the
+// one-way estimate's separation.
+func (r *writer) sweepFlags(i int) []model.Flag {
+	res := r.in.Result
+	c := res.Sweep[i]
+	flags := model.Plausibility(model.PointFacts{CpMin: c.CpMin, HOverC: hOverC(res), Viscous: r.viscousFacts(i)})
+	if len(res.SweepViscous) == len(res.Sweep) && !res.SweepViscous[i].Valid {
+		flags = append(flags, model.Flag{Kind: flagBLSeparates})
+	}
+	return flags
+}
+
+// sweepPositioning says how the wing is positioned at each angle of the
+// sweep.
+func sweepPositioning(st *model.Study) string {
+	if st.Ground.Enabled {
+		return fmt.Sprintf("At each angle the whole wing pitches about the main element's quarter chord and is then set %s mm above the ground at its lowest point; the freestream stays parallel to the ground.", mm(st.Ground.ClearanceMM))
+	}
+	return "In free air the wing stays as set and the freestream turns to each angle."
+}
+
+// dwarfRatio is how many times one element's suction peak must exceed
+// another's for the shared pressure figure to flatten the smaller one; the
+// report then adds a figure per element (a layout choice: at three times
+// the scale the smaller curve uses a third of the height).
+const dwarfRatio = 3
+
+// dwarfed reports whether one element's Cp dwarfs another's.
+func dwarfed(sol *solver.Solution) bool {
+	if len(sol.Elements) < 2 {
+		return false
+	}
+	lo, hi := math.Inf(1), 0.0
+	for _, e := range sol.Elements {
+		span := 1 - e.CpMin // the Cp range from stagnation (Cp = 1) to the peak
+		lo, hi = math.Min(lo, span), math.Max(hi, span)
+	}
+	return hi > dwarfRatio*lo
+}

@@ -246,7 +246,7 @@ func (r *writer) confidence(h headline) [][2]string {
 	} else {
 		band := "no steady convergence seen over the counts tried: no error band"
 		if d.Cl.OK {
-			band = fmt.Sprintf("Cl → %s ± %s extrapolated (observed order %s)", Coef(loadSign(st)*d.Cl.Value), Coef(d.Cl.ErrorEstimate), num(d.Cl.ObservedOrder, 2))
+			band = fmt.Sprintf("Cl → %s ± %.2g extrapolated (observed order %s)", Coef(d.Cl.Value), d.Cl.ErrorEstimate, num(d.Cl.ObservedOrder, 2))
 		}
 		rec := "no count met the tolerances"
 		if d.RecommendedPanels > 0 {
