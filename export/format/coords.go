@@ -6,8 +6,8 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"strconv"
 	"slices"
+	"strconv"
 	"strings"
 
 	"sectionbench/model"
