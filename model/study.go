@@ -187,9 +187,25 @@ type Ground struct {
 	ClearanceMM float64 `json:"clearance_mm"`
 }
 
-// Viscous holds the boundary-layer estimate's settings.
+// Viscous holds the settings of the viscous solution.
 type Viscous struct {
 	Enabled bool `json:"enabled"`
+	// Mode is ViscousCoupled (boundary layers and wakes that act back on
+	// the flow, iterated to convergence) or ViscousEstimate (the one-way
+	// boundary-layer estimate on the inviscid pressures, lift inviscid).
+	// Empty means ViscousEstimate: studies saved before the coupled
+	// solution existed keep the meaning they were saved with. NewStudy
+	// leaves it empty until the app shows the coupled solution; the
+	// command line's --section studies set ViscousCoupled.
+	Mode ViscousMode `json:"mode,omitempty"`
+	// TransitionN is the critical amplification exponent N of the e^N
+	// transition criterion (coupled mode), MinTransitionN to
+	// MaxTransitionN; 0 or absent means DefaultTransitionN. Mack's
+	// correlation relates it to the free-stream turbulence level Tu in
+	// percent: N = −8.43 − 2.4 ln(Tu/100) (Mack, Transition and laminar
+	// instability, JPL Publication 77-15, 1977), so N = 9 is Tu ≈ 0.07 %
+	// (a quiet wind tunnel) and N = 4 is Tu ≈ 0.5 %.
+	TransitionN float64 `json:"transition_n,omitempty"`
 	// Forced transition (trip) positions in x/c per surface; 0 or absent
 	// means free transition. Surfaces are as mounted, like every upper and
 	// lower in the results: on an inverted wing the suction side is the
@@ -201,6 +217,37 @@ type Viscous struct {
 	// (2.4), else it lies in [MinSeparationH, MaxSeparationH].
 	SeparationH float64 `json:"separation_h,omitempty"`
 }
+
+// ViscousMode selects the viscous solution.
+type ViscousMode string
+
+// The viscous modes.
+const (
+	ViscousCoupled  ViscousMode = "coupled"
+	ViscousEstimate ViscousMode = "estimate"
+)
+
+// IsCoupled reports whether the coupled solution is selected (an empty
+// mode is the estimate).
+func (v Viscous) IsCoupled() bool { return v.Mode == ViscousCoupled }
+
+// CriticalN returns TransitionN, or DefaultTransitionN when it is 0.
+func (v Viscous) CriticalN() float64 {
+	if v.TransitionN == 0 {
+		return DefaultTransitionN
+	}
+	return v.TransitionN
+}
+
+// The critical amplification exponents a study accepts and the default:
+// N = 9 is the common choice for a quiet wind tunnel (common practice);
+// by Mack's correlation N = 1 is Tu ≈ 2.5 % and N = 15 is Tu ≈ 0.006 %,
+// the ends of the range where the correlation is used.
+const (
+	MinTransitionN     = 1
+	MaxTransitionN     = 15
+	DefaultTransitionN = 9
+)
 
 // The range of turbulent separation thresholds a study may set: texts put
 // turbulent separation in Head's method anywhere in H ≈ 2.2–3.0 (2.2–2.4 in

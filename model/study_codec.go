@@ -220,6 +220,14 @@ func (st *Study) Validate() error {
 	if h := st.Viscous.SeparationH; h != 0 && !(h >= MinSeparationH && h <= MaxSeparationH) {
 		return &FieldError{Field: "viscous.separation_h", Err: fmt.Errorf("%g is outside %g..%g", h, float64(MinSeparationH), float64(MaxSeparationH))}
 	}
+	switch st.Viscous.Mode {
+	case "", ViscousCoupled, ViscousEstimate:
+	default:
+		return &FieldError{Field: "viscous.mode", Err: fmt.Errorf("%q is not %q or %q", st.Viscous.Mode, ViscousCoupled, ViscousEstimate)}
+	}
+	if n := st.Viscous.TransitionN; n != 0 && !(n >= MinTransitionN && n <= MaxTransitionN) {
+		return &FieldError{Field: "viscous.transition_n", Err: fmt.Errorf("%g is outside %g..%g", n, float64(MinTransitionN), float64(MaxTransitionN))}
+	}
 	if st.Ground.Enabled && !(st.Ground.ClearanceMM > 0) {
 		return &FieldError{Field: "ground.clearance_mm", Err: errors.New("must be positive when the ground is on")}
 	}

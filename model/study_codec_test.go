@@ -77,6 +77,8 @@ func TestDecodeStudyErrors(t *testing.T) {
 		{"ground without clearance", `"flow"`, `"ground": {"enabled": true, "clearance_mm": 0}, "flow"`, "ground.clearance_mm", "positive"},
 		{"embedded with too few points", `"section": "naca:4412"`, `"section": {"name": "a", "points": [[0,0],[1,0]]}`, "elements[0].section.points", "too few"},
 		{"sweep backwards", `"to_deg": 12`, `"to_deg": -10`, "sweep.to_deg", "below"},
+		{"unknown viscous mode", `"flow"`, `"viscous": {"enabled": true, "mode": "exact"}, "flow"`, "viscous.mode", "exact"},
+		{"transition exponent too large", `"flow"`, `"viscous": {"enabled": true, "transition_n": 20}, "flow"`, "viscous.transition_n", "outside"},
 		{"density list too long", `"flow"`, `"density": {"panels": [16,17,18,19,20,21,22,23,24,25,26,27,28]}, "flow"`, "density.panels", "at most"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
@@ -119,5 +121,46 @@ func TestStudyTotalPanels(t *testing.T) {
 	st.Panelling.Panels = MaxTotalPanels / 2
 	if err := st.Validate(); err != nil {
 		t.Errorf("2 × %d panels: %v", MaxTotalPanels/2, err)
+	}
+}
+
+// A study saved before the coupled solution keeps its one-way estimate;
+// one that says so gets the coupled solution, with the critical
+// amplification exponent defaulting to 9.
+func TestStudyViscousMode(t *testing.T) {
+	const doc = `{"format": "sectionbench-study", "version": 2, "name": "x",
+ "elements": [{"name": "main", "section": "naca:4412", "chord_mm": 250}],
+ "panelling": {"panels": 160, "spacing": "cosine", "nose": 0.5, "tail": 0.2},
+ "flow": {"alpha_deg": 4, "reynolds": 3e5}, "sweep": {"from_deg": -4, "to_deg": 12, "step_deg": 1},
+ "viscous": {"enabled": true%s}}`
+	for _, tc := range []struct {
+		name, extra string
+		coupled     bool
+		n           float64
+	}{
+		{"absent: the estimate it was saved with", "", false, 9},
+		{"estimate", `, "mode": "estimate"`, false, 9},
+		{"coupled", `, "mode": "coupled", "transition_n": 4`, true, 4},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			st, err := DecodeStudy([]byte(strings.Replace(doc, "%s", tc.extra, 1)))
+			if err != nil {
+				t.Fatal(err)
+			}
+			if st.Viscous.IsCoupled() != tc.coupled || st.Viscous.CriticalN() != tc.n {
+				t.Errorf("coupled %v, N %g; want %v, %g", st.Viscous.IsCoupled(), st.Viscous.CriticalN(), tc.coupled, tc.n)
+			}
+			b, err := st.Encode()
+			if err != nil {
+				t.Fatal(err)
+			}
+			again, err := DecodeStudy(b)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if again.Viscous != st.Viscous {
+				t.Errorf("round trip changed the viscous settings: %+v, then %+v", st.Viscous, again.Viscous)
+			}
+		})
 	}
 }

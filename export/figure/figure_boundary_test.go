@@ -11,6 +11,7 @@ import (
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 
+	"sectionbench/model"
 	"sectionbench/solver"
 )
 
@@ -77,7 +78,7 @@ func TestBLRange(t *testing.T) {
 // off the top, so the curves aft of it fill the panel.
 func TestBoundaryLayerFigureReadable(t *testing.T) {
 	st := demoStudy(160, true)
-	st.Viscous.Enabled = true
+	st.Viscous.Enabled, st.Viscous.Mode = true, model.ViscousEstimate // the one-way estimate these checks draw
 	sc := NewScene(solveDemo(t, st, false, false), st)
 	panels, _, err := boundaryLayerPanels(sc, themeFor(false))
 	if err != nil {

@@ -109,7 +109,7 @@ func TestWriteRealFigureFiles(t *testing.T) {
 		t.Skip("no -figures directory")
 	}
 	st := demoStudy(160, true)
-	st.Viscous.Enabled = true
+	st.Viscous.Enabled, st.Viscous.Mode = true, model.ViscousEstimate // the one-way estimate these checks draw
 	sc := NewScene(solveDemo(t, st, true, true), st)
 	for _, v := range Views {
 		var b bytes.Buffer

@@ -38,7 +38,7 @@ func demoStudy() *model.Study {
 	st.Ground = model.Ground{Enabled: true, ClearanceMM: 60}
 	st.Flow.SpeedMPS = 20
 	st.Flow.SpanM = 1.2
-	st.Viscous.Enabled = true
+	st.Viscous.Enabled, st.Viscous.Mode = true, model.ViscousEstimate // the one-way estimate these checks draw
 	st.Sweep = model.SweepRange{FromDeg: -2, ToDeg: 6, StepDeg: 2}
 	return st
 }

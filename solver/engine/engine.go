@@ -24,6 +24,10 @@ type Request struct {
 	// needs one solve per angle (in ground effect, or with the boundary
 	// layer on).
 	Progress func(done, total int)
+	// CoupledMaxIterations bounds the coupled solution's Newton
+	// iterations per attempt; 0 is the solver's default. For tests that
+	// need a point that does not converge; not a user setting.
+	CoupledMaxIterations int
 }
 
 // Result is one update's answer.
@@ -35,9 +39,20 @@ type Result struct {
 	SweepViscous []ViscousPoint // parallel to Sweep when the boundary layer is on
 	Streamlines  []solver.Streamline
 	Viscous      *solver.ViscousResult // nil unless the study enables the boundary-layer estimate
-	Reynolds     []float64             // per element on its own chord; nil when neither speed nor Re is known
-	Forces       *Forces               // nil unless the study has a speed
-	Elapsed      time.Duration         // solve time (not drawing)
+	// Coupled is the coupled viscous solution at the study's angle; nil
+	// unless the study enables the viscous solution in coupled mode.
+	// Solution stays the inviscid one, beside it.
+	Coupled *CoupledPoint
+	// SweepCoupled is the coupled solution at each angle of Sweep (in
+	// coupled mode), with ClMax and AlphaClMax its maximum lift and angle
+	// among the converged rows (NaN when none converged; see ClMax) and
+	// ClMaxIsPeak whether lift falls after it inside the sweep.
+	SweepCoupled      []CoupledPoint
+	ClMax, AlphaClMax float64
+	ClMaxIsPeak       bool
+	Reynolds          []float64     // per element on its own chord; nil when neither speed nor Re is known
+	Forces            *Forces       // nil unless the study has a speed
+	Elapsed           time.Duration // solve time (not drawing)
 }
 
 // ViscousPoint is the boundary-layer estimate at one angle of a sweep.
@@ -62,6 +77,12 @@ type Engine struct {
 	layout  *model.Layout
 	sys     *solver.System // free air only
 	sysCfg  solver.Config
+
+	// The last converged coupled solution of sys, its study angle and
+	// the options it was solved with, for warm starts (coupledAt).
+	warm      *solver.CoupledSolution
+	warmAlpha float64
+	warmKey   string
 }
 
 // NewEngine returns an engine with nothing cached.
@@ -108,13 +129,13 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 		if err != nil {
 			return nil, err
 		}
-		e.geomKey, e.layout, e.sys = key, l, nil
+		e.geomKey, e.layout, e.sys, e.warm = key, l, nil, nil
 		e.secs = append([]*model.Section(nil), req.Sections...)
 	}
 	l := e.layout
 	res := &Result{Layout: l}
 
-	sol, cfg, err := e.solveAt(st.Flow.AlphaDeg)
+	sol, cfg, sys, err := e.solveAt(st.Flow.AlphaDeg)
 	if err != nil {
 		return nil, err
 	}
@@ -125,10 +146,23 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 
 	res.Reynolds = reynolds(st, l)
 	var vopt solver.ViscousOptions
+	var copt solver.CoupledOptions
+	coupled := st.Viscous.Enabled && st.Viscous.IsCoupled()
 	if st.Viscous.Enabled {
 		if res.Reynolds == nil {
-			return nil, &model.FieldError{Field: "flow.speed_mps", Err: fmt.Errorf("the boundary-layer estimate needs a speed or a Reynolds number")}
+			return nil, &model.FieldError{Field: "flow.speed_mps", Err: fmt.Errorf("the viscous solution needs a speed or a Reynolds number")}
 		}
+	}
+	switch {
+	case coupled:
+		copt = coupledOptions(st, res.Reynolds, req.CoupledMaxIterations)
+		_, _, fs := e.layout.At(st.Flow.AlphaDeg)
+		p, err := e.coupledAt(ctx, sys, st.Flow.AlphaDeg, fs, copt, fmt.Sprint(copt))
+		if err != nil {
+			return nil, err
+		}
+		res.Coupled = &p
+	case st.Viscous.Enabled:
 		vopt = solver.ViscousOptions{Re: res.Reynolds, TripUpper: st.Viscous.TripUpper, TripLower: st.Viscous.TripLower, TurbulentSeparationH: st.Viscous.SeparationH}
 		v, err := sol.Viscous(vopt)
 		if err != nil {
@@ -136,9 +170,18 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 		}
 		res.Viscous = v
 	}
+	res.ClMax, res.AlphaClMax = math.NaN(), math.NaN()
 	if req.Sweep {
 		if err := e.sweep(ctx, st, req, res, vopt); err != nil {
 			return nil, err
+		}
+		if coupled {
+			if res.SweepCoupled, err = e.coupledSweep(ctx, res.sweepAngles(), copt, req.Progress); err != nil {
+				return nil, err
+			}
+			res.ClMax, res.AlphaClMax, res.ClMaxIsPeak = ClMax(res.SweepCoupled, st.Inverted)
+			markPastClMax(res.SweepCoupled, res.AlphaClMax, res.ClMaxIsPeak)
+			res.Coupled.PastClMax = res.ClMaxIsPeak && st.Flow.AlphaDeg > res.AlphaClMax
 		}
 	}
 	if req.Streamlines {
@@ -149,7 +192,7 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 		res.Streamlines = sol.Streamlines(opt)
 	}
 	if st.Flow.SpeedMPS > 0 {
-		res.Forces = forces(st, l, sol, res.Viscous)
+		res.Forces = forces(st, l, sol, res.Viscous, res.Coupled)
 	}
 	if err := ctx.Err(); err != nil {
 		return nil, err
@@ -159,31 +202,48 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 }
 
 // solveAt solves the current layout at one angle of attack, reusing the
-// free-air factorisation.
-func (e *Engine) solveAt(alphaDeg float64) (*solver.Solution, solver.Config, error) {
+// free-air factorisation, and returns the system it solved.
+func (e *Engine) solveAt(alphaDeg float64) (*solver.Solution, solver.Config, *solver.System, error) {
 	l := e.layout
 	if !l.Ground {
 		if e.sys == nil {
 			cfg, _ := solver.LayoutConfig(l, 0)
 			sys, err := solver.NewSystem(cfg)
 			if err != nil {
-				return nil, solver.Config{}, err
+				return nil, solver.Config{}, nil, err
 			}
 			e.sys, e.sysCfg = sys, cfg
 		}
 		_, _, fs := l.At(alphaDeg)
 		sol := e.sys.Solve(fs)
 		sol.AlphaDeg = alphaDeg
-		return sol, e.sysCfg, nil
+		return sol, e.sysCfg, e.sys, nil
 	}
 	cfg, fs := solver.LayoutConfig(l, alphaDeg)
 	sys, err := solver.NewSystem(cfg)
 	if err != nil {
-		return nil, solver.Config{}, err
+		return nil, solver.Config{}, nil, err
 	}
 	sol := sys.Solve(fs)
 	sol.AlphaDeg = alphaDeg
-	return sol, cfg, nil
+	return sol, cfg, sys, nil
+}
+
+// groundSystem builds the system of the configuration pitched to
+// alphaDeg above the ground and returns it with its freestream angle.
+func (e *Engine) groundSystem(alphaDeg float64) (*solver.System, float64, error) {
+	cfg, fs := solver.LayoutConfig(e.layout, alphaDeg)
+	sys, err := solver.NewSystem(cfg)
+	return sys, fs, err
+}
+
+// sweepAngles returns the angles of the sweep rows.
+func (r *Result) sweepAngles() []float64 {
+	a := make([]float64, len(r.Sweep))
+	for i, c := range r.Sweep {
+		a[i] = c.AlphaDeg
+	}
+	return a
 }
 
 func (e *Engine) sweep(ctx context.Context, st *model.Study, req Request, res *Result, vopt solver.ViscousOptions) error {
@@ -191,7 +251,7 @@ func (e *Engine) sweep(ctx context.Context, st *model.Study, req Request, res *R
 	if err != nil {
 		return err
 	}
-	if !e.layout.Ground && !st.Viscous.Enabled {
+	if !e.layout.Ground && (!st.Viscous.Enabled || st.Viscous.IsCoupled()) {
 		fs := make([]float64, len(alphas))
 		for i, a := range alphas {
 			_, _, fs[i] = e.layout.At(a)
@@ -207,15 +267,15 @@ func (e *Engine) sweep(ctx context.Context, st *model.Study, req Request, res *R
 		if err := ctx.Err(); err != nil {
 			return err
 		}
-		sol, _, err := e.solveAt(a)
+		sol, _, _, err := e.solveAt(a)
 		if err != nil {
 			return fmt.Errorf("sweep at %g°: %w", a, err)
 		}
 		res.Sweep = append(res.Sweep, coefficientsOf(sol))
-		if st.Viscous.Enabled {
+		if st.Viscous.Enabled && !st.Viscous.IsCoupled() {
 			res.SweepViscous = append(res.SweepViscous, viscousPoint(a, sol, vopt))
 		}
-		if req.Progress != nil {
+		if req.Progress != nil && !st.Viscous.IsCoupled() { // a coupled sweep reports its own
 			req.Progress(i+1, len(alphas))
 		}
 	}

@@ -250,7 +250,7 @@ func TestEngineSeparationThreshold(t *testing.T) {
 	st, secs := engineStudy(t, "4412")
 	st.Flow.Reynolds = 3e5
 	st.Flow.AlphaDeg = 8
-	st.Viscous.Enabled = true
+	st.Viscous.Enabled, st.Viscous.Mode = true, model.ViscousEstimate
 	sepAt := func(h float64) float64 {
 		st.Viscous.SeparationH = h
 		v := run(t, NewEngine(), st, secs, false).Viscous

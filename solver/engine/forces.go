@@ -14,10 +14,15 @@ type Forces struct {
 	Viscosity         float64   // Pa·s
 	LiftPerSpan       float64   // N/m, positive up (away from the ground)
 	DownforcePerSpan  float64   // N/m, = −LiftPerSpan
-	DragPerSpan       float64   // N/m from the boundary-layer estimate, NaN when not available
+	DragPerSpan       float64   // N/m from the viscous solution, NaN when not available
 	MomentPerSpan     float64   // N·m/m about the moment reference, nose-up positive
 	ElementLift       []float64 // N/m per element, positive up
 	SpanM             float64   // 0 when not given
+	// Coupled is true when lift, moment and drag come from the coupled
+	// viscous solution; they are then NaN if it did not converge.
+	// InviscidLiftPerSpan is the panel method's lift beside them.
+	Coupled             bool
+	InviscidLiftPerSpan float64
 }
 
 // Downforce returns the downforce of a lift, force or coefficient: −lift,
@@ -40,10 +45,14 @@ func (f *Forces) SpanTotal(perSpan float64) float64 {
 }
 
 // LiftToDrag returns the configuration's Cl/Cd at the study's angle of
-// attack, with Cl inviscid and Cd from the boundary-layer estimate. It is
-// NaN without that estimate, or when the estimate gives no drag (a surface
-// separated, solver.ViscousResult.Cd is NaN).
+// attack: from the coupled solution in coupled mode (NaN unless it
+// converged), else with Cl inviscid and Cd from the boundary-layer
+// estimate. It is NaN without a viscous solution, or when the estimate
+// gives no drag (a surface separated, solver.ViscousResult.Cd is NaN).
 func (r *Result) LiftToDrag() float64 {
+	if c := r.Coupled; c != nil {
+		return c.Cl / c.Cd
+	}
 	if r.Solution == nil || r.Viscous == nil {
 		return math.NaN()
 	}
@@ -75,8 +84,10 @@ func reynolds(st *model.Study, l *model.Layout) []float64 {
 }
 
 // forces turns coefficients into forces per metre of span:
-// L' = q c_ref Cl, M' = q c_ref² Cm, with q = ½ρV².
-func forces(st *model.Study, l *model.Layout, sol *solver.Solution, v *solver.ViscousResult) *Forces {
+// L' = q c_ref Cl, M' = q c_ref² Cm, D' = q c_ref Cd, with q = ½ρV²; from
+// the coupled solution cp when there is one, else from the inviscid
+// solution (and the estimate's drag).
+func forces(st *model.Study, l *model.Layout, sol *solver.Solution, v *solver.ViscousResult, cp *CoupledPoint) *Forces {
 	air, err := model.AirFromCelsius(st.Flow.TemperatureC, st.Flow.PressurePa)
 	if err != nil {
 		return nil
@@ -95,6 +106,17 @@ func forces(st *model.Study, l *model.Layout, sol *solver.Solution, v *solver.Vi
 	}
 	if v != nil && !math.IsNaN(v.Cd) {
 		f.DragPerSpan = q * l.RefChordM * v.Cd
+	}
+	f.InviscidLiftPerSpan = f.LiftPerSpan
+	if cp != nil {
+		f.Coupled = true
+		f.LiftPerSpan = q * l.RefChordM * cp.Cl
+		f.DownforcePerSpan = -f.LiftPerSpan
+		f.MomentPerSpan = q * l.RefChordM * l.RefChordM * cp.Cm
+		f.DragPerSpan = q * l.RefChordM * cp.Cd
+		for i, e := range cp.Elements {
+			f.ElementLift[i] = q * l.Elements[i].Chord * e.Cl
+		}
 	}
 	return f
 }

@@ -1,0 +1,309 @@
+package engine
+
+import (
+	"context"
+	"errors"
+	"math"
+
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+// CoupledPoint is the coupled viscous solution (solver.SolveCoupled) at
+// one angle of attack, as the application shows it. A point that did not
+// converge carries no numbers that could be read as an answer: its Cl,
+// Cd and Cm, and every element's, are NaN, and Detail is nil; its
+// iterations and residual say how far it got. The inviscid Cl beside it
+// is always there.
+type CoupledPoint struct {
+	AlphaDeg   float64 // the study's angle of attack
+	Cl, Cd, Cm float64 // configuration, on the reference chord (Cm about the moment reference); NaN unless Converged
+	ClInviscid float64
+	CmInviscid float64
+	Converged  bool
+	Iterations int     // Newton iterations of the final attempt
+	Residual   float64 // largest relative change of the last iteration
+	// PastClMax marks a sweep row beyond the angle of maximum lift, when
+	// the sweep found a peak (Result.ClMaxIsPeak); the study's own point
+	// is marked likewise when the sweep ran.
+	PastClMax bool
+	Elements  []CoupledElementPoint
+	// Note says why there is no solution at all when the solver gave up
+	// with an error (a wake that cannot be traced, for example); empty
+	// otherwise.
+	Note string
+	// Detail is the solver's full solution (stations, wakes, bubbles);
+	// nil unless Converged.
+	Detail *solver.CoupledSolution
+
+	last *solver.CoupledSolution // the last state, converged or not, for warm starts
+}
+
+// CoupledElementPoint is one element's share of a CoupledPoint, on its own
+// chord. Transition and separation are x/c on the surfaces as mounted
+// (the solver's upper and lower after model.Place mirrored an inverted
+// wing), NaN for none or when the point did not converge.
+type CoupledElementPoint struct {
+	Name                             string
+	Cl, Cd, Cm                       float64 // NaN unless converged; Cm about the element's quarter chord
+	ClInviscid                       float64
+	TransitionUpper, TransitionLower float64
+	SeparationUpper, SeparationLower float64    // where the layer separates and stays separated to the trailing edge
+	BubbleUpper, BubbleLower         [2]float64 // laminar separation bubble from–to x/c; NaN, NaN for none
+}
+
+// Facts returns the point's verdict for model.Plausibility.
+func (p *CoupledPoint) Facts() *model.ViscousFacts {
+	return &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged}
+}
+
+// coupledPoint summarises a solver solution at the study angle alphaDeg.
+func coupledPoint(alphaDeg float64, cs *solver.CoupledSolution) CoupledPoint {
+	nan := math.NaN()
+	p := CoupledPoint{
+		AlphaDeg: alphaDeg, Cl: nan, Cd: nan, Cm: nan,
+		ClInviscid: cs.ClInviscid, CmInviscid: cs.CmInviscid,
+		Converged: cs.Converged, Iterations: cs.Iterations, Residual: cs.Residual,
+		last: cs,
+	}
+	if cs.Converged {
+		p.Cl, p.Cd, p.Cm, p.Detail = cs.Cl, cs.Cd, cs.Cm, cs
+	}
+	for _, e := range cs.Elements {
+		ep := CoupledElementPoint{
+			Name: e.Name, Cl: nan, Cd: nan, Cm: nan, ClInviscid: e.ClInviscid,
+			TransitionUpper: nan, TransitionLower: nan, SeparationUpper: nan, SeparationLower: nan,
+			BubbleUpper: [2]float64{nan, nan}, BubbleLower: [2]float64{nan, nan},
+		}
+		if cs.Converged {
+			ep.Cl, ep.Cd, ep.Cm = e.Cl, e.Cd, e.Cm
+			ep.TransitionUpper, ep.TransitionLower = e.Upper.Transition, e.Lower.Transition
+			ep.SeparationUpper, ep.SeparationLower = e.Upper.Separation, e.Lower.Separation
+			if e.Upper.HasBubble {
+				ep.BubbleUpper = e.Upper.Bubble
+			}
+			if e.Lower.HasBubble {
+				ep.BubbleLower = e.Lower.Bubble
+			}
+		}
+		p.Elements = append(p.Elements, ep)
+	}
+	return p
+}
+
+// failedPoint is a point where the solver returned an error other than
+// cancellation: no numbers, the reason in Note.
+func failedPoint(alphaDeg float64, names []string, err error) CoupledPoint {
+	nan := math.NaN()
+	p := CoupledPoint{AlphaDeg: alphaDeg, Cl: nan, Cd: nan, Cm: nan, ClInviscid: nan, CmInviscid: nan, Residual: nan, Note: err.Error()}
+	for _, n := range names {
+		p.Elements = append(p.Elements, CoupledElementPoint{
+			Name: n, Cl: nan, Cd: nan, Cm: nan, ClInviscid: nan,
+			TransitionUpper: nan, TransitionLower: nan, SeparationUpper: nan, SeparationLower: nan,
+			BubbleUpper: [2]float64{nan, nan}, BubbleLower: [2]float64{nan, nan},
+		})
+	}
+	return p
+}
+
+// coupledOptions are the solver's options for a study.
+func coupledOptions(st *model.Study, re []float64, maxIter int) solver.CoupledOptions {
+	return solver.CoupledOptions{
+		Re: re, NCrit: st.Viscous.CriticalN(),
+		TripUpper: st.Viscous.TripUpper, TripLower: st.Viscous.TripLower,
+		MaxIterations: maxIter,
+	}
+}
+
+// Warm starts: the engine keeps the last converged solution of its cached
+// system and starts the next one from it when the angle moved at most
+// maxWarmStepDeg (a neighbouring angle); a walk towards an angle that did
+// not converge from a cold start goes in steps of at most walkStepDeg. Both
+// are of the size at which the solver's own continuation in α (two
+// halvings) usually holds on a polar (the lead's trials on NACA 0012 and
+// E387).
+const (
+	maxWarmStepDeg = 3
+	walkStepDeg    = 2
+)
+
+// solveCoupled solves sys at the freestream angle fs for the study angle
+// alphaDeg, starting from warm if not nil. Cancellation returns ctx's
+// error; any other solver error becomes a point without numbers.
+func solveCoupled(ctx context.Context, sys *solver.System, alphaDeg, fs float64, opt solver.CoupledOptions, warm *solver.CoupledSolution, names []string) (CoupledPoint, error) {
+	cs, err := sys.SolveCoupled(ctx, fs, opt, warm)
+	if err != nil {
+		if ctx.Err() != nil || errors.Is(err, context.Canceled) || errors.Is(err, context.DeadlineExceeded) {
+			return CoupledPoint{}, err
+		}
+		return failedPoint(alphaDeg, names, err), nil
+	}
+	return coupledPoint(alphaDeg, cs), nil
+}
+
+// coupledAt solves the coupled flow at the study's angle. In free air it
+// starts from the engine's last converged solution when that is near, and
+// when a start from scratch does not converge it walks from the angle
+// nearest zero to alphaDeg, each step warm-started from the one before
+// (the way a polar reaches it). In ground effect the configuration
+// pitches, so every angle is a new system and starts from scratch.
+func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs float64, opt solver.CoupledOptions, optKey string) (CoupledPoint, error) {
+	names := e.elementNames()
+	var warm *solver.CoupledSolution
+	if !e.layout.Ground && e.warmKey == optKey && e.warm != nil && math.Abs(e.warmAlpha-alphaDeg) <= maxWarmStepDeg {
+		warm = e.warm
+	}
+	p, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, warm, names)
+	if err != nil || p.Converged || e.layout.Ground {
+		e.keepWarm(p, optKey)
+		return p, err
+	}
+	// The walk: from the angle of the sweep's usual start, 0°, outwards.
+	steps := int(math.Ceil(math.Abs(alphaDeg) / walkStepDeg))
+	warm = nil
+	for i := 0; i < steps; i++ {
+		a := alphaDeg * float64(i) / float64(steps)
+		_, _, f := e.layout.At(a)
+		q, err := solveCoupled(ctx, sys, a, f, opt, warm, names)
+		if err != nil {
+			return CoupledPoint{}, err
+		}
+		if !q.Converged {
+			e.keepWarm(p, optKey)
+			return p, nil
+		}
+		warm = q.last
+	}
+	if warm == nil {
+		return p, nil
+	}
+	q, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, warm, names)
+	if err != nil {
+		return CoupledPoint{}, err
+	}
+	if q.Converged {
+		p = q
+	}
+	e.keepWarm(p, optKey)
+	return p, nil
+}
+
+// keepWarm remembers a converged point of the cached free-air system.
+func (e *Engine) keepWarm(p CoupledPoint, optKey string) {
+	if p.Converged && !e.layout.Ground {
+		e.warm, e.warmAlpha, e.warmKey = p.last, p.AlphaDeg, optKey
+	}
+}
+
+func (e *Engine) elementNames() []string {
+	var n []string
+	for _, el := range e.layout.Elements {
+		n = append(n, el.Name)
+	}
+	return n
+}
+
+// sweepOrder returns the indices of alphas in the order a polar is walked:
+// the angle nearest zero first, then upwards from it, then downwards from
+// it, so each angle can start from its converged neighbour.
+func sweepOrder(alphas []float64) []int {
+	if len(alphas) == 0 {
+		return nil
+	}
+	i0 := 0
+	for i, a := range alphas {
+		if math.Abs(a) < math.Abs(alphas[i0]) {
+			i0 = i
+		}
+	}
+	order := []int{i0}
+	for i := i0 + 1; i < len(alphas); i++ {
+		order = append(order, i)
+	}
+	for i := i0 - 1; i >= 0; i-- {
+		order = append(order, i)
+	}
+	return order
+}
+
+// coupledSweep solves the coupled flow at every angle of a sweep in
+// sweepOrder, each warm-started from the last converged angle on the
+// same side of the start (free air; in ground effect each angle is a new
+// system built by solveAt and starts from scratch). progress is called
+// after each angle.
+func (e *Engine) coupledSweep(ctx context.Context, alphas []float64, opt solver.CoupledOptions, progress func(done, total int)) ([]CoupledPoint, error) {
+	names := e.elementNames()
+	rows := make([]CoupledPoint, len(alphas))
+	order := sweepOrder(alphas)
+	var start, warm *solver.CoupledSolution
+	for n, i := range order {
+		if err := ctx.Err(); err != nil {
+			return nil, err
+		}
+		if n > 0 && i == order[0]-1 {
+			warm = start // turning round: downwards from the start
+		}
+		a := alphas[i]
+		var sys *solver.System
+		var fs float64
+		if e.layout.Ground {
+			var err error
+			if sys, fs, err = e.groundSystem(a); err != nil {
+				return nil, err
+			}
+		} else {
+			sys = e.sys
+			_, _, fs = e.layout.At(a)
+		}
+		p, err := solveCoupled(ctx, sys, a, fs, opt, warm, names)
+		if err != nil {
+			return nil, err
+		}
+		if p.Converged && !e.layout.Ground {
+			warm = p.last
+			if n == 0 {
+				start = p.last
+			}
+		}
+		rows[i] = p
+		if progress != nil {
+			progress(n+1, len(alphas))
+		}
+	}
+	return rows, nil
+}
+
+// ClMax finds the maximum lift among the converged rows: the largest Cl
+// on an upright wing, the most negative (the most downforce) on an
+// inverted one, where a positive angle loads the wing the other way
+// (model.AngleSense). It returns NaN, NaN when no row converged. peak is
+// true when a converged row at a larger angle gives less lift, so the
+// maximum is a stall inside the sweep and not its end.
+func ClMax(rows []CoupledPoint, inverted bool) (cl, alphaDeg float64, peak bool) {
+	sense := 1.0
+	if inverted {
+		sense = -1
+	}
+	best := -1
+	for i, r := range rows {
+		if r.Converged && (best < 0 || sense*r.Cl > sense*rows[best].Cl) {
+			best = i
+		}
+	}
+	if best < 0 {
+		return math.NaN(), math.NaN(), false
+	}
+	for _, r := range rows {
+		if r.Converged && r.AlphaDeg > rows[best].AlphaDeg {
+			peak = true
+		}
+	}
+	return rows[best].Cl, rows[best].AlphaDeg, peak
+}
+
+// markPastClMax marks the rows beyond the angle of a peak.
+func markPastClMax(rows []CoupledPoint, alphaClMax float64, peak bool) {
+	for i := range rows {
+		rows[i].PastClMax = peak && rows[i].AlphaDeg > alphaClMax
+	}
+}

@@ -1,0 +1,194 @@
+package engine
+
+import (
+	"context"
+	"errors"
+	"math"
+	"slices"
+	"testing"
+
+	"sectionbench/model"
+)
+
+// coupledStudy is NACA 0012 on a 1 m chord at Re 6e6 with the coupled
+// solution on, tripped at 5 % chord on both surfaces (Ladson's grit
+// position, from memory, as in solver.TestCoupledNACA0012Ladson).
+func coupledStudy(t *testing.T) (*model.Study, []*model.Section) {
+	t.Helper()
+	st, secs := engineStudy(t, "0012")
+	st.Elements[0].ChordMM = 1000
+	st.Flow.Reynolds = 6e6
+	st.Viscous = model.Viscous{Enabled: true, Mode: model.ViscousCoupled, TripUpper: 0.05, TripLower: 0.05}
+	return st, secs
+}
+
+// The study's point converges with viscous numbers below the inviscid
+// lift (boundary layers decambering the section: the viscous Cl lies
+// below the inviscid, common practice) and a positive drag, with the
+// inviscid solution beside it; forces come from the viscous coefficients.
+func TestEngineCoupledPoint(t *testing.T) {
+	st, secs := coupledStudy(t)
+	st.Flow.AlphaDeg = 4
+	st.Flow.SpeedMPS = 20
+	st.Flow.Reynolds = 0 // from speed and air: about 1.4e6 on a 1 m chord
+	st.Viscous.TripUpper, st.Viscous.TripLower = 0.05, 0.05
+	res := run(t, NewEngine(), st, secs, false)
+	c := res.Coupled
+	if c == nil {
+		t.Fatal("no coupled result")
+	}
+	if !c.Converged {
+		t.Fatalf("not converged: %d iterations, residual %.2g", c.Iterations, c.Residual)
+	}
+	if !(c.Cl > 0 && c.Cl < c.ClInviscid && c.Cd > 0 && c.Cd < 0.02) {
+		t.Errorf("Cl %.4f (inviscid %.4f), Cd %.5f: want 0 < Cl < inviscid and 0 < Cd < 0.02", c.Cl, c.ClInviscid, c.Cd)
+	}
+	if c.ClInviscid != res.Solution.ClPressure {
+		t.Errorf("inviscid Cl %.5f beside the coupled one, the solution's pressure Cl is %.5f", c.ClInviscid, res.Solution.ClPressure)
+	}
+	f := res.Forces
+	q := f.DynamicPressurePa
+	if !f.Coupled || relErr(f.LiftPerSpan, q*c.Cl) > 1e-12 || relErr(f.DragPerSpan, q*c.Cd) > 1e-12 || relErr(f.InviscidLiftPerSpan, q*res.Solution.Cl) > 1e-12 {
+		t.Errorf("forces %+v do not follow the viscous Cl %.4f and Cd %.5f at q = %.1f Pa", f, c.Cl, c.Cd, q)
+	}
+	if math.IsNaN(res.LiftToDrag()) {
+		t.Error("no lift-to-drag ratio from a converged point")
+	}
+	if tr := c.Elements[0].TransitionUpper; !(tr > 0 && tr <= 0.05+1e-9) {
+		t.Errorf("upper transition at x/c %.4f, want at or ahead of the trip at 0.05", tr)
+	}
+}
+
+// A point that does not converge gives no numbers that look valid.
+func TestEngineCoupledNotConverged(t *testing.T) {
+	st, secs := coupledStudy(t)
+	st.Flow.SpeedMPS = 20
+	st.Flow.Reynolds = 0
+	res, err := NewEngine().Run(context.Background(), Request{Study: st, Sections: secs, CoupledMaxIterations: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := res.Coupled
+	if c.Converged || c.Iterations == 0 || math.IsNaN(c.Residual) {
+		t.Errorf("converged %v after %d iterations, residual %g: want not converged with its iterations and residual", c.Converged, c.Iterations, c.Residual)
+	}
+	for name, v := range map[string]float64{
+		"Cl": c.Cl, "Cd": c.Cd, "Cm": c.Cm, "element Cl": c.Elements[0].Cl, "element Cd": c.Elements[0].Cd,
+		"transition": c.Elements[0].TransitionUpper, "lift N/m": res.Forces.LiftPerSpan, "drag N/m": res.Forces.DragPerSpan,
+		"L/D": res.LiftToDrag(),
+	} {
+		if !math.IsNaN(v) {
+			t.Errorf("%s = %g on a point that did not converge, want NaN", name, v)
+		}
+	}
+	if c.Detail != nil || math.IsNaN(c.ClInviscid) {
+		t.Error("a point that did not converge keeps its detail or loses its inviscid Cl")
+	}
+	if fl := model.Plausibility(model.PointFacts{CpMin: -1, HOverC: math.NaN(), Viscous: c.Facts()}); len(fl) != 1 || fl[0].Kind != model.FlagNotConverged {
+		t.Errorf("flags %v, want the not-converged flag", fl)
+	}
+}
+
+// A sweep walks out from the angle nearest zero, converges on the tripped
+// section, finds its maximum lift among the converged rows and is
+// cancellable.
+func TestEngineCoupledSweep(t *testing.T) {
+	st, secs := coupledStudy(t)
+	st.Sweep = model.SweepRange{FromDeg: -2, ToDeg: 6, StepDeg: 2}
+	var done []int
+	res, err := NewEngine().Run(context.Background(), Request{Study: st, Sections: secs, Sweep: true, Progress: func(d, n int) { done = append(done, d) }})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(res.SweepCoupled) != len(res.Sweep) || !slices.Equal(done, []int{1, 2, 3, 4, 5}) {
+		t.Fatalf("%d coupled rows for %d angles, progress %v", len(res.SweepCoupled), len(res.Sweep), done)
+	}
+	for i, r := range res.SweepCoupled {
+		if r.AlphaDeg != res.Sweep[i].AlphaDeg || !r.Converged {
+			t.Errorf("row %d: α %g (want %g), converged %v", i, r.AlphaDeg, res.Sweep[i].AlphaDeg, r.Converged)
+		}
+		t.Logf("α %5.1f°: Cl %.4f (inviscid %.4f), Cd %.5f, %d iterations", r.AlphaDeg, r.Cl, r.ClInviscid, r.Cd, r.Iterations)
+	}
+	if last := res.SweepCoupled[len(res.SweepCoupled)-1]; res.ClMax != last.Cl || res.AlphaClMax != 6 || res.ClMaxIsPeak {
+		t.Errorf("Cl max %.4f at %g° (peak %v); want the last row's %.4f at 6°, no peak inside the sweep", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak, last.Cl)
+	}
+
+	ctx, cancel := context.WithCancel(context.Background())
+	_, err = NewEngine().Run(ctx, Request{Study: st, Sections: secs, Sweep: true, Progress: func(d, n int) {
+		if d == 2 {
+			cancel()
+		}
+	}})
+	if !errors.Is(err, context.Canceled) {
+		t.Errorf("cancelled sweep returned %v, want context.Canceled", err)
+	}
+}
+
+func TestSweepOrder(t *testing.T) {
+	for _, tc := range []struct {
+		name   string
+		alphas []float64
+		want   []int
+	}{
+		{"across zero", []float64{-4, -2, 0, 2, 4}, []int{2, 3, 4, 1, 0}},
+		{"all positive", []float64{3, 5, 7}, []int{0, 1, 2}},
+		{"all negative", []float64{-7, -5, -3}, []int{2, 1, 0}},
+		{"none", nil, nil},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			if got := sweepOrder(tc.alphas); !slices.Equal(got, tc.want) {
+				t.Errorf("order %v, want %v", got, tc.want)
+			}
+		})
+	}
+}
+
+// Maximum lift among converged rows; on an inverted wing the most
+// downforce; a non-converged row never counts.
+func TestClMax(t *testing.T) {
+	nan := math.NaN()
+	row := func(a, cl float64, ok bool) CoupledPoint {
+		if !ok {
+			cl = nan
+		}
+		return CoupledPoint{AlphaDeg: a, Cl: cl, Converged: ok}
+	}
+	for _, tc := range []struct {
+		name     string
+		rows     []CoupledPoint
+		inverted bool
+		cl, a    float64
+		peak     bool
+		past     []bool
+	}{
+		{"stall inside", []CoupledPoint{row(10, 1.2, true), row(12, 1.4, true), row(14, 1.3, true), row(16, 0, false)}, false, 1.4, 12, true, []bool{false, false, true, true}},
+		{"rising to the end", []CoupledPoint{row(0, 0.2, true), row(2, 0.4, true), row(4, 0, false)}, false, 0.4, 2, false, []bool{false, false, false}},
+		{"inverted", []CoupledPoint{row(0, -0.5, true), row(4, -1.6, true), row(8, -1.5, true)}, true, -1.6, 4, true, []bool{false, false, true}},
+		{"none converged", []CoupledPoint{row(0, 0, false)}, false, nan, nan, false, []bool{false}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			cl, a, peak := ClMax(tc.rows, tc.inverted)
+			same := func(x, y float64) bool { return x == y || (math.IsNaN(x) && math.IsNaN(y)) }
+			if !same(cl, tc.cl) || !same(a, tc.a) || peak != tc.peak {
+				t.Errorf("Cl max %g at %g° (peak %v), want %g at %g° (peak %v)", cl, a, peak, tc.cl, tc.a, tc.peak)
+			}
+			markPastClMax(tc.rows, a, peak)
+			for i, r := range tc.rows {
+				if r.PastClMax != tc.past[i] {
+					t.Errorf("row %d (α %g°): past Cl max %v, want %v", i, r.AlphaDeg, r.PastClMax, tc.past[i])
+				}
+			}
+		})
+	}
+}
+
+// A study saved before the coupled solution (no viscous.mode) keeps its
+// one-way estimate.
+func TestEngineOldStudyKeepsEstimate(t *testing.T) {
+	st, secs := coupledStudy(t)
+	st.Viscous.Mode = ""
+	res := run(t, NewEngine(), st, secs, false)
+	if res.Coupled != nil || res.Viscous == nil {
+		t.Errorf("coupled %v, estimate %v: want the estimate only", res.Coupled != nil, res.Viscous != nil)
+	}
+}
