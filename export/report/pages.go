@@ -2,6 +2,7 @@ package report
 
 import (
 	"fmt"
+	"io"
 	"math"
 	"slices"
 	"strconv"
@@ -301,6 +302,7 @@ func (r *writer) sweepPage() {
 		r.small("Marked rows are not to be taken at face value. " + strings.Join(foot, " "))
 	}
 	r.small(sweepPositioning(r.in.Study))
+	r.forceCurve()
 	if vis {
 		r.figure(figure.ViewDragPolar, sc, "Drag polar from the boundary-layer estimate; angles where a surface separates are left out.", figureHMM)
 	}
@@ -462,4 +464,36 @@ func dwarfed(sol *solver.Solution) bool {
 		lo, hi = math.Min(lo, span), math.Max(hi, span)
 	}
 	return hi > dwarfRatio*lo
+}
+
+// forceCurve draws the downforce (or lift) against α in newtons at the
+// study's speed: q × reference chord × span × Cl, the sweep's coefficients
+// turned into the force the team feels, marked rows ringed.
+func (r *writer) forceCurve() {
+	st, res := r.in.Study, r.in.Result
+	f := res.Forces
+	if f == nil || len(res.Sweep) == 0 {
+		return
+	}
+	fc := figure.ForceCurve{Sweep: res.Sweep, Sign: loadSign(st), Name: "Lift", Unit: "N/m", AlphaDeg: st.Flow.AlphaDeg,
+		PerCl: f.DynamicPressurePa * res.Layout.RefChordM}
+	if st.Inverted {
+		fc.Name = "Downforce"
+	}
+	if f.SpanM > 0 {
+		fc.PerCl *= f.SpanM
+		fc.Unit = "N"
+	}
+	for i := range res.Sweep {
+		fc.Marked = append(fc.Marked, len(r.sweepFlags(i)) > 0)
+	}
+	pl, err := figure.ForcePlot(fc)
+	if err != nil {
+		return
+	}
+	r.image(func(w io.Writer, win, hin float64) error {
+		return figure.WritePlot(w, pl, figure.FormatPNG, win, hin, FigureDPI)
+	},
+		"force", fmt.Sprintf("%s against the angle of attack at %s km/h: the sweep's Cl × q × reference chord%s, two-dimensional (no end effects).",
+			fc.Name, num(model.MpsToKmh(st.Flow.SpeedMPS), 0), map[bool]string{true: " × span", false: " per metre of span"}[f.SpanM > 0]), figureHMM*0.8)
 }

@@ -375,17 +375,26 @@ func (r *writer) box(title, text string, tint [3]int) {
 
 // figure renders view v of sc and places it full width with a caption.
 func (r *writer) figure(v figure.View, sc *figure.Scene, caption string, heightMM float64) {
+	r.image(func(w io.Writer, win, hin float64) error {
+		return figure.WriteFigure(w, v, sc, figure.FormatPNG, win, hin, FigureDPI)
+	}, fmt.Sprint(v), caption, heightMM)
+}
+
+// image renders a figure with draw (width and height in inches) and
+// places it full width with a caption; a figure with nothing to draw is
+// left out.
+func (r *writer) image(draw func(w io.Writer, widthIn, heightIn float64) error, what, caption string, heightMM float64) {
 	if r.figErr != nil {
 		return
 	}
 	const mmPerIn = 25.4
 	wmm := r.width()
 	var b bytes.Buffer
-	if err := figure.WriteFigure(&b, v, sc, figure.FormatPNG, wmm/mmPerIn, heightMM/mmPerIn, FigureDPI); err != nil {
+	if err := draw(&b, wmm/mmPerIn, heightMM/mmPerIn); err != nil {
 		if errors.Is(err, figure.ErrNoData) {
 			return
 		}
-		r.figErr = fmt.Errorf("report: figure %v: %w", v, err)
+		r.figErr = fmt.Errorf("report: figure %s: %w", what, err)
 		return
 	}
 	r.need(heightMM + 10)
