@@ -58,6 +58,7 @@ type Workbench struct {
 	sceneMu  sync.Mutex
 	scene    *scene // newest scene shown
 	status   *statusLine
+	busy     *busyMark
 	caution  *widget.Button
 	warnings *widget.Button
 	results  *resultsPanel
@@ -179,7 +180,8 @@ func (w *Workbench) build() {
 	w.results = newResultsPanel()
 	w.showRes = widget.NewButtonWithIcon("Results", theme.ListIcon(), w.toggleResults)
 	w.showRes.Importance = widget.LowImportance
-	statusLine := container.NewBorder(nil, nil, nil, container.NewHBox(w.warnings, w.showRes, w.caution), w.status.box)
+	w.busy = newBusyMark()
+	statusLine := container.NewBorder(nil, nil, w.busy.box, container.NewHBox(w.warnings, w.showRes, w.caution), w.status.box)
 
 	content := container.NewBorder(nil, container.NewVBox(w.results.box, widget.NewSeparator(), statusLine), side, nil, w.viewArea)
 	w.win.SetContent(content)
@@ -231,6 +233,7 @@ func (w *Workbench) toggleEnlarge(k viewKind) {
 func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error) {
 	if err != nil {
 		w.do(func() {
+			w.busy.shown(gen)
 			w.showStatusError(err)
 			w.results.stale()
 		})
@@ -247,6 +250,7 @@ func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error)
 		for _, f := range frames {
 			f.show()
 		}
+		w.busy.shown(gen)
 		w.sceneMu.Lock()
 		w.scene = sc
 		w.sceneMu.Unlock()
@@ -384,6 +388,7 @@ func (w *Workbench) studyChanged() {
 	for _, v := range w.views {
 		v.setStudy(names, st.Viscous.Enabled)
 	}
+	w.busy.waitFor(w.ctl.sched.Latest(), w.do)
 	if autoSweep(st) && w.ctl.Sweep() == nil {
 		w.controls.runSweep()
 	}
