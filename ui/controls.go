@@ -376,8 +376,8 @@ func newControls(w *Workbench) *controls {
 	c.sectionRow = container.NewBorder(nil, nil, widget.NewLabel("of"), nil, c.element)
 
 	c.studyMsg = message()
-	c.studyName = newField(w, c.studyMsg, ctl.SetStudyName)
-	c.team = newField(w, c.studyMsg, ctl.SetTeam)
+	c.studyName = textField(w, c.studyMsg, ctl.SetStudyName)
+	c.team = textField(w, c.studyMsg, ctl.SetTeam)
 	c.team.SetPlaceHolder("none")
 	elements := container.NewVBox(
 		heading("Study"),
@@ -641,7 +641,7 @@ func (c *controls) sync(st *model.Study) {
 func (c *controls) syncPins(st *model.Study) {
 	for len(c.pinFields) < len(st.Pins) {
 		i := len(c.pinFields)
-		f := newField(c.w, c.pinMsg, func(s string) error { return c.w.ctl.RenamePin(i, s) })
+		f := textField(c.w, c.pinMsg, func(s string) error { return c.w.ctl.RenamePin(i, s) })
 		sw := canvas.NewRectangle(pinColour(i, c.w.dark()))
 		sw.SetMinSize(fyne.NewSize(18, 18))
 		c.pinFields = append(c.pinFields, f)
@@ -682,4 +682,33 @@ func numberIs(x float64) func(string) bool {
 func (c *controls) showResult(st *model.Study, res *engineResult) {
 	c.ec.showResult(res)
 	c.fc.showResult(st, res)
+}
+
+// reveal scrolls the control column so that o (a message under a field)
+// is in view.
+func (c *controls) reveal(o fyne.CanvasObject) {
+	it := c.tabs.Selected()
+	if it == nil {
+		return
+	}
+	sc, ok := it.Content.(*container.Scroll)
+	if !ok {
+		return
+	}
+	sc.Refresh() // lay the column out with the message shown
+	if o.Size().Height == 0 {
+		return
+	}
+	d := fyne.CurrentApp().Driver()
+	top := d.AbsolutePositionForObject(o).Y - d.AbsolutePositionForObject(sc).Y
+	bottom := top + o.Size().Height
+	switch {
+	case bottom > sc.Size().Height:
+		sc.Offset.Y += bottom - sc.Size().Height
+	case top < 0:
+		sc.Offset.Y += top
+	default:
+		return
+	}
+	sc.Refresh()
 }

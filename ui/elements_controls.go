@@ -77,7 +77,7 @@ func newElementControls(c *controls) *elementControls {
 	ec.placeHead = heading("Placement")
 	ec.placeMsg = message()
 	w := c.w
-	ec.name = newField(w, ec.placeMsg, func(s string) error {
+	ec.name = textField(w, ec.placeMsg, func(s string) error {
 		i := ctl.Element()
 		return ctl.SetElementName("", i, s)
 	})

@@ -22,8 +22,24 @@ type field struct {
 
 // newField returns a field on w that applies its text with apply and shows
 // apply's error in msg.
+//
+// A field holds a short value (a number, a designation) and has no
+// scroller of its own, so the mouse wheel over it scrolls the control
+// column; textField is for longer free text.
 func newField(w *Workbench, msg *widget.Label, apply func(string) error) *field {
 	f := &field{w: w, msg: msg, apply: apply}
+	f.Wrapping, f.Scroll = fyne.TextWrapOff, fyne.ScrollNone
+	f.ExtendBaseWidget(f)
+	f.OnSubmitted = func(string) { f.commit(false) }
+	return f
+}
+
+// textField is newField for free text (a name) that may be longer than
+// the field: it scrolls sideways inside the field, which then takes the
+// wheel over it.
+func textField(w *Workbench, msg *widget.Label, apply func(string) error) *field {
+	f := &field{w: w, msg: msg, apply: apply}
+	f.Wrapping = fyne.TextWrap(fyne.TextTruncateClip)
 	f.ExtendBaseWidget(f)
 	f.OnSubmitted = func(string) { f.commit(false) }
 	return f
@@ -84,6 +100,9 @@ func (f *field) commit(leaving bool) {
 	}
 	if err := f.apply(f.Text); err != nil {
 		setMessage(f.msg, err)
+		if f.w != nil && f.w.controls != nil {
+			f.w.controls.reveal(f.msg)
+		}
 		if leaving {
 			f.SetText(f.inUse)
 		}

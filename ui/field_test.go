@@ -4,6 +4,7 @@ import (
 	"testing"
 
 	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/test"
 )
 
@@ -106,4 +107,36 @@ func sendShortcut(cv fyne.Canvas, s fyne.Shortcut) {
 		return
 	}
 	cv.(interface{ TypedShortcut(fyne.Shortcut) }).TypedShortcut(s)
+}
+
+// TestWheelOverFieldScrollsColumn: the mouse wheel over a numeric field
+// scrolls the control column, not the field.
+func TestWheelOverFieldScrollsColumn(t *testing.T) {
+	w := newTestBench(t)
+	w.Window().Resize(fyne.NewSize(1280, 800))
+	c := w.controls
+	f := c.ec.chord
+	pos := fyne.CurrentApp().Driver().AbsolutePositionForObject(f)
+	scroll := c.tabs.Items[0].Content.(*container.Scroll)
+	before := scroll.Offset.Y
+	test.Scroll(w.Window().Canvas(), pos.Add(fyne.NewPos(5, 5)), 0, -40)
+	if scroll.Offset.Y <= before {
+		t.Errorf("the wheel over the chord field left the column at offset %g", scroll.Offset.Y)
+	}
+}
+
+// TestErrorScrolledIntoView: a bad value in a field low in the column
+// brings its message into view.
+func TestErrorScrolledIntoView(t *testing.T) {
+	w := newTestBench(t)
+	w.Window().Resize(fyne.NewSize(1280, 500))
+	c := w.controls
+	c.tabs.SelectIndex(0)
+	c.clearance.submit("-5") // near the foot of the Wing tab
+	sc := c.tabs.Items[0].Content.(*container.Scroll)
+	d := fyne.CurrentApp().Driver()
+	bottom := d.AbsolutePositionForObject(c.flowMsg).Y + c.flowMsg.Size().Height - d.AbsolutePositionForObject(sc).Y
+	if c.flowMsg.Hidden || bottom > sc.Size().Height+1 || sc.Offset.Y == 0 {
+		t.Errorf("message hidden %v, its foot at %g in a column %g high (offset %g)", c.flowMsg.Hidden, bottom, sc.Size().Height, sc.Offset.Y)
+	}
 }
