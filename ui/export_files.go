@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 	"time"
@@ -34,22 +35,31 @@ type outlineSettings struct {
 // manufacturingItems are appended to File ▸ Export.
 func (w *Workbench) manufacturingItems() []*fyne.MenuItem {
 	return []*fyne.MenuItem{
-		fyne.NewMenuItem("Coordinates (text and CSV, mm and unit chord)…", func() { w.exportTo(w.writeCoordinates) }),
+		fyne.NewMenuItem("Coordinates (text and CSV, mm and unit chord)…", func() { w.exportTo(w.writeCoordinates()) }),
 		fyne.NewMenuItem("Outline for manufacturing (DXF and SVG)…", w.askOutline),
-		fyne.NewMenuItem("Boundary-layer table (CSV)…", func() { w.exportTo(w.writeBoundaryLayer) }),
+		fyne.NewMenuItem("Boundary-layer table (CSV)…", func() { w.exportTo(w.writeBoundaryLayer()) }),
 	}
 }
 
-// writeCoordinates writes each element's cleaned section four ways: plain
-// text and CSV, at unit chord and at its chord in millimetres.
-func (w *Workbench) writeCoordinates(dir string) ([]string, error) {
-	st, secs := w.ctl.Study(), w.ctl.Sections()
+// writeCoordinates gathers the study and its cleaned sections (UI
+// goroutine); the job writes each element's section four ways: plain text
+// and CSV, at unit chord and at its chord in millimetres.
+func (w *Workbench) writeCoordinates() exportJob {
+	st, secs, base := w.ctl.Study(), slices.Clone(w.ctl.Sections()), w.exportBase()
+	program := "Sectionbench " + w.app.Metadata().Version
+	return func(dir string) ([]string, error) {
+		return writeCoordinateFiles(dir, base, program, st, secs)
+	}
+}
+
+// writeCoordinateFiles writes the coordinate files of writeCoordinates.
+func writeCoordinateFiles(dir, base, program string, st *model.Study, secs []*model.Section) ([]string, error) {
 	if len(secs) != len(st.Elements) {
 		return nil, errNoResult
 	}
 	var files []string
 	for i, e := range st.Elements {
-		stem := fmt.Sprintf("%s-%d-%s", w.exportBase(), i+1, fileStem(e.Name))
+		stem := fmt.Sprintf("%s-%d-%s", base, i+1, fileStem(e.Name))
 		for _, f := range []struct {
 			suffix string
 			opt    format.CoordOptions
@@ -57,8 +67,8 @@ func (w *Workbench) writeCoordinates(dir string) ([]string, error) {
 		}{
 			{".dat", format.CoordOptions{Element: e.Name, Study: st.Name}, false},
 			{"-mm.dat", format.CoordOptions{ChordMM: e.ChordMM, Element: e.Name, Study: st.Name}, false},
-			{".csv", format.CoordOptions{Element: e.Name, Study: st.Name, Program: "Sectionbench " + w.app.Metadata().Version}, true},
-			{"-mm.csv", format.CoordOptions{ChordMM: e.ChordMM, Element: e.Name, Study: st.Name, Program: "Sectionbench " + w.app.Metadata().Version}, true},
+			{".csv", format.CoordOptions{Element: e.Name, Study: st.Name, Program: program}, true},
+			{"-mm.csv", format.CoordOptions{ChordMM: e.ChordMM, Element: e.Name, Study: st.Name, Program: program}, true},
 		} {
 			name := stem + f.suffix
 			sec, opt, csv := secs[i], f.opt, f.csv
@@ -141,9 +151,9 @@ func parseOutlineSettings(skin, sparXC, sparDia string) (outlineSettings, error)
 }
 
 // writeOutline returns the writer of the outline as DXF and SVG.
-func (w *Workbench) writeOutline(s outlineSettings) func(dir string) ([]string, error) {
-	st, secs := w.ctl.Study(), w.ctl.Sections()
-	base := w.exportBase()
+func (w *Workbench) writeOutline(s outlineSettings) exportJob {
+	st, secs := w.ctl.Study(), slices.Clone(w.ctl.Sections())
+	base, version := w.exportBase(), w.app.Metadata().Version
 	return func(dir string) ([]string, error) {
 		if len(secs) != len(st.Elements) {
 			return nil, errNoResult
@@ -153,7 +163,7 @@ func (w *Workbench) writeOutline(s outlineSettings) func(dir string) ([]string, 
 			return nil, err
 		}
 		opt := geometry.OutlineOptions{Placed: s.placed, SkinMM: s.skinMM, ChordLine: s.chordLine, MinLigamentMM: geometry.DefaultMinLigamentMM,
-			Title: geometry.TitleBlock{Team: st.Team, Version: w.app.Metadata().Version, Date: time.Now().UTC().Format("2006-01-02"), AlphaDeg: st.Flow.AlphaDeg, Solved: true}}
+			Title: geometry.TitleBlock{Team: st.Team, Version: version, Date: time.Now().UTC().Format("2006-01-02"), AlphaDeg: st.Flow.AlphaDeg, Solved: true}}
 		if s.sparDiaMM > 0 {
 			for i := range st.Elements {
 				opt.Marks = append(opt.Marks, geometry.Mark{Element: i, Label: "spar", XC: s.sparXC, DiameterMM: s.sparDiaMM, OnMeanLine: true})
@@ -179,20 +189,23 @@ func (w *Workbench) writeOutline(s outlineSettings) func(dir string) ([]string, 
 	}
 }
 
-// writeBoundaryLayer writes the boundary-layer quantities of the current
-// solution.
-func (w *Workbench) writeBoundaryLayer(dir string) ([]string, error) {
+// writeBoundaryLayer gathers the current solution (UI goroutine); the job
+// writes its boundary-layer quantities.
+func (w *Workbench) writeBoundaryLayer() exportJob {
 	res, _, _ := w.ctl.Result()
-	if res == nil {
-		return nil, errNoResult
-	}
-	if res.Viscous == nil {
-		return nil, errors.New("no boundary layer to export: turn on the boundary-layer estimate in the Flow tab")
-	}
+	meta := tableMetadata(w.ctl.Study(), res, w.app.Metadata().Version)
 	name := w.exportBase() + "-boundary-layer.csv"
-	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-		return format.WriteBoundaryLayerTable(out, tableMetadata(w.ctl.Study(), res, w.app.Metadata().Version), res.Viscous)
-	})
+	return func(dir string) ([]string, error) {
+		if res == nil {
+			return nil, errNoResult
+		}
+		if res.Viscous == nil {
+			return nil, errors.New("no boundary layer to export: turn on the boundary-layer estimate in the Flow tab")
+		}
+		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+			return format.WriteBoundaryLayerTable(out, meta, res.Viscous)
+		})
+	}
 }
 
 // fileStem makes an element name safe in a file name.

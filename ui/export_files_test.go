@@ -16,7 +16,7 @@ func TestExportCoordinatesAndOutline(t *testing.T) {
 	w := newTestBench(t)
 	current(t, w)
 	dir := t.TempDir()
-	files, err := w.writeCoordinates(dir)
+	files, err := w.writeCoordinates()(dir)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -58,7 +58,7 @@ func TestExportCoordinatesAndOutline(t *testing.T) {
 			t.Errorf("%s is empty", f)
 		}
 	}
-	if _, err := w.writeBoundaryLayer(dir); err == nil {
+	if _, err := w.writeBoundaryLayer()(dir); err == nil {
 		t.Error("a boundary-layer table without the estimate on")
 	}
 }

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"path/filepath"
+	"slices"
 	"strings"
 
 	"fyne.io/fyne/v2"
@@ -32,8 +33,8 @@ func (w *Workbench) exportItems() []*fyne.MenuItem {
 		fyne.NewMenuItem("Figures (SVG)…", func() { w.exportTo(w.writeFigures("svg")) }),
 		fyne.NewMenuItem("Figures (PDF)…", func() { w.exportTo(w.writeFigures("pdf")) }),
 		fyne.NewMenuItemSeparator(),
-		fyne.NewMenuItem("Surface Cp table (CSV)…", func() { w.exportTo(w.writeCpTable) }),
-		fyne.NewMenuItem("Sweep table (CSV)…", func() { w.exportTo(w.writeSweepTable) }),
+		fyne.NewMenuItem("Surface Cp table (CSV)…", func() { w.exportTo(w.writeCpTable()) }),
+		fyne.NewMenuItem("Sweep table (CSV)…", func() { w.exportTo(w.writeSweepTable()) }),
 		fyne.NewMenuItemSeparator(),
 	}
 	return append(items, w.manufacturingItems()...)
@@ -41,7 +42,7 @@ func (w *Workbench) exportItems() []*fyne.MenuItem {
 
 // exportTo asks for a folder and runs write in it, reporting the files
 // written or the error.
-func (w *Workbench) exportTo(write func(dir string) ([]string, error)) {
+func (w *Workbench) exportTo(write exportJob) {
 	d := dialog.NewFolderOpen(func(u fyne.ListableURI, err error) {
 		if err != nil {
 			w.userError(err)
@@ -79,6 +80,14 @@ func (w *Workbench) exportTo(write func(dir string) ([]string, error)) {
 	d.Show()
 }
 
+// exportJob writes one File ▸ Export item into the folder dir and returns
+// the names of the files written. Every export has the same shape: a
+// method of Workbench, called on the UI goroutine, gathers what the export
+// needs (the study, sections, results: copies or values never changed
+// after they are made) and returns the job, which exportTo runs off the
+// UI goroutine. A job must not read the workbench or its controller.
+type exportJob func(dir string) ([]string, error)
+
 // errNoResult is returned by an export with nothing solved yet.
 var errNoResult = errors.New("nothing to export yet: the study has not been solved")
 
@@ -91,10 +100,10 @@ func (w *Workbench) exportBase() string {
 // four views of the scene on screen, the density study when one has been
 // run for the current configuration, and the panel sizes of every
 // element. The returned function writes them, one file each.
-func (w *Workbench) writeFigures(format string) func(dir string) ([]string, error) {
+func (w *Workbench) writeFigures(format string) exportJob {
 	sc := w.lastScene()
 	density := w.currentDensity()
-	st, secs := w.ctl.Study(), w.ctl.Sections()
+	st, secs := w.ctl.Study(), slices.Clone(w.ctl.Sections())
 	maxRatio := defaultMaxRatio
 	if d := w.density; d != nil {
 		maxRatio = d.sizes.maxRatio
@@ -187,7 +196,7 @@ func (w *Workbench) newReportJob() (*reportJob, error) {
 
 // writeReport gathers the report's input on the UI goroutine; the returned
 // function writes it.
-func (w *Workbench) writeReport() func(dir string) ([]string, error) {
+func (w *Workbench) writeReport() exportJob {
 	job, err := w.newReportJob()
 	name := w.exportBase() + "-report.pdf"
 	return func(dir string) ([]string, error) {
@@ -200,27 +209,37 @@ func (w *Workbench) writeReport() func(dir string) ([]string, error) {
 	}
 }
 
-func (w *Workbench) writeCpTable(dir string) ([]string, error) {
+// writeCpTable gathers the current solution (UI goroutine); the job
+// writes its surface Cp table.
+func (w *Workbench) writeCpTable() exportJob {
 	res, _, _ := w.ctl.Result()
-	if res == nil {
-		return nil, errNoResult
-	}
+	meta := tableMetadata(w.ctl.Study(), res, w.app.Metadata().Version)
 	name := w.exportBase() + "-cp.csv"
-	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-		return writeCpTable(out, tableMetadata(w.ctl.Study(), res, w.app.Metadata().Version), res)
-	})
+	return func(dir string) ([]string, error) {
+		if res == nil {
+			return nil, errNoResult
+		}
+		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+			return writeCpTable(out, meta, res)
+		})
+	}
 }
 
-func (w *Workbench) writeSweepTable(dir string) ([]string, error) {
+// writeSweepTable gathers the sweep shown in the polar (UI goroutine); the
+// job writes it.
+func (w *Workbench) writeSweepTable() exportJob {
 	sw, vis := w.ctl.Sweep(), w.ctl.SweepViscous()
-	if len(sw) == 0 {
-		return nil, errors.New("no sweep to export: run the sweep first")
-	}
 	if len(vis) != len(sw) {
 		vis = nil
 	}
+	meta := tableMetadata(w.ctl.Study(), nil, w.app.Metadata().Version)
 	name := w.exportBase() + "-sweep.csv"
-	return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-		return writeSweepTable(out, tableMetadata(w.ctl.Study(), nil, w.app.Metadata().Version), sw, vis)
-	})
+	return func(dir string) ([]string, error) {
+		if len(sw) == 0 {
+			return nil, errors.New("no sweep to export: run the sweep first")
+		}
+		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+			return writeSweepTable(out, meta, sw, vis)
+		})
+	}
 }

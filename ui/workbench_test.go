@@ -407,11 +407,11 @@ func TestExportFiguresAndTables(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	more, err := w.writeCpTable(dir)
+	more, err := w.writeCpTable()(dir)
 	if err != nil {
 		t.Fatal(err)
 	}
-	sweep, err := w.writeSweepTable(dir)
+	sweep, err := w.writeSweepTable()(dir)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -641,7 +641,7 @@ func TestExportCarriesSweepAndDensity(t *testing.T) {
 		t.Errorf("report density study: %+v", job.density)
 	}
 	dir := t.TempDir()
-	tab, err := w.writeSweepTable(dir)
+	tab, err := w.writeSweepTable()(dir)
 	if err != nil {
 		t.Fatal(err)
 	}
