@@ -74,8 +74,7 @@ func liftToDragPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	}
 	p := newPlot(th, "Lift-to-drag ratio against α", "α, degrees"+cutOff(sc, len(rows)), "Cl/Cd")
 	p.Add(newLine(xys, lineStyle(th.upper, widthNormal, nil)), newScatter(xys, th.upper, glyphSmall, draw.CircleGlyph{}))
-	p.Add(&refLine{value: sc.AlphaDeg, vertical: true, style: lineStyle(th.accent, widthThin, dashRef),
-		label: fmt.Sprintf("α = %s°", formatTick(sc.AlphaDeg, 2)), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)})
+	p.Add(alphaMark(th, sc.AlphaDeg))
 	p.Add(&refLine{value: 0, style: lineStyle(th.faint, widthThin, nil)})
 	p.X.Min, p.X.Max = padRange(p.X.Min, p.X.Max, 0.03)
 	p.Y.Min, p.Y.Max = padRange(p.Y.Min, p.Y.Max, 0.06)

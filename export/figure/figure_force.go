@@ -6,7 +6,6 @@ import (
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
-	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg/draw"
 
 	"sectionbench/solver"
@@ -43,8 +42,7 @@ func ForcePlot(fc ForceCurve) (*plot.Plot, error) {
 		p.Add(newScatter(marked, th.accent, glyphMarker, draw.RingGlyph{}))
 		p.X.Label.Text += "; rings: marked rows of the sweep table, not to be taken at face value"
 	}
-	p.Add(&refLine{value: fc.AlphaDeg, vertical: true, style: lineStyle(th.accent, widthThin, dashRef),
-		label: fmt.Sprintf("α = %s°", formatTick(fc.AlphaDeg, 2)), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)})
+	p.Add(alphaMark(th, fc.AlphaDeg))
 	p.Add(&refLine{value: 0, style: lineStyle(th.faint, widthThin, nil)})
 	p.X.Min, p.X.Max = padRange(p.X.Min, p.X.Max, 0.03)
 	p.Y.Min, p.Y.Max = padRange(p.Y.Min, p.Y.Max, 0.06)

@@ -199,8 +199,7 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		p.Add(fs)
 		k.add("not to be trusted: "+model.FlagWords(kinds), fs)
 	}
-	p.Add(&refLine{value: sc.AlphaDeg, vertical: true, style: lineStyle(th.accent, widthThin, dashRef),
-		label: fmt.Sprintf("α = %s°", formatTick(sc.AlphaDeg, 2)), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)})
+	p.Add(alphaMark(th, sc.AlphaDeg))
 	if s := sc.Solution; s != nil {
 		cur := plotter.XYs{{X: s.AlphaDeg, Y: s.Cl}}
 		curM := plotter.XYs{{X: s.AlphaDeg, Y: tw.toLeft(p, s.Cm)}}

@@ -1,6 +1,7 @@
 package figure
 
 import (
+	"fmt"
 	"image/color"
 	"math"
 	"strconv"
@@ -509,4 +510,11 @@ func (k *key) Plot(c draw.Canvas, p *plot.Plot) {
 		e.thumb.Thumbnail(&tc)
 		c.FillText(k.text, vg.Point{X: x0 + 2*keyPad + keyThumb, Y: yc}, e.label)
 	}
+}
+
+// alphaMark is the vertical line marking the angle of attack solved on a
+// figure against α, labelled with it.
+func alphaMark(th *theme, alphaDeg float64) *refLine {
+	return &refLine{value: alphaDeg, vertical: true, style: lineStyle(th.accent, widthThin, dashRef),
+		label: fmt.Sprintf("α = %s°", formatTick(alphaDeg, 2)), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)}
 }
