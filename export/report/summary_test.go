@@ -216,3 +216,30 @@ func TestCentreOfPressure(t *testing.T) {
 func solverElement(cl, cm float64) solver.ElementSolution {
 	return solver.ElementSolution{ClPressure: cl, Cl: cl, Cm: cm}
 }
+
+// The coupled solution's verdicts per sweep angle mark the sweep's rows:
+// an angle past maximum lift or not converged is numbered in the Marks
+// column and explained in the footnote.
+func TestSweepMarksFromCoupled(t *testing.T) {
+	st := demoStudy()
+	st.Viscous.Enabled = false
+	st.Ground.ClearanceMM = 150 // clear of the ground flag
+	res := solve(t, st)
+	n := len(res.Sweep)
+	c := &Coupled{Converged: true, Iterations: 9, Cd: math.NaN(), ClMax: math.NaN(), AlphaClMaxDeg: math.NaN(),
+		PastClMax: make([]bool, n), NotConverged: make([]bool, n), Separated: make([]bool, n)}
+	c.PastClMax[n-1], c.NotConverged[n-2] = true, true
+	w := &writer{in: Input{Study: st, Result: res, Coupled: c}}
+	for i, want := range map[int]model.FlagKind{n - 1: model.FlagPastClMax, n - 2: model.FlagNotConverged} {
+		fl := w.sweepFlags(i)
+		if len(fl) == 0 || fl[0].Kind != want {
+			t.Errorf("row %d: flags %v, want %s first", i, fl, want)
+		}
+	}
+	text := pdfText(t, Input{Study: st, Result: res, Coupled: c})
+	for _, s := range []string{"(2) past maximum lift", "(3) viscous solution not converged"} {
+		if !strings.Contains(text, s) {
+			t.Errorf("report lacks the footnote %q", s)
+		}
+	}
+}
