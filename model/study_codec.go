@@ -231,6 +231,9 @@ func (st *Study) Validate() error {
 	if st.Ground.Enabled && !(st.Ground.ClearanceMM > 0) {
 		return &FieldError{Field: "ground.clearance_mm", Err: errors.New("must be positive when the ground is on")}
 	}
+	if err := st.checkGround(); err != nil {
+		return err
+	}
 	if fl.SpeedMPS > 0 {
 		if _, err := AirFromCelsius(fl.TemperatureC, fl.PressurePa); err != nil {
 			return err
