@@ -199,6 +199,9 @@ func (st *Study) Validate() error {
 	if err := st.Panelling.Validate(); err != nil {
 		return err
 	}
+	if err := st.Panelling.checkBlendRange(); err != nil {
+		return err
+	}
 	fl := st.Flow
 	for _, c := range []struct {
 		name     string
