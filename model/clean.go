@@ -132,6 +132,7 @@ var (
 	ErrOpenContour    = errors.New("open contour: the points do not form a closed section")
 	ErrFlatContour    = errors.New("the contour encloses no area")
 	ErrSeveralLoops   = errors.New("several closed loops in one section")
+	ErrOutlier        = errors.New("an outlier point")
 )
 
 // ContourError reports a contour Clean cannot turn into a section.
@@ -285,7 +286,15 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 		q[i] = Point{(p.X - ctr.X) / half / 2, (p.Y - ctr.Y) / half / 2}
 	}
 
-	// 0. Several loops: the list comes back to its first point and goes
+	// 0. An outlier, far from both its neighbours while they lie close
+	// together (a typing error), would hijack the leading edge (the
+	// farthest point from the trailing edge) and turn the section.
+	if i, far, gap := outlierPoint(q); i >= 0 {
+		return fail(i, fmt.Errorf("(%s) lies %.3g of the section's size from its neighbours, which are %.3g apart: %w, perhaps a typing error; correct or delete it",
+			fmtPoint(pts[i]), far, gap, ErrOutlier))
+	}
+
+	// Several loops: the list comes back to its first point and goes
 	// on (a main plane and a flap drawn in one file).
 	if loops := closedLoops(q, tol); len(loops) > 1 {
 		var parts []string
@@ -874,4 +883,41 @@ func closedLoops(pts []Point, tol float64) []int {
 		}
 	}
 	return starts
+}
+
+// Outlier thresholds: a point is an outlier when both its distances to its
+// neighbours exceed outlierRatio times the larger of its neighbours'
+// distance to each other and the median spacing of the list, and
+// outlierSize of the section's size (pre-normalised, so the size is 1).
+// A smooth contour, however sparse, keeps the two below one another; a
+// blunt trailing edge's gap is one spacing, not two.
+const (
+	outlierRatio = 5.0
+	outlierSize  = 0.05
+)
+
+// outlierPoint returns the first outlier of pts (see outlierRatio), the
+// distance to its nearer neighbour and its neighbours' distance, or −1.
+// The list is taken as a loop (the first and last points are neighbours).
+func outlierPoint(pts []Point) (int, float64, float64) {
+	n := len(pts)
+	if n < MinSectionPoints {
+		return -1, 0, 0
+	}
+	steps := make([]float64, n)
+	for i := range pts {
+		steps[i] = pts[i].Dist(pts[(i+1)%n])
+	}
+	med := append([]float64(nil), steps...)
+	sort.Float64s(med)
+	median := med[n/2]
+	for i := range pts {
+		prev, next := pts[(i+n-1)%n], pts[(i+1)%n]
+		near := math.Min(pts[i].Dist(prev), pts[i].Dist(next))
+		gap := prev.Dist(next)
+		if near > outlierSize && near > outlierRatio*math.Max(gap, median) {
+			return i, near, gap
+		}
+	}
+	return -1, 0, 0
 }

@@ -735,3 +735,30 @@ func TestCleanRefusesSeveralLoops(t *testing.T) {
 		t.Errorf("one closed loop: %v", err)
 	}
 }
+
+// TestCleanNamesAnOutlier: a point far off the contour (a typing error)
+// used to become the leading edge, turning the section until the solver
+// failed with an internal message about the node order; it is refused as
+// an outlier, by number and position.
+func TestCleanNamesAnOutlier(t *testing.T) {
+	for _, k := range []int{5, 30, 44} {
+		pts := naca0012Loop(31)
+		pts[k] = Point{3, 2}
+		_, _, err := Clean("typo", pts, DefaultCleanOptions)
+		var ce *ContourError
+		if !errors.Is(err, ErrOutlier) || !errors.As(err, &ce) || ce.Index != k || !strings.Contains(err.Error(), "(3, 2)") {
+			t.Errorf("outlier at point %d: %v", k+1, err)
+		}
+	}
+	// Sparse, blunt and ordinary sections are not outliers.
+	for name, pts := range map[string][]Point{
+		"NACA 0012, 61 points": naca0012Loop(31),
+		"drawn base":           bluntBaseLoop(31, 3, true),
+		"diamond":              {{1, 0}, {0.5, 0.1}, {0, 0}, {0.5, -0.1}, {1, 0}},
+		"sparse, 9 points":     naca0012Loop(5),
+	} {
+		if i, _, _ := outlierPoint(pts); i >= 0 {
+			t.Errorf("%s: point %d taken for an outlier", name, i+1)
+		}
+	}
+}

@@ -142,6 +142,9 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 	if err := checkFinite(sol); err != nil {
 		return nil, err
 	}
+	if w := model.LiftDisagreement(sol.Cl, sol.ClPressure); w != "" {
+		sol.Warnings = append(sol.Warnings, w)
+	}
 	res.Solution, res.Config = sol, cfg
 
 	res.Reynolds = reynolds(st, l)
