@@ -22,10 +22,15 @@ type inputs struct {
 	panels         int
 	spacing        string
 	nose, tail, re float64
-	format         string
-	alphaRange     string          // sweep: FROM:TO:STEP
-	set            map[string]bool // flags given on the command line
-	formats        []string
+	// The viscous solution: mode, critical amplification exponent and
+	// trips (x/c on the surfaces as mounted).
+	viscousMode          string
+	transitionN          float64
+	tripUpper, tripLower float64
+	format               string
+	alphaRange           string          // sweep: FROM:TO:STEP
+	set                  map[string]bool // flags given on the command line
+	formats              []string
 }
 
 // addInputs defines the shared flags; a sweep takes --alpha as a range.
@@ -43,7 +48,11 @@ func addInputs(fs *flags, sweep bool, formats ...string) *inputs {
 	fs.StringVar(&in.spacing, "spacing", string(d.Spacing), "spacing `law`: cosine, uniform, blend or curvature")
 	fs.Float64Var(&in.nose, "nose", d.Nose, "nose clustering in [0, 1] (blend law)")
 	fs.Float64Var(&in.tail, "tail", d.Tail, "tail clustering in [0, 1] (blend law)")
-	fs.Float64Var(&in.re, "re", 0, "Reynolds `number` on the (first) element's chord; turns on the boundary-layer estimate")
+	fs.Float64Var(&in.re, "re", 0, "Reynolds `number` on the (first) element's chord; turns on the viscous solution")
+	fs.StringVar(&in.viscousMode, "viscous-mode", string(model.ViscousCoupled), "viscous `mode`: coupled (boundary layers and wakes that act back on the flow) or estimate (one-way boundary-layer estimate, lift inviscid); default for --study: the study's")
+	fs.Float64Var(&in.transitionN, "transition-n", model.DefaultTransitionN, fmt.Sprintf("critical amplification exponent `N` of the e^N transition criterion, %d to %d (Mack: N = −8.43 − 2.4 ln(Tu/100), Tu the free-stream turbulence in %%; 9 is a quiet wind tunnel)", model.MinTransitionN, model.MaxTransitionN))
+	fs.Float64Var(&in.tripUpper, "trip-upper", 0, "forced transition on the upper surface as mounted, at this `x/c` (0: free)")
+	fs.Float64Var(&in.tripLower, "trip-lower", 0, "forced transition on the lower surface as mounted, at this `x/c` (0: free)")
 	in.format = formats[0]
 	if len(formats) > 1 { // a command with one output format offers no choice
 		fs.StringVar(&in.format, "format", formats[0], "output `format`: "+strings.Join(formats, ", "))
@@ -78,6 +87,7 @@ func (in *inputs) load(fs *flags) (*model.Study, []*model.Section, []*model.Clea
 		st.Name = in.section
 		// A 1 m chord at the origin: the layout's metres are chord lengths.
 		st.Elements = []model.StudyElement{{Name: "section", Section: model.SectionSource{Spec: in.section}, ChordMM: 1000}}
+		st.Viscous.Mode = model.ViscousCoupled
 	}
 	p := &st.Panelling
 	if in.set["panels"] || in.study == "" {
@@ -104,6 +114,18 @@ func (in *inputs) load(fs *flags) (*model.Study, []*model.Section, []*model.Clea
 	if in.set["re"] {
 		st.Flow.Reynolds = in.re
 		st.Viscous.Enabled = in.re > 0
+	}
+	if in.set["viscous-mode"] {
+		st.Viscous.Mode = model.ViscousMode(in.viscousMode)
+	}
+	if in.set["transition-n"] {
+		st.Viscous.TransitionN = in.transitionN
+	}
+	if in.set["trip-upper"] {
+		st.Viscous.TripUpper = in.tripUpper
+	}
+	if in.set["trip-lower"] {
+		st.Viscous.TripLower = in.tripLower
 	}
 	if err := st.Validate(); err != nil {
 		return nil, nil, nil, flagError(err)
@@ -132,6 +154,8 @@ func flagError(err error) error {
 		"panelling.panels": "--panels", "panelling.spacing": "--spacing",
 		"panelling.nose": "--nose", "panelling.tail": "--tail",
 		"flow.alpha_deg": "--alpha", "flow.reynolds": "--re",
+		"viscous.mode": "--viscous-mode", "viscous.transition_n": "--transition-n",
+		"viscous.trip_upper": "--trip-upper", "viscous.trip_lower": "--trip-lower",
 	}[fe.Field]
 	if name == "" {
 		return err

@@ -44,6 +44,9 @@ func TestExitCodesAndMessages(t *testing.T) {
 		{"bad NACA code", []string{"solve", "--section", "naca:12"}, exitInput, []string{"12"}},
 		{"missing file", []string{"solve", "--section", filepath.Join(dir, "nope.dat")}, exitInput, []string{"nope.dat"}},
 		{"malformed file names the line", []string{"solve", "--section", bad}, exitInput, []string{"bad.dat", "line 3"}},
+		{"transition exponent out of range", []string{"solve", "--section", "naca:0012", "--re", "3e5", "--transition-n", "30"}, exitUsage, []string{"--transition-n", "30"}},
+		{"trip beyond the chord", []string{"solve", "--section", "naca:0012", "--re", "3e5", "--trip-upper", "1.5"}, exitUsage, []string{"--trip-upper"}},
+		{"unknown viscous mode", []string{"solve", "--section", "naca:0012", "--re", "3e5", "--viscous-mode", "exact"}, exitUsage, []string{"--viscous-mode", "exact"}},
 		{"bad sweep range", []string{"sweep", "--section", "naca:0012", "--alpha", "0:10"}, exitUsage, []string{"FROM:TO:STEP"}},
 		{"sweep step zero", []string{"sweep", "--section", "naca:0012", "--alpha", "0:10:0"}, exitUsage, []string{"step"}},
 		{"missing study", []string{"solve", "--study", filepath.Join(dir, "none.json")}, exitInput, []string{"none.json"}},
@@ -132,9 +135,25 @@ func TestSweepJSONContract(t *testing.T) {
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, stderr)
 	}
-	var rows []map[string]float64
-	if err := json.Unmarshal([]byte(out), &rows); err != nil {
-		t.Fatalf("not a JSON array of rows: %v", err)
+	var sw struct {
+		Rows       []map[string]any `json:"rows"`
+		ClMax      *float64         `json:"cl_max"`
+		AlphaClMax *float64         `json:"alpha_cl_max"`
+	}
+	if err := json.Unmarshal([]byte(out), &sw); err != nil {
+		t.Fatalf("not a JSON object with rows: %v", err)
+	}
+	if sw.ClMax != nil || sw.AlphaClMax != nil {
+		t.Errorf("an inviscid sweep gives Cl max %v at %v, want null (potential flow does not stall)", *sw.ClMax, *sw.AlphaClMax)
+	}
+	rows := make([]map[string]float64, len(sw.Rows))
+	for i, r := range sw.Rows {
+		rows[i] = map[string]float64{}
+		for k, v := range r {
+			if f, ok := v.(float64); ok {
+				rows[i][k] = f
+			}
+		}
 	}
 	if len(rows) != 5 {
 		t.Fatalf("%d rows, want 5", len(rows))

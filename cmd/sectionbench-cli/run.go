@@ -55,8 +55,10 @@ Section specs (--section):
                      angle in degrees, e.g. kt:-0.1,0.1,10 (exact solution known)
   PATH               a coordinate file (cleaned on loading; see 'clean')
 
-Results are 2-D potential-flow estimates (plus a one-way boundary-layer
-estimate where asked): validate by test. Structural design and mounting of a
+Results are 2-D estimates: potential flow, plus with --re a viscous solution
+whose boundary layers and wakes act back on the flow (or, with
+--viscous-mode estimate, a one-way boundary-layer estimate); a viscous point
+that did not converge is shown as such, without numbers. Validate by test. Structural design and mounting of a
 wing follow the competition's rules and qualified engineering review.
 
 Run 'sectionbench-cli COMMAND -h' for a command's flags.

@@ -57,11 +57,50 @@ type jsonViscous struct {
 	SeparationLower *num `json:"separation_lower,omitempty"`
 }
 
+// jsonCoupled are the coupled solution's state and inviscid companions,
+// shared by the configuration, its elements and sweep rows.
+type jsonCoupled struct {
+	ClInviscid  num     `json:"cl_inviscid"`
+	Converged   *bool   `json:"converged,omitempty"`
+	Iterations  *int    `json:"iterations,omitempty"`
+	Residual    *num    `json:"residual,omitempty"`
+	BubbleUpper *[2]num `json:"bubble_upper,omitempty"`
+	BubbleLower *[2]num `json:"bubble_lower,omitempty"`
+	Note        string  `json:"note,omitempty"`
+}
+
+// coupledKeys fills the coupled solution's keys of one element (k ≥ 0)
+// or of the configuration (k < 0, transition and separation of the main
+// element) from p; coefficients NaN (null) unless it converged. The
+// caller sets cl_inviscid (the panel method's Cl from circulation).
+func coupledKeys(p *engine.CoupledPoint, k int) (jsonCoefficients, jsonViscous, jsonCoupled) {
+	conv, it := p.Converged, p.Iterations
+	e := p.Elements[max(k, 0)]
+	c := jsonCoupled{Converged: &conv, Iterations: &it, Residual: ptr(p.Residual), Note: p.Note,
+		BubbleUpper: bubble(e.BubbleUpper), BubbleLower: bubble(e.BubbleLower)}
+	v := jsonViscous{ptr(p.Cd), ptr(e.TransitionUpper), ptr(e.TransitionLower), ptr(e.SeparationUpper), ptr(e.SeparationLower)}
+	co := jsonCoefficients{Cl: num(p.Cl), Cm: num(p.Cm)}
+	if k >= 0 {
+		v.Cd = ptr(e.Cd)
+		co.Cl, co.Cm = num(e.Cl), num(e.Cm)
+	}
+	return co, v, c
+}
+
+// bubble is a laminar separation bubble's extent, nil for none.
+func bubble(b [2]float64) *[2]num {
+	if math.IsNaN(b[0]) {
+		return nil
+	}
+	return &[2]num{num(b[0]), num(b[1])}
+}
+
 type jsonElement struct {
 	Name string `json:"name"`
 	jsonCoefficients
 	Reynolds *num `json:"reynolds,omitempty"`
 	jsonViscous
+	jsonCoupled
 	LiftPerSpan *num        `json:"lift_per_span_n_per_m,omitempty"`
 	Points      []jsonPoint `json:"points"`
 }
@@ -75,21 +114,27 @@ type jsonSolve struct {
 	Downforce *num `json:"downforce_coefficient,omitempty"`
 	Ground    *num `json:"ground_clearance_mm,omitempty"`
 	RefChordM num  `json:"reference_chord_m"`
+	// ViscousMode is "coupled" or "estimate" when the viscous solution
+	// ran.
+	ViscousMode string `json:"viscous_mode,omitempty"`
+	CmInviscid  *num   `json:"cm_inviscid,omitempty"`
 	jsonViscous
-	Q          *num          `json:"dynamic_pressure_pa,omitempty"`
-	Force      *num          `json:"force_per_span_n_per_m,omitempty"`
-	DownforceN *num          `json:"downforce_per_span_n_per_m,omitempty"`
-	DragN      *num          `json:"drag_per_span_n_per_m,omitempty"`
-	MomentN    *num          `json:"moment_per_span_n_m_per_m,omitempty"`
-	Points     []jsonPoint   `json:"points"`
-	Elements   []jsonElement `json:"elements"`
-	Warnings   []string      `json:"warnings"`
+	jsonCoupled
+	Q             *num          `json:"dynamic_pressure_pa,omitempty"`
+	Force         *num          `json:"force_per_span_n_per_m,omitempty"`
+	ForceInviscid *num          `json:"force_inviscid_per_span_n_per_m,omitempty"`
+	DownforceN    *num          `json:"downforce_per_span_n_per_m,omitempty"`
+	DragN         *num          `json:"drag_per_span_n_per_m,omitempty"`
+	MomentN       *num          `json:"moment_per_span_n_m_per_m,omitempty"`
+	Points        []jsonPoint   `json:"points"`
+	Elements      []jsonElement `json:"elements"`
+	Warnings      []string      `json:"warnings"`
 }
 
 func ptr(f float64) *num { n := num(f); return &n }
 
 func cmdSolve(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("solve", "solve (--section SPEC | --study FILE) [--alpha DEG] [--panels N] [--spacing LAW] [--nose F] [--tail F] [--re RE] [--format text|json]", stdout)
+	fs := newFlags("solve", "solve (--section SPEC | --study FILE) [--alpha DEG] [--panels N] [--spacing LAW] [--nose F] [--tail F] [--re RE] [--transition-n N] [--trip-upper XC] [--trip-lower XC] [--format text|json]", stdout)
 	in := addInputs(fs, false, "text", "json")
 	if _, err := fs.parse(args, 0); err != nil {
 		return err
@@ -98,7 +143,7 @@ func cmdSolve(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	res, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs})
+	res, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs, CoupledMaxIterations: coupledMaxIterations})
 	if err != nil {
 		return err
 	}
@@ -121,7 +166,23 @@ func collectWarnings(reps []*model.CleanReport, res *engine.Result) []string {
 	if res.Viscous != nil {
 		w = append(w, res.Viscous.Notes...)
 	}
+	if c := res.Coupled; c != nil && !c.Converged {
+		w = append(w, notConverged(c))
+	}
 	return w
+}
+
+// coupledMaxIterations bounds the coupled solution's iterations; 0 is the
+// solver's default. Tests set it to force a point that does not converge;
+// it is not a flag.
+var coupledMaxIterations int
+
+// notConverged says in words that a coupled point is no answer.
+func notConverged(c *engine.CoupledPoint) string {
+	if c.Note != "" {
+		return fmt.Sprintf("viscous solution at %g° failed (%s): no viscous numbers", c.AlphaDeg, c.Note)
+	}
+	return fmt.Sprintf("viscous solution at %g° did not converge (%d iterations, residual %.2g): no viscous numbers; the inviscid Cl is beside them", c.AlphaDeg, c.Iterations, c.Residual)
 }
 
 func solveJSON(st *model.Study, res *engine.Result, warnings []string) jsonSolve {
@@ -161,9 +222,15 @@ func solveJSON(st *model.Study, res *engine.Result, warnings []string) jsonSolve
 		if res.Reynolds != nil {
 			je.Reynolds = ptr(res.Reynolds[i])
 		}
+		je.ClInviscid = num(e.Cl)
 		if v := res.Viscous; v != nil {
 			ev := v.Elements[i]
 			je.jsonViscous = jsonViscous{ptr(ev.Cd), ptr(ev.Upper.TransitionXC), ptr(ev.Lower.TransitionXC), ptr(ev.Upper.TurbulentSeparationXC), ptr(ev.Lower.TurbulentSeparationXC)}
+		}
+		if c := res.Coupled; c != nil {
+			var co jsonCoefficients
+			co, je.jsonViscous, je.jsonCoupled = coupledKeys(c, i)
+			je.Cl, je.Cm, je.ClInviscid = co.Cl, co.Cm, num(e.Cl)
 		}
 		if f := res.Forces; f != nil {
 			je.LiftPerSpan = ptr(f.ElementLift[i])
@@ -171,14 +238,29 @@ func solveJSON(st *model.Study, res *engine.Result, warnings []string) jsonSolve
 		out.Elements = append(out.Elements, je)
 	}
 	out.Points = out.Elements[0].Points
+	out.ClInviscid = num(sol.Cl)
 	if v := res.Viscous; v != nil {
+		out.ViscousMode = string(model.ViscousEstimate)
 		out.jsonViscous = out.Elements[0].jsonViscous
 		out.Cd = ptr(v.Cd)
+	}
+	if c := res.Coupled; c != nil {
+		out.ViscousMode = string(model.ViscousCoupled)
+		var co jsonCoefficients
+		co, out.jsonViscous, out.jsonCoupled = coupledKeys(c, -1)
+		out.Cl, out.Cm, out.CmInviscid = co.Cl, co.Cm, ptr(sol.Cm)
+		out.ClInviscid = num(sol.Cl)
+		if st.Inverted {
+			out.Downforce = ptr(-c.Cl)
+		}
 	}
 	if f := res.Forces; f != nil {
 		out.Q, out.Force = ptr(f.DynamicPressurePa), ptr(f.LiftPerSpan)
 		out.DownforceN, out.MomentN = ptr(f.DownforcePerSpan), ptr(f.MomentPerSpan)
 		out.DragN = ptr(f.DragPerSpan)
+		if f.Coupled {
+			out.ForceInviscid = ptr(f.InviscidLiftPerSpan)
+		}
 	}
 	return out
 }
@@ -201,9 +283,20 @@ func solveText(w io.Writer, st *model.Study, res *engine.Result, out jsonSolve) 
 	if v := res.Viscous; v != nil {
 		fmt.Fprintf(tw, "Cd (one-way boundary-layer estimate)\t%s\n", fmtNum(v.Cd, "%.5f"))
 	}
+	if c := res.Coupled; c != nil {
+		coupledText(tw, c)
+	}
 	if f := res.Forces; f != nil {
 		fmt.Fprintf(tw, "dynamic pressure\t%.1f Pa\n", f.DynamicPressurePa)
-		fmt.Fprintf(tw, "lift per metre of span\t%.2f N/m\t(positive up; downforce %.2f N/m)\n", f.LiftPerSpan, f.DownforcePerSpan)
+		src := "inviscid"
+		if f.Coupled {
+			src = "viscous"
+		}
+		fmt.Fprintf(tw, "lift per metre of span (%s)\t%s N/m\t(positive up; downforce %s N/m)\n", src, fmtShort(f.LiftPerSpan, "%.2f"), fmtShort(f.DownforcePerSpan, "%.2f"))
+		if f.Coupled {
+			fmt.Fprintf(tw, "drag per metre of span\t%s N/m\n", fmtShort(f.DragPerSpan, "%.2f"))
+			fmt.Fprintf(tw, "lift per metre of span (inviscid)\t%.2f N/m\n", f.InviscidLiftPerSpan)
+		}
 	}
 	if len(sol.Elements) > 1 {
 		for i, e := range sol.Elements {
@@ -215,6 +308,52 @@ func solveText(w io.Writer, st *model.Study, res *engine.Result, out jsonSolve) 
 	}
 	fmt.Fprintln(tw, "caution\t"+strings.TrimPrefix(caution, "caution: "))
 	return tw.Flush()
+}
+
+// coupledText writes the coupled solution's lines: its state first, then
+// its numbers, which are dashes when it did not converge.
+func coupledText(tw io.Writer, c *engine.CoupledPoint) {
+	fmt.Fprintf(tw, "viscous solution\t%s\n", convergenceWords(c))
+	fmt.Fprintf(tw, "Cl (viscous)\t%s\t(inviscid %.5f)\n", fmtShort(c.Cl, "%.5f"), c.ClInviscid)
+	fmt.Fprintf(tw, "Cd (viscous, from the wakes)\t%s\n", fmtShort(c.Cd, "%.5f"))
+	fmt.Fprintf(tw, "Cm (viscous)\t%s\t(inviscid %.5f)\n", fmtShort(c.Cm, "%.5f"), c.CmInviscid)
+	if c.Converged {
+		fmt.Fprintf(tw, "lift-to-drag ratio\t%.1f\n", c.Cl/c.Cd)
+	}
+	for i, e := range c.Elements {
+		name := ""
+		if len(c.Elements) > 1 {
+			name = fmt.Sprintf(" (element %d %q)", i+1, e.Name)
+		}
+		fmt.Fprintf(tw, "transition x/c%s\tupper %s, lower %s\n", name, fmtXC(e.TransitionUpper, c.Converged), fmtXC(e.TransitionLower, c.Converged))
+		fmt.Fprintf(tw, "separation x/c%s\tupper %s, lower %s\n", name, fmtXC(e.SeparationUpper, c.Converged), fmtXC(e.SeparationLower, c.Converged))
+		if len(c.Elements) > 1 {
+			fmt.Fprintf(tw, "element %d %q (viscous)\tCl %s, Cd %s, Cm %s on its own chord\n", i+1, e.Name, fmtShort(e.Cl, "%.5f"), fmtShort(e.Cd, "%.5f"), fmtShort(e.Cm, "%.5f"))
+		}
+	}
+}
+
+// convergenceWords says whether a coupled point converged.
+func convergenceWords(c *engine.CoupledPoint) string {
+	switch {
+	case c.Note != "":
+		return "FAILED: " + c.Note
+	case c.Converged:
+		return fmt.Sprintf("converged in %d iterations (residual %.1e)", c.Iterations, c.Residual)
+	}
+	return fmt.Sprintf("NOT CONVERGED after %d iterations (residual %.1e): its numbers are not an answer", c.Iterations, c.Residual)
+}
+
+// fmtXC formats a transition or separation position: "none" when there
+// is none, a dash when the point did not converge.
+func fmtXC(x float64, converged bool) string {
+	switch {
+	case !converged:
+		return "—"
+	case math.IsNaN(x):
+		return "none"
+	}
+	return fmt.Sprintf("%.3f", x)
 }
 
 func fmtNum(f float64, format string) string {

@@ -4,26 +4,42 @@ import (
 	"context"
 	"fmt"
 	"io"
-	"sectionbench/model"
 	"text/tabwriter"
 
 	"sectionbench/export/format"
+	"sectionbench/model"
 	"sectionbench/solver/engine"
 )
 
+// jsonSweepRow is one angle of a sweep: the inviscid coefficients, and
+// with the viscous solution on its drag, transition and separation; in
+// coupled mode cl, cd and cm are the viscous ones (null unless the row
+// converged) with the row's state.
 type jsonSweepRow struct {
 	AlphaDeg   num  `json:"alpha_deg"`
 	Cl         num  `json:"cl"`
 	ClPressure num  `json:"cl_pressure"`
 	Cm         num  `json:"cm"`
 	CpMin      num  `json:"cp_min"`
-	Cd         *num `json:"cd,omitempty"`
-	TrUpper    *num `json:"transition_upper,omitempty"`
-	TrLower    *num `json:"transition_lower,omitempty"`
+	CmInviscid *num `json:"cm_inviscid,omitempty"`
+	jsonViscous
+	jsonCoupled
+	PastClMax *bool `json:"past_cl_max,omitempty"`
+}
+
+// jsonSweep is the sweep's JSON: its rows and, in coupled mode, the
+// maximum lift among the converged rows (null otherwise).
+type jsonSweep struct {
+	ViscousMode string         `json:"viscous_mode,omitempty"`
+	Rows        []jsonSweepRow `json:"rows"`
+	ClMax       num            `json:"cl_max"`
+	AlphaClMax  num            `json:"alpha_cl_max"`
+	ClMaxIsPeak bool           `json:"cl_max_is_peak"`
+	Warnings    []string       `json:"warnings"`
 }
 
 func cmdSweep(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("sweep", "sweep (--section SPEC | --study FILE) --alpha FROM:TO:STEP [--panels N] [--spacing LAW] [--nose F] [--tail F] [--re RE] [--format text|csv|json]", stdout)
+	fs := newFlags("sweep", "sweep (--section SPEC | --study FILE) --alpha FROM:TO:STEP [--panels N] [--spacing LAW] [--nose F] [--tail F] [--re RE] [--transition-n N] [--trip-upper XC] [--trip-lower XC] [--format text|csv|json]", stdout)
 	in := addInputs(fs, true, "text", "csv", "json")
 	if _, err := fs.parse(args, 0); err != nil {
 		return err
@@ -32,25 +48,65 @@ func cmdSweep(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	res, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true})
+	res, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true, CoupledMaxIterations: coupledMaxIterations})
 	if err != nil {
 		return err
 	}
-	rows := make([]jsonSweepRow, len(res.Sweep))
-	for i, c := range res.Sweep {
-		rows[i] = jsonSweepRow{AlphaDeg: num(c.AlphaDeg), Cl: num(c.Cl), ClPressure: num(c.ClPressure), Cm: num(c.Cm), CpMin: num(c.CpMin)}
-		if res.SweepViscous != nil {
-			v := res.SweepViscous[i]
-			rows[i].Cd, rows[i].TrUpper, rows[i].TrLower = ptr(v.Cd), ptr(v.TransitionUpper), ptr(v.TransitionLower)
-		}
-	}
 	switch in.format {
 	case "json":
-		return writeJSON(stdout, rows)
+		return writeJSON(stdout, sweepJSON(res))
 	case "csv":
 		return sweepCSV(stdout, st, res)
 	}
-	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', tabwriter.AlignRight)
+	if res.SweepCoupled != nil {
+		if err := sweepCoupledText(stdout, res); err != nil {
+			return err
+		}
+	} else if err := sweepText(stdout, res); err != nil {
+		return err
+	}
+	for _, w := range res.Solution.Warnings {
+		fmt.Fprintln(stdout, "warning: "+w)
+	}
+	_, err = fmt.Fprintln(stdout, caution)
+	return err
+}
+
+func sweepJSON(res *engine.Result) jsonSweep {
+	out := jsonSweep{Rows: make([]jsonSweepRow, len(res.Sweep)), ClMax: num(res.ClMax), AlphaClMax: num(res.AlphaClMax), ClMaxIsPeak: res.ClMaxIsPeak, Warnings: append([]string{}, res.Solution.Warnings...)}
+	if res.SweepViscous != nil {
+		out.ViscousMode = string(model.ViscousEstimate)
+	}
+	if res.SweepCoupled != nil {
+		out.ViscousMode = string(model.ViscousCoupled)
+	}
+	for i, c := range res.Sweep {
+		r := jsonSweepRow{AlphaDeg: num(c.AlphaDeg), Cl: num(c.Cl), ClPressure: num(c.ClPressure), Cm: num(c.Cm), CpMin: num(c.CpMin)}
+		r.ClInviscid = num(c.Cl)
+		if res.SweepViscous != nil {
+			v := res.SweepViscous[i]
+			r.jsonViscous = jsonViscous{ptr(v.Cd), ptr(v.TransitionUpper), ptr(v.TransitionLower), ptr(v.SeparationUpper), ptr(v.SeparationLower)}
+		}
+		if res.SweepCoupled != nil {
+			p := &res.SweepCoupled[i]
+			var co jsonCoefficients
+			co, r.jsonViscous, r.jsonCoupled = coupledKeys(p, -1)
+			r.Cl, r.Cm, r.CmInviscid, r.ClInviscid = co.Cl, co.Cm, ptr(c.Cm), num(c.Cl)
+			past := p.PastClMax
+			r.PastClMax = &past
+			if !p.Converged {
+				out.Warnings = append(out.Warnings, notConverged(p))
+			}
+		}
+		out.Rows[i] = r
+	}
+	return out
+}
+
+// sweepText is the inviscid sweep's table (with the one-way estimate's
+// drag and transition when it ran).
+func sweepText(w io.Writer, res *engine.Result) error {
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
 	head := "alpha_deg\tcl\tcl_pressure\tcm\tcp_min\t"
 	if res.SweepViscous != nil {
 		head += "cd\tx_tr_upper\tx_tr_lower\t"
@@ -64,13 +120,42 @@ func cmdSweep(args []string, stdout, stderr io.Writer) error {
 		}
 		fmt.Fprintln(tw)
 	}
+	return tw.Flush()
+}
+
+// sweepCoupledText is the coupled sweep's table: viscous coefficients
+// (dashes where a row did not converge), the inviscid Cl beside them and
+// each row's state, then the maximum lift.
+func sweepCoupledText(w io.Writer, res *engine.Result) error {
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "alpha_deg\tcl\tcd\tcm\tcl_inviscid\ttransition_upper\ttransition_lower\tseparation_upper\tseparation_lower\tstate\t")
+	for i, p := range res.SweepCoupled {
+		e := p.Elements[0]
+		state := fmt.Sprintf("converged (%d iterations)", p.Iterations)
+		if !p.Converged {
+			state = fmt.Sprintf("NOT CONVERGED (%d iterations, residual %.1e)", p.Iterations, p.Residual)
+		}
+		if p.Note != "" {
+			state = "FAILED: " + p.Note
+		}
+		if p.PastClMax {
+			state += ", past Cl max"
+		}
+		fmt.Fprintf(tw, "%.3f\t%s\t%s\t%s\t%.5f\t%s\t%s\t%s\t%s\t%s\t\n", p.AlphaDeg, fmtShort(p.Cl, "%.5f"), fmtShort(p.Cd, "%.5f"), fmtShort(p.Cm, "%.5f"),
+			res.Sweep[i].Cl, fmtXC(e.TransitionUpper, p.Converged), fmtXC(e.TransitionLower, p.Converged), fmtXC(e.SeparationUpper, p.Converged), fmtXC(e.SeparationLower, p.Converged), state)
+	}
 	if err := tw.Flush(); err != nil {
 		return err
 	}
-	for _, w := range res.Solution.Warnings {
-		fmt.Fprintln(stdout, "warning: "+w)
+	switch {
+	case res.ClMax != res.ClMax:
+		_, err := fmt.Fprintln(w, "Cl max: none (no row converged)")
+		return err
+	case res.ClMaxIsPeak:
+		_, err := fmt.Fprintf(w, "Cl max %.4f at %g° (viscous, converged rows)\n", res.ClMax, res.AlphaClMax)
+		return err
 	}
-	_, err = fmt.Fprintln(stdout, caution)
+	_, err := fmt.Fprintf(w, "largest Cl %.4f at %g°; no converged row beyond it shows lift falling, so Cl max is not found in this sweep\n", res.ClMax, res.AlphaClMax)
 	return err
 }
 
@@ -82,5 +167,9 @@ func fmtShort(f float64, format string) string {
 }
 
 func sweepCSV(w io.Writer, st *model.Study, res *engine.Result) error {
-	return format.WriteSweepTable(w, format.StudyMetadata(st, res, "Sectionbench "+version), res.Sweep, res.SweepViscous)
+	meta := format.StudyMetadata(st, res, "Sectionbench "+version)
+	if res.SweepCoupled != nil {
+		return format.WriteCoupledSweepTable(w, meta, res.Sweep, res.SweepCoupled)
+	}
+	return format.WriteSweepTable(w, meta, res.Sweep, res.SweepViscous)
 }

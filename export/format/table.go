@@ -115,6 +115,40 @@ func WriteSweepTable(w io.Writer, m Metadata, sweep []solver.Coefficients, visco
 	return t.close()
 }
 
+// WriteCoupledSweepTable writes a sweep with the coupled viscous solution
+// as CSV after the metadata m, one row per angle: alpha_deg; cl, cd and
+// cm from the coupled solution (empty where the row did not converge);
+// cl_inviscid (from circulation) and cm_inviscid; converged and
+// past_cl_max (yes or no), iterations and residual; transition and
+// separation x/c per surface of the main element (empty: none, or not
+// converged). coupled must be as long as sweep.
+func WriteCoupledSweepTable(w io.Writer, m Metadata, sweep []solver.Coefficients, coupled []engine.CoupledPoint) error {
+	if len(coupled) != len(sweep) {
+		panic(fmt.Sprintf("format: %d coupled points for %d sweep angles", len(coupled), len(sweep)))
+	}
+	m.AlphaDeg = NoAngle
+	if err := m.write(w, "alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive; cl, cd and cm from the coupled viscous solution, empty where it did not converge",
+		"along the main element's own chord from its leading edge; empty: none found, or the row did not converge"); err != nil {
+		return err
+	}
+	t, err := newTable(w, "alpha_deg", "cl", "cd", "cm", "cl_inviscid", "cm_inviscid", "converged", "past_cl_max", "iterations", "residual",
+		"transition_upper_xc", "transition_lower_xc", "separation_upper_xc", "separation_lower_xc")
+	if err != nil {
+		return err
+	}
+	yes := map[bool]string{true: "yes", false: "no"}
+	for i, c := range sweep {
+		p := coupled[i]
+		e := p.Elements[0]
+		if err := t.row(cell(c.AlphaDeg), cell(p.Cl), cell(p.Cd), cell(p.Cm), cell(c.Cl), cell(c.Cm), yes[p.Converged], yes[p.PastClMax],
+			strconv.Itoa(p.Iterations), cell(p.Residual),
+			cell(e.TransitionUpper), cell(e.TransitionLower), cell(e.SeparationUpper), cell(e.SeparationLower)); err != nil {
+			return err
+		}
+	}
+	return t.close()
+}
+
 // WriteBoundaryLayerTable writes the boundary-layer estimate as CSV after
 // the metadata m, one row per station from the stagnation point to the
 // trailing edge, upper surface then lower for each element: element, side,

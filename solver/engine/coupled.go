@@ -270,6 +270,40 @@ func (e *Engine) coupledSweep(ctx context.Context, alphas []float64, opt solver.
 			progress(n+1, len(alphas))
 		}
 	}
+	if e.layout.Ground {
+		return rows, nil
+	}
+	// A second chance for a row that did not converge from the side it
+	// was reached from: once from its converged neighbour on the other
+	// side (a row beyond a stall, say, that its lower neighbour could not
+	// reach but its upper one can).
+	i0 := order[0]
+	for i := range rows {
+		if rows[i].Converged || rows[i].Note != "" {
+			continue
+		}
+		far := []int{i + 1, i - 1}
+		switch {
+		case i > i0:
+			far = far[:1]
+		case i < i0:
+			far = far[1:]
+		}
+		for _, j := range far {
+			if j < 0 || j >= len(rows) || !rows[j].Converged {
+				continue
+			}
+			_, _, fs := e.layout.At(alphas[i])
+			p, err := solveCoupled(ctx, e.sys, alphas[i], fs, opt, rows[j].last, names)
+			if err != nil {
+				return nil, err
+			}
+			if p.Converged {
+				rows[i] = p
+				break
+			}
+		}
+	}
 	return rows, nil
 }
 

@@ -1,0 +1,176 @@
+package main
+
+import (
+	"encoding/json"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// ladsonCd is the 80-grit drag of NACA 0012 at Re 6e6 at the tabulated
+// angle nearest alphaDeg (C. L. Ladson, NASA TM-4074, 1988, as tabulated
+// by the NASA Langley Turbulence Modeling Resource; testdata/validation).
+func ladsonCd(t *testing.T, alphaDeg float64) (alpha, cd float64) {
+	t.Helper()
+	b, err := os.ReadFile(filepath.Join("..", "..", "testdata", "validation", "naca0012-ladson.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var d struct {
+		Grit80 struct {
+			AlphaDeg []float64 `json:"alpha_deg"`
+			Cd       []float64 `json:"cd"`
+		} `json:"grit_80"`
+	}
+	if err := json.Unmarshal(b, &d); err != nil {
+		t.Fatal(err)
+	}
+	best := 0
+	for i, a := range d.Grit80.AlphaDeg {
+		if math.Abs(a-alphaDeg) < math.Abs(d.Grit80.AlphaDeg[best]-alphaDeg) {
+			best = i
+		}
+	}
+	return d.Grit80.AlphaDeg[best], d.Grit80.Cd[best]
+}
+
+// The coupled solve's JSON contract: the keys scripts rely on, with their
+// types, at the top and per element; and the drag of tripped NACA 0012 at
+// Re 6e6, 4°, within 10 % of Ladson's 80-grit value (0.00823 at 4.04°).
+// The tolerance is the issue's: the spread between Ladson's three grit
+// sizes near 4° is ± 4 % (testdata/validation/README.md) and an integral
+// boundary-layer method is good to a few percent on attached tripped
+// layers; the 0.04° between the angles moves Cd by far less.
+func TestSolveCoupledJSON(t *testing.T) {
+	code, out, stderr := runCLI(t, "solve", "--section", "naca:0012", "--alpha", "4", "--re", "6e6", "--trip-upper", "0.05", "--trip-lower", "0.05", "--format", "json")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var m map[string]any
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatalf("not JSON: %v\n%s", err, out)
+	}
+	keys := func(where string, m map[string]any) {
+		for _, k := range []string{"cl", "cd", "cm", "cl_inviscid", "iterations"} {
+			if _, ok := m[k].(float64); !ok {
+				t.Errorf("%s: %q is %v (%T), want a number", where, k, m[k], m[k])
+			}
+		}
+		if _, ok := m["converged"].(bool); !ok {
+			t.Errorf("%s: converged is %v (%T), want a boolean", where, m["converged"], m["converged"])
+		}
+		for _, k := range []string{"transition_upper", "transition_lower", "separation_upper", "separation_lower"} {
+			v, ok := m[k]
+			if _, num := v.(float64); !ok || !(num || v == nil) {
+				t.Errorf("%s: %q is %v (%T), want x/c or null", where, k, v, v)
+			}
+		}
+	}
+	keys("top level", m)
+	els, _ := m["elements"].([]any)
+	if len(els) != 1 {
+		t.Fatalf("%d elements, want 1", len(els))
+	}
+	keys("elements[0]", els[0].(map[string]any))
+	if m["converged"] != true {
+		t.Fatalf("not converged: %d iterations, residual %v", int(m["iterations"].(float64)), m["residual"])
+	}
+	a, want := ladsonCd(t, 4)
+	cd := m["cd"].(float64)
+	if d := cd/want - 1; math.Abs(d) > 0.10 {
+		t.Errorf("cd %.5f, Ladson %.5f at %.2f°: %+.1f %%, 10 %% allowed", cd, want, a, 100*d)
+	}
+	t.Logf("cd %.5f, Ladson %.5f at %.2f° (%+.1f %%); cl %.4f, inviscid %.4f", cd, want, a, 100*(cd/want-1), m["cl"], m["cl_inviscid"])
+	if tr := m["transition_upper"].(float64); !(tr > 0 && tr <= 0.05+1e-9) {
+		t.Errorf("upper transition at x/c %g, want at or ahead of the trip at 0.05", tr)
+	}
+}
+
+// A point that does not converge prints null numbers and converged false,
+// with its iterations; the text output says so and shows no numbers.
+func TestSolveNotConvergedIsNull(t *testing.T) {
+	coupledMaxIterations = 1
+	defer func() { coupledMaxIterations = 0 }()
+	args := []string{"solve", "--section", "naca:0012", "--alpha", "2", "--re", "6e6", "--trip-upper", "0.05", "--trip-lower", "0.05"}
+	code, out, stderr := runCLI(t, append(args, "--format", "json")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var m map[string]any
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatalf("not JSON: %v\n%s", err, out)
+	}
+	if m["converged"] != false {
+		t.Errorf("converged %v, want false", m["converged"])
+	}
+	if it, ok := m["iterations"].(float64); !ok || it < 1 {
+		t.Errorf("iterations %v, want the count made", m["iterations"])
+	}
+	for _, k := range []string{"cl", "cd", "cm", "transition_upper", "separation_upper"} {
+		if v, ok := m[k]; !ok || v != nil {
+			t.Errorf("%q is %v, want null", k, v)
+		}
+	}
+	if _, ok := m["cl_inviscid"].(float64); !ok {
+		t.Errorf("cl_inviscid %v, want the inviscid number beside the missing one", m["cl_inviscid"])
+	}
+	el := m["elements"].([]any)[0].(map[string]any)
+	if el["cl"] != nil || el["cd"] != nil || el["converged"] != false {
+		t.Errorf("element: cl %v, cd %v, converged %v; want null, null, false", el["cl"], el["cd"], el["converged"])
+	}
+	code, out, _ = runCLI(t, args...)
+	if code != exitOK || !strings.Contains(out, "NOT CONVERGED") || !strings.Contains(out, "Cl (viscous)                  —") {
+		t.Errorf("text output does not say the point did not converge or shows numbers:\n%s", out)
+	}
+}
+
+// The coupled sweep's JSON is an object with rows (each with the solve's
+// keys and alpha_deg), cl_max and alpha_cl_max; CSV and text show each
+// row's state.
+func TestSweepCoupledJSON(t *testing.T) {
+	args := []string{"sweep", "--section", "naca:0012", "--alpha", "0:4:2", "--re", "6e6", "--trip-upper", "0.05", "--trip-lower", "0.05"}
+	code, out, stderr := runCLI(t, append(args, "--format", "json")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var sw struct {
+		Rows       []map[string]any `json:"rows"`
+		ClMax      *float64         `json:"cl_max"`
+		AlphaClMax *float64         `json:"alpha_cl_max"`
+	}
+	if err := json.Unmarshal([]byte(out), &sw); err != nil {
+		t.Fatalf("not a JSON object: %v\n%s", err, out)
+	}
+	if len(sw.Rows) != 3 {
+		t.Fatalf("%d rows, want 3", len(sw.Rows))
+	}
+	for i, r := range sw.Rows {
+		for _, k := range []string{"alpha_deg", "cl", "cd", "cm", "cl_inviscid", "iterations"} {
+			if _, ok := r[k].(float64); !ok {
+				t.Errorf("row %d: %q is %v, want a number", i, k, r[k])
+			}
+		}
+		for _, k := range []string{"transition_upper", "transition_lower", "separation_upper", "separation_lower"} {
+			if _, ok := r[k]; !ok {
+				t.Errorf("row %d lacks %q", i, k)
+			}
+		}
+		if r["converged"] != true {
+			t.Errorf("row %d (α %v): converged %v", i, r["alpha_deg"], r["converged"])
+		}
+	}
+	if sw.ClMax == nil || sw.AlphaClMax == nil || *sw.AlphaClMax != 4 || *sw.ClMax != sw.Rows[2]["cl"] {
+		t.Errorf("cl_max %v at %v, want the 4° row's cl %v", sw.ClMax, sw.AlphaClMax, sw.Rows[2]["cl"])
+	}
+	for _, f := range []string{"csv", "text"} {
+		code, out, stderr := runCLI(t, append(args, "--format", f)...)
+		if code != exitOK {
+			t.Fatalf("%s: exit %d: %s", f, code, stderr)
+		}
+		if want := map[string]string{"csv": "converged", "text": "state"}[f]; !strings.Contains(out, want) || strings.Count(out, map[string]string{"csv": ",yes,", "text": "converged ("}[f]) != 3 {
+			t.Errorf("%s output lacks the state per row:\n%s", f, out)
+		}
+	}
+}
