@@ -51,8 +51,11 @@ type update struct {
 
 // scheduler runs engine requests on one worker goroutine, latest request
 // wins: a request submitted while another runs replaces any request still
-// waiting, and a result whose generation is no longer the latest is dropped
-// without being shown.
+// waiting and cancels the context of the one running, and a result whose
+// generation is no longer the latest is dropped without being shown. The
+// engine checks the context between its stages (placement, factorisation,
+// each angle of a sweep, the boundary layer), so a slider tick does not
+// wait behind a stale solve for longer than one stage.
 type scheduler struct {
 	eng     studyRunner
 	act     *activity
@@ -63,6 +66,7 @@ type scheduler struct {
 	gen     uint64
 	pending *update
 	busy    bool
+	cancel  context.CancelFunc // of the request running, nil when none
 }
 
 func newScheduler(eng studyRunner, act *activity, deliver func(update, *engineResult, error)) *scheduler {
@@ -86,6 +90,7 @@ func (s *scheduler) Submit(req engineRequest) uint64 {
 	defer s.mu.Unlock()
 	s.gen++
 	s.pending = &update{gen: s.gen, req: req}
+	s.cancelRunning()
 	if !s.busy {
 		s.busy = true
 		s.act.add()
@@ -106,7 +111,17 @@ func (s *scheduler) Invalidate() {
 	s.mu.Lock()
 	s.gen++
 	s.pending = nil
+	s.cancelRunning()
 	s.mu.Unlock()
+}
+
+// cancelRunning cancels the request running, which has just become stale.
+// s.mu must be held.
+func (s *scheduler) cancelRunning() {
+	if s.cancel != nil {
+		s.cancel()
+		s.cancel = nil
+	}
 }
 
 func (s *scheduler) loop() {
@@ -121,8 +136,14 @@ func (s *scheduler) loop() {
 			s.mu.Unlock()
 			return
 		}
+		ctx, cancel := context.WithCancel(context.Background())
+		s.cancel = cancel
 		s.mu.Unlock()
-		res, err := safeRun(s.eng, context.Background(), u.req)
+		res, err := safeRun(s.eng, ctx, u.req)
+		s.mu.Lock()
+		s.cancel = nil
+		s.mu.Unlock()
+		cancel()
 		if u.gen != s.Latest() {
 			continue // stale: a newer request is waiting or the study changed
 		}

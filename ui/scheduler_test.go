@@ -76,3 +76,58 @@ func TestSchedulerRecoversPanic(t *testing.T) {
 		t.Fatal("a panicking engine gave no error")
 	}
 }
+
+// ctxEngine blocks each Run until its context is cancelled or the gate
+// opens, and reports which happened.
+type ctxEngine struct {
+	started   chan struct{}
+	gate      chan struct{}
+	cancelled chan float64
+}
+
+func (g *ctxEngine) Run(ctx context.Context, req engineRequest) (*engineResult, error) {
+	g.started <- struct{}{}
+	select {
+	case <-ctx.Done():
+		g.cancelled <- req.Study.Flow.AlphaDeg
+		return nil, ctx.Err()
+	case <-g.gate:
+		return &engineResult{}, nil
+	}
+}
+
+// A newer request cancels the context of the solve running, so the worker
+// moves on to it instead of finishing a stale factorisation; so does
+// Invalidate.
+func TestSchedulerCancelsStaleSolve(t *testing.T) {
+	g := &ctxEngine{started: make(chan struct{}, 10), gate: make(chan struct{}), cancelled: make(chan float64, 10)}
+	act := newActivity()
+	var shown []uint64
+	s := newScheduler(g, act, func(u update, _ *engineResult, err error) {
+		if err != nil {
+			t.Errorf("delivered error %v", err)
+		}
+		shown = append(shown, u.gen)
+	})
+	s.Submit(alphaReq(1))
+	<-g.started
+	last := s.Submit(alphaReq(2))
+	if a := <-g.cancelled; a != 1 {
+		t.Errorf("cancelled the solve at %g°, want the stale one at 1°", a)
+	}
+	<-g.started // the newest request runs
+	close(g.gate)
+	act.wait()
+	if len(shown) != 1 || shown[0] != last {
+		t.Errorf("shown generations %v, want only %d", shown, last)
+	}
+
+	g.gate = make(chan struct{})
+	s.Submit(alphaReq(3))
+	<-g.started
+	s.Invalidate()
+	if a := <-g.cancelled; a != 3 {
+		t.Errorf("Invalidate cancelled %g°, want 3°", a)
+	}
+	act.wait()
+}

@@ -115,8 +115,12 @@ func geometryKey(st *model.Study) string {
 }
 
 // Run solves the study at its angle of attack and, as asked, its sweep and
-// streamlines, the boundary-layer estimate and the forces. It returns
-// ctx.Err() if cancelled between solves.
+// streamlines, the boundary-layer estimate and the forces. The context is
+// checked between the stages (after placement, after the factorisation,
+// at each angle of a sweep, and by the coupled solution): a cancelled run
+// returns ctx.Err() within one stage. The factorisation itself is not
+// interrupted (solver.NewSystem takes no context). A run cancelled
+// part-way leaves the engine's cache consistent.
 func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 	start := time.Now()
 	st := req.Study
@@ -134,9 +138,17 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 	}
 	l := e.layout
 	res := &Result{Layout: l}
+	// A superseded run stops between stages; the factorisation itself
+	// takes no context (solver.NewSystem).
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
 
 	sol, cfg, sys, err := e.solveAt(st.Flow.AlphaDeg)
 	if err != nil {
+		return nil, err
+	}
+	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
 	if err := checkFinite(sol); err != nil {

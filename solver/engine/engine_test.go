@@ -265,3 +265,18 @@ func TestEngineSeparationThreshold(t *testing.T) {
 		t.Errorf("separation at x/c %g with H = 2.0 and %g with H = 3.0: want it later with the larger threshold", strict, lax)
 	}
 }
+
+// A cancelled context stops a run before its factorisation, and the
+// engine still answers the next run (its cache stays consistent).
+func TestEngineCancelledRun(t *testing.T) {
+	st, secs := engineStudy(t, "4412")
+	e := NewEngine()
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if _, err := e.Run(ctx, Request{Study: st, Sections: secs}); !errors.Is(err, context.Canceled) {
+		t.Fatalf("cancelled run: %v, want context.Canceled", err)
+	}
+	if r := run(t, e, st, secs, false); r.Solution == nil {
+		t.Fatal("no solution after a cancelled run")
+	}
+}
