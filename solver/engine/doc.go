@@ -3,7 +3,10 @@
 // the configuration (model.Place), builds and factorises the panel system
 // (solver.NewSystem), keeping the factorisation while only the angle of
 // attack changes in free air, solves the study's angle and, as asked, its
-// sweep and streamlines, and adds the boundary-layer estimate, each
+// sweep and streamlines, and adds the viscous solution (the coupled
+// solution of solver.SolveCoupled, with its convergence state on every
+// point and warm starts along a sweep, or the one-way boundary-layer
+// estimate), each
 // element's Reynolds number and the forces in newtons per metre of span
 // from the study's air (model.Air). Engine.Density and DensityStudy run a
 // density study: the same study at several panel counts, judged by
@@ -30,5 +33,8 @@
 // of the density options; geometry and solver failures are returned as
 // they come (*model.GeometryError, *solver.GeometryError,
 // *solver.SingularError); a solution that is not finite wraps
-// ErrNonFiniteResult. Cancellation returns ctx.Err().
+// ErrNonFiniteResult. Cancellation returns ctx.Err(). A coupled viscous
+// point that did not converge is not an error: it is a CoupledPoint with
+// Converged false and NaN coefficients; one the solver gave up on with an
+// error (a wake it cannot trace) carries the reason in Note.
 package engine
