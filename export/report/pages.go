@@ -135,9 +135,12 @@ func ground(st *model.Study) string {
 }
 
 func trips(st *model.Study) string {
-	s := "on, free transition"
+	s := "on (one-way estimate), free transition"
+	if st.Viscous.IsCoupled() {
+		s = fmt.Sprintf("on (coupled viscous solution, critical N %s), free transition", num(st.Viscous.CriticalN(), 1))
+	}
 	if st.Viscous.TripUpper > 0 || st.Viscous.TripLower > 0 {
-		s = fmt.Sprintf("on, trips at x/c %s (upper), %s (lower)", XC(st.Viscous.TripUpper), XC(st.Viscous.TripLower))
+		s = strings.TrimSuffix(s, "free transition") + fmt.Sprintf("trips at x/c %s (upper), %s (lower)", XC(st.Viscous.TripUpper), XC(st.Viscous.TripLower))
 	}
 	return s
 }
@@ -167,15 +170,22 @@ func (r *writer) resultsSection() {
 	if v := res.Viscous; v != nil {
 		kv = append(kv, [2]string{"Cd, boundary-layer estimate (Squire–Young)", Coef(v.Cd)})
 	}
+	if c := r.in.Coupled; c != nil {
+		kv = append(kv, [2]string{"Cl, viscous solution (coupled)", Coef(c.Cl)}, [2]string{"Cd, viscous solution (coupled)", Coef(c.Cd)})
+	}
 	if f := res.Forces; f != nil {
+		from := " (inviscid)"
+		if f.Coupled {
+			from = " (viscous solution; n/a when it did not converge)"
+		}
 		kv = append(kv,
 			[2]string{"Dynamic pressure q", num(f.DynamicPressurePa, 1) + " Pa"},
-			[2]string{"Lift per metre of span (positive up)", num(f.LiftPerSpan, 1) + " N/m"},
-			[2]string{"Downforce per metre of span (= −lift)", num(f.DownforcePerSpan, 1) + " N/m"},
-			[2]string{"Pitching moment per metre of span", num(f.MomentPerSpan, 2) + " N·m/m"},
+			[2]string{"Lift per metre of span (positive up)" + from, num(f.LiftPerSpan, 1) + " N/m"},
+			[2]string{"Downforce per metre of span (= −lift)" + from, num(f.DownforcePerSpan, 1) + " N/m"},
+			[2]string{"Pitching moment per metre of span" + from, num(f.MomentPerSpan, 2) + " N·m/m"},
 		)
 		if !math.IsNaN(f.DragPerSpan) {
-			kv = append(kv, [2]string{"Drag per metre of span (estimate)", num(f.DragPerSpan, 2) + " N/m"})
+			kv = append(kv, [2]string{"Drag per metre of span" + map[bool]string{true: " (viscous solution)", false: " (estimate)"}[f.Coupled], num(f.DragPerSpan, 2) + " N/m"})
 		}
 		if f.SpanM > 0 {
 			kv = append(kv, [2]string{fmt.Sprintf("Downforce over a %s m span (2-D, no end effects)", num(f.SpanM, 3)), num(f.DownforcePerSpan*f.SpanM, 1) + " N"})
@@ -208,6 +218,22 @@ func (r *writer) resultsSection() {
 		}
 		r.table([]string{"Element", "Cd", "Transition x/c, upper / lower", "Separation x/c, upper / lower", "Estimate"},
 			[]float64{1, 0.8, 1.6, 1.6, 1.2}, []string{"L", "R", "R", "R", "L"}, rows)
+	}
+	if c := r.in.Coupled; c != nil {
+		r.need(tableHeight(len(c.Elements)) + 15)
+		r.subheading("Viscous solution (coupled)")
+		state := fmt.Sprintf("Converged in %d iterations: Cl %s, Cd %s on the reference chord (inviscid Cl %s beside it).", c.Iterations, Coef(c.Cl), Coef(c.Cd), Coef(res.Solution.Cl))
+		if !c.Converged {
+			state = fmt.Sprintf("Did not converge (%d iterations): no viscous numbers at this angle; the inviscid ones above are for orientation only.", c.Iterations)
+		}
+		r.para(state)
+		var rows [][]string
+		for _, e := range c.Elements {
+			rows = append(rows, []string{e.Name, Coef(e.Cd), XC(e.TransitionUpperXC) + " / " + XC(e.TransitionLowerXC), XC(e.SeparationUpperXC) + " / " + XC(e.SeparationLowerXC)})
+		}
+		r.table([]string{"Element", "Cd", "Transition x/c, upper / lower", "Separation x/c, upper / lower"},
+			[]float64{1.4, 0.8, 1.6, 1.6}, []string{"L", "R", "R", "R"}, rows)
+		r.small("x/c on each element's own chord, on its surfaces as mounted; n/a: none (no transition or no separation before the trailing edge) or not converged.")
 	}
 	var notes []string // the solver's and boundary layer's own notes are under Warnings
 	if st.Ground.Enabled || len(sol.Elements) > 1 {
@@ -271,6 +297,12 @@ func (r *writer) sweepPage() {
 		widths = append(widths, 0.8, 1.6)
 		align = append(align, "R", "R")
 	}
+	coupled := len(res.SweepCoupled) == len(res.Sweep)
+	if coupled {
+		head = append(head, "Cl (viscous)", "Cd (viscous)")
+		widths = append(widths, 0.9, 0.8)
+		align = append(align, "R", "R")
+	}
 	head = append(head, "Marks")
 	widths = append(widths, 0.9)
 	align = append(align, "L")
@@ -282,6 +314,10 @@ func (r *writer) sweepPage() {
 		if vis {
 			v := res.SweepViscous[i]
 			row = append(row, Coef(v.Cd), XC(v.TransitionUpper)+" / "+XC(v.TransitionLower))
+		}
+		if coupled {
+			p := res.SweepCoupled[i]
+			row = append(row, Coef(p.Cl), Coef(p.Cd))
 		}
 		var marks []string
 		for _, f := range r.sweepFlags(i) {

@@ -129,6 +129,9 @@ func Write(w io.Writer, in Input) error {
 	if in.Author == "" {
 		in.Author = in.Study.Team
 	}
+	if in.Coupled == nil {
+		in.Coupled = CoupledFrom(in.Study, in.Result)
+	}
 	r := &writer{in: in, pdf: fpdf.New("P", "mm", size, "")}
 	r.setup()
 	r.summaryPage()

@@ -19,12 +19,17 @@ import (
 type Coupled struct {
 	Converged  bool
 	Iterations int
+	Cl         float64 // configuration, standard sense (positive up); NaN unless converged
 	Cd         float64 // configuration, on the reference chord
 	// ClMax is the largest lift coefficient of the sweep in the sense that
 	// loads the wing (−Cl, downforce, for an inverted study) and
 	// AlphaClMaxDeg its angle; NaN when the sweep found no maximum.
 	ClMax, AlphaClMaxDeg float64
-	Elements             []CoupledElement
+	// ClMaxIsPeak is true when lift falls after ClMax inside the sweep;
+	// false when the sweep ends before it does (ClMax is then a lower
+	// bound).
+	ClMaxIsPeak bool
+	Elements    []CoupledElement
 	// PastClMax, NotConverged and Separated are per sweep angle (parallel
 	// to Result.Sweep), nil when not known.
 	PastClMax, NotConverged, Separated []bool
@@ -36,6 +41,30 @@ type CoupledElement struct {
 	Cd                                   float64
 	TransitionUpperXC, TransitionLowerXC float64
 	SeparationUpperXC, SeparationLowerXC float64
+}
+
+// CoupledFrom takes the coupled viscous solution of an engine result into
+// the report's terms: nil when it did not run. The engine's Cl max is in
+// the standard sense; the report's is in the sense that loads the wing.
+func CoupledFrom(st *model.Study, res *engine.Result) *Coupled {
+	cp := res.Coupled
+	if cp == nil {
+		return nil
+	}
+	c := &Coupled{Converged: cp.Converged, Iterations: cp.Iterations, Cl: cp.Cl, Cd: cp.Cd,
+		ClMax: loadSign(st) * res.ClMax, AlphaClMaxDeg: res.AlphaClMax, ClMaxIsPeak: res.ClMaxIsPeak}
+	for _, e := range cp.Elements {
+		c.Elements = append(c.Elements, CoupledElement{Name: e.Name, Cd: e.Cd,
+			TransitionUpperXC: e.TransitionUpper, TransitionLowerXC: e.TransitionLower,
+			SeparationUpperXC: e.SeparationUpper, SeparationLowerXC: e.SeparationLower})
+	}
+	if n := len(res.Sweep); n > 0 && len(res.SweepCoupled) == n {
+		c.PastClMax, c.NotConverged = make([]bool, n), make([]bool, n)
+		for i, p := range res.SweepCoupled {
+			c.PastClMax[i], c.NotConverged[i] = p.PastClMax, !p.Converged
+		}
+	}
+	return c
 }
 
 // headline is page 1's set of numbers, computed once so that the tests can
@@ -65,7 +94,11 @@ func loadSign(st *model.Study) float64 {
 func (r *writer) headline() headline {
 	st, res := r.in.Study, r.in.Result
 	s := loadSign(st)
-	h := headline{LoadName: "Lift", LoadCoef: s * res.Solution.Cl, LoadN: math.NaN(), LoadPerSpan: math.NaN(),
+	cl := res.Solution.Cl
+	if c := r.in.Coupled; c != nil {
+		cl = c.Cl // NaN when it did not converge: no answer
+	}
+	h := headline{LoadName: "Lift", LoadCoef: s * cl, LoadN: math.NaN(), LoadPerSpan: math.NaN(),
 		DragN: math.NaN(), DragPerSpan: math.NaN(), LiftToDrag: math.NaN(), ClMaxMargin: math.NaN(), AlphaMargin: math.NaN()}
 	if st.Inverted {
 		h.LoadName = "Downforce"
@@ -82,7 +115,7 @@ func (r *writer) headline() headline {
 	}
 	switch {
 	case r.in.Coupled != nil && !math.IsNaN(r.in.Coupled.Cd):
-		h.DragSource = "coupled viscous solution"
+		h.DragSource = "viscous solution (coupled)"
 		h.DragPerSpan = q * res.Layout.RefChordM * r.in.Coupled.Cd
 		if f := res.Forces; f != nil && f.SpanM > 0 {
 			h.DragN = h.DragPerSpan * f.SpanM
@@ -93,7 +126,7 @@ func (r *writer) headline() headline {
 	if h.DragPerSpan > 0 {
 		h.LiftToDrag = h.LoadPerSpan / h.DragPerSpan
 	}
-	if c := r.in.Coupled; c != nil && !math.IsNaN(c.ClMax) {
+	if c := r.in.Coupled; c != nil && !math.IsNaN(c.ClMax) && !math.IsNaN(h.LoadCoef) {
 		h.ClMaxMargin = c.ClMax - h.LoadCoef
 		h.AlphaMargin = c.AlphaClMaxDeg - st.Flow.AlphaDeg
 	}
@@ -136,6 +169,8 @@ func (r *writer) summaryPage() {
 	kv := [][2]string{{h.LoadName, r.loadText(h)}}
 	drag := "not estimated: the boundary layer is off"
 	switch {
+	case r.in.Coupled != nil && !r.in.Coupled.Converged:
+		drag = "no answer: the viscous solution did not converge"
 	case !math.IsNaN(h.DragPerSpan) && !math.IsNaN(h.DragN):
 		drag = fmt.Sprintf("%s (%s N/m), %s", newtons(h.DragN), num(h.DragPerSpan, 2), h.DragSource)
 	case !math.IsNaN(h.DragPerSpan):
@@ -152,6 +187,11 @@ func (r *writer) summaryPage() {
 	margin := "not known: maximum lift needs the coupled viscous solution, which has not run; potential flow never stalls"
 	if !math.IsNaN(h.ClMaxMargin) {
 		margin = fmt.Sprintf("%s in the coefficient (%s of %s at Cl max), %s° in angle of attack", Coef(h.ClMaxMargin), Coef(h.LoadCoef), Coef(r.in.Coupled.ClMax), num(h.AlphaMargin, 1))
+		if !r.in.Coupled.ClMaxIsPeak {
+			margin = "at least " + margin + ": the sweep ends before lift falls, so the real maximum lies beyond it"
+		}
+	} else if c := r.in.Coupled; c != nil && math.IsNaN(c.ClMax) {
+		margin = "not known: no angle of the sweep converged (or no sweep ran)"
 	}
 	kv = append(kv, [2]string{"Margin to maximum lift", margin})
 	r.box("Conditions", speed+".", [3]int{232, 239, 248})
@@ -175,6 +215,13 @@ func (r *writer) summaryPage() {
 
 func (r *writer) loadText(h headline) string {
 	res := r.in.Result
+	if math.IsNaN(h.LoadCoef) {
+		s := "no answer: the viscous solution did not converge"
+		if f := res.Forces; f != nil {
+			s += fmt.Sprintf(" (inviscid, for orientation only: %s N/m)", num(loadSign(r.in.Study)*f.InviscidLiftPerSpan, 1))
+		}
+		return s
+	}
 	if res.Forces == nil {
 		return fmt.Sprintf("coefficient %s (no speed given, so no force)", Coef(h.LoadCoef))
 	}

@@ -48,7 +48,7 @@ func TestSummaryNumbers(t *testing.T) {
 	if h0.LoadName != "Downforce" || h0.LoadCoef != -res.Solution.Cl || !math.IsNaN(h0.DragN) || !math.IsNaN(h0.ClMaxMargin) {
 		t.Errorf("inviscid headline %+v", h0)
 	}
-	coupled := &Coupled{Converged: true, Iterations: 12, Cd: 0.031, ClMax: -res.Solution.Cl + 0.42, AlphaClMaxDeg: st.Flow.AlphaDeg + 3.5}
+	coupled := &Coupled{Converged: true, Iterations: 12, Cl: res.Solution.Cl, Cd: 0.031, ClMaxIsPeak: true, ClMax: -res.Solution.Cl + 0.42, AlphaClMaxDeg: st.Flow.AlphaDeg + 3.5}
 	in := Input{Study: st, Result: res, Coupled: coupled, Date: time.Date(2026, 3, 14, 0, 0, 0, 0, time.UTC)}
 	h := (&writer{in: in}).headline()
 	drag := f.DynamicPressurePa * res.Layout.RefChordM * coupled.Cd * f.SpanM
@@ -240,6 +240,49 @@ func TestSweepMarksFromCoupled(t *testing.T) {
 	for _, s := range []string{"(2) past maximum lift", "(3) viscous solution not converged"} {
 		if !strings.Contains(text, s) {
 			t.Errorf("report lacks the footnote %q", s)
+		}
+	}
+}
+
+// With the engine's coupled viscous solution the summary takes its
+// numbers: the lift and drag in N are the engine's viscous forces, the
+// margin to maximum lift the engine's Cl max less the viscous Cl.
+func TestSummaryFromCoupledEngine(t *testing.T) {
+	st := model.NewStudy()
+	st.Name = "NACA 4412, coupled (invented example)"
+	st.Panelling.Panels = 120
+	st.Flow.SpeedMPS, st.Flow.SpanM = 25, 1
+	st.Viscous.Enabled, st.Viscous.Mode = true, model.ViscousCoupled
+	st.Sweep = model.SweepRange{FromDeg: 0, ToDeg: 8, StepDeg: 4}
+	res := solve(t, st)
+	if res.Coupled == nil || !res.Coupled.Converged {
+		t.Skip("the coupled solution did not converge here; the hook is tested with hand-made values in TestSummaryNumbers")
+	}
+	in := Input{Study: st, Result: res}
+	in.Coupled = CoupledFrom(st, res)
+	h := (&writer{in: in}).headline()
+	f := res.Forces
+	for _, c := range []struct {
+		name      string
+		got, want float64
+	}{
+		{"lift, N", h.LoadN, f.LiftPerSpan * f.SpanM},
+		{"drag, N", h.DragN, f.DragPerSpan * f.SpanM},
+		{"coefficient", h.LoadCoef, res.Coupled.Cl},
+	} {
+		if math.Abs(c.got-c.want) > 1e-9*math.Max(1, math.Abs(c.want)) {
+			t.Errorf("%s = %g, want the engine's %g", c.name, c.got, c.want)
+		}
+	}
+	if !math.IsNaN(res.ClMax) {
+		if want := res.ClMax - res.Coupled.Cl; math.Abs(h.ClMaxMargin-want) > 1e-12 {
+			t.Errorf("margin %g, want %g", h.ClMaxMargin, want)
+		}
+	}
+	text := pdfText(t, in)
+	for _, w := range []string{"Viscous solution (coupled)", newtons(h.LoadN), "viscous solution (coupled)"} {
+		if !strings.Contains(text, w) {
+			t.Errorf("report lacks %q", w)
 		}
 	}
 }
