@@ -236,13 +236,16 @@ func (e *Engine) coupledSweep(ctx context.Context, alphas []float64, opt solver.
 	rows := make([]CoupledPoint, len(alphas))
 	order := sweepOrder(alphas)
 	var start, warm *solver.CoupledSolution
+	from, startIdx := -1, -1   // the row warm came from
+	tried := map[[2]int]bool{} // row, neighbour it was started from
 	for n, i := range order {
 		if err := ctx.Err(); err != nil {
 			return nil, err
 		}
 		if n > 0 && i == order[0]-1 {
-			warm = start // turning round: downwards from the start
+			warm, from = start, startIdx // turning round: downwards from the start
 		}
+		tried[[2]int{i, from}] = true
 		a := alphas[i]
 		var sys *solver.System
 		var fs float64
@@ -260,9 +263,9 @@ func (e *Engine) coupledSweep(ctx context.Context, alphas []float64, opt solver.
 			return nil, err
 		}
 		if p.Converged && !e.layout.Ground {
-			warm = p.last
+			warm, from = p.last, i
 			if n == 0 {
-				start = p.last
+				start, startIdx = p.last, i
 			}
 		}
 		rows[i] = p
@@ -273,34 +276,31 @@ func (e *Engine) coupledSweep(ctx context.Context, alphas []float64, opt solver.
 	if e.layout.Ground {
 		return rows, nil
 	}
-	// A second chance for a row that did not converge from the side it
-	// was reached from: once from its converged neighbour on the other
-	// side (a row beyond a stall, say, that its lower neighbour could not
-	// reach but its upper one can).
-	i0 := order[0]
-	for i := range rows {
-		if rows[i].Converged || rows[i].Note != "" {
-			continue
-		}
-		far := []int{i + 1, i - 1}
-		switch {
-		case i > i0:
-			far = far[:1]
-		case i < i0:
-			far = far[1:]
-		}
-		for _, j := range far {
-			if j < 0 || j >= len(rows) || !rows[j].Converged {
+	// More chances for a row that did not converge: from each converged
+	// neighbour it was not started from (a row beyond a stall, say, that
+	// its lower neighbour could not reach but its upper one can), again
+	// while that makes new rows converge. Each row is tried at most once
+	// from each neighbour.
+	for changed := true; changed; {
+		changed = false
+		for i := range rows {
+			if rows[i].Converged || rows[i].Note != "" {
 				continue
 			}
-			_, _, fs := e.layout.At(alphas[i])
-			p, err := solveCoupled(ctx, e.sys, alphas[i], fs, opt, rows[j].last, names)
-			if err != nil {
-				return nil, err
-			}
-			if p.Converged {
-				rows[i] = p
-				break
+			for _, j := range []int{i + 1, i - 1} {
+				if j < 0 || j >= len(rows) || !rows[j].Converged || tried[[2]int{i, j}] {
+					continue
+				}
+				tried[[2]int{i, j}] = true
+				_, _, fs := e.layout.At(alphas[i])
+				p, err := solveCoupled(ctx, e.sys, alphas[i], fs, opt, rows[j].last, names)
+				if err != nil {
+					return nil, err
+				}
+				if p.Converged {
+					rows[i], changed = p, true
+					break
+				}
 			}
 		}
 	}
