@@ -174,3 +174,51 @@ func TestSweepCoupledJSON(t *testing.T) {
 		}
 	}
 }
+
+// --study works as before: a study that selects the coupled solution gets
+// it, one saved without viscous.mode keeps the one-way estimate, and the
+// flags override the study's trips.
+func TestSolveStudyViscousMode(t *testing.T) {
+	dir := t.TempDir()
+	const doc = `{"format": "sectionbench-study", "version": 2, "name": "tripped NACA 0012 (invented study)",
+ "elements": [{"name": "main", "section": "naca:0012", "chord_mm": 1000}],
+ "panelling": {"panels": 160, "spacing": "cosine", "nose": 0.5, "tail": 0.2},
+ "flow": {"alpha_deg": 4, "reynolds": 6e6}, "sweep": {"from_deg": 0, "to_deg": 4, "step_deg": 2},
+ "viscous": {"enabled": true, "trip_upper": 0.05, "trip_lower": 0.05%s}, "pins": []}`
+	for _, tc := range []struct {
+		name, extra string
+		flags       []string
+		mode        string
+	}{
+		{"coupled", `, "mode": "coupled"`, nil, "coupled"},
+		{"saved before the coupled solution", ``, nil, "estimate"},
+		{"mode from the command line", ``, []string{"--viscous-mode", "coupled", "--trip-upper", "0.1"}, "coupled"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			path := filepath.Join(dir, "study.json")
+			if err := os.WriteFile(path, []byte(strings.Replace(doc, "%s", tc.extra, 1)), 0o644); err != nil {
+				t.Fatal(err)
+			}
+			code, out, stderr := runCLI(t, append([]string{"solve", "--study", path, "--format", "json"}, tc.flags...)...)
+			if code != exitOK {
+				t.Fatalf("exit %d: %s", code, stderr)
+			}
+			var m map[string]any
+			if err := json.Unmarshal([]byte(out), &m); err != nil {
+				t.Fatal(err)
+			}
+			if m["viscous_mode"] != tc.mode {
+				t.Errorf("viscous_mode %v, want %s", m["viscous_mode"], tc.mode)
+			}
+			_, hasState := m["converged"]
+			if hasState != (tc.mode == "coupled") {
+				t.Errorf("converged key present %v in %s mode", hasState, tc.mode)
+			}
+			if tc.flags != nil {
+				if tr, _ := m["transition_upper"].(float64); !(tr > 0.05 && tr <= 0.1+1e-9) {
+					t.Errorf("upper transition at %v with the trip moved to 0.1 by the flag", m["transition_upper"])
+				}
+			}
+		})
+	}
+}
