@@ -164,6 +164,9 @@ func (st *Study) Validate() error {
 	if st.Format != StudyFormat {
 		return &FieldError{Field: "format", Err: ErrStudyFormat}
 	}
+	if err := st.checkLimits(); err != nil {
+		return err
+	}
 	if n := len(st.Elements); n < 1 || n > MaxElements {
 		return &FieldError{Field: "elements", Err: fmt.Errorf("%d elements; a study holds 1 to %d", n, MaxElements)}
 	}
