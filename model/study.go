@@ -99,7 +99,7 @@ func (s *SectionSource) UnmarshalJSON(b []byte) error {
 	dec := json.NewDecoder(bytes.NewReader(b))
 	dec.DisallowUnknownFields()
 	if err := dec.Decode(&e); err != nil {
-		return fmt.Errorf("section must be a spec string or {\"name\", \"points\"}: %w", err)
+		return &sectionSourceError{err}
 	}
 	*s = SectionSource{Embedded: &e}
 	return nil

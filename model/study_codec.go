@@ -6,6 +6,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"reflect"
 	"strings"
 )
 
@@ -88,6 +89,9 @@ func (st *Study) Encode() ([]byte, error) {
 // half-loaded study: on error the result is nil. Unknown fields, wrong types
 // and out-of-range values are reported with their field path.
 func DecodeStudy(b []byte) (*Study, error) {
+	// A UTF-8 byte-order mark, as some editors write, is not part of the
+	// JSON (the coordinate loader accepts it too).
+	b = bytes.TrimPrefix(b, []byte("\ufeff"))
 	if len(b) > MaxStudyBytes {
 		return nil, fmt.Errorf("study is %d bytes, more than the %d a study may have: %w", len(b), MaxStudyBytes, ErrStudyFormat)
 	}
@@ -110,6 +114,10 @@ func DecodeStudy(b []byte) (*Study, error) {
 	dec := json.NewDecoder(bytes.NewReader(b))
 	dec.DisallowUnknownFields()
 	if err := dec.Decode(st); err != nil {
+		var se *sectionSourceError
+		if errors.As(err, &se) {
+			return nil, sectionFieldError(b, se)
+		}
 		return nil, jsonFieldError(b, err)
 	}
 	if dec.More() {
@@ -137,15 +145,20 @@ func migrate(st *Study) {
 }
 
 // jsonFieldError turns an encoding/json error into a FieldError where the
-// field is known, otherwise into an error naming the line.
+// field is known (its path with element indexes, found from the error's
+// offset), otherwise into an error naming the line. Messages name JSON
+// kinds in words, never Go types.
 func jsonFieldError(b []byte, err error) error {
 	var te *json.UnmarshalTypeError
 	if errors.As(err, &te) {
-		f := te.Field
+		f := jsonPathAt(b, te.Offset)
 		if f == "" {
-			f = "(top level)"
+			f = te.Field
 		}
-		return &FieldError{Field: f, Err: fmt.Errorf("%s is not a valid %s", te.Value, te.Type)}
+		if f == "" {
+			f = "(the whole file)"
+		}
+		return &FieldError{Field: f, Err: fmt.Errorf("%s where %s is wanted", jsonKind(te.Value), goKind(te.Type))}
 	}
 	var se *json.SyntaxError
 	if errors.As(err, &se) {
@@ -153,9 +166,176 @@ func jsonFieldError(b []byte, err error) error {
 		return fmt.Errorf("study: line %d: %v", line, se)
 	}
 	if msg := err.Error(); strings.HasPrefix(msg, "json: unknown field ") {
-		return &FieldError{Field: strings.Trim(strings.TrimPrefix(msg, "json: unknown field "), `"`), Err: errors.New("unknown field")}
+		name := strings.Trim(strings.TrimPrefix(msg, "json: unknown field "), `"`)
+		f := jsonPathOfKey(b, name)
+		if f == "" {
+			f = name
+		}
+		return &FieldError{Field: f, Err: errors.New("unknown field")}
 	}
 	return fmt.Errorf("study: %w", err)
+}
+
+// sectionSourceError is a section that is neither a spec string nor an
+// embedded {"name", "points"} object.
+type sectionSourceError struct{ err error }
+
+func (e *sectionSourceError) Error() string {
+	return "must be a section spec (text such as \"naca:4412\") or {\"name\", \"points\"}"
+}
+
+func (e *sectionSourceError) Unwrap() error { return e.err }
+
+// sectionFieldError names the element whose section could not be read
+// (encoding/json reports a custom decoder's error without its place).
+func sectionFieldError(b []byte, se *sectionSourceError) error {
+	var doc struct {
+		Elements []struct {
+			Section json.RawMessage `json:"section"`
+		} `json:"elements"`
+	}
+	field := "elements[].section"
+	if json.Unmarshal(b, &doc) == nil {
+		for i, e := range doc.Elements {
+			var src SectionSource
+			if src.UnmarshalJSON(e.Section) != nil {
+				field = fmt.Sprintf("elements[%d].section", i)
+				break
+			}
+		}
+	}
+	what := se.Error()
+	var te *json.UnmarshalTypeError
+	if errors.As(se.err, &te) && te.Field == "" {
+		what = fmt.Sprintf("%s; a section is %s", jsonKind(te.Value), strings.TrimPrefix(what, "must be "))
+	} else if errors.As(se.err, &te) {
+		what = fmt.Sprintf("%s: %s where %s is wanted", te.Field, jsonKind(te.Value), goKind(te.Type))
+	} else if msg := se.err.Error(); strings.HasPrefix(msg, "json: unknown field ") {
+		what = strings.TrimPrefix(msg, "json: ") + "; " + what
+	}
+	return &FieldError{Field: field, Err: errors.New(what)}
+}
+
+// jsonKind names a JSON value kind as encoding/json reports it.
+func jsonKind(v string) string {
+	switch {
+	case v == "string":
+		return "text"
+	case v == "number" || strings.HasPrefix(v, "number "):
+		return "a number"
+	case v == "bool":
+		return "true or false"
+	case v == "array":
+		return "a list"
+	case v == "object":
+		return "an object"
+	}
+	return v
+}
+
+// goKind names what a Go type holds in JSON words.
+func goKind(t reflect.Type) string {
+	if t == nil {
+		return "another kind of value"
+	}
+	switch t.Kind() {
+	case reflect.String:
+		return "text"
+	case reflect.Bool:
+		return "true or false"
+	case reflect.Int, reflect.Int8, reflect.Int16, reflect.Int32, reflect.Int64, reflect.Uint, reflect.Uint8, reflect.Uint16, reflect.Uint32, reflect.Uint64:
+		return "a whole number"
+	case reflect.Float32, reflect.Float64:
+		return "a number"
+	case reflect.Slice, reflect.Array:
+		return "a list"
+	case reflect.Struct, reflect.Map, reflect.Pointer:
+		return "an object"
+	}
+	return "another kind of value"
+}
+
+// jsonPathAt returns the path (elements[1].chord_mm) of the value of b
+// that ends at or after offset, "" if none: encoding/json gives a wrong
+// type's offset but drops the indexes from its field path.
+func jsonPathAt(b []byte, offset int64) string {
+	return jsonWalk(b, func(key string, end int64) bool { return key == "" && end >= offset })
+}
+
+// jsonPathOfKey returns the path of the first member named key, "" if
+// none: encoding/json names an unknown field without its place.
+func jsonPathOfKey(b []byte, key string) string {
+	return jsonWalk(b, func(k string, _ int64) bool { return k == key })
+}
+
+// jsonWalk walks b's tokens keeping the path, and returns the path at
+// the first point where stop says so: called with each member name (and
+// the offset after it), and with "" at the end of each value.
+func jsonWalk(b []byte, stop func(key string, end int64) bool) string {
+	type frame struct {
+		array    bool
+		index    int
+		key      string
+		wantsKey bool
+	}
+	var stack []frame
+	path := func() string {
+		var sb strings.Builder
+		for _, f := range stack {
+			if f.array {
+				fmt.Fprintf(&sb, "[%d]", f.index)
+			} else if f.key != "" {
+				if sb.Len() > 0 {
+					sb.WriteByte('.')
+				}
+				sb.WriteString(f.key)
+			}
+		}
+		return sb.String()
+	}
+	dec := json.NewDecoder(bytes.NewReader(b))
+	dec.UseNumber()
+	for {
+		tok, err := dec.Token()
+		if err != nil {
+			return ""
+		}
+		top := len(stack) - 1
+		if d, ok := tok.(json.Delim); ok && (d == '}' || d == ']') {
+			stack = stack[:top]
+			if len(stack) > 0 && stop("", dec.InputOffset()) {
+				return path()
+			}
+			if top > 0 && !stack[top-1].array {
+				stack[top-1].wantsKey = true
+			}
+			continue
+		}
+		if top >= 0 && !stack[top].array && stack[top].wantsKey {
+			stack[top].key, _ = tok.(string)
+			stack[top].wantsKey = false
+			if stop(stack[top].key, dec.InputOffset()) {
+				return path()
+			}
+			continue
+		}
+		if top >= 0 && stack[top].array {
+			stack[top].index++
+		}
+		if d, ok := tok.(json.Delim); ok {
+			if stop("", dec.InputOffset()) {
+				return path()
+			}
+			stack = append(stack, frame{array: d == '[', index: -1, wantsKey: d == '{'})
+			continue
+		}
+		if stop("", dec.InputOffset()) {
+			return path()
+		}
+		if top >= 0 && !stack[top].array {
+			stack[top].wantsKey = true
+		}
+	}
 }
 
 // Validate reports the first out-of-range or missing value, naming its

@@ -65,7 +65,7 @@ func TestDecodeStudyErrors(t *testing.T) {
 	}{
 		{"wrong format", `"sectionbench-study"`, `"other"`, "format", "not"},
 		{"future version", `"version": 1`, `"version": 7`, "version", "not supported"},
-		{"wrong type", `"chord_mm": 250`, `"chord_mm": "big"`, "elements.chord_mm", "string"},
+		{"wrong type", `"chord_mm": 250`, `"chord_mm": "big"`, "elements[0].chord_mm", "text where a number is wanted"},
 		{"negative chord", `"chord_mm": 250`, `"chord_mm": -3`, "elements[0].chord_mm", "outside"},
 		{"unknown field", `"name": "x",`, `"name": "x", "wingspan": 3,`, "wingspan", "unknown"},
 		{"bad spacing", `"cosine"`, `"wavy"`, "panelling.spacing", "wavy"},
