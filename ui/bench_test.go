@@ -49,3 +49,39 @@ func benchUpdate(b *testing.B, fresh bool) {
 
 func BenchmarkFullUpdate(b *testing.B)  { benchUpdate(b, true) }
 func BenchmarkAngleUpdate(b *testing.B) { benchUpdate(b, false) }
+
+// BenchmarkAngleChange is one angle change as the window makes it: the
+// demo study at 160 panels, inviscid, in free air; the engine steps the
+// angle on its cached factorisation (with the live sweep and the
+// streamlines) and the four views are drawn at once at 600×400, as
+// Workbench.present does. Target: 15 ms on a two-core machine.
+func BenchmarkAngleChange(b *testing.B) {
+	st, err := decodeStudy(assets.DemoStudy)
+	if err != nil {
+		b.Fatal(err)
+	}
+	st.Panelling.Panels = 160
+	st.Viscous.Enabled = false
+	secs, _, err := loadSections(st, ".")
+	if err != nil {
+		b.Fatal(err)
+	}
+	eng := newEngine()
+	i := 0
+	for b.Loop() {
+		st.Flow.AlphaDeg = float64(i%8) - 2
+		i++
+		res, err := eng.Run(context.Background(), engineRequest{Study: st, Sections: secs, Sweep: true, Streamlines: true})
+		if err != nil {
+			b.Fatal(err)
+		}
+		sc := sceneOf(res, st, res.Sweep)
+		var errs [numViews]error
+		eachViewAtOnce(func(k viewKind) { _, errs[k] = renderView(k, sc, benchViewW, benchViewH, baseDPI) })
+		for k, err := range errs {
+			if err != nil {
+				b.Fatalf("%v: %v", viewKind(k), err)
+			}
+		}
+	}
+}

@@ -104,10 +104,9 @@ func newElementControls(c *controls) *elementControls {
 	ec.flapPlace = caption("")
 	ec.flap = container.NewVBox(
 		ec.flapHead,
-		container.NewBorder(nil, nil, newSlotDiagram(), nil, container.NewVBox(
-			container.NewGridWithColumns(2, labelled("gap (mm)", ec.gap), labelled("overlap (mm)", ec.overlap)),
-			container.NewBorder(ec.deflecLabel, nil, nil, nil, ec.deflec),
-		)),
+		container.NewCenter(newSlotDiagram()),
+		container.NewGridWithColumns(2, labelled("gap (mm)", ec.gap), labelled("overlap (mm)", ec.overlap)),
+		container.NewBorder(ec.deflecLabel, nil, nil, nil, ec.deflec),
 		ec.flapPlace,
 	)
 	ec.frame = caption("")
