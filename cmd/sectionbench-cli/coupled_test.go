@@ -131,18 +131,7 @@ func TestSolveNotConvergedIsNull(t *testing.T) {
 // row's state.
 func TestSweepCoupledJSON(t *testing.T) {
 	args := []string{"sweep", "--section", "naca:0012", "--alpha", "0:4:2", "--re", "6e6", "--trip-upper", "0.05", "--trip-lower", "0.05"}
-	code, out, stderr := runCLI(t, append(args, "--format", "json")...)
-	if code != exitOK {
-		t.Fatalf("exit %d: %s", code, stderr)
-	}
-	var sw struct {
-		Rows       []map[string]any `json:"rows"`
-		ClMax      *float64         `json:"cl_max"`
-		AlphaClMax *float64         `json:"alpha_cl_max"`
-	}
-	if err := json.Unmarshal([]byte(out), &sw); err != nil {
-		t.Fatalf("not a JSON object: %v\n%s", err, out)
-	}
+	sw := sweepJSONOf(t, args...)
 	if len(sw.Rows) != 3 {
 		t.Fatalf("%d rows, want 3", len(sw.Rows))
 	}
@@ -221,4 +210,26 @@ func TestSolveStudyViscousMode(t *testing.T) {
 			}
 		})
 	}
+}
+
+// sweepOut is the sweep's JSON object as scripts read it.
+type sweepOut struct {
+	Rows       []map[string]any `json:"rows"`
+	ClMax      *float64         `json:"cl_max"`
+	AlphaClMax *float64         `json:"alpha_cl_max"`
+}
+
+// sweepJSONOf runs a sweep command line with --format json and reads its
+// object.
+func sweepJSONOf(t *testing.T, args ...string) sweepOut {
+	t.Helper()
+	code, out, stderr := runCLI(t, append(args, "--format", "json")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var sw sweepOut
+	if err := json.Unmarshal([]byte(out), &sw); err != nil {
+		t.Fatalf("not a JSON object with rows: %v\n%s", err, out)
+	}
+	return sw
 }

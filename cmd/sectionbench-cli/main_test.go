@@ -131,18 +131,7 @@ func TestSolveJSONContract(t *testing.T) {
 }
 
 func TestSweepJSONContract(t *testing.T) {
-	code, out, stderr := runCLI(t, "sweep", "--section", "naca:0012", "--alpha", "-2:2:1", "--format", "json")
-	if code != exitOK {
-		t.Fatalf("exit %d: %s", code, stderr)
-	}
-	var sw struct {
-		Rows       []map[string]any `json:"rows"`
-		ClMax      *float64         `json:"cl_max"`
-		AlphaClMax *float64         `json:"alpha_cl_max"`
-	}
-	if err := json.Unmarshal([]byte(out), &sw); err != nil {
-		t.Fatalf("not a JSON object with rows: %v", err)
-	}
+	sw := sweepJSONOf(t, "sweep", "--section", "naca:0012", "--alpha", "-2:2:1")
 	if sw.ClMax != nil || sw.AlphaClMax != nil {
 		t.Errorf("an inviscid sweep gives Cl max %v at %v, want null (potential flow does not stall)", *sw.ClMax, *sw.AlphaClMax)
 	}
