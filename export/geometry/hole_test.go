@@ -120,3 +120,49 @@ func TestHoleOnMeanLine(t *testing.T) {
 		}
 	}
 }
+
+// The drawing puts each hole on the cut layer and its centre cross on the
+// mark layer, the cross's arms inside the hole; every coordinate lies in
+// the positive quadrant.
+func TestDrawingHolesAndQuadrant(t *testing.T) {
+	o, err := NewOutline("demo", exporttest.TwoElementLayout(120), OutlineOptions{SkinMM: 1, Placed: true,
+		Marks: []Mark{{Element: 0, Label: "spar", XC: 0.3, DiameterMM: 8}, {Element: 1, Label: "pin", XC: 0.4, DiameterMM: 3}}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := o.Drawing()
+	cut, mark := d.Layer(LayerCut), d.Layer(LayerMark)
+	if len(cut.Circles) != 2 {
+		t.Fatalf("%d holes on the cut layer, want 2", len(cut.Circles))
+	}
+	for _, h := range cut.Circles {
+		arms := 0
+		for _, p := range mark.Paths {
+			if len(p.Points) != 2 {
+				continue
+			}
+			mid := p.Points[0].Add(p.Points[1]).Scale(0.5)
+			if mid.Dist(h.Centre) > 1e-9 {
+				continue
+			}
+			arms++
+			for _, q := range p.Points {
+				if q.Dist(h.Centre) > h.Radius {
+					t.Errorf("hole at %v: cross reaches %v, past its edge", h.Centre, q)
+				}
+			}
+		}
+		if arms != 2 {
+			t.Errorf("hole at %v: %d cross arms, want 2", h.Centre, arms)
+		}
+	}
+	for _, l := range d.Layers {
+		for _, p := range l.Paths {
+			for _, q := range p.Points {
+				if q.X < 0 || q.Y < 0 || q.X > d.Width || q.Y > d.Height {
+					t.Errorf("%s: point %v outside 0..%g × 0..%g", l.Name, q, d.Width, d.Height)
+				}
+			}
+		}
+	}
+}

@@ -240,6 +240,21 @@ func (r *writer) loadText(h headline) string {
 // behind the element before; then the height over the ground.
 func (r *writer) settingTable() {
 	st, l := r.in.Study, r.in.Result.Layout
+	// Each element's height over the ground at the angle solved, over its
+	// own chord: its lowest point less the ground's height.
+	hc := make([]string, len(st.Elements))
+	if st.Ground.Enabled {
+		elems, groundY, _ := l.At(st.Flow.AlphaDeg)
+		for i, pe := range elems {
+			low := math.Inf(1)
+			for _, q := range pe.Nodes {
+				low = math.Min(low, q.Y)
+			}
+			if i < len(hc) {
+				hc[i] = num((low-groundY)/pe.Chord, 3)
+			}
+		}
+	}
 	rows := make([][]string, len(st.Elements))
 	for i, e := range st.Elements {
 		rise := "—"
@@ -262,13 +277,21 @@ func (r *writer) settingTable() {
 			}
 		}
 		rows[i] = []string{e.Name, mm(e.ChordMM), mm(e.XMM) + ", " + mm(e.YMM), num(e.AngleDeg, 2), rise, gap, overlap, defl}
+		if st.Ground.Enabled {
+			rows[i] = append(rows[i], hc[i])
+		}
 	}
-	r.table([]string{"Element", "Chord, mm", "Leading edge x, y, mm", "Angle, ° (" + model.AngleShort(st.Inverted) + ")", "Chord rise, mm", "Gap, mm", "Overlap, mm", "Deflection, °"},
-		[]float64{1.5, 0.8, 1.3, 1.2, 0.9, 0.8, 0.9, 1.1}, []string{"L", "R", "R", "R", "R", "R", "R", "R"}, rows)
+	head := []string{"Element", "Chord, mm", "Leading edge x, y, mm", "Angle, ° (" + model.AngleShort(st.Inverted) + ")", "Chord rise, mm", "Gap, mm", "Overlap, mm", "Deflection, °"}
+	widths := []float64{1.5, 0.8, 1.3, 1.2, 0.9, 0.8, 0.9, 1.1}
+	align := []string{"L", "R", "R", "R", "R", "R", "R", "R"}
+	if st.Ground.Enabled {
+		head, widths, align = append(head, "Height over ground h/c"), append(widths, 1), append(align, "R")
+	}
+	r.table(head, widths, align, rows)
 	notes := []string{"Chord rise: trailing edge height above the leading edge as mounted, at the setting (α = 0), in mm over the chord; what a ruler from the leading edge shows. " + model.SlotText + "."}
 	if st.Ground.Enabled && len(l.Elements) > 0 {
-		notes = append(notes, fmt.Sprintf("Ground: %s mm below the lowest point at the angle of attack solved; h/c = %s on the %s chord.",
-			mm(st.Ground.ClearanceMM), num(st.Ground.ClearanceMM/(l.Elements[0].Chord*1000), 3), l.Elements[0].Name))
+		notes = append(notes, fmt.Sprintf("Ground: %s mm below the lowest point at the angle of attack solved; h/c: each element's lowest point above the ground there, over its own chord.",
+			mm(st.Ground.ClearanceMM)))
 	}
 	r.small(strings.Join(notes, " "))
 }
