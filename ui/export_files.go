@@ -30,6 +30,11 @@ type outlineSettings struct {
 	sparDiaMM float64
 	chordLine bool
 	placed    bool // the assembly as the study places it, else one template per element
+	// minLigamentMM is the least material a spar hole leaves to the rib's
+	// edge (geometry.DefaultMinLigamentMM when the field is empty);
+	// materialMM the sheet thickness for the title block, 0 when not given.
+	minLigamentMM, materialMM float64
+	sparOnChord               bool // the spar on the chord line, else on the mean line
 }
 
 // manufacturingItems are appended to File ▸ Export.
@@ -95,6 +100,11 @@ func (w *Workbench) askOutline() {
 	sparXC.SetPlaceHolder("e.g. 0.3; empty: none")
 	sparDia := widget.NewEntry()
 	sparDia.SetPlaceHolder("e.g. 8")
+	ligament := widget.NewEntry()
+	ligament.SetPlaceHolder(fmt.Sprintf("%g (default)", float64(geometry.DefaultMinLigamentMM)))
+	material := widget.NewEntry()
+	material.SetPlaceHolder("for the title block; empty: not given")
+	onChord := widget.NewCheck("spar on the chord line (default: on the mean line)", nil)
 	chord := widget.NewCheck("draw each chord line", nil)
 	placed := widget.NewRadioGroup([]string{"one rib template per element", "the assembly as placed"}, nil)
 	placed.SetSelected("one rib template per element")
@@ -102,6 +112,9 @@ func (w *Workbench) askOutline() {
 		widget.NewFormItem("skin thickness (mm)", skin),
 		widget.NewFormItem("spar hole at x/c", sparXC),
 		widget.NewFormItem("spar hole diameter (mm)", sparDia),
+		widget.NewFormItem("", onChord),
+		widget.NewFormItem("minimum ligament (mm)", ligament),
+		widget.NewFormItem("sheet thickness (mm)", material),
 		widget.NewFormItem("", chord),
 		widget.NewFormItem("layout", placed),
 	}
@@ -109,20 +122,20 @@ func (w *Workbench) askOutline() {
 		if !ok {
 			return
 		}
-		s, err := parseOutlineSettings(skin.Text, sparXC.Text, sparDia.Text)
+		s, err := parseOutlineSettings(skin.Text, sparXC.Text, sparDia.Text, ligament.Text, material.Text)
 		if err != nil {
 			w.userError(err)
 			return
 		}
-		s.chordLine, s.placed = chord.Checked, placed.Selected == "the assembly as placed"
+		s.chordLine, s.placed, s.sparOnChord = chord.Checked, placed.Selected == "the assembly as placed", onChord.Checked
 		w.exportTo(w.writeOutline(s))
 	}, w.win)
 }
 
 // parseOutlineSettings reads the outline dialog's fields; an error names
 // the field.
-func parseOutlineSettings(skin, sparXC, sparDia string) (outlineSettings, error) {
-	var s outlineSettings
+func parseOutlineSettings(skin, sparXC, sparDia, ligament, material string) (outlineSettings, error) {
+	s := outlineSettings{minLigamentMM: geometry.DefaultMinLigamentMM}
 	num := func(field, text string, lo, hi float64) (float64, error) {
 		text = strings.TrimSpace(text)
 		if text == "" {
@@ -144,6 +157,14 @@ func parseOutlineSettings(skin, sparXC, sparDia string) (outlineSettings, error)
 	if s.sparDiaMM, err = num("spar hole diameter", sparDia, 0, 200); err != nil {
 		return s, err
 	}
+	if strings.TrimSpace(ligament) != "" {
+		if s.minLigamentMM, err = num("minimum ligament", ligament, 0, 100); err != nil {
+			return s, err
+		}
+	}
+	if s.materialMM, err = num("sheet thickness", material, 0, 100); err != nil {
+		return s, err
+	}
 	if (s.sparXC > 0) != (s.sparDiaMM > 0) {
 		return s, errors.New("spar hole: give both its position and its diameter, or neither")
 	}
@@ -162,11 +183,11 @@ func (w *Workbench) writeOutline(s outlineSettings) exportJob {
 		if err != nil {
 			return nil, err
 		}
-		opt := geometry.OutlineOptions{Placed: s.placed, SkinMM: s.skinMM, ChordLine: s.chordLine, MinLigamentMM: geometry.DefaultMinLigamentMM,
-			Title: geometry.TitleBlock{Team: st.Team, Version: version, Date: time.Now().UTC().Format("2006-01-02"), AlphaDeg: st.Flow.AlphaDeg, Solved: true}}
+		opt := geometry.OutlineOptions{Placed: s.placed, SkinMM: s.skinMM, ChordLine: s.chordLine, MinLigamentMM: s.minLigamentMM,
+			Title: geometry.TitleBlock{Team: st.Team, MaterialMM: s.materialMM, Version: version, Date: time.Now().UTC().Format("2006-01-02"), AlphaDeg: st.Flow.AlphaDeg, Solved: true}}
 		if s.sparDiaMM > 0 {
 			for i := range st.Elements {
-				opt.Marks = append(opt.Marks, geometry.Mark{Element: i, Label: "spar", XC: s.sparXC, DiameterMM: s.sparDiaMM, OnMeanLine: true})
+				opt.Marks = append(opt.Marks, geometry.Mark{Element: i, Label: "spar", XC: s.sparXC, DiameterMM: s.sparDiaMM, OnMeanLine: !s.sparOnChord})
 			}
 		}
 		o, err := geometry.NewOutline(st.Name, l, opt)

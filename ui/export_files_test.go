@@ -65,21 +65,24 @@ func TestExportCoordinatesAndOutline(t *testing.T) {
 
 func TestParseOutlineSettings(t *testing.T) {
 	for _, tc := range []struct {
-		skin, xc, dia string
-		ok            bool
-		skinMM        float64
+		skin, xc, dia, lig string
+		ok                 bool
+		skinMM, ligMM      float64
 	}{
-		{"", "", "", true, 0},
-		{"1,5", "0.3", "8", true, 1.5},
-		{"-1", "", "", false, 0},
-		{"thick", "", "", false, 0},
-		{"1", "0.3", "", false, 0},
-		{"1", "1.2", "8", false, 0},
-		{"NaN", "", "", false, 0},
+		{"", "", "", "", true, 0, 2},
+		{"1,5", "0.3", "8", "", true, 1.5, 2},
+		{"1", "0.3", "8", "0", true, 1, 0},
+		{"1", "0.3", "8", "3.5", true, 1, 3.5},
+		{"1", "0.3", "8", "-1", false, 0, 0},
+		{"-1", "", "", "", false, 0, 0},
+		{"thick", "", "", "", false, 0, 0},
+		{"1", "0.3", "", "", false, 0, 0},
+		{"1", "1.2", "8", "", false, 0, 0},
+		{"NaN", "", "", "", false, 0, 0},
 	} {
-		s, err := parseOutlineSettings(tc.skin, tc.xc, tc.dia)
-		if (err == nil) != tc.ok || (tc.ok && math.Abs(s.skinMM-tc.skinMM) > 1e-12) {
-			t.Errorf("%q %q %q: %+v, %v", tc.skin, tc.xc, tc.dia, s, err)
+		s, err := parseOutlineSettings(tc.skin, tc.xc, tc.dia, tc.lig, "")
+		if (err == nil) != tc.ok || (tc.ok && (math.Abs(s.skinMM-tc.skinMM) > 1e-12 || s.minLigamentMM != tc.ligMM)) {
+			t.Errorf("%q %q %q %q: %+v, %v", tc.skin, tc.xc, tc.dia, tc.lig, s, err)
 		}
 	}
 }
