@@ -101,6 +101,13 @@ const (
 	baseStraightDeg  = 10.0
 	baseStraightness = 1.05
 	maxBaseRunPoints = 50
+	// teContrast: a trailing edge turns at least this many times more than
+	// the median point of the contour; below it (and below bluntCornerDeg)
+	// no corner stands out and the choice is reported as arbitrary.
+	teContrast = 3.0
+	// smoothMaxDeg: a corner turning by more than this is a trailing edge
+	// however coarse the rest of the contour (a sparse file).
+	smoothMaxDeg = 90.0
 	// startPreference: the file's own start is kept as the trailing edge
 	// when its sharpness is at least this fraction of the best candidate's.
 	startPreference = 0.8
@@ -163,6 +170,7 @@ const (
 	WarnBluntTE     WarningKind = "blunt-te"
 	WarnSpike       WarningKind = "spike"
 	WarnInclined    WarningKind = "inclined" // chord left inclined (Derotate off)
+	WarnNoTE        WarningKind = "no-trailing-edge"
 )
 
 // CleanWarning is something suspicious Clean found and did not fix.
@@ -396,6 +404,12 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 		rep.Changes = append(rep.Changes, msg)
 	}
 
+	if te.smooth {
+		k := orig[te.i] + 1
+		rep.Warnings = append(rep.Warnings, CleanWarning{Kind: WarnNoTE, Index: -1, X: 1, Message: fmt.Sprintf(
+			"no corner marks a trailing edge (the sharpest turns by %.0f°: a circle, an ellipse or a rounded end?); the trailing edge was put at point %d, where the contour turns most, and the results depend on that choice", te.score, k)})
+	}
+
 	// 3. Orientation.
 	if shoelace(cont) < 0 {
 		for i, j := 0, len(cont)-1; i < j; i, j = i+1, j-1 {
@@ -553,6 +567,8 @@ type teChoice struct {
 	edge  bool
 	base  int     // points drawn on the base between the two corners
 	score float64 // turning in degrees: the vertex's, or both corners'
+	// smooth: no corner stands out (see findTE); the choice is arbitrary.
+	smooth bool
 }
 
 // other returns the second corner of a blunt trailing edge.
@@ -570,6 +586,21 @@ func (c teChoice) other(n int) int { return (c.i + 1 + c.base) % n }
 // file's own start (vertex 0 of a closed ring, the closing edge of an open
 // one) is kept when it scores at least startPreference of the best.
 func findTE(ring []Point, closed bool) teChoice {
+	c := findCorner(ring, closed)
+	turns := make([]float64, len(ring))
+	n := len(ring)
+	for i := range ring {
+		a, b, d := ring[(i+n-1)%n], ring[i], ring[(i+1)%n]
+		u, v := b.Sub(a), d.Sub(b)
+		turns[i] = math.Abs(math.Atan2(u.Cross(v), u.Dot(v)) * 180 / math.Pi)
+	}
+	sort.Float64s(turns)
+	c.smooth = c.score < bluntCornerDeg || c.score < teContrast*turns[n/2] && c.score < smoothMaxDeg
+	return c
+}
+
+// findCorner is findTE's search, without the smoothness verdict.
+func findCorner(ring []Point, closed bool) teChoice {
 	n := len(ring)
 	sign := 1.0
 	if shoelace(ring) < 0 {

@@ -762,3 +762,42 @@ func TestCleanNamesAnOutlier(t *testing.T) {
 		}
 	}
 }
+
+// TestCleanWarnsWithoutATrailingEdge: a circle or an ellipse has no
+// corner to take as the trailing edge; the one chosen is arbitrary and
+// the report says so. Sections with a sharp or a blunt trailing edge get
+// no such warning.
+func TestCleanWarnsWithoutATrailingEdge(t *testing.T) {
+	ellipse := func(n int, b float64) []Point {
+		var pts []Point
+		for i := range n {
+			th := 2 * math.Pi * float64(i) / float64(n)
+			pts = append(pts, Point{0.5 + 0.5*math.Cos(th), b * math.Sin(th)})
+		}
+		return pts
+	}
+	has := func(rep *CleanReport) bool {
+		for _, w := range rep.Warnings {
+			if w.Kind == WarnNoTE {
+				return true
+			}
+		}
+		return false
+	}
+	for _, tc := range []struct {
+		name string
+		pts  []Point
+		want bool
+	}{
+		{"circle", ellipse(60, 0.5), true},
+		{"ellipse", ellipse(80, 0.1), true},
+		{"NACA 0012", naca0012Loop(31), false},
+		{"drawn base", bluntBaseLoop(31, 3, true), false},
+		{"sparse NACA 0012", naca0012Loop(5), false},
+	} {
+		_, rep := mustClean(t, tc.name, tc.pts, DefaultCleanOptions)
+		if has(rep) != tc.want {
+			t.Errorf("%s: warned %v, want %v\n%s", tc.name, has(rep), tc.want, rep)
+		}
+	}
+}

@@ -275,6 +275,11 @@ func decodeText(data []byte) (string, []string, error) {
 		notes = append(notes, fmt.Sprintf("%d bytes of invalid UTF-8 or control characters replaced", bad))
 		data = []byte(strings.ToValidUTF8(string(data), "\uFFFD"))
 	}
+	// DOS editors end a file with an end-of-file byte (Ctrl-Z, 0x1A).
+	if trimmed := bytes.TrimRight(data, "\x1a\r\n\t "); len(trimmed) < len(data) && bytes.IndexByte(data[len(trimmed):], 0x1A) >= 0 {
+		data = trimmed
+		notes = append(notes, "a DOS end-of-file byte (Ctrl-Z) at the end ignored")
+	}
 	text := string(data)
 	// Text copied from typeset documents carries Unicode minus signs and
 	// no-break spaces; read them as their ASCII forms, and say so.
@@ -512,6 +517,11 @@ func (p *parser) scan(lines []string) error {
 		allNum := len(fs) > 0
 		for _, f := range fs {
 			allNum = allNum && looksNumeric(f.text)
+		}
+		// A single word such as "Inf" or "NaN" on the first line is a name,
+		// not a point (a point has two values, a count line one finite one).
+		if len(fs) == 1 && nonFiniteRE.MatchString(fs[0].text) {
+			allNum = false
 		}
 		if allNum || header != nil && numericAt(fs, ix) && numericAt(fs, iy) {
 			data = append(data, raw{num, stripInline(ln)})

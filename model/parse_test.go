@@ -875,3 +875,29 @@ func TestScanNumber(t *testing.T) {
 		}
 	}
 }
+
+// TestParseNameLikeANumberAndDOSEnd: a name line "Inf" or "NaN" is a
+// name, not a point (it was read as data and refused as not finite); a DOS
+// end-of-file byte at the end is ignored (it was refused as text among the
+// coordinates).
+func TestParseNameLikeANumberAndDOSEnd(t *testing.T) {
+	const body = "1 0\n0.5 0.06\n0 0\n0.5 -0.06\n1 0\n"
+	for _, tc := range []struct {
+		name, data, wantName string
+	}{
+		{"name Inf", "Inf\n" + body, "Inf"},
+		{"name NaN", "NaN\n" + body, "NaN"},
+		{"DOS end-of-file byte", "wing\n" + body + "\x1a", "wing"},
+		{"DOS end after a blank line", "wing\r\n" + body + "\r\n\x1a", "wing"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			p, err := ParseCoordinates(strings.NewReader(tc.data), "test.dat")
+			if err != nil {
+				t.Fatal(err)
+			}
+			if p.Name != tc.wantName || len(p.Points) != 5 {
+				t.Errorf("name %q with %d points, want %q with 5", p.Name, len(p.Points), tc.wantName)
+			}
+		})
+	}
+}
