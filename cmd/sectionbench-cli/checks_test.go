@@ -42,3 +42,34 @@ func TestGroundBelowTheMethodIsRefused(t *testing.T) {
 		t.Errorf("exit %d, %q; want exit %d naming ground.clearance_mm and the 5 mm limit", code, stderr, exitInput)
 	}
 }
+
+// TestFlagMessages: bad flags exit 2 naming the flag, in words. "1_0"
+// was read as 10; --tol-cl 0 printed "within 0 %" while using 0.5 %; a
+// bad density count exited 1 naming a study field; a figure of a
+// ten-thousandth of an inch gave a raw image error.
+func TestFlagMessages(t *testing.T) {
+	for _, tc := range []struct {
+		name     string
+		args     []string
+		contains string
+	}{
+		{"underscore in a number", []string{"solve", "--section", "naca:0012", "--alpha", "1_0"}, "-alpha"},
+		{"hexadecimal number", []string{"solve", "--section", "naca:0012", "--alpha", "0x1p3"}, "-alpha"},
+		{"tolerance zero", []string{"density", "--section", "naca:0012", "--alpha", "4", "--tol-cl", "0"}, "--tol-cl"},
+		{"tolerance negative", []string{"density", "--section", "naca:0012", "--alpha", "4", "--tol-cp", "-1"}, "--tol-cp"},
+		{"density count out of range", []string{"density", "--section", "naca:0012", "--alpha", "4", "--panels", "20,5000"}, "--panels"},
+		{"figure too small", []string{"export", "--section", "naca:0012", "--what", "figure", "--height-in", "0.0001", "-o", "x.png"}, "pixels"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			code, _, stderr := runCLI(t, tc.args...)
+			if code != exitUsage || !strings.Contains(stderr, tc.contains) {
+				t.Errorf("exit %d, %q; want exit %d naming %s", code, stderr, exitUsage, tc.contains)
+			}
+			for _, goWord := range []string{"float64", "strconv", "png:"} {
+				if strings.Contains(stderr, goWord) {
+					t.Errorf("message %q shows %q", stderr, goWord)
+				}
+			}
+		})
+	}
+}

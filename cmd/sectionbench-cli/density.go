@@ -71,6 +71,14 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 			return err
 		}
 	}
+	for _, t := range []struct {
+		name string
+		v    float64
+	}{{"tol-cl", *tolCl}, {"tol-cp", *tolCp}} {
+		if in.set[t.name] && !(t.v > 0 && t.v <= 100) {
+			return usagef("--%s %g: want a tolerance above 0 and at most 100 percent", t.name, t.v)
+		}
+	}
 	if in.set["tol-cl"] || st.Density.TolClPct == 0 {
 		st.Density.TolClPct = *tolCl
 	}

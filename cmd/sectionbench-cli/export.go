@@ -177,6 +177,9 @@ const (
 	minFigureDPI  = 10
 	maxFigureDPI  = 1200
 	maxFigureSide = 20000
+	// minFigureSide: below about 32 pixels a side no label or curve can be
+	// told apart (and an image of 0 pixels cannot be written at all).
+	minFigureSide = 32
 )
 
 // checkFigureSize refuses sizes the renderer cannot or should not draw.
@@ -188,6 +191,9 @@ func checkFigureSize(w, h, dpi float64) error {
 		if !(v.x > v.lo && v.x <= v.hi) && !(v.flag == "--dpi" && v.x == v.lo) {
 			return usagef("%s %g: want a number in (%g, %g]", v.flag, v.x, v.lo, v.hi)
 		}
+	}
+	if w*dpi < minFigureSide || h*dpi < minFigureSide {
+		return usagef("--width-in × --height-in at --dpi: %.3g × %.3g pixels, less than %d a side, draws nothing legible", w*dpi, h*dpi, minFigureSide)
 	}
 	if w*dpi > maxFigureSide || h*dpi > maxFigureSide {
 		return usagef("--width-in × --dpi: %.0f × %.0f pixels is more than %d a side", w*dpi, h*dpi, maxFigureSide)

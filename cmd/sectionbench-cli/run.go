@@ -6,6 +6,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"strconv"
 	"runtime/debug"
 	"strings"
 )
@@ -132,6 +133,43 @@ func newFlags(name, usage string, help io.Writer) *flags {
 	fs := flag.NewFlagSet(name, flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	return &flags{FlagSet: fs, usage: usage, help: help}
+}
+
+// Float64Var defines a number flag read strictly as a decimal number:
+// the flag package's own would take "1_0" as 10 and "0x1p3" as 8.
+func (fs *flags) Float64Var(p *float64, name string, value float64, usage string) {
+	*p = value
+	fs.Var(decimalFlag{p}, name, usage)
+}
+
+// Float64 is Float64Var returning the variable.
+func (fs *flags) Float64(name string, value float64, usage string) *float64 {
+	p := new(float64)
+	fs.Float64Var(p, name, value, usage)
+	return p
+}
+
+// decimalFlag is a float64 flag that accepts plain decimal numbers only.
+type decimalFlag struct{ p *float64 }
+
+func (f decimalFlag) String() string {
+	if f.p == nil {
+		return "0"
+	}
+	return strconv.FormatFloat(*f.p, 'g', -1, 64)
+}
+
+func (f decimalFlag) Set(s string) error {
+	t := strings.ToLower(strings.TrimSpace(s))
+	if strings.ContainsAny(t, "_") || strings.Contains(t, "0x") {
+		return errors.New("not a plain decimal number")
+	}
+	v, err := strconv.ParseFloat(t, 64)
+	if err != nil {
+		return errors.New("not a number")
+	}
+	*f.p = v
+	return nil
 }
 
 // parse parses args and turns flag-package errors into usage errors; flags
