@@ -6,8 +6,8 @@ import (
 	"flag"
 	"fmt"
 	"io"
-	"strconv"
 	"runtime/debug"
+	"strconv"
 	"strings"
 )
 
