@@ -97,7 +97,7 @@ func (cs *coupledState) solveStation(i int, ueM []float64) {
 	// stagnation of the inviscid flow at a trailing edge): hold H and
 	// let Ue follow.
 	cs.c[i], cs.th[i], cs.m[i] = save[0], save[1], save[2]
-	ok = cs.localNewton(i, ueM, math.Min(math.Max(hPrev, minMarchH), hmax))
+	ok = cs.localNewton(i, ueM, cs.inverseH(i, hPrev, hmax))
 	grow = cs.th[i] / save[1]
 	if ok && ueM[i] > uePrev/maxMarchGrowth && ueM[i] < uePrev*maxMarchGrowth && grow < maxMarchGrowth && grow > 1/maxMarchGrowth {
 		return
@@ -107,6 +107,25 @@ func (cs *coupledState) solveStation(i int, ueM []float64) {
 	// whole, put it right).
 	ueM[i] = uePrev
 	cs.c[i], cs.th[i], cs.m[i] = save[0], save[1], uePrev*hPrev*save[1]
+}
+
+// inverseH returns the shape factor the march holds at station i in
+// inverse mode, from its predecessor's hPrev: a laminar layer's H
+// grows from at least hmax as in a separation bubble, by 0.03 per
+// momentum thickness of run; a turbulent layer's falls back towards hmax
+// by 0.15 per momentum thickness, as it reattaches (the rates are those
+// of Drela's inverse march as recalled, from memory).
+func (cs *coupledState) inverseH(i int, hPrev, hmax float64) float64 {
+	s := &cs.st[i]
+	p := s.prev[0]
+	run := (s.xi - cs.st[p].xi) / cs.th[p]
+	if s.kind == bl.Laminar {
+		return math.Max(hPrev+0.03*run, hmax)
+	}
+	if hPrev < hmax {
+		return math.Max(hPrev, minMarchH)
+	}
+	return math.Max(hPrev-0.15*run, hmax)
 }
 
 // The march's acceptance of a direct solution: H at least minMarchH and θ

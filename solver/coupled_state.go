@@ -286,6 +286,28 @@ func (cs *coupledState) buildSensitivities() {
 	}
 }
 
+// speedNode returns the node whose surface speed stands for node i of
+// element e: the node itself, except in a trailing edge thinner than its
+// panels (system.go), where the strengths at the nodes are unreliable,
+// and at the shared node of a closed trailing edge, where the discrete
+// speed falls towards the inviscid stagnation point that the
+// displacement removes: there the nearest node outside stands in
+// (constant extrapolation).
+func speedNode(e *elemGeom, i int) int {
+	up := max(e.thinUpper, 0)
+	lo := max(e.thinLower, 0)
+	if !e.open() {
+		up, lo = max(up, 1), max(lo, 1)
+	}
+	if i < up {
+		return up
+	}
+	if i > e.np-lo {
+		return e.np - lo
+	}
+	return i
+}
+
 // sigmaRow returns ∂Ue/∂σ of a body or non-first wake station.
 func (cs *coupledState) sigmaRow(s *station) []float64 {
 	r := cs.resp
@@ -297,7 +319,7 @@ func (cs *coupledState) sigmaRow(s *station) []float64 {
 		return out
 	}
 	e := &cs.geo.elems[s.elem]
-	u := e.u0 + s.node
+	u := e.u0 + speedNode(e, s.node)
 	sg := 1.0
 	if s.side == sideLower {
 		sg = -1
@@ -315,7 +337,7 @@ func (cs *coupledState) ue0Of(s *station) float64 {
 		return cs.resp.wakeU0[cs.resp.cols.wake0[s.elem]-cs.resp.cols.body+s.node]
 	}
 	e := &cs.geo.elems[s.elem]
-	g := cs.sol.g[e.u0+s.node]
+	g := cs.sol.g[e.u0+speedNode(e, s.node)]
 	if s.side == sideLower {
 		return -g
 	}
