@@ -87,6 +87,15 @@ func (cs *coupledState) solveStation(i int, ueM []float64) {
 	pp := s.prev[0]
 	hPrev := cs.m[pp] / (ueM[pp] * cs.th[pp])
 	uePrev := ueM[i]
+	if s.kind != bl.Laminar && hPrev > hmax {
+		// A separated layer reattaching (after transition in a bubble):
+		// inverse until H is back at hmax, as Drela's march does.
+		if cs.localNewton(i, ueM, cs.inverseH(i, hPrev, hmax)) {
+			return
+		}
+		cs.c[i], cs.th[i], cs.m[i] = save[0], save[1], save[2]
+		ueM[i] = uePrev
+	}
 	ok := cs.localNewton(i, ueM, 0)
 	h := cs.m[i] / (ueM[i] * cs.th[i])
 	grow := cs.th[i] / save[1]

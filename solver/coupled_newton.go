@@ -219,32 +219,85 @@ func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64, fol
 			}
 		}
 		res = 0
+		worst := 0
 		for i := range n {
 			r := math.Max(math.Abs(dth[i]/cs.th[i]), math.Abs(dm[i]/cs.m[i]))
+			if r > res {
+				worst = i
+			}
 			if cs.st[i].kind == bl.Laminar {
 				r = math.Max(r, 0.01*math.Abs(dc[i]))
 			} else {
 				r = math.Max(r, math.Abs(dc[i]/cs.c[i]))
 			}
 			res = math.Max(res, r)
-			cs.c[i] += rlx * dc[i]
-			cs.th[i] += rlx * dth[i]
-			cs.m[i] += rlx * dm[i]
 		}
 		if math.IsNaN(res) {
 			return false, it, res, nil
 		}
-		cs.clampState()
+		// Backtracking: the step is halved (up to lineSearchHalvings
+		// times) while the residuals' norm grows past lineSearchGrowth
+		// times its value (Dennis & Schnabel, Numerical Methods for
+		// Unconstrained Optimization and Nonlinear Equations, 1983, sec.
+		// 6.3, with a relaxed acceptance).
+		c0 := append([]float64(nil), cs.c...)
+		t0 := append([]float64(nil), cs.th...)
+		m0 := append([]float64(nil), cs.m...)
+		f0 := cs.residualNorm()
+		for h := 0; ; h++ {
+			for i := range n {
+				cs.c[i] = c0[i] + rlx*dc[i]
+				cs.th[i] = t0[i] + rlx*dth[i]
+				cs.m[i] = m0[i] + rlx*dm[i]
+			}
+			cs.clampState()
+			if f := cs.residualNorm(); f < lineSearchGrowth*f0 || h == lineSearchHalvings || !(f0 > lineSearchFloor) {
+				break
+			}
+			rlx /= 2
+		}
 		retyped := cs.retype()
 		moved := false
 		if follow {
 			moved = cs.restagnate()
+		}
+		if debugCoupled {
+			println("lam", cs.lam, "it", it, "res", res, "rlx", rlx, "retyped", retyped, "moved", moved, "worst", worst, cs.st[worst].side, cs.st[worst].node, cs.st[worst].kind.String(), cs.st[worst].xc)
 		}
 		if res < tol && rlx == 1 && !retyped && !moved {
 			return true, it, res, nil
 		}
 	}
 	return false, maxIt, res, nil
+}
+
+// Line search bounds: at most lineSearchHalvings halvings of a Newton
+// step, and none once the residuals' norm is below lineSearchFloor,
+// where rounding decides whether it falls.
+const (
+	lineSearchHalvings = 4
+	lineSearchFloor    = 1e-9
+	// lineSearchGrowth lets the norm grow somewhat before a step is
+	// halved: Newton steps near transition and separation often raise
+	// it briefly on their way (a non-monotone acceptance; Grippo, Lampariello
+	// & Lucidi, SIAM J. Numer. Anal. 23(4), 1986).
+	lineSearchGrowth = 2.0
+)
+
+// residualNorm returns the 2-norm of all stations' residuals.
+func (cs *coupledState) residualNorm() float64 {
+	ue := cs.ue()
+	s := 0.0
+	for i := range cs.st {
+		l := cs.localOf(i, ue)
+		for _, v := range cs.residual(i, &l) {
+			s += v * v
+		}
+	}
+	if math.IsNaN(s) {
+		return math.Inf(1)
+	}
+	return math.Sqrt(s)
 }
 
 // clampState keeps the variables where the closures are defined.
@@ -389,3 +442,5 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 	}
 	return dc, dth, dm, true
 }
+
+var debugCoupled = false
