@@ -309,7 +309,9 @@ func (cs *coupledState) restagnate() bool {
 		e := &cs.geo.elems[k]
 		kk, ss := stagnationSplit(e, g, cs.stag[k])
 		newStag[k] = kk
-		cs.sStag[k] = ss
+		if ss >= 0 {
+			cs.sStag[k] = ss
+		}
 		if kk != cs.stag[k] {
 			moved = true
 		}

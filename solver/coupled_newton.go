@@ -219,12 +219,8 @@ func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64, fol
 			}
 		}
 		res = 0
-		worst := 0
 		for i := range n {
 			r := math.Max(math.Abs(dth[i]/cs.th[i]), math.Abs(dm[i]/cs.m[i]))
-			if r > res {
-				worst = i
-			}
 			if cs.st[i].kind == bl.Laminar {
 				r = math.Max(r, 0.01*math.Abs(dc[i]))
 			} else {
@@ -260,9 +256,6 @@ func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64, fol
 		moved := false
 		if follow {
 			moved = cs.restagnate()
-		}
-		if debugCoupled {
-			println("lam", cs.lam, "it", it, "res", res, "rlx", rlx, "retyped", retyped, "moved", moved, "worst", worst, cs.st[worst].side, cs.st[worst].node, cs.st[worst].kind.String(), cs.st[worst].xc)
 		}
 		if res < tol && rlx == 1 && !retyped && !moved {
 			return true, it, res, nil
@@ -442,5 +435,3 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 	}
 	return dc, dth, dm, true
 }
-
-var debugCoupled = false

@@ -105,7 +105,14 @@ func stagnationSplit(e *elemGeom, gam []float64, near int) (int, float64) {
 		ref = near
 	}
 	best, bestD := -1, math.MaxInt
-	for k := 0; k < e.np; k++ {
+	lo, hi := 0, e.np-1
+	if near >= 0 {
+		// Following a solution: the stagnation point moves a few panels
+		// at most between iterations; a sign change farther away is a
+		// failing iteration's noise, not the stagnation point.
+		lo, hi = max(near-maxStagnationMove, 0), min(near+maxStagnationMove, e.np-1)
+	}
+	for k := lo; k <= hi; k++ {
 		ga, gb := gam[e.u0+k], gam[e.u0+k+1]
 		if ga >= 0 && gb < 0 || ga > 0 && gb <= 0 {
 			if d := abs(k - ref); d < bestD {
@@ -114,6 +121,9 @@ func stagnationSplit(e *elemGeom, gam []float64, near int) (int, float64) {
 		}
 	}
 	if best < 0 {
+		if near >= 0 {
+			return near, -1 // no move; the caller keeps its position
+		}
 		best = min(max(ref, 1), e.np-2)
 		return best, 0.5 * (e.sNode[best] + e.sNode[best+1])
 	}
@@ -121,6 +131,10 @@ func stagnationSplit(e *elemGeom, gam []float64, near int) (int, float64) {
 	f := ga / (ga - gb)
 	return best, e.sNode[best] + f*(e.sNode[best+1]-e.sNode[best])
 }
+
+// maxStagnationMove is how many panels a stagnation point may move in
+// one Newton iteration.
+const maxStagnationMove = 3
 
 func abs(i int) int {
 	if i < 0 {
