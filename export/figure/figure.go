@@ -254,6 +254,7 @@ func renderPlot(p *plot.Plot, equal, composite bool, widthPx, heightPx int, dpi 
 	img := image.NewRGBA(image.Rect(0, 0, widthPx, heightPx))
 	cv := vgimg.NewWith(vgimg.UseImage(img), vgimg.UseDPI(int(math.Round(dpi))))
 	dc := draw.New(cv)
+	fitLabels(p, dc)
 	if equal {
 		fitAspect(p, dc)
 	}
@@ -358,6 +359,7 @@ func figureCanvas(format string, widthIn, heightIn, dpi float64) (vg.CanvasWrite
 // writes the result to w.
 func writePlot(w io.Writer, cv vg.CanvasWriterTo, p *plot.Plot, equal bool) error {
 	dc := draw.New(cv)
+	fitLabels(p, dc)
 	if equal {
 		fitAspect(p, dc)
 	}

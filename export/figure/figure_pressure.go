@@ -138,6 +138,7 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	loSty := lineStyle(th.lower, widthNormal, dashLower)
 	noteSty := noteStyle(th, th.fg, 8, text.XLeft, text.YCenter)
 	var mins, stags plotter.XYs
+	labels := &noteSet{}
 	for _, i := range shown {
 		es := sol.Elements[i]
 		var up, lo plotter.XYs
@@ -167,9 +168,10 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		if !ab.perElement {
 			name = es.Name + ": "
 		}
-		p.Add(&note{x: xmin, y: es.CpMin, dx: vg.Points(5), text: fmt.Sprintf("%sCp min %s at x/c %.3f", name, formatTick(es.CpMin, 3), es.XCpMin), style: noteSty})
-		p.Add(&note{x: xst, y: cpStagnation, dx: vg.Points(5), dy: vg.Points(-2), text: fmt.Sprintf("stagnation x/c %.4f", es.Stagnation.XC), style: noteStyle(th, th.faint, 8, text.XLeft, text.YTop)})
+		labels.add(&note{x: xmin, y: es.CpMin, dx: vg.Points(5), text: fmt.Sprintf("%sCp min %s at x/c %.3f", name, formatTick(es.CpMin, 3), es.XCpMin), style: noteSty})
+		labels.add(&note{x: xst, y: cpStagnation, dx: vg.Points(5), dy: vg.Points(-2), text: fmt.Sprintf("stagnation x/c %.4f", es.Stagnation.XC), style: noteStyle(th, th.faint, 8, text.XLeft, text.YTop)})
 	}
+	p.Add(labels)
 	ms := newScatter(mins, th.accent, glyphMarker, draw.CircleGlyph{})
 	ss := newScatter(stags, th.fg, glyphMarker, draw.TriangleGlyph{})
 	p.Add(ms, ss)

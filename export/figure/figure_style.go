@@ -518,3 +518,77 @@ func alphaMark(th *theme, alphaDeg float64) *refLine {
 	return &refLine{value: alphaDeg, vertical: true, style: lineStyle(th.accent, widthThin, dashRef),
 		label: fmt.Sprintf("α = %s°", formatTick(alphaDeg, 2)), labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop)}
 }
+
+// minLabelPt is the smallest font a title or axis label is shrunk to.
+const minLabelPt = 6
+
+// fitLabels shrinks the title and the axis labels of p, where they are
+// wider than the canvas c (less a margin), so that a figure exported small
+// keeps its whole title instead of losing both ends; never below
+// minLabelPt.
+func fitLabels(p *plot.Plot, c draw.Canvas) {
+	fit := func(sty *text.Style, s string, room vg.Length) {
+		if s == "" || room <= 0 {
+			return
+		}
+		if w := sty.Width(s); w > room {
+			size := sty.Font.Size * room / w
+			if size < minLabelPt {
+				size = minLabelPt
+			}
+			sty.Font.Size = size
+		}
+	}
+	w, h := c.Max.X-c.Min.X, c.Max.Y-c.Min.Y
+	margin := vg.Points(8)
+	fit(&p.Title.TextStyle, p.Title.Text, w-margin)
+	fit(&p.X.Label.TextStyle, p.X.Label.Text, w-margin)
+	fit(&p.Y.Label.TextStyle, p.Y.Label.Text, h-margin)
+}
+
+// noteSet draws notes so that none overprints another: each is placed as
+// note.Plot places it and, while its box overlaps one drawn before, moved
+// one line further from the data (down for notes set below their point,
+// up otherwise), at most maxNoteShifts times.
+type noteSet struct{ notes []*note }
+
+const maxNoteShifts = 8
+
+func (ns *noteSet) add(n *note) { ns.notes = append(ns.notes, n) }
+
+func (ns *noteSet) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, trY := p.Transforms(&c)
+	var placed []vg.Rectangle
+	overlaps := func(r vg.Rectangle) bool {
+		for _, q := range placed {
+			if r.Min.X < q.Max.X && q.Min.X < r.Max.X && r.Min.Y < q.Max.Y && q.Min.Y < r.Max.Y {
+				return true
+			}
+		}
+		return false
+	}
+	for _, n := range ns.notes {
+		pt := vg.Point{X: trX(n.x), Y: trY(n.y)}
+		if !c.Contains(pt) {
+			continue
+		}
+		sty := n.style
+		at := pt.Add(vg.Point{X: n.dx, Y: n.dy})
+		if sty.XAlign == text.XLeft && at.X+sty.Width(n.text) > c.Max.X {
+			sty.XAlign = text.XRight
+			at.X = pt.X - n.dx
+		}
+		box := sty.Rectangle(n.text)
+		step := box.Max.Y - box.Min.Y + vg.Points(1)
+		if n.dy >= 0 {
+			step = -step // a note above its point moves down the page only if it must: try up first
+		}
+		r := box.Add(at)
+		for k := 0; k < maxNoteShifts && overlaps(r); k++ {
+			at.Y -= step
+			r = box.Add(at)
+		}
+		placed = append(placed, r)
+		c.FillText(sty, at, n.text)
+	}
+}

@@ -1,6 +1,9 @@
 package figure
 
 import (
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
 	"math"
 	"testing"
 	"time"
@@ -55,6 +58,33 @@ func TestNiceTicksDegenerate(t *testing.T) {
 		}
 		if len(bad) > 0 {
 			t.Errorf("%s: ticks %v outside [%g, %g]", c.name, bad, c.lo, c.hi)
+		}
+	}
+}
+
+// fitLabels shrinks a title wider than the canvas to fit it, and leaves a
+// short one alone.
+func TestFitLabels(t *testing.T) {
+	th := themeFor(false)
+	for _, c := range []struct {
+		name, title string
+		widthIn     float64
+		shrunk      bool
+	}{
+		{"short title, wide figure", "Cp", 6, false},
+		{"long title, small figure", "Pressure: α = 2.00°, Cl from circulation −2.8980 on a long reference", 3, true},
+	} {
+		p := newPlot(th, c.title, "x", "y")
+		size := p.Title.TextStyle.Font.Size
+		cv := vgimg.New(vg.Length(c.widthIn)*vg.Inch, 2*vg.Inch)
+		dc := draw.New(cv)
+		fitLabels(p, dc)
+		got := p.Title.TextStyle.Font.Size
+		if (got < size) != c.shrunk {
+			t.Errorf("%s: title %v pt from %v", c.name, got, size)
+		}
+		if c.shrunk && got > minLabelPt && p.Title.TextStyle.Width(c.title) > dc.Max.X-dc.Min.X {
+			t.Errorf("%s: title still wider than the figure", c.name)
 		}
 	}
 }
