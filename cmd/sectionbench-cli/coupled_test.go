@@ -233,3 +233,28 @@ func sweepJSONOf(t *testing.T, args ...string) sweepOut {
 	}
 	return sw
 }
+
+// export --what csv --table bl and sweep follow the coupled solution: the
+// boundary layers and the wake of a converged point, a refusal naming the
+// state when it did not converge (never a crash), the sweep with its
+// state column.
+func TestExportCoupledTables(t *testing.T) {
+	base := []string{"export", "--section", "naca:0012", "--alpha", "2", "--re", "6e6", "--trip-upper", "0.05", "--trip-lower", "0.05", "--what", "csv", "-o", "-"}
+	code, out, stderr := runCLI(t, append(base, "--table", "bl")...)
+	if code != exitOK {
+		t.Fatalf("bl: exit %d: %s", code, stderr)
+	}
+	if !strings.Contains(out, ",regime\n") || !strings.Contains(out, ",wake,") || !strings.Contains(out, ",turbulent\n") {
+		t.Errorf("bl table lacks the regime column or the wake:\n%.600s", out)
+	}
+	code, out, _ = runCLI(t, append(base, "--table", "sweep")...)
+	if code != exitOK || !strings.Contains(out, ",converged,") {
+		t.Errorf("sweep table (exit %d) lacks the state column:\n%.600s", code, out)
+	}
+	coupledMaxIterations = 1
+	defer func() { coupledMaxIterations = 0 }()
+	code, _, stderr = runCLI(t, append(base, "--table", "bl")...)
+	if code != exitInput || !strings.Contains(stderr, "did not converge") || strings.Contains(stderr, "internal error") {
+		t.Errorf("bl of a point that did not converge: exit %d, %q; want a refusal naming the state", code, stderr)
+	}
+}

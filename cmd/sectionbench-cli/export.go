@@ -149,7 +149,7 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 		if err != nil {
 			return err
 		}
-		res, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true, Streamlines: v == figure.ViewStreamlines})
+		res, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true, Streamlines: v == figure.ViewStreamlines, CoupledMaxIterations: coupledMaxIterations})
 		if err != nil {
 			return err
 		}
@@ -234,7 +234,7 @@ func figureKind(name, out string) (figure.View, string, error) {
 
 // tableWriter returns the writer of a results table as CSV.
 func tableWriter(table string, st *model.Study, secs []*model.Section) (func(io.Writer) error, error) {
-	req := engine.Request{Study: st, Sections: secs, Sweep: table == "sweep"}
+	req := engine.Request{Study: st, Sections: secs, Sweep: table == "sweep", CoupledMaxIterations: coupledMaxIterations}
 	switch table {
 	case "cp", "sweep":
 	case "bl":
@@ -254,8 +254,14 @@ func tableWriter(table string, st *model.Study, secs []*model.Section) (func(io.
 			return format.WriteCpTable(w, format.StudyMetadata(st, res, "Sectionbench "+version), res.Solution)
 		}, nil
 	case "sweep":
+		return func(w io.Writer) error { return sweepCSV(w, st, res) }, nil
+	}
+	if c := res.Coupled; c != nil {
+		if !c.Converged {
+			return nil, fmt.Errorf("--table bl: %s", notConverged(c))
+		}
 		return func(w io.Writer) error {
-			return format.WriteSweepTable(w, format.StudyMetadata(st, res, "Sectionbench "+version), res.Sweep, res.SweepViscous)
+			return format.WriteCoupledBoundaryLayerTable(w, format.StudyMetadata(st, res, "Sectionbench "+version), c.Detail)
 		}, nil
 	}
 	return func(w io.Writer) error {
@@ -288,7 +294,7 @@ func cmdReport(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	e := engine.NewEngine()
-	res, err := e.Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true, Streamlines: true})
+	res, err := e.Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true, Streamlines: true, CoupledMaxIterations: coupledMaxIterations})
 	if err != nil {
 		return err
 	}

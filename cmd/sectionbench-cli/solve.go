@@ -182,7 +182,7 @@ func notConverged(c *engine.CoupledPoint) string {
 	if c.Note != "" {
 		return fmt.Sprintf("viscous solution at %g° failed (%s): no viscous numbers", c.AlphaDeg, c.Note)
 	}
-	return fmt.Sprintf("viscous solution at %g° did not converge (%d iterations, residual %.2g): no viscous numbers; the inviscid Cl is beside them", c.AlphaDeg, c.Iterations, c.Residual)
+	return fmt.Sprintf("viscous solution at %g° did not converge (%d iterations, residual %.2g): it gives no viscous numbers", c.AlphaDeg, c.Iterations, c.Residual)
 }
 
 func solveJSON(st *model.Study, res *engine.Result, warnings []string) jsonSolve {

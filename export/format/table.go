@@ -8,6 +8,7 @@ import (
 	"strconv"
 
 	"sectionbench/solver"
+	bl "sectionbench/solver/boundarylayer"
 	"sectionbench/solver/engine"
 )
 
@@ -189,6 +190,53 @@ func WriteBoundaryLayerTable(w io.Writer, m Metadata, vr *solver.ViscousResult) 
 				}
 				err := t.row(e.Name, side.name, cell(at(s.S, i)), cell(s.XC[i]), cell(at(s.Ue, i)), cell(at(s.Theta, i)),
 					cell(at(s.DeltaStar, i)), cell(at(s.H, i)), cell(at(s.Cf, i)), turb)
+				if err != nil {
+					return err
+				}
+			}
+		}
+	}
+	return t.close()
+}
+
+// WriteCoupledBoundaryLayerTable writes a converged coupled viscous
+// solution's boundary layers and wakes as CSV after the metadata m, one
+// row per station: element, side (upper, lower or wake; surfaces from the
+// stagnation point to the trailing edge, the wake from the trailing edge
+// downstream), arc_length_over_chord (from the stagnation point, or from
+// the trailing edge on a wake), xc (1 + distance over chord on a wake),
+// edge_velocity (over the freestream speed), cp,
+// momentum_thickness_over_chord, displacement_thickness_over_chord,
+// shape_factor, skin_friction (on the local edge velocity), amplification
+// (the e^N exponent; the critical value from transition on),
+// shear_stress_coefficient (turbulent and wake stations, empty on laminar
+// ones) and regime
+// (laminar, turbulent or wake).
+func WriteCoupledBoundaryLayerTable(w io.Writer, m Metadata, cs *solver.CoupledSolution) error {
+	if cs == nil {
+		panic("format: nil coupled solution")
+	}
+	if err := m.write(w, "lengths over each element's own chord; velocities over the freestream speed; skin_friction on the local edge dynamic pressure",
+		"along each element's own chord from its leading edge; on a wake 1 + the distance behind the trailing edge over the chord"); err != nil {
+		return err
+	}
+	t, err := newTable(w, "element", "side", "arc_length_over_chord", "xc", "edge_velocity", "cp", "momentum_thickness_over_chord",
+		"displacement_thickness_over_chord", "shape_factor", "skin_friction", "amplification", "shear_stress_coefficient", "regime")
+	if err != nil {
+		return err
+	}
+	for _, e := range cs.Elements {
+		for _, side := range []struct {
+			name string
+			s    solver.CoupledSurface
+		}{{solver.Upper.String(), e.Upper}, {solver.Lower.String(), e.Lower}, {"wake", e.Wake}} {
+			for _, p := range side.s.Stations {
+				ctau := p.CTau
+				if p.Regime == bl.Laminar {
+					ctau = math.NaN() // no turbulent shear stress: an empty cell
+				}
+				err := t.row(e.Name, side.name, cell(p.Xi), cell(p.XC), cell(p.Ue), cell(p.Cp), cell(p.Theta), cell(p.DStar),
+					cell(p.H), cell(p.Cf), cell(p.N), cell(ctau), p.Regime.String())
 				if err != nil {
 					return err
 				}

@@ -7,12 +7,15 @@ import (
 	"math"
 	"os"
 	"path/filepath"
-	"sectionbench/export/exporttest"
-	"sectionbench/model"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
 
+	"sectionbench/export/exporttest"
+	"sectionbench/model"
+	"sectionbench/solver"
+	bl "sectionbench/solver/boundarylayer"
 	"sectionbench/solver/engine"
 )
 
@@ -231,5 +234,41 @@ func TestCSVMetadata(t *testing.T) {
 		if k == len(lines) || lines[k] != c.head {
 			t.Errorf("%s: header %q, want %q", c.name, lines[min(k, len(lines)-1)], c.head)
 		}
+	}
+}
+
+// The coupled boundary-layer table: one row per station of each surface
+// and the wake, in that order, with the regime in words and no shear
+// stress on a laminar station (invented values).
+func TestCoupledBoundaryLayerTable(t *testing.T) {
+	st := func(xc, ctau float64, k bl.Kind) solver.CoupledStation {
+		return solver.CoupledStation{XC: xc, Ue: 1, Theta: 1e-3, DStar: 2e-3, H: 2, Cf: 3e-3, CTau: ctau, Regime: k}
+	}
+	cs := &solver.CoupledSolution{Elements: []solver.CoupledElement{{
+		Name:  "main",
+		Upper: solver.CoupledSurface{Stations: []solver.CoupledStation{st(0.1, 0, bl.Laminar), st(0.5, 0.01, bl.Turbulent)}},
+		Lower: solver.CoupledSurface{Stations: []solver.CoupledStation{st(0.2, 0, bl.Laminar)}},
+		Wake:  solver.CoupledSurface{Stations: []solver.CoupledStation{st(1.1, 0.02, bl.Wake)}},
+	}}}
+	var b bytes.Buffer
+	if err := WriteCoupledBoundaryLayerTable(&b, Metadata{AlphaDeg: 4}, cs); err != nil {
+		t.Fatal(err)
+	}
+	recs := readCSV(t, b.Bytes())
+	if len(recs) != 5 {
+		t.Fatalf("%d rows, want a header and 4 stations", len(recs))
+	}
+	var sides, regimes, ctau []string
+	for _, r := range recs[1:] {
+		sides, regimes, ctau = append(sides, r[1]), append(regimes, r[12]), append(ctau, r[11])
+	}
+	if want := []string{"upper", "upper", "lower", "wake"}; !slices.Equal(sides, want) {
+		t.Errorf("sides %v, want %v", sides, want)
+	}
+	if want := []string{"laminar", "turbulent", "laminar", "wake"}; !slices.Equal(regimes, want) {
+		t.Errorf("regimes %v, want %v", regimes, want)
+	}
+	if want := []string{"", "0.01", "", "0.02"}; !slices.Equal(ctau, want) {
+		t.Errorf("shear-stress cells %q, want %q", ctau, want)
 	}
 }
