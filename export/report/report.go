@@ -132,7 +132,8 @@ func Write(w io.Writer, in Input) error {
 	if in.Coupled == nil {
 		in.Coupled = CoupledFrom(in.Study, in.Result)
 	}
-	r := &writer{in: in, pdf: fpdf.New("P", "mm", size, "")}
+	in, glyphNote := printable(in)
+	r := &writer{in: in, pdf: fpdf.New("P", "mm", size, ""), glyphNote: glyphNote}
 	r.setup()
 	r.summaryPage()
 	r.inputsSection()
@@ -152,10 +153,11 @@ func Write(w io.Writer, in Input) error {
 
 // writer builds one report.
 type writer struct {
-	in     Input
-	pdf    *fpdf.Fpdf
-	figErr error
-	figN   int
+	in        Input
+	glyphNote string // characters the font cannot draw, replaced (printable)
+	pdf       *fpdf.Fpdf
+	figErr    error
+	figN      int
 }
 
 func (r *writer) err() error {

@@ -52,6 +52,9 @@ func (r *writer) warnings() []warning {
 	for _, f := range r.flags() {
 		out = append(out, warning{"plausibility (" + string(f.Kind) + ")", f.Message})
 	}
+	if r.glyphNote != "" {
+		out = append(out, warning{"names", r.glyphNote})
+	}
 	if n := reynoldsMismatch(st, res); n != "" {
 		out = append(out, warning{"flow", n})
 	}
