@@ -272,9 +272,14 @@ func solveText(w io.Writer, st *model.Study, res *engine.Result, out jsonSolve) 
 	fmt.Fprintf(tw, "angle of attack\t%.3f°\t(%s)\n", sol.AlphaDeg, model.AngleSense(st.Inverted))
 	fmt.Fprintf(tw, "frame\t%s\n", model.FrameText)
 	fmt.Fprintf(tw, "panels\t%d per element, %s spacing (nose %.2f, tail %.2f)\n", st.Panelling.Panels, st.Panelling.Spacing, st.Panelling.Nose, st.Panelling.Tail)
-	fmt.Fprintf(tw, "Cl (circulation)\t%.5f\n", sol.Cl)
-	fmt.Fprintf(tw, "Cl (pressure)\t%.5f\n", sol.ClPressure)
-	fmt.Fprintf(tw, "Cm\t%.5f\t(%s, about the main element's quarter chord)\n", sol.Cm, model.MomentSense(st.Inverted))
+	// With a viscous solution, the panel method's numbers say what they are.
+	inv, cm := "", "Cm"
+	if res.Coupled != nil || res.Viscous != nil {
+		inv, cm = "inviscid, ", "Cm (inviscid)"
+	}
+	fmt.Fprintf(tw, "Cl (%scirculation)\t%.5f\n", inv, sol.Cl)
+	fmt.Fprintf(tw, "Cl (%spressure)\t%.5f\n", inv, sol.ClPressure)
+	fmt.Fprintf(tw, "%s\t%.5f\t(%s, about the main element's quarter chord)\n", cm, sol.Cm, model.MomentSense(st.Inverted))
 	fmt.Fprintf(tw, "minimum Cp\t%.4f at x/c = %.4f\n", float64(out.CpMin), float64(out.XCpMin))
 	fmt.Fprintf(tw, "stagnation point\tx = %.5f, y = %.5f\n", float64(out.Stagnation.X), float64(out.Stagnation.Y))
 	if st.Inverted {
