@@ -297,7 +297,17 @@ func resultFlags(res *engineResult) []model.Flag {
 	for _, e := range res.Solution.Elements {
 		cp = math.Min(cp, e.CpMin)
 	}
-	return model.Plausibility(model.PointFacts{CpMin: cp, HOverC: hOverC(res)})
+	return model.Plausibility(model.PointFacts{CpMin: cp, HOverC: hOverC(res), Viscous: viscousFacts(res.Coupled)})
+}
+
+// viscousFacts is the coupled viscous solution's verdict on a point, nil
+// when it did not run. The separated state is left to the viscous
+// solution's own rule once it states one.
+func viscousFacts(p *engine.CoupledPoint) *model.ViscousFacts {
+	if p == nil {
+		return nil
+	}
+	return &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged}
 }
 
 // sweepFlags returns the plausibility flags of one angle of a sweep.

@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 )
 
 // TestPlausibilityFlagsShown: the two-element wing at 5 mm from the ground
@@ -30,5 +31,18 @@ func TestPlausibilityFlagsShown(t *testing.T) {
 	current(t, w)
 	if s := w.status.Full(); strings.Contains(s, string(model.FlagGround)) {
 		t.Errorf("status line %q still flags the ground at 150 mm", s)
+	}
+}
+
+// TestViscousFlagsPlugIn: the coupled viscous solution's states raise
+// their flags in words.
+func TestViscousFlagsPlugIn(t *testing.T) {
+	if viscousFacts(nil) != nil {
+		t.Error("facts without a viscous solution")
+	}
+	res := &engineResult{Coupled: &engine.CoupledPoint{Converged: false, PastClMax: true}}
+	fl := model.Plausibility(model.PointFacts{CpMin: -1, HOverC: hOverC(res), Viscous: viscousFacts(res.Coupled)})
+	if got := model.FlagWords(fl); got != string(model.FlagPastClMax)+"; "+string(model.FlagNotConverged) {
+		t.Errorf("flags %q", got)
 	}
 }
