@@ -222,23 +222,26 @@ func (d *densityWindow) tableCell(id widget.TableCellID, o fyne.CanvasObject) {
 	rec := r.Nose == ser.Nose && r.Panels == ser.RecommendedPanels
 	l.TextStyle = fyne.TextStyle{Bold: rec}
 	var s string
-	switch id.Col {
-	case 0:
+	switch {
+	case id.Col == 0:
 		s = strconv.Itoa(r.Panels)
 		if rec {
 			s += " ←"
 		}
-	case 1:
+	case id.Col == 1:
 		s = fixed(r.Nose, 2)
-	case 2:
+	case !r.Solved():
+		// The reason is under the table (showOutcome); never NaN here.
+		s = map[bool]string{true: "skipped", false: "—"}[id.Col == 2]
+	case id.Col == 2:
 		s = fixed(r.Cl, 4)
-	case 3:
+	case id.Col == 3:
 		s = signed(r.DCl, 5)
-	case 4:
+	case id.Col == 4:
 		s = fixed(r.Cm, 4)
-	case 5:
+	case id.Col == 5:
 		s = fixed(r.CpMin, 3)
-	case 6:
+	case id.Col == 6:
 		s = signed(r.DCpMin, 4)
 	}
 	l.SetText(s)
@@ -543,6 +546,15 @@ func (d *densityWindow) showOutcome() {
 	}
 	ser := res.Series[d.seriesIdx]
 	text := fmt.Sprintf("%s at α = %s°, %d solves.", st.Name, num(st.Flow.AlphaDeg), len(res.Rows))
+	var skipped []string
+	for _, r := range res.Rows {
+		if !r.Solved() {
+			skipped = append(skipped, fmt.Sprintf("%d panels (nose %s): %s", r.Panels, fixed(r.Nose, 2), firstLine(r.Skipped)))
+		}
+	}
+	if n := len(skipped); n > 0 {
+		text += fmt.Sprintf(" %d count%s skipped: %s.", n, plural(n), strings.Join(skipped, "; "))
+	}
 	fresh := d.fresh()
 	if !fresh {
 		text += " The study has changed since (other than its panelling): run it again."

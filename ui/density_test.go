@@ -233,3 +233,36 @@ func TestPanelSizesFollowStudy(t *testing.T) {
 		t.Error("a ratio limit below 1 shows no message")
 	}
 }
+
+// TestDensitySkippedRows: a count the configuration cannot be solved at
+// (the two-element wing's slot narrower than 20 panels resolve) shows as
+// skipped with its reason, never as NaN.
+func TestDensitySkippedRows(t *testing.T) {
+	w := openRearWing(t)
+	w.openDensity(densityTabConvergence)
+	w.WaitIdle()
+	d := w.density
+	d.panels.SetText("20, 80, 160")
+	d.start()
+	w.WaitIdle()
+	rows, cols := d.tableSize()
+	skipped := 0
+	for r := range rows {
+		for c := range cols {
+			l := d.table.CreateCell().(*widget.Label)
+			d.tableCell(widget.TableCellID{Row: r, Col: c}, l)
+			if strings.Contains(l.Text, "NaN") {
+				t.Errorf("row %d column %d shows %q", r, c, l.Text)
+			}
+			if c == 2 && l.Text == "skipped" {
+				skipped++
+			}
+		}
+	}
+	if skipped == 0 {
+		t.Fatalf("no row skipped at 20 panels (%s)", d.caseLabel.Text)
+	}
+	if !strings.Contains(d.caseLabel.Text, "skipped: 20 panels") {
+		t.Errorf("summary %q does not give the skipped count and its reason", d.caseLabel.Text)
+	}
+}
