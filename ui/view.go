@@ -326,7 +326,7 @@ func (p *plotCanvas) ResetZoom() { p.setWindow(viewWindow{}, false) }
 
 // ZoomBy scales the window by f about the data point (cx, cy); f < 1 zooms in.
 func (p *plotCanvas) ZoomBy(f, cx, cy float64) {
-	w, ok := p.window()
+	w, ok := p.asked()
 	if !ok || !(f > 0) {
 		return
 	}
@@ -336,9 +336,23 @@ func (p *plotCanvas) ZoomBy(f, cx, cy float64) {
 	}, true)
 }
 
+// asked returns the window last asked for when zoomed, else the one on
+// screen. The figure widens the window it is given to keep x and y at one
+// scale, so zooming and panning start from what was asked: a step in and a
+// step out then return exactly where they began.
+func (p *plotCanvas) asked() (viewWindow, bool) {
+	p.mu.Lock()
+	w, zoomed := p.win, p.zoomed
+	p.mu.Unlock()
+	if zoomed {
+		return w, true
+	}
+	return p.window()
+}
+
 // ZoomCentre scales the window about its centre.
 func (p *plotCanvas) ZoomCentre(f float64) {
-	w, ok := p.window()
+	w, ok := p.asked()
 	if ok {
 		p.ZoomBy(f, (w.XMin+w.XMax)/2, (w.YMin+w.YMax)/2)
 	}
@@ -379,7 +393,7 @@ func (p *plotCanvas) Dragged(e *fyne.DragEvent) {
 		return
 	}
 	f := p.Figure()
-	w, ok := p.window()
+	w, ok := p.asked()
 	if f == nil || !ok {
 		return
 	}
