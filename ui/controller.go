@@ -59,6 +59,8 @@ type Controller struct {
 	pinBaseSecs []*model.Section      // its sections
 	elem        int                   // element the section controls edit
 	sweepRun    context.CancelFunc
+	pinGen      uint64 // generation a pin waits for; 0 when none (PinCurrent)
+	errGen      uint64 // generation whose request failed with resErr
 
 	saveWrap func(io.Writer) io.Writer // tests: stands between Save's encoder and the file
 }
@@ -214,6 +216,7 @@ func (c *Controller) step(f func(*model.Study) (*model.Study, bool)) bool {
 
 // changed submits the study for solving and tells the UI.
 func (c *Controller) changed(geometry bool) {
+	c.dropWaitingPin()
 	st := c.state.study
 	live := liveSweep(st)
 	if geometry || live {
@@ -261,6 +264,9 @@ func (c *Controller) deliver(u update, res *engineResult, err error) {
 	var sc *scene
 	c.mu.Lock()
 	c.resErr = err
+	if err != nil {
+		c.errGen = u.gen
+	}
 	if err == nil {
 		c.result, c.resGen = res, u.gen
 		if u.req.Sweep {
@@ -272,6 +278,7 @@ func (c *Controller) deliver(u update, res *engineResult, err error) {
 	if c.OnResult != nil {
 		c.OnResult(u.gen, sc, res, err)
 	}
+	c.pinArrived(u.gen, err)
 }
 
 // liveSweep reports whether the study's sweep runs with every update.
@@ -353,24 +360,84 @@ func (c *Controller) CancelSweep() {
 	c.mu.Unlock()
 }
 
-// PinCurrent freezes the current result as a pin of the study. It waits
-// for a solve in flight (not for a running sweep).
+// PinCurrent freezes the current result as a pin of the study. It never
+// waits for a solve: when the newest request is still being solved, the
+// pin is taken on the UI goroutine as soon as its result arrives (tests:
+// WaitIdle), and an error that prevents it then goes to OnError. A change
+// of the study before that result arrives drops the waiting pin, with an
+// error through OnError. UI goroutine only.
 func (c *Controller) PinCurrent() error {
-	c.sched.Wait()
-	res, gen, err := c.Result()
-	if err != nil {
-		return err
-	}
-	if res == nil || gen != c.sched.Latest() {
-		return errors.New("no current result to pin yet")
-	}
 	if len(c.state.study.Pins) >= maxPins {
 		return fmt.Errorf("at most %d pins; clear them first", maxPins)
 	}
+	latest := c.sched.Latest()
+	c.mu.Lock()
+	ready := c.result != nil && c.resGen == latest
+	var failed error
+	if c.resErr != nil && c.errGen == latest {
+		failed = c.resErr
+	}
+	if !ready && failed == nil {
+		c.pinGen = latest
+	}
+	c.mu.Unlock()
+	switch {
+	case ready:
+		return c.pin()
+	case failed != nil:
+		return failed
+	}
+	return nil
+}
+
+// pinArrived is called by deliver (worker goroutine) with each result: it
+// takes the pin waiting for generation gen on the UI goroutine.
+func (c *Controller) pinArrived(gen uint64, err error) {
+	c.mu.Lock()
+	waiting := c.pinGen != 0 && c.pinGen == gen
+	if waiting {
+		c.pinGen = 0
+	}
+	c.mu.Unlock()
+	if !waiting {
+		return
+	}
+	c.do(func() {
+		if err == nil && gen != c.sched.Latest() {
+			err = errors.New("the study changed before its solve finished")
+		}
+		if err == nil {
+			err = c.pin()
+		}
+		if err != nil && c.OnError != nil {
+			c.OnError(fmt.Errorf("the pin was not taken: %w", err))
+		}
+	})
+}
+
+// dropWaitingPin forgets a pin waiting for a solve the study has moved
+// past, and says so. UI goroutine.
+func (c *Controller) dropWaitingPin() {
+	c.mu.Lock()
+	waiting := c.pinGen != 0
+	c.pinGen = 0
+	c.mu.Unlock()
+	if waiting && c.OnError != nil {
+		c.OnError(errors.New("the pin was not taken: the study changed before its solve finished"))
+	}
+}
+
+// pin adds the current result, which must be the newest, as a pin. UI
+// goroutine.
+func (c *Controller) pin() error {
+	res, _, _ := c.Result()
+	if res == nil {
+		return errors.New("no current result to pin yet")
+	}
 	label := pinLabel(c.pinBase, c.state.study, c.pinBaseSecs, c.state.sections)
-	pin := pinFromResult(label, res, c.Sweep())
+	p := pinFromResult(label, res, c.Sweep())
 	base := cloneStudy(c.state.study)
-	if err := c.Edit("", func(st *model.Study) { st.Pins = append(st.Pins, pin) }); err != nil {
+	if err := c.Edit("", func(st *model.Study) { st.Pins = append(st.Pins, p) }); err != nil {
 		return err
 	}
 	c.pinBase, c.pinBaseSecs = base, c.state.sections

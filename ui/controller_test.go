@@ -1,7 +1,9 @@
 package ui
 
 import (
+	"context"
 	"testing"
+	"time"
 
 	"sectionbench/model"
 )
@@ -95,5 +97,47 @@ func TestDensityPlanKeepsSweep(t *testing.T) {
 	w.WaitIdle()
 	if w.ctl.Sweep() != nil {
 		t.Error("a sweep dropped by a panelling change came back on undo")
+	}
+}
+
+// heldEngine holds every run until hold is closed, then solves for real.
+type heldEngine struct {
+	inner studyRunner
+	hold  chan struct{}
+}
+
+func (h *heldEngine) Run(ctx context.Context, req engineRequest) (*engineResult, error) {
+	<-h.hold
+	return h.inner.Run(ctx, req)
+}
+
+// PinCurrent never waits for a solve on the UI goroutine: with the newest
+// request held in the engine it returns at once, and the pin is taken when
+// that result arrives.
+func TestPinCurrentDoesNotWait(t *testing.T) {
+	w := newTestBench(t)
+	held := &heldEngine{inner: w.ctl.sched.eng, hold: make(chan struct{})}
+	w.ctl.sched.eng = held // idle: the next Submit starts the worker
+	if err := w.ctl.SetAlpha("", 3); err != nil {
+		t.Fatal(err)
+	}
+	returned := make(chan error)
+	go func() { returned <- w.ctl.PinCurrent() }()
+	select {
+	case err := <-returned:
+		if err != nil {
+			t.Fatal(err)
+		}
+	case <-time.After(10 * time.Second):
+		close(held.hold)
+		t.Fatal("PinCurrent waited for the solve")
+	}
+	if n := len(w.ctl.Study().Pins); n != 0 {
+		t.Fatalf("%d pins before the solve finished", n)
+	}
+	close(held.hold)
+	w.WaitIdle()
+	if pins := w.ctl.Study().Pins; len(pins) != 1 {
+		t.Fatalf("%d pins after the solve, want 1", len(pins))
 	}
 }

@@ -241,7 +241,10 @@ func TestSaveAndReopen(t *testing.T) {
 	w := newTestBench(t)
 	w.controls.panelEntry.submit("120")
 	w.controls.alphaEntry.submit("−2")
-	w.ctl.PinCurrent()
+	if err := w.ctl.PinCurrent(); err != nil {
+		t.Fatal(err)
+	}
+	w.WaitIdle() // the pin waits for the solve of N = 120, α = −2°
 	if !w.ctl.Dirty() || !strings.Contains(w.Window().Title(), "•") {
 		t.Errorf("edited study not marked unsaved (title %q)", w.Window().Title())
 	}
@@ -282,6 +285,7 @@ func TestPinsAppearAndClear(t *testing.T) {
 	if err := w.ctl.PinCurrent(); err != nil {
 		t.Fatal(err)
 	}
+	w.WaitIdle() // the pin waits for the solve at 80 panels
 	pins := w.ctl.Study().Pins
 	if len(pins) != 2 {
 		t.Fatalf("%d pins, want 2", len(pins))
