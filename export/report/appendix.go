@@ -144,11 +144,18 @@ func (r *writer) appendix() {
 		return
 	}
 	r.pdf.SetAttachments([]fpdf.Attachment{{Content: b, Filename: "study.json", Description: "The study as solved"}})
+	// The study is kept on one page when it fits one: a page holding the
+	// last few lines alone helps nobody.
+	const lineH = 2.9
+	lines := strings.Split(strings.TrimRight(string(b), "\n"), "\n")
+	if h := float64(len(lines))*lineH + 8; h > r.space() && h <= r.pageBody() {
+		r.pdf.AddPage()
+	}
 	r.subheading("The study as solved (study.json)")
 	p := r.pdf
-	p.SetFont(monoFamily, "", 7)
-	for _, line := range strings.Split(strings.TrimRight(string(b), "\n"), "\n") {
-		p.MultiCell(0, 3.2, line, "", "L", false)
+	p.SetFont(monoFamily, "", 6.5)
+	for _, line := range lines {
+		p.MultiCell(0, lineH, line, "", "L", false)
 	}
 	p.SetFont(fontFamily, "", bodyPt)
 }

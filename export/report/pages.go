@@ -191,7 +191,7 @@ func (r *writer) resultsSection() {
 			kv = append(kv, [2]string{fmt.Sprintf("Downforce over a %s m span (2-D, no end effects)", num(f.SpanM, 3)), num(f.DownforcePerSpan*f.SpanM, 1) + " N"})
 		}
 	}
-	r.need(minSpaceMM + 20)
+	r.need(minSpaceMM + 10)
 	r.heading("Results")
 	r.subheading("Configuration")
 	r.keyValues(kv)

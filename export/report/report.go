@@ -215,6 +215,12 @@ func (r *writer) space() float64 {
 	return h - marginMM - footerMM - r.pdf.GetY()
 }
 
+// pageBody is the height a page offers between its margins and footer.
+func (r *writer) pageBody() float64 {
+	_, h := r.pdf.GetPageSize()
+	return h - 2*marginMM - footerMM
+}
+
 func (r *writer) need(mm float64) {
 	if r.space() < mm {
 		r.pdf.AddPage()
