@@ -73,3 +73,29 @@ func TestFlagMessages(t *testing.T) {
 		})
 	}
 }
+
+// TestGroundBandFlagged: 10 mm over a 250 mm chord (h/c 0.04, a front
+// wing's height; it gave Cl −36 without a word) is solved with the
+// caution that real wings lose downforce there; 60 mm is not flagged.
+func TestGroundBandFlagged(t *testing.T) {
+	for _, tc := range []struct {
+		h      string
+		warned bool
+	}{{"10", true}, {"60", false}} {
+		study := filepath.Join(t.TempDir(), "front.json")
+		os.WriteFile(study, []byte(`{"format": "sectionbench-study", "version": 2, "name": "front",
+			"elements": [{"name": "main", "section": "naca:4412", "chord_mm": 250}],
+			"ground": {"enabled": true, "clearance_mm": `+tc.h+`}, "inverted": true}`), 0o644)
+		code, out, stderr := runCLI(t, "solve", "--study", study, "--format", "json")
+		if code != exitOK {
+			t.Fatalf("exit %d: %s", code, stderr)
+		}
+		var r struct{ Warnings []string }
+		if err := json.Unmarshal([]byte(out), &r); err != nil {
+			t.Fatal(err)
+		}
+		if got := strings.Contains(strings.Join(r.Warnings, "\n"), "lose downforce"); got != tc.warned {
+			t.Errorf("%s mm: flagged %v, want %v (%q)", tc.h, got, tc.warned, r.Warnings)
+		}
+	}
+}
