@@ -195,8 +195,10 @@ func fieldLabel(path string) string {
 		return "Upper trip"
 	case "viscous.trip_lower":
 		return "Lower trip"
-	case "viscous.enabled":
-		return "Boundary layer"
+	case "viscous.enabled", "viscous.mode":
+		return "Viscous solution"
+	case "viscous.transition_n":
+		return "Critical amplification N"
 	case "elements":
 		return "Elements"
 	case "panelling.panels":
@@ -406,7 +408,7 @@ func newControls(w *Workbench) *controls {
 	flow := container.NewVBox(
 		c.fc.box(),
 		widget.NewSeparator(),
-		heading("Boundary layer"),
+		heading("Viscous solution"),
 		c.vc.box(),
 	)
 	solve := container.NewVBox(

@@ -20,7 +20,7 @@ func TestStatusLineFits(t *testing.T) {
 	fc.unit.SetSelected(unitMPS)
 	fc.speed.submit("25")
 	fc.span.submit("1.1")
-	w.controls.vc.enabled.SetChecked(true)
+	w.controls.vc.mode.SetSelected(modeEstimate)
 	for _, width := range []float32{windowWidth, 1000} {
 		w.Window().Resize(fyne.NewSize(width, windowHeight))
 		current(t, w)

@@ -51,7 +51,7 @@ func TestBoundaryLayerToggle(t *testing.T) {
 	if !pv.blToggle.Hidden || !polar.polarMode.Hidden {
 		t.Error("boundary-layer view switches offered with the estimate off")
 	}
-	vc.enabled.SetChecked(true)
+	vc.mode.SetSelected(modeEstimate)
 	res := current(t, w)
 	if res.Viscous == nil {
 		t.Fatalf("no boundary layer in the result (%s)", vc.msg.Text)
@@ -114,7 +114,7 @@ func TestBoundaryLayerToggle(t *testing.T) {
 	}
 
 	// Off again: the views go back to Cp and Cl, Cm.
-	vc.enabled.SetChecked(false)
+	vc.mode.SetSelected(modeOff)
 	res = current(t, w)
 	if res.Viscous != nil || pv.canvas.figure() != figPressure || polar.canvas.figure() != figPolar || !pv.blToggle.Hidden {
 		t.Error("turning the estimate off left boundary-layer figures")
@@ -125,17 +125,17 @@ func TestBoundaryLayerNeedsSpeed(t *testing.T) {
 	w := newStudyBench(t) // no speed
 	vc := w.controls.vc
 	before := encoded(t, w.ctl.Study())
-	vc.enabled.SetChecked(true)
+	vc.mode.SetSelected(modeEstimate)
 	w.WaitIdle()
 	if vc.msg.Hidden || !strings.Contains(vc.msg.Text, "speed or a Reynolds number") {
 		t.Errorf("message %q", vc.msg.Text)
 	}
-	if vc.enabled.Checked || encoded(t, w.ctl.Study()) != before {
+	if vc.mode.Selected != modeOff || encoded(t, w.ctl.Study()) != before {
 		t.Error("the estimate was switched on without a speed")
 	}
 	// With a Reynolds number entered directly it runs.
 	w.controls.fc.reynolds.submit("5e5")
-	vc.enabled.SetChecked(true)
+	vc.mode.SetSelected(modeEstimate)
 	if res := current(t, w); res.Viscous == nil {
 		t.Errorf("no boundary layer with Re = 5×10⁵ (%s)", vc.msg.Text)
 	}

@@ -622,7 +622,7 @@ func TestSecondElementEdits(t *testing.T) {
 // is left out.
 func TestExportCarriesSweepAndDensity(t *testing.T) {
 	w, d := openDensityTest(t)
-	w.controls.vc.enabled.SetChecked(true)
+	w.controls.vc.mode.SetSelected(modeEstimate)
 	if err := w.ctl.SetSweep(model.SweepRange{FromDeg: -2, ToDeg: 2, StepDeg: 2}); err != nil {
 		t.Fatal(err)
 	}
