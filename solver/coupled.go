@@ -103,6 +103,18 @@ func (s *System) SolveCoupled(ctx context.Context, alphaDeg float64, opt Coupled
 	return s.solveCoupled(ctx, alphaDeg, opt, warm, maxAlphaHalvings)
 }
 
+// warmDirectIterations is how many Newton iterations a warm start tries
+// with the full coupling before it turns to the continuation.
+const warmDirectIterations = 12
+
+// tolerance returns the convergence tolerance of opt.
+func tolerance(opt CoupledOptions) float64 {
+	if opt.Tolerance > 0 {
+		return opt.Tolerance
+	}
+	return defaultTolerance
+}
+
 // maxAlphaHalvings bounds the continuation in α of SolveCoupled, and
 // minAlphaStep the smallest step (degrees) it splits.
 const (
@@ -152,12 +164,24 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	var iters int
 	var res float64
 	if warm != nil && warm.state != nil && warm.state.sol.sys == s && cs.warmFrom(warm.state) {
-		// The neighbour's boundary layers solve their own equations on
-		// the neighbour's edge velocities: the continuation starts from
-		// there.
-		conv, iters, res, err = cs.solve(ctx, warm.state.ue())
+		// First the full coupling straight from the neighbour's state,
+		// which converges in a few iterations when the neighbour is
+		// close; failing that, a continuation from the neighbour's
+		// boundary layers, which solve their own equations on the
+		// neighbour's edge velocities.
+		snap := cs.snapshot()
+		conv, iters, res, err = cs.iterate(ctx, warmDirectIterations, tolerance(opt), true)
 		if err != nil {
 			return nil, err
+		}
+		if !conv {
+			cs.restore(snap)
+			var n int
+			conv, n, res, err = cs.solve(ctx, warm.state.ue())
+			iters += n
+			if err != nil {
+				return nil, err
+			}
 		}
 	}
 	if !conv && (cold || iters == 0) {

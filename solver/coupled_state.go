@@ -384,3 +384,34 @@ func (cs *coupledState) coupling() float64 {
 	}
 	return 1
 }
+
+// snapshot is a copy of everything a Newton iteration may change.
+type snapshot struct {
+	stag     []int
+	sStag    []float64
+	base     []int
+	st       []station
+	ue0, d   []float64
+	c, th, m []float64
+}
+
+func (cs *coupledState) snapshot() snapshot {
+	cp := func(x []float64) []float64 { return append([]float64(nil), x...) }
+	return snapshot{
+		stag: append([]int(nil), cs.stag...), sStag: cp(cs.sStag), base: append([]int(nil), cs.base...),
+		st: append([]station(nil), cs.st...), ue0: cp(cs.ue0), d: cp(cs.d),
+		c: cp(cs.c), th: cp(cs.th), m: cp(cs.m),
+	}
+}
+
+func (cs *coupledState) restore(s snapshot) {
+	copy(cs.stag, s.stag)
+	copy(cs.sStag, s.sStag)
+	cs.base = append(cs.base[:0], s.base...)
+	cs.st = append(cs.st[:0], s.st...)
+	copy(cs.ue0, s.ue0)
+	copy(cs.d, s.d)
+	copy(cs.c, s.c)
+	copy(cs.th, s.th)
+	copy(cs.m, s.m)
+}
