@@ -95,3 +95,12 @@ func FlagWords(flags []Flag) string {
 	}
 	return s
 }
+
+// HOverC returns the ground clearance over the main element's chord (the
+// h/c of GroundHOverCMin), NaN in free air or for a nil layout.
+func (l *Layout) HOverC() float64 {
+	if l == nil || !l.Ground || len(l.Elements) == 0 {
+		return math.NaN()
+	}
+	return l.ClearanceM / l.Elements[0].Chord
+}

@@ -316,14 +316,8 @@ func sweepFlags(res *engineResult, c solver.Coefficients) []model.Flag {
 }
 
 // hOverC is the ground clearance over the main element's chord, NaN in
-// free air.
-func hOverC(res *engineResult) float64 {
-	l := res.Layout
-	if l == nil || !l.Ground || len(l.Elements) == 0 {
-		return math.NaN()
-	}
-	return l.ClearanceM / l.Elements[0].Chord
-}
+// free air (model.Layout.HOverC).
+func hOverC(res *engineResult) float64 { return res.Layout.HOverC() }
 
 // pinColour is the colour the views draw pin i in (figure.PinColour).
 func pinColour(i int, dark bool) color.Color { return figures.PinColour(i, dark) }

@@ -4,6 +4,7 @@ import (
 	"context"
 	"fmt"
 	"io"
+	"strings"
 	"text/tabwriter"
 
 	"sectionbench/export/format"
@@ -25,6 +26,9 @@ type jsonSweepRow struct {
 	jsonViscous
 	jsonCoupled
 	PastClMax *bool `json:"past_cl_max,omitempty"`
+	// Flags name, in words, why the row is not to be trusted
+	// (model.Plausibility); empty when nothing is flagged.
+	Flags []string `json:"flags"`
 }
 
 // jsonSweep is the sweep's JSON: its rows and, in coupled mode, the
@@ -98,7 +102,29 @@ func sweepJSON(res *engine.Result) jsonSweep {
 				out.Warnings = append(out.Warnings, notConverged(p))
 			}
 		}
+		r.Flags = rowFlags(res, c.CpMin, coupledAt(res, i))
 		out.Rows[i] = r
+	}
+	return out
+}
+
+// coupledAt returns row i of the coupled sweep, nil without one.
+func coupledAt(res *engine.Result, i int) *engine.CoupledPoint {
+	if res.SweepCoupled == nil {
+		return nil
+	}
+	return &res.SweepCoupled[i]
+}
+
+// rowFlags returns the kinds of the plausibility flags of a sweep row.
+func rowFlags(res *engine.Result, cpMin float64, p *engine.CoupledPoint) []string {
+	f := model.PointFacts{CpMin: cpMin, HOverC: res.Layout.HOverC()}
+	if p != nil {
+		f.Viscous = &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged}
+	}
+	out := []string{}
+	for _, fl := range model.Plausibility(f) {
+		out = append(out, string(fl.Kind))
 	}
 	return out
 }
@@ -111,6 +137,7 @@ func sweepText(w io.Writer, res *engine.Result) error {
 	if res.SweepViscous != nil {
 		head += "cd\tx_tr_upper\tx_tr_lower\t"
 	}
+	head += "flags\t"
 	fmt.Fprintln(tw, head)
 	for i, c := range res.Sweep {
 		fmt.Fprintf(tw, "%.3f\t%.5f\t%.5f\t%.5f\t%.4f\t", c.AlphaDeg, c.Cl, c.ClPressure, c.Cm, c.CpMin)
@@ -118,6 +145,7 @@ func sweepText(w io.Writer, res *engine.Result) error {
 			v := res.SweepViscous[i]
 			fmt.Fprintf(tw, "%s\t%s\t%s\t", fmtShort(v.Cd, "%.5f"), fmtShort(v.TransitionUpper, "%.3f"), fmtShort(v.TransitionLower, "%.3f"))
 		}
+		fmt.Fprintf(tw, "%s\t", flagsText(rowFlags(res, c.CpMin, nil)))
 		fmt.Fprintln(tw)
 	}
 	return tw.Flush()
@@ -157,6 +185,14 @@ func sweepCoupledText(w io.Writer, res *engine.Result) error {
 	}
 	_, err := fmt.Fprintf(w, "largest Cl %.4f at %g°; no converged row beyond it shows lift falling, so Cl max is not found in this sweep\n", res.ClMax, res.AlphaClMax)
 	return err
+}
+
+// flagsText joins a row's flags, or a dash for none.
+func flagsText(f []string) string {
+	if len(f) == 0 {
+		return "—"
+	}
+	return strings.Join(f, "; ")
 }
 
 func fmtShort(f float64, format string) string {

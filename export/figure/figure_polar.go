@@ -99,16 +99,6 @@ func clSlope(alpha, cl []float64) float64 {
 	return (n*sac - sa*sc) / den
 }
 
-// sceneHOverC is the ground clearance over the main element's chord, NaN
-// in free air.
-func sceneHOverC(sc *Scene) float64 {
-	l := sc.Layout
-	if l == nil || !sc.Ground || len(l.Elements) == 0 {
-		return math.NaN()
-	}
-	return l.ClearanceM / l.Elements[0].Chord
-}
-
 // polarPlot draws Cl (left axis) and Cm (right axis) against the angle of
 // attack for the sweep, the current angle marked and pins as faded dotted
 // curves.
@@ -185,7 +175,10 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	// Points the plausibility rules flag (model.Plausibility), ringed.
 	var flagged plotter.XYs
 	var kinds []model.Flag
-	hc := sceneHOverC(sc)
+	hc := math.NaN()
+	if sc.Ground {
+		hc = sc.Layout.HOverC()
+	}
 	for i, c := range sc.Sweep {
 		if fl := model.Plausibility(model.PointFacts{CpMin: c.CpMin, HOverC: hc}); len(fl) > 0 {
 			flagged = append(flagged, xl[i])
