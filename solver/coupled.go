@@ -2,6 +2,7 @@ package solver
 
 import (
 	"context"
+	"fmt"
 	"math"
 
 	bl "sectionbench/solver/boundarylayer"
@@ -80,7 +81,10 @@ type CoupledSolution struct {
 	Converged  bool
 	Iterations int
 	Residual   float64 // largest relative change of the last iteration
-	Inviscid   *Solution
+	// Rejected says, in words, why iterations that met the tolerance were
+	// not accepted as converged (empty otherwise).
+	Rejected string
+	Inviscid *Solution
 
 	state *coupledState // for warm starts
 }
@@ -183,6 +187,9 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 				return nil, err
 			}
 		}
+		if conv && implausible(cs.result()) != "" {
+			conv = false // try from the march
+		}
 	}
 	if !conv && (cold || iters == 0) {
 		// A cold start, or a warm start that failed: from the march.
@@ -200,5 +207,34 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	}
 	out := cs.result()
 	out.Converged, out.Iterations, out.Residual = conv, iters, res
+	if conv {
+		if why := implausible(out); why != "" {
+			out.Converged, out.Rejected = false, why
+		}
+	}
 	return out, nil
 }
+
+// implausible returns why a solution that met the tolerance cannot be the
+// flow's, or "". The boundary layers and wakes displace the flow so that
+// the lift falls below the potential-flow lift (common practice: the
+// displacement thickens the rear of the section and the Kutta condition
+// then takes less circulation); a solution with more lift than the
+// inviscid one by more than liftExcess is a spurious root of the
+// discrete equations (seen on E387 at Re 3e5 and 0°, with the lower
+// surface "separating" at its last station).
+func implausible(s *CoupledSolution) string {
+	inv := s.ClInviscid
+	if math.Copysign(1, inv)*(s.Cl-inv) > liftExcessAbs+liftExcessRel*math.Abs(inv) {
+		return fmt.Sprintf("the iterations met their tolerance with Cl %.3f, above the inviscid %.3f, which the boundary layers cannot give: a spurious solution", s.Cl, inv)
+	}
+	return ""
+}
+
+// The lift a coupled solution may have above the inviscid lift before it
+// is rejected (implausible): room for the discretisation and for the
+// pressure integration of the two solutions differing slightly.
+const (
+	liftExcessAbs = 0.01
+	liftExcessRel = 0.02
+)

@@ -83,3 +83,24 @@ func TestCoupledNewtonUncoupled(t *testing.T) {
 		t.Errorf("residual norms %.3g: want quadratic convergence to below 1e-9 in four steps", hist)
 	}
 }
+
+// A solution with more lift than the potential flow is rejected as
+// spurious (the boundary layers take lift away); one with less is not.
+func TestCoupledImplausible(t *testing.T) {
+	for _, tc := range []struct {
+		name       string
+		cl, clInv  float64
+		wantReject bool
+	}{
+		{"less lift", 0.39, 0.42, false},
+		{"within the margin", 0.425, 0.42, false},
+		{"more lift", 0.50, 0.42, true},
+		{"inverted, less downforce", -0.39, -0.42, false},
+		{"inverted, more downforce", -0.50, -0.42, true},
+	} {
+		got := implausible(&CoupledSolution{Cl: tc.cl, ClInviscid: tc.clInv}) != ""
+		if got != tc.wantReject {
+			t.Errorf("%s: Cl %.2f against inviscid %.2f: rejected %v, want %v", tc.name, tc.cl, tc.clInv, got, tc.wantReject)
+		}
+	}
+}
