@@ -32,6 +32,10 @@ type CoupledPoint struct {
 	// with an error (a wake that cannot be traced, for example); empty
 	// otherwise.
 	Note string
+	// Rejected says why iterations that met their tolerance were not
+	// accepted (a spurious solution with more lift than the inviscid
+	// one); empty otherwise.
+	Rejected string
 	// Detail is the solver's full solution (stations, wakes, bubbles);
 	// nil unless Converged.
 	Detail *solver.CoupledSolution
@@ -64,7 +68,7 @@ func coupledPoint(alphaDeg float64, cs *solver.CoupledSolution) CoupledPoint {
 		AlphaDeg: alphaDeg, Cl: nan, Cd: nan, Cm: nan,
 		ClInviscid: cs.ClInviscid, CmInviscid: cs.CmInviscid,
 		Converged: cs.Converged, Iterations: cs.Iterations, Residual: cs.Residual,
-		last: cs,
+		Rejected: cs.Rejected, last: cs,
 	}
 	if cs.Converged {
 		p.Cl, p.Cd, p.Cm, p.Detail = cs.Cl, cs.Cd, cs.Cm, cs
