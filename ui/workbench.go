@@ -134,7 +134,11 @@ func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain
 		ctl.state.path = ""
 	}
 	if pathErr != nil {
-		w.startupErr = fmt.Errorf("%s could not be opened: %s. The demo study is open instead; the file is left as it is", requested, friendly(pathErr))
+		why := friendly(pathErr)
+		if !strings.Contains(why, requested) {
+			why = requested + ": " + why
+		}
+		w.startupErr = fmt.Errorf("the study could not be opened: %s. The demo study is open instead; the file is left as it is", why)
 		showError(w.startupErr, w.win)
 	}
 	return w, nil
