@@ -298,7 +298,9 @@ func solveText(w io.Writer, st *model.Study, res *engine.Result, out jsonSolve) 
 	fmt.Fprintf(tw, "Cl (%spressure)\t%.5f\n", inv, sol.ClPressure)
 	fmt.Fprintf(tw, "%s\t%.5f\t(%s, about the main element's quarter chord)\n", cm, sol.Cm, model.MomentSense(st.Inverted))
 	fmt.Fprintf(tw, "minimum Cp\t%.4f at x/c = %.4f\n", float64(out.CpMin), float64(out.XCpMin))
-	fmt.Fprintf(tw, "stagnation point\tx = %.5f, y = %.5f\n", float64(out.Stagnation.X), float64(out.Stagnation.Y))
+	// The solution's positions are metres of the study frame (a --section
+	// study has a 1000 mm chord, so they are chord lengths there too).
+	fmt.Fprintf(tw, "stagnation point\tx = %.2f mm, y = %.2f mm\t(main element, as mounted)\n", 1000*float64(out.Stagnation.X), 1000*float64(out.Stagnation.Y))
 	if st.Inverted {
 		fmt.Fprintf(tw, "downforce coefficient\t%.5f\t(inverted: downforce positive = −Cl)\n", -sol.Cl)
 	}
