@@ -2,6 +2,7 @@ package ui
 
 import (
 	"errors"
+	"image/png"
 	"io"
 	"os"
 	"path/filepath"
@@ -114,5 +115,26 @@ func TestOpenDialogListsOnlyRegularFiles(t *testing.T) {
 		if f.Matches(storage.NewFileURI(fifo)) {
 			t.Error("a FIFO is listed in the open dialog")
 		}
+	}
+}
+
+// TestCaptureSaveDialog paints the window with the save dialog open (the
+// test driver's painter panics on a malformed widget tree).
+func TestCaptureSaveDialog(t *testing.T) {
+	w := newTestBench(t)
+	w.save(true)
+	w.saveDlg.folder = t.TempDir()
+	w.saveDlg.where.SetText(w.saveDlg.folder)
+	img := w.Window().Canvas().Capture()
+	if !varied(img) {
+		t.Error("the window with the save dialog is a single colour")
+	}
+	if p := os.Getenv("SAVE_DIALOG_PNG"); p != "" {
+		f, err := os.Create(p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		defer f.Close()
+		png.Encode(f, img)
 	}
 }
