@@ -212,20 +212,28 @@ type note struct {
 }
 
 func (n *note) Plot(c draw.Canvas, p *plot.Plot) {
+	if sty, at, ok := n.place(c, p); ok {
+		c.FillText(sty, at, n.text)
+	}
+}
+
+// place returns where the note's text goes and in which style; ok is false
+// when its point lies outside the data area.
+func (n *note) place(c draw.Canvas, p *plot.Plot) (sty text.Style, at vg.Point, ok bool) {
 	trX, trY := p.Transforms(&c)
 	pt := vg.Point{X: trX(n.x), Y: trY(n.y)}
 	if !c.Contains(pt) {
-		return
+		return sty, at, false
 	}
-	sty := n.style
-	at := pt.Add(vg.Point{X: n.dx, Y: n.dy})
+	sty = n.style
+	at = pt.Add(vg.Point{X: n.dx, Y: n.dy})
 	// A left-aligned label that would run off the right edge flips to the
 	// other side of its point.
 	if sty.XAlign == text.XLeft && at.X+sty.Width(n.text) > c.Max.X {
 		sty.XAlign = text.XRight
 		at.X = pt.X - n.dx
 	}
-	c.FillText(sty, at, n.text)
+	return sty, at, true
 }
 
 func noteStyle(th *theme, c color.Color, size float64, xa text.XAlignment, ya text.YAlignment) text.Style {
@@ -557,7 +565,6 @@ const maxNoteShifts = 8
 func (ns *noteSet) add(n *note) { ns.notes = append(ns.notes, n) }
 
 func (ns *noteSet) Plot(c draw.Canvas, p *plot.Plot) {
-	trX, trY := p.Transforms(&c)
 	var placed []vg.Rectangle
 	overlaps := func(r vg.Rectangle) bool {
 		for _, q := range placed {
@@ -568,15 +575,9 @@ func (ns *noteSet) Plot(c draw.Canvas, p *plot.Plot) {
 		return false
 	}
 	for _, n := range ns.notes {
-		pt := vg.Point{X: trX(n.x), Y: trY(n.y)}
-		if !c.Contains(pt) {
+		sty, at, ok := n.place(c, p)
+		if !ok {
 			continue
-		}
-		sty := n.style
-		at := pt.Add(vg.Point{X: n.dx, Y: n.dy})
-		if sty.XAlign == text.XLeft && at.X+sty.Width(n.text) > c.Max.X {
-			sty.XAlign = text.XRight
-			at.X = pt.X - n.dx
 		}
 		box := sty.Rectangle(n.text)
 		step := box.Max.Y - box.Min.Y + vg.Points(1)
