@@ -39,3 +39,18 @@ func TestExamplesAndStudyName(t *testing.T) {
 		t.Errorf("an empty name: message hidden %v, name %q", c.studyMsg.Hidden, w.ctl.Study().Name)
 	}
 }
+
+// TestExportNamesTeamAndStudy: exported files are named by the team and
+// the study.
+func TestExportNamesTeamAndStudy(t *testing.T) {
+	w := newTestBench(t)
+	w.controls.studyName.submit("Rear wing 2027")
+	w.controls.team.submit("Team Example")
+	if got := w.exportBase(); got != "team-example-rear-wing-2027" {
+		t.Errorf("export stem %q", got)
+	}
+	w.controls.team.submit("")
+	if got := w.exportBase(); got != "rear-wing-2027" {
+		t.Errorf("export stem without a team %q", got)
+	}
+}

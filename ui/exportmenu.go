@@ -91,9 +91,11 @@ type exportJob func(dir string) ([]string, error)
 // errNoResult is returned by an export with nothing solved yet.
 var errNoResult = errors.New("nothing to export yet: the study has not been solved")
 
-// exportBase is the stem of exported file names.
+// exportBase is the stem of exported file names: the team, when the study
+// names one, then the study's name.
 func (w *Workbench) exportBase() string {
-	return strings.TrimSuffix(fileNameFor(w.ctl.state.study.Name), ".json")
+	st := w.ctl.state.study
+	return strings.TrimSuffix(fileNameFor(strings.TrimSpace(st.Team+" "+st.Name)), ".json")
 }
 
 // writeFigures gathers, on the UI goroutine, what the figures draw: the
