@@ -304,6 +304,7 @@ func cmdReport(args []string, stdout, stderr io.Writer) error {
 		if input.Density, err = e.Density(context.Background(), st, secs, nil); err != nil {
 			return err
 		}
+		input.ViscousDensity = report.ViscousDensity(context.Background(), st, secs)
 	}
 	wrote, err := writeOutput(*out, true, stdout, func(w io.Writer) error { return report.Write(w, input) }, in.files(st))
 	if err != nil {

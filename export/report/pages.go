@@ -361,8 +361,13 @@ func (r *writer) viscousPage() {
 func (r *writer) densityPage() {
 	d := r.in.Density
 	if d == nil || len(d.Rows) == 0 {
+		if len(r.in.ViscousDensity) > 0 {
+			r.heading("Panel density study")
+			r.viscousDensitySection()
+		}
 		return
 	}
+	defer r.viscousDensitySection()
 	r.need(figureHMM + 32)
 	r.heading("Panel density study")
 	r.figure(figure.ViewDensity, r.scene(), "Cl and Cp min against the panel count for each nose clustering.", figureHMM)

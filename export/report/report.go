@@ -78,6 +78,9 @@ type Input struct {
 	CommandLine string
 	// Coupled is the coupled viscous solution's answer; nil until it runs.
 	Coupled *Coupled
+	// ViscousDensity is the density study of the drag and transition
+	// (ViscousDensity); nil leaves it out.
+	ViscousDensity []ViscousDensityRow
 }
 
 // InputFile is a file the report was made from and its SHA-256, in hex.
