@@ -34,13 +34,25 @@ type figureBox struct {
 	ticket uint64
 	shown  uint64
 
+	loop renderLoop
+
 	mu  sync.Mutex
-	fig *figure // on screen
+	req figureRequest // the newest drawing asked for
+	fig *figure       // on screen
 	err error
 }
 
+// figureRequest is a drawing asked for, gathered on the UI goroutine.
+type figureRequest struct {
+	ticket uint64
+	draw   figureRenderer
+	dark   bool
+	w, h   int
+	dpi    float64
+}
+
 func newFigureBox(act *activity, do func(func()), min fyne.Size) *figureBox {
-	b := &figureBox{act: act, do: do, min: min}
+	b := &figureBox{act: act, do: do, min: min, loop: renderLoop{act: act}}
 	b.image = canvas.NewImageFromImage(image.NewRGBA(image.Rect(0, 0, 1, 1)))
 	b.image.FillMode = canvas.ImageFillStretch
 	b.image.ScaleMode = canvas.ImageScalePixels
@@ -92,7 +104,8 @@ func (b *figureBox) setDrawing(draw figureRenderer, note string) {
 	b.redraw()
 }
 
-// redraw draws the current drawing at the current size on a goroutine.
+// redraw asks the render loop to draw the current drawing at the current
+// size; redraws asked for while one runs coalesce into one.
 func (b *figureBox) redraw() {
 	if b.draw == nil || b.size.Width < 1 || b.size.Height < 1 {
 		return
@@ -106,31 +119,39 @@ func (b *figureBox) redraw() {
 	dpi := baseDPI * float64(scale)
 	dark := fyne.CurrentApp().Settings().ThemeVariant() == theme.VariantDark
 	b.ticket++
-	t, draw := b.ticket, b.draw
-	b.act.add()
-	go func() {
-		defer b.act.done()
-		var fig *figure
-		err := recovered(func() error {
-			var err error
-			fig, err = draw(dark, w, h, dpi)
-			return err
-		})
-		b.do(func() {
-			if t < b.ticket || t <= b.shown {
-				return // a newer drawing was asked for
+	b.mu.Lock()
+	b.req = figureRequest{ticket: b.ticket, draw: b.draw, dark: dark, w: w, h: h, dpi: dpi}
+	b.mu.Unlock()
+	b.loop.request(b.drawNewest)
+}
+
+// drawNewest draws the newest request on the render loop's goroutine and
+// posts it to the UI goroutine, where a drawing older than the newest one
+// asked for is dropped.
+func (b *figureBox) drawNewest() {
+	b.mu.Lock()
+	r := b.req
+	b.mu.Unlock()
+	var fig *figure
+	err := recovered(func() error {
+		var err error
+		fig, err = r.draw(r.dark, r.w, r.h, r.dpi)
+		return err
+	})
+	b.do(func() {
+		if r.ticket < b.ticket || r.ticket <= b.shown {
+			return // a newer drawing was asked for
+		}
+		b.shown = r.ticket
+		note := ""
+		if err != nil {
+			note = friendly(err)
+			if isNoData(err) {
+				note = "Nothing to draw yet."
 			}
-			b.shown = t
-			note := ""
-			if err != nil {
-				note = friendly(err)
-				if isNoData(err) {
-					note = "Nothing to draw yet."
-				}
-			}
-			b.show(fig, err, note)
-		})
-	}()
+		}
+		b.show(fig, err, note)
+	})
 }
 
 // show puts a figure (or nothing, with a note) on screen.

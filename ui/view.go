@@ -65,13 +65,12 @@ type plotCanvas struct {
 	ticket  uint64 // last render started
 	shown   uint64 // ticket of the figure on screen
 	fig     *figure
-	pending bool // a local render is queued
-	running bool
+	loop    renderLoop
 	err     error
 }
 
 func newPlotCanvas(kind viewKind, act *activity, do func(func())) *plotCanvas {
-	p := &plotCanvas{kind: kind, act: act, do: do, shows: figureOf(kind), element: -1}
+	p := &plotCanvas{kind: kind, act: act, do: do, shows: figureOf(kind), element: -1, loop: renderLoop{act: act}}
 	p.image = canvas.NewImageFromImage(image.NewRGBA(image.Rect(0, 0, 1, 1)))
 	p.image.FillMode = canvas.ImageFillStretch
 	p.image.ScaleMode = canvas.ImageScalePixels
@@ -257,30 +256,10 @@ func viewNote(f figKind, err error, visSweep bool) string {
 // renderLater re-renders the newest scene on a goroutine of its own,
 // coalescing requests that arrive while one runs.
 func (p *plotCanvas) renderLater() {
-	p.mu.Lock()
-	if p.running {
-		p.pending = true
-		p.mu.Unlock()
-		return
-	}
-	p.running = true
-	p.mu.Unlock()
-	p.act.add()
-	go func() {
-		defer p.act.done()
-		for {
-			f := p.renderNow(nil)
-			p.do(f.show)
-			p.mu.Lock()
-			if !p.pending {
-				p.running = false
-				p.mu.Unlock()
-				return
-			}
-			p.pending = false
-			p.mu.Unlock()
-		}
-	}()
+	p.loop.request(func() {
+		f := p.renderNow(nil)
+		p.do(f.show)
+	})
 }
 
 // Figure returns the figure on screen, or nil.
