@@ -36,10 +36,11 @@ type figureBox struct {
 
 	loop renderLoop
 
-	mu  sync.Mutex
-	req figureRequest // the newest drawing asked for
-	fig *figure       // on screen
-	err error
+	mu    sync.Mutex
+	req   figureRequest // the newest drawing asked for
+	drawn uint64        // ticket of the last drawing made
+	fig   *figure       // on screen
+	err   error
 }
 
 // figureRequest is a drawing asked for, gathered on the UI goroutine.
@@ -131,7 +132,12 @@ func (b *figureBox) redraw() {
 func (b *figureBox) drawNewest() {
 	b.mu.Lock()
 	r := b.req
+	again := r.ticket <= b.drawn // a coalesced run with nothing newer
+	b.drawn = r.ticket
 	b.mu.Unlock()
+	if again {
+		return
+	}
 	var fig *figure
 	err := recovered(func() error {
 		var err error
