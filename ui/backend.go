@@ -153,7 +153,11 @@ func writeReport(w io.Writer, st *model.Study, res *engineResult, secs []*model.
 			density = d
 		}
 	}
-	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version, Sections: secs, CleanReports: reps})
+	var vd []report.ViscousDensityRow
+	if len(secs) == len(st.Elements) {
+		vd = report.ViscousDensity(context.Background(), st, secs) // nil with the boundary layer off
+	}
+	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version, Sections: secs, CleanReports: reps, ViscousDensity: vd})
 }
 
 // recovered runs f, turning a panic into an error.
