@@ -296,16 +296,16 @@ func liveSweep(st *model.Study) bool {
 // span (which only scales forces). The air and speed matter only to the
 // boundary-layer estimate, so they may differ when it is off in both.
 func equalGeometry(a, b *model.Study) bool {
-	x, y := cloneStudy(a), cloneStudy(b)
+	// Shallow copies: only their own top-level fields are overwritten, and
+	// reflect.DeepEqual follows the rest, with no encoding per keystroke.
+	x, y := *a, *b
 	y.Flow.AlphaDeg, y.Flow.SpanM = x.Flow.AlphaDeg, x.Flow.SpanM
 	y.Pins, y.Name, y.Team, y.Sweep, y.Density = x.Pins, x.Name, x.Team, x.Sweep, x.Density
 	if !x.Viscous.Enabled && !y.Viscous.Enabled {
 		y.Flow.SpeedMPS, y.Flow.TemperatureC, y.Flow.PressurePa, y.Flow.Reynolds = x.Flow.SpeedMPS, x.Flow.TemperatureC, x.Flow.PressurePa, x.Flow.Reynolds
 		y.Viscous = x.Viscous
 	}
-	ex, err1 := encodeStudy(x)
-	ey, err2 := encodeStudy(y)
-	return err1 == nil && err2 == nil && string(ex) == string(ey)
+	return reflect.DeepEqual(x, y)
 }
 
 // RunSweep runs the study's sweep on its own goroutine with an engine of
