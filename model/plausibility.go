@@ -3,6 +3,7 @@ package model
 import (
 	"fmt"
 	"math"
+	"strings"
 )
 
 // A Flag marks a result that must not be taken at face value, saying in
@@ -76,13 +77,16 @@ func Plausibility(f PointFacts) []Flag {
 		}
 	}
 	if f.CpMin < CpMinPlausible {
-		flags = append(flags, Flag{FlagSuction, fmt.Sprintf("suction peak Cp %.1f is beyond the about %d real flows sustain at these Reynolds numbers: the wing would separate and give far less force than shown", f.CpMin, CpMinPlausible)})
+		flags = append(flags, Flag{FlagSuction, fmt.Sprintf("suction peak Cp %s is beyond the about %s real flows sustain at these Reynolds numbers: the wing would separate and give far less force than shown", minus(fmt.Sprintf("%.1f", f.CpMin)), minus(fmt.Sprint(CpMinPlausible)))})
 	}
 	if !math.IsNaN(f.HOverC) && f.HOverC < GroundHOverCMin {
 		flags = append(flags, Flag{FlagGround, fmt.Sprintf("ground clearance %.2f chords is below about %.1f, where real wings lose downforce as the suction side separates; this model shows only the rise", f.HOverC, GroundHOverCMin)})
 	}
 	return flags
 }
+
+// minus writes a number's sign as a true minus, as every message does.
+func minus(s string) string { return strings.Replace(s, "-", "−", 1) }
 
 // FlagWords joins the kinds of flags for a status line or table cell.
 func FlagWords(flags []Flag) string {
