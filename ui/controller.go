@@ -59,8 +59,10 @@ type Controller struct {
 	pinBaseSecs []*model.Section      // its sections
 	elem        int                   // element the section controls edit
 	sweepRun    context.CancelFunc
-	pinGen      uint64 // generation a pin waits for; 0 when none (PinCurrent)
-	errGen      uint64 // generation whose request failed with resErr
+	sweepKey    string     // sweepKey of the study c.sweep was run for by RunSweep, "" for a live sweep
+	sweeps      sweepCache // sweeps run by RunSweep for configurations left behind, by sweepKey
+	pinGen      uint64     // generation a pin waits for; 0 when none (PinCurrent)
+	errGen      uint64     // generation whose request failed with resErr
 
 	saveWrap func(io.Writer) io.Writer // tests: stands between Save's encoder and the file
 }
@@ -131,6 +133,7 @@ func (c *Controller) Load(st *model.Study, path string) error {
 	c.elem = 0
 	c.mu.Lock()
 	c.pinBase, c.sweep, c.sweepVis = nil, nil, nil
+	c.sweepKey, c.sweeps = "", nil
 	c.mu.Unlock()
 	c.changed(true)
 	return nil
@@ -221,7 +224,17 @@ func (c *Controller) changed(geometry bool) {
 	live := liveSweep(st)
 	if geometry || live {
 		c.mu.Lock()
-		c.sweep, c.sweepVis = nil, nil
+		if c.sweep != nil && c.sweepKey != "" {
+			c.sweeps.put(c.sweepKey, c.sweep, c.sweepVis)
+		}
+		c.sweep, c.sweepVis, c.sweepKey = nil, nil, ""
+		if !live {
+			// Back to a configuration whose sweep ran (an undo, say): show it again.
+			k := sweepKey(st)
+			if e, ok := c.sweeps[k]; ok {
+				c.sweep, c.sweepVis, c.sweepKey = e.rows, e.vis, k
+			}
+		}
 		c.mu.Unlock()
 	}
 	c.sched.Submit(engineRequest{
@@ -270,7 +283,7 @@ func (c *Controller) deliver(u update, res *engineResult, err error) {
 	if err == nil {
 		c.result, c.resGen = res, u.gen
 		if u.req.Sweep {
-			c.sweep, c.sweepVis = res.Sweep, res.SweepViscous
+			c.sweep, c.sweepVis, c.sweepKey = res.Sweep, res.SweepViscous, ""
 		}
 		sc = sceneWithViscous(res, u.req.Study, c.sweep, c.sweepVis)
 	}
@@ -308,6 +321,49 @@ func equalGeometry(a, b *model.Study) bool {
 	return reflect.DeepEqual(x, y)
 }
 
+// sweepKey identifies what a sweep depends on (see equalGeometry) and its
+// range.
+func sweepKey(st *model.Study) string {
+	x := cloneStudy(st)
+	x.Flow.AlphaDeg, x.Flow.SpanM = 0, 0
+	x.Pins, x.Name, x.Team, x.Density = nil, "", "", model.DensityPlan{}
+	if !x.Viscous.Enabled {
+		x.Flow.SpeedMPS, x.Flow.TemperatureC, x.Flow.PressurePa, x.Flow.Reynolds = 0, 0, 0, 0
+		x.Viscous = model.Viscous{}
+	}
+	b, err := encodeStudy(x)
+	if err != nil {
+		return ""
+	}
+	return string(b)
+}
+
+// maxCachedSweeps bounds the sweeps kept for configurations left behind.
+const maxCachedSweeps = 8
+
+// sweepCache keeps the sweeps of configurations the study has left, so
+// that going back (an undo) shows its sweep without running it again.
+type sweepCache map[string]cachedSweep
+
+type cachedSweep struct {
+	rows []solver.Coefficients
+	vis  []engine.ViscousPoint
+}
+
+// put keeps a sweep, forgetting another when full.
+func (m *sweepCache) put(key string, rows []solver.Coefficients, vis []engine.ViscousPoint) {
+	if *m == nil {
+		*m = sweepCache{}
+	}
+	if _, ok := (*m)[key]; !ok && len(*m) >= maxCachedSweeps {
+		for k := range *m {
+			delete(*m, k)
+			break
+		}
+	}
+	(*m)[key] = cachedSweep{rows, vis}
+}
+
 // RunSweep runs the study's sweep on its own goroutine with an engine of
 // its own (an engine serves one goroutine at a time). progress is called on
 // the sweep goroutine after each angle that needs its own solve; done on
@@ -338,7 +394,7 @@ func (c *Controller) RunSweep(progress func(done, total int), done func(err erro
 			}
 			if err == nil {
 				c.mu.Lock()
-				c.sweep, c.sweepVis = res.Sweep, res.SweepViscous
+				c.sweep, c.sweepVis, c.sweepKey = res.Sweep, res.SweepViscous, sweepKey(st)
 				c.mu.Unlock()
 				c.changed(false) // redraw the polar with the new sweep
 			}

@@ -93,10 +93,14 @@ func TestDensityPlanKeepsSweep(t *testing.T) {
 	if err := w.ctl.SetPanelling("", p); err != nil {
 		t.Fatal(err)
 	}
-	w.ctl.Undo() // back to the panelling the sweep ran with: still dropped
 	w.WaitIdle()
 	if w.ctl.Sweep() != nil {
-		t.Error("a sweep dropped by a panelling change came back on undo")
+		t.Error("the sweep of another panelling is still shown")
+	}
+	w.ctl.Undo() // back to the panelling the sweep ran with: it comes back
+	w.WaitIdle()
+	if got := len(w.ctl.Sweep()); got != n {
+		t.Errorf("undo back to the panelling it ran with shows a sweep of %d angles, want %d", got, n)
 	}
 }
 

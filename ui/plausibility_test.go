@@ -46,3 +46,24 @@ func TestViscousFlagsPlugIn(t *testing.T) {
 		t.Errorf("flags %q", got)
 	}
 }
+
+// TestUndoKeepsSweep: undoing back to a configuration whose ground-effect
+// sweep ran shows that sweep again at once, without running it.
+func TestUndoKeepsSweep(t *testing.T) {
+	w := openRearWing(t)
+	w.WaitIdle()
+	first := w.ctl.Sweep()
+	if len(first) == 0 {
+		t.Fatal("the ground-effect sweep did not run by itself")
+	}
+	w.controls.clearance.submit("120")
+	w.WaitIdle()
+	if s := w.ctl.Sweep(); len(s) == 0 || &s[0] == &first[0] {
+		t.Fatal("the new clearance has no sweep of its own")
+	}
+	w.ctl.Undo()
+	if s := w.ctl.Sweep(); len(s) == 0 || &s[0] != &first[0] {
+		t.Error("undo did not bring back the sweep already run")
+	}
+	w.WaitIdle()
+}
