@@ -241,7 +241,7 @@ func solve3(a [3][3]float64, b [3]float64) ([3]float64, bool) {
 // trailing edge forces it). It reports whether anything changed.
 func (cs *coupledState) retype() bool {
 	changed := false
-	ue := cs.ue()
+	ue := cs.ueLayers()
 	for i := range cs.st {
 		s := &cs.st[i]
 		if s.side == sideWake || s.first {

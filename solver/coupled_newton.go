@@ -279,7 +279,7 @@ const (
 
 // residualNorm returns the 2-norm of all stations' residuals.
 func (cs *coupledState) residualNorm() float64 {
-	ue := cs.ue()
+	ue := cs.ueLayers()
 	s := 0.0
 	for i := range cs.st {
 		l := cs.localOf(i, ue)
@@ -295,7 +295,7 @@ func (cs *coupledState) residualNorm() float64 {
 
 // clampState keeps the variables where the closures are defined.
 func (cs *coupledState) clampState() {
-	ue := cs.ue()
+	ue := cs.ueLayers()
 	for i := range cs.st {
 		u := math.Max(ue[i], 1e-6)
 		if cs.st[i].first {
@@ -316,7 +316,7 @@ func (cs *coupledState) clampState() {
 // reduced system is singular or not finite.
 func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 	n := len(cs.st)
-	ue := cs.ue()
+	ue := cs.ueLayers()
 	p := make([][2]float64, n)
 	q := make([]float64, 2*n*n) // Q_i rows: q[(2i+r)*n : ...]
 	mm := make([]float64, n*n)
@@ -352,7 +352,7 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 			for e := range 3 {
 				we := w[e*n : (e+1)*n]
 				we[j] += jac[qq][2][e]
-				if a := coup * jac[qq][3][e]; a != 0 {
+				if a := coup * jac[qq][3][e]; a != 0 && !cs.st[j].nearStagnation {
 					for c, dv := range drow {
 						we[c] += a * dv
 					}

@@ -21,6 +21,7 @@ type station struct {
 	prev             [2]int // preceding stations (two for the first wake station: the trailing edges)
 	nprev            int
 	first            bool // first station of a surface: the stagnation-point similarity solution
+	nearStagnation   bool // among the first nearStagnationStations of a surface (ueLayers)
 	wakeStart        bool
 	last             bool    // last station of a surface (the trailing edge): transition is forced there
 	xi               float64 // from the stagnation point (surfaces) or the trailing edge (wakes)
@@ -166,6 +167,11 @@ func (cs *coupledState) layout() {
 				s.first = true
 			}
 			s.xc = e.chordPos(e.nodes[node])
+			n := 0
+			for j := prev; j >= 0; j = cs.st[j].prev[0] {
+				n++
+			}
+			s.nearStagnation = n < nearStagnationStations
 			cs.st = append(cs.st, s)
 		}
 		prev := -1
@@ -368,6 +374,36 @@ func (cs *coupledState) ue() []float64 {
 		for j, mj := range cs.m {
 			v += d[j] * mj
 		}
+		if cs.ueMarch != nil {
+			v = (1-cs.lam)*cs.ueMarch[i] + cs.lam*v
+		}
+		out[i] = v
+	}
+	return out
+}
+
+// nearStagnationStations is how many stations at the start of each
+// surface take their edge velocity, in the boundary-layer equations, from
+// the flow without the layers' own displacement (ueLayers). Next to a
+// stagnation point the panels are shortest, so the coupled speeds there
+// respond most to the mass defects (entries of D of order 1/panel
+// length), while the layer is thinnest and its displacement least: left
+// coupled, these stations were where the Newton iterations oscillated on
+// every section tried. The forces and the stagnation point still use the
+// coupled speeds (ue).
+const nearStagnationStations = 3
+
+// ueLayers returns the edge velocities the boundary-layer equations use:
+// those of ue, except at the stations next to each stagnation point,
+// which keep the velocity without coupling (Ue0, or the march's during
+// the continuation).
+func (cs *coupledState) ueLayers() []float64 {
+	out := cs.ue()
+	for i := range cs.st {
+		if !cs.st[i].nearStagnation {
+			continue
+		}
+		v := cs.ue0[i]
 		if cs.ueMarch != nil {
 			v = (1-cs.lam)*cs.ueMarch[i] + cs.lam*v
 		}
