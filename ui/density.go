@@ -24,12 +24,6 @@ const (
 	densityControlWidth = 450
 )
 
-// maxDensityRuns bounds the solves of one density study (counts × nose
-// values), so that a mistyped list cannot start hours of work: each solve
-// factorises a dense system whose cost grows as the cube of the total
-// panel count.
-const maxDensityRuns = 60
-
 // The tabs of the density window.
 const (
 	densityTabConvergence = iota
@@ -320,12 +314,12 @@ func (d *densityWindow) readPlan() (model.DensityPlan, error) {
 	if slices.Equal(p.Panels, densityDefaultPanels) {
 		p.Panels = nil
 	}
-	n := len(p.Panels)
-	if n == 0 {
-		n = len(densityDefaultPanels)
-	}
-	if runs := n * max(len(p.Nose), 1); runs > maxDensityRuns {
-		return p, fmt.Errorf("%d solves: at most %d (fewer counts or nose values)", runs, maxDensityRuns)
+	if err := p.CheckDensityRuns(len(densityDefaultPanels)); err != nil {
+		var fe *model.FieldError
+		if errors.As(err, &fe) {
+			return p, fe.Err
+		}
+		return p, err
 	}
 	return p, nil
 }

@@ -148,13 +148,13 @@ func parseOutlineSettings(skin, sparXC, sparDia, ligament, material string) (out
 		return v, nil
 	}
 	var err error
-	if s.skinMM, err = num("skin thickness", skin, 0, 50); err != nil {
+	if s.skinMM, err = num("skin thickness", skin, 0, model.MaxSkinMM); err != nil {
 		return s, err
 	}
 	if s.sparXC, err = num("spar hole position", sparXC, 0, 1); err != nil {
 		return s, err
 	}
-	if s.sparDiaMM, err = num("spar hole diameter", sparDia, 0, 200); err != nil {
+	if s.sparDiaMM, err = num("spar hole diameter", sparDia, 0, model.MaxHoleMM); err != nil {
 		return s, err
 	}
 	if strings.TrimSpace(ligament) != "" {

@@ -1,26 +1,14 @@
 package ui
 
 import (
-	"errors"
-
 	"sectionbench/model"
 )
 
 // Flow editing: the controller's side.
 
-// errViscousNeedsFlow refuses the boundary-layer estimate without a
-// Reynolds number: the solver needs one per element.
-var errViscousNeedsFlow = &model.FieldError{Field: "viscous.enabled",
-	Err: errors.New("needs a speed or a Reynolds number (Flow tab)")}
-
 // checkFlow reports settings that validate one by one but cannot be
-// solved together.
-func checkFlow(st *model.Study) error {
-	if st.Viscous.Enabled && !(st.Flow.SpeedMPS > 0) && !(st.Flow.Reynolds > 0) {
-		return errViscousNeedsFlow
-	}
-	return nil
-}
+// solved together (model.Study.CheckFlow, the rule the engine applies).
+func checkFlow(st *model.Study) error { return st.CheckFlow() }
 
 // SetSpeed sets the freestream speed in m/s (0: none, results stay
 // non-dimensional).

@@ -61,8 +61,8 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 	if *chordMM != -1 && !(*chordMM >= 0 && *chordMM <= model.MaxChordMM) {
 		return usagef("--chord-mm %g: want 0 (unit chord) to %g mm", *chordMM, float64(model.MaxChordMM))
 	}
-	if !(*skin >= 0 && *skin < 1000) {
-		return usagef("--skin-mm %g: want 0 (no offset) or a thickness in mm", *skin)
+	if !(*skin >= 0 && *skin <= model.MaxSkinMM) {
+		return usagef("--skin-mm %g: want 0 (no offset) to %d mm", *skin, model.MaxSkinMM)
 	}
 	if *out == "" {
 		return usagef("give -o OUT (or -o - for standard output)")
@@ -127,9 +127,9 @@ func cmdExport(args []string, stdout, stderr io.Writer) error {
 			Title: geometry.TitleBlock{Team: st.Team, MaterialMM: *material, Version: version, Date: time.Now().UTC().Format("2006-01-02"),
 				AlphaDeg: st.Flow.AlphaDeg, Solved: true}}
 		if *spar != "" {
-			v, err := parseFloatList("--spar", *spar, 0, 1e4)
+			v, err := parseFloatList("--spar", *spar, 0, model.MaxHoleMM)
 			if err != nil || len(v) != 2 || v[0] > 1 {
-				return usagef("--spar %q: want XC,DIAMETER_MM with XC in [0, 1]", *spar)
+				return usagef("--spar %q: want XC,DIAMETER_MM with XC in [0, 1] and the diameter up to %d mm", *spar, model.MaxHoleMM)
 			}
 			for i := range st.Elements {
 				opt.Marks = append(opt.Marks, geometry.Mark{Element: i, Label: "spar", XC: v[0], DiameterMM: v[1], OnMeanLine: *sparOn == "mean-line"})

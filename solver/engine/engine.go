@@ -127,6 +127,9 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 	if err := st.Validate(); err != nil {
 		return nil, err
 	}
+	if err := st.CheckFlow(); err != nil {
+		return nil, err
+	}
 	key := geometryKey(st)
 	if key != e.geomKey || !slices.Equal(req.Sections, e.secs) {
 		l, err := model.Place(st, req.Sections)
@@ -340,6 +343,9 @@ func (e *Engine) Density(ctx context.Context, st *model.Study, secs []*model.Sec
 // not nil), in the order solved, for callers that draw them.
 func (e *Engine) DensityEach(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int), each func(panels int, nose float64, sol *solver.Solution)) (*DensityResult, error) {
 	if err := st.Validate(); err != nil {
+		return nil, err
+	}
+	if err := st.Density.CheckDensityRuns(len(DefaultDensityPanels)); err != nil {
 		return nil, err
 	}
 	opt := DensityOptions{Panels: st.Density.Panels, Nose: st.Density.Nose, TolClPct: st.Density.TolClPct, TolCpMinPct: st.Density.TolCpMinPct}

@@ -1,0 +1,54 @@
+package model
+
+import (
+	"errors"
+	"fmt"
+)
+
+// Rules that a study must meet to be solved and that the window and the
+// command-line tool both enforce: each is stated once, here.
+
+// ErrViscousNeedsFlow is the rule that the viscous solution needs a
+// Reynolds number per element: from a speed (with the air) or entered
+// directly.
+var ErrViscousNeedsFlow = errors.New("the viscous solution needs a speed or a Reynolds number")
+
+// CheckFlow reports flow settings that validate one by one but cannot be
+// solved together: the viscous solution without a speed or a Reynolds
+// number. The error is a *FieldError on flow.speed_mps wrapping
+// ErrViscousNeedsFlow.
+func (st *Study) CheckFlow() error {
+	if st.Viscous.Enabled && !(st.Flow.SpeedMPS > 0) && !(st.Flow.Reynolds > 0) {
+		return &FieldError{Field: "flow.speed_mps", Err: ErrViscousNeedsFlow}
+	}
+	return nil
+}
+
+// MaxDensityRuns bounds the solves of one density study (panel counts ×
+// nose values), so that a mistyped list cannot start hours of work: each
+// solve factorises a dense system whose cost grows as the cube of the
+// total panel count.
+const MaxDensityRuns = 60
+
+// CheckDensityRuns reports a density plan of more than MaxDensityRuns
+// solves; defaultCounts is the number of panel counts run when the plan
+// lists none.
+func (p DensityPlan) CheckDensityRuns(defaultCounts int) error {
+	n := len(p.Panels)
+	if n == 0 {
+		n = defaultCounts
+	}
+	if runs := n * max(len(p.Nose), 1); runs > MaxDensityRuns {
+		return &FieldError{Field: "density", Err: fmt.Errorf("%d solves: at most %d (fewer counts or nose values)", runs, MaxDensityRuns)}
+	}
+	return nil
+}
+
+// Limits of the manufacturing outputs' dimensions, in millimetres: a skin
+// thicker than MaxSkinMM or a hole wider than MaxHoleMM is a typing
+// mistake on a wing section (chords of a few hundred millimetres), not a
+// design.
+const (
+	MaxSkinMM = 50
+	MaxHoleMM = 200
+)
