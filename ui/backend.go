@@ -214,10 +214,7 @@ func safeRenderFigure(f figKind, sc *scene, w, h int, dpi float64) (fig *figure,
 	return figures.Render(figureViews[f], sc, w, h, dpi)
 }
 
-type (
-	studyElement  = model.StudyElement
-	flapPlacement = model.FlapPlacement
-)
+type studyElement = model.StudyElement
 
 // slotOf returns the trade's gap, overlap and deflection of element i
 // (not the first) behind element i−1 (model.Study.SlotOf).
@@ -312,11 +309,6 @@ func viscousFacts(p *engine.CoupledPoint) *model.ViscousFacts {
 		return nil
 	}
 	return &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged}
-}
-
-// sweepFlags returns the plausibility flags of one angle of a sweep.
-func sweepFlags(res *engineResult, c solver.Coefficients) []model.Flag {
-	return model.Plausibility(model.PointFacts{CpMin: c.CpMin, HOverC: hOverC(res)})
 }
 
 // hOverC is the ground clearance over the main element's chord, NaN in
