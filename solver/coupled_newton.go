@@ -121,6 +121,19 @@ func (cs *coupledState) residual(i int, l *local) bl.Residuals {
 	return bl.Interval(s.kind, p, me, cs.re)
 }
 
+// plainInterval reports whether station i's residuals are a plain
+// interval from its predecessor of one regime (residual), and the regime.
+func (cs *coupledState) plainInterval(i int) (bool, bl.Kind) {
+	s := &cs.st[i]
+	if s.first || s.wakeStart {
+		return false, 0
+	}
+	if cs.st[s.prev[0]].kind == bl.Laminar && s.kind == bl.Turbulent {
+		return false, 0
+	}
+	return true, s.kind
+}
+
 // fdStep returns the finite-difference step of local variable v of kind k
 // (0 c, 1 θ, 2 m, 3 Ue).
 func fdStep(k int, v float64, laminar bool) float64 {
@@ -327,13 +340,29 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 		l := cs.localOf(i, ue)
 		r0 := cs.residual(i, &l)
 		var jac [3][4][3]float64 // participant, variable, residual
+		// A plain interval's residuals depend on each station through its
+		// own closure only: the other station's is evaluated once (the
+		// closures' exp, log and pow are most of the cost).
+		plain, kind := cs.plainInterval(i)
+		var cl [2]bl.Closure
+		if plain {
+			cl[0] = bl.Eval(kind, cs.stationFrom(&l, 0), cs.re)
+			cl[1] = bl.Eval(kind, cs.stationFrom(&l, 1), cs.re)
+		}
 		for qq := 0; qq < l.n; qq++ {
 			plam := cs.st[l.idx[qq]].kind == bl.Laminar
 			for v := range 4 {
 				h := fdStep(v, l.v[qq][v], plam)
 				save := l.v[qq][v]
 				l.v[qq][v] = save + h
-				r1 := cs.residual(i, &l)
+				var r1 bl.Residuals
+				if plain {
+					c := cl
+					c[qq] = bl.Eval(kind, cs.stationFrom(&l, qq), cs.re)
+					r1 = bl.IntervalOf(kind, cs.stationFrom(&l, 1), cs.stationFrom(&l, 0), c[1], c[0])
+				} else {
+					r1 = cs.residual(i, &l)
+				}
 				l.v[qq][v] = save
 				for e := range 3 {
 					jac[qq][v][e] = (r1[e] - r0[e]) / h

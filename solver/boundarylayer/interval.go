@@ -33,6 +33,12 @@ func Interval(k Kind, a, b Station, re float64) Residuals {
 	return interval(k, a, b, ca, cb)
 }
 
+// IntervalOf is Interval with the two stations' closures given (each
+// Eval(k, station, re)), for callers that vary one station at a time.
+func IntervalOf(k Kind, a, b Station, ca, cb Closure) Residuals {
+	return interval(k, a, b, ca, cb)
+}
+
 func interval(k Kind, a, b Station, ca, cb Closure) Residuals {
 	// On a surface the source terms are integrated in ln ξ: each is
 	// multiplied by ξ and the step is Δ ln ξ, which is exact for the
