@@ -298,7 +298,7 @@ func resultFlags(res *engineResult) []model.Flag {
 	for _, e := range res.Solution.Elements {
 		cp = math.Min(cp, e.CpMin)
 	}
-	return model.Plausibility(model.PointFacts{CpMin: cp, HOverC: hOverC(res), Viscous: viscousFacts(res.Coupled)})
+	return model.Plausibility(model.PointFacts{CpMin: cp, HOverC: hOverC(res), Viscous: coupledFacts(res)})
 }
 
 // viscousFacts is the coupled viscous solution's verdict on a point, nil

@@ -75,6 +75,9 @@ func resultsText(res *engineResult) (table, note string) {
 	if s == nil || res.Layout == nil {
 		return "", ""
 	}
+	if res.Coupled != nil {
+		return coupledResultsText(res)
+	}
 	inv := res.Layout.Inverted
 	f, v := res.Forces, res.Viscous
 	coef, force := "Cl", "lift N/m"
@@ -143,14 +146,7 @@ func resultsText(res *engineResult) (table, note string) {
 		n = append(n, "x/c from each element's leading edge; — none. Cd "+dash+": a surface separated, outside the method's range.")
 	}
 	n = append(n, fmt.Sprintf("Solved in %d ms.", res.Elapsed.Milliseconds()))
-	if fl := resultFlags(res); len(fl) > 0 {
-		var w []string
-		for _, f := range fl {
-			w = append(w, "Caution, "+string(f.Kind)+": "+f.Message+".")
-		}
-		n = append(w, n...)
-	}
-	return table, strings.Join(n, " ")
+	return table, strings.Join(append(cautions(res), n...), " ")
 }
 
 func reText(res *engineResult, i int) string {

@@ -313,6 +313,9 @@ func statusItems(res *engineResult) []string {
 	if s == nil {
 		return []string{"No solution"}
 	}
+	if res.Coupled != nil {
+		return coupledStatusItems(res)
+	}
 	inv := res.Layout != nil && res.Layout.Inverted
 	var parts []string
 	if inv {

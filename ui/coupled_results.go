@@ -1,0 +1,190 @@
+package ui
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"sectionbench/model"
+)
+
+// This file shows the coupled viscous solution (engine.CoupledPoint) in
+// the status line and the results table. A point that did not converge
+// shows no viscous number, only its state and the inviscid values beside.
+
+// orDash formats x with prec decimals, or a dash when it is NaN (no
+// answer).
+func orDash(x float64, prec int) string {
+	if math.IsNaN(x) || math.IsInf(x, 0) {
+		return dash
+	}
+	return fixed(x, prec)
+}
+
+// coupledState says in words how the coupled solution ended.
+func coupledState(res *engineResult) string {
+	c := res.Coupled
+	switch {
+	case c.Note != "":
+		return "no viscous solution: " + firstLine(c.Note)
+	case !c.Converged:
+		return fmt.Sprintf("viscous solution not converged after %d iterations", c.Iterations)
+	}
+	return fmt.Sprintf("viscous solution converged in %d iterations", c.Iterations)
+}
+
+// coupledStatusItems summarises a coupled result in order of importance:
+// the viscous Cl (or −Cl) with the inviscid one beside it, Cd and the
+// lift-to-drag ratio, the force, Cm, the convergence and the solve time.
+// Without convergence the first item says so and the numbers that follow
+// are the inviscid ones, labelled.
+func coupledStatusItems(res *engineResult) []string {
+	c, s := res.Coupled, res.Solution
+	inv := res.Layout != nil && res.Layout.Inverted
+	coef, sense, sign := "Cl", "+ up", func(x float64) float64 { return x }
+	if inv {
+		coef, sense, sign = "−Cl", "+ down", downforceOf
+	}
+	f := res.Forces
+	if !c.Converged {
+		parts := []string{coupledState(res) + ": no viscous numbers",
+			"inviscid " + coef + " " + orDash(sign(s.Cl), 3) + " (" + sense + ")"}
+		if f != nil {
+			parts = append(parts, "inviscid "+forceName(inv)+" "+orDash(sign(f.InviscidLiftPerSpan), 1)+" N/m")
+		}
+		return append(parts, "inviscid Cm "+fixed(s.Cm, 3), fmt.Sprintf("solve %d ms", res.Elapsed.Milliseconds()))
+	}
+	parts := []string{
+		"viscous " + coef + " " + fixed(sign(c.Cl), 3) + " (" + sense + "), inviscid " + fixed(sign(c.ClInviscid), 3),
+		"Cd " + fixed(c.Cd, 4), coef + "/Cd " + orDash(sign(res.LiftToDrag()), 1),
+	}
+	if f != nil {
+		per := sign(f.LiftPerSpan)
+		t := forceName(inv) + " " + orDash(per, 1) + " N/m"
+		if f.SpanM > 0 {
+			t += ", " + orDash(f.SpanTotal(per), 1) + " N on " + num(f.SpanM) + " m"
+		}
+		parts = append(parts, t)
+	}
+	return append(parts, "viscous Cm "+fixed(c.Cm, 3), coupledState(res), fmt.Sprintf("solve %d ms", res.Elapsed.Milliseconds()))
+}
+
+func forceName(inverted bool) string {
+	if inverted {
+		return "downforce"
+	}
+	return "lift"
+}
+
+// coupledResultsText lays out the results table of a coupled result and
+// its note: per element and for the configuration, the viscous
+// coefficients, the inviscid Cl beside them, forces, transition and
+// separation.
+func coupledResultsText(res *engineResult) (table, note string) {
+	c, s, f := res.Coupled, res.Solution, res.Forces
+	inv := res.Layout.Inverted
+	coef := "Cl"
+	sign := func(x float64) float64 { return x }
+	if inv {
+		coef, sign = "−Cl", downforceOf
+	}
+	cols := []string{"element", "chord mm", "Re", coef + " viscous", coef + " inviscid", "Cd", "Cm viscous"}
+	if f != nil {
+		cols = append(cols, forceName(inv)+" N/m")
+		if f.SpanM > 0 {
+			cols = append(cols, fmt.Sprintf("N on %s m span", num(f.SpanM)))
+		}
+	}
+	cols = append(cols, "transition up/low", "separation up/low")
+	forceCells := func(perSpan float64) []string {
+		if f == nil {
+			return nil
+		}
+		r := []string{orDash(sign(perSpan), 1)}
+		if f.SpanM > 0 {
+			r = append(r, orDash(f.SpanTotal(sign(perSpan)), 1))
+		}
+		return r
+	}
+	var rows [][]string
+	for i, e := range c.Elements {
+		if i >= len(s.Elements) {
+			break
+		}
+		r := []string{fmt.Sprintf("%d %s", i+1, e.Name), num(elementChordMM(res, i)), reText(res, i),
+			orDash(sign(e.Cl), 3), orDash(sign(e.ClInviscid), 3), orDash(e.Cd, 4), orDash(e.Cm, 3)}
+		if f != nil && i < len(f.ElementLift) {
+			r = append(r, forceCells(f.ElementLift[i])...)
+		}
+		r = append(r, xcText(e.TransitionUpper)+" / "+xcText(e.TransitionLower), xcText(e.SeparationUpper)+" / "+xcText(e.SeparationLower))
+		rows = append(rows, r)
+	}
+	if len(c.Elements) > 1 || res.Layout.RefChordM != res.Layout.Elements[0].Chord {
+		r := []string{"configuration", num(refChordMM(res)) + " ref", "", orDash(sign(c.Cl), 3), orDash(sign(c.ClInviscid), 3), orDash(c.Cd, 4), orDash(c.Cm, 3)}
+		if f != nil {
+			r = append(r, forceCells(f.LiftPerSpan)...)
+		}
+		rows = append(rows, append(r, "", ""))
+	}
+	table = alignColumns(cols, rows)
+
+	var n []string
+	if inv {
+		n = append(n, "−Cl is the downforce coefficient: positive pushes the car down.")
+	} else {
+		n = append(n, "Cl positive up.")
+	}
+	state := coupledState(res)
+	if c.Converged {
+		n = append(n, fmt.Sprintf("Viscous: coupled boundary layers and wakes, %s (largest last change %s); a 2-D estimate, validate by test.", state, sci(c.Residual, 2)))
+	} else {
+		n = append(n, "Viscous: "+state+": it gives no numbers (—), only the inviscid Cl beside.")
+	}
+	n = append(n, "Elements on their own chord (Cm about their quarter chord), the configuration on the reference chord.",
+		"Transition and separation in x/c from each element's leading edge, surfaces as mounted; — none.")
+	if f != nil && f.SpanM > 0 {
+		n = append(n, "Span totals are 2-D values times the span (no end effects).")
+	}
+	n = append(n, fmt.Sprintf("Solved in %d ms.", res.Elapsed.Milliseconds()))
+	return table, strings.Join(append(cautions(res), n...), " ")
+}
+
+// cautions are the plausibility flags of a result, as sentences.
+func cautions(res *engineResult) []string {
+	var w []string
+	for _, f := range resultFlags(res) {
+		w = append(w, "Caution, "+string(f.Kind)+": "+f.Message+".")
+	}
+	return w
+}
+
+// separatedFromXC: a converged coupled point whose boundary layer
+// separates ahead of this x/c and stays separated to the trailing edge is
+// flagged separated. From memory (Coles & Wadcock's NACA 4412 near
+// maximum lift separates at about x/c 0.85): a tenth of the chord or more
+// separated is a wing at or past maximum lift.
+const separatedFromXC = 0.9
+
+// coupledSeparated reports whether any element of a converged coupled
+// point separates ahead of separatedFromXC.
+func coupledSeparated(res *engineResult) bool {
+	c := res.Coupled
+	if c == nil || !c.Converged {
+		return false
+	}
+	for _, e := range c.Elements {
+		if e.SeparationUpper < separatedFromXC || e.SeparationLower < separatedFromXC {
+			return true // NaN (none) compares false
+		}
+	}
+	return false
+}
+
+// coupledFacts is viscousFacts with the separated state.
+func coupledFacts(res *engineResult) *model.ViscousFacts {
+	v := viscousFacts(res.Coupled)
+	if v != nil {
+		v.Separated = coupledSeparated(res)
+	}
+	return v
+}
