@@ -71,6 +71,7 @@ func sceneOf(res *engineResult, st *model.Study, sweep []solver.Coefficients) *s
 		Sweep:       sweep,
 		Streamlines: res.Streamlines,
 		Viscous:     res.Viscous,
+		Coupled:     res.Coupled,
 		Pins:        st.Pins,
 		AlphaDeg:    st.Flow.AlphaDeg,
 		Element:     -1,

@@ -89,6 +89,17 @@ type Scene struct {
 	// nil when the sweep has none.
 	SweepViscous []engine.ViscousPoint
 
+	// Coupled is the coupled viscous solution at the study's angle (nil
+	// unless it ran); the pressure view draws its Cp when it converged.
+	Coupled *engine.CoupledPoint
+	// SweepCoupled is the coupled solution at each angle of Sweep (nil
+	// when the sweep ran without it), ClMax and AlphaClMax its maximum
+	// lift among the converged rows and ClMaxIsPeak whether lift falls
+	// after it (engine.Result).
+	SweepCoupled      []engine.CoupledPoint
+	ClMax, AlphaClMax float64
+	ClMaxIsPeak       bool
+
 	Streamlines []solver.Streamline
 	Viscous     *solver.ViscousResult // may be nil
 	Density     *engine.DensityResult // may be nil

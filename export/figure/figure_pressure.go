@@ -95,6 +95,11 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			title = fmt.Sprintf("Pressure: α = %s°, Cl from circulation %s", formatTick(sol.AlphaDeg, 2), formatTick(es.Cl, 4))
 		}
 	}
+	elem := -1
+	if ab.perElement {
+		elem = shown[0]
+	}
+	title += coupledTitle(sc.Coupled, elem)
 	p := newPlot(th, title, xlabel, "Cp")
 	k := newKey(th, keyTopRight)
 	p.Y.Scale = plot.InvertedScale{Normalizer: plot.LinearScale{}}
@@ -171,13 +176,20 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		labels.add(&note{x: xmin, y: es.CpMin, dx: vg.Points(5), text: fmt.Sprintf("%sCp min %s at x/c %.3f", name, formatTick(es.CpMin, 3), es.XCpMin), style: noteSty})
 		labels.add(&note{x: xst, y: cpStagnation, dx: vg.Points(5), dy: vg.Points(-2), text: fmt.Sprintf("stagnation x/c %.4f", es.Stagnation.XC), style: noteStyle(th, th.faint, 8, text.XLeft, text.YTop)})
 	}
+	viscous := addViscousCp(p, k, sc, shown, ab, th)
 	p.Add(labels)
 	ms := newScatter(mins, th.accent, glyphMarker, draw.CircleGlyph{})
 	ss := newScatter(stags, th.fg, glyphMarker, draw.TriangleGlyph{})
 	p.Add(ms, ss)
 	k.keep(mins, stags)
-	k.add("upper surface", legendLine{upSty})
-	k.add("lower surface", legendLine{loSty})
+	if viscous {
+		k.add("inviscid upper", legendLine{upSty})
+		k.add("inviscid lower", legendLine{loSty})
+		keyViscousCp(k, th)
+	} else {
+		k.add("upper surface", legendLine{upSty})
+		k.add("lower surface", legendLine{loSty})
+	}
 	k.add("minimum Cp", ms)
 	k.add("stagnation", ss)
 	// Leave room above the suction peak for its label and below Cp = 1.

@@ -1,0 +1,57 @@
+package figure
+
+import (
+	"bytes"
+	"strings"
+	"testing"
+
+	"sectionbench/model"
+	"sectionbench/solver/engine"
+)
+
+// coupledStudy is NACA 0012 at 4°, Re 6e6, tripped at 5 % chord on both
+// surfaces: a case the coupled solution converges on (solver's
+// validation against Ladson, NASA TM-4074, 1988).
+func coupledStudy() *model.Study {
+	st := model.NewStudy()
+	st.Elements[0].Section = model.SectionSource{Spec: "naca:0012"}
+	st.Flow.AlphaDeg = 4
+	st.Flow.Reynolds = 6e6
+	st.Viscous = model.Viscous{Enabled: true, Mode: model.ViscousCoupled, TripUpper: 0.05, TripLower: 0.05}
+	return st
+}
+
+// svgText renders view v of sc as SVG, whose text is searchable.
+func svgText(t *testing.T, v View, sc *Scene) string {
+	t.Helper()
+	var b bytes.Buffer
+	if err := WriteFigure(&b, v, sc, "svg", 8, 5, 96); err != nil {
+		t.Fatal(err)
+	}
+	return b.String()
+}
+
+// TestPressureViscousCp: with a converged coupled point the pressure view
+// draws the viscous Cp beside the inviscid one, each named in the key,
+// and gives the viscous Cl in its title; a point that did not converge
+// draws no viscous curve and says so.
+func TestPressureViscousCp(t *testing.T) {
+	st := coupledStudy()
+	r := solveDemo(t, st, false, false)
+	if r.Coupled == nil || !r.Coupled.Converged {
+		t.Fatalf("NACA 0012 at 4°, Re 6e6, tripped did not converge: %+v", r.Coupled)
+	}
+	sc := NewScene(r, st)
+	sc.Coupled = r.Coupled
+	s := svgText(t, ViewPressure, sc)
+	for _, want := range []string{"inviscid upper", "inviscid lower", "viscous upper (coupled)", "viscous lower (coupled)", "viscous " + formatTick(r.Coupled.Cl, 4)} {
+		if !strings.Contains(s, want) {
+			t.Errorf("pressure view lacks %q", want)
+		}
+	}
+	sc.Coupled = &engine.CoupledPoint{Converged: false, Iterations: 60}
+	s = svgText(t, ViewPressure, sc)
+	if strings.Contains(s, "viscous upper") || !strings.Contains(s, "viscous solution not converged") {
+		t.Error("a point that did not converge is drawn as viscous, or not said")
+	}
+}
