@@ -55,6 +55,7 @@ type Controller struct {
 	resGen      uint64
 	sweep       []solver.Coefficients // shown in the polar; nil when out of date
 	sweepVis    []engine.ViscousPoint // boundary-layer estimate of sweep, nil when it has none
+	sweepCpl    *coupledSweep         // coupled viscous solution of sweep, nil when it has none
 	pinBase     *model.Study          // study of the last pin, for its label
 	pinBaseSecs []*model.Section      // its sections
 	elem        int                   // element the section controls edit
@@ -134,6 +135,7 @@ func (c *Controller) Load(st *model.Study, path string) error {
 	c.mu.Lock()
 	c.pinBase, c.sweep, c.sweepVis = nil, nil, nil
 	c.sweepKey, c.sweeps = "", nil
+	c.sweepCpl = nil
 	c.mu.Unlock()
 	c.changed(true)
 	return nil
@@ -225,14 +227,16 @@ func (c *Controller) changed(geometry bool) {
 	if geometry || live {
 		c.mu.Lock()
 		if c.sweep != nil && c.sweepKey != "" {
-			c.sweeps.put(c.sweepKey, c.sweep, c.sweepVis)
+			c.sweeps.put(c.sweepKey, c.sweep, c.sweepVis, c.sweepCpl)
 		}
 		c.sweep, c.sweepVis, c.sweepKey = nil, nil, ""
+		c.sweepCpl = nil
 		if !live {
 			// Back to a configuration whose sweep ran (an undo, say): show it again.
 			k := sweepKey(st)
 			if e, ok := c.sweeps[k]; ok {
 				c.sweep, c.sweepVis, c.sweepKey = e.rows, e.vis, k
+				c.sweepCpl = e.cpl
 			}
 		}
 		c.mu.Unlock()
@@ -284,8 +288,10 @@ func (c *Controller) deliver(u update, res *engineResult, err error) {
 		c.result, c.resGen = res, u.gen
 		if u.req.Sweep {
 			c.sweep, c.sweepVis, c.sweepKey = res.Sweep, res.SweepViscous, ""
+			c.sweepCpl = coupledSweepOf(res)
 		}
 		sc = sceneWithViscous(res, u.req.Study, c.sweep, c.sweepVis)
+		c.sweepCpl.addTo(sc)
 	}
 	c.mu.Unlock()
 	if c.OnResult != nil {
@@ -348,10 +354,11 @@ type sweepCache map[string]cachedSweep
 type cachedSweep struct {
 	rows []solver.Coefficients
 	vis  []engine.ViscousPoint
+	cpl  *coupledSweep
 }
 
 // put keeps a sweep, forgetting another when full.
-func (m *sweepCache) put(key string, rows []solver.Coefficients, vis []engine.ViscousPoint) {
+func (m *sweepCache) put(key string, rows []solver.Coefficients, vis []engine.ViscousPoint, cpl *coupledSweep) {
 	if *m == nil {
 		*m = sweepCache{}
 	}
@@ -361,7 +368,7 @@ func (m *sweepCache) put(key string, rows []solver.Coefficients, vis []engine.Vi
 			break
 		}
 	}
-	(*m)[key] = cachedSweep{rows, vis}
+	(*m)[key] = cachedSweep{rows, vis, cpl}
 }
 
 // RunSweep runs the study's sweep on its own goroutine with an engine of
@@ -395,6 +402,7 @@ func (c *Controller) RunSweep(progress func(done, total int), done func(err erro
 			if err == nil {
 				c.mu.Lock()
 				c.sweep, c.sweepVis, c.sweepKey = res.Sweep, res.SweepViscous, sweepKey(st)
+				c.sweepCpl = coupledSweepOf(res)
 				c.mu.Unlock()
 				c.changed(false) // redraw the polar with the new sweep
 			}

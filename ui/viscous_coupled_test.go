@@ -196,3 +196,68 @@ func TestCoupledSeparatedFlag(t *testing.T) {
 		})
 	}
 }
+
+// TestCoupledSweep: with the coupled solution on, the sweep waits for Run
+// (it is slow), shows its progress, can be cancelled (the polar keeps
+// what it had), and when it ends the polar holds the coupled rows: each
+// row's state, maximum lift among the converged rows.
+func TestCoupledSweep(t *testing.T) {
+	w := newStudyBench(t)
+	st := w.ctl.Study()
+	st.Elements[0].Section = model.SectionSource{Spec: "naca:0012"}
+	st.Flow.Reynolds, st.Flow.AlphaDeg = 6e6, 2
+	st.Sweep = model.SweepRange{FromDeg: 0, ToDeg: 6, StepDeg: 2}
+	st.Viscous = model.Viscous{Enabled: true, Mode: model.ViscousCoupled, TripUpper: 0.05, TripLower: 0.05}
+	if err := w.ctl.Load(st, ""); err != nil {
+		t.Fatal(err)
+	}
+	current(t, w)
+	if w.ctl.Sweep() != nil {
+		t.Fatal("a coupled sweep ran without being asked")
+	}
+	c := w.controls
+	// Cancelled at once: the polar keeps nothing, the message says so.
+	c.runSweep()
+	if c.progress.Hidden || c.cancel.Hidden {
+		t.Error("no progress or Cancel while the sweep runs")
+	}
+	c.cancel.OnTapped()
+	w.WaitIdle()
+	if w.ctl.Sweep() != nil || !strings.Contains(c.sweepMsg.Text, "cancelled") {
+		t.Errorf("after Cancel: sweep %v, message %q", w.ctl.Sweep() != nil, c.sweepMsg.Text)
+	}
+	c.runSweep()
+	w.WaitIdle()
+	rows, clMax, aMax := w.ctl.SweepCoupled()
+	if len(rows) != 4 || len(w.ctl.Sweep()) != 4 {
+		t.Fatalf("%d coupled rows for %d angles", len(rows), len(w.ctl.Sweep()))
+	}
+	converged := 0
+	for _, r := range rows {
+		if r.Converged {
+			converged++
+			if !(r.Cl <= clMax) {
+				t.Errorf("row at %g° has Cl %g above the maximum %g", r.AlphaDeg, r.Cl, clMax)
+			}
+		} else if !math.IsNaN(r.Cl) {
+			t.Errorf("row at %g° did not converge but has Cl %g", r.AlphaDeg, r.Cl)
+		}
+	}
+	if converged == 0 || math.IsNaN(aMax) {
+		t.Fatalf("no converged row on NACA 0012 at Re 6e6, 0–6°")
+	}
+	sc := w.lastScene()
+	if sc == nil || len(sc.SweepCoupled) != 4 || sc.ClMax != clMax {
+		t.Error("the polar's scene lacks the coupled sweep")
+	}
+	polar := w.views[viewPolar]
+	if polar.canvas.Figure() == nil || !polar.note.Hidden {
+		t.Errorf("polar not drawn after the coupled sweep (%v)", polar.canvas.err)
+	}
+	// Changing only the angle keeps the sweep and its coupled rows.
+	c.alphaEntry.submit("3")
+	current(t, w)
+	if r, _, _ := w.ctl.SweepCoupled(); len(r) != 4 {
+		t.Error("an angle change dropped the coupled sweep")
+	}
+}

@@ -1,8 +1,15 @@
 package figure
 
 import (
+	"fmt"
+	"math"
+	"sort"
+
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/text"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
 
 	"sectionbench/solver"
 	"sectionbench/solver/engine"
@@ -85,4 +92,103 @@ func coupledTitle(c *engine.CoupledPoint, element int) string {
 		cl = c.Elements[element].Cl
 	}
 	return ", viscous " + formatTick(cl, 4)
+}
+
+// coupledRows returns the converged rows of the scene's coupled sweep as
+// (α, Cl) and (α, Cm), split into rows up to maximum lift and rows past
+// it (cm in the same order: valid, then past), and the angles of the
+// rows that did not converge. All are empty
+// unless the coupled sweep matches the sweep.
+func coupledRows(sc *Scene) (valid, past plotter.XYs, cm []plotter.XY, failed []float64) {
+	if len(sc.SweepCoupled) == 0 || len(sc.SweepCoupled) != len(sc.Sweep) {
+		return nil, nil, nil, nil
+	}
+	var pastCm []plotter.XY
+	for _, r := range sc.SweepCoupled {
+		switch {
+		case !r.Converged:
+			failed = append(failed, r.AlphaDeg)
+		case r.PastClMax:
+			past = append(past, plotter.XY{X: r.AlphaDeg, Y: r.Cl})
+			pastCm = append(pastCm, plotter.XY{X: r.AlphaDeg, Y: r.Cm})
+		default:
+			valid = append(valid, plotter.XY{X: r.AlphaDeg, Y: r.Cl})
+			cm = append(cm, plotter.XY{X: r.AlphaDeg, Y: r.Cm})
+		}
+	}
+	return valid, past, append(cm, pastCm...), failed
+}
+
+// bottomMarks draws a glyph on the bottom edge of the data area at each
+// angle: the angles where the viscous solution gave no answer, marked
+// without a value that could be read as one.
+type bottomMarks struct {
+	alphas []float64
+	glyph  draw.GlyphStyle
+}
+
+func (b *bottomMarks) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, _ := p.Transforms(&c)
+	for _, a := range b.alphas {
+		pt := vg.Point{X: trX(a), Y: c.Min.Y + 2*b.glyph.Radius}
+		if c.Contains(pt) {
+			c.DrawGlyph(b.glyph, pt)
+		}
+	}
+}
+
+// Thumbnail draws the glyph in the key.
+func (b *bottomMarks) Thumbnail(c *draw.Canvas) { c.DrawGlyph(b.glyph, c.Center()) }
+
+// addCoupledPolar draws the coupled sweep on the polar: the viscous Cl of
+// the converged rows as a curve, rows past maximum lift in a marker of
+// their own, maximum lift marked and labelled, and the rows that did not
+// converge as crosses on the α axis. It reports whether it drew the
+// viscous curve.
+func addCoupledPolar(p *plot.Plot, k *key, sc *Scene, th *theme) bool {
+	valid, past, _, failed := coupledRows(sc)
+	if len(valid)+len(past)+len(failed) == 0 {
+		return false
+	}
+	sty := lineStyle(th.lower, widthNormal, nil)
+	all := append(append(plotter.XYs{}, valid...), past...)
+	sortXYs(all)
+	k.keep(all)
+	if len(all) > 1 {
+		p.Add(newLine(all, sty))
+	}
+	if len(valid) > 0 {
+		p.Add(newScatter(valid, th.lower, glyphSmall, draw.CircleGlyph{}))
+	}
+	k.add("Cl viscous, coupled (left axis)", legendLine{sty})
+	if len(past) > 0 {
+		ps := newScatter(past, th.lower, glyphMarker, draw.TriangleGlyph{})
+		p.Add(ps)
+		k.add("viscous, past maximum lift", ps)
+	}
+	if cl, a := sc.ClMax, sc.AlphaClMax; !math.IsNaN(cl) && len(all) > 0 {
+		m := newScatter(plotter.XYs{{X: a, Y: cl}}, th.accent, glyphMarker*1.6, draw.PyramidGlyph{})
+		p.Add(m)
+		name, v := "Cl max", cl
+		if sc.Inverted {
+			name, v = "most downforce, −Cl", -cl
+		}
+		label := fmt.Sprintf("%s %s at %s°", name, formatTick(v, 3), formatTick(a, 2))
+		if !sc.ClMaxIsPeak {
+			label += " (sweep ends before lift falls)"
+		}
+		p.Add(&note{x: a, y: cl, dx: vg.Points(6), dy: vg.Points(-6), text: label, style: noteStyle(th, th.fg, 8, text.XLeft, text.YCenter)})
+		k.add(name+" (viscous)", m)
+	}
+	if len(failed) > 0 {
+		b := &bottomMarks{alphas: failed, glyph: draw.GlyphStyle{Color: th.accent, Radius: glyphMarker, Shape: draw.CrossGlyph{}}}
+		p.Add(b)
+		k.add(fmt.Sprintf("viscous not converged (%d of %d angles)", len(failed), len(sc.SweepCoupled)), b)
+	}
+	return true
+}
+
+// sortXYs sorts points by x.
+func sortXYs(xys plotter.XYs) {
+	sort.Slice(xys, func(i, j int) bool { return xys[i].X < xys[j].X })
 }

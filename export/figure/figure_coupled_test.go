@@ -2,6 +2,8 @@ package figure
 
 import (
 	"bytes"
+	"fmt"
+	"math"
 	"strings"
 	"testing"
 
@@ -53,5 +55,46 @@ func TestPressureViscousCp(t *testing.T) {
 	s = svgText(t, ViewPressure, sc)
 	if strings.Contains(s, "viscous upper") || !strings.Contains(s, "viscous solution not converged") {
 		t.Error("a point that did not converge is drawn as viscous, or not said")
+	}
+}
+
+// TestPolarCoupledSweep: the converged rows of a coupled sweep make the
+// viscous curve, maximum lift is marked and labelled, rows past it have a
+// marker of their own and rows that did not converge are counted and
+// marked on the α axis, never drawn as values (invented rows).
+func TestPolarCoupledSweep(t *testing.T) {
+	sc := synthScene()
+	sc.Pins = nil
+	sc.Inverted = false
+	nan := math.NaN()
+	for i, c := range sc.Sweep {
+		r := engine.CoupledPoint{AlphaDeg: c.AlphaDeg, Cl: 0.8 * c.Cl, Cd: 0.01, Cm: c.Cm, Converged: true}
+		switch {
+		case i == 1:
+			r = engine.CoupledPoint{AlphaDeg: c.AlphaDeg, Cl: nan, Cd: nan, Cm: nan, Iterations: 60}
+		case i == len(sc.Sweep)-1:
+			r.PastClMax = true
+			r.Cl = 0.5 * c.Cl
+		}
+		sc.SweepCoupled = append(sc.SweepCoupled, r)
+	}
+	peak := sc.SweepCoupled[len(sc.Sweep)-2]
+	sc.ClMax, sc.AlphaClMax, sc.ClMaxIsPeak = peak.Cl, peak.AlphaDeg, true
+	s := svgText(t, ViewPolar, sc)
+	for _, want := range []string{
+		"Cl inviscid, from circulation", "Cl viscous, coupled", "viscous, past maximum lift",
+		"Cl max " + formatTick(peak.Cl, 3) + " at " + formatTick(peak.AlphaDeg, 2) + "°",
+		fmt.Sprintf("viscous not converged (1 of %d angles)", len(sc.Sweep)),
+	} {
+		if !strings.Contains(s, want) {
+			t.Errorf("polar lacks %q", want)
+		}
+	}
+	if strings.Contains(s, "NaN") {
+		t.Error("a row that did not converge is drawn as a number")
+	}
+	sc.SweepCoupled = nil
+	if s := svgText(t, ViewPolar, sc); strings.Contains(s, "viscous") {
+		t.Error("viscous curve without a coupled sweep")
 	}
 }

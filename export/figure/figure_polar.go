@@ -127,6 +127,10 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	if sc.Solution != nil {
 		grow(sc.Solution.AlphaDeg, sc.Solution.Cl, sc.Solution.Cm)
 	}
+	vValid, vPast, vCm, _ := coupledRows(sc)
+	for i, r := range append(append(plotter.XYs{}, vValid...), vPast...) {
+		grow(r.X, r.Y, vCm[i].Y)
+	}
 	title := "Polar: Cl and Cm against α"
 	if s := clSlope(alpha, cl); !math.IsNaN(s) {
 		title = fmt.Sprintf("Polar: Cl and Cm against α (mean lift slope %s per degree)", formatTick(s, 4))
@@ -170,7 +174,11 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	k.keep(xl, xm)
 	p.Add(newLine(xl, clSty), newScatter(xl, th.upper, glyphSmall, draw.CircleGlyph{}))
 	p.Add(newLine(xm, cmSty), newScatter(xm, th.second, glyphSmall, draw.SquareGlyph{}))
-	k.add("Cl from circulation (left axis)", legendLine{clSty})
+	clName := "Cl from circulation (left axis)"
+	if len(sc.SweepCoupled) > 0 && len(sc.SweepCoupled) == len(sc.Sweep) {
+		clName = "Cl inviscid, from circulation (left axis)"
+	}
+	k.add(clName, legendLine{clSty})
 	k.add("Cm (right axis)", legendLine{cmSty})
 	// Points the plausibility rules flag (model.Plausibility), ringed.
 	var flagged plotter.XYs
@@ -192,6 +200,7 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		p.Add(fs)
 		k.add("not to be trusted: "+model.FlagWords(kinds), fs)
 	}
+	addCoupledPolar(p, k, sc, th)
 	p.Add(alphaMark(th, sc.AlphaDeg))
 	if s := sc.Solution; s != nil {
 		cur := plotter.XYs{{X: s.AlphaDeg, Y: s.Cl}}
