@@ -42,3 +42,12 @@ func (c *Controller) SweepCoupled() (rows []engine.CoupledPoint, clMax, alphaClM
 	}
 	return c.sweepCpl.rows, c.sweepCpl.clMax, c.sweepCpl.alphaClMax
 }
+
+// coupledViewNote explains an empty boundary-layer view when the coupled
+// solution ran; ok is false when another note applies.
+func coupledViewNote(sc *scene, f figKind, err error) (note string, ok bool) {
+	if sc == nil || sc.Coupled == nil || f != figBoundaryLayer || !isNoData(err) {
+		return "", false
+	}
+	return "No boundary layer: the viscous solution did not converge at this angle (see the status line).", true
+}

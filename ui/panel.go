@@ -25,7 +25,7 @@ type plotView struct {
 	blToggle *widget.Button
 	// Polar view: Cl and Cm, the drag polar or Cl/Cd.
 	polarMode *widget.Select
-	viscous   bool     // the study has the boundary-layer estimate on
+	viscous   bool     // the study has a boundary layer to show (estimate or coupled)
 	names     []string // element names for the choice
 }
 
@@ -171,28 +171,30 @@ func (v *plotView) setPolarMode(mode string) {
 	v.canvas.setFigure(f)
 }
 
-// setStudy adapts the view's header to the study: the element names and
-// whether the boundary-layer figures are offered.
-func (v *plotView) setStudy(names []string, viscous bool) {
-	v.viscous = viscous
+// setStudy adapts the view's header to the study: the element names,
+// whether the boundary-layer figure is offered (bl: the estimate or the
+// coupled solution is on) and whether the drag figures are (drag: the
+// estimate's sweep).
+func (v *plotView) setStudy(names []string, bl, drag bool) {
+	v.viscous = bl
 	switch v.kind {
 	case viewPressure:
 		v.names = names
-		if v.canvas.figure() == figBoundaryLayer && !viscous {
+		if v.canvas.figure() == figBoundaryLayer && !bl {
 			v.showBoundaryLayer(false) // refreshes the elements
 		} else {
 			v.refreshElements()
 		}
-		if viscous {
+		if bl {
 			v.blToggle.Show()
 		} else {
 			v.blToggle.Hide()
 		}
 	case viewPolar:
-		if !viscous && v.polarMode.Selected != polarLift {
+		if !drag && v.polarMode.Selected != polarLift {
 			v.polarMode.SetSelected(polarLift)
 		}
-		if viscous {
+		if drag {
 			v.polarMode.Show()
 		} else {
 			v.polarMode.Hide()

@@ -210,8 +210,12 @@ func (f frame) show() {
 	if p.onNote != nil {
 		p.mu.Lock()
 		visSweep := p.sc != nil && len(p.sc.SweepViscous) > 0
+		note, coupled := coupledViewNote(p.sc, p.shows, f.err)
 		p.mu.Unlock()
-		p.onNote(viewNote(p.figure(), f.err, visSweep))
+		if !coupled {
+			note = viewNote(p.figure(), f.err, visSweep)
+		}
+		p.onNote(note)
 	}
 }
 

@@ -142,6 +142,18 @@ func TestCoupledResultShown(t *testing.T) {
 		t.Errorf("results note %q", note)
 	}
 
+	// The boundary-layer view shows the coupled stations; the drag
+	// figures are the estimate's and are not offered.
+	pv, polar := w.views[viewPressure], w.views[viewPolar]
+	if pv.blToggle.Hidden || !polar.polarMode.Hidden {
+		t.Fatalf("coupled: boundary-layer switch hidden %v, drag figures hidden %v", pv.blToggle.Hidden, polar.polarMode.Hidden)
+	}
+	pv.blToggle.OnTapped()
+	w.WaitIdle()
+	if pv.canvas.figure() != figBoundaryLayer || pv.canvas.Figure() == nil || !pv.note.Hidden {
+		t.Errorf("boundary-layer view of the coupled point not drawn (%v, note %q)", pv.canvas.err, pv.note.Text)
+	}
+
 	// Not converged: bound the iterations. No viscous number anywhere.
 	w.ctl.sched.eng = iterationLimit{newEngine(), 1}
 	w.controls.alphaEntry.submit("4.5")
@@ -161,6 +173,9 @@ func TestCoupledResultShown(t *testing.T) {
 	}
 	if strings.Contains(table, "NaN") || !strings.Contains(note, "not converged after") {
 		t.Errorf("results:\n%s\n%s", table, note)
+	}
+	if pv.canvas.Figure() != nil || !strings.Contains(pv.note.Text, "viscous solution did not converge at this angle") {
+		t.Errorf("boundary layer of a point that did not converge: figure %v, note %q", pv.canvas.Figure() != nil, pv.note.Text)
 	}
 	// The viscous cells of the element's row are dashes.
 	row := strings.Fields(strings.Split(table, "\n")[1]) // "1", "main", "element", chord, Re, …

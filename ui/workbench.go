@@ -390,7 +390,7 @@ func (w *Workbench) studyChanged() {
 		names[i] = fmt.Sprintf("%d %s", i+1, e.Name)
 	}
 	for _, v := range w.views {
-		v.setStudy(names, st.Viscous.Enabled && !st.Viscous.IsCoupled()) // the estimate's figures
+		v.setStudy(names, st.Viscous.Enabled, st.Viscous.Enabled && !st.Viscous.IsCoupled()) // drag figures: the estimate's
 	}
 	w.busy.waitFor(w.ctl.sched.Latest(), w.do)
 	if autoSweep(st) && w.ctl.Sweep() == nil {

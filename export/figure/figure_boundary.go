@@ -233,6 +233,9 @@ func blRange(lines []plotter.XYs) (aft, all float64) {
 // panels, with transition and separation marked and named in a caption.
 // δ* is left out: it is Hθ, from the two panels drawn.
 func boundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
+	if sc.Viscous == nil && coupledDetail(sc) != nil {
+		return coupledBoundaryLayerPlot(sc, th)
+	}
 	b, title, err := boundaryLayerPanels(sc, th)
 	if err != nil {
 		return nil, err

@@ -2,6 +2,7 @@ package figure
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -96,5 +97,29 @@ func TestPolarCoupledSweep(t *testing.T) {
 	sc.SweepCoupled = nil
 	if s := svgText(t, ViewPolar, sc); strings.Contains(s, "viscous") {
 		t.Error("viscous curve without a coupled sweep")
+	}
+}
+
+// TestCoupledBoundaryLayerView: the boundary-layer view of a converged
+// coupled point draws θ, δ*, H, Cf and ñ against the arc length from the
+// stagnation point and says where transition was forced; without a
+// converged point it has nothing to draw.
+func TestCoupledBoundaryLayerView(t *testing.T) {
+	st := coupledStudy()
+	r := solveDemo(t, st, false, false)
+	if r.Coupled == nil || !r.Coupled.Converged {
+		t.Fatalf("did not converge: %+v", r.Coupled)
+	}
+	sc := NewScene(r, st)
+	sc.Coupled = r.Coupled
+	s := svgText(t, ViewBoundaryLayer, sc)
+	for _, want := range []string{"θ/c × 1000", "δ*/c × 1000", "H = δ*/θ", "Cf × 1000", "ñ, amplification", "s/c from stagnation", "tripped at x/c 0.05", "viscous solution"} {
+		if !strings.Contains(s, want) {
+			t.Errorf("boundary-layer view lacks %q", want)
+		}
+	}
+	sc.Coupled = &engine.CoupledPoint{Converged: false}
+	if _, err := PlotView(ViewBoundaryLayer, sc); !errors.Is(err, ErrNoData) {
+		t.Errorf("without a converged point: %v", err)
 	}
 }
