@@ -275,4 +275,15 @@ func TestCoupledSweep(t *testing.T) {
 	if r, _, _ := w.ctl.SweepCoupled(); len(r) != 4 {
 		t.Error("an angle change dropped the coupled sweep")
 	}
+	// Another N makes it out of date; undo brings it back with its rows.
+	w.controls.vc.ncrit.submit("5")
+	current(t, w)
+	if r, _, _ := w.ctl.SweepCoupled(); r != nil || w.ctl.Sweep() != nil {
+		t.Error("the coupled sweep outlived a change of N")
+	}
+	w.ctl.Undo()
+	current(t, w)
+	if r, m, _ := w.ctl.SweepCoupled(); len(r) != 4 || m != clMax {
+		t.Errorf("undo: %d coupled rows, Cl max %g (was %g)", len(r), m, clMax)
+	}
 }
