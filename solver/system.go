@@ -593,13 +593,6 @@ func getMatrix(n int) []float64 {
 	return make([]float64, n)
 }
 
-// putMatrix returns storage obtained from getMatrix to the pool.
-func putMatrix(d []float64) {
-	if cap(d) > 0 {
-		matrixPool.Put(&d)
-	}
-}
-
 // minRowsPerWorker keeps tiny systems on one goroutine, where starting
 // more would cost more than it saves.
 const minRowsPerWorker = 32

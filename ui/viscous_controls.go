@@ -117,7 +117,7 @@ func (vc *viscousControls) box() fyne.CanvasObject {
 func (vc *viscousControls) editN(s string) error {
 	n, err := optionalNumber(s)
 	if err != nil {
-		return fmt.Errorf("N must be a number from %d to %d, or empty for %d", model.MinTransitionN, model.MaxTransitionN, model.DefaultTransitionN)
+		return &model.FieldError{Field: "viscous.transition_n", Err: fmt.Errorf("not a number: enter one from %d to %d, or leave it empty for %d", model.MinTransitionN, model.MaxTransitionN, model.DefaultTransitionN)}
 	}
 	ctl := vc.c.w.ctl
 	v := ctl.state.study.Viscous
