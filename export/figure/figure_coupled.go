@@ -175,7 +175,7 @@ func addCoupledPolar(p *plot.Plot, k *key, sc *Scene, th *theme) bool {
 		}
 		label := fmt.Sprintf("%s %s at %s°", name, formatTick(v, 3), formatTick(a, 2))
 		if !sc.ClMaxIsPeak {
-			label += " (sweep ends before lift falls)"
+			label += " (no converged angle beyond it: the maximum may be higher)"
 		}
 		p.Add(&note{x: a, y: cl, dx: vg.Points(6), dy: vg.Points(-6), text: label, style: noteStyle(th, th.fg, 8, text.XLeft, text.YCenter)})
 		k.add(name+" (viscous)", m)

@@ -58,11 +58,13 @@ func coupledBoundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	upSty := lineStyle(th.upper, widthNormal, nil)
 	loSty := lineStyle(th.lower, widthNormal, dashLower)
 	var subs []*plot.Plot
+	var peaks []string
 	for j, q := range coupledBLQuantities {
 		p := newPlot(th, "", "s/c from stagnation", q.label)
 		p.Y.Label.TextStyle.Font.Size = vg.Points(blLabelPt)
 		p.X.Label.TextStyle.Font.Size = vg.Points(blLabelPt)
 		k := newKey(th, keyTopLeft)
+		var lines []plotter.XYs
 		for _, s := range []struct {
 			surf solver.CoupledSurface
 			sty  draw.LineStyle
@@ -70,6 +72,7 @@ func coupledBoundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 			if xys := surfaceArcXYs(s.surf, q.get); len(xys) > 1 {
 				p.Add(newLine(xys, s.sty))
 				k.keep(xys)
+				lines = append(lines, xys)
 			}
 		}
 		if j == 0 {
@@ -80,10 +83,23 @@ func coupledBoundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		if p.Y.Min > p.Y.Max {
 			p.Y.Min, p.Y.Max = 0, 1
 		}
-		p.Y.Min, p.Y.Max = padRange(math.Min(p.Y.Min, 0), p.Y.Max, 0.05)
+		// The stagnation peak (of Cf, say) runs off the top, as in the
+		// estimate's figure (blRange).
+		if aft, all := blRange(lines); aft > 0 && all > blPeakRatio*aft {
+			p.Y.Max = aft
+			peaks = append(peaks, fmt.Sprintf("%s peak %.3g at stagnation off scale", q.label, all))
+		}
+		p.Y.Min = math.Min(p.Y.Min, 0)
+		if low := math.Min(aftMin(lines), 0); p.Y.Min < low {
+			p.Y.Min = low // a dip at stagnation, likewise
+		}
+		p.Y.Min, p.Y.Max = padRange(p.Y.Min, p.Y.Max, 0.05)
 		subs = append(subs, p)
 	}
 	title := fmt.Sprintf("Boundary layer on %s, viscous solution: Cd %s\n%s", e.Name, formatTick(e.Cd, 4), coupledBLCaption(e))
+	if len(peaks) > 0 {
+		title += "\n" + strings.Join(peaks, " · ")
+	}
 	return compositePlot(th, title, 2, 3, subs...), nil
 }
 
@@ -112,4 +128,18 @@ func coupledBLCaption(e solver.CoupledElement) string {
 		parts = append(parts, t)
 	}
 	return strings.Join(parts, " · ")
+}
+
+// aftMin returns the smallest value of lines aft of blRangeFromXC (in
+// s/c here), +Inf when there is none.
+func aftMin(lines []plotter.XYs) float64 {
+	m := math.Inf(1)
+	for _, xys := range lines {
+		for _, p := range xys {
+			if p.X >= blRangeFromXC {
+				m = math.Min(m, p.Y)
+			}
+		}
+	}
+	return m
 }
