@@ -18,7 +18,9 @@ echo "== unit, validation and headless UI tests"
 go test -count=1 ./...
 
 echo "== race detector: solver and UI (rendering runs off the UI goroutine)"
-go test -count=1 -race ./solver/... ./ui/...
+# -short leaves out the long numerical polars, which have no concurrency of
+# their own and run ten times slower under the detector.
+go test -count=1 -race -short ./solver/... ./ui/...
 
 echo "== fuzzing, $fuzztime per target"
 for pkg in ./model/ ./cmd/sectionbench-cli/; do

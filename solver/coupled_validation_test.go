@@ -192,13 +192,14 @@ func TestCoupledE387Illinois(t *testing.T) {
 }
 
 // skipUnderRace skips a long numerical polar under the race detector,
-// where it runs ten times slower: the polars run in the ordinary pass,
+// where it runs ten times slower, and with -short: the polars run in the
+// ordinary pass,
 // and the coupled solution's only concurrency (the parallel assembly of
 // the source sensitivities) is exercised under the detector by
 // TestSourceResponseSign.
 func skipUnderRace(t *testing.T) {
 	t.Helper()
-	if raceDetector {
+	if raceDetector || testing.Short() {
 		t.Skip("long polar: run without the race detector (see skipUnderRace)")
 	}
 }

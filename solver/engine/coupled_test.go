@@ -93,6 +93,9 @@ func TestEngineCoupledNotConverged(t *testing.T) {
 // section, finds its maximum lift among the converged rows and is
 // cancellable.
 func TestEngineCoupledSweep(t *testing.T) {
+	if testing.Short() {
+		t.Skip("long coupled sweep: run without -short (the race pass uses -short)")
+	}
 	st, secs := coupledStudy(t)
 	st.Sweep = model.SweepRange{FromDeg: -2, ToDeg: 6, StepDeg: 2}
 	var done []int
@@ -225,6 +228,9 @@ func TestEngineCoupledWarmStart(t *testing.T) {
 // path without error; whatever its state, a point that did not converge
 // has no viscous numbers and no viscous forces.
 func TestEngineCoupledGroundHonest(t *testing.T) {
+	if testing.Short() {
+		t.Skip("long coupled sweep: run without -short (the race pass uses -short)")
+	}
 	st, secs := loadStudy(t, "../../testdata/studies/rear-wing.json")
 	st.Viscous = model.Viscous{Enabled: true, Mode: model.ViscousCoupled}
 	st.Flow.Reynolds = 3e5
