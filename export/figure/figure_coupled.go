@@ -171,17 +171,23 @@ func addCoupledPolar(p *plot.Plot, k *key, sc *Scene, th *theme) bool {
 		p.Add(m)
 		name, v := "Cl max", cl
 		if sc.Inverted {
-			name, v = "most downforce, −Cl", -cl
+			name, v = "most downforce −Cl", -cl
 		}
-		label := fmt.Sprintf("%s %s at %s°", name, formatTick(v, 3), formatTick(a, 2))
+		// Without a converged angle beyond it the maximum is a lower
+		// bound: ≥.
+		rel, keyName := " ", name+" (viscous)"
 		if !sc.ClMaxIsPeak {
-			label += " (no converged angle beyond it: the maximum may be higher)"
+			rel, keyName = " ≥ ", name+" (viscous; ≥: none converged beyond)"
 		}
+		label := fmt.Sprintf("%s%s%s at %s°", name, rel, formatTick(v, 3), formatTick(a, 2))
 		p.Add(&note{x: a, y: cl, dx: vg.Points(6), dy: vg.Points(-6), text: label, style: noteStyle(th, th.fg, 8, text.XLeft, text.YCenter)})
-		k.add(name+" (viscous)", m)
+		k.add(keyName, m)
 	}
 	if len(failed) > 0 {
 		b := &bottomMarks{alphas: failed, glyph: draw.GlyphStyle{Color: th.accent, Radius: glyphMarker, Shape: draw.CrossGlyph{}}}
+		for _, a := range failed {
+			k.keep(plotter.XYs{{X: a, Y: p.Y.Min}}) // the key leaves the marks visible
+		}
 		p.Add(b)
 		k.add(fmt.Sprintf("viscous not converged (%d of %d angles)", len(failed), len(sc.SweepCoupled)), b)
 	}
