@@ -281,6 +281,21 @@ func PanelLengths(s *Section) []float64 {
 	return l
 }
 
+// TrailingEdgeRatiosExempt is how many neighbour ratios at each trailing
+// edge (the first and last of NeighbourRatios) the neighbour-ratio check
+// leaves out. Cosine clustering grows its end panels as 1 : 3 : 5 : …
+// from each trailing edge by construction (the lengths go as sin of an
+// evenly spaced angle), ratios of 3 and 1.67 that no smooth law avoids;
+// the linear-vortex method still converges at second order with it
+// (docs/validation.md §7), so those two ratios are not a panelling fault.
+const TrailingEdgeRatiosExempt = 2
+
+// CheckedRatio reports whether neighbour ratio i of n (NeighbourRatios)
+// counts in the neighbour-ratio check (TrailingEdgeRatiosExempt).
+func CheckedRatio(i, n int) bool {
+	return i >= TrailingEdgeRatiosExempt && i < n-TrailingEdgeRatiosExempt
+}
+
 // NeighbourRatios returns, for each pair of adjacent panels, the size ratio
 // max(l_i, l_{i+1})/min(l_i, l_{i+1}) ≥ 1: s.Len() − 2 values. A zero-length
 // panel next to another gives +Inf. Ratios well above about 1.5 are where panel methods

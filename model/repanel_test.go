@@ -468,3 +468,26 @@ func BenchmarkRepanel(b *testing.B) {
 		})
 	}
 }
+
+// The default panelling passes the neighbour-ratio check it is judged by
+// (a ratio of at most 1.5 between neighbours, common practice), with the
+// cosine law's trailing-edge ends left out as the check leaves them out
+// (TrailingEdgeRatiosExempt).
+func TestDefaultPanellingPassesRatioCheck(t *testing.T) {
+	for _, des := range []string{"0012", "2412", "4412"} {
+		sec, err := NACA(des, NACAOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		sec, err = Repanel(sec, DefaultPanelling)
+		if err != nil {
+			t.Fatal(err)
+		}
+		r := NeighbourRatios(sec)
+		for i, v := range r {
+			if CheckedRatio(i, len(r)) && v > 1.5 {
+				t.Errorf("NACA %s, default panelling: neighbour ratio %.3f at node %d > 1.5", des, v, i+1)
+			}
+		}
+	}
+}

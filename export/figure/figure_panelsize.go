@@ -38,22 +38,26 @@ type PanelSizes struct {
 	LEPosition    float64
 }
 
-// Over returns the indices into Ratio of the ratios above maxRatio.
+// Over returns the indices into Ratio of the checked ratios above
+// maxRatio (model.CheckedRatio: the trailing-edge ends are left out).
 func (s PanelSizes) Over(maxRatio float64) []int {
 	var out []int
 	for i, r := range s.Ratio {
-		if r > maxRatio {
+		if r > maxRatio && model.CheckedRatio(i, len(s.Ratio)) {
 			out = append(out, i)
 		}
 	}
 	return out
 }
 
-// MaxRatio returns the largest neighbour ratio, 1 for fewer than two panels.
+// MaxRatio returns the largest checked neighbour ratio
+// (model.CheckedRatio), 1 for fewer than two panels.
 func (s PanelSizes) MaxRatio() float64 {
 	m := 1.0
-	for _, r := range s.Ratio {
-		m = math.Max(m, r)
+	for i, r := range s.Ratio {
+		if model.CheckedRatio(i, len(s.Ratio)) {
+			m = math.Max(m, r)
+		}
 	}
 	return m
 }

@@ -47,11 +47,25 @@ func TestPanelSizesOfPolygon(t *testing.T) {
 	if math.Abs(s.Position[0]-0.125) > tol || math.Abs(s.RatioPosition[0]-0.25) > tol {
 		t.Errorf("first midpoint at %g, first node at %g; want 0.125, 0.25", s.Position[0], s.RatioPosition[0])
 	}
-	if got := s.Over(DefaultMaxNeighbourRatio); len(got) != 2 || got[0] != 1 || got[1] != 2 {
-		t.Errorf("ratios above 1.5 at %v, want [1 2]", got)
+	// Every ratio of a five-panel contour lies within two of a trailing
+	// edge, where the check does not look (model.TrailingEdgeRatiosExempt).
+	if got := s.Over(DefaultMaxNeighbourRatio); len(got) != 0 {
+		t.Errorf("checked ratios above 1.5 at %v, want none", got)
 	}
-	if got := s.MaxRatio(); got != 4 {
-		t.Errorf("largest ratio %g, want 4", got)
+	if got := s.MaxRatio(); got != 1 {
+		t.Errorf("largest checked ratio %g, want 1 (none checked)", got)
+	}
+}
+
+// TestPanelSizesCheckedRatios: on a longer contour an interior jump is
+// reported and the trailing-edge ends are not.
+func TestPanelSizesCheckedRatios(t *testing.T) {
+	s := PanelSizes{Ratio: []float64{3, 1.67, 1.1, 2.5, 1.2, 1.67, 3}}
+	if got := s.Over(DefaultMaxNeighbourRatio); len(got) != 1 || got[0] != 3 {
+		t.Errorf("checked ratios above 1.5 at %v, want [3]", got)
+	}
+	if got := s.MaxRatio(); got != 2.5 {
+		t.Errorf("largest checked ratio %g, want 2.5", got)
 	}
 }
 
@@ -136,6 +150,6 @@ func ExamplePanelSizesOf() {
 	// Output:
 	// lengths: [0.25 0.75 1 1 1]
 	// ratios: [3 1.33 1 1]
-	// above 1.5 at: [0]
+	// above 1.5 at: []
 	// leading edge at: 0.5
 }
