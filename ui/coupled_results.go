@@ -128,12 +128,7 @@ func coupledResultsText(res *engineResult) (table, note string) {
 	}
 	table = alignColumns(cols, rows)
 
-	var n []string
-	if inv {
-		n = append(n, "−Cl is the downforce coefficient: positive pushes the car down.")
-	} else {
-		n = append(n, "Cl positive up.")
-	}
+	n := []string{signNote(inv)}
 	state := coupledState(res)
 	if c.Converged {
 		n = append(n, fmt.Sprintf("Viscous: coupled boundary layers and wakes, %s (largest last change %s); a 2-D estimate, validate by test.", state, sci(c.Residual, 2)))
@@ -187,4 +182,12 @@ func coupledFacts(res *engineResult) *model.ViscousFacts {
 		v.Separated = coupledSeparated(res)
 	}
 	return v
+}
+
+// signNote says which way Cl is counted.
+func signNote(inverted bool) string {
+	if inverted {
+		return "−Cl is the downforce coefficient: positive pushes the car down."
+	}
+	return "Cl positive up."
 }

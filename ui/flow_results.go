@@ -132,12 +132,7 @@ func resultsText(res *engineResult) (table, note string) {
 	}
 	table = alignColumns(cols, rows)
 
-	var n []string
-	if inv {
-		n = append(n, "−Cl is the downforce coefficient: positive pushes the car down.")
-	} else {
-		n = append(n, "Cl positive up.")
-	}
+	n := []string{signNote(inv)}
 	n = append(n, "Elements on their own chord (Cm about their quarter chord), the configuration on the reference chord.")
 	if f != nil && f.SpanM > 0 {
 		n = append(n, "Span totals are 2-D values times the span (no end effects).")

@@ -24,6 +24,20 @@ func coupledStudy() *model.Study {
 	return st
 }
 
+// coupledScene solves coupledStudy and returns its scene with the
+// converged coupled point.
+func coupledScene(t *testing.T) (*Scene, *engine.Result) {
+	t.Helper()
+	st := coupledStudy()
+	r := solveDemo(t, st, false, false)
+	if r.Coupled == nil || !r.Coupled.Converged {
+		t.Fatalf("NACA 0012 at 4°, Re 6e6, tripped did not converge: %+v", r.Coupled)
+	}
+	sc := NewScene(r, st)
+	sc.Coupled = r.Coupled
+	return sc, r
+}
+
 // svgText renders view v of sc as SVG, whose text is searchable.
 func svgText(t *testing.T, v View, sc *Scene) string {
 	t.Helper()
@@ -39,13 +53,7 @@ func svgText(t *testing.T, v View, sc *Scene) string {
 // and gives the viscous Cl in its title; a point that did not converge
 // draws no viscous curve and says so.
 func TestPressureViscousCp(t *testing.T) {
-	st := coupledStudy()
-	r := solveDemo(t, st, false, false)
-	if r.Coupled == nil || !r.Coupled.Converged {
-		t.Fatalf("NACA 0012 at 4°, Re 6e6, tripped did not converge: %+v", r.Coupled)
-	}
-	sc := NewScene(r, st)
-	sc.Coupled = r.Coupled
+	sc, r := coupledScene(t)
 	s := svgText(t, ViewPressure, sc)
 	for _, want := range []string{"inviscid upper", "inviscid lower", "viscous upper (coupled)", "viscous lower (coupled)", "viscous " + formatTick(r.Coupled.Cl, 4)} {
 		if !strings.Contains(s, want) {
@@ -105,13 +113,7 @@ func TestPolarCoupledSweep(t *testing.T) {
 // stagnation point and says where transition was forced; without a
 // converged point it has nothing to draw.
 func TestCoupledBoundaryLayerView(t *testing.T) {
-	st := coupledStudy()
-	r := solveDemo(t, st, false, false)
-	if r.Coupled == nil || !r.Coupled.Converged {
-		t.Fatalf("did not converge: %+v", r.Coupled)
-	}
-	sc := NewScene(r, st)
-	sc.Coupled = r.Coupled
+	sc, _ := coupledScene(t)
 	s := svgText(t, ViewBoundaryLayer, sc)
 	for _, want := range []string{"θ/c × 1000", "δ*/c × 1000", "H = δ*/θ", "Cf × 1000", "ñ, amplification", "s/c from stagnation", "tripped at x/c 0.05", "viscous solution"} {
 		if !strings.Contains(s, want) {
