@@ -45,7 +45,7 @@ func BenchmarkAssemble(b *testing.B) {
 			b.Fatal(err)
 		}
 		for b.Loop() {
-			g.assemble()
+			g.assemble(context.Background())
 		}
 	})
 }
@@ -58,7 +58,7 @@ func BenchmarkFactorize(b *testing.B) {
 		if err != nil {
 			b.Fatal(err)
 		}
-		a, _, anorm := g.assemble()
+		a, _, anorm := g.assemble(context.Background())
 		w := mat.DenseCopyOf(a)
 		s := &System{geo: g}
 		for b.Loop() {

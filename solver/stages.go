@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"math"
@@ -70,7 +71,7 @@ func MeasureStages(cfg Config, alphas []float64, grid Rect, nx, ny, repeats int)
 	var asm, fac, sol, swp, fld []time.Duration
 	for range repeats {
 		t0 := time.Now()
-		a, b, anorm := g.assemble()
+		a, b, anorm := g.assemble(context.Background())
 		t1 := time.Now()
 		s := &System{geo: g}
 		if err := s.factorize(a, anorm); err != nil {

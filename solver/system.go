@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"math"
@@ -290,7 +291,17 @@ type System struct {
 // ErrTooFewPanels (fewer than 3), ErrDegeneratePanel, ErrClockwise,
 // ErrBelowGround, ErrNonFinite, ErrLeadingEdge or ErrBadRefChord; a singular
 // matrix returns a *SingularError.
-func NewSystem(cfg Config) (*System, error) { return newSystem(cfg, buildOptions{}) }
+func NewSystem(cfg Config) (*System, error) {
+	return newSystem(context.Background(), cfg, buildOptions{})
+}
+
+// NewSystemContext is NewSystem that gives up when ctx is done, between
+// the assembly's row blocks and before the factorisation (which, once
+// started, runs to its end), returning ctx.Err(): a solve superseded by a
+// newer request stops early.
+func NewSystemContext(ctx context.Context, cfg Config) (*System, error) {
+	return newSystem(ctx, cfg, buildOptions{})
+}
 
 // buildOptions select variants of the method for comparisons in tests.
 type buildOptions struct {
@@ -299,13 +310,16 @@ type buildOptions struct {
 	unpanelledGap bool
 }
 
-func newSystem(cfg Config, opt buildOptions) (*System, error) {
+func newSystem(ctx context.Context, cfg Config, opt buildOptions) (*System, error) {
 	g, err := newGeometryOpts(cfg, opt)
 	if err != nil {
 		return nil, err
 	}
 	t0 := time.Now()
-	a, b, anorm := g.assemble()
+	a, b, anorm := g.assemble(ctx)
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
 	s := &System{geo: g}
 	t1 := time.Now()
 	if err := s.factorLU(a); err != nil {
@@ -537,9 +551,12 @@ func (g *geometry) nrhs() int {
 // estimate). Rows are filled in parallel, GOMAXPROCS goroutines over
 // blocks of rows, each summing its rows' absolute values by column; the row
 // loop allocates nothing.
-func (g *geometry) assemble() (a, b *mat.Dense, anorm float64) {
+//
+// When ctx is done the workers stop between rows and the matrix is left
+// incomplete: the caller checks ctx.Err().
+func (g *geometry) assemble(ctx context.Context) (a, b *mat.Dense, anorm float64) {
 	n := g.n
-	a = mat.NewDense(n, n, getMatrix(n*n)) // every entry is written below
+	a = mat.NewDense(n, n, nil)
 	b = mat.NewDense(n, g.nrhs(), nil)
 	raw, rawb := a.RawMatrix(), b.RawMatrix()
 	maxNodes := 0
@@ -558,6 +575,9 @@ func (g *geometry) assemble() (a, b *mat.Dense, anorm float64) {
 		wg.Go(func() {
 			sc := newRowScratch(maxNodes)
 			for r := lo; r < hi; r++ {
+				if r%minRowsPerWorker == 0 && ctx.Err() != nil {
+					return
+				}
 				row := raw.Data[r*raw.Stride : r*raw.Stride+n]
 				rhs := rawb.Data[r*rawb.Stride : r*rawb.Stride+rawb.Cols]
 				g.fillRow(r, row, rhs, sc)
@@ -576,21 +596,6 @@ func (g *geometry) assemble() (a, b *mat.Dense, anorm float64) {
 		anorm = math.Max(anorm, sum)
 	}
 	return a, b, anorm
-}
-
-// matrixPool recycles the storage of influence matrices: NewSystem needs
-// its matrix only until the unit solutions, and a density study or a sweep
-// in ground effect builds one system after another, so reusing the storage
-// saves the allocation and the garbage collector's work.
-var matrixPool sync.Pool // of *[]float64
-
-// getMatrix returns storage for n float64s, recycled if possible; its
-// contents are arbitrary.
-func getMatrix(n int) []float64 {
-	if p, ok := matrixPool.Get().(*[]float64); ok && cap(*p) >= n {
-		return (*p)[:n]
-	}
-	return make([]float64, n)
 }
 
 // minRowsPerWorker keeps tiny systems on one goroutine, where starting

@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"context"
 	"errors"
 	"math"
 	"strings"
@@ -235,7 +236,7 @@ func TestGroundModeRejectsAngle(t *testing.T) {
 func TestSolveSuperposition(t *testing.T) {
 	two := Config{Elements: []Element{nacaElement(t, "4412", 80), transform(nacaElement(t, "0012", 60), 20, 0.4, model.Point{X: 1.02, Y: -0.05})}}
 	s := mustSystem(t, two)
-	a, _, _ := s.geo.assemble()
+	a, _, _ := s.geo.assemble(context.Background())
 	for _, alpha := range []float64{-7, 0, 3.5, 12} {
 		sn, c := math.Sincos(alpha * math.Pi / 180)
 		b := mat.NewVecDense(s.geo.n, nil)
@@ -268,7 +269,7 @@ func TestAssembleParallelMatchesSerial(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	a, _, _ := g.assemble()
+	a, _, _ := g.assemble(context.Background())
 	sc := newRowScratch(200)
 	row := make([]float64, g.n)
 	rhs := make([]float64, 1)
@@ -286,5 +287,15 @@ func TestTimingsRecorded(t *testing.T) {
 	tm := mustSystem(t, Config{Elements: []Element{nacaElement(t, "2412", 100)}}).Timings()
 	if tm.Assembly <= 0 || tm.Factorization <= 0 || tm.UnitSolves <= 0 {
 		t.Errorf("timings %+v, want all positive", tm)
+	}
+}
+
+// A system whose context is already done is not built: NewSystemContext
+// returns the context's error.
+func TestNewSystemContextCancelled(t *testing.T) {
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if _, err := NewSystemContext(ctx, Config{Elements: []Element{nacaElement(t, "2412", 200)}}); !errors.Is(err, context.Canceled) {
+		t.Errorf("NewSystemContext with a cancelled context: %v, want context.Canceled", err)
 	}
 }

@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"math/cmplx"
@@ -538,7 +539,7 @@ func TestOpenTrailingEdgeBounded(t *testing.T) {
 				t.Fatalf("NACA %s, %d panels: %d unknowns, want %d (open trailing edge)", des, n, sys.Unknowns(), n+2)
 			}
 			e := sys.Solve(4).Elements[0]
-			old, err := newSystem(cfg, buildOptions{unpanelledGap: true})
+			old, err := newSystem(context.Background(), cfg, buildOptions{unpanelledGap: true})
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -574,7 +575,7 @@ func TestOpenTrailingEdgeBounded(t *testing.T) {
 		}
 		for _, el := range []Element{nacaElement(t, des, 200), {Nodes: rep.Points(), LE: rep.LeadingEdgeIndex()}} {
 			cl := mustSystem(t, Config{Elements: []Element{el}}).Solve(4).Cl
-			old, err := newSystem(Config{Elements: []Element{el}}, buildOptions{unpanelledGap: true})
+			old, err := newSystem(context.Background(), Config{Elements: []Element{el}}, buildOptions{unpanelledGap: true})
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -596,7 +597,7 @@ func TestClosedTrailingEdgeUnchanged(t *testing.T) {
 	}
 	cfg := Config{Elements: []Element{{Nodes: sec.Points(), LE: sec.LeadingEdgeIndex()}}}
 	s := mustSystem(t, cfg)
-	old, err := newSystem(cfg, buildOptions{unpanelledGap: true})
+	old, err := newSystem(context.Background(), cfg, buildOptions{unpanelledGap: true})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -255,7 +255,7 @@ func (e *Engine) coupledSweep(ctx context.Context, alphas []float64, opt solver.
 		var fs float64
 		if e.layout.Ground {
 			var err error
-			if sys, fs, err = e.groundSystem(a); err != nil {
+			if sys, fs, err = e.groundSystem(ctx, a); err != nil {
 				return nil, err
 			}
 		} else {

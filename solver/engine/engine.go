@@ -117,10 +117,11 @@ func geometryKey(st *model.Study) string {
 // Run solves the study at its angle of attack and, as asked, its sweep and
 // streamlines, the boundary-layer estimate and the forces. The context is
 // checked between the stages (after placement, after the factorisation,
-// at each angle of a sweep, and by the coupled solution): a cancelled run
-// returns ctx.Err() within one stage. The factorisation itself is not
-// interrupted (solver.NewSystem takes no context). A run cancelled
-// part-way leaves the engine's cache consistent.
+// at each angle of a sweep, inside the assembly of each system
+// (solver.NewSystemContext) and by the coupled solution): a cancelled run
+// returns ctx.Err() within one stage; a factorisation once started runs
+// to its end. A run cancelled part-way leaves the engine's cache
+// consistent.
 func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 	start := time.Now()
 	st := req.Study
@@ -141,13 +142,13 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 	}
 	l := e.layout
 	res := &Result{Layout: l}
-	// A superseded run stops between stages; the factorisation itself
-	// takes no context (solver.NewSystem).
+	// A superseded run stops between stages and inside the assembly
+	// (solver.NewSystemContext).
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
 
-	sol, cfg, sys, err := e.solveAt(st.Flow.AlphaDeg)
+	sol, cfg, sys, err := e.solveAt(ctx, st.Flow.AlphaDeg)
 	if err != nil {
 		return nil, err
 	}
@@ -221,12 +222,12 @@ func (e *Engine) Run(ctx context.Context, req Request) (*Result, error) {
 
 // solveAt solves the current layout at one angle of attack, reusing the
 // free-air factorisation, and returns the system it solved.
-func (e *Engine) solveAt(alphaDeg float64) (*solver.Solution, solver.Config, *solver.System, error) {
+func (e *Engine) solveAt(ctx context.Context, alphaDeg float64) (*solver.Solution, solver.Config, *solver.System, error) {
 	l := e.layout
 	if !l.Ground {
 		if e.sys == nil {
 			cfg, _ := solver.LayoutConfig(l, 0)
-			sys, err := solver.NewSystem(cfg)
+			sys, err := solver.NewSystemContext(ctx, cfg)
 			if err != nil {
 				return nil, solver.Config{}, nil, err
 			}
@@ -238,7 +239,7 @@ func (e *Engine) solveAt(alphaDeg float64) (*solver.Solution, solver.Config, *so
 		return sol, e.sysCfg, e.sys, nil
 	}
 	cfg, fs := solver.LayoutConfig(l, alphaDeg)
-	sys, err := solver.NewSystem(cfg)
+	sys, err := solver.NewSystemContext(ctx, cfg)
 	if err != nil {
 		return nil, solver.Config{}, nil, err
 	}
@@ -249,9 +250,9 @@ func (e *Engine) solveAt(alphaDeg float64) (*solver.Solution, solver.Config, *so
 
 // groundSystem builds the system of the configuration pitched to
 // alphaDeg above the ground and returns it with its freestream angle.
-func (e *Engine) groundSystem(alphaDeg float64) (*solver.System, float64, error) {
+func (e *Engine) groundSystem(ctx context.Context, alphaDeg float64) (*solver.System, float64, error) {
 	cfg, fs := solver.LayoutConfig(e.layout, alphaDeg)
-	sys, err := solver.NewSystem(cfg)
+	sys, err := solver.NewSystemContext(ctx, cfg)
 	return sys, fs, err
 }
 
@@ -285,7 +286,7 @@ func (e *Engine) sweep(ctx context.Context, st *model.Study, req Request, res *R
 		if err := ctx.Err(); err != nil {
 			return err
 		}
-		sol, _, _, err := e.solveAt(a)
+		sol, _, _, err := e.solveAt(ctx, a)
 		if err != nil {
 			return fmt.Errorf("sweep at %g°: %w", a, err)
 		}
