@@ -58,6 +58,33 @@ func LoadStudy(path string) (*model.Study, error) {
 	return st, nil
 }
 
+// OpenedStudy is a study file opened for work: the study, validated, and
+// its sections loaded and cleaned.
+type OpenedStudy struct {
+	Study    *model.Study
+	Sections []*model.Section     // one per element, cleaned, unit chord
+	Reports  []*model.CleanReport // what cleaning each section did
+	Dir      string               // the file's folder: coordinate files in the study are relative to it
+}
+
+// OpenStudy reads, decodes and validates a study file and loads and cleans
+// its sections: the one way the window and the command line open a study.
+// A bad file is a *FileError naming it (with the *model.FieldError inside
+// where a field is at fault); a section that cannot be loaded is the
+// *model.FieldError of LoadSections.
+func OpenStudy(path string) (*OpenedStudy, error) {
+	st, err := LoadStudy(path)
+	if err != nil {
+		return nil, err
+	}
+	dir := filepath.Dir(path)
+	secs, reps, err := LoadSections(st, dir)
+	if err != nil {
+		return nil, err
+	}
+	return &OpenedStudy{Study: st, Sections: secs, Reports: reps, Dir: dir}, nil
+}
+
 // SaveStudy writes the study atomically: the previous file stays intact if
 // anything fails. Only a regular file (or a link to one) is written; a
 // read-only file, a FIFO, a device or a folder at path is refused.

@@ -112,6 +112,12 @@ func checkNACA(designation string) error {
 
 func loadStudy(path string) (*model.Study, error) { return export.LoadStudy(path) }
 
+type openedStudy = export.OpenedStudy
+
+// openStudy reads, validates and loads a study file with its sections
+// (export.OpenStudy, as the command line does).
+func openStudy(path string) (*openedStudy, error) { return export.OpenStudy(path) }
+
 // saveStudy writes the study atomically; wrap (tests: a full disk) stands
 // between the encoder and the file when not nil.
 func saveStudy(path string, st *model.Study, wrap func(io.Writer) io.Writer) error {

@@ -127,6 +127,19 @@ func (c *Controller) Load(st *model.Study, path string) error {
 	if err != nil {
 		return err
 	}
+	c.use(st, secs, reps)
+	return nil
+}
+
+// Open makes a study file opened with openStudy (the call the command
+// line shares) the study of the window.
+func (c *Controller) Open(o *openedStudy, path string) {
+	c.state.path = path
+	c.use(o.Study, o.Sections, o.Reports)
+}
+
+// use makes st, with its loaded sections, the study, with a fresh history.
+func (c *Controller) use(st *model.Study, secs []*model.Section, reps []*cleanReport) {
 	c.CancelSweep()
 	c.state.set(cloneStudy(st), secs, reps)
 	c.state.dirty = false
@@ -138,7 +151,6 @@ func (c *Controller) Load(st *model.Study, path string) error {
 	c.sweepCpl = nil
 	c.mu.Unlock()
 	c.changed(true)
-	return nil
 }
 
 // Save writes the study to path and makes it the study's file.

@@ -176,11 +176,12 @@ func (w *Workbench) openSection() { w.openFile(sectionExtensions, w.loadSectionF
 
 // loadStudyFile opens a study from disk; on error the current one stays.
 func (w *Workbench) loadStudyFile(path string) {
-	st, err := loadStudy(path)
-	if err == nil {
-		err = w.ctl.Load(st, path)
+	o, err := openStudy(path)
+	if err != nil {
+		w.userError(err)
+		return
 	}
-	w.userError(err)
+	w.ctl.Open(o, path)
 }
 
 // loadSectionFile makes a coordinate file the current element's section.

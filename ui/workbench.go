@@ -103,13 +103,14 @@ func NewWithOptions(app fyne.App, path string, opt Options) (*Workbench, error) 
 // there were any.
 func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain func() bool) (*Workbench, error) {
 	var st *model.Study
+	var opened *openedStudy
 	var err, pathErr error
 	requested := path
 	if path != "" {
 		// A study that cannot be opened does not stop the app: it starts
 		// on the demo, says what is wrong with the file, and still offers
 		// the autosave of a window that crashed.
-		if st, pathErr = loadStudy(path); pathErr != nil {
+		if opened, pathErr = openStudy(path); pathErr != nil {
 			path = ""
 		}
 	}
@@ -126,7 +127,9 @@ func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain
 	w.build()
 	ctl.OnResult = w.present
 	ctl.OnError = w.userError
-	if err := ctl.Load(st, path); err != nil {
+	if opened != nil {
+		ctl.Open(opened, path)
+	} else if err := ctl.Load(st, path); err != nil {
 		return nil, err
 	}
 	if path == "" {

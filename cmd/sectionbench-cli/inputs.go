@@ -5,7 +5,6 @@ import (
 	"flag"
 	"fmt"
 	"math"
-	"path/filepath"
 	"slices"
 	"strconv"
 	"strings"
@@ -75,13 +74,13 @@ func (in *inputs) load(fs *flags) (*model.Study, []*model.Section, []*model.Clea
 		return nil, nil, nil, usagef("give --section SPEC or --study FILE")
 	}
 	var st *model.Study
-	baseDir := "."
+	var opened *export.OpenedStudy
 	if in.study != "" {
 		var err error
-		if st, err = export.LoadStudy(in.study); err != nil {
+		if opened, err = export.OpenStudy(in.study); err != nil {
 			return nil, nil, nil, err
 		}
-		baseDir = filepath.Dir(in.study)
+		st = opened.Study
 	} else {
 		st = model.NewStudy()
 		st.Name = in.section
@@ -130,13 +129,15 @@ func (in *inputs) load(fs *flags) (*model.Study, []*model.Section, []*model.Clea
 	if err := st.Validate(); err != nil {
 		return nil, nil, nil, flagError(err)
 	}
-	secs, reps, err := export.LoadSections(st, baseDir)
+	if opened != nil {
+		// The flags change no section: they are the file's, loaded with it.
+		return st, opened.Sections, opened.Reports, nil
+	}
+	secs, reps, err := export.LoadSections(st, ".")
 	if err != nil {
-		if in.study == "" {
-			var fe *model.FieldError
-			if errors.As(err, &fe) {
-				err = fmt.Errorf("--section %s: %w", in.section, fe.Err)
-			}
+		var fe *model.FieldError
+		if errors.As(err, &fe) {
+			err = fmt.Errorf("--section %s: %w", in.section, fe.Err)
 		}
 		return nil, nil, nil, err
 	}
