@@ -52,3 +52,18 @@ const (
 	MaxSkinMM = 50
 	MaxHoleMM = 200
 )
+
+// ErrNoseNeedsBlend is the rule that nose clustering shapes only the blend
+// spacing law: with any other law every nose value gives the same panels,
+// so a density study comparing several is meaningless.
+var ErrNoseNeedsBlend = errors.New("nose clustering changes the panels only with the blend spacing law")
+
+// CheckDensityNose reports a density plan that compares several nose
+// values under a spacing law they do not shape: a *FieldError on
+// density.nose wrapping ErrNoseNeedsBlend.
+func (st *Study) CheckDensityNose() error {
+	if len(st.Density.Nose) > 1 && st.Panelling.Spacing != SpacingBlend {
+		return &FieldError{Field: "density.nose", Err: fmt.Errorf("%w (the study uses %s spacing)", ErrNoseNeedsBlend, st.Panelling.Spacing)}
+	}
+	return nil
+}

@@ -389,7 +389,9 @@ func (d *densityWindow) studyChanged() {
 	if st.Panelling.Spacing == model.SpacingBlend {
 		d.noseNote.SetText(fmt.Sprintf("Several values compare nose clusterings (e.g. 0.2, 0.5, 0.8); empty runs the study's %s.", fixed(st.Panelling.Nose, 2)))
 	} else {
-		d.noseNote.SetText(fmt.Sprintf("Nose clustering shapes only the blend spacing law; this study uses %s spacing, so every nose value gives the same panels.", st.Panelling.Spacing))
+		// The rule the command line refuses with, in the same words.
+		rule := model.ErrNoseNeedsBlend.Error()
+		d.noseNote.SetText(fmt.Sprintf("%s%s; this study uses %s spacing, so every nose value gives the same panels.", strings.ToUpper(rule[:1]), rule[1:], st.Panelling.Spacing))
 	}
 	d.showOutcome()
 	if d.visible {

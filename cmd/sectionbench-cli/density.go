@@ -3,6 +3,7 @@ package main
 import (
 	"context"
 	"encoding/csv"
+	"errors"
 	"fmt"
 	"io"
 	"strconv"
@@ -86,8 +87,8 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 		st.Density.TolCpMinPct = *tolCp
 	}
 	*tolCl, *tolCp = st.Density.TolClPct, st.Density.TolCpMinPct
-	if len(st.Density.Nose) > 1 && st.Panelling.Spacing != model.SpacingBlend {
-		return usagef("--nose %q: nose clustering changes the panels only with --spacing blend (the study uses %s)", noseList, st.Panelling.Spacing)
+	if err := st.CheckDensityNose(); err != nil {
+		return usagef("--nose %q: %v; give --spacing blend", noseList, errors.Unwrap(err))
 	}
 	if err := st.Validate(); err != nil {
 		return flagError(err)
