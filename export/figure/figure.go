@@ -390,6 +390,8 @@ func NewScene(r *engine.Result, st *model.Study) *Scene {
 	sc := &Scene{
 		Layout: r.Layout, Solution: r.Solution, Sweep: r.Sweep, SweepViscous: r.SweepViscous,
 		Streamlines: r.Streamlines, Viscous: r.Viscous, Element: -1,
+		Coupled: r.Coupled, SweepCoupled: r.SweepCoupled,
+		ClMax: r.ClMax, AlphaClMax: r.AlphaClMax, ClMaxIsPeak: r.ClMaxIsPeak,
 	}
 	if len(r.Config.Elements) > 0 {
 		cfg := r.Config

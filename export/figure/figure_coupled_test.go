@@ -34,7 +34,9 @@ func coupledScene(t *testing.T) (*Scene, *engine.Result) {
 		t.Fatalf("NACA 0012 at 4°, Re 6e6, tripped did not converge: %+v", r.Coupled)
 	}
 	sc := NewScene(r, st)
-	sc.Coupled = r.Coupled
+	if sc.Coupled != r.Coupled {
+		t.Fatal("NewScene left out the coupled point")
+	}
 	return sc, r
 }
 
