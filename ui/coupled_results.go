@@ -132,8 +132,10 @@ func coupledResultsText(res *engineResult) (table, note string) {
 	state := coupledState(res)
 	if c.Converged {
 		n = append(n, fmt.Sprintf("Viscous: coupled boundary layers and wakes, %s (largest last change %s); a 2-D estimate, validate by test.", state, sci(c.Residual, 2)))
+	} else if c.Note != "" {
+		n = append(n, "Viscous: "+state+"; only the inviscid Cl is given.")
 	} else {
-		n = append(n, "Viscous: "+state+": it gives no numbers (—), only the inviscid Cl beside.")
+		n = append(n, fmt.Sprintf("Viscous: not converged after %d iterations, so no viscous numbers (—); the inviscid Cl is beside.", c.Iterations))
 	}
 	n = append(n, "Elements on their own chord (Cm about their quarter chord), the configuration on the reference chord.",
 		"Transition and separation in x/c from each element's leading edge, surfaces as mounted; — none.")
