@@ -97,13 +97,19 @@ func TestEngineCoupledSweep(t *testing.T) {
 		t.Skip("long coupled sweep: run without -short (the race pass uses -short)")
 	}
 	st, secs := coupledStudy(t)
-	st.Sweep = model.SweepRange{FromDeg: -2, ToDeg: 6, StepDeg: 2}
+	// A test of the sweep's machinery (order, warm starts, progress,
+	// Cl max, cancellation) over angles where the coupled solution
+	// converges on this section: not through 0° exactly, where a
+	// symmetric section puts the stagnation point on its leading-edge
+	// node, nor about 5–6°, where NACA 0012 does not converge yet
+	// (DEVELOPERS.md, docs/validation.md §9).
+	st.Sweep = model.SweepRange{FromDeg: -3, ToDeg: 3, StepDeg: 2}
 	var done []int
 	res, err := NewEngine().Run(context.Background(), Request{Study: st, Sections: secs, Sweep: true, Progress: func(d, n int) { done = append(done, d) }})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if len(res.SweepCoupled) != len(res.Sweep) || !slices.Equal(done, []int{1, 2, 3, 4, 5}) {
+	if len(res.SweepCoupled) != len(res.Sweep) || !slices.Equal(done, []int{1, 2, 3, 4}) {
 		t.Fatalf("%d coupled rows for %d angles, progress %v", len(res.SweepCoupled), len(res.Sweep), done)
 	}
 	for i, r := range res.SweepCoupled {
@@ -112,8 +118,8 @@ func TestEngineCoupledSweep(t *testing.T) {
 		}
 		t.Logf("α %5.1f°: Cl %.4f (inviscid %.4f), Cd %.5f, %d iterations", r.AlphaDeg, r.Cl, r.ClInviscid, r.Cd, r.Iterations)
 	}
-	if last := res.SweepCoupled[len(res.SweepCoupled)-1]; res.ClMax != last.Cl || res.AlphaClMax != 6 || res.ClMaxIsPeak {
-		t.Errorf("Cl max %.4f at %g° (peak %v); want the last row's %.4f at 6°, no peak inside the sweep", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak, last.Cl)
+	if last := res.SweepCoupled[len(res.SweepCoupled)-1]; res.ClMax != last.Cl || res.AlphaClMax != 3 || res.ClMaxIsPeak {
+		t.Errorf("Cl max %.4f at %g° (peak %v); want the last row's %.4f at 3°, no peak inside the sweep", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak, last.Cl)
 	}
 
 	ctx, cancel := context.WithCancel(context.Background())
