@@ -9,7 +9,7 @@ import (
 	"sectionbench/model"
 )
 
-func engineStudy(t *testing.T, code string) (*model.Study, []*model.Section) {
+func engineStudy(t testing.TB, code string) (*model.Study, []*model.Section) {
 	t.Helper()
 	st := model.NewStudy()
 	st.Elements[0].Section = model.SectionSource{Spec: "naca:" + code}
