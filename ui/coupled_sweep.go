@@ -44,10 +44,17 @@ func (c *Controller) SweepCoupled() (rows []engine.CoupledPoint, clMax, alphaClM
 }
 
 // coupledViewNote explains an empty boundary-layer view when the coupled
-// solution ran; ok is false when another note applies.
+// solution ran, and an empty drag view when the sweep's coupled rows give
+// no drag; ok is false when another note applies.
 func coupledViewNote(sc *scene, f figKind, err error) (note string, ok bool) {
-	if sc == nil || sc.Coupled == nil || f != figBoundaryLayer || !isNoData(err) {
+	if sc == nil || !isNoData(err) {
 		return "", false
 	}
-	return "No boundary layer: the viscous solution did not converge at this angle (see the status line).", true
+	switch {
+	case (f == figDragPolar || f == figLiftToDrag) && len(sc.SweepCoupled) > 0:
+		return "No drag at any angle of the sweep: the viscous solution converged at none of them (see the results table).", true
+	case f == figBoundaryLayer && sc.Coupled != nil:
+		return "No boundary layer: the viscous solution did not converge at this angle (see the status line).", true
+	}
+	return "", false
 }

@@ -9,6 +9,7 @@ import (
 
 	"fyne.io/fyne/v2/test"
 
+	figures "sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 )
@@ -285,5 +286,21 @@ func TestCoupledSweep(t *testing.T) {
 	current(t, w)
 	if r, m, _ := w.ctl.SweepCoupled(); len(r) != 4 || m != clMax {
 		t.Errorf("undo: %d coupled rows, Cl max %g (was %g)", len(r), m, clMax)
+	}
+}
+
+// TestCoupledDragViewNote: an empty drag view over a coupled sweep says
+// the viscous solution converged nowhere rather than asking for a sweep;
+// without a coupled sweep the estimate's notes apply.
+func TestCoupledDragViewNote(t *testing.T) {
+	empty := fmt.Errorf("drag: %w", figures.ErrNoData)
+	sc := &scene{SweepCoupled: []engine.CoupledPoint{{AlphaDeg: 2}, {AlphaDeg: 4}}}
+	for _, f := range []figKind{figDragPolar, figLiftToDrag} {
+		if note, ok := coupledViewNote(sc, f, empty); !ok || !strings.Contains(note, "converged at none") {
+			t.Errorf("figure %d: note %q, %v", f, note, ok)
+		}
+		if _, ok := coupledViewNote(&scene{}, f, empty); ok {
+			t.Errorf("figure %d: coupled note without a coupled sweep", f)
+		}
 	}
 }

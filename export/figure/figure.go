@@ -74,7 +74,8 @@ func (w Window) valid() bool {
 // Scene is everything the figures draw. Only the fields a view needs must be
 // set: the panels view needs Layout or Config; the pressure view Solution;
 // the streamlines view Layout or Config (and Streamlines); the polar view
-// Sweep; the drag polar and lift-to-drag views Sweep and SweepViscous; the
+// Sweep; the drag polar and lift-to-drag views Sweep and SweepViscous (or
+// SweepCoupled, which they draw in preference when it is set); the
 // boundary-layer view Viscous; the density view Density.
 type Scene struct {
 	// Layout is the placed configuration, in metres. Config, when set, is

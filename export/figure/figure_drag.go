@@ -27,7 +27,11 @@ func dragRows(sc *Scene) [][3]float64 {
 
 // dragPolarPlot draws Cl against Cd with the angle of best |Cl/Cd| marked.
 // The lift-to-drag ratio has α as abscissa and so is its own view.
+// With a coupled sweep it draws that instead (coupledDragPolarPlot).
 func dragPolarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
+	if cr, failed, ok := coupledDragRows(sc); ok {
+		return coupledDragPolarPlot(sc, th, cr, failed)
+	}
 	rows := dragRows(sc)
 	if len(rows) == 0 {
 		return nil, noData(ViewDragPolar, "no drag estimate in the sweep")
@@ -63,7 +67,11 @@ func cutOff(sc *Scene, drawn int) string {
 }
 
 // liftToDragPlot draws Cl/Cd against α with the current angle marked.
+// With a coupled sweep it draws that instead (coupledLiftToDragPlot).
 func liftToDragPlot(sc *Scene, th *theme) (*plot.Plot, error) {
+	if cr, failed, ok := coupledDragRows(sc); ok {
+		return coupledLiftToDragPlot(sc, th, cr, failed)
+	}
 	rows := dragRows(sc)
 	if len(rows) == 0 {
 		return nil, noData(ViewLiftToDrag, "no drag estimate in the sweep")
