@@ -84,6 +84,9 @@ type CoupledSolution struct {
 	// Rejected says, in words, why iterations that met the tolerance were
 	// not accepted as converged (empty otherwise).
 	Rejected string
+	// Note says, in words, how a solution was reached when not directly
+	// (SolveCoupled's fallback for a stagnation point on a node).
+	Note     string
 	Inviscid *Solution
 
 	state *coupledState // for warm starts
@@ -103,8 +106,67 @@ type CoupledSolution struct {
 // From a warm start that does not converge it tries again through the
 // angle half way between (twice at most: a continuation in α), then
 // cold.
+//
+// When the stagnation point sits on a panel node (a symmetric section at
+// 0°), where the layout of the stations cannot settle, and no solution
+// converges, it solves at α ± nodeStepDeg instead and returns their mean
+// (central differences: an error of order nodeStepDeg² in the
+// coefficients, far below the method's), saying so in Note.
 func (s *System) SolveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution) (*CoupledSolution, error) {
-	return s.solveCoupled(ctx, alphaDeg, opt, warm, maxAlphaHalvings)
+	out, err := s.solveCoupled(ctx, alphaDeg, opt, warm, maxAlphaHalvings)
+	if err != nil || out.Converged || s.geo.ground || !stagnationOnNode(out.Inviscid) {
+		return out, err
+	}
+	lo, err := s.solveCoupled(ctx, alphaDeg-nodeStepDeg, opt, nil, 0)
+	if err != nil {
+		return nil, err
+	}
+	hi, err := s.solveCoupled(ctx, alphaDeg+nodeStepDeg, opt, lo, 0)
+	if err != nil {
+		return nil, err
+	}
+	if !lo.Converged || !hi.Converged {
+		return out, nil
+	}
+	mean := *hi
+	mean.AlphaDeg, mean.Inviscid = alphaDeg, out.Inviscid
+	mean.ClInviscid, mean.CmInviscid = out.ClInviscid, out.CmInviscid
+	mean.Cl, mean.Cd, mean.Cm = 0.5*(lo.Cl+hi.Cl), 0.5*(lo.Cd+hi.Cd), 0.5*(lo.Cm+hi.Cm)
+	mean.Elements = append([]CoupledElement(nil), hi.Elements...)
+	for k := range mean.Elements {
+		e, l := &mean.Elements[k], &lo.Elements[k]
+		e.Cl, e.Cd, e.Cm = 0.5*(e.Cl+l.Cl), 0.5*(e.Cd+l.Cd), 0.5*(e.Cm+l.Cm)
+		e.ClInviscid = out.Elements[k].ClInviscid
+	}
+	mean.Iterations = out.Iterations + lo.Iterations + hi.Iterations
+	mean.Note = fmt.Sprintf("the stagnation point sat on a panel node: solved at %.2f° and %.2f° and their coefficients averaged; the boundary layers shown are those at %.2f°", alphaDeg-nodeStepDeg, alphaDeg+nodeStepDeg, alphaDeg+nodeStepDeg)
+	return &mean, nil
+}
+
+// nodeStepDeg is the angle step of SolveCoupled's fallback when the
+// stagnation point sits on a node, and nodeFraction how close to a node
+// (as a fraction of its panel) counts as on it.
+const (
+	nodeStepDeg  = 0.01
+	nodeFraction = 0.02
+)
+
+// stagnationOnNode reports whether any element's inviscid stagnation point
+// lies within nodeFraction of a panel of one of its nodes.
+func stagnationOnNode(sol *Solution) bool {
+	if sol == nil || sol.sys == nil {
+		return false
+	}
+	geo := sol.sys.geo
+	for k := range geo.elems {
+		e := &geo.elems[k]
+		kk, ss := stagnationSplit(e, sol.g, -1)
+		l := e.sNode[kk+1] - e.sNode[kk]
+		if f := (ss - e.sNode[kk]) / l; f < nodeFraction || f > 1-nodeFraction {
+			return true
+		}
+	}
+	return false
 }
 
 // warmDirectIterations is how many Newton iterations a warm start tries
