@@ -256,9 +256,7 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	if !conv && (cold || iters == 0) {
 		// A cold start, or a warm start that failed: from the march.
 		if iters > 0 {
-			if cs, err = newCoupledState(inv, opt); err != nil {
-				return nil, err
-			}
+			cs.reset()
 		}
 		n := iters
 		conv, iters, res, err = cs.solve(ctx, cs.march())

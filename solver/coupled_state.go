@@ -85,14 +85,21 @@ func newCoupledState(sol *Solution, opt CoupledOptions) (*coupledState, error) {
 	cs.resp = newSourceResponse(sol, cs.wakes)
 	cs.stag = make([]int, len(geo.elems))
 	cs.sStag = make([]float64, len(geo.elems))
-	g := sol.g
-	for k := range geo.elems {
-		cs.stag[k], cs.sStag[k] = stagnationSplit(&geo.elems[k], g, -1)
+	cs.reset()
+	return cs, nil
+}
+
+// reset lays the stations out again at the inviscid stagnation points
+// with zeroed variables, keeping the wakes and source sensitivities (the
+// costly part), for a start from the march after a failed warm start.
+func (cs *coupledState) reset() {
+	for k := range cs.geo.elems {
+		cs.stag[k], cs.sStag[k] = stagnationSplit(&cs.geo.elems[k], cs.sol.g, -1)
 	}
+	cs.ueMarch, cs.lam = nil, 1
 	cs.layout()
 	n := len(cs.st)
 	cs.c, cs.th, cs.m = make([]float64, n), make([]float64, n), make([]float64, n)
-	return cs, nil
 }
 
 // stagnationSplit returns the node k such that the stagnation point lies
