@@ -393,7 +393,7 @@ func TestVortexForceFreeAir(t *testing.T) {
 // and 0.1% of the main plane's: dropping it or flipping its sign
 // would break the balance by more than the 0.015% allowed.
 func TestVortexForceBaseBalance(t *testing.T) {
-	st, secs := loadStudy(t, "../testdata/studies/rear-wing.json")
+	st, secs := modeltest.LoadStudy(t, "../testdata/studies/rear-wing.json")
 	const tol = 1.5e-4
 	for _, ground := range []bool{true, false} {
 		for _, n := range []int{320, 640} {

@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"sectionbench/model"
+	"sectionbench/model/modeltest"
 )
 
 // coupledStudy is NACA 0012 on a 1 m chord at Re 6e6 with the coupled
@@ -237,7 +238,7 @@ func TestEngineCoupledGroundHonest(t *testing.T) {
 	if testing.Short() {
 		t.Skip("long coupled sweep: run without -short (the race pass uses -short)")
 	}
-	st, secs := loadStudy(t, "../../testdata/studies/rear-wing.json")
+	st, secs := modeltest.LoadStudy(t, "../../testdata/studies/rear-wing.json")
 	st.Viscous = model.Viscous{Enabled: true, Mode: model.ViscousCoupled}
 	st.Flow.Reynolds = 3e5
 	res := run(t, NewEngine(), st, secs, false)

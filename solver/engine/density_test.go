@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"sectionbench/model"
+	"sectionbench/model/modeltest"
 	"sectionbench/solver"
 )
 
@@ -405,7 +406,7 @@ func TestDensityStudySkipsGeometryErrors(t *testing.T) {
 // 40-panel counts fail the placement check (the gap between main plane and flap is
 // shorter than the panels), completes with that count skipped.
 func TestDensityStudyRearWing(t *testing.T) {
-	st, secs := loadStudy(t, "../../testdata/studies/rear-wing.json")
+	st, secs := modeltest.LoadStudy(t, "../../testdata/studies/rear-wing.json")
 	res, err := NewEngine().Density(context.Background(), st, secs, nil)
 	if err != nil {
 		t.Fatal(err)
