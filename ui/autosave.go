@@ -144,9 +144,9 @@ func (w *Workbench) startAutosave() {
 	}
 	// Posted from a goroutine, the first check runs on the UI goroutine
 	// after the workbench is built (fyne.Do queues it until the app runs).
-	w.ctl.act.add()
+	w.ctl.Activity().Add()
 	go func() {
-		defer w.ctl.act.done()
+		defer w.ctl.Activity().Done()
 		w.do(func() {
 			for _, p := range problems {
 				showError(errors.New(p), w.win)
@@ -260,7 +260,7 @@ func (a *autosaver) collect() []string {
 // to the study just opened is dropped without asking.
 func (a *autosaver) first() {
 	a.w.ctl.Subscribe(a.check)
-	cur, err := encodeStudy(a.w.ctl.state.study)
+	cur, err := encodeStudy(a.w.ctl.Current())
 	for len(a.found) > 0 {
 		old, err2 := encodeStudy(a.found[0].study)
 		if err != nil || err2 != nil || string(cur) != string(old) {
@@ -320,7 +320,7 @@ func (a *autosaver) drop(b *backup) {
 // the study cannot be opened, the backup stays for a later start.
 func (a *autosaver) recover() {
 	b := a.found[0]
-	if err := a.w.ctl.loadRecovered(b.study, b.studyPath); err != nil {
+	if err := a.w.ctl.LoadRecovered(b.study, b.studyPath); err != nil {
 		b.lock.Release()
 		b.lock = nil
 		a.w.userError(fmt.Errorf("the autosaved study could not be opened and was kept: %w", err))
@@ -344,7 +344,7 @@ func (a *autosaver) check() {
 		return // wait for the user's choice
 	}
 	ctl := a.w.ctl
-	if ctl.state.study == nil {
+	if ctl.Current() == nil {
 		return
 	}
 	if !ctl.Dirty() {
@@ -354,7 +354,7 @@ func (a *autosaver) check() {
 		}
 		return
 	}
-	b, err := encodeStudy(ctl.state.study)
+	b, err := encodeStudy(ctl.Current())
 	if err != nil || string(b) == a.last {
 		return
 	}
@@ -377,12 +377,12 @@ func (a *autosaver) queue(op *autosaveOp) {
 	}
 	a.busy = true
 	a.wg.Add(1)
-	a.w.ctl.act.add()
+	a.w.ctl.Activity().Add()
 	go a.loop()
 }
 
 func (a *autosaver) loop() {
-	defer a.w.ctl.act.done()
+	defer a.w.ctl.Activity().Done()
 	defer a.wg.Done()
 	for {
 		a.mu.Lock()

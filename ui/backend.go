@@ -18,20 +18,13 @@ import (
 	"sectionbench/model"
 	"sectionbench/solver"
 	"sectionbench/solver/engine"
+	"sectionbench/ui/session"
 )
 
 type (
 	engineRequest = engine.Request
 	engineResult  = engine.Result
 )
-
-// studyRunner is what the scheduler runs: one call per update. *engine.Engine
-// is the real one; tests substitute their own.
-type studyRunner interface {
-	Run(ctx context.Context, req engineRequest) (*engineResult, error)
-}
-
-func newEngine() studyRunner { return engine.NewEngine() }
 
 type (
 	viewWindow = figures.Window
@@ -61,35 +54,11 @@ func leWindow(l *model.Layout, element int, chords float64) viewWindow {
 // mmPerM converts the layout's metres to the figures' millimetres.
 const mmPerM = 1000
 
-// sceneOf gathers what the views draw from a result and the study solved.
-func sceneOf(res *engineResult, st *model.Study, sweep []solver.Coefficients) *scene {
-	cfg := res.Config
-	return &scene{
-		Layout:      res.Layout,
-		Config:      &cfg,
-		Solution:    res.Solution,
-		Sweep:       sweep,
-		Streamlines: res.Streamlines,
-		Viscous:     res.Viscous,
-		Coupled:     res.Coupled,
-		Pins:        st.Pins,
-		AlphaDeg:    st.Flow.AlphaDeg,
-		Element:     -1,
-		GroundY:     cfg.GroundY,
-		Ground:      cfg.Ground,
-		Inverted:    st.Inverted,
-	}
-}
-
 func newStudy() *model.Study { return model.NewStudy() }
 
 func decodeStudy(b []byte) (*model.Study, error) { return model.DecodeStudy(b) }
 
 func encodeStudy(st *model.Study) ([]byte, error) { return st.Encode() }
-
-func cloneStudy(st *model.Study) *model.Study { return st.Clone() }
-
-func validateStudy(st *model.Study) error { return st.Validate() }
 
 type cleanReport = model.CleanReport
 
@@ -99,17 +68,6 @@ func loadSections(st *model.Study, baseDir string) ([]*model.Section, []*cleanRe
 	return export.LoadSections(st, baseDir)
 }
 
-// loadSectionFile reads and cleans a coordinate file.
-func loadSectionFile(path string) (*model.Section, *cleanReport, error) {
-	return export.LoadSectionFile(path)
-}
-
-// checkNACA reports why a designation is not a NACA section, or nil.
-func checkNACA(designation string) error {
-	_, err := model.ParseNACA(designation)
-	return err
-}
-
 func loadStudy(path string) (*model.Study, error) { return export.LoadStudy(path) }
 
 type openedStudy = export.OpenedStudy
@@ -117,12 +75,6 @@ type openedStudy = export.OpenedStudy
 // openStudy reads, validates and loads a study file with its sections
 // (export.OpenStudy, as the command line does).
 func openStudy(path string) (*openedStudy, error) { return export.OpenStudy(path) }
-
-// saveStudy writes the study atomically; wrap (tests: a full disk) stands
-// between the encoder and the file when not nil.
-func saveStudy(path string, st *model.Study, wrap func(io.Writer) io.Writer) error {
-	return export.SaveStudyThrough(path, st, wrap)
-}
 
 // writeFile writes a file atomically: it appears whole or not at all.
 func writeFile(path string, write func(io.Writer) error) error {
@@ -171,7 +123,7 @@ func writeReport(w io.Writer, st *model.Study, res *engineResult, secs []*model.
 func recovered(f func() error) (err error) {
 	defer func() {
 		if r := recover(); r != nil {
-			err = internalError("", r)
+			err = session.InternalError("", r)
 		}
 	}()
 	return f()
@@ -180,16 +132,6 @@ func recovered(f func() error) (err error) {
 // isNoData reports a view that lacks what it draws (as opposed to a
 // failure).
 func isNoData(err error) bool { return errors.Is(err, figures.ErrNoData) }
-
-// sceneWithViscous is sceneOf with the boundary-layer estimate of the
-// sweep shown in the drag polar and lift-to-drag views.
-func sceneWithViscous(res *engineResult, st *model.Study, sweep []solver.Coefficients, sweepViscous []engine.ViscousPoint) *scene {
-	sc := sceneOf(res, st, sweep)
-	if len(sweepViscous) == len(sweep) {
-		sc.SweepViscous = sweepViscous
-	}
-	return sc
-}
 
 // figKind is what a view cell draws: its own figure or one of the
 // boundary-layer figures it can switch to.
@@ -215,42 +157,10 @@ func figureOf(v viewKind) figKind { return figKind(v) }
 func safeRenderFigure(f figKind, sc *scene, w, h int, dpi float64) (fig *figure, err error) {
 	defer func() {
 		if r := recover(); r != nil {
-			fig, err = nil, internalError("drawing "+figureViews[f].String(), r)
+			fig, err = nil, session.InternalError("drawing "+figureViews[f].String(), r)
 		}
 	}()
 	return figures.Render(figureViews[f], sc, w, h, dpi)
-}
-
-type studyElement = model.StudyElement
-
-// slotOf returns the trade's gap, overlap and deflection of element i
-// (not the first) behind element i−1 (model.Study.SlotOf).
-func slotOf(st *model.Study, i int, sec *model.Section) model.Slot { return st.SlotOf(i, sec) }
-
-// placeSlot places element i at s behind element i−1
-// (model.Study.PlaceSlot).
-func placeSlot(st *model.Study, i int, sec *model.Section, s model.Slot) error {
-	return st.PlaceSlot(i, sec, s)
-}
-
-// setElement replaces element i of st by e; the elements behind it follow
-// (model.Study.SetElement).
-func setElement(st *model.Study, i int, e studyElement) { st.SetElement(i, e) }
-
-// appendFlap adds a flap behind the last element (model.Study.AppendFlap).
-func appendFlap(st *model.Study, name string) { st.AppendFlap(name) }
-
-// setInverted mounts the study upside down or upright
-// (model.Study.SetInverted).
-func setInverted(st *model.Study, on bool) { st.SetInverted(on) }
-
-// checkGeometry places the configuration as the solver will and reports
-// overlapping elements and gaps too small for the panels
-// (*model.GeometryError), so that such an edit can be refused before it
-// replaces a configuration that solves.
-func checkGeometry(st *model.Study, secs []*model.Section) error {
-	_, err := model.Place(st, secs)
-	return err
 }
 
 // Geometry errors, matched with errors.Is.
@@ -266,13 +176,6 @@ type (
 
 func kmhToMps(v float64) float64 { return model.KmhToMps(v) }
 func mpsToKmh(v float64) float64 { return model.MpsToKmh(v) }
-
-// isaSeaLevel returns the standard sea-level temperature (°C) and pressure
-// (Pa).
-func isaSeaLevel() (tempC, pressurePa float64) {
-	a := model.ISASeaLevel()
-	return a.TemperatureC(), a.PressurePa
-}
 
 // airProperties returns the density (kg/m³), dynamic viscosity (Pa·s) and
 // kinematic viscosity (m²/s) of air at tc °C and p Pa.

@@ -5,6 +5,8 @@ import (
 	"testing"
 
 	"sectionbench/assets"
+	figures "sectionbench/export/figure"
+	"sectionbench/solver/engine"
 )
 
 // Size of each view in the update benchmarks, px.
@@ -25,11 +27,11 @@ func benchUpdate(b *testing.B, fresh bool) {
 	if err != nil {
 		b.Fatal(err)
 	}
-	eng := newEngine()
+	eng := engine.NewEngine()
 	i := 0
 	for b.Loop() {
 		if fresh {
-			eng = newEngine()
+			eng = engine.NewEngine()
 		} else {
 			st.Flow.AlphaDeg = float64(i%8) - 2
 			i++
@@ -38,7 +40,7 @@ func benchUpdate(b *testing.B, fresh bool) {
 		if err != nil {
 			b.Fatal(err)
 		}
-		sc := sceneOf(res, st, res.Sweep)
+		sc := figures.NewScene(res, st)
 		for k := range numViews {
 			if _, err := renderView(k, sc, benchViewW, benchViewH, baseDPI); err != nil {
 				b.Fatalf("%v: %v", k, err)
@@ -66,7 +68,7 @@ func BenchmarkAngleChange(b *testing.B) {
 	if err != nil {
 		b.Fatal(err)
 	}
-	eng := newEngine()
+	eng := engine.NewEngine()
 	i := 0
 	for b.Loop() {
 		st.Flow.AlphaDeg = float64(i%8) - 2
@@ -75,7 +77,7 @@ func BenchmarkAngleChange(b *testing.B) {
 		if err != nil {
 			b.Fatal(err)
 		}
-		sc := sceneOf(res, st, res.Sweep)
+		sc := figures.NewScene(res, st)
 		var errs [numViews]error
 		eachViewAtOnce(func(k viewKind) { _, errs[k] = renderView(k, sc, benchViewW, benchViewH, baseDPI) })
 		for k, err := range errs {

@@ -278,7 +278,7 @@ func newControls(w *Workbench) *controls {
 		if err != nil {
 			return fmt.Errorf("panel count must be a whole number from %d to %d", model.MinPanels, model.MaxPanels)
 		}
-		p := ctl.state.study.Panelling
+		p := ctl.Current().Panelling
 		p.Panels = n
 		return ctl.SetPanelling("", p)
 	})
@@ -322,7 +322,7 @@ func newControls(w *Workbench) *controls {
 	}
 	c.alphaSlider.OnChangeEnded = func(float64) { ctl.BreakMerge() }
 	stepAlpha := func(sign float64) {
-		st := ctl.state.study
+		st := ctl.Current()
 		ctl.BreakMerge()
 		setMessage(c.alphaMsg, ctl.SetAlpha("", st.Flow.AlphaDeg+sign*st.Sweep.StepDeg))
 	}
@@ -336,13 +336,13 @@ func newControls(w *Workbench) *controls {
 		if err != nil {
 			return errors.New("ground clearance must be a number of millimetres")
 		}
-		g := ctl.state.study.Ground
+		g := ctl.Current().Ground
 		g.ClearanceMM = v
 		return ctl.SetGround("", g)
 	})
 	c.ground = widget.NewCheck("Ground, clearance (mm)", func(on bool) {
 		if !c.syncing {
-			g := ctl.state.study.Ground
+			g := ctl.Current().Ground
 			g.Enabled = on
 			setMessage(c.flowMsg, ctl.SetGround("", g))
 		}
@@ -501,7 +501,7 @@ func (c *controls) clusterSlider(key string, set func(*model.Panelling, float64)
 }
 
 func (c *controls) editPanelling(key string, f func(*model.Panelling)) {
-	p := c.w.ctl.state.study.Panelling
+	p := c.w.ctl.Current().Panelling
 	f(&p)
 	setMessage(c.panelMsg, c.w.ctl.SetPanelling(key, p))
 }

@@ -15,6 +15,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/model"
+	"sectionbench/ui/session"
 )
 
 // Size of the density window in Fyne units, and of its control column.
@@ -144,8 +145,8 @@ func newDensityWindow(w *Workbench) *densityWindow {
 		d.table.SetColumnWidth(i, wd)
 	}
 
-	d.conv = newFigureBox(w.ctl.act, w.do, fyne.NewSize(420, 320))
-	d.le = newFigureBox(w.ctl.act, w.do, fyne.NewSize(420, 320))
+	d.conv = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(420, 320))
+	d.le = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(420, 320))
 	d.leElement = widget.NewSelect(nil, func(string) { d.drawLE() })
 	d.leElement.Hide()
 	d.sizes = newPanelSizeView(w)
@@ -349,7 +350,7 @@ func parseList(s string) ([]float64, error) {
 // changed since the fields were last filled (opened, undone), leaving the
 // user's typing alone otherwise.
 func (d *densityWindow) syncPlan(st *model.Study) {
-	if d.syncedPlanSeen && densityPlansEqual(d.syncedPlan, st.Density) {
+	if d.syncedPlanSeen && session.DensityPlansEqual(d.syncedPlan, st.Density) {
 		return
 	}
 	d.syncedPlan, d.syncedPlanSeen = st.Density, true
@@ -381,7 +382,7 @@ func (d *densityWindow) syncPlan(st *model.Study) {
 // studyChanged follows the study: the plan fields, the nose note, whether
 // the shown outcome still holds, and the panel sizes.
 func (d *densityWindow) studyChanged() {
-	st := d.w.ctl.state.study
+	st := d.w.ctl.Current()
 	if st == nil {
 		return
 	}
@@ -409,7 +410,7 @@ func (d *densityWindow) start() {
 		return
 	}
 	ctl := d.w.ctl
-	if err := ctl.setDensityPlan(plan); err != nil {
+	if err := ctl.SetDensityPlan(plan); err != nil {
 		d.setMsg(err)
 		return
 	}
@@ -426,9 +427,9 @@ func (d *densityWindow) start() {
 	d.progress.SetValue(0)
 	d.progress.Show()
 	d.relayout()
-	ctl.act.add()
+	ctl.Activity().Add()
 	go func() {
-		defer ctl.act.done()
+		defer ctl.Activity().Done()
 		defer cancel()
 		out, err := runDensity(ctx, st, secs, func(done, total int) {
 			d.w.do(func() {
@@ -528,7 +529,7 @@ func (d *densityWindow) finish(gen int, st *model.Study, out *densityOutcome, er
 
 // fresh reports whether the shown outcome holds for the current study.
 func (d *densityWindow) fresh() bool {
-	return d.out != nil && sameDensityCase(d.runStudy, d.w.ctl.state.study)
+	return d.out != nil && session.SameDensityCase(d.runStudy, d.w.ctl.Current())
 }
 
 // showOutcome fills the summary, extrapolations, recommendation and table.
@@ -588,7 +589,7 @@ func (d *densityWindow) showOutcome() {
 		}
 	}
 	tolCl, tolCp := planTolerances(st.Density)
-	cur := d.w.ctl.state.study.Panelling
+	cur := d.w.ctl.Current().Panelling
 	if ser.RecommendedPanels == 0 {
 		d.recommend.SetText("No count recommended")
 		d.recommendWhy.SetText(fmt.Sprintf("No count keeps Cl within %s %% and min Cp within %s %% of the extrapolated values (or Cl does not converge monotonically): add finer counts.", num(tolCl), num(tolCp)))
@@ -633,7 +634,7 @@ func (d *densityWindow) useRecommended() {
 	if ser.RecommendedPanels == 0 {
 		return
 	}
-	d.setMsg(d.w.ctl.useDensityPanels(ser.RecommendedPanels, ser.Nose))
+	d.setMsg(d.w.ctl.UseDensityPanels(ser.RecommendedPanels, ser.Nose))
 }
 
 // drawLE draws the leading-edge overlay of the selected series and element.

@@ -12,6 +12,7 @@ import (
 	"sectionbench/model"
 	"sectionbench/solver"
 	"sectionbench/solver/engine"
+	"sectionbench/ui/session"
 )
 
 type (
@@ -43,7 +44,7 @@ var (
 func runDensity(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int)) (out *densityOutcome, err error) {
 	defer func() {
 		if r := recover(); r != nil {
-			out, err = nil, internalError("in the density study", r)
+			out, err = nil, session.InternalError("in the density study", r)
 		}
 	}()
 	var curves []densityCurve

@@ -11,6 +11,8 @@ import (
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/ui/session"
 )
 
 // figureRenderer draws a figure at a pixel size and dpi; it runs off the
@@ -22,7 +24,7 @@ type figureRenderer func(dark bool, w, h int, dpi float64) (*figure, error)
 // that finish after a newer one was asked for are dropped.
 type figureBox struct {
 	widget.BaseWidget
-	act   *activity
+	act   *session.Activity
 	do    func(func())
 	image *canvas.Image
 	note  *widget.Label
@@ -52,7 +54,7 @@ type figureRequest struct {
 	dpi    float64
 }
 
-func newFigureBox(act *activity, do func(func()), min fyne.Size) *figureBox {
+func newFigureBox(act *session.Activity, do func(func()), min fyne.Size) *figureBox {
 	b := &figureBox{act: act, do: do, min: min, loop: renderLoop{act: act}}
 	b.image = canvas.NewImageFromImage(image.NewRGBA(image.Rect(0, 0, 1, 1)))
 	b.image.FillMode = canvas.ImageFillStretch

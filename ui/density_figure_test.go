@@ -7,6 +7,8 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/test"
+
+	"sectionbench/ui/session"
 )
 
 // TestFigureBoxNewestWins: a drawing that finishes after a newer one was
@@ -14,14 +16,14 @@ import (
 func TestFigureBoxNewestWins(t *testing.T) {
 	test.NewTempApp(t)
 	q := new(uiQueue)
-	act := newActivity()
+	act := session.NewActivity()
 	b := newFigureBox(act, q.post, fyne.NewSize(100, 80))
 	win := test.NewWindow(b)
 	defer win.Close()
 	win.Resize(fyne.NewSize(200, 160))
 	wait := func() {
 		for {
-			act.wait()
+			act.Wait()
 			if !q.drain() {
 				return
 			}

@@ -13,6 +13,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/model"
+	"sectionbench/ui/session"
 )
 
 // elementControls are the element list and the placement of the selected
@@ -63,7 +64,7 @@ func newElementControls(c *controls) *elementControls {
 			}
 		})
 	ec.list.OnSelected = func(id widget.ListItemID) {
-		if !c.syncing && id < len(ctl.state.study.Elements) {
+		if !c.syncing && id < len(ctl.Current().Elements) {
 			ctl.SetElement(id)
 		}
 	}
@@ -81,13 +82,13 @@ func newElementControls(c *controls) *elementControls {
 		i := ctl.Element()
 		return ctl.SetElementName("", i, s)
 	})
-	placeField := func(name string, set func(*Placement, float64)) *field {
+	placeField := func(name string, set func(*session.Placement, float64)) *field {
 		return newField(w, ec.placeMsg, func(s string) error { return ec.editPlacement(name, s, set) })
 	}
-	ec.chord = placeField("chord", func(p *Placement, v float64) { p.ChordMM = v })
-	ec.x = placeField("leading edge x", func(p *Placement, v float64) { p.XMM = v })
-	ec.y = placeField("leading edge y", func(p *Placement, v float64) { p.YMM = v })
-	ec.angle = placeField("setting angle", func(p *Placement, v float64) { p.AngleDeg = v })
+	ec.chord = placeField("chord", func(p *session.Placement, v float64) { p.ChordMM = v })
+	ec.x = placeField("leading edge x", func(p *session.Placement, v float64) { p.XMM = v })
+	ec.y = placeField("leading edge y", func(p *session.Placement, v float64) { p.YMM = v })
+	ec.angle = placeField("setting angle", func(p *session.Placement, v float64) { p.AngleDeg = v })
 	slotField := func(name string, set func(*model.Slot, float64)) *field {
 		return newField(w, ec.placeMsg, func(s string) error { return ec.editSlot(name, s, set) })
 	}
@@ -170,7 +171,7 @@ func caption(s string) *widget.Label {
 // editPlacement sets one placement value of the selected element from
 // text; the others stay as they are in the study (not as rounded in their
 // entries).
-func (ec *elementControls) editPlacement(name, text string, set func(*Placement, float64)) error {
+func (ec *elementControls) editPlacement(name, text string, set func(*session.Placement, float64)) error {
 	v, err := parseNumber(text)
 	if err != nil {
 		return fmt.Errorf("%s must be a number", name)

@@ -12,6 +12,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/model"
+	"sectionbench/ui/session"
 )
 
 // rearWing is the invented two-element example study.
@@ -103,7 +104,7 @@ func TestAddRemoveReorderElements(t *testing.T) {
 	if !ec.remove.Disabled() {
 		t.Error("Remove is enabled with a single element")
 	}
-	if err := w.ctl.RemoveElement(0); !errors.Is(err, errLastElement) {
+	if err := w.ctl.RemoveElement(0); !errors.Is(err, session.ErrLastElement) {
 		t.Errorf("removing the last element: %v", err)
 	}
 	// Undo brings the flaps back.
@@ -283,7 +284,7 @@ func TestInvalidEntriesKeepState(t *testing.T) {
 			t.Errorf("%s: a new solve ran", c.name)
 		}
 		// Put the field back: undo the typing, as the user would.
-		w.controls.sync(w.ctl.state.study)
+		w.controls.sync(w.ctl.Current())
 	}
 }
 

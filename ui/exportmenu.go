@@ -56,9 +56,9 @@ func (w *Workbench) exportTo(write exportJob) {
 		busy := dialog.NewCustomWithoutButtons("Exporting…", widget.NewProgressBarInfinite(), w.win)
 		busy.Show()
 		dir := u.Path()
-		w.ctl.act.add()
+		w.ctl.Activity().Add()
 		go func() {
-			defer w.ctl.act.done()
+			defer w.ctl.Activity().Done()
 			var files []string
 			err := recovered(func() error {
 				var err error
@@ -94,7 +94,7 @@ var errNoResult = errors.New("nothing to export yet: the study has not been solv
 // exportBase is the stem of exported file names: the team, when the study
 // names one, then the study's name.
 func (w *Workbench) exportBase() string {
-	st := w.ctl.state.study
+	st := w.ctl.Current()
 	return strings.TrimSuffix(fileNameFor(strings.TrimSpace(st.Team+" "+st.Name)), ".json")
 }
 

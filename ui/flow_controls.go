@@ -61,7 +61,7 @@ func newFlowControls(c *controls) *flowControls {
 		// The study keeps its speed: no edit.
 		if !c.syncing {
 			c.syncing = true
-			fc.speed.show(fc.speedText(ctl.state.study.Flow.SpeedMPS), nil)
+			fc.speed.show(fc.speedText(ctl.Current().Flow.SpeedMPS), nil)
 			c.syncing = false
 		}
 	})
@@ -71,14 +71,14 @@ func newFlowControls(c *controls) *flowControls {
 		if err != nil {
 			return errors.New("air temperature must be a number of °C")
 		}
-		return ctl.SetAir("", v, ctl.state.study.Flow.PressurePa)
+		return ctl.SetAir("", v, ctl.Current().Flow.PressurePa)
 	})
 	fc.pressure = newField(w, fc.msg, func(s string) error {
 		v, err := parseNumber(s)
 		if err != nil {
 			return errors.New("air pressure must be a number of pascals")
 		}
-		return ctl.SetAir("", ctl.state.study.Flow.TemperatureC, v)
+		return ctl.SetAir("", ctl.Current().Flow.TemperatureC, v)
 	})
 	fc.isa = widget.NewButton("ISA sea level", func() { setMessage(fc.msg, ctl.ResetAir()) })
 

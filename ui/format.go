@@ -3,6 +3,9 @@ package ui
 import (
 	"strconv"
 	"strings"
+
+	"sectionbench/model"
+	"sectionbench/ui/session"
 )
 
 // fixed formats x with prec decimals and a true minus sign.
@@ -22,3 +25,9 @@ func parseNumber(s string) (float64, error) {
 	s = strings.ReplaceAll(s, ",", ".")
 	return strconv.ParseFloat(s, 64)
 }
+
+// num formats a setting compactly (session.Number, as the pin labels do).
+func num(x float64) string { return session.Number(x) }
+
+// shortSource names a section source in a short form (session.SourceName).
+func shortSource(src model.SectionSource) string { return session.SourceName(src) }

@@ -127,7 +127,7 @@ func (w *Workbench) confirmDiscard(action string, then func()) {
 		then()
 		return
 	}
-	msg := widget.NewLabel("The study “" + w.ctl.state.study.Name + "” has unsaved changes.")
+	msg := widget.NewLabel("The study “" + w.ctl.Current().Name + "” has unsaved changes.")
 	var d dialog.Dialog
 	save := widget.NewButton("Save", func() {
 		d.Hide()
@@ -252,7 +252,7 @@ func (w *Workbench) saveThen(as bool, then func()) {
 		w.saveTo(p, then)
 		return
 	}
-	w.saveDlg = newSaveDialog(w.win, w.startFolder(), fileNameFor(w.ctl.state.study.Name), func(p string) { w.saveTo(p, then) })
+	w.saveDlg = newSaveDialog(w.win, w.startFolder(), fileNameFor(w.ctl.Current().Name), func(p string) { w.saveTo(p, then) })
 	w.saveDlg.show()
 }
 
@@ -315,8 +315,8 @@ func (w *Workbench) showReport() {
 		b.WriteString("\n")
 	}
 	for i, r := range w.ctl.Reports() {
-		name := w.ctl.state.study.Elements[i].Name
-		b.WriteString(name + ": " + shortSource(w.ctl.state.study.Elements[i].Section) + "\n")
+		name := w.ctl.Current().Elements[i].Name
+		b.WriteString(name + ": " + shortSource(w.ctl.Current().Elements[i].Section) + "\n")
 		if r == nil || r.String() == "" {
 			b.WriteString("  no changes were needed\n\n")
 			continue

@@ -232,11 +232,11 @@ func TestMonkey(t *testing.T) {
 				w.userError(ctl.AddElement())
 				return "add element"
 			case 1:
-				i := r.IntN(len(ctl.state.study.Elements))
+				i := r.IntN(len(ctl.Current().Elements))
 				w.userError(ctl.RemoveElement(i))
 				return fmt.Sprintf("remove element %d", i)
 			}
-			i := r.IntN(len(ctl.state.study.Elements))
+			i := r.IntN(len(ctl.Current().Elements))
 			ctl.SetElement(i)
 			return fmt.Sprintf("choose element %d", i)
 		}},
@@ -360,7 +360,7 @@ func dismissOverlays(win fyne.Window) {
 // monkeyCheck tells whether the workbench shows what its study says.
 func monkeyCheck(w *Workbench) error {
 	ctl := w.ctl
-	st := ctl.state.study
+	st := ctl.Current()
 	if st == nil {
 		return fmt.Errorf("no study")
 	}
@@ -377,8 +377,8 @@ func monkeyCheck(w *Workbench) error {
 			return fmt.Errorf("the solver failed inside: %v", err)
 		}
 	} else {
-		if res == nil || gen != ctl.sched.Latest() {
-			return fmt.Errorf("idle, but the result shown (gen %d) is not the newest request (%d)", gen, ctl.sched.Latest())
+		if res == nil || gen != ctl.Latest() {
+			return fmt.Errorf("idle, but the result shown (gen %d) is not the newest request (%d)", gen, ctl.Latest())
 		}
 		if got, want := len(res.Solution.Elements), len(st.Elements); got != want {
 			return fmt.Errorf("result has %d elements, study %d", got, want)

@@ -6,6 +6,8 @@ import (
 	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/ui/session"
 )
 
 // plotView is one of the four views: a header with its title, the readout
@@ -42,7 +44,7 @@ const allElements = "All elements"
 // newPlotView builds a view; onEnlarge toggles it between its cell and the
 // whole view area.
 // element tells which element the leading-edge close-up shows.
-func newPlotView(kind viewKind, act *activity, do func(func()), onEnlarge func(viewKind), element func() int) *plotView {
+func newPlotView(kind viewKind, act *session.Activity, do func(func()), onEnlarge func(viewKind), element func() int) *plotView {
 	v := &plotView{kind: kind, canvas: newPlotCanvas(kind, act, do)}
 	v.title = widget.NewLabelWithStyle(kind.String(), fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	v.title.Truncation = fyne.TextTruncateEllipsis

@@ -57,7 +57,7 @@ func newPanelSizeView(w *Workbench) *panelSizeView {
 	}
 	v.warn = widget.NewLabel("")
 	v.warn.Wrapping = fyne.TextWrapWord
-	v.fig = newFigureBox(w.ctl.act, w.do, fyne.NewSize(420, 360))
+	v.fig = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(420, 360))
 	hint := widget.NewLabel("Panel length on the chord and the size ratio of neighbouring panels along the contour: where nose and tail clustering put the panels. Growth of at most about 1.5 from one panel to the next is common practice.")
 	hint.Wrapping = fyne.TextWrapWord
 	top := container.NewVBox(hint,
@@ -87,7 +87,7 @@ func (v *panelSizeView) studyChanged() {
 // update places the current study on a goroutine and shows its sizes.
 func (v *panelSizeView) update() {
 	ctl := v.w.ctl
-	if ctl.state.study == nil {
+	if ctl.Current() == nil {
 		return
 	}
 	st, secs := ctl.Study(), ctl.Sections()
@@ -99,9 +99,9 @@ func (v *panelSizeView) update() {
 	v.stale = false
 	v.ticket++
 	t := v.ticket
-	ctl.act.add()
+	ctl.Activity().Add()
 	go func() {
-		defer ctl.act.done()
+		defer ctl.Activity().Done()
 		var sizes []panelSizes
 		err := recovered(func() error {
 			var err error

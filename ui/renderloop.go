@@ -1,6 +1,10 @@
 package ui
 
-import "sync"
+import (
+	"sync"
+
+	"sectionbench/ui/session"
+)
 
 // renderLoop is the one way the workbench renders off the UI goroutine:
 // at most one render runs at a time, and requests made while it runs
@@ -9,7 +13,7 @@ import "sync"
 // at most two renders, never a goroutine each. The views (plotCanvas) and
 // the density window's figures (figureBox) both use it.
 type renderLoop struct {
-	act *activity // counts the loop's goroutine as work in flight
+	act *session.Activity // counts the loop's goroutine as work in flight
 
 	mu      sync.Mutex
 	running bool
@@ -28,9 +32,9 @@ func (l *renderLoop) request(render func()) {
 	}
 	l.running = true
 	l.mu.Unlock()
-	l.act.add()
+	l.act.Add()
 	go func() {
-		defer l.act.done()
+		defer l.act.Done()
 		for {
 			render()
 			l.mu.Lock()

@@ -3,12 +3,14 @@ package ui
 import (
 	"sync/atomic"
 	"testing"
+
+	"sectionbench/ui/session"
 )
 
 // A burst of requests while a render runs costs one more render, not one
 // each, and the last render sees the newest input.
 func TestRenderLoopCoalesces(t *testing.T) {
-	act := newActivity()
+	act := session.NewActivity()
 	l := &renderLoop{act: act}
 	gate := make(chan struct{})
 	started := make(chan struct{}, 1)
@@ -29,7 +31,7 @@ func TestRenderLoopCoalesces(t *testing.T) {
 		l.request(render)
 	}
 	close(gate)
-	act.wait()
+	act.Wait()
 	if n := runs.Load(); n != 2 {
 		t.Errorf("%d renders for 51 requests made while the first ran, want 2", n)
 	}

@@ -44,7 +44,7 @@ func TestSaveAsOnAFullDiskLosesNothing(t *testing.T) {
 	}
 	w.controls.panelEntry.submit("90")
 	w.WaitIdle()
-	w.ctl.saveWrap = func(out io.Writer) io.Writer { return &failAfter{w: out, n: 40} }
+	w.ctl.SaveWrap = func(out io.Writer) io.Writer { return &failAfter{w: out, n: 40} }
 
 	saveAs(t, w, dir, "wing.json")
 	if b, _ := os.ReadFile(old); string(b) != previous {
@@ -65,7 +65,7 @@ func TestSaveAsOnAFullDiskLosesNothing(t *testing.T) {
 	}
 
 	// With room on the disk the same dialog saves, by path.
-	w.ctl.saveWrap = nil
+	w.ctl.SaveWrap = nil
 	saveAs(t, w, dir, "wing.json")
 	if b, _ := os.ReadFile(old); string(b) != encoded(t, w.ctl.Study()) {
 		t.Error("the study was not saved once the disk had room")

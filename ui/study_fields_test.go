@@ -10,6 +10,7 @@ import (
 
 	"sectionbench/model"
 	"sectionbench/solver/engine"
+	"sectionbench/ui/session"
 )
 
 // studyField declares what one study field means to the three places that
@@ -152,7 +153,7 @@ func TestStudyFieldRegistries(t *testing.T) {
 			if reflect.DeepEqual(next, base) {
 				t.Fatal("the edit changes nothing")
 			}
-			if got := equalGeometry(base, next); got != f.sweepHolds {
+			if got := session.EqualGeometry(base, next); got != f.sweepHolds {
 				t.Errorf("equalGeometry = %v, declared sweep holds %v", got, f.sweepHolds)
 			}
 			e := engine.NewEngine()

@@ -9,6 +9,8 @@ import (
 	"fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/ui/session"
 )
 
 // viewKind names the four live views.
@@ -45,7 +47,7 @@ const (
 type plotCanvas struct {
 	widget.BaseWidget
 	kind    viewKind
-	act     *activity
+	act     *session.Activity
 	image   *canvas.Image
 	onHover func(text string)
 	onNote  func(text string) // says why the view is empty, "" when it is not
@@ -69,7 +71,7 @@ type plotCanvas struct {
 	err     error
 }
 
-func newPlotCanvas(kind viewKind, act *activity, do func(func())) *plotCanvas {
+func newPlotCanvas(kind viewKind, act *session.Activity, do func(func())) *plotCanvas {
 	p := &plotCanvas{kind: kind, act: act, do: do, shows: figureOf(kind), element: -1, loop: renderLoop{act: act}}
 	p.image = canvas.NewImageFromImage(image.NewRGBA(image.Rect(0, 0, 1, 1)))
 	p.image.FillMode = canvas.ImageFillStretch

@@ -52,7 +52,7 @@ func newViscousControls(c *controls) *viscousControls {
 		if c.syncing {
 			return
 		}
-		prev := ctl.state.study.Viscous
+		prev := ctl.Current().Viscous
 		if s == "" || s == modeName(prev) {
 			vc.showMode(prev)
 			return
@@ -120,7 +120,7 @@ func (vc *viscousControls) editN(s string) error {
 		return &model.FieldError{Field: "viscous.transition_n", Err: fmt.Errorf("not a number: enter one from %d to %d, or leave it empty for %d", model.MinTransitionN, model.MaxTransitionN, model.DefaultTransitionN)}
 	}
 	ctl := vc.c.w.ctl
-	v := ctl.state.study.Viscous
+	v := ctl.Current().Viscous
 	v.TransitionN = n
 	return ctl.SetViscous("", v)
 }
@@ -136,7 +136,7 @@ func (vc *viscousControls) editTrips(string) error {
 		t[i] = v
 	}
 	ctl := vc.c.w.ctl
-	v := ctl.state.study.Viscous
+	v := ctl.Current().Viscous
 	v.TripUpper, v.TripLower = t[0], t[1]
 	return ctl.SetViscous("", v)
 }

@@ -12,6 +12,7 @@ import (
 	figures "sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
+	"sectionbench/ui/session"
 )
 
 // TestViscousModeChoice: the Flow tab chooses the coupled solution, the
@@ -92,7 +93,7 @@ func TestViscousModeChoice(t *testing.T) {
 // iterationLimit runs the engine with the coupled solution's Newton
 // iterations bounded, so that a point does not converge.
 type iterationLimit struct {
-	eng studyRunner
+	eng session.Runner
 	n   int
 }
 
@@ -156,7 +157,7 @@ func TestCoupledResultShown(t *testing.T) {
 	}
 
 	// Not converged: bound the iterations. No viscous number anywhere.
-	w.ctl.sched.eng = iterationLimit{newEngine(), 1}
+	w.ctl.SetRunner(iterationLimit{engine.NewEngine(), 1})
 	w.controls.alphaEntry.submit("4.5")
 	res = current(t, w)
 	if res.Coupled == nil || res.Coupled.Converged {

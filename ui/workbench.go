@@ -20,6 +20,7 @@ import (
 
 	"sectionbench/assets"
 	"sectionbench/model"
+	"sectionbench/ui/session"
 )
 
 // Default window size in Fyne units.
@@ -43,7 +44,7 @@ const (
 type Workbench struct {
 	app fyne.App
 	win fyne.Window
-	ctl *Controller
+	ctl *session.Controller
 	// do runs a function on the UI goroutine: fyne.Do, or in tests a
 	// queue that WaitIdle drains on the test goroutine.
 	do    func(func())
@@ -119,8 +120,7 @@ func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain
 			return nil, err
 		}
 	}
-	ctl := NewController()
-	ctl.do = do
+	ctl := session.NewController(do)
 	w := &Workbench{app: app, ctl: ctl, enlarged: numViews, do: do, drain: drain, opt: opt}
 	w.win = app.NewWindow("Sectionbench")
 	ctl.Subscribe(w.studyChanged)
@@ -131,10 +131,6 @@ func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain
 		ctl.Open(opened, path)
 	} else if err := ctl.Load(st, path); err != nil {
 		return nil, err
-	}
-	if path == "" {
-		// The demo is a starting point, not a file: saving asks where.
-		ctl.state.path = ""
 	}
 	if pathErr != nil {
 		why := friendly(pathErr)
@@ -151,7 +147,7 @@ func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain
 func (w *Workbench) Window() fyne.Window { return w.win }
 
 // Controller returns the workbench's controller.
-func (w *Workbench) Controller() *Controller { return w.ctl }
+func (w *Workbench) Controller() *session.Controller { return w.ctl }
 
 // ShowAndRun shows the window and runs the app until it quits.
 func (w *Workbench) ShowAndRun() { w.win.ShowAndRun() }
@@ -168,7 +164,7 @@ func (w *Workbench) WaitIdle() {
 
 func (w *Workbench) build() {
 	for k := range numViews {
-		w.views[k] = newPlotView(k, w.ctl.act, w.do, w.toggleEnlarge, w.ctl.Element)
+		w.views[k] = newPlotView(k, w.ctl.Activity(), w.do, w.toggleEnlarge, w.ctl.Element)
 	}
 	w.grid = container.NewGridWithColumns(2,
 		w.views[viewPanels], w.views[viewPressure], w.views[viewStreamlines], w.views[viewPolar])
@@ -248,7 +244,7 @@ func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error)
 	}
 	frames := renderViews(w.views, sc)
 	w.do(func() {
-		if gen != w.ctl.sched.Latest() {
+		if gen != w.ctl.Latest() {
 			return // stale: a newer request is on its way
 		}
 		for _, f := range frames {
@@ -260,7 +256,7 @@ func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error)
 		w.sceneMu.Unlock()
 		w.showStatus(res)
 		w.results.show(res)
-		w.controls.showResult(w.ctl.state.study, res)
+		w.controls.showResult(w.ctl.Current(), res)
 	})
 }
 
@@ -380,7 +376,7 @@ func firstLine(s string) string {
 
 // studyChanged refreshes the title and the controls after the study changed.
 func (w *Workbench) studyChanged() {
-	st := w.ctl.state.study
+	st := w.ctl.Current()
 	title := st.Name
 	if w.ctl.Dirty() {
 		title += " •"
@@ -395,7 +391,7 @@ func (w *Workbench) studyChanged() {
 	for _, v := range w.views {
 		v.setStudy(names, st.Viscous.Enabled, st.Viscous.Enabled && !st.Viscous.IsCoupled()) // drag figures: the estimate's
 	}
-	w.busy.waitFor(w.ctl.sched.Latest(), w.do)
+	w.busy.waitFor(w.ctl.Latest(), w.do)
 	if autoSweep(st) && w.ctl.Sweep() == nil {
 		w.controls.runSweep()
 	}
@@ -403,13 +399,13 @@ func (w *Workbench) studyChanged() {
 
 // autoSweep reports whether a study's polar runs by itself, with progress,
 // whenever it is out of date: in ground effect, where every angle is a
-// solve of its own but an inviscid sweep of up to liveSweepMaxAngles
+// solve of its own but an inviscid sweep of up to session.LiveSweepMaxAngles
 // angles still takes a fraction of a second. A free-air sweep runs with
 // every update instead (liveSweep); one with the boundary layer waits for
 // the Run button.
 func autoSweep(st *model.Study) bool {
 	a, err := st.Sweep.Angles()
-	return err == nil && len(a) <= liveSweepMaxAngles && !st.Viscous.Enabled && st.Ground.Enabled
+	return err == nil && len(a) <= session.LiveSweepMaxAngles && !st.Viscous.Enabled && st.Ground.Enabled
 }
 
 // userError explains bad input in a dialog; the study is left unchanged.

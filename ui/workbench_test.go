@@ -77,8 +77,8 @@ func current(t *testing.T, w *Workbench) *engineResult {
 	if err != nil {
 		t.Fatalf("solve failed: %v", err)
 	}
-	if res == nil || gen != w.ctl.sched.Latest() {
-		t.Fatalf("no current result (gen %d, latest %d)", gen, w.ctl.sched.Latest())
+	if res == nil || gen != w.ctl.Latest() {
+		t.Fatalf("no current result (gen %d, latest %d)", gen, w.ctl.Latest())
 	}
 	return res
 }

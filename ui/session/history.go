@@ -1,4 +1,4 @@
-package ui
+package session
 
 import (
 	"time"
@@ -41,7 +41,7 @@ func (h *history) Record(before *model.Study, key string) {
 	if merge {
 		return
 	}
-	h.undo = append(h.undo, cloneStudy(before))
+	h.undo = append(h.undo, before.Clone())
 	if len(h.undo) > maxUndo {
 		h.undo = h.undo[len(h.undo)-maxUndo:]
 	}
@@ -59,8 +59,8 @@ func (h *history) Undo(cur *model.Study) (*model.Study, bool) {
 	}
 	prev := h.undo[len(h.undo)-1]
 	h.undo = h.undo[:len(h.undo)-1]
-	h.redo = append(h.redo, cloneStudy(cur))
-	return cloneStudy(prev), true
+	h.redo = append(h.redo, cur.Clone())
+	return prev.Clone(), true
 }
 
 // Redo returns the study undone last, given the current one, or false.
@@ -71,8 +71,8 @@ func (h *history) Redo(cur *model.Study) (*model.Study, bool) {
 	}
 	next := h.redo[len(h.redo)-1]
 	h.redo = h.redo[:len(h.redo)-1]
-	h.undo = append(h.undo, cloneStudy(cur))
-	return cloneStudy(next), true
+	h.undo = append(h.undo, cur.Clone())
+	return next.Clone(), true
 }
 
 // CanUndo and CanRedo report whether a step is available.

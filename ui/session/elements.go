@@ -1,4 +1,4 @@
-package ui
+package session
 
 import (
 	"errors"
@@ -10,8 +10,8 @@ import (
 )
 
 // Element editing: the controller's side. Each method is one study edit;
-// placements go through model.Study.SetElement and model.Study.PlaceSlot (in
-// backend.go), so no geometry is computed here.
+// placements go through model.Study.SetElement and model.Study.PlaceSlot,
+// so no geometry is computed here.
 
 // newFlapName is the name of an added element, numbered when taken.
 const newFlapName = "flap"
@@ -27,7 +27,7 @@ func (c *Controller) AddElement() error {
 	}
 	name := uniqueElementName(st, newFlapName)
 	err := c.Edit("", func(s *model.Study) {
-		appendFlap(s, name)
+		s.AppendFlap(name)
 	})
 	if err != nil {
 		return fmt.Errorf("no room for a flap behind %q: %w", st.Elements[n-1].Name, err)
@@ -54,15 +54,15 @@ func uniqueElementName(st *model.Study, base string) string {
 	}
 }
 
-// errLastElement is returned when removing the only element.
-var errLastElement = errors.New("a study needs at least one element; the last one cannot be removed")
+// ErrLastElement is returned when removing the only element.
+var ErrLastElement = errors.New("a study needs at least one element; the last one cannot be removed")
 
 // RemoveElement removes element i. The other elements stay where they are.
 func (c *Controller) RemoveElement(i int) error {
 	n := len(c.state.study.Elements)
 	c.checkIndex(i)
 	if n == 1 {
-		return errLastElement
+		return ErrLastElement
 	}
 	err := c.Edit("", func(s *model.Study) {
 		s.Elements = append(s.Elements[:i], s.Elements[i+1:]...)
@@ -123,7 +123,7 @@ func (c *Controller) SetPlacement(key string, i int, p Placement) error {
 	return c.Edit(key, func(s *model.Study) {
 		e := s.Elements[i]
 		e.ChordMM, e.XMM, e.YMM, e.AngleDeg = p.ChordMM, p.XMM, p.YMM, p.AngleDeg
-		setElement(s, i, e)
+		s.SetElement(i, e)
 	})
 }
 
@@ -134,7 +134,7 @@ func (c *Controller) SlotOf(i int) model.Slot {
 	if i == 0 {
 		panic("ui: the first element has no slot")
 	}
-	return slotOf(c.state.study, i, c.state.sections[i])
+	return c.state.study.SlotOf(i, c.state.sections[i])
 }
 
 // SetSlot places element i (not the first) at gap, overlap and deflection
@@ -144,8 +144,8 @@ func (c *Controller) SetSlot(key string, i int, sl model.Slot) error {
 	if i == 0 {
 		panic("ui: the first element has no slot")
 	}
-	next := cloneStudy(c.state.study)
-	if err := placeSlot(next, i, c.state.sections[i], sl); err != nil {
+	next := c.state.study.Clone()
+	if err := next.PlaceSlot(i, c.state.sections[i], sl); err != nil {
 		return err
 	}
 	return c.Edit(key, func(s *model.Study) { s.Elements = next.Elements })

@@ -1,4 +1,4 @@
-package ui
+package session
 
 import (
 	"fmt"
@@ -6,13 +6,13 @@ import (
 	"runtime/debug"
 )
 
-// internalError turns a value recovered from a panic into the error the
+// InternalError turns a value recovered from a panic into the error the
 // window shows, and logs the panic with its whole stack on the standard
 // logger (stderr), so that a report of it carries the trace and not only
 // the status line's first line. where says what was running ("in the
 // solver", "drawing pressure"); it may be empty. Call it from the deferred
 // function that recovered, so the stack is the panicking goroutine's.
-func internalError(where string, r any) error {
+func InternalError(where string, r any) error {
 	if where != "" {
 		where = " " + where
 	}

@@ -1,4 +1,4 @@
-package ui
+package session
 
 import (
 	"context"
@@ -9,18 +9,18 @@ import (
 	"strings"
 	"sync"
 
-	"fyne.io/fyne/v2"
-
+	"sectionbench/export"
+	"sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver"
 	"sectionbench/solver/engine"
 )
 
-// liveSweepMaxAngles is the longest sweep that runs with every live update;
+// LiveSweepMaxAngles is the longest sweep that runs with every live update;
 // a longer one (or one with the boundary-layer estimate on) waits for the
 // Run button. With the factorised system cached, 41 angles cost a few
 // superpositions each.
-const liveSweepMaxAngles = 41
+const LiveSweepMaxAngles = 41
 
 // maxPins bounds the pins a study keeps; more would make the views unreadable.
 const maxPins = 6
@@ -31,11 +31,12 @@ const maxPins = 6
 type Controller struct {
 	state studyState
 	hist  history
-	act   *activity
+	act   *Activity
 	sched *scheduler
 	// newEngine makes the engine of a sweep run.
-	newEngine func() studyRunner
-	// do runs a function on the UI goroutine (fyne.Do; tests queue).
+	newEngine func() Runner
+	// do runs a function on the UI goroutine (fyne.Do in the window; tests
+	// queue).
 	do func(func())
 
 	// studyListeners are called in order on the UI goroutine after the
@@ -44,13 +45,13 @@ type Controller struct {
 	// OnResult is called on the worker goroutine with the scene of each
 	// result that is still current, or with the error of the current
 	// request.
-	OnResult func(gen uint64, sc *scene, res *engineResult, err error)
+	OnResult func(gen uint64, sc *figure.Scene, res *engine.Result, err error)
 	// OnError is called on the UI goroutine when a change could not be
 	// made outside an edit (which returns its error instead).
 	OnError func(err error)
 
 	mu          sync.Mutex
-	result      *engineResult
+	result      *engine.Result
 	resErr      error
 	resGen      uint64
 	sweep       []solver.Coefficients // shown in the polar; nil when out of date
@@ -65,19 +66,57 @@ type Controller struct {
 	pinGen      uint64     // generation a pin waits for; 0 when none (PinCurrent)
 	errGen      uint64     // generation whose request failed with resErr
 
-	saveWrap func(io.Writer) io.Writer // tests: stands between Save's encoder and the file
+	// SaveWrap, when not nil, stands between Save's encoder and the file
+	// (tests: a full disk).
+	SaveWrap func(io.Writer) io.Writer
 }
 
 // NewController returns a controller with no study: set its hooks and
-// subscribe to its changes, then Load one before anything else.
-func NewController() *Controller {
-	c := &Controller{act: newActivity(), newEngine: newEngine, do: fyne.Do}
+// subscribe to its changes, then Load one before anything else. do runs a
+// function on the UI goroutine (fyne.Do in the window).
+func NewController(do func(func())) *Controller {
+	if do == nil {
+		panic("session: NewController(nil)")
+	}
+	c := &Controller{act: NewActivity(), newEngine: newEngine, do: do}
 	c.sched = newScheduler(newEngine(), c.act, c.deliver)
 	return c
 }
 
+// Runner is what the scheduler runs: one call per update. *engine.Engine
+// is the real one; tests substitute their own.
+type Runner interface {
+	Run(ctx context.Context, req engine.Request) (*engine.Result, error)
+}
+
+func newEngine() Runner { return engine.NewEngine() }
+
+// SetRunner replaces the engine the live solves run on (tests: one that
+// holds or limits its runs). Call it while no solve is in flight
+// (WaitIdle).
+func (c *Controller) SetRunner(r Runner) {
+	c.sched.mu.Lock()
+	defer c.sched.mu.Unlock()
+	if c.sched.busy {
+		panic("session: SetRunner while a solve is in flight")
+	}
+	c.sched.eng = r
+}
+
+// Current returns the study itself, not a copy: read it on the UI
+// goroutine and never change it (Edit does).
+func (c *Controller) Current() *model.Study { return c.state.study }
+
+// Activity returns the counter of work in flight that WaitIdle waits for;
+// renders and other background work of the window count themselves on it.
+func (c *Controller) Activity() *Activity { return c.act }
+
+// Latest returns the generation of the newest solve requested; a result
+// of an older one is stale.
+func (c *Controller) Latest() uint64 { return c.sched.Latest() }
+
 // Study returns a copy of the current study.
-func (c *Controller) Study() *model.Study { return cloneStudy(c.state.study) }
+func (c *Controller) Study() *model.Study { return c.state.study.Clone() }
 
 // Path returns the study's file, "" if it was never saved.
 func (c *Controller) Path() string { return c.state.path }
@@ -86,14 +125,14 @@ func (c *Controller) Path() string { return c.state.path }
 func (c *Controller) Dirty() bool { return c.state.dirty }
 
 // Reports returns the cleaning reports of the current sections.
-func (c *Controller) Reports() []*cleanReport { return c.state.reports }
+func (c *Controller) Reports() []*model.CleanReport { return c.state.reports }
 
 // Sections returns the current cleaned sections.
 func (c *Controller) Sections() []*model.Section { return c.state.sections }
 
 // Result returns the newest result shown, its generation and the error of
 // the newest request (nil if it succeeded).
-func (c *Controller) Result() (*engineResult, uint64, error) {
+func (c *Controller) Result() (*engine.Result, uint64, error) {
 	c.mu.Lock()
 	defer c.mu.Unlock()
 	return c.result, c.resGen, c.resErr
@@ -115,15 +154,15 @@ func (c *Controller) SweepViscous() []engine.ViscousPoint {
 }
 
 // WaitIdle blocks until no solve or render is in flight.
-func (c *Controller) WaitIdle() { c.act.wait() }
+func (c *Controller) WaitIdle() { c.act.Wait() }
 
 // Load replaces the study (New, Open) and forgets the undo history.
 func (c *Controller) Load(st *model.Study, path string) error {
-	if err := validateStudy(st); err != nil {
+	if err := st.Validate(); err != nil {
 		return err
 	}
 	c.state.path = path
-	secs, reps, err := loadSections(st, c.state.baseDir())
+	secs, reps, err := export.LoadSections(st, c.state.baseDir())
 	if err != nil {
 		return err
 	}
@@ -133,15 +172,15 @@ func (c *Controller) Load(st *model.Study, path string) error {
 
 // Open makes a study file opened with openStudy (the call the command
 // line shares) the study of the window.
-func (c *Controller) Open(o *openedStudy, path string) {
+func (c *Controller) Open(o *export.OpenedStudy, path string) {
 	c.state.path = path
 	c.use(o.Study, o.Sections, o.Reports)
 }
 
 // use makes st, with its loaded sections, the study, with a fresh history.
-func (c *Controller) use(st *model.Study, secs []*model.Section, reps []*cleanReport) {
+func (c *Controller) use(st *model.Study, secs []*model.Section, reps []*model.CleanReport) {
 	c.CancelSweep()
-	c.state.set(cloneStudy(st), secs, reps)
+	c.state.set(st.Clone(), secs, reps)
 	c.state.dirty = false
 	c.hist.Reset()
 	c.elem = 0
@@ -155,7 +194,7 @@ func (c *Controller) use(st *model.Study, secs []*model.Section, reps []*cleanRe
 
 // Save writes the study to path and makes it the study's file.
 func (c *Controller) Save(path string) error {
-	if err := saveStudy(path, c.state.study, c.saveWrap); err != nil {
+	if err := export.SaveStudyThrough(path, c.state.study, c.SaveWrap); err != nil {
 		return err
 	}
 	c.state.path = path
@@ -170,19 +209,19 @@ func (c *Controller) Save(path string) error {
 // step; edits with the same non-empty key in a row merge into one) and is
 // solved; otherwise the study stays as it was and the error says why.
 func (c *Controller) Edit(key string, fn func(st *model.Study)) error {
-	next := cloneStudy(c.state.study)
+	next := c.state.study.Clone()
 	fn(next)
-	if err := validateStudy(next); err != nil {
+	if err := next.Validate(); err != nil {
 		return err
 	}
-	if err := checkFlow(next); err != nil {
+	if err := next.CheckFlow(); err != nil {
 		return err
 	}
 	secs, reps, err := c.state.sectionsFor(next)
 	if err != nil {
 		return err
 	}
-	geometry := !equalGeometry(c.state.study, next)
+	geometry := !EqualGeometry(c.state.study, next)
 	// Placing costs O(n²) in the panels of each pair of elements (tens of
 	// milliseconds for five elements of 160 panels), so it runs only when
 	// the elements themselves changed. A panelling change that leaves a
@@ -224,7 +263,7 @@ func (c *Controller) step(f func(*model.Study) (*model.Study, bool)) bool {
 		c.reportError(err)
 		return false
 	}
-	geometry := !equalGeometry(c.state.study, st)
+	geometry := !EqualGeometry(c.state.study, st)
 	c.state.set(st, secs, reps)
 	c.state.dirty = true
 	c.changed(geometry)
@@ -253,8 +292,8 @@ func (c *Controller) changed(geometry bool) {
 		}
 		c.mu.Unlock()
 	}
-	c.sched.Submit(engineRequest{
-		Study:       cloneStudy(st),
+	c.sched.Submit(engine.Request{
+		Study:       st.Clone(),
 		Sections:    c.state.sections,
 		Sweep:       live,
 		Streamlines: true,
@@ -289,8 +328,8 @@ func (c *Controller) reportError(err error) {
 
 // deliver runs on the worker goroutine with a result that was current when
 // its solve ended.
-func (c *Controller) deliver(u update, res *engineResult, err error) {
-	var sc *scene
+func (c *Controller) deliver(u update, res *engine.Result, err error) {
+	var sc *figure.Scene
 	c.mu.Lock()
 	c.resErr = err
 	if err != nil {
@@ -302,8 +341,7 @@ func (c *Controller) deliver(u update, res *engineResult, err error) {
 			c.sweep, c.sweepVis, c.sweepKey = res.Sweep, res.SweepViscous, ""
 			c.sweepCpl = coupledSweepOf(res)
 		}
-		sc = sceneWithViscous(res, u.req.Study, c.sweep, c.sweepVis)
-		c.sweepCpl.addTo(sc)
+		sc = sceneOf(res, u.req.Study, c.sweep, c.sweepVis, c.sweepCpl)
 	}
 	c.mu.Unlock()
 	if c.OnResult != nil {
@@ -317,7 +355,7 @@ func (c *Controller) deliver(u update, res *engineResult, err error) {
 // boundary layer every angle is a solve of its own.
 func liveSweep(st *model.Study) bool {
 	a, err := st.Sweep.Angles()
-	return err == nil && len(a) <= liveSweepMaxAngles && !st.Viscous.Enabled && !st.Ground.Enabled
+	return err == nil && len(a) <= LiveSweepMaxAngles && !st.Viscous.Enabled && !st.Ground.Enabled
 }
 
 // equalGeometry reports whether a sweep of one study holds for the other:
@@ -326,7 +364,7 @@ func liveSweep(st *model.Study) bool {
 // sets its own), the sweep range, pins, names, the density plan and the
 // span (which only scales forces). The air and speed matter only to the
 // boundary-layer estimate, so they may differ when it is off in both.
-func equalGeometry(a, b *model.Study) bool {
+func EqualGeometry(a, b *model.Study) bool {
 	// Shallow copies: only their own top-level fields are overwritten, and
 	// reflect.DeepEqual follows the rest, with no encoding per keystroke.
 	x, y := *a, *b
@@ -342,14 +380,14 @@ func equalGeometry(a, b *model.Study) bool {
 // sweepKey identifies what a sweep depends on (see equalGeometry) and its
 // range.
 func sweepKey(st *model.Study) string {
-	x := cloneStudy(st)
+	x := st.Clone()
 	x.Flow.AlphaDeg, x.Flow.SpanM = 0, 0
 	x.Pins, x.Name, x.Team, x.Density = nil, "", "", model.DensityPlan{}
 	if !x.Viscous.Enabled {
 		x.Flow.SpeedMPS, x.Flow.TemperatureC, x.Flow.PressurePa, x.Flow.Reynolds = 0, 0, 0, 0
 		x.Viscous = model.Viscous{}
 	}
-	b, err := encodeStudy(x)
+	b, err := x.Encode()
 	if err != nil {
 		return ""
 	}
@@ -390,7 +428,7 @@ func (m *sweepCache) put(key string, rows []solver.Coefficients, vis []engine.Vi
 // whose configuration changed meanwhile (other than the angle of attack) is
 // dropped with an error.
 func (c *Controller) RunSweep(progress func(done, total int), done func(err error)) error {
-	st := cloneStudy(c.state.study)
+	st := c.state.study.Clone()
 	if _, err := st.Sweep.Angles(); err != nil {
 		return err
 	}
@@ -402,13 +440,13 @@ func (c *Controller) RunSweep(progress func(done, total int), done func(err erro
 	}
 	c.sweepRun = cancel
 	c.mu.Unlock()
-	c.act.add()
+	c.act.Add()
 	go func() {
-		defer c.act.done()
+		defer c.act.Done()
 		defer cancel()
-		res, err := safeRun(c.newEngine(), ctx, engineRequest{Study: st, Sections: secs, Sweep: true, Progress: progress})
+		res, err := safeRun(c.newEngine(), ctx, engine.Request{Study: st, Sections: secs, Sweep: true, Progress: progress})
 		c.do(func() {
-			if err == nil && !equalGeometry(st, c.state.study) {
+			if err == nil && !EqualGeometry(st, c.state.study) {
 				err = errors.New("the configuration changed while the sweep ran; run it again")
 			}
 			if err == nil {
@@ -512,7 +550,7 @@ func (c *Controller) pin() error {
 	}
 	label := pinLabel(c.pinBase, c.state.study, c.pinBaseSecs, c.state.sections)
 	p := pinFromResult(label, res, c.Sweep())
-	base := cloneStudy(c.state.study)
+	base := c.state.study.Clone()
 	if err := c.Edit("", func(st *model.Study) { st.Pins = append(st.Pins, p) }); err != nil {
 		return err
 	}
@@ -546,7 +584,7 @@ func (c *Controller) ClearPins() error {
 }
 
 // pinFromResult copies the Cp curves of a solution and the polar into a pin.
-func pinFromResult(label string, res *engineResult, sweep []solver.Coefficients) model.Pin {
+func pinFromResult(label string, res *engine.Result, sweep []solver.Coefficients) model.Pin {
 	pin := model.Pin{Label: label}
 	for _, e := range res.Solution.Elements {
 		for _, side := range []solver.Side{solver.Upper, solver.Lower} {
@@ -587,7 +625,7 @@ func (c *Controller) SetElement(i int) {
 // invalid designation returns the reason and leaves the study as it was.
 func (c *Controller) SetNACA(designation string) error {
 	d := strings.TrimSpace(designation)
-	if err := checkNACA(d); err != nil {
+	if _, err := model.ParseNACA(d); err != nil {
 		return err
 	}
 	return c.Edit("naca", func(st *model.Study) {
@@ -598,7 +636,7 @@ func (c *Controller) SetNACA(designation string) error {
 // SetSectionFile reads, cleans and embeds a coordinate file as the current
 // element's section, so the study keeps working if the file moves.
 func (c *Controller) SetSectionFile(path string) error {
-	sec, rep, err := loadSectionFile(path)
+	sec, rep, err := export.LoadSectionFile(path)
 	if err != nil {
 		return err
 	}
@@ -642,10 +680,19 @@ func (c *Controller) SetKT(k model.KarmanTrefftz) error {
 
 // SetInverted mounts the configuration upside down (suction side down).
 func (c *Controller) SetInverted(on bool) error {
-	return c.Edit("", func(st *model.Study) { setInverted(st, on) })
+	return c.Edit("", func(st *model.Study) { st.SetInverted(on) })
 }
 
 // SetGround sets the ground plane.
 func (c *Controller) SetGround(key string, g model.Ground) error {
 	return c.Edit(key, func(st *model.Study) { st.Ground = g })
+}
+
+// checkGeometry places the configuration as the solver will and reports
+// overlapping elements and gaps too small for the panels
+// (*model.GeometryError), so that such an edit can be refused before it
+// replaces a configuration that solves.
+func checkGeometry(st *model.Study, secs []*model.Section) error {
+	_, err := model.Place(st, secs)
+	return err
 }

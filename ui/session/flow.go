@@ -1,14 +1,10 @@
-package ui
+package session
 
 import (
 	"sectionbench/model"
 )
 
 // Flow editing: the controller's side.
-
-// checkFlow reports settings that validate one by one but cannot be
-// solved together (model.Study.CheckFlow, the rule the engine applies).
-func checkFlow(st *model.Study) error { return st.CheckFlow() }
 
 // SetSpeed sets the freestream speed in m/s (0: none, results stay
 // non-dimensional).
@@ -23,8 +19,8 @@ func (c *Controller) SetAir(key string, tempC, pressurePa float64) error {
 
 // ResetAir sets the air to the standard sea-level atmosphere.
 func (c *Controller) ResetAir() error {
-	t, p := isaSeaLevel()
-	return c.SetAir("", t, p)
+	a := model.ISASeaLevel()
+	return c.SetAir("", a.TemperatureC(), a.PressurePa)
 }
 
 // SetSpan sets the span for total forces in m (0: per metre only).

@@ -1,4 +1,4 @@
-package ui
+package session
 
 import (
 	"context"
@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 )
 
 // gateEngine blocks each Run until released and records the angles run.
@@ -17,7 +18,7 @@ type gateEngine struct {
 	panic   bool
 }
 
-func (g *gateEngine) Run(ctx context.Context, req engineRequest) (*engineResult, error) {
+func (g *gateEngine) Run(ctx context.Context, req engine.Request) (*engine.Result, error) {
 	if g.started != nil {
 		g.started <- struct{}{}
 	}
@@ -28,20 +29,20 @@ func (g *gateEngine) Run(ctx context.Context, req engineRequest) (*engineResult,
 	if g.panic {
 		panic("boom")
 	}
-	return &engineResult{}, nil
+	return &engine.Result{}, nil
 }
 
-func alphaReq(a float64) engineRequest {
+func alphaReq(a float64) engine.Request {
 	st := model.NewStudy()
 	st.Flow.AlphaDeg = a
-	return engineRequest{Study: st}
+	return engine.Request{Study: st}
 }
 
 func TestSchedulerLatestWins(t *testing.T) {
 	g := &gateEngine{gate: make(chan struct{}), started: make(chan struct{}, 10)}
-	act := newActivity()
+	act := NewActivity()
 	var got []uint64
-	s := newScheduler(g, act, func(u update, _ *engineResult, err error) {
+	s := newScheduler(g, act, func(u update, _ *engine.Result, err error) {
 		if err != nil {
 			t.Errorf("unexpected error %v", err)
 		}
@@ -53,7 +54,7 @@ func TestSchedulerLatestWins(t *testing.T) {
 		s.Submit(alphaReq(a)) // each replaces the one waiting
 	}
 	close(g.gate)
-	act.wait()
+	act.Wait()
 	// Request 1 ran but was stale when it finished; 2..4 never ran; 5 ran
 	// and was shown.
 	if want := []float64{1, 5}; len(g.ran) != 2 || g.ran[0] != want[0] || g.ran[1] != want[1] {
@@ -67,11 +68,11 @@ func TestSchedulerLatestWins(t *testing.T) {
 func TestSchedulerRecoversPanic(t *testing.T) {
 	g := &gateEngine{gate: make(chan struct{}), panic: true}
 	close(g.gate)
-	act := newActivity()
+	act := NewActivity()
 	var err error
-	s := newScheduler(g, act, func(_ update, _ *engineResult, e error) { err = e })
+	s := newScheduler(g, act, func(_ update, _ *engine.Result, e error) { err = e })
 	s.Submit(alphaReq(0))
-	act.wait()
+	act.Wait()
 	if err == nil {
 		t.Fatal("a panicking engine gave no error")
 	}
@@ -85,14 +86,14 @@ type ctxEngine struct {
 	cancelled chan float64
 }
 
-func (g *ctxEngine) Run(ctx context.Context, req engineRequest) (*engineResult, error) {
+func (g *ctxEngine) Run(ctx context.Context, req engine.Request) (*engine.Result, error) {
 	g.started <- struct{}{}
 	select {
 	case <-ctx.Done():
 		g.cancelled <- req.Study.Flow.AlphaDeg
 		return nil, ctx.Err()
 	case <-g.gate:
-		return &engineResult{}, nil
+		return &engine.Result{}, nil
 	}
 }
 
@@ -101,9 +102,9 @@ func (g *ctxEngine) Run(ctx context.Context, req engineRequest) (*engineResult, 
 // Invalidate.
 func TestSchedulerCancelsStaleSolve(t *testing.T) {
 	g := &ctxEngine{started: make(chan struct{}, 10), gate: make(chan struct{}), cancelled: make(chan float64, 10)}
-	act := newActivity()
+	act := NewActivity()
 	var shown []uint64
-	s := newScheduler(g, act, func(u update, _ *engineResult, err error) {
+	s := newScheduler(g, act, func(u update, _ *engine.Result, err error) {
 		if err != nil {
 			t.Errorf("delivered error %v", err)
 		}
@@ -117,7 +118,7 @@ func TestSchedulerCancelsStaleSolve(t *testing.T) {
 	}
 	<-g.started // the newest request runs
 	close(g.gate)
-	act.wait()
+	act.Wait()
 	if len(shown) != 1 || shown[0] != last {
 		t.Errorf("shown generations %v, want only %d", shown, last)
 	}
@@ -129,5 +130,5 @@ func TestSchedulerCancelsStaleSolve(t *testing.T) {
 	if a := <-g.cancelled; a != 3 {
 		t.Errorf("Invalidate cancelled %g°, want 3°", a)
 	}
-	act.wait()
+	act.Wait()
 }

@@ -1,4 +1,4 @@
-package ui
+package session
 
 import (
 	"fmt"
@@ -30,22 +30,22 @@ func pinLabel(prev, cur *model.Study, prevSecs, curSecs []*model.Section) string
 	add(len(prev.Elements) != len(cur.Elements), fmt.Sprintf("%d elements", len(cur.Elements)))
 	add(prev.Panelling.Panels != cur.Panelling.Panels, panelsLabel(cur))
 	add(prev.Panelling.Spacing != cur.Panelling.Spacing, string(cur.Panelling.Spacing))
-	add(prev.Panelling.Nose != cur.Panelling.Nose, "nose "+num(cur.Panelling.Nose))
-	add(prev.Panelling.Tail != cur.Panelling.Tail, "tail "+num(cur.Panelling.Tail))
-	add(prev.Flow.AlphaDeg != cur.Flow.AlphaDeg, "α="+num(cur.Flow.AlphaDeg)+"°")
+	add(prev.Panelling.Nose != cur.Panelling.Nose, "nose "+Number(cur.Panelling.Nose))
+	add(prev.Panelling.Tail != cur.Panelling.Tail, "tail "+Number(cur.Panelling.Tail))
+	add(prev.Flow.AlphaDeg != cur.Flow.AlphaDeg, "α="+Number(cur.Flow.AlphaDeg)+"°")
 	if len(prev.Elements) == len(cur.Elements) {
 		parts = append(parts, elementDiffs(prev, cur, prevSecs, curSecs)...)
 	}
 	add(prev.Ground != cur.Ground, groundLabel(cur.Ground))
 	add(prev.Inverted != cur.Inverted, map[bool]string{true: "inverted", false: "upright"}[cur.Inverted])
 	add(prev.Flow.SpeedMPS != cur.Flow.SpeedMPS, speedLabel(cur.Flow.SpeedMPS))
-	add(prev.Flow.Reynolds != cur.Flow.Reynolds, "Re "+num(cur.Flow.Reynolds))
+	add(prev.Flow.Reynolds != cur.Flow.Reynolds, "Re "+Number(cur.Flow.Reynolds))
 	add(prev.Flow.TemperatureC != cur.Flow.TemperatureC || prev.Flow.PressurePa != cur.Flow.PressurePa,
-		"air "+num(cur.Flow.TemperatureC)+" °C, "+num(cur.Flow.PressurePa)+" Pa")
+		"air "+Number(cur.Flow.TemperatureC)+" °C, "+Number(cur.Flow.PressurePa)+" Pa")
 	add(prev.Viscous.Enabled != cur.Viscous.Enabled, map[bool]string{true: "boundary layer on", false: "boundary layer off"}[cur.Viscous.Enabled])
 	add(prev.Viscous.TripUpper != cur.Viscous.TripUpper || prev.Viscous.TripLower != cur.Viscous.TripLower,
-		"trips "+num(cur.Viscous.TripUpper)+"/"+num(cur.Viscous.TripLower))
-	add(prev.Viscous.SeparationH != cur.Viscous.SeparationH, "separation H "+num(cur.Viscous.SeparationH))
+		"trips "+Number(cur.Viscous.TripUpper)+"/"+Number(cur.Viscous.TripLower))
+	add(prev.Viscous.SeparationH != cur.Viscous.SeparationH, "separation H "+Number(cur.Viscous.SeparationH))
 	if len(parts) == 0 {
 		return panelsLabel(cur) + ", " + string(cur.Panelling.Spacing) + " (unchanged)"
 	}
@@ -61,30 +61,30 @@ func elementDiffs(prev, cur *model.Study, prevSecs, curSecs []*model.Section) []
 	for i, e := range cur.Elements {
 		p := prev.Elements[i]
 		if i > 0 && p.Section.String() != e.Section.String() {
-			parts = append(parts, e.Name+" "+shortSource(e.Section))
+			parts = append(parts, e.Name+" "+SourceName(e.Section))
 		}
 		if p.ChordMM != e.ChordMM {
-			parts = append(parts, e.Name+" chord "+num(e.ChordMM)+" mm")
+			parts = append(parts, e.Name+" chord "+Number(e.ChordMM)+" mm")
 		}
 		if i == 0 {
 			if p.AngleDeg != e.AngleDeg {
-				parts = append(parts, e.Name+" "+num(e.AngleDeg)+"°")
+				parts = append(parts, e.Name+" "+Number(e.AngleDeg)+"°")
 			}
 			if p.XMM != e.XMM || p.YMM != e.YMM {
-				parts = append(parts, e.Name+" at "+num(e.XMM)+", "+num(e.YMM)+" mm")
+				parts = append(parts, e.Name+" at "+Number(e.XMM)+", "+Number(e.YMM)+" mm")
 			}
 			continue
 		}
 		fp, fc := prev.FlapPlacementOf(i), cur.FlapPlacementOf(i)
 		if fp.DeflectionDeg != fc.DeflectionDeg {
-			parts = append(parts, e.Name+" deflection "+num(fc.DeflectionDeg)+"°")
+			parts = append(parts, e.Name+" deflection "+Number(fc.DeflectionDeg)+"°")
 		}
 		if fp.OverlapMM != fc.OverlapMM {
-			parts = append(parts, e.Name+" overlap "+num(fc.OverlapMM)+" mm")
+			parts = append(parts, e.Name+" overlap "+Number(fc.OverlapMM)+" mm")
 		}
 		if fp.GapMM != fc.GapMM {
 			if i < len(curSecs) && i < len(prevSecs) && curSecs[i] != nil {
-				parts = append(parts, e.Name+" gap "+num(cur.SlotOf(i, curSecs[i]).GapMM)+" mm")
+				parts = append(parts, e.Name+" gap "+Number(cur.SlotOf(i, curSecs[i]).GapMM)+" mm")
 			} else {
 				parts = append(parts, e.Name+" gap changed")
 			}
@@ -98,7 +98,7 @@ func speedLabel(mps float64) string {
 	if mps == 0 {
 		return "no speed"
 	}
-	return num(mps*3.6) + " km/h"
+	return Number(mps*3.6) + " km/h"
 }
 
 func panelsLabel(st *model.Study) string { return "N=" + strconv.Itoa(st.Panelling.Panels) }
@@ -109,7 +109,7 @@ func sourceLabel(st *model.Study) string {
 	if len(st.Elements) == 0 {
 		return "no section"
 	}
-	return shortSource(st.Elements[0].Section)
+	return SourceName(st.Elements[0].Section)
 }
 
 func sourcesLabel(st *model.Study) string {
@@ -121,7 +121,9 @@ func sourcesLabel(st *model.Study) string {
 	return b.String()
 }
 
-func shortSource(src model.SectionSource) string {
+// SourceName names a section source in a short form: "NACA 4412",
+// "Kármán–Trefftz …", a file's base name or an embedded section's name.
+func SourceName(src model.SectionSource) string {
 	if src.Embedded != nil {
 		return src.Embedded.Name
 	}
@@ -142,10 +144,11 @@ func groundLabel(g model.Ground) string {
 	if !g.Enabled {
 		return "no ground"
 	}
-	return "ground " + num(g.ClearanceMM) + " mm"
+	return "ground " + Number(g.ClearanceMM) + " mm"
 }
 
-// num formats a setting compactly: 0.5, 4, −2.5.
-func num(x float64) string {
+// Number formats a setting compactly, as the workbench shows it: 0.5, 4,
+// −2.5.
+func Number(x float64) string {
 	return strings.Replace(strconv.FormatFloat(x, 'g', 4, 64), "-", "−", 1)
 }

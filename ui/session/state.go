@@ -1,9 +1,10 @@
-package ui
+package session
 
 import (
 	"path/filepath"
 	"reflect"
 
+	"sectionbench/export"
 	"sectionbench/model"
 )
 
@@ -17,7 +18,7 @@ type studyState struct {
 
 	sources  []model.SectionSource // sources the cached sections came from
 	sections []*model.Section
-	reports  []*cleanReport
+	reports  []*model.CleanReport
 }
 
 // baseDir is where relative section paths in the study are resolved.
@@ -30,16 +31,16 @@ func (s *studyState) baseDir() string {
 
 // sectionsFor returns the cleaned sections of st's elements, reusing the
 // cache when the sources are those of the cached sections.
-func (s *studyState) sectionsFor(st *model.Study) ([]*model.Section, []*cleanReport, error) {
+func (s *studyState) sectionsFor(st *model.Study) ([]*model.Section, []*model.CleanReport, error) {
 	src := sourcesOf(st)
 	if s.sections != nil && reflect.DeepEqual(src, s.sources) {
 		return s.sections, s.reports, nil
 	}
-	return loadSections(st, s.baseDir())
+	return export.LoadSections(st, s.baseDir())
 }
 
 // set makes st the current study with its sections.
-func (s *studyState) set(st *model.Study, secs []*model.Section, reps []*cleanReport) {
+func (s *studyState) set(st *model.Study, secs []*model.Section, reps []*model.CleanReport) {
 	s.study = st
 	s.sources = sourcesOf(st)
 	s.sections = secs

@@ -1,8 +1,9 @@
-package ui
+package session
 
 import (
 	"math"
 
+	"sectionbench/export/figure"
 	"sectionbench/solver/engine"
 )
 
@@ -16,7 +17,7 @@ type coupledSweep struct {
 }
 
 // coupledSweepOf returns a result's coupled sweep, nil when it has none.
-func coupledSweepOf(res *engineResult) *coupledSweep {
+func coupledSweepOf(res *engine.Result) *coupledSweep {
 	if res == nil || len(res.SweepCoupled) == 0 {
 		return nil
 	}
@@ -24,7 +25,7 @@ func coupledSweepOf(res *engineResult) *coupledSweep {
 }
 
 // addTo puts the coupled sweep into a scene whose sweep it belongs to.
-func (cs *coupledSweep) addTo(sc *scene) {
+func (cs *coupledSweep) addTo(sc *figure.Scene) {
 	if cs == nil || sc == nil || len(cs.rows) != len(sc.Sweep) {
 		return
 	}
@@ -41,20 +42,4 @@ func (c *Controller) SweepCoupled() (rows []engine.CoupledPoint, clMax, alphaClM
 		return nil, math.NaN(), math.NaN()
 	}
 	return c.sweepCpl.rows, c.sweepCpl.clMax, c.sweepCpl.alphaClMax
-}
-
-// coupledViewNote explains an empty boundary-layer view when the coupled
-// solution ran, and an empty drag view when the sweep's coupled rows give
-// no drag; ok is false when another note applies.
-func coupledViewNote(sc *scene, f figKind, err error) (note string, ok bool) {
-	if sc == nil || !isNoData(err) {
-		return "", false
-	}
-	switch {
-	case (f == figDragPolar || f == figLiftToDrag) && len(sc.SweepCoupled) > 0:
-		return "No drag at any angle of the sweep: the viscous solution converged at none of them (see the results table).", true
-	case f == figBoundaryLayer && sc.Coupled != nil:
-		return "No boundary layer: the viscous solution did not converge at this angle (see the status line).", true
-	}
-	return "", false
 }

@@ -1,52 +1,16 @@
-package ui
+package session
 
 import (
 	"context"
 	"sync"
+
+	"sectionbench/solver/engine"
 )
-
-// activity counts work in flight (solves, renders) so that tests and the
-// benchmark can wait until the workbench is idle.
-type activity struct {
-	mu   sync.Mutex
-	cond *sync.Cond
-	n    int
-}
-
-func newActivity() *activity {
-	a := &activity{}
-	a.cond = sync.NewCond(&a.mu)
-	return a
-}
-
-func (a *activity) add() {
-	a.mu.Lock()
-	a.n++
-	a.mu.Unlock()
-}
-
-func (a *activity) done() {
-	a.mu.Lock()
-	a.n--
-	if a.n == 0 {
-		a.cond.Broadcast()
-	}
-	a.mu.Unlock()
-}
-
-// wait blocks until no work is in flight.
-func (a *activity) wait() {
-	a.mu.Lock()
-	for a.n > 0 {
-		a.cond.Wait()
-	}
-	a.mu.Unlock()
-}
 
 // update is one request to the engine with the generation it was made in.
 type update struct {
 	gen uint64
-	req engineRequest
+	req engine.Request
 }
 
 // scheduler runs engine requests on one worker goroutine, latest request
@@ -57,9 +21,9 @@ type update struct {
 // each angle of a sweep, the boundary layer), so a slider tick does not
 // wait behind a stale solve for longer than one stage.
 type scheduler struct {
-	eng     studyRunner
-	act     *activity
-	deliver func(u update, res *engineResult, err error) // on the worker goroutine
+	eng     Runner
+	act     *Activity
+	deliver func(u update, res *engine.Result, err error) // on the worker goroutine
 
 	mu      sync.Mutex
 	idle    *sync.Cond // signalled when the worker stops
@@ -69,7 +33,7 @@ type scheduler struct {
 	cancel  context.CancelFunc // of the request running, nil when none
 }
 
-func newScheduler(eng studyRunner, act *activity, deliver func(update, *engineResult, error)) *scheduler {
+func newScheduler(eng Runner, act *Activity, deliver func(update, *engine.Result, error)) *scheduler {
 	s := &scheduler{eng: eng, act: act, deliver: deliver}
 	s.idle = sync.NewCond(&s.mu)
 	return s
@@ -85,7 +49,7 @@ func (s *scheduler) Wait() {
 }
 
 // Submit queues req and returns its generation.
-func (s *scheduler) Submit(req engineRequest) uint64 {
+func (s *scheduler) Submit(req engine.Request) uint64 {
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	s.gen++
@@ -93,7 +57,7 @@ func (s *scheduler) Submit(req engineRequest) uint64 {
 	s.cancelRunning()
 	if !s.busy {
 		s.busy = true
-		s.act.add()
+		s.act.Add()
 		go s.loop()
 	}
 	return s.gen
@@ -125,7 +89,7 @@ func (s *scheduler) cancelRunning() {
 }
 
 func (s *scheduler) loop() {
-	defer s.act.done()
+	defer s.act.Done()
 	for {
 		s.mu.Lock()
 		u := s.pending
@@ -153,10 +117,10 @@ func (s *scheduler) loop() {
 
 // safeRun calls the engine and turns a panic into an error, so that bad
 // input can never bring the workbench down.
-func safeRun(eng studyRunner, ctx context.Context, req engineRequest) (res *engineResult, err error) {
+func safeRun(eng Runner, ctx context.Context, req engine.Request) (res *engine.Result, err error) {
 	defer func() {
 		if r := recover(); r != nil {
-			res, err = nil, internalError("in the solver", r)
+			res, err = nil, InternalError("in the solver", r)
 		}
 	}()
 	return eng.Run(ctx, req)

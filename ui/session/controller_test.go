@@ -1,0 +1,154 @@
+package session
+
+import (
+	"context"
+	"sync"
+	"testing"
+	"time"
+
+	"sectionbench/assets"
+	"sectionbench/model"
+	"sectionbench/solver/engine"
+)
+
+// uiQueue stands in for the UI goroutine: functions the controller posts
+// (fyne.Do in the window) wait here until the test goroutine drains them.
+type uiQueue struct {
+	mu sync.Mutex
+	fs []func()
+}
+
+func (q *uiQueue) post(f func()) {
+	q.mu.Lock()
+	q.fs = append(q.fs, f)
+	q.mu.Unlock()
+}
+
+func (q *uiQueue) drain() bool {
+	q.mu.Lock()
+	fs := q.fs
+	q.fs = nil
+	q.mu.Unlock()
+	for _, f := range fs {
+		f()
+	}
+	return len(fs) > 0
+}
+
+// testController is a controller on the demo study, without a window, and
+// the queue that stands for its UI goroutine.
+type testController struct {
+	*Controller
+	q *uiQueue
+}
+
+func newTestController(t *testing.T) *testController {
+	t.Helper()
+	st, err := model.DecodeStudy(assets.DemoStudy)
+	if err != nil {
+		t.Fatal(err)
+	}
+	q := new(uiQueue)
+	c := &testController{NewController(q.post), q}
+	if err := c.Load(st, ""); err != nil {
+		t.Fatal(err)
+	}
+	c.idle()
+	t.Cleanup(func() { c.CancelSweep(); c.idle() })
+	return c
+}
+
+// idle waits for the worker and runs what it posted, until neither has
+// anything left.
+func (c *testController) idle() {
+	for {
+		c.WaitIdle()
+		if !c.q.drain() {
+			return
+		}
+	}
+}
+
+func TestEqualGeometry(t *testing.T) {
+	cases := []struct {
+		name string
+		edit func(*model.Study)
+		want bool
+	}{
+		{"same", func(*model.Study) {}, true},
+		{"angle", func(s *model.Study) { s.Flow.AlphaDeg = 9 }, true},
+		{"sweep range", func(s *model.Study) { s.Sweep.ToDeg = 20 }, true},
+		{"name", func(s *model.Study) { s.Name = "other" }, true},
+		{"pins", func(s *model.Study) { s.Pins = []model.Pin{{Label: "x"}} }, true},
+		{"panels", func(s *model.Study) { s.Panelling.Panels = 90 }, false},
+		{"section", func(s *model.Study) { s.Elements[0].Section.Spec = "naca:0012" }, false},
+		{"ground", func(s *model.Study) { s.Ground.Enabled = true }, false},
+		{"inverted", func(s *model.Study) { s.Inverted = !s.Inverted }, false},
+		{"density plan", func(s *model.Study) { s.Density = model.DensityPlan{Panels: []int{40, 80}, TolClPct: 0.5} }, true},
+		{"span", func(s *model.Study) { s.Flow.SpanM = 1.2 }, true},
+		{"speed, inviscid", func(s *model.Study) { s.Flow.SpeedMPS = 25 }, true},
+		{"trip, inviscid", func(s *model.Study) { s.Viscous.TripUpper = 0.1 }, true},
+		{"boundary layer on", func(s *model.Study) { s.Viscous.Enabled = true }, false},
+		{"reference chord", func(s *model.Study) { s.ReferenceChordMM = 300 }, false},
+		{"element moved", func(s *model.Study) { s.Elements[0].YMM += 1 }, false},
+	}
+	for _, c := range cases {
+		a := model.NewStudy()
+		b := a.Clone()
+		c.edit(b)
+		if got := EqualGeometry(a, b); got != c.want {
+			t.Errorf("%s: equalGeometry = %v, want %v", c.name, got, c.want)
+		}
+	}
+	// With the boundary layer on, the air and speed set the Reynolds
+	// number of the sweep's drag estimate.
+	a := model.NewStudy()
+	a.Viscous.Enabled, a.Flow.SpeedMPS = true, 20
+	b := a.Clone()
+	b.Flow.SpeedMPS = 30
+	if EqualGeometry(a, b) {
+		t.Error("speed change with the boundary layer on: equalGeometry = true")
+	}
+}
+
+// heldEngine holds every run until hold is closed, then solves for real.
+type heldEngine struct {
+	inner Runner
+	hold  chan struct{}
+}
+
+func (h *heldEngine) Run(ctx context.Context, req engine.Request) (*engine.Result, error) {
+	<-h.hold
+	return h.inner.Run(ctx, req)
+}
+
+// PinCurrent never waits for a solve on the UI goroutine: with the newest
+// request held in the engine it returns at once, and the pin is taken when
+// that result arrives.
+func TestPinCurrentDoesNotWait(t *testing.T) {
+	w := newTestController(t)
+	held := &heldEngine{inner: w.sched.eng, hold: make(chan struct{})}
+	w.SetRunner(held) // idle: the next Submit starts the worker
+	if err := w.SetAlpha("", 3); err != nil {
+		t.Fatal(err)
+	}
+	returned := make(chan error)
+	go func() { returned <- w.PinCurrent() }()
+	select {
+	case err := <-returned:
+		if err != nil {
+			t.Fatal(err)
+		}
+	case <-time.After(10 * time.Second):
+		close(held.hold)
+		t.Fatal("PinCurrent waited for the solve")
+	}
+	if n := len(w.Study().Pins); n != 0 {
+		t.Fatalf("%d pins before the solve finished", n)
+	}
+	close(held.hold)
+	w.idle()
+	if pins := w.Study().Pins; len(pins) != 1 {
+		t.Fatalf("%d pins after the solve, want 1", len(pins))
+	}
+}
