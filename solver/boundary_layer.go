@@ -4,7 +4,9 @@ import (
 	"errors"
 	"fmt"
 	"math"
+
 	"sectionbench/model"
+	"sectionbench/solver/ode"
 )
 
 // Constants of the integral boundary-layer estimate. Each says where it
@@ -522,33 +524,23 @@ const (
 )
 
 // dopri integrates y' = f(x, y) from x0 to x1 with the Dormand–Prince 5(4)
-// pair and step-size control (Hairer, Nørsett & Wanner, Solving Ordinary
-// Differential Equations I, 2nd ed., 1993, sec. II.5 and II.4). The step
+// pair and its step-size control (package solver/ode), the error of each
+// component measured against dopriAbsTol + dopriRelTol·|y|. The step
 // adapts to the stiffness of Head's equations when θ is small. It stops at
 // the first accepted step where stop reports true, locating the crossing
 // of g = 0 by linear interpolation, and returns the state there.
 func dopri(f func(float64, headState) (headState, bool), stop func(float64, headState) bool, x0, x1 float64, y headState, g func(float64, headState) float64) (headState, float64, bool) {
-	const (
-		c2, c3, c4, c5             = 1.0 / 5, 3.0 / 10, 4.0 / 5, 8.0 / 9
-		a21                        = 1.0 / 5
-		a31, a32                   = 3.0 / 40, 9.0 / 40
-		a41, a42, a43              = 44.0 / 45, -56.0 / 15, 32.0 / 9
-		a51, a52, a53, a54         = 19372.0 / 6561, -25360.0 / 2187, 64448.0 / 6561, -212.0 / 729
-		a61, a62, a63, a64, a65    = 9017.0 / 3168, -355.0 / 33, 46732.0 / 5247, 49.0 / 176, -5103.0 / 18656
-		b1, b3, b4, b5, b6         = 35.0 / 384, 500.0 / 1113, 125.0 / 192, -2187.0 / 6784, 11.0 / 84
-		e1, e3, e4, e5, e6, e7     = 71.0 / 57600, -71.0 / 16695, 71.0 / 1920, -17253.0 / 339200, 22.0 / 525, -1.0 / 40
-		safety, minScale, maxScale = 0.9, 0.2, 5.0
-		errExp                     = 1.0 / 5
-	)
-	comb := func(y headState, h float64, ks []headState, cs []float64) headState {
-		r := y
-		for j := range ks {
-			r[0] += h * cs[j] * ks[j][0]
-			r[1] += h * cs[j] * ks[j][1]
-		}
-		return r
+	fs := func(x float64, y, dy []float64) bool {
+		d, ok := f(x, headState{y[0], y[1]})
+		dy[0], dy[1] = d[0], d[1]
+		return ok
 	}
+	dp := ode.NewDormandPrince(2)
+	k1, k7, e, y1 := make([]float64, 2), make([]float64, 2), make([]float64, 2), make([]float64, 2)
 	x := x0
+	if !fs(x, y[:], k1) {
+		return y, x, false
+	}
 	h := math.Max(x1-x0, 0)
 	if y[0] > 0 {
 		h = math.Min(h, y[0]) // a step of order θ to begin with
@@ -557,26 +549,19 @@ func dopri(f func(float64, headState) (headState, bool), stop func(float64, head
 		if x+h > x1 {
 			h = x1 - x
 		}
-		k1, ok1 := f(x, y)
-		k2, ok2 := f(x+c2*h, comb(y, h, []headState{k1}, []float64{a21}))
-		k3, ok3 := f(x+c3*h, comb(y, h, []headState{k1, k2}, []float64{a31, a32}))
-		k4, ok4 := f(x+c4*h, comb(y, h, []headState{k1, k2, k3}, []float64{a41, a42, a43}))
-		k5, ok5 := f(x+c5*h, comb(y, h, []headState{k1, k2, k3, k4}, []float64{a51, a52, a53, a54}))
-		k6, ok6 := f(x+h, comb(y, h, []headState{k1, k2, k3, k4, k5}, []float64{a61, a62, a63, a64, a65}))
-		yn := comb(y, h, []headState{k1, k3, k4, k5, k6}, []float64{b1, b3, b4, b5, b6})
-		k7, ok7 := f(x+h, yn)
-		if !(ok1 && ok2 && ok3 && ok4 && ok5 && ok6 && ok7) {
-			h *= minScale
+		if !dp.Advance(fs, x, y[:], k1, h, y1) || !fs(x+h, y1, k7) {
+			h *= ode.StepScale(math.Inf(1))
 			continue
 		}
-		errN := 0.0
+		dp.Error(h, k1, k7, e)
+		yn := headState{y1[0], y1[1]}
+		ratio := 0.0
 		for c := range 2 {
-			e := h * (e1*k1[c] + e3*k3[c] + e4*k4[c] + e5*k5[c] + e6*k6[c] + e7*k7[c])
 			sc := dopriAbsTol + dopriRelTol*math.Max(math.Abs(y[c]), math.Abs(yn[c]))
-			errN = math.Max(errN, math.Abs(e)/sc)
+			ratio = math.Max(ratio, math.Abs(e[c])/sc)
 		}
-		if errN > 1 || math.IsNaN(errN) {
-			h *= math.Max(minScale, safety*math.Pow(errN, -errExp))
+		if !(ratio <= 1) {
+			h *= ode.StepScale(ratio)
 			continue
 		}
 		xn := x + h
@@ -591,11 +576,8 @@ func dopri(f func(float64, headState) (headState, bool), stop func(float64, head
 			return ys, xs, true
 		}
 		x, y = xn, yn
-		scale := maxScale
-		if errN > 0 {
-			scale = math.Min(maxScale, safety*math.Pow(errN, -errExp))
-		}
-		h *= scale
+		copy(k1, k7)
+		h *= ode.StepScale(ratio)
 	}
 	return y, x, false
 }

@@ -7,21 +7,18 @@ import (
 	"sync/atomic"
 
 	"sectionbench/model"
+	"sectionbench/solver/ode"
 )
 
 // Streamlines.
 //
 // A streamline solves dx/dσ = V(x)/|V(x)|, parametrised by arc length σ so
 // that points are spread evenly whatever the local speed. It is integrated
-// with the explicit Runge–Kutta pair of Dormand and Prince (J. R. Dormand
-// and P. J. Prince, "A family of embedded Runge–Kutta formulae", J. Comput.
-// Appl. Math. 6(1), 1980; coefficients as tabulated by Hairer, Nørsett and
-// Wanner, Solving Ordinary Differential Equations I, 2nd ed., 1993, sec.
-// II.5, Table 5.2): seven stages, the last reused as the first of the next
-// step (FSAL), a fifth-order solution and an embedded fourth-order one whose
-// difference estimates the local error. A step is accepted when that error
-// is below Tol and the next step is h·min(5, max(0.2, 0.9 (Tol/err)^{1/5}))
-// (Hairer et al. eq. II.4.13 with their safety factor 0.9).
+// with the Dormand–Prince 5(4) pair (package solver/ode: seven stages, the
+// last reused as the first of the next step, a fifth-order solution and an
+// embedded fourth-order one whose difference estimates the local error). A
+// step is accepted when the length of that error vector is below Tol, and
+// the next step is h·min(5, max(0.2, 0.9 (err/Tol)^{−1/5})) (ode.StepScale).
 //
 // A streamline stops when a stage would enter a body (the step is halved
 // until it is below the smallest step, then the line ends at the surface),
@@ -70,37 +67,6 @@ type Streamline struct {
 	Speed    []float64
 	Dividing bool
 }
-
-// Dormand–Prince 5(4) coefficients (Hairer, Nørsett & Wanner, Table 5.2).
-const (
-	dpA21 = 1.0 / 5
-	dpA31 = 3.0 / 40
-	dpA32 = 9.0 / 40
-	dpA41 = 44.0 / 45
-	dpA42 = -56.0 / 15
-	dpA43 = 32.0 / 9
-	dpA51 = 19372.0 / 6561
-	dpA52 = -25360.0 / 2187
-	dpA53 = 64448.0 / 6561
-	dpA54 = -212.0 / 729
-	dpA61 = 9017.0 / 3168
-	dpA62 = -355.0 / 33
-	dpA63 = 46732.0 / 5247
-	dpA64 = 49.0 / 176
-	dpA65 = -5103.0 / 18656
-	dpB1  = 35.0 / 384
-	dpB3  = 500.0 / 1113
-	dpB4  = 125.0 / 192
-	dpB5  = -2187.0 / 6784
-	dpB6  = 11.0 / 84
-	// Error weights: fifth- minus fourth-order weights.
-	dpE1 = 71.0 / 57600
-	dpE3 = -71.0 / 16695
-	dpE4 = 71.0 / 1920
-	dpE5 = -17253.0 / 339200
-	dpE6 = 22.0 / 525
-	dpE7 = -1.0 / 40
-)
 
 // DefaultBounds returns a rectangle framing the elements of cfg with margins
 // of boundsUpstream, boundsDownstream and boundsSide times the largest
@@ -277,84 +243,63 @@ func (in *integrator) run(p model.Point, backward bool) Streamline {
 	if !ok {
 		return sl
 	}
-	x, y := p.X, p.Y
+	// The line's equation for the shared step: y = (x, y), y′ the unit
+	// direction; the arc length σ does not appear on the right.
+	f := func(_ float64, y, dy []float64) bool {
+		var ok bool
+		dy[0], dy[1], _, ok = in.dir(y[0], y[1], backward)
+		return ok
+	}
+	dp := ode.NewDormandPrince(2)
+	y, k1 := []float64{p.X, p.Y}, []float64{k1x, k1y}
+	y1, k7, e := make([]float64, 2), make([]float64, 2), make([]float64, 2)
 	h := math.Min(in.hmax, 100*in.hmin)
 	// Rejected steps do not count against MaxSteps, but every rejection
 	// shrinks h by at least half (or by the error control's factor, at
 	// most 0.9), so a line cannot stall; maxAttemptsPerStep is a backstop.
 	for steps, attempts := 0, 0; steps < in.maxSteps && attempts < maxAttemptsPerStep*in.maxSteps; attempts++ {
-		nx, ny, k7x, k7y, sp7, err, ok := in.step(x, y, h, k1x, k1y, backward)
-		if !ok || !(err <= in.tol) {
-			// Entered a body (or a stagnation point), or too inaccurate
-			// (or a non-finite error): shrink.
-			f := 0.5
-			if ok && !math.IsInf(err, 1) && !math.IsNaN(err) {
-				f = math.Max(0.2, 0.9*math.Pow(in.tol/err, 0.2))
-			}
-			h *= f
-			if h < in.hmin {
+		if !dp.Advance(f, 0, y, k1, h, y1) {
+			// A stage entered a body (or a stagnation point): halve
+			// the step, closing in on the surface.
+			if h *= 0.5; h < in.hmin {
 				return sl
 			}
 			continue
 		}
-		steps++
-		if !in.b.contains(nx, ny) {
-			ex, ey := clipToRect(in.b, x, y, nx, ny)
+		if !in.b.contains(y1[0], y1[1]) {
+			// Leaving the domain: the step is accepted as it is, its
+			// last point clipped to the edge.
+			ex, ey := clipToRect(in.b, y[0], y[1], y1[0], y1[1])
 			_, _, spe, _ := in.dir(ex, ey, backward)
 			sl.Points = append(sl.Points, model.Point{X: ex, Y: ey})
 			sl.Speed = append(sl.Speed, spe)
 			return sl
 		}
-		x, y, k1x, k1y = nx, ny, k7x, k7y
-		sl.Points = append(sl.Points, model.Point{X: x, Y: y})
-		sl.Speed = append(sl.Speed, sp7)
-		grow := 5.0
-		if err > 0 {
-			grow = math.Min(5, 0.9*math.Pow(in.tol/err, 0.2))
+		var sp7 float64
+		k7[0], k7[1], sp7, ok = in.dir(y1[0], y1[1], backward)
+		if !ok {
+			if h *= 0.5; h < in.hmin {
+				return sl
+			}
+			continue
 		}
-		h = math.Min(in.hmax, h*math.Max(grow, 0.2))
+		dp.Error(h, k1, k7, e)
+		ratio := math.Hypot(e[0], e[1]) / in.tol
+		if !(ratio <= 1) {
+			// Too inaccurate (or a non-finite error): shrink.
+			if h *= ode.StepScale(ratio); h < in.hmin {
+				return sl
+			}
+			continue
+		}
+		steps++
+		copy(y, y1)
+		copy(k1, k7)
+		sl.Points = append(sl.Points, model.Point{X: y[0], Y: y[1]})
+		sl.Speed = append(sl.Speed, sp7)
+		h = math.Min(in.hmax, h*ode.StepScale(ratio))
 	}
 	return sl
-}
-
-// step takes one Dormand–Prince step of size h from (x, y) with first stage
-// (k1x, k1y). It returns the new point, its direction (the FSAL stage), its
-// speed, the error estimate, and ok = false if a stage entered a body.
-func (in *integrator) step(x, y, h, k1x, k1y float64, bw bool) (nx, ny, k7x, k7y, sp7, errEst float64, ok bool) {
-	k2x, k2y, _, ok := in.dir(x+h*dpA21*k1x, y+h*dpA21*k1y, bw)
-	if !ok {
-		return
-	}
-	k3x, k3y, _, ok := in.dir(x+h*(dpA31*k1x+dpA32*k2x), y+h*(dpA31*k1y+dpA32*k2y), bw)
-	if !ok {
-		return
-	}
-	k4x, k4y, _, ok := in.dir(x+h*(dpA41*k1x+dpA42*k2x+dpA43*k3x), y+h*(dpA41*k1y+dpA42*k2y+dpA43*k3y), bw)
-	if !ok {
-		return
-	}
-	k5x, k5y, _, ok := in.dir(x+h*(dpA51*k1x+dpA52*k2x+dpA53*k3x+dpA54*k4x), y+h*(dpA51*k1y+dpA52*k2y+dpA53*k3y+dpA54*k4y), bw)
-	if !ok {
-		return
-	}
-	k6x, k6y, _, ok := in.dir(x+h*(dpA61*k1x+dpA62*k2x+dpA63*k3x+dpA64*k4x+dpA65*k5x), y+h*(dpA61*k1y+dpA62*k2y+dpA63*k3y+dpA64*k4y+dpA65*k5y), bw)
-	if !ok {
-		return
-	}
-	nx = x + h*(dpB1*k1x+dpB3*k3x+dpB4*k4x+dpB5*k5x+dpB6*k6x)
-	ny = y + h*(dpB1*k1y+dpB3*k3y+dpB4*k4y+dpB5*k5y+dpB6*k6y)
-	if !in.b.contains(nx, ny) {
-		// Leaving the domain: the step is accepted as it is (its last
-		// point is clipped to the edge by the caller).
-		return nx, ny, 0, 0, 0, 0, true
-	}
-	k7x, k7y, sp7, ok = in.dir(nx, ny, bw)
-	if !ok {
-		return
-	}
-	ex := h * (dpE1*k1x + dpE3*k3x + dpE4*k4x + dpE5*k5x + dpE6*k6x + dpE7*k7x)
-	ey := h * (dpE1*k1y + dpE3*k3y + dpE4*k4y + dpE5*k5y + dpE6*k6y + dpE7*k7y)
-	return nx, ny, k7x, k7y, sp7, math.Hypot(ex, ey), true
 }
 
 // clipToRect returns where the segment from the inside point (x0, y0) to the
