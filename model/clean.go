@@ -283,7 +283,8 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	// Pre-normalise into a box of size 1 about its centre, so that every
 	// tolerance below is a fraction of the size and huge or tiny units
 	// neither overflow nor underflow. q = (p − c)/size.
-	lo, hi := bounds(pts)
+	box := BoxOf(pts...)
+	lo, hi := box.Min, box.Max
 	ctr := Point{lo.X/2 + hi.X/2, lo.Y/2 + hi.Y/2}
 	half := math.Max(hi.X/2-lo.X/2, hi.Y/2-lo.Y/2)
 	if !(half > 1e-14*math.Max(math.Abs(ctr.X), math.Abs(ctr.Y))) {
@@ -346,7 +347,7 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 			return fail(-1, fmt.Errorf("the first and last points are %.0f%% of the section's size apart, so the line does not close around a section (a single surface, or two surfaces not joined?): %w", 100*g, ErrOpenContour))
 		}
 	}
-	if a := shoelace(ring) / 2; math.Abs(a) < flatAreaFrac {
+	if a := PolygonArea(ring); math.Abs(a) < flatAreaFrac {
 		return fail(-1, fmt.Errorf("the points lie on a line: %w", ErrFlatContour))
 	}
 
@@ -411,7 +412,7 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	}
 
 	// 3. Orientation.
-	if shoelace(cont) < 0 {
+	if PolygonArea(cont) < 0 {
 		for i, j := 0, len(cont)-1; i < j; i, j = i+1, j-1 {
 			cont[i], cont[j] = cont[j], cont[i]
 			idx[i], idx[j] = idx[j], idx[i]
@@ -603,7 +604,7 @@ func findTE(ring []Point, closed bool) teChoice {
 func findCorner(ring []Point, closed bool) teChoice {
 	n := len(ring)
 	sign := 1.0
-	if shoelace(ring) < 0 {
+	if PolygonArea(ring) < 0 {
 		sign = -1
 	}
 	turn := make([]float64, n) // convex turning in degrees

@@ -879,19 +879,10 @@ func outsideBox(q Point, pts []Point) bool {
 	if len(pts) == 0 {
 		return false
 	}
-	lo, hi := bounds(pts)
+	box := BoxOf(pts...)
+	lo, hi := box.Min, box.Max
 	m := countLineMargin * math.Max(hi.X-lo.X, hi.Y-lo.Y)
 	return q.X > hi.X+m || q.X < lo.X-m || q.Y > hi.Y+m || q.Y < lo.Y-m
-}
-
-// bounds returns the corners of the bounding box of pts.
-func bounds(pts []Point) (lo, hi Point) {
-	lo, hi = pts[0], pts[0]
-	for _, p := range pts[1:] {
-		lo.X, lo.Y = math.Min(lo.X, p.X), math.Min(lo.Y, p.Y)
-		hi.X, hi.Y = math.Max(hi.X, p.X), math.Max(hi.Y, p.Y)
-	}
-	return lo, hi
 }
 
 // surfaceSplit recognises two uncounted surfaces: x runs from one end of
@@ -899,7 +890,8 @@ func bounds(pts []Point) (lo, hi Point) {
 // the range, and runs end to end again. It returns the index of the first
 // point of the second surface.
 func surfaceSplit(pts []Point) (int, bool) {
-	lo, hi := bounds(pts)
+	box := BoxOf(pts...)
+	lo, hi := box.Min, box.Max
 	rx := hi.X - lo.X
 	if rx <= 0 {
 		return 0, false
@@ -957,7 +949,7 @@ func joinSurfaces(a, b []Point, notes []string, what string) ([]Point, []string)
 		}
 	}
 	first, second := "upper", "lower"
-	if shoelace(loop) < 0 {
+	if PolygonArea(loop) < 0 {
 		first, second = "lower", "upper"
 	}
 	listed := "listed " + da
@@ -967,15 +959,6 @@ func joinSurfaces(a, b []Point, notes []string, what string) ([]Point, []string)
 	notes = append(notes, fmt.Sprintf("%s, %s (%d %s, %d %s points; %s surface first); joined into one loop at the leading edge",
 		what, listed, len(a), first, len(b), second, first))
 	return loop, notes
-}
-
-// shoelace returns twice the signed area of the closed polygon pts.
-func shoelace(pts []Point) float64 {
-	a := 0.0
-	for i := range pts {
-		a += pts[i].Cross(pts[(i+1)%len(pts)])
-	}
-	return a
 }
 
 // cleanName trims a name line, drops control characters and limits it to

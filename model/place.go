@@ -182,11 +182,11 @@ func (l *Layout) check(st *Study) error {
 				return &GeometryError{Elements: [2]int{a, b}, Names: [2]string{ea.Name, eb.Name}, Err: err}
 			}
 			reach := minGapPanels * math.Max(longestPanel(ea.Nodes), longestPanel(eb.Nodes))
-			boxA, boxB := boundsOf(ea.Nodes).grow(reach), boundsOf(eb.Nodes).grow(reach)
-			if !boxA.overlaps(boxB) {
+			boxA, boxB := BoxOf(ea.Nodes...).Grow(reach), BoxOf(eb.Nodes...).Grow(reach)
+			if !boxA.Overlaps(boxB) {
 				continue
 			}
-			if polylinesCross(ea.Nodes, eb.Nodes, boxB, boxA) || pointInPolygon(ea.Nodes[ea.LE], eb.Nodes) || pointInPolygon(eb.Nodes[eb.LE], ea.Nodes) {
+			if polylinesCross(ea.Nodes, eb.Nodes, boxB, boxA) || InPolygon(ea.Nodes[ea.LE], eb.Nodes) || InPolygon(eb.Nodes[eb.LE], ea.Nodes) {
 				return ge(ErrOverlap)
 			}
 			gap, pa, pb := closestApproach(ea.Nodes, eb.Nodes, boxB, boxA)
@@ -197,30 +197,6 @@ func (l *Layout) check(st *Study) error {
 		}
 	}
 	return nil
-}
-
-// box is an axis-aligned bounding box.
-type box struct{ min, max Point }
-
-func boundsOf(pts []Point) box {
-	b := box{pts[0], pts[0]}
-	for _, p := range pts[1:] {
-		b.min = Point{math.Min(b.min.X, p.X), math.Min(b.min.Y, p.Y)}
-		b.max = Point{math.Max(b.max.X, p.X), math.Max(b.max.Y, p.Y)}
-	}
-	return b
-}
-
-func (b box) grow(d float64) box {
-	return box{Point{b.min.X - d, b.min.Y - d}, Point{b.max.X + d, b.max.Y + d}}
-}
-
-func (b box) contains(p Point) bool {
-	return p.X >= b.min.X && p.X <= b.max.X && p.Y >= b.min.Y && p.Y <= b.max.Y
-}
-
-func (b box) overlaps(c box) bool {
-	return b.min.X <= c.max.X && c.min.X <= b.max.X && b.min.Y <= c.max.Y && c.min.Y <= b.max.Y
 }
 
 func longestPanel(pts []Point) float64 {
@@ -234,7 +210,7 @@ func longestPanel(pts []Point) float64 {
 // closestApproach returns the smallest node-to-panel distance between two
 // polylines and the lengths of the panels of each at that place; nearA and
 // nearB bound the parts of a and b near the other (see check).
-func closestApproach(a, b []Point, nearB, nearA box) (d, panelA, panelB float64) {
+func closestApproach(a, b []Point, nearB, nearA Box) (d, panelA, panelB float64) {
 	d1, la1, lb1 := nodeToPolyline(a, b, nearB, nearA)
 	d2, lb2, la2 := nodeToPolyline(b, a, nearA, nearB)
 	if d1 <= d2 {
@@ -246,14 +222,14 @@ func closestApproach(a, b []Point, nearB, nearA box) (d, panelA, panelB float64)
 // nodeToPolyline returns the smallest distance from a node of p inside
 // nearQ to a panel of q inside nearP, the length of a panel of p at that
 // node and that of the panel of q.
-func nodeToPolyline(p, q []Point, nearQ, nearP box) (d, lp, lq float64) {
+func nodeToPolyline(p, q []Point, nearQ, nearP Box) (d, lp, lq float64) {
 	d = math.Inf(1)
 	for i, pt := range p {
-		if !nearQ.contains(pt) {
+		if !nearQ.Contains(pt) {
 			continue
 		}
 		for j := 0; j+1 < len(q); j++ {
-			if !nearP.contains(q[j]) && !nearP.contains(q[j+1]) {
+			if !nearP.Contains(q[j]) && !nearP.Contains(q[j+1]) {
 				continue
 			}
 			if dd := segmentDistance(pt, q[j], q[j+1]); dd < d {
@@ -280,13 +256,13 @@ func segmentDistance(p, a, b Point) float64 {
 
 // polylinesCross reports whether a panel of a crosses a panel of b; only
 // panels with an end inside the other's near box (see check) can.
-func polylinesCross(a, b []Point, nearB, nearA box) bool {
+func polylinesCross(a, b []Point, nearB, nearA Box) bool {
 	for i := 0; i+1 < len(a); i++ {
-		if !nearB.contains(a[i]) && !nearB.contains(a[i+1]) {
+		if !nearB.Contains(a[i]) && !nearB.Contains(a[i+1]) {
 			continue
 		}
 		for j := 0; j+1 < len(b); j++ {
-			if !nearA.contains(b[j]) && !nearA.contains(b[j+1]) {
+			if !nearA.Contains(b[j]) && !nearA.Contains(b[j+1]) {
 				continue
 			}
 			if segmentsCross(a[i], a[i+1], b[j], b[j+1]) {
@@ -303,18 +279,4 @@ func segmentsCross(p1, p2, q1, q2 Point) bool {
 	d3 := q2.Sub(q1).Cross(p1.Sub(q1))
 	d4 := q2.Sub(q1).Cross(p2.Sub(q1))
 	return d1*d2 <= 0 && d3*d4 <= 0 && !(d1 == 0 && d2 == 0)
-}
-
-// pointInPolygon reports whether p lies inside the closed polygon pts
-// (even–odd rule; the trailing-edge gap is closed by the last edge).
-func pointInPolygon(p Point, pts []Point) bool {
-	in := false
-	n := len(pts)
-	for i, j := 0, n-1; i < n; j, i = i, i+1 {
-		a, b := pts[i], pts[j]
-		if (a.Y > p.Y) != (b.Y > p.Y) && p.X < (b.X-a.X)*(p.Y-a.Y)/(b.Y-a.Y)+a.X {
-			in = !in
-		}
-	}
-	return in
 }

@@ -101,13 +101,7 @@ func (s *Section) LeadingEdgeIndex() int {
 // trailing-edge gap), positive when the points run counter-clockwise
 // (shoelace formula).
 func (s *Section) SignedArea() float64 {
-	a := 0.0
-	n := len(s.pts)
-	for i := range n {
-		p, q := s.pts[i], s.pts[(i+1)%n]
-		a += p.Cross(q)
-	}
-	return a / 2
+	return PolygonArea(s.pts)
 }
 
 // MaxThickness returns the largest vertical extent of the contour over a

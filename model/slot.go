@@ -101,7 +101,7 @@ func slotGap(prev, flap StudyElement, sec *Section) float64 {
 	for k := range n {
 		d = math.Min(d, segmentDistance(te, pts[k], pts[(k+1)%n]))
 	}
-	if pointInPolygon(te, pts) {
+	if InPolygon(te, pts) {
 		return -d
 	}
 	return d

@@ -152,8 +152,5 @@ func growthFor(a, length float64, n int) float64 {
 // containsPoint reports whether p lies inside the element's contour
 // (bounding box first).
 func (e *elemGeom) containsPoint(p model.Point) bool {
-	if p.X < e.min.X || p.X > e.max.X || p.Y < e.min.Y || p.Y > e.max.Y {
-		return false
-	}
-	return pointInPolygon(e.nodes, p.X, p.Y)
+	return e.box.Contains(p) && model.InPolygon(p, e.nodes)
 }

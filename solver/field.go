@@ -322,27 +322,11 @@ func (g *geometry) inside(px, py float64) bool {
 	}
 	for ei := range g.elems {
 		e := &g.elems[ei]
-		if px < e.min.X || px > e.max.X || py < e.min.Y || py > e.max.Y {
-			continue
-		}
-		if pointInPolygon(e.nodes, px, py) {
+		if p := (model.Point{X: px, Y: py}); e.box.Contains(p) && model.InPolygon(p, e.nodes) {
 			return true
 		}
 	}
 	return false
-}
-
-// pointInPolygon is the even–odd crossing test on the closed polygon pts.
-func pointInPolygon(pts []model.Point, px, py float64) bool {
-	in := false
-	n := len(pts)
-	for i, j := 0, n-1; i < n; j, i = i, i+1 {
-		a, b := pts[i], pts[j]
-		if (a.Y > py) != (b.Y > py) && px < a.X+(py-a.Y)*(b.X-a.X)/(b.Y-a.Y) {
-			in = !in
-		}
-	}
-	return in
 }
 
 // at returns the velocity / U∞ at p, or inside = true and zero velocity.

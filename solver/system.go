@@ -228,7 +228,7 @@ type elemGeom struct {
 	lePt, teMid model.Point
 	qc          model.Point // quarter-chord point on the chord line
 	teGap       float64
-	min, max    model.Point // bounding box of the nodes
+	box         model.Box // bounding box of the nodes
 	// An open trailing edge (gap above openTEFraction of chord) has a base
 	// panel from the last node to the first carrying the source unknown
 	// us; us is −1 for a closed edge.
@@ -428,19 +428,15 @@ func (g *geometry) addElement(k int, e Element, opt buildOptions) (*elemGeom, er
 		return nil, gerr(-1, fmt.Errorf("%w: leading edge coincides with the trailing edge", ErrDegeneratePanel))
 	}
 	ge.qc = ge.lePt.Add(ge.teMid.Sub(ge.lePt).Scale(0.25))
-	area := 0.0
-	ge.min, ge.max = nodes[0], nodes[0]
-	for i := range n {
-		p, q := nodes[i], nodes[(i+1)%n]
-		area += p.Cross(q)
-		ge.min = model.Point{X: math.Min(ge.min.X, p.X), Y: math.Min(ge.min.Y, p.Y)}
-		ge.max = model.Point{X: math.Max(ge.max.X, p.X), Y: math.Max(ge.max.Y, p.Y)}
+	area := model.PolygonArea(nodes)
+	ge.box = model.BoxOf(nodes...)
+	for i, p := range nodes {
 		if g.ground && p.Y < g.groundY {
 			return nil, gerr(i, fmt.Errorf("%w: y = %g < %g", ErrBelowGround, p.Y, g.groundY))
 		}
 	}
 	if !(area > 0) {
-		return nil, gerr(-1, fmt.Errorf("%w (area %g)", ErrClockwise, area/2))
+		return nil, gerr(-1, fmt.Errorf("%w (area %g)", ErrClockwise, area))
 	}
 	cx, cy := ge.teMid.X-ge.lePt.X, ge.teMid.Y-ge.lePt.Y
 	c2 := cx*cx + cy*cy

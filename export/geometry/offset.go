@@ -234,7 +234,7 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 		ao := append([]int{owner[i]}, owner[i+1:j+1]...)
 		b := append([]model.Point{x}, loop[j+1:]...)
 		b = append(b, loop[:i+1]...)
-		areaA, areaB := signedArea(a), signedArea(b)
+		areaA, areaB := model.PolygonArea(a), model.PolygonArea(b)
 		switch {
 		case areaA > 0 && math.Abs(areaB) < tipSliverFrac*areaA && !math.IsNaN(trimmed):
 			// A small loop beside the trimmed tip (a curved sharp edge
@@ -265,7 +265,7 @@ func InwardOffset(element string, pts []model.Point, d float64, le, te model.Poi
 		}
 	}
 	loop, owner = dropSpikes(loop, owner)
-	if signedArea(loop) <= 0 {
+	if model.PolygonArea(loop) <= 0 {
 		return nil, fail(le, "", ErrOffsetCollapses)
 	}
 	// Every remaining edge must keep the direction of the edge it came
@@ -462,18 +462,16 @@ func segmentCross(a, b, c, d model.Point) (model.Point, bool) {
 // Bounding boxes prune the O(n²) search.
 func firstCrossing(loop []model.Point) (i, j int, x model.Point, ok bool) {
 	n := len(loop)
-	type box struct{ x0, x1, y0, y1 float64 }
-	bb := make([]box, n)
+	bb := make([]model.Box, n)
 	for k := range n {
-		a, b := loop[k], loop[(k+1)%n]
-		bb[k] = box{math.Min(a.X, b.X), math.Max(a.X, b.X), math.Min(a.Y, b.Y), math.Max(a.Y, b.Y)}
+		bb[k] = model.BoxOf(loop[k], loop[(k+1)%n])
 	}
 	for i := 0; i < n; i++ {
 		for j := i + 2; j < n; j++ {
 			if i == 0 && j == n-1 {
 				continue // adjacent through the closing edge
 			}
-			if bb[i].x1 < bb[j].x0 || bb[j].x1 < bb[i].x0 || bb[i].y1 < bb[j].y0 || bb[j].y1 < bb[i].y0 {
+			if !bb[i].Overlaps(bb[j]) {
 				continue
 			}
 			if x, ok := segmentCross(loop[i], loop[(i+1)%n], loop[j], loop[(j+1)%n]); ok {
@@ -482,14 +480,4 @@ func firstCrossing(loop []model.Point) (i, j int, x model.Point, ok bool) {
 		}
 	}
 	return 0, 0, model.Point{}, false
-}
-
-// signedArea is the shoelace area of the closed polygon, positive when
-// counter-clockwise.
-func signedArea(pts []model.Point) float64 {
-	a := 0.0
-	for i := range pts {
-		a += pts[i].Cross(pts[(i+1)%len(pts)])
-	}
-	return a / 2
 }

@@ -193,7 +193,7 @@ func checkInside(t *testing.T, name string, o *Offset, pts []model.Point, d, tol
 			return
 		}
 	}
-	if signedArea(o.Points) <= 0 {
+	if model.PolygonArea(o.Points) <= 0 {
 		t.Errorf("%s: offset is not counter-clockwise", name)
 	}
 	if i, j, x, ok := firstCrossing(o.Points); ok {

@@ -107,7 +107,7 @@ func TestOffsetSectionTrailingEdge(t *testing.T) {
 			t.Fatalf("offset point %d is %.4f mm from the contour, less than the skin", i, dist)
 		}
 	}
-	if signedArea(o.Points) <= 0 {
+	if model.PolygonArea(o.Points) <= 0 {
 		t.Error("offset is not counter-clockwise")
 	}
 }

@@ -189,7 +189,7 @@ func NewOutline(name string, l *model.Layout, opt OutlineOptions) (*Outline, err
 		if closed {
 			pts = pts[:len(pts)-1] // closed trailing edge: drop the repeat
 		}
-		if signedArea(pts) < 0 { // mirrored for inverted mounting
+		if model.PolygonArea(pts) < 0 { // mirrored for inverted mounting
 			pts = reverseLoop(pts, closed)
 		}
 		oe := OutlineElement{Name: e.Name, Contour: pts, LE: le, TE: te}

@@ -24,7 +24,7 @@ func TestOutlineTemplates(t *testing.T) {
 		if math.Abs(e.LE.X) > 1e-9 || math.Abs(e.TE.X-c) > 1e-6 || math.Abs(e.TE.Y-e.LE.Y) > 1e-6 {
 			t.Errorf("element %d: chord line %v–%v, want (0, y)–(%g, y)", i, e.LE, e.TE, c)
 		}
-		if signedArea(e.Contour) <= 0 {
+		if model.PolygonArea(e.Contour) <= 0 {
 			t.Errorf("element %d is not counter-clockwise", i)
 		}
 		ymin, ymax := math.Inf(1), math.Inf(-1)
