@@ -124,6 +124,9 @@ type Flow struct {
 	PressurePa   float64 `json:"pressure_pa"`
 	SpanM        float64 `json:"span_m,omitempty"`   // span for total forces; 0 means per metre only
 	Reynolds     float64 `json:"reynolds,omitempty"` // entered directly; overrides speed-derived Re when > 0
+	// EndPlateHeightMM is the height of the end plates at both tips, for
+	// the finite-span estimate's effective aspect ratio; 0 means none.
+	EndPlateHeightMM float64 `json:"end_plate_height_mm,omitempty"`
 }
 
 // SweepRange is a set of angles of attack from FromDeg to ToDeg in StepDeg.

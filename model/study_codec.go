@@ -38,6 +38,9 @@ const (
 	MaxSettingDeg  = 90
 	MaxSpeedMPS    = 150 // beyond this compressibility matters (Mach ≈ 0.44)
 	MaxClearanceMM = 100000
+	// MaxEndPlateHeightMM bounds an end plate's height (10 m): generous,
+	// like the others.
+	MaxEndPlateHeightMM = 10000
 )
 
 // ErrStudyFormat reports a file that is not a Sectionbench study.
@@ -393,6 +396,7 @@ func (st *Study) Validate() error {
 		{"flow.alpha_deg", fl.AlphaDeg, -MaxAlphaDeg, MaxAlphaDeg},
 		{"flow.speed_mps", fl.SpeedMPS, 0, MaxSpeedMPS},
 		{"flow.span_m", fl.SpanM, 0, 100},
+		{"flow.end_plate_height_mm", fl.EndPlateHeightMM, 0, MaxEndPlateHeightMM},
 		{"flow.reynolds", fl.Reynolds, 0, 1e9},
 		{"reference_chord_mm", st.ReferenceChordMM, 0, MaxChordMM * MaxElements},
 		{"ground.clearance_mm", st.Ground.ClearanceMM, 0, MaxClearanceMM},

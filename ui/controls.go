@@ -187,6 +187,8 @@ func fieldLabel(path string) string {
 		return "Air pressure"
 	case "flow.span_m":
 		return "Span (m)"
+	case "flow.end_plate_height_mm":
+		return "End-plate height (mm)"
 	case "flow.reynolds":
 		return "Reynolds number"
 	case "reference_chord_mm":

@@ -51,6 +51,7 @@ var studyFields = []studyField{
 	{"flow.pressure_pa", func(s *model.Study) { s.Flow.PressurePa = 95000 }, false, true, "Air pressure"},
 	{"flow.span_m", func(s *model.Study) { s.Flow.SpanM = 1.2 }, false, true, "Span (m)"},
 	{"flow.reynolds", func(s *model.Study) { s.Flow.Reynolds = 4e5 }, false, true, "Reynolds number"},
+	{"flow.end_plate_height_mm", func(s *model.Study) { s.Flow.EndPlateHeightMM = 250 }, false, true, "End-plate height (mm)"},
 	{"sweep.from_deg", func(s *model.Study) { s.Sweep.FromDeg = -2 }, false, true, "Sweep from"},
 	{"sweep.to_deg", func(s *model.Study) { s.Sweep.ToDeg = 10 }, false, true, "Sweep to"},
 	{"sweep.step_deg", func(s *model.Study) { s.Sweep.StepDeg = 2 }, false, true, "Sweep step"},

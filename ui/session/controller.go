@@ -368,7 +368,7 @@ func EqualGeometry(a, b *model.Study) bool {
 	// Shallow copies: only their own top-level fields are overwritten, and
 	// reflect.DeepEqual follows the rest, with no encoding per keystroke.
 	x, y := *a, *b
-	y.Flow.AlphaDeg, y.Flow.SpanM = x.Flow.AlphaDeg, x.Flow.SpanM
+	y.Flow.AlphaDeg, y.Flow.SpanM, y.Flow.EndPlateHeightMM = x.Flow.AlphaDeg, x.Flow.SpanM, x.Flow.EndPlateHeightMM
 	y.Pins, y.Name, y.Team, y.Sweep, y.Density = x.Pins, x.Name, x.Team, x.Sweep, x.Density
 	if !x.Viscous.Enabled && !y.Viscous.Enabled {
 		y.Flow.SpeedMPS, y.Flow.TemperatureC, y.Flow.PressurePa, y.Flow.Reynolds = x.Flow.SpeedMPS, x.Flow.TemperatureC, x.Flow.PressurePa, x.Flow.Reynolds
@@ -381,7 +381,7 @@ func EqualGeometry(a, b *model.Study) bool {
 // range.
 func sweepKey(st *model.Study) string {
 	x := st.Clone()
-	x.Flow.AlphaDeg, x.Flow.SpanM = 0, 0
+	x.Flow.AlphaDeg, x.Flow.SpanM, x.Flow.EndPlateHeightMM = 0, 0, 0
 	x.Pins, x.Name, x.Team, x.Density = nil, "", "", model.DensityPlan{}
 	if !x.Viscous.Enabled {
 		x.Flow.SpeedMPS, x.Flow.TemperatureC, x.Flow.PressurePa, x.Flow.Reynolds = 0, 0, 0, 0
