@@ -1,0 +1,198 @@
+package engine
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+
+	"sectionbench/model"
+	"sectionbench/solver/liftingline"
+)
+
+// FiniteSpanMethod names the finite-span method for every output.
+const FiniteSpanMethod = "Prandtl's lifting line solved by Glauert's Fourier series with the section's own polar, iterated past its straight part (Anderson, Fundamentals of Aerodynamics, ch. 5); end plates by the effective aspect ratio AR(1 + 1.9 h/b) attributed to Hoerner (from memory)"
+
+// FiniteSpanCaution is the warning every output of the estimate carries.
+const FiniteSpanCaution = "An estimate from two-dimensional polars: a rectangular wing of the study's span and reference chord, no twist, no ground under the trailing vortices, end plates only through an effective aspect ratio, and the tip load falling to zero as on a wing without plates. The wind tunnel or the track must confirm it. Structure and mounting follow the competition's rules and qualified review."
+
+// FiniteSpan is the finite-span estimate of a study: a rectangular wing of
+// the study's span and reference chord whose every station has the
+// configuration's two-dimensional polar.
+//
+// Load coefficients and loads are in the sense that the study's angle adds
+// to: downforce (positive towards the ground) on an inverted wing, lift
+// otherwise (Inverted says which). Coefficients are on the planform area
+// SpanM × ChordM; forces in N, NaN when the study has no speed (and the
+// profile drag NaN without a viscous polar at the angles the stations
+// reach).
+type FiniteSpan struct {
+	Inverted             bool
+	AlphaDeg             float64
+	SpanM, ChordM        float64
+	EndPlateHeightM      float64
+	AreaM2               float64
+	AspectRatio          float64 // b/c
+	EffectiveAspectRatio float64 // with the end plates; the lifting line is solved at this one
+
+	Load       float64 // load coefficient C_L (downforce when Inverted)
+	CDi, CDp   float64 // induced and profile drag coefficients
+	Efficiency float64 // span efficiency e at the effective aspect ratio
+
+	DynamicPressurePa float64 // NaN without a speed
+	LoadN             float64 // downforce (Inverted) or lift, N
+	InducedDragN      float64
+	ProfileDragN      float64
+	// The two-dimensional figures beside it: the study's point per metre
+	// of span (load in the same sense as LoadN; drag NaN without a viscous
+	// solution) and over the span with no end effects.
+	Load2DPerSpan, Drag2DPerSpan float64
+	Load2DN, Drag2DN             float64
+
+	// Stations is the spanwise load on the real span, from the centre to
+	// the tip (the other half mirrors it).
+	Stations []SpanStation
+	// PastMaxLoad: some station works past the polar's largest load (at
+	// or beyond stall); the estimate is then not unique.
+	PastMaxLoad bool
+	// PolarFromDeg, PolarToDeg and PolarRows describe the polar used:
+	// the angles solved and how many rows had a usable load.
+	PolarFromDeg, PolarToDeg float64
+	PolarRows, PolarRowsUsed int
+	ViscousPolar             bool // the load and drag come from a viscous solution
+}
+
+// SpanStation is the finite-span load at one station.
+type SpanStation struct {
+	YM           float64 // distance from the centre of the span, m
+	Load         float64 // section load coefficient
+	LoadPerSpan  float64 // N/m, NaN without a speed
+	EffectiveDeg float64 // the section's effective angle α − α_i
+	InducedDeg   float64
+	Cd           float64 // section profile drag, NaN when not known
+}
+
+// ErrNoSpan is returned for a finite-span estimate of a study without a
+// span.
+var ErrNoSpan = &model.FieldError{Field: "flow.span_m", Err: errors.New("the finite-span estimate needs the wing's span")}
+
+// FiniteSpanSweep returns the angles a finite-span estimate of st solves
+// for its polar: from below the study's angle by the induced angle the
+// stations may need (margin degrees) to 2° above it, in 1° steps, within
+// the study's limits.
+func FiniteSpanSweep(st *model.Study, margin float64) model.SweepRange {
+	a := st.Flow.AlphaDeg
+	from := math.Max(-model.MaxAlphaDeg, math.Floor(a-margin))
+	to := math.Min(model.MaxAlphaDeg, math.Ceil(a+2))
+	return model.SweepRange{FromDeg: from, ToDeg: to, StepDeg: 1}
+}
+
+// firstMargin is the induced angle, in degrees, FiniteSpan first allows
+// for: about that of a load coefficient of 1.5 at aspect ratio 3.5
+// (C_L/(π AR) in radians), doubled for the tips of a rectangular wing.
+const firstMargin = 16
+
+// FiniteSpan solves the study's configuration over the angles its
+// finite-span estimate needs (FiniteSpanSweep, widened once if a station
+// reaches beyond them) and returns the estimate with the run's result at
+// the study's angle. req.Sweep is ignored (the polar is solved);
+// req.Progress sees each sweep.
+func (e *Engine) FiniteSpan(ctx context.Context, req Request) (*FiniteSpan, *Result, error) {
+	if !(req.Study.Flow.SpanM > 0) {
+		return nil, nil, ErrNoSpan
+	}
+	margin := float64(firstMargin)
+	for try := 0; ; try++ {
+		st := req.Study.Clone()
+		st.Sweep = FiniteSpanSweep(st, margin)
+		r := req
+		r.Study, r.Sweep = st, true
+		res, err := e.Run(ctx, r)
+		if err != nil {
+			return nil, nil, err
+		}
+		fs, err := FiniteSpanEstimate(st, res)
+		var re *liftingline.RangeError
+		if errors.As(err, &re) && try == 0 && re.AlphaDeg < re.FromDeg && re.FromDeg > -model.MaxAlphaDeg {
+			margin = st.Flow.AlphaDeg - re.AlphaDeg + 4
+			continue
+		}
+		return fs, res, err
+	}
+}
+
+// FiniteSpanEstimate returns the finite-span estimate of st from a result
+// whose sweep covers the angles the stations reach (see FiniteSpanSweep).
+// The polar is the coupled sweep's converged rows in coupled mode, the
+// inviscid lift with the boundary-layer estimate's drag with the estimate,
+// and the inviscid lift alone (no profile drag) without a viscous
+// solution.
+func FiniteSpanEstimate(st *model.Study, res *Result) (*FiniteSpan, error) {
+	if !(st.Flow.SpanM > 0) {
+		return nil, ErrNoSpan
+	}
+	if len(res.Sweep) == 0 {
+		panic("engine: FiniteSpanEstimate of a result without a sweep")
+	}
+	sense := 1.0
+	if st.Inverted {
+		sense = -1
+	}
+	n := len(res.Sweep)
+	al, load, cd := make([]float64, n), make([]float64, n), make([]float64, n)
+	used := 0
+	for i, c := range res.Sweep {
+		al[i], load[i], cd[i] = c.AlphaDeg, sense*c.Cl, math.NaN()
+		switch {
+		case res.SweepCoupled != nil:
+			p := res.SweepCoupled[i]
+			load[i], cd[i] = sense*p.Cl, p.Cd // NaN unless converged
+		case res.SweepViscous != nil:
+			cd[i] = res.SweepViscous[i].Cd
+		}
+		if !math.IsNaN(load[i]) {
+			used++
+		}
+	}
+	tbl, err := liftingline.NewTable(al, load, cd)
+	if err != nil {
+		return nil, fmt.Errorf("finite-span estimate: %w", err)
+	}
+	l := res.Layout
+	c := l.RefChordM
+	b := st.Flow.SpanM
+	h := st.Flow.EndPlateHeightMM / 1000
+	ar := b / c
+	arEff := liftingline.EndPlateAspectRatio(ar, h, b)
+	ll, err := liftingline.Solve(liftingline.Rectangular(arEff*c, c), tbl, st.Flow.AlphaDeg, liftingline.Options{})
+	if err != nil {
+		return nil, fmt.Errorf("finite-span estimate: %w", err)
+	}
+	fs := &FiniteSpan{
+		Inverted: st.Inverted, AlphaDeg: st.Flow.AlphaDeg,
+		SpanM: b, ChordM: c, EndPlateHeightM: h, AreaM2: b * c,
+		AspectRatio: ar, EffectiveAspectRatio: arEff,
+		Load: ll.CL, CDi: ll.CDi, CDp: ll.CDp, Efficiency: ll.Efficiency,
+		DynamicPressurePa: math.NaN(),
+		LoadN:             math.NaN(), InducedDragN: math.NaN(), ProfileDragN: math.NaN(),
+		Load2DPerSpan: math.NaN(), Drag2DPerSpan: math.NaN(), Load2DN: math.NaN(), Drag2DN: math.NaN(),
+		PastMaxLoad:  ll.PastMaxLoad,
+		PolarFromDeg: al[0], PolarToDeg: al[n-1], PolarRows: n, PolarRowsUsed: used,
+		ViscousPolar: res.SweepCoupled != nil || res.SweepViscous != nil,
+	}
+	q := math.NaN()
+	if f := res.Forces; f != nil {
+		q = f.DynamicPressurePa
+		fs.DynamicPressurePa = q
+		fs.LoadN, fs.InducedDragN, fs.ProfileDragN = q*fs.AreaM2*ll.CL, q*fs.AreaM2*ll.CDi, q*fs.AreaM2*ll.CDp
+		fs.Load2DPerSpan, fs.Drag2DPerSpan = sense*f.LiftPerSpan, f.DragPerSpan
+		fs.Load2DN, fs.Drag2DN = fs.Load2DPerSpan*b, fs.Drag2DPerSpan*b
+	}
+	for _, s := range ll.Stations {
+		fs.Stations = append(fs.Stations, SpanStation{
+			YM: s.Eta * b / 2, Load: s.Load, LoadPerSpan: q * s.LoadPerQ,
+			EffectiveDeg: s.EffectiveDeg, InducedDeg: s.InducedDeg, Cd: s.Cd,
+		})
+	}
+	return fs, nil
+}

@@ -1,0 +1,108 @@
+package engine
+
+import (
+	"context"
+	"errors"
+	"math"
+	"testing"
+
+	"sectionbench/model"
+	"sectionbench/model/modeltest"
+	"sectionbench/solver/liftingline"
+)
+
+// The estimate of an upright NACA 2412 wing of aspect ratio 6 in free air
+// from the panel method's (inviscid) polar agrees with the lifting line of
+// the straight curve through the polar's points at α ± 1° (validated in
+// package liftingline against Anderson, ch. 5) to 1 %: the panel polar
+// bends a little over the angles the stations reach (its lift goes as
+// sin α). The forces are q S times the coefficients, and the finite wing
+// carries less than the two-dimensional figure over the span.
+func TestFiniteSpanMatchesStraightCurve(t *testing.T) {
+	st, secs := engineStudy(t, "2412")
+	st.Flow.AlphaDeg, st.Flow.SpeedMPS = 5, 20
+	c := st.Elements[0].ChordMM / 1000
+	st.Flow.SpanM = 6 * c
+	e := NewEngine()
+	fs, res, err := e.FiniteSpan(context.Background(), Request{Study: st, Sections: secs})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(fs.AspectRatio-6) > 1e-9 || fs.EffectiveAspectRatio != fs.AspectRatio {
+		t.Fatalf("aspect ratio %g, effective %g; want 6 without end plates", fs.AspectRatio, fs.EffectiveAspectRatio)
+	}
+	var lo, hi float64
+	for _, r := range res.Sweep {
+		switch r.AlphaDeg {
+		case 4:
+			lo = r.Cl
+		case 6:
+			hi = r.Cl
+		}
+	}
+	slope := (hi - lo) / 2 * 180 / math.Pi
+	zero := 5 - (lo+hi)/2/(slope*math.Pi/180)
+	want, err := liftingline.Solve(liftingline.Rectangular(st.Flow.SpanM, c), liftingline.Linear{SlopePerRad: slope, ZeroLiftDeg: zero}, 5, liftingline.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if modeltest.RelErr(fs.Load, want.CL) > 0.01 {
+		t.Errorf("C_L %.4f, straight curve %.4f", fs.Load, want.CL)
+	}
+	if modeltest.RelErr(fs.CDi, want.CDi) > 0.02 {
+		t.Errorf("C_Di %.5f, straight curve %.5f", fs.CDi, want.CDi)
+	}
+	q := res.Forces.DynamicPressurePa
+	if modeltest.RelErr(fs.LoadN, q*st.Flow.SpanM*c*fs.Load) > 1e-12 {
+		t.Errorf("lift %g N is not q S C_L", fs.LoadN)
+	}
+	if !(fs.LoadN < fs.Load2DN) || !(fs.InducedDragN > 0) {
+		t.Errorf("lift %g N, two-dimensional over the span %g N, induced drag %g N", fs.LoadN, fs.Load2DN, fs.InducedDragN)
+	}
+	if !math.IsNaN(fs.ProfileDragN) || fs.ViscousPolar {
+		t.Errorf("profile drag %g N from an inviscid polar, want NaN", fs.ProfileDragN)
+	}
+	if len(fs.Stations) != liftingline.DefaultStations || !(fs.Stations[0].LoadPerSpan > fs.Stations[len(fs.Stations)-1].LoadPerSpan) {
+		t.Errorf("spanwise load does not fall from the centre to the tip: %+v", fs.Stations)
+	}
+}
+
+// End plates raise the effective aspect ratio by AR(1 + 1.9 h/b) and with
+// it the load, and lower the induced drag for a given load; the inverted two-element example
+// in ground effect gives downforce (positive) below its two-dimensional
+// figure over the span.
+func TestFiniteSpanEndPlatesInverted(t *testing.T) {
+	st, secs := modeltest.LoadStudy(t, "../../testdata/studies/rear-wing.json")
+	e := NewEngine()
+	bare, _, err := e.FiniteSpan(context.Background(), Request{Study: st, Sections: secs})
+	if err != nil {
+		t.Fatal(err)
+	}
+	st.Flow.EndPlateHeightMM = 250
+	plated, _, err := e.FiniteSpan(context.Background(), Request{Study: st, Sections: secs})
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("2-D × span %.1f N; no plates %.1f N (AR %.2f, e %.3f, induced %.1f N); plates 250 mm %.1f N (AR %.2f, induced %.1f N); polar %g..%g°",
+		bare.Load2DN, bare.LoadN, bare.EffectiveAspectRatio, bare.Efficiency, bare.InducedDragN, plated.LoadN, plated.EffectiveAspectRatio, plated.InducedDragN, plated.PolarFromDeg, plated.PolarToDeg)
+	if want := bare.AspectRatio * (1 + 1.9*0.25/st.Flow.SpanM); math.Abs(plated.EffectiveAspectRatio-want) > 1e-12 {
+		t.Errorf("effective aspect ratio %g, want %g", plated.EffectiveAspectRatio, want)
+	}
+	if !(bare.LoadN > 0 && bare.LoadN < plated.LoadN && plated.LoadN < plated.Load2DN) {
+		t.Errorf("downforce: no plates %g N, plates %g N, two-dimensional over the span %g N", bare.LoadN, plated.LoadN, plated.Load2DN)
+	}
+	// At the same angle the plated wing carries more load; its induced
+	// drag for a given load, C_Di/C_L², is what falls.
+	if f, g := plated.CDi/(plated.Load*plated.Load), bare.CDi/(bare.Load*bare.Load); !(f < g) {
+		t.Errorf("induced drag factor C_Di/C_L² with plates %g, not below %g without", f, g)
+	}
+}
+
+func TestFiniteSpanNeedsSpan(t *testing.T) {
+	st, secs := engineStudy(t, "0012")
+	_, _, err := NewEngine().FiniteSpan(context.Background(), Request{Study: st, Sections: secs})
+	var fe *model.FieldError
+	if !errors.As(err, &fe) || fe.Field != "flow.span_m" {
+		t.Errorf("error %v, want one on flow.span_m", err)
+	}
+}
