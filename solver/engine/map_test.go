@@ -1,0 +1,142 @@
+package engine
+
+import (
+	"context"
+	"errors"
+	"math"
+	"sync/atomic"
+	"testing"
+
+	"sectionbench/model"
+	"sectionbench/model/modeltest"
+)
+
+func mustRange(t testing.TB, spec string) model.SetupRange {
+	t.Helper()
+	r, err := model.ParseSetupRange(spec)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
+}
+
+// exampleStudy loads one of the invented example studies the app ships.
+func exampleStudy(t testing.TB, name string) (*model.Study, []*model.Section) {
+	t.Helper()
+	return modeltest.LoadStudy(t, "../../assets/examples/"+name)
+}
+
+// An inviscid map is the engine's solve at each grid point, bit for bit,
+// in row-major order of the ranges, whichever goroutine solved it; each
+// and progress see every point once.
+func TestMapInviscidReproducesRun(t *testing.T) {
+	st, secs := exampleStudy(t, "two-element-ground.json")
+	ranges := []model.SetupRange{mustRange(t, "clearance_mm=60:100:20"), mustRange(t, "alpha_deg=0:4:2")}
+	var seen, last atomic.Int64
+	pts, err := Map(context.Background(), st, secs, ranges, MapOptions{PointOptions: PointOptions{Inviscid: true}},
+		func(done, total int) { last.Store(int64(done)); _ = total },
+		func(Point) { seen.Add(1) })
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(pts) != 9 || seen.Load() != 9 || last.Load() != 9 {
+		t.Fatalf("%d points, each saw %d, progress reached %d; want 9", len(pts), seen.Load(), last.Load())
+	}
+	for k, p := range pts {
+		h, a := 60+20*float64(k/3), 2*float64(k%3)
+		if p.Values[0] != h || p.Values[1] != a || p.Index[0] != k/3 || p.Index[1] != k%3 {
+			t.Fatalf("point %d has values %v index %v, want [%g %g]", k, p.Values, p.Index, h, a)
+		}
+		one := st.Clone()
+		one.Ground.ClearanceMM, one.Flow.AlphaDeg = h, a
+		res := run(t, NewEngine(), one, secs, false)
+		if p.Viscous || !p.Converged || p.Err != "" {
+			t.Fatalf("point %d: viscous %v converged %v err %q", k, p.Viscous, p.Converged, p.Err)
+		}
+		if p.Cl != res.Solution.Cl || p.Cm != res.Solution.Cm || p.DownforcePerSpan != res.Forces.DownforcePerSpan {
+			t.Errorf("h %g α %g: map Cl %v Cm %v downforce %v, solve %v %v %v", h, a, p.Cl, p.Cm, p.DownforcePerSpan, res.Solution.Cl, res.Solution.Cm, res.Forces.DownforcePerSpan)
+		}
+		if !math.IsNaN(p.Cd) || !(p.DownforcePerSpan > 0) || p.ClearanceMM != h || !(p.Elements[1].GapMM > 0) {
+			t.Errorf("h %g α %g: Cd %v downforce %v clearance %v gap %v", h, a, p.Cd, p.DownforcePerSpan, p.ClearanceMM, p.Elements[1].GapMM)
+		}
+	}
+}
+
+// A viscous map of angle of attack in free air (NACA 0012 at Re 6e6,
+// tripped, where the coupled solution mostly converges: DEVELOPERS.md)
+// gives the engine's solve bit for bit wherever that converges; a point
+// only the map's second try from its neighbour converges is logged.
+func TestMapViscousAlpha(t *testing.T) {
+	if testing.Short() {
+		t.Skip("coupled viscous solves")
+	}
+	st, secs := coupledStudy(t)
+	st.Viscous.Enabled = false // the map turns it on
+	st.Flow.SpeedMPS = 20      // for the forces; Re stays the study's 6e6
+	pts, err := Map(context.Background(), st, secs, []model.SetupRange{mustRange(t, "alpha_deg=-2:4:1")}, MapOptions{}, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range pts {
+		one := st.Clone()
+		one.Flow.AlphaDeg = p.Values[0]
+		one.Viscous.Enabled = true
+		res := run(t, NewEngine(), one, secs, false)
+		c := res.Coupled
+		if !p.Viscous || c.Converged && !p.Converged {
+			t.Errorf("α %g: map viscous %v converged %v, solve converged %v", p.Values[0], p.Viscous, p.Converged, c.Converged)
+			continue
+		}
+		if !p.Converged {
+			t.Logf("α %g does not converge (map and solve agree)", p.Values[0])
+			if !math.IsNaN(p.Cl) || !math.IsNaN(p.Cd) || !math.IsNaN(p.DownforcePerSpan) || !math.IsNaN(p.Elements[0].SeparationSuction) {
+				t.Errorf("α %g: a point that did not converge carries numbers", p.Values[0])
+			}
+			continue
+		}
+		if !c.Converged {
+			t.Logf("α %g converges only from its neighbour in the map: Cl %.5f", p.Values[0], p.Cl)
+		} else if p.Cl != c.Cl || p.Cd != c.Cd || p.Cm != c.Cm {
+			t.Errorf("α %g: map Cl %.9f Cd %.9f Cm %.9f, solve %.9f %.9f %.9f", p.Values[0], p.Cl, p.Cd, p.Cm, c.Cl, c.Cd, c.Cm)
+		}
+		if !(p.Cd > 0) || !(p.DragPerSpan > 0) {
+			t.Errorf("α %g: Cd %v drag %v N/m", p.Values[0], p.Cd, p.DragPerSpan)
+		}
+	}
+}
+
+// Bad ranges are refused before anything is solved, naming the variable;
+// cancellation returns the context's error and no points.
+func TestMapErrors(t *testing.T) {
+	st, secs := exampleStudy(t, "single-free-air.json")
+	_, err := Map(context.Background(), st, secs, []model.SetupRange{mustRange(t, "clearance_mm=20:60:10")}, MapOptions{}, nil, nil)
+	var se *model.SetupError
+	if !errors.As(err, &se) || se.Variable != "clearance_mm" || !errors.Is(err, model.ErrNotInStudy) {
+		t.Errorf("clearance in free air: err = %v", err)
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	var n atomic.Int64
+	pts, err := Map(ctx, st, secs, []model.SetupRange{mustRange(t, "alpha_deg=0:10:0.5")}, MapOptions{PointOptions: PointOptions{Inviscid: true}}, nil,
+		func(Point) {
+			if n.Add(1) == 3 {
+				cancel()
+			}
+		})
+	if !errors.Is(err, context.Canceled) || pts != nil {
+		t.Errorf("cancelled map: %d points, err %v", len(pts), err)
+	}
+}
+
+// A setting the flap cannot take (a gap it cannot reach at that overlap
+// and deflection) is a point with its reason, not an error of the map.
+func TestMapPointErrors(t *testing.T) {
+	st, secs := exampleStudy(t, "two-element-ground.json")
+	pts, err := Map(context.Background(), st, secs, []model.SetupRange{mustRange(t, "elements[1].gap_mm=-40:0:40")}, MapOptions{PointOptions: PointOptions{Inviscid: true}}, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := pts[0]
+	if p.Err == "" || p.Converged || !math.IsNaN(p.Cl) || !math.IsNaN(p.DownforcePerSpan) {
+		t.Errorf("gap -40 mm: err %q converged %v Cl %v", p.Err, p.Converged, p.Cl)
+	}
+}

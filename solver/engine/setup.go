@@ -1,0 +1,258 @@
+package engine
+
+import (
+	"context"
+	"errors"
+	"math"
+
+	"sectionbench/model"
+)
+
+// The set-up explorer: maps (Map) and the setting search (Search) solve a
+// study at many settings of its set-up variables (model.SetupVariable:
+// alpha_deg, clearance_mm, speed_mps, elements[K].deflection_deg,
+// elements[K].gap_mm, elements[K].overlap_mm, in the as-mounted frame) and
+// describe each solve as a Point.
+//
+// Each point is one Engine.Run of a copy of the study with the variables
+// applied (model.Study.ApplySetupAll), so a point is what `solve` gives
+// for the same study and options, except for a warm start (see Map). By
+// default the study is solved with the coupled viscous solution whatever
+// its own viscous setting (saved studies leave it off); see PointOptions.
+
+// Point is the study solved at one setting of the set-up variables. A
+// point that did not converge, or could not be solved at all (Err), carries
+// no numbers that could be read as an answer: its coefficients, forces and
+// separation points are NaN.
+type Point struct {
+	// Values are the variables' values, parallel to the map's ranges or
+	// the search's bounds; Index is the point's position in a map's grid
+	// (nil for a search).
+	Values []float64
+	Index  []int
+	// Viscous is true when the coupled viscous solution ran, false on an
+	// inviscid point (the panel method only: Cd is NaN).
+	Viscous bool
+	// Converged is true when the viscous solution converged, or an
+	// inviscid point solved; false when it did not or Err is set.
+	Converged  bool
+	Iterations int     // Newton iterations of the viscous solution
+	Residual   float64 // its last relative change; NaN inviscid
+	// Cl, Cd and Cm are the configuration's coefficients on the reference
+	// chord (the solver's signs: Cl positive up, so negative on an
+	// inverted wing making downforce; Cm about the moment reference).
+	Cl, Cd, Cm float64
+	ClInviscid float64 // the panel method's Cl beside them, NaN when Err
+	// LiftPerSpan, DownforcePerSpan (= −LiftPerSpan) and DragPerSpan are
+	// in N/m of span; NaN without a speed.
+	LiftPerSpan, DownforcePerSpan, DragPerSpan float64
+	Inverted                                   bool
+	// ClearanceMM is the ground clearance (the ground to the lowest point
+	// at the point's angle), NaN in free air.
+	ClearanceMM float64
+	Elements    []PointElement
+	// Err says in words why the point could not be solved (a setting that
+	// places the elements into each other, a gap the flap cannot reach, a
+	// study value out of range, a solver failure); empty otherwise.
+	Err string
+}
+
+// PointElement is one element's share of a Point.
+type PointElement struct {
+	Name   string
+	Cl, Cd float64 // on the element's chord; NaN unless converged (Cd also inviscid)
+	// SeparationUpper and SeparationLower are where the boundary layer
+	// separates and stays separated to the trailing edge, x/c on the
+	// surfaces as mounted; SeparationSuction is the suction side's (the
+	// upper surface upright, the lower inverted). NaN when the layer stays
+	// attached, and on a point without a converged viscous solution
+	// (Converged tells the two apart).
+	SeparationUpper, SeparationLower, SeparationSuction float64
+	// GapMM is the slot's gap behind the element before (model.Slot); NaN
+	// for the main element and when Err is set.
+	GapMM float64
+}
+
+// Load returns the point's load coefficient in the sense the wing is
+// mounted for: Cl upright, the downforce coefficient −Cl inverted.
+func (p *Point) Load() float64 {
+	if p.Inverted {
+		return -p.Cl
+	}
+	return p.Cl
+}
+
+// AttachedTo reports whether every element's suction side stays attached
+// at least to x/c = xc: the point converged and no element separates
+// ahead of xc. A point without a converged viscous solution is not known
+// to be attached and returns false; an inviscid point returns true (it
+// knows nothing of separation; the search refuses the limit without the
+// viscous solution).
+func (p *Point) AttachedTo(xc float64) bool {
+	if !p.Converged {
+		return false
+	}
+	for _, e := range p.Elements {
+		if e.SeparationSuction < xc { // false for NaN: attached
+			return false
+		}
+	}
+	return true
+}
+
+// PointOptions are the settings every point of a map or search shares.
+type PointOptions struct {
+	// Inviscid solves with the panel method only. Without it the coupled
+	// viscous solution runs, whatever the study's own viscous setting,
+	// unless the study has neither a speed nor a Reynolds number (it then
+	// cannot have one: ViscousFor).
+	Inviscid bool
+	// CoupledMaxIterations bounds the coupled solution's Newton
+	// iterations per attempt; 0 is the solver's default. For tests.
+	CoupledMaxIterations int
+}
+
+// ViscousFor reports whether points of st are solved with the coupled
+// viscous solution under opt, given the variables varied (a varied speed
+// supplies the speed a study may lack).
+func ViscousFor(st *model.Study, opt PointOptions, vars []model.SetupVariable) bool {
+	if opt.Inviscid {
+		return false
+	}
+	if st.Flow.SpeedMPS > 0 || st.Flow.Reynolds > 0 {
+		return true
+	}
+	for _, v := range vars {
+		if v.Kind == model.SetupSpeed {
+			return true
+		}
+	}
+	return false
+}
+
+// pointSolver solves points of one study: the base study, its sections,
+// the variables, and an Engine whose cache (placement, factorisation, last
+// converged viscous solution) carries from one point to the next.
+type pointSolver struct {
+	base    *model.Study // with the viscous setting of the points
+	secs    []*model.Section
+	vars    []model.SetupVariable
+	opt     PointOptions
+	viscous bool
+	eng     *Engine
+}
+
+func newPointSolver(st *model.Study, secs []*model.Section, vars []model.SetupVariable, opt PointOptions) *pointSolver {
+	base := st.Clone()
+	viscous := ViscousFor(st, opt, vars)
+	base.Viscous.Enabled = viscous
+	if viscous {
+		base.Viscous.Mode = model.ViscousCoupled
+	}
+	return &pointSolver{base: base, secs: secs, vars: vars, opt: opt, viscous: viscous, eng: NewEngine()}
+}
+
+// study returns a copy of the base study with values applied.
+func (ps *pointSolver) study(values []float64) (*model.Study, error) {
+	st := ps.base.Clone()
+	if err := st.ApplySetupAll(ps.vars, values, ps.secs); err != nil {
+		return nil, err
+	}
+	return st, nil
+}
+
+// solve solves the point at values. Only cancellation is an error; any
+// other failure is a point with Err set.
+func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, error) {
+	p := Point{Values: append([]float64(nil), values...), Viscous: ps.viscous, Inverted: ps.base.Inverted}
+	fail := func(err error) (Point, error) {
+		if ctx.Err() != nil || errors.Is(err, context.Canceled) || errors.Is(err, context.DeadlineExceeded) {
+			return Point{}, err
+		}
+		p.Err = err.Error()
+		p.fill(nil, ps.base, ps.secs)
+		return p, nil
+	}
+	st, err := ps.study(values)
+	if err != nil {
+		return fail(err)
+	}
+	res, err := ps.eng.runColdFirst(ctx, Request{Study: st, Sections: ps.secs, CoupledMaxIterations: ps.opt.CoupledMaxIterations})
+	if err != nil {
+		return fail(err)
+	}
+	p.fill(res, st, ps.secs)
+	return p, nil
+}
+
+// fill sets the point's numbers from res (nil: none).
+func (p *Point) fill(res *Result, st *model.Study, secs []*model.Section) {
+	nan := math.NaN()
+	p.Cl, p.Cd, p.Cm, p.ClInviscid, p.Residual = nan, nan, nan, nan, nan
+	p.LiftPerSpan, p.DownforcePerSpan, p.DragPerSpan, p.ClearanceMM = nan, nan, nan, nan
+	p.Elements = make([]PointElement, len(st.Elements))
+	for i, e := range st.Elements {
+		p.Elements[i] = PointElement{Name: e.Name, Cl: nan, Cd: nan, SeparationUpper: nan, SeparationLower: nan, SeparationSuction: nan, GapMM: nan}
+	}
+	if res == nil {
+		return
+	}
+	if st.Ground.Enabled {
+		p.ClearanceMM = st.Ground.ClearanceMM
+	}
+	for i := 1; i < len(st.Elements); i++ {
+		p.Elements[i].GapMM = st.SlotOf(i, secs[i]).GapMM
+	}
+	p.ClInviscid = res.Solution.Cl
+	if c := res.Coupled; c != nil {
+		p.Converged, p.Iterations, p.Residual = c.Converged, c.Iterations, c.Residual
+		p.ClInviscid = c.ClInviscid
+		p.Cl, p.Cd, p.Cm = c.Cl, c.Cd, c.Cm
+		if c.Note != "" {
+			p.Err = c.Note
+		}
+		for i, e := range c.Elements {
+			pe := &p.Elements[i]
+			pe.Cl, pe.Cd = e.Cl, e.Cd
+			pe.SeparationUpper, pe.SeparationLower = e.SeparationUpper, e.SeparationLower
+			pe.SeparationSuction = e.SeparationUpper
+			if st.Inverted {
+				pe.SeparationSuction = e.SeparationLower
+			}
+		}
+	} else {
+		p.Converged = true
+		p.Cl, p.Cm = res.Solution.Cl, res.Solution.Cm
+		for i, e := range res.Solution.Elements {
+			p.Elements[i].Cl = e.Cl
+		}
+	}
+	if f := res.Forces; f != nil {
+		p.LiftPerSpan, p.DownforcePerSpan, p.DragPerSpan = f.LiftPerSpan, f.DownforcePerSpan, f.DragPerSpan
+	}
+}
+
+// runColdFirst is Run started as a fresh engine's is (the viscous
+// solution from the march, so that a point that converges there is
+// `solve`'s answer exactly), and, when the viscous solution did not
+// converge, run again from the engine's last converged neighbour (Run's
+// warm start, when the neighbour is near and shares the system).
+func (e *Engine) runColdFirst(ctx context.Context, req Request) (*Result, error) {
+	warm := e.warm
+	e.warm = nil
+	res, err := e.Run(ctx, req)
+	if err != nil || res.Coupled == nil || res.Coupled.Converged || warm == nil {
+		return res, err
+	}
+	if e.warm == nil { // Run did not move to another system or converge
+		e.warm = warm
+	}
+	again, err := e.Run(ctx, req)
+	if err != nil {
+		return nil, err
+	}
+	if again.Coupled.Converged {
+		return again, nil
+	}
+	return res, nil
+}
