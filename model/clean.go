@@ -228,20 +228,29 @@ func (r *CleanReport) String() string {
 // Clean brings a contour into the package convention and reports every
 // change. In order, it:
 //
-//  1. drops points that repeat the previous one to within DuplicateTol;
+//  1. drops points that repeat the previous one to within DuplicateTol
+//     (dropDuplicates);
 //  2. finds the trailing edge (findTE): a sharp corner or the gap between
 //     two corners at one end of the section, preferring the file's own
-//     start, and starts the contour there (a loop may start anywhere);
+//     start, and starts the contour there (a loop may start anywhere;
+//     startAtTrailingEdge);
 //  3. makes the contour run counter-clockwise: trailing edge, upper
-//     surface, leading edge, lower surface, trailing edge;
+//     surface, leading edge, lower surface, trailing edge (orient);
 //  4. finds the leading edge on a spline through the points
 //     (ContourSpline.LeadingEdge: the point farthest from the
 //     trailing-edge midpoint); a listed point within LESnapTol of it is
 //     taken as the leading edge, else the spline's point is inserted; but
-//     a file that gives its own chord keeps it (see FileFrameTol);
+//     a file that gives its own chord keeps it (see FileFrameTol;
+//     findLeadingEdge);
 //  5. moves the leading edge to the origin, scales the chord to 1 and,
-//     with Derotate, turns the trailing-edge midpoint onto (1, 0);
-//  6. with CloseTE, closes the trailing-edge gap (see TECloseBlend).
+//     with Derotate, turns the trailing-edge midpoint onto (1, 0)
+//     (normalise);
+//  6. with CloseTE, closes the trailing-edge gap (see TECloseBlend;
+//     closeTrailingEdge).
+//
+// Before step 1 the points are checked and moved into a box of size 1
+// (prenormalise), and an outlier or several closed loops are refused
+// (step 0, checkOutlierAndLoops).
 //
 // Steps 5 and 6 and the warnings work along the chord whether or not
 // Derotate is set; without it the result is turned back to the input's
@@ -260,52 +269,106 @@ func (r *CleanReport) String() string {
 // bad option. The report is returned even with an error, holding what was
 // found so far.
 func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, error) {
-	rep := &CleanReport{Name: name, InputPoints: len(pts)}
-	fail := func(idx int, err error) (*Section, *CleanReport, error) {
-		return nil, rep, &ContourError{Name: name, Index: idx, Err: err}
+	c := &cleaner{name: name, pts: pts, opt: opt, rep: &CleanReport{Name: name, InputPoints: len(pts)}}
+	q, err := c.prenormalise()
+	if err != nil {
+		return nil, c.rep, err
 	}
-	tol := opt.DuplicateTol
-	if tol == 0 {
-		tol = DefaultDuplicateTol
+	if err := c.checkOutlierAndLoops(q); err != nil { // 0.
+		return nil, c.rep, err
 	}
-	if !(tol > 0 && tol <= 1e-3) {
-		return nil, rep, &FieldError{Field: "clean.duplicate_tol", Err: fmt.Errorf("%g is outside (0, 1e-3]", opt.DuplicateTol)}
+	ring, orig, closed, err := c.dropDuplicates(q) // 1.
+	if err != nil {
+		return nil, c.rep, err
 	}
-	if len(pts) == 0 {
-		return fail(-1, fmt.Errorf("no points: %w", ErrTooFewPoints))
+	cont, idx := c.startAtTrailingEdge(ring, orig, closed) // 2.
+	c.orient(cont, idx)                                    // 3.
+	ed, err := c.findLeadingEdge(cont, idx)                // 4.
+	if err != nil {
+		return nil, c.rep, err
 	}
-	for i, p := range pts {
-		if !p.IsFinite() {
-			return fail(i, ErrNonFinite)
+	out, theta := c.normalise(ed)                 // 5.
+	closeTE := c.closeTrailingEdge(out, ed.leIdx) // 6.
+
+	c.rep.Warnings = append(c.rep.Warnings, sectionWarnings(out, ed.leIdx, c.rep.TEGap, closeTE)...)
+	if !opt.Derotate {
+		for i, p := range out {
+			out[i] = p.Rotate(Point{}, theta)
 		}
 	}
+	sec, err := NewSection(name, out)
+	if err != nil {
+		return nil, c.rep, c.fail(-1, err)
+	}
+	c.rep.OutputPoints = sec.Len()
+	return sec, c.rep, nil
+}
 
-	// Pre-normalise into a box of size 1 about its centre, so that every
-	// tolerance below is a fraction of the size and huge or tiny units
-	// neither overflow nor underflow. q = (p − c)/size.
-	box := BoxOf(pts...)
+// cleaner holds what Clean's steps share: the input, the options, the
+// report being written and the pre-normalisation q = (p − ctr)/(2·half).
+type cleaner struct {
+	name string
+	pts  []Point
+	opt  CleanOptions
+	rep  *CleanReport
+	tol  float64 // duplicate tolerance, a fraction of the size
+	ctr  Point
+	half float64
+}
+
+// fail returns the *ContourError for the input point idx (−1 for none).
+func (c *cleaner) fail(idx int, err error) error {
+	return &ContourError{Name: c.name, Index: idx, Err: err}
+}
+
+// toOrig undoes the pre-normalisation: p·2·half + ctr.
+func (c *cleaner) toOrig(p Point) Point { return toOrigPoint(p, c.ctr, c.half) }
+
+// prenormalise checks the options and the points, and returns the points
+// moved into a box of size 1 about its centre, so that every tolerance of
+// the steps is a fraction of the size and huge or tiny units neither
+// overflow nor underflow: q = (p − c)/size.
+func (c *cleaner) prenormalise() ([]Point, error) {
+	c.tol = c.opt.DuplicateTol
+	if c.tol == 0 {
+		c.tol = DefaultDuplicateTol
+	}
+	if !(c.tol > 0 && c.tol <= 1e-3) {
+		return nil, &FieldError{Field: "clean.duplicate_tol", Err: fmt.Errorf("%g is outside (0, 1e-3]", c.opt.DuplicateTol)}
+	}
+	if len(c.pts) == 0 {
+		return nil, c.fail(-1, fmt.Errorf("no points: %w", ErrTooFewPoints))
+	}
+	for i, p := range c.pts {
+		if !p.IsFinite() {
+			return nil, c.fail(i, ErrNonFinite)
+		}
+	}
+	box := BoxOf(c.pts...)
 	lo, hi := box.Min, box.Max
-	ctr := Point{lo.X/2 + hi.X/2, lo.Y/2 + hi.Y/2}
-	half := math.Max(hi.X/2-lo.X/2, hi.Y/2-lo.Y/2)
-	if !(half > 1e-14*math.Max(math.Abs(ctr.X), math.Abs(ctr.Y))) {
-		return fail(-1, fmt.Errorf("all %d points are equal: %w", len(pts), ErrAllPointsEqual))
+	c.ctr = Point{lo.X/2 + hi.X/2, lo.Y/2 + hi.Y/2}
+	c.half = math.Max(hi.X/2-lo.X/2, hi.Y/2-lo.Y/2)
+	if !(c.half > 1e-14*math.Max(math.Abs(c.ctr.X), math.Abs(c.ctr.Y))) {
+		return nil, c.fail(-1, fmt.Errorf("all %d points are equal: %w", len(c.pts), ErrAllPointsEqual))
 	}
-	q := make([]Point, len(pts))
-	for i, p := range pts {
-		q[i] = Point{(p.X - ctr.X) / half / 2, (p.Y - ctr.Y) / half / 2}
+	q := make([]Point, len(c.pts))
+	for i, p := range c.pts {
+		q[i] = Point{(p.X - c.ctr.X) / c.half / 2, (p.Y - c.ctr.Y) / c.half / 2}
 	}
+	return q, nil
+}
 
-	// 0. An outlier, far from both its neighbours while they lie close
-	// together (a typing error), would hijack the leading edge (the
-	// farthest point from the trailing edge) and turn the section.
+// checkOutlierAndLoops is step 0. An outlier, far from both its
+// neighbours while they lie close together (a typing error), would hijack
+// the leading edge (the farthest point from the trailing edge) and turn
+// the section. Several loops: the list comes back to its first point and
+// goes on (a main plane and a flap drawn in one file).
+func (c *cleaner) checkOutlierAndLoops(q []Point) error {
 	if i, far, gap := outlierPoint(q); i >= 0 {
-		return fail(i, fmt.Errorf("(%s) lies %.3g of the section's size from its neighbours, which are %.3g apart: %w, perhaps a typing error; correct or delete it",
-			fmtPoint(pts[i]), far, gap, ErrOutlier))
+		return c.fail(i, fmt.Errorf("(%s) lies %.3g of the section's size from its neighbours, which are %.3g apart: %w, perhaps a typing error; correct or delete it",
+			fmtPoint(c.pts[i]), far, gap, ErrOutlier))
 	}
-
-	// Several loops: the list comes back to its first point and goes
-	// on (a main plane and a flap drawn in one file).
-	if loops := closedLoops(q, tol); len(loops) > 1 {
+	if loops := closedLoops(q, c.tol); len(loops) > 1 {
 		var parts []string
 		for k, from := range loops {
 			to := len(q)
@@ -314,48 +377,56 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 			}
 			parts = append(parts, fmt.Sprintf("points %d–%d", from+1, to))
 		}
-		return fail(loops[1], fmt.Errorf("the points close a loop and go on: %d closed loops (%s), as when a main plane and a flap are drawn in one file; one section is one loop, so give each loop its own file and load it as its own element: %w",
+		return c.fail(loops[1], fmt.Errorf("the points close a loop and go on: %d closed loops (%s), as when a main plane and a flap are drawn in one file; one section is one loop, so give each loop its own file and load it as its own element: %w",
 			len(loops), strings.Join(parts, ", "), ErrSeveralLoops))
 	}
+	return nil
+}
 
-	// 1. Duplicates.
-	ring := make([]Point, 0, len(q))
-	orig := make([]int, 0, len(q))
+// dropDuplicates is step 1: it drops points that repeat the previous one
+// to within the tolerance (and a last point repeating the first, then
+// closed is true) and returns the remaining ring with each point's input
+// index. It fails on too few points, an open line or a flat one.
+func (c *cleaner) dropDuplicates(q []Point) (ring []Point, orig []int, closed bool, err error) {
+	ring = make([]Point, 0, len(q))
+	orig = make([]int, 0, len(q))
 	var dropped []int
 	for i, p := range q {
-		if len(ring) > 0 && p.Dist(ring[len(ring)-1]) <= tol {
+		if len(ring) > 0 && p.Dist(ring[len(ring)-1]) <= c.tol {
 			dropped = append(dropped, i)
 			continue
 		}
 		ring = append(ring, p)
 		orig = append(orig, i)
 	}
-	closed := false
-	if len(ring) > 2 && ring[len(ring)-1].Dist(ring[0]) <= tol {
+	if len(ring) > 2 && ring[len(ring)-1].Dist(ring[0]) <= c.tol {
 		closed = true
 		ring, orig = ring[:len(ring)-1], orig[:len(orig)-1]
 	}
 	if len(dropped) > 0 {
-		rep.Changes = append(rep.Changes, fmt.Sprintf("dropped %d duplicate %s (within %g of the size of the previous point): %s",
-			len(dropped), plural(len(dropped), "point", "points"), tol, pointList(dropped)))
+		c.rep.Changes = append(c.rep.Changes, fmt.Sprintf("dropped %d duplicate %s (within %g of the size of the previous point): %s",
+			len(dropped), plural(len(dropped), "point", "points"), c.tol, pointList(dropped)))
 	}
 	if len(ring) < MinSectionPoints-1 {
-		return fail(-1, fmt.Errorf("only %d distinct points: %w", len(ring), ErrTooFewPoints))
+		return nil, nil, false, c.fail(-1, fmt.Errorf("only %d distinct points: %w", len(ring), ErrTooFewPoints))
 	}
 	if !closed {
 		if g := ring[len(ring)-1].Dist(ring[0]); g > maxClosingGap {
-			return fail(-1, fmt.Errorf("the first and last points are %.0f%% of the section's size apart, so the line does not close around a section (a single surface, or two surfaces not joined?): %w", 100*g, ErrOpenContour))
+			return nil, nil, false, c.fail(-1, fmt.Errorf("the first and last points are %.0f%% of the section's size apart, so the line does not close around a section (a single surface, or two surfaces not joined?): %w", 100*g, ErrOpenContour))
 		}
 	}
 	if a := PolygonArea(ring); math.Abs(a) < flatAreaFrac {
-		return fail(-1, fmt.Errorf("the points lie on a line: %w", ErrFlatContour))
+		return nil, nil, false, c.fail(-1, fmt.Errorf("the points lie on a line: %w", ErrFlatContour))
 	}
+	return ring, orig, closed, nil
+}
 
-	// 2. Trailing edge, and the contour started there.
+// startAtTrailingEdge is step 2: it finds the trailing edge (findTE) and
+// returns the contour started there, with each point's input index.
+func (c *cleaner) startAtTrailingEdge(ring []Point, orig []int, closed bool) (cont []Point, idx []int) {
+	rep, pts := c.rep, c.pts
 	te := findTE(ring, closed)
 	n := len(ring)
-	var cont []Point
-	var idx []int
 	if te.edge {
 		for k := range n - te.base {
 			j := (te.other(n) + k) % n
@@ -376,7 +447,7 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 		for m := 1; m <= te.base; m++ {
 			onBase = append(onBase, orig[(te.i+m)%n])
 		}
-		mid := toOrigPoint(ring[te.i].Add(ring[j]).Scale(0.5), ctr, half)
+		mid := c.toOrig(ring[te.i].Add(ring[j]).Scale(0.5))
 		rep.Detected = append(rep.Detected, fmt.Sprintf("trailing edge: a blunt base drawn from point %d to point %d with %d %s on it (corners turning by %.0f° together)", orig[te.i]+1, orig[j]+1, te.base, plural(te.base, "point", "points"), te.score))
 		rep.Changes = append(rep.Changes, fmt.Sprintf("dropped %s, drawn along the trailing-edge base, and took the base's midpoint (%s) as the trailing edge; the base is left open as a blunt trailing edge", pointList(onBase), fmtPoint(mid)))
 	case te.edge:
@@ -410,28 +481,47 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 		rep.Warnings = append(rep.Warnings, CleanWarning{Kind: WarnNoTE, Index: -1, X: 1, Message: fmt.Sprintf(
 			"no corner marks a trailing edge (the sharpest turns by %.0f°: a circle, an ellipse or a rounded end?); the trailing edge was put at point %d, where the contour turns most, and the results depend on that choice", te.score, k)})
 	}
+	return cont, idx
+}
 
-	// 3. Orientation.
+// orient is step 3: it reverses cont and idx in place if the contour runs
+// clockwise.
+func (c *cleaner) orient(cont []Point, idx []int) {
 	if PolygonArea(cont) < 0 {
 		for i, j := 0, len(cont)-1; i < j; i, j = i+1, j-1 {
 			cont[i], cont[j] = cont[j], cont[i]
 			idx[i], idx[j] = idx[j], idx[i]
 		}
-		rep.Changes = append(rep.Changes, "reversed the point order: the contour ran clockwise (lower surface first); the package runs counter-clockwise, upper surface first")
+		c.rep.Changes = append(c.rep.Changes, "reversed the point order: the contour ran clockwise (lower surface first); the package runs counter-clockwise, upper surface first")
 	}
+}
 
-	// 4. Leading edge on the spline. A listed point within LESnapTol of
-	// it is taken as the leading edge itself (so cleaning a clean section
-	// changes nothing); otherwise the spline's point is inserted.
+// leadingEdge is what step 4 found: the contour (with the leading edge
+// inserted if it was), the leading edge and its index in cont, the
+// trailing-edge midpoint, and the change to report after step 5's.
+type leadingEdge struct {
+	cont     []Point
+	le       Point
+	leIdx    int
+	teMid    Point
+	leChange string
+}
+
+// findLeadingEdge is step 4: the leading edge on the spline. A listed
+// point within LESnapTol of it is taken as the leading edge itself (so
+// cleaning a clean section changes nothing); otherwise the spline's point
+// is inserted. A file that gives its own chord keeps it.
+func (c *cleaner) findLeadingEdge(cont []Point, idx []int) (leadingEdge, error) {
+	rep := c.rep
 	spl, err := NewContourSpline(cont)
 	if err != nil {
-		return fail(-1, err)
+		return leadingEdge{}, c.fail(-1, err)
 	}
 	tLE, le := spl.LeadingEdge()
 	teMid := cont[0].Add(cont[len(cont)-1]).Scale(0.5)
 	chordQ := teMid.Dist(le)
 	if !(chordQ > 1e-6) {
-		return fail(-1, fmt.Errorf("the leading edge coincides with the trailing edge: %w", ErrFlatContour))
+		return leadingEdge{}, c.fail(-1, fmt.Errorf("the leading edge coincides with the trailing edge: %w", ErrFlatContour))
 	}
 	near, nd := 0, math.Inf(1)
 	for i, p := range cont {
@@ -443,11 +533,10 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	var leChange string
 	// A file that gives its own chord (a listed point at the origin, the
 	// trailing-edge midpoint on +x) keeps it, if that point is the nose.
-	toOrig := func(p Point) Point { return Point{p.X*2*half + ctr.X, p.Y*2*half + ctr.Y} }
 	origin, od := -1, math.Inf(1)
-	teOrig := toOrig(teMid)
+	teOrig := c.toOrig(teMid)
 	for i, p := range cont {
-		if d := toOrig(p).Norm(); d < od {
+		if d := c.toOrig(p).Norm(); d < od {
 			origin, od = i, d
 		}
 	}
@@ -476,21 +565,26 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 		leIdx = j + 1
 		leChange = fmt.Sprintf("inserted the leading edge found on the spline as a new point %d (the nearest listed point was %.2g of the chord away)", leIdx+1, nd)
 	}
+	return leadingEdge{cont: cont, le: le, leIdx: leIdx, teMid: teMid, leChange: leChange}, nil
+}
 
-	// 5. Translate, scale and derotate. The steps below work in the
-	// derotated frame (chord along +x); without Derotate the result is
-	// turned back at the end.
-	chordQ = teMid.Dist(le)
-	theta := math.Atan2(teMid.Y-le.Y, teMid.X-le.X)
+// normalise is step 5: translate, scale and derotate. It returns the
+// contour in the derotated frame (chord along +x; the steps after it work
+// there) and the chord's angle theta, by which the result is turned back
+// at the end without Derotate.
+func (c *cleaner) normalise(ed leadingEdge) (out []Point, theta float64) {
+	rep, le, teMid := c.rep, ed.le, ed.teMid
+	chordQ := teMid.Dist(le)
+	theta = math.Atan2(teMid.Y-le.Y, teMid.X-le.X)
 	sin, cos := math.Sincos(-theta)
-	out := make([]Point, len(cont))
-	for i, p := range cont {
+	out = make([]Point, len(ed.cont))
+	for i, p := range ed.cont {
 		d := p.Sub(le).Scale(1 / chordQ)
 		out[i] = Point{cos*d.X - sin*d.Y, sin*d.X + cos*d.Y}
 	}
-	out[leIdx] = Point{}
-	leOrig := Point{le.X*2*half + ctr.X, le.Y*2*half + ctr.Y}
-	chord := chordQ * 2 * half
+	out[ed.leIdx] = Point{}
+	leOrig := c.toOrig(le)
+	chord := chordQ * 2 * c.half
 	if leOrig.Norm() > reportTol*chord {
 		shown := leOrig
 		// Rounding noise (below 1e-12 of the chord) is shown as zero.
@@ -507,57 +601,53 @@ func Clean(name string, pts []Point, opt CleanOptions) (*Section, *CleanReport, 
 	}
 	deg := theta * 180 / math.Pi
 	if math.Abs(theta) > reportTol {
-		if opt.Derotate {
+		if c.opt.Derotate {
 			rep.Changes = append(rep.Changes, fmt.Sprintf("rotated by %s so that the chord lies along x (it was inclined at %s)", fmtDeg(-deg), fmtDeg(deg)))
 		} else {
 			rep.Warnings = append(rep.Warnings, CleanWarning{Kind: WarnInclined, Index: -1, Message: fmt.Sprintf("the chord is inclined at %s and was left so (derotation off)", fmtDeg(deg))})
 		}
 	}
-	if leChange != "" {
-		rep.Changes = append(rep.Changes, leChange)
+	if ed.leChange != "" {
+		rep.Changes = append(rep.Changes, ed.leChange)
 	}
+	return out, theta
+}
 
-	// 6. Trailing-edge gap.
+// closeTrailingEdge is step 6: it records the trailing-edge gap of out
+// (unit chord, derotated) and, with CloseTE and a gap up to
+// MaxCloseTEGap, closes it in place, blending the surfaces over the last
+// TECloseBlend of the chord. It reports whether it closed the gap.
+func (c *cleaner) closeTrailingEdge(out []Point, leIdx int) bool {
+	rep := c.rep
 	last := len(out) - 1
 	rep.TEGap = out[0].Dist(out[last])
-	closeTE := opt.CloseTE && rep.TEGap > 0 && rep.TEGap <= MaxCloseTEGap
-	if opt.CloseTE && rep.TEGap > MaxCloseTEGap {
+	closeTE := c.opt.CloseTE && rep.TEGap > 0 && rep.TEGap <= MaxCloseTEGap
+	if c.opt.CloseTE && rep.TEGap > MaxCloseTEGap {
 		rep.Warnings = append(rep.Warnings, CleanWarning{Kind: WarnBluntTE, Index: -1, X: 1, Message: fmt.Sprintf("the trailing-edge gap of %.3g%% of the chord was left open: closing more than %g%% would reshape the section", 100*rep.TEGap, 100*MaxCloseTEGap)})
 	}
-	if closeTE {
-		mid := out[0].Add(out[last]).Scale(0.5)
-		blend := func(from, to, step int, p0 Point) {
-			x0 := p0.X - TECloseBlend
-			d := mid.Sub(p0)
-			for i := from; i != to; i += step {
-				s := (out[i].X - x0) / (p0.X - x0)
-				if s <= 0 {
-					continue
-				}
-				s = math.Min(s, 1)
-				out[i] = out[i].Add(d.Scale(s * s * (3 - 2*s)))
+	if !closeTE {
+		return false
+	}
+	mid := out[0].Add(out[last]).Scale(0.5)
+	blend := func(from, to, step int, p0 Point) {
+		x0 := p0.X - TECloseBlend
+		d := mid.Sub(p0)
+		for i := from; i != to; i += step {
+			s := (out[i].X - x0) / (p0.X - x0)
+			if s <= 0 {
+				continue
 			}
-		}
-		if leIdx > 0 && leIdx < last {
-			blend(1, leIdx, 1, out[0])
-			blend(last-1, leIdx, -1, out[last])
-		}
-		out[0], out[last] = mid, mid
-		rep.Changes = append(rep.Changes, fmt.Sprintf("closed the trailing-edge gap of %.4g%% of the chord: both trailing-edge points moved to their midpoint, the surfaces blended into it over the last %g%% of the chord", 100*rep.TEGap, 100*TECloseBlend))
-	}
-
-	rep.Warnings = append(rep.Warnings, sectionWarnings(out, leIdx, rep.TEGap, closeTE)...)
-	if !opt.Derotate {
-		for i, p := range out {
-			out[i] = p.Rotate(Point{}, theta)
+			s = math.Min(s, 1)
+			out[i] = out[i].Add(d.Scale(s * s * (3 - 2*s)))
 		}
 	}
-	sec, err := NewSection(name, out)
-	if err != nil {
-		return fail(-1, err)
+	if leIdx > 0 && leIdx < last {
+		blend(1, leIdx, 1, out[0])
+		blend(last-1, leIdx, -1, out[last])
 	}
-	rep.OutputPoints = sec.Len()
-	return sec, rep, nil
+	out[0], out[last] = mid, mid
+	rep.Changes = append(rep.Changes, fmt.Sprintf("closed the trailing-edge gap of %.4g%% of the chord: both trailing-edge points moved to their midpoint, the surfaces blended into it over the last %g%% of the chord", 100*rep.TEGap, 100*TECloseBlend))
+	return true
 }
 
 // teChoice is the trailing edge in a ring: vertex i (sharp), or the gap
