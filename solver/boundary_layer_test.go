@@ -79,10 +79,16 @@ func TestBLFlatPlateLaminar(t *testing.T) {
 // TestBLFlatPlateTurbulent trips the layer at the leading edge and compares
 // with the 1/7-power-law plate: Cf = 0.0592 Re_x^(−0.2), one-side
 // C_D = 0.074 Re_L^(−0.2) (Schlichting, Boundary-Layer Theory, ch. 21).
-// Head's method with Ludwieg–Tillmann friction differs from the power law
-// by several percent; 15 % is allowed.
+// The power law is itself a fit: Schlichting's other plate laws
+// (Prandtl–Schlichting 0.455 (log₁₀ Re)^(−2.58), evaluated in the test)
+// differ from it by 2 % at Re 10⁷, and the measured plate drag scatters
+// about them by a few percent (from memory): 8 % is allowed. It was 15 %,
+// which let a tenth off in Ludwieg–Tillmann's constant or Head's
+// entrainment law through either way; now a tenth less friction fails
+// (the estimate lies 3–6 % below the laws), a tenth more would still pass
+// here alone.
 func TestBLFlatPlateTurbulent(t *testing.T) {
-	const re = 1e7
+	const re, turbulentPlateTol = 1e7, 0.08
 	s, ue, xc := blStations(0, 1, 1001, uniform)
 	bl, err := SolveSurface(s, ue, xc, BLOptions{Re: re, TripXC: 1e-4})
 	if err != nil {
@@ -96,7 +102,7 @@ func TestBLFlatPlateTurbulent(t *testing.T) {
 	}
 	for _, x := range []float64{0.2, 0.5, 1} {
 		want := 0.0592 * math.Pow(re*x, -0.2)
-		if got := blAt(bl, bl.Cf, x); relErr(got, want) > 0.15 {
+		if got := blAt(bl, bl.Cf, x); relErr(got, want) > turbulentPlateTol {
 			t.Errorf("x = %g: Cf = %.5g, power law %.5g", x, got, want)
 		}
 		if h := blAt(bl, bl.H, x); !(h > 1.2 && h < 1.5) { // common practice: H ≈ 1.3 on a turbulent plate
@@ -104,8 +110,11 @@ func TestBLFlatPlateTurbulent(t *testing.T) {
 		}
 	}
 	want := 0.074 * math.Pow(re, -0.2)
-	if relErr(bl.Cd, want) > 0.15 {
+	if relErr(bl.Cd, want) > turbulentPlateTol {
 		t.Errorf("Cd = %.5g, power law %.5g", bl.Cd, want)
+	}
+	if ps := 0.455 * math.Pow(math.Log10(re), -2.58); relErr(bl.Cd, ps) > turbulentPlateTol {
+		t.Errorf("Cd = %.5g, Prandtl–Schlichting %.5g", bl.Cd, ps)
 	}
 	t.Logf("turbulent plate Re=%g: Cf(0.5) = %.5f (power law %.5f), H(1) = %.3f, Cd = %.5f (power law %.5f)",
 		re, blAt(bl, bl.Cf, 0.5), 0.0592*math.Pow(re*0.5, -0.2), bl.HTE, bl.Cd, want)

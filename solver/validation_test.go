@@ -480,11 +480,7 @@ func vanDeVoorenNodes(n int, eps, k float64) []model.Point {
 	}
 	// Make it counter-clockwise (upper surface first) if the map ran the
 	// other way.
-	area := 0.0
-	for i := range n {
-		area += pts[i].Cross(pts[i+1])
-	}
-	if area < 0 {
+	if model.PolygonArea(pts[:n]) < 0 {
 		for i, j := 0, n; i < j; i, j = i+1, j-1 {
 			pts[i], pts[j] = pts[j], pts[i]
 		}

@@ -135,36 +135,6 @@ func viscousAt(t *testing.T, sys *System, alpha, re, trip float64) *ViscousResul
 	return res
 }
 
-// TestViscousNACA0012Drag compares the estimate with measured section drag
-// of NACA 0012 at Re = 6e6:
-//   - smooth, free transition, α = 0: c_d ≈ 0.0055–0.0065 (Abbott & von
-//     Doenhoff, Theory of Wing Sections, 1959, App. IV; from memory,
-//     docs/validation.md §3); ±25 % around that band;
-//   - transition fixed with grit, α = 4.04°: c_d = 0.00823 (Ladson, NASA
-//     TM 4074, 1988); the trip is placed at 5 % chord on both surfaces
-//     (grit position from memory); ±25 %.
-func TestViscousNACA0012Drag(t *testing.T) {
-	sys := nacaSystem(t, "0012")
-	free := viscousAt(t, sys, 0, 6e6, 0)
-	if cd := free.Cd; !(cd >= 0.75*0.0055 && cd <= 1.25*0.0065) {
-		t.Errorf("free transition, α = 0: Cd = %.5f, want 0.0055–0.0065 ± 25 %%", cd)
-	}
-	// Symmetry: both surfaces alike at α = 0 (property of the section).
-	e := free.Elements[0]
-	if relErr(e.Upper.Cd, e.Lower.Cd) > 0.01 || math.Abs(e.Upper.TransitionXC-e.Lower.TransitionXC) > 0.01 {
-		t.Errorf("α = 0: upper Cd %g / transition %g, lower %g / %g", e.Upper.Cd, e.Upper.TransitionXC, e.Lower.Cd, e.Lower.TransitionXC)
-	}
-	fixed := viscousAt(t, sys, 4.04, 6e6, 0.05)
-	if cd := fixed.Cd; relErr(cd, 0.00823) > 0.25 {
-		t.Errorf("fixed transition, α = 4.04°: Cd = %.5f, Ladson 0.00823 ± 25 %%", cd)
-	}
-	if c := fixed.Elements[0].Upper.TransitionCause; c != TransitionTrip {
-		t.Errorf("fixed transition: upper cause %q", c)
-	}
-	t.Logf("NACA 0012, Re 6e6: free α=0 Cd = %.5f (transition x/c %.3f); trip 0.05, α=4.04 Cd = %.5f (Ladson 0.00823)",
-		free.Cd, e.Upper.TransitionXC, fixed.Cd)
-}
-
 // TestViscousTransitionMovesForward: as α rises the suction peak sharpens
 // and upper-surface transition moves towards the leading edge (Abbott & von
 // Doenhoff 1959, ch. 7: the low-drag range ends when it does).
