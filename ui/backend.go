@@ -7,6 +7,7 @@ package ui
 import (
 	"context"
 	"errors"
+	"image"
 	"image/color"
 	"io"
 	"math"
@@ -153,15 +154,20 @@ var figureViews = [...]figures.View{figures.ViewPanels, figures.ViewPressure, fi
 // figureOf returns the figure a view cell draws by default.
 func figureOf(v viewKind) figKind { return figKind(v) }
 
-// safeRenderFigure renders a figure, turning a panic into an error.
-func safeRenderFigure(f figKind, sc *scene, w, h int, dpi float64) (fig *figure, err error) {
+// safeRenderFigure renders a figure into dst, which it returns as the
+// figure's image (figure.RenderInto), turning a panic into an error.
+func safeRenderFigure(dst *image.RGBA, f figKind, sc *scene, dpi float64) (fig *figure, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			fig, err = nil, session.InternalError("drawing "+figureViews[f].String(), r)
 		}
 	}()
-	return figures.Render(figureViews[f], sc, w, h, dpi)
+	return figures.RenderInto(dst, figureViews[f], sc, dpi)
 }
+
+// drawFrameKey lays the panels view's sign-convention key for sc over a
+// panels figure drawn without it (figure.DrawFrameKey).
+func drawFrameKey(f *figure, sc *scene) { figures.DrawFrameKey(f, sc) }
 
 // Geometry errors, matched with errors.Is.
 var (

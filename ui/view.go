@@ -69,6 +69,8 @@ type plotCanvas struct {
 	fig     *figure
 	loop    renderLoop
 	err     error
+	base    *panelsBase // the panels figure without its key (view_draw.go)
+	spare   *image.RGBA // an image no longer shown, for the next figure
 }
 
 func newPlotCanvas(kind viewKind, act *session.Activity, do func(func())) *plotCanvas {
@@ -185,7 +187,7 @@ func (p *plotCanvas) renderNow(sc *scene) frame {
 			c.Element = -1 // an element removed since the choice
 		}
 	}
-	fig, err := safeRenderFigure(fk, &c, w, h, dpi)
+	fig, err := p.draw(fk, &c, w, h, dpi)
 	return frame{p: p, ticket: t, fig: fig, err: err}
 }
 
@@ -196,19 +198,29 @@ func (f frame) show() {
 	p.mu.Lock()
 	if f.ticket <= p.shown || (f.fig == nil && f.err == nil) { // stale, or nothing was rendered
 		p.mu.Unlock()
+		if f.fig != nil {
+			p.recycle(f.fig.Image)
+		}
 		return
 	}
 	p.shown = f.ticket
 	p.err = f.err
+	old := p.fig
 	p.fig = f.fig
 	p.mu.Unlock()
 	if f.fig != nil {
+		// The figure's own image, not a copy.
 		p.image.Image = f.fig.Image
 	} else {
 		// Never leave an old figure up that no longer matches the study.
 		p.image.Image = image.NewRGBA(image.Rect(0, 0, 1, 1))
 	}
 	p.image.Refresh()
+	if old != nil {
+		// Off screen from the next paint on (which runs on this
+		// goroutine): the next figure is drawn into it.
+		p.recycle(old.Image)
+	}
 	if p.onNote != nil {
 		p.mu.Lock()
 		visSweep := p.sc != nil && len(p.sc.SweepViscous) > 0

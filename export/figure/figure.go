@@ -8,6 +8,7 @@ import (
 	"math"
 	"strings"
 
+	"git.sr.ht/~sbinet/gg"
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
@@ -116,6 +117,12 @@ type Scene struct {
 
 	Window Window // zoom and pan of the panels and streamlines views
 	Dark   bool   // colours for a dark theme
+
+	// OmitFrameKey leaves the panels view's sign-convention key out; the
+	// caller lays it over the figure with DrawFrameKey, so that a change
+	// of angle alone (which moves nothing else in free air) redraws the
+	// key and not the bodies.
+	OmitFrameKey bool
 }
 
 // ErrNoData is wrapped by the errors of PlotView when the scene lacks what a
@@ -242,7 +249,8 @@ type Figure struct {
 
 	// Exact data-area edges in pixels (Plot is these rounded).
 	x0, x1, y0, y1 float64
-	composite      bool // several panels: DataAt reports nothing
+	dpi            float64 // the resolution drawn at
+	composite      bool    // several panels: DataAt reports nothing
 }
 
 // Render draws view v of sc into a widthPx × heightPx image at dpi dots per
@@ -252,19 +260,40 @@ func Render(v View, sc *Scene, widthPx, heightPx int, dpi float64) (*Figure, err
 	if widthPx <= 0 || heightPx <= 0 || !(dpi > 0) {
 		panic(fmt.Sprintf("figure: bad render size %d×%d at %g dpi", widthPx, heightPx, dpi))
 	}
+	return RenderInto(image.NewRGBA(image.Rect(0, 0, widthPx, heightPx)), v, sc, dpi)
+}
+
+// RenderInto draws view v of sc over the whole of dst, replacing what it
+// held, at dpi dots per inch. The Figure's Image is dst itself, not a
+// copy, so that a caller can draw into a buffer it reuses. It panics if
+// dst is empty or does not start at (0, 0), or the dpi is not positive.
+func RenderInto(dst *image.RGBA, v View, sc *Scene, dpi float64) (*Figure, error) {
+	if b := dst.Bounds(); b.Min != (image.Point{}) || b.Empty() || !(dpi > 0) {
+		panic(fmt.Sprintf("figure: bad render target %v at %g dpi", b, dpi))
+	}
 	p, info, err := buildView(v, sc)
 	if err != nil {
 		return nil, err
 	}
-	return renderPlot(p, info.equal, info.composite, widthPx, heightPx, dpi), nil
+	return renderPlot(p, info.equal, info.composite, dst, dpi), nil
 }
 
-// renderPlot draws p into a widthPx × heightPx image at dpi and records the
-// pixel rectangle of its data area; equal fits the axes to equal scales
-// first, composite marks a figure of several panels.
-func renderPlot(p *plot.Plot, equal, composite bool, widthPx, heightPx int, dpi float64) *Figure {
-	img := image.NewRGBA(image.Rect(0, 0, widthPx, heightPx))
-	cv := vgimg.NewWith(vgimg.UseImage(img), vgimg.UseDPI(int(math.Round(dpi))))
+// imageCanvas returns a vg canvas drawing straight into img at dpi, which
+// it first fills white. vgimg.UseImage would draw into a copy of img.
+func imageCanvas(img *image.RGBA, dpi float64) *vgimg.Canvas {
+	ctx := gg.NewContextForRGBA(img)
+	// What vgimg.NewWith does to a context it makes itself: butt caps, and
+	// y up as vg expects.
+	ctx.SetLineCapButt()
+	ctx.InvertY()
+	return vgimg.NewWith(vgimg.UseImageWithContext(img, ctx), vgimg.UseDPI(int(math.Round(dpi))))
+}
+
+// renderPlot draws p into img at dpi and records the pixel rectangle of
+// its data area; equal fits the axes to equal scales first, composite
+// marks a figure of several panels.
+func renderPlot(p *plot.Plot, equal, composite bool, img *image.RGBA, dpi float64) *Figure {
+	cv := imageCanvas(img, dpi)
 	dc := draw.New(cv)
 	fitLabels(p, dc)
 	if equal {
@@ -274,14 +303,16 @@ func renderPlot(p *plot.Plot, equal, composite bool, widthPx, heightPx int, dpi 
 	da := p.DataCanvas(dc)
 	// vg lengths are points (1/72 in) from the bottom-left corner.
 	s := float64(cv.DPI()) / 72
+	heightPx := img.Bounds().Dy()
 	f := &Figure{
-		Image:     cv.Image().(*image.RGBA),
+		Image:     img,
 		X:         [2]float64{p.X.Min, p.X.Max},
 		Y:         [2]float64{p.Y.Min, p.Y.Max},
 		x0:        float64(da.Min.X) * s,
 		x1:        float64(da.Max.X) * s,
 		y0:        float64(heightPx) - float64(da.Max.Y)*s,
 		y1:        float64(heightPx) - float64(da.Min.Y)*s,
+		dpi:       cv.DPI(),
 		composite: composite,
 	}
 	_, f.YDown = p.Y.Scale.(plot.InvertedScale)

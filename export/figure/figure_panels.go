@@ -157,6 +157,9 @@ func panelsPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		e.add(e.x0, sc.GroundY*mmPerM)
 	}
 	frame(p, sc.Window, e, 0.04)
-	p.Add(k, newFrameKey(sc, th))
+	p.Add(k)
+	if !sc.OmitFrameKey {
+		p.Add(newFrameKey(sc, th))
+	}
 	return p, nil
 }
