@@ -1,0 +1,177 @@
+package engine
+
+import (
+	"context"
+	"errors"
+	"math"
+	"testing"
+
+	"sectionbench/model"
+)
+
+func mustBounds(t testing.TB, spec string) model.SetupRange {
+	t.Helper()
+	r, err := model.ParseSetupBounds(spec)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
+}
+
+// analyticEval is an evaluation that gives a point whose lift is −f(x):
+// the search's downforce objective on an upright wing then minimises f.
+// It stands in for the solver so that the search's wiring (scaling,
+// penalties, the simplex, the path) is checked against a known optimum.
+func analyticEval(f func(x []float64) float64) evalFunc {
+	return func(_ context.Context, x []float64) (Point, error) {
+		nan := math.NaN()
+		return Point{Values: append([]float64(nil), x...), Viscous: true, Converged: true, Cl: -f(x), Cd: 0.01, Cm: nan,
+			LiftPerSpan: nan, DownforcePerSpan: nan, DragPerSpan: nan, ClearanceMM: nan,
+			Elements: []PointElement{{SeparationSuction: nan, GapMM: nan}}}, nil
+	}
+}
+
+// rosenbrock is f(x, y) = (1 − x)² + 100 (y − x²)², least (0) at (1, 1)
+// in a curved valley (Rosenbrock, An automatic method for finding the
+// greatest or least value of a function, The Computer Journal 3(3),
+// 1960).
+func rosenbrock(x []float64) float64 {
+	return (1-x[0])*(1-x[0]) + 100*(x[1]-x[0]*x[0])*(x[1]-x[0]*x[0])
+}
+
+// The search finds the known optimum of smooth functions through the path
+// a real search takes (search with an injected evaluation): Rosenbrock's
+// valley from the textbook start (−1.2, 1), a shifted quadratic in three
+// variables, and a quadratic whose optimum lies outside the bounds (the
+// best point then lies on the bound, which the penalty keeps).
+func TestSearchAnalytic(t *testing.T) {
+	for _, tc := range []struct {
+		name   string
+		f      func([]float64) float64
+		bounds []string
+		start  []float64
+		want   []float64
+		tol    float64 // on each variable: far below the bounds' width, above the tolerance the values converge to
+	}{
+		{"Rosenbrock", rosenbrock, []string{"alpha_deg=-2:2", "clearance_mm=-1:3"}, []float64{-1.2, 1}, []float64{1, 1}, 1e-3},
+		{"shifted quadratic", func(x []float64) float64 {
+			return (x[0]-3)*(x[0]-3) + 2*(x[1]+1)*(x[1]+1) + 0.5*(x[2]-10)*(x[2]-10)
+		}, []string{"alpha_deg=-5:5", "elements[1].gap_mm=-4:4", "elements[1].deflection_deg=0:30"}, []float64{0, 0, 20}, []float64{3, -1, 10}, 1e-3},
+		{"optimum beyond the upper bound", func(x []float64) float64 {
+			return (x[0] - 20) * (x[0] - 20)
+		}, []string{"alpha_deg=0:10"}, []float64{2}, []float64{10}, 1e-3},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			var bounds []model.SetupRange
+			for _, b := range tc.bounds {
+				bounds = append(bounds, mustBounds(t, b))
+			}
+			eval := analyticEval(tc.f)
+			calls := 0
+			res, err := search(context.Background(), eval, eval, bounds, tc.start, SearchOptions{Objective: ObjectiveDownforce, MaxEvaluations: 5000, Tolerance: 1e-12}, func(Point) { calls++ })
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !res.Feasible || res.Evaluations != len(res.Path) || calls != res.Evaluations {
+				t.Fatalf("feasible %v, %d evaluations, path %d, each called %d times", res.Feasible, res.Evaluations, len(res.Path), calls)
+			}
+			for i, w := range tc.want {
+				if math.Abs(res.Best.Values[i]-w) > tc.tol {
+					t.Errorf("best %v, want %v ± %g (%d evaluations, %s)", res.Best.Values, tc.want, tc.tol, res.Evaluations, res.Status)
+					break
+				}
+			}
+			for i, s := range tc.start {
+				if res.Start.Values[i] != s {
+					t.Errorf("start %v, want %v", res.Start.Values, tc.start)
+				}
+			}
+			for _, p := range res.Path {
+				for i, b := range bounds {
+					if p.Values[i] < b.From || p.Values[i] > b.To {
+						t.Fatalf("solved outside the bounds at %v", p.Values)
+					}
+				}
+			}
+			t.Logf("%s: best %v in %d evaluations (%s)", tc.name, res.Best.Values, res.Evaluations, res.Status)
+		})
+	}
+}
+
+// A constraint the optimum of the objective breaks moves the best point
+// to the constraint's edge: the quadratic's optimum at x = 3 separates the
+// suction side at x/c 0.5 when x > 2, so with attachment asked to x/c 0.8
+// the best lies at x = 2.
+func TestSearchConstraint(t *testing.T) {
+	base := analyticEval(func(x []float64) float64 { return (x[0] - 3) * (x[0] - 3) })
+	eval := func(ctx context.Context, x []float64) (Point, error) {
+		p, _ := base(ctx, x)
+		if x[0] > 2 {
+			p.Elements[0].SeparationSuction = 0.5
+		}
+		return p, nil
+	}
+	res, err := search(context.Background(), eval, eval, []model.SetupRange{mustBounds(t, "alpha_deg=0:5")}, []float64{0.5},
+		SearchOptions{Objective: ObjectiveDownforce, AttachedToXC: 0.8, MaxEvaluations: 500, Tolerance: 1e-10}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !res.Feasible || math.Abs(res.Best.Values[0]-2) > 1e-3 || !res.Best.AttachedTo(0.8) {
+		t.Errorf("best %v (feasible %v), want 2 ± 1e-3 and attached", res.Best.Values, res.Feasible)
+	}
+}
+
+// A search that finds no point meeting the constraints says so and
+// returns the start as its best; a cancelled search returns the context's
+// error.
+func TestSearchInfeasibleAndCancel(t *testing.T) {
+	eval := func(_ context.Context, x []float64) (Point, error) {
+		nan := math.NaN()
+		return Point{Values: append([]float64(nil), x...), Cl: nan, Cd: nan, LiftPerSpan: nan, DownforcePerSpan: nan, DragPerSpan: nan}, nil
+	}
+	b := []model.SetupRange{mustBounds(t, "alpha_deg=0:5")}
+	res, err := search(context.Background(), eval, eval, b, []float64{1}, SearchOptions{Objective: ObjectiveDownforce, MaxEvaluations: 20}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Feasible || res.Best.Values[0] != 1 || res.Evaluations > 20 {
+		t.Errorf("feasible %v best %v after %d evaluations (%s)", res.Feasible, res.Best.Values, res.Evaluations, res.Status)
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	n := 0
+	cancelling := func(ctx context.Context, x []float64) (Point, error) {
+		if n++; n == 5 {
+			cancel()
+		}
+		if ctx.Err() != nil {
+			return Point{}, ctx.Err()
+		}
+		return analyticEval(rosenbrock)(ctx, x)
+	}
+	if _, err := search(ctx, cancelling, cancelling, []model.SetupRange{mustBounds(t, "alpha_deg=-2:2"), mustBounds(t, "clearance_mm=-1:3")}, []float64{0, 0}, SearchOptions{Objective: ObjectiveDownforce}, nil); !errors.Is(err, context.Canceled) {
+		t.Errorf("cancelled search: err %v", err)
+	}
+}
+
+// Options the study cannot meet are refused naming the option.
+func TestSearchOptionErrors(t *testing.T) {
+	st, secs := exampleStudy(t, "two-element-ground.json")
+	b := []model.SetupRange{mustBounds(t, "alpha_deg=0:5")}
+	for _, tc := range []struct {
+		name, option string
+		opt          SearchOptions
+	}{
+		{"unknown objective", "objective", SearchOptions{Objective: "lift"}},
+		{"drag without target", "downforce target", SearchOptions{Objective: ObjectiveDrag}},
+		{"drag inviscid", "objective", SearchOptions{Objective: ObjectiveDrag, DownforceTarget: 100, PointOptions: PointOptions{Inviscid: true}}},
+		{"separation inviscid", "attached to x/c", SearchOptions{Objective: ObjectiveDownforce, AttachedToXC: 0.9, PointOptions: PointOptions{Inviscid: true}}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			_, err := Search(context.Background(), st, secs, b, tc.opt, nil)
+			var oe *OptionError
+			if !errors.As(err, &oe) || oe.Option != tc.option {
+				t.Errorf("err = %v, want an OptionError naming %q", err, tc.option)
+			}
+		})
+	}
+}
