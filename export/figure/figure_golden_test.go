@@ -47,19 +47,34 @@ const (
 	goldenFraction = 0.0005 // 0.05 %: about 110 pixels of 560 × 400
 )
 
-// goldenViews are the views pinned by golden images.
-var goldenViews = []View{ViewPanels, ViewPressure, ViewPolar, ViewStreamlines, ViewBoundaryLayer}
+// goldenViews are the views pinned by golden images: every view of the
+// synthetic scene, then the pressure and polar views with a coupled
+// viscous solution and the drag polar with a coupled sweep (each file
+// named after the view, "-coupled" for the second set).
+var goldenViews = []View{ViewPanels, ViewPressure, ViewPolar, ViewStreamlines, ViewBoundaryLayer, ViewDragPolar, ViewLiftToDrag, ViewDensity}
+
+// goldenCoupledViews are drawn from synthCoupledScene.
+var goldenCoupledViews = []View{ViewPressure, ViewPolar, ViewDragPolar}
 
 func TestFiguresGolden(t *testing.T) {
-	sc := synthScene()
-	for _, v := range goldenViews {
-		t.Run(v.String(), func(t *testing.T) {
-			f, err := Render(v, sc, goldenWidth, goldenHeight, goldenDPI)
-			if err != nil {
-				t.Fatal(err)
-			}
-			goldenImage(t, v.String()+".png", f.Image)
-		})
+	for _, set := range []struct {
+		suffix string
+		scene  *Scene
+		views  []View
+	}{
+		{"", synthScene(), goldenViews},
+		{"-coupled", synthCoupledScene(), goldenCoupledViews},
+	} {
+		for _, v := range set.views {
+			name := v.String() + set.suffix
+			t.Run(name, func(t *testing.T) {
+				f, err := Render(v, set.scene, goldenWidth, goldenHeight, goldenDPI)
+				if err != nil {
+					t.Fatal(err)
+				}
+				goldenImage(t, name+".png", f.Image)
+			})
+		}
 	}
 }
 

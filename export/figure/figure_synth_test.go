@@ -77,3 +77,53 @@ func synthDensity() *engine.DensityResult {
 	d.Cl = engine.Extrapolation{Value: 0.9, OK: true}
 	return d
 }
+
+// synthCoupledScene is the synthetic scene with a coupled viscous point
+// at the scene's angle (synthCoupled) and the coupled sweep of
+// coupledDragScene (invented rows, one not converged, the last past
+// maximum lift and below it); the pins are dropped so that the viscous curves stand
+// alone beside the inviscid ones.
+func synthCoupledScene() *Scene {
+	sc := coupledDragScene(false)
+	sc.Coupled = synthCoupled(sc.Solution)
+	// The row past maximum lift lifts less than the one before it.
+	last := len(sc.SweepCoupled) - 1
+	sc.SweepCoupled[last].Cl = 0.9 * sc.SweepCoupled[last-1].Cl
+	// Maximum lift as the engine gives it: the largest Cl of the converged
+	// rows, a peak because the row after it is past it.
+	sc.ClMax = math.Inf(-1)
+	for _, r := range sc.SweepCoupled {
+		if r.Converged && !r.PastClMax && r.Cl > sc.ClMax {
+			sc.ClMax, sc.AlphaClMax = r.Cl, r.AlphaDeg
+		}
+	}
+	sc.ClMaxIsPeak = true
+	return sc
+}
+
+// synthCoupled is a converged coupled point whose stations lie on the
+// panels of sol, running from the leading edge to the trailing edge on
+// each surface, with an invented viscous Cp: the inviscid one times 0.85
+// plus 0.1·x/c (less suction, and pressure recovery falling short at the
+// trailing edge, as a boundary layer's displacement gives), and Cl 0.85
+// times the inviscid.
+func synthCoupled(sol *solver.Solution) *engine.CoupledPoint {
+	d := &solver.CoupledSolution{AlphaDeg: sol.AlphaDeg, Cl: 0.85 * sol.Cl, Cd: 0.012, Cm: sol.Cm, ClInviscid: sol.Cl, Converged: true, Inviscid: sol}
+	pt := &engine.CoupledPoint{AlphaDeg: sol.AlphaDeg, Cl: d.Cl, Cd: d.Cd, Cm: d.Cm, ClInviscid: sol.Cl, CmInviscid: sol.Cm, Converged: true, Iterations: 7, Detail: d}
+	for _, e := range sol.Elements {
+		ce := solver.CoupledElement{Name: e.Name, Chord: e.Chord, Cl: 0.85 * e.Cl, ClInviscid: e.Cl, Cd: 0.012, Cm: e.Cm}
+		for _, p := range e.Panels {
+			st := solver.CoupledStation{XC: p.XC, X: p.X, Y: p.Y, Cp: 0.85*p.Cp + 0.1*p.XC}
+			if p.Side == solver.Upper {
+				ce.Upper.Stations = append([]solver.CoupledStation{st}, ce.Upper.Stations...)
+			} else {
+				ce.Lower.Stations = append(ce.Lower.Stations, st)
+			}
+		}
+		ce.Upper.Transition, ce.Lower.Transition = 0.3, 0.6
+		ce.Upper.Separation, ce.Lower.Separation = math.NaN(), math.NaN()
+		d.Elements = append(d.Elements, ce)
+		pt.Elements = append(pt.Elements, engine.CoupledElementPoint{Name: e.Name, Cl: ce.Cl, Cd: ce.Cd, Cm: ce.Cm})
+	}
+	return pt
+}
