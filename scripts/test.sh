@@ -14,6 +14,12 @@ scripts/setup.sh --quiet
 export PATH="$PATH:/usr/local/go/bin:$HOME/go/bin" GOTOOLCHAIN=auto
 fuzztime=${FUZZTIME:-15s}
 
+# The report's tests read the PDF back with poppler (its golden text among
+# them); without it they would fail one by one, so say it once here.
+for t in pdfinfo pdftotext pdftoppm; do
+  command -v "$t" >/dev/null || { echo "test.sh: $t not found: install poppler-utils (scripts/setup.sh)" >&2; exit 1; }
+done
+
 echo "== unit, validation and headless UI tests"
 go test -count=1 ./...
 

@@ -127,14 +127,20 @@ func TestOutlineGolden(t *testing.T) {
 	golden(t, "outline.dxf", d.Bytes())
 	golden(t, "outline.svg", s.Bytes())
 	if *outlineDir != "" {
-		os.WriteFile(filepath.Join(*outlineDir, "outline.svg"), s.Bytes(), 0o644)
+		if err := os.WriteFile(filepath.Join(*outlineDir, "outline.svg"), s.Bytes(), 0o644); err != nil {
+			t.Fatal(err)
+		}
 		o2, err := geometry.NewOutline("placed demo", exporttest.TwoElementLayout(120), geometry.OutlineOptions{Placed: true, SkinMM: 1, ChordLine: true,
 			Marks: []geometry.Mark{{Element: 0, Label: "spar", XC: 0.3, DiameterMM: 8}}})
 		if err != nil {
 			t.Fatal(err)
 		}
 		var s2 bytes.Buffer
-		WriteSVG(&s2, o2)
-		os.WriteFile(filepath.Join(*outlineDir, "outline-placed.svg"), s2.Bytes(), 0o644)
+		if err := WriteSVG(&s2, o2); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(filepath.Join(*outlineDir, "outline-placed.svg"), s2.Bytes(), 0o644); err != nil {
+			t.Fatal(err)
+		}
 	}
 }

@@ -37,7 +37,7 @@ func golden(t *testing.T, name string, got []byte) {
 	}
 	want, err := os.ReadFile(path)
 	if err != nil {
-		t.Fatalf("%v (run go test ./export -run %s -update to create it)", err, t.Name())
+		t.Fatalf("%v (run go test ./export/format -run %s -update to create it)", err, t.Name())
 	}
 	if !bytes.Equal(got, want) {
 		t.Errorf("%s differs from the golden file:\n got: %.400q\nwant: %.400q", name, got, want)
