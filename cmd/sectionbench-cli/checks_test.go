@@ -34,9 +34,11 @@ func TestLiftDisagreementReachesTheOutput(t *testing.T) {
 // 250 mm chord (which gave Cl −887) is refused naming the field.
 func TestGroundBelowTheMethodIsRefused(t *testing.T) {
 	study := filepath.Join(t.TempDir(), "low.json")
-	os.WriteFile(study, []byte(`{"format": "sectionbench-study", "version": 2, "name": "low",
+	if err := os.WriteFile(study, []byte(`{"format": "sectionbench-study", "version": 2, "name": "low",
 		"elements": [{"name": "main", "section": "naca:4412", "chord_mm": 250}],
-		"ground": {"enabled": true, "clearance_mm": 1}, "inverted": true}`), 0o644)
+		"ground": {"enabled": true, "clearance_mm": 1}, "inverted": true}`), 0o644); err != nil {
+		t.Fatal(err)
+	}
 	code, _, stderr := runCLI(t, "solve", "--study", study)
 	if code != exitInput || !strings.Contains(stderr, "ground.clearance_mm") || !strings.Contains(stderr, "5 mm") {
 		t.Errorf("exit %d, %q; want exit %d naming ground.clearance_mm and the 5 mm limit", code, stderr, exitInput)
@@ -83,9 +85,11 @@ func TestGroundBandFlagged(t *testing.T) {
 		warned bool
 	}{{"10", true}, {"60", false}} {
 		study := filepath.Join(t.TempDir(), "front.json")
-		os.WriteFile(study, []byte(`{"format": "sectionbench-study", "version": 2, "name": "front",
+		if err := os.WriteFile(study, []byte(`{"format": "sectionbench-study", "version": 2, "name": "front",
 			"elements": [{"name": "main", "section": "naca:4412", "chord_mm": 250}],
-			"ground": {"enabled": true, "clearance_mm": `+tc.h+`}, "inverted": true}`), 0o644)
+			"ground": {"enabled": true, "clearance_mm": `+tc.h+`}, "inverted": true}`), 0o644); err != nil {
+			t.Fatal(err)
+		}
 		code, out, stderr := runCLI(t, "solve", "--study", study, "--format", "json")
 		if code != exitOK {
 			t.Fatalf("exit %d: %s", code, stderr)

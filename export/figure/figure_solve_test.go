@@ -132,6 +132,8 @@ func TestWriteRealFigureFiles(t *testing.T) {
 		if err := WriteFigure(&b, v, sc, FormatPNG, 6.25, 4.17, 96); err != nil {
 			t.Fatal(err)
 		}
-		os.WriteFile(filepath.Join(*figureDir, "real-zoom-"+v.String()+".png"), b.Bytes(), 0o644)
+		if err := os.WriteFile(filepath.Join(*figureDir, "real-zoom-"+v.String()+".png"), b.Bytes(), 0o644); err != nil {
+			t.Fatal(err)
+		}
 	}
 }

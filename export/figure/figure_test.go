@@ -297,7 +297,9 @@ func TestWriteFigureFiles(t *testing.T) {
 		if err := WriteFigure(&b, ViewPanels, sc, FormatPNG, 6.25, 4.17, 96); err != nil {
 			t.Fatal(err)
 		}
-		os.WriteFile(filepath.Join(*figureDir, fmt.Sprintf("nose-dark%v.png", dark)), b.Bytes(), 0o644)
+		if err := os.WriteFile(filepath.Join(*figureDir, fmt.Sprintf("nose-dark%v.png", dark)), b.Bytes(), 0o644); err != nil {
+			t.Fatal(err)
+		}
 	}
 }
 
