@@ -35,8 +35,9 @@ func uniform(float64) float64 { return 1 }
 // (Ue = U∞) with its closed form θ = √(0.45 νx/U) = 0.671 √(νx/U) and with
 // Blasius' solution θ = 0.664 √(νx/U), Cf = 0.664/√Re_x, one-side
 // C_D = 1.328/√Re_L (Schlichting, Boundary-Layer Theory, ch. 7; White,
-// Viscous Fluid Flow, sec. 4-3). H = 2.61 is the Cebeci–Bradshaw
-// correlation at λ = 0 (docs/validation.md §4).
+// Viscous Fluid Flow, sec. 4-3). H is compared with Blasius' 2.59 only:
+// the code's own correlation constant (Cebeci–Bradshaw's 2.61 at λ = 0)
+// would be no check.
 func TestBLFlatPlateLaminar(t *testing.T) {
 	const re = 1e5 // far below Michel's transition on a plate (Re_x ≈ 2.5e6)
 	s, ue, xc := blStations(0, 1, 1001, uniform)
@@ -58,7 +59,6 @@ func TestBLFlatPlateLaminar(t *testing.T) {
 			{"θ vs Thwaites closed form 0.671√(νx/U)", th, math.Sqrt(0.45 * x / re), 1e-9},
 			{"θ vs Blasius 0.664√(νx/U)", th, 0.664 * math.Sqrt(x/re), 0.015},
 			{"Cf vs Blasius 0.664/√Re_x", blAt(bl, bl.Cf, x), 0.664 / math.Sqrt(rex), 0.02},
-			{"H vs 2.61", blAt(bl, bl.H, x), 2.61, 1e-12},
 			{"H vs Blasius 2.59", blAt(bl, bl.H, x), 2.59, 0.01},
 		} {
 			if e := relErr(c.got, c.want); e > c.tol {
