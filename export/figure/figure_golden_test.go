@@ -9,6 +9,8 @@ import (
 	"os"
 	"path/filepath"
 	"testing"
+
+	"sectionbench/export/exporttest"
 )
 
 // Golden images: the main views of the synthetic scene (synthScene, invented
@@ -75,6 +77,51 @@ func TestFiguresGolden(t *testing.T) {
 				goldenImage(t, name+".png", f.Image)
 			})
 		}
+	}
+}
+
+// TestFiguresGoldenMore pins what the view tests only smoke-test (a count
+// of colours): the dark theme (the pressure view), the density window's
+// leading-edge Cp (three panel counts of the synthetic solution, flap
+// shown) and its panel-size chart (the synthetic flap at 60 panels).
+func TestFiguresGoldenMore(t *testing.T) {
+	dark := synthScene()
+	dark.Dark = true
+	var curves []DensityCurve
+	for _, n := range []int{40, 80, 160} {
+		curves = append(curves, DensityCurve{Panels: n, Nose: 0.5, Solution: exporttest.Solution(exporttest.TwoElementLayout(n), 4)})
+	}
+	ps, err := PanelSizesOf(exporttest.TwoElementLayout(60))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, tc := range []struct {
+		name   string
+		render func() (*Figure, error)
+	}{
+		{"pressure-dark", func() (*Figure, error) { return Render(ViewPressure, dark, goldenWidth, goldenHeight, goldenDPI) }},
+		{"density-leading-edge", func() (*Figure, error) {
+			p, err := DensityLEPlot(curves, 1, DensityLEChord, false)
+			if err != nil {
+				return nil, err
+			}
+			return RenderPlot(p, false, goldenWidth, goldenHeight, goldenDPI), nil
+		}},
+		{"panel-sizes", func() (*Figure, error) {
+			p, err := PanelSizesPlot(ps[1], DefaultMaxNeighbourRatio, false)
+			if err != nil {
+				return nil, err
+			}
+			return RenderPlot(p, true, goldenWidth, goldenHeight, goldenDPI), nil
+		}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			f, err := tc.render()
+			if err != nil {
+				t.Fatal(err)
+			}
+			goldenImage(t, tc.name+".png", f.Image)
+		})
 	}
 }
 
