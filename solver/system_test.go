@@ -17,14 +17,12 @@ import (
 // last coinciding) on the ellipse (cx + a cos η, b sin η), η = 2πi/n,
 // counter-clockwise from the rear end of the major axis: the node order of
 // the package (rear "trailing edge" → upper → front → lower). The front node
-// is at i = n/2.
+// is at i = n/2. It is modeltest.Ellipse (b ≤ a) scaled to the chord 2a.
 func ellipseNodes(n int, a, b, cx float64) []model.Point {
-	pts := make([]model.Point, n+1)
-	for i := range pts {
-		s, c := math.Sincos(2 * math.Pi * float64(i) / float64(n))
-		pts[i] = model.Point{X: cx + a*c, Y: b * s}
+	pts := modeltest.Ellipse(b/a, n+1).Points()
+	for i, p := range pts {
+		pts[i] = model.Point{X: cx + 2*a*(p.X-0.5), Y: 2 * a * p.Y}
 	}
-	pts[n] = pts[0]
 	return pts
 }
 
