@@ -38,6 +38,8 @@ func commands() []command {
 		{"density", "density study: the answer against panel count, extrapolated", cmdDensity},
 		{"report", "the team report as PDF", cmdReport},
 		{"export", "coordinates, CSV tables, manufacturing outlines (DXF, SVG) and figures", cmdExport},
+		{"map", "downforce, drag and separation over one or two set-up variables (ride height, angle, flap settings, speed)", cmdMap},
+		{"search", "the flap and ride-height setting with the most downforce, the best lift-to-drag or the least drag, within bounds", cmdSearch},
 		{"bench", "median times of the solver's stages, for comparing builds and machines", cmdBench},
 	}
 }

@@ -1,0 +1,216 @@
+package main
+
+import (
+	"encoding/csv"
+	"encoding/json"
+	"fmt"
+	"math"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// example is one of the invented example studies the app ships.
+func example(name string) string {
+	return filepath.Join("..", "..", "assets", "examples", name)
+}
+
+// runJSON runs the command and decodes its JSON output.
+func runJSON(t *testing.T, args ...string) map[string]any {
+	t.Helper()
+	code, out, stderr := runCLI(t, args...)
+	if code != exitOK {
+		t.Fatalf("%s: exit %d: %s", strings.Join(args, " "), code, stderr)
+	}
+	var m map[string]any
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatalf("not JSON: %v\n%s", err, out)
+	}
+	return m
+}
+
+// checkPointKeys checks a map point's (or a search's start's and best's)
+// keys: the variables' values under their names, the coefficients, the
+// state, downforce on an inverted wing, and per element the separation.
+func checkPointKeys(t *testing.T, where string, p map[string]any, vars []string, elements int) {
+	t.Helper()
+	for _, v := range vars {
+		if _, ok := p[v].(float64); !ok {
+			t.Errorf("%s: variable %q is %v, want a number", where, v, p[v])
+		}
+	}
+	for _, k := range []string{"cl", "cd", "cm", "cl_inviscid", "downforce_per_span_n_per_m", "drag_per_span_n_per_m", "separation_upper", "separation_lower"} {
+		if _, ok := p[k]; !ok {
+			t.Errorf("%s: no %q", where, k)
+		}
+	}
+	if _, ok := p["converged"].(bool); !ok {
+		t.Errorf("%s: converged is %v, want a bool", where, p["converged"])
+	}
+	if p["converged"] == false && (p["cl"] != nil || p["cd"] != nil || p["downforce_per_span_n_per_m"] != nil) {
+		t.Errorf("%s: a point that did not converge has numbers: cl %v cd %v downforce %v", where, p["cl"], p["cd"], p["downforce_per_span_n_per_m"])
+	}
+	els, _ := p["elements"].([]any)
+	if len(els) != elements {
+		t.Fatalf("%s: %d elements, want %d", where, len(els), elements)
+	}
+	for i, e := range els {
+		em := e.(map[string]any)
+		for _, k := range []string{"name", "cl", "cd", "separation_upper", "separation_lower", "separation_suction_side"} {
+			if _, ok := em[k]; !ok {
+				t.Errorf("%s: element %d has no %q", where, i, k)
+			}
+		}
+	}
+}
+
+// The map's JSON: {"points": [...]} in row-major order of the --vary
+// flags, each point with the variables' values and a solve's keys.
+func TestMapJSONShape(t *testing.T) {
+	m := runJSON(t, "map", "--study", example("two-element-ground.json"), "--vary", "clearance_mm=60:100:20", "--vary", "elements[1].deflection_deg=10:20:10", "--inviscid", "--format", "json")
+	pts, _ := m["points"].([]any)
+	if len(pts) != 6 {
+		t.Fatalf("%d points, want 6", len(pts))
+	}
+	vars := []string{"clearance_mm", "elements[1].deflection_deg"}
+	for i, p := range pts {
+		pm := p.(map[string]any)
+		checkPointKeys(t, fmt.Sprintf("point %d", i), pm, vars, 2)
+		if h, d := 60+20*float64(i/2), 10+10*float64(i%2); pm[vars[0]] != h || pm[vars[1]] != d {
+			t.Errorf("point %d at %v, %v; want %g, %g", i, pm[vars[0]], pm[vars[1]], h, d)
+		}
+		if pm["converged"] != true || pm["cd"] != nil || !(pm["downforce_per_span_n_per_m"].(float64) > 0) {
+			t.Errorf("point %d (inviscid): converged %v cd %v downforce %v", i, pm["converged"], pm["cd"], pm["downforce_per_span_n_per_m"])
+		}
+	}
+	if m["viscous_mode"] != "inviscid" {
+		t.Errorf("viscous_mode %v", m["viscous_mode"])
+	}
+}
+
+// A map gives `solve`'s numbers at its grid points exactly (the same
+// study and options): inviscid on the two-element example in ground
+// effect, and with the coupled viscous solution on NACA 0012 at Re 6e6
+// tripped at 5 % (where it converges) wherever solve converges.
+func TestMapReproducesSolve(t *testing.T) {
+	for _, tc := range []struct {
+		name   string
+		inputs []string
+		keys   []string
+		long   bool
+	}{
+		{"inviscid, two elements in ground effect", []string{"--study", example("two-element-ground.json"), "--inviscid"}, []string{"cl", "cm", "downforce_per_span_n_per_m"}, false},
+		{"coupled, NACA 0012", []string{"--section", "naca:0012", "--re", "6e6", "--trip-upper", "0.05", "--trip-lower", "0.05"}, []string{"cl", "cd", "cm"}, true},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			if tc.long && testing.Short() {
+				t.Skip("coupled viscous solves")
+			}
+			m := runJSON(t, append([]string{"map", "--vary", "alpha_deg=1:3:1", "--format", "json"}, tc.inputs...)...)
+			solveInputs := tc.inputs
+			if solveInputs[len(solveInputs)-1] == "--inviscid" {
+				solveInputs = solveInputs[:len(solveInputs)-1] // the example's own viscous setting is off
+			}
+			for i, p := range m["points"].([]any) {
+				pm := p.(map[string]any)
+				a := pm["alpha_deg"].(float64)
+				s := runJSON(t, append([]string{"solve", "--alpha", fmt.Sprint(a), "--format", "json"}, solveInputs...)...)
+				if c, ok := s["converged"]; ok && c != true {
+					t.Logf("α %g: solve does not converge", a)
+					continue
+				}
+				for _, k := range tc.keys {
+					if pm[k] != s[k] || pm[k] == nil {
+						t.Errorf("point %d, α %g: %s map %v, solve %v", i, a, k, pm[k], s[k])
+					}
+				}
+			}
+		})
+	}
+}
+
+// The search's JSON: start, best (the variables and a map point's keys),
+// evaluations and the path.
+func TestSearchJSONShape(t *testing.T) {
+	m := runJSON(t, "search", "--study", example("two-element-ground.json"), "--vary", "alpha_deg=0:4", "--vary", "clearance_mm=80:120", "--objective", "downforce", "--inviscid", "--max-evaluations", "15", "--format", "json")
+	vars := []string{"alpha_deg", "clearance_mm"}
+	for _, k := range []string{"start", "best"} {
+		p, ok := m[k].(map[string]any)
+		if !ok {
+			t.Fatalf("%q is %v", k, m[k])
+		}
+		checkPointKeys(t, k, p, vars, 2)
+	}
+	n, ok := m["evaluations"].(float64)
+	if !ok || n < 1 || n > 15 || int(n) != len(m["path"].([]any)) {
+		t.Errorf("evaluations %v, path %d", m["evaluations"], len(m["path"].([]any)))
+	}
+	start, best := m["start"].(map[string]any), m["best"].(map[string]any)
+	if !(best["downforce_per_span_n_per_m"].(float64) >= start["downforce_per_span_n_per_m"].(float64)) {
+		t.Errorf("best downforce %v below the start's %v", best["downforce_per_span_n_per_m"], start["downforce_per_span_n_per_m"])
+	}
+	if start["alpha_deg"] != 3.0 || start["clearance_mm"] != 100.0 {
+		t.Errorf("start at %v, %v; want the study's 3°, 100 mm", start["alpha_deg"], start["clearance_mm"])
+	}
+}
+
+// The map's CSV: a column per variable under its name, then the results.
+func TestMapCSV(t *testing.T) {
+	code, out, stderr := runCLI(t, "map", "--study", example("two-element-ground.json"), "--vary", "elements[1].gap_mm=4:8:2", "--inviscid", "--format", "csv")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	r := csv.NewReader(strings.NewReader(out))
+	r.Comment = '#'
+	r.FieldsPerRecord = -1
+	rows, err := r.ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(rows) != 4 || rows[0][0] != "elements[1].gap_mm" || rows[0][1] != "cl" || !strings.Contains(strings.Join(rows[0], ","), "downforce_per_span_n_per_m") {
+		t.Fatalf("rows %v", rows)
+	}
+	if rows[2][0] != "6" {
+		t.Errorf("second row at gap %s, want 6", rows[2][0])
+	}
+}
+
+// Bad --vary values are usage errors naming the variable.
+func TestExplorerUsage(t *testing.T) {
+	for _, tc := range []struct {
+		args []string
+		want string
+	}{
+		{[]string{"map", "--study", example("two-element-ground.json"), "--vary", "wing=0:1:1"}, "wing"},
+		{[]string{"map", "--study", example("two-element-ground.json"), "--vary", "alpha_deg=4:0:1"}, "alpha_deg"},
+		{[]string{"map", "--study", example("single-free-air.json"), "--vary", "clearance_mm=20:60:10"}, "clearance_mm"},
+		{[]string{"map", "--study", example("two-element-ground.json"), "--vary", "elements[0].gap_mm=2:6:1"}, "elements[0].gap_mm"},
+		{[]string{"map", "--study", example("two-element-ground.json")}, "--vary"},
+		{[]string{"search", "--study", example("two-element-ground.json"), "--vary", "alpha_deg=0:4:1"}, "alpha_deg"},
+		{[]string{"search", "--study", example("two-element-ground.json"), "--vary", "alpha_deg=0:4", "--objective", "lift"}, "objective"},
+	} {
+		t.Run(strings.Join(tc.args[3:], " "), func(t *testing.T) {
+			code, _, stderr := runCLI(t, tc.args...)
+			if code != exitUsage || !strings.Contains(stderr, tc.want) {
+				t.Errorf("exit %d, stderr %q: want %d naming %q", code, stderr, exitUsage, tc.want)
+			}
+		})
+	}
+}
+
+// The README's search example gives the figures the README quotes: the
+// least drag at Cl ≥ 0.3 of tripped NACA 0012 at Re 6e6 is where Cl
+// reaches 0.3, α ≈ 2.67° (Cl rises 0.1126 per degree there: 0.3/0.1126 =
+// 2.66°), below the start's drag at 4°.
+func TestSearchReadmeExample(t *testing.T) {
+	if testing.Short() {
+		t.Skip("coupled viscous solves")
+	}
+	m := runJSON(t, "search", "--section", "naca:0012", "--re", "6e6", "--trip-upper", "0.05", "--trip-lower", "0.05", "--alpha", "4",
+		"--vary", "alpha_deg=0.5:4.5", "--objective", "drag", "--downforce-target", "0.3", "--max-evaluations", "30", "--format", "json")
+	best, start := m["best"].(map[string]any), m["start"].(map[string]any)
+	a, cl, cd := best["alpha_deg"].(float64), best["cl"].(float64), best["cd"].(float64)
+	if m["feasible"] != true || math.Abs(a-2.67) > 0.01 || cl < 0.3 || cl > 0.301 || !(cd < start["cd"].(float64)) {
+		t.Errorf("best α %g Cl %g Cd %g (start Cd %v, feasible %v): want α 2.67 ± 0.01, Cl 0.300–0.301, less drag than the start", a, cl, cd, start["cd"], m["feasible"])
+	}
+}

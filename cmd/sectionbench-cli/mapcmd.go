@@ -1,0 +1,312 @@
+package main
+
+import (
+	"bytes"
+	"context"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+	"text/tabwriter"
+
+	"sectionbench/export/format"
+	"sectionbench/model"
+	"sectionbench/solver/engine"
+)
+
+// varyFlag collects the repeated --vary flag.
+type varyFlag []string
+
+func (v *varyFlag) String() string { return strings.Join(*v, " ") }
+
+func (v *varyFlag) Set(s string) error {
+	*v = append(*v, s)
+	return nil
+}
+
+// jsonMapElement is one element's share of a map point.
+type jsonMapElement struct {
+	Name            string `json:"name"`
+	Cl              num    `json:"cl"`
+	Cd              num    `json:"cd"`
+	SeparationUpper num    `json:"separation_upper"`
+	SeparationLower num    `json:"separation_lower"`
+	// SeparationSuction is x/c on the suction side as mounted (lower on
+	// an inverted wing); null when attached or not converged.
+	SeparationSuction num  `json:"separation_suction_side"`
+	GapMM             *num `json:"gap_mm,omitempty"`
+}
+
+// jsonMapPoint is a map point (and a search's start, best and path): the
+// variables' values under their names first, then the keys of a solve.
+type jsonMapPoint struct {
+	names  []string
+	values []float64
+	jsonMapKeys
+}
+
+// jsonMapKeys are the fixed keys of a map point.
+type jsonMapKeys struct {
+	Cl         num  `json:"cl"`
+	Cd         num  `json:"cd"`
+	Cm         num  `json:"cm"`
+	ClInviscid num  `json:"cl_inviscid"`
+	Converged  bool `json:"converged"`
+	Iterations int  `json:"iterations"`
+	// Downforce on an inverted wing (null without a speed), lift on an
+	// upright one with a speed; drag with a speed.
+	DownforceN *num `json:"downforce_per_span_n_per_m,omitempty"`
+	LiftN      *num `json:"lift_per_span_n_per_m,omitempty"`
+	DragN      *num `json:"drag_per_span_n_per_m,omitempty"`
+	// The main element's separation, as solve gives it.
+	SeparationUpper num              `json:"separation_upper"`
+	SeparationLower num              `json:"separation_lower"`
+	ClearanceMM     *num             `json:"ground_clearance_mm,omitempty"`
+	Elements        []jsonMapElement `json:"elements"`
+	Error           string           `json:"error,omitempty"`
+}
+
+// MarshalJSON writes the variables' keys, then the fixed ones.
+func (p jsonMapPoint) MarshalJSON() ([]byte, error) {
+	rest, err := json.Marshal(p.jsonMapKeys)
+	if err != nil {
+		return nil, err
+	}
+	var b bytes.Buffer
+	b.WriteByte('{')
+	for i, n := range p.names {
+		k, _ := json.Marshal(n)
+		v, _ := num(p.values[i]).MarshalJSON()
+		b.Write(k)
+		b.WriteByte(':')
+		b.Write(v)
+		b.WriteByte(',')
+	}
+	b.Write(rest[1:])
+	return b.Bytes(), nil
+}
+
+// mapPointJSON is p's JSON form; speed says whether forces are known.
+func mapPointJSON(vars []model.SetupVariable, p engine.Point, hasSpeed bool) jsonMapPoint {
+	out := jsonMapPoint{values: p.Values}
+	for _, v := range vars {
+		out.names = append(out.names, v.Name())
+	}
+	k := &out.jsonMapKeys
+	k.Cl, k.Cd, k.Cm, k.ClInviscid = num(p.Cl), num(p.Cd), num(p.Cm), num(p.ClInviscid)
+	k.Converged, k.Iterations, k.Error = p.Converged, p.Iterations, p.Err
+	switch {
+	case p.Inverted:
+		k.DownforceN = ptr(p.DownforcePerSpan) // null without a speed
+	case hasSpeed:
+		k.LiftN = ptr(p.LiftPerSpan)
+	}
+	if hasSpeed {
+		k.DragN = ptr(p.DragPerSpan)
+	}
+	if p.ClearanceMM == p.ClearanceMM {
+		k.ClearanceMM = ptr(p.ClearanceMM)
+	}
+	k.Elements = []jsonMapElement{}
+	for i, e := range p.Elements {
+		je := jsonMapElement{Name: e.Name, Cl: num(e.Cl), Cd: num(e.Cd), SeparationUpper: num(e.SeparationUpper), SeparationLower: num(e.SeparationLower), SeparationSuction: num(e.SeparationSuction)}
+		if i > 0 {
+			je.GapMM = ptr(e.GapMM)
+		}
+		k.Elements = append(k.Elements, je)
+	}
+	if len(p.Elements) > 0 {
+		k.SeparationUpper, k.SeparationLower = num(p.Elements[0].SeparationUpper), num(p.Elements[0].SeparationLower)
+	}
+	return out
+}
+
+// jsonMap is the map's JSON.
+type jsonMap struct {
+	Variables   []string       `json:"variables"`
+	ViscousMode string         `json:"viscous_mode"`
+	Inverted    bool           `json:"inverted"`
+	Points      []jsonMapPoint `json:"points"`
+	Converged   int            `json:"converged_points"`
+	Caution     string         `json:"caution"`
+}
+
+// explorerFlags are the flags map and search share beyond the inputs.
+type explorerFlags struct {
+	vary     varyFlag
+	inviscid bool
+}
+
+func addExplorerFlags(fs *flags, what string) *explorerFlags {
+	ef := &explorerFlags{}
+	fs.Var(&ef.vary, "vary", what+" (repeat the flag for another variable); NAME is alpha_deg, clearance_mm, speed_mps, elements[K].deflection_deg, elements[K].gap_mm or elements[K].overlap_mm (K from 0, the main element; as mounted)")
+	fs.BoolVar(&ef.inviscid, "inviscid", false, "solve with the panel method only (default: the coupled viscous solution whenever the study has a speed or a Reynolds number)")
+	return ef
+}
+
+// setupUsage turns a set-up or option error into a usage error naming the
+// flag.
+func setupUsage(err error) error {
+	var se *model.SetupError
+	if errors.As(err, &se) {
+		return usagef("--vary %v", err)
+	}
+	var oe *engine.OptionError
+	if errors.As(err, &oe) {
+		return usagef("%v", err)
+	}
+	return err
+}
+
+func cmdMap(args []string, stdout, stderr io.Writer) error {
+	fs := newFlags("map", "map (--study FILE | --section SPEC) --vary NAME=FROM:TO:STEP [--vary NAME=FROM:TO:STEP] [--inviscid] [--alpha DEG] [--panels N] [--re RE] [--transition-n N] [--trip-upper XC] [--trip-lower XC] [--format text|csv|json]", stdout)
+	in := addInputs(fs, false, "text", "csv", "json")
+	ef := addExplorerFlags(fs, "a variable and its values `NAME=FROM:TO:STEP`")
+	if _, err := fs.parse(args, 0); err != nil {
+		return err
+	}
+	if len(ef.vary) < 1 || len(ef.vary) > 2 {
+		return usagef("--vary: give one or two variables to map (%d given)", len(ef.vary))
+	}
+	var ranges []model.SetupRange
+	for _, s := range ef.vary {
+		r, err := model.ParseSetupRange(s)
+		if err != nil {
+			return setupUsage(err)
+		}
+		ranges = append(ranges, r)
+	}
+	st, secs, _, err := in.load(fs)
+	if err != nil {
+		return err
+	}
+	if err := st.CheckSetup(ranges); err != nil {
+		return setupUsage(err)
+	}
+	vars := rangeVars(ranges)
+	opt := engine.MapOptions{PointOptions: engine.PointOptions{Inviscid: ef.inviscid, CoupledMaxIterations: coupledMaxIterations}}
+	points, err := engine.Map(context.Background(), st, secs, ranges, opt, nil, nil)
+	if err != nil {
+		return setupUsage(err)
+	}
+	mode := engine.MapMode(st, opt.PointOptions, vars)
+	hasSpeed := st.Flow.SpeedMPS > 0 || slicesHasSpeed(vars)
+	switch in.format {
+	case "json":
+		out := jsonMap{ViscousMode: mode, Inverted: st.Inverted, Points: []jsonMapPoint{}, Caution: caution}
+		for _, v := range vars {
+			out.Variables = append(out.Variables, v.Name())
+		}
+		for _, p := range points {
+			out.Points = append(out.Points, mapPointJSON(vars, p, hasSpeed))
+			if p.Converged {
+				out.Converged++
+			}
+		}
+		return writeJSON(stdout, out)
+	case "csv":
+		m := format.StudyMetadata(st, nil, "Sectionbench "+version)
+		m.Extra = append(m.Extra, "map solved with the "+modeWords(mode)+"; "+caution)
+		return format.WriteMapTable(stdout, m, st, vars, points)
+	}
+	return mapText(stdout, st, vars, points, mode, hasSpeed)
+}
+
+// rangeVars returns the ranges' variables.
+func rangeVars(ranges []model.SetupRange) []model.SetupVariable {
+	vars := make([]model.SetupVariable, len(ranges))
+	for i, r := range ranges {
+		vars[i] = r.Var
+	}
+	return vars
+}
+
+// slicesHasSpeed reports whether the speed is one of the variables.
+func slicesHasSpeed(vars []model.SetupVariable) bool {
+	for _, v := range vars {
+		if v.Kind == model.SetupSpeed {
+			return true
+		}
+	}
+	return false
+}
+
+// modeWords names how the points were solved.
+func modeWords(mode string) string {
+	if mode == string(model.ViscousCoupled) {
+		return "coupled viscous solution"
+	}
+	return "panel method only (inviscid: no drag, no separation)"
+}
+
+// mapText is the map as a table: the variables, then the load and drag,
+// the state and each element's suction-side separation.
+func mapText(w io.Writer, st *model.Study, vars []model.SetupVariable, points []engine.Point, mode string, hasSpeed bool) error {
+	fmt.Fprintf(w, "Map of %s, %s; %s\n", st.Name, modeWords(mode), model.LiftSense(st.Inverted))
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	head := ""
+	for _, v := range vars {
+		head += v.Name() + "\t"
+	}
+	head += "cl\tcd\t"
+	if hasSpeed {
+		if st.Inverted {
+			head += "downforce N/m\t"
+		} else {
+			head += "lift N/m\t"
+		}
+		head += "drag N/m\t"
+	}
+	for k := range st.Elements {
+		head += fmt.Sprintf("elements[%d] separation x/c (%s)\t", k, suctionWord(st.Inverted))
+	}
+	fmt.Fprintln(tw, head+"state\t")
+	for _, p := range points {
+		line := ""
+		for _, x := range p.Values {
+			line += fmt.Sprintf("%g\t", x)
+		}
+		line += fmtShort(p.Cl, "%.4f") + "\t" + fmtShort(p.Cd, "%.5f") + "\t"
+		if hasSpeed {
+			load := p.LiftPerSpan
+			if st.Inverted {
+				load = p.DownforcePerSpan
+			}
+			line += fmtShort(load, "%.1f") + "\t" + fmtShort(p.DragPerSpan, "%.2f") + "\t"
+		}
+		for _, e := range p.Elements {
+			switch {
+			case !p.Converged || !p.Viscous:
+				line += "—\t"
+			case e.SeparationSuction != e.SeparationSuction:
+				line += "attached\t"
+			default:
+				line += fmt.Sprintf("%.3f\t", e.SeparationSuction)
+			}
+		}
+		state := "converged"
+		switch {
+		case p.Err != "":
+			state = "FAILED: " + p.Err
+		case !p.Converged:
+			state = fmt.Sprintf("NOT CONVERGED (%d iterations)", p.Iterations)
+		case !p.Viscous:
+			state = "inviscid"
+		}
+		fmt.Fprintln(tw, line+state+"\t")
+	}
+	if err := tw.Flush(); err != nil {
+		return err
+	}
+	_, err := fmt.Fprintln(w, caution)
+	return err
+}
+
+// suctionWord names the suction side as mounted.
+func suctionWord(inverted bool) string {
+	if inverted {
+		return "lower"
+	}
+	return "upper"
+}

@@ -1,0 +1,125 @@
+package main
+
+import (
+	"context"
+	"flag"
+	"fmt"
+	"io"
+
+	"sectionbench/model"
+	"sectionbench/solver/engine"
+)
+
+// jsonSearch is the search's JSON.
+type jsonSearch struct {
+	Objective   string         `json:"objective"`
+	Variables   []string       `json:"variables"`
+	ViscousMode string         `json:"viscous_mode"`
+	Inverted    bool           `json:"inverted"`
+	Start       jsonMapPoint   `json:"start"`
+	Best        jsonMapPoint   `json:"best"`
+	Feasible    bool           `json:"feasible"`
+	Evaluations int            `json:"evaluations"`
+	Status      string         `json:"status"`
+	Path        []jsonMapPoint `json:"path"`
+	Note        string         `json:"note"`
+	Caution     string         `json:"caution"`
+}
+
+// localNote says what the search's answer is.
+const localNote = "a local optimum near the start (Nelder–Mead simplex): a map of the same bounds shows whether a better setting lies elsewhere"
+
+func cmdSearch(args []string, stdout, stderr io.Writer) error {
+	fs := newFlags("search", "search (--study FILE | --section SPEC) --vary NAME=LO:HI [--vary …] --objective downforce|lift-to-drag|drag [--downforce-target N] [--attached-to XC] [--min-gap MM] [--min-clearance MM] [--max-evaluations N] [--inviscid] [--format text|json]", stdout)
+	in := addInputs(fs, false, "text", "json")
+	ef := addExplorerFlags(fs, "a variable and its bounds `NAME=LO:HI`")
+	objective := fs.String("objective", "downforce", "what to optimise: `downforce` (the most; lift on an upright wing), lift-to-drag (the best ratio) or drag (the least, at --downforce-target)")
+	target := fs.Float64("downforce-target", 0, "with --objective drag: the least downforce (lift upright) in `N/m` of span with a speed, else as a coefficient (−Cl inverted)")
+	attached := fs.Float64("attached-to", 0.9, "every element's suction side must stay attached at least to this `x/c` (0: no limit; needs the viscous solution)")
+	minGap := fs.Float64("min-gap", 0, "the least slot gap in `mm` behind every element after the first (a manufacturing minimum; 0: none)")
+	minClear := fs.Float64("min-clearance", 0, "the least ground clearance in `mm` (0: the method's own minimum only)")
+	maxEval := fs.Int("max-evaluations", engine.DefaultSearchEvaluations, "the most `solves` the search may make")
+	if _, err := fs.parse(args, 0); err != nil {
+		return err
+	}
+	if len(ef.vary) == 0 {
+		return usagef("--vary: give at least one variable and its bounds NAME=LO:HI")
+	}
+	obj, err := engine.ParseObjective(*objective)
+	if err != nil {
+		return usagef("--objective %v", err)
+	}
+	if *maxEval < 1 {
+		return usagef("--max-evaluations %d: at least 1", *maxEval)
+	}
+	var bounds []model.SetupRange
+	for _, s := range ef.vary {
+		r, err := model.ParseSetupBounds(s)
+		if err != nil {
+			return setupUsage(err)
+		}
+		bounds = append(bounds, r)
+	}
+	st, secs, _, err := in.load(fs)
+	if err != nil {
+		return err
+	}
+	if err := st.CheckSetup(bounds); err != nil {
+		return setupUsage(err)
+	}
+	vars := rangeVars(bounds)
+	opt := engine.SearchOptions{
+		PointOptions: engine.PointOptions{Inviscid: ef.inviscid, CoupledMaxIterations: coupledMaxIterations},
+		Objective:    obj, DownforceTarget: *target, MinGapMM: *minGap, MinClearanceMM: *minClear, MaxEvaluations: *maxEval,
+	}
+	mode := engine.MapMode(st, opt.PointOptions, vars)
+	if mode == string(model.ViscousCoupled) || fs.isSet("attached-to") {
+		opt.AttachedToXC = *attached
+	}
+	res, err := engine.Search(context.Background(), st, secs, bounds, opt, nil)
+	if err != nil {
+		return setupUsage(err)
+	}
+	hasSpeed := st.Flow.SpeedMPS > 0 || slicesHasSpeed(vars)
+	if in.format == "json" {
+		out := jsonSearch{Objective: string(obj), ViscousMode: mode, Inverted: st.Inverted,
+			Start: mapPointJSON(vars, res.Start, hasSpeed), Best: mapPointJSON(vars, res.Best, hasSpeed),
+			Feasible: res.Feasible, Evaluations: res.Evaluations, Status: res.Status, Path: []jsonMapPoint{}, Note: localNote, Caution: caution}
+		for _, v := range vars {
+			out.Variables = append(out.Variables, v.Name())
+		}
+		for _, p := range res.Path {
+			out.Path = append(out.Path, mapPointJSON(vars, p, hasSpeed))
+		}
+		return writeJSON(stdout, out)
+	}
+	fmt.Fprintf(stdout, "Search of %s for the %s, %s; %s\n", st.Name, objectiveWords(obj, *target), modeWords(mode), model.LiftSense(st.Inverted))
+	fmt.Fprintf(stdout, "%d solves; %s\n", res.Evaluations, res.Status)
+	if err := mapText(stdout, st, vars, []engine.Point{res.Start, res.Best}, mode, hasSpeed); err != nil {
+		return err
+	}
+	_, err = fmt.Fprintf(stdout, "first row: the start (the study's setting); second: the best setting found, %s\n", localNote)
+	return err
+}
+
+// objectiveWords says what the search optimised.
+func objectiveWords(o engine.Objective, target float64) string {
+	switch o {
+	case engine.ObjectiveLiftToDrag:
+		return "best lift-to-drag ratio"
+	case engine.ObjectiveDrag:
+		return fmt.Sprintf("least drag at a downforce of at least %g", target)
+	}
+	return "most downforce"
+}
+
+// isSet reports whether a flag was given on the command line.
+func (fs *flags) isSet(name string) bool {
+	set := false
+	fs.Visit(func(f *flag.Flag) {
+		if f.Name == name {
+			set = true
+		}
+	})
+	return set
+}

@@ -1,0 +1,79 @@
+package format
+
+import (
+	"fmt"
+	"io"
+	"strconv"
+
+	"sectionbench/model"
+	"sectionbench/solver/engine"
+)
+
+// WriteMapTable writes a map or a search path (engine.Map, engine.Search)
+// as CSV after the metadata m, one row per point in the order given: the
+// variables' values under their names (alpha_deg, elements[1].gap_mm, …);
+// cl, cd, cm and cl_inviscid; converged (yes or no), iterations;
+// downforce_per_span_n_per_m on an inverted wing or lift_per_span_n_per_m
+// on an upright one, and drag_per_span_n_per_m (empty without a speed);
+// per element K, elements[K].separation_suction_xc (empty: attached, or
+// not converged) and, behind the main element, elements[K].gap_mm; then
+// error (why a point could not be solved). Coefficients are empty where
+// the point did not converge.
+func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupVariable, points []engine.Point) error {
+	m.AlphaDeg = NoAngle
+	units := "angles in degrees, lengths in millimetres, speed in m/s, forces in N per metre of span; coefficients on the reference chord, cl positive away from the ground (standard sense); " + model.FrameText
+	if err := m.write(w, units, "along each element's own chord from its leading edge, on its suction side as mounted ("+suction(st.Inverted)+" surface); empty: attached, or the point did not converge"); err != nil {
+		return err
+	}
+	load := "lift_per_span_n_per_m"
+	if st.Inverted {
+		load = "downforce_per_span_n_per_m"
+	}
+	head := []string{}
+	for _, v := range vars {
+		head = append(head, v.Name())
+	}
+	head = append(head, "cl", "cd", "cm", "cl_inviscid", "converged", "iterations", load, "drag_per_span_n_per_m")
+	for k := range st.Elements {
+		head = append(head, fmt.Sprintf("elements[%d].separation_suction_xc", k))
+		if k > 0 {
+			head = append(head, fmt.Sprintf("elements[%d].gap_mm", k))
+		}
+	}
+	head = append(head, "error")
+	t, err := newTable(w, head...)
+	if err != nil {
+		return err
+	}
+	yes := map[bool]string{true: "yes", false: "no"}
+	for _, p := range points {
+		row := []string{}
+		for _, x := range p.Values {
+			row = append(row, cell(x))
+		}
+		loadN := p.LiftPerSpan
+		if st.Inverted {
+			loadN = p.DownforcePerSpan
+		}
+		row = append(row, cell(p.Cl), cell(p.Cd), cell(p.Cm), cell(p.ClInviscid), yes[p.Converged], strconv.Itoa(p.Iterations), cell(loadN), cell(p.DragPerSpan))
+		for k, e := range p.Elements {
+			row = append(row, cell(e.SeparationSuction))
+			if k > 0 {
+				row = append(row, cell(e.GapMM))
+			}
+		}
+		row = append(row, p.Err)
+		if err := t.row(row...); err != nil {
+			return err
+		}
+	}
+	return t.close()
+}
+
+// suction names the suction side as mounted.
+func suction(inverted bool) string {
+	if inverted {
+		return "lower"
+	}
+	return "upper"
+}
