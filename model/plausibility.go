@@ -59,7 +59,7 @@ type PointFacts struct {
 type ViscousFacts struct {
 	PastClMax    bool // beyond the angle of the viscous solution's maximum lift
 	NotConverged bool
-	Separated    bool // the viscous solution finds the flow separated: the inviscid answer does not hold
+	Separated    bool // the coupled solution or the one-way estimate finds the flow separated well ahead of the trailing edge: the inviscid answer does not hold
 }
 
 // Plausibility returns the flags a result raises, most serious first.
@@ -67,7 +67,7 @@ func Plausibility(f PointFacts) []Flag {
 	var flags []Flag
 	if v := f.Viscous; v != nil {
 		if v.Separated {
-			flags = append(flags, Flag{FlagSeparated, "the viscous solution finds the flow separated: the wing would stall here and the inviscid downforce or lift is not reached"})
+			flags = append(flags, Flag{FlagSeparated, "the boundary layer separates well ahead of the trailing edge (viscous solution or estimate): the wing would stall here and the downforce or lift shown is not reached"})
 		}
 		if v.PastClMax {
 			flags = append(flags, Flag{FlagPastClMax, "past the viscous solution's maximum lift: the real wing gives less, not more, as the angle grows"})

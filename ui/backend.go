@@ -10,7 +10,6 @@ import (
 	"image"
 	"image/color"
 	"io"
-	"math"
 
 	"sectionbench/export"
 	figures "sectionbench/export/figure"
@@ -205,31 +204,13 @@ func refChordMM(res *engineResult) float64 { return res.Layout.RefChordM * mmPer
 func elementChordMM(res *engineResult, i int) float64 { return res.Layout.Elements[i].Chord * mmPerM }
 
 // resultFlags returns the plausibility flags of a result at the study's
-// angle (model.Plausibility).
+// angle (engine.Result.Flags).
 func resultFlags(res *engineResult) []model.Flag {
-	if res == nil || res.Solution == nil {
+	if res == nil {
 		return nil
 	}
-	cp := math.Inf(1)
-	for _, e := range res.Solution.Elements {
-		cp = math.Min(cp, e.CpMin)
-	}
-	return model.Plausibility(model.PointFacts{CpMin: cp, HOverC: hOverC(res), Viscous: coupledFacts(res)})
+	return res.Flags()
 }
-
-// viscousFacts is the coupled viscous solution's verdict on a point, nil
-// when it did not run. The separated state is left to the viscous
-// solution's own rule once it states one.
-func viscousFacts(p *engine.CoupledPoint) *model.ViscousFacts {
-	if p == nil {
-		return nil
-	}
-	return &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged}
-}
-
-// hOverC is the ground clearance over the main element's chord, NaN in
-// free air (model.Layout.HOverC).
-func hOverC(res *engineResult) float64 { return res.Layout.HOverC() }
 
 // pinColour is the colour the views draw pin i in (figure.PinColour).
 func pinColour(i int, dark bool) color.Color { return figures.PinColour(i, dark) }

@@ -4,8 +4,6 @@ import (
 	"fmt"
 	"math"
 	"strings"
-
-	"sectionbench/model"
 )
 
 // This file shows the coupled viscous solution (engine.CoupledPoint) in
@@ -153,37 +151,6 @@ func cautions(res *engineResult) []string {
 		w = append(w, "Caution, "+string(f.Kind)+": "+f.Message+".")
 	}
 	return w
-}
-
-// separatedFromXC: a converged coupled point whose boundary layer
-// separates ahead of this x/c and stays separated to the trailing edge is
-// flagged separated. From memory (Coles & Wadcock's NACA 4412 near
-// maximum lift separates at about x/c 0.85): a tenth of the chord or more
-// separated is a wing at or past maximum lift.
-const separatedFromXC = 0.9
-
-// coupledSeparated reports whether any element of a converged coupled
-// point separates ahead of separatedFromXC.
-func coupledSeparated(res *engineResult) bool {
-	c := res.Coupled
-	if c == nil || !c.Converged {
-		return false
-	}
-	for _, e := range c.Elements {
-		if e.SeparationUpper < separatedFromXC || e.SeparationLower < separatedFromXC {
-			return true // NaN (none) compares false
-		}
-	}
-	return false
-}
-
-// coupledFacts is viscousFacts with the separated state.
-func coupledFacts(res *engineResult) *model.ViscousFacts {
-	v := viscousFacts(res.Coupled)
-	if v != nil {
-		v.Separated = coupledSeparated(res)
-	}
-	return v
 }
 
 // signNote says which way Cl is counted.

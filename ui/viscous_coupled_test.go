@@ -187,33 +187,6 @@ func TestCoupledResultShown(t *testing.T) {
 	}
 }
 
-// TestCoupledSeparatedFlag: a converged point separated ahead of
-// separatedFromXC raises the separated flag; separation at the trailing
-// edge, none, or a point that did not converge do not.
-func TestCoupledSeparatedFlag(t *testing.T) {
-	nan := math.NaN()
-	cases := []struct {
-		name      string
-		converged bool
-		upper     float64
-		want      bool
-	}{
-		{"separated from 0.7", true, 0.7, true},
-		{"last 5 % only", true, 0.95, false},
-		{"attached", true, nan, false},
-		{"not converged", false, nan, false},
-	}
-	for _, c := range cases {
-		t.Run(c.name, func(t *testing.T) {
-			res := &engineResult{Coupled: &engine.CoupledPoint{Converged: c.converged,
-				Elements: []engine.CoupledElementPoint{{SeparationUpper: c.upper, SeparationLower: nan}}}}
-			if got := coupledFacts(res).Separated; got != c.want {
-				t.Errorf("separated %v, want %v", got, c.want)
-			}
-		})
-	}
-}
-
 // TestCoupledSweep: with the coupled solution on, the sweep waits for Run
 // (it is slow), shows its progress, can be cancelled (the polar keeps
 // what it had), and when it ends the polar holds the coupled rows: each

@@ -169,24 +169,10 @@ func collectWarnings(reps []*model.CleanReport, res *engine.Result) []string {
 	if c := res.Coupled; c != nil && !c.Converged {
 		w = append(w, notConverged(c))
 	}
-	for _, f := range plausibility(res) {
+	for _, f := range res.Flags() {
 		w = append(w, "caution, "+string(f.Kind)+": "+f.Message)
 	}
 	return w
-}
-
-// plausibility returns the flags (model.Plausibility) the result raises:
-// a suction peak beyond real flows, a clearance in the band where real
-// wings lose downforce.
-func plausibility(res *engine.Result) []model.Flag {
-	facts := model.PointFacts{CpMin: math.Inf(1), HOverC: math.NaN()}
-	for _, e := range res.Solution.Elements {
-		facts.CpMin = math.Min(facts.CpMin, e.CpMin)
-	}
-	if l := res.Layout; l != nil && l.Ground && len(l.Elements) > 0 && l.Elements[0].Chord > 0 {
-		facts.HOverC = l.ClearanceM / l.Elements[0].Chord
-	}
-	return model.Plausibility(facts)
 }
 
 // coupledMaxIterations bounds the coupled solution's iterations; 0 is the

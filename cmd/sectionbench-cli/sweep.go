@@ -102,28 +102,17 @@ func sweepJSON(res *engine.Result) jsonSweep {
 				out.Warnings = append(out.Warnings, notConverged(p))
 			}
 		}
-		r.Flags = rowFlags(res, c.CpMin, coupledAt(res, i))
+		r.Flags = rowFlags(res, i)
 		out.Rows[i] = r
 	}
 	return out
 }
 
-// coupledAt returns row i of the coupled sweep, nil without one.
-func coupledAt(res *engine.Result, i int) *engine.CoupledPoint {
-	if res.SweepCoupled == nil {
-		return nil
-	}
-	return &res.SweepCoupled[i]
-}
-
-// rowFlags returns the kinds of the plausibility flags of a sweep row.
-func rowFlags(res *engine.Result, cpMin float64, p *engine.CoupledPoint) []string {
-	f := model.PointFacts{CpMin: cpMin, HOverC: res.Layout.HOverC()}
-	if p != nil {
-		f.Viscous = &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged}
-	}
+// rowFlags returns the kinds of the plausibility flags of sweep row i
+// (engine.Result.SweepFlags).
+func rowFlags(res *engine.Result, i int) []string {
 	out := []string{}
-	for _, fl := range model.Plausibility(f) {
+	for _, fl := range res.SweepFlags(i) {
 		out = append(out, string(fl.Kind))
 	}
 	return out
@@ -145,7 +134,7 @@ func sweepText(w io.Writer, res *engine.Result) error {
 			v := res.SweepViscous[i]
 			fmt.Fprintf(tw, "%s\t%s\t%s\t", fmtShort(v.Cd, "%.5f"), fmtShort(v.TransitionUpper, "%.3f"), fmtShort(v.TransitionLower, "%.3f"))
 		}
-		fmt.Fprintf(tw, "%s\t", flagsText(rowFlags(res, c.CpMin, nil)))
+		fmt.Fprintf(tw, "%s\t", flagsText(rowFlags(res, i)))
 		fmt.Fprintln(tw)
 	}
 	return tw.Flush()
@@ -156,7 +145,7 @@ func sweepText(w io.Writer, res *engine.Result) error {
 // each row's state, then the maximum lift.
 func sweepCoupledText(w io.Writer, res *engine.Result) error {
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "alpha_deg\tcl\tcd\tcm\tcl_inviscid\ttransition_upper\ttransition_lower\tseparation_upper\tseparation_lower\tstate\t")
+	fmt.Fprintln(tw, "alpha_deg\tcl\tcd\tcm\tcl_inviscid\ttransition_upper\ttransition_lower\tseparation_upper\tseparation_lower\tstate\tflags\t")
 	for i, p := range res.SweepCoupled {
 		e := p.Elements[0]
 		state := fmt.Sprintf("converged (%d iterations)", p.Iterations)
@@ -169,8 +158,9 @@ func sweepCoupledText(w io.Writer, res *engine.Result) error {
 		if p.PastClMax {
 			state += ", past Cl max"
 		}
-		fmt.Fprintf(tw, "%.3f\t%s\t%s\t%s\t%.5f\t%s\t%s\t%s\t%s\t%s\t\n", p.AlphaDeg, fmtShort(p.Cl, "%.5f"), fmtShort(p.Cd, "%.5f"), fmtShort(p.Cm, "%.5f"),
-			res.Sweep[i].Cl, fmtXC(e.TransitionUpper, p.Converged), fmtXC(e.TransitionLower, p.Converged), fmtXC(e.SeparationUpper, p.Converged), fmtXC(e.SeparationLower, p.Converged), state)
+		fmt.Fprintf(tw, "%.3f\t%s\t%s\t%s\t%.5f\t%s\t%s\t%s\t%s\t%s\t%s\t\n", p.AlphaDeg, fmtShort(p.Cl, "%.5f"), fmtShort(p.Cd, "%.5f"), fmtShort(p.Cm, "%.5f"),
+			res.Sweep[i].Cl, fmtXC(e.TransitionUpper, p.Converged), fmtXC(e.TransitionLower, p.Converged), fmtXC(e.SeparationUpper, p.Converged), fmtXC(e.SeparationLower, p.Converged), state,
+			flagsText(rowFlags(res, i)))
 	}
 	if err := tw.Flush(); err != nil {
 		return err

@@ -35,12 +35,14 @@ func ExampleWriteCoordinates() {
 	// 200.000   0.000
 }
 
-// ExampleWriteSweepTable writes two angles of a sweep as CSV after its
-// metadata (invented values).
+// ExampleWriteSweepTable writes three angles of a sweep as CSV after its
+// metadata; the last one's suction peak is beyond what real flows sustain,
+// and its flags say so (invented values).
 func ExampleWriteSweepTable() {
 	sweep := []solver.Coefficients{
 		{AlphaDeg: 0, Cl: 0.2512, ClPressure: 0.2498, Cm: -0.0541, CpMin: -0.612, XCpMin: 0.152},
 		{AlphaDeg: 2, Cl: 0.4845, ClPressure: 0.4822, Cm: -0.0563, CpMin: -1.107, XCpMin: 0.021},
+		{AlphaDeg: 16, Cl: 2.0514, ClPressure: 2.0377, Cm: -0.0811, CpMin: -9.315, XCpMin: 0.004},
 	}
 	meta := format.Metadata{Study: "demo section (invented)", Reynolds: 3e5, Program: "Sectionbench"}
 	if err := format.WriteSweepTable(os.Stdout, meta, sweep, nil); err != nil {
@@ -49,12 +51,13 @@ func ExampleWriteSweepTable() {
 	// Output:
 	// # study: demo section (invented)
 	// # reynolds number: 3e+05 on the element's own chord
-	// # units: alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive
+	// # units: alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive; flags: the row's plausibility cautions in words, separated by semicolons, none when there is none
 	// # x/c: along the main element's own chord from its leading edge; empty: none found or outside the method's range
 	// # program: Sectionbench
-	// alpha_deg,cl,cl_pressure,cm,cp_min,cp_min_xc
-	// 0,0.2512,0.2498,-0.0541,-0.612,0.152
-	// 2,0.4845,0.4822,-0.0563,-1.107,0.021
+	// alpha_deg,cl,cl_pressure,cm,cp_min,cp_min_xc,flags
+	// 0,0.2512,0.2498,-0.0541,-0.612,0.152,none
+	// 2,0.4845,0.4822,-0.0563,-1.107,0.021,none
+	// 16,2.0514,2.0377,-0.0811,-9.315,0.004,suction beyond real flows
 }
 
 // ExampleWriteCoupledSweepTable writes a sweep with the coupled viscous
@@ -80,10 +83,10 @@ func ExampleWriteCoupledSweepTable() {
 	// Output:
 	// # study: demo section (invented)
 	// # reynolds number: 3e+05 on the element's own chord
-	// # units: alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive; cl, cd and cm from the coupled viscous solution, empty where it did not converge
+	// # units: alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive; cl, cd and cm from the coupled viscous solution, empty where it did not converge; flags: the row's plausibility cautions in words, separated by semicolons, none when there is none
 	// # x/c: along the main element's own chord from its leading edge; empty: none found, or the row did not converge
 	// # program: Sectionbench
-	// alpha_deg,cl,cd,cm,cl_inviscid,cm_inviscid,converged,past_cl_max,iterations,residual,transition_upper_xc,transition_lower_xc,separation_upper_xc,separation_lower_xc
-	// 0,0.2301,0.0091,-0.0502,0.2512,-0.0541,yes,no,31,4e-06,0.52,0.61,,
-	// 2,,,,0.4845,-0.0563,no,no,60,0.3,,,,
+	// alpha_deg,cl,cd,cm,cl_inviscid,cm_inviscid,converged,past_cl_max,iterations,residual,transition_upper_xc,transition_lower_xc,separation_upper_xc,separation_lower_xc,flags
+	// 0,0.2301,0.0091,-0.0502,0.2512,-0.0541,yes,no,31,4e-06,0.52,0.61,,,none
+	// 2,,,,0.4845,-0.0563,no,no,60,0.3,,,,,viscous solution not converged
 }

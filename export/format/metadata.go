@@ -22,6 +22,10 @@ type Metadata struct {
 	AlphaDeg float64 // NaN when the rows span several angles
 	Reynolds float64 // 0 when not known
 	Program  string  // program and version
+	// ClearanceOverChord is the ground clearance over the main element's
+	// chord, which the sweep tables' flags need; 0 in free air or when
+	// not known.
+	ClearanceOverChord float64
 	// Extra lines, each "key: value", after the standard ones.
 	Extra []string
 }
@@ -62,11 +66,16 @@ func oneLine(s string) string {
 
 // StudyMetadata is the metadata of a table of study st solved as res: the
 // study's name, the angle of attack, the main element's Reynolds number
-// and how it was set, and the program.
+// and how it was set, the ground clearance over chord, and the program.
 func StudyMetadata(st *model.Study, res *engine.Result, program string) Metadata {
 	m := Metadata{Study: st.Name, AlphaDeg: st.Flow.AlphaDeg, Program: program}
 	if res != nil && res.Solution != nil {
 		m.AlphaDeg = res.Solution.AlphaDeg
+	}
+	if res != nil {
+		if hc := res.Layout.HOverC(); hc > 0 {
+			m.ClearanceOverChord = hc
+		}
 	}
 	if res != nil && len(res.Reynolds) > 0 {
 		m.Reynolds = res.Reynolds[0]

@@ -7,6 +7,7 @@ import (
 	"math"
 	"strconv"
 
+	"sectionbench/model"
 	"sectionbench/solver"
 	bl "sectionbench/solver/boundarylayer"
 	"sectionbench/solver/engine"
@@ -85,13 +86,14 @@ func WriteCpTable(w io.Writer, m Metadata, sol *solver.Solution) error {
 // cp_min_xc; when viscous is not nil, also cd, transition_upper_xc,
 // transition_lower_xc, separation_upper_xc and separation_lower_xc (on the
 // main element) from the boundary-layer estimate, empty where there is
-// none or it is not available. viscous must be nil or as long as sweep.
+// none or it is not available; last, flags: the row's plausibility
+// cautions in words (flagsCell). viscous must be nil or as long as sweep.
 func WriteSweepTable(w io.Writer, m Metadata, sweep []solver.Coefficients, viscous []engine.ViscousPoint) error {
 	if viscous != nil && len(viscous) != len(sweep) {
 		panic(fmt.Sprintf("format: %d boundary-layer points for %d sweep angles", len(viscous), len(sweep)))
 	}
 	m.AlphaDeg = NoAngle
-	if err := m.write(w, "alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive",
+	if err := m.write(w, "alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive; "+flagsUnits,
 		"along the main element's own chord from its leading edge; empty: none found or outside the method's range"); err != nil {
 		return err
 	}
@@ -99,7 +101,7 @@ func WriteSweepTable(w io.Writer, m Metadata, sweep []solver.Coefficients, visco
 	if viscous != nil {
 		head = append(head, "cd", "transition_upper_xc", "transition_lower_xc", "separation_upper_xc", "separation_lower_xc")
 	}
-	t, err := newTable(w, head...)
+	t, err := newTable(w, append(head, "flags")...)
 	if err != nil {
 		return err
 	}
@@ -109,6 +111,11 @@ func WriteSweepTable(w io.Writer, m Metadata, sweep []solver.Coefficients, visco
 			v := viscous[i]
 			r = append(r, cell(v.Cd), cell(v.TransitionUpper), cell(v.TransitionLower), cell(v.SeparationUpper), cell(v.SeparationLower))
 		}
+		var v *engine.ViscousPoint
+		if viscous != nil {
+			v = &viscous[i]
+		}
+		r = append(r, flagsCell(engine.RowFlags(c, m.hOverC(), v, nil)))
 		if err := t.row(r...); err != nil {
 			return err
 		}
@@ -122,18 +129,19 @@ func WriteSweepTable(w io.Writer, m Metadata, sweep []solver.Coefficients, visco
 // cl_inviscid (from circulation) and cm_inviscid; converged and
 // past_cl_max (yes or no), iterations and residual; transition and
 // separation x/c per surface of the main element (empty: none, or not
-// converged). coupled must be as long as sweep.
+// converged); flags, the row's plausibility cautions in words
+// (flagsCell). coupled must be as long as sweep.
 func WriteCoupledSweepTable(w io.Writer, m Metadata, sweep []solver.Coefficients, coupled []engine.CoupledPoint) error {
 	if len(coupled) != len(sweep) {
 		panic(fmt.Sprintf("format: %d coupled points for %d sweep angles", len(coupled), len(sweep)))
 	}
 	m.AlphaDeg = NoAngle
-	if err := m.write(w, "alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive; cl, cd and cm from the coupled viscous solution, empty where it did not converge",
+	if err := m.write(w, "alpha_deg in degrees; coefficients without units on the reference chord, cl positive away from the ground (standard sense), cm nose-up positive; cl, cd and cm from the coupled viscous solution, empty where it did not converge; "+flagsUnits,
 		"along the main element's own chord from its leading edge; empty: none found, or the row did not converge"); err != nil {
 		return err
 	}
 	t, err := newTable(w, "alpha_deg", "cl", "cd", "cm", "cl_inviscid", "cm_inviscid", "converged", "past_cl_max", "iterations", "residual",
-		"transition_upper_xc", "transition_lower_xc", "separation_upper_xc", "separation_lower_xc")
+		"transition_upper_xc", "transition_lower_xc", "separation_upper_xc", "separation_lower_xc", "flags")
 	if err != nil {
 		return err
 	}
@@ -143,7 +151,8 @@ func WriteCoupledSweepTable(w io.Writer, m Metadata, sweep []solver.Coefficients
 		e := p.Elements[0]
 		if err := t.row(cell(c.AlphaDeg), cell(p.Cl), cell(p.Cd), cell(p.Cm), cell(c.Cl), cell(c.Cm), yes[p.Converged], yes[p.PastClMax],
 			strconv.Itoa(p.Iterations), cell(p.Residual),
-			cell(e.TransitionUpper), cell(e.TransitionLower), cell(e.SeparationUpper), cell(e.SeparationLower)); err != nil {
+			cell(e.TransitionUpper), cell(e.TransitionLower), cell(e.SeparationUpper), cell(e.SeparationLower),
+			flagsCell(engine.RowFlags(c, m.hOverC(), nil, &p))); err != nil {
 			return err
 		}
 	}
@@ -244,4 +253,24 @@ func WriteCoupledBoundaryLayerTable(w io.Writer, m Metadata, cs *solver.CoupledS
 		}
 	}
 	return t.close()
+}
+
+// flagsUnits says what the sweep tables' flags column holds.
+const flagsUnits = "flags: the row's plausibility cautions in words, separated by semicolons, none when there is none"
+
+// flagsCell writes a row's plausibility flags (engine.RowFlags) as their
+// kinds in words, "none" for none.
+func flagsCell(flags []model.Flag) string {
+	if len(flags) == 0 {
+		return "none"
+	}
+	return model.FlagWords(flags)
+}
+
+// hOverC is m's clearance over chord as the flags take it: NaN in free air.
+func (m Metadata) hOverC() float64 {
+	if m.ClearanceOverChord > 0 {
+		return m.ClearanceOverChord
+	}
+	return math.NaN()
 }

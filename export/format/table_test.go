@@ -125,8 +125,8 @@ func TestSweepTableGolden(t *testing.T) {
 		drag []engine.ViscousPoint
 		cols int
 	}{
-		{"sweep.csv", nil, 6},
-		{"sweep_drag.csv", dr, 11},
+		{"sweep.csv", nil, 7},
+		{"sweep_drag.csv", dr, 12},
 	} {
 		var b bytes.Buffer
 		if err := WriteSweepTable(&b, Metadata{Study: "synthetic sweep (invented)", Reynolds: 5e5, Program: "Sectionbench test"}, sw, c.drag); err != nil {
@@ -145,6 +145,52 @@ func TestSweepTableGolden(t *testing.T) {
 			t.Errorf("%s: unavailable cd written as %q", c.name, recs[3][6])
 		}
 		golden(t, c.name, b.Bytes())
+	}
+}
+
+// TestSweepTableFlags: each row of a sweep table says in words which
+// plausibility cautions it raises (engine.RowFlags): a suction peak beyond
+// the plausible one, a clearance below a tenth of the chord, the one-way
+// estimate or the coupled solution separated, past maximum lift or not
+// converged; "none" otherwise.
+func TestSweepTableFlags(t *testing.T) {
+	nan := math.NaN()
+	sw := []solver.Coefficients{{AlphaDeg: 0, CpMin: -2}, {AlphaDeg: 8, CpMin: model.CpMinPlausible - 1}}
+	vis := []engine.ViscousPoint{{Valid: true}, {Separated: true}}
+	el := []engine.CoupledElementPoint{{SeparationUpper: 0.5, SeparationLower: nan}}
+	coupled := []engine.CoupledPoint{{Converged: true, Elements: el}, {PastClMax: true, Elements: el}}
+	cases := []struct {
+		name  string
+		hc    float64
+		write func(*bytes.Buffer, Metadata) error
+		want  [2]string
+	}{
+		{"inviscid, free air", 0, func(b *bytes.Buffer, m Metadata) error { return WriteSweepTable(b, m, sw, nil) },
+			[2]string{"none", "suction beyond real flows"}},
+		{"inviscid, 0.05 chords off the ground", 0.05, func(b *bytes.Buffer, m Metadata) error { return WriteSweepTable(b, m, sw, nil) },
+			[2]string{"very close to the ground", "suction beyond real flows; very close to the ground"}},
+		{"estimate", 0, func(b *bytes.Buffer, m Metadata) error { return WriteSweepTable(b, m, sw, vis) },
+			[2]string{"none", "separated; suction beyond real flows"}},
+		{"coupled", 0, func(b *bytes.Buffer, m Metadata) error { return WriteCoupledSweepTable(b, m, sw, coupled) },
+			[2]string{"separated", "past maximum lift; viscous solution not converged; suction beyond real flows"}},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			var b bytes.Buffer
+			if err := c.write(&b, Metadata{Study: "flags (invented)", ClearanceOverChord: c.hc}); err != nil {
+				t.Fatal(err)
+			}
+			recs := readCSV(t, b.Bytes())
+			col := slices.Index(recs[0], "flags")
+			if col < 0 {
+				t.Fatalf("no flags column in %q", recs[0])
+			}
+			for i, want := range c.want {
+				if got := recs[i+1][col]; got != want {
+					t.Errorf("row %d: flags %q, want %q", i, got, want)
+				}
+			}
+		})
 	}
 }
 
@@ -207,7 +253,7 @@ func TestCSVMetadata(t *testing.T) {
 			sw := exporttest.Sweep()
 			return WriteSweepTable(b, meta, sw, exporttest.Drag(sw))
 		}, []string{"# study: rear wing", "# units: alpha_deg in degrees", "# x/c: along the main element's own chord"},
-			"alpha_deg,cl,cl_pressure,cm,cp_min,cp_min_xc,cd,transition_upper_xc,transition_lower_xc,separation_upper_xc,separation_lower_xc"},
+			"alpha_deg,cl,cl_pressure,cm,cp_min,cp_min_xc,cd,transition_upper_xc,transition_lower_xc,separation_upper_xc,separation_lower_xc,flags"},
 		{"boundary layer", func(b *bytes.Buffer) error { return WriteBoundaryLayerTable(b, meta, exporttest.Viscous()) },
 			[]string{"# study: rear wing", "# units: lengths over each element's own chord"},
 			"element,side,arc_length_over_chord,xc,edge_velocity,momentum_thickness_over_chord,displacement_thickness_over_chord,shape_factor,skin_friction,turbulent"},

@@ -458,7 +458,7 @@ const flagBLSeparates model.FlagKind = "boundary layer separates"
 
 // flagMeaning says in a footnote what each mark means for the wing.
 var flagMeaning = map[model.FlagKind]string{
-	model.FlagSeparated:    "the viscous solution finds the flow separated; the real wing stalls there.",
+	model.FlagSeparated:    fmt.Sprintf("the viscous solution or the boundary-layer estimate finds the flow separated ahead of x/c %.1f; the real wing stalls there.", engine.SeparatedFromXC),
 	model.FlagPastClMax:    "beyond the angle of maximum lift; the real wing gives less, not more.",
 	model.FlagNotConverged: "the viscous solution did not converge; the row is no answer.",
 	model.FlagSuction:      fmt.Sprintf("suction peak below Cp %d, beyond what real flows sustain at these Reynolds numbers; the wing would separate.", model.CpMinPlausible),
@@ -471,8 +471,12 @@ var flagMeaning = map[model.FlagKind]string{
 // one-way estimate's separation.
 func (r *writer) sweepFlags(i int) []model.Flag {
 	res := r.in.Result
-	c := res.Sweep[i]
-	flags := model.Plausibility(model.PointFacts{CpMin: c.CpMin, HOverC: hOverC(res), Viscous: r.viscousFacts(i)})
+	var flags []model.Flag
+	if r.in.Coupled == nil {
+		flags = res.SweepFlags(i) // with the one-way estimate's separation
+	} else {
+		flags = model.Plausibility(model.PointFacts{CpMin: res.Sweep[i].CpMin, HOverC: hOverC(res), Viscous: r.viscousFacts(i)})
+	}
 	if len(res.SweepViscous) == len(res.Sweep) && !res.SweepViscous[i].Valid {
 		flags = append(flags, model.Flag{Kind: flagBLSeparates})
 	}

@@ -33,6 +33,9 @@ type Coupled struct {
 	// PastClMax, NotConverged and Separated are per sweep angle (parallel
 	// to Result.Sweep), nil when not known.
 	PastClMax, NotConverged, Separated []bool
+	// PointPastClMax and PointSeparated are the verdicts at the study's
+	// angle (engine.CoupledPoint.Facts).
+	PointPastClMax, PointSeparated bool
 }
 
 // CoupledElement is the coupled solution on one element; x/c NaN for none.
@@ -58,10 +61,13 @@ func CoupledFrom(st *model.Study, res *engine.Result) *Coupled {
 			TransitionUpperXC: e.TransitionUpper, TransitionLowerXC: e.TransitionLower,
 			SeparationUpperXC: e.SeparationUpper, SeparationLowerXC: e.SeparationLower})
 	}
+	f := cp.Facts()
+	c.PointPastClMax, c.PointSeparated = f.PastClMax, f.Separated
 	if n := len(res.Sweep); n > 0 && len(res.SweepCoupled) == n {
-		c.PastClMax, c.NotConverged = make([]bool, n), make([]bool, n)
-		for i, p := range res.SweepCoupled {
-			c.PastClMax[i], c.NotConverged[i] = p.PastClMax, !p.Converged
+		c.PastClMax, c.NotConverged, c.Separated = make([]bool, n), make([]bool, n), make([]bool, n)
+		for i := range res.SweepCoupled {
+			f := res.SweepCoupled[i].Facts()
+			c.PastClMax[i], c.NotConverged[i], c.Separated[i] = f.PastClMax, f.NotConverged, f.Separated
 		}
 	}
 	return c
@@ -373,9 +379,14 @@ func (r *writer) openIssues(h headline) []string {
 	return out
 }
 
-// flags are the plausibility flags at the study's angle of attack.
+// flags are the plausibility flags at the study's angle of attack: the
+// engine's (which take the one-way estimate's separation), or with the
+// coupled solution its verdicts as the report holds them.
 func (r *writer) flags() []model.Flag {
 	res := r.in.Result
+	if r.in.Coupled == nil {
+		return res.Flags()
+	}
 	cp := math.Inf(1)
 	for _, e := range res.Solution.Elements {
 		cp = math.Min(cp, e.CpMin)
@@ -390,15 +401,10 @@ func (r *writer) viscousFacts(i int) *model.ViscousFacts {
 	if c == nil {
 		return nil
 	}
-	at := func(v []bool) bool {
-		if i < 0 {
-			return false
-		}
-		return i < len(v) && v[i]
-	}
 	if i < 0 {
-		return &model.ViscousFacts{NotConverged: !c.Converged}
+		return &model.ViscousFacts{PastClMax: c.PointPastClMax, NotConverged: !c.Converged, Separated: c.PointSeparated}
 	}
+	at := func(v []bool) bool { return i < len(v) && v[i] }
 	return &model.ViscousFacts{PastClMax: at(c.PastClMax), NotConverged: at(c.NotConverged), Separated: at(c.Separated)}
 }
 

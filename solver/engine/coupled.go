@@ -56,9 +56,17 @@ type CoupledElementPoint struct {
 	BubbleUpper, BubbleLower         [2]float64 // laminar separation bubble from–to x/c; NaN, NaN for none
 }
 
-// Facts returns the point's verdict for model.Plausibility.
+// Facts returns the point's verdict for model.Plausibility: past maximum
+// lift, not converged, and, when it converged, separated ahead of
+// SeparatedFromXC on some element.
 func (p *CoupledPoint) Facts() *model.ViscousFacts {
-	return &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged}
+	f := &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged}
+	if p.Converged {
+		for _, e := range p.Elements {
+			f.Separated = f.Separated || separatedAhead(e.SeparationUpper, e.SeparationLower)
+		}
+	}
+	return f
 }
 
 // coupledPoint summarises a solver solution at the study angle alphaDeg.

@@ -64,7 +64,10 @@ type ViscousPoint struct {
 	SeparationUpper float64
 	SeparationLower float64
 	Valid           bool
-	Note            string // why the estimate failed at this angle, when it did
+	// Separated is true when some element's layer separates ahead of
+	// SeparatedFromXC (all elements, not only the main one).
+	Separated bool
+	Note      string // why the estimate failed at this angle, when it did
 }
 
 // Engine turns study states into results. It keeps the last placed layout
@@ -312,6 +315,7 @@ func viscousPoint(alpha float64, sol *solver.Solution, opt solver.ViscousOptions
 	p.TransitionUpper, p.TransitionLower = m.Upper.TransitionXC, m.Lower.TransitionXC
 	p.SeparationUpper, p.SeparationLower = m.Upper.TurbulentSeparationXC, m.Lower.TurbulentSeparationXC
 	p.Valid = true
+	p.Separated = estimateSeparated(v)
 	for _, el := range v.Elements {
 		p.Valid = p.Valid && el.Valid
 	}

@@ -1,0 +1,85 @@
+package engine
+
+import (
+	"math"
+	"slices"
+	"testing"
+
+	"sectionbench/model"
+	"sectionbench/solver"
+)
+
+func kinds(flags []model.Flag) []model.FlagKind {
+	var k []model.FlagKind
+	for _, f := range flags {
+		k = append(k, f.Kind)
+	}
+	return k
+}
+
+// TestSeparatedFromXC: a point separated ahead of SeparatedFromXC is
+// flagged separated, by the coupled solution (when it converged) and by
+// the one-way estimate alike; separation in the last tenth of the chord,
+// none, or a coupled point that did not converge (flagged as such) are not.
+func TestSeparatedFromXC(t *testing.T) {
+	nan := math.NaN()
+	cases := []struct {
+		name      string
+		converged bool
+		upper     float64
+		want      bool
+	}{
+		{"separated from 0.7", true, 0.7, true},
+		{"last 5 % only", true, 0.95, false},
+		{"attached", true, nan, false},
+		{"not converged", false, 0.7, false},
+	}
+	for _, c := range cases {
+		t.Run("coupled, "+c.name, func(t *testing.T) {
+			p := &CoupledPoint{Converged: c.converged, Elements: []CoupledElementPoint{{SeparationUpper: c.upper, SeparationLower: nan}}}
+			if got := p.Facts().Separated; got != c.want {
+				t.Errorf("separated %v, want %v", got, c.want)
+			}
+		})
+		if !c.converged {
+			continue
+		}
+		t.Run("estimate, "+c.name, func(t *testing.T) {
+			v := &solver.ViscousResult{Elements: []solver.ElementBL{{}, {}}}
+			v.Elements[0].Upper.TurbulentSeparationXC, v.Elements[0].Lower.TurbulentSeparationXC = nan, nan
+			v.Elements[1].Upper.TurbulentSeparationXC, v.Elements[1].Lower.TurbulentSeparationXC = nan, c.upper // the flap's
+			r := &Result{Solution: &solver.Solution{Elements: []solver.ElementSolution{{CpMin: -2}}}, Viscous: v}
+			if got := slices.Contains(kinds(r.Flags()), model.FlagSeparated); got != c.want {
+				t.Errorf("flagged separated %v, want %v", got, c.want)
+			}
+		})
+	}
+}
+
+// TestRowFlags: each row of a sweep is flagged from its own suction peak,
+// the clearance, and the viscous verdict at its angle.
+func TestRowFlags(t *testing.T) {
+	nan := math.NaN()
+	cases := []struct {
+		name   string
+		cpMin  float64
+		hOverC float64
+		v      *ViscousPoint
+		p      *CoupledPoint
+		want   []model.FlagKind
+	}{
+		{"plain", -3, nan, nil, nil, nil},
+		{"suction", -9, nan, nil, nil, []model.FlagKind{model.FlagSuction}},
+		{"close to the ground", -3, 0.05, nil, nil, []model.FlagKind{model.FlagGround}},
+		{"estimate separated", -3, nan, &ViscousPoint{Separated: true}, nil, []model.FlagKind{model.FlagSeparated}},
+		{"coupled past Cl max, not converged", -3, nan, nil, &CoupledPoint{PastClMax: true}, []model.FlagKind{model.FlagPastClMax, model.FlagNotConverged}},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			got := kinds(RowFlags(solver.Coefficients{CpMin: c.cpMin}, c.hOverC, c.v, c.p))
+			if !slices.Equal(got, c.want) {
+				t.Errorf("flags %v, want %v", got, c.want)
+			}
+		})
+	}
+}
