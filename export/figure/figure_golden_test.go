@@ -2,12 +2,15 @@ package figure
 
 import (
 	"bytes"
+	"encoding/xml"
 	"flag"
 	"fmt"
 	"image"
 	"image/png"
+	"io"
 	"os"
 	"path/filepath"
+	"strings"
 	"testing"
 
 	"sectionbench/export/exporttest"
@@ -58,15 +61,23 @@ var goldenViews = []View{ViewPanels, ViewPressure, ViewPolar, ViewStreamlines, V
 // goldenCoupledViews are drawn from synthCoupledScene.
 var goldenCoupledViews = []View{ViewPressure, ViewPolar, ViewDragPolar}
 
-func TestFiguresGolden(t *testing.T) {
-	for _, set := range []struct {
-		suffix string
-		scene  *Scene
-		views  []View
-	}{
+// goldenSet is a scene and the views of it pinned by golden files, named
+// after the view with suffix.
+type goldenSet struct {
+	suffix string
+	scene  *Scene
+	views  []View
+}
+
+func goldenSets() []goldenSet {
+	return []goldenSet{
 		{"", synthScene(), goldenViews},
 		{"-coupled", synthCoupledScene(), goldenCoupledViews},
-	} {
+	}
+}
+
+func TestFiguresGolden(t *testing.T) {
+	for _, set := range goldenSets() {
 		for _, v := range set.views {
 			name := v.String() + set.suffix
 			t.Run(name, func(t *testing.T) {
@@ -76,6 +87,87 @@ func TestFiguresGolden(t *testing.T) {
 				}
 				goldenImage(t, name+".png", f.Image)
 			})
+		}
+	}
+}
+
+// TestFiguresGoldenText pins every text the golden views draw (title,
+// axis labels, tick labels, key entries, annotations), in drawing order,
+// as their SVG rendering holds it: testdata/golden/figure/texts.txt, one
+// block per view. The image comparison's tolerance lets a changed digit
+// through (the pressure title's Cl 0.5702 → 0.5703 changes 6 unmatched
+// pixels, under the limit of about 110); this catches it. -update rewrites
+// the file with the images.
+func TestFiguresGoldenText(t *testing.T) {
+	var b strings.Builder
+	for _, set := range goldenSets() {
+		for _, v := range set.views {
+			var svg bytes.Buffer
+			if err := WriteFigure(&svg, v, set.scene, "svg", float64(goldenWidth)/goldenDPI, float64(goldenHeight)/goldenDPI, goldenDPI); err != nil {
+				t.Fatalf("%v%s: %v", v, set.suffix, err)
+			}
+			texts, err := svgTexts(svg.Bytes())
+			if err != nil {
+				t.Fatalf("%v%s: %v", v, set.suffix, err)
+			}
+			fmt.Fprintf(&b, "== %v%s\n%s\n", v, set.suffix, strings.Join(texts, "\n"))
+		}
+	}
+	got := b.String()
+	path := filepath.Join("..", "..", "testdata", "golden", "figure", "texts.txt")
+	if *update {
+		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run go test ./export/figure -run Golden -update to create it)", err)
+	}
+	gl, wl := strings.Split(got, "\n"), strings.Split(string(want), "\n")
+	for i := range max(len(gl), len(wl)) {
+		var g, w string
+		if i < len(gl) {
+			g = gl[i]
+		}
+		if i < len(wl) {
+			w = wl[i]
+		}
+		if g != w {
+			t.Fatalf("figure texts differ from %s at line %d:\n got: %q\nwant: %q\n(run with -update if the change is deliberate)", path, i+1, g, w)
+		}
+	}
+}
+
+// svgTexts returns the character data of the <text> elements of an SVG
+// document, in document order.
+func svgTexts(svg []byte) ([]string, error) {
+	d := xml.NewDecoder(bytes.NewReader(svg))
+	var out []string
+	in := 0
+	for {
+		tok, err := d.Token()
+		if err == io.EOF {
+			return out, nil
+		}
+		if err != nil {
+			return nil, err
+		}
+		switch tk := tok.(type) {
+		case xml.StartElement:
+			if tk.Name.Local == "text" {
+				in++
+				out = append(out, "")
+			}
+		case xml.EndElement:
+			if tk.Name.Local == "text" {
+				in--
+			}
+		case xml.CharData:
+			if in > 0 {
+				out[len(out)-1] += string(tk)
+			}
 		}
 	}
 }
