@@ -63,19 +63,6 @@ func NewStudy() *Study {
 	}
 }
 
-// Clone returns a deep copy of st.
-func (st *Study) Clone() *Study {
-	b, err := json.Marshal(st)
-	if err != nil {
-		panic("model: study cannot be copied: " + err.Error())
-	}
-	var c Study
-	if err := json.Unmarshal(b, &c); err != nil {
-		panic("model: study cannot be copied: " + err.Error())
-	}
-	return &c
-}
-
 // Encode returns the study as indented JSON.
 func (st *Study) Encode() ([]byte, error) {
 	if err := st.Validate(); err != nil {
