@@ -472,6 +472,7 @@ func (c *controls) useKT() {
 		}
 		v[i] = x
 	}
+	c.w.editFrom(c.ktMsg)
 	setMessage(c.ktMsg, c.w.ctl.SetKT(model.KarmanTrefftz{CenterX: v[0], CenterY: v[1], TEAngleDeg: v[2]}))
 }
 

@@ -70,10 +70,10 @@ func newElementControls(c *controls) *elementControls {
 	}
 	ec.listHeight = canvas.NewRectangle(color.Transparent)
 	ec.msg = message()
-	ec.add = widget.NewButtonWithIcon("Add flap", theme.ContentAddIcon(), func() { setMessage(ec.msg, ctl.AddElement()) })
-	ec.remove = widget.NewButtonWithIcon("Remove", theme.ContentRemoveIcon(), func() { setMessage(ec.msg, ctl.RemoveElement(ctl.Element())) })
-	ec.up = widget.NewButtonWithIcon("", theme.MoveUpIcon(), func() { setMessage(ec.msg, ctl.MoveElement(ctl.Element(), -1)) })
-	ec.down = widget.NewButtonWithIcon("", theme.MoveDownIcon(), func() { setMessage(ec.msg, ctl.MoveElement(ctl.Element(), 1)) })
+	ec.add = widget.NewButtonWithIcon("Add flap", theme.ContentAddIcon(), func() { c.w.editFrom(ec.msg); setMessage(ec.msg, ctl.AddElement()) })
+	ec.remove = widget.NewButtonWithIcon("Remove", theme.ContentRemoveIcon(), func() { c.w.editFrom(ec.msg); setMessage(ec.msg, ctl.RemoveElement(ctl.Element())) })
+	ec.up = widget.NewButtonWithIcon("", theme.MoveUpIcon(), func() { c.w.editFrom(ec.msg); setMessage(ec.msg, ctl.MoveElement(ctl.Element(), -1)) })
+	ec.down = widget.NewButtonWithIcon("", theme.MoveDownIcon(), func() { c.w.editFrom(ec.msg); setMessage(ec.msg, ctl.MoveElement(ctl.Element(), 1)) })
 
 	ec.placeHead = heading("Placement")
 	ec.placeMsg = message()

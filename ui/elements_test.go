@@ -120,6 +120,7 @@ func TestMaxElements(t *testing.T) {
 		if err := w.ctl.AddElement(); err != nil {
 			t.Fatalf("adding element %d: %v", len(w.ctl.Study().Elements)+1, err)
 		}
+		w.WaitIdle() // the new flap is placed off the UI goroutine
 	}
 	if got := len(current(t, w).Solution.Elements); got != model.MaxElements {
 		t.Fatalf("result has %d elements, want %d", got, model.MaxElements)
@@ -193,6 +194,7 @@ func TestFlapPlacementRoundTrip(t *testing.T) {
 	// keeps the flap's gap, overlap and deflection.
 	ec.list.Select(0)
 	ec.angle.submit("5")
+	w.WaitIdle()
 	st := w.ctl.Study()
 	if got := w.ctl.SlotOf(1); !near(got, want) {
 		t.Errorf("after turning the main element the flap sits at %+v", got)

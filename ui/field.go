@@ -18,6 +18,7 @@ type field struct {
 	msg   *widget.Label
 	inUse string
 	w     *Workbench
+	left  int // times the field lost the focus (refusal.go)
 }
 
 // newField returns a field on w that applies its text with apply and shows
@@ -48,6 +49,7 @@ func textField(w *Workbench, msg *widget.Label, apply func(string) error) *field
 // FocusLost applies the text, or reverts it to the value in use.
 func (f *field) FocusLost() {
 	f.Entry.FocusLost()
+	f.left++
 	f.commit(true)
 }
 
@@ -97,6 +99,9 @@ func (f *field) commit(leaving bool) {
 	}
 	if f.Text == f.inUse {
 		return
+	}
+	if f.w != nil {
+		f.w.editFromField(f, leaving)
 	}
 	if err := f.apply(f.Text); err != nil {
 		setMessage(f.msg, err)

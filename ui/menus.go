@@ -186,6 +186,7 @@ func (w *Workbench) loadStudyFile(path string) {
 
 // loadSectionFile makes a coordinate file the current element's section.
 func (w *Workbench) loadSectionFile(path string) {
+	w.editFrom(w.controls.sourceMsg)
 	if err := w.ctl.SetSectionFile(path); err != nil {
 		w.controls.sourceError(err)
 		w.userError(err)

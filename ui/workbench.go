@@ -56,6 +56,7 @@ type Workbench struct {
 	enlarged viewKind // numViews when none
 
 	controls *controls
+	origin   editOrigin // the control that made the newest edit (refusal.go)
 	sceneMu  sync.Mutex
 	scene    *scene // newest scene shown
 	status   *statusLine
@@ -127,6 +128,7 @@ func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain
 	w.build()
 	ctl.OnResult = w.present
 	ctl.OnError = w.userError
+	ctl.OnRefused = w.refused
 	if opened != nil {
 		ctl.Open(opened, path)
 	} else if err := ctl.Load(st, path); err != nil {

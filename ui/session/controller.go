@@ -49,6 +49,14 @@ type Controller struct {
 	// OnError is called on the UI goroutine when a change could not be
 	// made outside an edit (which returns its error instead).
 	OnError func(err error)
+	// OnRefused is called on the UI goroutine when pending edits are
+	// refused because their elements cannot be placed (OnError when nil).
+	OnRefused func(err error)
+	// pending holds the edits waiting for their placement, nil when none;
+	// placing is true while a placement runs. UI goroutine only.
+	pending *proposal
+	placing bool
+	placer  func(*model.Study, []*model.Section) error // checkGeometry; tests hold it
 
 	mu          sync.Mutex
 	result      *engine.Result
@@ -78,7 +86,7 @@ func NewController(do func(func())) *Controller {
 	if do == nil {
 		panic("session: NewController(nil)")
 	}
-	c := &Controller{act: NewActivity(), newEngine: newEngine, do: do}
+	c := &Controller{act: NewActivity(), newEngine: newEngine, do: do, placer: checkGeometry}
 	c.sched = newScheduler(newEngine(), c.act, c.deliver)
 	return c
 }
@@ -180,6 +188,7 @@ func (c *Controller) Open(o *export.OpenedStudy, path string) {
 // use makes st, with its loaded sections, the study, with a fresh history.
 func (c *Controller) use(st *model.Study, secs []*model.Section, reps []*model.CleanReport) {
 	c.CancelSweep()
+	c.dropPending()
 	c.state.set(st.Clone(), secs, reps)
 	c.state.dirty = false
 	c.hist.Reset()
@@ -203,39 +212,16 @@ func (c *Controller) Save(path string) error {
 	return nil
 }
 
-// Edit applies fn to a copy of the study. If the result is valid, its
-// sections load and (when the configuration changed) its elements can be
-// placed without overlapping or touching, it becomes the study (one undo
-// step; edits with the same non-empty key in a row merge into one) and is
-// solved; otherwise the study stays as it was and the error says why.
+// Edit applies fn to a copy of the study. If the result is valid and its
+// sections load, it becomes the study (one undo step; edits with the same
+// non-empty key in a row merge into one) and is solved; otherwise the
+// study stays as it was and the error says why. An edit that changes the
+// elements is placed first, off the UI goroutine (see placement.go): Edit
+// then returns nil at once, and the study changes when the elements can be
+// placed without overlapping or touching, or stays as it was, with the
+// reason through OnRefused.
 func (c *Controller) Edit(key string, fn func(st *model.Study)) error {
-	next := c.state.study.Clone()
-	fn(next)
-	if err := next.Validate(); err != nil {
-		return err
-	}
-	if err := next.CheckFlow(); err != nil {
-		return err
-	}
-	secs, reps, err := c.state.sectionsFor(next)
-	if err != nil {
-		return err
-	}
-	geometry := !EqualGeometry(c.state.study, next)
-	// Placing costs O(n²) in the panels of each pair of elements (tens of
-	// milliseconds for five elements of 160 panels), so it runs only when
-	// the elements themselves changed. A panelling change that leaves a
-	// gap narrower than its panels is reported by the solve instead.
-	if !reflect.DeepEqual(c.state.study.Elements, next.Elements) {
-		if err := checkGeometry(next, secs); err != nil {
-			return err
-		}
-	}
-	c.hist.Record(c.state.study, key)
-	c.state.set(next, secs, reps)
-	c.state.dirty = true
-	c.changed(geometry)
-	return nil
+	return c.edit(key, fn, nil)
 }
 
 // BreakMerge ends a run of merged edits (a slider drag has ended).
@@ -252,6 +238,7 @@ func (c *Controller) CanUndo() bool { return c.hist.CanUndo() }
 func (c *Controller) CanRedo() bool { return c.hist.CanRedo() }
 
 func (c *Controller) step(f func(*model.Study) (*model.Study, bool)) bool {
+	c.dropPending()
 	st, ok := f(c.state.study)
 	if !ok {
 		return false
@@ -309,7 +296,7 @@ func (c *Controller) changed(geometry bool) {
 // goroutine only.
 func (c *Controller) Subscribe(f func()) {
 	if f == nil {
-		panic("ui: Subscribe(nil)")
+		panic("session: Subscribe(nil)")
 	}
 	c.studyListeners = append(c.studyListeners, f)
 }
@@ -481,6 +468,9 @@ func (c *Controller) CancelSweep() {
 // of the study before that result arrives drops the waiting pin, with an
 // error through OnError. UI goroutine only.
 func (c *Controller) PinCurrent() error {
+	if c.pending != nil {
+		return errPlacing
+	}
 	if len(c.state.study.Pins) >= maxPins {
 		return fmt.Errorf("at most %d pins; clear them first", maxPins)
 	}
@@ -548,6 +538,9 @@ func (c *Controller) pin() error {
 	if res == nil {
 		return errors.New("no current result to pin yet")
 	}
+	if c.pending != nil {
+		return errPlacing
+	}
 	label := pinLabel(c.pinBase, c.state.study, c.pinBaseSecs, c.state.sections)
 	p := pinFromResult(label, res, c.Sweep())
 	base := c.state.study.Clone()
@@ -562,8 +555,11 @@ func (c *Controller) pin() error {
 // empty and no two pins may share one.
 func (c *Controller) RenamePin(i int, label string) error {
 	pins := c.state.study.Pins
+	if c.pending != nil {
+		return errPlacing
+	}
 	if i < 0 || i >= len(pins) {
-		panic(fmt.Sprintf("ui: pin %d out of range", i))
+		panic(fmt.Sprintf("session: pin %d out of range", i))
 	}
 	label = strings.TrimSpace(label)
 	if label == "" {
@@ -615,7 +611,7 @@ func (c *Controller) Element() int {
 // setting, not a change of the study.
 func (c *Controller) SetElement(i int) {
 	if i < 0 || i >= len(c.state.study.Elements) {
-		panic(fmt.Sprintf("ui: element %d out of range", i))
+		panic(fmt.Sprintf("session: element %d out of range", i))
 	}
 	c.elem = i
 	c.notify()
@@ -628,8 +624,12 @@ func (c *Controller) SetNACA(designation string) error {
 	if _, err := model.ParseNACA(d); err != nil {
 		return err
 	}
+	i := c.Element()
+	if err := c.editIndex(i); err != nil {
+		return err
+	}
 	return c.Edit("naca", func(st *model.Study) {
-		st.Elements[c.Element()].Section = model.SectionSource{Spec: "naca:" + d}
+		st.Elements[i].Section = model.SectionSource{Spec: "naca:" + d}
 	})
 }
 
@@ -640,14 +640,17 @@ func (c *Controller) SetSectionFile(path string) error {
 	if err != nil {
 		return err
 	}
-	err = c.Edit("", func(st *model.Study) {
-		st.Elements[c.Element()].Section = model.EmbedSection(sec)
-	})
-	if err == nil && rep != nil {
-		c.state.reports[c.Element()] = rep
-		c.notify()
+	i := c.Element()
+	if err := c.editIndex(i); err != nil {
+		return err
 	}
-	return err
+	return c.edit("", func(st *model.Study) {
+		st.Elements[i].Section = model.EmbedSection(sec)
+	}, func() {
+		if rep != nil {
+			c.state.reports[i] = rep
+		}
+	})
 }
 
 // SetPanelling replaces the panelling; key merges a run of slider ticks.
@@ -673,8 +676,12 @@ func (c *Controller) SetKT(k model.KarmanTrefftz) error {
 	if err := k.Validate(); err != nil {
 		return err
 	}
+	i := c.Element()
+	if err := c.editIndex(i); err != nil {
+		return err
+	}
 	return c.Edit("", func(st *model.Study) {
-		st.Elements[c.Element()].Section = model.SectionSource{Spec: "kt:" + k.String()}
+		st.Elements[i].Section = model.SectionSource{Spec: "kt:" + k.String()}
 	})
 }
 
@@ -686,13 +693,4 @@ func (c *Controller) SetInverted(on bool) error {
 // SetGround sets the ground plane.
 func (c *Controller) SetGround(key string, g model.Ground) error {
 	return c.Edit(key, func(st *model.Study) { st.Ground = g })
-}
-
-// checkGeometry places the configuration as the solver will and reports
-// overlapping elements and gaps too small for the panels
-// (*model.GeometryError), so that such an edit can be refused before it
-// replaces a configuration that solves.
-func checkGeometry(st *model.Study, secs []*model.Section) error {
-	_, err := model.Place(st, secs)
-	return err
 }

@@ -33,7 +33,7 @@ func DensityPlansEqual(a, b model.DensityPlan) bool {
 // UseDensityPanels sets the study's panel count, and its nose clustering
 // when nose is not the study's: one undoable change.
 func (c *Controller) UseDensityPanels(panels int, nose float64) error {
-	p := c.state.study.Panelling
+	p := c.editing().Panelling
 	p.Panels, p.Nose = panels, nose
 	return c.SetPanelling("", p)
 }

@@ -20,20 +20,18 @@ const newFlapName = "flap"
 // proportions (see newFlap), and selects it. It fails when the study holds
 // model.MaxElements already or the new flap cannot be placed.
 func (c *Controller) AddElement() error {
-	st := c.state.study
+	st := c.editing()
 	n := len(st.Elements)
 	if n >= model.MaxElements {
 		return fmt.Errorf("a study holds at most %d elements", model.MaxElements)
 	}
 	name := uniqueElementName(st, newFlapName)
-	err := c.Edit("", func(s *model.Study) {
+	err := c.edit("", func(s *model.Study) {
 		s.AppendFlap(name)
-	})
+	}, func() { c.elem = n })
 	if err != nil {
 		return fmt.Errorf("no room for a flap behind %q: %w", st.Elements[n-1].Name, err)
 	}
-	c.elem = n
-	c.notify()
 	return nil
 }
 
@@ -59,20 +57,16 @@ var ErrLastElement = errors.New("a study needs at least one element; the last on
 
 // RemoveElement removes element i. The other elements stay where they are.
 func (c *Controller) RemoveElement(i int) error {
-	n := len(c.state.study.Elements)
-	c.checkIndex(i)
+	if err := c.editIndex(i); err != nil {
+		return err
+	}
+	n := len(c.editing().Elements)
 	if n == 1 {
 		return ErrLastElement
 	}
-	err := c.Edit("", func(s *model.Study) {
+	return c.edit("", func(s *model.Study) {
 		s.Elements = append(s.Elements[:i], s.Elements[i+1:]...)
-	})
-	if err != nil {
-		return err
-	}
-	c.elem = min(i, n-2)
-	c.notify()
-	return nil
+	}, func() { c.elem = min(i, n-2) })
 }
 
 // MoveElement moves element i by delta places in the order (−1: up, one
@@ -81,26 +75,37 @@ func (c *Controller) RemoveElement(i int) error {
 // deflection refer to, and the first is the main element the moment and
 // the ground-effect pitch are taken about.
 func (c *Controller) MoveElement(i, delta int) error {
-	c.checkIndex(i)
-	j := i + delta
-	if j < 0 || j >= len(c.state.study.Elements) {
-		return fmt.Errorf("element %d cannot move %+d places", i+1, delta)
-	}
-	err := c.Edit("", func(s *model.Study) {
-		s.Elements[i], s.Elements[j] = s.Elements[j], s.Elements[i]
-	})
-	if err != nil {
+	if err := c.editIndex(i); err != nil {
 		return err
 	}
-	c.elem = j
-	c.notify()
-	return nil
+	j := i + delta
+	if j < 0 || j >= len(c.editing().Elements) {
+		return fmt.Errorf("element %d cannot move %+d places", i+1, delta)
+	}
+	return c.edit("", func(s *model.Study) {
+		s.Elements[i], s.Elements[j] = s.Elements[j], s.Elements[i]
+	}, func() { c.elem = j })
 }
 
 func (c *Controller) checkIndex(i int) {
 	if i < 0 || i >= len(c.state.study.Elements) {
-		panic(fmt.Sprintf("ui: element %d out of range", i))
+		panic(fmt.Sprintf("session: element %d out of range", i))
 	}
+}
+
+// errPlacing refuses an edit of an element that pending edits have
+// removed (the user was quicker than the placement).
+var errPlacing = errors.New("the elements are still being placed; try again")
+
+// editIndex checks that element i of the study can be edited: it panics
+// when the study has no element i, and returns errPlacing when the study
+// the edit applies to (pending edits included) has none.
+func (c *Controller) editIndex(i int) error {
+	c.checkIndex(i)
+	if i >= len(c.editing().Elements) {
+		return errPlacing
+	}
+	return nil
 }
 
 // Placement is where an element sits: chord, leading edge and setting
@@ -119,7 +124,9 @@ func (c *Controller) PlacementOf(i int) Placement {
 // SetPlacement places element i; the elements behind it follow, keeping
 // their gap, overlap and deflection. key merges a run of typing.
 func (c *Controller) SetPlacement(key string, i int, p Placement) error {
-	c.checkIndex(i)
+	if err := c.editIndex(i); err != nil {
+		return err
+	}
 	return c.Edit(key, func(s *model.Study) {
 		e := s.Elements[i]
 		e.ChordMM, e.XMM, e.YMM, e.AngleDeg = p.ChordMM, p.XMM, p.YMM, p.AngleDeg
@@ -132,7 +139,7 @@ func (c *Controller) SetPlacement(key string, i int, p Placement) error {
 func (c *Controller) SlotOf(i int) model.Slot {
 	c.checkIndex(i)
 	if i == 0 {
-		panic("ui: the first element has no slot")
+		panic("session: the first element has no slot")
 	}
 	return c.state.study.SlotOf(i, c.state.sections[i])
 }
@@ -140,12 +147,14 @@ func (c *Controller) SlotOf(i int) model.Slot {
 // SetSlot places element i (not the first) at gap, overlap and deflection
 // behind element i−1; the elements behind it follow.
 func (c *Controller) SetSlot(key string, i int, sl model.Slot) error {
-	c.checkIndex(i)
 	if i == 0 {
-		panic("ui: the first element has no slot")
+		panic("session: the first element has no slot")
 	}
-	next := c.state.study.Clone()
-	if err := next.PlaceSlot(i, c.state.sections[i], sl); err != nil {
+	if err := c.editIndex(i); err != nil {
+		return err
+	}
+	next := c.editing().Clone()
+	if err := next.PlaceSlot(i, c.editingSections()[i], sl); err != nil {
 		return err
 	}
 	return c.Edit(key, func(s *model.Study) { s.Elements = next.Elements })
@@ -160,12 +169,14 @@ func (c *Controller) SetReferenceChord(key string, mm float64) error {
 // SetElementName renames element i; names label the results, the report
 // and the pins. key merges a run of typing.
 func (c *Controller) SetElementName(key string, i int, name string) error {
-	c.checkIndex(i)
+	if err := c.editIndex(i); err != nil {
+		return err
+	}
 	name = strings.TrimSpace(name)
 	if name == "" {
 		return errors.New("an element needs a name")
 	}
-	for j, e := range c.state.study.Elements {
+	for j, e := range c.editing().Elements {
 		if j != i && e.Name == name {
 			return fmt.Errorf("element %d is already named %q", j+1, name)
 		}
