@@ -113,31 +113,8 @@ func TestFiguresGoldenText(t *testing.T) {
 			fmt.Fprintf(&b, "== %v%s\n%s\n", v, set.suffix, strings.Join(texts, "\n"))
 		}
 	}
-	got := b.String()
-	path := filepath.Join("..", "..", "testdata", "golden", "figure", "texts.txt")
-	if *update {
-		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test ./export/figure -run Golden -update to create it)", err)
-	}
-	gl, wl := strings.Split(got, "\n"), strings.Split(string(want), "\n")
-	for i := range max(len(gl), len(wl)) {
-		var g, w string
-		if i < len(gl) {
-			g = gl[i]
-		}
-		if i < len(wl) {
-			w = wl[i]
-		}
-		if g != w {
-			t.Fatalf("figure texts differ from %s at line %d:\n got: %q\nwant: %q\n(run with -update if the change is deliberate)", path, i+1, g, w)
-		}
-	}
+	exporttest.GoldenText(t, filepath.Join("..", "..", "testdata", "golden", "figure", "texts.txt"), []byte(b.String()), *update,
+		"go test ./export/figure -run Golden -update")
 }
 
 // svgTexts returns the character data of the <text> elements of an SVG

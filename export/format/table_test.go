@@ -5,7 +5,6 @@ import (
 	"encoding/csv"
 	"flag"
 	"math"
-	"os"
 	"path/filepath"
 	"slices"
 	"strconv"
@@ -21,27 +20,12 @@ import (
 
 var update = flag.Bool("update", false, "rewrite the golden files in testdata/golden")
 
-// golden compares got with the golden file name in ../testdata/golden, or
-// rewrites it with -update.
+// golden compares got with the golden file name in testdata/golden at the
+// repository root, or rewrites it with -update.
 func golden(t *testing.T, name string, got []byte) {
 	t.Helper()
-	path := filepath.Join("..", "..", "testdata", "golden", name)
-	if *update {
-		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(path, got, 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test ./export/format -run %s -update to create it)", err, t.Name())
-	}
-	if !bytes.Equal(got, want) {
-		t.Errorf("%s differs from the golden file:\n got: %.400q\nwant: %.400q", name, got, want)
-	}
+	exporttest.GoldenText(t, filepath.Join("..", "..", "testdata", "golden", name), got, *update,
+		"go test ./export/format -run "+t.Name()+" -update")
 }
 
 // readCSV reads a CSV whose metadata comment lines start with "#".

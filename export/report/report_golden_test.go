@@ -75,35 +75,8 @@ func TestReportGolden(t *testing.T) {
 		t.Fatal(err)
 	}
 	got := foldSpace(tool(t, "pdftotext", "-layout", path, "-"))
-	golden := filepath.Join("..", "..", "testdata", "golden", "report", "report.txt")
-	if *update {
-		if err := os.MkdirAll(filepath.Dir(golden), 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(golden, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(golden)
-	if err != nil {
-		t.Fatalf("%v (run go test ./export/report -run Golden -update to create it)", err)
-	}
-	if got != string(want) {
-		gl, wl := strings.Split(got, "\n"), strings.Split(string(want), "\n")
-		for i := range max(len(gl), len(wl)) {
-			var g, w string
-			if i < len(gl) {
-				g = gl[i]
-			}
-			if i < len(wl) {
-				w = wl[i]
-			}
-			if g != w {
-				t.Fatalf("report text differs from %s at line %d:\n got: %q\nwant: %q\n(run with -update if the change is deliberate)", golden, i+1, g, w)
-			}
-		}
-	}
+	exporttest.GoldenText(t, filepath.Join("..", "..", "testdata", "golden", "report", "report.txt"), []byte(got), *update,
+		"go test ./export/report -run Golden -update")
 }
 
 // foldSpace trims each line, folds its runs of white space to one space
