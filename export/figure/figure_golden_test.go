@@ -54,12 +54,13 @@ const (
 
 // goldenViews are the views pinned by golden images: every view of the
 // synthetic scene, then the pressure and polar views with a coupled
-// viscous solution and the drag polar with a coupled sweep (each file
+// viscous solution, the drag polar with a coupled sweep and the boundary
+// layer from the coupled stations (each file
 // named after the view, "-coupled" for the second set).
 var goldenViews = []View{ViewPanels, ViewPressure, ViewPolar, ViewStreamlines, ViewBoundaryLayer, ViewDragPolar, ViewLiftToDrag, ViewDensity}
 
 // goldenCoupledViews are drawn from synthCoupledScene.
-var goldenCoupledViews = []View{ViewPressure, ViewPolar, ViewDragPolar}
+var goldenCoupledViews = []View{ViewPressure, ViewPolar, ViewDragPolar, ViewBoundaryLayer}
 
 // goldenSet is a scene and the views of it pinned by golden files, named
 // after the view with suffix.

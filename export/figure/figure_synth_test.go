@@ -6,6 +6,7 @@ import (
 
 	"sectionbench/model"
 	"sectionbench/solver"
+	bl "sectionbench/solver/boundarylayer"
 	"sectionbench/solver/engine"
 )
 
@@ -85,6 +86,7 @@ func synthDensity() *engine.DensityResult {
 // alone beside the inviscid ones.
 func synthCoupledScene() *Scene {
 	sc := coupledDragScene(false)
+	sc.Viscous = nil // the coupled mode has no one-way estimate
 	sc.Coupled = synthCoupled(sc.Solution)
 	// The row past maximum lift lifts less than the one before it.
 	last := len(sc.SweepCoupled) - 1
@@ -122,8 +124,38 @@ func synthCoupled(sol *solver.Solution) *engine.CoupledPoint {
 		}
 		ce.Upper.Transition, ce.Lower.Transition = 0.3, 0.6
 		ce.Upper.Separation, ce.Lower.Separation = math.NaN(), math.NaN()
+		synthLayer(&ce.Upper, e.Chord)
+		synthLayer(&ce.Lower, e.Chord)
 		d.Elements = append(d.Elements, ce)
 		pt.Elements = append(pt.Elements, engine.CoupledElementPoint{Name: e.Name, Cl: ce.Cl, Cd: ce.Cd, Cm: ce.Cm})
 	}
 	return pt
+}
+
+// synthLayer fills a surface's stations (leading edge first) with the
+// boundary layer of exporttest.Viscous along the arc length ξ from the
+// first station, on the chord: Blasius' laminar θ = 0.664 √(ξ/Re),
+// H = 2.59, Cf = 0.664/√(Re ξ) and ñ rising linearly to 9 up to the
+// surface's transition, then H = 1.4, Cf = 0.004 and θ growing by
+// 3 (x/c − x_tr); Re = 5 × 10⁵ (invented shapes).
+func synthLayer(s *solver.CoupledSurface, chord float64) {
+	const re, nCrit = 5e5, 9
+	xi := 0.0
+	var thTr float64
+	for i := range s.Stations {
+		st := &s.Stations[i]
+		if i > 0 {
+			p := s.Stations[i-1]
+			xi += math.Hypot(st.X-p.X, st.Y-p.Y) / chord
+		}
+		st.Xi = xi
+		if st.XC <= s.Transition {
+			st.Theta, st.H, st.Cf, st.N, st.Regime = 0.664*math.Sqrt(xi/re), 2.59, 0.664/math.Sqrt(re*math.Max(xi, 1e-4)), nCrit*st.XC/s.Transition, bl.Laminar
+			thTr = st.Theta
+		} else {
+			st.Theta, st.H, st.Cf, st.N, st.Regime = thTr*(1+3*(st.XC-s.Transition)), 1.4, 0.004, nCrit, bl.Turbulent
+		}
+		st.DStar = st.H * st.Theta
+		st.Ue = math.Sqrt(math.Max(1-st.Cp, 0))
+	}
 }
