@@ -2,8 +2,8 @@ package figure
 
 import (
 	"math"
-	"sectionbench/export/exporttest"
 
+	"sectionbench/export/exporttest"
 	"sectionbench/model"
 	"sectionbench/solver"
 	bl "sectionbench/solver/boundarylayer"
