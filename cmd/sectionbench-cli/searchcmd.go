@@ -12,18 +12,21 @@ import (
 
 // jsonSearch is the search's JSON.
 type jsonSearch struct {
-	Objective   string         `json:"objective"`
-	Variables   []string       `json:"variables"`
-	ViscousMode string         `json:"viscous_mode"`
-	Inverted    bool           `json:"inverted"`
-	Start       jsonMapPoint   `json:"start"`
-	Best        jsonMapPoint   `json:"best"`
-	Feasible    bool           `json:"feasible"`
-	Evaluations int            `json:"evaluations"`
-	Status      string         `json:"status"`
-	Path        []jsonMapPoint `json:"path"`
-	Note        string         `json:"note"`
-	Caution     string         `json:"caution"`
+	Objective   string       `json:"objective"`
+	Variables   []string     `json:"variables"`
+	ViscousMode string       `json:"viscous_mode"`
+	Inverted    bool         `json:"inverted"`
+	Start       jsonMapPoint `json:"start"`
+	Best        jsonMapPoint `json:"best"`
+	Feasible    bool         `json:"feasible"`
+	Evaluations int          `json:"evaluations"`
+	Status      string       `json:"status"`
+	// Target is the drag objective's least downforce as used (the flag,
+	// or the start's); null otherwise.
+	Target  *num           `json:"downforce_target,omitempty"`
+	Path    []jsonMapPoint `json:"path"`
+	Note    string         `json:"note"`
+	Caution string         `json:"caution"`
 }
 
 // localNote says what the search's answer is.
@@ -34,7 +37,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) error {
 	in := addInputs(fs, false, "text", "json")
 	ef := addExplorerFlags(fs, "a variable and its bounds `NAME=LO:HI`")
 	objective := fs.String("objective", "downforce", "what to optimise: `downforce` (the most; lift on an upright wing), lift-to-drag (the best ratio) or drag (the least, at --downforce-target)")
-	target := fs.Float64("downforce-target", 0, "with --objective drag: the least downforce (lift upright) in `N/m` of span with a speed, else as a coefficient (−Cl inverted)")
+	target := fs.Float64("downforce-target", 0, "with --objective drag: the least downforce (lift upright) in `N/m` of span with a speed, else as a coefficient (−Cl inverted); 0: the start's")
 	attached := fs.Float64("attached-to", 0.9, "every element's suction side must stay attached at least to this `x/c` (0: no limit; needs the viscous solution)")
 	minGap := fs.Float64("min-gap", 0, "the least slot gap in `mm` behind every element after the first (a manufacturing minimum; 0: none)")
 	minClear := fs.Float64("min-clearance", 0, "the least ground clearance in `mm` (0: the method's own minimum only)")
@@ -88,6 +91,9 @@ func cmdSearch(args []string, stdout, stderr io.Writer) error {
 		for _, v := range vars {
 			out.Variables = append(out.Variables, v.Name())
 		}
+		if obj == engine.ObjectiveDrag {
+			out.Target = ptr(res.Target)
+		}
 		for _, p := range res.Path {
 			out.Path = append(out.Path, mapPointJSON(vars, p, hasSpeed))
 		}
@@ -108,6 +114,9 @@ func objectiveWords(o engine.Objective, target float64) string {
 	case engine.ObjectiveLiftToDrag:
 		return "best lift-to-drag ratio"
 	case engine.ObjectiveDrag:
+		if target == 0 {
+			return "least drag at no less downforce than the start's"
+		}
 		return fmt.Sprintf("least drag at a downforce of at least %g", target)
 	}
 	return "most downforce"

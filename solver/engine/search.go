@@ -26,7 +26,7 @@ const (
 	// −Cl on an inverted wing).
 	ObjectiveLiftToDrag Objective = "lift-to-drag"
 	// ObjectiveDrag minimises the drag (N/m, else Cd) while the load is at
-	// least SearchOptions.DownforceTarget.
+	// least SearchOptions.DownforceTarget (by default the start's).
 	ObjectiveDrag Objective = "drag"
 )
 
@@ -49,6 +49,8 @@ type SearchOptions struct {
 	// DownforceTarget is the least load (downforce inverted, lift
 	// upright) a point of the drag objective must give: N/m of span when
 	// the study has a speed, else the load coefficient (−Cl inverted).
+	// 0 means the start's own load (none when the start did not
+	// converge: SearchResult.Target says which).
 	DownforceTarget float64
 	// AttachedToXC, when positive, asks every element's suction side to
 	// stay attached at least to this x/c (Point.AttachedTo); it needs the
@@ -106,6 +108,10 @@ type SearchResult struct {
 	Evaluations int
 	// Status says in words why the search stopped.
 	Status string
+	// Target is the drag objective's least load as used (the option, or
+	// the start's load); NaN for the other objectives or when the start
+	// gave none.
+	Target float64
 }
 
 // evalFunc solves one setting (values parallel to the bounds); only
@@ -189,8 +195,8 @@ func checkSearchOptions(st *model.Study, vars []model.SetupVariable, opt SearchO
 		return &OptionError{Option: "attached to x/c", Err: errors.New("separation needs the viscous solution (a speed or a Reynolds number, and not inviscid)")}
 	case opt.AttachedToXC < 0 || opt.AttachedToXC > 1 || math.IsNaN(opt.AttachedToXC):
 		return &OptionError{Option: "attached to x/c", Err: fmt.Errorf("%g is outside 0 to 1", opt.AttachedToXC)}
-	case opt.Objective == ObjectiveDrag && !(opt.DownforceTarget > 0):
-		return &OptionError{Option: "downforce target", Err: errors.New("the drag objective needs a positive downforce target")}
+	case opt.DownforceTarget < 0 || math.IsNaN(opt.DownforceTarget):
+		return &OptionError{Option: "downforce target", Err: errors.New("must not be negative")}
 	case opt.MinGapMM < 0 || math.IsNaN(opt.MinGapMM):
 		return &OptionError{Option: "minimum gap", Err: errors.New("must not be negative")}
 	case opt.MinClearanceMM < 0 || math.IsNaN(opt.MinClearanceMM):
@@ -229,7 +235,7 @@ func search(ctx context.Context, eval, par evalFunc, bounds []model.SetupRange, 
 		}
 		return x
 	}
-	res := &SearchResult{}
+	res := &SearchResult{Target: math.NaN()}
 	var mu sync.Mutex
 	bestValue := math.Inf(1)
 	record := func(p Point) float64 {
@@ -271,6 +277,14 @@ func search(ctx context.Context, eval, par evalFunc, bounds []model.SetupRange, 
 	}
 	pts[0] = p0
 	res.Start = p0
+	if opt.Objective == ObjectiveDrag {
+		if opt.DownforceTarget == 0 && p0.Converged {
+			opt.DownforceTarget = loadOf(&p0) // keep at least the start's load
+		}
+		if opt.DownforceTarget != 0 {
+			res.Target = opt.DownforceTarget
+		}
+	}
 	var wg sync.WaitGroup
 	sem := make(chan struct{}, max(1, min(2, runtime.GOMAXPROCS(0))))
 	for i := 1; i <= n; i++ {
@@ -369,14 +383,7 @@ func searchValue(p *Point, opt SearchOptions) (float64, bool) {
 	if p.Err != "" || !p.Converged {
 		return notConvergedValue, false
 	}
-	load := p.Load()
-	lift := p.LiftPerSpan
-	if p.Inverted {
-		lift = p.DownforcePerSpan
-	}
-	if !math.IsNaN(lift) {
-		load = lift // in N/m when there is a speed
-	}
+	load := loadOf(p)
 	drag := p.DragPerSpan
 	if math.IsNaN(drag) {
 		drag = p.Cd
@@ -407,7 +414,7 @@ func searchValue(p *Point, opt SearchOptions) (float64, bool) {
 		v = -p.Load() / p.Cd
 	case ObjectiveDrag:
 		v = drag
-		if load < opt.DownforceTarget {
+		if opt.DownforceTarget != 0 && load < opt.DownforceTarget {
 			shortfall += (opt.DownforceTarget - load) / opt.DownforceTarget
 		}
 	}
@@ -418,4 +425,17 @@ func searchValue(p *Point, opt SearchOptions) (float64, bool) {
 		return infeasibleValue * (1 + shortfall), false
 	}
 	return v, true
+}
+
+// loadOf is the load the objectives use: downforce on an inverted wing,
+// lift on an upright one, in N/m with a speed, else the coefficient.
+func loadOf(p *Point) float64 {
+	lift := p.LiftPerSpan
+	if p.Inverted {
+		lift = p.DownforcePerSpan
+	}
+	if !math.IsNaN(lift) {
+		return lift
+	}
+	return p.Load()
 }

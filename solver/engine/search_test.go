@@ -121,6 +121,34 @@ func TestSearchConstraint(t *testing.T) {
 	}
 }
 
+// The drag objective without a target keeps at least the start's load:
+// drag (x − 2)² is least at x = 2, but the load 5 − x falls below the
+// start's 4 beyond x = 1, so the best lies at x = 1.
+func TestSearchDragKeepsStartLoad(t *testing.T) {
+	eval := func(_ context.Context, x []float64) (Point, error) {
+		nan := math.NaN()
+		return Point{Values: append([]float64(nil), x...), Viscous: true, Converged: true, Cl: 5 - x[0], Cd: 0.01 + (x[0]-2)*(x[0]-2), Cm: nan,
+			LiftPerSpan: nan, DownforcePerSpan: nan, DragPerSpan: nan, ClearanceMM: nan,
+			Elements: []PointElement{{SeparationSuction: nan, GapMM: nan}}}, nil
+	}
+	res, err := search(context.Background(), eval, eval, []model.SetupRange{mustBounds(t, "alpha_deg=0:4")}, []float64{0.5},
+		SearchOptions{Objective: ObjectiveDrag, MaxEvaluations: 500, Tolerance: 1e-12}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Target != 4.5 || !res.Feasible || math.Abs(res.Best.Values[0]-0.5) > 1e-3 {
+		t.Errorf("target %v, best %v (feasible %v): want the start's load 4.5 kept, best at the start 0.5", res.Target, res.Best.Values, res.Feasible)
+	}
+	res, err = search(context.Background(), eval, eval, []model.SetupRange{mustBounds(t, "alpha_deg=0:4")}, []float64{0.5},
+		SearchOptions{Objective: ObjectiveDrag, DownforceTarget: 4, MaxEvaluations: 500, Tolerance: 1e-12}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !res.Feasible || math.Abs(res.Best.Values[0]-1) > 1e-3 {
+		t.Errorf("best %v (feasible %v), want 1 ± 1e-3 where the load reaches the target 4", res.Best.Values, res.Feasible)
+	}
+}
+
 // A search that finds no point meeting the constraints says so and
 // returns the start as its best; a cancelled search returns the context's
 // error.
@@ -162,7 +190,7 @@ func TestSearchOptionErrors(t *testing.T) {
 		opt          SearchOptions
 	}{
 		{"unknown objective", "objective", SearchOptions{Objective: "lift"}},
-		{"drag without target", "downforce target", SearchOptions{Objective: ObjectiveDrag}},
+		{"negative target", "downforce target", SearchOptions{Objective: ObjectiveDrag, DownforceTarget: -1}},
 		{"drag inviscid", "objective", SearchOptions{Objective: ObjectiveDrag, DownforceTarget: 100, PointOptions: PointOptions{Inviscid: true}}},
 		{"separation inviscid", "attached to x/c", SearchOptions{Objective: ObjectiveDownforce, AttachedToXC: 0.9, PointOptions: PointOptions{Inviscid: true}}},
 	} {

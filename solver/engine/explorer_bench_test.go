@@ -1,0 +1,58 @@
+package engine
+
+import (
+	"context"
+	"testing"
+
+	"sectionbench/model"
+)
+
+// A 20 × 20 viscous map of the invented two-element example in ground
+// effect (assets/examples/two-element-ground.json, 160 panels per
+// element): ride height 40–135 mm in 5 mm against angle of attack −1° to
+// 8.5° in 0.5°, the coupled viscous solution at every point. Target
+// (issue "Set-up explorer"): 30 s on the project's 2-core machine.
+// Reports the points that converged. Slow today: run it once, with
+// -bench MapTwoElement20x20 -benchtime 1x.
+func BenchmarkMapTwoElement20x20(b *testing.B) {
+	st, secs := exampleStudy(b, "two-element-ground.json")
+	ranges := []model.SetupRange{mustRange(b, "clearance_mm=40:135:5"), mustRange(b, "alpha_deg=-1:8.5:0.5")}
+	var conv int
+	for b.Loop() {
+		pts, err := Map(context.Background(), st, secs, ranges, MapOptions{}, nil, nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		conv = 0
+		for _, p := range pts {
+			if p.Converged {
+				conv++
+			}
+		}
+	}
+	b.ReportMetric(float64(conv), "converged-points")
+}
+
+// A setting search over three variables of the invented two-element
+// example in ground effect: the flap's deflection (5°–25°) and gap
+// (2–12 mm) and the angle of attack (0°–6°), most downforce with every
+// suction side attached to x/c 0.9, the default budget of solves. Target
+// (issue "Set-up explorer"): 60 s on the project's 2-core machine.
+// Reports the solves made and whether a setting met the constraints.
+func BenchmarkSearchThreeVariables(b *testing.B) {
+	st, secs := exampleStudy(b, "two-element-ground.json")
+	bounds := []model.SetupRange{mustBounds(b, "elements[1].deflection_deg=5:25"), mustBounds(b, "elements[1].gap_mm=2:12"), mustBounds(b, "alpha_deg=0:6")}
+	var evals, feasible int
+	for b.Loop() {
+		res, err := Search(context.Background(), st, secs, bounds, SearchOptions{Objective: ObjectiveDownforce, AttachedToXC: 0.9}, nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		evals, feasible = res.Evaluations, 0
+		if res.Feasible {
+			feasible = 1
+		}
+	}
+	b.ReportMetric(float64(evals), "solves")
+	b.ReportMetric(float64(feasible), "feasible")
+}
