@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -240,9 +241,62 @@ func row(caption string, field fyne.CanvasObject) *fyne.Container {
 
 func newControls(w *Workbench) *controls {
 	c := &controls{w: w}
-	ctl := w.ctl
+	source := c.sourceControls()
+	panelling := c.panellingControls()
+	alpha := c.alphaControls()
+	mounting := c.mountingControls()
+	sweep := c.sweepControls()
+	pins := c.pinControls()
+	c.ec = newElementControls(c)
+	c.fc = newFlowControls(c)
+	c.vc = newViscousControls(c)
+	study := c.studyControls()
 
-	// Section source.
+	wing := container.NewVBox(slices.Concat(
+		study,
+		[]fyne.CanvasObject{
+			widget.NewSeparator(),
+			heading("Elements"),
+			c.ec.listBox(),
+			widget.NewSeparator(),
+			c.ec.placementBox(),
+			widget.NewSeparator(),
+		},
+		source,
+		[]fyne.CanvasObject{widget.NewSeparator()},
+		mounting,
+	)...)
+	flow := container.NewVBox(
+		c.fc.box(),
+		widget.NewSeparator(),
+		heading("Viscous solution"),
+		c.vc.box(),
+	)
+	solve := container.NewVBox(slices.Concat(
+		panelling,
+		[]fyne.CanvasObject{widget.NewSeparator()},
+		sweep,
+		[]fyne.CanvasObject{widget.NewSeparator()},
+		pins,
+	)...)
+	c.tabs = container.NewAppTabs(
+		container.NewTabItem("Wing", scrolled(wing)),
+		container.NewTabItem("Flow", scrolled(flow)),
+		container.NewTabItem("Panels & sweep", scrolled(solve)),
+	)
+	// The angle of attack is the most used control: it stays above the
+	// tabs.
+	c.box = container.NewBorder(container.NewVBox(alpha...), nil, nil, nil, c.tabs)
+	return c
+}
+
+// The builders below make one group of the column each and return its
+// rows, top to bottom, for newControls to lay out.
+
+// sourceControls builds the section source of the element chosen: a NACA
+// designation, a coordinate file or a Kármán–Trefftz section.
+func (c *controls) sourceControls() []fyne.CanvasObject {
+	w, ctl := c.w, c.w.ctl
 	c.element = widget.NewSelect(nil, func(string) {
 		if !c.syncing && c.element.SelectedIndex() >= 0 {
 			ctl.SetElement(c.element.SelectedIndex())
@@ -270,8 +324,20 @@ func newControls(w *Workbench) *controls {
 			useKT,
 			c.ktMsg)))
 	report := widget.NewButton("Cleaning report", w.showReport)
+	c.sectionRow = container.NewBorder(nil, nil, widget.NewLabel("of"), nil, c.element)
+	return []fyne.CanvasObject{
+		container.NewBorder(nil, nil, heading("Section source"), nil, c.sectionRow),
+		row("NACA", c.naca),
+		c.sourceMsg,
+		c.source,
+		container.NewGridWithColumns(2, openFile, report),
+		c.kt,
+	}
+}
 
-	// Panelling.
+// panellingControls builds the panel count, spacing law and clustering.
+func (c *controls) panellingControls() []fyne.CanvasObject {
+	w, ctl := c.w, c.w.ctl
 	c.panelSlider = widget.NewSlider(model.MinPanels, sliderMaxPanels)
 	c.panelSlider.Step = 1
 	c.panelMsg = message()
@@ -303,11 +369,22 @@ func newControls(w *Workbench) *controls {
 	})
 	c.nose, c.noseVal = c.clusterSlider("nose", func(p *model.Panelling, v float64) { p.Nose = v })
 	c.tail, c.tailVal = c.clusterSlider("tail", func(p *model.Panelling, v float64) { p.Tail = v })
+	return []fyne.CanvasObject{
+		heading("Panelling"),
+		row("Panels", container.NewBorder(nil, nil, nil, sized(c.panelEntry, 64), c.panelSlider)),
+		row("Spacing", c.spacing),
+		row("Nose", container.NewBorder(nil, nil, nil, c.noseVal, c.nose)),
+		row("Tail", container.NewBorder(nil, nil, nil, c.tailVal, c.tail)),
+		c.panelMsg,
+	}
+}
 
-	// Flow.
+// alphaControls builds the angle of attack: slider, entry and steps of
+// the sweep's step.
+func (c *controls) alphaControls() []fyne.CanvasObject {
+	w, ctl := c.w, c.w.ctl
 	c.alphaSlider = widget.NewSlider(-sliderMaxAlpha, sliderMaxAlpha)
 	c.alphaSlider.Step = alphaSliderStep
-	c.flowMsg = message()
 	c.alphaMsg = message()
 	c.alphaSense = caption("")
 	c.alphaEntry = newField(w, c.alphaMsg, func(s string) error {
@@ -328,6 +405,19 @@ func newControls(w *Workbench) *controls {
 		ctl.BreakMerge()
 		setMessage(c.alphaMsg, ctl.SetAlpha("", st.Flow.AlphaDeg+sign*st.Sweep.StepDeg))
 	}
+	c.alphaDown = widget.NewButton("−", func() { stepAlpha(-1) })
+	c.alphaUp = widget.NewButton("+", func() { stepAlpha(1) })
+	return []fyne.CanvasObject{
+		row("α (°)", container.NewBorder(nil, nil, nil, container.NewHBox(sized(c.alphaEntry, 64), c.alphaDown, c.alphaUp), c.alphaSlider)),
+		c.alphaSense,
+		c.alphaMsg,
+	}
+}
+
+// mountingControls builds the inverted mounting and the ground.
+func (c *controls) mountingControls() []fyne.CanvasObject {
+	w, ctl := c.w, c.w.ctl
+	c.flowMsg = message()
 	c.inverted = widget.NewCheck("Inverted (suction side down)", func(on bool) {
 		if !c.syncing {
 			setMessage(c.flowMsg, ctl.SetInverted(on))
@@ -349,10 +439,21 @@ func newControls(w *Workbench) *controls {
 			setMessage(c.flowMsg, ctl.SetGround("", g))
 		}
 	})
-	c.alphaDown = widget.NewButton("−", func() { stepAlpha(-1) })
-	c.alphaUp = widget.NewButton("+", func() { stepAlpha(1) })
+	groundNote := caption(groundCaution)
+	groundNote.TextStyle = fyne.TextStyle{Italic: true}
+	groundNote.Importance = widget.WarningImportance
+	return []fyne.CanvasObject{
+		heading("Mounting and ground"),
+		c.inverted,
+		container.NewBorder(nil, nil, nil, sized(c.clearance, 72), c.ground),
+		groundNote,
+		c.flowMsg,
+	}
+}
 
-	// Sweep.
+// sweepControls builds the sweep range and its Run and Cancel.
+func (c *controls) sweepControls() []fyne.CanvasObject {
+	w, ctl := c.w, c.w.ctl
 	c.sweepMsg = message()
 	c.from, c.to, c.step = newField(w, c.sweepMsg, c.editSweep), newField(w, c.sweepMsg, c.editSweep), newField(w, c.sweepMsg, c.editSweep)
 	c.progress = widget.NewProgressBar()
@@ -362,93 +463,46 @@ func newControls(w *Workbench) *controls {
 	c.cancel = widget.NewButton("Cancel", ctl.CancelSweep)
 	c.cancel.Hide()
 	c.runRow = container.NewBorder(nil, nil, nil, c.cancel, c.run)
+	return []fyne.CanvasObject{
+		heading("Sweep"),
+		container.NewGridWithColumns(3, labelled("from (°)", c.from), labelled("to (°)", c.to), labelled("step (°)", c.step)),
+		c.sweepMsg,
+		c.runRow,
+		c.progress,
+	}
+}
 
-	// Pins.
+// pinControls builds the pins: Pin current, Clear pins and the list.
+func (c *controls) pinControls() []fyne.CanvasObject {
+	w, ctl := c.w, c.w.ctl
 	c.pins = widget.NewLabel("")
 	c.pins.Wrapping = fyne.TextWrapWord
 	c.pinMsg = message()
 	c.pinRows = container.NewVBox()
 	pin := widget.NewButton("Pin current", func() { w.userError(ctl.PinCurrent()) })
 	clear := widget.NewButton("Clear pins", func() { w.userError(ctl.ClearPins()) })
-
-	c.ec = newElementControls(c)
-	c.fc = newFlowControls(c)
-	c.vc = newViscousControls(c)
-	groundNote := caption(groundCaution)
-	groundNote.TextStyle = fyne.TextStyle{Italic: true}
-	groundNote.Importance = widget.WarningImportance
-	c.sectionRow = container.NewBorder(nil, nil, widget.NewLabel("of"), nil, c.element)
-
-	c.studyMsg = message()
-	c.studyName = textField(w, c.studyMsg, ctl.SetStudyName)
-	c.team = textField(w, c.studyMsg, ctl.SetTeam)
-	c.team.SetPlaceHolder("none")
-	elements := container.NewVBox(
-		heading("Study"),
-		row("Name", c.studyName),
-		row("Team", c.team),
-		c.studyMsg,
-		widget.NewSeparator(),
-		heading("Elements"),
-		c.ec.listBox(),
-		widget.NewSeparator(),
-		c.ec.placementBox(),
-		widget.NewSeparator(),
-		container.NewBorder(nil, nil, heading("Section source"), nil, c.sectionRow),
-		row("NACA", c.naca),
-		c.sourceMsg,
-		c.source,
-		container.NewGridWithColumns(2, openFile, report),
-		c.kt,
-		widget.NewSeparator(),
-		heading("Mounting and ground"),
-		c.inverted,
-		container.NewBorder(nil, nil, nil, sized(c.clearance, 72), c.ground),
-		groundNote,
-		c.flowMsg,
-	)
-	flow := container.NewVBox(
-		c.fc.box(),
-		widget.NewSeparator(),
-		heading("Viscous solution"),
-		c.vc.box(),
-	)
-	solve := container.NewVBox(
-		heading("Panelling"),
-		row("Panels", container.NewBorder(nil, nil, nil, sized(c.panelEntry, 64), c.panelSlider)),
-		row("Spacing", c.spacing),
-		row("Nose", container.NewBorder(nil, nil, nil, c.noseVal, c.nose)),
-		row("Tail", container.NewBorder(nil, nil, nil, c.tailVal, c.tail)),
-		c.panelMsg,
-		widget.NewSeparator(),
-
-		heading("Sweep"),
-		container.NewGridWithColumns(3, labelled("from (°)", c.from), labelled("to (°)", c.to), labelled("step (°)", c.step)),
-		c.sweepMsg,
-		c.runRow,
-		c.progress,
-		widget.NewSeparator(),
-
+	return []fyne.CanvasObject{
 		heading("Pins"),
 		container.NewGridWithColumns(2, pin, clear),
 		c.pins,
 		c.pinRows,
 		c.pinMsg,
-	)
-	c.tabs = container.NewAppTabs(
-		container.NewTabItem("Wing", scrolled(elements)),
-		container.NewTabItem("Flow", scrolled(flow)),
-		container.NewTabItem("Panels & sweep", scrolled(solve)),
-	)
-	// The angle of attack is the most used control: it stays above the
-	// tabs.
-	top := container.NewVBox(
-		row("α (°)", container.NewBorder(nil, nil, nil, container.NewHBox(sized(c.alphaEntry, 64), c.alphaDown, c.alphaUp), c.alphaSlider)),
-		c.alphaSense,
-		c.alphaMsg,
-	)
-	c.box = container.NewBorder(top, nil, nil, nil, c.tabs)
-	return c
+	}
+}
+
+// studyControls builds the study's name and team.
+func (c *controls) studyControls() []fyne.CanvasObject {
+	w, ctl := c.w, c.w.ctl
+	c.studyMsg = message()
+	c.studyName = textField(w, c.studyMsg, ctl.SetStudyName)
+	c.team = textField(w, c.studyMsg, ctl.SetTeam)
+	c.team.SetPlaceHolder("none")
+	return []fyne.CanvasObject{
+		heading("Study"),
+		row("Name", c.studyName),
+		row("Team", c.team),
+		c.studyMsg,
+	}
 }
 
 // scrolled puts a tab's content in a vertical scroll, with a right inset
