@@ -1,0 +1,470 @@
+package figure
+
+import (
+	"errors"
+	"fmt"
+	"image/color"
+	"math"
+	"sort"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/palette/moreland"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/text"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+)
+
+// The set-up figures: one quantity of a set-up map against one variable
+// (SetupCurvePlot), a quantity over two variables (SetupGridPlot), the
+// setting search's progress (SearchPlot) and the finite-span estimate's
+// spanwise load (SpanLoadPlot). They take plain numbers, so that the app,
+// the report and tests can feed them from any source.
+
+// SetupCurve is one quantity against one set-up variable. Points may come
+// in any order (a map streams them); they are drawn sorted by X.
+type SetupCurve struct {
+	Title, XLabel, YLabel string
+	X, Y                  []float64 // Y is NaN where the point has no value
+	// Separated marks points whose suction side separates ahead of the
+	// limit the caller chose; Failed marks points with no answer (not
+	// converged, or not solvable): crossed on the x axis, never drawn as
+	// values. Either may be nil.
+	Separated, Failed []bool
+	// Current is the study's own value of the variable (a vertical line),
+	// NaN for none; Onset is where separation sets in (a labelled vertical
+	// line), NaN for none.
+	Current, Onset float64
+	OnsetLabel     string
+}
+
+// ErrNoSetupData is wrapped by the set-up figures' errors when there is
+// nothing to draw yet.
+var ErrNoSetupData = errors.New("no points with a value yet")
+
+// SetupCurvePlot draws a SetupCurve: the points with a value joined in
+// order of X, separated points in a hollow marker of their own, points
+// without an answer as crosses on the x axis, and the study's value and
+// the separation onset as vertical lines.
+func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
+	if len(c.Y) != len(c.X) {
+		panic("figure: SetupCurvePlot: X and Y of different lengths")
+	}
+	th := themeFor(dark)
+	p := newPlot(th, c.Title, c.XLabel, c.YLabel)
+	k := newKey(th, keyTopRight)
+	type pt struct {
+		x, y      float64
+		sep, fail bool
+	}
+	var pts []pt
+	for i, x := range c.X {
+		q := pt{x: x, y: c.Y[i]}
+		q.sep = i < len(c.Separated) && c.Separated[i]
+		q.fail = (i < len(c.Failed) && c.Failed[i]) || math.IsNaN(q.y)
+		pts = append(pts, q)
+	}
+	sort.Slice(pts, func(i, j int) bool { return pts[i].x < pts[j].x })
+	var line, attached, separated plotter.XYs
+	var failed []float64
+	ext := newExtent()
+	for _, q := range pts {
+		if q.fail {
+			failed = append(failed, q.x)
+			ext.x0, ext.x1 = math.Min(ext.x0, q.x), math.Max(ext.x1, q.x)
+			continue
+		}
+		xy := plotter.XY{X: q.x, Y: q.y}
+		ext.add(q.x, q.y)
+		line = append(line, xy)
+		if q.sep {
+			separated = append(separated, xy)
+		} else {
+			attached = append(attached, xy)
+		}
+	}
+	if len(line) == 0 && len(failed) == 0 {
+		return nil, ErrNoSetupData
+	}
+	k.keep(line)
+	if len(line) > 1 {
+		p.Add(newLine(line, lineStyle(th.upper, widthNormal, nil)))
+	}
+	if len(attached) > 0 {
+		s := newScatter(attached, th.upper, glyphMarker*0.8, draw.CircleGlyph{})
+		p.Add(s)
+		k.add("attached", s)
+	}
+	if len(separated) > 0 {
+		s := newScatter(separated, th.lower, glyphMarker*1.2, draw.RingGlyph{})
+		p.Add(s)
+		k.add("suction side separated", s)
+	}
+	if len(failed) > 0 {
+		b := &bottomMarks{alphas: failed, glyph: draw.GlyphStyle{Color: th.accent, Radius: glyphMarker, Shape: draw.CrossGlyph{}}}
+		p.Add(b)
+		k.add(fmt.Sprintf("no answer (%d of %d)", len(failed), len(pts)), b)
+	}
+	if !math.IsNaN(c.Onset) {
+		r := &refLine{value: c.Onset, vertical: true, style: lineStyle(th.lower, widthNormal, dashRef), label: c.OnsetLabel, labelSty: noteStyle(th, th.lower, 8, text.XLeft, text.YTop)}
+		p.Add(r)
+		ext.x0, ext.x1 = math.Min(ext.x0, c.Onset), math.Max(ext.x1, c.Onset)
+	}
+	if !math.IsNaN(c.Current) {
+		p.Add(&refLine{value: c.Current, vertical: true, style: lineStyle(th.accent, widthThin, nil), label: "study", labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop), drop: vg.Points(11)})
+	}
+	if ext.y0 > ext.y1 { // only crosses
+		ext.y0, ext.y1 = 0, 1
+	}
+	p.X.Min, p.X.Max = padRange(ext.x0, ext.x1, 0.04)
+	p.Y.Min, p.Y.Max = padRange(ext.y0, ext.y1, 0.08)
+	p.Add(k)
+	return p, nil
+}
+
+// SetupGrid is one quantity over two set-up variables: Z[i][j] at X[i]
+// and Y[j] (NaN where the point has no value).
+type SetupGrid struct {
+	Title, XLabel, YLabel, ZLabel string
+	X, Y                          []float64 // increasing
+	Z                             [][]float64
+	// Separated and Failed mark cells as SetupCurve does; either may be
+	// nil.
+	Separated, Failed [][]bool
+	// Path is a search's path in (X, Y), in the order evaluated; Start and
+	// Best are marked when not NaN.
+	Path        [][2]float64
+	Start, Best [2]float64
+}
+
+// setupGridXYZ adapts a SetupGrid to plotter.GridXYZ.
+type setupGridXYZ struct{ g *SetupGrid }
+
+func (s setupGridXYZ) Dims() (c, r int)   { return len(s.g.X), len(s.g.Y) }
+func (s setupGridXYZ) Z(c, r int) float64 { return s.g.Z[c][r] }
+func (s setupGridXYZ) X(c int) float64    { return s.g.X[c] }
+func (s setupGridXYZ) Y(r int) float64    { return s.g.Y[r] }
+
+// SetupGridPlot draws a SetupGrid as a filled map in a sequential
+// palette (Kindlmann's, from gonum/plot) with contour lines, a key of the
+// palette's values, separated cells hatched and cells without an answer
+// greyed and crossed, and the search's path, start and best point when
+// given.
+func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
+	if len(g.Z) != len(g.X) {
+		panic("figure: SetupGridPlot: Z does not match X")
+	}
+	for _, col := range g.Z {
+		if len(col) != len(g.Y) {
+			panic("figure: SetupGridPlot: Z does not match Y")
+		}
+	}
+	th := themeFor(dark)
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for i := range g.Z {
+		for j, v := range g.Z[i] {
+			if math.IsNaN(v) || (g.Failed != nil && g.Failed[i][j]) {
+				continue
+			}
+			lo, hi = math.Min(lo, v), math.Max(hi, v)
+		}
+	}
+	if len(g.X) == 0 || len(g.Y) == 0 {
+		return nil, ErrNoSetupData
+	}
+	p := newPlot(th, g.Title, g.XLabel, g.YLabel)
+	p.Add(&cellFill{g: &g, bg: th.bg})
+	k := newKey(th, keyTopRight)
+	if lo <= hi {
+		if hi == lo {
+			hi = lo + 1e-9*math.Max(1, math.Abs(lo))
+		}
+		cm := moreland.Kindlmann()
+		cm.SetMin(lo)
+		cm.SetMax(hi)
+		pal := cm.Palette(64)
+		data := &SetupGrid{X: g.X, Y: g.Y, Z: make([][]float64, len(g.X))}
+		for i := range g.Z {
+			data.Z[i] = make([]float64, len(g.Y))
+			for j, v := range g.Z[i] {
+				if g.Failed != nil && g.Failed[i][j] {
+					v = math.NaN()
+				}
+				data.Z[i][j] = v
+			}
+		}
+		hm := plotter.NewHeatMap(setupGridXYZ{data}, pal)
+		hm.Min, hm.Max = lo, hi
+		hm.NaN = color.Transparent
+		p.Add(hm)
+		if len(g.X) > 1 && len(g.Y) > 1 {
+			var levels []float64
+			for _, t := range (niceTicks{}).Ticks(lo, hi) {
+				if t.Label != "" && t.Value > lo && t.Value < hi {
+					levels = append(levels, t.Value)
+				}
+			}
+			if len(levels) > 0 {
+				ct := plotter.NewContour(setupGridXYZ{data}, levels, nil)
+				ct.LineStyles = []draw.LineStyle{lineStyle(fade(th.fg, 150), widthThin, nil)}
+				p.Add(ct)
+			}
+		}
+		const swatches = 3
+		for s := range swatches {
+			v := hi - (hi-lo)*float64(s)/float64(swatches-1)
+			c, err := cm.At(v)
+			if err != nil {
+				c = th.faint
+			}
+			k.add(fmt.Sprintf("%.4g %s", v, g.ZLabel), swatch{c})
+		}
+	}
+	p.Add(&cellMarks{g: &g, hatch: fade(th.fg, 200), fail: fade(th.faint, 170), cross: th.accent})
+	if g.Separated != nil {
+		k.add("suction side separated (hatched)", hatchThumb{fade(th.fg, 200)})
+	}
+	if g.Failed != nil {
+		k.add("no answer (grey, crossed)", swatch{fade(th.faint, 170)})
+	}
+	if len(g.Path) > 0 {
+		xys := make(plotter.XYs, len(g.Path))
+		for i, q := range g.Path {
+			xys[i] = plotter.XY{X: q[0], Y: q[1]}
+		}
+		sty := lineStyle(th.second, widthNormal, nil)
+		p.Add(newLine(xys, sty), newScatter(xys, th.second, glyphSmall*1.5, draw.CircleGlyph{}))
+		k.add("search path", legendLine{sty})
+	}
+	if !math.IsNaN(g.Start[0]) && len(g.Path) > 0 {
+		s := newScatter(plotter.XYs{{X: g.Start[0], Y: g.Start[1]}}, th.fg, glyphMarker*1.5, draw.SquareGlyph{})
+		p.Add(s)
+		k.add("start", s)
+	}
+	if !math.IsNaN(g.Best[0]) && len(g.Path) > 0 {
+		s := newScatter(plotter.XYs{{X: g.Best[0], Y: g.Best[1]}}, th.accent, glyphMarker*1.8, draw.PyramidGlyph{})
+		p.Add(s)
+		k.add("best", s)
+	}
+	x0, x1 := cellEdges(g.X)
+	y0, y1 := cellEdges(g.Y)
+	p.X.Min, p.X.Max = x0[0], x1[len(x1)-1]
+	p.Y.Min, p.Y.Max = y0[0], y1[len(y1)-1]
+	p.Add(k)
+	return p, nil
+}
+
+// cellEdges returns the lower and upper edge of the cell around each of
+// the increasing values v: halfway to the neighbours, and as far outside
+// as inside at the ends (half a unit for a single value).
+func cellEdges(v []float64) (lo, hi []float64) {
+	lo, hi = make([]float64, len(v)), make([]float64, len(v))
+	for i, x := range v {
+		switch {
+		case len(v) == 1:
+			lo[i], hi[i] = x-0.5, x+0.5
+		case i == 0:
+			h := (v[1] - x) / 2
+			lo[i], hi[i] = x-h, x+h
+		case i == len(v)-1:
+			h := (x - v[i-1]) / 2
+			lo[i], hi[i] = x-h, x+h
+		default:
+			lo[i], hi[i] = (v[i-1]+x)/2, (x+v[i+1])/2
+		}
+	}
+	return lo, hi
+}
+
+// cellFill paints the grid's area in the background first, so that cells
+// without a value read as empty rather than as the page behind.
+type cellFill struct {
+	g  *SetupGrid
+	bg color.Color
+}
+
+func (f *cellFill) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, trY := p.Transforms(&c)
+	x0, x1 := cellEdges(f.g.X)
+	y0, y1 := cellEdges(f.g.Y)
+	r := vg.Rectangle{Min: vg.Point{X: trX(x0[0]), Y: trY(y0[0])}, Max: vg.Point{X: trX(x1[len(x1)-1]), Y: trY(y1[len(y1)-1])}}
+	c.SetColor(f.bg)
+	c.Fill(r.Path())
+}
+
+// cellMarks hatches separated cells and greys and crosses cells without
+// an answer.
+type cellMarks struct {
+	g                  *SetupGrid
+	hatch, fail, cross color.Color
+}
+
+func (m *cellMarks) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, trY := p.Transforms(&c)
+	x0, x1 := cellEdges(m.g.X)
+	y0, y1 := cellEdges(m.g.Y)
+	for i := range m.g.X {
+		for j := range m.g.Y {
+			r := vg.Rectangle{Min: vg.Point{X: trX(x0[i]), Y: trY(y0[j])}, Max: vg.Point{X: trX(x1[i]), Y: trY(y1[j])}}
+			switch {
+			case m.g.Failed != nil && m.g.Failed[i][j]:
+				c.SetColor(m.fail)
+				c.Fill(r.Path())
+				g := draw.GlyphStyle{Color: m.cross, Radius: vg.Length(math.Min(float64(glyphMarker), float64(r.Size().X)/3)), Shape: draw.CrossGlyph{}}
+				c.DrawGlyph(g, vg.Point{X: (r.Min.X + r.Max.X) / 2, Y: (r.Min.Y + r.Max.Y) / 2})
+			case m.g.Separated != nil && m.g.Separated[i][j]:
+				hatchRect(c, r, lineStyle(m.hatch, widthThin, nil))
+			}
+		}
+	}
+}
+
+// hatchRect draws diagonal lines across r, 4 points apart.
+func hatchRect(c draw.Canvas, r vg.Rectangle, sty draw.LineStyle) {
+	const gap = vg.Length(4)
+	w, h := r.Max.X-r.Min.X, r.Max.Y-r.Min.Y
+	for d := vg.Length(0); d < w+h; d += gap {
+		// The line x − y = d − h through r, clipped to it.
+		ax, ay := r.Min.X+d, r.Min.Y
+		if d > w {
+			ax, ay = r.Max.X, r.Min.Y+(d-w)
+		}
+		bx, by := r.Min.X, r.Min.Y+d
+		if d > h {
+			bx, by = r.Min.X+(d-h), r.Max.Y
+		}
+		c.StrokeLine2(sty, ax, ay, bx, by)
+	}
+}
+
+// swatch is a key entry of one colour.
+type swatch struct{ c color.Color }
+
+func (s swatch) Thumbnail(c *draw.Canvas) {
+	c.SetColor(s.c)
+	c.Fill(c.Rectangle.Path())
+}
+
+// hatchThumb is a key entry for hatched cells.
+type hatchThumb struct{ c color.Color }
+
+func (h hatchThumb) Thumbnail(c *draw.Canvas) { hatchRect(*c, c.Rectangle, lineStyle(h.c, widthThin, nil)) }
+
+// SearchStep is one evaluation of a setting search.
+type SearchStep struct {
+	Objective float64 // NaN when the point has no answer
+	Feasible  bool    // converged, attached to the limit, within every constraint
+}
+
+// SearchPlot draws a search's objective against the evaluation number:
+// feasible evaluations filled, others hollow, the best feasible value so
+// far (the largest when maximise, else the smallest) as a step line, and
+// the start as a horizontal reference.
+func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark bool) (*plot.Plot, error) {
+	th := themeFor(dark)
+	p := newPlot(th, title, "evaluation", objective)
+	k := newKey(th, keyBottomRight)
+	var ok, bad, best plotter.XYs
+	ext := newExtent()
+	cur := math.NaN()
+	for i, s := range steps {
+		if math.IsNaN(s.Objective) {
+			continue
+		}
+		xy := plotter.XY{X: float64(i + 1), Y: s.Objective}
+		ext.add(xy.X, xy.Y)
+		if s.Feasible {
+			ok = append(ok, xy)
+			if math.IsNaN(cur) || (maximise && s.Objective > cur) || (!maximise && s.Objective < cur) {
+				cur = s.Objective
+			}
+		} else {
+			bad = append(bad, xy)
+		}
+		if !math.IsNaN(cur) {
+			best = append(best, plotter.XY{X: xy.X, Y: cur})
+		}
+	}
+	if ext.empty() {
+		return nil, ErrNoSetupData
+	}
+	if len(best) > 1 {
+		sty := lineStyle(th.accent, widthNormal, nil)
+		l := newLine(best, sty)
+		l.StepStyle = plotter.PostStep
+		p.Add(l)
+		k.add("best so far", legendLine{sty})
+	}
+	if len(ok) > 0 {
+		s := newScatter(ok, th.upper, glyphMarker*0.8, draw.CircleGlyph{})
+		p.Add(s)
+		k.add("within the constraints", s)
+	}
+	if len(bad) > 0 {
+		s := newScatter(bad, th.lower, glyphMarker, draw.RingGlyph{})
+		p.Add(s)
+		k.add("outside a constraint", s)
+	}
+	if len(steps) > 0 && !math.IsNaN(steps[0].Objective) {
+		p.Add(&refLine{value: steps[0].Objective, style: lineStyle(th.faint, widthThin, dashRef), label: "start", labelSty: noteStyle(th, th.faint, 8, text.XLeft, text.YBottom)})
+	}
+	p.X.Min, p.X.Max = 0.5, math.Max(ext.x1, 1)+0.5
+	p.Y.Min, p.Y.Max = padRange(ext.y0, ext.y1, 0.08)
+	k.keep(ok, bad)
+	p.Add(k)
+	return p, nil
+}
+
+// SpanLoad is the spanwise load of a finite-span estimate over the half
+// span, from the centre to the tip.
+type SpanLoad struct {
+	Title, YLabel string
+	SpanM         float64
+	YM, Load      []float64 // stations, centre to tip
+	// TwoD is the two-dimensional load in the same unit (the section's
+	// value at the study's angle), drawn for comparison; NaN for none.
+	TwoD float64
+}
+
+// SpanLoadPlot draws the load across the whole span (mirrored), falling
+// to zero at the tips as the lifting line has it, with the
+// two-dimensional value dashed.
+func SpanLoadPlot(s SpanLoad, dark bool) (*plot.Plot, error) {
+	if len(s.YM) != len(s.Load) {
+		panic("figure: SpanLoadPlot: stations and loads of different lengths")
+	}
+	if len(s.YM) == 0 {
+		return nil, ErrNoSetupData
+	}
+	th := themeFor(dark)
+	p := newPlot(th, s.Title, "distance from the centre of the span, m", s.YLabel)
+	k := newKey(th, keyBottomRight)
+	half := s.SpanM / 2
+	xys := plotter.XYs{{X: -half, Y: 0}}
+	for i := len(s.YM) - 1; i >= 0; i-- {
+		xys = append(xys, plotter.XY{X: -s.YM[i], Y: s.Load[i]})
+	}
+	for i := range s.YM {
+		xys = append(xys, plotter.XY{X: s.YM[i], Y: s.Load[i]})
+	}
+	xys = append(xys, plotter.XY{X: half, Y: 0})
+	ext := newExtent()
+	for _, q := range xys {
+		ext.add(q.X, q.Y)
+	}
+	sty := lineStyle(th.upper, widthBold, nil)
+	p.Add(newLine(xys, sty))
+	k.add("lifting line", legendLine{sty})
+	if !math.IsNaN(s.TwoD) {
+		r := lineStyle(th.faint, widthNormal, dashRef)
+		p.Add(newLine(plotter.XYs{{X: -half, Y: s.TwoD}, {X: half, Y: s.TwoD}}, r))
+		k.add("two-dimensional", legendLine{r})
+		ext.add(0, s.TwoD)
+	}
+	ext.add(0, 0)
+	k.keep(xys)
+	p.X.Min, p.X.Max = -half*1.04, half*1.04
+	p.Y.Min, p.Y.Max = padRange(ext.y0, ext.y1, 0.06)
+	p.Add(k)
+	return p, nil
+}

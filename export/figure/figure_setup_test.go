@@ -1,0 +1,107 @@
+package figure
+
+import (
+	"bytes"
+	"errors"
+	"flag"
+	"math"
+	"os"
+	"path/filepath"
+	"testing"
+
+	"gonum.org/v1/plot"
+)
+
+// -setup.out DIR writes the set-up figures of these tests as PNGs to look
+// at.
+var setupOut = flag.String("setup.out", "", "write the set-up test figures as PNGs to this directory")
+
+func writeSetup(t *testing.T, name string, p *plot.Plot) {
+	t.Helper()
+	var b bytes.Buffer
+	if err := WritePlot(&b, p, FormatPNG, 6, 4, 96); err != nil {
+		t.Fatal(err)
+	}
+	if *setupOut != "" {
+		if err := os.WriteFile(filepath.Join(*setupOut, name+".png"), b.Bytes(), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+}
+
+// Invented curve: downforce against clearance rising as the clearance
+// falls, then dropping, with the lowest points separated and one without
+// an answer.
+func TestSetupCurvePlot(t *testing.T) {
+	c := SetupCurve{Title: "Downforce against clearance (invented)", XLabel: "clearance, mm", YLabel: "downforce, N/m", Current: 150, Onset: 35, OnsetLabel: "separation from 35 mm"}
+	for h := 20.0; h <= 200; h += 15 {
+		c.X = append(c.X, h)
+		c.Y = append(c.Y, 300+4000/h-math.Max(0, 40-h)*8)
+		c.Separated = append(c.Separated, h < 40)
+		c.Failed = append(c.Failed, h == 65)
+	}
+	p, err := SetupCurvePlot(c, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	writeSetup(t, "setup-curve", p)
+	if _, err := SetupCurvePlot(SetupCurve{Onset: math.NaN(), Current: math.NaN()}, false); !errors.Is(err, ErrNoSetupData) {
+		t.Errorf("empty curve: %v", err)
+	}
+}
+
+// Invented map: a smooth bump with a separated corner, a failed cell and
+// a search path.
+func TestSetupGridPlot(t *testing.T) {
+	g := SetupGrid{Title: "Downforce (invented)", XLabel: "flap deflection, °", YLabel: "flap gap, mm", ZLabel: "N/m", Start: [2]float64{20, 10}, Best: [2]float64{28, 12}}
+	for x := 10.0; x <= 40; x += 3 {
+		g.X = append(g.X, x)
+	}
+	for y := 4.0; y <= 20; y += 2 {
+		g.Y = append(g.Y, y)
+	}
+	for _, x := range g.X {
+		var z []float64
+		var s, f []bool
+		for _, y := range g.Y {
+			z = append(z, 400-0.5*(x-30)*(x-30)-2*(y-12)*(y-12))
+			s = append(s, x > 34 && y < 10)
+			f = append(f, x == 40 && y == 20)
+		}
+		g.Z, g.Separated, g.Failed = append(g.Z, z), append(g.Separated, s), append(g.Failed, f)
+	}
+	g.Path = [][2]float64{{20, 10}, {24, 10}, {22, 13}, {27, 12}, {28, 12}}
+	p, err := SetupGridPlot(g, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	writeSetup(t, "setup-grid", p)
+	if p.X.Min != 8.5 || p.X.Max != 41.5 {
+		t.Errorf("x range %g..%g, want the cells' edges 8.5..41.5", p.X.Min, p.X.Max)
+	}
+	p, err = SetupGridPlot(g, true)
+	if err != nil {
+		t.Fatal(err)
+	}
+	writeSetup(t, "setup-grid-dark", p)
+}
+
+func TestSearchAndSpanLoadPlots(t *testing.T) {
+	steps := []SearchStep{{300, true}, {320, true}, {310, false}, {math.NaN(), false}, {335, true}, {330, true}}
+	p, err := SearchPlot("Search (invented)", "downforce, N/m", steps, true, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	writeSetup(t, "setup-search", p)
+	s := SpanLoad{Title: "Spanwise load (invented)", YLabel: "downforce, N/m", SpanM: 1, TwoD: 320}
+	for i := range 10 {
+		y := (float64(i) + 0.5) / 20
+		s.YM = append(s.YM, y)
+		s.Load = append(s.Load, 250*math.Sqrt(1-4*y*y))
+	}
+	p, err = SpanLoadPlot(s, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	writeSetup(t, "setup-span", p)
+}
