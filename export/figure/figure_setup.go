@@ -348,7 +348,9 @@ func (s swatch) Thumbnail(c *draw.Canvas) {
 // hatchThumb is a key entry for hatched cells.
 type hatchThumb struct{ c color.Color }
 
-func (h hatchThumb) Thumbnail(c *draw.Canvas) { hatchRect(*c, c.Rectangle, lineStyle(h.c, widthThin, nil)) }
+func (h hatchThumb) Thumbnail(c *draw.Canvas) {
+	hatchRect(*c, c.Rectangle, lineStyle(h.c, widthThin, nil))
+}
 
 // SearchStep is one evaluation of a setting search.
 type SearchStep struct {
