@@ -97,6 +97,7 @@ func (w *Workbench) menu() *fyne.MainMenu {
 		fyne.NewMenuItemSeparator(),
 		fyne.NewMenuItem("Density study…", func() { w.openDensity(densityTabConvergence) }),
 		fyne.NewMenuItem("Panel sizes…", func() { w.openDensity(densityTabSizes) }),
+		fyne.NewMenuItem("Set-up explorer: maps, setting search, finite span…", func() { w.openSetup(setupTabMaps) }),
 	)
 	w.startExtras()
 	help := fyne.NewMenu("Help",

@@ -70,6 +70,7 @@ type Workbench struct {
 
 	opt      Options
 	density  *densityWindow // nil until first opened
+	setup    *setupWindow   // nil until first opened
 	autosave *autosaver     // nil when autosave is off
 	saveDlg  *saveDialog    // the last "save as" dialog; nil until one opens
 	// startupErr says why the study named at start could not be opened.

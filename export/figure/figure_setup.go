@@ -1,7 +1,6 @@
 package figure
 
 import (
-	"errors"
 	"fmt"
 	"image/color"
 	"math"
@@ -38,9 +37,9 @@ type SetupCurve struct {
 	OnsetLabel     string
 }
 
-// ErrNoSetupData is wrapped by the set-up figures' errors when there is
-// nothing to draw yet.
-var ErrNoSetupData = errors.New("no points with a value yet")
+// ErrNoSetupData is the set-up figures' error when there is nothing to
+// draw yet; it wraps ErrNoData.
+var ErrNoSetupData = fmt.Errorf("no points with a value yet: %w", ErrNoData)
 
 // SetupCurvePlot draws a SetupCurve: the points with a value joined in
 // order of X, separated points in a hollow marker of their own, points

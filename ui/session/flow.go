@@ -28,6 +28,12 @@ func (c *Controller) SetSpan(key string, m float64) error {
 	return c.Edit(key, func(s *model.Study) { s.Flow.SpanM = m })
 }
 
+// SetEndPlateHeight sets the end plates' height in mm for the
+// finite-span estimate (0: none).
+func (c *Controller) SetEndPlateHeight(key string, mm float64) error {
+	return c.Edit(key, func(s *model.Study) { s.Flow.EndPlateHeightMM = mm })
+}
+
 // SetReynolds sets a Reynolds number on the first element's chord that
 // overrides the one from the speed (0: from the speed).
 func (c *Controller) SetReynolds(key string, re float64) error {

@@ -1,0 +1,109 @@
+package ui
+
+import (
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/widget"
+)
+
+// Size of the set-up window in Fyne units, and of its control column.
+const (
+	setupWidth        = 1240
+	setupHeight       = 800
+	setupControlWidth = 400
+)
+
+// The tabs of the set-up window.
+const (
+	setupTabMaps = iota
+	setupTabSearch
+	setupTabSpan
+)
+
+// setupWindow is the set-up explorer: maps of the configuration over one
+// or two set-up variables, the setting search and the finite-span
+// estimate. Each part gathers its inputs on the UI goroutine, runs off it
+// and posts its results back with the workbench's do; a newer run
+// supersedes an older one.
+type setupWindow struct {
+	w       *Workbench
+	win     fyne.Window
+	tabs    *container.AppTabs
+	maps    *setupMaps
+	search  *setupSearch
+	span    *setupSpan
+	visible bool
+}
+
+// openSetup shows the set-up window at a tab, making it on first use.
+func (w *Workbench) openSetup(tab int) {
+	if w.setup == nil {
+		w.setup = newSetupWindow(w)
+		w.ctl.Subscribe(w.setup.studyChanged)
+	}
+	s := w.setup
+	s.tabs.SelectIndex(tab)
+	s.visible = true
+	s.studyChanged()
+	s.win.Show()
+	s.win.RequestFocus()
+}
+
+func newSetupWindow(w *Workbench) *setupWindow {
+	s := &setupWindow{w: w}
+	s.win = w.app.NewWindow("Set-up explorer — Sectionbench")
+	s.win.SetCloseIntercept(s.hide)
+	s.maps = newSetupMaps(s)
+	s.search = newSetupSearch(s)
+	s.span = newSetupSpan(s)
+	s.tabs = container.NewAppTabs(
+		container.NewTabItem("Maps", s.maps.content),
+		container.NewTabItem("Setting search", s.search.content),
+		container.NewTabItem("Finite span", s.span.content),
+	)
+	note := widget.NewLabelWithStyle(cautionShort+"; structure and mounting follow the competition's rules and qualified review.", fyne.TextAlignTrailing, fyne.TextStyle{Italic: true})
+	s.win.SetContent(container.NewBorder(nil, note, nil, nil, s.tabs))
+	s.win.Resize(fyne.NewSize(setupWidth, setupHeight))
+	w.app.Settings().AddListener(func(fyne.Settings) { w.do(s.redraw) })
+	return s
+}
+
+// studyChanged follows the study: the variables offered and whether what
+// is shown still belongs to it.
+func (s *setupWindow) studyChanged() {
+	if s.w.ctl.Current() == nil {
+		return
+	}
+	s.maps.studyChanged()
+	s.search.studyChanged()
+	s.span.studyChanged()
+}
+
+// redraw draws every figure again (a theme change).
+func (s *setupWindow) redraw() {
+	s.maps.redraw()
+	s.search.redraw()
+	s.span.redraw()
+}
+
+// hide puts the window away (its close button): runs stop, the results
+// stay for the next opening.
+func (s *setupWindow) hide() {
+	s.maps.stop()
+	s.search.stop()
+	s.span.stop()
+	s.visible = false
+	s.win.Hide()
+}
+
+// relayout lays the window out again after widgets were shown or hidden.
+func (s *setupWindow) relayout() {
+	if c := s.win.Content(); c != nil {
+		c.Refresh()
+	}
+}
+
+// setupColumn is a control column of the window's width.
+func setupColumn(objs ...fyne.CanvasObject) fyne.CanvasObject {
+	return container.NewPadded(container.NewStack(widthOf(setupControlWidth), container.NewVScroll(container.NewVBox(objs...))))
+}

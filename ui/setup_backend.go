@@ -1,0 +1,170 @@
+package ui
+
+// The set-up window reaches model, solver/engine and export only through
+// the functions below, as the rest of the workbench does through
+// backend.go.
+
+import (
+	"context"
+	"io"
+	"math"
+
+	figures "sectionbench/export/figure"
+	"sectionbench/export/format"
+	"sectionbench/model"
+	"sectionbench/solver/engine"
+	"sectionbench/ui/session"
+)
+
+type (
+	setupVariable = model.SetupVariable
+	setupRange    = model.SetupRange
+	setupPoint    = engine.Point
+	finiteSpan    = engine.FiniteSpan
+	setupCurve    = figures.SetupCurve
+	setupGrid     = figures.SetupGrid
+	spanLoad      = figures.SpanLoad
+	searchStep    = figures.SearchStep
+)
+
+// setupVariables lists the set-up variables st can vary, in the order the
+// window offers them: the angle of attack, the clearance (ground on), the
+// speed, then each flap's deflection, gap and overlap.
+func setupVariables(st *model.Study) []setupVariable {
+	vs := []setupVariable{{Kind: model.SetupAlpha}}
+	if st.Ground.Enabled {
+		vs = append(vs, setupVariable{Kind: model.SetupClearance})
+	}
+	vs = append(vs, setupVariable{Kind: model.SetupSpeed})
+	for k := 1; k < len(st.Elements); k++ {
+		for _, kind := range []model.SetupKind{model.SetupDeflection, model.SetupGap, model.SetupOverlap} {
+			vs = append(vs, setupVariable{Kind: kind, Element: k})
+		}
+	}
+	return vs
+}
+
+// setupValue returns v's value in st (model.Study.SetupValue).
+func setupValue(st *model.Study, v setupVariable, secs []*model.Section) float64 {
+	return st.SetupValue(v, secs)
+}
+
+// setupLabel names v in words with its unit for st.
+func setupLabel(st *model.Study, v setupVariable) string { return v.Label(st) }
+
+// checkSetup checks ranges against st before a run.
+func checkSetup(st *model.Study, ranges []setupRange) error { return st.CheckSetup(ranges) }
+
+// runMap runs a set-up map (engine.Map); a panic becomes an error.
+func runMap(ctx context.Context, st *model.Study, secs []*model.Section, ranges []setupRange, inviscid bool, progress func(done, total int), each func(setupPoint)) (pts []setupPoint, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			pts, err = nil, session.InternalError("in the set-up map", r)
+		}
+	}()
+	return engine.Map(ctx, st, secs, ranges, engine.MapOptions{PointOptions: engine.PointOptions{Inviscid: inviscid}}, progress, each)
+}
+
+// runFiniteSpan runs the finite-span estimate of st (engine.FiniteSpan);
+// a panic becomes an error.
+func runFiniteSpan(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int)) (fs *finiteSpan, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			fs, err = nil, session.InternalError("in the finite-span estimate", r)
+		}
+	}()
+	fs, _, err = engine.NewEngine().FiniteSpan(ctx, engine.Request{Study: st, Sections: secs, Progress: progress})
+	return fs, err
+}
+
+// finiteSpanMethod and finiteSpanCaution are the estimate's method and
+// caution in words.
+var (
+	finiteSpanMethod  = engine.FiniteSpanMethod
+	finiteSpanCaution = engine.FiniteSpanCaution
+)
+
+// applySetupValues sets each variable to its value in a copy of st.
+func applySetupValues(st *model.Study, vars []setupVariable, values []float64, secs []*model.Section) (*model.Study, error) {
+	next := st.Clone()
+	if err := next.ApplySetupAll(vars, values, secs); err != nil {
+		return nil, err
+	}
+	return next, nil
+}
+
+// writeMapTable writes a map's points as CSV (format.WriteMapTable).
+func writeMapTable(w io.Writer, st *model.Study, program string, vars []setupVariable, points []setupPoint) error {
+	return format.WriteMapTable(w, format.Metadata{Study: st.Name, AlphaDeg: math.NaN(), Program: program}, vars, points)
+}
+
+func renderSetupCurve(c setupCurve, dark bool, w, h int, dpi float64) (*figure, error) {
+	p, err := figures.SetupCurvePlot(c, dark)
+	if err != nil {
+		return nil, err
+	}
+	return figures.RenderPlot(p, false, w, h, dpi), nil
+}
+
+func renderSetupGrid(g setupGrid, dark bool, w, h int, dpi float64) (*figure, error) {
+	p, err := figures.SetupGridPlot(g, dark)
+	if err != nil {
+		return nil, err
+	}
+	return figures.RenderPlot(p, false, w, h, dpi), nil
+}
+
+func renderSpanLoad(s spanLoad, dark bool, w, h int, dpi float64) (*figure, error) {
+	p, err := figures.SpanLoadPlot(s, dark)
+	if err != nil {
+		return nil, err
+	}
+	return figures.RenderPlot(p, false, w, h, dpi), nil
+}
+
+func renderSearch(title, objective string, steps []searchStep, maximise, dark bool, w, h int, dpi float64) (*figure, error) {
+	p, err := figures.SearchPlot(title, objective, steps, maximise, dark)
+	if err != nil {
+		return nil, err
+	}
+	return figures.RenderPlot(p, false, w, h, dpi), nil
+}
+
+// parseSetupRange reads a map's range of v from its three numbers
+// (model.ParseSetupRange checks them).
+func parseSetupRange(v setupVariable, from, to, step float64) (setupRange, error) {
+	return model.ParseSetupRange(v.Name() + "=" + entryNum(from) + ":" + entryNum(to) + ":" + entryNum(step))
+}
+
+// parseSetupBounds reads a search's bounds of v (model.ParseSetupBounds
+// checks them).
+func parseSetupBounds(v setupVariable, lo, hi float64) (setupRange, error) {
+	return model.ParseSetupBounds(v.Name() + "=" + entryNum(lo) + ":" + entryNum(hi))
+}
+
+// setupDefaults suggests a range for v around its value x in st: about
+// nine values either side of the setting, within what a study accepts.
+func setupDefaults(st *model.Study, v setupVariable, x float64) (from, to, step float64) {
+	switch v.Kind {
+	case model.SetupAlpha:
+		return math.Round(x) - 4, math.Round(x) + 4, 1
+	case model.SetupClearance:
+		// Ride height from a tenth of the reference chord to twice the
+		// setting, in steps of a tenth of that span.
+		c := st.Elements[0].ChordMM
+		if st.ReferenceChordMM > 0 {
+			c = st.ReferenceChordMM
+		}
+		lo := math.Max(1, math.Round(0.1*c))
+		hi := math.Max(lo+10, math.Round(2*x))
+		return lo, hi, math.Max(1, math.Round((hi-lo)/10))
+	case model.SetupSpeed:
+		return 10, 40, 5
+	case model.SetupDeflection:
+		return math.Round(x) - 10, math.Round(x) + 10, 2.5
+	case model.SetupGap:
+		lo := math.Max(1, math.Round(x)-6)
+		return lo, lo + 12, 2
+	}
+	return math.Round(x) - 6, math.Round(x) + 6, 2
+}

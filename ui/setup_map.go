@@ -1,0 +1,701 @@
+package ui
+
+import (
+	"context"
+	"fmt"
+	"io"
+	"math"
+	"path/filepath"
+	"slices"
+	"sort"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/model"
+)
+
+// setupQuantity is what a map shows of each point.
+type setupQuantity int
+
+const (
+	quantityLoad setupQuantity = iota // downforce (inverted) or lift
+	quantityDrag
+	quantityLiftToDrag
+	quantityCm
+	quantitySeparation // the earliest suction-side separation, x/c
+	numQuantities
+)
+
+// defaultSeparationLimit is the x/c ahead of which a suction side that
+// separates marks a point: separation in the last tenth of the chord is
+// common on a loaded flap and costs little (common practice).
+const defaultSeparationLimit = 0.9
+
+// label names the quantity with its unit: forces in N/m of span when the
+// map has a speed, coefficients otherwise.
+func (q setupQuantity) label(inverted, forces bool) string {
+	switch q {
+	case quantityLoad:
+		switch {
+		case inverted && forces:
+			return "downforce (N/m)"
+		case inverted:
+			return "downforce coefficient −Cl"
+		case forces:
+			return "lift (N/m)"
+		}
+		return "lift coefficient Cl"
+	case quantityDrag:
+		if forces {
+			return "drag (N/m)"
+		}
+		return "drag coefficient Cd"
+	case quantityLiftToDrag:
+		if inverted {
+			return "downforce to drag"
+		}
+		return "lift to drag"
+	case quantityCm:
+		return "pitching moment coefficient Cm"
+	}
+	return "suction-side separation, x/c (1: attached)"
+}
+
+// short is the quantity's name in the readout.
+func (q setupQuantity) short(inverted bool) string {
+	switch q {
+	case quantityLoad:
+		if inverted {
+			return "downforce"
+		}
+		return "lift"
+	case quantityDrag:
+		return "drag"
+	case quantityLiftToDrag:
+		return "L/D"
+	case quantityCm:
+		return "Cm"
+	}
+	return "separation x/c"
+}
+
+// value returns the quantity at a point, NaN where it has none (not
+// converged, not solved, no drag without the viscous solution).
+func (q setupQuantity) value(p *setupPoint, forces bool) float64 {
+	if !p.Converged || p.Err != "" {
+		return math.NaN()
+	}
+	switch q {
+	case quantityLoad:
+		if forces {
+			if p.Inverted {
+				return p.DownforcePerSpan
+			}
+			return p.LiftPerSpan
+		}
+		return p.Load()
+	case quantityDrag:
+		if forces {
+			return p.DragPerSpan
+		}
+		return p.Cd
+	case quantityLiftToDrag:
+		return p.Load() / p.Cd
+	case quantityCm:
+		return p.Cm
+	}
+	if !p.Viscous {
+		return math.NaN()
+	}
+	first := 1.0
+	for _, e := range p.Elements {
+		if e.SeparationSuction < first { // false for NaN: attached
+			first = e.SeparationSuction
+		}
+	}
+	return first
+}
+
+// mapRun is a map: its inputs and the points that have arrived. It is
+// read and written on the UI goroutine only; figures get copies.
+type mapRun struct {
+	st      *model.Study
+	vars    []setupVariable
+	axes    [][]float64
+	current []float64 // the study's own value of each variable
+	points  []setupPoint
+	arrived []bool
+	limit   float64
+	forces  bool
+	done    int
+	status  string // how the run ended; "" while it runs
+}
+
+func (r *mapRun) total() int { return len(r.points) }
+
+// failed and separated describe a point for the figures.
+func (r *mapRun) failed(k int) bool {
+	p := &r.points[k]
+	return r.arrived[k] && (!p.Converged || p.Err != "")
+}
+
+func (r *mapRun) separated(k int) bool {
+	p := &r.points[k]
+	return r.arrived[k] && p.Converged && p.Viscous && !p.AttachedTo(r.limit)
+}
+
+// curve returns quantity q against the one variable over the points that
+// have arrived, with the separation onset nearest the study's value.
+func (r *mapRun) curve(q setupQuantity) setupCurve {
+	inv := r.st.Inverted
+	c := setupCurve{
+		Title:  strings.ToUpper(q.label(inv, r.forces)[:1]) + q.label(inv, r.forces)[1:],
+		XLabel: setupLabel(r.st, r.vars[0]), YLabel: q.label(inv, r.forces),
+		Current: r.current[0], Onset: math.NaN(),
+	}
+	for k := range r.points {
+		if !r.arrived[k] {
+			continue
+		}
+		c.X = append(c.X, r.axes[0][k])
+		c.Y = append(c.Y, q.value(&r.points[k], r.forces))
+		c.Separated = append(c.Separated, r.separated(k))
+		c.Failed = append(c.Failed, r.failed(k))
+	}
+	if x, ok := r.onset(); ok {
+		c.Onset = x
+		c.OnsetLabel = fmt.Sprintf("separation ahead of x/c %s from %s %s", num(r.limit), num(x), r.vars[0].Unit())
+	}
+	return c
+}
+
+// onset returns, for a one-variable map, the value of the first separated
+// point next to an attached one (among the points with an answer, in
+// order of the variable), the one nearest the study's value when there
+// are several.
+func (r *mapRun) onset() (float64, bool) {
+	type pt struct {
+		x   float64
+		sep bool
+	}
+	var pts []pt
+	for k := range r.points {
+		if r.arrived[k] && !r.failed(k) && r.points[k].Viscous {
+			pts = append(pts, pt{r.axes[0][k], r.separated(k)})
+		}
+	}
+	sort.Slice(pts, func(i, j int) bool { return pts[i].x < pts[j].x })
+	best, found := math.NaN(), false
+	for i := 1; i < len(pts); i++ {
+		if pts[i].sep == pts[i-1].sep {
+			continue
+		}
+		x := pts[i].x
+		if pts[i-1].sep {
+			x = pts[i-1].x
+		}
+		if !found || math.Abs(x-r.current[0]) < math.Abs(best-r.current[0]) {
+			best, found = x, true
+		}
+	}
+	return best, found
+}
+
+// grid returns quantity q over the two variables.
+func (r *mapRun) grid(q setupQuantity) setupGrid {
+	inv := r.st.Inverted
+	nx, ny := len(r.axes[0]), len(r.axes[1])
+	g := setupGrid{
+		Title:  strings.ToUpper(q.label(inv, r.forces)[:1]) + q.label(inv, r.forces)[1:],
+		XLabel: setupLabel(r.st, r.vars[0]), YLabel: setupLabel(r.st, r.vars[1]), ZLabel: unitOf(q.label(inv, r.forces)),
+		X: r.axes[0], Y: r.axes[1],
+		Z: make([][]float64, nx), Separated: make([][]bool, nx), Failed: make([][]bool, nx),
+		Start: [2]float64{math.NaN(), math.NaN()}, Best: [2]float64{math.NaN(), math.NaN()},
+	}
+	for i := range nx {
+		g.Z[i], g.Separated[i], g.Failed[i] = make([]float64, ny), make([]bool, ny), make([]bool, ny)
+		for j := range ny {
+			k := i*ny + j
+			g.Z[i][j] = math.NaN()
+			if r.arrived[k] {
+				g.Z[i][j] = q.value(&r.points[k], r.forces)
+				g.Separated[i][j], g.Failed[i][j] = r.separated(k), r.failed(k)
+			}
+		}
+	}
+	return g
+}
+
+// unitOf returns the unit in a label's parentheses, or "".
+func unitOf(label string) string {
+	if i := strings.LastIndex(label, "("); i >= 0 && strings.HasSuffix(label, ")") {
+		return label[i+1 : len(label)-1]
+	}
+	return ""
+}
+
+// nearest returns the index of the arrived point nearest the data point
+// (x, y) of the figure (y only for two variables), or −1.
+func (r *mapRun) nearest(x, y float64) int {
+	near := func(axis []float64, v float64) int {
+		best := 0
+		for i, a := range axis {
+			if math.Abs(a-v) < math.Abs(axis[best]-v) {
+				best = i
+			}
+		}
+		return best
+	}
+	k := near(r.axes[0], x)
+	if len(r.axes) == 2 {
+		k = k*len(r.axes[1]) + near(r.axes[1], y)
+	}
+	if !r.arrived[k] {
+		return -1
+	}
+	return k
+}
+
+// describe is the readout of point k: its setting and every quantity.
+func (r *mapRun) describe(k int) string {
+	p := &r.points[k]
+	var set []string
+	for i, v := range r.vars {
+		set = append(set, fmt.Sprintf("%s %s %s", v.Label(r.st)[:strings.LastIndex(v.Label(r.st), " (")], num(p.Values[i]), v.Unit()))
+	}
+	s := strings.Join(set, ", ") + ": "
+	switch {
+	case p.Err != "":
+		return s + "not solved: " + p.Err
+	case !p.Converged:
+		return s + "the viscous solution did not converge"
+	}
+	var qs []string
+	for q := range numQuantities {
+		v := q.value(p, r.forces)
+		if math.IsNaN(v) {
+			continue
+		}
+		qs = append(qs, q.short(r.st.Inverted)+" "+sig(v))
+	}
+	if r.separated(k) {
+		qs = append(qs, "suction side separated ahead of x/c "+num(r.limit))
+	}
+	return s + strings.Join(qs, ", ")
+}
+
+// sig formats a value to four significant digits with a true minus sign.
+func sig(v float64) string {
+	return strings.Replace(fmt.Sprintf("%.4g", v), "-", "−", 1)
+}
+
+// setupMaps is the Maps tab.
+type setupMaps struct {
+	s       *setupWindow
+	content fyne.CanvasObject
+
+	vars           []setupVariable // offered, in the selects' order
+	var1, var2     *widget.Select
+	from, to, step [2]*widget.Entry
+	second         *widget.Check
+	secondBox      *fyne.Container
+	viscous        *widget.Check
+	limit          *widget.Entry
+	msg            *widget.Label
+	run, cancel    *widget.Button
+	progress       *widget.ProgressBar
+	status         *widget.Label
+	export         *widget.Button
+	quantity       *widget.Select
+	readout        *widget.Label
+	curves         [numQuantities]*figureBox
+	curveArea      *fyne.Container
+	gridBox        *figureBox
+	gridArea       *fyne.Container
+
+	running context.CancelFunc
+	gen     int
+	run0    *mapRun // the map shown; nil before the first run
+}
+
+func newSetupMaps(s *setupWindow) *setupMaps {
+	m := &setupMaps{s: s}
+	w := s.w
+	m.var1 = widget.NewSelect(nil, func(string) { m.fillRange(0) })
+	m.var2 = widget.NewSelect(nil, func(string) { m.fillRange(1) })
+	for i := range 2 {
+		m.from[i], m.to[i], m.step[i] = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
+	}
+	rangeRow := func(i int) fyne.CanvasObject {
+		return container.NewGridWithColumns(3, labelled("from", m.from[i]), labelled("to", m.to[i]), labelled("step", m.step[i]))
+	}
+	m.secondBox = container.NewVBox(m.var2, rangeRow(1))
+	m.secondBox.Hide()
+	m.second = widget.NewCheck("A second variable (a map over two)", func(on bool) {
+		if on {
+			m.secondBox.Show()
+		} else {
+			m.secondBox.Hide()
+		}
+		s.relayout()
+	})
+	m.viscous = widget.NewCheck("Viscous solution (coupled)", nil)
+	m.viscous.SetChecked(true)
+	m.limit = widget.NewEntry()
+	m.limit.SetText(entryNum(defaultSeparationLimit))
+	m.msg = message()
+	m.run = widget.NewButton("Run map", m.start)
+	m.run.Importance = widget.HighImportance
+	m.cancel = widget.NewButton("Cancel", m.stop)
+	m.cancel.Hide()
+	m.progress = widget.NewProgressBar()
+	m.progress.Hide()
+	m.status = caption("Not run yet. Each point is the study solved with the variables set to the point's values; points stream in as they are solved, on both cores.")
+	m.export = widget.NewButton("Export map (CSV)…", func() { w.exportTo(m.csvJob()) })
+	m.export.Disable()
+	var names []string
+	for q := range numQuantities {
+		names = append(names, q.label(false, false))
+	}
+	m.quantity = widget.NewSelect(nil, func(string) { m.show() })
+	m.readout = widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+	m.readout.Wrapping = fyne.TextWrapWord
+
+	var cells []fyne.CanvasObject
+	for q := range numQuantities {
+		m.curves[q] = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(260, 200))
+		cells = append(cells, newReadoutBox(m.curves[q], m.hover))
+	}
+	m.curveArea = container.NewGridWithColumns(3, cells...)
+	m.gridBox = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(520, 400))
+	m.gridArea = container.NewBorder(m.quantity, nil, nil, nil, newReadoutBox(m.gridBox, m.hover))
+	m.gridArea.Hide()
+
+	side := setupColumn(
+		heading("Vary"),
+		m.var1, rangeRow(0),
+		m.second, m.secondBox,
+		widget.NewSeparator(),
+		m.viscous,
+		row("Separation limit, x/c", m.limit),
+		caption("A point whose suction side separates ahead of this x/c on any element is marked."),
+		m.msg,
+		container.NewBorder(nil, nil, nil, m.cancel, m.run),
+		m.progress, m.status, m.export,
+	)
+	m.content = container.NewBorder(nil, m.readout, side, nil, container.NewStack(m.curveArea, m.gridArea))
+	return m
+}
+
+// studyChanged offers the variables the study has, keeping the choices
+// that are still there.
+func (m *setupMaps) studyChanged() {
+	st := m.s.w.ctl.Current()
+	vars := setupVariables(st)
+	labels := make([]string, len(vars))
+	for i, v := range vars {
+		labels[i] = setupLabel(st, v)
+	}
+	keep := func(sel *widget.Select, def int) {
+		old := -1
+		if i := sel.SelectedIndex(); i >= 0 && i < len(m.vars) {
+			old = slices.Index(vars, m.vars[i])
+		}
+		sel.SetOptions(labels)
+		if old < 0 {
+			old = min(def, len(vars)-1)
+		}
+		sel.SetSelectedIndex(old)
+	}
+	first := m.vars == nil
+	m.vars = vars
+	def1 := 0
+	if st.Ground.Enabled {
+		def1 = 1 // the ride height first: the question a team asks first
+	}
+	keep(m.var1, def1)
+	keep(m.var2, min(def1+1, len(vars)-1))
+	if first {
+		m.fillRange(0)
+		m.fillRange(1)
+	}
+}
+
+// fillRange fills range i's fields with defaults around the study's value
+// of the variable chosen.
+func (m *setupMaps) fillRange(i int) {
+	sel := [2]*widget.Select{m.var1, m.var2}[i]
+	k := sel.SelectedIndex()
+	if k < 0 || k >= len(m.vars) {
+		return
+	}
+	ctl := m.s.w.ctl
+	st := ctl.Current()
+	v := m.vars[k]
+	from, to, step := setupDefaults(st, v, setupValue(st, v, ctl.Sections()))
+	m.from[i].SetText(entryNum(from))
+	m.to[i].SetText(entryNum(to))
+	m.step[i].SetText(entryNum(step))
+}
+
+// readRanges parses the ranges typed.
+func (m *setupMaps) readRanges() ([]setupRange, error) {
+	n := 1
+	if m.second.Checked {
+		n = 2
+	}
+	var out []setupRange
+	for i := range n {
+		k := [2]*widget.Select{m.var1, m.var2}[i].SelectedIndex()
+		if k < 0 {
+			return nil, fmt.Errorf("choose a variable")
+		}
+		var vals [3]float64
+		for j, e := range []*widget.Entry{m.from[i], m.to[i], m.step[i]} {
+			x, err := parseNumber(e.Text)
+			if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+				return nil, fmt.Errorf("%s %s: %q is not a number", setupLabel(m.s.w.ctl.Current(), m.vars[k]), []string{"from", "to", "step"}[j], strings.TrimSpace(e.Text))
+			}
+			vals[j] = x
+		}
+		r, err := parseSetupRange(m.vars[k], vals[0], vals[1], vals[2])
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, r)
+	}
+	return out, nil
+}
+
+// readLimit parses the separation limit.
+func readLimit(e *widget.Entry) (float64, error) {
+	x, err := parseNumber(e.Text)
+	if err != nil || !(x > 0 && x <= 1) {
+		return 0, fmt.Errorf("the separation limit is an x/c above 0 and at most 1")
+	}
+	return x, nil
+}
+
+// start gathers the map's inputs on the UI goroutine and runs it on its
+// own goroutine; its points come back through do, newest run only.
+func (m *setupMaps) start() {
+	ranges, err := m.readRanges()
+	if err == nil {
+		var lim float64
+		lim, err = readLimit(m.limit)
+		if err == nil {
+			err = m.begin(ranges, lim)
+		}
+	}
+	setMessage(m.msg, err)
+	m.s.relayout()
+}
+
+func (m *setupMaps) begin(ranges []setupRange, limit float64) error {
+	ctl := m.s.w.ctl
+	st, secs := ctl.Study(), slices.Clone(ctl.Sections())
+	if err := checkSetup(st, ranges); err != nil {
+		return err
+	}
+	m.stop()
+	r := &mapRun{st: st, limit: limit}
+	total := 1
+	for _, rg := range ranges {
+		r.vars = append(r.vars, rg.Var)
+		r.axes = append(r.axes, rg.Values())
+		r.current = append(r.current, setupValue(st, rg.Var, secs))
+		total *= len(rg.Values())
+		r.forces = r.forces || rg.Var.Kind == model.SetupSpeed
+	}
+	r.forces = r.forces || st.Flow.SpeedMPS > 0
+	r.points, r.arrived = make([]setupPoint, total), make([]bool, total)
+	m.run0 = r
+	m.gen++
+	gen := m.gen
+	ctx, cancel := context.WithCancel(context.Background())
+	m.running = cancel
+	m.run.Disable()
+	m.cancel.Show()
+	m.progress.SetValue(0)
+	m.progress.Show()
+	m.export.Disable()
+	m.readout.SetText("")
+	m.quantity.SetOptions(nil)
+	var names []string
+	for q := range numQuantities {
+		names = append(names, q.label(st.Inverted, r.forces))
+	}
+	m.quantity.SetOptions(names)
+	m.quantity.SetSelectedIndex(int(quantityLoad))
+	m.show()
+	inviscid := !m.viscous.Checked
+	act := ctl.Activity()
+	act.Add()
+	go func() {
+		defer act.Done()
+		defer cancel()
+		_, err := runMap(ctx, st, secs, ranges, inviscid,
+			func(done, total int) {
+				m.s.w.do(func() {
+					if gen == m.gen {
+						m.progress.SetValue(float64(done) / float64(total))
+					}
+				})
+			},
+			func(p setupPoint) {
+				m.s.w.do(func() { m.arrive(gen, p) })
+			})
+		m.s.w.do(func() { m.finish(gen, err) })
+	}()
+	return nil
+}
+
+// arrive adds a point of run gen to the map shown.
+func (m *setupMaps) arrive(gen int, p setupPoint) {
+	r := m.run0
+	if gen != m.gen || r == nil {
+		return
+	}
+	k := 0
+	for a, i := range p.Index {
+		k = k*len(r.axes[a]) + i
+	}
+	if k < 0 || k >= r.total() {
+		return
+	}
+	r.points[k], r.arrived[k] = p, true
+	r.done++
+	m.show()
+}
+
+// finish ends run gen: its state in words, the buttons back.
+func (m *setupMaps) finish(gen int, err error) {
+	if gen != m.gen {
+		return
+	}
+	m.running = nil
+	m.run.Enable()
+	m.cancel.Hide()
+	m.progress.Hide()
+	r := m.run0
+	switch {
+	case err == context.Canceled:
+		r.status = fmt.Sprintf("Cancelled after %d of %d points.", r.done, r.total())
+	case err != nil:
+		r.status = "Stopped: " + friendly(err)
+	default:
+		r.status = fmt.Sprintf("Done: %d points.", r.total())
+	}
+	if r.done > 0 {
+		m.export.Enable()
+	}
+	m.show()
+	m.s.relayout()
+}
+
+// stop cancels a running map; the points that arrived stay.
+func (m *setupMaps) stop() {
+	if m.running != nil {
+		m.running()
+		m.running = nil
+	}
+}
+
+// show draws the map shown: curves for one variable, the chosen quantity
+// over two.
+func (m *setupMaps) show() {
+	r := m.run0
+	if r == nil {
+		for _, b := range m.curves {
+			b.setDrawing(nil, "Run a map to see it here.")
+		}
+		return
+	}
+	failed, separated := 0, 0
+	for k := range r.points {
+		if r.failed(k) {
+			failed++
+		}
+		if r.separated(k) {
+			separated++
+		}
+	}
+	st := r.status
+	if st == "" {
+		st = "Running"
+	}
+	m.status.SetText(fmt.Sprintf("%s %d of %d points solved; %d without an answer (not converged or not solvable), %d separated ahead of x/c %s. The map is of the study as it was when run.",
+		st, r.done, r.total(), failed, separated, num(r.limit)))
+	if len(r.axes) == 1 {
+		m.gridArea.Hide()
+		m.curveArea.Show()
+		for q := range numQuantities {
+			c := r.curve(q)
+			m.curves[q].setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+				return renderSetupCurve(c, dark, w, h, dpi)
+			}, "")
+		}
+		return
+	}
+	m.curveArea.Hide()
+	m.gridArea.Show()
+	q := setupQuantity(max(0, m.quantity.SelectedIndex()))
+	g := r.grid(q)
+	m.gridBox.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+		return renderSetupGrid(g, dark, w, h, dpi)
+	}, "")
+}
+
+// redraw draws the figures again (a theme change).
+func (m *setupMaps) redraw() {
+	for _, b := range m.curves {
+		b.redraw()
+	}
+	m.gridBox.redraw()
+}
+
+// hover shows the point under the pointer.
+func (m *setupMaps) hover(x, y float64, ok bool) {
+	r := m.run0
+	if !ok || r == nil {
+		m.readout.SetText("")
+		return
+	}
+	if k := r.nearest(x, y); k >= 0 {
+		m.readout.SetText(r.describe(k))
+	} else {
+		m.readout.SetText("")
+	}
+}
+
+// csvJob gathers the map shown for File-style export: the points that
+// arrived, in grid order.
+func (m *setupMaps) csvJob() exportJob {
+	r := m.run0
+	w := m.s.w
+	base := w.exportBase()
+	program := "Sectionbench " + w.app.Metadata().Version
+	var st *model.Study
+	var vars []setupVariable
+	var pts []setupPoint
+	if r != nil {
+		st, vars = r.st, r.vars
+		for k := range r.points {
+			if r.arrived[k] {
+				pts = append(pts, r.points[k])
+			}
+		}
+	}
+	return func(dir string) ([]string, error) {
+		if len(pts) == 0 {
+			return nil, fmt.Errorf("no map to export yet: run one first")
+		}
+		name := base + "-map.csv"
+		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+			return writeMapTable(out, st, program, vars, pts)
+		})
+	}
+}

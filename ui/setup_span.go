@@ -1,0 +1,273 @@
+package ui
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+	"reflect"
+	"slices"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/model"
+)
+
+// setupSpan is the Finite span tab: the span and end plates (study
+// fields, undoable like any other), the estimate run off the UI
+// goroutine, its totals beside the two-dimensional figures and the
+// spanwise load.
+type setupSpan struct {
+	s       *setupWindow
+	content fyne.CanvasObject
+
+	span, plates *field
+	fieldMsg     *widget.Label
+	msg          *widget.Label
+	run, cancel  *widget.Button
+	progress     *widget.ProgressBar
+	status       *widget.Label
+	totals       *widget.Label
+	method       *widget.Label
+	load         *figureBox
+	readout      *widget.Label
+
+	running context.CancelFunc
+	gen     int
+	out     *finiteSpan // the estimate shown
+	outFor  *model.Study
+}
+
+func newSetupSpan(s *setupWindow) *setupSpan {
+	p := &setupSpan{s: s}
+	w := s.w
+	ctl := w.ctl
+	p.fieldMsg = message()
+	p.span = newField(w, p.fieldMsg, func(t string) error {
+		v, err := optionalNumber(t)
+		if err != nil {
+			return errors.New("span must be a number of metres")
+		}
+		return ctl.SetSpan("", v)
+	})
+	p.span.SetPlaceHolder("needed")
+	p.plates = newField(w, p.fieldMsg, func(t string) error {
+		v, err := optionalNumber(t)
+		if err != nil {
+			return &model.FieldError{Field: "flow.end_plate_height_mm", Err: errors.New("not a number: enter the plates' height in mm, or leave it empty for none")}
+		}
+		return ctl.SetEndPlateHeight("", v)
+	})
+	p.plates.SetPlaceHolder("none")
+	p.msg = message()
+	p.run = widget.NewButton("Estimate the finite wing", p.start)
+	p.run.Importance = widget.HighImportance
+	p.cancel = widget.NewButton("Cancel", p.stop)
+	p.cancel.Hide()
+	p.progress = widget.NewProgressBar()
+	p.progress.Hide()
+	p.status = caption("Not run yet. The estimate solves the configuration over the angles its stations need (a polar, with the study's viscous setting), then the lifting line.")
+	p.totals = widget.NewLabel("")
+	p.totals.Wrapping = fyne.TextWrapWord
+	p.method = caption("Method: " + finiteSpanMethod + ".")
+	caution := widget.NewLabelWithStyle(finiteSpanCaution, fyne.TextAlignLeading, fyne.TextStyle{Italic: true})
+	caution.Wrapping = fyne.TextWrapWord
+	p.load = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(520, 360))
+	p.readout = widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+	side := setupColumn(
+		heading("Wing"),
+		row("Span (m)", p.span),
+		row("End-plate height (mm)", p.plates),
+		caption("A rectangular wing of this span and the study's reference chord; the plates' height at both tips."),
+		p.fieldMsg,
+		p.msg,
+		container.NewBorder(nil, nil, nil, p.cancel, p.run),
+		p.progress, p.status,
+		widget.NewSeparator(),
+		heading("Estimate"),
+		p.totals,
+		p.method,
+		caution,
+	)
+	p.content = container.NewBorder(nil, p.readout, side, nil, newReadoutBox(p.load, p.hover))
+	p.show()
+	return p
+}
+
+// studyChanged shows the study's span and plates.
+func (p *setupSpan) studyChanged() {
+	f := p.s.w.ctl.Current().Flow
+	setIfDiffers(p.span, optionalText(f.SpanM), optionalIs(f.SpanM))
+	setIfDiffers(p.plates, optionalText(f.EndPlateHeightMM), optionalIs(f.EndPlateHeightMM))
+	p.show()
+}
+
+// start runs the estimate of the study as it is now.
+func (p *setupSpan) start() {
+	ctl := p.s.w.ctl
+	st, secs := ctl.Study(), slices.Clone(ctl.Sections())
+	if !(st.Flow.SpanM > 0) {
+		setMessage(p.msg, errors.New("enter the wing's span first"))
+		p.s.relayout()
+		return
+	}
+	setMessage(p.msg, nil)
+	p.stop()
+	p.gen++
+	gen := p.gen
+	ctx, cancel := context.WithCancel(context.Background())
+	p.running = cancel
+	p.run.Disable()
+	p.cancel.Show()
+	p.progress.SetValue(0)
+	p.progress.Show()
+	p.status.SetText("Solving the polar…")
+	p.s.relayout()
+	act := ctl.Activity()
+	act.Add()
+	go func() {
+		defer act.Done()
+		defer cancel()
+		out, err := runFiniteSpan(ctx, st, secs, func(done, total int) {
+			p.s.w.do(func() {
+				if gen == p.gen {
+					p.progress.SetValue(float64(done) / float64(total))
+				}
+			})
+		})
+		p.s.w.do(func() { p.finish(gen, st, out, err) })
+	}()
+}
+
+func (p *setupSpan) finish(gen int, st *model.Study, out *finiteSpan, err error) {
+	if gen != p.gen {
+		return
+	}
+	p.running = nil
+	p.run.Enable()
+	p.cancel.Hide()
+	p.progress.Hide()
+	switch {
+	case errors.Is(err, context.Canceled):
+		p.status.SetText("Cancelled.")
+	case err != nil:
+		p.status.SetText("")
+		setMessage(p.msg, err)
+	default:
+		p.out, p.outFor = out, st
+		p.status.SetText(fmt.Sprintf("Polar from %s° to %s°, %d of %d angles with a usable %s.",
+			num(out.PolarFromDeg), num(out.PolarToDeg), out.PolarRowsUsed, out.PolarRows, map[bool]string{true: "viscous answer", false: "answer"}[out.ViscousPolar]))
+	}
+	p.show()
+	p.s.relayout()
+}
+
+// stop cancels a running estimate.
+func (p *setupSpan) stop() {
+	if p.running != nil {
+		p.running()
+		p.running = nil
+	}
+}
+
+// show writes the totals and draws the spanwise load of the estimate
+// shown, saying when the study has changed since.
+func (p *setupSpan) show() {
+	fs := p.out
+	if fs == nil {
+		p.totals.SetText("")
+		p.load.setDrawing(nil, "Enter the span and run the estimate to see the spanwise load.")
+		return
+	}
+	p.totals.SetText(finiteSpanText(fs, p.stale()))
+	sl := spanLoadOf(fs)
+	p.load.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+		return renderSpanLoad(sl, dark, w, h, dpi)
+	}, "")
+}
+
+// stale reports whether the study changed since the estimate shown was
+// run.
+func (p *setupSpan) stale() bool {
+	cur := p.s.w.ctl.Current()
+	return p.outFor != nil && cur != nil && !studiesEqual(p.outFor, cur)
+}
+
+// redraw draws the figure again.
+func (p *setupSpan) redraw() { p.load.redraw() }
+
+// hover reads the load under the pointer.
+func (p *setupSpan) hover(x, y float64, ok bool) {
+	if !ok || p.out == nil {
+		p.readout.SetText("")
+		return
+	}
+	unit := map[bool]string{true: " N/m", false: ""}[!math.IsNaN(p.out.DynamicPressurePa)]
+	p.readout.SetText(fmt.Sprintf("%s m from the centre: %s%s", fixed(x, 3), sig(y), unit))
+}
+
+// spanLoadOf is the figure's data of an estimate: load per metre when the
+// study has a speed, else the section load coefficient.
+func spanLoadOf(fs *finiteSpan) spanLoad {
+	name := map[bool]string{true: "downforce", false: "lift"}[fs.Inverted]
+	forces := !math.IsNaN(fs.DynamicPressurePa)
+	s := spanLoad{SpanM: fs.SpanM, TwoD: math.NaN()}
+	if forces {
+		s.Title = fmt.Sprintf("Spanwise %s, finite-span estimate", name)
+		s.YLabel = name + " per metre of span, N/m"
+		s.TwoD = fs.Load2DPerSpan
+	} else {
+		s.Title = fmt.Sprintf("Spanwise %s coefficient, finite-span estimate", name)
+		s.YLabel = "section " + name + " coefficient"
+	}
+	for _, st := range fs.Stations {
+		s.YM = append(s.YM, st.YM)
+		if forces {
+			s.Load = append(s.Load, st.LoadPerSpan)
+		} else {
+			s.Load = append(s.Load, st.Load)
+		}
+	}
+	return s
+}
+
+// finiteSpanText is the estimate's totals in words, the two-dimensional
+// figures beside them.
+func finiteSpanText(fs *finiteSpan, stale bool) string {
+	name := map[bool]string{true: "Downforce", false: "Lift"}[fs.Inverted]
+	t := ""
+	if stale {
+		t = "(Of the study before its last change: run again.)\n"
+	}
+	t += fmt.Sprintf("Span %s m, chord %s m: aspect ratio %s", num(fs.SpanM), num(fs.ChordM), fixed(fs.AspectRatio, 2))
+	if fs.EndPlateHeightM > 0 {
+		t += fmt.Sprintf(", with %s mm end plates effectively %s", num(fs.EndPlateHeightM*1000), fixed(fs.EffectiveAspectRatio, 2))
+	}
+	t += fmt.Sprintf(".\nSpan efficiency %s.\n", fixed(fs.Efficiency, 3))
+	if math.IsNaN(fs.DynamicPressurePa) {
+		t += fmt.Sprintf("%s coefficient %s (2-D %s); induced drag coefficient %s; profile %s. Give a speed for newtons.",
+			name, fixed(fs.Load, 3), orDash(fs.Load2DPerSpan, 3), fixed(fs.CDi, 4), orDash(fs.CDp, 4))
+		return t
+	}
+	t += fmt.Sprintf("%s %s N (2-D over the span: %s N, %s N/m).\n", name, fixed(fs.LoadN, 1), orDash(fs.Load2DN, 1), orDash(fs.Load2DPerSpan, 1))
+	t += fmt.Sprintf("Induced drag %s N; profile drag %s N; total %s N (2-D over the span: %s N).\n",
+		fixed(fs.InducedDragN, 1), orDash(fs.ProfileDragN, 1), orDash(fs.InducedDragN+fs.ProfileDragN, 1), orDash(fs.Drag2DN, 1))
+	if fs.PastMaxLoad {
+		t += "Some stations work past the polar's maximum load: at or beyond stall, the estimate is not unique.\n"
+	}
+	if math.IsNaN(fs.ProfileDragN) {
+		t += "No profile drag: turn the viscous solution on (Flow tab) for it.\n"
+	}
+	return t
+}
+
+// studiesEqual reports whether two studies solve the same (their pins,
+// name and team aside).
+func studiesEqual(a, b *model.Study) bool {
+	x, y := *a, *b
+	x.Pins, y.Pins = nil, nil
+	x.Name, y.Name, x.Team, y.Team = "", "", "", ""
+	return reflect.DeepEqual(x, y)
+}
