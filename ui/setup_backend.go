@@ -150,14 +150,15 @@ func setupDefaults(st *model.Study, v setupVariable, x float64) (from, to, step 
 		return math.Round(x) - 4, math.Round(x) + 4, 1
 	case model.SetupClearance:
 		// Ride height from a tenth of the reference chord to twice the
-		// setting, in steps of a tenth of that span.
+		// setting, in about eight round steps.
 		c := st.Elements[0].ChordMM
 		if st.ReferenceChordMM > 0 {
 			c = st.ReferenceChordMM
 		}
-		lo := math.Max(1, math.Round(0.1*c))
-		hi := math.Max(lo+10, math.Round(2*x))
-		return lo, hi, math.Max(1, math.Round((hi-lo)/10))
+		hi := math.Max(2*x, 0.5*c)
+		step := roundStep((hi - 0.1*c) / 8)
+		lo := math.Max(step, math.Round(0.1*c/step)*step)
+		return lo, lo + step*math.Ceil((hi-lo)/step), step
 	case model.SetupSpeed:
 		return 10, 40, 5
 	case model.SetupDeflection:
@@ -167,4 +168,17 @@ func setupDefaults(st *model.Study, v setupVariable, x float64) (from, to, step 
 		return lo, lo + 12, 2
 	}
 	return math.Round(x) - 6, math.Round(x) + 6, 2
+}
+
+// roundStep returns the largest step of the form 1, 2 or 5 × 10ⁿ that
+// is at most d (d > 0).
+func roundStep(d float64) float64 {
+	p := math.Pow(10, math.Floor(math.Log10(d)))
+	step := p
+	for _, m := range []float64{2, 5} {
+		if m*p <= d {
+			step = m * p
+		}
+	}
+	return step
 }

@@ -82,6 +82,11 @@ func (q setupQuantity) short(inverted bool) string {
 	return "separation x/c"
 }
 
+// needsViscous reports a quantity only the viscous solution gives.
+func (q setupQuantity) needsViscous() bool {
+	return q == quantityDrag || q == quantityLiftToDrag || q == quantitySeparation
+}
+
 // value returns the quantity at a point, NaN where it has none (not
 // converged, not solved, no drag without the viscous solution).
 func (q setupQuantity) value(p *setupPoint, forces bool) float64 {
@@ -122,16 +127,17 @@ func (q setupQuantity) value(p *setupPoint, forces bool) float64 {
 // mapRun is a map: its inputs and the points that have arrived. It is
 // read and written on the UI goroutine only; figures get copies.
 type mapRun struct {
-	st      *model.Study
-	vars    []setupVariable
-	axes    [][]float64
-	current []float64 // the study's own value of each variable
-	points  []setupPoint
-	arrived []bool
-	limit   float64
-	forces  bool
-	done    int
-	status  string // how the run ended; "" while it runs
+	st       *model.Study
+	vars     []setupVariable
+	axes     [][]float64
+	current  []float64 // the study's own value of each variable
+	points   []setupPoint
+	arrived  []bool
+	limit    float64
+	forces   bool
+	inviscid bool // asked for the panel method only
+	done     int
+	status   string // how the run ended; "" while it runs
 }
 
 func (r *mapRun) total() int { return len(r.points) }
@@ -501,7 +507,7 @@ func (m *setupMaps) begin(ranges []setupRange, limit float64) error {
 		return err
 	}
 	m.stop()
-	r := &mapRun{st: st, limit: limit}
+	r := &mapRun{st: st, limit: limit, inviscid: !m.viscous.Checked}
 	total := 1
 	for _, rg := range ranges {
 		r.vars = append(r.vars, rg.Var)
@@ -583,11 +589,11 @@ func (m *setupMaps) finish(gen int, err error) {
 	r := m.run0
 	switch {
 	case err == context.Canceled:
-		r.status = fmt.Sprintf("Cancelled after %d of %d points.", r.done, r.total())
+		r.status = "Cancelled:"
 	case err != nil:
 		r.status = "Stopped: " + friendly(err)
 	default:
-		r.status = fmt.Sprintf("Done: %d points.", r.total())
+		r.status = "Done:"
 	}
 	if r.done > 0 {
 		m.export.Enable()
@@ -625,14 +631,22 @@ func (m *setupMaps) show() {
 	}
 	st := r.status
 	if st == "" {
-		st = "Running"
+		st = "Running:"
 	}
-	m.status.SetText(fmt.Sprintf("%s %d of %d points solved; %d without an answer (not converged or not solvable), %d separated ahead of x/c %s. The map is of the study as it was when run.",
+	m.status.SetText(fmt.Sprintf("%s %d of %d points done; %d without an answer (not converged or not solvable), %d separated ahead of x/c %s. The map is of the study as it was when run.",
 		st, r.done, r.total(), failed, separated, num(r.limit)))
+	viscous := !r.inviscid
+	for k := range r.points {
+		viscous = viscous && (!r.arrived[k] || r.points[k].Viscous)
+	}
 	if len(r.axes) == 1 {
 		m.gridArea.Hide()
 		m.curveArea.Show()
 		for q := range numQuantities {
+			if !viscous && q.needsViscous() {
+				m.curves[q].setDrawing(nil, "No drag or separation without the viscous solution (a speed or Reynolds number and the box ticked).")
+				continue
+			}
 			c := r.curve(q)
 			m.curves[q].setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
 				return renderSetupCurve(c, dark, w, h, dpi)
@@ -643,6 +657,10 @@ func (m *setupMaps) show() {
 	m.curveArea.Hide()
 	m.gridArea.Show()
 	q := setupQuantity(max(0, m.quantity.SelectedIndex()))
+	if !viscous && q.needsViscous() {
+		m.gridBox.setDrawing(nil, "No drag or separation without the viscous solution (a speed or Reynolds number and the box ticked).")
+		return
+	}
 	g := r.grid(q)
 	m.gridBox.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
 		return renderSetupGrid(g, dark, w, h, dpi)

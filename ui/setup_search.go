@@ -13,3 +13,4 @@ func newSetupSearch(s *setupWindow) *setupSearch {
 func (p *setupSearch) studyChanged() {}
 func (p *setupSearch) redraw()       {}
 func (p *setupSearch) stop()         {}
+func (p *setupSearch) start()        {}

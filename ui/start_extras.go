@@ -3,7 +3,10 @@ package ui
 import "os"
 
 // openWindowEnv names a window to open at start, for screenshots of the
-// real app (scripts/screenshot.sh): "density" or "panel-sizes".
+// real app (scripts/screenshot.sh): "density", "panel-sizes", "setup" (the
+// set-up window running a map of its first variable; "setup-inviscid"
+// without the viscous solution, "setup-two" over two variables), "setup-span" (its
+// finite-span estimate) or "setup-search" (its setting search).
 const openWindowEnv = "SECTIONBENCH_OPEN_WINDOW"
 
 // startExtras starts the autosave and, if openWindowEnv asks, opens the
@@ -11,6 +14,9 @@ const openWindowEnv = "SECTIONBENCH_OPEN_WINDOW"
 func (w *Workbench) startExtras() {
 	w.startAutosave()
 	tab := -1
+	if w.startSetup(os.Getenv(openWindowEnv)) {
+		return
+	}
 	switch os.Getenv(openWindowEnv) {
 	case "density":
 		tab = densityTabConvergence
@@ -30,4 +36,35 @@ func (w *Workbench) startExtras() {
 			}
 		})
 	}()
+}
+
+// startSetup opens the set-up window at start when which names one of
+// its tabs, and starts that tab's run; it reports whether it did.
+func (w *Workbench) startSetup(which string) bool {
+	tab := map[string]int{"setup": setupTabMaps, "setup-inviscid": setupTabMaps, "setup-two": setupTabMaps, "setup-span": setupTabSpan, "setup-search": setupTabSearch}
+	t, ok := tab[which]
+	if !ok {
+		return false
+	}
+	w.ctl.Activity().Add()
+	go func() {
+		defer w.ctl.Activity().Done()
+		w.do(func() {
+			w.openSetup(t)
+			switch t {
+			case setupTabMaps:
+				m := w.setup.maps
+				m.viscous.SetChecked(which == "setup")
+				if which == "setup-two" {
+					m.second.SetChecked(true)
+				}
+				m.start()
+			case setupTabSpan:
+				w.setup.span.start()
+			case setupTabSearch:
+				w.setup.search.start()
+			}
+		})
+	}()
+	return true
 }

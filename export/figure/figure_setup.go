@@ -43,8 +43,9 @@ var ErrNoSetupData = fmt.Errorf("no points with a value yet: %w", ErrNoData)
 
 // SetupCurvePlot draws a SetupCurve: the points with a value joined in
 // order of X, separated points in a hollow marker of their own, points
-// without an answer as crosses on the x axis, and the study's value and
-// the separation onset as vertical lines.
+// without an answer as crosses on the x axis (a point with a NaN value
+// that is not Failed, a quantity the point does not have, is left out),
+// and the study's value and the separation onset as vertical lines.
 func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 	if len(c.Y) != len(c.X) {
 		panic("figure: SetupCurvePlot: X and Y of different lengths")
@@ -60,7 +61,10 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 	for i, x := range c.X {
 		q := pt{x: x, y: c.Y[i]}
 		q.sep = i < len(c.Separated) && c.Separated[i]
-		q.fail = (i < len(c.Failed) && c.Failed[i]) || math.IsNaN(q.y)
+		q.fail = i < len(c.Failed) && c.Failed[i]
+		if !q.fail && math.IsNaN(q.y) {
+			continue
+		}
 		pts = append(pts, q)
 	}
 	sort.Slice(pts, func(i, j int) bool { return pts[i].x < pts[j].x })
@@ -102,6 +106,9 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 	if len(failed) > 0 {
 		b := &bottomMarks{alphas: failed, glyph: draw.GlyphStyle{Color: th.accent, Radius: glyphMarker, Shape: draw.CrossGlyph{}}}
 		p.Add(b)
+		for _, x := range failed {
+			k.keep(plotter.XYs{{X: x, Y: ext.y0}})
+		}
 		k.add(fmt.Sprintf("no answer (%d of %d)", len(failed), len(pts)), b)
 	}
 	if !math.IsNaN(c.Onset) {
@@ -110,6 +117,7 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		ext.x0, ext.x1 = math.Min(ext.x0, c.Onset), math.Max(ext.x1, c.Onset)
 	}
 	if !math.IsNaN(c.Current) {
+		k.keep(plotter.XYs{{X: c.Current, Y: ext.y1}})
 		p.Add(&refLine{value: c.Current, vertical: true, style: lineStyle(th.accent, widthThin, nil), label: "study", labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop), drop: vg.Points(11)})
 	}
 	if ext.y0 > ext.y1 { // only crosses
@@ -220,10 +228,10 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 		}
 	}
 	p.Add(&cellMarks{g: &g, hatch: fade(th.fg, 200), fail: fade(th.faint, 170), cross: th.accent})
-	if g.Separated != nil {
+	if anyTrue(g.Separated) {
 		k.add("suction side separated (hatched)", hatchThumb{fade(th.fg, 200)})
 	}
-	if g.Failed != nil {
+	if anyTrue(g.Failed) {
 		k.add("no answer (grey, crossed)", swatch{fade(th.faint, 170)})
 	}
 	if len(g.Path) > 0 {
@@ -251,6 +259,18 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 	p.Y.Min, p.Y.Max = y0[0], y1[len(y1)-1]
 	p.Add(k)
 	return p, nil
+}
+
+// anyTrue reports whether any cell is marked.
+func anyTrue(cells [][]bool) bool {
+	for _, col := range cells {
+		for _, b := range col {
+			if b {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // cellEdges returns the lower and upper edge of the cell around each of

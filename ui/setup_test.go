@@ -1,0 +1,159 @@
+package ui
+
+import (
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"fyne.io/fyne/v2/test"
+
+	"sectionbench/assets"
+)
+
+// openTwoElement opens the two-element example in ground effect.
+func openTwoElement(t *testing.T, w *Workbench) {
+	t.Helper()
+	for _, ex := range assets.Examples {
+		if strings.Contains(ex.Title, "two-element") || strings.Contains(strings.ToLower(ex.Title), "two") {
+			w.openExample(ex)
+			current(t, w)
+			return
+		}
+	}
+	t.Fatal("no two-element example")
+}
+
+// A ride-height map of the two-element example (inviscid, so it runs in
+// a test's time): every point streams in, the curves are drawn, the
+// readout describes a point, the study's own clearance is the curve's
+// marked value, and the CSV holds a row per point.
+func TestSetupMapRideHeight(t *testing.T) {
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabMaps)
+	m := w.setup.maps
+	if got := m.var1.Selected; !strings.Contains(got, "clearance") {
+		t.Fatalf("first variable %q, want the clearance in ground effect", got)
+	}
+	m.from[0].SetText("40")
+	m.to[0].SetText("200")
+	m.step[0].SetText("40")
+	m.viscous.SetChecked(false)
+	test.Tap(m.run)
+	w.WaitIdle()
+	r := m.run0
+	if r == nil || r.done != 5 || r.total() != 5 || !m.msg.Hidden {
+		t.Fatalf("map: %+v, message %q", r, m.msg.Text)
+	}
+	if !strings.HasPrefix(r.status, "Done") || !m.cancel.Hidden || m.run.Disabled() {
+		t.Errorf("status %q, cancel shown %v, run disabled %v", r.status, !m.cancel.Hidden, m.run.Disabled())
+	}
+	for k, p := range r.points {
+		if !r.arrived[k] || p.Values[0] != r.axes[0][k] || !(p.DownforcePerSpan > 0) {
+			t.Errorf("point %d: %+v", k, p)
+		}
+	}
+	if r.current[0] != 100 {
+		t.Errorf("study's clearance %g, want the example's 100 mm", r.current[0])
+	}
+	c := r.curve(quantityLoad)
+	if len(c.X) != 5 || c.YLabel != "downforce (N/m)" || !math.IsNaN(c.Onset) {
+		t.Errorf("curve %+v", c)
+	}
+	for q, b := range m.curves {
+		// An inviscid map draws the load and Cm and says why there is no
+		// drag or separation.
+		if want := !setupQuantity(q).needsViscous(); (b.Figure() != nil) != want || (!want && !strings.Contains(b.note.Text, "without the viscous solution")) {
+			t.Errorf("%s: figure drawn %v, note %q", setupQuantity(q).short(true), b.Figure() != nil, b.note.Text)
+		}
+	}
+	if d := r.describe(r.nearest(118, 0)); !strings.Contains(d, "clearance 120 mm") || !strings.Contains(d, "downforce") {
+		t.Errorf("readout %q", d)
+	}
+	dir := t.TempDir()
+	files, err := m.csvJob()(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := os.ReadFile(filepath.Join(dir, files[0]))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var rows int
+	for _, l := range strings.Split(strings.TrimSpace(string(b)), "\n") {
+		if !strings.HasPrefix(l, "#") {
+			rows++
+		}
+	}
+	if rows != 6 || !strings.Contains(string(b), "clearance_mm,converged") {
+		t.Errorf("CSV has %d lines of table, want a header and 5 rows:\n%s", rows, b)
+	}
+}
+
+// A map over two variables fills its grid; a bad range is refused beside
+// the button with the variable named.
+func TestSetupMapTwoVariablesAndBadRange(t *testing.T) {
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabMaps)
+	m := w.setup.maps
+	m.viscous.SetChecked(false)
+	m.from[0].SetText("60")
+	m.to[0].SetText("40")
+	test.Tap(m.run)
+	if m.msg.Hidden || !strings.Contains(m.msg.Text, "clearance") {
+		t.Errorf("a range from 60 to 40: message %q", m.msg.Text)
+	}
+	m.from[0].SetText("60")
+	m.to[0].SetText("140")
+	m.step[0].SetText("40")
+	m.second.SetChecked(true)
+	m.var2.SetSelectedIndex(0) // angle of attack
+	m.from[1].SetText("2")
+	m.to[1].SetText("4")
+	m.step[1].SetText("1")
+	test.Tap(m.run)
+	w.WaitIdle()
+	r := m.run0
+	if !m.msg.Hidden || r.done != 9 || len(r.axes) != 2 {
+		t.Fatalf("message %q, %d points", m.msg.Text, r.done)
+	}
+	g := r.grid(quantityLoad)
+	if len(g.Z) != 3 || len(g.Z[0]) != 3 || math.IsNaN(g.Z[1][1]) || m.gridBox.Figure() == nil {
+		t.Errorf("grid %v, figure %v", g.Z, m.gridBox.Figure() != nil)
+	}
+}
+
+// The finite-span tab: the span and plates are study fields (undoable),
+// and the estimate gives downforce in N below the 2-D figure over the
+// span.
+func TestSetupFiniteSpan(t *testing.T) {
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabSpan)
+	p := w.setup.span
+	p.plates.submit("200")
+	w.WaitIdle()
+	if got := w.ctl.Study().Flow.EndPlateHeightMM; got != 200 {
+		t.Fatalf("end plates %g mm, want 200", got)
+	}
+	test.Tap(p.run)
+	w.WaitIdle()
+	fs := p.out
+	if fs == nil {
+		t.Fatalf("no estimate: %q %q", p.msg.Text, p.status.Text)
+	}
+	if !(fs.LoadN > 0 && fs.LoadN < fs.Load2DN) || !strings.Contains(p.totals.Text, "Downforce") || p.load.Figure() == nil {
+		t.Errorf("estimate %g N against %g N 2-D; totals %q", fs.LoadN, fs.Load2DN, p.totals.Text)
+	}
+	w.ctl.Undo()
+	w.WaitIdle()
+	if w.ctl.Study().Flow.EndPlateHeightMM != 0 || p.plates.Text != "" {
+		t.Errorf("undo: plates %g mm, field %q", w.ctl.Study().Flow.EndPlateHeightMM, p.plates.Text)
+	}
+	if !strings.Contains(p.totals.Text, "before its last change") {
+		t.Errorf("after undo the totals do not say they are of the study before: %q", p.totals.Text)
+	}
+}
