@@ -182,3 +182,27 @@ func roundStep(d float64) float64 {
 	}
 	return step
 }
+
+type (
+	searchResult  = engine.SearchResult
+	searchOptions = engine.SearchOptions
+	objective     = engine.Objective
+)
+
+// The search's objectives in the window's order.
+var searchObjectives = []objective{engine.ObjectiveDownforce, engine.ObjectiveLiftToDrag, engine.ObjectiveDrag}
+
+// defaultSearchEvaluations is the search's budget of solves unless the
+// user gives another.
+const defaultSearchEvaluations = engine.DefaultSearchEvaluations
+
+// runSearch runs a setting search (engine.Search); a panic becomes an
+// error.
+func runSearch(ctx context.Context, st *model.Study, secs []*model.Section, bounds []setupRange, opt searchOptions, each func(setupPoint)) (res *searchResult, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			res, err = nil, session.InternalError("in the setting search", r)
+		}
+	}()
+	return engine.Search(ctx, st, secs, bounds, opt, each)
+}

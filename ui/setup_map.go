@@ -267,10 +267,19 @@ func (r *mapRun) nearest(x, y float64) int {
 
 // describe is the readout of point k: its setting and every quantity.
 func (r *mapRun) describe(k int) string {
-	p := &r.points[k]
+	note := ""
+	if r.separated(k) {
+		note = "suction side separated ahead of x/c " + num(r.limit)
+	}
+	return describePoint(r.st, r.vars, &r.points[k], r.forces, note)
+}
+
+// describePoint is a point's setting of vars and every quantity it has, in
+// words, with a note after them.
+func describePoint(st *model.Study, vars []setupVariable, p *setupPoint, forces bool, note string) string {
 	var set []string
-	for i, v := range r.vars {
-		set = append(set, fmt.Sprintf("%s %s %s", v.Label(r.st)[:strings.LastIndex(v.Label(r.st), " (")], num(p.Values[i]), v.Unit()))
+	for i, v := range vars {
+		set = append(set, fmt.Sprintf("%s %s %s", shortLabel(st, v), num(p.Values[i]), v.Unit()))
 	}
 	s := strings.Join(set, ", ") + ": "
 	switch {
@@ -281,14 +290,12 @@ func (r *mapRun) describe(k int) string {
 	}
 	var qs []string
 	for q := range numQuantities {
-		v := q.value(p, r.forces)
-		if math.IsNaN(v) {
-			continue
+		if v := q.value(p, forces); !math.IsNaN(v) {
+			qs = append(qs, q.short(st.Inverted)+" "+sig(v))
 		}
-		qs = append(qs, q.short(r.st.Inverted)+" "+sig(v))
 	}
-	if r.separated(k) {
-		qs = append(qs, "suction side separated ahead of x/c "+num(r.limit))
+	if note != "" {
+		qs = append(qs, note)
 	}
 	return s + strings.Join(qs, ", ")
 }

@@ -1,16 +1,560 @@
 package ui
 
-import "fyne.io/fyne/v2"
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"strings"
 
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/model"
+)
+
+// searchVariables is how many variables the search tab offers at once.
+const searchVariables = 3
+
+// setupSearch is the Setting search tab: up to three bounded variables, an
+// objective and constraints; the search runs off the UI goroutine with its
+// path streaming in; the best setting beside the start, "apply" as one
+// undoable edit, and a pin of the starting point.
 type setupSearch struct {
 	s       *setupWindow
 	content fyne.CanvasObject
+
+	vars      []setupVariable // offered, in the selects' order
+	use       [searchVariables]*widget.Check
+	pick      [searchVariables]*widget.Select
+	lo, hi    [searchVariables]*widget.Entry
+	objective *widget.Select
+	target    *widget.Entry
+	attached  *widget.Entry
+	minGap    *widget.Entry
+	minClear  *widget.Entry
+	viscous   *widget.Check
+	budget    *widget.Entry
+	msg       *widget.Label
+	run       *widget.Button
+	cancel    *widget.Button
+	progress  *widget.ProgressBar
+	status    *widget.Label
+	table     *widget.Label
+	apply     *widget.Button
+	pin       *widget.Button
+	applyMsg  *widget.Label
+	trace     *figureBox
+	plane     *figureBox
+	readout   *widget.Label
+
+	running context.CancelFunc
+	gen     int
+	cur     *searchRun
+}
+
+// searchRun is a search: its inputs, the path so far and the answer.
+type searchRun struct {
+	st       *model.Study
+	secs     []*model.Section
+	vars     []setupVariable
+	bounds   []setupRange
+	opt      searchOptions
+	forces   bool
+	path     []setupPoint
+	res      *searchResult
+	status   string
+	maxEvals int
 }
 
 func newSetupSearch(s *setupWindow) *setupSearch {
-	return &setupSearch{s: s, content: caption("")}
+	p := &setupSearch{s: s}
+	w := s.w
+	var rows []fyne.CanvasObject
+	for i := range searchVariables {
+		p.use[i] = widget.NewCheck("", nil)
+		p.pick[i] = widget.NewSelect(nil, func(string) { p.fillBounds(i) })
+		p.lo[i], p.hi[i] = widget.NewEntry(), widget.NewEntry()
+		rows = append(rows,
+			container.NewBorder(nil, nil, p.use[i], nil, p.pick[i]),
+			container.NewGridWithColumns(2, labelled("lowest", p.lo[i]), labelled("highest", p.hi[i])))
+	}
+	p.objective = widget.NewSelect([]string{"most downforce", "best downforce to drag", "least drag at a downforce target"}, func(string) { p.syncTarget() })
+	p.target = widget.NewEntry()
+	p.target.SetPlaceHolder("N/m, or −Cl without a speed")
+	p.attached = widget.NewEntry()
+	p.attached.SetText(entryNum(defaultSeparationLimit))
+	p.minGap = widget.NewEntry()
+	p.minGap.SetPlaceHolder("none")
+	p.minClear = widget.NewEntry()
+	p.minClear.SetPlaceHolder("the study's own minimum")
+	p.viscous = widget.NewCheck("Viscous solution (coupled)", nil)
+	p.viscous.SetChecked(true)
+	p.budget = widget.NewEntry()
+	p.budget.SetText(fmt.Sprint(defaultSearchEvaluations))
+	p.msg = message()
+	p.run = widget.NewButton("Search", p.start)
+	p.run.Importance = widget.HighImportance
+	p.cancel = widget.NewButton("Cancel", p.stop)
+	p.cancel.Hide()
+	p.progress = widget.NewProgressBar()
+	p.progress.Hide()
+	p.status = caption("Not run yet. The search starts from the study's own setting and finds a local optimum near it (Nelder and Mead's simplex, gonum/optimize), not necessarily the best setting within the bounds: a map of the same bounds shows whether there is a better one elsewhere.")
+	p.table = widget.NewLabel("")
+	p.table.Wrapping = fyne.TextWrapWord
+	p.apply = widget.NewButton("Apply the best setting", p.applyBest)
+	p.apply.Importance = widget.HighImportance
+	p.apply.Disable()
+	p.pin = widget.NewButton("Pin the starting point", p.pinStart)
+	p.pin.Disable()
+	p.applyMsg = message()
+	p.trace = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(420, 300))
+	p.plane = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(420, 300))
+	p.readout = widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+	p.readout.Wrapping = fyne.TextWrapWord
+
+	side := setupColumn(append(append([]fyne.CanvasObject{heading("Vary within")}, rows...),
+		widget.NewSeparator(),
+		heading("Objective"), p.objective, row("Downforce target", p.target),
+		heading("Keep to"),
+		row("Attached to x/c", p.attached),
+		row("Slot gap at least (mm)", p.minGap),
+		row("Clearance at least (mm)", p.minClear),
+		caption("Every point must also converge; the configuration stays clear of the ground."),
+		p.viscous,
+		row("At most (solves)", p.budget),
+		p.msg,
+		container.NewBorder(nil, nil, nil, p.cancel, p.run),
+		p.progress, p.status,
+	)...)
+	result := container.NewVBox(heading("Best against start"), p.table,
+		container.NewGridWithColumns(2, p.apply, p.pin), p.applyMsg)
+	figs := container.NewGridWithColumns(2, newReadoutBox(p.trace, p.hoverTrace), newReadoutBox(p.plane, p.hoverPlane))
+	p.content = container.NewBorder(nil, p.readout, side, nil, container.NewBorder(nil, result, nil, nil, figs))
+	p.objective.SetSelectedIndex(0)
+	p.show()
+	return p
 }
-func (p *setupSearch) studyChanged() {}
-func (p *setupSearch) redraw()       {}
-func (p *setupSearch) stop()         {}
-func (p *setupSearch) start()        {}
+
+// syncTarget enables the target for the drag objective only.
+func (p *setupSearch) syncTarget() {
+	if p.objective.SelectedIndex() == 2 {
+		p.target.Enable()
+	} else {
+		p.target.Disable()
+	}
+}
+
+// studyChanged offers the study's variables, defaults the first time (a
+// flap's deflection, gap and overlap when there is a flap, else the angle
+// and clearance), and whether the buttons still apply.
+func (p *setupSearch) studyChanged() {
+	st := p.s.w.ctl.Current()
+	vars := setupVariables(st)
+	labels := make([]string, len(vars))
+	for i, v := range vars {
+		labels[i] = setupLabel(st, v)
+	}
+	first := p.vars == nil
+	old := p.vars
+	p.vars = vars
+	for i := range searchVariables {
+		k := -1
+		if j := p.pick[i].SelectedIndex(); j >= 0 && j < len(old) {
+			k = slices.Index(vars, old[j])
+		}
+		p.pick[i].SetOptions(labels)
+		if k < 0 && first {
+			k = searchDefault(st, vars, i)
+		}
+		if k >= 0 {
+			p.pick[i].SetSelectedIndex(k)
+		}
+		if first {
+			p.use[i].SetChecked(k >= 0 && (len(st.Elements) > 1 || i == 0 || (i == 1 && st.Ground.Enabled)))
+		}
+	}
+	p.syncButtons()
+}
+
+// searchDefault is the variable offered in row i first: the last flap's
+// deflection, gap and overlap, or the angle and the clearance.
+func searchDefault(st *model.Study, vars []setupVariable, i int) int {
+	want := []setupVariable{{Kind: model.SetupAlpha}, {Kind: model.SetupClearance}, {Kind: model.SetupSpeed}}
+	if n := len(st.Elements); n > 1 {
+		want = []setupVariable{{Kind: model.SetupDeflection, Element: n - 1}, {Kind: model.SetupGap, Element: n - 1}, {Kind: model.SetupOverlap, Element: n - 1}}
+	}
+	k := slices.Index(vars, want[i])
+	if k < 0 && i < len(vars) {
+		k = i
+	}
+	return k
+}
+
+// fillBounds fills row i's bounds around the study's value.
+func (p *setupSearch) fillBounds(i int) {
+	k := p.pick[i].SelectedIndex()
+	if k < 0 || k >= len(p.vars) {
+		return
+	}
+	ctl := p.s.w.ctl
+	st := ctl.Current()
+	v := p.vars[k]
+	lo, hi, _ := setupDefaults(st, v, setupValue(st, v, ctl.Sections()))
+	p.lo[i].SetText(entryNum(lo))
+	p.hi[i].SetText(entryNum(hi))
+}
+
+// readNumber parses an entry; empty is def.
+func readNumber(e *widget.Entry, name string, def float64) (float64, error) {
+	if strings.TrimSpace(e.Text) == "" {
+		return def, nil
+	}
+	x, err := parseNumber(e.Text)
+	if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+		return 0, fmt.Errorf("%s: %q is not a number", name, strings.TrimSpace(e.Text))
+	}
+	return x, nil
+}
+
+// read gathers the search's inputs.
+func (p *setupSearch) read() ([]setupRange, searchOptions, int, error) {
+	var bounds []setupRange
+	var opt searchOptions
+	st := p.s.w.ctl.Current()
+	for i := range searchVariables {
+		k := p.pick[i].SelectedIndex()
+		if !p.use[i].Checked || k < 0 {
+			continue
+		}
+		v := p.vars[k]
+		lo, err := readNumber(p.lo[i], setupLabel(st, v)+" lowest", math.NaN())
+		if err != nil {
+			return nil, opt, 0, err
+		}
+		hi, err := readNumber(p.hi[i], setupLabel(st, v)+" highest", math.NaN())
+		if err != nil {
+			return nil, opt, 0, err
+		}
+		b, err := parseSetupBounds(v, lo, hi)
+		if err != nil {
+			return nil, opt, 0, err
+		}
+		bounds = append(bounds, b)
+	}
+	if len(bounds) == 0 {
+		return nil, opt, 0, errors.New("tick at least one variable to vary")
+	}
+	opt.Objective = searchObjectives[max(0, p.objective.SelectedIndex())]
+	var err error
+	if opt.DownforceTarget, err = readNumber(p.target, "downforce target", 0); err != nil {
+		return nil, opt, 0, err
+	}
+	if opt.AttachedToXC, err = readNumber(p.attached, "attached to x/c", 0); err != nil {
+		return nil, opt, 0, err
+	}
+	if opt.MinGapMM, err = readNumber(p.minGap, "slot gap", 0); err != nil {
+		return nil, opt, 0, err
+	}
+	if opt.MinClearanceMM, err = readNumber(p.minClear, "clearance", 0); err != nil {
+		return nil, opt, 0, err
+	}
+	budget, err := readNumber(p.budget, "solves", float64(defaultSearchEvaluations))
+	if err != nil || budget < 2 || budget > 5000 || budget != math.Trunc(budget) {
+		return nil, opt, 0, errors.New("solves: a whole number from 2 to 5000")
+	}
+	opt.MaxEvaluations = int(budget)
+	opt.Inviscid = !p.viscous.Checked
+	if opt.Inviscid && opt.AttachedToXC == defaultSeparationLimit {
+		opt.AttachedToXC = 0 // the default limit needs the viscous solution; without it, none
+	}
+	return bounds, opt, int(budget), nil
+}
+
+// start gathers the inputs on the UI goroutine and runs the search on its
+// own goroutine; each solve comes back through do, newest search only.
+func (p *setupSearch) start() {
+	bounds, opt, budget, err := p.read()
+	if err == nil {
+		err = p.begin(bounds, opt, budget)
+	}
+	setMessage(p.msg, err)
+	p.s.relayout()
+}
+
+func (p *setupSearch) begin(bounds []setupRange, opt searchOptions, budget int) error {
+	ctl := p.s.w.ctl
+	st, secs := ctl.Study(), slices.Clone(ctl.Sections())
+	if err := checkSetup(st, bounds); err != nil {
+		return err
+	}
+	p.stop()
+	r := &searchRun{st: st, secs: secs, bounds: bounds, opt: opt, maxEvals: budget, forces: st.Flow.SpeedMPS > 0}
+	for _, b := range bounds {
+		r.vars = append(r.vars, b.Var)
+		r.forces = r.forces || b.Var.Kind == model.SetupSpeed
+	}
+	p.cur = r
+	p.gen++
+	gen := p.gen
+	ctx, cancel := context.WithCancel(context.Background())
+	p.running = cancel
+	p.run.Disable()
+	p.cancel.Show()
+	p.progress.SetValue(0)
+	p.progress.Show()
+	p.applyMsg.Hide()
+	p.show()
+	act := ctl.Activity()
+	act.Add()
+	go func() {
+		defer act.Done()
+		defer cancel()
+		res, err := runSearch(ctx, st, secs, bounds, opt, func(pt setupPoint) {
+			p.s.w.do(func() {
+				if gen == p.gen {
+					r.path = append(r.path, pt)
+					p.progress.SetValue(math.Min(1, float64(len(r.path))/float64(r.maxEvals)))
+					p.show()
+				}
+			})
+		})
+		p.s.w.do(func() { p.finish(gen, res, err) })
+	}()
+	return nil
+}
+
+func (p *setupSearch) finish(gen int, res *searchResult, err error) {
+	if gen != p.gen {
+		return
+	}
+	p.running = nil
+	p.run.Enable()
+	p.cancel.Hide()
+	p.progress.Hide()
+	r := p.cur
+	switch {
+	case errors.Is(err, context.Canceled):
+		r.status = fmt.Sprintf("Cancelled after %d solves.", len(r.path))
+	case err != nil:
+		r.status = ""
+		setMessage(p.msg, err)
+	default:
+		r.res = res
+		r.path = res.Path
+		r.status = fmt.Sprintf("%d solves; %s. This is a local optimum near the start.", res.Evaluations, res.Status)
+	}
+	p.show()
+	p.s.relayout()
+}
+
+// stop cancels a running search.
+func (p *setupSearch) stop() {
+	if p.running != nil {
+		p.running()
+		p.running = nil
+	}
+}
+
+// objectiveValue is the shown value of the search's objective at a point:
+// downforce (or lift) in N/m with a speed, else the coefficient; L/D; or
+// drag. NaN where the point has none.
+func (r *searchRun) objectiveValue(pt *setupPoint) float64 {
+	switch r.opt.Objective {
+	case searchObjectives[1]:
+		return quantityLiftToDrag.value(pt, r.forces)
+	case searchObjectives[2]:
+		return quantityDrag.value(pt, r.forces)
+	}
+	return quantityLoad.value(pt, r.forces)
+}
+
+// objectiveLabel names the objective's axis.
+func (r *searchRun) objectiveLabel() string {
+	q := quantityLoad
+	switch r.opt.Objective {
+	case searchObjectives[1]:
+		q = quantityLiftToDrag
+	case searchObjectives[2]:
+		q = quantityDrag
+	}
+	return q.label(r.st.Inverted, r.forces)
+}
+
+// show writes the comparison and draws the path.
+func (p *setupSearch) show() {
+	r := p.cur
+	p.syncButtons()
+	if r == nil {
+		p.trace.setDrawing(nil, "Run a search to see its path here.")
+		p.plane.setDrawing(nil, "")
+		p.table.SetText("")
+		return
+	}
+	st := r.status
+	if st == "" && p.running != nil {
+		st = fmt.Sprintf("Running: %d solves of at most %d.", len(r.path), r.maxEvals)
+	}
+	p.status.SetText(st)
+	steps := make([]searchStep, len(r.path))
+	for i := range r.path {
+		steps[i] = searchStep{Objective: r.objectiveValue(&r.path[i]), Feasible: r.opt.Meets(&r.path[i])}
+	}
+	maximise := r.opt.Objective != searchObjectives[2]
+	title, label := "Search: "+r.objectiveLabel()+" at each solve", r.objectiveLabel()
+	p.trace.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+		return renderSearch(title, label, steps, maximise, dark, w, h, dpi)
+	}, "")
+	if len(r.vars) >= 2 {
+		g := setupGrid{
+			Title:  "Path in " + shortLabel(r.st, r.vars[0]) + " and " + shortLabel(r.st, r.vars[1]),
+			XLabel: setupLabel(r.st, r.vars[0]), YLabel: setupLabel(r.st, r.vars[1]),
+			X: []float64{r.bounds[0].From, r.bounds[0].To}, Y: []float64{r.bounds[1].From, r.bounds[1].To},
+			Start: [2]float64{math.NaN(), math.NaN()}, Best: [2]float64{math.NaN(), math.NaN()},
+		}
+		for _, pt := range r.path {
+			g.Path = append(g.Path, [2]float64{pt.Values[0], pt.Values[1]})
+		}
+		if len(r.path) > 0 {
+			g.Start = [2]float64{r.path[0].Values[0], r.path[0].Values[1]}
+		}
+		if r.res != nil && r.res.Feasible {
+			g.Best = [2]float64{r.res.Best.Values[0], r.res.Best.Values[1]}
+		}
+		p.plane.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+			return renderSetupGrid(g, dark, w, h, dpi)
+		}, "")
+	} else {
+		p.plane.setDrawing(nil, "The path in the plane of two variables shows when two or more vary.")
+	}
+	p.table.SetText(p.comparison())
+}
+
+// shortLabel is a variable's label without its unit.
+func shortLabel(st *model.Study, v setupVariable) string {
+	l := setupLabel(st, v)
+	if i := strings.LastIndex(l, " ("); i > 0 {
+		return l[:i]
+	}
+	return l
+}
+
+// comparison is the best setting beside the start, in words.
+func (p *setupSearch) comparison() string {
+	r := p.cur
+	if r == nil || r.res == nil {
+		return ""
+	}
+	res := r.res
+	var b strings.Builder
+	for i, v := range r.vars {
+		fmt.Fprintf(&b, "%s: %s → %s %s\n", shortLabel(r.st, v), num(res.Start.Values[i]), num(res.Best.Values[i]), v.Unit())
+	}
+	for q := range numQuantities {
+		a, z := q.value(&res.Start, r.forces), q.value(&res.Best, r.forces)
+		if math.IsNaN(a) && math.IsNaN(z) {
+			continue
+		}
+		fmt.Fprintf(&b, "%s: %s → %s\n", q.label(r.st.Inverted, r.forces), orSig(a), orSig(z))
+	}
+	if !res.Feasible {
+		b.WriteString("No setting met every constraint: the start is kept.\n")
+	}
+	return strings.TrimSpace(b.String())
+}
+
+// orSig formats a value, "—" for none.
+func orSig(v float64) string {
+	if math.IsNaN(v) {
+		return "—"
+	}
+	return sig(v)
+}
+
+// syncButtons enables Apply when a feasible best differs from the start
+// and the study is still the one searched, and the pin when the study is
+// still at the start.
+func (p *setupSearch) syncButtons() {
+	r := p.cur
+	ok := r != nil && r.res != nil && p.running == nil && studiesEqual(r.st, p.s.w.ctl.Current())
+	if ok && r.res.Feasible && !slices.Equal(r.res.Best.Values, r.res.Start.Values) {
+		p.apply.Enable()
+	} else {
+		p.apply.Disable()
+	}
+	if ok {
+		p.pin.Enable()
+	} else {
+		p.pin.Disable()
+	}
+}
+
+// applyBest sets the study to the best setting: one edit, undone by Undo.
+func (p *setupSearch) applyBest() {
+	r := p.cur
+	if r == nil || r.res == nil {
+		return
+	}
+	ctl := p.s.w.ctl
+	vals := slices.Clone(r.res.Best.Values)
+	secs := ctl.Sections()
+	next, err := applySetupValues(ctl.Current(), r.vars, vals, secs)
+	if err == nil {
+		err = ctl.Edit("", func(s *model.Study) { *s = *next })
+	}
+	setMessage(p.applyMsg, err)
+	p.syncButtons()
+	p.s.relayout()
+}
+
+// pinStart pins the study's current result, the starting point, for
+// comparison with the setting applied after it.
+func (p *setupSearch) pinStart() {
+	setMessage(p.applyMsg, p.s.w.ctl.PinCurrent())
+	p.s.relayout()
+}
+
+// redraw draws the figures again.
+func (p *setupSearch) redraw() {
+	p.trace.redraw()
+	p.plane.redraw()
+}
+
+// hoverTrace reads the solve under the pointer on the objective figure.
+func (p *setupSearch) hoverTrace(x, _ float64, ok bool) {
+	r := p.cur
+	i := int(math.Round(x)) - 1
+	if !ok || r == nil || i < 0 || i >= len(r.path) {
+		p.readout.SetText("")
+		return
+	}
+	p.readout.SetText(fmt.Sprintf("Solve %d: %s", i+1, r.describe(&r.path[i])))
+}
+
+// hoverPlane reads the solve nearest the pointer on the path figure.
+func (p *setupSearch) hoverPlane(x, y float64, ok bool) {
+	r := p.cur
+	if !ok || r == nil || len(r.path) == 0 || len(r.vars) < 2 {
+		p.readout.SetText("")
+		return
+	}
+	sx, sy := r.bounds[0].To-r.bounds[0].From, r.bounds[1].To-r.bounds[1].From
+	best, bd := 0, math.Inf(1)
+	for i, pt := range r.path {
+		if d := math.Hypot((pt.Values[0]-x)/sx, (pt.Values[1]-y)/sy); d < bd {
+			best, bd = i, d
+		}
+	}
+	p.readout.SetText(fmt.Sprintf("Solve %d: %s", best+1, r.describe(&r.path[best])))
+}
+
+// describe is a solve's setting and values in words.
+func (r *searchRun) describe(pt *setupPoint) string {
+	note := ""
+	if pt.Converged && pt.Err == "" && !r.opt.Meets(pt) {
+		note = "outside a constraint"
+	}
+	return describePoint(r.st, r.vars, pt, r.forces, note)
+}

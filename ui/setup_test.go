@@ -157,3 +157,63 @@ func TestSetupFiniteSpan(t *testing.T) {
 		t.Errorf("after undo the totals do not say they are of the study before: %q", p.totals.Text)
 	}
 }
+
+// The setting search over the flap's deflection of the two-element example
+// (inviscid, a small budget, so it runs in a test's time): its path
+// streams in, the best gives at least the start's downforce, the starting
+// point pins, Apply sets the best deflection as one edit and Undo takes it
+// back.
+func TestSetupSearchApplyAndPin(t *testing.T) {
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabSearch)
+	p := w.setup.search
+	if !strings.Contains(p.pick[0].Selected, "deflection") || !p.use[0].Checked {
+		t.Fatalf("first variable %q (used %v), want the flap's deflection", p.pick[0].Selected, p.use[0].Checked)
+	}
+	p.use[1].SetChecked(false)
+	p.use[2].SetChecked(false)
+	p.lo[0].SetText("10")
+	p.hi[0].SetText("20")
+	p.viscous.SetChecked(false)
+	p.budget.SetText("12")
+	before := w.ctl.Study()
+	test.Tap(p.run)
+	w.WaitIdle()
+	r := p.cur
+	if !p.msg.Hidden || r == nil || r.res == nil {
+		t.Fatalf("search: message %q, run %+v", p.msg.Text, r)
+	}
+	if len(r.path) != r.res.Evaluations || len(r.path) == 0 || len(r.path) > 12 {
+		t.Errorf("path of %d solves, %d evaluations", len(r.path), r.res.Evaluations)
+	}
+	if !(r.res.Best.DownforcePerSpan >= r.res.Start.DownforcePerSpan) {
+		t.Errorf("best %g N/m below the start's %g", r.res.Best.DownforcePerSpan, r.res.Start.DownforcePerSpan)
+	}
+	if !strings.Contains(p.table.Text, "deflection: 15 →") || p.trace.Figure() == nil {
+		t.Errorf("comparison %q; figure %v", p.table.Text, p.trace.Figure() != nil)
+	}
+	if p.apply.Disabled() || p.pin.Disabled() {
+		t.Fatalf("apply disabled %v, pin disabled %v", p.apply.Disabled(), p.pin.Disabled())
+	}
+	test.Tap(p.pin)
+	w.WaitIdle()
+	if n := len(w.ctl.Study().Pins); n != len(before.Pins)+1 {
+		t.Fatalf("%d pins after pinning the start, want %d", n, len(before.Pins)+1)
+	}
+	test.Tap(p.apply)
+	w.WaitIdle()
+	secs := w.ctl.Sections()
+	got := setupValue(w.ctl.Study(), r.vars[0], secs)
+	if math.Abs(got-r.res.Best.Values[0]) > 1e-6 || !p.applyMsg.Hidden {
+		t.Errorf("applied deflection %g, want the best %g (%q)", got, r.res.Best.Values[0], p.applyMsg.Text)
+	}
+	if !p.apply.Disabled() {
+		t.Error("Apply still enabled on the changed study")
+	}
+	w.ctl.Undo()
+	w.WaitIdle()
+	if got := setupValue(w.ctl.Study(), r.vars[0], secs); math.Abs(got-15) > 1e-6 {
+		t.Errorf("after undo the deflection is %g, want the start's 15", got)
+	}
+}

@@ -130,7 +130,8 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 }
 
 // SetupGrid is one quantity over two set-up variables: Z[i][j] at X[i]
-// and Y[j] (NaN where the point has no value).
+// and Y[j] (NaN where the point has no value). With Z nil it is only the
+// plane from X[0] to X[len−1] and Y[0] to Y[len−1], for a search's path.
 type SetupGrid struct {
 	Title, XLabel, YLabel, ZLabel string
 	X, Y                          []float64 // increasing
@@ -158,7 +159,7 @@ func (s setupGridXYZ) Y(r int) float64    { return s.g.Y[r] }
 // greyed and crossed, and the search's path, start and best point when
 // given.
 func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
-	if len(g.Z) != len(g.X) {
+	if g.Z != nil && len(g.Z) != len(g.X) {
 		panic("figure: SetupGridPlot: Z does not match X")
 	}
 	for _, col := range g.Z {
@@ -180,8 +181,10 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 		return nil, ErrNoSetupData
 	}
 	p := newPlot(th, g.Title, g.XLabel, g.YLabel)
-	p.Add(&cellFill{g: &g, bg: th.bg})
 	k := newKey(th, keyTopRight)
+	if g.Z != nil {
+		p.Add(&cellFill{g: &g, bg: th.bg})
+	}
 	if lo <= hi {
 		if hi == lo {
 			hi = lo + 1e-9*math.Max(1, math.Abs(lo))
@@ -227,7 +230,9 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 			k.add(fmt.Sprintf("%.4g %s", v, g.ZLabel), swatch{c})
 		}
 	}
-	p.Add(&cellMarks{g: &g, hatch: fade(th.fg, 200), fail: fade(th.faint, 170), cross: th.accent})
+	if g.Z != nil {
+		p.Add(&cellMarks{g: &g, hatch: fade(th.fg, 200), fail: fade(th.faint, 170), cross: th.accent})
+	}
 	if anyTrue(g.Separated) {
 		k.add("suction side separated (hatched)", hatchThumb{fade(th.fg, 200)})
 	}
@@ -253,10 +258,15 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 		p.Add(s)
 		k.add("best", s)
 	}
-	x0, x1 := cellEdges(g.X)
-	y0, y1 := cellEdges(g.Y)
-	p.X.Min, p.X.Max = x0[0], x1[len(x1)-1]
-	p.Y.Min, p.Y.Max = y0[0], y1[len(y1)-1]
+	if g.Z == nil {
+		p.X.Min, p.X.Max = g.X[0], g.X[len(g.X)-1]
+		p.Y.Min, p.Y.Max = g.Y[0], g.Y[len(g.Y)-1]
+	} else {
+		x0, x1 := cellEdges(g.X)
+		y0, y1 := cellEdges(g.Y)
+		p.X.Min, p.X.Max = x0[0], x1[len(x1)-1]
+		p.Y.Min, p.Y.Max = y0[0], y1[len(y1)-1]
+	}
 	p.Add(k)
 	return p, nil
 }
