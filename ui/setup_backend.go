@@ -95,7 +95,7 @@ func applySetupValues(st *model.Study, vars []setupVariable, values []float64, s
 
 // writeMapTable writes a map's points as CSV (format.WriteMapTable).
 func writeMapTable(w io.Writer, st *model.Study, program string, vars []setupVariable, points []setupPoint) error {
-	return format.WriteMapTable(w, format.Metadata{Study: st.Name, AlphaDeg: math.NaN(), Program: program}, vars, points)
+	return format.WriteMapTable(w, format.Metadata{Study: st.Name, AlphaDeg: math.NaN(), Program: program}, st, vars, points)
 }
 
 func renderSetupCurve(c setupCurve, dark bool, w, h int, dpi float64) (*figure, error) {

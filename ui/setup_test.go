@@ -87,7 +87,7 @@ func TestSetupMapRideHeight(t *testing.T) {
 			rows++
 		}
 	}
-	if rows != 6 || !strings.Contains(string(b), "clearance_mm,converged") {
+	if rows != 6 || !strings.Contains(string(b), "clearance_mm,cl,cd") {
 		t.Errorf("CSV has %d lines of table, want a header and 5 rows:\n%s", rows, b)
 	}
 }
