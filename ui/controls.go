@@ -743,6 +743,16 @@ func (c *controls) showResult(st *model.Study, res *engineResult) {
 	c.fc.showResult(st, res)
 }
 
+// scrollColumn scrolls the control column's open tab by a wheel event
+// that arrived over one of its fields.
+func (c *controls) scrollColumn(e *fyne.ScrollEvent) {
+	if it := c.tabs.Selected(); it != nil {
+		if sc, ok := it.Content.(*container.Scroll); ok {
+			sc.Scrolled(e)
+		}
+	}
+}
+
 // reveal scrolls the control column so that o (a message under a field)
 // is in view.
 func (c *controls) reveal(o fyne.CanvasObject) {

@@ -3,6 +3,7 @@ package ui
 import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/widget"
 )
 
@@ -19,6 +20,9 @@ type field struct {
 	inUse string
 	w     *Workbench
 	left  int // times the field lost the focus (refusal.go)
+	// wheelToColumn hands the mouse wheel over the field to the control
+	// column (textField).
+	wheelToColumn bool
 }
 
 // newField returns a field on w that applies its text with apply and shows
@@ -36,14 +40,63 @@ func newField(w *Workbench, msg *widget.Label, apply func(string) error) *field 
 }
 
 // textField is newField for free text (a name) that may be longer than
-// the field: it scrolls sideways inside the field, which then takes the
-// wheel over it.
+// the field: it scrolls sideways inside the field (keys, selection), but
+// the mouse wheel over it still scrolls the control column.
 func textField(w *Workbench, msg *widget.Label, apply func(string) error) *field {
-	f := &field{w: w, msg: msg, apply: apply}
+	f := &field{w: w, msg: msg, apply: apply, wheelToColumn: true}
 	f.Wrapping = fyne.TextWrap(fyne.TextTruncateClip)
 	f.ExtendBaseWidget(f)
 	f.OnSubmitted = func(string) { f.commit(false) }
 	return f
+}
+
+// CreateRenderer is the entry's, with a wheelCatcher laid over a text
+// field: the toolkit hands the wheel to the innermost scrollable object
+// under the pointer, which would otherwise be the entry's own sideways
+// scroller.
+func (f *field) CreateRenderer() fyne.WidgetRenderer {
+	r := f.Entry.CreateRenderer()
+	if !f.wheelToColumn {
+		return r
+	}
+	c := &wheelCatcher{onWheel: func(e *fyne.ScrollEvent) {
+		if f.w != nil && f.w.controls != nil {
+			f.w.controls.scrollColumn(e)
+		}
+	}}
+	c.ExtendBaseWidget(c)
+	return &catcherRenderer{WidgetRenderer: r, catcher: c}
+}
+
+// wheelCatcher takes the mouse wheel and nothing else: taps, drags, keys
+// and the pointer's shape go to what lies under it.
+type wheelCatcher struct {
+	widget.BaseWidget
+	onWheel func(*fyne.ScrollEvent)
+}
+
+// Scrolled is part of fyne.Scrollable.
+func (c *wheelCatcher) Scrolled(e *fyne.ScrollEvent) { c.onWheel(e) }
+
+// CreateRenderer is part of fyne.Widget: nothing to draw.
+func (c *wheelCatcher) CreateRenderer() fyne.WidgetRenderer {
+	return widget.NewSimpleRenderer(layout.NewSpacer())
+}
+
+// catcherRenderer is an entry's renderer with a wheelCatcher over all of it.
+type catcherRenderer struct {
+	fyne.WidgetRenderer
+	catcher *wheelCatcher
+}
+
+func (r *catcherRenderer) Layout(size fyne.Size) {
+	r.WidgetRenderer.Layout(size)
+	r.catcher.Resize(size)
+	r.catcher.Move(fyne.NewPos(0, 0))
+}
+
+func (r *catcherRenderer) Objects() []fyne.CanvasObject {
+	return append(r.WidgetRenderer.Objects(), r.catcher)
 }
 
 // FocusLost applies the text, or reverts it to the value in use.

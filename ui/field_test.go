@@ -5,6 +5,7 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/test"
 )
 
@@ -139,4 +140,67 @@ func TestErrorScrolledIntoView(t *testing.T) {
 	if c.flowMsg.Hidden || bottom > sc.Size().Height+1 || sc.Offset.Y == 0 {
 		t.Errorf("message hidden %v, its foot at %g in a column %g high (offset %g)", c.flowMsg.Hidden, bottom, sc.Size().Height, sc.Offset.Y)
 	}
+}
+
+// TestWheelOverTextFieldsScrollsColumn: the wheel over a free-text field
+// (study name, team, element name, pin name), which scrolls its own text
+// sideways, still scrolls the control column; what lies over the field to
+// take the wheel takes nothing else (clicks, drags, keys, the pointer's
+// shape go to the field).
+func TestWheelOverTextFieldsScrollsColumn(t *testing.T) {
+	w := newTestBench(t)
+	w.Window().Resize(fyne.NewSize(1280, 500))
+	if err := w.ctl.PinCurrent(); err != nil {
+		t.Fatal(err)
+	}
+	w.WaitIdle()
+	c := w.controls
+	cases := []struct {
+		name string
+		tab  int
+		f    func() *field
+	}{
+		{"study name", 0, func() *field { return c.studyName }},
+		{"team", 0, func() *field { return c.team }},
+		{"element name", 0, func() *field { return c.ec.name }},
+		{"pin name", 2, func() *field { return c.pinFields[0] }},
+	}
+	for _, tc := range cases {
+		t.Run(tc.name, func(t *testing.T) {
+			c.tabs.SelectIndex(tc.tab)
+			f := tc.f()
+			c.reveal(f)
+			sc := c.tabs.Items[tc.tab].Content.(*container.Scroll)
+			d := fyne.CurrentApp().Driver()
+			pos := d.AbsolutePositionForObject(f).Add(fyne.NewPos(5, 5))
+			before := sc.Offset.Y
+			dy, down := float32(-40), true // the wheel towards the user: the column moves up
+			if before > 0 {
+				dy, down = 40, false
+			}
+			test.Scroll(w.Window().Canvas(), pos, 0, dy)
+			if moved := sc.Offset.Y > before; moved != down || sc.Offset.Y == before {
+				t.Errorf("the wheel over the %s field left the column at offset %g (was %g)", tc.name, sc.Offset.Y, before)
+			}
+		})
+	}
+	var catcher any = &wheelCatcher{}
+	for name, takes := range map[string]bool{
+		"taps":    is[fyne.Tappable](catcher),
+		"clicks":  is[desktop.Mouseable](catcher),
+		"drags":   is[fyne.Draggable](catcher),
+		"focus":   is[fyne.Focusable](catcher),
+		"hover":   is[desktop.Hoverable](catcher),
+		"pointer": is[desktop.Cursorable](catcher),
+	} {
+		if takes {
+			t.Errorf("the wheel catcher over text fields takes %s", name)
+		}
+	}
+}
+
+// is reports whether v implements T.
+func is[T any](v any) bool {
+	_, ok := v.(T)
+	return ok
 }
