@@ -149,7 +149,10 @@ func noData(v View, what string) error {
 // draw the plot themselves. It returns a *ViewError wrapping ErrNoData when
 // sc lacks the data v needs.
 func PlotView(v View, sc *Scene) (*plot.Plot, error) {
-	p, _, err := buildView(v, sc)
+	p, info, err := buildView(v, sc)
+	if err == nil && info.equal {
+		fitAspect(p, draw.Canvas{Rectangle: vg.Rectangle{Max: vg.Point{X: 6 * vg.Inch, Y: 4 * vg.Inch}}})
+	}
 	return p, err
 }
 
@@ -195,9 +198,9 @@ func buildView(v View, sc *Scene) (*plot.Plot, viewInfo, error) {
 	if err != nil {
 		return nil, info, err
 	}
-	if info.equal {
-		fitAspect(p, draw.Canvas{Rectangle: vg.Rectangle{Max: vg.Point{X: 6 * vg.Inch, Y: 4 * vg.Inch}}})
-	}
+	// Not yet fitted to equal scales: Render and WriteFigure fit the
+	// ranges asked for to the actual size once (fitting twice, to 3:2 and
+	// then to the size, would widen both ranges), PlotView to 3:2.
 	return p, info, nil
 }
 

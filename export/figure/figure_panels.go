@@ -148,7 +148,7 @@ func panelsPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	}
 	ns := newScatter(nodes, th.node, glyphSmall, draw.CircleGlyph{})
 	cs := newScatter(ctrl, th.control, glyphSmall, draw.CrossGlyph{})
-	p.Add(ns, cs)
+	p.Add(unpadded{ns}, unpadded{cs})
 	k.keep(nodes)
 	k.add("nodes", ns)
 	k.add("control points", cs)
@@ -163,3 +163,12 @@ func panelsPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	}
 	return p, nil
 }
+
+// unpadded draws a plotter without its glyph boxes, so that the data area
+// does not shrink by a marker's radius when a marker lies on its edge:
+// in a zoomed view which nodes lie there changes with every step, and the
+// area's size (and so the window shown) would change with it.
+type unpadded struct{ p plot.Plotter }
+
+// Plot is part of plot.Plotter.
+func (u unpadded) Plot(c draw.Canvas, p *plot.Plot) { u.p.Plot(c, p) }
