@@ -39,8 +39,11 @@ type densityWindow struct {
 	w   *Workbench
 	win fyne.Window
 
-	panels, nose   *widget.Entry
-	tolCl, tolCp   *widget.Entry
+	panels, nose   *field
+	tolCl, tolCp   *field
+	panelsMsg      *widget.Label // a plan field's message, beside it
+	noseMsg        *widget.Label
+	tolMsg         *widget.Label
 	noseNote       *widget.Label
 	msg            *widget.Label
 	run, cancel    *widget.Button
@@ -87,10 +90,13 @@ func newDensityWindow(w *Workbench) *densityWindow {
 	d.win = w.app.NewWindow("Density study — Sectionbench")
 	d.win.SetCloseIntercept(d.hide)
 
-	d.panels, d.nose = widget.NewEntry(), widget.NewEntry()
+	// The plan's fields apply as the control column's do: on Enter or
+	// leaving, the whole plan checked and stored in the study.
+	d.panelsMsg, d.noseMsg, d.tolMsg = message(), message(), message()
+	d.panels, d.nose = newField(w, d.panelsMsg, d.applyPlan), newField(w, d.noseMsg, d.applyPlan)
 	d.panels.SetPlaceHolder("e.g. 20, 40, 80, 160, 320, 640")
 	d.nose.SetPlaceHolder("empty: the study's value")
-	d.tolCl, d.tolCp = widget.NewEntry(), widget.NewEntry()
+	d.tolCl, d.tolCp = newField(w, d.tolMsg, d.applyPlan), newField(w, d.tolMsg, d.applyPlan)
 	d.noseNote = widget.NewLabel("")
 	d.noseNote.Wrapping = fyne.TextWrapWord
 	d.noseNote.SizeName = theme.SizeNameCaptionText
@@ -162,9 +168,12 @@ func newDensityWindow(w *Workbench) *densityWindow {
 	plan := container.NewVBox(
 		heading("Plan"),
 		row("Panel counts", d.panels),
+		d.panelsMsg,
 		row("Nose clustering", d.nose),
+		d.noseMsg,
 		d.noseNote,
 		container.NewGridWithColumns(2, labelled("Cl within (%)", d.tolCl), labelled("min Cp within (%)", d.tolCp)),
+		d.tolMsg,
 		d.msg,
 		d.runRow,
 		d.progress,
@@ -296,7 +305,7 @@ func (d *densityWindow) readPlan() (model.DensityPlan, error) {
 	}
 	p.Nose = noses
 	for _, t := range []struct {
-		e    *widget.Entry
+		e    *field
 		name string
 		def  float64
 		v    *float64
@@ -363,20 +372,37 @@ func (d *densityWindow) syncPlan(st *model.Study) {
 	for i, n := range counts {
 		cs[i] = strconv.Itoa(n)
 	}
-	d.panels.SetText(strings.Join(cs, ", "))
+	d.panels.show(strings.Join(cs, ", "), nil)
 	ns := make([]string, len(p.Nose))
 	for i, v := range p.Nose {
 		ns[i] = entryNum(v)
 	}
-	d.nose.SetText(strings.Join(ns, ", "))
+	d.nose.show(strings.Join(ns, ", "), nil)
 	tol := func(v, def float64) string {
 		if v == 0 {
 			v = def
 		}
 		return entryNum(v)
 	}
-	d.tolCl.SetText(tol(p.TolClPct, densityDefaultTolCl))
-	d.tolCp.SetText(tol(p.TolCpMinPct, densityDefaultTolCp))
+	d.tolCl.show(tol(p.TolClPct, densityDefaultTolCl), nil)
+	d.tolCp.show(tol(p.TolCpMinPct, densityDefaultTolCp), nil)
+}
+
+// applyPlan checks the plan the fields show (the one being committed with
+// its new text, the others with their values in use) and stores it in the
+// study, an undoable edit; the error names what is wrong.
+func (d *densityWindow) applyPlan(string) error {
+	plan, err := d.readPlan()
+	if err != nil {
+		return err
+	}
+	prev, seen := d.syncedPlan, d.syncedPlanSeen
+	d.syncedPlan, d.syncedPlanSeen = plan, true // the fields already show it
+	if err := d.w.ctl.SetDensityPlan(plan); err != nil {
+		d.syncedPlan, d.syncedPlanSeen = prev, seen
+		return err
+	}
+	return nil
 }
 
 // studyChanged follows the study: the plan fields, the nose note, whether

@@ -266,3 +266,62 @@ func TestDensitySkippedRows(t *testing.T) {
 		t.Errorf("summary %q does not give the skipped count and its reason", d.caseLabel.Text)
 	}
 }
+
+// TestDensityFieldsApplyOnCommit: the density window's plan fields behave
+// as the control column's: typing applies nothing; Enter applies a plan
+// that can be used (stored in the study, undoable); a bad one shows its
+// message beside its field, leaves the study alone and, when the field is
+// left, the field returns to the value in use.
+func TestDensityFieldsApplyOnCommit(t *testing.T) {
+	w, d := openDensityTest(t)
+	const start = "20, 40, 80, 160, 320, 640"
+	d.panels.SetText("40, 80")
+	if w.ctl.Study().Density.Panels != nil {
+		t.Fatal("typing applied the counts")
+	}
+	d.panels.submit("40, 80, 160")
+	if got := w.ctl.Study().Density.Panels; !reflect.DeepEqual(got, []int{40, 80, 160}) {
+		t.Errorf("Enter stored counts %v, want [40 80 160]", got)
+	}
+	if !d.panelsMsg.Hidden {
+		t.Errorf("a good plan shows %q", d.panelsMsg.Text)
+	}
+	before := encoded(t, w.ctl.Study())
+	cases := []struct {
+		name string
+		f    *field
+		msg  func() *widget.Label
+		text string
+	}{
+		{"counts not increasing", d.panels, func() *widget.Label { return d.panelsMsg }, "80, 40"},
+		{"nose outside 0..1", d.nose, func() *widget.Label { return d.noseMsg }, "1.5"},
+		{"tolerance not a percentage", d.tolCl, func() *widget.Label { return d.tolMsg }, "-1"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			inUse := c.f.Text
+			c.f.submit(c.text)
+			if c.msg().Hidden {
+				t.Error("no message beside the field")
+			}
+			if encoded(t, w.ctl.Study()) != before {
+				t.Error("a bad plan changed the study")
+			}
+			if c.f.Text != c.text {
+				t.Errorf("the field shows %q before it is left, want the text typed", c.f.Text)
+			}
+			c.f.FocusLost()
+			if c.f.Text != inUse {
+				t.Errorf("left, the field shows %q, want the value in use %q", c.f.Text, inUse)
+			}
+			if c.msg().Hidden {
+				t.Error("leaving hid the message")
+			}
+		})
+	}
+	w.ctl.Undo()
+	w.WaitIdle()
+	if got := d.panels.Text; got != start {
+		t.Errorf("after undo the counts show %q, want %q", got, start)
+	}
+}

@@ -11,6 +11,7 @@ import (
 	"time"
 
 	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
 
@@ -94,75 +95,111 @@ func writeCoordinateFiles(dir, base, program string, st *model.Study, secs []*mo
 
 // askOutline asks for the outline's options, then for the folder.
 func (w *Workbench) askOutline() {
-	skin := widget.NewEntry()
-	skin.SetPlaceHolder("0: outline only")
-	sparXC := widget.NewEntry()
-	sparXC.SetPlaceHolder("e.g. 0.3; empty: none")
-	sparDia := widget.NewEntry()
-	sparDia.SetPlaceHolder("e.g. 8")
-	ligament := widget.NewEntry()
-	ligament.SetPlaceHolder(fmt.Sprintf("%g (default)", float64(geometry.DefaultMinLigamentMM)))
-	material := widget.NewEntry()
-	material.SetPlaceHolder("for the title block; empty: not given")
-	onChord := widget.NewCheck("spar on the chord line (default: on the mean line)", nil)
-	chord := widget.NewCheck("draw each chord line", nil)
-	placed := widget.NewRadioGroup([]string{"one rib template per element", "the assembly as placed"}, nil)
-	placed.SetSelected("one rib template per element")
-	items := []*widget.FormItem{
-		widget.NewFormItem("skin thickness (mm)", skin),
-		widget.NewFormItem("spar hole at x/c", sparXC),
-		widget.NewFormItem("spar hole diameter (mm)", sparDia),
-		widget.NewFormItem("", onChord),
-		widget.NewFormItem("minimum ligament (mm)", ligament),
-		widget.NewFormItem("sheet thickness (mm)", material),
-		widget.NewFormItem("", chord),
-		widget.NewFormItem("layout", placed),
-	}
-	dialog.ShowForm("Outline for manufacturing", "Choose folder…", "Cancel", items, func(ok bool) {
+	o := newOutlineForm()
+	dialog.ShowForm("Outline for manufacturing", "Choose folder…", "Cancel", o.items, func(ok bool) {
 		if !ok {
 			return
 		}
-		s, err := parseOutlineSettings(skin.Text, sparXC.Text, sparDia.Text, ligament.Text, material.Text)
+		s, err := o.settings()
 		if err != nil {
 			w.userError(err)
 			return
 		}
-		s.chordLine, s.placed, s.sparOnChord = chord.Checked, placed.Selected == "the assembly as placed", onChord.Checked
 		w.exportTo(w.writeOutline(s))
 	}, w.win)
+}
+
+// outlineForm is the outline dialog's content. Its number fields apply as
+// the control column's do: each is checked on Enter or leaving, a bad
+// value explained beside it and the field returned to the value in use
+// when left.
+type outlineForm struct {
+	items                                     []*widget.FormItem
+	skin, sparXC, sparDia, ligament, material *field
+	onChord, chord                            *widget.Check
+	placed                                    *widget.RadioGroup
+}
+
+func newOutlineForm() *outlineForm {
+	o := &outlineForm{}
+	num := func(name string, lo, hi float64, placeholder string) (*field, fyne.CanvasObject) {
+		msg := message()
+		f := newField(nil, msg, func(text string) error {
+			_, err := outlineNumber(name, text, lo, hi)
+			return err
+		})
+		f.SetPlaceHolder(placeholder)
+		return f, container.NewVBox(f, msg)
+	}
+	var skin, sparXC, sparDia, ligament, material fyne.CanvasObject
+	o.skin, skin = num("skin thickness", 0, model.MaxSkinMM, "0: outline only")
+	o.sparXC, sparXC = num("spar hole position", 0, 1, "e.g. 0.3; empty: none")
+	o.sparDia, sparDia = num("spar hole diameter", 0, model.MaxHoleMM, "e.g. 8")
+	o.ligament, ligament = num("minimum ligament", 0, 100, fmt.Sprintf("%g (default)", float64(geometry.DefaultMinLigamentMM)))
+	o.material, material = num("sheet thickness", 0, 100, "for the title block; empty: not given")
+	o.onChord = widget.NewCheck("spar on the chord line (default: on the mean line)", nil)
+	o.chord = widget.NewCheck("draw each chord line", nil)
+	o.placed = widget.NewRadioGroup([]string{"one rib template per element", "the assembly as placed"}, nil)
+	o.placed.SetSelected("one rib template per element")
+	o.items = []*widget.FormItem{
+		widget.NewFormItem("skin thickness (mm)", skin),
+		widget.NewFormItem("spar hole at x/c", sparXC),
+		widget.NewFormItem("spar hole diameter (mm)", sparDia),
+		widget.NewFormItem("", o.onChord),
+		widget.NewFormItem("minimum ligament (mm)", ligament),
+		widget.NewFormItem("sheet thickness (mm)", material),
+		widget.NewFormItem("", o.chord),
+		widget.NewFormItem("layout", o.placed),
+	}
+	return o
+}
+
+// settings returns the options in use. A text typed and not yet left is
+// applied, or refused and replaced by the value in use, first: what the
+// fields show is what is used.
+func (o *outlineForm) settings() (outlineSettings, error) {
+	for _, f := range []*field{o.skin, o.sparXC, o.sparDia, o.ligament, o.material} {
+		f.commit(true)
+	}
+	s, err := parseOutlineSettings(o.skin.inUse, o.sparXC.inUse, o.sparDia.inUse, o.ligament.inUse, o.material.inUse)
+	s.chordLine, s.placed, s.sparOnChord = o.chord.Checked, o.placed.Selected == "the assembly as placed", o.onChord.Checked
+	return s, err
+}
+
+// outlineNumber reads one number of the outline dialog, empty as 0; an
+// error names the field and the range.
+func outlineNumber(field, text string, lo, hi float64) (float64, error) {
+	text = strings.TrimSpace(text)
+	if text == "" {
+		return 0, nil
+	}
+	v, err := strconv.ParseFloat(strings.ReplaceAll(text, ",", "."), 64)
+	if err != nil || !(v >= lo && v <= hi) {
+		return 0, fmt.Errorf("%s: %q is not a number from %g to %g", field, text, lo, hi)
+	}
+	return v, nil
 }
 
 // parseOutlineSettings reads the outline dialog's fields; an error names
 // the field.
 func parseOutlineSettings(skin, sparXC, sparDia, ligament, material string) (outlineSettings, error) {
 	s := outlineSettings{minLigamentMM: geometry.DefaultMinLigamentMM}
-	num := func(field, text string, lo, hi float64) (float64, error) {
-		text = strings.TrimSpace(text)
-		if text == "" {
-			return 0, nil
-		}
-		v, err := strconv.ParseFloat(strings.ReplaceAll(text, ",", "."), 64)
-		if err != nil || !(v >= lo && v <= hi) {
-			return 0, fmt.Errorf("%s: %q is not a number from %g to %g", field, text, lo, hi)
-		}
-		return v, nil
-	}
 	var err error
-	if s.skinMM, err = num("skin thickness", skin, 0, model.MaxSkinMM); err != nil {
+	if s.skinMM, err = outlineNumber("skin thickness", skin, 0, model.MaxSkinMM); err != nil {
 		return s, err
 	}
-	if s.sparXC, err = num("spar hole position", sparXC, 0, 1); err != nil {
+	if s.sparXC, err = outlineNumber("spar hole position", sparXC, 0, 1); err != nil {
 		return s, err
 	}
-	if s.sparDiaMM, err = num("spar hole diameter", sparDia, 0, model.MaxHoleMM); err != nil {
+	if s.sparDiaMM, err = outlineNumber("spar hole diameter", sparDia, 0, model.MaxHoleMM); err != nil {
 		return s, err
 	}
 	if strings.TrimSpace(ligament) != "" {
-		if s.minLigamentMM, err = num("minimum ligament", ligament, 0, 100); err != nil {
+		if s.minLigamentMM, err = outlineNumber("minimum ligament", ligament, 0, 100); err != nil {
 			return s, err
 		}
 	}
-	if s.materialMM, err = num("sheet thickness", material, 0, 100); err != nil {
+	if s.materialMM, err = outlineNumber("sheet thickness", material, 0, 100); err != nil {
 		return s, err
 	}
 	if (s.sparXC > 0) != (s.sparDiaMM > 0) {

@@ -7,6 +7,9 @@ import (
 	"strings"
 	"testing"
 
+	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/widget"
+
 	"sectionbench/model"
 )
 
@@ -84,5 +87,44 @@ func TestParseOutlineSettings(t *testing.T) {
 		if (err == nil) != tc.ok || (tc.ok && (math.Abs(s.skinMM-tc.skinMM) > 1e-12 || s.minLigamentMM != tc.ligMM)) {
 			t.Errorf("%q %q %q %q: %+v, %v", tc.skin, tc.xc, tc.dia, tc.lig, s, err)
 		}
+	}
+}
+
+// TestOutlineFieldsApplyOnCommit: the outline dialog's number fields apply
+// on Enter or leaving; a bad value shows its message beside its field and,
+// left, the field returns to the value in use, which is what the export
+// then uses.
+func TestOutlineFieldsApplyOnCommit(t *testing.T) {
+	test.NewTempApp(t)
+	o := newOutlineForm()
+	w := test.NewWindow(widget.NewForm(o.items...))
+	defer w.Close()
+	msgOf := func(f *field) *widget.Label { return f.msg }
+
+	o.skin.submit("1.5")
+	o.skin.SetText("99") // beyond the thickest skin: typed, not yet applied
+	if !msgOf(o.skin).Hidden {
+		t.Errorf("typing showed %q", msgOf(o.skin).Text)
+	}
+	o.skin.submit("99")
+	if msgOf(o.skin).Hidden || !strings.Contains(msgOf(o.skin).Text, "skin thickness") {
+		t.Errorf("a bad skin thickness shows %q (hidden %v), want a message naming the field", msgOf(o.skin).Text, msgOf(o.skin).Hidden)
+	}
+	o.skin.FocusLost()
+	if o.skin.Text != "1.5" {
+		t.Errorf("left, the field shows %q, want the value in use 1.5", o.skin.Text)
+	}
+	o.sparXC.submit("0.3")
+	o.sparDia.SetText("x") // typed and never left: refused when the dialog is confirmed
+	s, err := o.settings()
+	if err == nil || !strings.Contains(err.Error(), "both its position and its diameter") {
+		t.Errorf("settings with a spar position and no diameter: %v", err)
+	}
+	if s.skinMM != 1.5 || o.sparDia.Text != "" || msgOf(o.sparDia).Hidden {
+		t.Errorf("skin %g mm, diameter field %q (message hidden %v): want 1.5 mm, the field back to empty with its message", s.skinMM, o.sparDia.Text, msgOf(o.sparDia).Hidden)
+	}
+	o.sparDia.submit("8")
+	if s, err = o.settings(); err != nil || s.sparXC != 0.3 || s.sparDiaMM != 8 {
+		t.Errorf("settings %+v, %v; want a spar at 0.3 of 8 mm", s, err)
 	}
 }

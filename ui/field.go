@@ -99,6 +99,15 @@ func (r *catcherRenderer) Objects() []fyne.CanvasObject {
 	return append(r.WidgetRenderer.Objects(), r.catcher)
 }
 
+// inColumn reports whether f is one of the control column's fields (and
+// not one of another window's, such as the density window's).
+func (f *field) inColumn() bool {
+	if f.w == nil || f.w.controls == nil || f.w.win == nil {
+		return false
+	}
+	return fyne.CurrentApp().Driver().CanvasForObject(f) == f.w.win.Canvas()
+}
+
 // FocusLost applies the text, or reverts it to the value in use.
 func (f *field) FocusLost() {
 	f.Entry.FocusLost()
@@ -158,7 +167,7 @@ func (f *field) commit(leaving bool) {
 	}
 	if err := f.apply(f.Text); err != nil {
 		setMessage(f.msg, err)
-		if f.w != nil && f.w.controls != nil {
+		if f.inColumn() {
 			f.w.controls.reveal(f.msg)
 		}
 		if leaving {
