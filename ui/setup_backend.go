@@ -27,6 +27,19 @@ type (
 	searchStep    = figures.SearchStep
 )
 
+// setupQuantity is what a map shows of each point (engine.Quantity).
+type setupQuantity = engine.Quantity
+
+// The quantities a map shows.
+const (
+	quantityLoad       = engine.QuantityLoad
+	quantityDrag       = engine.QuantityDrag
+	quantityLiftToDrag = engine.QuantityLiftToDrag
+	quantityCm         = engine.QuantityCm
+	quantitySeparation = engine.QuantitySeparation
+	numQuantities      = engine.NumQuantities
+)
+
 // setupVariables lists the set-up variables st can vary, in the order the
 // window offers them: the angle of attack, the clearance (ground on), the
 // speed, then each flap's deflection, gap and overlap.

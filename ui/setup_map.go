@@ -17,112 +17,10 @@ import (
 	"sectionbench/model"
 )
 
-// setupQuantity is what a map shows of each point.
-type setupQuantity int
-
-const (
-	quantityLoad setupQuantity = iota // downforce (inverted) or lift
-	quantityDrag
-	quantityLiftToDrag
-	quantityCm
-	quantitySeparation // the earliest suction-side separation, x/c
-	numQuantities
-)
-
 // defaultSeparationLimit is the x/c ahead of which a suction side that
 // separates marks a point: separation in the last tenth of the chord is
 // common on a loaded flap and costs little (common practice).
 const defaultSeparationLimit = 0.9
-
-// label names the quantity with its unit: forces in N/m of span when the
-// map has a speed, coefficients otherwise.
-func (q setupQuantity) label(inverted, forces bool) string {
-	switch q {
-	case quantityLoad:
-		switch {
-		case inverted && forces:
-			return "downforce (N/m)"
-		case inverted:
-			return "downforce coefficient −Cl"
-		case forces:
-			return "lift (N/m)"
-		}
-		return "lift coefficient Cl"
-	case quantityDrag:
-		if forces {
-			return "drag (N/m)"
-		}
-		return "drag coefficient Cd"
-	case quantityLiftToDrag:
-		if inverted {
-			return "downforce to drag"
-		}
-		return "lift to drag"
-	case quantityCm:
-		return "pitching moment coefficient Cm"
-	}
-	return "suction-side separation, x/c (1: attached)"
-}
-
-// short is the quantity's name in the readout.
-func (q setupQuantity) short(inverted bool) string {
-	switch q {
-	case quantityLoad:
-		if inverted {
-			return "downforce"
-		}
-		return "lift"
-	case quantityDrag:
-		return "drag"
-	case quantityLiftToDrag:
-		return "L/D"
-	case quantityCm:
-		return "Cm"
-	}
-	return "separation x/c"
-}
-
-// needsViscous reports a quantity only the viscous solution gives.
-func (q setupQuantity) needsViscous() bool {
-	return q == quantityDrag || q == quantityLiftToDrag || q == quantitySeparation
-}
-
-// value returns the quantity at a point, NaN where it has none (not
-// converged, not solved, no drag without the viscous solution).
-func (q setupQuantity) value(p *setupPoint, forces bool) float64 {
-	if !p.Converged || p.Err != "" {
-		return math.NaN()
-	}
-	switch q {
-	case quantityLoad:
-		if forces {
-			if p.Inverted {
-				return p.DownforcePerSpan
-			}
-			return p.LiftPerSpan
-		}
-		return p.Load()
-	case quantityDrag:
-		if forces {
-			return p.DragPerSpan
-		}
-		return p.Cd
-	case quantityLiftToDrag:
-		return p.Load() / p.Cd
-	case quantityCm:
-		return p.Cm
-	}
-	if !p.Viscous {
-		return math.NaN()
-	}
-	first := 1.0
-	for _, e := range p.Elements {
-		if e.SeparationSuction < first { // false for NaN: attached
-			first = e.SeparationSuction
-		}
-	}
-	return first
-}
 
 // mapRun is a map: its inputs and the points that have arrived. It is
 // read and written on the UI goroutine only; figures get copies.
@@ -158,8 +56,8 @@ func (r *mapRun) separated(k int) bool {
 func (r *mapRun) curve(q setupQuantity) setupCurve {
 	inv := r.st.Inverted
 	c := setupCurve{
-		Title:  strings.ToUpper(q.label(inv, r.forces)[:1]) + q.label(inv, r.forces)[1:],
-		XLabel: setupLabel(r.st, r.vars[0]), YLabel: q.label(inv, r.forces),
+		Title:  strings.ToUpper(q.Label(inv, r.forces)[:1]) + q.Label(inv, r.forces)[1:],
+		XLabel: setupLabel(r.st, r.vars[0]), YLabel: q.Label(inv, r.forces),
 		Current: r.current[0], Onset: math.NaN(),
 	}
 	for k := range r.points {
@@ -167,7 +65,7 @@ func (r *mapRun) curve(q setupQuantity) setupCurve {
 			continue
 		}
 		c.X = append(c.X, r.axes[0][k])
-		c.Y = append(c.Y, q.value(&r.points[k], r.forces))
+		c.Y = append(c.Y, q.Value(&r.points[k], r.forces))
 		c.Separated = append(c.Separated, r.separated(k))
 		c.Failed = append(c.Failed, r.failed(k))
 	}
@@ -215,8 +113,8 @@ func (r *mapRun) grid(q setupQuantity) setupGrid {
 	inv := r.st.Inverted
 	nx, ny := len(r.axes[0]), len(r.axes[1])
 	g := setupGrid{
-		Title:  strings.ToUpper(q.label(inv, r.forces)[:1]) + q.label(inv, r.forces)[1:],
-		XLabel: setupLabel(r.st, r.vars[0]), YLabel: setupLabel(r.st, r.vars[1]), ZLabel: unitOf(q.label(inv, r.forces)),
+		Title:  strings.ToUpper(q.Label(inv, r.forces)[:1]) + q.Label(inv, r.forces)[1:],
+		XLabel: setupLabel(r.st, r.vars[0]), YLabel: setupLabel(r.st, r.vars[1]), ZLabel: unitOf(q.Label(inv, r.forces)),
 		X: r.axes[0], Y: r.axes[1],
 		Z: make([][]float64, nx), Separated: make([][]bool, nx), Failed: make([][]bool, nx),
 		Start: [2]float64{math.NaN(), math.NaN()}, Best: [2]float64{math.NaN(), math.NaN()},
@@ -227,7 +125,7 @@ func (r *mapRun) grid(q setupQuantity) setupGrid {
 			k := i*ny + j
 			g.Z[i][j] = math.NaN()
 			if r.arrived[k] {
-				g.Z[i][j] = q.value(&r.points[k], r.forces)
+				g.Z[i][j] = q.Value(&r.points[k], r.forces)
 				g.Separated[i][j], g.Failed[i][j] = r.separated(k), r.failed(k)
 			}
 		}
@@ -290,8 +188,8 @@ func describePoint(st *model.Study, vars []setupVariable, p *setupPoint, forces 
 	}
 	var qs []string
 	for q := range numQuantities {
-		if v := q.value(p, forces); !math.IsNaN(v) {
-			qs = append(qs, q.short(st.Inverted)+" "+sig(v))
+		if v := q.Value(p, forces); !math.IsNaN(v) {
+			qs = append(qs, q.Short(st.Inverted)+" "+sig(v))
 		}
 	}
 	if note != "" {
@@ -371,7 +269,7 @@ func newSetupMaps(s *setupWindow) *setupMaps {
 	m.export.Disable()
 	var names []string
 	for q := range numQuantities {
-		names = append(names, q.label(false, false))
+		names = append(names, q.Label(false, false))
 	}
 	m.quantity = widget.NewSelect(nil, func(string) { m.show() })
 	m.readout = widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
@@ -539,7 +437,7 @@ func (m *setupMaps) begin(ranges []setupRange, limit float64) error {
 	m.quantity.SetOptions(nil)
 	var names []string
 	for q := range numQuantities {
-		names = append(names, q.label(st.Inverted, r.forces))
+		names = append(names, q.Label(st.Inverted, r.forces))
 	}
 	m.quantity.SetOptions(names)
 	m.quantity.SetSelectedIndex(int(quantityLoad))
@@ -650,7 +548,7 @@ func (m *setupMaps) show() {
 		m.gridArea.Hide()
 		m.curveArea.Show()
 		for q := range numQuantities {
-			if !viscous && q.needsViscous() {
+			if !viscous && q.NeedsViscous() {
 				m.curves[q].setDrawing(nil, "No drag or separation without the viscous solution (a speed or Reynolds number and the box ticked).")
 				continue
 			}
@@ -664,7 +562,7 @@ func (m *setupMaps) show() {
 	m.curveArea.Hide()
 	m.gridArea.Show()
 	q := setupQuantity(max(0, m.quantity.SelectedIndex()))
-	if !viscous && q.needsViscous() {
+	if !viscous && q.NeedsViscous() {
 		m.gridBox.setDrawing(nil, "No drag or separation without the viscous solution (a speed or Reynolds number and the box ticked).")
 		return
 	}

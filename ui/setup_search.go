@@ -364,11 +364,11 @@ func (p *setupSearch) stop() {
 func (r *searchRun) objectiveValue(pt *setupPoint) float64 {
 	switch r.opt.Objective {
 	case searchObjectives[1]:
-		return quantityLiftToDrag.value(pt, r.forces)
+		return quantityLiftToDrag.Value(pt, r.forces)
 	case searchObjectives[2]:
-		return quantityDrag.value(pt, r.forces)
+		return quantityDrag.Value(pt, r.forces)
 	}
-	return quantityLoad.value(pt, r.forces)
+	return quantityLoad.Value(pt, r.forces)
 }
 
 // objectiveLabel names the objective's axis.
@@ -380,7 +380,7 @@ func (r *searchRun) objectiveLabel() string {
 	case searchObjectives[2]:
 		q = quantityDrag
 	}
-	return q.label(r.st.Inverted, r.forces)
+	return q.Label(r.st.Inverted, r.forces)
 }
 
 // show writes the comparison and draws the path.
@@ -453,11 +453,11 @@ func (p *setupSearch) comparison() string {
 		fmt.Fprintf(&b, "%s: %s → %s %s\n", shortLabel(r.st, v), num(res.Start.Values[i]), num(res.Best.Values[i]), v.Unit())
 	}
 	for q := range numQuantities {
-		a, z := q.value(&res.Start, r.forces), q.value(&res.Best, r.forces)
+		a, z := q.Value(&res.Start, r.forces), q.Value(&res.Best, r.forces)
 		if math.IsNaN(a) && math.IsNaN(z) {
 			continue
 		}
-		fmt.Fprintf(&b, "%s: %s → %s\n", q.label(r.st.Inverted, r.forces), orSig(a), orSig(z))
+		fmt.Fprintf(&b, "%s: %s → %s\n", q.Label(r.st.Inverted, r.forces), orSig(a), orSig(z))
 	}
 	if !res.Feasible {
 		b.WriteString("No setting met every constraint: the start is kept.\n")

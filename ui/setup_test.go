@@ -65,8 +65,8 @@ func TestSetupMapRideHeight(t *testing.T) {
 	for q, b := range m.curves {
 		// An inviscid map draws the load and Cm and says why there is no
 		// drag or separation.
-		if want := !setupQuantity(q).needsViscous(); (b.Figure() != nil) != want || (!want && !strings.Contains(b.note.Text, "without the viscous solution")) {
-			t.Errorf("%s: figure drawn %v, note %q", setupQuantity(q).short(true), b.Figure() != nil, b.note.Text)
+		if want := !setupQuantity(q).NeedsViscous(); (b.Figure() != nil) != want || (!want && !strings.Contains(b.note.Text, "without the viscous solution")) {
+			t.Errorf("%s: figure drawn %v, note %q", setupQuantity(q).Short(true), b.Figure() != nil, b.note.Text)
 		}
 	}
 	if d := r.describe(r.nearest(118, 0)); !strings.Contains(d, "clearance 120 mm") || !strings.Contains(d, "downforce") {
