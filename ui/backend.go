@@ -106,7 +106,7 @@ func tableMetadata(st *model.Study, res *engineResult, version string) format.Me
 // and their cleaning reports. Without a density study the report runs one
 // (a report always carries its convergence evidence); it takes tens of
 // milliseconds inviscid, and this runs off the UI goroutine.
-func writeReport(w io.Writer, st *model.Study, res *engineResult, secs []*model.Section, reps []*cleanReport, density *engine.DensityResult, fileName, version string) error {
+func writeReport(w io.Writer, st *model.Study, res *engineResult, secs []*model.Section, reps []*cleanReport, density *engine.DensityResult, fileName, version string, setup *report.Setup) error {
 	if density == nil && len(secs) == len(st.Elements) {
 		if d, err := engine.NewEngine().Density(context.Background(), st, secs, nil); err == nil {
 			density = d
@@ -116,7 +116,7 @@ func writeReport(w io.Writer, st *model.Study, res *engineResult, secs []*model.
 	if len(secs) == len(st.Elements) {
 		vd = report.ViscousDensity(context.Background(), st, secs) // nil with the boundary layer off
 	}
-	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version, Sections: secs, CleanReports: reps, ViscousDensity: vd})
+	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version, Sections: secs, CleanReports: reps, ViscousDensity: vd, Setup: setup})
 }
 
 // recovered runs f, turning a panic into an error.

@@ -173,6 +173,7 @@ type reportJob struct {
 	density  *densityResult
 	file     string
 	version  string
+	setup    *reportSetup // the set-up window's maps, search and finite span; nil for none
 }
 
 // newReportJob gathers the report's input: the current result with the
@@ -193,7 +194,7 @@ func (w *Workbench) newReportJob() (*reportJob, error) {
 	if w.ctl.Path() == "" {
 		file = "unsaved study"
 	}
-	return &reportJob{study: w.ctl.Study(), result: &r, sections: w.ctl.Sections(), reports: w.ctl.Reports(), density: w.currentDensity(), file: file, version: w.app.Metadata().Version}, nil
+	return &reportJob{study: w.ctl.Study(), result: &r, sections: w.ctl.Sections(), reports: w.ctl.Reports(), density: w.currentDensity(), file: file, version: w.app.Metadata().Version, setup: w.setup.reportPart()}, nil
 }
 
 // writeReport gathers the report's input on the UI goroutine; the returned
@@ -206,7 +207,7 @@ func (w *Workbench) writeReport() exportJob {
 			return nil, err
 		}
 		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-			return writeReport(out, job.study, job.result, job.sections, job.reports, job.density, job.file, job.version)
+			return writeReport(out, job.study, job.result, job.sections, job.reports, job.density, job.file, job.version, job.setup)
 		})
 	}
 }

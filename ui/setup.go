@@ -1,6 +1,8 @@
 package ui
 
 import (
+	"fmt"
+
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/widget"
@@ -106,4 +108,50 @@ func (s *setupWindow) relayout() {
 // setupColumn is a control column of the window's width.
 func setupColumn(objs ...fyne.CanvasObject) fyne.CanvasObject {
 	return container.NewPadded(container.NewStack(widthOf(setupControlWidth), container.NewVScroll(container.NewVBox(objs...))))
+}
+
+// reportPart gathers, on the UI goroutine, what the report's set-up page
+// shows: the one-variable map shown (its load against the variable), the
+// last search that finished and the finite-span estimate when it is of
+// the current study. It is nil (no page) when the window was never
+// opened or holds none of them.
+func (s *setupWindow) reportPart() *reportSetup {
+	if s == nil {
+		return nil
+	}
+	cur := s.w.ctl.Current()
+	out := &reportSetup{}
+	if r := s.maps.run0; r != nil && len(r.axes) == 1 && r.done > 0 {
+		out.Curve = r.curve(quantityLoad)
+		viscous := "with the coupled viscous solution"
+		if r.inviscid {
+			viscous = "with the panel method only (no separation)"
+		}
+		out.CurveNote = fmt.Sprintf("A map of %d points %s; %d without an answer are crossed on the axis, not drawn; points separating ahead of x/c %s are ringed.",
+			r.done, viscous, countFailed(r), num(r.limit))
+		if !studiesEqual(r.st, cur) {
+			out.CurveNote += " The map is of the study as it was before its last changes."
+		}
+	}
+	if r := s.search.cur; r != nil && r.res != nil {
+		out.Search, out.SearchVars, out.SearchOptions = r.res, r.vars, r.opt
+	}
+	if p := s.span; p.out != nil && !p.stale() {
+		out.FiniteSpan = p.out
+	}
+	if len(out.Curve.X) == 0 && out.Search == nil && out.FiniteSpan == nil {
+		return nil
+	}
+	return out
+}
+
+// countFailed counts a map's points without an answer.
+func countFailed(r *mapRun) int {
+	n := 0
+	for k := range r.points {
+		if r.failed(k) {
+			n++
+		}
+	}
+	return n
 }

@@ -11,12 +11,14 @@ import (
 
 	figures "sectionbench/export/figure"
 	"sectionbench/export/format"
+	"sectionbench/export/report"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 	"sectionbench/ui/session"
 )
 
 type (
+	reportSetup   = report.Setup
 	setupVariable = model.SetupVariable
 	setupRange    = model.SetupRange
 	setupPoint    = engine.Point
@@ -64,6 +66,11 @@ func setupValue(st *model.Study, v setupVariable, secs []*model.Section) float64
 
 // setupLabel names v in words with its unit for st.
 func setupLabel(st *model.Study, v setupVariable) string { return v.Label(st) }
+
+// mapCurve is a one-variable map's curve of q (figure.MapCurve).
+func mapCurve(st *model.Study, v setupVariable, points []setupPoint, q setupQuantity, forces bool, limit, current float64) setupCurve {
+	return figures.MapCurve(st, v, points, q, forces, limit, current)
+}
 
 // checkSetup checks ranges against st before a run.
 func checkSetup(st *model.Study, ranges []setupRange) error { return st.CheckSetup(ranges) }

@@ -7,7 +7,6 @@ import (
 	"math"
 	"path/filepath"
 	"slices"
-	"sort"
 	"strings"
 
 	"fyne.io/fyne/v2"
@@ -54,58 +53,13 @@ func (r *mapRun) separated(k int) bool {
 // curve returns quantity q against the one variable over the points that
 // have arrived, with the separation onset nearest the study's value.
 func (r *mapRun) curve(q setupQuantity) setupCurve {
-	inv := r.st.Inverted
-	c := setupCurve{
-		Title:  strings.ToUpper(q.Label(inv, r.forces)[:1]) + q.Label(inv, r.forces)[1:],
-		XLabel: setupLabel(r.st, r.vars[0]), YLabel: q.Label(inv, r.forces),
-		Current: r.current[0], Onset: math.NaN(),
-	}
+	var pts []setupPoint
 	for k := range r.points {
-		if !r.arrived[k] {
-			continue
-		}
-		c.X = append(c.X, r.axes[0][k])
-		c.Y = append(c.Y, q.Value(&r.points[k], r.forces))
-		c.Separated = append(c.Separated, r.separated(k))
-		c.Failed = append(c.Failed, r.failed(k))
-	}
-	if x, ok := r.onset(); ok {
-		c.Onset = x
-		c.OnsetLabel = fmt.Sprintf("separation ahead of x/c %s from %s %s", num(r.limit), num(x), r.vars[0].Unit())
-	}
-	return c
-}
-
-// onset returns, for a one-variable map, the value of the first separated
-// point next to an attached one (among the points with an answer, in
-// order of the variable), the one nearest the study's value when there
-// are several.
-func (r *mapRun) onset() (float64, bool) {
-	type pt struct {
-		x   float64
-		sep bool
-	}
-	var pts []pt
-	for k := range r.points {
-		if r.arrived[k] && !r.failed(k) && r.points[k].Viscous {
-			pts = append(pts, pt{r.axes[0][k], r.separated(k)})
+		if r.arrived[k] {
+			pts = append(pts, r.points[k])
 		}
 	}
-	sort.Slice(pts, func(i, j int) bool { return pts[i].x < pts[j].x })
-	best, found := math.NaN(), false
-	for i := 1; i < len(pts); i++ {
-		if pts[i].sep == pts[i-1].sep {
-			continue
-		}
-		x := pts[i].x
-		if pts[i-1].sep {
-			x = pts[i-1].x
-		}
-		if !found || math.Abs(x-r.current[0]) < math.Abs(best-r.current[0]) {
-			best, found = x, true
-		}
-	}
-	return best, found
+	return mapCurve(r.st, r.vars[0], pts, q, r.forces, r.limit, r.current[0])
 }
 
 // grid returns quantity q over the two variables.

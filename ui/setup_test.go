@@ -3,6 +3,7 @@ package ui
 import (
 	"math"
 	"os"
+	"os/exec"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -215,5 +216,41 @@ func TestSetupSearchApplyAndPin(t *testing.T) {
 	w.WaitIdle()
 	if got := setupValue(w.ctl.Study(), r.vars[0], secs); math.Abs(got-15) > 1e-6 {
 		t.Errorf("after undo the deflection is %g, want the start's 15", got)
+	}
+}
+
+// The team report carries the set-up page once the set-up window has a
+// one-variable map and a finite-span estimate of the current study.
+func TestSetupReportPage(t *testing.T) {
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabMaps)
+	m := w.setup.maps
+	m.viscous.SetChecked(false)
+	m.from[0].SetText("40")
+	m.to[0].SetText("120")
+	m.step[0].SetText("40")
+	test.Tap(m.run)
+	w.WaitIdle()
+	test.Tap(w.setup.span.run)
+	w.WaitIdle()
+	part := w.setup.reportPart()
+	if part == nil || len(part.Curve.X) != 3 || part.FiniteSpan == nil || part.Search != nil {
+		t.Fatalf("report part %+v", part)
+	}
+	dir := t.TempDir()
+	files, err := w.writeReport()(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := exec.Command("pdftotext", filepath.Join(dir, files[0]), "-").CombinedOutput()
+	if err != nil {
+		t.Fatalf("pdftotext: %v\n%s", err, out)
+	}
+	text := strings.Join(strings.Fields(string(out)), " ")
+	for _, want := range []string{"Set-up", "Downforce (N/m) against ground clearance (mm)", "Finite span (an estimate the wind tunnel or the track must confirm)", "validate by test"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("report lacks %q", want)
+		}
 	}
 }

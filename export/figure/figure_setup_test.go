@@ -7,9 +7,13 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/plot"
+
+	"sectionbench/model"
+	"sectionbench/solver/engine"
 )
 
 // -setup.out DIR writes the set-up figures of these tests as PNGs to look
@@ -104,4 +108,32 @@ func TestSearchAndSpanLoadPlots(t *testing.T) {
 		t.Fatal(err)
 	}
 	writeSetup(t, "setup-span", p)
+}
+
+// MapCurve marks the first separated point next to an attached one, the
+// one nearest the study's value, and crosses points without an answer.
+func TestMapCurveOnset(t *testing.T) {
+	st := model.NewStudy()
+	st.Inverted = true
+	st.Ground = model.Ground{Enabled: true, ClearanceMM: 80}
+	v := model.SetupVariable{Kind: model.SetupClearance}
+	var pts []engine.Point
+	for _, h := range []float64{20, 30, 40, 60, 80, 100} {
+		p := engine.Point{Values: []float64{h}, Viscous: true, Converged: h != 60, Inverted: true, Cl: -2, Cd: 0.05,
+			DownforcePerSpan: 500, Elements: []engine.PointElement{{SeparationSuction: math.NaN()}}}
+		if h <= 30 {
+			p.Elements[0].SeparationSuction = 0.5
+		}
+		pts = append(pts, p)
+	}
+	c := MapCurve(st, v, pts, engine.QuantityLoad, true, 0.9, 80)
+	if c.Onset != 30 || !strings.Contains(c.OnsetLabel, "from 30 mm") {
+		t.Errorf("onset %g (%q), want 30 mm", c.Onset, c.OnsetLabel)
+	}
+	if !c.Failed[3] || c.Failed[0] || !c.Separated[0] || c.Separated[2] || c.Y[4] != 500 {
+		t.Errorf("marks: failed %v, separated %v, y %v", c.Failed, c.Separated, c.Y)
+	}
+	if c.YLabel != "downforce (N/m)" || c.XLabel != "ground clearance (mm)" {
+		t.Errorf("labels %q, %q", c.XLabel, c.YLabel)
+	}
 }

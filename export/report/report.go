@@ -61,6 +61,9 @@ type Input struct {
 	// ViscousDensity is the density study of the drag and transition
 	// (ViscousDensity); nil leaves it out.
 	ViscousDensity []ViscousDensityRow
+	// Setup is the set-up explorer's page (maps, best setting, finite
+	// span); nil leaves it out.
+	Setup *Setup
 }
 
 // InputFile is a file the report was made from and its SHA-256, in hex.
@@ -124,6 +127,7 @@ func Write(w io.Writer, in Input) error {
 	r.warningsSection()
 	r.figurePages()
 	r.sweepPage()
+	r.setupPage()
 	r.viscousPage()
 	r.densityPage()
 	r.methodsPage()

@@ -1,0 +1,80 @@
+package report
+
+import (
+	"bytes"
+	"context"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"sectionbench/export"
+	"sectionbench/export/figure"
+	"sectionbench/model"
+	"sectionbench/solver/engine"
+)
+
+// TestReportSetupPage writes the demo report with a set-up page (an
+// inviscid ride-height map, a search over the flap's deflection and the
+// finite-span estimate, so that it runs in a test's time) and reads it
+// back: the page's headings, the search's start and best, the finite-span
+// totals as the page formats them, and its cautions.
+func TestReportSetupPage(t *testing.T) {
+	st := demoStudy()
+	st.Viscous.Enabled = false
+	st.Flow.EndPlateHeightMM = 200
+	secs, _, err := export.LoadSections(st, "")
+	if err != nil {
+		t.Fatal(err)
+	}
+	ctx := context.Background()
+	clear := model.SetupVariable{Kind: model.SetupClearance}
+	pts, err := engine.Map(ctx, st, secs, []model.SetupRange{{Var: clear, From: 20, To: 120, Step: 20}},
+		engine.MapOptions{PointOptions: engine.PointOptions{Inviscid: true}}, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	flap := model.SetupVariable{Kind: model.SetupDeflection, Element: 1}
+	opt := engine.SearchOptions{PointOptions: engine.PointOptions{Inviscid: true}, Objective: engine.ObjectiveDownforce, MaxEvaluations: 10}
+	sr, err := engine.Search(ctx, st, secs, []model.SetupRange{{Var: flap, From: 15, To: 30}}, opt, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	fs, res, err := engine.NewEngine().FiniteSpan(ctx, engine.Request{Study: st, Sections: secs})
+	if err != nil {
+		t.Fatal(err)
+	}
+	curve := figure.MapCurve(st, clear, pts, engine.QuantityLoad, true, 0.9, st.Ground.ClearanceMM)
+	in := Input{Study: st, Result: res, AppVersion: "test", Setup: &Setup{
+		Curve: curve, CurveNote: "Panel method only (invented demo data).",
+		Search: sr, SearchVars: []model.SetupVariable{flap}, SearchOptions: opt,
+		FiniteSpan: fs,
+	}}
+	var b bytes.Buffer
+	if err := Write(&b, in); err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(t.TempDir(), "setup.pdf")
+	if *keep != "" {
+		path = strings.TrimSuffix(*keep, ".pdf") + "-setup.pdf"
+	}
+	if err := os.WriteFile(path, b.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	text := strings.Join(strings.Fields(tool(t, "pdftotext", path, "-")), " ")
+	for _, w := range []string{
+		"Set-up", "Best setting found", "Finite span (an estimate the wind tunnel or the track must confirm)",
+		"Downforce (N/m) against ground clearance (mm)", "No separation onset was found in this range",
+		"flap deflection (°)", num(sr.Start.Values[0], 1), num(sr.Best.Values[0], 1), "a local optimum",
+		num(fs.LoadN, 1) + " N", num(fs.Load2DN, 1) + " N", num(fs.InducedDragN, 1) + " N", num(fs.EffectiveAspectRatio, 2),
+		"Glauert", "Hoerner", "validate by test", "qualified engineering review",
+	} {
+		if !strings.Contains(text, w) {
+			t.Errorf("report lacks %q", w)
+		}
+	}
+	if math.IsNaN(fs.LoadN) || !(fs.LoadN < fs.Load2DN) {
+		t.Errorf("finite span %g N, 2-D %g N", fs.LoadN, fs.Load2DN)
+	}
+}
