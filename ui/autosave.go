@@ -18,6 +18,7 @@ import (
 	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/widget"
 
+	"sectionbench/export"
 	"sectionbench/model"
 )
 
@@ -66,8 +67,8 @@ func defaultAutosaveDir() string {
 type autosaver struct {
 	w    *Workbench
 	dir  string
-	id   string    // this window's
-	lock *fileLock // held while this window runs
+	id   string       // this window's
+	lock *export.Lock // held while this window runs
 
 	// UI goroutine only.
 	found    []*backup // left by windows that are gone; the first is offered
@@ -95,7 +96,7 @@ type backup struct {
 	study     *model.Study
 	studyPath string
 	saved     time.Time
-	lock      *fileLock // nil for an earlier version's autosave
+	lock      *export.Lock // nil for an earlier version's autosave
 }
 
 // autosaveOp is one write (study and its path) or removal.
@@ -167,7 +168,7 @@ func (a *autosaver) lockOwn() error {
 	var err error
 	for try := range 3 {
 		a.id = fmt.Sprintf("%d-%x-%d", os.Getpid(), time.Now().UnixNano(), try)
-		if a.lock, err = tryLock(a.lockPath(a.id)); err == nil {
+		if a.lock, err = export.TryLock(a.lockPath(a.id)); err == nil {
 			return nil
 		}
 	}
@@ -201,7 +202,7 @@ func (a *autosaver) collect() []string {
 		if id == a.id || strings.ContainsAny(id, `/\`) {
 			continue
 		}
-		l, err := tryLock(a.lockPath(id))
+		l, err := export.TryLock(a.lockPath(id))
 		if err != nil {
 			alive[id] = true // running, or not ours to judge
 			continue
@@ -260,9 +261,9 @@ func (a *autosaver) collect() []string {
 // to the study just opened is dropped without asking.
 func (a *autosaver) first() {
 	a.w.ctl.Subscribe(a.check)
-	cur, err := encodeStudy(a.w.ctl.Current())
+	cur, err := a.w.ctl.Current().Encode()
 	for len(a.found) > 0 {
-		old, err2 := encodeStudy(a.found[0].study)
+		old, err2 := a.found[0].study.Encode()
 		if err != nil || err2 != nil || string(cur) != string(old) {
 			a.showOffer()
 			return
@@ -354,7 +355,7 @@ func (a *autosaver) check() {
 		}
 		return
 	}
-	b, err := encodeStudy(ctl.Current())
+	b, err := ctl.Current().Encode()
 	if err != nil || string(b) == a.last {
 		return
 	}

@@ -14,6 +14,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/assets"
+	"sectionbench/model"
 )
 
 // findButton returns the button labelled text in the window's content or
@@ -144,7 +145,7 @@ func TestAutosaveDiscard(t *testing.T) {
 	w1.WaitIdle()
 	w1.autosave.crash()
 	w1file := w1.autosave.dataPath(w1.autosave.id)
-	demoStudy, err := decodeStudy(assets.DemoStudy)
+	demoStudy, err := model.DecodeStudy(assets.DemoStudy)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -422,12 +423,12 @@ func TestAutosaveStaleTemporaryFilesCleaned(t *testing.T) {
 // are offered once and removed by the user's choice.
 func TestAutosaveOfAnEarlierVersion(t *testing.T) {
 	dir := autosaveDirForTest(t)
-	st, err := decodeStudy(assets.DemoStudy)
+	st, err := model.DecodeStudy(assets.DemoStudy)
 	if err != nil {
 		t.Fatal(err)
 	}
 	st.Name = "left by an earlier version"
-	b, _ := encodeStudy(st)
+	b, _ := st.Encode()
 	os.WriteFile(filepath.Join(dir, legacyAutosaveFile), b, 0o600)
 	os.WriteFile(filepath.Join(dir, legacyAutosaveNote), []byte("/somewhere/wing.json"), 0o600)
 	w := openAutosaveBench(t, dir, "")

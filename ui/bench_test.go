@@ -7,7 +7,9 @@ import (
 	"fyne.io/fyne/v2/test"
 
 	"sectionbench/assets"
+	"sectionbench/export"
 	figures "sectionbench/export/figure"
+	"sectionbench/model"
 	"sectionbench/solver/engine"
 	"sectionbench/ui/session"
 )
@@ -21,12 +23,12 @@ const benchViewW, benchViewH = 600, 400
 // change: assemble and factorise) instead of one engine stepping the angle
 // (factorisation cached).
 func benchUpdate(b *testing.B, fresh bool) {
-	st, err := decodeStudy(assets.DemoStudy)
+	st, err := model.DecodeStudy(assets.DemoStudy)
 	if err != nil {
 		b.Fatal(err)
 	}
 	st.Panelling.Panels = 200
-	secs, _, err := loadSections(st, ".")
+	secs, _, err := export.LoadSections(st, ".")
 	if err != nil {
 		b.Fatal(err)
 	}
@@ -39,7 +41,7 @@ func benchUpdate(b *testing.B, fresh bool) {
 			st.Flow.AlphaDeg = float64(i%8) - 2
 			i++
 		}
-		res, err := eng.Run(context.Background(), engineRequest{Study: st, Sections: secs, Sweep: true, Streamlines: true})
+		res, err := eng.Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true, Streamlines: true})
 		if err != nil {
 			b.Fatal(err)
 		}
@@ -64,13 +66,13 @@ func BenchmarkAngleUpdate(b *testing.B) { benchUpdate(b, false) }
 // a two-core machine.
 func BenchmarkAngleChange(b *testing.B) {
 	test.NewTempApp(b)
-	st, err := decodeStudy(assets.DemoStudy)
+	st, err := model.DecodeStudy(assets.DemoStudy)
 	if err != nil {
 		b.Fatal(err)
 	}
 	st.Panelling.Panels = 160
 	st.Viscous.Enabled = false
-	secs, _, err := loadSections(st, ".")
+	secs, _, err := export.LoadSections(st, ".")
 	if err != nil {
 		b.Fatal(err)
 	}
@@ -84,7 +86,7 @@ func BenchmarkAngleChange(b *testing.B) {
 	for b.Loop() {
 		st.Flow.AlphaDeg = float64(i%8) - 2
 		i++
-		res, err := eng.Run(context.Background(), engineRequest{Study: st, Sections: secs, Sweep: true, Streamlines: true})
+		res, err := eng.Run(context.Background(), engine.Request{Study: st, Sections: secs, Sweep: true, Streamlines: true})
 		if err != nil {
 			b.Fatal(err)
 		}

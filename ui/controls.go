@@ -14,7 +14,10 @@ import (
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
+	figures "sectionbench/export/figure"
 	"sectionbench/model"
+	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // Ranges of the sliders. The panel-count entry accepts up to
@@ -108,7 +111,7 @@ func setMessage(l *widget.Label, err error) {
 // friendly turns an error into a short sentence for the user.
 func friendly(err error) string {
 	if g, ok := geometryText(err); ok {
-		var me *modelGeometryError
+		var me *model.GeometryError
 		if errors.As(err, &me) {
 			// Only a refused edit meets the model's check first.
 			return g + " Not applied: the previous placement is kept."
@@ -132,7 +135,7 @@ func friendly(err error) string {
 // geometryText explains a configuration that cannot be solved as
 // placed, naming the elements by number and name.
 func geometryText(err error) (string, bool) {
-	var me *modelGeometryError
+	var me *model.GeometryError
 	if errors.As(err, &me) {
 		a := fmt.Sprintf("%d “%s”", me.Elements[0]+1, me.Names[0])
 		if me.Elements[1] < 0 {
@@ -140,14 +143,14 @@ func geometryText(err error) (string, bool) {
 		}
 		b := fmt.Sprintf("%d “%s”", me.Elements[1]+1, me.Names[1])
 		switch {
-		case errors.Is(err, errOverlap):
+		case errors.Is(err, model.ErrOverlap):
 			return "Elements " + a + " and " + b + " overlap or touch: open the gap or reduce the overlap.", true
-		case errors.Is(err, errSmallGap):
+		case errors.Is(err, model.ErrSmallGap):
 			return "Elements " + a + " and " + b + " are too close: " + me.Err.Error() + ".", true
 		}
 		return "Elements " + a + " and " + b + ": " + me.Err.Error() + ".", true
 	}
-	var se *solverGeometryError
+	var se *solver.GeometryError
 	if errors.As(err, &se) {
 		msg := firstLine(se.Err.Error())
 		if se.Element < 0 {
@@ -701,7 +704,7 @@ func (c *controls) syncPins(st *model.Study) {
 	for len(c.pinFields) < len(st.Pins) {
 		i := len(c.pinFields)
 		f := textField(c.w, c.pinMsg, func(s string) error { return c.w.ctl.RenamePin(i, s) })
-		sw := canvas.NewRectangle(pinColour(i, c.w.dark()))
+		sw := canvas.NewRectangle(figures.PinColour(i, c.w.dark()))
 		sw.SetMinSize(fyne.NewSize(18, 18))
 		c.pinFields = append(c.pinFields, f)
 		c.pinSwatches = append(c.pinSwatches, sw)
@@ -715,7 +718,7 @@ func (c *controls) syncPins(st *model.Study) {
 		}
 		label := st.Pins[i].Label
 		f.show(label, func(s string) bool { return strings.TrimSpace(s) == label })
-		c.pinSwatches[i].FillColor = pinColour(i, c.w.dark())
+		c.pinSwatches[i].FillColor = figures.PinColour(i, c.w.dark())
 		c.pinSwatches[i].Refresh()
 		row.Show()
 	}
@@ -738,7 +741,7 @@ func numberIs(x float64) func(string) bool {
 }
 
 // showResult shows what the column derives from a result.
-func (c *controls) showResult(st *model.Study, res *engineResult) {
+func (c *controls) showResult(st *model.Study, res *engine.Result) {
 	c.ec.showResult(res)
 	c.fc.showResult(st, res)
 }

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"strings"
+
+	"sectionbench/solver/engine"
 )
 
 // This file shows the coupled viscous solution (engine.CoupledPoint) in
@@ -20,7 +22,7 @@ func orDash(x float64, prec int) string {
 }
 
 // coupledState says in words how the coupled solution ended.
-func coupledState(res *engineResult) string {
+func coupledState(res *engine.Result) string {
 	c := res.Coupled
 	switch {
 	case c.Note != "":
@@ -36,12 +38,12 @@ func coupledState(res *engineResult) string {
 // lift-to-drag ratio, the force, Cm, the convergence and the solve time.
 // Without convergence the first item says so and the numbers that follow
 // are the inviscid ones, labelled.
-func coupledStatusItems(res *engineResult) []string {
+func coupledStatusItems(res *engine.Result) []string {
 	c, s := res.Coupled, res.Solution
 	inv := res.Layout != nil && res.Layout.Inverted
 	coef, sense, sign := "Cl", "+ up", func(x float64) float64 { return x }
 	if inv {
-		coef, sense, sign = "−Cl", "+ down", downforceOf
+		coef, sense, sign = "−Cl", "+ down", engine.Downforce
 	}
 	f := res.Forces
 	if !c.Converged {
@@ -78,13 +80,13 @@ func forceName(inverted bool) string {
 // its note: per element and for the configuration, the viscous
 // coefficients, the inviscid Cl beside them, forces, transition and
 // separation.
-func coupledResultsText(res *engineResult) (table, note string) {
+func coupledResultsText(res *engine.Result) (table, note string) {
 	c, s, f := res.Coupled, res.Solution, res.Forces
 	inv := res.Layout.Inverted
 	coef := "Cl"
 	sign := func(x float64) float64 { return x }
 	if inv {
-		coef, sign = "−Cl", downforceOf
+		coef, sign = "−Cl", engine.Downforce
 	}
 	cols := []string{"element", "chord mm", "Re", coef + " viscous", coef + " inviscid", "Cd", "Cm viscous"}
 	if f != nil {
@@ -145,7 +147,7 @@ func coupledResultsText(res *engineResult) (table, note string) {
 }
 
 // cautions are the plausibility flags of a result, as sentences.
-func cautions(res *engineResult) []string {
+func cautions(res *engine.Result) []string {
 	var w []string
 	for _, f := range resultFlags(res) {
 		w = append(w, "Caution, "+string(f.Kind)+": "+f.Message+".")

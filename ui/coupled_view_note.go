@@ -1,9 +1,13 @@
 package ui
 
+import (
+	figures "sectionbench/export/figure"
+)
+
 // coupledViewNote explains an empty boundary-layer view when the coupled
 // solution ran, and an empty drag view when the sweep's coupled rows give
 // no drag; ok is false when another note applies.
-func coupledViewNote(sc *scene, f figKind, err error) (note string, ok bool) {
+func coupledViewNote(sc *figures.Scene, f figKind, err error) (note string, ok bool) {
 	if sc == nil || !isNoData(err) {
 		return "", false
 	}

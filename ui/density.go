@@ -14,7 +14,9 @@ import (
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
+	figures "sectionbench/export/figure"
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 	"sectionbench/ui/session"
 )
 
@@ -547,7 +549,7 @@ func (d *densityWindow) finish(gen int, st *model.Study, out *densityOutcome, er
 	d.showOutcome()
 	d.relayout()
 	res := out.res
-	d.conv.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+	d.conv.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 		return renderDensity(res, dark, w, h, dpi)
 	}, "")
 	d.drawLE()
@@ -593,7 +595,7 @@ func (d *densityWindow) showOutcome() {
 		}
 	}
 	for i, q := range []struct {
-		ex     extrapolation
+		ex     engine.Extrapolation
 		finest float64
 		prec   int
 	}{{ser.Cl, last.Cl, 4}, {ser.Cm, last.Cm, 4}, {ser.CpMin, last.CpMin, 3}} {
@@ -669,14 +671,14 @@ func (d *densityWindow) drawLE() {
 		return
 	}
 	nose := d.out.res.Series[d.seriesIdx].Nose
-	var curves []densityCurve
+	var curves []figures.DensityCurve
 	for _, c := range d.out.curves {
 		if c.Nose == nose {
 			curves = append(curves, c)
 		}
 	}
 	el := max(d.leElement.SelectedIndex(), 0)
-	d.le.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+	d.le.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 		return renderDensityLE(curves, el, dark, w, h, dpi)
 	}, "")
 }

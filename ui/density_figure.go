@@ -12,12 +12,13 @@ import (
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
+	figures "sectionbench/export/figure"
 	"sectionbench/ui/session"
 )
 
 // figureRenderer draws a figure at a pixel size and dpi; it runs off the
 // UI goroutine and must not touch widgets.
-type figureRenderer func(dark bool, w, h int, dpi float64) (*figure, error)
+type figureRenderer func(dark bool, w, h int, dpi float64) (*figures.Figure, error)
 
 // figureBox shows a figure drawn off the UI goroutine at the size of the
 // box, redrawn when the box is resized or its drawing changes. Drawings
@@ -39,9 +40,9 @@ type figureBox struct {
 	loop renderLoop
 
 	mu    sync.Mutex
-	req   figureRequest // the newest drawing asked for
-	drawn uint64        // ticket of the last drawing made
-	fig   *figure       // on screen
+	req   figureRequest   // the newest drawing asked for
+	drawn uint64          // ticket of the last drawing made
+	fig   *figures.Figure // on screen
 	err   error
 }
 
@@ -140,7 +141,7 @@ func (b *figureBox) drawNewest() {
 	if again {
 		return
 	}
-	var fig *figure
+	var fig *figures.Figure
 	err := recovered(func() error {
 		var err error
 		fig, err = r.draw(r.dark, r.w, r.h, r.dpi)
@@ -163,7 +164,7 @@ func (b *figureBox) drawNewest() {
 }
 
 // show puts a figure (or nothing, with a note) on screen.
-func (b *figureBox) show(fig *figure, err error, note string) {
+func (b *figureBox) show(fig *figures.Figure, err error, note string) {
 	b.mu.Lock()
 	b.fig, b.err = fig, err
 	b.mu.Unlock()
@@ -182,7 +183,7 @@ func (b *figureBox) show(fig *figure, err error, note string) {
 }
 
 // Figure returns the figure on screen, or nil.
-func (b *figureBox) Figure() *figure {
+func (b *figureBox) Figure() *figures.Figure {
 	b.mu.Lock()
 	defer b.mu.Unlock()
 	return b.fig

@@ -8,6 +8,7 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/test"
 
+	figures "sectionbench/export/figure"
 	"sectionbench/ui/session"
 )
 
@@ -30,11 +31,11 @@ func TestFigureBoxNewestWins(t *testing.T) {
 		}
 	}
 	gate := make(chan struct{})
-	figOf := func(w, h int) *figure { return &figure{Image: image.NewRGBA(image.Rect(0, 0, w, h))} }
+	figOf := func(w, h int) *figures.Figure { return &figures.Figure{Image: image.NewRGBA(image.Rect(0, 0, w, h))} }
 	slow := figOf(1, 1)
-	b.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) { <-gate; return slow, nil }, "")
-	var fast *figure
-	b.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) { fast = figOf(w, h); return fast, nil }, "")
+	b.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) { <-gate; return slow, nil }, "")
+	var fast *figures.Figure
+	b.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) { fast = figOf(w, h); return fast, nil }, "")
 	close(gate)
 	wait()
 	if got := b.Figure(); got == nil || got != fast {
@@ -43,7 +44,7 @@ func TestFigureBoxNewestWins(t *testing.T) {
 	if fast.Image.Bounds().Dx() < 100 {
 		t.Errorf("drawn %d px wide in a box of 200 units", fast.Image.Bounds().Dx())
 	}
-	b.setDrawing(func(bool, int, int, float64) (*figure, error) { return nil, errors.New("bad data") }, "")
+	b.setDrawing(func(bool, int, int, float64) (*figures.Figure, error) { return nil, errors.New("bad data") }, "")
 	wait()
 	if b.Figure() != nil || !b.note.Visible() || b.note.Text != "bad data" {
 		t.Errorf("after an error the box shows %v with note %q", b.Figure(), b.note.Text)

@@ -109,7 +109,7 @@ func TestDensityWindowRun(t *testing.T) {
 		t.Errorf("figures missing: convergence %v (%v), leading edge %v (%v)", d.conv.Figure() != nil, d.conv.err, d.le.Figure() != nil, d.le.err)
 	}
 	if d.extrap[0][1].Text == "—" && d.extrap[0][3].Text != "not monotone" {
-		t.Errorf("Cl extrapolation shows %q, order %q", d.extrap[0][1].Text, d.extrap[0][3].Text)
+		t.Errorf("Cl engine.Extrapolation shows %q, order %q", d.extrap[0][1].Text, d.extrap[0][3].Text)
 	}
 	ser := d.out.res.Series[0]
 	if ser.RecommendedPanels == 0 {

@@ -13,6 +13,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 	"sectionbench/ui/session"
 )
 
@@ -254,7 +255,7 @@ func (ec *elementControls) sync(st *model.Study, sel int) {
 }
 
 // showResult sets what depends on the solve: the reference chord in use.
-func (ec *elementControls) showResult(res *engineResult) {
+func (ec *elementControls) showResult(res *engine.Result) {
 	if res == nil || res.Layout == nil {
 		return
 	}

@@ -12,6 +12,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 	"sectionbench/ui/session"
 )
 
@@ -24,7 +25,7 @@ func openRearWing(t *testing.T) *Workbench {
 	return openTestBench(t, rearWing)
 }
 
-func elementNames(res *engineResult) []string {
+func elementNames(res *engine.Result) []string {
 	var n []string
 	for _, e := range res.Solution.Elements {
 		n = append(n, e.Name)
@@ -178,11 +179,11 @@ func TestFlapPlacementRoundTrip(t *testing.T) {
 	}
 	want := model.Slot{GapMM: 15, OverlapMM: 10.5, DeflectionDeg: 26}
 	// The saved and reopened study keeps the placement.
-	b, err := encodeStudy(w.ctl.Study())
+	b, err := w.ctl.Study().Encode()
 	if err != nil {
 		t.Fatal(err)
 	}
-	back, err := decodeStudy(b)
+	back, err := model.DecodeStudy(b)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -337,7 +338,7 @@ func TestOverlappingStudyNamesElements(t *testing.T) {
 	st.Elements = append(st.Elements, model.StudyElement{
 		Name: "flap", Section: model.SectionSource{Spec: "naca:4412"}, ChordMM: 100, XMM: 100, YMM: 0,
 	})
-	b, err := encodeStudy(st)
+	b, err := st.Encode()
 	if err != nil {
 		t.Fatal(err)
 	}

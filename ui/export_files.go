@@ -15,14 +15,15 @@ import (
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
 
+	"sectionbench/export"
 	"sectionbench/export/format"
 	"sectionbench/export/geometry"
 	"sectionbench/model"
 )
 
 // This file holds File ▸ Export's manufacturing items: cleaned coordinates
-// and the outlines a laser cutter or CNC takes. Like backend.go it is a
-// place where the workbench calls into model and export, one call per file.
+// and the outlines a laser cutter or CNC takes, one call into export per
+// file.
 
 // outlineSettings are the choices of the outline dialog.
 type outlineSettings struct {
@@ -78,7 +79,7 @@ func writeCoordinateFiles(dir, base, program string, st *model.Study, secs []*mo
 		} {
 			name := stem + f.suffix
 			sec, opt, csv := secs[i], f.opt, f.csv
-			err := writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+			err := export.WriteFileAtomic(filepath.Join(dir, name), func(out io.Writer) error {
 				if csv {
 					return format.WriteCoordinatesCSV(out, sec, opt)
 				}
@@ -238,7 +239,7 @@ func (w *Workbench) writeOutline(s outlineSettings) exportJob {
 		}{{".dxf", format.WriteDXF}, {".svg", format.WriteSVG}} {
 			name := base + "-outline" + f.ext
 			write := f.write
-			if err := writeFile(filepath.Join(dir, name), func(out io.Writer) error { return write(out, o) }); err != nil {
+			if err := export.WriteFileAtomic(filepath.Join(dir, name), func(out io.Writer) error { return write(out, o) }); err != nil {
 				return files, err
 			}
 			files = append(files, name)
@@ -260,7 +261,7 @@ func (w *Workbench) writeBoundaryLayer() exportJob {
 		if res.Viscous == nil {
 			return nil, errors.New("no boundary layer to export: turn on the boundary-layer estimate in the Flow tab")
 		}
-		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+		return []string{name}, export.WriteFileAtomic(filepath.Join(dir, name), func(out io.Writer) error {
 			return format.WriteBoundaryLayerTable(out, meta, res.Viscous)
 		})
 	}

@@ -1,6 +1,7 @@
 package ui
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"io"
@@ -12,7 +13,11 @@ import (
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
 
+	"sectionbench/export"
+	"sectionbench/export/format"
+	"sectionbench/export/report"
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 )
 
 // Size of exported figures: 6 × 4 in at 200 dpi reads well on a printed
@@ -117,7 +122,7 @@ func (w *Workbench) writeFigures(format string) exportJob {
 		}
 		var files []string
 		write := func(name string, f func(io.Writer) error) error {
-			if err := writeFile(filepath.Join(dir, name), f); err != nil {
+			if err := export.WriteFileAtomic(filepath.Join(dir, name), f); err != nil {
 				return err
 			}
 			files = append(files, name)
@@ -156,7 +161,7 @@ func (w *Workbench) writeFigures(format string) exportJob {
 
 // currentDensity returns the density study of the density window when it
 // holds for the current study, else nil. UI goroutine only.
-func (w *Workbench) currentDensity() *densityResult {
+func (w *Workbench) currentDensity() *engine.DensityResult {
 	if d := w.density; d != nil && d.fresh() {
 		return d.out.res
 	}
@@ -167,10 +172,10 @@ func (w *Workbench) currentDensity() *densityResult {
 // goroutine.
 type reportJob struct {
 	study    *model.Study
-	result   *engineResult // with the sweep and its boundary-layer estimate
+	result   *engine.Result // with the sweep and its boundary-layer estimate
 	sections []*model.Section
-	reports  []*cleanReport
-	density  *densityResult
+	reports  []*model.CleanReport
+	density  *engine.DensityResult
 	file     string
 	version  string
 	setup    *reportSetup // the set-up window's maps, search and finite span; nil for none
@@ -206,7 +211,7 @@ func (w *Workbench) writeReport() exportJob {
 		if err != nil {
 			return nil, err
 		}
-		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+		return []string{name}, export.WriteFileAtomic(filepath.Join(dir, name), func(out io.Writer) error {
 			return writeReport(out, job.study, job.result, job.sections, job.reports, job.density, job.file, job.version, job.setup)
 		})
 	}
@@ -222,8 +227,8 @@ func (w *Workbench) writeCpTable() exportJob {
 		if res == nil {
 			return nil, errNoResult
 		}
-		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-			return writeCpTable(out, meta, res)
+		return []string{name}, export.WriteFileAtomic(filepath.Join(dir, name), func(out io.Writer) error {
+			return format.WriteCpTable(out, meta, res.Solution)
 		})
 	}
 }
@@ -241,8 +246,30 @@ func (w *Workbench) writeSweepTable() exportJob {
 		if len(sw) == 0 {
 			return nil, errors.New("no sweep to export: run the sweep first")
 		}
-		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
-			return writeSweepTable(out, meta, sw, vis)
+		return []string{name}, export.WriteFileAtomic(filepath.Join(dir, name), func(out io.Writer) error {
+			return format.WriteSweepTable(out, meta, sw, vis)
 		})
 	}
+}
+
+// tableMetadata heads a CSV of study st solved as res (nil when unknown).
+func tableMetadata(st *model.Study, res *engine.Result, version string) format.Metadata {
+	return format.StudyMetadata(st, res, "Sectionbench "+version)
+}
+
+// writeReport writes the team report of st solved as res from its sections
+// and their cleaning reports. Without a density study the report runs one
+// (a report always carries its convergence evidence); it takes tens of
+// milliseconds inviscid, and this runs off the UI goroutine.
+func writeReport(w io.Writer, st *model.Study, res *engine.Result, secs []*model.Section, reps []*model.CleanReport, density *engine.DensityResult, fileName, version string, setup *report.Setup) error {
+	if density == nil && len(secs) == len(st.Elements) {
+		if d, err := engine.NewEngine().Density(context.Background(), st, secs, nil); err == nil {
+			density = d
+		}
+	}
+	var vd []report.ViscousDensityRow
+	if len(secs) == len(st.Elements) {
+		vd = report.ViscousDensity(context.Background(), st, secs) // nil with the boundary layer off
+	}
+	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version, Sections: secs, CleanReports: reps, ViscousDensity: vd, Setup: setup})
 }

@@ -12,6 +12,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 )
 
 // Speed units offered beside the speed field; the study keeps m/s.
@@ -130,7 +131,7 @@ func (fc *flowControls) parseSpeed(s string) (float64, error) {
 		return 0, fmt.Errorf("speed must be a number of %s, or empty for none", fc.unit.Selected)
 	}
 	if fc.unit.Selected == unitKmh {
-		return kmhToMps(v), nil
+		return model.KmhToMps(v), nil
 	}
 	return v, nil
 }
@@ -141,7 +142,7 @@ func (fc *flowControls) speedText(mps float64) string {
 		return ""
 	}
 	if fc.unit.Selected == unitKmh {
-		return entryNum(mpsToKmh(mps))
+		return entryNum(model.MpsToKmh(mps))
 	}
 	return entryNum(mps)
 }
@@ -175,7 +176,7 @@ func optionalIs(x float64) func(string) bool {
 
 // showResult shows the air, the dynamic pressure and the Reynolds numbers
 // of a result.
-func (fc *flowControls) showResult(st *model.Study, res *engineResult) {
+func (fc *flowControls) showResult(st *model.Study, res *engine.Result) {
 	var parts []string
 	if f := res.Forces; f != nil {
 		parts = append(parts, "ρ "+fixed(f.Density, 3)+" kg/m³", "μ "+sci(f.Viscosity, 3)+" Pa·s", "q "+num(f.DynamicPressurePa)+" Pa")
@@ -224,4 +225,14 @@ func superscript(n int) string {
 		b.WriteRune(d[r-'0'])
 	}
 	return b.String()
+}
+
+// airProperties returns the density (kg/m³), dynamic viscosity (Pa·s) and
+// kinematic viscosity (m²/s) of air at tc °C and p Pa.
+func airProperties(tc, p float64) (rho, mu, nu float64, err error) {
+	a, err := model.AirFromCelsius(tc, p)
+	if err != nil {
+		return 0, 0, 0, err
+	}
+	return a.Density(), a.Viscosity(), a.KinematicViscosity(), nil
 }

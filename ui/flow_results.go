@@ -9,6 +9,9 @@ import (
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/model"
+	"sectionbench/solver/engine"
 )
 
 // resultsPanel is the table under the views: per element and for the
@@ -33,7 +36,7 @@ func newResultsPanel() *resultsPanel {
 	return r
 }
 
-func (r *resultsPanel) show(res *engineResult) {
+func (r *resultsPanel) show(res *engine.Result) {
 	table, note := resultsText(res)
 	r.table.SetText(table)
 	r.note.SetText(note)
@@ -70,7 +73,7 @@ func xcText(x float64) string {
 }
 
 // resultsText lays out the results table and the note on its signs.
-func resultsText(res *engineResult) (table, note string) {
+func resultsText(res *engine.Result) (table, note string) {
 	s := res.Solution
 	if s == nil || res.Layout == nil {
 		return "", ""
@@ -96,7 +99,7 @@ func resultsText(res *engineResult) (table, note string) {
 	}
 	sign := func(x float64) float64 {
 		if inv {
-			return downforceOf(x)
+			return engine.Downforce(x)
 		}
 		return x
 	}
@@ -144,7 +147,7 @@ func resultsText(res *engineResult) (table, note string) {
 	return table, strings.Join(append(cautions(res), n...), " ")
 }
 
-func reText(res *engineResult, i int) string {
+func reText(res *engine.Result, i int) string {
 	if i >= len(res.Reynolds) {
 		return dash
 	}
@@ -188,4 +191,20 @@ func alignColumns(head []string, rows [][]string) string {
 		}
 	}
 	return b.String()
+}
+
+// refChordMM returns the reference chord the result's coefficients are
+// on, in millimetres.
+func refChordMM(res *engine.Result) float64 { return res.Layout.RefChordM * mmPerM }
+
+// elementChordMM returns a placed element's chord in millimetres.
+func elementChordMM(res *engine.Result, i int) float64 { return res.Layout.Elements[i].Chord * mmPerM }
+
+// resultFlags returns the plausibility flags of a result at the study's
+// angle (engine.Result.Flags).
+func resultFlags(res *engine.Result) []model.Flag {
+	if res == nil {
+		return nil
+	}
+	return res.Flags()
 }

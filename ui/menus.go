@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
-	"sectionbench/assets"
 	"strings"
 
 	"fyne.io/fyne/v2"
@@ -15,6 +14,10 @@ import (
 	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/storage"
 	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/assets"
+	"sectionbench/export"
+	"sectionbench/model"
 )
 
 // Extensions offered in the file dialogs.
@@ -152,14 +155,14 @@ func (w *Workbench) closeRequested() {
 
 func (w *Workbench) newStudy() {
 	w.confirmDiscard("Continue", func() {
-		w.userError(w.ctl.Load(newStudy(), ""))
+		w.userError(w.ctl.Load(model.NewStudy(), ""))
 	})
 }
 
 // openExample opens an example study as a new, unsaved study.
 func (w *Workbench) openExample(ex assets.Example) {
 	w.confirmDiscard("Continue", func() {
-		st, err := decodeStudy(ex.Study)
+		st, err := model.DecodeStudy(ex.Study)
 		if err == nil {
 			err = w.ctl.Load(st, "")
 		}
@@ -177,7 +180,7 @@ func (w *Workbench) openSection() { w.openFile(sectionExtensions, w.loadSectionF
 
 // loadStudyFile opens a study from disk; on error the current one stays.
 func (w *Workbench) loadStudyFile(path string) {
-	o, err := openStudy(path)
+	o, err := export.OpenStudy(path)
 	if err != nil {
 		w.userError(err)
 		return

@@ -4,6 +4,8 @@ import (
 	"testing"
 
 	"fyne.io/fyne/v2"
+
+	"sectionbench/model"
 )
 
 func TestFileNameFor(t *testing.T) {
@@ -56,7 +58,7 @@ func TestUndoRedoGreyedOut(t *testing.T) {
 	w.ctl.Undo()
 	w.controls.alphaEntry.submit("2")
 	check("new edit after undo", true, false)
-	if err := w.ctl.Load(newStudy(), ""); err != nil {
+	if err := w.ctl.Load(model.NewStudy(), ""); err != nil {
 		t.Fatal(err)
 	}
 	check("new study", false, false)

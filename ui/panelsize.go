@@ -8,6 +8,8 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/widget"
+
+	figures "sectionbench/export/figure"
 )
 
 // maxRatioLimit bounds the neighbour-ratio limit a user may set: beyond
@@ -30,7 +32,7 @@ type panelSizeView struct {
 	active   bool
 	maxRatio float64
 	ticket   int
-	sizes    []panelSizes
+	sizes    []figures.PanelSizes
 	sizesFor string // encoded study the sizes were made for
 	stale    bool   // the study changed while inactive
 }
@@ -91,7 +93,7 @@ func (v *panelSizeView) update() {
 		return
 	}
 	st, secs := ctl.Study(), ctl.Sections()
-	enc, err := encodeStudy(st)
+	enc, err := st.Encode()
 	if err == nil && string(enc) == v.sizesFor && v.sizes != nil {
 		v.stale = false
 		return
@@ -102,7 +104,7 @@ func (v *panelSizeView) update() {
 	ctl.Activity().Add()
 	go func() {
 		defer ctl.Activity().Done()
-		var sizes []panelSizes
+		var sizes []figures.PanelSizes
 		err := recovered(func() error {
 			var err error
 			sizes, err = placedPanelSizes(st, secs)
@@ -167,7 +169,7 @@ func (v *panelSizeView) draw() {
 		return
 	}
 	ps, limit := v.sizes[i], v.maxRatio
-	v.fig.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+	v.fig.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 		return renderPanelSizes(ps, limit, dark, w, h, dpi)
 	}, "")
 }

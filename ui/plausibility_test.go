@@ -38,7 +38,7 @@ func TestPlausibilityFlagsShown(t *testing.T) {
 // TestViscousFlagsPlugIn: the coupled viscous solution's states raise
 // their flags in words.
 func TestViscousFlagsPlugIn(t *testing.T) {
-	res := &engineResult{Solution: &solver.Solution{Elements: []solver.ElementSolution{{CpMin: -1}}},
+	res := &engine.Result{Solution: &solver.Solution{Elements: []solver.ElementSolution{{CpMin: -1}}},
 		Coupled: &engine.CoupledPoint{Converged: false, PastClMax: true}}
 	if got := model.FlagWords(resultFlags(res)); got != string(model.FlagPastClMax)+"; "+string(model.FlagNotConverged) {
 		t.Errorf("flags %q", got)

@@ -118,7 +118,7 @@ func writeMapTable(w io.Writer, st *model.Study, program string, vars []setupVar
 	return format.WriteMapTable(w, format.Metadata{Study: st.Name, AlphaDeg: math.NaN(), Program: program}, st, vars, points)
 }
 
-func renderSetupCurve(c setupCurve, dark bool, w, h int, dpi float64) (*figure, error) {
+func renderSetupCurve(c setupCurve, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	p, err := figures.SetupCurvePlot(c, dark)
 	if err != nil {
 		return nil, err
@@ -126,7 +126,7 @@ func renderSetupCurve(c setupCurve, dark bool, w, h int, dpi float64) (*figure, 
 	return figures.RenderPlot(p, false, w, h, dpi), nil
 }
 
-func renderSetupGrid(g setupGrid, dark bool, w, h int, dpi float64) (*figure, error) {
+func renderSetupGrid(g setupGrid, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	p, err := figures.SetupGridPlot(g, dark)
 	if err != nil {
 		return nil, err
@@ -134,7 +134,7 @@ func renderSetupGrid(g setupGrid, dark bool, w, h int, dpi float64) (*figure, er
 	return figures.RenderPlot(p, false, w, h, dpi), nil
 }
 
-func renderSpanLoad(s spanLoad, dark bool, w, h int, dpi float64) (*figure, error) {
+func renderSpanLoad(s spanLoad, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	p, err := figures.SpanLoadPlot(s, dark)
 	if err != nil {
 		return nil, err
@@ -142,7 +142,7 @@ func renderSpanLoad(s spanLoad, dark bool, w, h int, dpi float64) (*figure, erro
 	return figures.RenderPlot(p, false, w, h, dpi), nil
 }
 
-func renderSearch(title, objective string, steps []searchStep, maximise, dark bool, w, h int, dpi float64) (*figure, error) {
+func renderSearch(title, objective string, steps []searchStep, maximise, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	p, err := figures.SearchPlot(title, objective, steps, maximise, dark)
 	if err != nil {
 		return nil, err

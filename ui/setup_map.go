@@ -13,6 +13,8 @@ import (
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/widget"
 
+	"sectionbench/export"
+	figures "sectionbench/export/figure"
 	"sectionbench/model"
 )
 
@@ -507,7 +509,7 @@ func (m *setupMaps) show() {
 				continue
 			}
 			c := r.curve(q)
-			m.curves[q].setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+			m.curves[q].setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 				return renderSetupCurve(c, dark, w, h, dpi)
 			}, "")
 		}
@@ -521,7 +523,7 @@ func (m *setupMaps) show() {
 		return
 	}
 	g := r.grid(q)
-	m.gridBox.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+	m.gridBox.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 		return renderSetupGrid(g, dark, w, h, dpi)
 	}, "")
 }
@@ -571,7 +573,7 @@ func (m *setupMaps) csvJob() exportJob {
 			return nil, fmt.Errorf("no map to export yet: run one first")
 		}
 		name := base + "-map.csv"
-		return []string{name}, writeFile(filepath.Join(dir, name), func(out io.Writer) error {
+		return []string{name}, export.WriteFileAtomic(filepath.Join(dir, name), func(out io.Writer) error {
 			return writeMapTable(out, st, program, vars, pts)
 		})
 	}

@@ -12,6 +12,7 @@ import (
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/widget"
 
+	figures "sectionbench/export/figure"
 	"sectionbench/model"
 )
 
@@ -404,7 +405,7 @@ func (p *setupSearch) show() {
 	}
 	maximise := r.opt.Objective != searchObjectives[2]
 	title, label := "Search: "+r.objectiveLabel()+" at each solve", r.objectiveLabel()
-	p.trace.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+	p.trace.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 		return renderSearch(title, label, steps, maximise, dark, w, h, dpi)
 	}, "")
 	if len(r.vars) >= 2 {
@@ -423,7 +424,7 @@ func (p *setupSearch) show() {
 		if r.res != nil && r.res.Feasible {
 			g.Best = [2]float64{r.res.Best.Values[0], r.res.Best.Values[1]}
 		}
-		p.plane.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+		p.plane.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 			return renderSetupGrid(g, dark, w, h, dpi)
 		}, "")
 	} else {

@@ -12,6 +12,7 @@ import (
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/widget"
 
+	figures "sectionbench/export/figure"
 	"sectionbench/model"
 )
 
@@ -183,7 +184,7 @@ func (p *setupSpan) show() {
 	}
 	p.totals.SetText(finiteSpanText(fs, p.stale()))
 	sl := spanLoadOf(fs)
-	p.load.setDrawing(func(dark bool, w, h int, dpi float64) (*figure, error) {
+	p.load.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 		return renderSpanLoad(sl, dark, w, h, dpi)
 	}, "")
 }

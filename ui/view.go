@@ -10,6 +10,7 @@ import (
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/widget"
 
+	figures "sectionbench/export/figure"
 	"sectionbench/ui/session"
 )
 
@@ -54,8 +55,8 @@ type plotCanvas struct {
 	do      func(func())      // runs a function on the UI goroutine
 
 	mu      sync.Mutex
-	sc      *scene // newest scene, window not set
-	win     viewWindow
+	sc      *figures.Scene // newest scene, window not set
+	win     figures.Window
 	zoomed  bool
 	dark    bool
 	speed   bool    // colour streamlines by local speed
@@ -66,7 +67,7 @@ type plotCanvas struct {
 	dpi     float64
 	ticket  uint64 // last render started
 	shown   uint64 // ticket of the figure on screen
-	fig     *figure
+	fig     *figures.Figure
 	loop    renderLoop
 	err     error
 	base    *panelsBase // the panels figure without its key (view_draw.go)
@@ -156,13 +157,13 @@ func (p *plotCanvas) change(set func() (changed bool)) {
 type frame struct {
 	p      *plotCanvas
 	ticket uint64
-	fig    *figure
+	fig    *figures.Figure
 	err    error
 }
 
 // renderNow renders sc at the current size and window on the calling
 // goroutine (never the UI goroutine) and returns the frame to show.
-func (p *plotCanvas) renderNow(sc *scene) frame {
+func (p *plotCanvas) renderNow(sc *figures.Scene) frame {
 	p.mu.Lock()
 	if sc != nil {
 		p.sc = sc
@@ -281,7 +282,7 @@ func (p *plotCanvas) renderLater() {
 }
 
 // Figure returns the figure on screen, or nil.
-func (p *plotCanvas) Figure() *figure {
+func (p *plotCanvas) Figure() *figures.Figure {
 	p.mu.Lock()
 	defer p.mu.Unlock()
 	return p.fig
@@ -294,16 +295,16 @@ func (p *plotCanvas) pixel(pos fyne.Position) (int, int) {
 }
 
 // window returns the data window on screen.
-func (p *plotCanvas) window() (viewWindow, bool) {
+func (p *plotCanvas) window() (figures.Window, bool) {
 	f := p.Figure()
 	if f == nil {
-		return viewWindow{}, false
+		return figures.Window{}, false
 	}
 	return figureWindow(f)
 }
 
 // setWindow zooms to w (zoomed false: the figure's own extent).
-func (p *plotCanvas) setWindow(w viewWindow, zoomed bool) {
+func (p *plotCanvas) setWindow(w figures.Window, zoomed bool) {
 	p.mu.Lock()
 	p.win, p.zoomed = w, zoomed
 	p.mu.Unlock()
@@ -319,7 +320,7 @@ func (p *plotCanvas) ToggleSpeedColour() {
 }
 
 // ResetZoom returns to the figure's own extent.
-func (p *plotCanvas) ResetZoom() { p.setWindow(viewWindow{}, false) }
+func (p *plotCanvas) ResetZoom() { p.setWindow(figures.Window{}, false) }
 
 // ZoomBy scales the window by f about the data point (cx, cy); f < 1 zooms in.
 func (p *plotCanvas) ZoomBy(f, cx, cy float64) {
@@ -327,7 +328,7 @@ func (p *plotCanvas) ZoomBy(f, cx, cy float64) {
 	if !ok || !(f > 0) {
 		return
 	}
-	p.setWindow(viewWindow{
+	p.setWindow(figures.Window{
 		XMin: cx + (w.XMin-cx)*f, XMax: cx + (w.XMax-cx)*f,
 		YMin: cy + (w.YMin-cy)*f, YMax: cy + (w.YMax-cy)*f,
 	}, true)
@@ -337,7 +338,7 @@ func (p *plotCanvas) ZoomBy(f, cx, cy float64) {
 // screen. The figure widens the window it is given to keep x and y at one
 // scale, so zooming and panning start from what was asked: a step in and a
 // step out then return exactly where they began.
-func (p *plotCanvas) asked() (viewWindow, bool) {
+func (p *plotCanvas) asked() (figures.Window, bool) {
 	p.mu.Lock()
 	w, zoomed := p.win, p.zoomed
 	p.mu.Unlock()
@@ -400,7 +401,7 @@ func (p *plotCanvas) Dragged(e *fyne.DragEvent) {
 		return
 	}
 	dx, dy := x1-x0, y1-y0
-	p.setWindow(viewWindow{XMin: w.XMin + dx, XMax: w.XMax + dx, YMin: w.YMin + dy, YMax: w.YMax + dy}, true)
+	p.setWindow(figures.Window{XMin: w.XMin + dx, XMax: w.XMax + dx, YMin: w.YMin + dy, YMax: w.YMax + dy}, true)
 }
 
 // DragEnd is part of fyne.Draggable.

@@ -4,6 +4,7 @@ import (
 	"image"
 	"unsafe"
 
+	figures "sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver"
 )
@@ -21,13 +22,13 @@ type panelsKey struct {
 	nBodies int
 	ground  bool
 	groundY float64
-	window  viewWindow
+	window  figures.Window
 	dark    bool
 	w, h    int
 	dpi     float64
 }
 
-func panelsKeyOf(sc *scene, w, h int, dpi float64) panelsKey {
+func panelsKeyOf(sc *figures.Scene, w, h int, dpi float64) panelsKey {
 	k := panelsKey{layout: sc.Layout, ground: sc.Ground, groundY: sc.GroundY, window: sc.Window, dark: sc.Dark, w: w, h: h, dpi: dpi}
 	if sc.Config != nil {
 		k.bodies, k.nBodies = unsafe.SliceData(sc.Config.Elements), len(sc.Config.Elements)
@@ -39,7 +40,7 @@ func panelsKeyOf(sc *scene, w, h int, dpi float64) panelsKey {
 // key holds. Never shown itself: each frame is a copy with the key laid over.
 type panelsBase struct {
 	key panelsKey
-	fig *figure
+	fig *figures.Figure
 }
 
 // draw renders figure fk of sc (window, colours and element already set)
@@ -48,7 +49,7 @@ type panelsBase struct {
 // has changed (an angle change in free air): a copy of the figure it kept
 // with the key laid over, a fraction of a millisecond instead of the
 // bodies' several.
-func (p *plotCanvas) draw(fk figKind, sc *scene, w, h int, dpi float64) (*figure, error) {
+func (p *plotCanvas) draw(fk figKind, sc *figures.Scene, w, h int, dpi float64) (*figures.Figure, error) {
 	buf := p.takeBuffer(w, h)
 	if fk != figPanels {
 		fig, err := safeRenderFigure(buf, fk, sc, dpi)
@@ -77,7 +78,7 @@ func (p *plotCanvas) draw(fk figKind, sc *scene, w, h int, dpi float64) (*figure
 	copy(buf.Pix, base.fig.Image.Pix)
 	f := *base.fig
 	f.Image = buf
-	if err := recovered(func() error { drawFrameKey(&f, sc); return nil }); err != nil {
+	if err := recovered(func() error { figures.DrawFrameKey(&f, sc); return nil }); err != nil {
 		p.recycle(buf)
 		return nil, err
 	}

@@ -8,7 +8,9 @@ import (
 	"fyne.io/fyne/v2/test"
 
 	"sectionbench/assets"
+	"sectionbench/export"
 	figures "sectionbench/export/figure"
+	"sectionbench/model"
 	"sectionbench/solver/engine"
 	"sectionbench/ui/session"
 )
@@ -30,25 +32,25 @@ func TestPanelsRedrawsOnlyWhatChanged(t *testing.T) {
 		{"ground effect", true, false},
 	} {
 		t.Run(c.name, func(t *testing.T) {
-			st, err := decodeStudy(assets.DemoStudy)
+			st, err := model.DecodeStudy(assets.DemoStudy)
 			if err != nil {
 				t.Fatal(err)
 			}
 			st.Viscous.Enabled = false
 			st.Ground.Enabled = c.ground
-			secs, _, err := loadSections(st, ".")
+			secs, _, err := export.LoadSections(st, ".")
 			if err != nil {
 				t.Fatal(err)
 			}
 			eng := engine.NewEngine()
 			p := newPlotCanvas(viewPanels, session.NewActivity(), func(f func()) { f() })
 			p.pxW, p.pxH, p.dpi = 400, 300, baseDPI
-			var shown [3]*figure
+			var shown [3]*figures.Figure
 			var pix [3][]byte
 			var bases [3]*panelsBase
 			for i, alpha := range []float64{2, 4, 6} {
 				st.Flow.AlphaDeg = alpha
-				res, err := eng.Run(context.Background(), engineRequest{Study: st, Sections: secs})
+				res, err := eng.Run(context.Background(), engine.Request{Study: st, Sections: secs})
 				if err != nil {
 					t.Fatal(err)
 				}

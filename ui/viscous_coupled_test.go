@@ -97,7 +97,7 @@ type iterationLimit struct {
 	n   int
 }
 
-func (l iterationLimit) Run(ctx context.Context, req engineRequest) (*engineResult, error) {
+func (l iterationLimit) Run(ctx context.Context, req engine.Request) (*engine.Result, error) {
 	req.CoupledMaxIterations = l.n
 	return l.eng.Run(ctx, req)
 }
@@ -268,12 +268,12 @@ func TestCoupledSweep(t *testing.T) {
 // without a coupled sweep the estimate's notes apply.
 func TestCoupledDragViewNote(t *testing.T) {
 	empty := fmt.Errorf("drag: %w", figures.ErrNoData)
-	sc := &scene{SweepCoupled: []engine.CoupledPoint{{AlphaDeg: 2}, {AlphaDeg: 4}}}
+	sc := &figures.Scene{SweepCoupled: []engine.CoupledPoint{{AlphaDeg: 2}, {AlphaDeg: 4}}}
 	for _, f := range []figKind{figDragPolar, figLiftToDrag} {
 		if note, ok := coupledViewNote(sc, f, empty); !ok || !strings.Contains(note, "converged at none") {
 			t.Errorf("figure %d: note %q, %v", f, note, ok)
 		}
-		if _, ok := coupledViewNote(&scene{}, f, empty); ok {
+		if _, ok := coupledViewNote(&figures.Scene{}, f, empty); ok {
 			t.Errorf("figure %d: coupled note without a coupled sweep", f)
 		}
 	}

@@ -19,7 +19,10 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/assets"
+	"sectionbench/export"
+	figures "sectionbench/export/figure"
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 	"sectionbench/ui/session"
 )
 
@@ -58,7 +61,7 @@ type Workbench struct {
 	controls *controls
 	origin   editOrigin // the control that made the newest edit (refusal.go)
 	sceneMu  sync.Mutex
-	scene    *scene // newest scene shown
+	scene    *figures.Scene // newest scene shown
 	status   *statusLine
 	busy     *busyMark
 	caution  *widget.Button
@@ -106,19 +109,19 @@ func NewWithOptions(app fyne.App, path string, opt Options) (*Workbench, error) 
 // there were any.
 func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain func() bool) (*Workbench, error) {
 	var st *model.Study
-	var opened *openedStudy
+	var opened *export.OpenedStudy
 	var err, pathErr error
 	requested := path
 	if path != "" {
 		// A study that cannot be opened does not stop the app: it starts
 		// on the demo, says what is wrong with the file, and still offers
 		// the autosave of a window that crashed.
-		if opened, pathErr = openStudy(path); pathErr != nil {
+		if opened, pathErr = export.OpenStudy(path); pathErr != nil {
 			path = ""
 		}
 	}
 	if path == "" {
-		if st, err = decodeStudy(assets.DemoStudy); err != nil {
+		if st, err = model.DecodeStudy(assets.DemoStudy); err != nil {
 			return nil, err
 		}
 	}
@@ -236,7 +239,7 @@ func (w *Workbench) toggleEnlarge(k viewKind) {
 // present renders a current result into the four views on the worker
 // goroutine, then shows them together on the UI goroutine unless a newer
 // request has been made meanwhile.
-func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error) {
+func (w *Workbench) present(gen uint64, sc *figures.Scene, res *engine.Result, err error) {
 	if err != nil {
 		w.do(func() {
 			w.busy.shown(gen)
@@ -264,13 +267,13 @@ func (w *Workbench) present(gen uint64, sc *scene, res *engineResult, err error)
 }
 
 // lastScene returns the scene on screen, or nil before the first result.
-func (w *Workbench) lastScene() *scene {
+func (w *Workbench) lastScene() *figures.Scene {
 	w.sceneMu.Lock()
 	defer w.sceneMu.Unlock()
 	return w.scene
 }
 
-func (w *Workbench) showStatus(res *engineResult) {
+func (w *Workbench) showStatus(res *engine.Result) {
 	items, imp := statusItems(res), widget.MediumImportance
 	if fl := resultFlags(res); len(fl) > 0 {
 		// First, so that it is never left off a narrow line.
@@ -310,7 +313,7 @@ func (w *Workbench) showStatusError(err error) {
 // statusItems summarises a result in order of importance: Cl (the
 // downforce coefficient −Cl when inverted, with its sign stated), the
 // force, the drag estimate, the suction peak, Cm and the solve time.
-func statusItems(res *engineResult) []string {
+func statusItems(res *engine.Result) []string {
 	s := res.Solution
 	if s == nil {
 		return []string{"No solution"}
@@ -321,7 +324,7 @@ func statusItems(res *engineResult) []string {
 	inv := res.Layout != nil && res.Layout.Inverted
 	var parts []string
 	if inv {
-		parts = append(parts, "−Cl "+fixed(downforceOf(s.Cl), 3)+" (from circulation, + down)")
+		parts = append(parts, "−Cl "+fixed(engine.Downforce(s.Cl), 3)+" (from circulation, + down)")
 	} else {
 		parts = append(parts, "Cl "+fixed(s.Cl, 3)+" (from circulation, + up)")
 	}
@@ -340,7 +343,7 @@ func statusItems(res *engineResult) []string {
 		if math.IsNaN(v.Cd) {
 			parts = append(parts, "no Cd (separated)")
 		} else if inv {
-			parts = append(parts, "Cd "+fixed(v.Cd, 4), "−Cl/Cd "+fixed(downforceOf(res.LiftToDrag()), 1))
+			parts = append(parts, "Cd "+fixed(v.Cd, 4), "−Cl/Cd "+fixed(engine.Downforce(res.LiftToDrag()), 1))
 		} else {
 			parts = append(parts, "Cd "+fixed(v.Cd, 4), "Cl/Cd "+fixed(res.LiftToDrag(), 1))
 		}
@@ -429,7 +432,7 @@ func (w *Workbench) dark() bool {
 // the views share the scene read-only and keep their own state, and
 // drawing is most of an update's time (a machine with two cores draws an
 // angle change in about half the time).
-func renderViews(views [numViews]*plotView, sc *scene) [numViews]frame {
+func renderViews(views [numViews]*plotView, sc *figures.Scene) [numViews]frame {
 	var frames [numViews]frame
 	eachViewAtOnce(func(k viewKind) { frames[k] = views[k].canvas.renderNow(sc) })
 	return frames

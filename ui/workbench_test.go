@@ -12,7 +12,9 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/test"
 
+	"sectionbench/export"
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 )
 
 // uiQueue stands in for the UI goroutine in tests: the test driver runs
@@ -70,7 +72,7 @@ func newTestBench(t *testing.T) *Workbench {
 
 // current returns the newest result and fails if the newest request failed
 // or its result is not the one shown.
-func current(t *testing.T, w *Workbench) *engineResult {
+func current(t *testing.T, w *Workbench) *engine.Result {
 	t.Helper()
 	w.WaitIdle()
 	res, gen, err := w.ctl.Result()
@@ -83,11 +85,11 @@ func current(t *testing.T, w *Workbench) *engineResult {
 	return res
 }
 
-func panelCount(res *engineResult) int { return len(res.Solution.Elements[0].Panels) }
+func panelCount(res *engine.Result) int { return len(res.Solution.Elements[0].Panels) }
 
 func encoded(t *testing.T, st *model.Study) string {
 	t.Helper()
-	b, err := encodeStudy(st)
+	b, err := st.Encode()
 	if err != nil {
 		t.Fatalf("encode: %v", err)
 	}
@@ -255,7 +257,7 @@ func TestSaveAndReopen(t *testing.T) {
 	if w.ctl.Dirty() || strings.Contains(w.Window().Title(), "•") {
 		t.Errorf("saved study still marked unsaved (title %q)", w.Window().Title())
 	}
-	st, err := loadStudy(path)
+	st, err := export.LoadStudy(path)
 	if err != nil {
 		t.Fatalf("reopen: %v", err)
 	}
@@ -591,7 +593,7 @@ func TestSecondElementEdits(t *testing.T) {
 	st.Elements = append(st.Elements, model.StudyElement{
 		Name: "flap", Section: model.SectionSource{Spec: "naca:4412"}, ChordMM: 100, XMM: 300, YMM: 40, AngleDeg: -10,
 	})
-	b, err := encodeStudy(st)
+	b, err := st.Encode()
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -5,6 +5,8 @@ import (
 	"testing"
 
 	"fyne.io/fyne/v2"
+
+	figures "sectionbench/export/figure"
 )
 
 // TestWheelZoomSymmetric: wheel steps zoom by the same factor in and out,
@@ -20,7 +22,7 @@ func TestWheelZoomSymmetric(t *testing.T) {
 		p.Scrolled(&fyne.ScrollEvent{PointEvent: fyne.PointEvent{Position: at}, Scrolled: fyne.Delta{DY: dy}})
 		w.WaitIdle()
 	}
-	wid := func(v viewWindow) float64 { return v.XMax - v.XMin }
+	wid := func(v figures.Window) float64 { return v.XMax - v.XMin }
 	wheel(wheelNotch) // into the zoomed state the wheel keeps
 	askedStart, _ := p.asked()
 	shownStart, ok := p.window()
@@ -41,7 +43,7 @@ func TestWheelZoomSymmetric(t *testing.T) {
 	tol := wid(shownStart) / float64(p.Size().Width)
 	for _, c := range []struct {
 		name       string
-		got, start viewWindow
+		got, start figures.Window
 	}{{"asked", askedBack, askedStart}, {"shown", shownBack, shownStart}} {
 		g, s := c.got, c.start
 		if math.Abs(g.XMin-s.XMin) > tol || math.Abs(g.XMax-s.XMax) > tol || math.Abs(g.YMin-s.YMin) > tol || math.Abs(g.YMax-s.YMax) > tol {

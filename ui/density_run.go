@@ -1,8 +1,8 @@
 package ui
 
-// The density window, the panel-size chart and the autosave reach model,
-// solver and export only through the functions below, as the rest of the
-// workbench does through backend.go.
+// The density window's and the panel-size chart's work, run off the UI
+// goroutine: the density study with each count's solution kept, and their
+// figures.
 
 import (
 	"context"
@@ -15,18 +15,11 @@ import (
 	"sectionbench/ui/session"
 )
 
-type (
-	densityResult = engine.DensityResult
-	densityCurve  = figures.DensityCurve
-	panelSizes    = figures.PanelSizes
-	extrapolation = engine.Extrapolation
-)
-
 // densityOutcome is a finished density study: the solver's judgement and
 // the solution at every count, kept for the leading-edge overlay.
 type densityOutcome struct {
-	res    *densityResult
-	curves []densityCurve
+	res    *engine.DensityResult
+	curves []figures.DensityCurve
 }
 
 // Defaults of the density window, from the solver and export.
@@ -47,9 +40,9 @@ func runDensity(ctx context.Context, st *model.Study, secs []*model.Section, pro
 			out, err = nil, session.InternalError("in the density study", r)
 		}
 	}()
-	var curves []densityCurve
+	var curves []figures.DensityCurve
 	keep := func(panels int, nose float64, sol *solver.Solution) {
-		curves = append(curves, densityCurve{Panels: panels, Nose: nose, Solution: sol})
+		curves = append(curves, figures.DensityCurve{Panels: panels, Nose: nose, Solution: sol})
 	}
 	res, err := engine.NewEngine().DensityEach(ctx, st, secs, progress, keep)
 	if err != nil {
@@ -59,12 +52,12 @@ func runDensity(ctx context.Context, st *model.Study, secs []*model.Section, pro
 }
 
 // renderDensity draws the convergence figure of a density study.
-func renderDensity(res *densityResult, dark bool, w, h int, dpi float64) (*figure, error) {
+func renderDensity(res *engine.DensityResult, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	return figures.Render(figures.ViewDensity, &figures.Scene{Density: res, Dark: dark, Element: -1}, w, h, dpi)
 }
 
 // renderDensityLE draws the leading-edge Cp of every count on element.
-func renderDensityLE(curves []densityCurve, element int, dark bool, w, h int, dpi float64) (*figure, error) {
+func renderDensityLE(curves []figures.DensityCurve, element int, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	p, err := figures.DensityLEPlot(curves, element, figures.DensityLEChord, dark)
 	if err != nil {
 		return nil, err
@@ -74,7 +67,7 @@ func renderDensityLE(curves []densityCurve, element int, dark bool, w, h int, dp
 
 // placedPanelSizes places the study's elements with their panelling, as
 // the solver does, and returns every element's panel sizes.
-func placedPanelSizes(st *model.Study, secs []*model.Section) ([]panelSizes, error) {
+func placedPanelSizes(st *model.Study, secs []*model.Section) ([]figures.PanelSizes, error) {
 	l, err := model.Place(st, secs)
 	if err != nil {
 		return nil, err
@@ -83,7 +76,7 @@ func placedPanelSizes(st *model.Study, secs []*model.Section) ([]panelSizes, err
 }
 
 // renderPanelSizes draws one element's panel sizes.
-func renderPanelSizes(ps panelSizes, maxRatio float64, dark bool, w, h int, dpi float64) (*figure, error) {
+func renderPanelSizes(ps figures.PanelSizes, maxRatio float64, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	p, err := figures.PanelSizesPlot(ps, maxRatio, dark)
 	if err != nil {
 		return nil, err
@@ -93,13 +86,13 @@ func renderPanelSizes(ps panelSizes, maxRatio float64, dark bool, w, h int, dpi 
 
 // writeDensityFigure writes the convergence figure of a density study
 // (light, for print).
-func writeDensityFigure(w io.Writer, res *densityResult, format string, widthIn, heightIn, dpi float64) error {
+func writeDensityFigure(w io.Writer, res *engine.DensityResult, format string, widthIn, heightIn, dpi float64) error {
 	return figures.WriteFigure(w, figures.ViewDensity, &figures.Scene{Density: res, Element: -1}, format, widthIn, heightIn, dpi)
 }
 
 // writePanelSizeFigure writes one element's panel-size chart (light, for
 // print).
-func writePanelSizeFigure(w io.Writer, ps panelSizes, maxRatio float64, format string, widthIn, heightIn, dpi float64) error {
+func writePanelSizeFigure(w io.Writer, ps figures.PanelSizes, maxRatio float64, format string, widthIn, heightIn, dpi float64) error {
 	p, err := figures.PanelSizesPlot(ps, maxRatio, false)
 	if err != nil {
 		return err

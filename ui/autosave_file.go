@@ -1,7 +1,7 @@
 package ui
 
-// The autosave's calls into export and model: its file format, written and
-// read in one piece, and the per-instance lock.
+// The autosave's file: its format, written and read in one piece, and
+// the file an earlier version wrote.
 
 import (
 	"bytes"
@@ -73,7 +73,3 @@ func readLegacyAutosave(studyFile, noteFile string) (*model.Study, string, error
 	note, _ := export.ReadRegular(noteFile, 1<<16)
 	return st, string(note), nil
 }
-
-type fileLock = export.Lock
-
-func tryLock(path string) (*fileLock, error) { return export.TryLock(path) }
