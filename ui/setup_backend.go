@@ -1,8 +1,6 @@
 package ui
 
-// The set-up window reaches model, solver/engine and export only through
-// the functions below, as the rest of the workbench does through
-// backend.go.
+// The set-up window's calls into model, solver/engine and export/figure.
 
 import (
 	"context"
