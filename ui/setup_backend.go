@@ -95,6 +95,10 @@ func runFiniteSpan(ctx context.Context, st *model.Study, secs []*model.Section, 
 	return fs, err
 }
 
+// lowAspectRatio is where the finite-span estimate calls the lifting line
+// a rough guide.
+const lowAspectRatio = engine.LowAspectRatioLimit
+
 // finiteSpanMethod and finiteSpanCaution are the estimate's method and
 // caution in words.
 var (

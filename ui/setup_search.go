@@ -463,6 +463,7 @@ func (p *setupSearch) comparison() string {
 	if !res.Feasible {
 		b.WriteString("No setting met every constraint: the start is kept.\n")
 	}
+	b.WriteString(r.status)
 	return strings.TrimSpace(b.String())
 }
 

@@ -253,13 +253,17 @@ func finiteSpanText(fs *finiteSpan, stale bool) string {
 		return t
 	}
 	t += fmt.Sprintf("%s %s N (2-D over the span: %s N, %s N/m).\n", name, fixed(fs.LoadN, 1), orDash(fs.Load2DN, 1), orDash(fs.Load2DPerSpan, 1))
-	t += fmt.Sprintf("Induced drag %s N; profile drag %s N; total %s N (2-D over the span: %s N).\n",
-		fixed(fs.InducedDragN, 1), orDash(fs.ProfileDragN, 1), orDash(fs.InducedDragN+fs.ProfileDragN, 1), orDash(fs.Drag2DN, 1))
+	if math.IsNaN(fs.ProfileDragN) {
+		t += fmt.Sprintf("Induced drag %s N; no profile drag without the viscous solution (Flow tab).\n", fixed(fs.InducedDragN, 1))
+	} else {
+		t += fmt.Sprintf("Induced drag %s N; profile drag %s N; total %s N (2-D over the span: %s N).\n",
+			fixed(fs.InducedDragN, 1), fixed(fs.ProfileDragN, 1), fixed(fs.InducedDragN+fs.ProfileDragN, 1), orDash(fs.Drag2DN, 1))
+	}
 	if fs.PastMaxLoad {
 		t += "Some stations work past the polar's maximum load: at or beyond stall, the estimate is not unique.\n"
 	}
-	if math.IsNaN(fs.ProfileDragN) {
-		t += "No profile drag: turn the viscous solution on (Flow tab) for it.\n"
+	if fs.LowAspectRatio {
+		t += fmt.Sprintf("An aspect ratio below about %d: a lifting line is a rough guide here (a lifting-surface method is the usual choice).\n", lowAspectRatio)
 	}
 	return t
 }

@@ -1,11 +1,14 @@
 package ui
 
-import "os"
+import (
+	"os"
+	"strings"
+)
 
 // openWindowEnv names a window to open at start, for screenshots of the
 // real app (scripts/screenshot.sh): "density", "panel-sizes", "setup" (the
-// set-up window running a map of its first variable; "setup-inviscid"
-// without the viscous solution, "setup-two" over two variables), "setup-span" (its
+// set-up window running a map of its first variable; "setup-two" over
+// two variables), "setup-span" (its
 // finite-span estimate) or "setup-search" (its setting search).
 const openWindowEnv = "SECTIONBENCH_OPEN_WINDOW"
 
@@ -39,10 +42,12 @@ func (w *Workbench) startExtras() {
 }
 
 // startSetup opens the set-up window at start when which names one of
-// its tabs, and starts that tab's run; it reports whether it did.
+// its tabs, and starts that tab's run; it reports whether it did. A
+// suffix "-inviscid" runs a map or search with the panel method only.
 func (w *Workbench) startSetup(which string) bool {
-	tab := map[string]int{"setup": setupTabMaps, "setup-inviscid": setupTabMaps, "setup-two": setupTabMaps, "setup-span": setupTabSpan, "setup-search": setupTabSearch}
-	t, ok := tab[which]
+	base, inviscid := strings.CutSuffix(which, "-inviscid")
+	tab := map[string]int{"setup": setupTabMaps, "setup-two": setupTabMaps, "setup-span": setupTabSpan, "setup-search": setupTabSearch}
+	t, ok := tab[base]
 	if !ok {
 		return false
 	}
@@ -54,14 +59,13 @@ func (w *Workbench) startSetup(which string) bool {
 			switch t {
 			case setupTabMaps:
 				m := w.setup.maps
-				m.viscous.SetChecked(which == "setup")
-				if which == "setup-two" {
-					m.second.SetChecked(true)
-				}
+				m.viscous.SetChecked(!inviscid)
+				m.second.SetChecked(base == "setup-two")
 				m.start()
 			case setupTabSpan:
 				w.setup.span.start()
 			case setupTabSearch:
+				w.setup.search.viscous.SetChecked(!inviscid)
 				w.setup.search.start()
 			}
 		})

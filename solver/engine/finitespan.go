@@ -55,6 +55,11 @@ type FiniteSpan struct {
 	// PastMaxLoad: some station works past the polar's largest load (at
 	// or beyond stall); the estimate is then not unique.
 	PastMaxLoad bool
+	// LowAspectRatio: the effective aspect ratio is below
+	// LowAspectRatioLimit, where a lifting line is a rough guide only and
+	// a lifting-surface method (Weissinger's, a vortex lattice) is the
+	// usual choice.
+	LowAspectRatio bool
 	// PolarFromDeg, PolarToDeg and PolarRows describe the polar used:
 	// the angles solved and how many rows had a usable load.
 	PolarFromDeg, PolarToDeg float64
@@ -71,6 +76,11 @@ type SpanStation struct {
 	InducedDeg   float64
 	Cd           float64 // section profile drag, NaN when not known
 }
+
+// LowAspectRatioLimit is the aspect ratio below which the estimate says
+// that a lifting line is a rough guide: about 4 (common practice; texts
+// put the limit of lifting-line theory near there).
+const LowAspectRatioLimit = 4
 
 // ErrNoSpan is returned for a finite-span estimate of a study without a
 // span.
@@ -176,7 +186,7 @@ func FiniteSpanEstimate(st *model.Study, res *Result) (*FiniteSpan, error) {
 		DynamicPressurePa: math.NaN(),
 		LoadN:             math.NaN(), InducedDragN: math.NaN(), ProfileDragN: math.NaN(),
 		Load2DPerSpan: math.NaN(), Drag2DPerSpan: math.NaN(), Load2DN: math.NaN(), Drag2DN: math.NaN(),
-		PastMaxLoad:  ll.PastMaxLoad,
+		PastMaxLoad: ll.PastMaxLoad, LowAspectRatio: arEff < LowAspectRatioLimit,
 		PolarFromDeg: al[0], PolarToDeg: al[n-1], PolarRows: n, PolarRowsUsed: used,
 		ViscousPolar: res.SweepCoupled != nil || res.SweepViscous != nil,
 	}
