@@ -223,10 +223,6 @@ func newSetupMaps(s *setupWindow) *setupMaps {
 	m.status = caption("Not run yet. Each point is the study solved with the variables set to the point's values; points stream in as they are solved, on both cores.")
 	m.export = widget.NewButton("Export map (CSV)…", func() { w.exportTo(m.csvJob()) })
 	m.export.Disable()
-	var names []string
-	for q := range numQuantities {
-		names = append(names, q.Label(false, false))
-	}
 	m.quantity = widget.NewSelect(nil, func(string) { m.show() })
 	m.readout = widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	m.readout.Wrapping = fyne.TextWrapWord
