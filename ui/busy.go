@@ -25,6 +25,10 @@ type busyMark struct {
 	spin  *widget.Activity
 	label *widget.Label
 
+	// onShow and onHide run on the UI goroutine as the mark appears and
+	// goes: the views mark themselves out of date.
+	onShow, onHide func()
+
 	mu     sync.Mutex
 	want   uint64 // generation of the latest request
 	showed uint64 // generation of the result on screen
@@ -50,9 +54,12 @@ func (b *busyMark) waitFor(gen uint64, do func(func())) {
 	b.mu.Unlock()
 	time.AfterFunc(busyDelay, func() {
 		do(func() {
-			if b.pending() {
+			if b.pending() && b.box.Hidden {
 				b.box.Show()
 				b.spin.Start()
+				if b.onShow != nil {
+					b.onShow()
+				}
 			}
 		})
 	})
@@ -66,6 +73,9 @@ func (b *busyMark) shown(gen uint64) {
 	if !b.pending() && !b.box.Hidden {
 		b.spin.Stop()
 		b.box.Hide()
+		if b.onHide != nil {
+			b.onHide()
+		}
 	}
 }
 

@@ -7,6 +7,7 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"time"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/canvas"
@@ -592,9 +593,23 @@ func (c *controls) runSweep() {
 	c.progress.Show()
 	c.cancel.Show()
 	c.runRow.Refresh() // lay the row out again with Cancel beside Run
+	running := true
+	time.AfterFunc(busyDelay, func() {
+		c.w.do(func() {
+			if running && seq == c.sweepSeq {
+				c.w.sweeping = true
+				c.w.refreshStale()
+			}
+		})
+	})
 	finish := func(err error) {
+		running = false
 		if seq != c.sweepSeq {
 			return
+		}
+		if c.w.sweeping {
+			c.w.sweeping = false
+			c.w.refreshStale()
 		}
 		c.progress.Hide()
 		c.cancel.Hide()

@@ -21,6 +21,7 @@ type plotView struct {
 	enlarge *widget.Button
 	tools   []fyne.CanvasObject
 	title   *widget.Label
+	stale   *staleVeil // over the drawing while its figure is out of date
 
 	// Pressure view: the element shown and the boundary-layer switch.
 	elements *widget.Select
@@ -45,7 +46,7 @@ const allElements = "All elements"
 // whole view area.
 // element tells which element the leading-edge close-up shows.
 func newPlotView(kind viewKind, act *session.Activity, do func(func()), onEnlarge func(viewKind), element func() int) *plotView {
-	v := &plotView{kind: kind, canvas: newPlotCanvas(kind, act, do)}
+	v := &plotView{kind: kind, canvas: newPlotCanvas(kind, act, do), stale: newStaleVeil()}
 	v.title = widget.NewLabelWithStyle(kind.String(), fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	v.title.Truncation = fyne.TextTruncateEllipsis
 	v.readout = widget.NewLabel("")
@@ -115,7 +116,7 @@ func (v *plotView) setEnlarged(on bool) {
 func (v *plotView) CreateRenderer() fyne.WidgetRenderer {
 	right := container.NewHBox(append(append([]fyne.CanvasObject{v.readout}, v.tools...), v.enlarge)...)
 	header := container.NewBorder(nil, nil, nil, right, v.title)
-	body := container.NewStack(v.canvas, container.NewVBox(layout.NewSpacer(), v.note, layout.NewSpacer()))
+	body := container.NewStack(v.canvas, v.stale.box, container.NewVBox(layout.NewSpacer(), v.note, layout.NewSpacer()))
 	return widget.NewSimpleRenderer(container.NewBorder(header, nil, nil, nil, body))
 }
 

@@ -64,6 +64,7 @@ type Workbench struct {
 	scene    *figures.Scene // newest scene shown
 	status   *statusLine
 	busy     *busyMark
+	sweeping bool // a sweep has run past busyDelay: the polar is marked out of date
 	caution  *widget.Button
 	warnings *widget.Button
 	results  *resultsPanel
@@ -190,6 +191,8 @@ func (w *Workbench) build() {
 	w.showRes = widget.NewButtonWithIcon("Results", theme.ListIcon(), w.toggleResults)
 	w.showRes.Importance = widget.LowImportance
 	w.busy = newBusyMark()
+	// The views say so too, on themselves: the status line is easy to miss.
+	w.busy.onShow, w.busy.onHide = w.refreshStale, w.refreshStale
 	statusLine := container.NewBorder(nil, nil, w.busy.box, container.NewHBox(w.warnings, w.showRes, w.caution), w.status.box)
 
 	content := container.NewBorder(nil, container.NewVBox(w.results.box, widget.NewSeparator(), statusLine), side, nil, w.viewArea)
@@ -264,6 +267,16 @@ func (w *Workbench) present(gen uint64, sc *figures.Scene, res *engine.Result, e
 		w.results.show(res)
 		w.controls.showResult(w.ctl.Current(), res)
 	})
+}
+
+// refreshStale marks the views out of date: every view while the busy
+// mark is up (a solve past busyDelay), the polar also while a sweep runs
+// past it. UI goroutine.
+func (w *Workbench) refreshStale() {
+	solving := w.busy.Visible()
+	for k, v := range w.views {
+		v.stale.set(solving, w.sweeping && viewKind(k) == viewPolar)
+	}
 }
 
 // lastScene returns the scene on screen, or nil before the first result.
