@@ -178,7 +178,7 @@ type reportJob struct {
 	density  *engine.DensityResult
 	file     string
 	version  string
-	setup    *reportSetup // the set-up window's maps, search and finite span; nil for none
+	setup    *report.Setup // the set-up window's maps, search and finite span; nil for none
 }
 
 // newReportJob gathers the report's input: the current result with the

@@ -6,6 +6,9 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/export/report"
+	"sectionbench/solver/engine"
 )
 
 // Size of the set-up window in Fyne units, and of its control column.
@@ -115,14 +118,14 @@ func setupColumn(objs ...fyne.CanvasObject) fyne.CanvasObject {
 // last search that finished and the finite-span estimate when it is of
 // the current study. It is nil (no page) when the window was never
 // opened or holds none of them.
-func (s *setupWindow) reportPart() *reportSetup {
+func (s *setupWindow) reportPart() *report.Setup {
 	if s == nil {
 		return nil
 	}
 	cur := s.w.ctl.Current()
-	out := &reportSetup{}
+	out := &report.Setup{}
 	if r := s.maps.run0; r != nil && len(r.axes) == 1 && r.done > 0 {
-		out.Curve = r.curve(quantityLoad)
+		out.Curve = r.curve(engine.QuantityLoad)
 		viscous := "with the coupled viscous solution"
 		if r.inviscid {
 			viscous = "with the panel method only (no separation)"

@@ -16,6 +16,7 @@ import (
 	"sectionbench/export"
 	figures "sectionbench/export/figure"
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 )
 
 // defaultSeparationLimit is the x/c ahead of which a suction side that
@@ -27,10 +28,10 @@ const defaultSeparationLimit = 0.9
 // read and written on the UI goroutine only; figures get copies.
 type mapRun struct {
 	st       *model.Study
-	vars     []setupVariable
+	vars     []model.SetupVariable
 	axes     [][]float64
 	current  []float64 // the study's own value of each variable
-	points   []setupPoint
+	points   []engine.Point
 	arrived  []bool
 	limit    float64
 	forces   bool
@@ -54,23 +55,23 @@ func (r *mapRun) separated(k int) bool {
 
 // curve returns quantity q against the one variable over the points that
 // have arrived, with the separation onset nearest the study's value.
-func (r *mapRun) curve(q setupQuantity) setupCurve {
-	var pts []setupPoint
+func (r *mapRun) curve(q engine.Quantity) figures.SetupCurve {
+	var pts []engine.Point
 	for k := range r.points {
 		if r.arrived[k] {
 			pts = append(pts, r.points[k])
 		}
 	}
-	return mapCurve(r.st, r.vars[0], pts, q, r.forces, r.limit, r.current[0])
+	return figures.MapCurve(r.st, r.vars[0], pts, q, r.forces, r.limit, r.current[0])
 }
 
 // grid returns quantity q over the two variables.
-func (r *mapRun) grid(q setupQuantity) setupGrid {
+func (r *mapRun) grid(q engine.Quantity) figures.SetupGrid {
 	inv := r.st.Inverted
 	nx, ny := len(r.axes[0]), len(r.axes[1])
-	g := setupGrid{
+	g := figures.SetupGrid{
 		Title:  strings.ToUpper(q.Label(inv, r.forces)[:1]) + q.Label(inv, r.forces)[1:],
-		XLabel: setupLabel(r.st, r.vars[0]), YLabel: setupLabel(r.st, r.vars[1]), ZLabel: unitOf(q.Label(inv, r.forces)),
+		XLabel: r.vars[0].Label(r.st), YLabel: r.vars[1].Label(r.st), ZLabel: unitOf(q.Label(inv, r.forces)),
 		X: r.axes[0], Y: r.axes[1],
 		Z: make([][]float64, nx), Separated: make([][]bool, nx), Failed: make([][]bool, nx),
 		Start: [2]float64{math.NaN(), math.NaN()}, Best: [2]float64{math.NaN(), math.NaN()},
@@ -130,7 +131,7 @@ func (r *mapRun) describe(k int) string {
 
 // describePoint is a point's setting of vars and every quantity it has, in
 // words, with a note after them.
-func describePoint(st *model.Study, vars []setupVariable, p *setupPoint, forces bool, note string) string {
+func describePoint(st *model.Study, vars []model.SetupVariable, p *engine.Point, forces bool, note string) string {
 	var set []string
 	for i, v := range vars {
 		set = append(set, fmt.Sprintf("%s %s %s", shortLabel(st, v), num(p.Values[i]), v.Unit()))
@@ -143,7 +144,7 @@ func describePoint(st *model.Study, vars []setupVariable, p *setupPoint, forces 
 		return s + "the viscous solution did not converge"
 	}
 	var qs []string
-	for q := range numQuantities {
+	for q := range engine.NumQuantities {
 		if v := q.Value(p, forces); !math.IsNaN(v) {
 			qs = append(qs, q.Short(st.Inverted)+" "+sig(v))
 		}
@@ -164,7 +165,7 @@ type setupMaps struct {
 	s       *setupWindow
 	content fyne.CanvasObject
 
-	vars           []setupVariable // offered, in the selects' order
+	vars           []model.SetupVariable // offered, in the selects' order
 	var1, var2     *widget.Select
 	from, to, step [2]*widget.Entry
 	second         *widget.Check
@@ -178,7 +179,7 @@ type setupMaps struct {
 	export         *widget.Button
 	quantity       *widget.Select
 	readout        *widget.Label
-	curves         [numQuantities]*figureBox
+	curves         [engine.NumQuantities]*figureBox
 	curveArea      *fyne.Container
 	gridBox        *figureBox
 	gridArea       *fyne.Container
@@ -228,7 +229,7 @@ func newSetupMaps(s *setupWindow) *setupMaps {
 	m.readout.Wrapping = fyne.TextWrapWord
 
 	var cells []fyne.CanvasObject
-	for q := range numQuantities {
+	for q := range engine.NumQuantities {
 		m.curves[q] = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(260, 200))
 		cells = append(cells, newReadoutBox(m.curves[q], m.hover))
 	}
@@ -260,7 +261,7 @@ func (m *setupMaps) studyChanged() {
 	vars := setupVariables(st)
 	labels := make([]string, len(vars))
 	for i, v := range vars {
-		labels[i] = setupLabel(st, v)
+		labels[i] = v.Label(st)
 	}
 	keep := func(sel *widget.Select, def int) {
 		old := -1
@@ -298,19 +299,19 @@ func (m *setupMaps) fillRange(i int) {
 	ctl := m.s.w.ctl
 	st := ctl.Current()
 	v := m.vars[k]
-	from, to, step := setupDefaults(st, v, setupValue(st, v, ctl.Sections()))
+	from, to, step := setupDefaults(st, v, st.SetupValue(v, ctl.Sections()))
 	m.from[i].SetText(entryNum(from))
 	m.to[i].SetText(entryNum(to))
 	m.step[i].SetText(entryNum(step))
 }
 
 // readRanges parses the ranges typed.
-func (m *setupMaps) readRanges() ([]setupRange, error) {
+func (m *setupMaps) readRanges() ([]model.SetupRange, error) {
 	n := 1
 	if m.second.Checked {
 		n = 2
 	}
-	var out []setupRange
+	var out []model.SetupRange
 	for i := range n {
 		k := [2]*widget.Select{m.var1, m.var2}[i].SelectedIndex()
 		if k < 0 {
@@ -320,7 +321,7 @@ func (m *setupMaps) readRanges() ([]setupRange, error) {
 		for j, e := range []*widget.Entry{m.from[i], m.to[i], m.step[i]} {
 			x, err := parseNumber(e.Text)
 			if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-				return nil, fmt.Errorf("%s %s: %q is not a number", setupLabel(m.s.w.ctl.Current(), m.vars[k]), []string{"from", "to", "step"}[j], strings.TrimSpace(e.Text))
+				return nil, fmt.Errorf("%s %s: %q is not a number", m.vars[k].Label(m.s.w.ctl.Current()), []string{"from", "to", "step"}[j], strings.TrimSpace(e.Text))
 			}
 			vals[j] = x
 		}
@@ -357,10 +358,10 @@ func (m *setupMaps) start() {
 	m.s.relayout()
 }
 
-func (m *setupMaps) begin(ranges []setupRange, limit float64) error {
+func (m *setupMaps) begin(ranges []model.SetupRange, limit float64) error {
 	ctl := m.s.w.ctl
 	st, secs := ctl.Study(), slices.Clone(ctl.Sections())
-	if err := checkSetup(st, ranges); err != nil {
+	if err := st.CheckSetup(ranges); err != nil {
 		return err
 	}
 	m.stop()
@@ -369,12 +370,12 @@ func (m *setupMaps) begin(ranges []setupRange, limit float64) error {
 	for _, rg := range ranges {
 		r.vars = append(r.vars, rg.Var)
 		r.axes = append(r.axes, rg.Values())
-		r.current = append(r.current, setupValue(st, rg.Var, secs))
+		r.current = append(r.current, st.SetupValue(rg.Var, secs))
 		total *= len(rg.Values())
 		r.forces = r.forces || rg.Var.Kind == model.SetupSpeed
 	}
 	r.forces = r.forces || st.Flow.SpeedMPS > 0
-	r.points, r.arrived = make([]setupPoint, total), make([]bool, total)
+	r.points, r.arrived = make([]engine.Point, total), make([]bool, total)
 	m.run0 = r
 	m.gen++
 	gen := m.gen
@@ -388,11 +389,11 @@ func (m *setupMaps) begin(ranges []setupRange, limit float64) error {
 	m.readout.SetText("")
 	m.quantity.SetOptions(nil)
 	var names []string
-	for q := range numQuantities {
+	for q := range engine.NumQuantities {
 		names = append(names, q.Label(st.Inverted, r.forces))
 	}
 	m.quantity.SetOptions(names)
-	m.quantity.SetSelectedIndex(int(quantityLoad))
+	m.quantity.SetSelectedIndex(int(engine.QuantityLoad))
 	m.show()
 	inviscid := !m.viscous.Checked
 	act := ctl.Activity()
@@ -408,7 +409,7 @@ func (m *setupMaps) begin(ranges []setupRange, limit float64) error {
 					}
 				})
 			},
-			func(p setupPoint) {
+			func(p engine.Point) {
 				m.s.w.do(func() { m.arrive(gen, p) })
 			})
 		m.s.w.do(func() { m.finish(gen, err) })
@@ -417,7 +418,7 @@ func (m *setupMaps) begin(ranges []setupRange, limit float64) error {
 }
 
 // arrive adds a point of run gen to the map shown.
-func (m *setupMaps) arrive(gen int, p setupPoint) {
+func (m *setupMaps) arrive(gen int, p engine.Point) {
 	r := m.run0
 	if gen != m.gen || r == nil {
 		return
@@ -499,7 +500,7 @@ func (m *setupMaps) show() {
 	if len(r.axes) == 1 {
 		m.gridArea.Hide()
 		m.curveArea.Show()
-		for q := range numQuantities {
+		for q := range engine.NumQuantities {
 			if !viscous && q.NeedsViscous() {
 				m.curves[q].setDrawing(nil, "No drag or separation without the viscous solution (a speed or Reynolds number and the box ticked).")
 				continue
@@ -513,7 +514,7 @@ func (m *setupMaps) show() {
 	}
 	m.curveArea.Hide()
 	m.gridArea.Show()
-	q := setupQuantity(max(0, m.quantity.SelectedIndex()))
+	q := engine.Quantity(max(0, m.quantity.SelectedIndex()))
 	if !viscous && q.NeedsViscous() {
 		m.gridBox.setDrawing(nil, "No drag or separation without the viscous solution (a speed or Reynolds number and the box ticked).")
 		return
@@ -554,8 +555,8 @@ func (m *setupMaps) csvJob() exportJob {
 	base := w.exportBase()
 	program := "Sectionbench " + w.app.Metadata().Version
 	var st *model.Study
-	var vars []setupVariable
-	var pts []setupPoint
+	var vars []model.SetupVariable
+	var pts []engine.Point
 	if r != nil {
 		st, vars = r.st, r.vars
 		for k := range r.points {

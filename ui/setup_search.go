@@ -14,6 +14,7 @@ import (
 
 	figures "sectionbench/export/figure"
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 )
 
 // searchVariables is how many variables the search tab offers at once.
@@ -27,7 +28,7 @@ type setupSearch struct {
 	s       *setupWindow
 	content fyne.CanvasObject
 
-	vars      []setupVariable // offered, in the selects' order
+	vars      []model.SetupVariable // offered, in the selects' order
 	use       [searchVariables]*widget.Check
 	pick      [searchVariables]*widget.Select
 	lo, hi    [searchVariables]*widget.Entry
@@ -60,12 +61,12 @@ type setupSearch struct {
 type searchRun struct {
 	st       *model.Study
 	secs     []*model.Section
-	vars     []setupVariable
-	bounds   []setupRange
-	opt      searchOptions
+	vars     []model.SetupVariable
+	bounds   []model.SetupRange
+	opt      engine.SearchOptions
 	forces   bool
-	path     []setupPoint
-	res      *searchResult
+	path     []engine.Point
+	res      *engine.SearchResult
 	status   string
 	maxEvals int
 }
@@ -94,7 +95,7 @@ func newSetupSearch(s *setupWindow) *setupSearch {
 	p.viscous = widget.NewCheck("Viscous solution (coupled)", nil)
 	p.viscous.SetChecked(true)
 	p.budget = widget.NewEntry()
-	p.budget.SetText(fmt.Sprint(defaultSearchEvaluations))
+	p.budget.SetText(fmt.Sprint(engine.DefaultSearchEvaluations))
 	p.msg = message()
 	p.run = widget.NewButton("Search", p.start)
 	p.run.Importance = widget.HighImportance
@@ -156,7 +157,7 @@ func (p *setupSearch) studyChanged() {
 	vars := setupVariables(st)
 	labels := make([]string, len(vars))
 	for i, v := range vars {
-		labels[i] = setupLabel(st, v)
+		labels[i] = v.Label(st)
 	}
 	first := p.vars == nil
 	old := p.vars
@@ -182,10 +183,10 @@ func (p *setupSearch) studyChanged() {
 
 // searchDefault is the variable offered in row i first: the last flap's
 // deflection, gap and overlap, or the angle and the clearance.
-func searchDefault(st *model.Study, vars []setupVariable, i int) int {
-	want := []setupVariable{{Kind: model.SetupAlpha}, {Kind: model.SetupClearance}, {Kind: model.SetupSpeed}}
+func searchDefault(st *model.Study, vars []model.SetupVariable, i int) int {
+	want := []model.SetupVariable{{Kind: model.SetupAlpha}, {Kind: model.SetupClearance}, {Kind: model.SetupSpeed}}
 	if n := len(st.Elements); n > 1 {
-		want = []setupVariable{{Kind: model.SetupDeflection, Element: n - 1}, {Kind: model.SetupGap, Element: n - 1}, {Kind: model.SetupOverlap, Element: n - 1}}
+		want = []model.SetupVariable{{Kind: model.SetupDeflection, Element: n - 1}, {Kind: model.SetupGap, Element: n - 1}, {Kind: model.SetupOverlap, Element: n - 1}}
 	}
 	k := slices.Index(vars, want[i])
 	if k < 0 && i < len(vars) {
@@ -203,7 +204,7 @@ func (p *setupSearch) fillBounds(i int) {
 	ctl := p.s.w.ctl
 	st := ctl.Current()
 	v := p.vars[k]
-	lo, hi, _ := setupDefaults(st, v, setupValue(st, v, ctl.Sections()))
+	lo, hi, _ := setupDefaults(st, v, st.SetupValue(v, ctl.Sections()))
 	p.lo[i].SetText(entryNum(lo))
 	p.hi[i].SetText(entryNum(hi))
 }
@@ -221,9 +222,9 @@ func readNumber(e *widget.Entry, name string, def float64) (float64, error) {
 }
 
 // read gathers the search's inputs.
-func (p *setupSearch) read() ([]setupRange, searchOptions, int, error) {
-	var bounds []setupRange
-	var opt searchOptions
+func (p *setupSearch) read() ([]model.SetupRange, engine.SearchOptions, int, error) {
+	var bounds []model.SetupRange
+	var opt engine.SearchOptions
 	st := p.s.w.ctl.Current()
 	for i := range searchVariables {
 		k := p.pick[i].SelectedIndex()
@@ -231,11 +232,11 @@ func (p *setupSearch) read() ([]setupRange, searchOptions, int, error) {
 			continue
 		}
 		v := p.vars[k]
-		lo, err := readNumber(p.lo[i], setupLabel(st, v)+" lowest", math.NaN())
+		lo, err := readNumber(p.lo[i], v.Label(st)+" lowest", math.NaN())
 		if err != nil {
 			return nil, opt, 0, err
 		}
-		hi, err := readNumber(p.hi[i], setupLabel(st, v)+" highest", math.NaN())
+		hi, err := readNumber(p.hi[i], v.Label(st)+" highest", math.NaN())
 		if err != nil {
 			return nil, opt, 0, err
 		}
@@ -262,7 +263,7 @@ func (p *setupSearch) read() ([]setupRange, searchOptions, int, error) {
 	if opt.MinClearanceMM, err = readNumber(p.minClear, "clearance", 0); err != nil {
 		return nil, opt, 0, err
 	}
-	budget, err := readNumber(p.budget, "solves", float64(defaultSearchEvaluations))
+	budget, err := readNumber(p.budget, "solves", float64(engine.DefaultSearchEvaluations))
 	if err != nil || budget < 2 || budget > 5000 || budget != math.Trunc(budget) {
 		return nil, opt, 0, errors.New("solves: a whole number from 2 to 5000")
 	}
@@ -285,10 +286,10 @@ func (p *setupSearch) start() {
 	p.s.relayout()
 }
 
-func (p *setupSearch) begin(bounds []setupRange, opt searchOptions, budget int) error {
+func (p *setupSearch) begin(bounds []model.SetupRange, opt engine.SearchOptions, budget int) error {
 	ctl := p.s.w.ctl
 	st, secs := ctl.Study(), slices.Clone(ctl.Sections())
-	if err := checkSetup(st, bounds); err != nil {
+	if err := st.CheckSetup(bounds); err != nil {
 		return err
 	}
 	p.stop()
@@ -313,7 +314,7 @@ func (p *setupSearch) begin(bounds []setupRange, opt searchOptions, budget int) 
 	go func() {
 		defer act.Done()
 		defer cancel()
-		res, err := runSearch(ctx, st, secs, bounds, opt, func(pt setupPoint) {
+		res, err := runSearch(ctx, st, secs, bounds, opt, func(pt engine.Point) {
 			p.s.w.do(func() {
 				if gen == p.gen {
 					r.path = append(r.path, pt)
@@ -327,7 +328,7 @@ func (p *setupSearch) begin(bounds []setupRange, opt searchOptions, budget int) 
 	return nil
 }
 
-func (p *setupSearch) finish(gen int, res *searchResult, err error) {
+func (p *setupSearch) finish(gen int, res *engine.SearchResult, err error) {
 	if gen != p.gen {
 		return
 	}
@@ -362,24 +363,24 @@ func (p *setupSearch) stop() {
 // objectiveValue is the shown value of the search's objective at a point:
 // downforce (or lift) in N/m with a speed, else the coefficient; L/D; or
 // drag. NaN where the point has none.
-func (r *searchRun) objectiveValue(pt *setupPoint) float64 {
+func (r *searchRun) objectiveValue(pt *engine.Point) float64 {
 	switch r.opt.Objective {
 	case searchObjectives[1]:
-		return quantityLiftToDrag.Value(pt, r.forces)
+		return engine.QuantityLiftToDrag.Value(pt, r.forces)
 	case searchObjectives[2]:
-		return quantityDrag.Value(pt, r.forces)
+		return engine.QuantityDrag.Value(pt, r.forces)
 	}
-	return quantityLoad.Value(pt, r.forces)
+	return engine.QuantityLoad.Value(pt, r.forces)
 }
 
 // objectiveLabel names the objective's axis.
 func (r *searchRun) objectiveLabel() string {
-	q := quantityLoad
+	q := engine.QuantityLoad
 	switch r.opt.Objective {
 	case searchObjectives[1]:
-		q = quantityLiftToDrag
+		q = engine.QuantityLiftToDrag
 	case searchObjectives[2]:
-		q = quantityDrag
+		q = engine.QuantityDrag
 	}
 	return q.Label(r.st.Inverted, r.forces)
 }
@@ -399,9 +400,9 @@ func (p *setupSearch) show() {
 		st = fmt.Sprintf("Running: %d solves of at most %d.", len(r.path), r.maxEvals)
 	}
 	p.status.SetText(st)
-	steps := make([]searchStep, len(r.path))
+	steps := make([]figures.SearchStep, len(r.path))
 	for i := range r.path {
-		steps[i] = searchStep{Objective: r.objectiveValue(&r.path[i]), Feasible: r.opt.Meets(&r.path[i])}
+		steps[i] = figures.SearchStep{Objective: r.objectiveValue(&r.path[i]), Feasible: r.opt.Meets(&r.path[i])}
 	}
 	maximise := r.opt.Objective != searchObjectives[2]
 	title, label := "Search: "+r.objectiveLabel()+" at each solve", r.objectiveLabel()
@@ -409,9 +410,9 @@ func (p *setupSearch) show() {
 		return renderSearch(title, label, steps, maximise, dark, w, h, dpi)
 	}, "")
 	if len(r.vars) >= 2 {
-		g := setupGrid{
+		g := figures.SetupGrid{
 			Title:  "Path in " + shortLabel(r.st, r.vars[0]) + " and " + shortLabel(r.st, r.vars[1]),
-			XLabel: setupLabel(r.st, r.vars[0]), YLabel: setupLabel(r.st, r.vars[1]),
+			XLabel: r.vars[0].Label(r.st), YLabel: r.vars[1].Label(r.st),
 			X: []float64{r.bounds[0].From, r.bounds[0].To}, Y: []float64{r.bounds[1].From, r.bounds[1].To},
 			Start: [2]float64{math.NaN(), math.NaN()}, Best: [2]float64{math.NaN(), math.NaN()},
 		}
@@ -434,8 +435,8 @@ func (p *setupSearch) show() {
 }
 
 // shortLabel is a variable's label without its unit.
-func shortLabel(st *model.Study, v setupVariable) string {
-	l := setupLabel(st, v)
+func shortLabel(st *model.Study, v model.SetupVariable) string {
+	l := v.Label(st)
 	if i := strings.LastIndex(l, " ("); i > 0 {
 		return l[:i]
 	}
@@ -453,7 +454,7 @@ func (p *setupSearch) comparison() string {
 	for i, v := range r.vars {
 		fmt.Fprintf(&b, "%s: %s → %s %s\n", shortLabel(r.st, v), num(res.Start.Values[i]), num(res.Best.Values[i]), v.Unit())
 	}
-	for q := range numQuantities {
+	for q := range engine.NumQuantities {
 		a, z := q.Value(&res.Start, r.forces), q.Value(&res.Best, r.forces)
 		if math.IsNaN(a) && math.IsNaN(z) {
 			continue
@@ -553,7 +554,7 @@ func (p *setupSearch) hoverPlane(x, y float64, ok bool) {
 }
 
 // describe is a solve's setting and values in words.
-func (r *searchRun) describe(pt *setupPoint) string {
+func (r *searchRun) describe(pt *engine.Point) string {
 	note := ""
 	if pt.Converged && pt.Err == "" && !r.opt.Meets(pt) {
 		note = "outside a constraint"

@@ -14,6 +14,7 @@ import (
 
 	figures "sectionbench/export/figure"
 	"sectionbench/model"
+	"sectionbench/solver/engine"
 )
 
 // setupSpan is the Finite span tab: the span and end plates (study
@@ -37,7 +38,7 @@ type setupSpan struct {
 
 	running context.CancelFunc
 	gen     int
-	out     *finiteSpan // the estimate shown
+	out     *engine.FiniteSpan // the estimate shown
 	outFor  *model.Study
 }
 
@@ -72,8 +73,8 @@ func newSetupSpan(s *setupWindow) *setupSpan {
 	p.status = caption("Not run yet. The estimate solves the configuration over the angles its stations need (a polar, with the study's viscous setting), then the lifting line.")
 	p.totals = widget.NewLabel("")
 	p.totals.Wrapping = fyne.TextWrapWord
-	p.method = caption("Method: " + finiteSpanMethod + ".")
-	caution := widget.NewLabelWithStyle(finiteSpanCaution, fyne.TextAlignLeading, fyne.TextStyle{Italic: true})
+	p.method = caption("Method: " + engine.FiniteSpanMethod + ".")
+	caution := widget.NewLabelWithStyle(engine.FiniteSpanCaution, fyne.TextAlignLeading, fyne.TextStyle{Italic: true})
 	caution.Wrapping = fyne.TextWrapWord
 	p.load = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(520, 360))
 	p.readout = widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
@@ -142,7 +143,7 @@ func (p *setupSpan) start() {
 	}()
 }
 
-func (p *setupSpan) finish(gen int, st *model.Study, out *finiteSpan, err error) {
+func (p *setupSpan) finish(gen int, st *model.Study, out *engine.FiniteSpan, err error) {
 	if gen != p.gen {
 		return
 	}
@@ -211,10 +212,10 @@ func (p *setupSpan) hover(x, y float64, ok bool) {
 
 // spanLoadOf is the figure's data of an estimate: load per metre when the
 // study has a speed, else the section load coefficient.
-func spanLoadOf(fs *finiteSpan) spanLoad {
+func spanLoadOf(fs *engine.FiniteSpan) figures.SpanLoad {
 	name := map[bool]string{true: "downforce", false: "lift"}[fs.Inverted]
 	forces := !math.IsNaN(fs.DynamicPressurePa)
-	s := spanLoad{SpanM: fs.SpanM, TwoD: math.NaN()}
+	s := figures.SpanLoad{SpanM: fs.SpanM, TwoD: math.NaN()}
 	if forces {
 		s.Title = fmt.Sprintf("Spanwise %s, finite-span estimate", name)
 		s.YLabel = name + " per metre of span, N/m"
@@ -236,7 +237,7 @@ func spanLoadOf(fs *finiteSpan) spanLoad {
 
 // finiteSpanText is the estimate's totals in words, the two-dimensional
 // figures beside them.
-func finiteSpanText(fs *finiteSpan, stale bool) string {
+func finiteSpanText(fs *engine.FiniteSpan, stale bool) string {
 	name := map[bool]string{true: "Downforce", false: "Lift"}[fs.Inverted]
 	t := ""
 	if stale {
@@ -263,7 +264,7 @@ func finiteSpanText(fs *finiteSpan, stale bool) string {
 		t += "Some stations work past the polar's maximum load: at or beyond stall, the estimate is not unique.\n"
 	}
 	if fs.LowAspectRatio {
-		t += fmt.Sprintf("An aspect ratio below about %d: a lifting line is a rough guide here (a lifting-surface method is the usual choice).\n", lowAspectRatio)
+		t += fmt.Sprintf("An aspect ratio below about %d: a lifting line is a rough guide here (a lifting-surface method is the usual choice).\n", engine.LowAspectRatioLimit)
 	}
 	return t
 }

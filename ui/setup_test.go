@@ -11,6 +11,7 @@ import (
 	"fyne.io/fyne/v2/test"
 
 	"sectionbench/assets"
+	"sectionbench/solver/engine"
 )
 
 // openTwoElement opens the two-element example in ground effect.
@@ -59,15 +60,15 @@ func TestSetupMapRideHeight(t *testing.T) {
 	if r.current[0] != 100 {
 		t.Errorf("study's clearance %g, want the example's 100 mm", r.current[0])
 	}
-	c := r.curve(quantityLoad)
+	c := r.curve(engine.QuantityLoad)
 	if len(c.X) != 5 || c.YLabel != "downforce (N/m)" || !math.IsNaN(c.Onset) {
 		t.Errorf("curve %+v", c)
 	}
 	for q, b := range m.curves {
 		// An inviscid map draws the load and Cm and says why there is no
 		// drag or separation.
-		if want := !setupQuantity(q).NeedsViscous(); (b.Figure() != nil) != want || (!want && !strings.Contains(b.note.Text, "without the viscous solution")) {
-			t.Errorf("%s: figure drawn %v, note %q", setupQuantity(q).Short(true), b.Figure() != nil, b.note.Text)
+		if want := !engine.Quantity(q).NeedsViscous(); (b.Figure() != nil) != want || (!want && !strings.Contains(b.note.Text, "without the viscous solution")) {
+			t.Errorf("%s: figure drawn %v, note %q", engine.Quantity(q).Short(true), b.Figure() != nil, b.note.Text)
 		}
 	}
 	if d := r.describe(r.nearest(118, 0)); !strings.Contains(d, "clearance 120 mm") || !strings.Contains(d, "downforce") {
@@ -121,7 +122,7 @@ func TestSetupMapTwoVariablesAndBadRange(t *testing.T) {
 	if !m.msg.Hidden || r.done != 9 || len(r.axes) != 2 {
 		t.Fatalf("message %q, %d points", m.msg.Text, r.done)
 	}
-	g := r.grid(quantityLoad)
+	g := r.grid(engine.QuantityLoad)
 	if len(g.Z) != 3 || len(g.Z[0]) != 3 || math.IsNaN(g.Z[1][1]) || m.gridBox.Figure() == nil {
 		t.Errorf("grid %v, figure %v", g.Z, m.gridBox.Figure() != nil)
 	}
@@ -205,7 +206,7 @@ func TestSetupSearchApplyAndPin(t *testing.T) {
 	test.Tap(p.apply)
 	w.WaitIdle()
 	secs := w.ctl.Sections()
-	got := setupValue(w.ctl.Study(), r.vars[0], secs)
+	got := w.ctl.Study().SetupValue(r.vars[0], secs)
 	if math.Abs(got-r.res.Best.Values[0]) > 1e-6 || !p.applyMsg.Hidden {
 		t.Errorf("applied deflection %g, want the best %g (%q)", got, r.res.Best.Values[0], p.applyMsg.Text)
 	}
@@ -214,7 +215,7 @@ func TestSetupSearchApplyAndPin(t *testing.T) {
 	}
 	w.ctl.Undo()
 	w.WaitIdle()
-	if got := setupValue(w.ctl.Study(), r.vars[0], secs); math.Abs(got-15) > 1e-6 {
+	if got := w.ctl.Study().SetupValue(r.vars[0], secs); math.Abs(got-15) > 1e-6 {
 		t.Errorf("after undo the deflection is %g, want the start's 15", got)
 	}
 }

@@ -1,6 +1,7 @@
 package ui
 
-// The set-up window's calls into model, solver/engine and export/figure.
+// The set-up window's runs off the UI goroutine (each with a panic turned
+// into an error), its figures and its default ranges.
 
 import (
 	"context"
@@ -9,72 +10,30 @@ import (
 
 	figures "sectionbench/export/figure"
 	"sectionbench/export/format"
-	"sectionbench/export/report"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 	"sectionbench/ui/session"
 )
 
-type (
-	reportSetup   = report.Setup
-	setupVariable = model.SetupVariable
-	setupRange    = model.SetupRange
-	setupPoint    = engine.Point
-	finiteSpan    = engine.FiniteSpan
-	setupCurve    = figures.SetupCurve
-	setupGrid     = figures.SetupGrid
-	spanLoad      = figures.SpanLoad
-	searchStep    = figures.SearchStep
-)
-
-// setupQuantity is what a map shows of each point (engine.Quantity).
-type setupQuantity = engine.Quantity
-
-// The quantities a map shows.
-const (
-	quantityLoad       = engine.QuantityLoad
-	quantityDrag       = engine.QuantityDrag
-	quantityLiftToDrag = engine.QuantityLiftToDrag
-	quantityCm         = engine.QuantityCm
-	quantitySeparation = engine.QuantitySeparation
-	numQuantities      = engine.NumQuantities
-)
-
 // setupVariables lists the set-up variables st can vary, in the order the
 // window offers them: the angle of attack, the clearance (ground on), the
 // speed, then each flap's deflection, gap and overlap.
-func setupVariables(st *model.Study) []setupVariable {
-	vs := []setupVariable{{Kind: model.SetupAlpha}}
+func setupVariables(st *model.Study) []model.SetupVariable {
+	vs := []model.SetupVariable{{Kind: model.SetupAlpha}}
 	if st.Ground.Enabled {
-		vs = append(vs, setupVariable{Kind: model.SetupClearance})
+		vs = append(vs, model.SetupVariable{Kind: model.SetupClearance})
 	}
-	vs = append(vs, setupVariable{Kind: model.SetupSpeed})
+	vs = append(vs, model.SetupVariable{Kind: model.SetupSpeed})
 	for k := 1; k < len(st.Elements); k++ {
 		for _, kind := range []model.SetupKind{model.SetupDeflection, model.SetupGap, model.SetupOverlap} {
-			vs = append(vs, setupVariable{Kind: kind, Element: k})
+			vs = append(vs, model.SetupVariable{Kind: kind, Element: k})
 		}
 	}
 	return vs
 }
 
-// setupValue returns v's value in st (model.Study.SetupValue).
-func setupValue(st *model.Study, v setupVariable, secs []*model.Section) float64 {
-	return st.SetupValue(v, secs)
-}
-
-// setupLabel names v in words with its unit for st.
-func setupLabel(st *model.Study, v setupVariable) string { return v.Label(st) }
-
-// mapCurve is a one-variable map's curve of q (figure.MapCurve).
-func mapCurve(st *model.Study, v setupVariable, points []setupPoint, q setupQuantity, forces bool, limit, current float64) setupCurve {
-	return figures.MapCurve(st, v, points, q, forces, limit, current)
-}
-
-// checkSetup checks ranges against st before a run.
-func checkSetup(st *model.Study, ranges []setupRange) error { return st.CheckSetup(ranges) }
-
 // runMap runs a set-up map (engine.Map); a panic becomes an error.
-func runMap(ctx context.Context, st *model.Study, secs []*model.Section, ranges []setupRange, inviscid bool, progress func(done, total int), each func(setupPoint)) (pts []setupPoint, err error) {
+func runMap(ctx context.Context, st *model.Study, secs []*model.Section, ranges []model.SetupRange, inviscid bool, progress func(done, total int), each func(engine.Point)) (pts []engine.Point, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			pts, err = nil, session.InternalError("in the set-up map", r)
@@ -85,7 +44,7 @@ func runMap(ctx context.Context, st *model.Study, secs []*model.Section, ranges 
 
 // runFiniteSpan runs the finite-span estimate of st (engine.FiniteSpan);
 // a panic becomes an error.
-func runFiniteSpan(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int)) (fs *finiteSpan, err error) {
+func runFiniteSpan(ctx context.Context, st *model.Study, secs []*model.Section, progress func(done, total int)) (fs *engine.FiniteSpan, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			fs, err = nil, session.InternalError("in the finite-span estimate", r)
@@ -95,19 +54,8 @@ func runFiniteSpan(ctx context.Context, st *model.Study, secs []*model.Section, 
 	return fs, err
 }
 
-// lowAspectRatio is where the finite-span estimate calls the lifting line
-// a rough guide.
-const lowAspectRatio = engine.LowAspectRatioLimit
-
-// finiteSpanMethod and finiteSpanCaution are the estimate's method and
-// caution in words.
-var (
-	finiteSpanMethod  = engine.FiniteSpanMethod
-	finiteSpanCaution = engine.FiniteSpanCaution
-)
-
 // applySetupValues sets each variable to its value in a copy of st.
-func applySetupValues(st *model.Study, vars []setupVariable, values []float64, secs []*model.Section) (*model.Study, error) {
+func applySetupValues(st *model.Study, vars []model.SetupVariable, values []float64, secs []*model.Section) (*model.Study, error) {
 	next := st.Clone()
 	if err := next.ApplySetupAll(vars, values, secs); err != nil {
 		return nil, err
@@ -116,11 +64,11 @@ func applySetupValues(st *model.Study, vars []setupVariable, values []float64, s
 }
 
 // writeMapTable writes a map's points as CSV (format.WriteMapTable).
-func writeMapTable(w io.Writer, st *model.Study, program string, vars []setupVariable, points []setupPoint) error {
+func writeMapTable(w io.Writer, st *model.Study, program string, vars []model.SetupVariable, points []engine.Point) error {
 	return format.WriteMapTable(w, format.Metadata{Study: st.Name, AlphaDeg: math.NaN(), Program: program}, st, vars, points)
 }
 
-func renderSetupCurve(c setupCurve, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
+func renderSetupCurve(c figures.SetupCurve, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	p, err := figures.SetupCurvePlot(c, dark)
 	if err != nil {
 		return nil, err
@@ -128,7 +76,7 @@ func renderSetupCurve(c setupCurve, dark bool, w, h int, dpi float64) (*figures.
 	return figures.RenderPlot(p, false, w, h, dpi), nil
 }
 
-func renderSetupGrid(g setupGrid, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
+func renderSetupGrid(g figures.SetupGrid, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	p, err := figures.SetupGridPlot(g, dark)
 	if err != nil {
 		return nil, err
@@ -136,7 +84,7 @@ func renderSetupGrid(g setupGrid, dark bool, w, h int, dpi float64) (*figures.Fi
 	return figures.RenderPlot(p, false, w, h, dpi), nil
 }
 
-func renderSpanLoad(s spanLoad, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
+func renderSpanLoad(s figures.SpanLoad, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	p, err := figures.SpanLoadPlot(s, dark)
 	if err != nil {
 		return nil, err
@@ -144,7 +92,7 @@ func renderSpanLoad(s spanLoad, dark bool, w, h int, dpi float64) (*figures.Figu
 	return figures.RenderPlot(p, false, w, h, dpi), nil
 }
 
-func renderSearch(title, objective string, steps []searchStep, maximise, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
+func renderSearch(title, objective string, steps []figures.SearchStep, maximise, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 	p, err := figures.SearchPlot(title, objective, steps, maximise, dark)
 	if err != nil {
 		return nil, err
@@ -154,19 +102,19 @@ func renderSearch(title, objective string, steps []searchStep, maximise, dark bo
 
 // parseSetupRange reads a map's range of v from its three numbers
 // (model.ParseSetupRange checks them).
-func parseSetupRange(v setupVariable, from, to, step float64) (setupRange, error) {
+func parseSetupRange(v model.SetupVariable, from, to, step float64) (model.SetupRange, error) {
 	return model.ParseSetupRange(v.Name() + "=" + entryNum(from) + ":" + entryNum(to) + ":" + entryNum(step))
 }
 
 // parseSetupBounds reads a search's bounds of v (model.ParseSetupBounds
 // checks them).
-func parseSetupBounds(v setupVariable, lo, hi float64) (setupRange, error) {
+func parseSetupBounds(v model.SetupVariable, lo, hi float64) (model.SetupRange, error) {
 	return model.ParseSetupBounds(v.Name() + "=" + entryNum(lo) + ":" + entryNum(hi))
 }
 
 // setupDefaults suggests a range for v around its value x in st: about
 // nine values either side of the setting, within what a study accepts.
-func setupDefaults(st *model.Study, v setupVariable, x float64) (from, to, step float64) {
+func setupDefaults(st *model.Study, v model.SetupVariable, x float64) (from, to, step float64) {
 	switch v.Kind {
 	case model.SetupAlpha:
 		return math.Round(x) - 4, math.Round(x) + 4, 1
@@ -205,22 +153,12 @@ func roundStep(d float64) float64 {
 	return step
 }
 
-type (
-	searchResult  = engine.SearchResult
-	searchOptions = engine.SearchOptions
-	objective     = engine.Objective
-)
-
 // The search's objectives in the window's order.
-var searchObjectives = []objective{engine.ObjectiveDownforce, engine.ObjectiveLiftToDrag, engine.ObjectiveDrag}
-
-// defaultSearchEvaluations is the search's budget of solves unless the
-// user gives another.
-const defaultSearchEvaluations = engine.DefaultSearchEvaluations
+var searchObjectives = []engine.Objective{engine.ObjectiveDownforce, engine.ObjectiveLiftToDrag, engine.ObjectiveDrag}
 
 // runSearch runs a setting search (engine.Search); a panic becomes an
 // error.
-func runSearch(ctx context.Context, st *model.Study, secs []*model.Section, bounds []setupRange, opt searchOptions, each func(setupPoint)) (res *searchResult, err error) {
+func runSearch(ctx context.Context, st *model.Study, secs []*model.Section, bounds []model.SetupRange, opt engine.SearchOptions, each func(engine.Point)) (res *engine.SearchResult, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			res, err = nil, session.InternalError("in the setting search", r)
