@@ -38,7 +38,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) error {
 	ef := addExplorerFlags(fs, "a variable and its bounds `NAME=LO:HI`")
 	objective := fs.String("objective", "downforce", "what to optimise: `downforce` (the most; lift on an upright wing), lift-to-drag (the best ratio) or drag (the least, at --downforce-target)")
 	target := fs.Float64("downforce-target", 0, "with --objective drag: the least downforce (lift upright) in `N/m` of span with a speed, else as a coefficient (−Cl inverted); 0: the start's")
-	attached := fs.Float64("attached-to", 0.9, "every element's suction side must stay attached at least to this `x/c` (0: no limit; needs the viscous solution)")
+	attached := fs.Float64("attached-to", engine.SeparatedFromXC, "every element's suction side must stay attached at least to this `x/c` (0: no limit; needs the viscous solution; the default is where the results flag a separated wing)")
 	minGap := fs.Float64("min-gap", 0, "the least slot gap in `mm` behind every element after the first (a manufacturing minimum; 0: none)")
 	minClear := fs.Float64("min-clearance", 0, "the least ground clearance in `mm` (0: the method's own minimum only)")
 	maxEval := fs.Int("max-evaluations", engine.DefaultSearchEvaluations, "the most `solves` the search may make")
