@@ -145,6 +145,27 @@ func addExplorerFlags(fs *flags, what string) *explorerFlags {
 	return ef
 }
 
+// load reads the --vary flags with parse, then the study and its
+// sections, and checks that the study has the variables.
+func (ef *explorerFlags) load(in *inputs, fs *flags, parse func(string) (model.SetupRange, error)) (*model.Study, []*model.Section, []model.SetupRange, error) {
+	var ranges []model.SetupRange
+	for _, s := range ef.vary {
+		r, err := parse(s)
+		if err != nil {
+			return nil, nil, nil, setupUsage(err)
+		}
+		ranges = append(ranges, r)
+	}
+	st, secs, _, err := in.load(fs)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	if err := st.CheckSetup(ranges); err != nil {
+		return nil, nil, nil, setupUsage(err)
+	}
+	return st, secs, ranges, nil
+}
+
 // setupUsage turns a set-up or option error into a usage error naming the
 // flag.
 func setupUsage(err error) error {
@@ -169,20 +190,9 @@ func cmdMap(args []string, stdout, stderr io.Writer) error {
 	if len(ef.vary) < 1 || len(ef.vary) > 2 {
 		return usagef("--vary: give one or two variables to map (%d given)", len(ef.vary))
 	}
-	var ranges []model.SetupRange
-	for _, s := range ef.vary {
-		r, err := model.ParseSetupRange(s)
-		if err != nil {
-			return setupUsage(err)
-		}
-		ranges = append(ranges, r)
-	}
-	st, secs, _, err := in.load(fs)
+	st, secs, ranges, err := ef.load(in, fs, model.ParseSetupRange)
 	if err != nil {
 		return err
-	}
-	if err := st.CheckSetup(ranges); err != nil {
-		return setupUsage(err)
 	}
 	vars := rangeVars(ranges)
 	opt := engine.MapOptions{PointOptions: engine.PointOptions{Inviscid: ef.inviscid, CoupledMaxIterations: coupledMaxIterations}}

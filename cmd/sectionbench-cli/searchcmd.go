@@ -55,20 +55,9 @@ func cmdSearch(args []string, stdout, stderr io.Writer) error {
 	if *maxEval < 1 {
 		return usagef("--max-evaluations %d: at least 1", *maxEval)
 	}
-	var bounds []model.SetupRange
-	for _, s := range ef.vary {
-		r, err := model.ParseSetupBounds(s)
-		if err != nil {
-			return setupUsage(err)
-		}
-		bounds = append(bounds, r)
-	}
-	st, secs, _, err := in.load(fs)
+	st, secs, bounds, err := ef.load(in, fs, model.ParseSetupBounds)
 	if err != nil {
 		return err
-	}
-	if err := st.CheckSetup(bounds); err != nil {
-		return setupUsage(err)
 	}
 	vars := rangeVars(bounds)
 	opt := engine.SearchOptions{

@@ -197,3 +197,24 @@ func TestMapRideHeightTrend(t *testing.T) {
 		t.Logf("h/c %.1f: −Cl %.4f, Cd %.5f", p.Values[0]/1000, p.Load(), p.Cd)
 	}
 }
+
+// One goroutine or two, the map is the same, point for point (each point
+// is solved by an engine of its own chain, whatever goroutine runs it).
+func TestMapWorkersAgree(t *testing.T) {
+	st, secs := exampleStudy(t, "two-element-ground.json")
+	ranges := []model.SetupRange{mustRange(t, "elements[1].deflection_deg=10:20:5"), mustRange(t, "alpha_deg=1:3:1")}
+	opt := MapOptions{PointOptions: PointOptions{Inviscid: true}}
+	one, err := Map(context.Background(), st, secs, ranges, MapOptions{PointOptions: opt.PointOptions, Workers: 1}, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	two, err := Map(context.Background(), st, secs, ranges, MapOptions{PointOptions: opt.PointOptions, Workers: 2}, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k := range one {
+		if one[k].Cl != two[k].Cl || one[k].Values[0] != two[k].Values[0] || one[k].Values[1] != two[k].Values[1] {
+			t.Errorf("point %d: one worker %v Cl %v, two %v Cl %v", k, one[k].Values, one[k].Cl, two[k].Values, two[k].Cl)
+		}
+	}
+}

@@ -140,6 +140,10 @@ type evalFunc func(ctx context.Context, values []float64) (Point, error)
 // the bounds) is solved on two goroutines; the simplex steps after it are
 // one solve at a time.
 //
+// When no point of the start's simplex converges the search stops there
+// (points that do not converge all rank alike, so the simplex has no
+// direction to go) and says so in Status.
+//
 // each, if not nil, is called with every solve as it is made, one call at
 // a time. Cancellation returns ctx.Err().
 func Search(ctx context.Context, st *model.Study, secs []*model.Section, bounds []model.SetupRange, opt SearchOptions, each func(Point)) (*SearchResult, error) {
@@ -308,6 +312,18 @@ func search(ctx context.Context, eval, par evalFunc, bounds []model.SetupRange, 
 	}
 	if !res.Feasible {
 		res.Best = res.Start
+	}
+	converged := false
+	for _, p := range pts {
+		converged = converged || (p.Converged && p.Err == "")
+	}
+	if !converged {
+		// Points that did not converge all rank alike: the simplex has
+		// no direction to go, and each further solve would cost the
+		// solver's whole iteration budget.
+		res.Evaluations = len(res.Path)
+		res.Status = "stopped: no point of the start's simplex converged, so there is no direction to search in; no setting met every constraint"
+		return res, nil
 	}
 
 	var evalErr error
