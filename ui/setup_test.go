@@ -8,6 +8,8 @@ import (
 	"strings"
 	"testing"
 
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/test"
 
 	"sectionbench/assets"
@@ -252,6 +254,85 @@ func TestSetupReportPage(t *testing.T) {
 	for _, want := range []string{"Set-up", "Downforce (N/m) against ground clearance (mm)", "Finite span (an estimate the wind tunnel or the track must confirm)", "validate by test"} {
 		if !strings.Contains(text, want) {
 			t.Errorf("report lacks %q", want)
+		}
+	}
+}
+
+// The pointer over a map's curve reads out the point under it; leaving
+// the figure clears the readout.
+func TestSetupReadoutUnderPointer(t *testing.T) {
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabMaps)
+	m := w.setup.maps
+	m.viscous.SetChecked(false)
+	m.from[0].SetText("40")
+	m.to[0].SetText("120")
+	m.step[0].SetText("40")
+	test.Tap(m.run)
+	w.WaitIdle()
+	box := m.curves[engine.QuantityLoad]
+	f := box.Figure()
+	if f == nil {
+		t.Fatal("no figure")
+	}
+	var hover *readoutBox
+	for _, o := range m.curveArea.Objects {
+		if rb, ok := o.(*readoutBox); ok && rb.box == box {
+			hover = rb
+		}
+	}
+	if hover == nil {
+		t.Fatal("no readout box around the load curve")
+	}
+	k := 1 // 80 mm
+	px, py := f.PixelAt(80, m.run0.points[k].DownforcePerSpan)
+	s := float32(1)
+	if c := fyne.CurrentApp().Driver().CanvasForObject(hover); c != nil && c.Scale() > 0 {
+		s = c.Scale()
+	}
+	hover.MouseMoved(&desktop.MouseEvent{PointEvent: fyne.PointEvent{Position: fyne.NewPos(float32(px)/s, float32(py)/s)}})
+	if got := m.readout.Text; !strings.Contains(got, "clearance 80 mm") || !strings.Contains(got, "downforce "+sig(m.run0.points[k].DownforcePerSpan)) {
+		t.Errorf("readout %q", got)
+	}
+	hover.MouseOut()
+	if m.readout.Text != "" {
+		t.Errorf("readout after leaving %q", m.readout.Text)
+	}
+}
+
+// Cancel stops a map and keeps its state in words; a map started while
+// another runs replaces it (newest wins), and only its points are shown.
+func TestSetupMapCancelAndNewest(t *testing.T) {
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabMaps)
+	m := w.setup.maps
+	m.from[0].SetText("40")
+	m.to[0].SetText("200")
+	m.step[0].SetText("10")
+	test.Tap(m.run) // viscous: slow
+	first := m.run0
+	test.Tap(m.cancel)
+	w.WaitIdle()
+	if first.status != "Cancelled:" || m.run.Disabled() || !m.cancel.Hidden {
+		t.Errorf("after cancel: status %q, run disabled %v, cancel shown %v", first.status, m.run.Disabled(), !m.cancel.Hidden)
+	}
+	m.viscous.SetChecked(false)
+	test.Tap(m.run)
+	older := m.run0
+	m.from[0].SetText("60")
+	m.to[0].SetText("100")
+	m.step[0].SetText("20")
+	m.start() // a second run while the first may still go on
+	w.WaitIdle()
+	r := m.run0
+	if r == older || r.total() != 3 || r.done != 3 || older.done > older.total() {
+		t.Errorf("newest run has %d of %d points; the older %d of %d", r.done, r.total(), older.done, older.total())
+	}
+	for k, p := range r.points {
+		if p.Values[0] != r.axes[0][k] {
+			t.Errorf("point %d of the newest map has value %g, want %g", k, p.Values[0], r.axes[0][k])
 		}
 	}
 }
