@@ -270,12 +270,13 @@ func tableWriter(table string, st *model.Study, secs []*model.Section) (func(io.
 }
 
 func cmdReport(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("report", "report (--study FILE | --section SPEC [--alpha DEG]) -o OUT.pdf [--page A4|Letter] [--author NAME] [--no-density]", stdout)
+	fs := newFlags("report", "report (--study FILE | --section SPEC [--alpha DEG]) -o OUT.pdf [--page A4|Letter] [--author NAME] [--no-density] [--map NAME=FROM:TO:STEP [--map-inviscid] [--separation-limit XC]] [--finite-span]", stdout)
 	in := addInputs(fs, false, "pdf")
 	out := fs.String("o", "", "output PDF `file`")
 	page := fs.String("page", report.PageA4, "page size: A4 or Letter")
 	author := fs.String("author", "", "who prepared the report (default: the study's team)")
 	noDensity := fs.Bool("no-density", false, "leave out the panel density study (run by default: the study's panel counts, or 20 to 640)")
+	setupFlags := addReportSetupFlags(fs)
 	if _, err := fs.parse(args, 0); err != nil {
 		return err
 	}
@@ -305,6 +306,9 @@ func cmdReport(args []string, stdout, stderr io.Writer) error {
 			return err
 		}
 		input.ViscousDensity = report.ViscousDensity(context.Background(), st, secs)
+	}
+	if input.Setup, err = setupFlags.setup(st, secs); err != nil {
+		return err
 	}
 	wrote, err := writeOutput(*out, true, stdout, func(w io.Writer) error { return report.Write(w, input) }, in.files(st))
 	if err != nil {
