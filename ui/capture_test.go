@@ -19,6 +19,12 @@ func TestCaptureMainWindow(t *testing.T) {
 		{"results shown", w.toggleResults},
 		{"flap added", func() { w.ctl.AddElement() }},
 		{"enlarged", func() { w.toggleEnlarge(viewPressure) }},
+		{"marked stale", func() {
+			w.toggleEnlarge(numViews)
+			w.busy.box.Show() // as after busyDelay without the result
+			w.sweeping = true
+			w.refreshStale()
+		}},
 	} {
 		c.prep()
 		w.WaitIdle()

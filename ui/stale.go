@@ -35,7 +35,6 @@ func newStaleVeil() *staleVeil {
 	v.caption = widget.NewLabelWithStyle("", fyne.TextAlignCenter, fyne.TextStyle{Bold: true})
 	v.caption.Importance = widget.WarningImportance
 	v.captionBack = canvas.NewRectangle(color.Transparent)
-	v.captionBack.CornerRadius = theme.InputRadiusSize()
 	v.box = container.NewStack(v.dim, container.NewVBox(container.NewHBox(layout.NewSpacer(),
 		container.NewStack(v.captionBack, v.caption), layout.NewSpacer())))
 	v.box.Hide()
@@ -63,6 +62,7 @@ func (v *staleVeil) set(solving, sweeping bool) {
 	v.captionBack.FillColor = theme.Color(theme.ColorNameBackground)
 	v.captionBack.Refresh()
 	v.box.Show()
+	v.box.Refresh() // lay the caption out again for its new text
 }
 
 // staleDimAlpha is how much the veil covers a figure: enough to see at a

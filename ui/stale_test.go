@@ -52,6 +52,11 @@ func TestViewsMarkedStale(t *testing.T) {
 	if !waitFor(t, w, 3*busyDelay, allVeiled) {
 		t.Fatal("a slow solve left some view unmarked")
 	}
+	for _, v := range w.views {
+		if bw, cw := v.stale.captionBack.Size().Width, v.stale.caption.MinSize().Width; bw < cw {
+			t.Errorf("%v view: the caption's backing is %g wide, its text %g", v.kind, bw, cw)
+		}
+	}
 	w.WaitIdle()
 	for _, v := range w.views {
 		if v.stale.Visible() {
