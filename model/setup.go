@@ -163,9 +163,21 @@ func (r SetupRange) Values() []float64 {
 	n := int((r.To-r.From)/r.Step+1e-9) + 1
 	v := make([]float64, n)
 	for i := range v {
-		v[i] = r.From + float64(i)*r.Step
+		v[i] = decimal(r.From + float64(i)*r.Step)
 	}
 	return v
+}
+
+// decimal rounds x to 12 significant digits, so that a grid value typed
+// in decimals is that decimal (0 + 3 × 0.1 is 0.3, not
+// 0.30000000000000004) and a point of a map is the same setting as the
+// number a user types for `solve`.
+func decimal(x float64) float64 {
+	y, err := strconv.ParseFloat(strconv.FormatFloat(x, 'g', 12, 64), 64)
+	if err != nil {
+		panic("model: decimal: " + err.Error())
+	}
+	return y
 }
 
 // ParseSetupRange reads NAME=FROM:TO:STEP, a map's range: FROM ≤ TO, STEP

@@ -50,8 +50,8 @@ func TestParseSetupRange(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if v := r.Values(); len(v) != 11 || v[10] != 1.0000000000000002 && math.Abs(v[10]-1) > 1e-12 {
-		t.Errorf("0:1:0.1 gives %v, want 11 values ending at 1", v)
+	if v := r.Values(); len(v) != 11 || v[3] != 0.3 || v[10] != 1 {
+		t.Errorf("0:1:0.1 gives %v, want the 11 decimals 0, 0.1, …, 1", v)
 	}
 	b, err := ParseSetupBounds("elements[1].deflection_deg=10:30")
 	if err != nil {
