@@ -165,7 +165,8 @@ type setupMaps struct {
 	s       *setupWindow
 	content fyne.CanvasObject
 
-	vars           []model.SetupVariable // offered, in the selects' order
+	vars           []model.SetupVariable  // offered, in the selects' order
+	filled         [2]model.SetupVariable // the variable each range was last filled for
 	var1, var2     *widget.Select
 	from, to, step [2]*widget.Entry
 	second         *widget.Check
@@ -263,10 +264,11 @@ func (m *setupMaps) studyChanged() {
 	for i, v := range vars {
 		labels[i] = v.Label(st)
 	}
+	prev := m.vars
 	keep := func(sel *widget.Select, def int) {
 		old := -1
-		if i := sel.SelectedIndex(); i >= 0 && i < len(m.vars) {
-			old = slices.Index(vars, m.vars[i])
+		if i := sel.SelectedIndex(); i >= 0 && i < len(prev) {
+			old = slices.Index(vars, prev[i])
 		}
 		sel.SetOptions(labels)
 		if old < 0 {
@@ -274,7 +276,6 @@ func (m *setupMaps) studyChanged() {
 		}
 		sel.SetSelectedIndex(old)
 	}
-	first := m.vars == nil
 	m.vars = vars
 	def1 := 0
 	if st.Ground.Enabled {
@@ -282,14 +283,11 @@ func (m *setupMaps) studyChanged() {
 	}
 	keep(m.var1, def1)
 	keep(m.var2, min(def1+1, len(vars)-1))
-	if first {
-		m.fillRange(0)
-		m.fillRange(1)
-	}
 }
 
 // fillRange fills range i's fields with defaults around the study's value
-// of the variable chosen.
+// when the variable chosen there changes; the same variable offered again
+// (after any change of the study) keeps what the user typed.
 func (m *setupMaps) fillRange(i int) {
 	sel := [2]*widget.Select{m.var1, m.var2}[i]
 	k := sel.SelectedIndex()
@@ -299,6 +297,10 @@ func (m *setupMaps) fillRange(i int) {
 	ctl := m.s.w.ctl
 	st := ctl.Current()
 	v := m.vars[k]
+	if m.filled[i] == v {
+		return
+	}
+	m.filled[i] = v
 	from, to, step := setupDefaults(st, v, st.SetupValue(v, ctl.Sections()))
 	m.from[i].SetText(entryNum(from))
 	m.to[i].SetText(entryNum(to))

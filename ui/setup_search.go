@@ -28,7 +28,8 @@ type setupSearch struct {
 	s       *setupWindow
 	content fyne.CanvasObject
 
-	vars      []model.SetupVariable // offered, in the selects' order
+	vars      []model.SetupVariable                // offered, in the selects' order
+	filled    [searchVariables]model.SetupVariable // the variable each row's bounds were last filled for
 	use       [searchVariables]*widget.Check
 	pick      [searchVariables]*widget.Select
 	lo, hi    [searchVariables]*widget.Entry
@@ -204,6 +205,10 @@ func (p *setupSearch) fillBounds(i int) {
 	ctl := p.s.w.ctl
 	st := ctl.Current()
 	v := p.vars[k]
+	if p.filled[i] == v {
+		return // the same variable offered again keeps the bounds typed
+	}
+	p.filled[i] = v
 	lo, hi, _ := setupDefaults(st, v, st.SetupValue(v, ctl.Sections()))
 	p.lo[i].SetText(entryNum(lo))
 	p.hi[i].SetText(entryNum(hi))

@@ -336,3 +336,38 @@ func TestSetupMapCancelAndNewest(t *testing.T) {
 		}
 	}
 }
+
+// A change of the study keeps the ranges typed and the variables chosen,
+// even when the list of variables shifts (the ground turned off drops the
+// clearance); a variable chosen anew gets its defaults.
+func TestSetupKeepsRangesOnStudyChange(t *testing.T) {
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabMaps)
+	m := w.setup.maps
+	m.var1.SetSelectedIndex(0) // angle of attack
+	m.from[0].SetText("-3")
+	m.to[0].SetText("7")
+	p := w.setup.search
+	p.lo[1].SetText("4.5")
+	if err := w.ctl.SetSpeed("", 25); err != nil {
+		t.Fatal(err)
+	}
+	w.WaitIdle()
+	g := w.ctl.Study().Ground
+	g.Enabled = false
+	if err := w.ctl.SetGround("", g); err != nil {
+		t.Fatal(err)
+	}
+	w.WaitIdle()
+	if !strings.Contains(m.var1.Selected, "angle of attack") || m.from[0].Text != "-3" || m.to[0].Text != "7" {
+		t.Errorf("after study changes: %q from %q to %q", m.var1.Selected, m.from[0].Text, m.to[0].Text)
+	}
+	if !strings.Contains(p.pick[1].Selected, "gap") || p.lo[1].Text != "4.5" {
+		t.Errorf("search row 2: %q lowest %q", p.pick[1].Selected, p.lo[1].Text)
+	}
+	m.var1.SetSelectedIndex(1) // speed, now that the clearance is gone
+	if !strings.Contains(m.var1.Selected, "speed") || m.from[0].Text == "-3" {
+		t.Errorf("a new variable keeps the old range: %q from %q", m.var1.Selected, m.from[0].Text)
+	}
+}
