@@ -65,6 +65,17 @@ func (r *mapRun) curve(q engine.Quantity) figures.SetupCurve {
 	return figures.MapCurve(r.st, r.vars[0], pts, q, r.forces, r.limit, r.current[0])
 }
 
+// viscous reports whether the map has the viscous solution: asked for,
+// and every point that arrived solved with it (a study without a speed or
+// Reynolds number has none).
+func (r *mapRun) viscous() bool {
+	v := !r.inviscid
+	for k := range r.points {
+		v = v && (!r.arrived[k] || r.points[k].Viscous)
+	}
+	return v
+}
+
 // grid returns quantity q over the two variables.
 func (r *mapRun) grid(q engine.Quantity) figures.SetupGrid {
 	inv := r.st.Inverted
@@ -181,6 +192,8 @@ type setupMaps struct {
 	quantity       *widget.Select
 	readout        *widget.Label
 	curves         [engine.NumQuantities]*figureBox
+	cells          [engine.NumQuantities]*readoutBox // the curves with their readout; hidden when the map cannot have the quantity
+	shownQ         []engine.Quantity                 // the quantities the two-variable select offers, in its order
 	curveArea      *fyne.Container
 	gridBox        *figureBox
 	gridArea       *fyne.Container
@@ -232,7 +245,8 @@ func newSetupMaps(s *setupWindow) *setupMaps {
 	var cells []fyne.CanvasObject
 	for q := range engine.NumQuantities {
 		m.curves[q] = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(260, 200))
-		cells = append(cells, newReadoutBox(m.curves[q], m.hover))
+		m.cells[q] = newReadoutBox(m.curves[q], m.hover)
+		cells = append(cells, m.cells[q])
 	}
 	m.curveArea = container.NewGridWithColumns(3, cells...)
 	m.gridBox = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(520, 400))
@@ -391,7 +405,12 @@ func (m *setupMaps) begin(ranges []model.SetupRange, limit float64) error {
 	m.readout.SetText("")
 	m.quantity.SetOptions(nil)
 	var names []string
+	m.shownQ = nil
 	for q := range engine.NumQuantities {
+		if r.inviscid && q.NeedsViscous() {
+			continue
+		}
+		m.shownQ = append(m.shownQ, q)
 		names = append(names, q.Label(st.Inverted, r.forces))
 	}
 	m.quantity.SetOptions(names)
@@ -476,7 +495,7 @@ func (m *setupMaps) show() {
 	r := m.run0
 	if r == nil {
 		for _, b := range m.curves {
-			b.setDrawing(nil, "Run a map to see it here.")
+			b.setDrawing(nil, "") // the status says the map has not run
 		}
 		return
 	}
@@ -493,20 +512,22 @@ func (m *setupMaps) show() {
 	if st == "" {
 		st = "Running:"
 	}
-	m.status.SetText(fmt.Sprintf("%s %d of %d points done; %d without an answer (not converged or not solvable), %d separated ahead of x/c %s. The map is of the study as it was when run.",
-		st, r.done, r.total(), failed, separated, num(r.limit)))
-	viscous := !r.inviscid
-	for k := range r.points {
-		viscous = viscous && (!r.arrived[k] || r.points[k].Viscous)
+	viscous := r.viscous()
+	text := fmt.Sprintf("%s %d of %d points done; %d without an answer (not converged or not solvable), %d separated ahead of x/c %s. The map is of the study as it was when run.",
+		st, r.done, r.total(), failed, separated, num(r.limit))
+	if !viscous {
+		text += " No drag, L/D or separation without the viscous solution (a speed or Reynolds number, and the box ticked)."
 	}
+	m.status.SetText(text)
 	if len(r.axes) == 1 {
 		m.gridArea.Hide()
 		m.curveArea.Show()
 		for q := range engine.NumQuantities {
 			if !viscous && q.NeedsViscous() {
-				m.curves[q].setDrawing(nil, "No drag or separation without the viscous solution (a speed or Reynolds number and the box ticked).")
+				m.cells[q].Hide()
 				continue
 			}
+			m.cells[q].Show()
 			c := r.curve(q)
 			m.curves[q].setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 				return renderSetupCurve(c, dark, w, h, dpi)
@@ -516,10 +537,9 @@ func (m *setupMaps) show() {
 	}
 	m.curveArea.Hide()
 	m.gridArea.Show()
-	q := engine.Quantity(max(0, m.quantity.SelectedIndex()))
-	if !viscous && q.NeedsViscous() {
-		m.gridBox.setDrawing(nil, "No drag or separation without the viscous solution (a speed or Reynolds number and the box ticked).")
-		return
+	q := engine.QuantityLoad
+	if i := m.quantity.SelectedIndex(); i >= 0 && i < len(m.shownQ) {
+		q = m.shownQ[i]
 	}
 	g := r.grid(q)
 	m.gridBox.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {

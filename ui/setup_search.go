@@ -51,6 +51,7 @@ type setupSearch struct {
 	applyMsg  *widget.Label
 	trace     *figureBox
 	plane     *figureBox
+	planeCell *readoutBox
 	readout   *widget.Label
 
 	running context.CancelFunc
@@ -134,7 +135,8 @@ func newSetupSearch(s *setupWindow) *setupSearch {
 	)...)
 	result := container.NewVBox(heading("Best against start"), p.table,
 		container.NewGridWithColumns(2, p.apply, p.pin), p.applyMsg)
-	figs := container.NewGridWithColumns(2, newReadoutBox(p.trace, p.hoverTrace), newReadoutBox(p.plane, p.hoverPlane))
+	p.planeCell = newReadoutBox(p.plane, p.hoverPlane)
+	figs := container.NewGridWithColumns(2, newReadoutBox(p.trace, p.hoverTrace), p.planeCell)
 	p.content = container.NewBorder(nil, p.readout, side, nil, container.NewBorder(nil, result, nil, nil, figs))
 	p.objective.SetSelectedIndex(0)
 	p.show()
@@ -395,7 +397,7 @@ func (p *setupSearch) show() {
 	r := p.cur
 	p.syncButtons()
 	if r == nil {
-		p.trace.setDrawing(nil, "Run a search to see its path here.")
+		p.trace.setDrawing(nil, "") // the status says the search has not run
 		p.plane.setDrawing(nil, "")
 		p.table.SetText("")
 		return
@@ -430,11 +432,12 @@ func (p *setupSearch) show() {
 		if r.res != nil && r.res.Feasible {
 			g.Best = [2]float64{r.res.Best.Values[0], r.res.Best.Values[1]}
 		}
+		p.planeCell.Show()
 		p.plane.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 			return renderSetupGrid(g, dark, w, h, dpi)
 		}, "")
 	} else {
-		p.plane.setDrawing(nil, "The path in the plane of two variables shows when two or more vary.")
+		p.planeCell.Hide() // a path in a plane needs two variables
 	}
 	p.table.SetText(p.comparison())
 }

@@ -180,7 +180,7 @@ func (p *setupSpan) show() {
 	fs := p.out
 	if fs == nil {
 		p.totals.SetText("")
-		p.load.setDrawing(nil, "Enter the span and run the estimate to see the spanwise load.")
+		p.load.setDrawing(nil, "") // the status says the estimate has not run
 		return
 	}
 	p.totals.SetText(finiteSpanText(fs, p.stale()))

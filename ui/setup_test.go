@@ -67,11 +67,14 @@ func TestSetupMapRideHeight(t *testing.T) {
 		t.Errorf("curve %+v", c)
 	}
 	for q, b := range m.curves {
-		// An inviscid map draws the load and Cm and says why there is no
-		// drag or separation.
-		if want := !engine.Quantity(q).NeedsViscous(); (b.Figure() != nil) != want || (!want && !strings.Contains(b.note.Text, "without the viscous solution")) {
-			t.Errorf("%s: figure drawn %v, note %q", engine.Quantity(q).Short(true), b.Figure() != nil, b.note.Text)
+		// An inviscid map draws the load and Cm, hides drag and
+		// separation, and says why.
+		if want := !engine.Quantity(q).NeedsViscous(); (b.Figure() != nil) != want || m.cells[q].Hidden == want {
+			t.Errorf("%s: figure drawn %v, shown %v", engine.Quantity(q).Short(true), b.Figure() != nil, !m.cells[q].Hidden)
 		}
+	}
+	if !strings.Contains(m.status.Text, "without the viscous solution") {
+		t.Errorf("status %q does not say why there is no drag", m.status.Text)
 	}
 	if d := r.describe(r.nearest(118, 0)); !strings.Contains(d, "clearance 120 mm") || !strings.Contains(d, "downforce") {
 		t.Errorf("readout %q", d)
