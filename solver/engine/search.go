@@ -390,6 +390,15 @@ func searchStatus(s optimize.Status, res *SearchResult) string {
 	if !res.Feasible {
 		why += "; no setting met every constraint"
 	}
+	failed := 0
+	for _, p := range res.Path {
+		if !p.Converged || p.Err != "" {
+			failed++
+		}
+	}
+	if failed > 0 && res.Feasible {
+		why += fmt.Sprintf("; %d of %d solves did not converge: where they lie next to the best setting, it may mark the edge of what the solver can answer rather than the wing's optimum", failed, len(res.Path))
+	}
 	return why
 }
 
