@@ -1,7 +1,9 @@
 package solver
 
 import (
+	"cmp"
 	"math"
+	"slices"
 
 	bl "sectionbench/solver/boundarylayer"
 )
@@ -54,8 +56,17 @@ func (cs *coupledState) march() []float64 {
 		cs.m[i] = u * cs.m[p] / ueM[p]
 		cs.solveStation(i, ueM)
 		if s.kind == bl.Laminar && (cs.c[i] >= cs.ncrit || s.xi >= s.tripXi || s.last) {
+			// Transition: the turbulent solution starts from the
+			// predecessor's θ and an attached turbulent H (the
+			// laminar attempt's state may be far up the separated
+			// branch, from which the turbulent closure's Newton
+			// finds a separated root).
 			s.kind = bl.Turbulent
-			cs.c[i] = cs.initialShear(i, ueM[i])
+			ueM[i] = u
+			hp := cs.m[p] / (ueM[p] * cs.th[p])
+			cs.th[i] = cs.th[p]
+			cs.m[i] = u * cs.th[p] * math.Min(hp, maxMarchHTurbulent)
+			cs.c[i] = cs.initialShear(i, u)
 			cs.solveStation(i, ueM)
 		}
 	}
@@ -87,19 +98,13 @@ func (cs *coupledState) solveStation(i int, ueM []float64) {
 	pp := s.prev[0]
 	hPrev := cs.m[pp] / (ueM[pp] * cs.th[pp])
 	uePrev := ueM[i]
-	if s.kind != bl.Laminar && hPrev > hmax {
-		// A separated layer reattaching (after transition in a bubble):
-		// inverse until H is back at hmax, as Drela's march does.
-		if cs.localNewton(i, ueM, cs.inverseH(i, hPrev, hmax)) {
-			return
-		}
-		cs.c[i], cs.th[i], cs.m[i] = save[0], save[1], save[2]
-		ueM[i] = uePrev
-	}
 	ok := cs.localNewton(i, ueM, 0)
 	h := cs.m[i] / (ueM[i] * cs.th[i])
 	grow := cs.th[i] / save[1]
-	if ok && h <= hmax && h >= minMarchH && grow < maxMarchGrowth && grow > 1/maxMarchGrowth {
+	// A turbulent layer whose H falls (relaxing after transition or
+	// reattachment) is attached whatever its H: direct mode holds.
+	relaxing := s.kind != bl.Laminar && h < hPrev
+	if ok && (h <= hmax || relaxing) && h >= minMarchH && grow < maxMarchGrowth && grow > 1/maxMarchGrowth {
 		return
 	}
 	// Outside the direct solution's range (separation, or the discrete
@@ -235,12 +240,17 @@ func solve3(a [3][3]float64, b [3]float64) ([3]float64, bool) {
 
 // retype moves transition to where the current state puts it: a laminar
 // station whose ñ reached NCrit (or that lies past a trip or at the
-// trailing edge) turns turbulent; a turbulent station right after a
-// laminar one turns laminar again if the amplification from its
-// predecessor does not reach NCrit within the interval (and no trip or
-// trailing edge forces it). It reports whether anything changed.
-func (cs *coupledState) retype() bool {
-	changed := false
+// trailing edge) turns turbulent; a transition station (turbulent after a
+// laminar one) turns laminar again only if, solved as laminar from its
+// predecessor on the current edge velocity, its ñ stays below NCrit by
+// relaminarMargin (laminarBelow). Both tests are of the station's own
+// laminar solution, as the march's is: a test of the envelope evaluated
+// with the transition station's turbulent variables (H well below the
+// laminar H that made it turn) disagrees with them and flips the station
+// between Newton steps. Stations after a turbulent one are turbulent. It
+// reports whether anything changed.
+func (cs *coupledState) retype(relaminarise bool) bool {
+	changed, moved := false, false
 	ue := cs.ueLayers()
 	for i := range cs.st {
 		s := &cs.st[i]
@@ -257,37 +267,107 @@ func (cs *coupledState) retype() bool {
 			continue
 		}
 		forced := s.xi >= s.tripXi || s.last
-		if s.kind == bl.Laminar {
-			if cs.c[i] >= cs.ncrit || forced {
-				s.kind = bl.Turbulent
-				cs.c[i] = cs.initialShear(i, math.Max(ue[i], 1e-6))
+		switch {
+		case s.kind == bl.Laminar && (cs.c[i] >= cs.ncrit || forced):
+			s.kind = bl.Turbulent
+			cs.c[i] = cs.initialShear(i, math.Max(ue[i], 1e-6))
+			changed = true
+		case relaminarise && s.kind != bl.Laminar && !forced && cs.laminarBelow(i, ue):
+			changed = true
+			moved = true
+		case cs.strategy.relaminariseAlways && s.kind != bl.Laminar && !forced:
+			a := cs.stationOf(p, math.Max(ue[p], 1e-6))
+			b := cs.stationOf(i, math.Max(ue[i], 1e-6))
+			b.C = a.C
+			ra := bl.Eval(bl.Laminar, a, cs.re).AmpRate
+			rb := bl.Eval(bl.Laminar, b, cs.re).AmpRate
+			if grow := (b.Xi - a.Xi) * 0.5 * (ra + rb); a.C+grow < cs.ncrit {
+				s.kind = bl.Laminar
+				cs.c[i] = a.C + grow
 				changed = true
 			}
-			continue
-		}
-		if forced {
-			continue
-		}
-		a := cs.stationOf(p, math.Max(ue[p], 1e-6))
-		b := cs.stationOf(i, math.Max(ue[i], 1e-6))
-		b.C = a.C
-		ra := bl.Eval(bl.Laminar, a, cs.re).AmpRate
-		rb := bl.Eval(bl.Laminar, b, cs.re).AmpRate
-		grow := (b.Xi - a.Xi) * 0.5 * (ra + rb)
-		if a.C+grow < cs.ncrit {
-			s.kind = bl.Laminar
-			cs.c[i] = a.C + grow
-			changed = true
+		case moved && s.kind != bl.Laminar:
+			// The new transition station: it and the stations after
+			// it still hold the turbulent layer of the earlier
+			// transition; they are marched again from it.
+			cs.remarch(i, ue)
+			moved = false
 		}
 	}
 	return changed
 }
 
-// restagnate follows the stagnation points: from the current edge
-// velocities it finds each element's sign change of the surface speed;
-// if it left its panel, the surfaces are laid out anew (nodes that
-// changed side take the values of the first station of their new side).
-// It reports a new layout.
+// remarchStations is how many stations from a transition that moved
+// downstream remarch solves again: enough for the turbulent layer to
+// relax from its state at transition (a few tens of momentum thicknesses).
+const remarchStations = 8
+
+// remarch solves the transition station i and the stations after it on
+// its surface (remarchStations at most) again, one by one as the march
+// does, on the edge velocities ue: the transition station from its
+// laminar predecessor's θ with an attached turbulent H and the initial
+// shear stress, each next one from the one before.
+func (cs *coupledState) remarch(i int, ue []float64) {
+	u := append([]float64(nil), ue...)
+	for j, n := i, 0; n < remarchStations && j < len(cs.st); j, n = j+1, n+1 {
+		s := &cs.st[j]
+		if s.side == sideWake || s.prev[0] != j-1 || s.kind == bl.Laminar {
+			return
+		}
+		p := j - 1
+		u[j] = math.Max(u[j], 1e-6)
+		cs.th[j] = cs.th[p]
+		if j == i {
+			hp := cs.m[p] / (math.Max(u[p], 1e-6) * cs.th[p])
+			cs.m[j] = u[j] * cs.th[p] * math.Min(hp, maxMarchHTurbulent)
+			cs.c[j] = cs.initialShear(j, u[j])
+		} else {
+			cs.m[j] = u[j] * cs.m[p] / math.Max(u[p], 1e-6)
+			cs.c[j] = cs.c[p]
+		}
+		cs.solveStation(j, u)
+		if s.last {
+			return
+		}
+	}
+}
+
+// relaminarMargin is how far below NCrit a transition station's laminar
+// ñ must stay before it turns laminar again (retype): a band in which
+// either regime is accepted, so that a station on the edge does not
+// alternate between Newton steps. Transition then lies within the
+// interval ending at the station, as TransitionInterval places it.
+const relaminarMargin = 0.0
+
+// maxRelaminarH bounds the shape factor of a relaminarised station: a
+// laminar layer separated in a bubble (H of 4 to 8 before transition,
+// common practice) is accepted; beyond it the local solution has run off.
+const maxRelaminarH = 10
+
+// laminarBelow solves transition station i as laminar from its
+// predecessor on the edge velocities ue; if that converges, attached
+// (H within the march's laminar limit), with ñ below NCrit −
+// relaminarMargin, the station keeps the laminar state and it reports
+// true; otherwise the station is left as it was.
+func (cs *coupledState) laminarBelow(i int, ue []float64) bool {
+	s := &cs.st[i]
+	save := [3]float64{cs.c[i], cs.th[i], cs.m[i]}
+	kind := s.kind
+	s.kind = bl.Laminar
+	cs.c[i] = cs.c[s.prev[0]]
+	u := append([]float64(nil), ue...)
+	if cs.localNewton(i, u, 0) && cs.c[i] < cs.ncrit-relaminarMargin && cs.m[i] <= maxRelaminarH*cs.th[i]*u[i] {
+		return true
+	}
+	s.kind = kind
+	cs.c[i], cs.th[i], cs.m[i] = save[0], save[1], save[2]
+	return false
+}
+
+// restagnate follows the stagnation points (strategy followStagnation):
+// from the current edge velocities it finds each element's sign change of
+// the surface speed; if it left its panel, the surfaces are laid out anew
+// (relayout). It reports a new layout.
 func (cs *coupledState) restagnate() bool {
 	ue := cs.ue()
 	g := make([]float64, cs.geo.n)
@@ -329,41 +409,85 @@ func (cs *coupledState) restagnate() bool {
 }
 
 // relayout lays the stations out at new splits and carries the variables
-// over by node.
+// over (carryFrom).
 func (cs *coupledState) relayout(newStag []int) {
-	type vals struct {
-		c, th, m, ueM float64
-		kind          bl.Kind
-	}
-	type key struct{ elem, side, node int }
-	old := make(map[key]vals, len(cs.st))
-	firsts := make(map[[2]int]vals)
-	for i, s := range cs.st {
-		v := vals{c: cs.c[i], th: cs.th[i], m: cs.m[i], kind: s.kind}
-		if cs.ueMarch != nil {
-			v.ueM = cs.ueMarch[i]
-		}
-		old[key{s.elem, s.side, s.node}] = v
-		if s.first {
-			firsts[[2]int{s.elem, s.side}] = v
-		}
-	}
+	old := cs.stationValues()
 	copy(cs.stag, newStag)
 	cs.layout()
+	cs.carryFrom(old)
+}
+
+// stationValues are the variables of every station, keyed for carryFrom:
+// surfaces by element and side (ordered by ξ), wakes by element and node.
+type stationValues struct {
+	surface map[[2]int][]stationValue
+	wake    map[[2]int]stationValue
+}
+
+type stationValue struct {
+	xi, c, th, m, ueM float64
+	kind              bl.Kind
+}
+
+func (cs *coupledState) stationValues() stationValues {
+	v := stationValues{surface: make(map[[2]int][]stationValue), wake: make(map[[2]int]stationValue)}
+	for i, s := range cs.st {
+		x := stationValue{xi: s.xi, c: cs.c[i], th: cs.th[i], m: cs.m[i], kind: s.kind}
+		if cs.ueMarch != nil {
+			x.ueM = cs.ueMarch[i]
+		}
+		if s.side == sideWake {
+			v.wake[[2]int{s.elem, s.node}] = x
+			continue
+		}
+		k := [2]int{s.elem, s.side}
+		v.surface[k] = append(v.surface[k], x)
+	}
+	for _, l := range v.surface {
+		slices.SortFunc(l, func(a, b stationValue) int { return cmp.Compare(a.xi, b.xi) })
+	}
+	return v
+}
+
+// carryFrom sets the variables of the current layout from old ones by arc
+// length from the stagnation point: each surface station takes θ, m and
+// the regime of the old stations of the same surface at its ξ (θ and m
+// linear between them; ahead of the first, scaled by √(ξ/ξ₀) as in the
+// stagnation-point layer, H unchanged); wake stations take the same
+// node's. Carried over by node instead, the stations near a moved
+// stagnation point start far from their equations (a node that changed
+// surface takes a value from the other end of its ξ range).
+func (cs *coupledState) carryFrom(old stationValues) {
 	for i := range cs.st {
 		s := &cs.st[i]
-		v, ok := old[key{s.elem, s.side, s.node}]
-		if !ok {
-			v = firsts[[2]int{s.elem, s.side}]
-			if o, ok := old[key{s.elem, 1 - s.side, s.node}]; ok {
-				v.ueM = o.ueM // the speed near the stagnation point, small either way
+		var v stationValue
+		if s.side == sideWake {
+			v = old.wake[[2]int{s.elem, s.node}]
+		} else {
+			l := old.surface[[2]int{s.elem, s.side}]
+			j, _ := slices.BinarySearchFunc(l, s.xi, func(a stationValue, x float64) int { return cmp.Compare(a.xi, x) })
+			switch {
+			case j == 0:
+				v = l[0]
+				f := math.Sqrt(s.xi / l[0].xi)
+				v.th, v.m = v.th*f, v.m*f
+			case j == len(l):
+				v = l[j-1]
+			default:
+				a, b := l[j-1], l[j]
+				f := (s.xi - a.xi) / (b.xi - a.xi)
+				v = a
+				if f > 0.5 {
+					v = b
+				}
+				v.th = a.th + f*(b.th-a.th)
+				v.m = a.m + f*(b.m-a.m)
+				v.ueM = a.ueM + f*(b.ueM-a.ueM)
 			}
+			s.kind = v.kind
 		}
 		if cs.ueMarch != nil {
 			cs.ueMarch[i] = v.ueM
-		}
-		if s.side != sideWake {
-			s.kind = v.kind
 		}
 		cs.c[i], cs.th[i], cs.m[i] = v.c, v.th, v.m
 		if s.first {
@@ -372,25 +496,24 @@ func (cs *coupledState) relayout(newStag []int) {
 		}
 	}
 	// A laminar station after a turbulent one is put right by retype.
-	cs.retype()
+	cs.retype(false)
 }
 
-// warmFrom starts from a neighbouring solution's state: its stagnation
-// splits and variables; it reports false (and changes nothing) when the
-// layouts differ (a wake of another length).
+// warmFrom starts from a neighbouring solution's state, carried over by
+// arc length (carryFrom) onto this angle's own layout from its inviscid
+// stagnation points; it reports false (and changes nothing) when the
+// wakes differ in length. A transition station that is laminar at this
+// angle turns laminar (retype).
 func (cs *coupledState) warmFrom(w *coupledState) bool {
 	if len(w.st) != len(cs.st) {
 		return false
 	}
-	copy(cs.stag, w.stag)
-	copy(cs.sStag, w.sStag)
-	cs.layout()
 	for i := range cs.st {
-		if cs.st[i].side != sideWake {
-			cs.st[i].kind = w.st[i].kind
+		if (cs.st[i].side == sideWake) != (w.st[i].side == sideWake) {
+			return false
 		}
-		cs.c[i], cs.th[i], cs.m[i] = w.c[i], w.th[i], w.m[i]
 	}
-	cs.retype()
+	cs.carryFrom(w.stationValues())
+	cs.retype(true)
 	return true
 }

@@ -185,7 +185,7 @@ func (cs *coupledState) solve(ctx context.Context, ueMarch []float64) (converged
 			if lam == 0 {
 				maxIt = 2 * homotopyMaxIter
 			}
-			_, n, _, err := cs.iterate(ctx, maxIt, homotopyTolerance, lam > 0)
+			_, n, _, err := cs.iterate(ctx, maxIt, homotopyTolerance)
 			iters += n
 			if err != nil {
 				cs.ueMarch, cs.lam = nil, 1
@@ -194,13 +194,52 @@ func (cs *coupledState) solve(ctx context.Context, ueMarch []float64) (converged
 		}
 		cs.ueMarch, cs.lam = nil, 1
 	}
-	converged, n, res, err := cs.iterate(ctx, maxIt, tol, true)
+	converged, n, res, err := cs.iterate(ctx, maxIt, tol)
 	return converged, iters + n, res, err
 }
 
-// iterate runs at most maxIt Newton iterations from the current state;
-// follow lets the stagnation points move to other panels (a new layout).
-func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64, follow bool) (converged bool, iters int, res float64, err error) {
+// iterate runs at most maxIt Newton iterations from the current state.
+//
+// Within the Newton iterations transition may only move upstream (retype
+// without relaminarising): a transition station turning laminar and
+// turbulent again between steps was the commonest cause of failure (on
+// NACA 0012 at Re 6e6 the iterations failed from 6° up until this was
+// done). Once they have converged, retype with relaminarising checks each
+// transition station against its own laminar solution; if one turns
+// laminar the iterations go on (at most maxRelaminarisations times), and
+// if they then fail, the converged state before is restored and returned:
+// its transition lies at most a few stations upstream of the consistent
+// one.
+func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64) (converged bool, iters int, res float64, err error) {
+	var fallback *snapshot
+	var fallbackRes float64
+	for relaminarised := 0; ; relaminarised++ {
+		conv, n, r, err := cs.newtonIterations(ctx, maxIt-iters, tol)
+		iters += n
+		if err != nil {
+			return false, iters, r, err
+		}
+		if !conv {
+			if fallback != nil {
+				cs.restore(*fallback)
+				return true, iters, fallbackRes, nil
+			}
+			return false, iters, r, nil
+		}
+		if relaminarised == maxRelaminarisations || iters >= maxIt {
+			return true, iters, r, nil
+		}
+		snap := cs.snapshot()
+		if !cs.retype(true) {
+			return true, iters, r, nil
+		}
+		fallback, fallbackRes = &snap, r
+	}
+}
+
+// newtonIterations runs at most maxIt Newton iterations from the current
+// state, transition moving upstream only (iterate).
+func (cs *coupledState) newtonIterations(ctx context.Context, maxIt int, tol float64) (converged bool, iters int, res float64, err error) {
 	n := len(cs.st)
 	for it := 1; it <= maxIt; it++ {
 		if err := ctx.Err(); err != nil {
@@ -265,17 +304,20 @@ func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64, fol
 			}
 			rlx /= 2
 		}
-		retyped := cs.retype()
-		moved := false
-		if follow {
-			moved = cs.restagnate()
+		changed := cs.retype(false)
+		if cs.strategy.followStagnation && cs.restagnate() {
+			changed = true
 		}
-		if res < tol && rlx == 1 && !retyped && !moved {
+		if res < tol && rlx == 1 && !changed {
 			return true, it, res, nil
 		}
 	}
 	return false, maxIt, res, nil
 }
+
+// maxRelaminarisations bounds how often one call of iterate moves
+// transition downstream after converging.
+const maxRelaminarisations = 4
 
 // Line search bounds: at most lineSearchHalvings halvings of a Newton
 // step, and none once the residuals' norm is below lineSearchFloor,

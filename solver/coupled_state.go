@@ -29,6 +29,21 @@ type station struct {
 	tripXi           float64 // ξ of the trip on this station's surface, +Inf if none
 }
 
+// strategy selects how the Newton iterations treat the two discrete
+// choices of the layout, transition station and stagnation panel.
+type strategy struct {
+	// relaminariseAlways lets a transition station turn laminar within
+	// the iterations, tested with the envelope grown at the mean of
+	// the laminar rates of its predecessor and of its own (turbulent)
+	// state; otherwise transition moves downstream only once the
+	// iterations have converged (iterate).
+	relaminariseAlways bool
+	// followStagnation moves the stagnation points with the coupled
+	// edge velocities (restagnate); otherwise the layout stays at the
+	// inviscid ones.
+	followStagnation bool
+}
+
 // sigmaTerm is one term of a source column's dependence on the mass
 // defects: σ_c = Σ coef m_station.
 type sigmaTerm struct {
@@ -40,13 +55,14 @@ type sigmaTerm struct {
 // stations, the sensitivities of the edge velocities to the mass defects,
 // and the boundary-layer variables.
 type coupledState struct {
-	sol   *Solution
-	geo   *geometry
-	opt   CoupledOptions
-	re    float64 // per unit length
-	ncrit float64
-	wakes []*wakeGeom
-	resp  *sourceResponse
+	strategy strategy
+	sol      *Solution
+	geo      *geometry
+	opt      CoupledOptions
+	re       float64 // per unit length
+	ncrit    float64
+	wakes    []*wakeGeom
+	resp     *sourceResponse
 
 	stag  []int     // per element, the node before the stagnation point in node order
 	sStag []float64 // arc length of the stagnation point from the element's first node

@@ -13,15 +13,23 @@ import (
 // The coupled solution on NACA 0012 at Re 6e6 with transition fixed at 5 %
 // chord on both surfaces (Ladson's grit; the position is from memory),
 // against Ladson's 80-grit polar (NASA TM-4074, 1988; testdata/validation),
-// swept upwards from 0° with each angle warm-started from the one before.
+// swept upwards from 0° to 17.13° with each angle warm-started from the
+// one before. Every angle must converge.
 //
 // Drag: within 10 % for α ≤ 10° (the tolerance: the spread between
 // Ladson's three grit sizes is ± 4 % and a lag-entrainment integral method
 // is good to a few percent on attached tripped layers). Lift: the coupled
 // Cl must lie below the inviscid one and closer to the measurement. The
-// issue's 3 % on Cl is NOT met yet: the coupled Cl runs 4–6 % above
-// Ladson's (a lift slope of 0.112/deg against 0.106); the test logs the
+// issue's 3 % on Cl is NOT met: the coupled Cl runs 3.6–5 % above
+// Ladson's from 4° up (8.6 % at 2°, where Ladson's own zero-lift offset,
+// Cl −0.013 at −0.05°, is a third of the difference); the test logs the
 // figures and DEVELOPERS.md lists it among the open items.
+//
+// Maximum lift: the highest converged Cl within ±0.1 of Ladson's 1.6116
+// and its angle within ±1.5° of 17.13° (the tolerances). Ladson's
+// section stalls abruptly past 17.13° (Cl 0.997 at 18.02°); the coupled
+// iterations stop converging there too, so the maximum found is the last
+// converged angle of the sweep, not a resolved peak of the curve.
 func TestCoupledNACA0012Ladson(t *testing.T) {
 	skipUnderRace(t)
 	g80 := ladsonPolars(t)["grit_80"]
@@ -33,8 +41,9 @@ func TestCoupledNACA0012Ladson(t *testing.T) {
 	opt := CoupledOptions{Re: []float64{6e6}, TripUpper: 0.05, TripLower: 0.05}
 	var warm *CoupledSolution
 	var conv convergenceCount
+	clMax, alphaClMax := math.Inf(-1), math.NaN()
 	for i, a := range g80.AlphaDeg {
-		if a < 0 || a > 10.5 {
+		if a < 0 || a > 17.2 {
 			continue
 		}
 		cs, err := sys.SolveCoupled(context.Background(), a, opt, warm)
@@ -45,11 +54,14 @@ func TestCoupledNACA0012Ladson(t *testing.T) {
 			continue
 		}
 		warm = cs
+		if cs.Cl > clMax {
+			clMax, alphaClMax = cs.Cl, a
+		}
 		cl, cd := g80.Cl[i], g80.Cd[i]
 		dcd := cs.Cd/cd - 1
 		t.Logf("α %5.2f°: Cl %.4f (inviscid %.4f, Ladson %.4f, %+.1f %%), Cd %.5f (Ladson %.5f, %+.1f %%), %d iterations",
 			a, cs.Cl, cs.ClInviscid, cl, 100*(cs.Cl/cl-1), cs.Cd, cd, 100*dcd, cs.Iterations)
-		if math.Abs(dcd) > 0.10 {
+		if a <= 10.5 && math.Abs(dcd) > 0.10 {
 			t.Errorf("α = %.2f°: Cd %.5f, Ladson %.5f: %.1f %% off, 10 %% allowed", a, cs.Cd, cd, 100*dcd)
 		}
 		if a > 1 && !(cs.Cl < cs.ClInviscid && math.Abs(cs.Cl-cl) < math.Abs(cs.ClInviscid-cl)) {
@@ -60,12 +72,14 @@ func TestCoupledNACA0012Ladson(t *testing.T) {
 		}
 	}
 	conv.check(t)
+	t.Logf("Cl max %.4f at %.2f° (Ladson %.4f at %.2f°)", clMax, alphaClMax, 1.6116, 17.13)
+	if math.Abs(clMax-1.6116) > 0.1 || math.Abs(alphaClMax-17.13) > 1.5 {
+		t.Errorf("Cl max %.4f at %.2f°; Ladson 1.6116 at 17.13°, ±0.1 and ±1.5° allowed", clMax, alphaClMax)
+	}
 }
 
-// convergenceCount records which angles of a polar converged. The
-// coupled iterations do not yet converge at every angle (DEVELOPERS.md);
-// check fails if more than one angle in four does not, a guard against
-// losing ground, not the target, which is all of them.
+// convergenceCount records which angles of a polar converged; check fails
+// if any did not (every angle of the validation polars converges).
 type convergenceCount struct {
 	done   int
 	failed []float64
@@ -81,8 +95,8 @@ func (c *convergenceCount) add(t *testing.T, alpha float64, cs *CoupledSolution)
 }
 
 func (c *convergenceCount) check(t *testing.T) {
-	if 4*len(c.failed) > c.done {
-		t.Errorf("%d of %d angles did not converge (%v°); at most one in four allowed", len(c.failed), c.done, c.failed)
+	if len(c.failed) > 0 {
+		t.Errorf("%d of %d angles did not converge (%v°)", len(c.failed), c.done, c.failed)
 	}
 }
 
@@ -137,8 +151,8 @@ func e387Data(t *testing.T) (map[string]e387Polar, Element) {
 
 // The coupled solution on E387 at Re 2e5 and 3e5 with free transition
 // (N = 9, the tunnel's turbulence below 0.1 %) against the Illinois
-// polars, −2° to 6.5°, swept upwards with each angle warm-started from
-// the one before, as the application's polar is.
+// polars, −2° to 6.5°, swept outwards from 0° with each angle
+// warm-started from its neighbour, as the application's polar is.
 //
 // Drag: within 12 % (the tolerance: the laminar separation bubble
 // sets the drag here; the measurements' own uncertainty is about ± 5 %).
@@ -162,12 +176,32 @@ func TestCoupledE387Illinois(t *testing.T) {
 				idx = append(idx, i)
 			}
 		}
-		// A polar: upwards from the lowest angle, each warm-started
-		// from the one before.
-		var warm *CoupledSolution
+		// A polar as the application sweeps one: outwards from the
+		// angle nearest 0°, each angle warm-started from its
+		// neighbour towards 0° (at the negative angles the lower
+		// surface's transition moves forward into a leading-edge
+		// bubble; swept upwards from there, the iterations keep that
+		// branch of the flow at −1°, with 23 % more drag).
+		start := 0
+		for j, i := range idx {
+			if math.Abs(p.AlphaDeg[i]) < math.Abs(p.AlphaDeg[idx[start]]) {
+				start = j
+			}
+		}
+		var order []int
+		for j := start; j < len(idx); j++ {
+			order = append(order, idx[j])
+		}
+		for j := start - 1; j >= 0; j-- {
+			order = append(order, idx[j])
+		}
+		var warm, atStart *CoupledSolution
 		var conv convergenceCount
-		for _, i := range idx {
+		for n, i := range order {
 			a := p.AlphaDeg[i]
+			if n > 0 && a < p.AlphaDeg[idx[start]] && p.AlphaDeg[order[n-1]] > a+1.5 {
+				warm = atStart // the first angle below the start
+			}
 			cs, err := sys.SolveCoupled(context.Background(), a, CoupledOptions{Re: []float64{p.Reynolds}}, warm)
 			if err != nil {
 				t.Fatal(err)
@@ -176,6 +210,9 @@ func TestCoupledE387Illinois(t *testing.T) {
 				continue
 			}
 			warm = cs
+			if n == 0 {
+				atStart = cs
+			}
 			cl, cd := p.Cl[i], p.Cd[i]
 			dcd := cs.Cd/cd - 1
 			t.Logf("%s α %5.2f°: Cl %.4f (inviscid %.4f, measured %.3f, %+.1f %%), Cd %.5f (measured %.4f, %+.1f %%), transition upper %.3f, %d iterations",
