@@ -185,8 +185,6 @@ type setupMaps struct {
 	viscous        *widget.Check
 	limit          *widget.Entry
 	msg            *widget.Label
-	run, cancel    *widget.Button
-	progress       *widget.ProgressBar
 	status         *widget.Label
 	export         *widget.Button
 	quantity       *widget.Select
@@ -198,9 +196,8 @@ type setupMaps struct {
 	gridBox        *figureBox
 	gridArea       *fyne.Container
 
-	running context.CancelFunc
-	gen     int
-	run0    *mapRun // the map shown; nil before the first run
+	*runControls
+	run0 *mapRun // the map shown; nil before the first run
 }
 
 func newSetupMaps(s *setupWindow) *setupMaps {
@@ -229,12 +226,7 @@ func newSetupMaps(s *setupWindow) *setupMaps {
 	m.limit = widget.NewEntry()
 	m.limit.SetText(entryNum(defaultSeparationLimit))
 	m.msg = message()
-	m.run = widget.NewButton("Run map", m.start)
-	m.run.Importance = widget.HighImportance
-	m.cancel = widget.NewButton("Cancel", m.stop)
-	m.cancel.Hide()
-	m.progress = widget.NewProgressBar()
-	m.progress.Hide()
+	m.runControls = newRunControls("Run map", m.start)
 	m.status = caption("Not run yet. Each point is the study solved with the variables set to the point's values; points stream in as they are solved, on both cores.")
 	m.export = widget.NewButton("Export map (CSV)…", func() { w.exportTo(m.csvJob()) })
 	m.export.Disable()
@@ -262,7 +254,7 @@ func newSetupMaps(s *setupWindow) *setupMaps {
 		row("Separation limit, x/c", m.limit),
 		caption("A point whose suction side separates ahead of this x/c on any element is marked."),
 		m.msg,
-		container.NewBorder(nil, nil, nil, m.cancel, m.run),
+		m.row,
 		m.progress, m.status, m.export,
 	)
 	m.content = container.NewBorder(nil, m.readout, side, nil, container.NewStack(m.curveArea, m.gridArea))
@@ -393,14 +385,6 @@ func (m *setupMaps) begin(ranges []model.SetupRange, limit float64) error {
 	r.forces = r.forces || st.Flow.SpeedMPS > 0
 	r.points, r.arrived = make([]engine.Point, total), make([]bool, total)
 	m.run0 = r
-	m.gen++
-	gen := m.gen
-	ctx, cancel := context.WithCancel(context.Background())
-	m.running = cancel
-	m.run.Disable()
-	m.cancel.Show()
-	m.progress.SetValue(0)
-	m.progress.Show()
 	m.export.Disable()
 	m.readout.SetText("")
 	m.quantity.SetOptions(nil)
@@ -415,33 +399,22 @@ func (m *setupMaps) begin(ranges []model.SetupRange, limit float64) error {
 	}
 	m.quantity.SetOptions(names)
 	m.quantity.SetSelectedIndex(int(engine.QuantityLoad))
-	m.show()
 	inviscid := !m.viscous.Checked
-	act := ctl.Activity()
-	act.Add()
-	go func() {
-		defer act.Done()
-		defer cancel()
+	do := m.s.w.do
+	m.launch(ctl.Activity(), func(ctx context.Context, gen int) {
 		_, err := runMap(ctx, st, secs, ranges, inviscid,
-			func(done, total int) {
-				m.s.w.do(func() {
-					if gen == m.gen {
-						m.progress.SetValue(float64(done) / float64(total))
-					}
-				})
-			},
-			func(p engine.Point) {
-				m.s.w.do(func() { m.arrive(gen, p) })
-			})
-		m.s.w.do(func() { m.finish(gen, err) })
-	}()
+			func(done, total int) { do(func() { m.progressed(gen, float64(done)/float64(total)) }) },
+			func(p engine.Point) { do(func() { m.arrive(gen, p) }) })
+		do(func() { m.finish(gen, err) })
+	})
+	m.show()
 	return nil
 }
 
 // arrive adds a point of run gen to the map shown.
 func (m *setupMaps) arrive(gen int, p engine.Point) {
 	r := m.run0
-	if gen != m.gen || r == nil {
+	if !m.current(gen) || r == nil {
 		return
 	}
 	k := 0
@@ -458,13 +431,9 @@ func (m *setupMaps) arrive(gen int, p engine.Point) {
 
 // finish ends run gen: its state in words, the buttons back.
 func (m *setupMaps) finish(gen int, err error) {
-	if gen != m.gen {
+	if !m.end(gen) {
 		return
 	}
-	m.running = nil
-	m.run.Enable()
-	m.cancel.Hide()
-	m.progress.Hide()
 	r := m.run0
 	switch {
 	case err == context.Canceled:
@@ -479,14 +448,6 @@ func (m *setupMaps) finish(gen int, err error) {
 	}
 	m.show()
 	m.s.relayout()
-}
-
-// stop cancels a running map; the points that arrived stay.
-func (m *setupMaps) stop() {
-	if m.running != nil {
-		m.running()
-		m.running = nil
-	}
 }
 
 // show draws the map shown: curves for one variable, the chosen quantity

@@ -41,9 +41,6 @@ type setupSearch struct {
 	viscous   *widget.Check
 	budget    *widget.Entry
 	msg       *widget.Label
-	run       *widget.Button
-	cancel    *widget.Button
-	progress  *widget.ProgressBar
 	status    *widget.Label
 	table     *widget.Label
 	apply     *widget.Button
@@ -54,9 +51,8 @@ type setupSearch struct {
 	planeCell *readoutBox
 	readout   *widget.Label
 
-	running context.CancelFunc
-	gen     int
-	cur     *searchRun
+	*runControls
+	cur *searchRun
 }
 
 // searchRun is a search: its inputs, the path so far and the answer.
@@ -99,12 +95,7 @@ func newSetupSearch(s *setupWindow) *setupSearch {
 	p.budget = widget.NewEntry()
 	p.budget.SetText(fmt.Sprint(engine.DefaultSearchEvaluations))
 	p.msg = message()
-	p.run = widget.NewButton("Search", p.start)
-	p.run.Importance = widget.HighImportance
-	p.cancel = widget.NewButton("Cancel", p.stop)
-	p.cancel.Hide()
-	p.progress = widget.NewProgressBar()
-	p.progress.Hide()
+	p.runControls = newRunControls("Search", p.start)
 	p.status = caption("Not run yet. The search starts from the study's own setting and finds a local optimum near it (Nelder and Mead's simplex, gonum/optimize), not necessarily the best setting within the bounds: a map of the same bounds shows whether there is a better one elsewhere.")
 	p.table = widget.NewLabel("")
 	p.table.Wrapping = fyne.TextWrapWord
@@ -130,7 +121,7 @@ func newSetupSearch(s *setupWindow) *setupSearch {
 		p.viscous,
 		row("At most (solves)", p.budget),
 		p.msg,
-		container.NewBorder(nil, nil, nil, p.cancel, p.run),
+		p.row,
 		p.progress, p.status,
 	)...)
 	result := container.NewVBox(heading("Best against start"), p.table,
@@ -306,43 +297,28 @@ func (p *setupSearch) begin(bounds []model.SetupRange, opt engine.SearchOptions,
 		r.forces = r.forces || b.Var.Kind == model.SetupSpeed
 	}
 	p.cur = r
-	p.gen++
-	gen := p.gen
-	ctx, cancel := context.WithCancel(context.Background())
-	p.running = cancel
-	p.run.Disable()
-	p.cancel.Show()
-	p.progress.SetValue(0)
-	p.progress.Show()
 	p.applyMsg.Hide()
-	p.show()
-	act := ctl.Activity()
-	act.Add()
-	go func() {
-		defer act.Done()
-		defer cancel()
+	do := p.s.w.do
+	p.launch(ctl.Activity(), func(ctx context.Context, gen int) {
 		res, err := runSearch(ctx, st, secs, bounds, opt, func(pt engine.Point) {
-			p.s.w.do(func() {
-				if gen == p.gen {
+			do(func() {
+				if p.current(gen) {
 					r.path = append(r.path, pt)
-					p.progress.SetValue(math.Min(1, float64(len(r.path))/float64(r.maxEvals)))
+					p.progressed(gen, float64(len(r.path))/float64(r.maxEvals))
 					p.show()
 				}
 			})
 		})
-		p.s.w.do(func() { p.finish(gen, res, err) })
-	}()
+		do(func() { p.finish(gen, res, err) })
+	})
+	p.show()
 	return nil
 }
 
 func (p *setupSearch) finish(gen int, res *engine.SearchResult, err error) {
-	if gen != p.gen {
+	if !p.end(gen) {
 		return
 	}
-	p.running = nil
-	p.run.Enable()
-	p.cancel.Hide()
-	p.progress.Hide()
 	r := p.cur
 	switch {
 	case errors.Is(err, context.Canceled):
@@ -357,14 +333,6 @@ func (p *setupSearch) finish(gen int, res *engine.SearchResult, err error) {
 	}
 	p.show()
 	p.s.relayout()
-}
-
-// stop cancels a running search.
-func (p *setupSearch) stop() {
-	if p.running != nil {
-		p.running()
-		p.running = nil
-	}
 }
 
 // objectiveValue is the shown value of the search's objective at a point:
@@ -403,7 +371,7 @@ func (p *setupSearch) show() {
 		return
 	}
 	st := r.status
-	if st == "" && p.running != nil {
+	if st == "" && p.busy() {
 		st = fmt.Sprintf("Running: %d solves of at most %d.", len(r.path), r.maxEvals)
 	}
 	p.status.SetText(st)
@@ -489,7 +457,7 @@ func orSig(v float64) string {
 // still at the start.
 func (p *setupSearch) syncButtons() {
 	r := p.cur
-	ok := r != nil && r.res != nil && p.running == nil && studiesEqual(r.st, p.s.w.ctl.Current())
+	ok := r != nil && r.res != nil && !p.busy() && studiesEqual(r.st, p.s.w.ctl.Current())
 	if ok && r.res.Feasible && !slices.Equal(r.res.Best.Values, r.res.Start.Values) {
 		p.apply.Enable()
 	} else {

@@ -28,18 +28,15 @@ type setupSpan struct {
 	span, plates *field
 	fieldMsg     *widget.Label
 	msg          *widget.Label
-	run, cancel  *widget.Button
-	progress     *widget.ProgressBar
 	status       *widget.Label
 	totals       *widget.Label
 	method       *widget.Label
 	load         *figureBox
 	readout      *widget.Label
 
-	running context.CancelFunc
-	gen     int
-	out     *engine.FiniteSpan // the estimate shown
-	outFor  *model.Study
+	*runControls
+	out    *engine.FiniteSpan // the estimate shown
+	outFor *model.Study
 }
 
 func newSetupSpan(s *setupWindow) *setupSpan {
@@ -64,12 +61,7 @@ func newSetupSpan(s *setupWindow) *setupSpan {
 	})
 	p.plates.SetPlaceHolder("none")
 	p.msg = message()
-	p.run = widget.NewButton("Estimate the finite wing", p.start)
-	p.run.Importance = widget.HighImportance
-	p.cancel = widget.NewButton("Cancel", p.stop)
-	p.cancel.Hide()
-	p.progress = widget.NewProgressBar()
-	p.progress.Hide()
+	p.runControls = newRunControls("Estimate the finite wing", p.start)
 	p.status = caption("Not run yet. The estimate solves the configuration over the angles its stations need (a polar, with the study's viscous setting), then the lifting line.")
 	p.totals = widget.NewLabel("")
 	p.totals.Wrapping = fyne.TextWrapWord
@@ -85,7 +77,7 @@ func newSetupSpan(s *setupWindow) *setupSpan {
 		caption("A rectangular wing of this span and the study's reference chord; the plates' height at both tips."),
 		p.fieldMsg,
 		p.msg,
-		container.NewBorder(nil, nil, nil, p.cancel, p.run),
+		p.row,
 		p.progress, p.status,
 		widget.NewSeparator(),
 		heading("Estimate"),
@@ -116,41 +108,21 @@ func (p *setupSpan) start() {
 		return
 	}
 	setMessage(p.msg, nil)
-	p.stop()
-	p.gen++
-	gen := p.gen
-	ctx, cancel := context.WithCancel(context.Background())
-	p.running = cancel
-	p.run.Disable()
-	p.cancel.Show()
-	p.progress.SetValue(0)
-	p.progress.Show()
+	do := p.s.w.do
+	p.launch(ctl.Activity(), func(ctx context.Context, gen int) {
+		out, err := runFiniteSpan(ctx, st, secs, func(done, total int) {
+			do(func() { p.progressed(gen, float64(done)/float64(total)) })
+		})
+		do(func() { p.finish(gen, st, out, err) })
+	})
 	p.status.SetText("Solving the polar…")
 	p.s.relayout()
-	act := ctl.Activity()
-	act.Add()
-	go func() {
-		defer act.Done()
-		defer cancel()
-		out, err := runFiniteSpan(ctx, st, secs, func(done, total int) {
-			p.s.w.do(func() {
-				if gen == p.gen {
-					p.progress.SetValue(float64(done) / float64(total))
-				}
-			})
-		})
-		p.s.w.do(func() { p.finish(gen, st, out, err) })
-	}()
 }
 
 func (p *setupSpan) finish(gen int, st *model.Study, out *engine.FiniteSpan, err error) {
-	if gen != p.gen {
+	if !p.end(gen) {
 		return
 	}
-	p.running = nil
-	p.run.Enable()
-	p.cancel.Hide()
-	p.progress.Hide()
 	switch {
 	case errors.Is(err, context.Canceled):
 		p.status.SetText("Cancelled.")
@@ -164,14 +136,6 @@ func (p *setupSpan) finish(gen int, st *model.Study, out *engine.FiniteSpan, err
 	}
 	p.show()
 	p.s.relayout()
-}
-
-// stop cancels a running estimate.
-func (p *setupSpan) stop() {
-	if p.running != nil {
-		p.running()
-		p.running = nil
-	}
 }
 
 // show writes the totals and draws the spanwise load of the estimate

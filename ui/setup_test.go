@@ -29,24 +29,33 @@ func openTwoElement(t *testing.T, w *Workbench) {
 	t.Fatal("no two-element example")
 }
 
+// inviscidMap opens the set-up window of the two-element example and runs
+// an inviscid map of the ride height from, to, step (inviscid, so it runs
+// in a test's time).
+func inviscidMap(t *testing.T, from, to, step string) (*Workbench, *setupMaps) {
+	t.Helper()
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabMaps)
+	m := w.setup.maps
+	m.viscous.SetChecked(false)
+	m.from[0].SetText(from)
+	m.to[0].SetText(to)
+	m.step[0].SetText(step)
+	test.Tap(m.run)
+	w.WaitIdle()
+	return w, m
+}
+
 // A ride-height map of the two-element example (inviscid, so it runs in
 // a test's time): every point streams in, the curves are drawn, the
 // readout describes a point, the study's own clearance is the curve's
 // marked value, and the CSV holds a row per point.
 func TestSetupMapRideHeight(t *testing.T) {
-	w := newTestBench(t)
-	openTwoElement(t, w)
-	w.openSetup(setupTabMaps)
-	m := w.setup.maps
+	_, m := inviscidMap(t, "40", "200", "40")
 	if got := m.var1.Selected; !strings.Contains(got, "clearance") {
 		t.Fatalf("first variable %q, want the clearance in ground effect", got)
 	}
-	m.from[0].SetText("40")
-	m.to[0].SetText("200")
-	m.step[0].SetText("40")
-	m.viscous.SetChecked(false)
-	test.Tap(m.run)
-	w.WaitIdle()
 	r := m.run0
 	if r == nil || r.done != 5 || r.total() != 5 || !m.msg.Hidden {
 		t.Fatalf("map: %+v, message %q", r, m.msg.Text)
@@ -228,16 +237,7 @@ func TestSetupSearchApplyAndPin(t *testing.T) {
 // The team report carries the set-up page once the set-up window has a
 // one-variable map and a finite-span estimate of the current study.
 func TestSetupReportPage(t *testing.T) {
-	w := newTestBench(t)
-	openTwoElement(t, w)
-	w.openSetup(setupTabMaps)
-	m := w.setup.maps
-	m.viscous.SetChecked(false)
-	m.from[0].SetText("40")
-	m.to[0].SetText("120")
-	m.step[0].SetText("40")
-	test.Tap(m.run)
-	w.WaitIdle()
+	w, _ := inviscidMap(t, "40", "120", "40")
 	test.Tap(w.setup.span.run)
 	w.WaitIdle()
 	part := w.setup.reportPart()
@@ -264,16 +264,7 @@ func TestSetupReportPage(t *testing.T) {
 // The pointer over a map's curve reads out the point under it; leaving
 // the figure clears the readout.
 func TestSetupReadoutUnderPointer(t *testing.T) {
-	w := newTestBench(t)
-	openTwoElement(t, w)
-	w.openSetup(setupTabMaps)
-	m := w.setup.maps
-	m.viscous.SetChecked(false)
-	m.from[0].SetText("40")
-	m.to[0].SetText("120")
-	m.step[0].SetText("40")
-	test.Tap(m.run)
-	w.WaitIdle()
+	_, m := inviscidMap(t, "40", "120", "40")
 	box := m.curves[engine.QuantityLoad]
 	f := box.Figure()
 	if f == nil {
