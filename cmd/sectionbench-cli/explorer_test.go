@@ -214,3 +214,20 @@ func TestSearchReadmeExample(t *testing.T) {
 		t.Errorf("best α %g Cl %g Cd %g (start Cd %v, feasible %v): want α 2.67 ± 0.01, Cl 0.300–0.301, less drag than the start", a, cl, cd, start["cd"], m["feasible"])
 	}
 }
+
+// A speed map of an upright wing gives lift, not downforce, per metre of
+// span, growing as the dynamic pressure ½ρV² (the coefficients stay the
+// panel method's: the inviscid map has no Reynolds number effect), so 30
+// m/s gives nine times the lift of 10 m/s (closed form).
+func TestMapSpeedUpright(t *testing.T) {
+	m := runJSON(t, "map", "--study", example("single-free-air.json"), "--vary", "speed_mps=10:30:10", "--inviscid", "--format", "json")
+	pts := m["points"].([]any)
+	first, last := pts[0].(map[string]any), pts[2].(map[string]any)
+	if _, ok := first["downforce_per_span_n_per_m"]; ok {
+		t.Error("an upright wing's map has downforce_per_span_n_per_m")
+	}
+	l10, l30 := first["lift_per_span_n_per_m"].(float64), last["lift_per_span_n_per_m"].(float64)
+	if math.Abs(l30/l10-9) > 1e-9 {
+		t.Errorf("lift %g N/m at 10 m/s, %g at 30 m/s: ratio %g, want 9", l10, l30, l30/l10)
+	}
+}
