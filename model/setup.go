@@ -26,6 +26,16 @@ import (
 // elements behind element K with it (PlaceSlot), as the window's slot
 // fields do.
 
+// SuctionSurface names an element's suction side as mounted: "upper" on
+// an upright wing, "lower" on an inverted one (the separation a map and a
+// search judge is this side's).
+func SuctionSurface(inverted bool) string {
+	if inverted {
+		return "lower"
+	}
+	return "upper"
+}
+
 // SetupKind is the kind of a set-up variable.
 type SetupKind int
 

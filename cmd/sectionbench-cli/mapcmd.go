@@ -269,7 +269,7 @@ func mapText(w io.Writer, st *model.Study, vars []model.SetupVariable, points []
 		head += "drag N/m\t"
 	}
 	for k := range st.Elements {
-		head += fmt.Sprintf("elements[%d] separation x/c (%s)\t", k, suctionWord(st.Inverted))
+		head += fmt.Sprintf("elements[%d] separation x/c (%s)\t", k, model.SuctionSurface(st.Inverted))
 	}
 	fmt.Fprintln(tw, head+"state\t")
 	for _, p := range points {
@@ -311,12 +311,4 @@ func mapText(w io.Writer, st *model.Study, vars []model.SetupVariable, points []
 	}
 	_, err := fmt.Fprintln(w, caution)
 	return err
-}
-
-// suctionWord names the suction side as mounted.
-func suctionWord(inverted bool) string {
-	if inverted {
-		return "lower"
-	}
-	return "upper"
 }

@@ -22,7 +22,7 @@ import (
 func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupVariable, points []engine.Point) error {
 	m.AlphaDeg = NoAngle
 	units := "angles in degrees, lengths in millimetres, speed in m/s, forces in N per metre of span; coefficients on the reference chord, cl positive away from the ground (standard sense); " + model.FrameText
-	if err := m.write(w, units, "along each element's own chord from its leading edge, on its suction side as mounted ("+suction(st.Inverted)+" surface); empty: attached, or the point did not converge"); err != nil {
+	if err := m.write(w, units, "along each element's own chord from its leading edge, on its suction side as mounted ("+model.SuctionSurface(st.Inverted)+" surface); empty: attached, or the point did not converge"); err != nil {
 		return err
 	}
 	load := "lift_per_span_n_per_m"
@@ -68,12 +68,4 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 		}
 	}
 	return t.close()
-}
-
-// suction names the suction side as mounted.
-func suction(inverted bool) string {
-	if inverted {
-		return "lower"
-	}
-	return "upper"
 }
