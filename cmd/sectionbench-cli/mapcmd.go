@@ -136,11 +136,13 @@ type jsonMap struct {
 type explorerFlags struct {
 	vary     varyFlag
 	inviscid bool
+	progress bool
 }
 
 func addExplorerFlags(fs *flags, what string) *explorerFlags {
 	ef := &explorerFlags{}
 	fs.Var(&ef.vary, "vary", what+" (repeat the flag for another variable); NAME is alpha_deg, clearance_mm, speed_mps, elements[K].deflection_deg, elements[K].gap_mm or elements[K].overlap_mm (K from 0, the main element; as mounted)")
+	fs.BoolVar(&ef.progress, "progress", false, "write a line on standard error after each solve (the viscous solution is slow)")
 	fs.BoolVar(&ef.inviscid, "inviscid", false, "solve with the panel method only (default: the coupled viscous solution whenever the study has a speed or a Reynolds number)")
 	return ef
 }
@@ -196,7 +198,18 @@ func cmdMap(args []string, stdout, stderr io.Writer) error {
 	}
 	vars := rangeVars(ranges)
 	opt := engine.MapOptions{PointOptions: engine.PointOptions{Inviscid: ef.inviscid, CoupledMaxIterations: coupledMaxIterations}}
-	points, err := engine.Map(context.Background(), st, secs, ranges, opt, nil, nil)
+	var each func(engine.Point)
+	if ef.progress {
+		done, conv := 0, 0
+		each = func(p engine.Point) {
+			done++
+			if p.Converged {
+				conv++
+			}
+			fmt.Fprintf(stderr, "map: %d points solved, %d converged\n", done, conv)
+		}
+	}
+	points, err := engine.Map(context.Background(), st, secs, ranges, opt, nil, each)
 	if err != nil {
 		return setupUsage(err)
 	}

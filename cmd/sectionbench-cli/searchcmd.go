@@ -68,7 +68,19 @@ func cmdSearch(args []string, stdout, stderr io.Writer) error {
 	if mode == string(model.ViscousCoupled) || fs.isSet("attached-to") {
 		opt.AttachedToXC = *attached
 	}
-	res, err := engine.Search(context.Background(), st, secs, bounds, opt, nil)
+	var each func(engine.Point)
+	if ef.progress {
+		n := 0
+		each = func(p engine.Point) {
+			n++
+			state := "converged"
+			if !p.Converged {
+				state = "not converged"
+			}
+			fmt.Fprintf(stderr, "search: solve %d at %v, %s\n", n, p.Values, state)
+		}
+	}
+	res, err := engine.Search(context.Background(), st, secs, bounds, opt, each)
 	if err != nil {
 		return setupUsage(err)
 	}
