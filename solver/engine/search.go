@@ -363,7 +363,7 @@ func search(ctx context.Context, eval, par evalFunc, bounds []model.SetupRange, 
 	settings := &optimize.Settings{
 		// The start is solved already: Minimize would solve it again.
 		InitValues: &optimize.Location{F: values[0]},
-		Converger: &optimize.FunctionConverge{Relative: tol, Absolute: tol * 1e-3, Iterations: searchStallIterations * n},
+		Converger:  &optimize.FunctionConverge{Relative: tol, Absolute: tol * 1e-3, Iterations: searchStallIterations * n},
 	}
 	r, err := optimize.Minimize(problem, u0, settings, method)
 	if evalErr != nil {
