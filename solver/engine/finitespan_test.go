@@ -28,7 +28,7 @@ func TestFiniteSpanMatchesStraightCurve(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if math.Abs(fs.AspectRatio-6) > 1e-9 || fs.EffectiveAspectRatio != fs.AspectRatio {
+	if math.Abs(fs.AspectRatio-6) > 1e-9 || fs.EffectiveAspectRatio != fs.AspectRatio || fs.LowAspectRatio {
 		t.Fatalf("aspect ratio %g, effective %g; want 6 without end plates", fs.AspectRatio, fs.EffectiveAspectRatio)
 	}
 	var lo, hi float64
@@ -85,6 +85,11 @@ func TestFiniteSpanEndPlatesInverted(t *testing.T) {
 	}
 	t.Logf("2-D × span %.1f N; no plates %.1f N (AR %.2f, e %.3f, induced %.1f N); plates 250 mm %.1f N (AR %.2f, induced %.1f N); polar %g..%g°",
 		bare.Load2DN, bare.LoadN, bare.EffectiveAspectRatio, bare.Efficiency, bare.InducedDragN, plated.LoadN, plated.EffectiveAspectRatio, plated.InducedDragN, plated.PolarFromDeg, plated.PolarToDeg)
+	// The README: below an effective aspect ratio of about 4 the lifting
+	// line is flagged a rough guide.
+	if !bare.LowAspectRatio || !plated.LowAspectRatio || LowAspectRatioLimit != 4 {
+		t.Errorf("aspect ratios %.2f and %.2f not flagged below %d", bare.EffectiveAspectRatio, plated.EffectiveAspectRatio, LowAspectRatioLimit)
+	}
 	if want := bare.AspectRatio * (1 + 1.9*0.25/st.Flow.SpanM); math.Abs(plated.EffectiveAspectRatio-want) > 1e-12 {
 		t.Errorf("effective aspect ratio %g, want %g", plated.EffectiveAspectRatio, want)
 	}
