@@ -67,6 +67,9 @@ func TestCoupledNACA0012Ladson(t *testing.T) {
 		if a > 1 && !(cs.Cl < cs.ClInviscid && math.Abs(cs.Cl-cl) < math.Abs(cs.ClInviscid-cl)) {
 			t.Errorf("α = %.2f°: coupled Cl %.4f is not between the inviscid %.4f and Ladson's %.4f", a, cs.Cl, cs.ClInviscid, cl)
 		}
+		if a > 1 && cs.Cl-cl > readmeLiftExcess {
+			t.Errorf("α = %.2f°: coupled Cl %.4f is %.3f above Ladson's %.4f; the README states at most %.2f", a, cs.Cl, cs.Cl-cl, cl, readmeLiftExcess)
+		}
 		if tr := cs.Elements[0].Upper.Transition; !(tr > 0 && tr <= 0.05+1e-9) {
 			t.Errorf("α = %.2f°: upper transition at x/c %.4f, want at or ahead of the trip at 0.05", a, tr)
 		}
@@ -77,6 +80,12 @@ func TestCoupledNACA0012Ladson(t *testing.T) {
 		t.Errorf("Cl max %.4f at %.2f°; Ladson 1.6116 at 17.13°, ±0.1 and ±1.5° allowed", clMax, alphaClMax)
 	}
 }
+
+// readmeLiftExcess is the README's statement of how far the coupled Cl
+// may lie above the wind-tunnel data (its Limitations, in Cl): asserted
+// here so the two cannot drift. It is the project's present shortfall,
+// not a tolerance from the sources (the issue asks 3 % and 4 %).
+const readmeLiftExcess = 0.13
 
 // convergenceCount records which angles of a polar converged; check fails
 // if any did not (every angle of the validation polars converges).
@@ -222,6 +231,9 @@ func TestCoupledE387Illinois(t *testing.T) {
 			}
 			if !(cs.Cl < cs.ClInviscid && math.Abs(cs.Cl-cl) < math.Abs(cs.ClInviscid-cl)) {
 				t.Errorf("%s α = %.2f°: coupled Cl %.4f is not between the inviscid %.4f and the measured %.3f", name, a, cs.Cl, cs.ClInviscid, cl)
+			}
+			if cs.Cl-cl > readmeLiftExcess {
+				t.Errorf("%s α = %.2f°: coupled Cl %.4f is %.3f above the measured %.3f; the README states at most %.2f", name, a, cs.Cl, cs.Cl-cl, cl, readmeLiftExcess)
 			}
 		}
 		conv.check(t)
