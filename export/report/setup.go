@@ -156,6 +156,9 @@ func (r *writer) finiteSpanSection(fs *engine.FiniteSpan) {
 	if fs.EndPlateHeightM > 0 {
 		kv = append(kv, [2]string{"End plates, effective aspect ratio", num(fs.EndPlateHeightM*1000, 0) + " mm, " + num(fs.EffectiveAspectRatio, 2)})
 	}
+	if fs.GroundHeightM > 0 {
+		kv = append(kv, [2]string{"Lifting line above the ground (trailing vortices mirrored)", num(fs.GroundHeightM*1000, 0) + " mm"})
+	}
 	kv = append(kv, [2]string{"Span efficiency", num(fs.Efficiency, 3)})
 	if math.IsNaN(fs.DynamicPressurePa) {
 		kv = append(kv,

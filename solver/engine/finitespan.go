@@ -11,10 +11,10 @@ import (
 )
 
 // FiniteSpanMethod names the finite-span method for every output.
-const FiniteSpanMethod = "Prandtl's lifting line solved by Glauert's Fourier series with the section's own polar, iterated past its straight part (Anderson, Fundamentals of Aerodynamics, ch. 5); end plates by the effective aspect ratio AR(1 + 1.9 h/b) attributed to Hoerner (from memory)"
+const FiniteSpanMethod = "Prandtl's lifting line solved by Glauert's Fourier series with the section's own polar, iterated past its straight part (Anderson, Fundamentals of Aerodynamics, ch. 5); in ground effect the trailing vortices mirrored in the ground at the main element's quarter-chord height; end plates by the effective aspect ratio AR(1 + 1.9 h/b) attributed to Hoerner (from memory)"
 
 // FiniteSpanCaution is the warning every output of the estimate carries.
-const FiniteSpanCaution = "An estimate from two-dimensional polars: a rectangular wing of the study's span and reference chord, no twist, no ground under the trailing vortices, end plates only through an effective aspect ratio, and the tip load falling to zero as on a wing without plates. The wind tunnel or the track must confirm it. Structure and mounting follow the competition's rules and qualified review."
+const FiniteSpanCaution = "An estimate from two-dimensional polars: a rectangular wing of the study's span and reference chord, no twist, a flat fixed ground (in ground effect) seen by the trailing vortices through their images, end plates only through an effective aspect ratio, and the tip load falling to zero as on a wing without plates. The wind tunnel or the track must confirm it. Structure and mounting follow the competition's rules and qualified review."
 
 // FiniteSpan is the finite-span estimate of a study: a rectangular wing of
 // the study's span and reference chord whose every station has the
@@ -27,10 +27,14 @@ const FiniteSpanCaution = "An estimate from two-dimensional polars: a rectangula
 // profile drag NaN without a viscous polar at the angles the stations
 // reach).
 type FiniteSpan struct {
-	Inverted             bool
-	AlphaDeg             float64
-	SpanM, ChordM        float64
-	EndPlateHeightM      float64
+	Inverted        bool
+	AlphaDeg        float64
+	SpanM, ChordM   float64
+	EndPlateHeightM float64
+	// GroundHeightM is the lifting line's height above the ground (the
+	// main element's quarter chord at the study's angle), where the
+	// trailing vortices' images are; 0 in free air.
+	GroundHeightM        float64
 	AreaM2               float64
 	AspectRatio          float64 // b/c
 	EffectiveAspectRatio float64 // with the end plates; the lifting line is solved at this one
@@ -174,13 +178,14 @@ func FiniteSpanEstimate(st *model.Study, res *Result) (*FiniteSpan, error) {
 	h := st.Flow.EndPlateHeightMM / 1000
 	ar := b / c
 	arEff := liftingline.EndPlateAspectRatio(ar, h, b)
-	ll, err := liftingline.Solve(liftingline.Rectangular(arEff*c, c), tbl, st.Flow.AlphaDeg, liftingline.Options{})
+	opt := liftingline.Options{GroundHeightM: groundHeight(l, st.Flow.AlphaDeg)}
+	ll, err := liftingline.Solve(liftingline.Rectangular(arEff*c, c), tbl, st.Flow.AlphaDeg, opt)
 	if err != nil {
 		return nil, fmt.Errorf("finite-span estimate: %w", err)
 	}
 	fs := &FiniteSpan{
 		Inverted: st.Inverted, AlphaDeg: st.Flow.AlphaDeg,
-		SpanM: b, ChordM: c, EndPlateHeightM: h, AreaM2: b * c,
+		SpanM: b, ChordM: c, EndPlateHeightM: h, AreaM2: b * c, GroundHeightM: opt.GroundHeightM,
 		AspectRatio: ar, EffectiveAspectRatio: arEff,
 		Load: ll.CL, CDi: ll.CDi, CDp: ll.CDp, Efficiency: ll.Efficiency,
 		DynamicPressurePa: math.NaN(),
@@ -205,4 +210,16 @@ func FiniteSpanEstimate(st *model.Study, res *Result) (*FiniteSpan, error) {
 		})
 	}
 	return fs, nil
+}
+
+// groundHeight is the height above the ground of the main element's
+// quarter chord at alphaDeg, where the lifting line lies; 0 in free air.
+func groundHeight(l *model.Layout, alphaDeg float64) float64 {
+	if !l.Ground || len(l.Elements) == 0 {
+		return 0
+	}
+	elems, groundY, _ := l.At(alphaDeg)
+	e := elems[0]
+	q := e.LeadingEdge.Add(e.TrailingEdge.Sub(e.LeadingEdge).Scale(0.25))
+	return q.Y - groundY
 }

@@ -59,6 +59,9 @@ func TestFiniteSpanMatchesStraightCurve(t *testing.T) {
 	if !(fs.LoadN < fs.Load2DN) || !(fs.InducedDragN > 0) {
 		t.Errorf("lift %g N, two-dimensional over the span %g N, induced drag %g N", fs.LoadN, fs.Load2DN, fs.InducedDragN)
 	}
+	if fs.GroundHeightM != 0 {
+		t.Errorf("free air: the lifting line %g m above a ground", fs.GroundHeightM)
+	}
 	if !math.IsNaN(fs.ProfileDragN) || fs.ViscousPolar {
 		t.Errorf("profile drag %g N from an inviscid polar, want NaN", fs.ProfileDragN)
 	}
@@ -83,8 +86,15 @@ func TestFiniteSpanEndPlatesInverted(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	t.Logf("2-D × span %.1f N; no plates %.1f N (AR %.2f, e %.3f, induced %.1f N); plates 250 mm %.1f N (AR %.2f, induced %.1f N); polar %g..%g°",
-		bare.Load2DN, bare.LoadN, bare.EffectiveAspectRatio, bare.Efficiency, bare.InducedDragN, plated.LoadN, plated.EffectiveAspectRatio, plated.InducedDragN, plated.PolarFromDeg, plated.PolarToDeg)
+	// The lifting line lies at the main element's quarter chord, above
+	// the ground by more than the clearance (the lowest point) and less
+	// than the clearance and the chord.
+	l := clearanceM(st)
+	if !(bare.GroundHeightM > l && bare.GroundHeightM < l+st.Elements[0].ChordMM/1000) {
+		t.Errorf("lifting line %.3f m above the ground, clearance %.3f m", bare.GroundHeightM, l)
+	}
+	t.Logf("lifting line %.3f m above the ground; 2-D × span %.1f N; no plates %.1f N (AR %.2f, e %.3f, induced %.1f N); plates 250 mm %.1f N (AR %.2f, induced %.1f N); polar %g..%g°",
+		bare.GroundHeightM, bare.Load2DN, bare.LoadN, bare.EffectiveAspectRatio, bare.Efficiency, bare.InducedDragN, plated.LoadN, plated.EffectiveAspectRatio, plated.InducedDragN, plated.PolarFromDeg, plated.PolarToDeg)
 	// The README: below an effective aspect ratio of about 4 the lifting
 	// line is flagged a rough guide.
 	if !bare.LowAspectRatio || !plated.LowAspectRatio || LowAspectRatioLimit != 4 {
@@ -102,6 +112,8 @@ func TestFiniteSpanEndPlatesInverted(t *testing.T) {
 		t.Errorf("induced drag factor C_Di/C_L² with plates %g, not below %g without", f, g)
 	}
 }
+
+func clearanceM(st *model.Study) float64 { return st.Ground.ClearanceMM / 1000 }
 
 func TestFiniteSpanNeedsSpan(t *testing.T) {
 	st, secs := engineStudy(t, "0012")

@@ -50,9 +50,12 @@
 //
 // Lifting-line theory assumes a straight, unswept wing of moderate to large
 // aspect ratio (Weissinger's method is the usual choice below about 4,
-// common practice) in free air: the section curve may come from a
-// two-dimensional solution in ground effect, but the trailing vortices see
-// no ground. End plates enter only through an effective aspect ratio
+// common practice). Near a flat ground (Options.GroundHeightM) the trailing
+// vortices get mirror images of opposite strength, which lessen the
+// induced angle (imageInfluence); the bound vortex's image is the section
+// curve's business (a two-dimensional solution in ground effect), and then
+// the induced drag is (2/(V S)) ∫ Γ α_i dy rather than the Trefftz-plane
+// sum. End plates enter only through an effective aspect ratio
 // (EndPlateAspectRatio). The answer is an estimate that a wind tunnel or
 // the track must confirm.
 package liftingline

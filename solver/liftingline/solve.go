@@ -15,6 +15,10 @@ type Options struct {
 	Stations int
 	// MaxIterations bounds Newton's method; 0 means 200.
 	MaxIterations int
+	// GroundHeightM, when positive, is the lifting line's height above a
+	// flat ground: the trailing vortices get their mirror images
+	// (imageInfluence), which lessen the induced angle. 0 is free air.
+	GroundHeightM float64
 }
 
 // DefaultStations is the collocation count Solve uses unless told: the
@@ -94,6 +98,10 @@ func Solve(p Planform, sec Section, alphaDeg float64, opt Options) (*Result, err
 		}
 	}
 	order := func(j int) float64 { return float64(2*j + 1) }
+	var img *mat.Dense // image upwash per coefficient, radians; nil in free air
+	if opt.GroundHeightM > 0 {
+		img = imageInfluence(b, 2*opt.GroundHeightM, theta)
+	}
 
 	a := make([]float64, n)
 	alphaI := make([]float64, n) // radians
@@ -112,6 +120,11 @@ func Solve(p Planform, sec Section, alphaDeg float64, opt Options) (*Result, err
 				ai += order(j) * x[j] * s
 			}
 			ai /= math.Sin(theta[k])
+			if img != nil {
+				for j := range x {
+					ai -= img.At(k, j) * x[j]
+				}
+			}
 			cl, sl, d, err := sec.At(alphaDeg - ai*180/math.Pi)
 			if err != nil {
 				return math.Inf(1), err
@@ -139,7 +152,11 @@ func Solve(p Planform, sec Section, alphaDeg float64, opt Options) (*Result, err
 		for k := range theta {
 			for j := 0; j < n; j++ {
 				s := sinT.At(k, j)
-				jac.Set(k, j, 4*b*s/chord[k]+math.Max(slope[k], minSlope)*order(j)*s/math.Sin(theta[k]))
+				dai := order(j) * s / math.Sin(theta[k])
+				if img != nil {
+					dai -= img.At(k, j)
+				}
+				jac.Set(k, j, 4*b*s/chord[k]+math.Max(slope[k], minSlope)*dai)
 			}
 		}
 		if err := step.SolveVec(jac, mat.NewVecDense(n, append([]float64(nil), res...))); err != nil {
@@ -183,9 +200,23 @@ func Solve(p Planform, sec Section, alphaDeg float64, opt Options) (*Result, err
 		sum += order(j) * a[j] * a[j]
 	}
 	r.CDi = math.Pi * ar * sum
+	if img != nil {
+		// In ground effect the Trefftz-plane sum does not hold: C_Di =
+		// (2/(V S)) ∫ Γ α_i dy = 2 AR ∫₀^π (Σ A_n sin nθ) α_i sin θ dθ, by
+		// the midpoint rule on the stations (both halves).
+		r.CDi = 0
+		for k := range theta {
+			g := 0.0
+			for j := range a {
+				g += a[j] * sinT.At(k, j)
+			}
+			r.CDi += g * alphaI[k] * math.Sin(theta[k])
+		}
+		r.CDi *= 2 * ar * 2 * math.Pi / float64(2*n)
+	}
 	r.Delta = math.NaN()
 	if a[0] != 0 {
-		r.Delta = sum/(a[0]*a[0]) - 1
+		r.Delta = r.CDi*math.Pi*ar/(r.CL*r.CL) - 1
 	}
 	r.Efficiency = 1 / (1 + r.Delta)
 	// C_Dp = (1/S) ∫ c c_d dy = (b/S) ∫₀^{π/2} c c_d sin θ dθ over both
@@ -216,4 +247,37 @@ func Solve(p Planform, sec Section, alphaDeg float64, opt Options) (*Result, err
 		r.Stations[i], r.Stations[j] = r.Stations[j], r.Stations[i]
 	}
 	return r, nil
+}
+
+// imageInfluence returns, for a ground at distance d/2 below the lifting
+// line of span b, the upwash angle the mirror images of the trailing
+// vortices induce at each station θ_k per Fourier coefficient A_j:
+//
+//	α_img(θ_k) = Σ_j G_kj A_j,   G_kj = (b n_j / 2π) ∫₀^π cos(n_j θ) s/(s² + d²) dθ,
+//	s = (b/2)(cos θ − cos θ_k),
+//
+// from the image of each trailing vortex, of opposite strength and d
+// below it, whose vertical velocity at the line is (1/4π) Γ′ s/(s² + d²)
+// against the real vortex's (1/4π) Γ′/s. As d → 0 the kernel becomes the
+// free-air one and the images cancel the downwash (Glauert's integral);
+// as d → ∞ they vanish. The integral is by the midpoint rule with points
+// close enough to resolve the kernel's width d.
+func imageInfluence(b, d float64, theta []float64) *mat.Dense {
+	n := len(theta)
+	m := int(math.Max(2000, math.Ceil(40*math.Pi*b/(2*d))))
+	g := mat.NewDense(n, n, nil)
+	h := math.Pi / float64(m)
+	for k, t0 := range theta {
+		c0 := math.Cos(t0)
+		for i := range m {
+			t := (float64(i) + 0.5) * h
+			s := b / 2 * (math.Cos(t) - c0)
+			ker := s / (s*s + d*d) * h
+			for j := range n {
+				nj := float64(2*j + 1)
+				g.Set(k, j, g.At(k, j)+b*nj/(2*math.Pi)*math.Cos(nj*t)*ker)
+			}
+		}
+	}
+	return g
 }
