@@ -169,6 +169,23 @@ func stagnationOnNode(sol *Solution) bool {
 	return false
 }
 
+// sameElements reports whether o has as many elements as s with as many
+// panels each: a solution of o can then warm-start one of s (its
+// variables are carried over by arc length along each surface,
+// carryFrom), as a map over ride height or flap gap does from its
+// neighbouring setting.
+func (s *System) sameElements(o *System) bool {
+	if o == nil || len(o.geo.elems) != len(s.geo.elems) {
+		return false
+	}
+	for k := range s.geo.elems {
+		if s.geo.elems[k].np != o.geo.elems[k].np {
+			return false
+		}
+	}
+	return true
+}
+
 // warmDirectIterations is how many Newton iterations a warm start tries
 // with the full coupling before it turns to the continuation.
 const warmDirectIterations = 12
@@ -276,7 +293,7 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	var conv bool
 	var iters int
 	var res float64
-	if warm != nil && warm.state != nil && warm.state.sol.sys == s && cs.warmFrom(warm.state) {
+	if warm != nil && warm.state != nil && s.sameElements(warm.state.sol.sys) && cs.warmFrom(warm.state) {
 		// First the full coupling straight from the neighbour's state,
 		// which converges in a few iterations when the neighbour is
 		// close; failing that, a continuation from the neighbour's
@@ -290,7 +307,7 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 		if !conv {
 			cs.restore(snap)
 			var n int
-			conv, n, res, err = cs.solve(ctx, warm.state.ue())
+			conv, n, res, err = cs.solve(ctx, cs.warmUe)
 			iters += n
 			if err != nil {
 				return nil, err

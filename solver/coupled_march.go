@@ -411,7 +411,7 @@ func (cs *coupledState) restagnate() bool {
 // relayout lays the stations out at new splits and carries the variables
 // over (carryFrom).
 func (cs *coupledState) relayout(newStag []int) {
-	old := cs.stationValues()
+	old := cs.stationValues(nil)
 	copy(cs.stag, newStag)
 	cs.layout()
 	cs.carryFrom(old)
@@ -429,12 +429,17 @@ type stationValue struct {
 	kind              bl.Kind
 }
 
-func (cs *coupledState) stationValues() stationValues {
+// ue, if not nil, gives each station's edge velocity to carry along (in
+// the ueM field); otherwise the march's, if any.
+func (cs *coupledState) stationValues(ue []float64) stationValues {
 	v := stationValues{surface: make(map[[2]int][]stationValue), wake: make(map[[2]int]stationValue)}
+	if ue == nil {
+		ue = cs.ueMarch
+	}
 	for i, s := range cs.st {
 		x := stationValue{xi: s.xi, c: cs.c[i], th: cs.th[i], m: cs.m[i], kind: s.kind}
-		if cs.ueMarch != nil {
-			x.ueM = cs.ueMarch[i]
+		if ue != nil {
+			x.ueM = ue[i]
 		}
 		if s.side == sideWake {
 			v.wake[[2]int{s.elem, s.node}] = x
@@ -457,7 +462,8 @@ func (cs *coupledState) stationValues() stationValues {
 // node's. Carried over by node instead, the stations near a moved
 // stagnation point start far from their equations (a node that changed
 // surface takes a value from the other end of its ξ range).
-func (cs *coupledState) carryFrom(old stationValues) {
+func (cs *coupledState) carryFrom(old stationValues) (ue []float64) {
+	ue = make([]float64, len(cs.st))
 	for i := range cs.st {
 		s := &cs.st[i]
 		var v stationValue
@@ -486,6 +492,7 @@ func (cs *coupledState) carryFrom(old stationValues) {
 			}
 			s.kind = v.kind
 		}
+		ue[i] = v.ueM
 		if cs.ueMarch != nil {
 			cs.ueMarch[i] = v.ueM
 		}
@@ -497,11 +504,13 @@ func (cs *coupledState) carryFrom(old stationValues) {
 	}
 	// A laminar station after a turbulent one is put right by retype.
 	cs.retype(false)
+	return ue
 }
 
 // warmFrom starts from a neighbouring solution's state, carried over by
 // arc length (carryFrom) onto this angle's own layout from its inviscid
-// stagnation points; it reports false (and changes nothing) when the
+// stagnation points, with the neighbour's edge velocities (warmUe, the
+// start of a continuation from it); it reports false (and changes nothing) when the
 // wakes differ in length. A transition station that is laminar at this
 // angle turns laminar (retype).
 func (cs *coupledState) warmFrom(w *coupledState) bool {
@@ -513,7 +522,7 @@ func (cs *coupledState) warmFrom(w *coupledState) bool {
 			return false
 		}
 	}
-	cs.carryFrom(w.stationValues())
+	cs.warmUe = cs.carryFrom(w.stationValues(w.ue()))
 	cs.retype(true)
 	return true
 }

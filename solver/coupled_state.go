@@ -56,6 +56,7 @@ type sigmaTerm struct {
 // and the boundary-layer variables.
 type coupledState struct {
 	strategy strategy
+	warmUe   []float64 // a warm start's edge velocities, carried onto this layout (warmFrom)
 	sol      *Solution
 	geo      *geometry
 	opt      CoupledOptions
