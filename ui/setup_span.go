@@ -215,7 +215,11 @@ func finiteSpanText(fs *engine.FiniteSpan, stale bool) string {
 	if fs.GroundHeightM > 0 {
 		t += fmt.Sprintf(" Lifting line %s mm above the ground (its trailing vortices mirrored).", num(math.Round(fs.GroundHeightM*1000)))
 	}
-	t += fmt.Sprintf("\nSpan efficiency %s.\n", fixed(fs.Efficiency, 3))
+	t += fmt.Sprintf("\nSpan efficiency %s", fixed(fs.Efficiency, 3))
+	if fs.GroundHeightM > 0 {
+		t += " (above 1 in ground effect: the ground lessens the induced drag)"
+	}
+	t += ".\n"
 	if math.IsNaN(fs.DynamicPressurePa) {
 		t += fmt.Sprintf("%s coefficient %s (2-D %s); induced drag coefficient %s; profile %s. Give a speed for newtons.",
 			name, fixed(fs.Load, 3), orDash(fs.Load2DPerSpan, 3), fixed(fs.CDi, 4), orDash(fs.CDp, 4))
