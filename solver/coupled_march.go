@@ -369,6 +369,24 @@ func (cs *coupledState) laminarBelow(i int, ue []float64) bool {
 // the surface speed; if it left its panel, the surfaces are laid out anew
 // (relayout). It reports a new layout.
 func (cs *coupledState) restagnate() bool {
+	newStag, moved := cs.coupledSplits()
+	if !moved {
+		// Within its panel the stagnation point is held where the
+		// layout put it: moving the stations' ξ between Newton steps,
+		// outside the Jacobian, makes the iterations diverge (the first
+		// station's θ ∝ √ξ). The error is below one leading-edge panel
+		// in ξ.
+		return false
+	}
+	cs.relayout(newStag)
+	return true
+}
+
+// coupledSplits finds each element's stagnation point from the current
+// (coupled) edge velocities: the panel of the sign change of the surface
+// speed, searched from the present one, and its position, which it
+// stores in sStag. It reports whether any left its panel.
+func (cs *coupledState) coupledSplits() ([]int, bool) {
 	ue := cs.ue()
 	g := make([]float64, cs.geo.n)
 	for i := range cs.st {
@@ -396,16 +414,7 @@ func (cs *coupledState) restagnate() bool {
 			moved = true
 		}
 	}
-	if !moved {
-		// Within its panel the stagnation point is held where the
-		// layout put it: moving the stations' ξ between Newton steps,
-		// outside the Jacobian, makes the iterations diverge (the first
-		// station's θ ∝ √ξ). The error is below one leading-edge panel
-		// in ξ.
-		return false
-	}
-	cs.relayout(newStag)
-	return true
+	return newStag, moved
 }
 
 // relayout lays the stations out at new splits and carries the variables
@@ -508,8 +517,8 @@ func (cs *coupledState) carryFrom(old stationValues) (ue []float64) {
 }
 
 // warmFrom starts from a neighbouring solution's state, carried over by
-// arc length (carryFrom) onto this angle's own layout from its inviscid
-// stagnation points, with the neighbour's edge velocities (warmUe, the
+// arc length (carryFrom) onto the layout at the neighbour's stagnation
+// points, with the neighbour's edge velocities (warmUe, the
 // start of a continuation from it); it reports false (and changes nothing) when the
 // wakes differ in length. A transition station that is laminar at this
 // angle turns laminar (retype).
@@ -521,6 +530,15 @@ func (cs *coupledState) warmFrom(w *coupledState) bool {
 		if (cs.st[i].side == sideWake) != (w.st[i].side == sideWake) {
 			return false
 		}
+	}
+	if !slices.Equal(cs.stag, w.stag) {
+		// The neighbour's stagnation points are those of its coupled
+		// flow (iterate moves the layout to them), nearer this
+		// solution's than the inviscid ones at high lift, where the
+		// boundary layers take a quarter of the circulation away.
+		copy(cs.stag, w.stag)
+		copy(cs.sStag, w.sStag)
+		cs.layout()
 	}
 	cs.warmUe = cs.carryFrom(w.stationValues(w.ue()))
 	cs.retype(true)

@@ -209,7 +209,12 @@ func (cs *coupledState) solve(ctx context.Context, ueMarch []float64) (converged
 // laminar the iterations go on (at most maxRelaminarisations times), and
 // if they then fail, the converged state before is restored and returned:
 // its transition lies at most a few stations upstream of the consistent
-// one.
+// one. In the same way, with the strategy that holds the layout, a
+// converged solution whose stagnation points left their panels is laid
+// out again at them (relayout, the variables carried over by arc length)
+// and the iterations go on: at high lift the boundary layers take a
+// quarter of the circulation away and the stagnation points move by
+// several leading-edge panels (NACA 4412 at 12.5° converges only so).
 func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64) (converged bool, iters int, res float64, err error) {
 	var fallback *snapshot
 	var fallbackRes float64
@@ -230,7 +235,16 @@ func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64) (co
 			return true, iters, r, nil
 		}
 		snap := cs.snapshot()
-		if !cs.retype(true) {
+		changed := cs.retype(true)
+		if !cs.strategy.followStagnation && cs.ueMarch == nil {
+			// The layout follows the converged coupled stagnation
+			// points (between solutions, not between Newton steps).
+			if stag, moved := cs.coupledSplits(); moved {
+				cs.relayout(stag)
+				changed = true
+			}
+		}
+		if !changed {
 			return true, iters, r, nil
 		}
 		fallback, fallbackRes = &snap, r
