@@ -18,14 +18,14 @@ func TestFigureBoxNewestWins(t *testing.T) {
 	test.NewTempApp(t)
 	q := new(uiQueue)
 	act := session.NewActivity()
-	b := newFigureBox(act, q.post, fyne.NewSize(100, 80))
+	b := newFigureBox(act, q.Post, fyne.NewSize(100, 80))
 	win := test.NewWindow(b)
 	defer win.Close()
 	win.Resize(fyne.NewSize(200, 160))
 	wait := func() {
 		for {
 			act.Wait()
-			if !q.drain() {
+			if !q.Drain() {
 				return
 			}
 		}

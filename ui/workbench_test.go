@@ -6,7 +6,6 @@ import (
 	"os"
 	"path/filepath"
 	"strings"
-	"sync"
 	"testing"
 
 	"fyne.io/fyne/v2"
@@ -15,33 +14,11 @@ import (
 	"sectionbench/export"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
+	"sectionbench/ui/session/sessiontest"
 )
 
-// uiQueue stands in for the UI goroutine in tests: the test driver runs
-// fyne.Do at once on the calling goroutine, which would let workers touch
-// widgets while the test does. Posted functions wait here until the test
-// goroutine drains them.
-type uiQueue struct {
-	mu sync.Mutex
-	fs []func()
-}
-
-func (q *uiQueue) post(f func()) {
-	q.mu.Lock()
-	q.fs = append(q.fs, f)
-	q.mu.Unlock()
-}
-
-func (q *uiQueue) drain() bool {
-	q.mu.Lock()
-	fs := q.fs
-	q.fs = nil
-	q.mu.Unlock()
-	for _, f := range fs {
-		f()
-	}
-	return len(fs) > 0
-}
+// uiQueue stands in for the UI goroutine in tests.
+type uiQueue = sessiontest.Queue
 
 // openTestBench opens a study (the demo if path is "") in a headless
 // workbench without autosave and waits for its first result.
@@ -54,7 +31,7 @@ func openTestBench(t *testing.T, path string) *Workbench {
 func openTestBenchWith(t *testing.T, path string, opt Options) *Workbench {
 	t.Helper()
 	q := new(uiQueue)
-	w, err := newWorkbench(fyne.CurrentApp(), path, opt, q.post, q.drain)
+	w, err := newWorkbench(fyne.CurrentApp(), path, opt, q.Post, q.Drain)
 	if err != nil {
 		t.Fatalf("New: %v", err)
 	}

@@ -2,38 +2,17 @@ package session
 
 import (
 	"context"
-	"sync"
 	"testing"
 	"time"
 
 	"sectionbench/assets"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
+	"sectionbench/ui/session/sessiontest"
 )
 
-// uiQueue stands in for the UI goroutine: functions the controller posts
-// (fyne.Do in the window) wait here until the test goroutine drains them.
-type uiQueue struct {
-	mu sync.Mutex
-	fs []func()
-}
-
-func (q *uiQueue) post(f func()) {
-	q.mu.Lock()
-	q.fs = append(q.fs, f)
-	q.mu.Unlock()
-}
-
-func (q *uiQueue) drain() bool {
-	q.mu.Lock()
-	fs := q.fs
-	q.fs = nil
-	q.mu.Unlock()
-	for _, f := range fs {
-		f()
-	}
-	return len(fs) > 0
-}
+// uiQueue stands in for the UI goroutine in tests.
+type uiQueue = sessiontest.Queue
 
 // testController is a controller on the demo study, without a window, and
 // the queue that stands for its UI goroutine.
@@ -49,7 +28,7 @@ func newTestController(t *testing.T) *testController {
 		t.Fatal(err)
 	}
 	q := new(uiQueue)
-	c := &testController{NewController(q.post), q}
+	c := &testController{NewController(q.Post), q}
 	if err := c.Load(st, ""); err != nil {
 		t.Fatal(err)
 	}
@@ -63,7 +42,7 @@ func newTestController(t *testing.T) *testController {
 func (c *testController) idle() {
 	for {
 		c.WaitIdle()
-		if !c.q.drain() {
+		if !c.q.Drain() {
 			return
 		}
 	}

@@ -95,7 +95,7 @@ func TestPendingEditsNewestWins(t *testing.T) {
 	}
 	h.release <- struct{}{} // the first placement ends
 	c.WaitIdle()
-	c.q.drain()           // its verdict, on the UI goroutine
+	c.q.Drain()           // its verdict, on the UI goroutine
 	newest := <-h.started // the newest is placed next, not the one between
 	if got := newest.SlotOf(1, c.Sections()[1]).DeflectionDeg; got != 24 {
 		t.Errorf("second placement is of deflection %g, want the newest, 24", got)
