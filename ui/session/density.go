@@ -1,6 +1,8 @@
 package session
 
 import (
+	"reflect"
+
 	"sectionbench/model"
 )
 
@@ -13,6 +15,8 @@ func (c *Controller) SetDensityPlan(p model.DensityPlan) error {
 	return c.Edit("density", func(st *model.Study) { st.Density = p })
 }
 
+// DensityPlansEqual reports whether two density plans list the same
+// counts and nose values, in the same order, with the same tolerances.
 func DensityPlansEqual(a, b model.DensityPlan) bool {
 	if len(a.Panels) != len(b.Panels) || len(a.Nose) != len(b.Nose) || a.TolClPct != b.TolClPct || a.TolCpMinPct != b.TolCpMinPct {
 		return false
@@ -42,12 +46,12 @@ func (c *Controller) UseDensityPanels(panels int, nose float64) error {
 // for b: the studies differ at most in the panel count and nose clustering
 // (which the study varies), the plan, pins, names and sweep.
 func SameDensityCase(a, b *model.Study) bool {
-	x, y := a.Clone(), b.Clone()
+	// Shallow copies: only their own top-level fields are overwritten, and
+	// reflect.DeepEqual follows the rest, with no encoding per change.
+	x, y := *a, *b
 	y.Panelling.Panels, y.Panelling.Nose = x.Panelling.Panels, x.Panelling.Nose
 	y.Density, y.Pins, y.Name, y.Team, y.Sweep = x.Density, x.Pins, x.Name, x.Team, x.Sweep
-	ex, err1 := x.Encode()
-	ey, err2 := y.Encode()
-	return err1 == nil && err2 == nil && string(ex) == string(ey)
+	return reflect.DeepEqual(x, y)
 }
 
 // LoadRecovered makes a recovered study current, as belonging to path
