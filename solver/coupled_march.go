@@ -517,8 +517,9 @@ func (cs *coupledState) carryFrom(old stationValues) (ue []float64) {
 }
 
 // warmFrom starts from a neighbouring solution's state, carried over by
-// arc length (carryFrom) onto the layout at the neighbour's stagnation
-// points, with the neighbour's edge velocities (warmUe, the
+// arc length (carryFrom) onto this solution's own layout (at its inviscid
+// stagnation points; laid out at the neighbour's coupled ones instead, a
+// polar took three times as long), with the neighbour's edge velocities (warmUe, the
 // start of a continuation from it); it reports false (and changes nothing) when the
 // wakes differ in length. A transition station that is laminar at this
 // angle turns laminar (retype).
@@ -530,15 +531,6 @@ func (cs *coupledState) warmFrom(w *coupledState) bool {
 		if (cs.st[i].side == sideWake) != (w.st[i].side == sideWake) {
 			return false
 		}
-	}
-	if !slices.Equal(cs.stag, w.stag) {
-		// The neighbour's stagnation points are those of its coupled
-		// flow (iterate moves the layout to them), nearer this
-		// solution's than the inviscid ones at high lift, where the
-		// boundary layers take a quarter of the circulation away.
-		copy(cs.stag, w.stag)
-		copy(cs.sStag, w.sStag)
-		cs.layout()
 	}
 	cs.warmUe = cs.carryFrom(w.stationValues(w.ue()))
 	cs.retype(true)

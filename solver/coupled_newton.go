@@ -239,7 +239,7 @@ func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64) (co
 		if !cs.strategy.followStagnation && cs.ueMarch == nil {
 			// The layout follows the converged coupled stagnation
 			// points (between solutions, not between Newton steps).
-			if stag, moved := cs.coupledSplits(); moved {
+			if stag, _ := cs.coupledSplits(); cs.stagnationShift(stag) >= minRelayoutShift {
 				cs.relayout(stag)
 				changed = true
 			}
@@ -327,6 +327,24 @@ func (cs *coupledState) newtonIterations(ctx context.Context, maxIt int, tol flo
 		}
 	}
 	return false, maxIt, res, nil
+}
+
+// minRelayoutShift is how many panels a converged solution's coupled
+// stagnation point must lie from the layout's before iterate lays the
+// stations out again: a shift of one panel is taken up by the stations
+// near the stagnation point, whose edge speed is the inviscid one
+// (ueLayers), while relaying out for it made a polar three times slower
+// (the point moves back and forth between two panels).
+const minRelayoutShift = 2
+
+// stagnationShift returns the largest number of panels by which any
+// element's stagnation panel in stag differs from the layout's.
+func (cs *coupledState) stagnationShift(stag []int) int {
+	d := 0
+	for k, v := range stag {
+		d = max(d, v-cs.stag[k], cs.stag[k]-v)
+	}
+	return d
 }
 
 // maxRelaminarisations bounds how often one call of iterate moves
