@@ -7,8 +7,17 @@ import (
 	"sectionbench/model"
 )
 
-// Diagnostic: sources σ = d(Ue δ*)/dξ on the body must change the vortex
-// strengths as displacing the surface by δ* does (Lighthill 1958).
+// Sources σ = d(Ue δ*)/dξ on a body change its lift as displacing the
+// surface outwards by δ* does (the equivalent-source model: Lighthill,
+// On displacement thickness, J. Fluid Mech. 4(4), 1958; first order in
+// δ*/c). NACA 4412 at 4°, 200 panels, a bump δ* = ε sin²(π f) on the
+// upper surface (f from the trailing edge to the leading edge, so δ*
+// vanishes at both and no wake source is needed). The lift change through
+// the sources, ΔCl = 2 ΔΓ/c with ΔΓ = ∮ Δγ ds from G σ, must equal the
+// change of the panel solution about the displaced geometry within 3 %
+// (the neglected terms are of order δ*/c and the surface curvature times
+// δ*, a few tenths of a percent here; the rest is the two discretisations'
+// difference). Measured: within 1 %.
 func TestSourceEquivalentToDisplacement(t *testing.T) {
 	const alpha = 4.0
 	for _, eps := range []float64{0.002, 0.004} {
@@ -23,70 +32,54 @@ func TestSourceEquivalentToDisplacement(t *testing.T) {
 			t.Fatal(err)
 		}
 		r := newSourceResponse(sol, []*wakeGeom{w})
-		geo := sys.geo
-		eg := &geo.elems[0]
-		nn := len(eg.nodes)
-		// δ* on the upper surface (nodes before LE, y>0 assumed; check), a bump vanishing at LE and TE.
-		le := eg.le
-		upperFirst := eg.nodes[le/2].Y > 0
+		eg := &sys.geo.elems[0]
+		nn, le := len(eg.nodes), eg.le
+		// Nodes run from the trailing edge over the upper surface to
+		// the leading edge (Upper, solution.go).
 		dstar := make([]float64, nn)
-		for i := range nn {
-			var f float64
-			if upperFirst && i < le {
-				f = float64(i) / float64(le)
-			} else if !upperFirst && i > le {
-				f = float64(nn-1-i) / float64(nn-1-le)
-			} else {
-				continue
-			}
-			dstar[i] = eps * math.Pow(math.Sin(math.Pi*f), 2)
+		for i := 1; i < le; i++ {
+			dstar[i] = eps * math.Pow(math.Sin(math.Pi*float64(i)/float64(le)), 2)
 		}
-		ue := make([]float64, nn)
-		for i := range nn {
-			ue[i] = math.Abs(sol.g[eg.u0+i])
-		}
+		// σ per panel: the growth of m = Ue δ* along the flow, which on
+		// the upper surface runs against the node order.
 		sigma := make([]float64, r.cols.n)
-		for j := 0; j < eg.np; j++ {
-			p := &geo.panels[eg.p0+j]
-			a, b := j, j+1
-			ma, mb := ue[a]*dstar[a], ue[b]*dstar[b]
-			// flow direction: upper surface runs against node order if upperFirst.
-			if upperFirst == (j < le) {
-				sigma[eg.p0+j] = (ma - mb) / p.l
-			} else {
-				sigma[eg.p0+j] = (mb - ma) / p.l
-			}
+		for j := 0; j < le; j++ {
+			p := &sys.geo.panels[eg.p0+j]
+			ma := math.Abs(sol.g[eg.u0+j]) * dstar[j]
+			mb := math.Abs(sol.g[eg.u0+j+1]) * dstar[j+1]
+			sigma[eg.p0+j] = (ma - mb) / p.l
 		}
-		dgSrc := make([]float64, nn)
-		for i := range nn {
+		var dGamma float64 // ∮ Δγ ds, linear γ on each panel
+		dg := func(i int) float64 {
 			row := r.gam.Data[(eg.u0+i)*r.cols.n : (eg.u0+i+1)*r.cols.n]
-			for c, s := range sigma {
-				dgSrc[i] += row[c] * s
+			s := 0.0
+			for c, v := range sigma {
+				s += row[c] * v
 			}
+			return s
 		}
-		// Displaced geometry.
+		for j := 0; j < eg.np; j++ {
+			dGamma += 0.5 * (dg(j) + dg(j+1)) * sys.geo.panels[eg.p0+j].l
+		}
+		viaSources := 2 * dGamma / eg.chord
+
 		disp := Element{Name: e.Name, LE: e.LE, Nodes: make([]model.Point, nn)}
 		for i := range nn {
-			ip, in := max(i-1, 0), min(i+1, nn-1)
-			tx, ty := e.Nodes[in].X-e.Nodes[ip].X, e.Nodes[in].Y-e.Nodes[ip].Y
+			a, b := e.Nodes[max(i-1, 0)], e.Nodes[min(i+1, nn-1)]
+			tx, ty := b.X-a.X, b.Y-a.Y
 			l := math.Hypot(tx, ty)
-			nx, ny := ty/l, -tx/l // outward for clockwise? check sign below
-			disp.Nodes[i] = model.Point{X: e.Nodes[i].X + nx*dstar[i], Y: e.Nodes[i].Y + ny*dstar[i]}
+			// Outward normal of a contour running clockwise (upper
+			// surface first, from the trailing edge).
+			disp.Nodes[i] = model.Point{X: e.Nodes[i].X + dstar[i]*ty/l, Y: e.Nodes[i].Y - dstar[i]*tx/l}
 		}
 		sys2, err := NewSystem(Config{Elements: []Element{disp}})
 		if err != nil {
 			t.Fatal(err)
 		}
-		sol2 := sys2.Solve(alpha)
-		var gs, gg float64
-		for j := 0; j < eg.np; j++ {
-			p := &geo.panels[eg.p0+j]
-			gs += 0.5 * (dgSrc[j] + dgSrc[j+1]) * p.l
-			gg += 0.5 * ((sol2.g[j] - sol.g[j]) + (sol2.g[j+1] - sol.g[j+1])) * p.l
-		}
-		t.Logf("eps %.3f upperFirst %v: ΔΓ sources %.5f, displaced %.5f, ratio %.3f; ΔCl geo %.4f (Cl %.4f)", eps, upperFirst, gs, gg, gs/gg, sol2.Cl-sol.Cl, sol.Cl)
-		for _, i := range []int{le / 4, le / 2, 3 * le / 4} {
-			t.Logf("  node %d: Δγ src %.4f geo %.4f", i, dgSrc[i], sol2.g[i]-sol.g[i])
+		viaGeometry := sys2.Solve(alpha).Cl - sol.Cl
+		t.Logf("ε = %g c: ΔCl %.5f through the sources, %.5f through the displaced surface", eps, viaSources, viaGeometry)
+		if !(viaGeometry > 0) || math.Abs(viaSources/viaGeometry-1) > 0.03 {
+			t.Errorf("ε = %g c: ΔCl %.5f through the sources, %.5f through the displaced surface: want the same within 3 %%", eps, viaSources, viaGeometry)
 		}
 	}
 }
