@@ -148,7 +148,7 @@ func (p *setupSpan) show() {
 		return
 	}
 	p.totals.SetText(finiteSpanText(fs, p.stale()))
-	sl := spanLoadOf(fs)
+	sl := figures.SpanLoadOf(fs)
 	p.load.setDrawing(func(dark bool, w, h int, dpi float64) (*figures.Figure, error) {
 		return renderSpanLoad(sl, dark, w, h, dpi)
 	}, "")
@@ -172,31 +172,6 @@ func (p *setupSpan) hover(x, y float64, ok bool) {
 	}
 	unit := map[bool]string{true: " N/m", false: ""}[!math.IsNaN(p.out.DynamicPressurePa)]
 	p.readout.SetText(fmt.Sprintf("%s m from the centre: %s%s", fixed(x, 3), sig(y), unit))
-}
-
-// spanLoadOf is the figure's data of an estimate: load per metre when the
-// study has a speed, else the section load coefficient.
-func spanLoadOf(fs *engine.FiniteSpan) figures.SpanLoad {
-	name := map[bool]string{true: "downforce", false: "lift"}[fs.Inverted]
-	forces := !math.IsNaN(fs.DynamicPressurePa)
-	s := figures.SpanLoad{SpanM: fs.SpanM, TwoD: math.NaN()}
-	if forces {
-		s.Title = fmt.Sprintf("Spanwise %s, finite-span estimate", name)
-		s.YLabel = name + " per metre of span, N/m"
-		s.TwoD = fs.Load2DPerSpan
-	} else {
-		s.Title = fmt.Sprintf("Spanwise %s coefficient, finite-span estimate", name)
-		s.YLabel = "section " + name + " coefficient"
-	}
-	for _, st := range fs.Stations {
-		s.YM = append(s.YM, st.YM)
-		if forces {
-			s.Load = append(s.Load, st.LoadPerSpan)
-		} else {
-			s.Load = append(s.Load, st.Load)
-		}
-	}
-	return s
 }
 
 // finiteSpanText is the estimate's totals in words, the two-dimensional

@@ -12,6 +12,8 @@ import (
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
+
+	"sectionbench/solver/engine"
 )
 
 // The set-up figures: one quantity of a set-up map against one variable
@@ -455,6 +457,35 @@ type SpanLoad struct {
 	// TwoD is the two-dimensional load in the same unit (the section's
 	// value at the study's angle), drawn for comparison; NaN for none.
 	TwoD float64
+}
+
+// SpanLoadOf is the figure's data of a finite-span estimate: the load per
+// metre of span when the study has a speed, else the section load
+// coefficient, with the two-dimensional per-metre value beside it.
+func SpanLoadOf(fs *engine.FiniteSpan) SpanLoad {
+	name := "lift"
+	if fs.Inverted {
+		name = "downforce"
+	}
+	s := SpanLoad{SpanM: fs.SpanM, TwoD: math.NaN()}
+	forces := !math.IsNaN(fs.DynamicPressurePa)
+	if forces {
+		s.Title = fmt.Sprintf("Spanwise %s, finite-span estimate", name)
+		s.YLabel = name + " per metre of span, N/m"
+		s.TwoD = fs.Load2DPerSpan
+	} else {
+		s.Title = fmt.Sprintf("Spanwise %s coefficient, finite-span estimate", name)
+		s.YLabel = "section " + name + " coefficient"
+	}
+	for _, st := range fs.Stations {
+		s.YM = append(s.YM, st.YM)
+		if forces {
+			s.Load = append(s.Load, st.LoadPerSpan)
+		} else {
+			s.Load = append(s.Load, st.Load)
+		}
+	}
+	return s
 }
 
 // SpanLoadPlot draws the load across the whole span (mirrored), falling

@@ -179,21 +179,7 @@ func (r *writer) finiteSpanSection(fs *engine.FiniteSpan) {
 	if fs.LowAspectRatio {
 		r.para(fmt.Sprintf("The effective aspect ratio is below about %d: a lifting line is a rough guide here, and a lifting-surface method (Weissinger's, a vortex lattice) is the usual choice.", engine.LowAspectRatioLimit))
 	}
-	sl := figure.SpanLoad{Title: "Spanwise " + lower(name) + ", finite-span estimate", SpanM: fs.SpanM, TwoD: math.NaN()}
-	forces := !math.IsNaN(fs.DynamicPressurePa)
-	if forces {
-		sl.YLabel, sl.TwoD = lower(name)+" per metre of span, N/m", fs.Load2DPerSpan
-	} else {
-		sl.YLabel = "section " + lower(name) + " coefficient"
-	}
-	for _, s := range fs.Stations {
-		sl.YM = append(sl.YM, s.YM)
-		if forces {
-			sl.Load = append(sl.Load, s.LoadPerSpan)
-		} else {
-			sl.Load = append(sl.Load, s.Load)
-		}
-	}
+	sl := figure.SpanLoadOf(fs)
 	if pl, err := figure.SpanLoadPlot(sl, false); err == nil {
 		r.image(func(w io.Writer, win, hin float64) error {
 			return figure.WritePlot(w, pl, figure.FormatPNG, win, hin, FigureDPI)
