@@ -108,16 +108,23 @@ type CoupledSolution struct {
 // cold.
 //
 // When the stagnation point sits on a panel node (a symmetric section at
-// 0°), where the layout of the stations cannot settle, and no solution
-// converges, it solves at α ± nodeStepDeg instead and returns their mean
-// (central differences: an error of order nodeStepDeg² in the
-// coefficients, far below the method's), saying so in Note.
+// 0°), the layout of the stations puts it on one of the two panels
+// beside the node, and the solution, if it converges at all, is not the
+// symmetric one (Cl −1.4e−6 on NACA 0012 at 0°); it solves at α ±
+// nodeStepDeg instead (from the solution at α if that converged) and
+// returns their mean (central differences: an error of order
+// nodeStepDeg² in the coefficients, far below the method's), saying so
+// in Note. If either fails, it returns the solution at α.
 func (s *System) SolveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution) (*CoupledSolution, error) {
 	out, err := s.solveStrategies(ctx, alphaDeg, opt, warm, maxAlphaHalvings)
-	if err != nil || out.Converged || s.geo.ground || !stagnationOnNode(out.Inviscid) {
+	if err != nil || s.geo.ground || !stagnationOnNode(out.Inviscid) {
 		return out, err
 	}
-	lo, err := s.solveStrategies(ctx, alphaDeg-nodeStepDeg, opt, nil, 0)
+	var from *CoupledSolution
+	if out.Converged {
+		from = out
+	}
+	lo, err := s.solveStrategies(ctx, alphaDeg-nodeStepDeg, opt, from, 0)
 	if err != nil {
 		return nil, err
 	}

@@ -92,18 +92,10 @@ func (cs *coupledState) residual(i int, l *local) bl.Residuals {
 	me := cs.stationFrom(l, 0)
 	switch {
 	case s.first:
-		// The stagnation station takes its speed from the flow without
-		// its own coupling (Ue0, or the march's during the
-		// continuation): its ξ and Ue are both small and the coupled Ue
-		// there moves with every mass defect nearby, which made the
-		// similarity condition, ∝ √(ξ/Ue), the least stable equation of
-		// the system.
-		u := cs.ue0[i]
-		if cs.ueMarch != nil {
-			u = (1-cs.lam)*cs.ueMarch[i] + cs.lam*u
-		}
-		me.Ue = math.Max(u, 1e-6)
-		me.DStar = math.Max(l.v[0][2], 1e-14) / me.Ue
+		// The stagnation station's speed is that of the plane
+		// stagnation-point flow through the first coupled station
+		// (ueLayers), so its θ, ∝ √(ξ/Ue), does not move with every
+		// mass defect nearby.
 		return bl.Similarity(me, cs.re)
 	case s.wakeStart:
 		return bl.WakeStart(cs.stationFrom(l, 1), cs.stationFrom(l, 2), me, 0)
@@ -385,9 +377,6 @@ func (cs *coupledState) clampState() {
 	ue := cs.ueLayers()
 	for i := range cs.st {
 		u := math.Max(ue[i], 1e-6)
-		if cs.st[i].first {
-			u = math.Max(cs.ue0[i], 1e-6) // as its residual (residual)
-		}
 		if cs.m[i] < minH*cs.th[i]*u {
 			cs.m[i] = minH * cs.th[i] * u
 		}
@@ -451,11 +440,12 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 		}
 		for qq := 0; qq < l.n; qq++ {
 			j := l.idx[qq]
-			drow := cs.d[j*n : (j+1)*n]
+			r, f := cs.layerCoupling(j)
+			drow := cs.d[r*n : (r+1)*n]
 			for e := range 3 {
 				we := w[e*n : (e+1)*n]
 				we[j] += jac[qq][2][e]
-				if a := coup * jac[qq][3][e]; a != 0 && !cs.st[j].nearStagnation {
+				if a := coup * f * jac[qq][3][e]; a != 0 {
 					for c, dv := range drow {
 						we[c] += a * dv
 					}

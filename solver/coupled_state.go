@@ -20,8 +20,10 @@ type station struct {
 	kind             bl.Kind
 	prev             [2]int // preceding stations (two for the first wake station: the trailing edges)
 	nprev            int
-	first            bool // first station of a surface: the stagnation-point similarity solution
-	nearStagnation   bool // among the first nearStagnationStations of a surface (ueLayers)
+	first            bool    // first station of a surface: the stagnation-point similarity solution
+	nearStagnation   bool    // among the first nearStagnationStations of a surface (ueLayers)
+	ref              int     // for a nearStagnation station, the first station of its surface past them (ueLayers), or −1
+	refFactor        float64 // and the factor of ref's coupled speed that is its own (ueLayers)
 	wakeStart        bool
 	last             bool    // last station of a surface (the trailing edge): transition is forced there
 	xi               float64 // from the stagnation point (surfaces) or the trailing edge (wakes)
@@ -196,6 +198,12 @@ func (cs *coupledState) layout() {
 				n++
 			}
 			s.nearStagnation = n < nearStagnationStations
+			s.ref = -1
+			if n == nearStagnationStations {
+				for j := len(cs.st) - n; j < len(cs.st); j++ {
+					cs.st[j].ref = len(cs.st)
+				}
+			}
 			cs.st = append(cs.st, s)
 		}
 		prev := -1
@@ -328,6 +336,38 @@ func (cs *coupledState) buildSensitivities() {
 			}
 		}
 	}
+	cs.setRefFactors()
+}
+
+// setRefFactors sets each near-stagnation station's refFactor
+// (ueLayers): the ratio of its inviscid speed to its ref's where the
+// inviscid speeds of the surface's near-stagnation stations are positive
+// and rise towards ref, as they do next to a stagnation point; otherwise
+// (a layout at a coupled stagnation point one or two panels from the
+// inviscid one, where the inviscid flow at the first stations runs the
+// other way) the ratio of their arc lengths, the plane stagnation-point
+// flow's Ue ∝ ξ that the first station's similarity solution assumes
+// (boundarylayer.Similarity).
+func (cs *coupledState) setRefFactors() {
+	for i := range cs.st {
+		s := &cs.st[i]
+		if !s.first || s.ref < 0 {
+			continue
+		}
+		rising := true
+		for j := i; j < s.ref; j++ {
+			if !(cs.ue0[j] > 0 && cs.ue0[j] < cs.ue0[j+1]) {
+				rising = false
+			}
+		}
+		for j := i; j < s.ref; j++ {
+			if rising {
+				cs.st[j].refFactor = cs.ue0[j] / cs.ue0[s.ref]
+			} else {
+				cs.st[j].refFactor = cs.st[j].xi / cs.st[s.ref].xi
+			}
+		}
+	}
 }
 
 // speedNode returns the node whose surface speed stands for node i of
@@ -390,6 +430,13 @@ func (cs *coupledState) ue0Of(s *station) float64 {
 
 // ue returns the edge velocities of the current mass defects.
 func (cs *coupledState) ue() []float64 {
+	out := cs.ueCoupled()
+	cs.blendMarch(out)
+	return out
+}
+
+// ueCoupled returns Ue0 + D m, without the continuation's blend.
+func (cs *coupledState) ueCoupled() []float64 {
 	n := len(cs.st)
 	out := make([]float64, n)
 	for i := range out {
@@ -398,42 +445,71 @@ func (cs *coupledState) ue() []float64 {
 		for j, mj := range cs.m {
 			v += d[j] * mj
 		}
-		if cs.ueMarch != nil {
-			v = (1-cs.lam)*cs.ueMarch[i] + cs.lam*v
-		}
 		out[i] = v
 	}
 	return out
 }
 
+// blendMarch applies the continuation's blend with the march's edge
+// velocities (homotopySteps) to coupled edge velocities u, in place.
+func (cs *coupledState) blendMarch(u []float64) {
+	if cs.ueMarch == nil {
+		return
+	}
+	for i := range u {
+		u[i] = (1-cs.lam)*cs.ueMarch[i] + cs.lam*u[i]
+	}
+}
+
 // nearStagnationStations is how many stations at the start of each
-// surface take their edge velocity, in the boundary-layer equations, from
-// the flow without the layers' own displacement (ueLayers). Next to a
-// stagnation point the panels are shortest, so the coupled speeds there
-// respond most to the mass defects (entries of D of order 1/panel
-// length), while the layer is thinnest and its displacement least: left
-// coupled, these stations were where the Newton iterations oscillated on
-// every section tried. The forces and the stagnation point still use the
-// coupled speeds (ue).
+// surface take their edge velocity, in the boundary-layer equations, not
+// from their own coupled speeds but from the first station past them
+// (ueLayers). Next to a stagnation point the panels are shortest, so the
+// coupled speeds there respond most to the mass defects (entries of D of
+// order 1/panel length), while the layer is thinnest and its
+// displacement least: left coupled, these stations were where the Newton
+// iterations oscillated on every section tried. The forces and the
+// stagnation point still use the coupled speeds (ue).
 const nearStagnationStations = 3
 
 // ueLayers returns the edge velocities the boundary-layer equations use:
-// those of ue, except at the stations next to each stagnation point,
-// which keep the velocity without coupling (Ue0, or the march's during
-// the continuation).
+// those of ue, except at the stations next to each stagnation point
+// (nearStagnation), which take a fixed fraction, refFactor, of the
+// coupled speed of the first station past them (ref): Ue_i = f_i Ue_ref,
+// f_i the ratio of their inviscid speeds (or of their arc lengths,
+// setRefFactors). The continuation blends this with the march's own
+// speeds, as every station's.
+//
+// They used to keep the inviscid speed Ue0 itself. Near maximum lift the
+// layers take a quarter of the circulation away and the coupled
+// stagnation point lies one or two leading-edge panels from the inviscid
+// one, where the coupled speed of the first coupled station is a third
+// below its inviscid one: the step from the inviscid speed of the last
+// near-stagnation station to it decelerated the layer, which separated
+// there (laminar H 9 at x/c 0.018 on NACA 4412 at 12.5°, Re 1.52e6), its
+// ñ reached NCrit at 13° and the iterations failed. Scaled with ref's
+// coupled speed the speeds rise to it as the inviscid ones do.
 func (cs *coupledState) ueLayers() []float64 {
-	out := cs.ue()
+	raw := cs.ueCoupled()
+	out := append([]float64(nil), raw...)
 	for i := range cs.st {
-		if !cs.st[i].nearStagnation {
-			continue
+		if s := &cs.st[i]; s.nearStagnation && s.ref >= 0 {
+			out[i] = s.refFactor * raw[s.ref]
 		}
-		v := cs.ue0[i]
-		if cs.ueMarch != nil {
-			v = (1-cs.lam)*cs.ueMarch[i] + cs.lam*v
-		}
-		out[i] = v
 	}
+	cs.blendMarch(out)
 	return out
+}
+
+// layerCoupling returns the station whose row of D carries station j's
+// edge velocity in the boundary-layer equations (ueLayers) and its
+// factor: j itself with 1, or a near-stagnation station's ref with
+// ξ_j/ξ_ref.
+func (cs *coupledState) layerCoupling(j int) (int, float64) {
+	if s := &cs.st[j]; s.nearStagnation && s.ref >= 0 {
+		return s.ref, s.refFactor
+	}
+	return j, 1
 }
 
 // coupling returns the factor of D in the edge velocities: lam during
