@@ -291,11 +291,11 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 			panic("solver: SolveCoupled: Reynolds numbers must be positive and finite")
 		}
 	}
-	inv := s.Solve(alphaDeg)
-	cs, err := newCoupledState(inv, opt)
+	flow, err := s.coupledFlowAt(alphaDeg)
 	if err != nil {
 		return nil, err
 	}
+	cs := stateOn(flow, opt)
 	cs.strategy = st
 	var conv bool
 	var iters int

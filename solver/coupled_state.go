@@ -81,31 +81,35 @@ type coupledState struct {
 	c  []float64 // ñ or √Cτ
 	th []float64 // θ
 	m  []float64 // mass defect Ue δ*
+
+	work newtonWork // newtonStep's workspace
 }
 
 // newCoupledState traces the wakes of the inviscid solution sol, builds
 // the source sensitivities and lays out the stations at its stagnation
 // points.
 func newCoupledState(sol *Solution, opt CoupledOptions) (*coupledState, error) {
-	geo := sol.sys.geo
-	cs := &coupledState{sol: sol, geo: geo, opt: opt, lam: 1}
+	f, err := newCoupledFlow(sol)
+	if err != nil {
+		return nil, err
+	}
+	return stateOn(f, opt), nil
+}
+
+// stateOn lays out the stations of a coupled solution on flow f at its
+// inviscid stagnation points.
+func stateOn(f *coupledFlow, opt CoupledOptions) *coupledState {
+	geo := f.sol.sys.geo
+	cs := &coupledState{sol: f.sol, geo: geo, opt: opt, lam: 1, wakes: f.wakes, resp: f.resp}
 	cs.re = opt.Re[0] / geo.elems[0].chord
 	cs.ncrit = opt.NCrit
 	if cs.ncrit <= 0 {
 		cs.ncrit = bl.DefaultNCrit
 	}
-	for k := range geo.elems {
-		w, err := traceWake(sol, k)
-		if err != nil {
-			return nil, err
-		}
-		cs.wakes = append(cs.wakes, w)
-	}
-	cs.resp = newSourceResponse(sol, cs.wakes)
 	cs.stag = make([]int, len(geo.elems))
 	cs.sStag = make([]float64, len(geo.elems))
 	cs.reset()
-	return cs, nil
+	return cs
 }
 
 // reset lays the stations out again at the inviscid stagnation points

@@ -281,6 +281,7 @@ type System struct {
 	forces   []elemQuad
 	hull     []hullVertex // of ±(vt0_j, vt90_j), for CpMin in sweeps
 	timings  Timings
+	flows    flowCache // the coupled solution's recent flows (coupled_flow.go)
 }
 
 // NewSystem validates cfg, assembles and factorises the influence matrix of
