@@ -26,10 +26,15 @@ import (
 // figures and DEVELOPERS.md lists it among the open items.
 //
 // Maximum lift: the highest converged Cl within ±0.1 of Ladson's 1.6116
-// and its angle within ±1.5° of 17.13° (the tolerances). Ladson's
-// section stalls abruptly past 17.13° (Cl 0.997 at 18.02°); the coupled
-// iterations stop converging there too, so the maximum found is the last
-// converged angle of the sweep, not a resolved peak of the curve.
+// and its angle within ±1.5° of 17.13° (the tolerances), and a
+// resolved peak: the sweep goes on to Ladson's two angles past it (18.02°
+// and 19.08°), which must converge with less lift than the maximum.
+// Ladson's section stalls abruptly there (Cl 0.997 at 18.02°, a
+// leading-edge stall); the coupled solution's lift falls gently, as the
+// trailing-edge separation moves forward (x/c 0.87 at 17.13°, 0.59 at
+// 19.08°): an integral boundary layer does not model the bursting of a
+// leading-edge bubble, so past the maximum only convergence and the fall
+// of Cl are checked, not Ladson's values.
 func TestCoupledNACA0012Ladson(t *testing.T) {
 	skipUnderRace(t)
 	g80 := ladsonPolars(t)["grit_80"]
@@ -42,8 +47,9 @@ func TestCoupledNACA0012Ladson(t *testing.T) {
 	var warm *CoupledSolution
 	var conv convergenceCount
 	clMax, alphaClMax := math.Inf(-1), math.NaN()
+	clPast := math.Inf(-1) // the highest Cl at a converged angle past alphaClMax
 	for i, a := range g80.AlphaDeg {
-		if a < 0 || a > 17.2 {
+		if a < 0 {
 			continue
 		}
 		cs, err := sys.SolveCoupled(context.Background(), a, opt, warm)
@@ -55,7 +61,14 @@ func TestCoupledNACA0012Ladson(t *testing.T) {
 		}
 		warm = cs
 		if cs.Cl > clMax {
-			clMax, alphaClMax = cs.Cl, a
+			clMax, alphaClMax, clPast = cs.Cl, a, math.Inf(-1)
+		} else {
+			clPast = math.Max(clPast, cs.Cl)
+		}
+		if a > ladsonAlphaClMax+0.1 {
+			t.Logf("α %5.2f°: Cl %.4f (inviscid %.4f, Ladson %.4f, past its maximum), Cd %.5f, upper separation x/c %.3f, %d iterations",
+				a, cs.Cl, cs.ClInviscid, g80.Cl[i], cs.Cd, cs.Elements[0].Upper.Separation, cs.Iterations)
+			continue
 		}
 		cl, cd := g80.Cl[i], g80.Cd[i]
 		dcd := cs.Cd/cd - 1
@@ -75,11 +88,20 @@ func TestCoupledNACA0012Ladson(t *testing.T) {
 		}
 	}
 	conv.check(t)
-	t.Logf("Cl max %.4f at %.2f° (Ladson %.4f at %.2f°)", clMax, alphaClMax, 1.6116, 17.13)
-	if math.Abs(clMax-1.6116) > 0.1 || math.Abs(alphaClMax-17.13) > 1.5 {
-		t.Errorf("Cl max %.4f at %.2f°; Ladson 1.6116 at 17.13°, ±0.1 and ±1.5° allowed", clMax, alphaClMax)
+	t.Logf("Cl max %.4f at %.2f° (Ladson %.4f at %.2f°); highest Cl past it %.4f", clMax, alphaClMax, ladsonClMax, ladsonAlphaClMax, clPast)
+	if math.Abs(clMax-ladsonClMax) > 0.1 || math.Abs(alphaClMax-ladsonAlphaClMax) > 1.5 {
+		t.Errorf("Cl max %.4f at %.2f°; Ladson %.4f at %.2f°, ±0.1 and ±1.5° allowed", clMax, alphaClMax, ladsonClMax, ladsonAlphaClMax)
+	}
+	if !(clPast < clMax) {
+		t.Errorf("Cl max %.4f at %.2f° is not a resolved peak: no converged angle past it with less lift", clMax, alphaClMax)
 	}
 }
+
+// Ladson's maximum lift with 80 grit (NASA TM-4074, 1988; testdata/validation).
+const (
+	ladsonClMax      = 1.6116
+	ladsonAlphaClMax = 17.13
+)
 
 // readmeLiftExcess is the README's statement of how far the coupled Cl
 // may lie above the wind-tunnel data (its Limitations, in Cl): asserted
