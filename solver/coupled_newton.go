@@ -4,7 +4,6 @@ import (
 	"context"
 	"math"
 
-	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
 	"gonum.org/v1/gonum/lapack/lapack64"
 
@@ -390,13 +389,31 @@ const (
 	lineSearchGrowth = 2.0
 )
 
-// residualNorm returns the 2-norm of all stations' residuals.
+// residualNorm returns the 2-norm of all stations' residuals. Each
+// station's closure is evaluated once (a plain interval takes its two
+// stations' closures, as newtonStep's Jacobian does).
 func (cs *coupledState) residualNorm() float64 {
 	ue := cs.ueLayers()
+	n := len(cs.st)
+	cs.work.size(n)
+	ev := cs.work.ev
+	for j := range n {
+		e := &ev[j]
+		e.kind = cs.st[j].kind
+		e.st[0] = cs.stationVars(j, [4]float64{cs.c[j], cs.th[j], cs.m[j], ue[j]})
+		e.cl[0] = bl.Eval(e.kind, e.st[0], cs.re)
+	}
 	s := 0.0
-	for i := range cs.st {
-		l := cs.localOf(i, ue)
-		for _, v := range cs.residual(i, &l) {
+	for i := range n {
+		var r bl.Residuals
+		if plain, kind := cs.plainInterval(i); plain && ev[cs.st[i].prev[0]].kind == kind {
+			p := &ev[cs.st[i].prev[0]]
+			r = bl.IntervalOf(kind, p.st[0], ev[i].st[0], p.cl[0], ev[i].cl[0])
+		} else {
+			l := cs.localOf(i, ue)
+			r = cs.residual(i, &l)
+		}
+		for _, v := range r {
 			s += v * v
 		}
 	}
@@ -627,8 +644,7 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 	if !lapack64.Getrf(a, wk.ipiv) {
 		return nil, nil, nil, false
 	}
-	b := blas64.General{Rows: n, Cols: 1, Stride: 1, Data: bm}
-	lapack64.Getrs(blas.NoTrans, a, b, wk.ipiv)
+	luSolve(mm, n, wk.ipiv, bm)
 	dm = bm
 	dc, dth = wk.dc, wk.dth
 	for i := range n {
@@ -645,4 +661,39 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 		}
 	}
 	return dc, dth, dm, true
+}
+
+// luSolve solves A x = b in place for one right-hand side b, from the LU
+// factors lu (n×n, row-major) and pivots ipiv of lapack64.Getrf: the row
+// interchanges, then forward substitution with the unit lower factor and
+// back substitution with the upper one, each in the order and with the
+// operations of lapack64.Getrs (so the results are the same to the last
+// bit), without its per-element calls, which for a single right-hand
+// side in row-major storage cost more than the substitutions themselves.
+func luSolve(lu []float64, n int, ipiv []int, b []float64) {
+	for i := range n {
+		if p := ipiv[i]; p != i {
+			b[i], b[p] = b[p], b[i]
+		}
+	}
+	for i := range n {
+		row := lu[i*n : i*n+i]
+		v := b[i]
+		for k, a := range row {
+			if a != 0 {
+				v += -a * b[k]
+			}
+		}
+		b[i] = v
+	}
+	for i := n - 1; i >= 0; i-- {
+		row := lu[i*n+i+1 : i*n+n]
+		v := b[i]
+		for k, a := range row {
+			if a != 0 {
+				v += -a * b[i+1+k]
+			}
+		}
+		b[i] = v * (1 / lu[i*n+i])
+	}
 }

@@ -277,10 +277,9 @@ func (cs *coupledState) buildSensitivities() {
 	geo, r := cs.geo, cs.resp
 	n := len(cs.st)
 	ncol := r.cols.n
+	// New slices, never written once built: snapshots share them.
 	cs.ue0 = make([]float64, n)
-	if len(cs.d) != n*n {
-		cs.d = make([]float64, n*n)
-	}
+	cs.d = make([]float64, n*n)
 	// σ columns in terms of station mass defects.
 	terms := make([][]sigmaTerm, ncol)
 	stOfNode := func(k, node int) int {
@@ -526,7 +525,9 @@ func (cs *coupledState) coupling() float64 {
 	return 1
 }
 
-// snapshot is a copy of everything a Newton iteration may change.
+// snapshot is a copy of everything a Newton iteration may change. ue0
+// and d are shared, not copied: a new layout builds new ones
+// (buildSensitivities).
 type snapshot struct {
 	stag     []int
 	sStag    []float64
@@ -540,7 +541,7 @@ func (cs *coupledState) snapshot() snapshot {
 	cp := func(x []float64) []float64 { return append([]float64(nil), x...) }
 	return snapshot{
 		stag: append([]int(nil), cs.stag...), sStag: cp(cs.sStag), base: append([]int(nil), cs.base...),
-		st: append([]station(nil), cs.st...), ue0: cp(cs.ue0), d: cp(cs.d),
+		st: append([]station(nil), cs.st...), ue0: cs.ue0, d: cs.d,
 		c: cp(cs.c), th: cp(cs.th), m: cp(cs.m),
 	}
 }
@@ -550,8 +551,7 @@ func (cs *coupledState) restore(s snapshot) {
 	copy(cs.sStag, s.sStag)
 	cs.base = append(cs.base[:0], s.base...)
 	cs.st = append(cs.st[:0], s.st...)
-	copy(cs.ue0, s.ue0)
-	copy(cs.d, s.d)
+	cs.ue0, cs.d = s.ue0, s.d
 	copy(cs.c, s.c)
 	copy(cs.th, s.th)
 	copy(cs.m, s.m)
