@@ -36,7 +36,7 @@ func (cs *coupledState) march() []float64 {
 		case s.first:
 			s.kind = bl.Laminar
 			th := bl.StagnationTheta(s.xi, u, cs.re)
-			cs.th[i], cs.m[i], cs.c[i] = th, u*2.216*th, 0
+			cs.th[i], cs.m[i], cs.c[i] = th, u*stagnationShape*th, 0
 			continue
 		case s.wakeStart:
 			a, b := s.prev[0], s.prev[1]
@@ -72,6 +72,11 @@ func (cs *coupledState) march() []float64 {
 	}
 	return ueM
 }
+
+// stagnationShape is the shape factor of the plane stagnation-point
+// layer, Falkner–Skan β = 1 (White, Viscous Fluid Flow, 3rd ed., 2006,
+// Table 4-1; boundarylayer.Similarity).
+const stagnationShape = 2.216
 
 // initialShear returns √Cτ at transition for station i's state:
 // 1.8 exp(−3.3/(Hk − 1)) √Cτ_EQ (boundarylayer.TransitionInterval).
@@ -507,7 +512,40 @@ func (cs *coupledState) carryFrom(old stationValues) (ue []float64) {
 	}
 	// A laminar station after a turbulent one is put right by retype.
 	cs.retype(false)
+	cs.resolveStagnation()
 	return ue
+}
+
+// resolveStagnation solves the stations of each surface up to the first
+// one past the near-stagnation stations (ref) again, one by one as the
+// march does, on the current edge velocities: the first from the
+// stagnation-point similarity solution, the others from their
+// predecessors. Carried over by arc length from another layout, the
+// layers there are a neighbour's whose stagnation point lay elsewhere (θ
+// up to four times the stagnation layer's), and the first Newton step
+// from them diverged: NACA 0012 at 19° from 18°, where the converged
+// solution's stagnation point moved two panels, was laid out again
+// there and failed.
+func (cs *coupledState) resolveStagnation() {
+	ue := cs.ueLayers()
+	for i := range cs.st {
+		s := &cs.st[i]
+		if !s.first || s.ref < 0 {
+			continue
+		}
+		u := math.Max(ue[i], 1e-6)
+		th := bl.StagnationTheta(s.xi, u, cs.re)
+		cs.th[i], cs.m[i], cs.c[i] = th, u*stagnationShape*th, 0
+		for j := i + 1; j <= s.ref; j++ {
+			if cs.st[j].kind != bl.Laminar {
+				break
+			}
+			p := j - 1
+			cs.th[j], cs.c[j] = cs.th[p], cs.c[p]
+			cs.m[j] = ue[j] * cs.m[p] / math.Max(ue[p], 1e-6)
+			cs.solveStation(j, append([]float64(nil), ue...))
+		}
+	}
 }
 
 // warmFrom starts from a neighbouring solution's state, carried over by

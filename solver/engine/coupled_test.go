@@ -134,6 +134,34 @@ func TestEngineCoupledSweep(t *testing.T) {
 	}
 }
 
+// A sweep through maximum lift (NACA 0012, Re 6e6, tripped at 5 %, as
+// Ladson's, NASA TM-4074, 1988): every row converges, the maximum is a
+// peak inside the sweep near Ladson's 17.13° (within the issue's ±1.5°),
+// and exactly the rows beyond it are marked past it, with less lift.
+func TestEngineCoupledSweepPastClMax(t *testing.T) {
+	if testing.Short() {
+		t.Skip("long coupled sweep: run without -short (the race pass uses -short)")
+	}
+	st, secs := coupledStudy(t)
+	st.Sweep = model.SweepRange{FromDeg: 14, ToDeg: 19, StepDeg: 1}
+	res := run(t, NewEngine(), st, secs, true)
+	for _, r := range res.SweepCoupled {
+		t.Logf("α %4.1f°: converged %v, Cl %.4f, past Cl max %v, %d iterations", r.AlphaDeg, r.Converged, r.Cl, r.PastClMax, r.Iterations)
+		if !r.Converged {
+			t.Errorf("α %g°: not converged", r.AlphaDeg)
+		}
+	}
+	t.Logf("Cl max %.4f at %g° (peak %v)", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak)
+	if !res.ClMaxIsPeak || math.Abs(res.AlphaClMax-17.13) > 1.5 {
+		t.Fatalf("Cl max %.4f at %g°, peak %v: want a peak within 1.5° of 17.13°", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak)
+	}
+	for _, r := range res.SweepCoupled {
+		if past := r.AlphaDeg > res.AlphaClMax; r.PastClMax != past || past && !(r.Cl < res.ClMax) {
+			t.Errorf("α %g°: Cl %.4f, past Cl max %v; want past %v (Cl max %.4f at %g°)", r.AlphaDeg, r.Cl, r.PastClMax, past, res.ClMax, res.AlphaClMax)
+		}
+	}
+}
+
 func TestSweepOrder(t *testing.T) {
 	for _, tc := range []struct {
 		name   string
