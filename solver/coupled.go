@@ -269,10 +269,9 @@ func (s *System) solveCoupled(ctx context.Context, alphaDeg float64, opt Coupled
 			return nil, err
 		}
 		if mid.Converged {
-			out, err := s.solveCoupled(ctx, alphaDeg, opt, mid, halvings-1, st)
-			if err != nil || out.Converged {
-				return out, err
-			}
+			// Its last resort is the start from the march below, which
+			// would only repeat it.
+			return s.solveCoupled(ctx, alphaDeg, opt, mid, halvings-1, st)
 		}
 		warm = nil
 	}
