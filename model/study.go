@@ -197,9 +197,9 @@ type Viscous struct {
 	// the flow, iterated to convergence) or ViscousEstimate (the one-way
 	// boundary-layer estimate on the inviscid pressures, lift inviscid).
 	// Empty means ViscousEstimate: studies saved before the coupled
-	// solution existed keep the meaning they were saved with. NewStudy
-	// leaves it empty until the app shows the coupled solution; the
-	// command line's --section studies set ViscousCoupled.
+	// solution existed keep the meaning they were saved with. NewStudy,
+	// the demo study and the command line's --section studies set
+	// ViscousCoupled; a study that gains a speed turns it on (GainFlow).
 	Mode ViscousMode `json:"mode,omitempty"`
 	// TransitionN is the critical amplification exponent N of the e^N
 	// transition criterion (coupled mode), MinTransitionN to

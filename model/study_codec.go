@@ -59,6 +59,7 @@ func NewStudy() *Study {
 		Flow:      Flow{AlphaDeg: 4, TemperatureC: 15, PressurePa: 101325},
 		Sweep:     SweepRange{FromDeg: -4, ToDeg: 12, StepDeg: 1},
 		Ground:    Ground{ClearanceMM: 50},
+		Viscous:   Viscous{Mode: ViscousCoupled},
 		Pins:      []Pin{},
 	}
 }
@@ -101,6 +102,9 @@ func DecodeStudy(b []byte) (*Study, error) {
 	st := NewStudy()
 	st.Elements = nil
 	st.Pins = nil
+	// An absent viscous mode is the one-way estimate a study saved before
+	// the coupled solution meant, not NewStudy's coupled default.
+	st.Viscous = Viscous{}
 	dec := json.NewDecoder(bytes.NewReader(b))
 	dec.DisallowUnknownFields()
 	if err := dec.Decode(st); err != nil {

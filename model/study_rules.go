@@ -24,6 +24,24 @@ func (st *Study) CheckFlow() error {
 	return nil
 }
 
+// GainFlow applies the rule that a study with a speed (or a Reynolds
+// number) shows the viscous answer by default: when the flow gains one —
+// it had neither before (prev) and has one now — the viscous solution is
+// turned on, as the coupled solution unless the study chose the
+// one-way estimate explicitly. A study that already had a speed keeps
+// whatever the user chose, so a viscous solution turned off stays off.
+func (st *Study) GainFlow(prev Flow) {
+	had := prev.SpeedMPS > 0 || prev.Reynolds > 0
+	has := st.Flow.SpeedMPS > 0 || st.Flow.Reynolds > 0
+	if had || !has || st.Viscous.Enabled {
+		return
+	}
+	st.Viscous.Enabled = true
+	if st.Viscous.Mode == "" {
+		st.Viscous.Mode = ViscousCoupled
+	}
+}
+
 // MaxDensityRuns bounds the solves of one density study (panel counts ×
 // nose values), so that a mistyped list cannot start hours of work: each
 // solve factorises a dense system whose cost grows as the cube of the

@@ -131,3 +131,30 @@ func TestPinCurrentDoesNotWait(t *testing.T) {
 		t.Fatalf("%d pins after the solve, want 1", len(pins))
 	}
 }
+
+// A new study gains a speed: the viscous solution comes on, as the coupled
+// solution, in the same undo step, and the result carries it.
+func TestSetSpeedTurnsViscousOn(t *testing.T) {
+	c := newTestController(t)
+	if err := c.Load(model.NewStudy(), ""); err != nil {
+		t.Fatal(err)
+	}
+	c.idle()
+	if c.Study().Viscous.Enabled {
+		t.Fatal("a new study without a speed has the viscous solution on")
+	}
+	if err := c.SetSpeed("speed", 20); err != nil {
+		t.Fatal(err)
+	}
+	c.idle()
+	if v := c.Study().Viscous; !v.Enabled || !v.IsCoupled() {
+		t.Fatalf("after the first speed: viscous %+v, want the coupled solution on", v)
+	}
+	if !c.Undo() {
+		t.Fatal("nothing to undo")
+	}
+	c.idle()
+	if st := c.Study(); st.Viscous.Enabled || st.Flow.SpeedMPS != 0 {
+		t.Errorf("undo left speed %g, viscous %+v", st.Flow.SpeedMPS, st.Viscous)
+	}
+}

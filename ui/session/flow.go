@@ -7,9 +7,14 @@ import (
 // Flow editing: the controller's side.
 
 // SetSpeed sets the freestream speed in m/s (0: none, results stay
-// non-dimensional).
+// non-dimensional). A study that gains its first speed turns the viscous
+// solution on (model.Study.GainFlow).
 func (c *Controller) SetSpeed(key string, mps float64) error {
-	return c.Edit(key, func(s *model.Study) { s.Flow.SpeedMPS = mps })
+	return c.Edit(key, func(s *model.Study) {
+		prev := s.Flow
+		s.Flow.SpeedMPS = mps
+		s.GainFlow(prev)
+	})
 }
 
 // SetAir sets the air temperature (°C) and static pressure (Pa).
@@ -36,8 +41,13 @@ func (c *Controller) SetEndPlateHeight(key string, mm float64) error {
 
 // SetReynolds sets a Reynolds number on the first element's chord that
 // overrides the one from the speed (0: from the speed).
+// Like a speed, a first Reynolds number turns the viscous solution on.
 func (c *Controller) SetReynolds(key string, re float64) error {
-	return c.Edit(key, func(s *model.Study) { s.Flow.Reynolds = re })
+	return c.Edit(key, func(s *model.Study) {
+		prev := s.Flow
+		s.Flow.Reynolds = re
+		s.GainFlow(prev)
+	})
 }
 
 // SetViscous sets the boundary-layer estimate's settings.
