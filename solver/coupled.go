@@ -254,6 +254,20 @@ func (s *System) solveStrategies(ctx context.Context, alphaDeg float64, opt Coup
 			break
 		}
 	}
+	if !out.Converged && out.state != nil && out.state.freeSides() != [2]bool{} {
+		// No strategy converged from the march (a laminar separation
+		// bubble, most often): the trip ladder reaches the free
+		// solution through tripped layers.
+		t, c, n, r, err := out.state.tripLadder(ctx)
+		iters += n
+		if err != nil {
+			return nil, err
+		}
+		if c {
+			out = t.result()
+			out.Converged, out.Residual = true, r
+		}
+	}
 	out.Iterations = iters
 	return out, nil
 }
@@ -299,27 +313,13 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	var conv bool
 	var iters int
 	var res float64
-	if warm != nil && warm.state != nil && s.sameElements(warm.state.sol.sys) && cs.warmFrom(warm.state) {
-		// First the full coupling straight from the neighbour's state,
-		// which converges in a few iterations when the neighbour is
-		// close; failing that, a continuation from the neighbour's
-		// boundary layers, which solve their own equations on the
-		// neighbour's edge velocities.
-		snap := cs.snapshot()
-		conv, iters, res, err = cs.iterate(ctx, warmDirectIterations, tolerance(opt))
+	if warm != nil && warm.state != nil && s.sameElements(warm.state.sol.sys) {
+		var ok bool
+		conv, iters, res, ok, err = cs.solveFrom(ctx, warm.state)
 		if err != nil {
 			return nil, err
 		}
-		if !conv {
-			cs.restore(snap)
-			var n int
-			conv, n, res, err = cs.solve(ctx, cs.warmUe)
-			iters += n
-			if err != nil {
-				return nil, err
-			}
-		}
-		if conv && implausible(cs.result()) != "" {
+		if ok && conv && implausible(cs.result()) != "" {
 			conv = false // try from the march
 		}
 	}
