@@ -431,15 +431,9 @@ func (cs *coupledState) ue0Of(s *station) float64 {
 	return g
 }
 
-// ue returns the edge velocities of the current mass defects.
+// ue returns the edge velocities of the current mass defects (during the
+// continuation blended with the march's, homotopySteps).
 func (cs *coupledState) ue() []float64 {
-	out := cs.ueCoupled()
-	cs.blendMarch(out)
-	return out
-}
-
-// ueCoupled returns Ue0 + D m, without the continuation's blend.
-func (cs *coupledState) ueCoupled() []float64 {
 	n := len(cs.st)
 	out := make([]float64, n)
 	for i := range out {
@@ -448,20 +442,12 @@ func (cs *coupledState) ueCoupled() []float64 {
 		for j, mj := range cs.m {
 			v += d[j] * mj
 		}
+		if cs.ueMarch != nil {
+			v = (1-cs.lam)*cs.ueMarch[i] + cs.lam*v
+		}
 		out[i] = v
 	}
 	return out
-}
-
-// blendMarch applies the continuation's blend with the march's edge
-// velocities (homotopySteps) to coupled edge velocities u, in place.
-func (cs *coupledState) blendMarch(u []float64) {
-	if cs.ueMarch == nil {
-		return
-	}
-	for i := range u {
-		u[i] = (1-cs.lam)*cs.ueMarch[i] + cs.lam*u[i]
-	}
 }
 
 // nearStagnationStations is how many stations at the start of each
