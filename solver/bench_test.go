@@ -6,6 +6,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/mat"
+
+	"sectionbench/model"
 )
 
 // Benchmarks of the panel method's stages on NACA 2412 (cosine spacing) at
@@ -163,7 +165,9 @@ func BenchmarkStreamlines(b *testing.B) {
 // The coupled viscous solution at one angle, NACA 0012 at 160 panels,
 // Re 6e6 tripped at 5 %: from the march (cold) and from the converged
 // solution 1° below (warm). Targets (issue "Coupled viscous solution"):
-// 30 ms cold, 10 ms warm on the project's 2-core machine.
+// 30 ms cold, 10 ms warm on the project's 2-core machine. Each solve
+// builds its angle's wakes and source responses (the System's cache of
+// them is cleared), as a new angle in the app or a polar does.
 func BenchmarkCoupledCold(b *testing.B) {
 	sys, err := NewSystem(Config{Elements: []Element{nacaElement(b, "0012", 160)}})
 	if err != nil {
@@ -171,6 +175,7 @@ func BenchmarkCoupledCold(b *testing.B) {
 	}
 	opt := CoupledOptions{Re: []float64{6e6}, TripUpper: 0.05, TripLower: 0.05}
 	for b.Loop() {
+		sys.flows.clear()
 		if cs, err := sys.SolveCoupled(context.Background(), 4, opt, nil); err != nil || !cs.Converged {
 			b.Fatalf("not converged: %v", err)
 		}
@@ -188,8 +193,65 @@ func BenchmarkCoupledWarm(b *testing.B) {
 		b.Fatalf("no starting solution: %v", err)
 	}
 	for b.Loop() {
+		sys.flows.clear()
 		if cs, err := sys.SolveCoupled(context.Background(), 4, opt, warm); err != nil || !cs.Converged {
 			b.Fatalf("not converged: %v", err)
 		}
 	}
+}
+
+// A 41-angle coupled polar of two elements (TestCoupledMainAndFlap's
+// NACA 4412 main element, 160 panels, and its flap, 120 panels, 0.35
+// chord, 10° down; Re 1e6 and 0.35e6, tripped at 5 %), −10° to 10° in
+// 0.5° steps walked as the engine's sweep walks one: outwards from 0°,
+// each angle warm-started from its converged neighbour. Target (issue
+// "Coupled viscous solution"): 3 s on the project's 2-core machine.
+// Reports how many angles converged.
+func BenchmarkCoupledPolar41TwoElement(b *testing.B) {
+	main := nacaElement(b, "4412", 160)
+	flap := transform(nacaElement(b, "4412", 120), 10, 0.35, model.Point{X: 1.1, Y: -0.15})
+	flap.Name = "flap"
+	sys, err := NewSystem(Config{Elements: []Element{main, flap}})
+	if err != nil {
+		b.Fatal(err)
+	}
+	opt := CoupledOptions{Re: []float64{1e6, 0.35e6}, TripUpper: 0.05, TripLower: 0.05}
+	alphas := sweep41()
+	var conv int
+	for b.Loop() {
+		sys.flows.clear()
+		conv = 0
+		var warm, start *CoupledSolution
+		for _, i := range polarOrder(len(alphas)) {
+			if i == len(alphas)/2-1 {
+				warm = start // turning round: downwards from 0°
+			}
+			cs, err := sys.SolveCoupled(context.Background(), alphas[i], opt, warm)
+			if err != nil {
+				b.Fatal(err)
+			}
+			if cs.Converged {
+				conv++
+				warm = cs
+				if i == len(alphas)/2 {
+					start = cs
+				}
+			}
+		}
+	}
+	b.ReportMetric(float64(conv), "converged-rows")
+}
+
+// polarOrder returns the indices of an odd number n of angles centred on
+// 0° in the order the engine's sweep walks them: the middle one, upwards
+// from it, then downwards from it.
+func polarOrder(n int) []int {
+	var o []int
+	for i := n / 2; i < n; i++ {
+		o = append(o, i)
+	}
+	for i := n/2 - 1; i >= 0; i-- {
+		o = append(o, i)
+	}
+	return o
 }

@@ -67,3 +67,10 @@ func (s *System) coupledFlowAt(alphaDeg float64) (*coupledFlow, error) {
 	c.mu.Unlock()
 	return f, nil
 }
+
+// clear empties the cache (for benchmarks that time the flow's build).
+func (c *flowCache) clear() {
+	c.mu.Lock()
+	c.recent = nil
+	c.mu.Unlock()
+}
