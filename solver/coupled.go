@@ -111,41 +111,67 @@ type CoupledSolution struct {
 // 0°), the layout of the stations puts it on one of the two panels
 // beside the node, and the solution, if it converges at all, is not the
 // symmetric one (Cl −1.4e−6 on NACA 0012 at 0°); it solves at α ±
-// nodeStepDeg instead (from the solution at α if that converged) and
-// returns their mean (central differences: an error of order
-// nodeStepDeg² in the coefficients, far below the method's), saying so
-// in Note. If either fails, it returns the solution at α.
+// nodeStepDeg instead and returns their mean (central differences: an
+// error of order nodeStepDeg² in the coefficients, far below the
+// method's), saying so in Note: α − nodeStepDeg from warm (cold if nil;
+// halving the step as for α)
+// and α + nodeStepDeg cold (its stagnation point lies on the node's
+// other side, where a start from α − nodeStepDeg's layout failed after
+// a hundred iterations). Only if either fails does it solve at α itself,
+// try the failed side again from that solution if it converged, and
+// return the solution at α if a side still fails.
 func (s *System) SolveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution) (*CoupledSolution, error) {
-	out, err := s.solveStrategies(ctx, alphaDeg, opt, warm, maxAlphaHalvings)
-	if err != nil || s.geo.ground || !stagnationOnNode(out.Inviscid) {
-		return out, err
+	if s.geo.ground {
+		return s.solveStrategies(ctx, alphaDeg, opt, warm, maxAlphaHalvings)
 	}
-	var from *CoupledSolution
-	if out.Converged {
-		from = out
-	}
-	lo, err := s.solveStrategies(ctx, alphaDeg-nodeStepDeg, opt, from, 0)
+	flow, err := s.coupledFlowAt(alphaDeg)
 	if err != nil {
 		return nil, err
 	}
-	hi, err := s.solveStrategies(ctx, alphaDeg+nodeStepDeg, opt, lo, 0)
+	if !stagnationOnNode(flow.sol) {
+		return s.solveStrategies(ctx, alphaDeg, opt, warm, maxAlphaHalvings)
+	}
+	lo, err := s.solveStrategies(ctx, alphaDeg-nodeStepDeg, opt, warm, maxAlphaHalvings)
 	if err != nil {
 		return nil, err
 	}
+	hi, err := s.solveStrategies(ctx, alphaDeg+nodeStepDeg, opt, nil, 0)
+	if err != nil {
+		return nil, err
+	}
+	iters := lo.Iterations + hi.Iterations
 	if !lo.Converged || !hi.Converged {
-		return out, nil
+		out, err := s.solveStrategies(ctx, alphaDeg, opt, warm, maxAlphaHalvings)
+		if err != nil || !out.Converged {
+			return out, err
+		}
+		if !lo.Converged {
+			if lo, err = s.solveStrategies(ctx, alphaDeg-nodeStepDeg, opt, out, 0); err != nil {
+				return nil, err
+			}
+		}
+		if !hi.Converged {
+			if hi, err = s.solveStrategies(ctx, alphaDeg+nodeStepDeg, opt, lo, 0); err != nil {
+				return nil, err
+			}
+		}
+		if !lo.Converged || !hi.Converged {
+			return out, nil
+		}
+		iters += out.Iterations
 	}
+	inv := flow.sol
 	mean := *hi
-	mean.AlphaDeg, mean.Inviscid = alphaDeg, out.Inviscid
-	mean.ClInviscid, mean.CmInviscid = out.ClInviscid, out.CmInviscid
+	mean.AlphaDeg, mean.Inviscid = alphaDeg, inv
+	mean.ClInviscid, mean.CmInviscid = inv.ClPressure, inv.Cm
 	mean.Cl, mean.Cd, mean.Cm = 0.5*(lo.Cl+hi.Cl), 0.5*(lo.Cd+hi.Cd), 0.5*(lo.Cm+hi.Cm)
 	mean.Elements = append([]CoupledElement(nil), hi.Elements...)
 	for k := range mean.Elements {
 		e, l := &mean.Elements[k], &lo.Elements[k]
 		e.Cl, e.Cd, e.Cm = 0.5*(e.Cl+l.Cl), 0.5*(e.Cd+l.Cd), 0.5*(e.Cm+l.Cm)
-		e.ClInviscid = out.Elements[k].ClInviscid
+		e.ClInviscid = inv.Elements[k].ClPressure
 	}
-	mean.Iterations = out.Iterations + lo.Iterations + hi.Iterations
+	mean.Iterations = iters
 	mean.Note = fmt.Sprintf("the stagnation point sat on a panel node: solved at %.2f° and %.2f° and their coefficients averaged; the boundary layers shown are those at %.2f°", alphaDeg-nodeStepDeg, alphaDeg+nodeStepDeg, alphaDeg+nodeStepDeg)
 	return &mean, nil
 }
