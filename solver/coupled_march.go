@@ -22,8 +22,21 @@ func (cs *coupledState) march() []float64 {
 		u := math.Max(cs.ue0[i], 1e-3)
 		switch {
 		case s.side == sideWake && !s.wakeStart:
-			// The wake recovers towards U∞ downstream.
-			u = math.Max(u, ueM[s.prev[0]])
+			// The wake recovers towards U∞ downstream, its speed
+			// rising by at most Δξ/δ* of itself per interval: a
+			// layer cannot follow a change of its edge speed over
+			// less than its own thickness. Behind a slot the
+			// inviscid speed rises steeply from the wake's start
+			// (the flap's circulation); taken as it is, the mass
+			// defect fell by a quarter over the first wake panel,
+			// which D (of order 1/panel there) turned into edge
+			// speeds far from any solution at the first step of
+			// the continuation (coupled_slot.go).
+			p := s.prev[0]
+			u = math.Max(u, ueM[p])
+			if ds := cs.m[p] / ueM[p]; ds > 0 {
+				u = math.Min(u, ueM[p]*(1+(s.xi-cs.st[p].xi)/ds))
+			}
 		case s.side != sideWake && !s.first && s.xc > TrailingEdgeCutXC:
 			// The inviscid speed falls towards the discrete stagnation
 			// of the trailing edge, which the displacement removes: the

@@ -66,6 +66,7 @@ type coupledState struct {
 	ncrit    float64
 	wakes    []*wakeGeom
 	resp     *sourceResponse
+	slot     []float64 // per element, the weight of the slot treatment of its trailing-edge stations (slotWeights)
 
 	stag  []int     // per element, the node before the stagnation point in node order
 	sStag []float64 // arc length of the stagnation point from the element's first node
@@ -106,6 +107,7 @@ func stateOn(f *coupledFlow, opt CoupledOptions) *coupledState {
 	if cs.ncrit <= 0 {
 		cs.ncrit = bl.DefaultNCrit
 	}
+	cs.slot = slotWeights(geo)
 	cs.stag = make([]int, len(geo.elems))
 	cs.sStag = make([]float64, len(geo.elems))
 	cs.reset()
@@ -406,13 +408,15 @@ func (cs *coupledState) sigmaRow(s *station) []float64 {
 		return out
 	}
 	e := &cs.geo.elems[s.elem]
-	u := e.u0 + speedNode(e, s.node)
+	a, b, wb := cs.speedNodes(s)
 	sg := 1.0
 	if s.side == sideLower {
 		sg = -1
 	}
-	for c, v := range r.gam.Data[u*ncol : (u+1)*ncol] {
-		out[c] = sg * v
+	ra := r.gam.Data[(e.u0+a)*ncol : (e.u0+a+1)*ncol]
+	rb := r.gam.Data[(e.u0+b)*ncol : (e.u0+b+1)*ncol]
+	for c := range out {
+		out[c] = sg * ((1-wb)*ra[c] + wb*rb[c])
 	}
 	return out
 }
@@ -424,7 +428,8 @@ func (cs *coupledState) ue0Of(s *station) float64 {
 		return cs.resp.wakeU0[cs.resp.cols.wake0[s.elem]-cs.resp.cols.body+s.node]
 	}
 	e := &cs.geo.elems[s.elem]
-	g := cs.sol.g[e.u0+speedNode(e, s.node)]
+	a, b, wb := cs.speedNodes(s)
+	g := (1-wb)*cs.sol.g[e.u0+a] + wb*cs.sol.g[e.u0+b]
 	if s.side == sideLower {
 		return -g
 	}
