@@ -150,8 +150,8 @@ func TestMapPointErrors(t *testing.T) {
 // solution converges away from the ground; the test asserts the rise over
 // the converged points and reports, without forcing it, whether and
 // where the curve turns. Measured: −Cl 0.495 at h/c 1.0 rising to 0.751
-// at 0.3 (the README quotes both, to ±0.001); h/c 0.2 and below do not
-// converge, so no turn is found.
+// at 0.3 (the README quotes both, to ±0.001) and 0.957 at 0.2; the turn
+// lies below this range (solver's TestCoupledGroundPeak).
 func TestMapRideHeightTrend(t *testing.T) {
 	if testing.Short() {
 		t.Skip("coupled viscous solves")
