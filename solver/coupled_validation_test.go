@@ -33,7 +33,7 @@ import (
 // and 19.08°), which must converge with less lift than the maximum.
 // Ladson's section stalls abruptly there (Cl 0.997 at 18.02°, a
 // leading-edge stall); the coupled solution's lift falls gently, as the
-// trailing-edge separation moves forward (x/c 0.87 at 17.13°, 0.61 at
+// trailing-edge separation moves forward (x/c 0.87 at 17.13°, 0.59 at
 // 19.08°): an integral boundary layer does not model the bursting of a
 // leading-edge bubble, so past the maximum only convergence and the fall
 // of Cl are checked, not Ladson's values.
