@@ -282,7 +282,13 @@ func (cs *coupledState) newtonIterations(ctx context.Context, maxIt int, tol flo
 				limit(dc[i] / cs.c[i])
 			}
 		}
-		cs.limitSpeedStep(dm, limit)
+		ue, du := cs.speedStep(dm)
+		for i, u := range ue {
+			if u := math.Abs(u); u > minLimitedSpeed {
+				limit(du[i] / u)
+			}
+		}
+		rlx = cs.limitShape(dth, dm, ue, du, rlx)
 		res = 0
 		for i := range n {
 			r := math.Max(math.Abs(dth[i]/cs.th[i]), math.Abs(dm[i]/cs.m[i]))
@@ -361,34 +367,69 @@ func diverging(res float64, grown *int, prev float64) bool {
 	return res > maxStepRatio || *grown >= divergingSteps && res > minDivergingStep
 }
 
-// limitSpeedStep applies limit to each station's relative change of
-// edge velocity in the step dm of the mass defects (ΔUe = λ D Δm), as to
-// θ, m and √Cτ: next to a trailing edge the entries of D are of order
-// one over the panel length, and a step that changes the mass defects
-// there by a few per cent swung the edge velocity of the last stations
-// by half and more, and the iterations diverged (NACA 4412 at 14.5° from
-// 14°, where the upper layer leaves the trailing edge separated with
-// H 11). Under-relaxing the Newton update so that no variable of the
-// boundary layer or the flow changes by more than a set fraction is Drela
-// & Giles' (AIAA J. 25(10), 1987; the fractions here are
-// maxRelDecrease and maxRelIncrease).
-func (cs *coupledState) limitSpeedStep(dm []float64, limit func(float64)) {
+// speedStep returns the edge velocities ue and their change du in the
+// Newton step dm of the mass defects (ΔUe = λ D Δm). The step is
+// under-relaxed so that no speed changes by more than the fractions θ, m
+// and √Cτ may, as the Newton update of Drela & Giles (AIAA J. 25(10),
+// 1987) is: next to a trailing edge the entries of D are of order one
+// over the panel length, and a step that changed the mass defects there
+// by a few per cent swung the edge velocity of the last stations by half
+// and more, and the iterations diverged (NACA 4412 at 14.5° from 14°,
+// where the upper layer leaves the trailing edge separated with H 11).
+func (cs *coupledState) speedStep(dm []float64) (ue, du []float64) {
 	n := len(cs.st)
-	ue := cs.ue()
+	ue = cs.ue()
 	coup := cs.coupling()
+	du = make([]float64, n)
 	for i := range n {
 		d := cs.d[i*n : (i+1)*n]
-		du := 0.0
 		for j, v := range dm {
-			du += d[j] * v
+			du[i] += d[j] * v
 		}
-		if u := math.Abs(ue[i]); u > minLimitedSpeed {
-			limit(coup * du / u)
-		}
+		du[i] *= coup
 	}
+	return ue, du
 }
 
-// minLimitedSpeed is the edge velocity below which limitSpeedStep leaves
+// limitShape halves the relaxation rlx (maxShapeHalvings times at most)
+// while the step would take a station's shape factor δ*/θ = m/(θ Ue),
+// with the speeds ue changing by du, below minH, where clampState would
+// raise that station's m outside the Newton step and through D move
+// every speed near it (keeping H in the closures' range, as Drela &
+// Giles 1987 do). Stations already at minH, those whose speed is below
+// minLimitedSpeed, those whose speed is not their own (near a stagnation
+// point, the start of a wake) and those of an element whose trailing edge
+// lies in a slot (slotWeights; with them the inverted two-element example
+// in ground effect lost two of its ride heights) are left out. On a
+// single element the lower trailing-edge station's H fell below 1 under
+// a trailing edge left separated, the clamp raised its m and its speed
+// swung (NACA 4412 at 14.5° from 14°, NACA 0012 at 20° from 19°).
+func (cs *coupledState) limitShape(dth, dm, ue, du []float64, rlx float64) float64 {
+	for range maxShapeHalvings {
+		ok := true
+		for i := range cs.st {
+			s := &cs.st[i]
+			if s.first || s.nearStagnation || s.wakeStart || !(ue[i] > minLimitedSpeed) || cs.slot[s.elem] > 0 {
+				continue
+			}
+			u, m, th := ue[i]+rlx*du[i], cs.m[i]+rlx*dm[i], cs.th[i]+rlx*dth[i]
+			if u > 0 && th > 0 && m < minH*th*u && cs.m[i] > minH*cs.th[i]*ue[i] {
+				ok = false
+				break
+			}
+		}
+		if ok {
+			break
+		}
+		rlx /= 2
+	}
+	return rlx
+}
+
+// maxShapeHalvings bounds limitShape's halvings of a step.
+const maxShapeHalvings = 6
+
+// minLimitedSpeed is the edge velocity below which speedStep's limit leaves
 // a station's change alone: next to a stagnation point the relative
 // change of a speed near zero says nothing of the step.
 const minLimitedSpeed = 0.1
