@@ -6,8 +6,6 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/mat"
-
-	"sectionbench/model"
 )
 
 // Benchmarks of the panel method's stages on NACA 2412 (cosine spacing) at
@@ -208,10 +206,7 @@ func BenchmarkCoupledWarm(b *testing.B) {
 // "Coupled viscous solution"): 3 s on the project's 2-core machine.
 // Reports how many angles converged.
 func BenchmarkCoupledPolar41TwoElement(b *testing.B) {
-	main := nacaElement(b, "4412", 160)
-	flap := transform(nacaElement(b, "4412", 120), 10, 0.35, model.Point{X: 1.1, Y: -0.15})
-	flap.Name = "flap"
-	sys, err := NewSystem(Config{Elements: []Element{main, flap}})
+	sys, err := NewSystem(mainAndFlap(b))
 	if err != nil {
 		b.Fatal(err)
 	}

@@ -147,6 +147,16 @@ func TestCoupledFarApart(t *testing.T) {
 	}
 }
 
+// mainAndFlap is TestCoupledMainAndFlap's configuration (also its
+// polar's benchmark): NACA 4412 at 160 panels and a 0.35-chord NACA 4412
+// flap at 120 panels, 10° down, its leading edge at (1.1, −0.15).
+func mainAndFlap(t testing.TB) Config {
+	main := nacaElement(t, "4412", 160)
+	flap := transform(nacaElement(t, "4412", 120), 10, 0.35, model.Point{X: 1.1, Y: -0.15})
+	flap.Name = "flap"
+	return Config{Elements: []Element{main, flap}}
+}
+
 // A main element and a flap behind it converge with every element's
 // lift below its inviscid lift and a positive drag (NACA 4412 main,
 // 0.35-chord NACA 4412 flap at 10°, Re 1e6 on the main chord, tripped at
@@ -155,10 +165,7 @@ func TestCoupledFarApart(t *testing.T) {
 // (DEVELOPERS.md).
 func TestCoupledMainAndFlap(t *testing.T) {
 	skipUnderRace(t)
-	main := nacaElement(t, "4412", 160)
-	flap := transform(nacaElement(t, "4412", 120), 10, 0.35, model.Point{X: 1.1, Y: -0.15})
-	flap.Name = "flap"
-	sys, err := NewSystem(Config{Elements: []Element{main, flap}})
+	sys, err := NewSystem(mainAndFlap(t))
 	if err != nil {
 		t.Fatal(err)
 	}
