@@ -81,6 +81,12 @@ func sourceVelocity(geo *geometry, wakes []*wakeGeom, cols sourceColumns, px, py
 // the velocity is added, the image of a source being a source of the same
 // sign (system.go).
 func addSources(geo *geometry, wakes []*wakeGeom, cols sourceColumns, px, py float64, selfPanel, wake, node int, u, v []float64, image bool) {
+	addBodySources(geo, px, py, selfPanel, u, v, image)
+	addWakeSources(wakes, cols, px, py, wake, node, u, v, image)
+}
+
+// addBodySources is addSources for the body panels' columns.
+func addBodySources(geo *geometry, px, py float64, selfPanel int, u, v []float64, image bool) {
 	sgn := 1.0
 	if image {
 		sgn = -1
@@ -100,6 +106,14 @@ func addSources(geo *geometry, wakes []*wakeGeom, cols sourceColumns, px, py flo
 		lu, lv := constantSource(dth, lam)
 		u[j] += lu*p.tx - lv*p.ty
 		v[j] += sgn * (lu*p.ty + lv*p.tx)
+	}
+}
+
+// addWakeSources is addSources for the wakes' columns.
+func addWakeSources(wakes []*wakeGeom, cols sourceColumns, px, py float64, wake, node int, u, v []float64, image bool) {
+	sgn := 1.0
+	if image {
+		sgn = -1
 	}
 	for k, w := range wakes {
 		c0 := cols.wake0[k]
@@ -153,27 +167,16 @@ func newSourceResponse(sol *Solution, wakes []*wakeGeom) *sourceResponse {
 	cols := newSourceColumns(geo, wakes)
 	n := geo.n
 	r := &sourceResponse{cols: cols}
-	r.gam = blas64.General{Rows: n, Cols: cols.n, Stride: cols.n, Data: make([]float64, n*cols.n)}
-	// Rows of S: tangency at every panel midpoint and base midpoint, 0 on
-	// Kutta rows; G = −A⁻¹ S.
-	type rowPt struct {
-		row, self int
-		wake      int // the element whose wake starts at this point (a base midpoint), −1 if none
-		px, py    float64
-		nx, ny    float64
-	}
-	var rows []rowPt
-	for k := range geo.elems {
-		e := &geo.elems[k]
-		for i := 0; i < e.np; i++ {
-			p := &geo.panels[e.p0+i]
-			rows = append(rows, rowPt{row: e.u0 + i, self: e.p0 + i, wake: -1, px: p.mx, py: p.my, nx: p.nx, ny: p.ny})
-		}
-		if e.open() {
-			b := &e.base
-			rows = append(rows, rowPt{row: e.us, self: -1, wake: k, px: b.mx, py: b.my, nx: b.nx, ny: b.ny})
-		}
-	}
+	// G = −A⁻¹ S, S's rows the tangency at every panel midpoint and base
+	// midpoint (0 on Kutta rows). The body panels' columns do not depend
+	// on the wakes (nor, in free air, on the angle): they come from the
+	// System, built once (bodySourceResponse); the wakes' are built here.
+	// Each column is solved on its own, so the two parts are what solving
+	// them together gave, to the last bit.
+	body := s.bodySourceResponse()
+	nwc := cols.n - cols.body
+	wg := blas64.General{Rows: n, Cols: nwc, Stride: nwc, Data: make([]float64, n*nwc)}
+	rows := sourceRows(geo)
 	parallelRows(len(rows), func(lo, hi int) {
 		u, v := make([]float64, cols.n), make([]float64, cols.n)
 		for _, rp := range rows[lo:hi] {
@@ -181,14 +184,25 @@ func newSourceResponse(sol *Solution, wakes []*wakeGeom) *sourceResponse {
 			if rp.wake >= 0 {
 				node = 0
 			}
-			sourceVelocity(geo, wakes, cols, rp.px, rp.py, rp.self, rp.wake, node, u, v)
-			out := r.gam.Data[rp.row*cols.n : (rp.row+1)*cols.n]
+			clear(u)
+			clear(v)
+			addWakeSources(wakes, cols, rp.px, rp.py, rp.wake, node, u, v, false)
+			if geo.ground {
+				addWakeSources(wakes, cols, rp.px, 2*geo.groundY-rp.py, -1, -1, u, v, true)
+			}
+			out := wg.Data[rp.row*nwc : (rp.row+1)*nwc]
 			for c := range out {
-				out[c] = -(u[c]*rp.nx + v[c]*rp.ny)
+				out[c] = -(u[cols.body+c]*rp.nx + v[cols.body+c]*rp.ny)
 			}
 		}
 	})
-	s.solveColumns(r.gam)
+	s.solveColumns(wg)
+	r.gam = blas64.General{Rows: n, Cols: cols.n, Stride: cols.n, Data: make([]float64, n*cols.n)}
+	for i := range n {
+		row := r.gam.Data[i*cols.n : (i+1)*cols.n]
+		copy(row, body.Data[i*cols.body:(i+1)*cols.body])
+		copy(row[cols.body:], wg.Data[i*nwc:(i+1)*nwc])
+	}
 	// Wake rows: the vortex sheets' velocity per unit nodal γ times G, plus
 	// the sources' own.
 	nw := 0
@@ -219,15 +233,14 @@ func newSourceResponse(sol *Solution, wakes []*wakeGeom) *sourceResponse {
 			for c := range out {
 				out[c] = u[c]*t.X + v[c]*t.Y
 			}
-			// out += tgᵀ G
+			// out += tgᵀ G, row by row (blas64.Axpy: the same operations
+			// as the plain loop, vectorised).
+			y := blas64.Vector{N: cols.n, Inc: 1, Data: out}
 			for i, a := range tg {
 				if a == 0 {
 					continue
 				}
-				g := r.gam.Data[i*cols.n : (i+1)*cols.n]
-				for c := range out {
-					out[c] += a * g[c]
-				}
+				blas64.Axpy(a, blas64.Vector{N: cols.n, Inc: 1, Data: r.gam.Data[i*cols.n : (i+1)*cols.n]}, y)
 			}
 		}
 	})
@@ -276,4 +289,68 @@ func parallelRows(n int, body func(lo, hi int)) {
 		wg.Go(func() { body(lo, hi) })
 	}
 	wg.Wait()
+}
+
+// sourceRow is a row of S: a point where the body's flow tangency is
+// held, with its normal.
+type sourceRow struct {
+	row, self int
+	wake      int // the element whose wake starts at this point (a base midpoint), −1 if none
+	px, py    float64
+	nx, ny    float64
+}
+
+// sourceRows returns S's rows: every panel midpoint and every open
+// trailing edge's base midpoint.
+func sourceRows(geo *geometry) []sourceRow {
+	var rows []sourceRow
+	for k := range geo.elems {
+		e := &geo.elems[k]
+		for i := 0; i < e.np; i++ {
+			p := &geo.panels[e.p0+i]
+			rows = append(rows, sourceRow{row: e.u0 + i, self: e.p0 + i, wake: -1, px: p.mx, py: p.my, nx: p.nx, ny: p.ny})
+		}
+		if e.open() {
+			b := &e.base
+			rows = append(rows, sourceRow{row: e.us, self: -1, wake: k, px: b.mx, py: b.my, nx: b.nx, ny: b.ny})
+		}
+	}
+	return rows
+}
+
+// bodySources is the body panels' columns of G = −A⁻¹ S (Unknowns() ×
+// body panels), which depend on the geometry only; a System builds them
+// the first time a coupled solution needs them.
+type bodySources struct {
+	once sync.Once
+	g    blas64.General
+}
+
+// bodySourceResponse returns the body panels' columns of G (bodySources).
+func (s *System) bodySourceResponse() blas64.General {
+	s.bodySrc.once.Do(func() {
+		geo := s.geo
+		nb := len(geo.panels)
+		n := geo.n
+		g := blas64.General{Rows: n, Cols: nb, Stride: nb, Data: make([]float64, n*nb)}
+		rows := sourceRows(geo)
+		parallelRows(len(rows), func(lo, hi int) {
+			u, v := make([]float64, nb), make([]float64, nb)
+			for _, rp := range rows[lo:hi] {
+				clear(u)
+				clear(v)
+				addBodySources(geo, rp.px, rp.py, rp.self, u, v, false)
+				if geo.ground {
+					addBodySources(geo, rp.px, 2*geo.groundY-rp.py, -1, u, v, true)
+				}
+				out := g.Data[rp.row*nb : (rp.row+1)*nb]
+				for c := range out {
+					out[c] = -(u[c]*rp.nx + v[c]*rp.ny)
+				}
+			}
+		})
+		s.solveColumns(g)
+		s.bodySrc.g = g
+	})
+	return s.bodySrc.g
 }

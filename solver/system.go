@@ -281,7 +281,8 @@ type System struct {
 	forces   []elemQuad
 	hull     []hullVertex // of ±(vt0_j, vt90_j), for CpMin in sweeps
 	timings  Timings
-	flows    flowCache // the coupled solution's recent flows (coupled_flow.go)
+	flows    flowCache   // the coupled solution's recent flows (coupled_flow.go)
+	bodySrc  bodySources // the body sources' columns of the coupled solution's G (coupled_influence.go)
 }
 
 // NewSystem validates cfg, assembles and factorises the influence matrix of
