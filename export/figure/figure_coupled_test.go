@@ -9,6 +9,7 @@ import (
 	"testing"
 
 	"sectionbench/model"
+	"sectionbench/solver"
 	"sectionbench/solver/engine"
 )
 
@@ -125,5 +126,43 @@ func TestCoupledBoundaryLayerView(t *testing.T) {
 	sc.Coupled = &engine.CoupledPoint{Converged: false}
 	if _, err := PlotView(ViewBoundaryLayer, sc); !errors.Is(err, ErrNoData) {
 		t.Errorf("without a converged point: %v", err)
+	}
+}
+
+// TestStreamlinesDisplacement: with a converged coupled point the
+// streamline view draws each element's displacement surface and wake,
+// named in the key; at mid-chord the line lies δ* outside
+// the surface (the definition of the displacement surface), and without
+// a converged point nothing is drawn.
+func TestStreamlinesDisplacement(t *testing.T) {
+	sc, r := coupledScene(t)
+	if s := svgText(t, ViewStreamlines, sc); !strings.Contains(s, "displacement surface and wake (coupled)") {
+		t.Error("streamline view lacks the displacement surface")
+	}
+	d := r.Coupled.Detail
+	paths := displacementPaths(d)
+	if len(paths) != 1 {
+		t.Fatalf("%d displacement paths for one element", len(paths))
+	}
+	e := d.Elements[0]
+	var te solver.CoupledStation // the upper station nearest mid-chord
+	for _, q := range e.Upper.Stations {
+		if math.Abs(q.XC-0.5) < math.Abs(te.XC-0.5) {
+			te = q
+		}
+	}
+	want := te.DStar * e.Chord * mmPerM
+	best := math.Inf(1)
+	for _, q := range paths[0] {
+		best = math.Min(best, math.Hypot(q.X-te.X*mmPerM, q.Y-te.Y*mmPerM))
+	}
+	// The nearest point of the path to the station is the station moved
+	// by δ* (within a tenth: the normal is the chord between neighbours).
+	if math.Abs(best-want) > 0.1*want {
+		t.Errorf("displacement line %.4f mm from the station at x/c %.3f, δ* is %.4f mm", best, te.XC, want)
+	}
+	sc.Coupled = &engine.CoupledPoint{Converged: false}
+	if s := svgText(t, ViewStreamlines, sc); strings.Contains(s, "displacement surface") {
+		t.Error("a point that did not converge draws a displacement surface")
 	}
 }

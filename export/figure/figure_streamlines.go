@@ -169,6 +169,13 @@ func streamlinesPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		k.add("dividing streamline", legendLine{divSty})
 	}
 	p.Add(polys...) // bodies over the streamlines
+	if d := coupledDetail(sc); d != nil {
+		sty := lineStyle(th.lower, widthNormal, dashLower)
+		for _, xys := range displacementPaths(d) {
+			p.Add(&clippedLine{xys: xys, style: sty})
+		}
+		k.add("displacement surface and wake (coupled)", legendLine{sty})
+	}
 	if sc.Ground {
 		p.Add(groundLine(sc, th))
 		bodyExt.add(bodyExt.x0, sc.GroundY*mmPerM)
