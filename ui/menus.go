@@ -166,6 +166,9 @@ func (w *Workbench) openExample(ex assets.Example) {
 		if err == nil {
 			err = w.ctl.Load(st, "")
 		}
+		if err == nil {
+			w.sweepOnOpen()
+		}
 		w.userError(err)
 	})
 }
@@ -186,6 +189,7 @@ func (w *Workbench) loadStudyFile(path string) {
 		return
 	}
 	w.ctl.Open(o, path)
+	w.sweepOnOpen()
 }
 
 // loadSectionFile makes a coordinate file the current element's section.

@@ -4,11 +4,14 @@ import (
 	"context"
 	"fmt"
 	"math"
+	"path/filepath"
 	"strings"
 	"testing"
 
 	"fyne.io/fyne/v2/test"
 
+	"sectionbench/assets"
+	"sectionbench/export"
 	figures "sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
@@ -276,5 +279,41 @@ func TestCoupledDragViewNote(t *testing.T) {
 		if _, ok := coupledViewNote(&figures.Scene{}, f, empty); ok {
 			t.Errorf("figure %d: coupled note without a coupled sweep", f)
 		}
+	}
+}
+
+// The desktop app's options run the sweep of a viscous study when it is
+// opened (the polar is not swept live with the viscous solution on): the
+// demo opens with its coupled polar, and an example opened later runs its
+// own; with the option off nothing runs until Run sweep.
+func TestSweepOnOpen(t *testing.T) {
+	test.NewTempApp(t)
+	dir := t.TempDir()
+	st, err := model.DecodeStudy(assets.DemoStudy)
+	if err != nil {
+		t.Fatal(err)
+	}
+	st.Sweep = model.SweepRange{FromDeg: 2, ToDeg: 6, StepDeg: 2}
+	path := filepath.Join(dir, "viscous.json")
+	if err := export.SaveStudy(path, st); err != nil {
+		t.Fatal(err)
+	}
+	w := openTestBenchWith(t, path, Options{SweepOnOpen: true})
+	rows, _, _ := w.ctl.SweepCoupled()
+	if len(rows) != 3 {
+		t.Fatalf("%d coupled rows after opening a viscous study, want 3", len(rows))
+	}
+	st.Viscous.Enabled = false
+	if err := export.SaveStudy(path, st); err != nil {
+		t.Fatal(err)
+	}
+	w.loadStudyFile(path)
+	w.WaitIdle()
+	if w.ctl.Sweep() == nil {
+		t.Error("no live sweep of the inviscid study")
+	}
+	off := openTestBenchWith(t, "", Options{})
+	if r, _, _ := off.ctl.SweepCoupled(); r != nil {
+		t.Error("a coupled sweep ran without the option")
 	}
 }

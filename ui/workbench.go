@@ -86,12 +86,17 @@ type Options struct {
 	// AutosaveDir is the folder where unsaved changes are kept for
 	// recovery after a crash; "" turns autosave off.
 	AutosaveDir string
+	// SweepOnOpen runs the sweep of a study opened with the viscous
+	// solution on (whose polar is not swept live), with its progress and
+	// Cancel, so the polar fills in without a press of Run sweep.
+	SweepOnOpen bool
 }
 
 // DefaultOptions are the desktop app's: autosave in the folder the
 // SECTIONBENCH_CONFIG_DIR environment variable names, else in
-// "sectionbench" under the user's configuration folder.
-func DefaultOptions() Options { return Options{AutosaveDir: defaultAutosaveDir()} }
+// "sectionbench" under the user's configuration folder, and the sweep of
+// a viscous study run when it is opened.
+func DefaultOptions() Options { return Options{AutosaveDir: defaultAutosaveDir(), SweepOnOpen: true} }
 
 // New opens a workbench window in app for the study at path, or for the
 // embedded demo study if path is empty, with DefaultOptions. The window is
@@ -139,6 +144,7 @@ func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain
 	} else if err := ctl.Load(st, path); err != nil {
 		return nil, err
 	}
+	w.sweepOnOpen()
 	if pathErr != nil {
 		why := friendly(pathErr)
 		if !strings.Contains(why, requested) {
@@ -148,6 +154,15 @@ func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain
 		showError(w.startupErr, w.win)
 	}
 	return w, nil
+}
+
+// sweepOnOpen starts the sweep of a study just opened when the options
+// ask for it and the polar is not swept live (the viscous solution is
+// on): the same run as the Run sweep button, with progress and Cancel.
+func (w *Workbench) sweepOnOpen() {
+	if w.opt.SweepOnOpen && w.ctl.Study().Viscous.Enabled {
+		w.controls.runSweep()
+	}
 }
 
 // Window returns the workbench window.
