@@ -23,10 +23,17 @@ import (
 // turbulence it stands for, refuses a value out of range, and the choice
 // is one undo step.
 func TestViscousModeChoice(t *testing.T) {
-	w := newTestBench(t) // the demo: NACA 4412 inverted, 16.7 m/s, viscous off
+	w := newDemoBench(t) // the demo: NACA 4412 inverted, 16.7 m/s, the coupled solution on
 	vc := w.controls.vc
-	if vc.mode.Selected != modeOff || !vc.ncrit.Disabled() {
+	if vc.mode.Selected != modeCoupled || vc.ncrit.Disabled() {
 		t.Fatalf("demo opens with %q (N field disabled %v)", vc.mode.Selected, vc.ncrit.Disabled())
+	}
+	if c := current(t, w).Coupled; c == nil || !c.Converged {
+		t.Fatalf("the demo opens without a converged coupled result: %+v", c)
+	}
+	vc.mode.SetSelected(modeOff)
+	if res := current(t, w); res.Coupled != nil || w.ctl.Study().Viscous.Enabled || !vc.ncrit.Disabled() {
+		t.Fatalf("off: coupled result %v, study %+v", res.Coupled != nil, w.ctl.Study().Viscous)
 	}
 	for _, o := range vc.mode.Options {
 		if len(strings.Fields(o)) < 2 {

@@ -90,6 +90,10 @@ type Options struct {
 	// solution on (whose polar is not swept live), with its progress and
 	// Cancel, so the polar fills in without a press of Run sweep.
 	SweepOnOpen bool
+
+	// start is the study opened when no path is given, instead of the
+	// embedded demo (tests: the demo with its viscous solution off).
+	start *model.Study
 }
 
 // DefaultOptions are the desktop app's: autosave in the folder the
@@ -129,6 +133,9 @@ func newWorkbench(app fyne.App, path string, opt Options, do func(func()), drain
 	if path == "" {
 		if st, err = model.DecodeStudy(assets.DemoStudy); err != nil {
 			return nil, err
+		}
+		if opt.start != nil {
+			st = opt.start
 		}
 	}
 	ctl := session.NewController(do)
