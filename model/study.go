@@ -199,7 +199,7 @@ type Viscous struct {
 	// Empty means ViscousEstimate: studies saved before the coupled
 	// solution existed keep the meaning they were saved with. NewStudy,
 	// the demo study and the command line's --section studies set
-	// ViscousCoupled; a study that gains a speed turns it on (GainFlow).
+	// ViscousCoupled; a study that gains a speed turns it on (FollowFlow).
 	Mode ViscousMode `json:"mode,omitempty"`
 	// TransitionN is the critical amplification exponent N of the e^N
 	// transition criterion (coupled mode), MinTransitionN to

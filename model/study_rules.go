@@ -24,21 +24,25 @@ func (st *Study) CheckFlow() error {
 	return nil
 }
 
-// GainFlow applies the rule that a study with a speed (or a Reynolds
+// FollowFlow applies the rule that a study with a speed (or a Reynolds
 // number) shows the viscous answer by default: when the flow gains one —
 // it had neither before (prev) and has one now — the viscous solution is
-// turned on, as the coupled solution unless the study chose the
-// one-way estimate explicitly. A study that already had a speed keeps
-// whatever the user chose, so a viscous solution turned off stays off.
-func (st *Study) GainFlow(prev Flow) {
+// turned on, as the coupled solution unless the study chose the one-way
+// estimate explicitly; when it loses its last one, the viscous solution,
+// which needs it (CheckFlow), is turned off, its settings kept. A change
+// of speed keeps whatever the user chose, so a viscous solution turned
+// off stays off.
+func (st *Study) FollowFlow(prev Flow) {
 	had := prev.SpeedMPS > 0 || prev.Reynolds > 0
 	has := st.Flow.SpeedMPS > 0 || st.Flow.Reynolds > 0
-	if had || !has || st.Viscous.Enabled {
-		return
-	}
-	st.Viscous.Enabled = true
-	if st.Viscous.Mode == "" {
-		st.Viscous.Mode = ViscousCoupled
+	switch {
+	case had && !has:
+		st.Viscous.Enabled = false
+	case !had && has && !st.Viscous.Enabled:
+		st.Viscous.Enabled = true
+		if st.Viscous.Mode == "" {
+			st.Viscous.Mode = ViscousCoupled
+		}
 	}
 }
 
