@@ -28,21 +28,19 @@ func (st *Study) CheckFlow() error {
 // number) shows the viscous answer by default: when the flow gains one —
 // it had neither before (prev) and has one now — the viscous solution is
 // turned on, as the coupled solution unless the study chose the one-way
-// estimate explicitly; when it loses its last one, the viscous solution,
-// which needs it (CheckFlow), is turned off, its settings kept. A change
-// of speed keeps whatever the user chose, so a viscous solution turned
-// off stays off.
+// estimate explicitly. A change of speed keeps whatever the user chose,
+// so a viscous solution turned off stays off; removing the last speed
+// while the viscous solution is on is refused (CheckFlow), with its
+// reason, rather than turning it off unasked.
 func (st *Study) FollowFlow(prev Flow) {
 	had := prev.SpeedMPS > 0 || prev.Reynolds > 0
 	has := st.Flow.SpeedMPS > 0 || st.Flow.Reynolds > 0
-	switch {
-	case had && !has:
-		st.Viscous.Enabled = false
-	case !had && has && !st.Viscous.Enabled:
-		st.Viscous.Enabled = true
-		if st.Viscous.Mode == "" {
-			st.Viscous.Mode = ViscousCoupled
-		}
+	if had || !has || st.Viscous.Enabled {
+		return
+	}
+	st.Viscous.Enabled = true
+	if st.Viscous.Mode == "" {
+		st.Viscous.Mode = ViscousCoupled
 	}
 }
 

@@ -49,6 +49,14 @@ func TestSpeedInKmh(t *testing.T) {
 	if got := w.ctl.Study().Flow.SpeedMPS; got != 20 {
 		t.Errorf("20 m/s sets speed_mps %v", got)
 	}
+	// The first speed turned the viscous solution on, which needs one: an
+	// empty speed is refused with its reason; with it off, it clears.
+	fc.speed.submit("")
+	if got := w.ctl.Study().Flow.SpeedMPS; got != 20 || fc.msg.Hidden {
+		t.Errorf("an empty speed with the viscous solution on: speed_mps %v, message %q", got, fc.msg.Text)
+	}
+	w.controls.vc.mode.SetSelected(modeOff)
+	w.WaitIdle()
 	fc.speed.submit("")
 	if got := w.ctl.Study().Flow.SpeedMPS; got != 0 {
 		t.Errorf("an empty speed sets speed_mps %v, want 0 (none)", got)

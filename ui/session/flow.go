@@ -8,7 +8,7 @@ import (
 
 // SetSpeed sets the freestream speed in m/s (0: none, results stay
 // non-dimensional). A study that gains its first speed turns the viscous
-// solution on, one that loses it turns it off (model.Study.FollowFlow).
+// solution on (model.Study.FollowFlow).
 func (c *Controller) SetSpeed(key string, mps float64) error {
 	return c.Edit(key, func(s *model.Study) {
 		prev := s.Flow
@@ -41,8 +41,7 @@ func (c *Controller) SetEndPlateHeight(key string, mm float64) error {
 
 // SetReynolds sets a Reynolds number on the first element's chord that
 // overrides the one from the speed (0: from the speed).
-// Like a speed, a first Reynolds number turns the viscous solution on
-// and removing the last turns it off.
+// Like a speed, a first Reynolds number turns the viscous solution on.
 func (c *Controller) SetReynolds(key string, re float64) error {
 	return c.Edit(key, func(s *model.Study) {
 		prev := s.Flow
