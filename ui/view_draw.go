@@ -75,6 +75,15 @@ func (p *plotCanvas) draw(fk figKind, sc *figures.Scene, w, h int, dpi float64) 
 		p.base = base
 		p.mu.Unlock()
 	}
+	if !figures.FrameKeyFits(base.fig) {
+		// No data area to lay the key in (a view shrunk to a sliver):
+		// the figure drawn whole, as the other views are.
+		fig, err := safeRenderFigure(buf, fk, sc, dpi)
+		if err != nil {
+			p.recycle(buf)
+		}
+		return fig, err
+	}
 	copy(buf.Pix, base.fig.Image.Pix)
 	f := *base.fig
 	f.Image = buf

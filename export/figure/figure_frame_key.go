@@ -106,13 +106,20 @@ func (k *frameKey) Plot(c draw.Canvas, _ *plot.Plot) {
 	}
 }
 
+// FrameKeyFits reports whether DrawFrameKey can lay its key over f: a
+// panels figure with a data area (a view too small to have one, or a
+// figure of tiles, has none).
+func FrameKeyFits(f *Figure) bool {
+	return f != nil && !f.composite && f.x1 > f.x0 && f.y1 > f.y0 && f.dpi > 0
+}
+
 // DrawFrameKey lays the panels view's sign-convention key for sc over f,
 // a panels figure rendered with sc.OmitFrameKey, where the view would
 // have drawn it. The key is drawn on a small image of its own, aligned to
 // f's pixels, and composited over f.Image: the cost of a key, not of a
 // figure. It panics if f has no data area.
 func DrawFrameKey(f *Figure, sc *Scene) {
-	if f == nil || f.composite || !(f.x1 > f.x0) || !(f.y1 > f.y0) || !(f.dpi > 0) {
+	if !FrameKeyFits(f) {
 		panic("figure: DrawFrameKey needs a panels figure")
 	}
 	k := newFrameKey(sc, themeFor(sc.Dark))
