@@ -53,7 +53,8 @@ type densityWindow struct {
 	progress       *widget.ProgressBar
 	caseLabel      *widget.Label
 	series         *widget.Select
-	extrap         [3][4]*widget.Label // Cl, Cm, min Cp × finest, extrapolated, error, order
+	extrap         [5][4]*widget.Label // Cl, Cm, min Cp, viscous Cl, viscous Cd × finest, extrapolated, error, order
+	extrapName     [5]*widget.Label    // the quantities' names (the viscous rows hidden without the coupled solution)
 	recommend      *widget.Label
 	recommendWhy   *widget.Label
 	use            *widget.Button
@@ -122,8 +123,9 @@ func newDensityWindow(w *Workbench) *densityWindow {
 	})
 	d.series.Hide()
 	grid := []fyne.CanvasObject{widget.NewLabel(""), densityCaption("finest"), densityCaption("extrapolated"), densityCaption("± estimate"), densityCaption("order")}
-	for i, q := range []string{"Cl", "Cm", "min Cp"} {
-		grid = append(grid, widget.NewLabel(q))
+	for i, q := range []string{"Cl", "Cm", "min Cp", "Cl viscous", "Cd viscous"} {
+		d.extrapName[i] = widget.NewLabel(q)
+		grid = append(grid, d.extrapName[i])
 		for j := range 4 {
 			d.extrap[i][j] = widget.NewLabel("—")
 			grid = append(grid, d.extrap[i][j])
@@ -594,11 +596,31 @@ func (d *densityWindow) showOutcome() {
 			last = r
 		}
 	}
+	lastViscous := last
+	for _, r := range res.Rows {
+		if r.Nose == ser.Nose && r.Solved() && !math.IsNaN(r.ViscousCl) {
+			lastViscous = r
+		}
+	}
+	for i := 3; i < len(d.extrap); i++ {
+		// The coupled solution's rows, shown when each count solved it.
+		show := func(o fyne.CanvasObject) {
+			if res.Viscous {
+				o.Show()
+			} else {
+				o.Hide()
+			}
+		}
+		show(d.extrapName[i])
+		for _, l := range d.extrap[i] {
+			show(l)
+		}
+	}
 	for i, q := range []struct {
 		ex     engine.Extrapolation
 		finest float64
 		prec   int
-	}{{ser.Cl, last.Cl, 4}, {ser.Cm, last.Cm, 4}, {ser.CpMin, last.CpMin, 3}} {
+	}{{ser.Cl, last.Cl, 4}, {ser.Cm, last.Cm, 4}, {ser.CpMin, last.CpMin, 3}, {ser.ViscousCl, lastViscous.ViscousCl, 4}, {ser.ViscousCd, lastViscous.ViscousCd, 5}} {
 		l := d.extrap[i]
 		l[0].SetText(fixed(q.finest, q.prec))
 		switch {

@@ -65,7 +65,7 @@ func TestRunDensityMatchesEngine(t *testing.T) {
 func rowsNoNaN(rows []engine.DensityRow) []engine.DensityRow {
 	out := append([]engine.DensityRow(nil), rows...)
 	for i := range out {
-		for _, p := range []*float64{&out[i].DCl, &out[i].DCm, &out[i].DCpMin} {
+		for _, p := range []*float64{&out[i].DCl, &out[i].DCm, &out[i].DCpMin, &out[i].ViscousCl, &out[i].ViscousCd} {
 			if math.IsNaN(*p) {
 				*p = -1
 			}

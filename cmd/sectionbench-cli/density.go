@@ -22,6 +22,10 @@ type jsonDensityRow struct {
 	CpMin  num `json:"cp_min"`
 	DCl    num `json:"d_cl"`
 	DCpMin num `json:"d_cp_min"`
+	// ViscousCl and ViscousCd are the coupled viscous solution's, when the
+	// study has it on (null where it did not converge; absent without it).
+	ViscousCl *num `json:"viscous_cl,omitempty"`
+	ViscousCd *num `json:"viscous_cd,omitempty"`
 	// Skipped says why a count was not solved (the configuration could not
 	// be placed with that many panels); absent when it was.
 	Skipped string `json:"skipped,omitempty"`
@@ -105,23 +109,46 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 			"cl": extrap(res.Cl), "cm": extrap(res.Cm), "cp_min": extrap(res.CpMin),
 		},
 	}
+	if res.Viscous {
+		out.Extrapolated["viscous_cl"], out.Extrapolated["viscous_cd"] = extrap(res.ViscousCl), extrap(res.ViscousCd)
+	}
 	for _, r := range res.Rows {
-		out.Rows = append(out.Rows, jsonDensityRow{r.Panels, num(r.Nose), num(r.Cl), num(r.Cm), num(r.CpMin), num(r.DCl), num(r.DCpMin), r.Skipped})
+		row := jsonDensityRow{Panels: r.Panels, Nose: num(r.Nose), Cl: num(r.Cl), Cm: num(r.Cm), CpMin: num(r.CpMin), DCl: num(r.DCl), DCpMin: num(r.DCpMin), Skipped: r.Skipped}
+		if res.Viscous {
+			vcl, vcd := num(r.ViscousCl), num(r.ViscousCd)
+			row.ViscousCl, row.ViscousCd = &vcl, &vcd
+		}
+		out.Rows = append(out.Rows, row)
 	}
 	switch in.format {
 	case "json":
 		return writeJSON(stdout, out)
 	case "csv":
 		cw := csv.NewWriter(stdout)
-		cw.Write([]string{"panels", "nose", "cl", "cm", "cp_min", "d_cl", "d_cp_min", "skipped"})
+		head := []string{"panels", "nose", "cl", "cm", "cp_min", "d_cl", "d_cp_min", "skipped"}
+		if res.Viscous {
+			head = append(head, "viscous_cl", "viscous_cd")
+		}
+		cw.Write(head)
 		for _, r := range res.Rows {
-			cw.Write([]string{strconv.Itoa(r.Panels), g(r.Nose), g(r.Cl), g(r.Cm), g(r.CpMin), g(r.DCl), g(r.DCpMin), r.Skipped})
+			rec := []string{strconv.Itoa(r.Panels), g(r.Nose), g(r.Cl), g(r.Cm), g(r.CpMin), g(r.DCl), g(r.DCpMin), r.Skipped}
+			if res.Viscous {
+				rec = append(rec, g(r.ViscousCl), g(r.ViscousCd))
+			}
+			cw.Write(rec)
 		}
 		cw.Flush()
 		return cw.Error()
 	}
 	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', tabwriter.AlignRight)
-	fmt.Fprintln(tw, "panels\tnose\tCl\tΔCl\tCm\tmin Cp\tΔ min Cp\t")
+	viscousHead, viscousCols := "", func(engine.DensityRow) string { return "" }
+	if res.Viscous {
+		viscousHead = "Cl viscous\tCd viscous\t"
+		viscousCols = func(r engine.DensityRow) string {
+			return fmtShort(r.ViscousCl, "%.5f") + "\t" + fmtShort(r.ViscousCd, "%.6f") + "\t"
+		}
+	}
+	fmt.Fprintln(tw, "panels\tnose\tCl\tΔCl\tCm\tmin Cp\tΔ min Cp\t"+viscousHead)
 	var skipped []string
 	for _, r := range res.Rows {
 		if !r.Solved() {
@@ -129,7 +156,7 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 			skipped = append(skipped, fmt.Sprintf("%d panels: %s", r.Panels, r.Skipped))
 			continue
 		}
-		fmt.Fprintf(tw, "%d\t%.2f\t%.5f\t%s\t%.5f\t%.4f\t%s\t\n", r.Panels, r.Nose, r.Cl, fmtShort(r.DCl, "%+.5f"), r.Cm, r.CpMin, fmtShort(r.DCpMin, "%+.4f"))
+		fmt.Fprintf(tw, "%d\t%.2f\t%.5f\t%s\t%.5f\t%.4f\t%s\t%s\n", r.Panels, r.Nose, r.Cl, fmtShort(r.DCl, "%+.5f"), r.Cm, r.CpMin, fmtShort(r.DCpMin, "%+.4f"), viscousCols(r))
 	}
 	tw.Flush()
 	for _, s := range skipped {
@@ -138,7 +165,10 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 	for _, q := range []struct {
 		name string
 		e    engine.Extrapolation
-	}{{"Cl", res.Cl}, {"Cm", res.Cm}, {"min Cp", res.CpMin}} {
+	}{{"Cl", res.Cl}, {"Cm", res.Cm}, {"min Cp", res.CpMin}, {"Cl viscous", res.ViscousCl}, {"Cd viscous", res.ViscousCd}} {
+		if q.name[2:] == " viscous" && !res.Viscous {
+			continue
+		}
 		if q.e.OK {
 			fmt.Fprintf(stdout, "%-7s extrapolated %.5f ± %.5f, observed order %.2f\n", q.name, q.e.Value, q.e.ErrorEstimate, q.e.ObservedOrder)
 		} else {

@@ -401,7 +401,11 @@ func (r *writer) densityPage() {
 		if se.RecommendedPanels > 0 {
 			rec = fmt.Sprintf("%d panels recommended", se.RecommendedPanels)
 		}
-		lines = append(lines, fmt.Sprintf("Nose %s: %s; %s; %s; %s.", num(se.Nose, 2), ex("Cl", se.Cl), ex("Cm", se.Cm), ex("Cp min", se.CpMin), rec))
+		viscous := ""
+		if d.Viscous {
+			viscous = fmt.Sprintf("; %s; %s", ex("Cl viscous", se.ViscousCl), ex("Cd viscous", se.ViscousCd))
+		}
+		lines = append(lines, fmt.Sprintf("Nose %s: %s; %s; %s%s; %s.", num(se.Nose, 2), ex("Cl", se.Cl), ex("Cm", se.Cm), ex("Cp min", se.CpMin), viscous, rec))
 	}
 	r.bullets(lines)
 	used := fmt.Sprintf("This study uses %d panels per element.", st.Panelling.Panels)
@@ -417,7 +421,8 @@ func (r *writer) methodsPage() {
 	r.heading("Methods")
 	r.para("Geometry. Each section is cleaned to unit chord (leading edge at the origin, trailing edge at x = 1), repanelled by the chosen spacing law, scaled to its chord and placed by its leading edge and setting angle. Inverted mounting mirrors the configuration about the horizontal so that the suction side faces the ground.")
 	r.para("Potential flow. The surface of every element carries a vortex sheet of linearly varying strength on straight panels (Katz & Plotkin, ch. 11); flow tangency is imposed at the panel midpoints and the Kutta condition at each trailing edge. In ground effect the ground is represented by the mirror image of the configuration with opposite circulation, which makes the ground a streamline; the configuration pitches about its reference point and the freestream stays parallel to the ground. Lift follows from the circulation (Kutta–Joukowski) and from the integrated surface pressure. For a configuration in free air the two agree to within the discretisation error; near the ground, and for one element among others, only the pressure gives the force on the body (see the notes with the results).")
-	r.para("Boundary layer (when enabled). From the inviscid surface speed: Thwaites' method for the laminar layer, Michel's criterion for transition, Head's entrainment method for the turbulent layer and the Squire–Young formula for the profile drag. The estimate is one-way: the boundary layer does not displace the outer flow, so Cl, Cm and Cp stay inviscid.")
+	r.para("Coupled viscous solution (when enabled, the default with a speed). Integral laminar and turbulent boundary layers on every surface and wake (the kinetic-energy shape equation with a shear-stress lag equation for turbulent flow, closures of the Falkner–Skan family for laminar flow; Drela & Giles, AIAA J. 25(10), 1987; Green, Weeks & Brooman, ARC R&M 3791, 1977) whose displacement acts back on the panel solution through surface and wake sources; layers and panels are solved together by Newton's method. Transition by the e^N envelope method with the critical exponent N (9 by default, a quiet wind tunnel) or at a trip; drag from each wake's far end (Squire–Young). Each result says whether it converged; a point that did not shows no viscous numbers. Lift and maximum lift come from the converged layers; past maximum lift the method gives a gentle fall where a real section may stall abruptly.")
+	r.para("Boundary layer (when the one-way estimate is chosen). From the inviscid surface speed: Thwaites' method for the laminar layer, Michel's criterion for transition, Head's entrainment method for the turbulent layer and the Squire–Young formula for the profile drag. The estimate is one-way: the boundary layer does not displace the outer flow, so Cl, Cm and Cp stay inviscid.")
 	r.para("Air. Density from the ideal-gas law with the constants of the U.S. Standard Atmosphere, 1976; viscosity from Sutherland's law.")
 	r.heading("References")
 	for _, ref := range references {

@@ -49,6 +49,10 @@ type DensityRow struct {
 	// suction peak.
 	CpMin            float64
 	DCl, DCm, DCpMin float64 // change from the previous count at the same nose value; NaN for the first
+	// ViscousCl and ViscousCd are the coupled viscous solution's Cl and
+	// Cd when the study solves it (DensityResult.Viscous), NaN otherwise
+	// and where it did not converge.
+	ViscousCl, ViscousCd float64
 	// MinPanelLength and MaxPanelLength are the shortest and longest panel
 	// over all elements, each as a fraction of its own element's chord
 	// (0.0062 is 0.62% of chord, not a length: at 40 cosine-spaced panels
@@ -99,16 +103,26 @@ type DensitySeries struct {
 	Nose              float64
 	Cl, Cm, CpMin     Extrapolation
 	RecommendedPanels int // smallest count that, with every finer one, meets the tolerances; 0 if none
+	// ViscousCl and ViscousCd extrapolate the coupled viscous solution's
+	// coefficients from the three finest counts at which it converged
+	// (not OK when it did not at three counts of a constant ratio, or
+	// without it); they do not enter the recommendation, which judges
+	// the panel method.
+	ViscousCl, ViscousCd Extrapolation
 }
 
 // DensityResult is the outcome of a density study. Cl, Cm, CpMin and
 // RecommendedPanels repeat Series[0], the first nose value, for callers
 // that run one.
 type DensityResult struct {
-	Rows              []DensityRow // nose-major: every count for the first nose, then the next
-	Cl, Cm, CpMin     Extrapolation
-	RecommendedPanels int
-	Series            []DensitySeries
+	Rows                 []DensityRow // nose-major: every count for the first nose, then the next
+	Cl, Cm, CpMin        Extrapolation
+	RecommendedPanels    int
+	Series               []DensitySeries
+	ViscousCl, ViscousCd Extrapolation // Series[0]'s
+	// Viscous says that each count also solved the coupled viscous
+	// solution (the study has it on).
+	Viscous bool
 }
 
 // ObservedOrder returns the order of convergence observed in three values
@@ -163,7 +177,7 @@ func Richardson(f2, f3, r, p float64) (value, errEstimate float64) {
 // DensityStudy returns ctx.Err(). Bad options return a *model.FieldError
 // naming the density-plan field; any other error from solve is returned
 // wrapped with the count and nose value.
-func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int, nose float64) (*solver.Solution, error), progress func(done, total int)) (*DensityResult, error) {
+func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int, nose float64) (*solver.Solution, *CoupledPoint, error), progress func(done, total int)) (*DensityResult, error) {
 	opt, err := opt.withDefaults()
 	if err != nil {
 		return nil, err
@@ -180,11 +194,17 @@ func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int
 			if err := ctx.Err(); err != nil {
 				return nil, err
 			}
-			sol, err := solve(n, nose)
+			sol, cpl, err := solve(n, nose)
 			var row DensityRow
 			switch {
 			case err == nil:
 				row = densityRow(sol, n, nose)
+				if cpl != nil {
+					res.Viscous = true
+					if cpl.Converged {
+						row.ViscousCl, row.ViscousCd = cpl.Cl, cpl.Cd
+					}
+				}
 				if prev >= 0 {
 					p := res.Rows[prev]
 					row.DCl, row.DCm, row.DCpMin = row.Cl-p.Cl, row.Cm-p.Cm, row.CpMin-p.CpMin
@@ -213,6 +233,7 @@ func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int
 	}
 	s0 := res.Series[0]
 	res.Cl, res.Cm, res.CpMin, res.RecommendedPanels = s0.Cl, s0.Cm, s0.CpMin, s0.RecommendedPanels
+	res.ViscousCl, res.ViscousCd = s0.ViscousCl, s0.ViscousCd
 	return res, nil
 }
 
@@ -226,7 +247,7 @@ func skippableDensityError(err error) bool {
 // skippedRow is the row of a count that was not solved.
 func skippedRow(n int, nose float64, err error) DensityRow {
 	nan := math.NaN()
-	return DensityRow{Panels: n, Nose: nose, Cl: nan, Cm: nan, CpMin: nan, DCl: nan, DCm: nan, DCpMin: nan,
+	return DensityRow{Panels: n, Nose: nose, Cl: nan, Cm: nan, CpMin: nan, DCl: nan, DCm: nan, DCpMin: nan, ViscousCl: nan, ViscousCd: nan,
 		MinPanelLength: nan, MaxPanelLength: nan, ShortestPanel: nan, LongestPanel: nan,
 		Skipped: err.Error(), Err: err}
 }
@@ -273,7 +294,7 @@ func (o DensityOptions) withDefaults() (DensityOptions, error) {
 func densityRow(sol *solver.Solution, n int, nose float64) DensityRow {
 	nan := math.NaN()
 	row := DensityRow{Panels: n, Nose: nose, Cl: sol.Cl, Cm: sol.Cm, CpMin: math.Inf(1),
-		DCl: nan, DCm: nan, DCpMin: nan, MinPanelLength: math.Inf(1), MaxPanelLength: 0}
+		DCl: nan, DCm: nan, DCpMin: nan, ViscousCl: nan, ViscousCd: nan, MinPanelLength: math.Inf(1), MaxPanelLength: 0}
 	for _, e := range sol.Elements {
 		row.CpMin = math.Min(row.CpMin, e.CpMin)
 		// solver.Panel lengths from the midpoint arc lengths: S_0 = L_0/2 and
@@ -313,6 +334,8 @@ func densitySeries(rows []DensityRow, nose float64, opt DensityOptions) DensityS
 	ser.Cl = extrapolate(counts, cl)
 	ser.Cm = extrapolate(counts, cm)
 	ser.CpMin = extrapolate(counts, cpm)
+	ser.ViscousCl = extrapolateFinite(rows, func(r DensityRow) float64 { return r.ViscousCl })
+	ser.ViscousCd = extrapolateFinite(rows, func(r DensityRow) float64 { return r.ViscousCd })
 	if !ser.Cl.OK {
 		return ser
 	}
@@ -334,6 +357,19 @@ func densitySeries(rows []DensityRow, nose float64, opt DensityOptions) DensityS
 // values, which must be at a constant refinement ratio (to 1e-9), and
 // accepts the result only for an observed order within [MinObservedOrder,
 // MaxObservedOrder]; outside it OK is false.
+// extrapolateFinite extrapolates value over the rows where it is finite
+// (a coupled solution converged there), as extrapolate does.
+func extrapolateFinite(rows []DensityRow, value func(DensityRow) float64) Extrapolation {
+	var counts []int
+	var f []float64
+	for _, r := range rows {
+		if v := value(r); r.Solved() && !math.IsNaN(v) {
+			counts, f = append(counts, r.Panels), append(f, v)
+		}
+	}
+	return extrapolate(counts, f)
+}
+
 func extrapolate(counts []int, f []float64) Extrapolation {
 	n := len(f)
 	bad := Extrapolation{Value: math.NaN(), ErrorEstimate: math.NaN(), ObservedOrder: math.NaN()}

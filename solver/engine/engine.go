@@ -357,18 +357,22 @@ func (e *Engine) DensityEach(ctx context.Context, st *model.Study, secs []*model
 	if len(opt.Nose) == 0 {
 		opt.Nose = []float64{st.Panelling.Nose}
 	}
-	solve := func(panels int, nose float64) (*solver.Solution, error) {
+	// The recommendation judges the panel method; with the coupled
+	// viscous solution on, each count solves it too, for its Cl and Cd's
+	// own convergence (DensitySeries.ViscousCl, ViscousCd).
+	coupled := st.Viscous.Enabled && st.Viscous.IsCoupled()
+	solve := func(panels int, nose float64) (*solver.Solution, *CoupledPoint, error) {
 		s := st.Clone()
 		s.Panelling.Panels, s.Panelling.Nose = panels, nose
-		s.Viscous.Enabled = false // the study judges the panel method's convergence
+		s.Viscous.Enabled = coupled
 		r, err := NewEngine().Run(ctx, Request{Study: s, Sections: secs})
 		if err != nil {
-			return nil, err
+			return nil, nil, err
 		}
 		if each != nil {
 			each(panels, nose, r.Solution)
 		}
-		return r.Solution, nil
+		return r.Solution, r.Coupled, nil
 	}
 	return DensityStudy(ctx, opt, solve, progress)
 }
