@@ -161,6 +161,14 @@ func solveCoupled(ctx context.Context, sys *solver.System, alphaDeg, fs float64,
 // pitches, so every angle is a new system and starts from scratch.
 func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs float64, opt solver.CoupledOptions, optKey string) (CoupledPoint, error) {
 	names := e.elementNames()
+	if seed := e.seed; seed != nil {
+		// A neighbouring setting's solution (runFromSeed): one start from
+		// it, no walk.
+		e.seed = nil
+		p, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, seed, names)
+		e.keepWarm(p, optKey)
+		return p, err
+	}
 	var warm *solver.CoupledSolution
 	if !e.layout.Ground && e.warmKey == optKey && e.warm != nil && math.Abs(e.warmAlpha-alphaDeg) <= maxWarmStepDeg {
 		warm = e.warm

@@ -86,6 +86,12 @@ type Engine struct {
 	warm      *solver.CoupledSolution
 	warmAlpha float64
 	warmKey   string
+
+	// seed, when set, is a converged coupled solution of a neighbouring
+	// setting (another system with as many elements and panels) that the
+	// next coupled solve starts from instead of its own start; the set-up
+	// explorer's rescue of a point that did not converge (runFromSeed).
+	seed *solver.CoupledSolution
 }
 
 // NewEngine returns an engine with nothing cached.

@@ -2,6 +2,7 @@ package engine
 
 import (
 	"context"
+	"math"
 	"runtime"
 	"sync"
 
@@ -38,13 +39,18 @@ type MapOptions struct {
 // converge, the point is solved again from the last converged point of
 // its chain (Engine.Run's warm start). That second try makes more points
 // converge, at the cost of time; those points are the map's own and a
-// `solve` of them does not converge. Elsewhere no
-// point can start from another: the solver's warm start needs the very
-// panel system it started from, which a change of clearance, gap, overlap
-// or deflection (or of angle in ground effect, where the wing pitches)
-// rebuilds, and a change of speed changes the Reynolds numbers the engine
-// keys its warm start on; every point there, and every point of an
-// inviscid map, is `solve`'s answer exactly.
+// `solve` of them does not converge. Elsewhere (clearance, gap, overlap,
+// deflection, speed, or angle in ground effect, where the wing pitches)
+// the grid is walked in rows (rowChains) and each point is first solved
+// as `solve` solves it too; one that does not converge is solved again
+// from the last two converged points of its chain within two grid steps,
+// nearest first (the solver carries a neighbour's layers over to another
+// panel system of as many elements and panels, by arc length), each
+// attempt within rescueIterations Newton iterations, so that a hopeless
+// point gives up quickly. Every point that converges from its own start,
+// and every point of an inviscid map, is `solve`'s answer exactly; the
+// rescued ones are the map's own, and which neighbour rescued a point
+// depends only on its chain, never on how the goroutines ran.
 //
 // Chains run on opt.Workers goroutines (rows of a two-variable map; the
 // two halves of a one-variable map). progress(done, total) and each(point)
@@ -77,7 +83,8 @@ func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []m
 		opt.Inviscid = true
 	}
 
-	chains := mapChains(st, vars, axes)
+	walk := alphaWalk(st, vars)
+	chains := mapChains(axes, walk)
 	points := make([]Point, total)
 	workers := opt.Workers
 	if workers <= 0 {
@@ -98,6 +105,9 @@ func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []m
 			defer wg.Done()
 			for chain := range work {
 				ps := newPointSolver(st, secs, vars, opt.PointOptions)
+				if walk < 0 { // a walk in α has its own warm start (runColdFirst)
+					ps.seeds = mapSeeds(axes, opt.PointOptions)
+				}
 				for _, k := range chain {
 					idx := gridIndex(k, axes)
 					values := make([]float64, len(axes))
@@ -148,6 +158,18 @@ feed:
 	return points, nil
 }
 
+// alphaWalk returns the index of the angle of attack among vars when the
+// map walks it as a polar (in free air), -1 otherwise.
+func alphaWalk(st *model.Study, vars []model.SetupVariable) int {
+	walk := -1
+	for a, v := range vars {
+		if v.Kind == model.SetupAlpha && !st.Ground.Enabled {
+			walk = a
+		}
+	}
+	return walk
+}
+
 // gridIndex returns the per-axis indices of flat index k (row-major).
 func gridIndex(k int, axes [][]float64) []int {
 	idx := make([]int, len(axes))
@@ -162,25 +184,11 @@ func gridIndex(k int, axes [][]float64) []int {
 // the angle of attack varies in free air, the chains run along it, one
 // per value of the other axis, in a polar's order (sweepOrder); a
 // one-variable map is split at its start into the walk up and the walk
-// down, so that both workers have one. Otherwise no point can start from
-// another and each point is a chain of its own.
-func mapChains(st *model.Study, vars []model.SetupVariable, axes [][]float64) [][]int {
-	walk := -1
-	for a, v := range vars {
-		if v.Kind == model.SetupAlpha && !st.Ground.Enabled {
-			walk = a
-		}
-	}
-	total := 1
-	for _, ax := range axes {
-		total *= len(ax)
-	}
+// down, so that both workers have one. Otherwise the chains are
+// rowChains'.
+func mapChains(axes [][]float64, walk int) [][]int {
 	if walk < 0 {
-		chains := make([][]int, total)
-		for k := range chains {
-			chains[k] = []int{k}
-		}
-		return chains
+		return rowChains(axes)
 	}
 	order := sweepOrder(axes[walk])
 	if len(axes) == 1 {
@@ -216,4 +224,58 @@ func MapMode(st *model.Study, opt PointOptions, vars []model.SetupVariable) stri
 		return string(model.ViscousCoupled)
 	}
 	return "inviscid"
+}
+
+// rowChains returns the chains of a map whose points cannot start from
+// one another's own engine (no angle of attack walked in free air): a
+// one-variable map as two halves walking outward from its middle, a
+// two-variable map as its rows (along the second variable), in order, so
+// that a point that does not converge finds converged neighbours before
+// it in its own chain to start again from (mapSeeds).
+//
+// (Neighbours in the row before would give more rescues, but which of
+// them had converged when a point needs one depends on how the two
+// goroutines ran, and a map must not.)
+func rowChains(axes [][]float64) [][]int {
+	if len(axes) == 1 {
+		n := len(axes[0])
+		mid := n / 2
+		var up, down []int
+		for i := mid; i < n; i++ {
+			up = append(up, i)
+		}
+		for i := mid - 1; i >= 0; i-- {
+			down = append(down, i)
+		}
+		if len(down) == 0 {
+			return [][]int{up}
+		}
+		return [][]int{up, down}
+	}
+	inner := len(axes[1])
+	chains := make([][]int, len(axes[0]))
+	for i := range chains {
+		for j := range inner {
+			chains[i] = append(chains[i], i*inner+j)
+		}
+	}
+	return chains
+}
+
+// mapSeeds returns the bank of one chain's converged points that the
+// chain's points that do not converge start again from: the last two
+// converged ones within two grid steps (so a point whose predecessor did
+// not converge tries the one before); nil for an inviscid map.
+func mapSeeds(axes [][]float64, opt PointOptions) *seedBank {
+	if opt.Inviscid {
+		return nil
+	}
+	scale := make([]float64, len(axes))
+	for a, ax := range axes {
+		scale[a] = 1
+		if len(ax) > 1 {
+			scale[a] = math.Abs(ax[1] - ax[0])
+		}
+	}
+	return newSeedBank(scale, rescueSeeds, 2.01)
 }

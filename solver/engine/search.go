@@ -169,10 +169,12 @@ func Search(ctx context.Context, st *model.Study, secs []*model.Section, bounds 
 	// carries on, so its engine keeps its warm start along the path.
 	var mu sync.Mutex
 	solvers := []*pointSolver{}
+	seeds := searchSeeds(bounds, opt.PointOptions)
 	newSolver := func() *pointSolver {
 		mu.Lock()
 		defer mu.Unlock()
 		ps := newPointSolver(st, secs, vars, opt.PointOptions)
+		ps.seeds = seeds
 		solvers = append(solvers, ps)
 		return ps
 	}
@@ -181,10 +183,36 @@ func Search(ctx context.Context, st *model.Study, secs []*model.Section, bounds 
 		return main.solve(ctx, values)
 	}
 	par := func(ctx context.Context, values []float64) (Point, error) {
-		return newSolver().solve(ctx, values)
+		// The start's simplex, solved side by side: each vertex may start
+		// again from what the path had converged before it (the start),
+		// and adds nothing to it, so no vertex's answer depends on
+		// another's timing.
+		ps := newSolver()
+		ps.seeds = seeds.clone()
+		return ps.solve(ctx, values)
 	}
 	return search(ctx, eval, par, bounds, start, opt, each)
 }
+
+// searchSeeds returns the bank of converged solves of a search's path
+// that a solve that does not converge starts again from: the nearest
+// evaluated settings in the bounds' scale, however far (the simplex moves
+// by a fraction of the bounds), the newest searchSeedLimit kept; nil for
+// an inviscid search.
+func searchSeeds(bounds []model.SetupRange, opt PointOptions) *seedBank {
+	if opt.Inviscid {
+		return nil
+	}
+	scale := make([]float64, len(bounds))
+	for i, b := range bounds {
+		scale[i] = b.To - b.From
+	}
+	return newSeedBank(scale, searchSeedLimit, math.Inf(1))
+}
+
+// searchSeedLimit is how many converged solves a search keeps to start
+// from: the simplex's last few vertices and their neighbourhood.
+const searchSeedLimit = 12
 
 // checkSearchOptions refuses options the study cannot meet.
 func checkSearchOptions(st *model.Study, vars []model.SetupVariable, opt SearchOptions) error {

@@ -3,9 +3,11 @@ package engine
 import (
 	"context"
 	"errors"
+	"fmt"
 	"math"
 
 	"sectionbench/model"
+	"sectionbench/solver"
 )
 
 // The set-up explorer: maps (Map) and the setting search (Search) solve a
@@ -140,6 +142,11 @@ type pointSolver struct {
 	opt     PointOptions
 	viscous bool
 	eng     *Engine
+	// seeds, if not nil, holds the converged points of the map or
+	// search (shared by its goroutines): a point that does not converge
+	// from its own start tries again from the nearest of them
+	// (rescueSeeds).
+	seeds *seedBank
 }
 
 func newPointSolver(st *model.Study, secs []*model.Section, vars []model.SetupVariable, opt PointOptions) *pointSolver {
@@ -177,12 +184,67 @@ func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, erro
 	if err != nil {
 		return fail(err)
 	}
-	res, err := ps.eng.runColdFirst(ctx, Request{Study: st, Sections: ps.secs, CoupledMaxIterations: ps.opt.CoupledMaxIterations})
+	req := Request{Study: st, Sections: ps.secs, CoupledMaxIterations: ps.opt.CoupledMaxIterations}
+	res, err := ps.eng.runColdFirst(ctx, req)
 	if err != nil {
 		return fail(err)
 	}
+	if c := res.Coupled; c != nil && !c.Converged && c.Note == "" && ps.seeds != nil {
+		// Rescue: from the nearest converged neighbours, each with a
+		// bounded budget, so that a hopeless point gives up quickly.
+		rq := req
+		rq.CoupledMaxIterations = rescueIterations(ps.opt.CoupledMaxIterations)
+		for _, seed := range ps.seeds.nearest(values, rescueSeeds) {
+			again, err := ps.eng.runFromSeed(ctx, rq, seed, req.CoupledMaxIterations)
+			if err != nil {
+				return fail(err)
+			}
+			if again.Coupled != nil && again.Coupled.Converged {
+				res = again
+				break
+			}
+		}
+	}
+	if c := res.Coupled; c != nil && c.Converged && ps.seeds != nil {
+		ps.seeds.add(values, c.last)
+	}
 	p.fill(res, st, ps.secs)
 	return p, nil
+}
+
+// rescueSeeds is how many converged neighbours a point that did not
+// converge from its own start tries, nearest first; each try costs at
+// most about what a cold start costs.
+const rescueSeeds = 2
+
+// rescueIterations is the Newton iteration bound of each attempt of a
+// rescue from a neighbour (the solver's default is 60): a start from a
+// converged neighbour one grid step away converges in a few tens of
+// iterations when it converges at all, and a rescue that cannot must not
+// cost as much as the cold start that already failed.
+func rescueIterations(own int) int {
+	const bound = 30
+	if own > 0 && own < bound {
+		return own
+	}
+	return bound
+}
+
+// runFromSeed is Run with the coupled solution started from seed, a
+// converged solution of a neighbouring setting (any system with as many
+// elements and panels: the solver carries the layers over by arc
+// length), without the engine's own warm start or walk. A solution it
+// reaches becomes the engine's warm start as if solved with ownMax, the
+// iteration bound of the points' own solves (the bound of a start does
+// not change the solution it converges to).
+func (e *Engine) runFromSeed(ctx context.Context, req Request, seed *solver.CoupledSolution, ownMax int) (*Result, error) {
+	e.seed = seed
+	defer func() { e.seed = nil }()
+	res, err := e.Run(ctx, req)
+	if err == nil && res.Coupled != nil && res.Coupled.Converged && e.warm == res.Coupled.last {
+		e.warmKey = fmt.Sprint(coupledOptions(req.Study, res.Reynolds, ownMax))
+	}
+	return res, err
 }
 
 // fill sets the point's numbers from res (nil: none).

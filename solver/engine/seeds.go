@@ -1,0 +1,107 @@
+package engine
+
+import (
+	"math"
+	"slices"
+	"sync"
+
+	"sectionbench/solver"
+)
+
+// seedBank holds the converged coupled solutions of a map's chain or a
+// search's path by their setting, for the rescue of a point that did not
+// converge from its own start (pointSolver.solve). Each bank is filled by
+// one goroutine in a fixed order (a chain's walk, the search's path), so
+// that which neighbour a point starts from, and so its answer, does not
+// depend on how the goroutines ran. Distances are measured in scale units
+// per variable (a map's step, a search's bounds' width), so that "nearest"
+// means the same on every axis. It keeps the newest limit solutions only:
+// each holds its panel system, a few megabytes, and a map walks its grid
+// point by point, so the older ones are the far ones. Safe for concurrent
+// use.
+type seedBank struct {
+	mu    sync.Mutex
+	scale []float64
+	limit int
+	// within is the largest distance, in scale units, a seed may lie
+	// from the point it starts (+Inf: any).
+	within float64
+	seeds  []seed
+}
+
+type seed struct {
+	at  []float64
+	sol *solver.CoupledSolution
+}
+
+func newSeedBank(scale []float64, limit int, within float64) *seedBank {
+	for _, s := range scale {
+		if !(s > 0) {
+			panic("engine: newSeedBank: scales must be positive")
+		}
+	}
+	return &seedBank{scale: scale, limit: max(1, limit), within: within}
+}
+
+// add keeps sol, the converged solution at values.
+func (b *seedBank) add(values []float64, sol *solver.CoupledSolution) {
+	if sol == nil {
+		return
+	}
+	b.mu.Lock()
+	defer b.mu.Unlock()
+	if len(b.seeds) >= b.limit {
+		b.seeds = slices.Delete(b.seeds, 0, len(b.seeds)-b.limit+1)
+	}
+	b.seeds = append(b.seeds, seed{at: append([]float64(nil), values...), sol: sol})
+}
+
+// nearest returns at most n solutions within b.within of values, nearest
+// first (ties: the newest first), never one at values itself.
+func (b *seedBank) nearest(values []float64, n int) []*solver.CoupledSolution {
+	b.mu.Lock()
+	defer b.mu.Unlock()
+	type cand struct {
+		d   float64
+		age int
+		sol *solver.CoupledSolution
+	}
+	var cs []cand
+	for i, s := range b.seeds {
+		d := 0.0
+		for a, v := range values {
+			x := (v - s.at[a]) / b.scale[a]
+			d += x * x
+		}
+		d = math.Sqrt(d)
+		if d == 0 || d > b.within {
+			continue
+		}
+		cs = append(cs, cand{d, -i, s.sol})
+	}
+	slices.SortFunc(cs, func(x, y cand) int {
+		if x.d != y.d {
+			if x.d < y.d {
+				return -1
+			}
+			return 1
+		}
+		return x.age - y.age
+	})
+	var out []*solver.CoupledSolution
+	for _, c := range cs[:min(n, len(cs))] {
+		out = append(out, c.sol)
+	}
+	return out
+}
+
+// clone returns a bank holding b's solutions now, which later additions
+// to either do not reach.
+func (b *seedBank) clone() *seedBank {
+	if b == nil {
+		return nil
+	}
+	b.mu.Lock()
+	defer b.mu.Unlock()
+	return &seedBank{scale: b.scale, limit: b.limit, within: b.within, seeds: slices.Clone(b.seeds)}
+}

@@ -1,0 +1,83 @@
+package engine
+
+import (
+	"math"
+	"slices"
+	"testing"
+
+	"sectionbench/solver"
+)
+
+// The bank gives the nearest solutions first in its scale (ties: the
+// newest), none at the point itself or beyond its reach, keeps the
+// newest ones only, and a clone does not see later additions.
+func TestSeedBank(t *testing.T) {
+	sols := make([]*solver.CoupledSolution, 5)
+	for i := range sols {
+		sols[i] = &solver.CoupledSolution{AlphaDeg: float64(i)}
+	}
+	b := newSeedBank([]float64{5, 0.5}, 4, 2.01) // a map's steps: 5 mm, 0.5°
+	b.add([]float64{40, 1}, sols[0])
+	b.add([]float64{45, 1}, sols[1])
+	b.add([]float64{50, 1.5}, sols[2])
+	c := b.clone()
+	b.add([]float64{50, 0.5}, sols[3])
+	b.add(nil, nil) // nothing to keep
+	alphas := func(ss []*solver.CoupledSolution) []float64 {
+		var a []float64
+		for _, s := range ss {
+			a = append(a, s.AlphaDeg)
+		}
+		return a
+	}
+	for _, tc := range []struct {
+		name string
+		bank *seedBank
+		at   []float64
+		n    int
+		want []float64
+	}{
+		{"a step away, the newest first", b, []float64{50, 1}, 4, []float64{3, 2, 1, 0}},
+		{"at a seed: not itself", b, []float64{45, 1}, 3, []float64{0, 3, 2}},
+		{"out of reach", b, []float64{70, 1}, 3, nil},
+		{"clone before the last", c, []float64{50, 1}, 3, []float64{2, 1, 0}},
+		{"at most n", b, []float64{50, 1}, 1, []float64{3}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			if got := alphas(tc.bank.nearest(tc.at, tc.n)); !slices.Equal(got, tc.want) {
+				t.Errorf("nearest(%v) = %v, want %v", tc.at, got, tc.want)
+			}
+		})
+	}
+	b.add([]float64{55, 1}, sols[4]) // the fifth: the first goes
+	if got := alphas(b.nearest([]float64{35, 1}, 5)); !slices.Equal(got, []float64{1}) {
+		t.Errorf("after the limit: %v, want only the second (the first dropped)", got)
+	}
+	all := newSeedBank([]float64{1}, 2, math.Inf(1))
+	all.add([]float64{0}, sols[0])
+	all.add([]float64{100}, sols[1])
+	if got := alphas(all.nearest([]float64{60}, 2)); !slices.Equal(got, []float64{1, 0}) {
+		t.Errorf("unbounded reach: %v", got)
+	}
+}
+
+// Rows in order along the second variable; one variable as two halves
+// walking outward from the middle.
+func TestRowChains(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		axes [][]float64
+		want [][]int
+	}{
+		{"one variable", [][]float64{{1, 2, 3, 4, 5}}, [][]int{{2, 3, 4}, {1, 0}}},
+		{"one value", [][]float64{{1}}, [][]int{{0}}},
+		{"two variables", [][]float64{{1, 2}, {1, 2, 3}}, [][]int{{0, 1, 2}, {3, 4, 5}}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			got := rowChains(tc.axes)
+			if !slices.EqualFunc(got, tc.want, slices.Equal) {
+				t.Errorf("rowChains = %v, want %v", got, tc.want)
+			}
+		})
+	}
+}
