@@ -2,11 +2,11 @@ package engine
 
 import (
 	"context"
-	"math"
 	"runtime"
 	"sync"
 
 	"sectionbench/model"
+	"sectionbench/solver"
 )
 
 // MapOptions are the settings of a map.
@@ -43,14 +43,15 @@ type MapOptions struct {
 // deflection, speed, or angle in ground effect, where the wing pitches)
 // the grid is walked in rows (rowChains) and each point is first solved
 // as `solve` solves it too; one that does not converge is solved again
-// from the last two converged points of its chain within two grid steps,
-// nearest first (the solver carries a neighbour's layers over to another
-// panel system of as many elements and panels, by arc length), each
-// attempt within rescueIterations Newton iterations, so that a hopeless
-// point gives up quickly. Every point that converges from its own start,
-// and every point of an inviscid map, is `solve`'s answer exactly; the
+// from the nearest two converged neighbours solved before it (mapSeeds:
+// in its row and the row before, or towards the middle of a one-variable
+// map; the solver carries a neighbour's layers over to another panel
+// system of as many elements and panels, by arc length), each attempt
+// within rescueIterations Newton iterations, so that a hopeless point
+// gives up quickly. Every point that converges from its own start, and
+// every point of an inviscid map, is `solve`'s answer exactly; the
 // rescued ones are the map's own, and which neighbour rescued a point
-// depends only on its chain, never on how the goroutines ran.
+// never depends on how the goroutines ran.
 //
 // Chains run on opt.Workers goroutines (rows of a two-variable map; the
 // two halves of a one-variable map). progress(done, total) and each(point)
@@ -99,22 +100,31 @@ func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []m
 	done := 0
 	var firstErr error
 	var wg sync.WaitGroup
+	var seeds *mapSeeds
+	if walk < 0 && !opt.Inviscid { // a walk in α has its own warm start (runColdFirst)
+		seeds = newMapSeeds(axes)
+	}
 	for range workers {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
 			for chain := range work {
 				ps := newPointSolver(st, secs, vars, opt.PointOptions)
-				if walk < 0 { // a walk in α has its own warm start (runColdFirst)
-					ps.seeds = mapSeeds(axes, opt.PointOptions)
-				}
 				for _, k := range chain {
 					idx := gridIndex(k, axes)
 					values := make([]float64, len(axes))
 					for a, i := range idx {
 						values[a] = axes[a][i]
 					}
+					if seeds != nil {
+						ps.neighbours = func(ctx context.Context, _ []float64) []*solver.CoupledSolution {
+							return seeds.neighbours(ctx, k)
+						}
+					}
 					p, err := ps.solve(ctx, values)
+					if seeds != nil && err == nil {
+						seeds.solved(k, ps.last)
+					}
 					if err != nil {
 						mu.Lock()
 						if firstErr == nil {
@@ -135,6 +145,9 @@ func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []m
 						progress(done, total)
 					}
 					mu.Unlock()
+				}
+				if seeds != nil {
+					seeds.rowDone(gridIndex(chain[0], axes)[0])
 				}
 			}
 		}()
@@ -231,11 +244,8 @@ func MapMode(st *model.Study, opt PointOptions, vars []model.SetupVariable) stri
 // one-variable map as two halves walking outward from its middle, a
 // two-variable map as its rows (along the second variable), in order, so
 // that a point that does not converge finds converged neighbours before
-// it in its own chain to start again from (mapSeeds).
-//
-// (Neighbours in the row before would give more rescues, but which of
-// them had converged when a point needs one depends on how the two
-// goroutines ran, and a map must not.)
+// it in its own row and in the row before to start again from
+// (mapSeeds).
 func rowChains(axes [][]float64) [][]int {
 	if len(axes) == 1 {
 		n := len(axes[0])
@@ -260,22 +270,4 @@ func rowChains(axes [][]float64) [][]int {
 		}
 	}
 	return chains
-}
-
-// mapSeeds returns the bank of one chain's converged points that the
-// chain's points that do not converge start again from: the last two
-// converged ones within two grid steps (so a point whose predecessor did
-// not converge tries the one before); nil for an inviscid map.
-func mapSeeds(axes [][]float64, opt PointOptions) *seedBank {
-	if opt.Inviscid {
-		return nil
-	}
-	scale := make([]float64, len(axes))
-	for a, ax := range axes {
-		scale[a] = 1
-		if len(ax) > 1 {
-			scale[a] = math.Abs(ax[1] - ax[0])
-		}
-	}
-	return newSeedBank(scale, rescueSeeds, 2.01)
 }

@@ -174,13 +174,17 @@ func Search(ctx context.Context, st *model.Study, secs []*model.Section, bounds 
 		mu.Lock()
 		defer mu.Unlock()
 		ps := newPointSolver(st, secs, vars, opt.PointOptions)
-		ps.seeds = seeds
 		solvers = append(solvers, ps)
 		return ps
 	}
 	main := newSolver()
+	main.neighbours = seeds.neighbours
 	eval := func(ctx context.Context, values []float64) (Point, error) {
-		return main.solve(ctx, values)
+		p, err := main.solve(ctx, values)
+		if err == nil && seeds != nil {
+			seeds.add(values, main.last)
+		}
+		return p, err
 	}
 	par := func(ctx context.Context, values []float64) (Point, error) {
 		// The start's simplex, solved side by side: each vertex may start
@@ -188,7 +192,7 @@ func Search(ctx context.Context, st *model.Study, secs []*model.Section, bounds 
 		// and adds nothing to it, so no vertex's answer depends on
 		// another's timing.
 		ps := newSolver()
-		ps.seeds = seeds.clone()
+		ps.neighbours = seeds.clone().neighbours
 		return ps.solve(ctx, values)
 	}
 	return search(ctx, eval, par, bounds, start, opt, each)

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"context"
 	"math"
 	"slices"
 	"sync"
@@ -8,17 +9,15 @@ import (
 	"sectionbench/solver"
 )
 
-// seedBank holds the converged coupled solutions of a map's chain or a
-// search's path by their setting, for the rescue of a point that did not
-// converge from its own start (pointSolver.solve). Each bank is filled by
-// one goroutine in a fixed order (a chain's walk, the search's path), so
-// that which neighbour a point starts from, and so its answer, does not
-// depend on how the goroutines ran. Distances are measured in scale units
+// seedBank holds the converged coupled solutions of a search's path by
+// their setting, for the rescue of a solve that did not converge from its
+// own start (pointSolver.solve). It is filled by one goroutine in the
+// path's order, so that which neighbour a solve starts from, and so its
+// answer, does not depend on how the goroutines ran. Distances are measured in scale units
 // per variable (a map's step, a search's bounds' width), so that "nearest"
 // means the same on every axis. It keeps the newest limit solutions only:
-// each holds its panel system, a few megabytes, and a map walks its grid
-// point by point, so the older ones are the far ones. Safe for concurrent
-// use.
+// each holds its panel system, a few megabytes, and the path moves on,
+// so the older ones are mostly the far ones. Safe for concurrent use.
 type seedBank struct {
 	mu    sync.Mutex
 	scale []float64
@@ -93,6 +92,14 @@ func (b *seedBank) nearest(values []float64, n int) []*solver.CoupledSolution {
 		out = append(out, c.sol)
 	}
 	return out
+}
+
+// neighbours is nearest for pointSolver.neighbours (nil for a nil bank).
+func (b *seedBank) neighbours(_ context.Context, values []float64) []*solver.CoupledSolution {
+	if b == nil {
+		return nil
+	}
+	return b.nearest(values, rescueSeeds)
 }
 
 // clone returns a bank holding b's solutions now, which later additions

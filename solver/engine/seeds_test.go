@@ -81,3 +81,30 @@ func TestRowChains(t *testing.T) {
 		})
 	}
 }
+
+// A map point starts again only from neighbours solved before it, nearest
+// first: in its row and the row before; in one variable towards the
+// middle, across it for the down half's first point.
+func TestMapSeedsBefore(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		axes [][]float64
+		k    int
+		want []int
+	}{
+		{"first row, first point", [][]float64{{1, 2}, {1, 2, 3}}, 0, nil},
+		{"first row", [][]float64{{1, 2}, {1, 2, 3}}, 2, []int{1, 0}},
+		{"second row, first point", [][]float64{{1, 2}, {1, 2, 3}}, 3, []int{0, 1}},
+		{"second row, middle", [][]float64{{1, 2}, {1, 2, 3}}, 4, []int{3, 1, 0, 2}},
+		{"one variable, the middle", [][]float64{{1, 2, 3, 4, 5}}, 2, nil},
+		{"one variable, up", [][]float64{{1, 2, 3, 4, 5}}, 4, []int{3, 2}},
+		{"one variable, down from the middle", [][]float64{{1, 2, 3, 4, 5}}, 1, []int{2, 3}},
+		{"one variable, down", [][]float64{{1, 2, 3, 4, 5}}, 0, []int{1, 2}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			if got := newMapSeeds(tc.axes).before(tc.k); !slices.Equal(got, tc.want) {
+				t.Errorf("before(%d) = %v, want %v", tc.k, got, tc.want)
+			}
+		})
+	}
+}

@@ -142,11 +142,14 @@ type pointSolver struct {
 	opt     PointOptions
 	viscous bool
 	eng     *Engine
-	// seeds, if not nil, holds the converged points of the map or
-	// search (shared by its goroutines): a point that does not converge
-	// from its own start tries again from the nearest of them
-	// (rescueSeeds).
-	seeds *seedBank
+	// neighbours, if not nil, returns the converged solutions of
+	// neighbouring settings, nearest first, that a point at values which
+	// did not converge from its own start tries again from (at most
+	// rescueSeeds of them).
+	neighbours func(ctx context.Context, values []float64) []*solver.CoupledSolution
+	// last is the converged coupled solution of the last solve, nil when
+	// it did not converge or was inviscid.
+	last *solver.CoupledSolution
 }
 
 func newPointSolver(st *model.Study, secs []*model.Section, vars []model.SetupVariable, opt PointOptions) *pointSolver {
@@ -171,6 +174,7 @@ func (ps *pointSolver) study(values []float64) (*model.Study, error) {
 // solve solves the point at values. Only cancellation is an error; any
 // other failure is a point with Err set.
 func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, error) {
+	ps.last = nil
 	p := Point{Values: append([]float64(nil), values...), Viscous: ps.viscous, Inverted: ps.base.Inverted}
 	fail := func(err error) (Point, error) {
 		if ctx.Err() != nil || errors.Is(err, context.Canceled) || errors.Is(err, context.DeadlineExceeded) {
@@ -189,12 +193,16 @@ func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, erro
 	if err != nil {
 		return fail(err)
 	}
-	if c := res.Coupled; c != nil && !c.Converged && c.Note == "" && ps.seeds != nil {
+	if c := res.Coupled; c != nil && !c.Converged && c.Note == "" && ps.neighbours != nil {
 		// Rescue: from the nearest converged neighbours, each with a
 		// bounded budget, so that a hopeless point gives up quickly.
 		rq := req
 		rq.CoupledMaxIterations = rescueIterations(ps.opt.CoupledMaxIterations)
-		for _, seed := range ps.seeds.nearest(values, rescueSeeds) {
+		seeds := ps.neighbours(ctx, values)
+		if err := ctx.Err(); err != nil {
+			return fail(err)
+		}
+		for _, seed := range seeds[:min(len(seeds), rescueSeeds)] {
 			again, err := ps.eng.runFromSeed(ctx, rq, seed, req.CoupledMaxIterations)
 			if err != nil {
 				return fail(err)
@@ -205,8 +213,8 @@ func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, erro
 			}
 		}
 	}
-	if c := res.Coupled; c != nil && c.Converged && ps.seeds != nil {
-		ps.seeds.add(values, c.last)
+	if c := res.Coupled; c != nil && c.Converged {
+		ps.last = c.last
 	}
 	p.fill(res, st, ps.secs)
 	return p, nil
