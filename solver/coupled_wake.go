@@ -10,6 +10,18 @@ import (
 // wakeGeom is the wake of one element: a polyline of nodes from the
 // trailing-edge midpoint downstream along a streamline of the inviscid
 // flow, carrying linear-strength sources (coupled_influence.go).
+//
+// Where one element's wake runs over the next element's boundary layer
+// (a slotted flap: the main's wake passes 0.005–0.014 main chords off the
+// flap's suction side, about its own displacement thickness) the two are
+// not merged into one confluent layer: the approximation is that each
+// keeps its own momentum and shape equations and its own edge velocity
+// (the wake's along its streamline, the layer's at the flap's surface),
+// and they act on each other only through their displacement sources in
+// the panel solution. The flap's layer is then too thin and the wake's
+// decay too fast where real confluent flow mixes them (the published
+// confluent-layer treatments); no two-element data here measure by how
+// much (docs/validation.md §9).
 type wakeGeom struct {
 	elem   int
 	nodes  []model.Point
