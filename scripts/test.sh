@@ -21,12 +21,12 @@ for t in pdfinfo pdftotext pdftoppm; do
 done
 
 echo "== unit, validation and headless UI tests"
-go test -count=1 ./...
+go test -count=1 -timeout 20m ./...
 
 echo "== race detector: solver and UI (rendering runs off the UI goroutine)"
 # -short leaves out the long numerical polars, which have no concurrency of
 # their own and run ten times slower under the detector.
-go test -count=1 -race -short ./solver/... ./ui/...
+go test -count=1 -timeout 20m -race -short ./solver/... ./ui/...
 
 echo "== fuzzing, $fuzztime per target"
 for pkg in ./model/ ./cmd/sectionbench-cli/; do
