@@ -163,10 +163,11 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintln(stdout, "skipped "+s)
 	}
 	for _, q := range []struct {
-		name string
-		e    engine.Extrapolation
-	}{{"Cl", res.Cl}, {"Cm", res.Cm}, {"min Cp", res.CpMin}, {"Cl viscous", res.ViscousCl}, {"Cd viscous", res.ViscousCd}} {
-		if q.name[2:] == " viscous" && !res.Viscous {
+		name    string
+		e       engine.Extrapolation
+		viscous bool // the coupled solution's, reported when the study ran it
+	}{{"Cl", res.Cl, false}, {"Cm", res.Cm, false}, {"min Cp", res.CpMin, false}, {"Cl viscous", res.ViscousCl, true}, {"Cd viscous", res.ViscousCd, true}} {
+		if q.viscous && !res.Viscous {
 			continue
 		}
 		if q.e.OK {
