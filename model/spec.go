@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"io/fs"
 	"strings"
 )
 
@@ -24,18 +25,26 @@ var ErrSpec = errors.New("unknown section spec")
 // SectionFromSpec returns the cleaned unit-chord section a spec names:
 // "naca:DIGITS" (4 or 5 digits), "kt:CX,CY,TAU" (the Kármán–Trefftz family:
 // circle centre and trailing-edge angle in degrees), or otherwise a
-// coordinate-file path, which load reads. Generated sections get a report
+// coordinate-file path, which load reads. The designation as people write
+// it, "NACA 0012", "naca0012" or "NACA-23012", names the NACA section too,
+// unless a file of that name exists. Generated sections get a report
 // saying so; files get the full cleaning report.
 func SectionFromSpec(spec string, load func(path string) ([]byte, error)) (*Section, *CleanReport, error) {
 	s := strings.TrimSpace(spec)
 	switch low := strings.ToLower(s); {
 	case strings.HasPrefix(low, SpecNACA):
-		code := s[len(SpecNACA):]
-		sec, err := NACA(code, NACAOptions{})
-		if err != nil {
-			return nil, nil, err
+		return nacaFromSpec(spec, s[len(SpecNACA):])
+	case nacaDesignation(low) != "":
+		if load != nil {
+			b, err := load(s)
+			if err == nil {
+				return SectionFromFile(b, s)
+			}
+			if !errors.Is(err, fs.ErrNotExist) {
+				return nil, nil, err
+			}
 		}
-		return sec, &CleanReport{Source: spec, Detected: []string{"generated from the published NACA formulas: " + sec.Name()}, InputPoints: sec.Len(), OutputPoints: sec.Len()}, nil
+		return nacaFromSpec(spec, nacaDesignation(low))
 	case strings.HasPrefix(low, SpecKT):
 		kt, err := ParseKT(s[len(SpecKT):])
 		if err != nil {
@@ -57,6 +66,35 @@ func SectionFromSpec(spec string, load func(path string) ([]byte, error)) (*Sect
 		return nil, nil, err
 	}
 	return SectionFromFile(b, s)
+}
+
+// nacaFromSpec generates the NACA section of code for spec.
+func nacaFromSpec(spec, code string) (*Section, *CleanReport, error) {
+	sec, err := NACA(code, NACAOptions{})
+	if err != nil {
+		return nil, nil, err
+	}
+	return sec, &CleanReport{Source: spec, Detected: []string{"generated from the published NACA formulas: " + sec.Name()}, InputPoints: sec.Len(), OutputPoints: sec.Len()}, nil
+}
+
+// nacaDesignation returns the digits of a lower-case NACA designation
+// written without the spec prefix, "naca 0012", "naca0012" or
+// "naca-23012" (four or five digits), and "" for anything else.
+func nacaDesignation(low string) string {
+	rest, ok := strings.CutPrefix(low, "naca")
+	if !ok {
+		return ""
+	}
+	rest = strings.TrimLeft(rest, " -_")
+	if len(rest) != 4 && len(rest) != 5 {
+		return ""
+	}
+	for _, r := range rest {
+		if r < '0' || r > '9' {
+			return ""
+		}
+	}
+	return rest
 }
 
 // SectionFromFile parses and cleans a coordinate file's content; source

@@ -21,7 +21,7 @@ func TestSectionFromSpec(t *testing.T) {
 		file += fmt.Sprintf("%.7f %.7f\n", pts[i].X, pts[i].Y)
 	}
 	load := func(p string) ([]byte, error) {
-		if p == "wing.dat" {
+		if p == "wing.dat" || p == "naca0009" {
 			return []byte(file), nil
 		}
 		return nil, &fs.PathError{Op: "open", Path: p, Err: fs.ErrNotExist}
@@ -34,8 +34,13 @@ func TestSectionFromSpec(t *testing.T) {
 		{"naca:2412", "NACA 2412", nil},
 		{"NACA:23012", "NACA 23012", nil},
 		{"  naca:0012 ", "NACA 0012", nil},
+		{"naca0012", "NACA 0012", nil},
+		{"NACA 4412", "NACA 4412", nil},
+		{"NACA-23012", "NACA 23012", nil},
+		{"naca2412.dat", "", fs.ErrNotExist},
 		{"kt:-0.1,0.1,10", "", nil},
 		{"wing.dat", "two-surface test section", nil},
+		{"naca0009", "two-surface test section", nil}, // a file of that name comes first
 		{"missing.dat", "", fs.ErrNotExist},
 		{"", "", ErrSpec},
 	} {

@@ -54,6 +54,7 @@ Commands:
 %s
 Section specs (--section):
   naca:DIGITS        a NACA 4- or 5-digit section, e.g. naca:2412, naca:23012
+                     (also written as the designation: naca2412, "NACA 2412")
   kt:CX,CY,TAU       the Kármán–Trefftz family: circle centre and trailing-edge
                      angle in degrees, e.g. kt:-0.1,0.1,10 (exact solution known)
   PATH               a coordinate file (cleaned on loading; see 'clean')
@@ -61,8 +62,9 @@ Section specs (--section):
 Results are 2-D estimates: potential flow, plus with --re a viscous solution
 whose boundary layers and wakes act back on the flow (or, with
 --viscous-mode estimate, a one-way boundary-layer estimate); a viscous point
-that did not converge is shown as such, without numbers. Validate by test. Structural design and mounting of a
-wing follow the competition's rules and qualified engineering review.
+that did not converge is shown as such, without numbers. Validate by test.
+Structural design and mounting of a wing follow the competition's rules and
+qualified engineering review.
 
 Run 'sectionbench-cli COMMAND -h' for a command's flags.
 `
