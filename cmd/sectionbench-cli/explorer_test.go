@@ -5,6 +5,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"math"
+	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -46,6 +47,20 @@ func checkPointKeys(t *testing.T, where string, p map[string]any, vars []string,
 	}
 	if _, ok := p["converged"].(bool); !ok {
 		t.Errorf("%s: converged is %v, want a bool", where, p["converged"])
+	}
+	switch from, _ := p["started_from"].(map[string]any); p["started_from_neighbour"] {
+	case false:
+		if p["started_from"] != nil {
+			t.Errorf("%s: started_from %v on a point from its own start", where, p["started_from"])
+		}
+	case true:
+		for _, v := range vars {
+			if _, ok := from[v].(float64); !ok || p["converged"] != true {
+				t.Errorf("%s: started from a neighbour, converged %v, started_from %v", where, p["converged"], p["started_from"])
+			}
+		}
+	default:
+		t.Errorf("%s: started_from_neighbour is %v, want a bool", where, p["started_from_neighbour"])
 	}
 	if p["converged"] == false && (p["cl"] != nil || p["cd"] != nil || p["downforce_per_span_n_per_m"] != nil) {
 		t.Errorf("%s: a point that did not converge has numbers: cl %v cd %v downforce %v", where, p["cl"], p["cd"], p["downforce_per_span_n_per_m"])
@@ -129,6 +144,74 @@ func TestMapReproducesSolve(t *testing.T) {
 	}
 }
 
+// A viscous map of the two-element example in ground effect gives
+// `solve`'s numbers at each grid point exactly, point by point against a
+// solve of the study with that clearance (tripped at 5 % and 100 panels
+// per element to keep it short); a point solve does not converge at is
+// either not converged in the map or says it converged only from a
+// neighbour (started_from_neighbour), and a point that says so is one
+// solve does not converge at.
+func TestMapReproducesSolveTwoElement(t *testing.T) {
+	if testing.Short() {
+		t.Skip("coupled viscous solves of two elements")
+	}
+	raw, err := os.ReadFile(example("two-element-ground.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	dir := t.TempDir()
+	studyAt := func(clearance float64) string {
+		var st map[string]any
+		if err := json.Unmarshal(raw, &st); err != nil {
+			t.Fatal(err)
+		}
+		st["viscous"] = map[string]any{"enabled": true, "mode": "coupled", "trip_upper": 0.05, "trip_lower": 0.05}
+		st["panelling"].(map[string]any)["panels"] = 100
+		st["ground"].(map[string]any)["clearance_mm"] = clearance
+		b, err := json.Marshal(st)
+		if err != nil {
+			t.Fatal(err)
+		}
+		path := filepath.Join(dir, fmt.Sprintf("at-%g.json", clearance))
+		if err := os.WriteFile(path, b, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return path
+	}
+	// Measured: 120 and 160 mm converge from their own start as solve
+	// does; solve does not converge at 80 mm, which the map reaches from
+	// 120 mm.
+	m := runJSON(t, "map", "--study", studyAt(100), "--vary", "clearance_mm=80:160:40", "--format", "json")
+	if m["viscous_mode"] != "coupled" {
+		t.Fatalf("viscous_mode %v", m["viscous_mode"])
+	}
+	compared := 0
+	for i, p := range m["points"].([]any) {
+		pm := p.(map[string]any)
+		h := pm["clearance_mm"].(float64)
+		s := runJSON(t, "solve", "--study", studyAt(h), "--format", "json")
+		if s["converged"] != true {
+			if pm["converged"] == true && pm["started_from_neighbour"] != true {
+				t.Errorf("point %d, %g mm: solve does not converge, the map's point converged from its own start", i, h)
+			}
+			t.Logf("%g mm: solve does not converge; the map's point: converged %v, from a neighbour %v", h, pm["converged"], pm["started_from_neighbour"])
+			continue
+		}
+		if pm["started_from_neighbour"] != false {
+			t.Errorf("point %d, %g mm: solve converges, the map's point says it started from %v", i, h, pm["started_from"])
+		}
+		for _, k := range []string{"cl", "cd", "cm", "downforce_per_span_n_per_m", "drag_per_span_n_per_m"} {
+			if pm[k] != s[k] || pm[k] == nil {
+				t.Errorf("point %d, %g mm: %s map %v, solve %v", i, h, k, pm[k], s[k])
+			}
+		}
+		compared++
+	}
+	if compared < 2 {
+		t.Errorf("only %d points where solve converges: the test compares too little", compared)
+	}
+}
+
 // The search's JSON: start, best (the variables and a map point's keys),
 // evaluations and the path.
 func TestSearchJSONShape(t *testing.T) {
@@ -172,6 +255,10 @@ func TestMapCSV(t *testing.T) {
 	}
 	if rows[2][0] != "6" {
 		t.Errorf("second row at gap %s, want 6", rows[2][0])
+	}
+	head := strings.Join(rows[0], ",")
+	if !strings.Contains(head, ",converged,started_from_neighbour,started_from.elements[1].gap_mm,iterations,") {
+		t.Errorf("header %s: want the start's columns after converged", head)
 	}
 }
 

@@ -53,7 +53,13 @@ type jsonMapKeys struct {
 	Cm         num  `json:"cm"`
 	ClInviscid num  `json:"cl_inviscid"`
 	Converged  bool `json:"converged"`
-	Iterations int  `json:"iterations"`
+	// StartedFromNeighbour: the point converged only when started from a
+	// neighbouring setting's solution (StartedFrom, under the variables'
+	// names); solve does not converge at its setting and the equations
+	// may have another root there.
+	StartedFromNeighbour bool         `json:"started_from_neighbour"`
+	StartedFrom          *namedValues `json:"started_from,omitempty"`
+	Iterations           int          `json:"iterations"`
 	// Downforce on an inverted wing (null without a speed), lift on an
 	// upright one with a speed; drag with a speed.
 	DownforceN *num `json:"downforce_per_span_n_per_m,omitempty"`
@@ -75,16 +81,41 @@ func (p jsonMapPoint) MarshalJSON() ([]byte, error) {
 	}
 	var b bytes.Buffer
 	b.WriteByte('{')
-	for i, n := range p.names {
-		k, _ := json.Marshal(n)
-		v, _ := num(p.values[i]).MarshalJSON()
-		b.Write(k)
-		b.WriteByte(':')
-		b.Write(v)
+	writeNamed(&b, p.names, p.values)
+	if len(p.names) > 0 && len(rest) > 2 {
 		b.WriteByte(',')
 	}
 	b.Write(rest[1:])
 	return b.Bytes(), nil
+}
+
+// namedValues is a setting as a JSON object: the variables' values under
+// their names, in the variables' order.
+type namedValues struct {
+	names  []string
+	values []float64
+}
+
+func (n namedValues) MarshalJSON() ([]byte, error) {
+	var b bytes.Buffer
+	b.WriteByte('{')
+	writeNamed(&b, n.names, n.values)
+	b.WriteByte('}')
+	return b.Bytes(), nil
+}
+
+// writeNamed writes "name":value pairs separated by commas.
+func writeNamed(b *bytes.Buffer, names []string, values []float64) {
+	for i, n := range names {
+		if i > 0 {
+			b.WriteByte(',')
+		}
+		k, _ := json.Marshal(n)
+		v, _ := num(values[i]).MarshalJSON()
+		b.Write(k)
+		b.WriteByte(':')
+		b.Write(v)
+	}
 }
 
 // mapPointJSON is p's JSON form; speed says whether forces are known.
@@ -96,6 +127,10 @@ func mapPointJSON(vars []model.SetupVariable, p engine.Point, hasSpeed bool) jso
 	k := &out.jsonMapKeys
 	k.Cl, k.Cd, k.Cm, k.ClInviscid = num(p.Cl), num(p.Cd), num(p.Cm), num(p.ClInviscid)
 	k.Converged, k.Iterations, k.Error = p.Converged, p.Iterations, p.Err
+	if p.FromNeighbour() {
+		k.StartedFromNeighbour = true
+		k.StartedFrom = &namedValues{names: out.names, values: p.StartedFrom}
+	}
 	switch {
 	case p.Inverted:
 		k.DownforceN = ptr(p.DownforcePerSpan) // null without a speed
@@ -129,7 +164,10 @@ type jsonMap struct {
 	Inverted    bool           `json:"inverted"`
 	Points      []jsonMapPoint `json:"points"`
 	Converged   int            `json:"converged_points"`
-	Caution     string         `json:"caution"`
+	// FromNeighbour counts the converged points that converged only from
+	// a neighbour's solution (each says so: started_from_neighbour).
+	FromNeighbour int    `json:"started_from_neighbour_points"`
+	Caution       string `json:"caution"`
 }
 
 // explorerFlags are the flags map and search share beyond the inputs.
@@ -227,6 +265,7 @@ func cmdMap(args []string, stdout, stderr io.Writer) error {
 				out.Converged++
 			}
 		}
+		out.FromNeighbour = fromNeighbour(points)
 		return writeJSON(stdout, out)
 	case "csv":
 		m := format.StudyMetadata(st, nil, "Sectionbench "+version)
@@ -234,6 +273,15 @@ func cmdMap(args []string, stdout, stderr io.Writer) error {
 		return format.WriteMapTable(stdout, m, st, vars, points)
 	}
 	return mapText(stdout, st, vars, points, mode, hasSpeed)
+}
+
+// settingWords is a setting as "name value, name value".
+func settingWords(vars []model.SetupVariable, values []float64) string {
+	var parts []string
+	for i, v := range vars {
+		parts = append(parts, fmt.Sprintf("%s %g", v.Name(), values[i]))
+	}
+	return strings.Join(parts, ", ")
 }
 
 // rangeVars returns the ranges' variables.
@@ -316,12 +364,28 @@ func mapText(w io.Writer, st *model.Study, vars []model.SetupVariable, points []
 			state = fmt.Sprintf("NOT CONVERGED (%d iterations)", p.Iterations)
 		case !p.Viscous:
 			state = "inviscid"
+		case p.FromNeighbour():
+			state = "converged only from the neighbour at " + settingWords(vars, p.StartedFrom) + " (solve does not converge here)"
 		}
 		fmt.Fprintln(tw, line+state+"\t")
 	}
 	if err := tw.Flush(); err != nil {
 		return err
 	}
+	if n := fromNeighbour(points); n > 0 {
+		fmt.Fprintf(w, "%d of %d points converged only from a neighbour's solution: solve does not converge at their settings, and the coupled equations may have another root there.\n", n, len(points))
+	}
 	_, err := fmt.Fprintln(w, caution)
 	return err
+}
+
+// fromNeighbour counts the points that converged only from a neighbour.
+func fromNeighbour(points []engine.Point) int {
+	n := 0
+	for i := range points {
+		if points[i].FromNeighbour() {
+			n++
+		}
+	}
+	return n
 }

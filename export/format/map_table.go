@@ -12,7 +12,11 @@ import (
 // WriteMapTable writes a map or a search path (engine.Map, engine.Search)
 // as CSV after the metadata m, one row per point in the order given: the
 // variables' values under their names (alpha_deg, elements[1].gap_mm, …);
-// cl, cd, cm and cl_inviscid; converged (yes or no), iterations;
+// cl, cd, cm and cl_inviscid; converged (yes or no);
+// started_from_neighbour (yes when the point converged only from a
+// neighbouring setting's solution: `solve` does not converge there) and
+// the setting it started from, started_from.NAME per variable (empty
+// otherwise); iterations;
 // downforce_per_span_n_per_m on an inverted wing or lift_per_span_n_per_m
 // on an upright one, and drag_per_span_n_per_m (empty without a speed);
 // per element K, elements[K].separation_suction_xc (empty: attached, or
@@ -33,7 +37,11 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 	for _, v := range vars {
 		head = append(head, v.Name())
 	}
-	head = append(head, "cl", "cd", "cm", "cl_inviscid", "converged", "iterations", load, "drag_per_span_n_per_m")
+	head = append(head, "cl", "cd", "cm", "cl_inviscid", "converged", "started_from_neighbour")
+	for _, v := range vars {
+		head = append(head, "started_from."+v.Name())
+	}
+	head = append(head, "iterations", load, "drag_per_span_n_per_m")
 	for k := range st.Elements {
 		head = append(head, fmt.Sprintf("elements[%d].separation_suction_xc", k))
 		if k > 0 {
@@ -55,7 +63,15 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 		if st.Inverted {
 			loadN = p.DownforcePerSpan
 		}
-		row = append(row, cell(p.Cl), cell(p.Cd), cell(p.Cm), cell(p.ClInviscid), yes[p.Converged], strconv.Itoa(p.Iterations), cell(loadN), cell(p.DragPerSpan))
+		row = append(row, cell(p.Cl), cell(p.Cd), cell(p.Cm), cell(p.ClInviscid), yes[p.Converged], yes[p.FromNeighbour()])
+		for i := range vars {
+			from := ""
+			if p.FromNeighbour() {
+				from = cell(p.StartedFrom[i])
+			}
+			row = append(row, from)
+		}
+		row = append(row, strconv.Itoa(p.Iterations), cell(loadN), cell(p.DragPerSpan))
 		for k, e := range p.Elements {
 			row = append(row, cell(e.SeparationSuction))
 			if k > 0 {

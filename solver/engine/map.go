@@ -6,7 +6,6 @@ import (
 	"sync"
 
 	"sectionbench/model"
-	"sectionbench/solver"
 )
 
 // MapOptions are the settings of a map.
@@ -117,7 +116,7 @@ func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []m
 						values[a] = axes[a][i]
 					}
 					if seeds != nil {
-						ps.neighbours = func(ctx context.Context, _ []float64) []*solver.CoupledSolution {
+						ps.neighbours = func(ctx context.Context, _ []float64) []seed {
 							return seeds.neighbours(ctx, k)
 						}
 					}

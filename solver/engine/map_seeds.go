@@ -107,10 +107,10 @@ func (m *mapSeeds) before(k int) []int {
 }
 
 // neighbours returns the converged solutions of point k's neighbours
-// (before), nearest first, waiting for each to be solved; nil when ctx
-// ends first.
-func (m *mapSeeds) neighbours(ctx context.Context, k int) []*solver.CoupledSolution {
-	var out []*solver.CoupledSolution
+// (before) with their settings, nearest first, waiting for each to be
+// solved; nil when ctx ends first.
+func (m *mapSeeds) neighbours(ctx context.Context, k int) []seed {
+	var out []seed
 	for _, j := range m.before(k) {
 		select {
 		case <-m.ready[j]:
@@ -121,7 +121,11 @@ func (m *mapSeeds) neighbours(ctx context.Context, k int) []*solver.CoupledSolut
 		s := m.sols[j]
 		m.mu.Unlock()
 		if s != nil {
-			out = append(out, s)
+			at := make([]float64, len(m.axes))
+			for a, i := range gridIndex(j, m.axes) {
+				at[a] = m.axes[a][i]
+			}
+			out = append(out, seed{at: at, sol: s})
 		}
 	}
 	return out

@@ -94,8 +94,11 @@ func TestMapViscousAlpha(t *testing.T) {
 			}
 			continue
 		}
+		if c.Converged == p.FromNeighbour() {
+			t.Errorf("α %g: solve converged %v, the map's point says it started from a neighbour at %v", p.Values[0], c.Converged, p.StartedFrom)
+		}
 		if !c.Converged {
-			t.Logf("α %g converges only from its neighbour in the map: Cl %.5f", p.Values[0], p.Cl)
+			t.Logf("α %g converges only from its neighbour in the map (at %v): Cl %.5f", p.Values[0], p.StartedFrom, p.Cl)
 		} else if p.Cl != c.Cl || p.Cd != c.Cd || p.Cm != c.Cm {
 			t.Errorf("α %g: map Cl %.9f Cd %.9f Cm %.9f, solve %.9f %.9f %.9f", p.Values[0], p.Cl, p.Cd, p.Cm, c.Cl, c.Cd, c.Cm)
 		}

@@ -28,6 +28,8 @@ type seedBank struct {
 	seeds  []seed
 }
 
+// seed is a converged solution and the setting (the variables' values)
+// it was solved at.
 type seed struct {
 	at  []float64
 	sol *solver.CoupledSolution
@@ -57,13 +59,13 @@ func (b *seedBank) add(values []float64, sol *solver.CoupledSolution) {
 
 // nearest returns at most n solutions within b.within of values, nearest
 // first (ties: the newest first), never one at values itself.
-func (b *seedBank) nearest(values []float64, n int) []*solver.CoupledSolution {
+func (b *seedBank) nearest(values []float64, n int) []seed {
 	b.mu.Lock()
 	defer b.mu.Unlock()
 	type cand struct {
 		d   float64
 		age int
-		sol *solver.CoupledSolution
+		s   seed
 	}
 	var cs []cand
 	for i, s := range b.seeds {
@@ -76,7 +78,7 @@ func (b *seedBank) nearest(values []float64, n int) []*solver.CoupledSolution {
 		if d == 0 || d > b.within {
 			continue
 		}
-		cs = append(cs, cand{d, -i, s.sol})
+		cs = append(cs, cand{d, -i, s})
 	}
 	slices.SortFunc(cs, func(x, y cand) int {
 		if x.d != y.d {
@@ -87,15 +89,15 @@ func (b *seedBank) nearest(values []float64, n int) []*solver.CoupledSolution {
 		}
 		return x.age - y.age
 	})
-	var out []*solver.CoupledSolution
+	var out []seed
 	for _, c := range cs[:min(n, len(cs))] {
-		out = append(out, c.sol)
+		out = append(out, c.s)
 	}
 	return out
 }
 
 // neighbours is nearest for pointSolver.neighbours (nil for a nil bank).
-func (b *seedBank) neighbours(_ context.Context, values []float64) []*solver.CoupledSolution {
+func (b *seedBank) neighbours(_ context.Context, values []float64) []seed {
 	if b == nil {
 		return nil
 	}

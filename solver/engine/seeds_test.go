@@ -23,10 +23,10 @@ func TestSeedBank(t *testing.T) {
 	c := b.clone()
 	b.add([]float64{50, 0.5}, sols[3])
 	b.add(nil, nil) // nothing to keep
-	alphas := func(ss []*solver.CoupledSolution) []float64 {
+	alphas := func(ss []seed) []float64 {
 		var a []float64
 		for _, s := range ss {
-			a = append(a, s.AlphaDeg)
+			a = append(a, s.sol.AlphaDeg)
 		}
 		return a
 	}

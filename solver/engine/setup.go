@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 
 	"sectionbench/model"
 	"sectionbench/solver"
@@ -37,9 +38,19 @@ type Point struct {
 	Viscous bool
 	// Converged is true when the viscous solution converged, or an
 	// inviscid point solved; false when it did not or Err is set.
-	Converged  bool
-	Iterations int     // Newton iterations of the viscous solution
-	Residual   float64 // its last relative change; NaN inviscid
+	Converged bool
+	// StartedFrom is the setting (the variables' values, parallel to
+	// Values) whose converged viscous solution this point's converged one
+	// was started from, when it did not converge from its own start: a
+	// map's or search's rescue from a neighbour (Map), or a free-air
+	// walk's start from the point before it. Such a point is the map's
+	// own answer: a `solve` of its setting does not converge, and the
+	// coupled equations may have another root there. Nil when the point
+	// converged from its own start (it is then `solve`'s answer exactly),
+	// did not converge, or is inviscid.
+	StartedFrom []float64
+	Iterations  int     // Newton iterations of the viscous solution
+	Residual    float64 // its last relative change; NaN inviscid
 	// Cl, Cd and Cm are the configuration's coefficients on the reference
 	// chord (the solver's signs: Cl positive up, so negative on an
 	// inverted wing making downforce; Cm about the moment reference).
@@ -74,6 +85,10 @@ type PointElement struct {
 	// for the main element and when Err is set.
 	GapMM float64
 }
+
+// FromNeighbour reports whether the point converged only when started
+// from a neighbouring setting's solution (StartedFrom).
+func (p *Point) FromNeighbour() bool { return p.StartedFrom != nil }
 
 // Load returns the point's load coefficient in the sense the wing is
 // mounted for: Cl upright, the downforce coefficient −Cl inverted.
@@ -146,10 +161,12 @@ type pointSolver struct {
 	// neighbouring settings, nearest first, that a point at values which
 	// did not converge from its own start tries again from (at most
 	// rescueSeeds of them).
-	neighbours func(ctx context.Context, values []float64) []*solver.CoupledSolution
+	neighbours func(ctx context.Context, values []float64) []seed
 	// last is the converged coupled solution of the last solve, nil when
-	// it did not converge or was inviscid.
-	last *solver.CoupledSolution
+	// it did not converge or was inviscid; lastAt is the setting of the
+	// last solve that converged (the engine's warm start's, in free air).
+	last   *solver.CoupledSolution
+	lastAt []float64
 }
 
 func newPointSolver(st *model.Study, secs []*model.Section, vars []model.SetupVariable, opt PointOptions) *pointSolver {
@@ -189,9 +206,13 @@ func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, erro
 		return fail(err)
 	}
 	req := Request{Study: st, Sections: ps.secs, CoupledMaxIterations: ps.opt.CoupledMaxIterations}
-	res, err := ps.eng.runColdFirst(ctx, req)
+	res, warmed, err := ps.eng.runColdFirst(ctx, req)
 	if err != nil {
 		return fail(err)
+	}
+	var from []float64 // the setting res started from; nil: its own start
+	if warmed {
+		from = ps.lastAt
 	}
 	if c := res.Coupled; c != nil && !c.Converged && c.Note == "" && ps.neighbours != nil {
 		// Rescue: from the nearest converged neighbours, each with a
@@ -203,20 +224,23 @@ func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, erro
 			return fail(err)
 		}
 		for _, seed := range seeds[:min(len(seeds), rescueSeeds)] {
-			again, err := ps.eng.runFromSeed(ctx, rq, seed, req.CoupledMaxIterations)
+			again, err := ps.eng.runFromSeed(ctx, rq, seed.sol, req.CoupledMaxIterations)
 			if err != nil {
 				return fail(err)
 			}
 			if again.Coupled != nil && again.Coupled.Converged {
-				res = again
+				res, from = again, seed.at
 				break
 			}
 		}
 	}
 	if c := res.Coupled; c != nil && c.Converged {
-		ps.last = c.last
+		ps.last, ps.lastAt = c.last, p.Values
 	}
 	p.fill(res, st, ps.secs)
+	if p.Converged && p.Viscous && from != nil {
+		p.StartedFrom = slices.Clone(from)
+	}
 	return p, nil
 }
 
@@ -306,23 +330,25 @@ func (p *Point) fill(res *Result, st *model.Study, secs []*model.Section) {
 // solution from the march, so that a point that converges there is
 // `solve`'s answer exactly), and, when the viscous solution did not
 // converge, run again from the engine's last converged neighbour (Run's
-// warm start, when the neighbour is near and shares the system).
-func (e *Engine) runColdFirst(ctx context.Context, req Request) (*Result, error) {
+// warm start, when the neighbour is near and shares the system). warmed
+// reports that the result is the second run's, converged from that
+// neighbour.
+func (e *Engine) runColdFirst(ctx context.Context, req Request) (res *Result, warmed bool, err error) {
 	warm := e.warm
 	e.warm = nil
-	res, err := e.Run(ctx, req)
+	res, err = e.Run(ctx, req)
 	if err != nil || res.Coupled == nil || res.Coupled.Converged || warm == nil {
-		return res, err
+		return res, false, err
 	}
 	if e.warm == nil { // Run did not move to another system or converge
 		e.warm = warm
 	}
 	again, err := e.Run(ctx, req)
 	if err != nil {
-		return nil, err
+		return nil, false, err
 	}
 	if again.Coupled.Converged {
-		return again, nil
+		return again, true, nil
 	}
-	return res, nil
+	return res, false, nil
 }
