@@ -84,17 +84,18 @@ func (r *mapRun) grid(q engine.Quantity) figures.SetupGrid {
 		Title:  strings.ToUpper(q.Label(inv, r.forces)[:1]) + q.Label(inv, r.forces)[1:],
 		XLabel: r.vars[0].Label(r.st), YLabel: r.vars[1].Label(r.st), ZLabel: unitOf(q.Label(inv, r.forces)),
 		X: r.axes[0], Y: r.axes[1],
-		Z: make([][]float64, nx), Separated: make([][]bool, nx), Failed: make([][]bool, nx),
+		Z: make([][]float64, nx), Separated: make([][]bool, nx), Failed: make([][]bool, nx), FromNeighbour: make([][]bool, nx),
 		Start: [2]float64{math.NaN(), math.NaN()}, Best: [2]float64{math.NaN(), math.NaN()},
 	}
 	for i := range nx {
-		g.Z[i], g.Separated[i], g.Failed[i] = make([]float64, ny), make([]bool, ny), make([]bool, ny)
+		g.Z[i], g.Separated[i], g.Failed[i], g.FromNeighbour[i] = make([]float64, ny), make([]bool, ny), make([]bool, ny), make([]bool, ny)
 		for j := range ny {
 			k := i*ny + j
 			g.Z[i][j] = math.NaN()
 			if r.arrived[k] {
 				g.Z[i][j] = q.Value(&r.points[k], r.forces)
 				g.Separated[i][j], g.Failed[i][j] = r.separated(k), r.failed(k)
+				g.FromNeighbour[i][j] = !g.Failed[i][j] && r.points[k].FromNeighbour()
 			}
 		}
 	}
@@ -162,6 +163,13 @@ func describePoint(st *model.Study, vars []model.SetupVariable, p *engine.Point,
 	}
 	if note != "" {
 		qs = append(qs, note)
+	}
+	if p.FromNeighbour() {
+		var from []string
+		for i, v := range vars {
+			from = append(from, fmt.Sprintf("%s %s %s", shortLabel(st, v), num(p.StartedFrom[i]), v.Unit()))
+		}
+		qs = append(qs, "converged only when started from the solution at "+strings.Join(from, ", ")+" (a single solve has no answer here)")
 	}
 	return s + strings.Join(qs, ", ")
 }
@@ -460,13 +468,16 @@ func (m *setupMaps) show() {
 		}
 		return
 	}
-	failed, separated := 0, 0
+	failed, separated, fromNeighbour := 0, 0, 0
 	for k := range r.points {
 		if r.failed(k) {
 			failed++
 		}
 		if r.separated(k) {
 			separated++
+		}
+		if r.arrived[k] && r.points[k].FromNeighbour() {
+			fromNeighbour++
 		}
 	}
 	st := r.status
@@ -476,6 +487,9 @@ func (m *setupMaps) show() {
 	viscous := r.viscous()
 	text := fmt.Sprintf("%s %d of %d points done; %d without an answer (not converged or not solvable), %d separated ahead of x/c %s. The map is of the study as it was when run.",
 		st, r.done, r.total(), failed, separated, num(r.limit))
+	if fromNeighbour > 0 {
+		text += fmt.Sprintf(" %d converged only when started from a neighbour's solution (boxed): a single solve has no answer there.", fromNeighbour)
+	}
 	if !viscous {
 		text += " No drag, L/D or separation without the viscous solution (a speed or Reynolds number, and the box ticked)."
 	}

@@ -30,8 +30,10 @@ type SetupCurve struct {
 	// Separated marks points whose suction side separates ahead of the
 	// limit the caller chose; Failed marks points with no answer (not
 	// converged, or not solvable): crossed on the x axis, never drawn as
-	// values. Either may be nil.
-	Separated, Failed []bool
+	// values; FromNeighbour marks points that converged only from a
+	// neighbouring setting's solution (engine.Point.StartedFrom): boxed,
+	// since a single solve has no answer there. Any may be nil.
+	Separated, Failed, FromNeighbour []bool
 	// Current is the study's own value of the variable (a vertical line),
 	// NaN for none; Onset is where separation sets in (a labelled vertical
 	// line), NaN for none.
@@ -45,7 +47,8 @@ var ErrNoSetupData = fmt.Errorf("no points with a value yet: %w", ErrNoData)
 
 // SetupCurvePlot draws a SetupCurve: the points with a value joined in
 // order of X, separated points in a hollow marker of their own, points
-// without an answer as crosses on the x axis (a point with a NaN value
+// that converged only from a neighbour in a box, points without an
+// answer as crosses on the x axis (a point with a NaN value
 // that is not Failed, a quantity the point does not have, is left out),
 // and the study's value and the separation onset as vertical lines.
 func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
@@ -56,21 +59,22 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 	p := newPlot(th, c.Title, c.XLabel, c.YLabel)
 	k := newKey(th, keyTopRight)
 	type pt struct {
-		x, y      float64
-		sep, fail bool
+		x, y            float64
+		sep, fail, from bool
 	}
 	var pts []pt
 	for i, x := range c.X {
 		q := pt{x: x, y: c.Y[i]}
 		q.sep = i < len(c.Separated) && c.Separated[i]
 		q.fail = i < len(c.Failed) && c.Failed[i]
+		q.from = i < len(c.FromNeighbour) && c.FromNeighbour[i]
 		if !q.fail && math.IsNaN(q.y) {
 			continue
 		}
 		pts = append(pts, q)
 	}
 	sort.Slice(pts, func(i, j int) bool { return pts[i].x < pts[j].x })
-	var line, attached, separated plotter.XYs
+	var line, attached, separated, fromNeighbour plotter.XYs
 	var failed []float64
 	ext := newExtent()
 	for _, q := range pts {
@@ -82,6 +86,9 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		xy := plotter.XY{X: q.x, Y: q.y}
 		ext.add(q.x, q.y)
 		line = append(line, xy)
+		if q.from {
+			fromNeighbour = append(fromNeighbour, xy)
+		}
 		if q.sep {
 			separated = append(separated, xy)
 		} else {
@@ -104,6 +111,11 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		s := newScatter(separated, th.lower, glyphMarker*1.2, draw.RingGlyph{})
 		p.Add(s)
 		k.add("suction side separated", s)
+	}
+	if len(fromNeighbour) > 0 {
+		s := newScatter(fromNeighbour, th.accent, glyphMarker*1.6, draw.SquareGlyph{})
+		p.Add(s)
+		k.add(fmt.Sprintf("only from a neighbour's solution (%d)", len(fromNeighbour)), s)
 	}
 	if len(failed) > 0 {
 		b := &bottomMarks{alphas: failed, glyph: draw.GlyphStyle{Color: th.accent, Radius: glyphMarker, Shape: draw.CrossGlyph{}}}
@@ -138,9 +150,9 @@ type SetupGrid struct {
 	Title, XLabel, YLabel, ZLabel string
 	X, Y                          []float64 // increasing
 	Z                             [][]float64
-	// Separated and Failed mark cells as SetupCurve does; either may be
-	// nil.
-	Separated, Failed [][]bool
+	// Separated, Failed and FromNeighbour mark cells as SetupCurve does;
+	// any may be nil.
+	Separated, Failed, FromNeighbour [][]bool
 	// Path is a search's path in (X, Y), in the order evaluated; Start and
 	// Best are marked when not NaN.
 	Path        [][2]float64
@@ -157,8 +169,9 @@ func (s setupGridXYZ) Y(r int) float64    { return s.g.Y[r] }
 
 // SetupGridPlot draws a SetupGrid as a filled map in a sequential
 // palette (Kindlmann's, from gonum/plot) with contour lines, a key of the
-// palette's values, separated cells hatched and cells without an answer
-// greyed and crossed, and the search's path, start and best point when
+// palette's values, separated cells hatched, cells without an answer
+// greyed and crossed, cells that converged only from a neighbour with a
+// box at their centre, and the search's path, start and best point when
 // given.
 func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 	if g.Z != nil && len(g.Z) != len(g.X) {
@@ -233,13 +246,16 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 		}
 	}
 	if g.Z != nil {
-		p.Add(&cellMarks{g: &g, hatch: fade(th.fg, 200), fail: fade(th.faint, 170), cross: th.accent})
+		p.Add(&cellMarks{g: &g, hatch: fade(th.fg, 200), fail: fade(th.faint, 170), cross: th.accent, box: th.accent})
 	}
 	if anyTrue(g.Separated) {
 		k.add("suction side separated (hatched)", hatchThumb{fade(th.fg, 200)})
 	}
 	if anyTrue(g.Failed) {
 		k.add("no answer (grey, crossed)", swatch{fade(th.faint, 170)})
+	}
+	if anyTrue(g.FromNeighbour) {
+		k.add("only from a neighbour's solution (boxed)", boxThumb{lineStyle(th.accent, widthNormal, nil)})
 	}
 	if len(g.Path) > 0 {
 		xys := make(plotter.XYs, len(g.Path))
@@ -323,11 +339,12 @@ func (f *cellFill) Plot(c draw.Canvas, p *plot.Plot) {
 	c.Fill(r.Path())
 }
 
-// cellMarks hatches separated cells and greys and crosses cells without
-// an answer.
+// cellMarks hatches separated cells, greys and crosses cells without an
+// answer and boxes the centre of cells that converged only from a
+// neighbour.
 type cellMarks struct {
-	g                  *SetupGrid
-	hatch, fail, cross color.Color
+	g                       *SetupGrid
+	hatch, fail, cross, box color.Color
 }
 
 func (m *cellMarks) Plot(c draw.Canvas, p *plot.Plot) {
@@ -345,6 +362,9 @@ func (m *cellMarks) Plot(c draw.Canvas, p *plot.Plot) {
 				c.DrawGlyph(g, vg.Point{X: (r.Min.X + r.Max.X) / 2, Y: (r.Min.Y + r.Max.Y) / 2})
 			case m.g.Separated != nil && m.g.Separated[i][j]:
 				hatchRect(c, r, lineStyle(m.hatch, widthThin, nil))
+			}
+			if m.g.FromNeighbour != nil && m.g.FromNeighbour[i][j] {
+				boxCell(c, r, lineStyle(m.box, widthNormal, nil))
 			}
 		}
 	}
@@ -374,6 +394,19 @@ type swatch struct{ c color.Color }
 func (s swatch) Thumbnail(c *draw.Canvas) {
 	c.SetColor(s.c)
 	c.Fill(c.Rectangle.Path())
+}
+
+// boxCell outlines cell r inset by a fifth of its size on each side.
+func boxCell(c draw.Canvas, r vg.Rectangle, sty draw.LineStyle) {
+	dx, dy := (r.Max.X-r.Min.X)/5, (r.Max.Y-r.Min.Y)/5
+	c.StrokeLines(sty, []vg.Point{{X: r.Min.X + dx, Y: r.Min.Y + dy}, {X: r.Max.X - dx, Y: r.Min.Y + dy}, {X: r.Max.X - dx, Y: r.Max.Y - dy}, {X: r.Min.X + dx, Y: r.Max.Y - dy}, {X: r.Min.X + dx, Y: r.Min.Y + dy}})
+}
+
+// boxThumb is a key entry for boxed cells.
+type boxThumb struct{ sty draw.LineStyle }
+
+func (b boxThumb) Thumbnail(c *draw.Canvas) {
+	boxCell(*c, c.Rectangle, b.sty)
 }
 
 // hatchThumb is a key entry for hatched cells.

@@ -7,6 +7,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 	"testing"
 
@@ -34,8 +35,8 @@ func writeSetup(t *testing.T, name string, p *plot.Plot) {
 }
 
 // Invented curve: downforce against clearance rising as the clearance
-// falls, then dropping, with the lowest points separated and one without
-// an answer.
+// falls, then dropping, with the lowest points separated, one without
+// an answer and two that converged only from a neighbour.
 func TestSetupCurvePlot(t *testing.T) {
 	c := SetupCurve{Title: "Downforce against clearance (invented)", XLabel: "clearance, mm", YLabel: "downforce, N/m", Current: 150, Onset: 35, OnsetLabel: "separation from 35 mm"}
 	for h := 20.0; h <= 200; h += 15 {
@@ -43,6 +44,7 @@ func TestSetupCurvePlot(t *testing.T) {
 		c.Y = append(c.Y, 300+4000/h-math.Max(0, 40-h)*8)
 		c.Separated = append(c.Separated, h < 40)
 		c.Failed = append(c.Failed, h == 65)
+		c.FromNeighbour = append(c.FromNeighbour, h == 50 || h == 80)
 	}
 	p, err := SetupCurvePlot(c, false)
 	if err != nil {
@@ -54,7 +56,8 @@ func TestSetupCurvePlot(t *testing.T) {
 	}
 }
 
-// Invented map: a smooth bump with a separated corner, a failed cell and
+// Invented map: a smooth bump with a separated corner, a failed cell,
+// cells that converged only from a neighbour (one of them separated) and
 // a search path.
 func TestSetupGridPlot(t *testing.T) {
 	g := SetupGrid{Title: "Downforce (invented)", XLabel: "flap deflection, °", YLabel: "flap gap, mm", ZLabel: "N/m", Start: [2]float64{20, 10}, Best: [2]float64{28, 12}}
@@ -66,13 +69,14 @@ func TestSetupGridPlot(t *testing.T) {
 	}
 	for _, x := range g.X {
 		var z []float64
-		var s, f []bool
+		var s, f, n []bool
 		for _, y := range g.Y {
 			z = append(z, 400-0.5*(x-30)*(x-30)-2*(y-12)*(y-12))
 			s = append(s, x > 34 && y < 10)
 			f = append(f, x == 40 && y == 20)
+			n = append(n, (x == 37 && y == 18) || (x == 37 && y == 8))
 		}
-		g.Z, g.Separated, g.Failed = append(g.Z, z), append(g.Separated, s), append(g.Failed, f)
+		g.Z, g.Separated, g.Failed, g.FromNeighbour = append(g.Z, z), append(g.Separated, s), append(g.Failed, f), append(g.FromNeighbour, n)
 	}
 	g.Path = [][2]float64{{20, 10}, {24, 10}, {22, 13}, {27, 12}, {28, 12}}
 	p, err := SetupGridPlot(g, false)
@@ -124,6 +128,9 @@ func TestMapCurveOnset(t *testing.T) {
 		if h <= 30 {
 			p.Elements[0].SeparationSuction = 0.5
 		}
+		if h == 40 {
+			p.StartedFrom = []float64{80}
+		}
 		pts = append(pts, p)
 	}
 	c := MapCurve(st, v, pts, engine.QuantityLoad, true, 0.9, 80)
@@ -132,6 +139,9 @@ func TestMapCurveOnset(t *testing.T) {
 	}
 	if !c.Failed[3] || c.Failed[0] || !c.Separated[0] || c.Separated[2] || c.Y[4] != 500 {
 		t.Errorf("marks: failed %v, separated %v, y %v", c.Failed, c.Separated, c.Y)
+	}
+	if want := []bool{false, false, true, false, false, false}; !slices.Equal(c.FromNeighbour, want) {
+		t.Errorf("from a neighbour %v, want %v (the 40 mm point)", c.FromNeighbour, want)
 	}
 	if c.YLabel != "downforce (N/m)" || c.XLabel != "ground clearance (mm)" {
 		t.Errorf("labels %q, %q", c.XLabel, c.YLabel)

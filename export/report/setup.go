@@ -56,9 +56,13 @@ func (r *writer) setupPage() {
 			} else {
 				caption += " No separation onset was found in this range."
 			}
+			note := s.CurveNote
+			if n := countTrue(s.Curve.FromNeighbour); n > 0 {
+				note += fmt.Sprintf(" %d of them (boxed) converged only when started from a neighbouring setting's solution: a single solve of their setting has no answer, and the coupled equations may have another root there.", n)
+			}
 			r.image(func(w io.Writer, win, hin float64) error {
 				return figure.WritePlot(w, pl, figure.FormatPNG, win, hin, FigureDPI)
-			}, "set-up curve", caption+" "+s.CurveNote, figureHMM*0.85)
+			}, "set-up curve", caption+" "+note, figureHMM*0.85)
 		}
 	}
 	if s.Search != nil {
@@ -110,8 +114,27 @@ func (r *writer) searchSection(s *Setup) {
 	if !res.Feasible {
 		feasible = " No setting met every limit: the start is kept."
 	}
+	for _, e := range []struct {
+		name string
+		p    *engine.Point
+	}{{"start", &res.Start}, {"best setting", &res.Best}} {
+		if e.p.FromNeighbour() {
+			feasible += " The " + e.name + "'s solution converged only when started from the solution of a setting solved before it: a single solve of it has no answer, and the coupled equations may have another root there."
+		}
+	}
 	r.para(fmt.Sprintf("Objective: %s, %s, keeping %s. %s solves; %s.%s This is a local optimum found by Nelder and Mead's simplex from the study's own setting, not necessarily the best setting within the bounds.",
 		objectiveWords(o), viscous, joinWords(limits), strconv.Itoa(res.Evaluations), res.Status, feasible))
+}
+
+// countTrue counts the marked entries.
+func countTrue(marks []bool) int {
+	n := 0
+	for _, m := range marks {
+		if m {
+			n++
+		}
+	}
+	return n
 }
 
 // objectiveWords states a search's objective.
