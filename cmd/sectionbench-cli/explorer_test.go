@@ -9,11 +9,38 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"sectionbench/model"
 )
 
 // example is one of the invented example studies the app ships.
 func example(name string) string {
 	return filepath.Join("..", "..", "assets", "examples", name)
+}
+
+// inviscidExample writes a copy of an example study with its viscous
+// solution off (the examples open with the coupled solution on) and
+// returns its path: for tests of the panel method's path through a
+// command, which the viscous solution would only slow down.
+func inviscidExample(t *testing.T, name string) string {
+	t.Helper()
+	b, err := os.ReadFile(example(name))
+	if err != nil {
+		t.Fatal(err)
+	}
+	st, err := model.DecodeStudy(b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	st.Viscous.Enabled = false
+	if b, err = st.Encode(); err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(t.TempDir(), name)
+	if err := os.WriteFile(path, b, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return path
 }
 
 // runJSON runs the command and decodes its JSON output.
@@ -114,7 +141,7 @@ func TestMapReproducesSolve(t *testing.T) {
 		keys   []string
 		long   bool
 	}{
-		{"inviscid, two elements in ground effect", []string{"--study", example("two-element-ground.json"), "--inviscid"}, []string{"cl", "cm", "downforce_per_span_n_per_m"}, false},
+		{"inviscid, two elements in ground effect", []string{"--study", inviscidExample(t, "two-element-ground.json"), "--inviscid"}, []string{"cl", "cm", "downforce_per_span_n_per_m"}, false},
 		{"coupled, NACA 0012", []string{"--section", "naca:0012", "--re", "6e6", "--trip-upper", "0.05", "--trip-lower", "0.05"}, []string{"cl", "cd", "cm"}, true},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
@@ -124,7 +151,7 @@ func TestMapReproducesSolve(t *testing.T) {
 			m := runJSON(t, append([]string{"map", "--vary", "alpha_deg=1:3:1", "--format", "json"}, tc.inputs...)...)
 			solveInputs := tc.inputs
 			if solveInputs[len(solveInputs)-1] == "--inviscid" {
-				solveInputs = solveInputs[:len(solveInputs)-1] // the example's own viscous setting is off
+				solveInputs = solveInputs[:len(solveInputs)-1] // the copy's viscous setting is off
 			}
 			for i, p := range m["points"].([]any) {
 				pm := p.(map[string]any)

@@ -14,7 +14,7 @@ import (
 // trusted; the example wing in ground effect passes the plausible suction
 // peak (model.CpMinPlausible) above about 1.5°.
 func TestSweepRowFlags(t *testing.T) {
-	code, out, errs := runCLI(t, "sweep", "--study", "../../assets/examples/two-element-ground.json", "--format", "json")
+	code, out, errs := runCLI(t, "sweep", "--study", inviscidExample(t, "two-element-ground.json"), "--format", "json")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
@@ -39,7 +39,7 @@ func TestSweepRowFlags(t *testing.T) {
 // TestSweepCSVFlags: the CSV sweep ends each row with its flags in words,
 // the same as the JSON rows.
 func TestSweepCSVFlags(t *testing.T) {
-	code, out, errs := runCLI(t, "sweep", "--study", "../../assets/examples/two-element-ground.json", "--format", "csv")
+	code, out, errs := runCLI(t, "sweep", "--study", inviscidExample(t, "two-element-ground.json"), "--format", "csv")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
