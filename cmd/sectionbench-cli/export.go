@@ -270,7 +270,7 @@ func tableWriter(table string, st *model.Study, secs []*model.Section) (func(io.
 }
 
 func cmdReport(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("report", "report (--study FILE | --section SPEC [--alpha DEG]) -o OUT.pdf [--page A4|Letter] [--author NAME] [--no-density] [--map NAME=FROM:TO:STEP [--map-inviscid] [--separation-limit XC]] [--finite-span]", stdout)
+	fs := newFlags("report", "report (--study FILE | --section SPEC [--alpha DEG]) -o OUT.pdf [--page A4|Letter] [--author NAME] [--no-density] [--map NAME=FROM:TO:STEP [--map-inviscid] [--separation-limit XC]] [--search NAME=LO:HI [--search …] [--search-objective downforce|lift-to-drag|drag] [--search-inviscid] [--search-max-evaluations N]] [--finite-span]", stdout)
 	in := addInputs(fs, false, "pdf")
 	out := fs.String("o", "", "output PDF `file`")
 	page := fs.String("page", report.PageA4, "page size: A4 or Letter")

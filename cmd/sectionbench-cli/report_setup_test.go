@@ -32,6 +32,24 @@ func TestReportSetupPage(t *testing.T) {
 			t.Errorf("report lacks %q", want)
 		}
 	}
+	code, _, stderr = runCLI(t, "report", "--study", study, "-o", pdf, "--no-density", "--search", "elements[1].deflection_deg=10:20", "--search-inviscid", "--search-max-evaluations", "8")
+	if code != exitOK {
+		t.Fatalf("--search: exit %d: %s", code, stderr)
+	}
+	out, err = exec.Command("pdftotext", pdf, "-").CombinedOutput()
+	if err != nil {
+		t.Fatalf("pdftotext: %v\n%s", err, out)
+	}
+	text = strings.Join(strings.Fields(string(out)), " ")
+	for _, want := range []string{"Best setting found", "Start Best found", "a local optimum", "with the panel method only"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("report with --search lacks %q", want)
+		}
+	}
+	code, _, stderr = runCLI(t, "report", "--study", study, "-o", pdf, "--no-density", "--search", "elements[1].deflection_deg=20:10")
+	if code != exitUsage || !strings.Contains(stderr, "--search") {
+		t.Errorf("bad --search: exit %d, %s", code, stderr)
+	}
 	code, _, stderr = runCLI(t, "report", "--study", study, "-o", pdf, "--no-density", "--map", "height=1:2:1")
 	if code != exitUsage || !strings.Contains(stderr, "--map") {
 		t.Errorf("bad --map: exit %d, %s", code, stderr)
