@@ -127,12 +127,30 @@ func (e *Engine) FiniteSpan(ctx context.Context, req Request) (*FiniteSpan, *Res
 		}
 		fs, err := FiniteSpanEstimate(st, res)
 		var re *liftingline.RangeError
+		if errors.As(err, &re) && viscousEdge(res, re) {
+			// Solving more angles would not help: the coupled solution
+			// already failed beyond the angles it converged at.
+			return nil, res, fmt.Errorf("finite-span estimate: the wing's stations need the section's polar at %.2f°, but the coupled viscous solution converged only from %g° to %g° of the %g° to %g° solved; with the viscous solution off the estimate takes the panel method's polar", re.AlphaDeg, re.FromDeg, re.ToDeg, st.Sweep.FromDeg, st.Sweep.ToDeg)
+		}
 		if errors.As(err, &re) && try == 0 && re.AlphaDeg < re.FromDeg && re.FromDeg > -model.MaxAlphaDeg {
 			margin = st.Flow.AlphaDeg - re.AlphaDeg + 4
 			continue
 		}
 		return fs, res, err
 	}
+}
+
+// viscousEdge reports whether the effective angle of re lies beyond the
+// converged rows of res's coupled sweep on a side where the sweep solved
+// angles that did not converge (so widening the sweep cannot help: the
+// two-element example's viscous polar ends at −12°, where its tips need
+// it, and nothing below converges).
+func viscousEdge(res *Result, re *liftingline.RangeError) bool {
+	if res.SweepCoupled == nil || len(res.Sweep) == 0 {
+		return false
+	}
+	first, last := res.Sweep[0].AlphaDeg, res.Sweep[len(res.Sweep)-1].AlphaDeg
+	return re.AlphaDeg < re.FromDeg && re.FromDeg > first || re.AlphaDeg > re.ToDeg && re.ToDeg < last
 }
 
 // FiniteSpanEstimate returns the finite-span estimate of st from a result

@@ -8,6 +8,7 @@ import (
 
 	"sectionbench/model"
 	"sectionbench/model/modeltest"
+	"sectionbench/solver"
 	"sectionbench/solver/liftingline"
 )
 
@@ -121,5 +122,34 @@ func TestFiniteSpanNeedsSpan(t *testing.T) {
 	var fe *model.FieldError
 	if !errors.As(err, &fe) || fe.Field != "flow.span_m" {
 		t.Errorf("error %v, want one on flow.span_m", err)
+	}
+}
+
+// A finite-span estimate whose stations need the polar beyond the angles
+// the coupled solution converged at, on a side where it was solved and
+// failed, is refused at once (viscousEdge): widening the sweep would only
+// solve more angles that fail. Elsewhere the estimate may widen it.
+func TestViscousEdge(t *testing.T) {
+	rows := func(from, to float64) *Result {
+		r := &Result{SweepCoupled: []CoupledPoint{}}
+		for a := from; a <= to; a++ {
+			r.Sweep = append(r.Sweep, solver.Coefficients{AlphaDeg: a})
+		}
+		return r
+	}
+	for _, tc := range []struct {
+		name string
+		res  *Result
+		re   liftingline.RangeError
+		want bool
+	}{
+		{"below the converged rows, failed rows below them", rows(-13, 5), liftingline.RangeError{AlphaDeg: -12.004, FromDeg: -12, ToDeg: 5}, true},
+		{"above the converged rows, failed rows above them", rows(-13, 5), liftingline.RangeError{AlphaDeg: 4.5, FromDeg: -13, ToDeg: 4}, true},
+		{"below the sweep, every row converged", rows(-13, 5), liftingline.RangeError{AlphaDeg: -13.5, FromDeg: -13, ToDeg: 5}, false},
+		{"the panel method's polar", &Result{Sweep: rows(-13, 5).Sweep}, liftingline.RangeError{AlphaDeg: -12.004, FromDeg: -12, ToDeg: 5}, false},
+	} {
+		if got := viscousEdge(tc.res, &tc.re); got != tc.want {
+			t.Errorf("%s: %v, want %v", tc.name, got, tc.want)
+		}
 	}
 }
