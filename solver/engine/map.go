@@ -145,9 +145,6 @@ func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []m
 					}
 					mu.Unlock()
 				}
-				if seeds != nil {
-					seeds.rowDone(gridIndex(chain[0], axes)[0])
-				}
 			}
 		}()
 	}

@@ -16,13 +16,16 @@ import (
 // for such a neighbour to be solved, so that which neighbour rescued a
 // point, and so its answer, does not depend on how the goroutines ran.
 // Chains are handed out in order and a point never waits for a later
-// chain, so the waits end.
+// chain, so the waits end. A solution is dropped as soon as every point
+// that may start from it is solved (each holds its panel system, about
+// 10 MB for the two-element example), so a map holds a few rows' worth
+// at most, however long it is.
 type mapSeeds struct {
-	axes     [][]float64
-	ready    []chan struct{} // closed when the point is solved
-	mu       sync.Mutex
-	sols     []*solver.CoupledSolution // converged ones; a row's are dropped when it and the next are done
-	rowsDone []bool
+	axes  [][]float64
+	ready []chan struct{} // closed when the point is solved
+	mu    sync.Mutex
+	sols  []*solver.CoupledSolution // converged ones still needed
+	users []int                     // per point, the points not yet solved that may start from it
 }
 
 func newMapSeeds(axes [][]float64) *mapSeeds {
@@ -30,41 +33,43 @@ func newMapSeeds(axes [][]float64) *mapSeeds {
 	for _, ax := range axes {
 		total *= len(ax)
 	}
-	m := &mapSeeds{axes: axes, ready: make([]chan struct{}, total), sols: make([]*solver.CoupledSolution, total)}
+	m := &mapSeeds{axes: axes, ready: make([]chan struct{}, total), sols: make([]*solver.CoupledSolution, total), users: make([]int, total)}
 	for k := range m.ready {
 		m.ready[k] = make(chan struct{})
+		for _, j := range m.before(k) {
+			m.users[j]++
+		}
 	}
 	return m
 }
 
-// solved records point k's converged solution (nil: none) and releases
-// whoever waits for it.
+// solved records point k's converged solution (nil: none), releases
+// whoever waits for it, and drops the solutions no later point needs.
 func (m *mapSeeds) solved(k int, sol *solver.CoupledSolution) {
 	m.mu.Lock()
-	m.sols[k] = sol
+	if m.users[k] > 0 {
+		m.sols[k] = sol
+	}
+	for _, j := range m.before(k) {
+		if m.users[j]--; m.users[j] == 0 {
+			m.sols[j] = nil
+		}
+	}
 	m.mu.Unlock()
 	close(m.ready[k])
 }
 
-// rowDone records that row i of a two-variable map is solved and drops
-// the solutions of every row that is done and whose next row is done (no
-// other row starts from it).
-func (m *mapSeeds) rowDone(i int) {
-	if len(m.axes) != 2 {
-		return
-	}
-	rows, inner := len(m.axes[0]), len(m.axes[1])
+// held returns how many solutions the map holds now (for tests).
+func (m *mapSeeds) held() int {
 	m.mu.Lock()
 	defer m.mu.Unlock()
-	if m.rowsDone == nil {
-		m.rowsDone = make([]bool, rows)
-	}
-	m.rowsDone[i] = true
-	for _, r := range []int{i - 1, i} {
-		if r >= 0 && m.rowsDone[r] && (r+1 == rows || m.rowsDone[r+1]) {
-			clear(m.sols[r*inner : (r+1)*inner])
+	n := 0
+	for _, s := range m.sols {
+		if s != nil {
+			n++
 		}
 	}
+	return n
 }
 
 // before returns the neighbours point k may start again from, nearest

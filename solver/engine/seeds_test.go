@@ -108,3 +108,31 @@ func TestMapSeedsBefore(t *testing.T) {
 		})
 	}
 }
+
+// A map's seeds hold a solution only while a point that may start from it
+// is unsolved: walking a long one-variable map or a two-variable one in
+// the map's order, never more than a few at once, none at the end.
+func TestMapSeedsDrop(t *testing.T) {
+	for _, tc := range []struct {
+		name    string
+		axes    [][]float64
+		maxHeld int
+	}{
+		{"one variable of 201 points", [][]float64{make([]float64, 201)}, 4},
+		{"two variables, 20 by 20", [][]float64{make([]float64, 20), make([]float64, 20)}, 2*20 + 2},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			m := newMapSeeds(tc.axes)
+			most := 0
+			for _, chain := range rowChains(tc.axes) { // one chain after another
+				for _, k := range chain {
+					m.solved(k, &solver.CoupledSolution{})
+					most = max(most, m.held())
+				}
+			}
+			if most > tc.maxHeld || m.held() != 0 {
+				t.Errorf("held at most %d (want ≤ %d), %d at the end (want 0)", most, tc.maxHeld, m.held())
+			}
+		})
+	}
+}
