@@ -9,6 +9,7 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
@@ -69,7 +70,10 @@ func newFigureBox(act *session.Activity, do func(func()), min fyne.Size) *figure
 
 // CreateRenderer is part of fyne.Widget.
 func (b *figureBox) CreateRenderer() fyne.WidgetRenderer {
-	return &figureBoxRenderer{b: b, objects: []fyne.CanvasObject{b.image, container.NewCenter(b.note)}}
+	// The note spans the box's width (a wrapping label centred in its
+	// minimum size was one character wide: a column of letters), centred
+	// vertically by the spacers.
+	return &figureBoxRenderer{b: b, objects: []fyne.CanvasObject{b.image, container.NewVBox(layout.NewSpacer(), b.note, layout.NewSpacer())}}
 }
 
 // MinSize keeps the figure legible.

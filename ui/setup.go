@@ -110,7 +110,14 @@ func (s *setupWindow) relayout() {
 
 // setupColumn is a control column of the window's width.
 func setupColumn(objs ...fyne.CanvasObject) fyne.CanvasObject {
-	return container.NewPadded(container.NewStack(widthOf(setupControlWidth), container.NewVScroll(container.NewVBox(objs...))))
+	return setupColumnFooter(nil, objs...)
+}
+
+// setupColumnFooter is a control column whose footer (the run button and
+// its progress) stays in view below the scrolling controls, however tall
+// they are (nil: none).
+func setupColumnFooter(footer fyne.CanvasObject, objs ...fyne.CanvasObject) fyne.CanvasObject {
+	return container.NewPadded(container.NewStack(widthOf(setupControlWidth), container.NewBorder(nil, footer, nil, nil, container.NewVScroll(container.NewVBox(objs...)))))
 }
 
 // reportPart gathers, on the UI goroutine, what the report's set-up page

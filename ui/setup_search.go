@@ -110,20 +110,21 @@ func newSetupSearch(s *setupWindow) *setupSearch {
 	p.readout = widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	p.readout.Wrapping = fyne.TextWrapWord
 
-	side := setupColumn(append(append([]fyne.CanvasObject{heading("Vary within")}, rows...),
-		widget.NewSeparator(),
-		heading("Objective"), p.objective, row("Downforce target", p.target),
-		heading("Keep to"),
-		row("Attached to x/c", p.attached),
-		row("Slot gap at least (mm)", p.minGap),
-		row("Clearance at least (mm)", p.minClear),
-		caption("Every point must also converge; the configuration stays clear of the ground."),
-		p.viscous,
-		row("At most (solves)", p.budget),
-		p.msg,
-		p.row,
-		p.progress, p.status,
-	)...)
+	// The run button, its progress and state stay in view below the
+	// controls, which scroll: in an 800-pixel window they did not fit and
+	// the button was out of sight.
+	side := setupColumnFooter(container.NewVBox(p.msg, p.row, p.progress, p.status),
+		append(append([]fyne.CanvasObject{heading("Vary within")}, rows...),
+			widget.NewSeparator(),
+			heading("Objective"), p.objective, row("Downforce target", p.target),
+			heading("Keep to"),
+			row("Attached to x/c", p.attached),
+			row("Slot gap at least (mm)", p.minGap),
+			row("Clearance at least (mm)", p.minClear),
+			caption("Every point must also converge; the configuration stays clear of the ground."),
+			p.viscous,
+			row("At most (solves)", p.budget),
+		)...)
 	result := container.NewVBox(heading("Best against start"), p.table,
 		container.NewGridWithColumns(2, p.apply, p.pin), p.applyMsg)
 	p.planeCell = newReadoutBox(p.plane, p.hoverPlane)
@@ -377,7 +378,7 @@ func (p *setupSearch) show() {
 	p.status.SetText(st)
 	steps := make([]figures.SearchStep, len(r.path))
 	for i := range r.path {
-		steps[i] = figures.SearchStep{Objective: r.objectiveValue(&r.path[i]), Feasible: r.opt.Meets(&r.path[i])}
+		steps[i] = figures.SearchStep{Objective: r.objectiveValue(&r.path[i]), Feasible: r.opt.Meets(&r.path[i]), FromNeighbour: r.path[i].FromNeighbour()}
 	}
 	maximise := r.opt.Objective != searchObjectives[2]
 	title, label := "Search: "+r.objectiveLabel()+" at each solve", r.objectiveLabel()

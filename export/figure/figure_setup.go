@@ -139,9 +139,19 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 	}
 	p.X.Min, p.X.Max = padRange(ext.x0, ext.x1, 0.04)
 	p.Y.Min, p.Y.Max = padRange(ext.y0, ext.y1, 0.08)
+	if n := len(k.entries); n > 1 {
+		// Room above the data for a key of several entries, which would
+		// otherwise cover points of a small figure (the app's cells):
+		// about a tenth of the axis per entry beyond the first.
+		p.Y.Max += (p.Y.Max - p.Y.Min) * keyRoomPerEntry * float64(n-1)
+	}
 	p.Add(k)
 	return p, nil
 }
+
+// keyRoomPerEntry is the fraction of a set-up curve's y range added
+// above the data for each key entry beyond the first.
+const keyRoomPerEntry = 0.12
 
 // SetupGrid is one quantity over two set-up variables: Z[i][j] at X[i]
 // and Y[j] (NaN where the point has no value). With Z nil it is only the
@@ -420,25 +430,34 @@ func (h hatchThumb) Thumbnail(c *draw.Canvas) {
 type SearchStep struct {
 	Objective float64 // NaN when the point has no answer
 	Feasible  bool    // converged, attached to the limit, within every constraint
+	// FromNeighbour: the solve converged only when started from the
+	// solution of a setting solved before it (engine.Point.StartedFrom).
+	FromNeighbour bool
 }
 
 // SearchPlot draws a search's objective against the evaluation number:
-// feasible evaluations filled, others hollow, the best feasible value so
-// far (the largest when maximise, else the smallest) as a step line, and
-// the start as a horizontal reference.
+// feasible evaluations filled, others hollow, those that converged only
+// from a neighbour boxed, those without an answer crossed on the axis,
+// the best feasible value so far (the largest when maximise, else the
+// smallest) as a step line, and the start as a horizontal reference.
 func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark bool) (*plot.Plot, error) {
 	th := themeFor(dark)
 	p := newPlot(th, title, "evaluation", objective)
 	k := newKey(th, keyBottomRight)
-	var ok, bad, best plotter.XYs
+	var ok, bad, best, from plotter.XYs
+	var failed []float64
 	ext := newExtent()
 	cur := math.NaN()
 	for i, s := range steps {
 		if math.IsNaN(s.Objective) {
+			failed = append(failed, float64(i+1))
 			continue
 		}
 		xy := plotter.XY{X: float64(i + 1), Y: s.Objective}
 		ext.add(xy.X, xy.Y)
+		if s.FromNeighbour {
+			from = append(from, xy)
+		}
 		if s.Feasible {
 			ok = append(ok, xy)
 			if math.IsNaN(cur) || (maximise && s.Objective > cur) || (!maximise && s.Objective < cur) {
@@ -451,8 +470,12 @@ func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark
 			best = append(best, plotter.XY{X: xy.X, Y: cur})
 		}
 	}
-	if ext.empty() {
+	if ext.empty() && len(failed) == 0 {
 		return nil, ErrNoSetupData
+	}
+	if ext.empty() { // only solves without an answer: crosses on an empty plane
+		ext.add(float64(len(steps)), 0)
+		ext.add(1, 1)
 	}
 	if len(best) > 1 {
 		sty := lineStyle(th.accent, widthNormal, nil)
@@ -471,12 +494,25 @@ func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark
 		p.Add(s)
 		k.add("outside a constraint", s)
 	}
+	if len(from) > 0 {
+		s := newScatter(from, th.accent, glyphMarker*1.6, draw.SquareGlyph{})
+		p.Add(s)
+		k.add(fmt.Sprintf("only from a neighbour's solution (%d)", len(from)), s)
+	}
+	if len(failed) > 0 {
+		b := &bottomMarks{alphas: failed, glyph: draw.GlyphStyle{Color: th.accent, Radius: glyphMarker, Shape: draw.CrossGlyph{}}}
+		p.Add(b)
+		k.add(fmt.Sprintf("no answer (%d of %d)", len(failed), len(steps)), b)
+	}
 	if len(steps) > 0 && !math.IsNaN(steps[0].Objective) {
 		p.Add(&refLine{value: steps[0].Objective, style: lineStyle(th.faint, widthThin, dashRef), label: "start", labelSty: noteStyle(th, th.faint, 8, text.XLeft, text.YBottom)})
 	}
 	p.X.Min, p.X.Max = 0.5, math.Max(ext.x1, 1)+0.5
 	p.Y.Min, p.Y.Max = padRange(ext.y0, ext.y1, 0.08)
 	k.keep(ok, bad)
+	for _, x := range failed { // the crosses on the axis
+		k.keep(plotter.XYs{{X: x, Y: p.Y.Min}})
+	}
 	p.Add(k)
 	return p, nil
 }

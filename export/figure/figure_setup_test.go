@@ -95,12 +95,17 @@ func TestSetupGridPlot(t *testing.T) {
 }
 
 func TestSearchAndSpanLoadPlots(t *testing.T) {
-	steps := []SearchStep{{300, true}, {320, true}, {310, false}, {math.NaN(), false}, {335, true}, {330, true}}
+	steps := []SearchStep{{300, true, false}, {320, true, false}, {310, false, false}, {math.NaN(), false, false}, {335, true, true}, {330, true, false}}
 	p, err := SearchPlot("Search (invented)", "downforce, N/m", steps, true, false)
 	if err != nil {
 		t.Fatal(err)
 	}
 	writeSetup(t, "setup-search", p)
+	if p, err = SearchPlot("Search (invented)", "downforce, N/m", steps[3:4], true, false); err != nil {
+		t.Errorf("a search of one solve without an answer: %v", err)
+	} else {
+		writeSetup(t, "setup-search-no-answer", p)
+	}
 	s := SpanLoad{Title: "Spanwise load (invented)", YLabel: "downforce, N/m", SpanM: 1, TwoD: 320}
 	for i := range 10 {
 		y := (float64(i) + 0.5) / 20
