@@ -26,6 +26,7 @@ const (
 	FlagPastClMax    FlagKind = "past maximum lift"
 	FlagNotConverged FlagKind = "viscous solution not converged"
 	FlagSeparated    FlagKind = "separated"
+	FlagHeld         FlagKind = "transition held upstream"
 )
 
 // CpMinPlausible is the lowest suction-peak pressure coefficient taken as
@@ -60,6 +61,10 @@ type ViscousFacts struct {
 	PastClMax    bool // beyond the angle of the viscous solution's maximum lift
 	NotConverged bool
 	Separated    bool // the coupled solution or the one-way estimate finds the flow separated well ahead of the trailing edge: the inviscid answer does not hold
+	// TransitionHeld: on some surface with free transition the coupled
+	// solution's transition lies upstream of where the e^N criterion
+	// puts it, because the solution with it further on did not converge.
+	TransitionHeld bool
 }
 
 // Plausibility returns the flags a result raises, most serious first.
@@ -74,6 +79,9 @@ func Plausibility(f PointFacts) []Flag {
 		}
 		if v.NotConverged {
 			flags = append(flags, Flag{FlagNotConverged, "the viscous solution did not converge at this point: its numbers are not an answer"})
+		}
+		if v.TransitionHeld {
+			flags = append(flags, Flag{FlagHeld, "the free-transition solution did not converge here: transition is held upstream of where the e^N criterion puts it, as if tripped there, and lift and drag are those of that earlier transition"})
 		}
 	}
 	if f.CpMin < CpMinPlausible {

@@ -17,6 +17,7 @@ func TestPlausibility(t *testing.T) {
 		{"impossible suction near the ground", PointFacts{CpMin: -596, HOverC: 0.02}, []FlagKind{FlagSuction, FlagGround}},
 		{"at the threshold", PointFacts{CpMin: CpMinPlausible, HOverC: GroundHOverCMin}, nil},
 		{"viscous states plug in", PointFacts{CpMin: -2, HOverC: math.NaN(), Viscous: &ViscousFacts{PastClMax: true, NotConverged: true, Separated: true}}, []FlagKind{FlagSeparated, FlagPastClMax, FlagNotConverged}},
+		{"transition held", PointFacts{CpMin: -2, HOverC: math.NaN(), Viscous: &ViscousFacts{TransitionHeld: true}}, []FlagKind{FlagHeld}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			got := Plausibility(tc.f)

@@ -55,9 +55,14 @@ type CoupledSurface struct {
 	Stations   []CoupledStation
 	Transition float64 // x/c of transition, NaN if the layer stays laminar to the trailing edge (forced there)
 	Tripped    bool    // transition forced by a trip
-	Separation float64 // x/c where the layer separates and stays separated to the trailing edge, NaN if attached
-	Bubble     [2]float64
-	HasBubble  bool // laminar separation bubble between Bubble[0] and Bubble[1] (x/c)
+	// TransitionHeld: the layer turns turbulent upstream of where the
+	// e^N criterion puts it (its envelope stays more than heldMargin
+	// below NCrit there), because the solution with transition further
+	// on did not converge; the answer is that of a trip at Transition.
+	TransitionHeld bool
+	Separation     float64 // x/c where the layer separates and stays separated to the trailing edge, NaN if attached
+	Bubble         [2]float64
+	HasBubble      bool // laminar separation bubble between Bubble[0] and Bubble[1] (x/c)
 }
 
 // CoupledElement is one element's coupled result.
@@ -290,6 +295,17 @@ func (s *System) solveStrategies(ctx context.Context, alphaDeg float64, opt Coup
 			return nil, err
 		}
 		if c {
+			out = t.result()
+			out.Converged, out.Residual = true, r
+		}
+	}
+	if out.Converged && out.state != nil {
+		t, n, r, err := out.state.releaseHeld(ctx)
+		iters += n
+		if err != nil {
+			return nil, err
+		}
+		if t != nil {
 			out = t.result()
 			out.Converged, out.Residual = true, r
 		}

@@ -294,14 +294,9 @@ func (cs *coupledState) retype(relaminarise bool) bool {
 			changed = true
 			moved = true
 		case cs.strategy.relaminariseAlways && s.kind != bl.Laminar && !forced:
-			a := cs.stationOf(p, math.Max(ue[p], 1e-6))
-			b := cs.stationOf(i, math.Max(ue[i], 1e-6))
-			b.C = a.C
-			ra := bl.Eval(bl.Laminar, a, cs.re).AmpRate
-			rb := bl.Eval(bl.Laminar, b, cs.re).AmpRate
-			if grow := (b.Xi - a.Xi) * 0.5 * (ra + rb); a.C+grow < cs.ncrit {
+			if n := cs.envelopeAt(i, ue); n < cs.ncrit {
 				s.kind = bl.Laminar
-				cs.c[i] = a.C + grow
+				cs.c[i] = n
 				changed = true
 			}
 		case moved && s.kind != bl.Laminar:

@@ -106,6 +106,7 @@ func (cs *coupledState) surface(k, side int, ue []float64) CoupledSurface {
 				sf.Transition = cs.st[pp].xc + f*(s.xc-cs.st[pp].xc)
 			}
 			sf.Tripped = xt >= s.tripXi*(1-1e-9)
+			sf.TransitionHeld = cs.heldAt(i, cs.ueLayers())
 		}
 		sf.Stations = append(sf.Stations, o)
 	}

@@ -52,21 +52,35 @@ type CoupledElementPoint struct {
 	Cl, Cd, Cm                       float64 // NaN unless converged; Cm about the element's quarter chord
 	ClInviscid                       float64
 	TransitionUpper, TransitionLower float64
-	SeparationUpper, SeparationLower float64    // where the layer separates and stays separated to the trailing edge
-	BubbleUpper, BubbleLower         [2]float64 // laminar separation bubble from–to x/c; NaN, NaN for none
+	SeparationUpper, SeparationLower float64 // where the layer separates and stays separated to the trailing edge
+	// HeldUpper and HeldLower: transition held upstream of its e^N
+	// position (solver.CoupledSurface.TransitionHeld).
+	HeldUpper, HeldLower     bool
+	BubbleUpper, BubbleLower [2]float64 // laminar separation bubble from–to x/c; NaN, NaN for none
 }
 
 // Facts returns the point's verdict for model.Plausibility: past maximum
 // lift, not converged, and, when it converged, separated ahead of
 // SeparatedFromXC on some element.
 func (p *CoupledPoint) Facts() *model.ViscousFacts {
-	f := &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged}
+	f := &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged, TransitionHeld: p.Converged && p.Held()}
 	if p.Converged {
 		for _, e := range p.Elements {
 			f.Separated = f.Separated || separatedAhead(e.SeparationUpper, e.SeparationLower)
 		}
 	}
 	return f
+}
+
+// Held reports whether the point converged with transition held upstream
+// of its e^N position on some surface (solver.CoupledSurface.TransitionHeld).
+func (p *CoupledPoint) Held() bool {
+	for _, e := range p.Elements {
+		if e.HeldUpper || e.HeldLower {
+			return true
+		}
+	}
+	return false
 }
 
 // coupledPoint summarises a solver solution at the study angle alphaDeg.
@@ -91,6 +105,7 @@ func coupledPoint(alphaDeg float64, cs *solver.CoupledSolution) CoupledPoint {
 			ep.Cl, ep.Cd, ep.Cm = e.Cl, e.Cd, e.Cm
 			ep.TransitionUpper, ep.TransitionLower = e.Upper.Transition, e.Lower.Transition
 			ep.SeparationUpper, ep.SeparationLower = e.Upper.Separation, e.Lower.Separation
+			ep.HeldUpper, ep.HeldLower = e.Upper.TransitionHeld, e.Lower.TransitionHeld
 			if e.Upper.HasBubble {
 				ep.BubbleUpper = e.Upper.Bubble
 			}
@@ -293,19 +308,21 @@ func (e *Engine) coupledSweep(ctx context.Context, alphas []float64, opt solver.
 			progress(n+1, len(alphas))
 		}
 	}
-	// More chances for a row that did not converge: from each converged
-	// neighbour it was not started from (a row beyond a stall, say, that
-	// its lower neighbour could not reach but its upper one can), again
-	// while that makes new rows converge. Each row is tried at most once
-	// from each neighbour.
+	// More chances for a row that did not converge, or converged with its
+	// transition held upstream of its e^N position (Held): from each
+	// converged neighbour it was not started from (a row beyond a stall,
+	// say, that its lower neighbour could not reach but its upper one
+	// can), again while that makes new rows converge. Each row is tried at
+	// most once from each neighbour; a held row is replaced only by a
+	// solution that is not held.
 	for changed := true; changed; {
 		changed = false
 		for i := range rows {
-			if rows[i].Converged || rows[i].Note != "" {
+			if rows[i].Converged && !rows[i].Held() || rows[i].Note != "" {
 				continue
 			}
 			for _, j := range []int{i + 1, i - 1} {
-				if j < 0 || j >= len(rows) || !rows[j].Converged || tried[[2]int{i, j}] {
+				if j < 0 || j >= len(rows) || !rows[j].Converged || rows[j].Held() || tried[[2]int{i, j}] {
 					continue
 				}
 				tried[[2]int{i, j}] = true
@@ -317,7 +334,7 @@ func (e *Engine) coupledSweep(ctx context.Context, alphas []float64, opt solver.
 				if err != nil {
 					return nil, err
 				}
-				if p.Converged {
+				if p.Converged && !p.Held() {
 					rows[i], changed = p, true
 					break
 				}
