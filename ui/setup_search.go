@@ -46,6 +46,7 @@ type setupSearch struct {
 	apply     *widget.Button
 	pin       *widget.Button
 	applyMsg  *widget.Label
+	applyNote *widget.Label // what the workbench shows after an apply
 	trace     *figureBox
 	plane     *figureBox
 	planeCell *readoutBox
@@ -105,6 +106,8 @@ func newSetupSearch(s *setupWindow) *setupSearch {
 	p.pin = widget.NewButton("Pin the starting point", p.pinStart)
 	p.pin.Disable()
 	p.applyMsg = message()
+	p.applyNote = caption("")
+	p.applyNote.Hide()
 	p.trace = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(420, 300))
 	p.plane = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(420, 300))
 	p.readout = widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
@@ -126,7 +129,7 @@ func newSetupSearch(s *setupWindow) *setupSearch {
 			row("At most (solves)", p.budget),
 		)...)
 	result := container.NewVBox(heading("Best against start"), p.table,
-		container.NewGridWithColumns(2, p.apply, p.pin), p.applyMsg)
+		container.NewGridWithColumns(2, p.apply, p.pin), p.applyMsg, p.applyNote)
 	p.planeCell = newReadoutBox(p.plane, p.hoverPlane)
 	figs := container.NewGridWithColumns(2, newReadoutBox(p.trace, p.hoverTrace), p.planeCell)
 	p.content = container.NewBorder(nil, p.readout, side, nil, container.NewBorder(nil, result, nil, nil, figs))
@@ -299,6 +302,7 @@ func (p *setupSearch) begin(bounds []model.SetupRange, opt engine.SearchOptions,
 	}
 	p.cur = r
 	p.applyMsg.Hide()
+	p.applyNote.Hide()
 	do := p.s.w.do
 	p.launch(ctl.Activity(), func(ctx context.Context, gen int) {
 		res, err := runSearch(ctx, st, secs, bounds, opt, func(pt engine.Point) {
@@ -485,14 +489,51 @@ func (p *setupSearch) applyBest() {
 		err = ctl.Edit("", func(s *model.Study) { *s = *next })
 	}
 	setMessage(p.applyMsg, err)
+	p.applyNote.Hide()
+	if err == nil {
+		p.applyNote.SetText(appliedNote(r, next))
+		p.applyNote.Show()
+	}
 	p.syncButtons()
 	p.s.relayout()
 }
 
+// appliedNote says what was applied (undone by Edit ▸ Undo) and, when the
+// search's solution differs from the one the workbench runs for the
+// study, that the workbench's numbers are not the search's.
+func appliedNote(r *searchRun, st *model.Study) string {
+	var set []string
+	for i, v := range r.vars {
+		set = append(set, shortLabel(r.st, v)+" "+num(r.res.Best.Values[i])+" "+v.Unit())
+	}
+	note := "Applied " + strings.Join(set, ", ") + " (Edit ▸ Undo takes it back)."
+	coupled := st.Viscous.Enabled && st.Viscous.IsCoupled()
+	if r.res.Best.Viscous && !coupled {
+		note += " The search used the coupled viscous solution; the workbench solves the study with its own viscous setting, which is not the coupled solution, so its numbers differ from the search's: choose the coupled viscous solution in the Flow tab to compare them."
+	}
+	return note
+}
+
 // pinStart pins the study's current result, the starting point, for
-// comparison with the setting applied after it.
+// comparison with the setting applied after it, named as the search's
+// start.
 func (p *setupSearch) pinStart() {
-	setMessage(p.applyMsg, p.s.w.ctl.PinCurrent())
+	ctl := p.s.w.ctl
+	n := len(ctl.Current().Pins)
+	err := ctl.PinCurrent()
+	if r := p.cur; err == nil && r != nil && r.res != nil && len(ctl.Current().Pins) == n+1 {
+		// The pin was made at once (the result was there): its label
+		// names the start; a pin waiting for its result keeps the
+		// workbench's label.
+		var set []string
+		for i, v := range r.vars {
+			set = append(set, shortLabel(r.st, v)+" "+num(r.res.Start.Values[i])+" "+v.Unit())
+		}
+		if e := ctl.RenamePin(n, "search start, "+strings.Join(set, ", ")); e != nil {
+			err = fmt.Errorf("pinned, with the workbench's name (%v)", e)
+		}
+	}
+	setMessage(p.applyMsg, err)
 	p.s.relayout()
 }
 

@@ -224,8 +224,12 @@ func TestSetupSearchApplyAndPin(t *testing.T) {
 	}
 	test.Tap(p.pin)
 	w.WaitIdle()
-	if n := len(w.ctl.Study().Pins); n != len(before.Pins)+1 {
+	pins := w.ctl.Study().Pins
+	if n := len(pins); n != len(before.Pins)+1 {
 		t.Fatalf("%d pins after pinning the start, want %d", n, len(before.Pins)+1)
+	}
+	if got := pins[len(pins)-1].Label; got != "search start, flap deflection 15 °" || !p.applyMsg.Hidden {
+		t.Errorf("the start's pin is named %q (message %q), want it named the search's start", got, p.applyMsg.Text)
 	}
 	test.Tap(p.apply)
 	w.WaitIdle()
@@ -236,6 +240,9 @@ func TestSetupSearchApplyAndPin(t *testing.T) {
 	}
 	if !p.apply.Disabled() {
 		t.Error("Apply still enabled on the changed study")
+	}
+	if p.applyNote.Hidden || !strings.Contains(p.applyNote.Text, "Applied flap deflection") || !strings.Contains(p.applyNote.Text, "Undo") {
+		t.Errorf("after apply the note says %q", p.applyNote.Text)
 	}
 	w.ctl.Undo()
 	w.WaitIdle()
