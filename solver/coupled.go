@@ -140,7 +140,7 @@ func (s *System) SolveCoupled(ctx context.Context, alphaDeg float64, opt Coupled
 	if err != nil {
 		return nil, err
 	}
-	hi, err := s.solveStrategies(ctx, alphaDeg+nodeStepDeg, opt, nil, 0)
+	hi, err := s.acrossNode(ctx, alphaDeg+nodeStepDeg, opt, lo)
 	if err != nil {
 		return nil, err
 	}
@@ -179,6 +179,31 @@ func (s *System) SolveCoupled(ctx context.Context, alphaDeg float64, opt Coupled
 	mean.Iterations = iters
 	mean.Note = fmt.Sprintf("the stagnation point sat on a panel node: solved at %.2f° and %.2f° and their coefficients averaged; the boundary layers shown are those at %.2f°", alphaDeg-nodeStepDeg, alphaDeg+nodeStepDeg, alphaDeg+nodeStepDeg)
 	return &mean, nil
+}
+
+// acrossNode solves at alphaDeg, the node's other side from lo: first
+// straight from lo (the full coupling only, no continuation), then from
+// the march. From lo's layout the continuation failed after a hundred
+// iterations, while the iterations straight from it converge in a few
+// (NACA 0012 at 6.01° from 5.99°: 8 iterations, from the march 86).
+func (s *System) acrossNode(ctx context.Context, alphaDeg float64, opt CoupledOptions, lo *CoupledSolution) (*CoupledSolution, error) {
+	iters := 0
+	if lo.Converged && lo.state != nil {
+		for _, st := range strategyOrder(lo) {
+			o, err := s.cheapRoute(ctx, alphaDeg, opt, lo, 0, st, &iters)
+			if err != nil || o != nil {
+				if o != nil {
+					o.Iterations = iters
+				}
+				return o, err
+			}
+		}
+	}
+	out, err := s.solveStrategies(ctx, alphaDeg, opt, nil, 0)
+	if out != nil {
+		out.Iterations += iters
+	}
+	return out, err
 }
 
 // nodeStepDeg is the angle step of SolveCoupled's fallback when the
@@ -260,19 +285,37 @@ var strategies = []strategy{
 // solveStrategies solves with each of strategies in turn until one
 // converges, starting with the one that solved warm (a polar's
 // neighbouring angle) if any; the iterations of all attempts are counted.
-func (s *System) solveStrategies(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, halvings int) (*CoupledSolution, error) {
-	order := strategies
-	if warm != nil && warm.state != nil {
-		order = []strategy{warm.state.strategy}
-		for _, st := range strategies {
-			if st != warm.state.strategy {
-				order = append(order, st)
-			}
+// strategyOrder returns strategies, the one that solved warm (if any)
+// first.
+func strategyOrder(warm *CoupledSolution) []strategy {
+	if warm == nil || warm.state == nil {
+		return strategies
+	}
+	order := []strategy{warm.state.strategy}
+	for _, st := range strategies {
+		if st != warm.state.strategy {
+			order = append(order, st)
 		}
 	}
+	return order
+}
+
+func (s *System) solveStrategies(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, halvings int) (*CoupledSolution, error) {
+	order := strategyOrder(warm)
 	var out *CoupledSolution
 	iters := 0
+	cheap := warm != nil && warm.state != nil && s.sameElements(warm.state.sol.sys)
 	for _, st := range order {
+		if cheap {
+			o, err := s.cheapRoute(ctx, alphaDeg, opt, warm, halvings, st, &iters)
+			if err != nil {
+				return nil, err
+			}
+			if o != nil {
+				o.Iterations = iters
+				return o, nil
+			}
+		}
 		o, err := s.solveCoupled(ctx, alphaDeg, opt, warm, halvings, st)
 		if err != nil {
 			return nil, err
@@ -314,9 +357,38 @@ func (s *System) solveStrategies(ctx context.Context, alphaDeg float64, opt Coup
 	return out, nil
 }
 
+// cheapRoute tries, with strategy st, the cheap routes from warm before
+// solveStrategies turns to solveCoupled's costly ones (the continuation
+// from warm's layers, the start from the march): the full coupling
+// straight from warm (at most warmDirectIterations iterations), and,
+// failing that, with halvings left, the angle half way between reached
+// the same way and the angle from it. It returns the solution if one
+// converged, or nil; the iterations of every attempt are added to iters.
+// On a NACA 0012 polar (Re 6e6, tripped, 0.5° steps) the continuation
+// from the neighbour's layers took about 200 iterations to fail at ±10°
+// before the halving converged in 17.
+func (s *System) cheapRoute(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, halvings int, st strategy, iters *int) (*CoupledSolution, error) {
+	out, err := s.solveOnce(ctx, alphaDeg, opt, warm, warmDirect, false, st)
+	if err != nil {
+		return nil, err
+	}
+	*iters += out.Iterations
+	if out.Converged {
+		return out, nil
+	}
+	if halvings == 0 || math.Abs(alphaDeg-warm.AlphaDeg) <= minAlphaStep {
+		return nil, nil
+	}
+	mid, err := s.cheapRoute(ctx, 0.5*(alphaDeg+warm.AlphaDeg), opt, warm, halvings-1, st, iters)
+	if err != nil || mid == nil {
+		return nil, err
+	}
+	return s.cheapRoute(ctx, alphaDeg, opt, mid, halvings-1, st, iters)
+}
+
 func (s *System) solveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, halvings int, st strategy) (*CoupledSolution, error) {
 	if warm != nil && halvings > 0 && math.Abs(alphaDeg-warm.AlphaDeg) > minAlphaStep {
-		out, err := s.solveOnce(ctx, alphaDeg, opt, warm, false, st)
+		out, err := s.solveOnce(ctx, alphaDeg, opt, warm, warmBoth, false, st)
 		if err != nil || out.Converged {
 			return out, err
 		}
@@ -331,12 +403,12 @@ func (s *System) solveCoupled(ctx context.Context, alphaDeg float64, opt Coupled
 		}
 		warm = nil
 	}
-	return s.solveOnce(ctx, alphaDeg, opt, warm, true, st)
+	return s.solveOnce(ctx, alphaDeg, opt, warm, warmBoth, true, st)
 }
 
-// solveOnce solves at one angle from warm (if any) and, when that fails
-// and cold is set, from the march.
-func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, cold bool, st strategy) (*CoupledSolution, error) {
+// solveOnce solves at one angle from warm (if any; the steps of solveFrom
+// given) and, when that fails and cold is set, from the march.
+func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, steps warmSteps, cold bool, st strategy) (*CoupledSolution, error) {
 	s.checkAlpha(alphaDeg)
 	if len(opt.Re) != len(s.geo.elems) {
 		panic("solver: SolveCoupled: one Reynolds number per element needed")
@@ -357,7 +429,7 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	var res float64
 	if warm != nil && warm.state != nil && s.sameElements(warm.state.sol.sys) {
 		var ok bool
-		conv, iters, res, ok, err = cs.solveFrom(ctx, warm.state)
+		conv, iters, res, ok, err = cs.solveFrom(ctx, warm.state, steps)
 		if err != nil {
 			return nil, err
 		}

@@ -54,21 +54,38 @@ func (cs *coupledState) sibling(opt CoupledOptions) *coupledState {
 // from w's state, which converges in a few iterations when w is close;
 // failing that, a continuation from w's boundary layers, which solve
 // their own equations on w's edge velocities. ok is false (and nothing
-// was done) when w's layout cannot be carried over (warmFrom).
-func (cs *coupledState) solveFrom(ctx context.Context, w *coupledState) (conv bool, iters int, res float64, ok bool, err error) {
+// was done) when w's layout cannot be carried over (warmFrom). steps
+// says which of the two it tries.
+func (cs *coupledState) solveFrom(ctx context.Context, w *coupledState, steps warmSteps) (conv bool, iters int, res float64, ok bool, err error) {
 	if !cs.warmFrom(w) {
 		return false, 0, math.Inf(1), false, nil
 	}
-	snap := cs.snapshot()
-	conv, iters, res, err = cs.iterate(ctx, warmDirectIterations, tolerance(cs.opt))
-	if err != nil || conv {
-		return conv, iters, res, true, err
+	if steps&warmDirect != 0 {
+		var snap snapshot
+		if steps&warmContinuation != 0 {
+			snap = cs.snapshot()
+		}
+		conv, iters, res, err = cs.iterate(ctx, warmDirectIterations, tolerance(cs.opt))
+		if err != nil || conv || steps&warmContinuation == 0 {
+			return conv, iters, res, true, err
+		}
+		cs.restore(snap)
 	}
-	cs.restore(snap)
 	var n int
 	conv, n, res, err = cs.solve(ctx, cs.warmUe)
 	return conv, iters + n, res, true, err
 }
+
+// warmSteps selects the parts of solveFrom: the full coupling straight
+// from the neighbour's state, the continuation from its layers, or both
+// in turn.
+type warmSteps int
+
+const (
+	warmDirect warmSteps = 1 << iota
+	warmContinuation
+	warmBoth = warmDirect | warmContinuation
+)
 
 // tripLadder solves cs's problem (free transition on at least one side)
 // through the trip ladder (see above). It returns the state of the free
@@ -122,7 +139,7 @@ func (cs *coupledState) ladder(ctx context.Context, free [2]bool, trip [2]float6
 		return nil, false, iters, res, nil
 	}
 	f := cs.sibling(cs.opt)
-	c, n, r, _, err := f.solveFrom(ctx, prev)
+	c, n, r, _, err := f.solveFrom(ctx, prev, warmBoth)
 	iters += n
 	if err != nil {
 		return nil, false, iters, r, err
@@ -158,7 +175,7 @@ func (cs *coupledState) rung(ctx context.Context, opt CoupledOptions, prev *coup
 			t.strategy = st
 			var n int
 			if fromPrev {
-				conv, n, res, _, err = t.solveFrom(ctx, prev)
+				conv, n, res, _, err = t.solveFrom(ctx, prev, warmBoth)
 			} else {
 				conv, n, res, err = t.solve(ctx, t.march())
 			}

@@ -4,9 +4,6 @@ import (
 	"context"
 	"math"
 
-	"gonum.org/v1/gonum/blas/blas64"
-	"gonum.org/v1/gonum/lapack/lapack64"
-
 	bl "sectionbench/solver/boundarylayer"
 )
 
@@ -529,7 +526,7 @@ type newtonWork struct {
 	mm       []float64
 	bm       []float64
 	w        []float64 // W, three rows of n
-	ipiv     []int
+	dm       dmSolver
 	dc, dth  []float64
 	c0, t0   []float64
 	m0       []float64
@@ -557,7 +554,7 @@ func (w *newtonWork) size(n int) {
 	}
 	*w = newtonWork{
 		n: n, p: make([][2]float64, n), q: make([]float64, 2*n*n), mm: make([]float64, n*n),
-		bm: make([]float64, n), w: make([]float64, 3*n), ipiv: make([]int, n), dc: make([]float64, n), dth: make([]float64, n),
+		bm: make([]float64, n), w: make([]float64, 3*n), dm: w.dm, dc: make([]float64, n), dth: make([]float64, n),
 		c0: make([]float64, n), t0: make([]float64, n), m0: make([]float64, n), ev: make([]stationEval, n),
 	}
 }
@@ -720,11 +717,9 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 		wk.residual = math.Inf(1)
 	}
 	// Solve the Δm system.
-	a := blas64.General{Rows: n, Cols: n, Stride: n, Data: mm}
-	if !lapack64.Getrf(a, wk.ipiv) {
+	if !wk.dm.solve(mm, n, bm) {
 		return nil, nil, nil, false
 	}
-	luSolve(mm, n, wk.ipiv, bm)
 	dm = bm
 	dc, dth = wk.dc, wk.dth
 	for i := range n {
