@@ -94,7 +94,11 @@ type CoupledSolution struct {
 	Note     string
 	Inviscid *Solution
 
-	state *coupledState // for warm starts
+	state    *coupledState // for warm starts
+	attempts *attempts     // the attempts made from it (solveOnce)
+	// warmRejected: the iterations from the warm start met the
+	// tolerance on an implausible solution (solveOnce).
+	warmRejected bool
 }
 
 // SolveCoupled solves the coupled viscous–inviscid flow at angle alphaDeg
@@ -418,13 +422,35 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 			panic("solver: SolveCoupled: Reynolds numbers must be positive and finite")
 		}
 	}
+	var memo *attempts
+	if warm != nil {
+		memo = warm.attempts
+	}
+	key := newAttemptKey(s, alphaDeg, opt, st, steps, cold)
+	if r, ok := memo.get(key); ok {
+		return r, nil
+	}
+	if steps == warmBoth {
+		// The iterations straight from warm, made before on their own
+		// (cheapRoute): converged, this attempt ends as they did;
+		// failed (not met on an implausible solution, which ends the
+		// warm part too), it goes on with the continuation.
+		if r, ok := memo.get(newAttemptKey(s, alphaDeg, opt, st, warmDirect, false)); ok {
+			if r.Converged {
+				return r, nil
+			}
+			if !r.warmRejected && r.Rejected == "" {
+				steps = warmContinuation
+			}
+		}
+	}
 	flow, err := s.coupledFlowAt(alphaDeg)
 	if err != nil {
 		return nil, err
 	}
 	cs := stateOn(flow, opt)
 	cs.strategy = st
-	var conv bool
+	var conv, warmRejected bool
 	var iters int
 	var res float64
 	if warm != nil && warm.state != nil && s.sameElements(warm.state.sol.sys) {
@@ -435,6 +461,7 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 		}
 		if ok && conv && implausible(cs.result()) != "" {
 			conv = false // try from the march
+			warmRejected = true
 		}
 	}
 	if !conv && (cold || iters == 0) {
@@ -456,6 +483,8 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 			out.Converged, out.Rejected = false, why
 		}
 	}
+	out.attempts, out.warmRejected = &attempts{}, warmRejected
+	memo.put(key, out)
 	return out, nil
 }
 
