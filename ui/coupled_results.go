@@ -28,9 +28,9 @@ func coupledState(res *engine.Result) string {
 	case c.Note != "":
 		return "no viscous solution: " + firstLine(c.Note)
 	case !c.Converged:
-		return fmt.Sprintf("viscous solution not converged after %d iterations", c.Iterations)
+		return fmt.Sprintf("viscous solution not converged after %d iteration%s", c.Iterations, plural(c.Iterations))
 	}
-	return fmt.Sprintf("viscous solution converged in %d iterations", c.Iterations)
+	return fmt.Sprintf("viscous solution converged in %d iteration%s", c.Iterations, plural(c.Iterations))
 }
 
 // coupledStatusItems summarises a coupled result in order of importance:

@@ -349,6 +349,9 @@ func convergenceWords(c *engine.CoupledPoint) string {
 	case c.Note != "":
 		return "FAILED: " + c.Note
 	case c.Converged:
+		if c.Iterations == 1 {
+			return fmt.Sprintf("converged in 1 iteration (residual %.1e)", c.Residual)
+		}
 		return fmt.Sprintf("converged in %d iterations (residual %.1e)", c.Iterations, c.Residual)
 	}
 	return fmt.Sprintf("NOT CONVERGED after %d iterations (residual %.1e): its numbers are not an answer", c.Iterations, c.Residual)

@@ -222,7 +222,7 @@ func (r *writer) resultsSection() {
 	if c := r.in.Coupled; c != nil {
 		r.need(tableHeight(len(c.Elements)) + 15)
 		r.subheading("Viscous solution (coupled)")
-		state := fmt.Sprintf("Converged in %d iterations: Cl %s, Cd %s on the reference chord (inviscid Cl %s beside it).", c.Iterations, Coef(c.Cl), Coef(c.Cd), Coef(res.Solution.Cl))
+		state := fmt.Sprintf("Converged in %d %s: Cl %s, Cd %s on the reference chord (inviscid Cl %s beside it).", c.Iterations, plural(c.Iterations, "iteration", "iterations"), Coef(c.Cl), Coef(c.Cd), Coef(res.Solution.Cl))
 		if !c.Converged {
 			state = fmt.Sprintf("Did not converge (%d iterations): no viscous numbers at this angle; the inviscid ones above are for orientation only.", c.Iterations)
 		}

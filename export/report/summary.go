@@ -309,7 +309,7 @@ func (r *writer) confidence(h headline) [][2]string {
 	conv := "not applicable: potential flow (a direct solve)"
 	switch c := r.in.Coupled; {
 	case c != nil && c.Converged:
-		conv = fmt.Sprintf("yes, the coupled viscous solution converged in %d iterations", c.Iterations)
+		conv = fmt.Sprintf("yes, the coupled viscous solution converged in %d %s", c.Iterations, plural(c.Iterations, "iteration", "iterations"))
 	case c != nil:
 		conv = fmt.Sprintf("NO: the coupled viscous solution did not converge (%d iterations); its numbers are not an answer", c.Iterations)
 	case res.Viscous != nil:
