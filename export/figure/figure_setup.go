@@ -38,7 +38,10 @@ type SetupCurve struct {
 	// NaN for none; Onset is where separation sets in (a labelled vertical
 	// line), NaN for none.
 	Current, Onset float64
-	OnsetLabel     string
+	// OnsetLabel says where separation sets in, in words (for captions);
+	// OnsetShort is the figure's label of the line (OnsetLabel when
+	// empty).
+	OnsetLabel, OnsetShort string
 }
 
 // ErrNoSetupData is the set-up figures' error when there is nothing to
@@ -125,14 +128,21 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		}
 		k.add(fmt.Sprintf("no answer (%d of %d)", len(failed), len(pts)), b)
 	}
+	// The lines' labels go below the key's height, so that a key in a top
+	// corner does not hide them.
+	below := 2*keyPad + k.text.Height("Xg")*1.25*vg.Length(len(k.entries)) + keyMargin
 	if !math.IsNaN(c.Onset) {
-		r := &refLine{value: c.Onset, vertical: true, style: lineStyle(th.lower, widthNormal, dashRef), label: c.OnsetLabel, labelSty: noteStyle(th, th.lower, 8, text.XLeft, text.YTop)}
+		label := c.OnsetShort
+		if label == "" {
+			label = c.OnsetLabel
+		}
+		r := &refLine{value: c.Onset, vertical: true, style: lineStyle(th.lower, widthNormal, dashRef), label: label, labelSty: noteStyle(th, th.lower, 8, text.XLeft, text.YTop), drop: below}
 		p.Add(r)
 		ext.x0, ext.x1 = math.Min(ext.x0, c.Onset), math.Max(ext.x1, c.Onset)
 	}
 	if !math.IsNaN(c.Current) {
 		k.keep(plotter.XYs{{X: c.Current, Y: ext.y1}})
-		p.Add(&refLine{value: c.Current, vertical: true, style: lineStyle(th.accent, widthThin, nil), label: "study", labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop), drop: vg.Points(11)})
+		p.Add(&refLine{value: c.Current, vertical: true, style: lineStyle(th.accent, widthThin, nil), label: "study", labelSty: noteStyle(th, th.accent, 8, text.XLeft, text.YTop), drop: below + vg.Points(11)})
 	}
 	if ext.y0 > ext.y1 { // only crosses
 		ext.y0, ext.y1 = 0, 1
@@ -142,7 +152,7 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 	if n := len(k.entries); n > 1 {
 		// Room above the data for a key of several entries, which would
 		// otherwise cover points of a small figure (the app's cells):
-		// about a tenth of the axis per entry beyond the first.
+		// about a sixth of the axis per entry beyond the first.
 		p.Y.Max += (p.Y.Max - p.Y.Min) * keyRoomPerEntry * float64(n-1)
 	}
 	p.Add(k)
@@ -151,7 +161,7 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 
 // keyRoomPerEntry is the fraction of a set-up curve's y range added
 // above the data for each key entry beyond the first.
-const keyRoomPerEntry = 0.12
+const keyRoomPerEntry = 0.16
 
 // SetupGrid is one quantity over two set-up variables: Z[i][j] at X[i]
 // and Y[j] (NaN where the point has no value). With Z nil it is only the

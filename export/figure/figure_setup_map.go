@@ -63,6 +63,7 @@ func MapCurve(st *model.Study, v model.SetupVariable, points []engine.Point, q e
 	}
 	if !math.IsNaN(c.Onset) {
 		c.OnsetLabel = fmt.Sprintf("separation ahead of x/c %s from %s %s", strconv.FormatFloat(limit, 'g', 3, 64), strconv.FormatFloat(c.Onset, 'g', 4, 64), v.Unit())
+		c.OnsetShort = fmt.Sprintf("separation from %s %s", strconv.FormatFloat(c.Onset, 'g', 4, 64), v.Unit())
 	}
 	return c
 }
