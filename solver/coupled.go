@@ -393,21 +393,45 @@ func (s *System) cheapRoute(ctx context.Context, alphaDeg float64, opt CoupledOp
 func (s *System) solveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, halvings int, st strategy) (*CoupledSolution, error) {
 	if warm != nil && halvings > 0 && math.Abs(alphaDeg-warm.AlphaDeg) > minAlphaStep {
 		out, err := s.solveOnce(ctx, alphaDeg, opt, warm, warmBoth, false, st)
-		if err != nil || out.Converged {
+		if err != nil || out.Converged && !out.held() {
 			return out, err
+		}
+		// Not converged, or converged with transition held upstream of
+		// its e^N position (kept, should the half steps do no better).
+		var held *CoupledSolution
+		if out.Converged {
+			held = out
 		}
 		mid, err := s.solveCoupled(ctx, 0.5*(alphaDeg+warm.AlphaDeg), opt, warm, halvings-1, st)
 		if err != nil {
 			return nil, err
 		}
-		if mid.Converged {
+		if mid.Converged && !mid.held() {
 			// Its last resort is the start from the march below, which
 			// would only repeat it.
-			return s.solveCoupled(ctx, alphaDeg, opt, mid, halvings-1, st)
+			out, err := s.solveCoupled(ctx, alphaDeg, opt, mid, halvings-1, st)
+			if err == nil && held != nil && (!out.Converged || out.held()) {
+				return held, nil
+			}
+			return out, err
+		}
+		if held != nil {
+			return held, nil
 		}
 		warm = nil
 	}
 	return s.solveOnce(ctx, alphaDeg, opt, warm, warmBoth, true, st)
+}
+
+// held reports whether transition is held upstream of its e^N position
+// on some surface (CoupledSurface.TransitionHeld).
+func (c *CoupledSolution) held() bool {
+	for _, e := range c.Elements {
+		if e.Upper.TransitionHeld || e.Lower.TransitionHeld {
+			return true
+		}
+	}
+	return false
 }
 
 // solveOnce solves at one angle from warm (if any; the steps of solveFrom

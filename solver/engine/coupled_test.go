@@ -141,8 +141,8 @@ func TestEngineCoupledSweep(t *testing.T) {
 // again from a neighbour that is not), and no step of the lift curve
 // away from the mean by more than a quarter (a smooth lift curve in the
 // attached range, common practice). Beyond 8° the lower surface's
-// laminar separation at the trailing edge ends and the slope halves (a
-// change of the flow, not a jump), and 8° itself stays held: flagged.
+// laminar separation at the trailing edge shrinks and the slope halves
+// (a change of the flow, not a jump).
 func TestEngineCoupledSweepReleasesHeld(t *testing.T) {
 	if testing.Short() {
 		t.Skip("long coupled sweep: run without -short (the race pass uses -short)")
