@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"context"
 	"math"
 	"testing"
 )
@@ -59,5 +60,26 @@ func TestExampleTwoElementSweep(t *testing.T) {
 		if math.Abs(rise[i]-mean) > 0.15*mean {
 			t.Errorf("the downforce's rise from %g° to %g° is %.4f, against %.4f and %.4f either side: not smooth", rows[i].AlphaDeg, rows[i+1].AlphaDeg, rise[i], rise[i-1], rise[i+1])
 		}
+	}
+}
+
+// The sweep the app runs when it opens the two-element example (its point
+// at 3° and the coupled sweep from −4° to 10°, each angle in ground effect
+// a system of its own). Measured at 06:30 UTC under light load: 8.6 s,
+// 15 of 15 rows converged.
+func BenchmarkExampleTwoElementSweep(b *testing.B) {
+	st, secs := exampleStudy(b, "two-element-ground.json")
+	for b.Loop() {
+		res, err := NewEngine().Run(context.Background(), Request{Study: st, Sections: secs, Sweep: true})
+		if err != nil {
+			b.Fatal(err)
+		}
+		n := 0
+		for _, r := range res.SweepCoupled {
+			if r.Converged {
+				n++
+			}
+		}
+		b.ReportMetric(float64(n), "converged-rows")
 	}
 }
