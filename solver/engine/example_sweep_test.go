@@ -65,7 +65,7 @@ func TestExampleTwoElementSweep(t *testing.T) {
 
 // The sweep the app runs when it opens the two-element example (its point
 // at 3° and the coupled sweep from −4° to 10°, each angle in ground effect
-// a system of its own). Measured at 06:30 UTC under light load: 8.6 s,
+// a system of its own). Measured at 06:27 UTC under light load: 8.6 s,
 // 15 of 15 rows converged.
 func BenchmarkExampleTwoElementSweep(b *testing.B) {
 	st, secs := exampleStudy(b, "two-element-ground.json")
