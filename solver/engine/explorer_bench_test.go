@@ -2,6 +2,7 @@ package engine
 
 import (
 	"context"
+	"runtime"
 	"testing"
 
 	"sectionbench/model"
@@ -55,4 +56,62 @@ func BenchmarkSearchThreeVariables(b *testing.B) {
 	}
 	b.ReportMetric(float64(evals), "solves")
 	b.ReportMetric(float64(feasible), "feasible")
+}
+
+// The memory a viscous map of the invented two-element example holds
+// while it runs: a one-variable map (clearance 40–200 mm in 10 mm at 3°,
+// 17 points, which keeps every converged solution until it ends, for the
+// rescue of the points after it) and a two-variable one (clearance
+// 40–120 mm in 20 mm against α 0°–4° in 1°, 25 points, which drops a
+// row's solutions once it and the next row are done). After each point
+// the benchmark collects the garbage and reads runtime.MemStats: it
+// reports the largest live heap seen (live-heap-peak-MB), the live heap
+// the map added at its end (results only, live-heap-end-MB) and all
+// bytes allocated per map (allocated-MB). Run once: -bench MapMemory
+// -benchtime 1x.
+func BenchmarkMapMemory(b *testing.B) {
+	st, secs := exampleStudy(b, "two-element-ground.json")
+	for _, bc := range []struct {
+		name   string
+		ranges []model.SetupRange
+	}{
+		{"one variable, 17 points", []model.SetupRange{mustRange(b, "clearance_mm=40:200:10")}},
+		{"two variables, 5 by 5", []model.SetupRange{mustRange(b, "clearance_mm=40:120:20"), mustRange(b, "alpha_deg=0:4:1")}},
+	} {
+		b.Run(bc.name, func(b *testing.B) {
+			const mb = 1 << 20
+			var peak, end, alloc float64
+			var conv int
+			for b.Loop() {
+				var ms runtime.MemStats
+				runtime.GC()
+				runtime.ReadMemStats(&ms)
+				base, total := ms.HeapAlloc, ms.TotalAlloc
+				peak = 0
+				pts, err := Map(context.Background(), st, secs, bc.ranges, MapOptions{}, nil, func(Point) {
+					var m runtime.MemStats
+					runtime.GC()
+					runtime.ReadMemStats(&m)
+					peak = max(peak, float64(m.HeapAlloc)-float64(base))
+				})
+				if err != nil {
+					b.Fatal(err)
+				}
+				runtime.GC()
+				runtime.ReadMemStats(&ms)
+				end, alloc = (float64(ms.HeapAlloc)-float64(base))/mb, float64(ms.TotalAlloc-total)/mb
+				conv = 0
+				for _, p := range pts {
+					if p.Converged {
+						conv++
+					}
+				}
+				runtime.KeepAlive(pts)
+			}
+			b.ReportMetric(peak/mb, "live-heap-peak-MB")
+			b.ReportMetric(end, "live-heap-end-MB")
+			b.ReportMetric(alloc, "allocated-MB")
+			b.ReportMetric(float64(conv), "converged-points")
+		})
+	}
 }
