@@ -60,16 +60,38 @@ type CoupledElementPoint struct {
 }
 
 // Facts returns the point's verdict for model.Plausibility: past maximum
-// lift, not converged, and, when it converged, separated ahead of
-// SeparatedFromXC on some element.
+// lift, not converged, transition held, and, when it converged, separated
+// on some element (suctionSeparated).
 func (p *CoupledPoint) Facts() *model.ViscousFacts {
 	f := &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged, TransitionHeld: p.Converged && p.Held()}
 	if p.Converged {
 		for _, e := range p.Elements {
-			f.Separated = f.Separated || separatedAhead(e.SeparationUpper, e.SeparationLower)
+			f.Separated = f.Separated || e.suctionSeparated()
 		}
 	}
 	return f
+}
+
+// PressureSideSeparatedFromXC: a pressure side counts as separated
+// (suctionSeparated) when it separates ahead of this x/c, over half its
+// chord: the negative stall of a cambered section at a low angle. At the
+// team's Reynolds numbers a pressure side's laminar layer often leaves
+// the last fifth of the chord without turning turbulent (NACA 0012 at
+// Re 3e5 and 3–5°: separated from x/c 0.84–0.93 in the coupled solution,
+// with a little more lift than the inviscid solution, not less), which
+// is no stall.
+const PressureSideSeparatedFromXC = 0.5
+
+// suctionSeparated reports whether the element's suction side — the
+// upper surface as mounted where it lifts upwards (Cl > 0), the lower
+// where it pushes down — separates ahead of SeparatedFromXC, or its
+// pressure side ahead of PressureSideSeparatedFromXC.
+func (e *CoupledElementPoint) suctionSeparated() bool {
+	suction, pressure := e.SeparationUpper, e.SeparationLower
+	if e.Cl < 0 {
+		suction, pressure = pressure, suction
+	}
+	return suction < SeparatedFromXC || pressure < PressureSideSeparatedFromXC
 }
 
 // Held reports whether the point converged with transition held upstream

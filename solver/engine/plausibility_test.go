@@ -83,3 +83,32 @@ func TestRowFlags(t *testing.T) {
 		})
 	}
 }
+
+// The separated flag looks at the suction side (the upper surface as
+// mounted of an element lifting upwards, the lower of one pushing down)
+// from SeparatedFromXC and at the pressure side only from
+// PressureSideSeparatedFromXC: a laminar layer leaving the last fifth of
+// a pressure side at low Reynolds numbers is no stall.
+func TestCoupledSeparatedSuctionSide(t *testing.T) {
+	nan := math.NaN()
+	for _, tc := range []struct {
+		name         string
+		cl, up, low  float64
+		wantSeparate bool
+	}{
+		{"attached", 0.5, nan, nan, false},
+		{"upright, suction side from 0.8", 0.5, 0.8, nan, true},
+		{"upright, pressure side from 0.85", 0.5, nan, 0.85, false},
+		{"upright, pressure side from 0.4", 0.5, nan, 0.4, true},
+		{"inverted, suction side from 0.8", -1.2, nan, 0.8, true},
+		{"inverted, pressure side from 0.85", -1.2, 0.85, nan, false},
+		{"suction side at the trailing edge only", 0.5, 0.95, nan, false},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			p := CoupledPoint{Converged: true, Elements: []CoupledElementPoint{{Cl: tc.cl, SeparationUpper: tc.up, SeparationLower: tc.low}}}
+			if got := p.Facts().Separated; got != tc.wantSeparate {
+				t.Errorf("separated %v, want %v", got, tc.wantSeparate)
+			}
+		})
+	}
+}
