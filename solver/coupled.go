@@ -195,11 +195,11 @@ func (s *System) acrossNode(ctx context.Context, alphaDeg float64, opt CoupledOp
 	if lo.Converged && lo.state != nil {
 		for _, st := range strategyOrder(lo) {
 			o, err := s.cheapRoute(ctx, alphaDeg, opt, lo, 0, st, &iters)
-			if err != nil || o != nil {
-				if o != nil {
-					o.Iterations = iters
-				}
-				return o, err
+			if err != nil {
+				return nil, err
+			}
+			if o != nil {
+				return s.finish(ctx, o, iters)
 			}
 		}
 	}
@@ -316,8 +316,8 @@ func (s *System) solveStrategies(ctx context.Context, alphaDeg float64, opt Coup
 				return nil, err
 			}
 			if o != nil {
-				o.Iterations = iters
-				return o, nil
+				out = o
+				break
 			}
 		}
 		o, err := s.solveCoupled(ctx, alphaDeg, opt, warm, halvings, st)
@@ -332,6 +332,13 @@ func (s *System) solveStrategies(ctx context.Context, alphaDeg float64, opt Coup
 			break
 		}
 	}
+	return s.finish(ctx, out, iters)
+}
+
+// finish completes solveStrategies' answer out, with iters iterations
+// spent on it: when it did not converge, the trip ladder; when it did,
+// the release of transition held upstream.
+func (s *System) finish(ctx context.Context, out *CoupledSolution, iters int) (*CoupledSolution, error) {
 	if !out.Converged && out.state != nil && out.state.freeSides() != [2]bool{} {
 		// No strategy converged from the march (a laminar separation
 		// bubble, most often): the trip ladder reaches the free
