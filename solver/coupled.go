@@ -374,7 +374,8 @@ func (s *System) finish(ctx context.Context, out *CoupledSolution, iters int) (*
 // straight from warm (at most warmDirectIterations iterations), and,
 // failing that, with halvings left, the angle half way between reached
 // the same way and the angle from it. It returns the solution if one
-// converged, or nil; the iterations of every attempt are added to iters.
+// converged with no transition held (CoupledSolution.held), or nil; the
+// iterations of every attempt are added to iters.
 // On a NACA 0012 polar (Re 6e6, tripped, 0.5° steps) the continuation
 // from the neighbour's layers took about 200 iterations to fail at ±10°
 // before the halving converged in 17.
@@ -384,9 +385,12 @@ func (s *System) cheapRoute(ctx context.Context, alphaDeg float64, opt CoupledOp
 		return nil, err
 	}
 	*iters += out.Iterations
-	if out.Converged {
+	if out.Converged && !out.held() {
 		return out, nil
 	}
+	// Not converged, or with transition held upstream of its e^N
+	// position, which solveCoupled's halving may do better on: the
+	// cheap halving, then (nil) the costly routes.
 	if halvings == 0 || math.Abs(alphaDeg-warm.AlphaDeg) <= minAlphaStep {
 		return nil, nil
 	}
