@@ -394,7 +394,7 @@ func (cs *coupledState) restagnate() bool {
 // speed, searched from the present one, and its position, which it
 // stores in sStag. It reports whether any left its panel.
 func (cs *coupledState) coupledSplits() ([]int, bool) {
-	ue := cs.ue()
+	ue := cs.ueIterated()
 	g := make([]float64, cs.geo.n)
 	for i := range cs.st {
 		s := &cs.st[i]

@@ -375,7 +375,7 @@ func diverging(res float64, grown *int, prev float64) bool {
 // where the upper layer leaves the trailing edge separated with H 11).
 func (cs *coupledState) speedStep(dm []float64) (ue, du []float64) {
 	n := len(cs.st)
-	ue = cs.ue()
+	ue = cs.ueIterated()
 	coup := cs.coupling()
 	du = make([]float64, n)
 	for i := range n {
@@ -531,6 +531,7 @@ type newtonWork struct {
 	c0, t0   []float64
 	m0       []float64
 	ev       []stationEval
+	speeds   speedCache
 	residual float64 // 2-norm of the residuals at the state of the last newtonStep
 }
 
@@ -555,7 +556,7 @@ func (w *newtonWork) size(n int) {
 	*w = newtonWork{
 		n: n, p: make([][2]float64, n), q: make([]float64, 2*n*n), mm: make([]float64, n*n),
 		bm: make([]float64, n), w: make([]float64, 3*n), dm: w.dm, dc: make([]float64, n), dth: make([]float64, n),
-		c0: make([]float64, n), t0: make([]float64, n), m0: make([]float64, n), ev: make([]stationEval, n),
+		c0: make([]float64, n), t0: make([]float64, n), m0: make([]float64, n), ev: make([]stationEval, n), speeds: w.speeds,
 	}
 }
 

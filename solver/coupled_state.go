@@ -487,7 +487,7 @@ const nearStagnationStations = 3
 // ñ reached NCrit at 13° and the iterations failed. Scaled with ref's
 // coupled speed the speeds rise to it as the inviscid ones do.
 func (cs *coupledState) ueLayers() []float64 {
-	out := cs.ue()
+	out := cs.ueIterated()
 	for i := range cs.st {
 		if s := &cs.st[i]; s.nearStagnation && s.ref >= 0 {
 			out[i] = s.refFactor * out[s.ref]
