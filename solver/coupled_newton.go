@@ -380,10 +380,12 @@ func (cs *coupledState) speedStep(dm []float64) (ue, du []float64) {
 	du = make([]float64, n)
 	for i := range n {
 		d := cs.d[i*n : (i+1)*n]
+		d = d[:len(dm)]
+		s := 0.0
 		for j, v := range dm {
-			du[i] += d[j] * v
+			s += d[j] * v
 		}
-		du[i] *= coup
+		du[i] = s * coup
 	}
 	return ue, du
 }
@@ -658,9 +660,7 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 				we := w[e*n : (e+1)*n]
 				we[j] += jac[qq][2][e]
 				if a := coup * f * jac[qq][3][e]; a != 0 {
-					for c, dv := range drow {
-						we[c] += a * dv
-					}
+					axpy(a, drow, we) // we[c] += a·drow[c], as the loop it replaced
 				}
 			}
 		}
@@ -673,6 +673,7 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 				we := w[e*n : (e+1)*n]
 				q0 := q[(2*j)*n : (2*j+1)*n]
 				q1 := q[(2*j+1)*n : (2*j+2)*n]
+				q0, q1 = q0[:len(we)], q1[:len(we)]
 				for c := range we {
 					we[c] -= b0*q0[c] + b1*q1[c]
 				}
@@ -691,6 +692,7 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 		}
 		row := mm[i*n : (i+1)*n]
 		w0, w1, w2 := w[:n], w[n:2*n], w[2*n:3*n]
+		w0, w1, w2 = w0[:len(row)], w1[:len(row)], w2[:len(row)]
 		for c := range row {
 			row[c] += z[0]*w0[c] + z[1]*w1[c] + z[2]*w2[c]
 		}
@@ -708,6 +710,7 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 		for r := range 2 {
 			p[i][r] = pin[r][0]*rhs[0] + pin[r][1]*rhs[1] + pin[r][2]*rhs[2]
 			qr := q[(2*i+r)*n : (2*i+r+1)*n]
+			qr = qr[:len(w0)]
 			for c := range qr {
 				qr[c] = pin[r][0]*w0[c] + pin[r][1]*w1[c] + pin[r][2]*w2[c]
 			}
@@ -726,6 +729,7 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 	for i := range n {
 		q0 := q[(2*i)*n : (2*i+1)*n]
 		q1 := q[(2*i+1)*n : (2*i+2)*n]
+		q0, q1 = q0[:len(dm)], q1[:len(dm)]
 		s0, s1 := p[i][0], p[i][1]
 		for c, v := range dm {
 			s0 -= q0[c] * v

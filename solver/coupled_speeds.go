@@ -35,6 +35,7 @@ func (cs *coupledState) ueIterated() []float64 {
 		for i := range n {
 			v := cs.ue0[i]
 			d := cs.d[i*n : (i+1)*n]
+			d = d[:len(cs.m)]
 			for j, mj := range cs.m {
 				v += d[j] * mj
 			}
