@@ -188,7 +188,8 @@ func (s setupGridXYZ) X(c int) float64    { return s.g.X[c] }
 func (s setupGridXYZ) Y(r int) float64    { return s.g.Y[r] }
 
 // SetupGridPlot draws a SetupGrid as a filled map in a sequential
-// palette (Kindlmann's, from gonum/plot) with contour lines, a key of the
+// palette (Kindlmann's, from gonum/plot) with contour lines when every
+// cell has a value, a key of the
 // palette's values, separated cells hatched, cells without an answer
 // greyed and crossed, cells that converged only from a neighbour with a
 // box at their centre, and the search's path, start and best point when
@@ -229,6 +230,7 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 		cm.SetMax(hi)
 		pal := cm.Palette(64)
 		data := &SetupGrid{X: g.X, Y: g.Y, Z: make([][]float64, len(g.X))}
+		complete := true // every cell has a value
 		for i := range g.Z {
 			data.Z[i] = make([]float64, len(g.Y))
 			for j, v := range g.Z[i] {
@@ -236,12 +238,18 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 					v = math.NaN()
 				}
 				data.Z[i][j] = v
+				complete = complete && !math.IsNaN(v)
 			}
 		}
 		hm := plotter.NewHeatMap(setupGridXYZ{data}, pal)
 		hm.Min, hm.Max = lo, hi
 		hm.NaN = color.Transparent
 		p.Add(hm)
+		// gonum's contouring runs stray lines through cells without a
+		// value (a map still streaming in, or points without an answer):
+		// it contours the grid with each such cell given its nearest
+		// value instead, and cellMarks then covers those cells, so lines
+		// show over cells with a value only.
 		if len(g.X) > 1 && len(g.Y) > 1 {
 			var levels []float64
 			for _, t := range (niceTicks{}).Ticks(lo, hi) {
@@ -250,7 +258,11 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 				}
 			}
 			if len(levels) > 0 {
-				ct := plotter.NewContour(setupGridXYZ{data}, levels, nil)
+				filled := data
+				if !complete {
+					filled = &SetupGrid{X: g.X, Y: g.Y, Z: nearestFilled(data.Z)}
+				}
+				ct := plotter.NewContour(setupGridXYZ{filled}, levels, nil)
 				ct.LineStyles = []draw.LineStyle{lineStyle(fade(th.fg, 150), widthThin, nil)}
 				p.Add(ct)
 			}
@@ -266,7 +278,7 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 		}
 	}
 	if g.Z != nil {
-		p.Add(&cellMarks{g: &g, hatch: fade(th.fg, 200), fail: fade(th.faint, 170), cross: th.accent, box: th.accent})
+		p.Add(&cellMarks{g: &g, bg: th.bg, hatch: fade(th.fg, 200), fail: fade(th.faint, 170), cross: th.accent, box: th.accent})
 	}
 	if anyTrue(g.Separated) {
 		k.add("suction side separated (hatched)", hatchThumb{fade(th.fg, 200)})
@@ -321,6 +333,32 @@ func anyTrue(cells [][]bool) bool {
 	return false
 }
 
+// nearestFilled returns z with each NaN replaced by the value of the
+// nearest cell that has one (in grid steps; the first found on a tie).
+// z must hold at least one value.
+func nearestFilled(z [][]float64) [][]float64 {
+	out := make([][]float64, len(z))
+	for i := range z {
+		out[i] = make([]float64, len(z[i]))
+		for j, v := range z[i] {
+			if !math.IsNaN(v) {
+				out[i][j] = v
+				continue
+			}
+			best, bestD := math.NaN(), math.Inf(1)
+			for a := range z {
+				for b, w := range z[a] {
+					if d := float64((a-i)*(a-i) + (b-j)*(b-j)); !math.IsNaN(w) && d < bestD {
+						best, bestD = w, d
+					}
+				}
+			}
+			out[i][j] = best
+		}
+	}
+	return out
+}
+
 // cellEdges returns the lower and upper edge of the cell around each of
 // the increasing values v: halfway to the neighbours, and as far outside
 // as inside at the ends (half a unit for a single value).
@@ -363,8 +401,8 @@ func (f *cellFill) Plot(c draw.Canvas, p *plot.Plot) {
 // answer and boxes the centre of cells that converged only from a
 // neighbour.
 type cellMarks struct {
-	g                       *SetupGrid
-	hatch, fail, cross, box color.Color
+	g                           *SetupGrid
+	bg, hatch, fail, cross, box color.Color
 }
 
 func (m *cellMarks) Plot(c draw.Canvas, p *plot.Plot) {
@@ -374,6 +412,10 @@ func (m *cellMarks) Plot(c draw.Canvas, p *plot.Plot) {
 	for i := range m.g.X {
 		for j := range m.g.Y {
 			r := vg.Rectangle{Min: vg.Point{X: trX(x0[i]), Y: trY(y0[j])}, Max: vg.Point{X: trX(x1[i]), Y: trY(y1[j])}}
+			if math.IsNaN(m.g.Z[i][j]) || (m.g.Failed != nil && m.g.Failed[i][j]) {
+				c.SetColor(m.bg) // no contour line over a cell without a value
+				c.Fill(r.Path())
+			}
 			switch {
 			case m.g.Failed != nil && m.g.Failed[i][j]:
 				c.SetColor(m.fail)

@@ -92,6 +92,18 @@ func TestSetupGridPlot(t *testing.T) {
 		t.Fatal(err)
 	}
 	writeSetup(t, "setup-grid-dark", p)
+	// Streaming in: the first rows only.
+	for i := 4; i < len(g.X); i++ {
+		for j := range g.Y {
+			g.Z[i][j] = math.NaN()
+			g.Separated[i][j], g.Failed[i][j], g.FromNeighbour[i][j] = false, false, false
+		}
+	}
+	g.Path = nil
+	if p, err = SetupGridPlot(g, false); err != nil {
+		t.Fatal(err)
+	}
+	writeSetup(t, "setup-grid-streaming", p)
 }
 
 func TestSearchAndSpanLoadPlots(t *testing.T) {
@@ -150,5 +162,18 @@ func TestMapCurveOnset(t *testing.T) {
 	}
 	if c.YLabel != "downforce (N/m)" || c.XLabel != "ground clearance (mm)" {
 		t.Errorf("labels %q, %q", c.XLabel, c.YLabel)
+	}
+}
+
+// Cells without a value take their nearest cell's value for the contour
+// lines only.
+func TestNearestFilled(t *testing.T) {
+	nan := math.NaN()
+	got := nearestFilled([][]float64{{1, nan, nan}, {nan, nan, 5}})
+	want := [][]float64{{1, 1, 5}, {1, 5, 5}}
+	for i := range want {
+		if !slices.Equal(got[i], want[i]) {
+			t.Errorf("row %d: %v, want %v", i, got[i], want[i])
+		}
 	}
 }
