@@ -269,10 +269,13 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 		}
 		const swatches = 3
 		for s := range swatches {
-			v := hi - (hi-lo)*float64(s)/float64(swatches-1)
+			// Clamped: hi − (hi − lo) can round below lo, where the
+			// palette refuses (and the key showed the lowest value in the
+			// grey of the cells without an answer).
+			v := math.Max(lo, math.Min(hi, hi-(hi-lo)*float64(s)/float64(swatches-1)))
 			c, err := cm.At(v)
 			if err != nil {
-				c = th.faint
+				panic("figure: SetupGridPlot: palette: " + err.Error())
 			}
 			k.add(fmt.Sprintf("%.4g %s", v, g.ZLabel), swatch{c})
 		}

@@ -177,3 +177,18 @@ func TestNearestFilled(t *testing.T) {
 		}
 	}
 }
+
+// The key's lowest swatch is the palette's lowest colour even where
+// hi − (hi − lo) rounds below lo (values chosen so that it does, near the
+// 838.2 and 209.2 N/m of a two-element map whose key showed the lowest
+// value grey).
+func TestSetupGridKeyLowest(t *testing.T) {
+	lo, hi := 209.17436112340447, 838.2170707870134
+	if hi-(hi-lo) >= lo {
+		t.Skip("these values no longer round below lo")
+	}
+	g := SetupGrid{Title: "t", X: []float64{0, 1}, Y: []float64{0, 1}, Z: [][]float64{{lo, hi}, {hi, lo}}}
+	if _, err := SetupGridPlot(g, false); err != nil {
+		t.Fatal(err)
+	}
+}
