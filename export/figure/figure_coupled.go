@@ -7,7 +7,6 @@ import (
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
-	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
@@ -174,14 +173,14 @@ func addCoupledPolar(p *plot.Plot, k *key, sc *Scene, th *theme) bool {
 			name, v = "most downforce −Cl", -cl
 		}
 		// Without a converged angle beyond it the maximum is a lower
-		// bound: ≥.
-		rel, keyName := " ", name+" (viscous)"
+		// bound: ≥. The value goes in the key, which is placed clear of
+		// the data: a note beside the marker, at the curve's end, ran
+		// under the key.
+		rel, why := " ", ""
 		if !sc.ClMaxIsPeak {
-			rel, keyName = " ≥ ", name+" (viscous; ≥: none converged beyond)"
+			rel, why = " ≥ ", "; ≥: none converged beyond"
 		}
-		label := fmt.Sprintf("%s%s%s at %s°", name, rel, formatTick(v, 3), formatTick(a, 2))
-		p.Add(&note{x: a, y: cl, dx: vg.Points(6), dy: vg.Points(-6), text: label, style: noteStyle(th, th.fg, 8, text.XLeft, text.YCenter)})
-		k.add(keyName, m)
+		k.add(fmt.Sprintf("%s%s%s at %s° (viscous%s)", name, rel, formatTick(v, 3), formatTick(a, 2), why), m)
 	}
 	if len(failed) > 0 {
 		b := &bottomMarks{alphas: failed, glyph: draw.GlyphStyle{Color: th.accent, Radius: glyphMarker, Shape: draw.CrossGlyph{}}}
