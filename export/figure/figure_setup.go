@@ -37,6 +37,9 @@ type SetupCurve struct {
 	// Current is the study's own value of the variable (a vertical line),
 	// NaN for none; Onset is where separation sets in (a labelled vertical
 	// line), NaN for none.
+	// Inviscid: the points are the panel method's, which knows nothing of
+	// separation (the key does not call them attached).
+	Inviscid       bool
 	Current, Onset float64
 	// OnsetLabel says where separation sets in, in words (for captions);
 	// OnsetShort is the figure's label of the line (OnsetLabel when
@@ -108,7 +111,11 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 	if len(attached) > 0 {
 		s := newScatter(attached, th.upper, glyphMarker*0.8, draw.CircleGlyph{})
 		p.Add(s)
-		k.add("attached", s)
+		if c.Inviscid {
+			k.add("panel method (no separation)", s)
+		} else {
+			k.add("attached", s)
+		}
 	}
 	if len(separated) > 0 {
 		s := newScatter(separated, th.lower, glyphMarker*1.2, draw.RingGlyph{})

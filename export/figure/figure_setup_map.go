@@ -35,10 +35,12 @@ func MapCurve(st *model.Study, v model.SetupVariable, points []engine.Point, q e
 		sep bool
 	}
 	var known []pt
+	c.Inviscid = len(points) > 0
 	for i := range points {
 		p := &points[i]
 		failed := !p.Converged || p.Err != ""
 		sep := !failed && p.Viscous && !p.AttachedTo(limit)
+		c.Inviscid = c.Inviscid && !p.Viscous
 		c.X = append(c.X, p.Values[0])
 		c.Y = append(c.Y, q.Value(p, forces))
 		c.Separated = append(c.Separated, sep)

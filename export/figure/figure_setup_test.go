@@ -160,6 +160,15 @@ func TestMapCurveOnset(t *testing.T) {
 	if want := []bool{false, false, true, false, false, false}; !slices.Equal(c.FromNeighbour, want) {
 		t.Errorf("from a neighbour %v, want %v (the 40 mm point)", c.FromNeighbour, want)
 	}
+	if c.Inviscid {
+		t.Error("a viscous map's curve says it is inviscid")
+	}
+	for i := range pts {
+		pts[i].Viscous = false
+	}
+	if c := MapCurve(st, v, pts, engine.QuantityLoad, true, 0.9, 80); !c.Inviscid {
+		t.Error("a panel-method map's curve does not say it is inviscid")
+	}
 	if c.YLabel != "downforce (N/m)" || c.XLabel != "ground clearance (mm)" {
 		t.Errorf("labels %q, %q", c.XLabel, c.YLabel)
 	}
