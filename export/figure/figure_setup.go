@@ -122,18 +122,10 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		p.Add(s)
 		k.add("suction side separated", s)
 	}
-	if len(fromNeighbour) > 0 {
-		s := newScatter(fromNeighbour, th.accent, glyphMarker*1.6, draw.SquareGlyph{})
-		p.Add(s)
-		k.add(fmt.Sprintf("only from a neighbour's solution (%d)", len(fromNeighbour)), s)
-	}
-	if len(failed) > 0 {
-		b := &bottomMarks{alphas: failed, glyph: draw.GlyphStyle{Color: th.accent, Radius: glyphMarker, Shape: draw.CrossGlyph{}}}
-		p.Add(b)
-		for _, x := range failed {
-			k.keep(plotter.XYs{{X: x, Y: ext.y0}})
-		}
-		k.add(fmt.Sprintf("no answer (%d of %d)", len(failed), len(pts)), b)
+	addFromNeighbour(p, k, th, fromNeighbour)
+	addNoAnswer(p, k, th, failed, len(pts))
+	for _, x := range failed {
+		k.keep(plotter.XYs{{X: x, Y: ext.y0}})
 	}
 	// The lines' labels go below the key's height, so that a key in a top
 	// corner does not hide them.
@@ -169,6 +161,28 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 // keyRoomPerEntry is the fraction of a set-up curve's y range added
 // above the data for each key entry beyond the first.
 const keyRoomPerEntry = 0.16
+
+// addFromNeighbour boxes the points that converged only from a
+// neighbour's solution, with their key entry (none for none).
+func addFromNeighbour(p *plot.Plot, k *key, th *theme, xys plotter.XYs) {
+	if len(xys) == 0 {
+		return
+	}
+	s := newScatter(xys, th.accent, glyphMarker*1.6, draw.SquareGlyph{})
+	p.Add(s)
+	k.add(fmt.Sprintf("only from a neighbour's solution (%d)", len(xys)), s)
+}
+
+// addNoAnswer crosses the points without an answer, at xs on the x axis,
+// with their key entry (none for none).
+func addNoAnswer(p *plot.Plot, k *key, th *theme, xs []float64, total int) {
+	if len(xs) == 0 {
+		return
+	}
+	b := &bottomMarks{alphas: xs, glyph: draw.GlyphStyle{Color: th.accent, Radius: glyphMarker, Shape: draw.CrossGlyph{}}}
+	p.Add(b)
+	k.add(fmt.Sprintf("no answer (%d of %d)", len(xs), total), b)
+}
 
 // SetupGrid is one quantity over two set-up variables: Z[i][j] at X[i]
 // and Y[j] (NaN where the point has no value). With Z nil it is only the
@@ -556,16 +570,8 @@ func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark
 		p.Add(s)
 		k.add("outside a constraint", s)
 	}
-	if len(from) > 0 {
-		s := newScatter(from, th.accent, glyphMarker*1.6, draw.SquareGlyph{})
-		p.Add(s)
-		k.add(fmt.Sprintf("only from a neighbour's solution (%d)", len(from)), s)
-	}
-	if len(failed) > 0 {
-		b := &bottomMarks{alphas: failed, glyph: draw.GlyphStyle{Color: th.accent, Radius: glyphMarker, Shape: draw.CrossGlyph{}}}
-		p.Add(b)
-		k.add(fmt.Sprintf("no answer (%d of %d)", len(failed), len(steps)), b)
-	}
+	addFromNeighbour(p, k, th, from)
+	addNoAnswer(p, k, th, failed, len(steps))
 	if len(steps) > 0 && !math.IsNaN(steps[0].Objective) {
 		p.Add(&refLine{value: steps[0].Objective, style: lineStyle(th.faint, widthThin, dashRef), label: "start", labelSty: noteStyle(th, th.faint, 8, text.XLeft, text.YBottom)})
 	}
