@@ -445,6 +445,9 @@ func (p *setupSearch) comparison() string {
 	if !res.Feasible {
 		b.WriteString("No setting met every constraint: the start is kept.\n")
 	}
+	if res.Best.FromNeighbour() {
+		b.WriteString("The best setting converged only when started from the solution of a setting solved before it: a single solve of it has no answer (applied, the workbench may show none).\n")
+	}
 	b.WriteString(r.status)
 	return strings.TrimSpace(b.String())
 }
