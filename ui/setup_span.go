@@ -7,6 +7,7 @@ import (
 	"math"
 	"reflect"
 	"slices"
+	"strings"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
@@ -131,8 +132,8 @@ func (p *setupSpan) finish(gen int, st *model.Study, out *engine.FiniteSpan, err
 		setMessage(p.msg, err)
 	default:
 		p.out, p.outFor = out, st
-		p.status.SetText(fmt.Sprintf("Polar from %s° to %s°, %d of %d angles with a usable %s.",
-			num(out.PolarFromDeg), num(out.PolarToDeg), out.PolarRowsUsed, out.PolarRows, map[bool]string{true: "viscous answer", false: "answer"}[out.ViscousPolar]))
+		p.status.SetText(strings.TrimSpace(fmt.Sprintf("Polar from %s° to %s°, %d of %d angles with a usable %s. %s",
+			num(out.PolarFromDeg), num(out.PolarToDeg), out.PolarRowsUsed, out.PolarRows, map[bool]string{true: "viscous answer", false: "answer"}[out.ViscousPolar], out.ExtensionNote())))
 	}
 	p.show()
 	p.s.relayout()

@@ -199,6 +199,9 @@ func (r *writer) finiteSpanSection(fs *engine.FiniteSpan) {
 	if fs.PastMaxLoad {
 		r.para("Some stations work past the polar's maximum load: at or beyond stall, where the estimate is not unique.")
 	}
+	if note := fs.ExtensionNote(); note != "" {
+		r.para(note)
+	}
 	if fs.LowAspectRatio {
 		r.para(fmt.Sprintf("The effective aspect ratio is below about %d: a lifting line is a rough guide here, and a lifting-surface method (Weissinger's, a vortex lattice) is the usual choice.", engine.LowAspectRatioLimit))
 	}

@@ -5,6 +5,9 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
+	"strconv"
+	"strings"
 
 	"sectionbench/model"
 	"sectionbench/solver/liftingline"
@@ -69,6 +72,11 @@ type FiniteSpan struct {
 	PolarFromDeg, PolarToDeg float64
 	PolarRows, PolarRowsUsed int
 	ViscousPolar             bool // the load and drag come from a viscous solution
+	// PolarExtended is how many of the viscous polar's rows below its
+	// lowest converged angle, PolarExtendedFromDeg, were filled from the
+	// panel method (polarTable); 0 when none was.
+	PolarExtended        int
+	PolarExtendedFromDeg float64
 }
 
 // SpanStation is the finite-span load at one station.
@@ -140,6 +148,69 @@ func (e *Engine) FiniteSpan(ctx context.Context, req Request) (*FiniteSpan, *Res
 	}
 }
 
+// ExtensionNote says, in a sentence, that the polar was extended below
+// its lowest converged viscous row (polarTable), or is empty.
+func (fs *FiniteSpan) ExtensionNote() string {
+	if fs.PolarExtended == 0 {
+		return ""
+	}
+	from := strings.Replace(strconv.FormatFloat(fs.PolarExtendedFromDeg, 'f', -1, 64), "-", "−", 1)
+	return fmt.Sprintf("The viscous solution converged at no angle below %s°: for the %d below it the section polar takes the panel method's lift less the viscous loss at %s°, and its drag.",
+		from, fs.PolarExtended, from)
+}
+
+// polarTable returns the section polar of a result's sweep for the
+// lifting line: the angles, the load (sense × Cl) and the profile drag,
+// NaN where there is none, and how many rows have a load. The load is
+// the coupled solution's where it ran (NaN where it did not converge),
+// the panel method's otherwise, with the boundary-layer estimate's drag
+// if that ran.
+//
+// Below the lowest converged row of a coupled sweep (a two-element wing's
+// viscous polar ends at −12°, where its tips need it, and nothing below
+// converges) the rows take the panel method's Cl less the viscous loss
+// at that row, Cl_inviscid(α) + (Cl − Cl_inviscid)(α₀), and its drag:
+// away from maximum lift, where the stations of a wing's tips work, the
+// viscous loss of lift changes slowly with the angle (common practice).
+// extended counts those rows and from is α₀ (NaN when none).
+func polarTable(res *Result, sense float64) (al, load, cd []float64, used, extended int, from float64) {
+	n := len(res.Sweep)
+	al, load, cd = make([]float64, n), make([]float64, n), make([]float64, n)
+	for i, c := range res.Sweep {
+		al[i], load[i], cd[i] = c.AlphaDeg, sense*c.Cl, math.NaN()
+		switch {
+		case res.SweepCoupled != nil:
+			p := res.SweepCoupled[i]
+			load[i], cd[i] = sense*p.Cl, p.Cd // NaN unless converged
+		case res.SweepViscous != nil:
+			cd[i] = res.SweepViscous[i].Cd
+		}
+	}
+	from = math.NaN()
+	if res.SweepCoupled != nil {
+		first := slices.IndexFunc(res.SweepCoupled, func(p CoupledPoint) bool { return p.Converged })
+		if first > 0 {
+			p := res.SweepCoupled[first]
+			loss := p.Cl - p.ClInviscid
+			for i := range first {
+				if inv := res.SweepCoupled[i].ClInviscid; !math.IsNaN(inv) {
+					load[i], cd[i] = sense*(inv+loss), p.Cd
+					extended++
+				}
+			}
+			if extended > 0 {
+				from = p.AlphaDeg
+			}
+		}
+	}
+	for _, l := range load {
+		if !math.IsNaN(l) {
+			used++
+		}
+	}
+	return al, load, cd, used, extended, from
+}
+
 // viscousEdge reports whether the effective angle of re lies beyond the
 // converged rows of res's coupled sweep on a side where the sweep solved
 // angles that did not converge (so widening the sweep cannot help: the
@@ -171,21 +242,7 @@ func FiniteSpanEstimate(st *model.Study, res *Result) (*FiniteSpan, error) {
 		sense = -1
 	}
 	n := len(res.Sweep)
-	al, load, cd := make([]float64, n), make([]float64, n), make([]float64, n)
-	used := 0
-	for i, c := range res.Sweep {
-		al[i], load[i], cd[i] = c.AlphaDeg, sense*c.Cl, math.NaN()
-		switch {
-		case res.SweepCoupled != nil:
-			p := res.SweepCoupled[i]
-			load[i], cd[i] = sense*p.Cl, p.Cd // NaN unless converged
-		case res.SweepViscous != nil:
-			cd[i] = res.SweepViscous[i].Cd
-		}
-		if !math.IsNaN(load[i]) {
-			used++
-		}
-	}
+	al, load, cd, used, extended, from := polarTable(res, sense)
 	tbl, err := liftingline.NewTable(al, load, cd)
 	if err != nil {
 		return nil, fmt.Errorf("finite-span estimate: %w", err)
@@ -211,7 +268,8 @@ func FiniteSpanEstimate(st *model.Study, res *Result) (*FiniteSpan, error) {
 		Load2DPerSpan: math.NaN(), Drag2DPerSpan: math.NaN(), Load2DN: math.NaN(), Drag2DN: math.NaN(),
 		PastMaxLoad: ll.PastMaxLoad, LowAspectRatio: arEff < LowAspectRatioLimit,
 		PolarFromDeg: al[0], PolarToDeg: al[n-1], PolarRows: n, PolarRowsUsed: used,
-		ViscousPolar: res.SweepCoupled != nil || res.SweepViscous != nil,
+		ViscousPolar:  res.SweepCoupled != nil || res.SweepViscous != nil,
+		PolarExtended: extended, PolarExtendedFromDeg: from,
 	}
 	q := math.NaN()
 	if f := res.Forces; f != nil {

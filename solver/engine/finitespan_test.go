@@ -153,3 +153,74 @@ func TestViscousEdge(t *testing.T) {
 		}
 	}
 }
+
+// Below the lowest converged row of a coupled sweep the finite-span
+// polar takes the panel method's lift less the viscous loss at that row,
+// and its drag (polarTable); above it the coupled rows stand, a failed
+// row among them stays empty, and nothing is extended when the lowest
+// row converged.
+func TestPolarTableExtendsBelowViscous(t *testing.T) {
+	nan := math.NaN()
+	res := &Result{}
+	for a := -15.0; a <= 3; a++ {
+		inv := 0.1 * (a + 4)
+		p := CoupledPoint{AlphaDeg: a, Cl: nan, Cd: nan, ClInviscid: inv}
+		if a >= -12 && a != 0 {
+			p.Converged, p.Cl, p.Cd = true, 0.09*(a+4)-0.02, 0.01+0.001*(a+12)
+		}
+		res.Sweep = append(res.Sweep, solver.Coefficients{AlphaDeg: a, Cl: inv})
+		res.SweepCoupled = append(res.SweepCoupled, p)
+	}
+	al, load, cd, used, extended, from := polarTable(res, -1)
+	if extended != 3 || from != -12 || used != len(al)-1 {
+		t.Fatalf("extended %d rows from %g°, %d of %d used; want 3 from −12°, all but the failed 0°", extended, from, used, len(al))
+	}
+	loss := (0.09*(-12+4) - 0.02) - 0.1*(-12+4)
+	for i, a := range al {
+		switch {
+		case a < -12:
+			want := -(0.1*(a+4) + loss)
+			if math.Abs(load[i]-want) > 1e-12 || cd[i] != 0.01 {
+				t.Errorf("α %g°: load %g, drag %g; want %g and the −12° row's 0.01", a, load[i], cd[i], want)
+			}
+		case a == 0:
+			if !math.IsNaN(load[i]) {
+				t.Errorf("the failed 0° row has load %g", load[i])
+			}
+		default:
+			if want := -(0.09*(a+4) - 0.02); math.Abs(load[i]-want) > 1e-12 {
+				t.Errorf("α %g°: load %g, want the coupled %g", a, load[i], want)
+			}
+		}
+	}
+	res.SweepCoupled[0].Converged, res.SweepCoupled[0].Cl = true, 0.5
+	if _, _, _, _, extended, _ := polarTable(res, 1); extended != 0 {
+		t.Errorf("extended %d rows below a converged lowest row", extended)
+	}
+}
+
+// The two-element example as it opens (viscous, tripped, in ground
+// effect) gives a finite-span estimate: its tips work below −12°, where
+// its viscous polar ends, and there the polar is extended from the panel
+// method (polarTable) and says so; the finite wing carries less than the
+// two-dimensional figure over the span (common practice).
+func TestFiniteSpanExampleViscous(t *testing.T) {
+	if testing.Short() {
+		t.Skip("a viscous two-element sweep: run without -short")
+	}
+	st, secs := modeltest.LoadStudy(t, "../../assets/examples/two-element-ground.json")
+	if !st.Viscous.Enabled {
+		t.Fatal("the example opens with its viscous solution off; this test is about the viscous one")
+	}
+	fs, _, err := NewEngine().FiniteSpan(context.Background(), Request{Study: st, Sections: secs})
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("downforce %.1f N (2-D over the span %.1f N), polar %g° to %g°, %d of %d rows, %d extended: %s", fs.LoadN, fs.Load2DN, fs.PolarFromDeg, fs.PolarToDeg, fs.PolarRowsUsed, fs.PolarRows, fs.PolarExtended, fs.ExtensionNote())
+	if !fs.ViscousPolar || !(fs.LoadN > 0) || !(fs.LoadN < fs.Load2DN) || !(fs.ProfileDragN > 0) {
+		t.Errorf("downforce %g N, 2-D %g N, profile drag %g N, viscous polar %v", fs.LoadN, fs.Load2DN, fs.ProfileDragN, fs.ViscousPolar)
+	}
+	if (fs.PolarExtended > 0) != (fs.ExtensionNote() != "") {
+		t.Errorf("%d rows extended, note %q", fs.PolarExtended, fs.ExtensionNote())
+	}
+}
