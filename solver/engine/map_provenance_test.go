@@ -17,12 +17,13 @@ import (
 // the cold start's continuation bounded to 3 (PointOptions), under which
 // the clearances of 120 mm and below do not converge from their own start
 // (measured) while 140 mm and above do. The one-variable map walks out
-// from its middle (140 mm): 120 mm starts again from 140 mm, 100 mm from
-// 120 mm. Where a rescue converged, the single solve of its setting under
-// the same bound does not (so the map's number is its own); the test also
-// logs how far the rescued answer lies from the single solve with the
-// solver's default bound, which it does not assert: nothing guarantees
-// the two starts reach the same root of the coupled equations.
+// from its middle (140 mm), and a point starts again from the one or two
+// before it towards the middle. Where a rescue converged, the single
+// solve of its setting under the same bound does not (so the map's
+// number is its own); the test also logs how far the rescued answer lies
+// from the single solve with the solver's default bound, which it does
+// not assert: nothing guarantees the two starts reach the same root of
+// the coupled equations.
 func TestMapStartedFromNeighbour(t *testing.T) {
 	if testing.Short() {
 		t.Skip("coupled viscous solves")
@@ -39,7 +40,12 @@ func TestMapStartedFromNeighbour(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	wantFrom := map[float64][]float64{100: {120}, 120: {140}} // measured; the rest from their own start
+	// Measured: 120 mm starts again from 140 mm and 100 mm from 120 mm;
+	// asserted is the rule (the one or two points towards the middle,
+	// 140 mm), so that a change of the solver that moves which points need
+	// a rescue does not break the test, only one that makes none.
+	from := map[float64][]float64{100: {120, 140}, 120: {140, 160}, 160: {140}, 180: {160, 140}}
+	rescued := 0
 	single := func(h float64, maxIt int) *Result {
 		one := st.Clone()
 		one.Ground.ClearanceMM = h
@@ -56,8 +62,11 @@ func TestMapStartedFromNeighbour(t *testing.T) {
 			t.Errorf("%g mm: not converged", h)
 			continue
 		}
-		if want := wantFrom[h]; !slices.Equal(p.StartedFrom, want) {
-			t.Errorf("%g mm: started from %v, want %v", h, p.StartedFrom, want)
+		if p.FromNeighbour() {
+			rescued++
+			if len(p.StartedFrom) != 1 || !slices.Contains(from[h], p.StartedFrom[0]) {
+				t.Errorf("%g mm: started from %v, want one of %v", h, p.StartedFrom, from[h])
+			}
 		}
 		c := single(h, budget).Coupled
 		if !p.FromNeighbour() {
@@ -74,5 +83,8 @@ func TestMapStartedFromNeighbour(t *testing.T) {
 		} else {
 			t.Logf("%g mm from %v mm: Cl %.6f; a single solve with the default bound does not converge either", h, p.StartedFrom[0], p.Cl)
 		}
+	}
+	if rescued == 0 {
+		t.Error("no point needed a neighbour: the case no longer tests the rescue (choose another bound)")
 	}
 }
