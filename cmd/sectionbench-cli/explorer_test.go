@@ -10,6 +10,7 @@ import (
 	"strings"
 	"testing"
 
+	"sectionbench/export"
 	"sectionbench/model"
 )
 
@@ -343,5 +344,52 @@ func TestMapSpeedUpright(t *testing.T) {
 	l10, l30 := first["lift_per_span_n_per_m"].(float64), last["lift_per_span_n_per_m"].(float64)
 	if math.Abs(l30/l10-9) > 1e-9 {
 		t.Errorf("lift %g N/m at 10 m/s, %g at 30 m/s: ratio %g, want 9", l10, l30, l30/l10)
+	}
+}
+
+// search --apply-to writes the study with the best setting applied (the
+// app's Apply), and writes nothing when no setting met every limit.
+func TestSearchApplyTo(t *testing.T) {
+	dir := t.TempDir()
+	out := filepath.Join(dir, "applied.json")
+	args := []string{"search", "--study", example("two-element-ground.json"), "--vary", "elements[1].deflection_deg=10:20", "--inviscid", "--max-evaluations", "8", "--format", "json"}
+	m := runJSON(t, append(args, "--apply-to", out)...)
+	best := m["best"].(map[string]any)["elements[1].deflection_deg"].(float64)
+	st, err := export.LoadStudy(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	secs, _, err := export.LoadSections(st, dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	v, err := model.ParseSetupVariable("elements[1].deflection_deg")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := st.SetupValue(v, secs); math.Abs(got-best) > 1e-9 || st.Ground.ClearanceMM != 100 {
+		t.Errorf("written deflection %g, want the best %g (clearance %g, want the study's 100)", got, best, st.Ground.ClearanceMM)
+	}
+	none := filepath.Join(dir, "none.json")
+	code, _, stderr := runCLI(t, append(args, "--min-clearance", "500", "--apply-to", none)...)
+	if _, err := os.Stat(none); code != exitInput || !strings.Contains(stderr, "nothing written") || err == nil {
+		t.Errorf("no feasible setting: exit %d, %q, file there %v; want exit 1, nothing written", code, stderr, err == nil)
+	}
+}
+
+// A study whose section is a file named from its folder is not written
+// into another folder, where it would not find the file.
+func TestSectionsReachable(t *testing.T) {
+	st := model.NewStudy()
+	st.Elements = []model.StudyElement{{Name: "main", Section: model.SectionSource{Spec: "naca:4412"}, ChordMM: 250}}
+	if err := sectionsReachable(st, "a/study.json", "b/out.json"); err != nil {
+		t.Errorf("a generated section: %v", err)
+	}
+	st.Elements = append(st.Elements, model.StudyElement{Name: "flap", Section: model.SectionSource{Spec: "flap.dat"}, ChordMM: 100})
+	if err := sectionsReachable(st, "a/study.json", "a/out.json"); err != nil {
+		t.Errorf("the same folder: %v", err)
+	}
+	if err := sectionsReachable(st, "a/study.json", "b/out.json"); err == nil || !strings.Contains(err.Error(), "elements[1].section") {
+		t.Errorf("another folder: %v, want a refusal naming elements[1].section", err)
 	}
 }

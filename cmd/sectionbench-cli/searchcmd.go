@@ -2,10 +2,13 @@ package main
 
 import (
 	"context"
+	"errors"
 	"flag"
 	"fmt"
 	"io"
+	"path/filepath"
 
+	"sectionbench/export"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 )
@@ -32,8 +35,8 @@ type jsonSearch struct {
 // localNote says what the search's answer is.
 const localNote = "a local optimum near the start (Nelder–Mead simplex): a map of the same bounds shows whether a better setting lies elsewhere"
 
-func cmdSearch(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("search", "search (--study FILE | --section SPEC) --vary NAME=LO:HI [--vary …] --objective downforce|lift-to-drag|drag [--downforce-target N] [--attached-to XC] [--min-gap MM] [--min-clearance MM] [--max-evaluations N] [--inviscid] [--format text|json]", stdout)
+func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
+	fs := newFlags("search", "search (--study FILE | --section SPEC) --vary NAME=LO:HI [--vary …] --objective downforce|lift-to-drag|drag [--downforce-target N] [--attached-to XC] [--min-gap MM] [--min-clearance MM] [--max-evaluations N] [--inviscid] [--apply-to FILE] [--format text|json]", stdout)
 	in := addInputs(fs, false, "text", "json")
 	ef := addExplorerFlags(fs, "a variable and its bounds `NAME=LO:HI`")
 	objective := fs.String("objective", "downforce", "what to optimise: `downforce` (the most; lift on an upright wing), lift-to-drag (the best ratio) or drag (the least, at --downforce-target)")
@@ -42,6 +45,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) error {
 	minGap := fs.Float64("min-gap", 0, "the least slot gap in `mm` behind every element after the first (a manufacturing minimum; 0: none)")
 	minClear := fs.Float64("min-clearance", 0, "the least ground clearance in `mm` (0: the method's own minimum only)")
 	maxEval := fs.Int("max-evaluations", engine.DefaultSearchEvaluations, "the most `solves` the search may make")
+	applyTo := fs.String("apply-to", "", "write the study with the best setting found applied to `FILE` (the app's Apply; the start stays in the --study file); nothing is written, and the exit status is 1, when no setting met every limit")
 	if _, err := fs.parse(args, 0); err != nil {
 		return err
 	}
@@ -80,9 +84,21 @@ func cmdSearch(args []string, stdout, stderr io.Writer) error {
 			fmt.Fprintf(stderr, "search: solve %d at %v, %s\n", n, p.Values, state)
 		}
 	}
+	if *applyTo != "" {
+		if err := sectionsReachable(st, in.study, *applyTo); err != nil {
+			return err
+		}
+	}
 	res, err := engine.Search(context.Background(), st, secs, bounds, opt, each)
 	if err != nil {
 		return setupUsage(err)
+	}
+	if *applyTo != "" {
+		defer func() {
+			if err == nil {
+				err = writeApplied(*applyTo, st, vars, res, secs)
+			}
+		}()
 	}
 	hasSpeed := st.Flow.SpeedMPS > 0 || slicesHasSpeed(vars)
 	if in.format == "json" {
@@ -107,6 +123,40 @@ func cmdSearch(args []string, stdout, stderr io.Writer) error {
 	}
 	_, err = fmt.Fprintf(stdout, "first row: the start (the study's setting); second: the best setting found, %s\n", localNote)
 	return err
+}
+
+// writeApplied writes st with the search's best setting applied to path,
+// as the app's Apply sets it; refused when no setting met every limit.
+func writeApplied(path string, st *model.Study, vars []model.SetupVariable, res *engine.SearchResult, secs []*model.Section) error {
+	if !res.Feasible {
+		return fmt.Errorf("--apply-to %s: no setting met every limit; nothing written", path)
+	}
+	next := st.Clone()
+	if err := next.ApplySetupAll(vars, res.Best.Values, secs); err != nil {
+		return fmt.Errorf("--apply-to %s: %w", path, err)
+	}
+	return export.SaveStudy(path, next)
+}
+
+// sectionsReachable refuses to write the study to path when an element's
+// section is a coordinate file named relative to the study's own folder
+// and path lies in another (the written study would not find it).
+func sectionsReachable(st *model.Study, from, path string) error {
+	if from == "" {
+		return nil // a --section study names a generated section
+	}
+	a, errA := filepath.Abs(filepath.Dir(from))
+	b, errB := filepath.Abs(filepath.Dir(path))
+	if errA == nil && errB == nil && a == b {
+		return nil
+	}
+	for k, e := range st.Elements {
+		spec := e.Section.Spec
+		if _, _, err := model.SectionFromSpec(spec, nil); errors.Is(err, model.ErrSpec) && !filepath.IsAbs(spec) {
+			return usagef("--apply-to %s: elements[%d].section %q is a file named from the study's folder; write the study into that folder", path, k, spec)
+		}
+	}
+	return nil
 }
 
 // objectiveWords says what the search optimised.
