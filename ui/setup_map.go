@@ -291,12 +291,15 @@ func (m *setupMaps) studyChanged() {
 		sel.SetSelectedIndex(old)
 	}
 	m.vars = vars
-	def1 := 0
+	def1, def2 := 0, min(1, len(vars)-1)
 	if st.Ground.Enabled {
-		def1 = 1 // the ride height first: the question a team asks first
+		// The ride height first: the question a team asks first; against
+		// the angle of attack, how the car pitches it (speed came second,
+		// which the team varies least).
+		def1, def2 = 1, 0
 	}
 	keep(m.var1, def1)
-	keep(m.var2, min(def1+1, len(vars)-1))
+	keep(m.var2, def2)
 }
 
 // fillRange fills range i's fields with defaults around the study's value

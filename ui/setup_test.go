@@ -136,7 +136,9 @@ func TestSetupMapTwoVariablesAndBadRange(t *testing.T) {
 	m.to[0].SetText("140")
 	m.step[0].SetText("40")
 	m.second.SetChecked(true)
-	m.var2.SetSelectedIndex(0) // angle of attack
+	if !strings.Contains(m.var2.Selected, "angle of attack") {
+		t.Errorf("second variable %q by default, want the angle of attack against the clearance", m.var2.Selected)
+	}
 	m.from[1].SetText("2")
 	m.to[1].SetText("4")
 	m.step[1].SetText("1")
