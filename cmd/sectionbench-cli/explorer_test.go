@@ -348,12 +348,13 @@ func TestMapSpeedUpright(t *testing.T) {
 }
 
 // search --apply-to writes the study with the best setting applied (the
-// app's Apply), and writes nothing when no setting met every limit.
+// app's Apply) and, with --pin-start, a pin of the start; it writes
+// nothing when no setting met every limit.
 func TestSearchApplyTo(t *testing.T) {
 	dir := t.TempDir()
 	out := filepath.Join(dir, "applied.json")
 	args := []string{"search", "--study", example("two-element-ground.json"), "--vary", "elements[1].deflection_deg=10:20", "--inviscid", "--max-evaluations", "8", "--format", "json"}
-	m := runJSON(t, append(args, "--apply-to", out)...)
+	m := runJSON(t, append(args, "--apply-to", out, "--pin-start")...)
 	best := m["best"].(map[string]any)["elements[1].deflection_deg"].(float64)
 	st, err := export.LoadStudy(out)
 	if err != nil {
@@ -370,8 +371,15 @@ func TestSearchApplyTo(t *testing.T) {
 	if got := st.SetupValue(v, secs); math.Abs(got-best) > 1e-9 || st.Ground.ClearanceMM != 100 {
 		t.Errorf("written deflection %g, want the best %g (clearance %g, want the study's 100)", got, best, st.Ground.ClearanceMM)
 	}
+	if n := len(st.Pins); n != 1 || st.Pins[0].Label != "search start, elements[1].deflection_deg 15" || len(st.Pins[0].Cp) != 4 || len(st.Pins[0].Polar) == 0 {
+		t.Errorf("%d pins (%+v), want the start's, named so, with Cp on 2 elements × 2 surfaces and a polar", n, st.Pins)
+	}
+	code, _, stderr := runCLI(t, append(args, "--pin-start")...)
+	if code != exitUsage || !strings.Contains(stderr, "--apply-to") {
+		t.Errorf("--pin-start alone: exit %d, %q", code, stderr)
+	}
 	none := filepath.Join(dir, "none.json")
-	code, _, stderr := runCLI(t, append(args, "--min-clearance", "500", "--apply-to", none)...)
+	code, _, stderr = runCLI(t, append(args, "--min-clearance", "500", "--apply-to", none)...)
 	if _, err := os.Stat(none); code != exitInput || !strings.Contains(stderr, "nothing written") || err == nil {
 		t.Errorf("no feasible setting: exit %d, %q, file there %v; want exit 1, nothing written", code, stderr, err == nil)
 	}

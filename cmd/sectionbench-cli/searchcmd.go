@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"io"
 	"path/filepath"
+	"strings"
 
 	"sectionbench/export"
 	"sectionbench/model"
@@ -36,7 +37,7 @@ type jsonSearch struct {
 const localNote = "a local optimum near the start (Nelder–Mead simplex): a map of the same bounds shows whether a better setting lies elsewhere"
 
 func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
-	fs := newFlags("search", "search (--study FILE | --section SPEC) --vary NAME=LO:HI [--vary …] --objective downforce|lift-to-drag|drag [--downforce-target N] [--attached-to XC] [--min-gap MM] [--min-clearance MM] [--max-evaluations N] [--inviscid] [--apply-to FILE] [--format text|json]", stdout)
+	fs := newFlags("search", "search (--study FILE | --section SPEC) --vary NAME=LO:HI [--vary …] --objective downforce|lift-to-drag|drag [--downforce-target N] [--attached-to XC] [--min-gap MM] [--min-clearance MM] [--max-evaluations N] [--inviscid] [--apply-to FILE [--pin-start]] [--format text|json]", stdout)
 	in := addInputs(fs, false, "text", "json")
 	ef := addExplorerFlags(fs, "a variable and its bounds `NAME=LO:HI`")
 	objective := fs.String("objective", "downforce", "what to optimise: `downforce` (the most; lift on an upright wing), lift-to-drag (the best ratio) or drag (the least, at --downforce-target)")
@@ -45,6 +46,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 	minGap := fs.Float64("min-gap", 0, "the least slot gap in `mm` behind every element after the first (a manufacturing minimum; 0: none)")
 	minClear := fs.Float64("min-clearance", 0, "the least ground clearance in `mm` (0: the method's own minimum only)")
 	maxEval := fs.Int("max-evaluations", engine.DefaultSearchEvaluations, "the most `solves` the search may make")
+	pinStart := fs.Bool("pin-start", false, "with --apply-to: the written study also carries a pin of the start (its Cp and polar, the panel method's), as the app's Pin the starting point")
 	applyTo := fs.String("apply-to", "", "write the study with the best setting found applied to `FILE` (the app's Apply; the start stays in the --study file); nothing is written, and the exit status is 1, when no setting met every limit")
 	if _, err := fs.parse(args, 0); err != nil {
 		return err
@@ -84,6 +86,9 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 			fmt.Fprintf(stderr, "search: solve %d at %v, %s\n", n, p.Values, state)
 		}
 	}
+	if *pinStart && *applyTo == "" {
+		return usagef("--pin-start goes with --apply-to FILE")
+	}
 	if *applyTo != "" {
 		if err := sectionsReachable(st, in.study, *applyTo); err != nil {
 			return err
@@ -96,7 +101,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 	if *applyTo != "" {
 		defer func() {
 			if err == nil {
-				err = writeApplied(*applyTo, st, vars, res, secs)
+				err = writeApplied(*applyTo, st, vars, res, secs, *pinStart)
 			}
 		}()
 	}
@@ -126,12 +131,31 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 }
 
 // writeApplied writes st with the search's best setting applied to path,
-// as the app's Apply sets it; refused when no setting met every limit.
-func writeApplied(path string, st *model.Study, vars []model.SetupVariable, res *engine.SearchResult, secs []*model.Section) error {
+// as the app's Apply sets it, with a pin of the search's start when pin;
+// refused when no setting met every limit.
+func writeApplied(path string, st *model.Study, vars []model.SetupVariable, res *engine.SearchResult, secs []*model.Section, pin bool) error {
 	if !res.Feasible {
 		return fmt.Errorf("--apply-to %s: no setting met every limit; nothing written", path)
 	}
 	next := st.Clone()
+	if pin {
+		// The pin holds the panel method's Cp and polar, which the
+		// viscous solution does not change: solved without it, quickly.
+		start := st.Clone()
+		start.Viscous.Enabled = false
+		if err := start.ApplySetupAll(vars, res.Start.Values, secs); err != nil { // the study's own setting, moved inside the bounds
+			return fmt.Errorf("--pin-start: %w", err)
+		}
+		r, err := engine.NewEngine().Run(context.Background(), engine.Request{Study: start, Sections: secs, Sweep: true})
+		if err != nil {
+			return fmt.Errorf("--pin-start: %w", err)
+		}
+		var set []string
+		for i, v := range vars {
+			set = append(set, fmt.Sprintf("%s %g", v.Name(), res.Start.Values[i]))
+		}
+		next.Pins = append(next.Pins, engine.PinOf("search start, "+strings.Join(set, ", "), r, r.Sweep))
+	}
 	if err := next.ApplySetupAll(vars, res.Best.Values, secs); err != nil {
 		return fmt.Errorf("--apply-to %s: %w", path, err)
 	}

@@ -542,7 +542,7 @@ func (c *Controller) pin() error {
 		return errPlacing
 	}
 	label := pinLabel(c.pinBase, c.state.study, c.pinBaseSecs, c.state.sections)
-	p := pinFromResult(label, res, c.Sweep())
+	p := engine.PinOf(label, res, c.Sweep())
 	base := c.state.study.Clone()
 	if err := c.Edit("", func(st *model.Study) { st.Pins = append(st.Pins, p) }); err != nil {
 		return err
@@ -577,26 +577,6 @@ func (c *Controller) RenamePin(i int, label string) error {
 func (c *Controller) ClearPins() error {
 	c.pinBase = nil
 	return c.Edit("", func(st *model.Study) { st.Pins = nil })
-}
-
-// pinFromResult copies the Cp curves of a solution and the polar into a pin.
-func pinFromResult(label string, res *engine.Result, sweep []solver.Coefficients) model.Pin {
-	pin := model.Pin{Label: label}
-	for _, e := range res.Solution.Elements {
-		for _, side := range []solver.Side{solver.Upper, solver.Lower} {
-			pc := model.PinCurve{Element: e.Name, Side: side.String()}
-			for _, p := range e.Panels {
-				if p.Side == side {
-					pc.Points = append(pc.Points, [2]float64{p.XC, p.Cp})
-				}
-			}
-			pin.Cp = append(pin.Cp, pc)
-		}
-	}
-	for _, k := range sweep {
-		pin.Polar = append(pin.Polar, [3]float64{k.AlphaDeg, k.Cl, k.Cm})
-	}
-	return pin
 }
 
 // Element returns the element the section controls edit.
