@@ -1,15 +1,21 @@
 // Package solver holds Sectionbench's numerics: the linear-strength vortex
 // panel method for one or several elements, optionally above a ground plane,
-// the integrated forces, the velocity field and streamlines, the integral
-// boundary-layer estimate. It imports model for geometry; it has no GUI and
-// does no file I/O. Turning a study into results (air, forces in newtons,
-// density studies, caching) is package solver/engine's job.
+// the integrated forces, the velocity field and streamlines, the one-way
+// integral boundary-layer estimate and the coupled viscous solution
+// (boundary layers and wakes acting back on the panel method, coupled*.go,
+// with the closures in solver/boundarylayer). It imports model for
+// geometry; it has no GUI and does no file I/O. Turning a study into
+// results (air, forces in newtons, density studies, sweeps, caching) is
+// package solver/engine's job.
 //
-// Results are two-dimensional potential-flow estimates. They leave out
-// separation, the wake's displacement and three-dimensional effects, so
-// they overstate lift near and beyond stall and say nothing about structural
-// loads: validate by test, and let the design and mounting of a wing follow
-// the competition's rules and qualified review.
+// Results are two-dimensional estimates. The panel method alone leaves out
+// separation and the layers' displacement, so it overstates lift near and
+// beyond stall; the coupled solution adds them for attached flow and
+// trailing-edge separation but not leading-edge stall or large separated
+// regions, and its lift still runs a few percent above wind-tunnel data.
+// Nothing here says anything about structural loads: validate by test, and
+// let the design and mounting of a wing follow the competition's rules and
+// qualified review.
 //
 // # Frames, units and signs
 //

@@ -342,8 +342,10 @@ func (w *Workbench) showReport() {
 // methodsText explains what the numbers are and how far to trust them.
 const methodsText = `Sectionbench solves the two-dimensional, inviscid, incompressible flow about one or more wing sections with a linear-strength vortex panel method and the Kutta condition at each trailing edge (Katz & Plotkin, Low-Speed Aerodynamics, 2nd ed., ch. 11). Lift comes from the circulation (Kutta–Joukowski); Cm is about the quarter chord, nose-up positive; Cp = 1 − (V/U∞)². A ground plane is modelled by an image system.
 
+With a speed or Reynolds number, the viscous solution couples integral boundary layers and wakes to that flow (Flow tab): laminar closures fitted to the Falkner–Skan family, a turbulent shear-stress lag equation, e^N transition or trips, wakes along streamlines with drag from their far end (Squire–Young), all solved together with the panel method by Newton's method (Drela & Giles, AIAA J. 25(10), 1987). It gives drag, transition, trailing-edge separation and the section's maximum lift; a point that did not converge is shown as such, without numbers.
+
 Cautions
-• These are 2-D potential-flow estimates. Real wings have finite span, tip vortices, separation and interaction with the car; maximum lift and stall are not predicted.
+• These are 2-D estimates. Real wings have finite span, tip vortices and interaction with the car. The viscous lift runs a few percent above wind-tunnel data (NACA 0012 at Re 6e6), up to a fifth on sections with laminar bubbles at Re 2e5 (E387); leading-edge stall and large separated regions are beyond it.
 • Check panel-count convergence: results should not change when the panel count is doubled (pin both and compare).
 • Validate by test (wind tunnel, coast-down or on-track measurements) before relying on any number.
 • Structural design and mounting of wings follow the competition's rules and qualified engineering review; nothing here sizes a structure.`

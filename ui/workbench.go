@@ -37,8 +37,8 @@ const (
 // window and cautionStatus in the status line, where it opens Methods and
 // cautions.
 const (
-	caution       = "2-D potential-flow estimates — validate by test. Structural design and mounting follow the competition's rules and qualified engineering review."
-	cautionShort  = "2-D potential-flow estimates — validate by test"
+	caution       = "2-D estimates — validate by test. Structural design and mounting follow the competition's rules and qualified engineering review."
+	cautionShort  = "2-D estimates — validate by test"
 	cautionStatus = "2-D estimates — validate by test"
 )
 

@@ -446,8 +446,8 @@ var references = []string{
 	"Sutherland, W., The viscosity of gases and molecular force, Philosophical Magazine 36, 1893.",
 }
 
-const limitations = "2-D potential-flow estimates; validate by test; structural design and mounting follow the competition's rules and qualified engineering review.\n" +
-	"The panel method assumes attached, incompressible, steady two-dimensional flow. It does not predict stall or maximum lift, and it overstates lift near and beyond separation. Ground effect is modelled with a fixed ground; a moving ground, wheels and the car's body change the flow. The boundary-layer estimate is sensitive to transition, which the criterion predicts only roughly; trips fix it where the test article has them. Check convergence with the panel density study before quoting a number."
+const limitations = "2-D estimates; validate by test; structural design and mounting follow the competition's rules and qualified engineering review.\n" +
+	"The panel method assumes attached, incompressible, steady two-dimensional flow; alone it does not predict stall or maximum lift, and it overstates lift near and beyond separation. The coupled viscous solution adds the boundary layers and wakes acting back on that flow: drag, transition, trailing-edge separation and the section's maximum lift, with lift still a few percent above wind-tunnel data (NACA 0012 at Re 6e6), up to a fifth on a section with laminar bubbles at Re 2e5 (E387), and no leading-edge stall; a point that did not converge is shown as such. Ground effect is modelled with a fixed ground; a moving ground, wheels and the car's body change the flow. The boundary-layer estimate is sensitive to transition, which the criterion predicts only roughly; trips fix it where the test article has them. Check convergence with the panel density study before quoting a number."
 
 // The leading-edge close-up of the report frames the first 15 % of the
 // main element's chord: the nose region where panel density matters most
