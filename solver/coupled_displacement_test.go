@@ -22,16 +22,7 @@ func TestSourceEquivalentToDisplacement(t *testing.T) {
 	const alpha = 4.0
 	for _, eps := range []float64{0.002, 0.004} {
 		e := nacaElement(t, "4412", 200)
-		sys, err := NewSystem(Config{Elements: []Element{e}})
-		if err != nil {
-			t.Fatal(err)
-		}
-		sol := sys.Solve(alpha)
-		w, err := traceWake(sol, 0)
-		if err != nil {
-			t.Fatal(err)
-		}
-		r := newSourceResponse(sol, []*wakeGeom{w})
+		sys, sol, r := sourceSystem(t, "4412", 200, alpha)
 		eg := &sys.geo.elems[0]
 		nn, le := len(eg.nodes), eg.le
 		// Nodes run from the trailing edge over the upper surface to
@@ -49,19 +40,7 @@ func TestSourceEquivalentToDisplacement(t *testing.T) {
 			mb := math.Abs(sol.g[eg.u0+j+1]) * dstar[j+1]
 			sigma[eg.p0+j] = (ma - mb) / p.l
 		}
-		var dGamma float64 // ∮ Δγ ds, linear γ on each panel
-		dg := func(i int) float64 {
-			row := r.gam.Data[(eg.u0+i)*r.cols.n : (eg.u0+i+1)*r.cols.n]
-			s := 0.0
-			for c, v := range sigma {
-				s += row[c] * v
-			}
-			return s
-		}
-		for j := 0; j < eg.np; j++ {
-			dGamma += 0.5 * (dg(j) + dg(j+1)) * sys.geo.panels[eg.p0+j].l
-		}
-		viaSources := 2 * dGamma / eg.chord
+		viaSources := liftOfSources(sys, r, sigma)
 
 		disp := Element{Name: e.Name, LE: e.LE, Nodes: make([]model.Point, nn)}
 		for i := range nn {
@@ -109,17 +88,7 @@ func TestSourceTrailingEdgeCamber(t *testing.T) {
 		{"upper surface, last 10 %", true, 0.9},
 		{"lower surface, last 20 %", false, 0.8},
 	}
-	e := nacaElement(t, "0006", 200)
-	sys, err := NewSystem(Config{Elements: []Element{e}})
-	if err != nil {
-		t.Fatal(err)
-	}
-	sol := sys.Solve(0)
-	w, err := traceWake(sol, 0)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r := newSourceResponse(sol, []*wakeGeom{w})
+	sys, _, r := sourceSystem(t, "0006", 200, 0)
 	eg := &sys.geo.elems[0]
 	le := eg.le
 	for _, c := range cases {
@@ -148,19 +117,7 @@ func TestSourceTrailingEdgeCamber(t *testing.T) {
 				}
 				sigma[eg.p0+j] = grow / p.l
 			}
-			var dGamma float64
-			dg := func(i int) float64 {
-				row := r.gam.Data[(eg.u0+i)*r.cols.n : (eg.u0+i+1)*r.cols.n]
-				s := 0.0
-				for k, v := range sigma {
-					s += row[k] * v
-				}
-				return s
-			}
-			for j := 0; j < eg.np; j++ {
-				dGamma += 0.5 * (dg(j) + dg(j+1)) * sys.geo.panels[eg.p0+j].l
-			}
-			got := 2 * dGamma / eg.chord
+			got := liftOfSources(sys, r, sigma)
 			thh := math.Acos(1 - 2*c.hinge)
 			delta := eps / (2 * (1 - c.hinge)) // flap angle, trailing edge down positive
 			if c.upper {
@@ -173,4 +130,41 @@ func TestSourceTrailingEdgeCamber(t *testing.T) {
 			}
 		})
 	}
+}
+
+// sourceSystem solves NACA des at alpha degrees on the given panels and
+// returns the system, the solution and its source response with the
+// wake traced from it.
+func sourceSystem(t *testing.T, des string, panels int, alpha float64) (*System, *Solution, *sourceResponse) {
+	t.Helper()
+	sys, err := NewSystem(Config{Elements: []Element{nacaElement(t, des, panels)}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	sol := sys.Solve(alpha)
+	w, err := traceWake(sol, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return sys, sol, newSourceResponse(sol, []*wakeGeom{w})
+}
+
+// liftOfSources returns the change of the first element's Cl that the
+// source strengths sigma (one per source column) make: 2 ∮ Δγ ds / c,
+// with Δγ = G σ linear on each panel.
+func liftOfSources(sys *System, r *sourceResponse, sigma []float64) float64 {
+	eg := &sys.geo.elems[0]
+	dg := func(i int) float64 {
+		row := r.gam.Data[(eg.u0+i)*r.cols.n : (eg.u0+i+1)*r.cols.n]
+		s := 0.0
+		for k, v := range sigma {
+			s += row[k] * v
+		}
+		return s
+	}
+	var dGamma float64
+	for j := 0; j < eg.np; j++ {
+		dGamma += 0.5 * (dg(j) + dg(j+1)) * sys.geo.panels[eg.p0+j].l
+	}
+	return 2 * dGamma / eg.chord
 }

@@ -16,17 +16,7 @@ import (
 // sec. 10.2.1). On the upper surface the flow runs against the node order,
 // so downstream is the panel's first node.
 func TestSourceResponseSign(t *testing.T) {
-	e := nacaElement(t, "0012", 160)
-	sys, err := NewSystem(Config{Elements: []Element{e}})
-	if err != nil {
-		t.Fatal(err)
-	}
-	sol := sys.Solve(0)
-	w, err := traceWake(sol, 0)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r := newSourceResponse(sol, []*wakeGeom{w})
+	_, _, r := sourceSystem(t, "0012", 160, 0)
 	const p = 40 // nodes 40 and 41, upper surface, mid-chord
 	ncol := r.cols.n
 	down, up := r.gam.Data[40*ncol+p], r.gam.Data[41*ncol+p] // upper Ue = +γ
