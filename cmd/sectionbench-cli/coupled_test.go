@@ -153,6 +153,21 @@ func TestSweepCoupledJSON(t *testing.T) {
 		if r["converged"] != true {
 			t.Errorf("row %d (α %v): converged %v", i, r["alpha_deg"], r["converged"])
 		}
+		// Per element the same keys (one element here: its share is the
+		// whole).
+		els, _ := r["elements"].([]any)
+		if len(els) != 1 {
+			t.Fatalf("row %d: elements %v, want one", i, r["elements"])
+		}
+		el := els[0].(map[string]any)
+		for _, k := range []string{"cl", "cd", "cm", "cl_inviscid", "iterations", "transition_upper", "transition_lower", "separation_upper", "separation_lower", "converged"} {
+			if _, ok := el[k]; !ok {
+				t.Errorf("row %d, element: lacks %q", i, k)
+			}
+		}
+		if el["cl"] != r["cl"] || el["converged"] != true {
+			t.Errorf("row %d, element: cl %v (row %v), converged %v", i, el["cl"], r["cl"], el["converged"])
+		}
 	}
 	if sw.ClMax == nil || sw.AlphaClMax == nil || *sw.AlphaClMax != 2 || *sw.ClMax != sw.Rows[2]["cl"] {
 		t.Errorf("cl_max %v at %v, want the 2° row's cl %v", sw.ClMax, sw.AlphaClMax, sw.Rows[2]["cl"])

@@ -29,6 +29,19 @@ type jsonSweepRow struct {
 	// Flags name, in words, why the row is not to be trusted
 	// (model.Plausibility); empty when nothing is flagged.
 	Flags []string `json:"flags"`
+	// Elements holds, in coupled mode, each element's share of the row
+	// with the same keys as solve's elements (without the surface points).
+	Elements []jsonSweepElement `json:"elements,omitempty"`
+}
+
+// jsonSweepElement is one element's share of a coupled sweep row, on its
+// own chord.
+type jsonSweepElement struct {
+	Name string `json:"name"`
+	Cl   num    `json:"cl"`
+	Cm   num    `json:"cm"`
+	jsonViscous
+	jsonCoupled
 }
 
 // jsonSweep is the sweep's JSON: its rows and, in coupled mode, the
@@ -98,6 +111,11 @@ func sweepJSON(res *engine.Result) jsonSweep {
 			r.Cl, r.Cm, r.CmInviscid, r.ClInviscid = co.Cl, co.Cm, ptr(c.Cm), num(c.Cl)
 			past := p.PastClMax
 			r.PastClMax = &past
+			for k, e := range p.Elements {
+				co, v, cp := coupledKeys(p, k)
+				cp.ClInviscid = num(e.ClInviscid)
+				r.Elements = append(r.Elements, jsonSweepElement{Name: e.Name, Cl: co.Cl, Cm: co.Cm, jsonViscous: v, jsonCoupled: cp})
+			}
 			if !p.Converged {
 				out.Warnings = append(out.Warnings, notConverged(p))
 			}
