@@ -195,7 +195,11 @@ func solveCoupled(ctx context.Context, sys *solver.System, alphaDeg, fs float64,
 // when a start from scratch does not converge it walks from the angle
 // nearest zero to alphaDeg, each step warm-started from the one before
 // (the way a polar reaches it). In ground effect the configuration
-// pitches, so every angle is a new system and starts from scratch.
+// pitches, so every angle is a new system: it starts from the last
+// converged point when that is near (the solver carries the layers over
+// to the pitched system), and from scratch otherwise, without a walk (a
+// map's points, each on a fresh engine, must stay the single solve of
+// their setting or say that they are not).
 func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs float64, opt solver.CoupledOptions, optKey string) (CoupledPoint, error) {
 	names := e.elementNames()
 	if seed := e.seed; seed != nil {
@@ -207,7 +211,7 @@ func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs
 		return p, err
 	}
 	var warm *solver.CoupledSolution
-	if !e.layout.Ground && e.warmKey == optKey && e.warm != nil && math.Abs(e.warmAlpha-alphaDeg) <= maxWarmStepDeg {
+	if e.warmKey == optKey && e.warm != nil && math.Abs(e.warmAlpha-alphaDeg) <= maxWarmStepDeg {
 		warm = e.warm
 	}
 	p, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, warm, names)
@@ -247,7 +251,7 @@ func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs
 
 // keepWarm remembers a converged point of the cached free-air system.
 func (e *Engine) keepWarm(p CoupledPoint, optKey string) {
-	if p.Converged && !e.layout.Ground {
+	if p.Converged {
 		e.warm, e.warmAlpha, e.warmKey = p.last, p.AlphaDeg, optKey
 	}
 }
