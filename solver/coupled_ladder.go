@@ -92,14 +92,19 @@ const (
 // solution and whether it converged, with the iterations of every step.
 func (cs *coupledState) tripLadder(ctx context.Context) (out *coupledState, conv bool, iters int, res float64, err error) {
 	free := cs.freeSides()
-	return cs.ladder(ctx, free, cs.ladderStart(free), nil)
+	return cs.ladder(ctx, free, cs.ladderStart(free), nil, 0)
 }
 
 // ladder runs the trip ladder on the sides of free (upper, lower) from
 // the trip positions trip (x/c), its first step from prev if that is
-// not nil.
-func (cs *coupledState) ladder(ctx context.Context, free [2]bool, trip [2]float64, prev *coupledState) (out *coupledState, conv bool, iters int, res float64, err error) {
+// not nil. A budget above zero bounds its iterations: each step then
+// starts only from the step before (no start from the march), and the
+// ladder gives up once it has spent the budget (releaseHeld).
+func (cs *coupledState) ladder(ctx context.Context, free [2]bool, trip [2]float64, prev *coupledState, budget int) (out *coupledState, conv bool, iters int, res float64, err error) {
 	for {
+		if budget > 0 && iters >= budget {
+			return nil, false, iters, res, nil
+		}
 		opt := cs.opt
 		done := true
 		if free[0] {
@@ -110,7 +115,7 @@ func (cs *coupledState) ladder(ctx context.Context, free [2]bool, trip [2]float6
 			opt.TripLower = trip[1]
 			done = done && trip[1] >= 1
 		}
-		t, c, n, r, err := cs.rung(ctx, opt, prev)
+		t, c, n, r, err := cs.rung(ctx, opt, prev, budget > 0)
 		iters += n
 		res = r
 		if err != nil {
@@ -135,7 +140,7 @@ func (cs *coupledState) ladder(ctx context.Context, free [2]bool, trip [2]float6
 		trip[0] = math.Min(trip[0]+ladderStepXC, 1)
 		trip[1] = math.Min(trip[1]+ladderStepXC, 1)
 	}
-	if prev == nil {
+	if prev == nil || budget > 0 && iters >= budget {
 		return nil, false, iters, res, nil
 	}
 	f := cs.sibling(cs.opt)
@@ -154,8 +159,9 @@ func (cs *coupledState) ladder(ctx context.Context, free [2]bool, trip [2]float6
 // strategies in turn (prev's first): from the step before (prev, if any)
 // and, failing that, from the march, which with the trip just behind a
 // bubble's transition can converge where the step before cannot lead
-// (NACA 4412 at Re 2.8e5 and 1°, the trip moved from 0.675 to 0.7).
-func (cs *coupledState) rung(ctx context.Context, opt CoupledOptions, prev *coupledState) (t *coupledState, conv bool, iters int, res float64, err error) {
+// (NACA 4412 at Re 2.8e5 and 1°, the trip moved from 0.675 to 0.7);
+// with onlyPrev, from the step before alone.
+func (cs *coupledState) rung(ctx context.Context, opt CoupledOptions, prev *coupledState, onlyPrev bool) (t *coupledState, conv bool, iters int, res float64, err error) {
 	first := cs.strategy
 	if prev != nil {
 		first = prev.strategy
@@ -168,7 +174,7 @@ func (cs *coupledState) rung(ctx context.Context, opt CoupledOptions, prev *coup
 	}
 	for _, st := range order {
 		for _, fromPrev := range []bool{true, false} {
-			if fromPrev && prev == nil {
+			if fromPrev && prev == nil || !fromPrev && onlyPrev && prev != nil {
 				continue
 			}
 			t = cs.sibling(opt)
@@ -215,6 +221,14 @@ func (cs *coupledState) ladderStart(free [2]bool) [2]float64 {
 	}
 	return first
 }
+
+// releaseBudget bounds the iterations releaseHeld spends: the releases
+// that succeed take tens to a few hundred (NACA 0012 at Re 1e6, 6°–8°;
+// NACA 4412 at Re 2.8e5, 1°), while on the two-element example with free
+// transition, where nothing is released, the unbounded ladder spent
+// 3000–3700 iterations a point (20–25 s) with every start from the march
+// tried at every step.
+const releaseBudget = 400
 
 // heldMargin is how far below NCrit the envelope of a transition
 // station, grown from the station before at the laminar rates
@@ -276,11 +290,13 @@ func (cs *coupledState) envelopeAt(i int, ue []float64) float64 {
 // releaseHeld moves transition held upstream of its e^N position
 // (heldTransition) to it through the trip ladder: a trip put one step
 // behind the held transition, each step from the one before, until
-// transition comes ahead of the trips by itself. It returns the state of
-// the free solution reached that way, or nil (and the iterations spent)
-// if there was nothing to release or a step failed. (Releasing one side
-// at a time where both were held, tried on NACA 0012 at Re 1e6 and 6°,
-// cost twice the iterations and released nothing more.)
+// transition comes ahead of the trips by itself, each step started from
+// the one before only, within releaseBudget iterations. It returns the
+// state of the free solution reached that way, or nil (and the
+// iterations spent) if there was nothing to release or it failed.
+// (Releasing one side at a time where both were held, tried on NACA 0012
+// at Re 1e6 and 6°, cost twice the iterations and released nothing
+// more.)
 func (cs *coupledState) releaseHeld(ctx context.Context) (*coupledState, int, float64, error) {
 	held, at := cs.heldTransition(cs.freeSides())
 	if held == [2]bool{} {
@@ -289,7 +305,7 @@ func (cs *coupledState) releaseHeld(ctx context.Context) (*coupledState, int, fl
 	for k := range at {
 		at[k] = math.Min(at[k]+ladderStepXC, 1)
 	}
-	t, conv, iters, res, err := cs.ladder(ctx, held, at, cs)
+	t, conv, iters, res, err := cs.ladder(ctx, held, at, cs, releaseBudget)
 	if err != nil || !conv {
 		return nil, iters, res, err
 	}
