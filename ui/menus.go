@@ -277,6 +277,11 @@ func (w *Workbench) saveTo(path string, then func()) {
 	}
 }
 
+// maxFileStem bounds the length of a suggested file name before its
+// extension: a study's team and name together made 100-character report
+// names; the cut falls at the last word boundary before it.
+const maxFileStem = 60
+
 // fileNameFor suggests a file name for a study name.
 func fileNameFor(name string) string {
 	var b strings.Builder
@@ -289,6 +294,13 @@ func fileNameFor(name string) string {
 		}
 	}
 	s := strings.Trim(b.String(), "-")
+	if len(s) > maxFileStem {
+		cut := strings.LastIndexByte(s[:maxFileStem+1], '-')
+		if cut <= 0 {
+			cut = maxFileStem
+		}
+		s = s[:cut]
+	}
 	if s == "" {
 		s = "study"
 	}

@@ -1,6 +1,7 @@
 package ui
 
 import (
+	"strings"
 	"testing"
 
 	"fyne.io/fyne/v2"
@@ -13,6 +14,9 @@ func TestFileNameFor(t *testing.T) {
 		"Demo — fictional student team, rear-wing main element": "demo-fictional-student-team-rear-wing-main-element.json",
 		"":       "study.json",
 		"Wing 2": "wing-2.json",
+		// Team and name together: cut at the last word within 60 characters.
+		"Fictional student team (invented demo data) Demo — fictional student team, rear-wing main element": "fictional-student-team-invented-demo-data-demo-fictional.json",
+		strings.Repeat("x", 70): strings.Repeat("x", 60) + ".json",
 	} {
 		if got := fileNameFor(in); got != want {
 			t.Errorf("fileNameFor(%q) = %q, want %q", in, got, want)
