@@ -138,7 +138,7 @@ func (e *Engine) FiniteSpan(ctx context.Context, req Request) (*FiniteSpan, *Res
 		if errors.As(err, &re) && viscousEdge(res, re) {
 			// Solving more angles would not help: the coupled solution
 			// already failed beyond the angles it converged at.
-			return nil, res, fmt.Errorf("finite-span estimate: the wing's stations need the section's polar at %.2f°, but the coupled viscous solution converged only from %g° to %g° of the %g° to %g° solved; with the viscous solution off the estimate takes the panel method's polar", re.AlphaDeg, re.FromDeg, re.ToDeg, st.Sweep.FromDeg, st.Sweep.ToDeg)
+			return nil, res, fmt.Errorf("finite-span estimate: the wing's stations need the section's polar at %.3f°, beyond the angles where the coupled viscous solution converged (%g° to %g° of the %g° to %g° solved); with the viscous solution off the estimate takes the panel method's polar", re.AlphaDeg, re.FromDeg, re.ToDeg, st.Sweep.FromDeg, st.Sweep.ToDeg)
 		}
 		if errors.As(err, &re) && try == 0 && re.AlphaDeg < re.FromDeg && re.FromDeg > -model.MaxAlphaDeg {
 			margin = st.Flow.AlphaDeg - re.AlphaDeg + 4
@@ -226,7 +226,8 @@ func viscousEdge(res *Result, re *liftingline.RangeError) bool {
 
 // FiniteSpanEstimate returns the finite-span estimate of st from a result
 // whose sweep covers the angles the stations reach (see FiniteSpanSweep).
-// The polar is the coupled sweep's converged rows in coupled mode, the
+// The polar is polarTable's: the coupled sweep's converged rows in
+// coupled mode (extended below the lowest from the panel method), the
 // inviscid lift with the boundary-layer estimate's drag with the estimate,
 // and the inviscid lift alone (no profile drag) without a viscous
 // solution.
