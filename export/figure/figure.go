@@ -150,16 +150,22 @@ func noData(v View, what string) error {
 // sc lacks the data v needs.
 func PlotView(v View, sc *Scene) (*plot.Plot, error) {
 	p, info, err := buildView(v, sc)
-	if err == nil && info.equal {
-		fitAspect(p, draw.Canvas{Rectangle: vg.Rectangle{Max: vg.Point{X: 6 * vg.Inch, Y: 4 * vg.Inch}}})
+	if err != nil {
+		return p, err
 	}
-	return p, err
+	c := draw.Canvas{Rectangle: vg.Rectangle{Max: vg.Point{X: 6 * vg.Inch, Y: 4 * vg.Inch}}}
+	fitKeys(c, info.keys...) // the keys' rows as for a 6 × 4 inch figure
+	if info.equal {
+		fitAspect(p, c)
+	}
+	return p, nil
 }
 
 // viewInfo carries what drawing needs to know beyond the plot itself.
 type viewInfo struct {
 	equal     bool // equal aspect: one data unit is as long on both axes
 	composite bool // panels in tiles: the outer plot has no data coordinates
+	keys      []*key // keys above the data area, told their room before drawing
 }
 
 func buildView(v View, sc *Scene) (*plot.Plot, viewInfo, error) {
@@ -182,7 +188,9 @@ func buildView(v View, sc *Scene) (*plot.Plot, viewInfo, error) {
 		p, err = streamlinesPlot(sc, th)
 		info.equal = true
 	case ViewPolar:
-		p, err = polarPlot(sc, th)
+		var k *key
+		p, k, err = polarPlot(sc, th)
+		info.keys = append(info.keys, k)
 	case ViewDragPolar:
 		p, err = dragPolarPlot(sc, th)
 	case ViewBoundaryLayer:
@@ -278,7 +286,7 @@ func RenderInto(dst *image.RGBA, v View, sc *Scene, dpi float64) (*Figure, error
 	if err != nil {
 		return nil, err
 	}
-	return renderPlot(p, info.equal, info.composite, dst, dpi), nil
+	return renderPlot(p, info, dst, dpi), nil
 }
 
 // imageCanvas returns a vg canvas drawing straight into img at dpi, which
@@ -293,13 +301,14 @@ func imageCanvas(img *image.RGBA, dpi float64) *vgimg.Canvas {
 }
 
 // renderPlot draws p into img at dpi and records the pixel rectangle of
-// its data area; equal fits the axes to equal scales first, composite
-// marks a figure of several panels.
-func renderPlot(p *plot.Plot, equal, composite bool, img *image.RGBA, dpi float64) *Figure {
+// its data area; info.equal fits the axes to equal scales first,
+// info.composite marks a figure of several panels.
+func renderPlot(p *plot.Plot, info viewInfo, img *image.RGBA, dpi float64) *Figure {
 	cv := imageCanvas(img, dpi)
 	dc := draw.New(cv)
 	fitLabels(p, dc)
-	if equal {
+	fitKeys(dc, info.keys...)
+	if info.equal {
 		fitAspect(p, dc)
 	}
 	p.Draw(dc)
@@ -316,7 +325,7 @@ func renderPlot(p *plot.Plot, equal, composite bool, img *image.RGBA, dpi float6
 		y0:        float64(heightPx) - float64(da.Max.Y)*s,
 		y1:        float64(heightPx) - float64(da.Min.Y)*s,
 		dpi:       cv.DPI(),
-		composite: composite,
+		composite: info.composite,
 	}
 	_, f.YDown = p.Y.Scale.(plot.InvertedScale)
 	f.Plot = image.Rect(int(math.Round(f.x0)), int(math.Round(f.y0)), int(math.Round(f.x1)), int(math.Round(f.y1)))
@@ -377,7 +386,7 @@ func WriteFigure(w io.Writer, v View, sc *Scene, format string, widthIn, heightI
 	if err != nil {
 		return err
 	}
-	return writePlot(w, cv, p, info.equal)
+	return writePlot(w, cv, p, info)
 }
 
 // figureCanvas returns a widthIn × heightIn inch canvas for format. It
@@ -401,12 +410,13 @@ func figureCanvas(format string, widthIn, heightIn, dpi float64) (vg.CanvasWrite
 	return nil, fmt.Errorf("figure format %q (want png, svg or pdf): %w", format, ErrFormat)
 }
 
-// writePlot draws p on cv (fitted to equal axis scales if equal) and
-// writes the result to w.
-func writePlot(w io.Writer, cv vg.CanvasWriterTo, p *plot.Plot, equal bool) error {
+// writePlot draws p on cv (fitted to equal axis scales if info.equal)
+// and writes the result to w.
+func writePlot(w io.Writer, cv vg.CanvasWriterTo, p *plot.Plot, info viewInfo) error {
 	dc := draw.New(cv)
 	fitLabels(p, dc)
-	if equal {
+	fitKeys(dc, info.keys...)
+	if info.equal {
 		fitAspect(p, dc)
 	}
 	p.Draw(dc)

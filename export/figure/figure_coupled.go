@@ -159,7 +159,7 @@ func addCoupledPolar(p *plot.Plot, k *key, sc *Scene, th *theme) bool {
 	if len(valid) > 0 {
 		p.Add(newScatter(valid, th.lower, glyphSmall, draw.CircleGlyph{}))
 	}
-	k.add("Cl viscous, coupled (left axis)", legendLine{sty})
+	k.add("Cl viscous (left axis)", legendLine{sty})
 	if len(past) > 0 {
 		ps := newScatter(past, th.lower, glyphMarker, draw.TriangleGlyph{})
 		p.Add(ps)

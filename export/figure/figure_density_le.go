@@ -157,5 +157,5 @@ func RenderPlot(p *plot.Plot, composite bool, widthPx, heightPx int, dpi float64
 	if widthPx <= 0 || heightPx <= 0 || !(dpi > 0) {
 		panic(fmt.Sprintf("figure: bad render size %d×%d at %g dpi", widthPx, heightPx, dpi))
 	}
-	return renderPlot(p, false, composite, image.NewRGBA(image.Rect(0, 0, widthPx, heightPx)), dpi)
+	return renderPlot(p, viewInfo{composite: composite}, image.NewRGBA(image.Rect(0, 0, widthPx, heightPx)), dpi)
 }

@@ -70,6 +70,10 @@ func (t *twinAxis) Plot(c draw.Canvas, p *plot.Plot) {
 	}
 	ls := t.axisLabel
 	ls.Rotation = -math.Pi / 2
+	// Shrunk to the data area's height, as fitLabels shrinks the others.
+	if w, room := ls.Width(t.label), c.Max.Y-c.Min.Y-vg.Points(8); w > room && room > 0 {
+		ls.Font.Size = max(ls.Font.Size*room/w, minLabelPt)
+	}
 	c.FillText(ls, vg.Point{X: x + twinTickLen + 2*twinGap + tw + t.axisLabel.Height(t.label)/2, Y: c.Center().Y}, t.label)
 }
 
@@ -102,9 +106,9 @@ func clSlope(alpha, cl []float64) float64 {
 // polarPlot draws Cl (left axis) and Cm (right axis) against the angle of
 // attack for the sweep, the current angle marked and pins as faded dotted
 // curves.
-func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
+func polarPlot(sc *Scene, th *theme) (*plot.Plot, *key, error) {
 	if len(sc.Sweep) == 0 {
-		return nil, noData(ViewPolar, "no sweep")
+		return nil, nil, noData(ViewPolar, "no sweep")
 	}
 	alpha := make([]float64, len(sc.Sweep))
 	cl := make([]float64, len(sc.Sweep))
@@ -135,9 +139,9 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	if s := clSlope(alpha, cl); !math.IsNaN(s) {
 		title = fmt.Sprintf("Polar: Cl and Cm against α (mean lift slope %s per degree)", formatTick(s, 4))
 	}
-	ylabel := "Cl from circulation"
+	ylabel := "Cl"
 	if sc.Inverted {
-		ylabel = "Cl from circulation (negative: downforce)"
+		ylabel = "Cl (negative: downforce)"
 	}
 	p := newPlot(th, title, "α, degrees", ylabel)
 	k := newKey(th, keyTopLeft)
@@ -176,7 +180,7 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	p.Add(newLine(xm, cmSty), newScatter(xm, th.second, glyphSmall, draw.SquareGlyph{}))
 	clName := "Cl from circulation (left axis)"
 	if len(sc.SweepCoupled) > 0 && len(sc.SweepCoupled) == len(sc.Sweep) {
-		clName = "Cl inviscid, from circulation (left axis)"
+		clName = "Cl inviscid (left axis)"
 	}
 	k.add(clName, legendLine{clSty})
 	k.add("Cm (right axis)", legendLine{cmSty})
@@ -209,5 +213,5 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	}
 	p.Add(tw)
 	p.Add(k)
-	return p, nil
+	return p, k, nil
 }

@@ -374,9 +374,13 @@ type key struct {
 	// whose box covers the fewest of these points, the preferred corner
 	// on a tie.
 	avoid []plotter.XYs
-	// above puts the entries in a row in a band above the data area
+	// above puts the entries in rows in a band above the data area
 	// instead, where they cannot cover data.
 	above bool
+	// width is the room for a row of an above key (zero: unknown, one
+	// row); fitKeys sets it from the canvas before the plot is drawn,
+	// since GlyphBoxes, which reserves the band, is not told the size.
+	width vg.Length
 }
 
 type keyEntry struct {
@@ -460,39 +464,93 @@ const (
 	keyMargin = vg.Length(5)
 )
 
-// rowWidth is the width of the entries laid out in a row.
-func (k *key) rowWidth() vg.Length {
-	w := vg.Length(0)
-	for _, e := range k.entries {
-		w += keyThumb + keyPad + k.text.Width(e.label) + 3*keyPad
-	}
-	return w
+// entryWidth is the width of entry e laid out in a row.
+func (k *key) entryWidth(e keyEntry) vg.Length {
+	return keyThumb + keyPad + k.text.Width(e.label) + 3*keyPad
 }
 
-// GlyphBoxes reserves the band above the data area for a key in a row.
-func (k *key) GlyphBoxes(*plot.Plot) []plot.GlyphBox {
+// rows splits the entries into rows no wider than w (one row when w is
+// not positive); an entry wider than w has a row of its own.
+func (k *key) rows(w vg.Length) [][]keyEntry {
+	var rows [][]keyEntry
+	var cur []keyEntry
+	used := vg.Length(0)
+	for _, e := range k.entries {
+		ew := k.entryWidth(e)
+		if len(cur) > 0 && w > 0 && used+ew > w {
+			rows, cur, used = append(rows, cur), nil, 0
+		}
+		cur = append(cur, e)
+		used += ew
+	}
+	if len(cur) > 0 {
+		rows = append(rows, cur)
+	}
+	return rows
+}
+
+// maxKeyRows is the most rows an above key takes; beyond it the key is a
+// box in a corner.
+const maxKeyRows = 4
+
+// reservedRows is the number of rows the band above the data area holds:
+// none when the key is a box in a corner.
+func (k *key) reservedRows() int {
 	if !k.above || len(k.entries) == 0 {
+		return 0
+	}
+	if n := len(k.rows(k.width)); n <= maxKeyRows {
+		return n
+	}
+	return 0
+}
+
+// GlyphBoxes reserves the band above the data area for a key in rows.
+func (k *key) GlyphBoxes(*plot.Plot) []plot.GlyphBox {
+	n := k.reservedRows()
+	if n == 0 {
 		return nil
 	}
-	h := k.text.Height("Xg")*1.25 + keyPad
+	h := k.text.Height("Xg")*1.25*vg.Length(n) + keyPad
 	return []plot.GlyphBox{{X: 0.5, Y: 1, Rectangle: vg.Rectangle{Min: vg.Point{X: -1}, Max: vg.Point{X: 1, Y: h}}}}
+}
+
+// keyAxesAllowance is what fitKeys takes off a canvas's width for the
+// axes beside the data area (tick labels and axis titles on both sides
+// of a figure with a twin axis), so that a row fits the data area.
+const keyAxesAllowance = vg.Length(120)
+
+// fitKeys tells each above key of a figure the room its rows have on
+// canvas c.
+func fitKeys(c draw.Canvas, keys ...*key) {
+	for _, k := range keys {
+		k.width = max(c.Max.X-c.Min.X-keyAxesAllowance, 0)
+	}
 }
 
 func (k *key) Plot(c draw.Canvas, p *plot.Plot) {
 	if len(k.entries) == 0 {
 		return
 	}
-	if k.above && k.rowWidth() <= c.Max.X-c.Min.X { // else too many entries: a box in a corner
+	if rows := k.rows(c.Max.X - c.Min.X); k.above && len(rows) <= k.reservedRows() { // else a box in a corner
 		lh := k.text.Height("Xg") * 1.25
-		x := c.Center().X - k.rowWidth()/2
-		yc := c.Max.Y + keyPad/2 + lh/2
-		for _, e := range k.entries {
-			tc := draw.Canvas{Canvas: c.Canvas, Rectangle: vg.Rectangle{
-				Min: vg.Point{X: x, Y: yc - lh/2 + 1}, Max: vg.Point{X: x + keyThumb, Y: yc + lh/2 - 1},
-			}}
-			e.thumb.Thumbnail(&tc)
-			c.FillText(k.text, vg.Point{X: x + keyThumb + keyPad, Y: yc}, e.label)
-			x += keyThumb + keyPad + k.text.Width(e.label) + 3*keyPad
+		// The rows from the top of the band down, each centred.
+		yc := c.Max.Y + keyPad/2 + lh*(vg.Length(k.reservedRows())-0.5)
+		for _, row := range rows {
+			rw := vg.Length(0)
+			for _, e := range row {
+				rw += k.entryWidth(e)
+			}
+			x := c.Center().X - rw/2
+			for _, e := range row {
+				tc := draw.Canvas{Canvas: c.Canvas, Rectangle: vg.Rectangle{
+					Min: vg.Point{X: x, Y: yc - lh/2 + 1}, Max: vg.Point{X: x + keyThumb, Y: yc + lh/2 - 1},
+				}}
+				e.thumb.Thumbnail(&tc)
+				c.FillText(k.text, vg.Point{X: x + keyThumb + keyPad, Y: yc}, e.label)
+				x += k.entryWidth(e)
+			}
+			yc -= lh
 		}
 		return
 	}

@@ -15,5 +15,5 @@ func WritePlot(w io.Writer, p *plot.Plot, format string, widthIn, heightIn, dpi 
 	if err != nil {
 		return err
 	}
-	return writePlot(w, cv, p, false)
+	return writePlot(w, cv, p, viewInfo{})
 }
