@@ -163,8 +163,8 @@ func PlotView(v View, sc *Scene) (*plot.Plot, error) {
 
 // viewInfo carries what drawing needs to know beyond the plot itself.
 type viewInfo struct {
-	equal     bool // equal aspect: one data unit is as long on both axes
-	composite bool // panels in tiles: the outer plot has no data coordinates
+	equal     bool   // equal aspect: one data unit is as long on both axes
+	composite bool   // panels in tiles: the outer plot has no data coordinates
 	keys      []*key // keys above the data area, told their room before drawing
 }
 
