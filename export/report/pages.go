@@ -288,7 +288,11 @@ func (r *writer) sweepPage() {
 	r.need(figureHMM + 32)
 	r.heading("Sweep")
 	r.figure(figure.ViewPolar, sc, "Cl (left axis) and Cm (right axis) against the angle of attack; the current angle is marked.", figureHMM)
+	coupled := len(res.SweepCoupled) == len(res.Sweep)
 	head := []string{"α, °", "Cl", "Cl (pressure)", "Cm", "Cp min", "at x/c"}
+	if coupled { // the inviscid columns beside the viscous ones
+		head = []string{"α, °", "Cl (inviscid)", "Cl (pressure, inviscid)", "Cm (inviscid)", "Cp min (inviscid)", "at x/c"}
+	}
 	widths := []float64{0.7, 0.9, 1, 0.9, 0.9, 0.8}
 	align := []string{"R", "R", "R", "R", "R", "R"}
 	vis := len(res.SweepViscous) == len(res.Sweep)
@@ -297,11 +301,10 @@ func (r *writer) sweepPage() {
 		widths = append(widths, 0.8, 1.6)
 		align = append(align, "R", "R")
 	}
-	coupled := len(res.SweepCoupled) == len(res.Sweep)
 	if coupled {
-		head = append(head, "Cl (viscous)", "Cd (viscous)")
-		widths = append(widths, 0.9, 0.8)
-		align = append(align, "R", "R")
+		head = append(head, "Cl (viscous)", "Cd (viscous)", "Cm (viscous)")
+		widths = append(widths, 0.9, 0.8, 0.9)
+		align = append(align, "R", "R", "R")
 	}
 	head = append(head, "Marks")
 	widths = append(widths, 0.9)
@@ -317,7 +320,7 @@ func (r *writer) sweepPage() {
 		}
 		if coupled {
 			p := res.SweepCoupled[i]
-			row = append(row, Coef(p.Cl), Coef(p.Cd))
+			row = append(row, Coef(p.Cl), Coef(p.Cd), Coef(p.Cm))
 		}
 		var marks []string
 		for _, f := range r.sweepFlags(i) {
@@ -537,6 +540,13 @@ func (r *writer) forceCurve() {
 	for i := range res.Sweep {
 		fc.Marked = append(fc.Marked, len(r.sweepFlags(i)) > 0)
 	}
+	what := "the sweep's Cl"
+	if len(res.SweepCoupled) == len(res.Sweep) {
+		for _, c := range res.SweepCoupled {
+			fc.ClViscous = append(fc.ClViscous, c.Cl) // NaN unless converged
+		}
+		what = "the sweep's viscous Cl (the inviscid load dashed for comparison)"
+	}
 	pl, err := figure.ForcePlot(fc)
 	if err != nil {
 		return
@@ -544,6 +554,6 @@ func (r *writer) forceCurve() {
 	r.image(func(w io.Writer, win, hin float64) error {
 		return figure.WritePlot(w, pl, figure.FormatPNG, win, hin, FigureDPI)
 	},
-		"force", fmt.Sprintf("%s against the angle of attack at %s km/h: the sweep's Cl × q × reference chord%s, two-dimensional (no end effects).",
-			fc.Name, num(model.MpsToKmh(st.Flow.SpeedMPS), 0), map[bool]string{true: " × span", false: " per metre of span"}[f.SpanM > 0]), figureHMM*0.8)
+		"force", fmt.Sprintf("%s against the angle of attack at %s km/h: %s × q × reference chord%s, two-dimensional (no end effects).",
+			fc.Name, num(model.MpsToKmh(st.Flow.SpeedMPS), 0), what, map[bool]string{true: " × span", false: " per metre of span"}[f.SpanM > 0]), figureHMM*0.8)
 }
