@@ -249,7 +249,8 @@ func (w *Workbench) writeOutline(s outlineSettings) exportJob {
 }
 
 // writeBoundaryLayer gathers the current solution (UI goroutine); the job
-// writes its boundary-layer quantities.
+// writes its boundary-layer quantities: the coupled viscous solution's
+// stations when it is on, the one-way estimate's otherwise.
 func (w *Workbench) writeBoundaryLayer() exportJob {
 	res, _, _ := w.ctl.Result()
 	meta := tableMetadata(w.ctl.Study(), res, w.app.Metadata().Version)
@@ -258,12 +259,16 @@ func (w *Workbench) writeBoundaryLayer() exportJob {
 		if res == nil {
 			return nil, errNoResult
 		}
-		if res.Viscous == nil {
-			return nil, errors.New("no boundary layer to export: turn on the boundary-layer estimate in the Flow tab")
+		write := func(out io.Writer) error { return format.WriteBoundaryLayerTable(out, meta, res.Viscous) }
+		switch c := res.Coupled; {
+		case c != nil && (!c.Converged || c.Detail == nil):
+			return nil, errors.New("no boundary layer to export: the viscous solution did not converge at this angle of attack")
+		case c != nil:
+			write = func(out io.Writer) error { return format.WriteCoupledBoundaryLayerTable(out, meta, c.Detail) }
+		case res.Viscous == nil:
+			return nil, errors.New("no boundary layer to export: turn on the viscous solution in the Flow tab")
 		}
-		return []string{name}, export.WriteFileAtomic(filepath.Join(dir, name), func(out io.Writer) error {
-			return format.WriteBoundaryLayerTable(out, meta, res.Viscous)
-		})
+		return []string{name}, export.WriteFileAtomic(filepath.Join(dir, name), write)
 	}
 }
 

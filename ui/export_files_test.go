@@ -128,3 +128,28 @@ func TestOutlineFieldsApplyOnCommit(t *testing.T) {
 		t.Errorf("settings %+v, %v; want a spar at 0.3 of 8 mm", s, err)
 	}
 }
+
+// With the coupled viscous solution on (the demo as it opens), the
+// boundary-layer table holds its stations: it refused them, asking for the
+// one-way estimate.
+func TestExportBoundaryLayerCoupled(t *testing.T) {
+	w := newDemoBench(t)
+	if c := current(t, w).Coupled; c == nil || !c.Converged {
+		t.Fatalf("the demo opens without a converged coupled result: %+v", c)
+	}
+	dir := t.TempDir()
+	files, err := w.writeBoundaryLayer()(dir)
+	if err != nil || len(files) != 1 {
+		t.Fatalf("wrote %v, %v", files, err)
+	}
+	b, err := os.ReadFile(filepath.Join(dir, files[0]))
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := string(b)
+	for _, want := range []string{"shear_stress_coefficient", "turbulent", "wake"} {
+		if !strings.Contains(s, want) {
+			t.Errorf("the coupled boundary-layer table lacks %q", want)
+		}
+	}
+}
