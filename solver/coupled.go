@@ -520,6 +520,10 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	}
 	out.attempts, out.warmRejected = &attempts{}, warmRejected
 	memo.put(key, out)
+	// Nothing iterates on cs again (the trip ladder and the release of
+	// held transition start states of their own): its workspace goes
+	// to the next attempt.
+	cs.work.release()
 	return out, nil
 }
 

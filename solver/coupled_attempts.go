@@ -59,7 +59,7 @@ func (a *attempts) put(k attemptKey, r *CoupledSolution) {
 		return
 	}
 	if !r.Converged && r.state != nil {
-		r.state.work = newtonWork{}
+		r.state.work.release()
 	}
 	a.mu.Lock()
 	defer a.mu.Unlock()

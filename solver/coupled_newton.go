@@ -3,6 +3,7 @@ package solver
 import (
 	"context"
 	"math"
+	"sync"
 
 	bl "sectionbench/solver/boundarylayer"
 )
@@ -555,11 +556,39 @@ func (w *newtonWork) size(n int) {
 	if w.n == n {
 		return
 	}
+	if p, ok := workPool.Get().(*newtonWork); ok && p.n == n {
+		// A finished solution's workspace: every slice is written before
+		// it is read; its factors belong to another matrix.
+		p.dm.fresh = true
+		p.speeds = w.speeds
+		p.dm.factorisations, p.dm.krylovSolves, p.dm.krylovIterations = w.dm.factorisations, w.dm.krylovSolves, w.dm.krylovIterations
+		*w = *p
+		return
+	}
 	*w = newtonWork{
 		n: n, p: make([][2]float64, n), q: make([]float64, 2*n*n), mm: make([]float64, n*n),
 		bm: make([]float64, n), w: make([]float64, 3*n), dm: w.dm, dc: make([]float64, n), dth: make([]float64, n),
 		c0: make([]float64, n), t0: make([]float64, n), m0: make([]float64, n), ev: make([]stationEval, n), speeds: w.speeds,
 	}
+}
+
+// workPool holds the Newton workspaces of solutions that have stopped
+// iterating (release), a few n² numbers each: a polar lays out a new
+// state at every attempt, and allocating and clearing these (the
+// operating system's fresh pages) cost a tenth of a two-element polar.
+var workPool sync.Pool
+
+// release hands the workspace to workPool and leaves w empty (a state
+// iterated again takes one there or makes its own).
+func (w *newtonWork) release() {
+	if w.n == 0 {
+		return
+	}
+	p := new(newtonWork)
+	*p = *w
+	p.speeds = speedCache{}
+	workPool.Put(p)
+	*w = newtonWork{}
 }
 
 // evalStation fills ev with station j's state and closures (kind k) at

@@ -315,23 +315,23 @@ func (cs *coupledState) buildSensitivities() {
 			terms[r.cols.wake0[k]+j] = []sigmaTerm{{w0 + hi, h}, {w0 + lo, -h}}
 		}
 	}
-	row := make([]float64, ncol)
+	row, ru, rl := make([]float64, ncol), make([]float64, ncol), make([]float64, ncol)
 	for i := range cs.st {
 		s := &cs.st[i]
 		switch {
 		case s.side == sideWake && s.wakeStart:
 			u, l := &cs.st[s.prev[0]], &cs.st[s.prev[1]]
-			ru, rl := cs.sigmaRow(u), cs.sigmaRow(l)
+			cs.sigmaRow(u, ru)
+			cs.sigmaRow(l, rl)
 			for c := range row {
 				row[c] = 0.5 * (ru[c] + rl[c])
 			}
 			cs.ue0[i] = 0.5 * (cs.ue0Of(u) + cs.ue0Of(l))
 		default:
-			copy(row, cs.sigmaRow(s))
+			cs.sigmaRow(s, row)
 			cs.ue0[i] = cs.ue0Of(s)
 		}
-		d := cs.d[i*n : (i+1)*n]
-		clear(d)
+		d := cs.d[i*n : (i+1)*n] // zero (made above)
 		for c, v := range row {
 			if v == 0 {
 				continue
@@ -397,15 +397,16 @@ func speedNode(e *elemGeom, i int) int {
 	return i
 }
 
-// sigmaRow returns ∂Ue/∂σ of a body or non-first wake station.
-func (cs *coupledState) sigmaRow(s *station) []float64 {
+// sigmaRow writes ∂Ue/∂σ of a body or non-first wake station into out
+// (one entry per source column).
+func (cs *coupledState) sigmaRow(s *station, out []float64) {
 	r := cs.resp
 	ncol := r.cols.n
-	out := make([]float64, ncol)
+	out = out[:ncol]
 	if s.side == sideWake {
 		row := r.cols.wake0[s.elem] - r.cols.body + s.node
 		copy(out, r.wakeUt.Data[row*ncol:(row+1)*ncol])
-		return out
+		return
 	}
 	e := &cs.geo.elems[s.elem]
 	a, b, wb := cs.speedNodes(s)
@@ -415,10 +416,10 @@ func (cs *coupledState) sigmaRow(s *station) []float64 {
 	}
 	ra := r.gam.Data[(e.u0+a)*ncol : (e.u0+a+1)*ncol]
 	rb := r.gam.Data[(e.u0+b)*ncol : (e.u0+b+1)*ncol]
+	ra, rb = ra[:len(out)], rb[:len(out)]
 	for c := range out {
 		out[c] = sg * ((1-wb)*ra[c] + wb*rb[c])
 	}
-	return out
 }
 
 // ue0Of returns the inviscid edge velocity of a body or non-first wake
