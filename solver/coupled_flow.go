@@ -1,6 +1,9 @@
 package solver
 
-import "sync"
+import (
+	"slices"
+	"sync"
+)
 
 // coupledFlow is what a coupled solution at one angle needs of the
 // inviscid flow and what costs most to build (a third of a warm-started
@@ -11,6 +14,49 @@ type coupledFlow struct {
 	sol   *Solution
 	wakes []*wakeGeom
 	resp  *sourceResponse
+
+	mu   sync.Mutex
+	sens []*sensitivities // the layouts' most recent last (layoutSensitivities)
+}
+
+// sensitivities are the inviscid edge velocities ue0 and their
+// sensitivities d = ∂Ue/∂m of one layout of the stations on a flow, which
+// its stagnation panels (stag, per element) determine
+// (buildSensitivities). Never written once built.
+type sensitivities struct {
+	stag   []int
+	ue0, d []float64
+}
+
+// sensCacheSize is how many layouts' sensitivities a flow keeps: the
+// attempts at one angle lay the stations out at the inviscid stagnation
+// points, at a warm start's and at the coupled ones, and go back to them
+// (a start from the march after a failed warm start, a stagnation point
+// moving back and forth between two panels); building d, n² numbers,
+// came to a tenth of a two-element polar, most of it for layouts built
+// before.
+const sensCacheSize = 4
+
+// layoutSensitivities returns the flow's sensitivities of the layout at
+// stag, built by build if the flow does not hold them.
+func (f *coupledFlow) layoutSensitivities(stag []int, build func() *sensitivities) *sensitivities {
+	f.mu.Lock()
+	for _, s := range f.sens {
+		if slices.Equal(s.stag, stag) {
+			f.mu.Unlock()
+			return s
+		}
+	}
+	f.mu.Unlock()
+	s := build()
+	s.stag = slices.Clone(stag)
+	f.mu.Lock()
+	if len(f.sens) == sensCacheSize {
+		f.sens = append(f.sens[:0:0], f.sens[1:]...)
+	}
+	f.sens = append(f.sens, s)
+	f.mu.Unlock()
+	return s
 }
 
 // newCoupledFlow traces the wakes of the inviscid solution sol and builds

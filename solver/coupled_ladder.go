@@ -44,7 +44,7 @@ func (cs *coupledState) freeSides() [2]bool {
 // opt, sharing cs's wakes and source sensitivities (the costly part), laid
 // out afresh with zeroed variables.
 func (cs *coupledState) sibling(opt CoupledOptions) *coupledState {
-	n := stateOn(&coupledFlow{sol: cs.sol, wakes: cs.wakes, resp: cs.resp}, opt)
+	n := stateOn(cs.flow, opt)
 	n.strategy = cs.strategy
 	return n
 }

@@ -69,12 +69,40 @@ func (s *dmSolver) size(n int) {
 	}
 }
 
+// linearSystem is the matrix M of a system M x = b: its product with a
+// vector (y = M x), and M itself (n × n, row-major) when it is to be
+// factorised.
+type linearSystem interface {
+	mul(x, y []float64)
+	dense() []float64
+}
+
+// denseSystem is a linearSystem held as its matrix.
+type denseSystem struct {
+	m []float64
+	n int
+}
+
+func (d denseSystem) mul(x, y []float64) {
+	blas64.Gemv(blas.NoTrans, 1, blas64.General{Rows: d.n, Cols: d.n, Stride: d.n, Data: d.m},
+		blas64.Vector{N: d.n, Inc: 1, Data: x}, 0, blas64.Vector{N: d.n, Inc: 1, Data: y})
+}
+
+func (d denseSystem) dense() []float64 { return d.m }
+
 // solve solves m x = b (m n×n row-major, kept) in place in b; ok is false
 // if m is singular.
 func (s *dmSolver) solve(m []float64, n int, b []float64) (ok bool) {
+	return s.solveSystem(denseSystem{m, n}, n, b)
+}
+
+// solveSystem solves M x = b (n unknowns) in place in b: by GMRES
+// through the kept factors, or, failing that, by factorising M (whose
+// matrix it asks for only then); ok is false if M is singular.
+func (s *dmSolver) solveSystem(sys linearSystem, n int, b []float64) (ok bool) {
 	s.size(n)
 	if !s.fresh {
-		if it, conv := s.krylov(m, b); conv {
+		if it, conv := s.krylov(sys, b); conv {
 			s.krylovSolves++
 			s.krylovIterations += it
 			if it >= dmSlowKrylov {
@@ -84,7 +112,7 @@ func (s *dmSolver) solve(m []float64, n int, b []float64) (ok bool) {
 			return true
 		}
 	}
-	copy(s.lu, m)
+	copy(s.lu, sys.dense())
 	s.factorisations++
 	if !lapack64.Getrf(blas64.General{Rows: n, Cols: n, Stride: n, Data: s.lu}, s.ipiv) {
 		s.fresh = true
@@ -95,12 +123,11 @@ func (s *dmSolver) solve(m []float64, n int, b []float64) (ok bool) {
 	return true
 }
 
-// krylov runs GMRES on m x = b from x = 0, right-preconditioned by the
+// krylov runs GMRES on M x = b from x = 0, right-preconditioned by the
 // kept factors, leaving x in s.x; conv reports whether the residual fell
 // below dmTolerance ‖b‖, checked on the true residual b − m x.
-func (s *dmSolver) krylov(m []float64, b []float64) (iters int, conv bool) {
+func (s *dmSolver) krylov(sys linearSystem, b []float64) (iters int, conv bool) {
 	n := s.n
-	a := blas64.General{Rows: n, Cols: n, Stride: n, Data: m}
 	beta := math.Sqrt(dot(b, b))
 	if !(beta > 0) || math.IsInf(beta, 0) {
 		return 0, false
@@ -120,7 +147,7 @@ func (s *dmSolver) krylov(m []float64, b []float64) (iters int, conv bool) {
 		copy(zj, vj)
 		s.precondition(zj)
 		w := v[(j+1)*n : (j+2)*n]
-		blas64.Gemv(blas.NoTrans, 1, a, blas64.Vector{N: n, Inc: 1, Data: zj}, 0, blas64.Vector{N: n, Inc: 1, Data: w})
+		sys.mul(zj, w)
 		// Modified Gram–Schmidt, twice (the basis stays orthogonal
 		// to rounding even as the residual falls by eleven orders).
 		hj := h[j*(k+1) : (j+1)*(k+1)] // column j of H
@@ -175,8 +202,10 @@ func (s *dmSolver) krylov(m []float64, b []float64) (iters int, conv bool) {
 		axpy(y[i], z[i*n:(i+1)*n], x)
 	}
 	// The true residual.
-	copy(s.w, b)
-	blas64.Gemv(blas.NoTrans, -1, a, blas64.Vector{N: n, Inc: 1, Data: x}, 1, blas64.Vector{N: n, Inc: 1, Data: s.w})
+	sys.mul(x, s.w)
+	for i, bi := range b {
+		s.w[i] = bi - s.w[i]
+	}
 	rn := math.Sqrt(dot(s.w, s.w))
 	return j, rn <= target && !math.IsNaN(rn)
 }

@@ -5,6 +5,9 @@ import (
 	"math"
 	"sync"
 
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+
 	bl "sectionbench/solver/boundarylayer"
 )
 
@@ -25,8 +28,11 @@ import (
 // station i's three equations become A_i L_i + W_i Δm = r_i, A_i being 3×2;
 // the combination z = a1 × a2 orthogonal to A's columns gives one equation
 // in Δm alone, and L_i = A⁺ (r_i − W_i Δm). The Δm equations form a dense
-// system of one row per station, solved by LU; back-substitution gives the
-// rest. The cost per iteration is O(n²) plus the O(n³/3) of that LU.
+// system of one row per station, solved by GMRES through an earlier
+// step's LU factors (coupled_linear.go) with products that never form it,
+// or by factorising it; back-substitution gives the rest. The cost per
+// iteration is O(n²) (products with D), plus the O(n³/3) of the LU when
+// one is made.
 
 // Limits of one Newton update (as fractions of the current values): a
 // larger step is scaled down as a whole so no θ, m or √Cτ changes by more
@@ -529,6 +535,9 @@ type newtonWork struct {
 	mm       []float64
 	bm       []float64
 	w        []float64 // W, three rows of n
+	lin      []stationLin
+	u, y     []float64    // D x and M x in mulReduced
+	qx       [][2]float64 // Q_i x in mulReduced
 	dm       dmSolver
 	dc, dth  []float64
 	c0, t0   []float64
@@ -567,7 +576,8 @@ func (w *newtonWork) size(n int) {
 	}
 	*w = newtonWork{
 		n: n, p: make([][2]float64, n), q: make([]float64, 2*n*n), mm: make([]float64, n*n),
-		bm: make([]float64, n), w: make([]float64, 3*n), dm: w.dm, dc: make([]float64, n), dth: make([]float64, n),
+		bm: make([]float64, n), w: make([]float64, 3*n), dm: w.dm,
+		lin: make([]stationLin, n), u: make([]float64, n), y: make([]float64, n), qx: make([][2]float64, n), dc: make([]float64, n), dth: make([]float64, n),
 		c0: make([]float64, n), t0: make([]float64, n), m0: make([]float64, n), ev: make([]stationEval, n), speeds: w.speeds,
 	}
 }
@@ -618,14 +628,24 @@ func (cs *coupledState) stationVars(j int, v [4]float64) bl.Station {
 // reduced system is singular or not finite. The returned slices are the
 // workspace's, valid until the next step; the residuals' norm at the
 // state it linearised about is left in cs.work.residual.
+//
+// The reduced Δm system M Δm = b is kept in the station-by-station form
+// its elimination produces (stationLin): station i's equations in Δm are
+// W_i Δm = r_i − B_i L_p with
+//
+//	W_i Δm = Σ_q (∂R_i/∂m_q Δm_q + λ f_q ∂R_i/∂Ue_q (D Δm)_{r_q}) − Σ_{q pred} B_{i,q} Q_q Δm,
+//
+// Q_i Δm = A⁺_i W_i Δm and row i of M Δm = z_i · W_i Δm. A product M x
+// then costs one product with D and O(n) (mulReduced), where forming M
+// costs about forty n² operations; M is formed (formReduced) only when
+// dmSolver factorises it, and the back-substitution L_i = P_i − Q_i Δm
+// takes the same recursion.
 func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 	n := len(cs.st)
 	ue := cs.ueLayers()
 	wk := &cs.work
 	wk.size(n)
-	p, q, mm, bm := wk.p, wk.q, wk.mm, wk.bm
-	clear(mm)
-	clear(bm)
+	p, bm := wk.p, wk.bm
 	coup := cs.coupling()
 	// Each station's closures, at its own regime, once.
 	for j := range n {
@@ -674,38 +694,27 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 		for _, v := range r0 {
 			norm += v * v
 		}
-		// W = direct ∂R/∂m plus ∂R/∂Ue · D rows.
-		w := wk.w
-		clear(w)
+		sl := &wk.lin[i]
+		*sl = stationLin{idx: l.idx, n: l.n}
 		var rhs [3]float64
 		for e := range 3 {
 			rhs[e] = -r0[e]
 		}
 		for qq := 0; qq < l.n; qq++ {
-			j := l.idx[qq]
-			r, f := cs.layerCoupling(j)
-			drow := cs.d[r*n : (r+1)*n]
+			r, f := cs.layerCoupling(l.idx[qq])
+			sl.row[qq] = r
 			for e := range 3 {
-				we := w[e*n : (e+1)*n]
-				we[j] += jac[qq][2][e]
-				if a := coup * f * jac[qq][3][e]; a != 0 {
-					axpy(a, drow, we) // we[c] += a·drow[c], as the loop it replaced
-				}
+				sl.dm[qq][e] = jac[qq][2][e]
+				sl.du[qq][e] = coup * f * jac[qq][3][e]
 			}
 		}
-		// Eliminate the predecessors' local unknowns.
+		// The predecessors' local unknowns, L_p = P_p − Q_p Δm.
 		for qq := 1; qq < l.n; qq++ {
 			j := l.idx[qq]
 			for e := range 3 {
 				b0, b1 := jac[qq][0][e], jac[qq][1][e]
+				sl.b[qq][0][e], sl.b[qq][1][e] = b0, b1
 				rhs[e] -= b0*p[j][0] + b1*p[j][1]
-				we := w[e*n : (e+1)*n]
-				q0 := q[(2*j)*n : (2*j+1)*n]
-				q1 := q[(2*j+1)*n : (2*j+2)*n]
-				q0, q1 = q0[:len(we)], q1[:len(we)]
-				for c := range we {
-					we[c] -= b0*q0[c] + b1*q1[c]
-				}
 			}
 		}
 		// A = [∂R/∂c_i, ∂R/∂θ_i] (3×2).
@@ -717,32 +726,20 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 			return nil, nil, nil, false
 		}
 		for e := range 3 {
-			z[e] /= zn
+			sl.z[e] = z[e] / zn
 		}
-		row := mm[i*n : (i+1)*n]
-		w0, w1, w2 := w[:n], w[n:2*n], w[2*n:3*n]
-		w0, w1, w2 = w0[:len(row)], w1[:len(row)], w2[:len(row)]
-		for c := range row {
-			row[c] += z[0]*w0[c] + z[1]*w1[c] + z[2]*w2[c]
-		}
-		bm[i] += z[0]*rhs[0] + z[1]*rhs[1] + z[2]*rhs[2]
+		bm[i] = sl.z[0]*rhs[0] + sl.z[1]*rhs[1] + sl.z[2]*rhs[2]
 		// A⁺ = (AᵀA)⁻¹ Aᵀ.
 		g00 := a0[0]*a0[0] + a0[1]*a0[1] + a0[2]*a0[2]
 		g01 := a0[0]*a1[0] + a0[1]*a1[1] + a0[2]*a1[2]
 		g11 := a1[0]*a1[0] + a1[1]*a1[1] + a1[2]*a1[2]
 		det := g00*g11 - g01*g01
-		var pin [2][3]float64
 		for e := range 3 {
-			pin[0][e] = (g11*a0[e] - g01*a1[e]) / det
-			pin[1][e] = (-g01*a0[e] + g00*a1[e]) / det
+			sl.pin[0][e] = (g11*a0[e] - g01*a1[e]) / det
+			sl.pin[1][e] = (-g01*a0[e] + g00*a1[e]) / det
 		}
 		for r := range 2 {
-			p[i][r] = pin[r][0]*rhs[0] + pin[r][1]*rhs[1] + pin[r][2]*rhs[2]
-			qr := q[(2*i+r)*n : (2*i+r+1)*n]
-			qr = qr[:len(w0)]
-			for c := range qr {
-				qr[c] = pin[r][0]*w0[c] + pin[r][1]*w1[c] + pin[r][2]*w2[c]
-			}
+			p[i][r] = sl.pin[r][0]*rhs[0] + sl.pin[r][1]*rhs[1] + sl.pin[r][2]*rhs[2]
 		}
 	}
 	wk.residual = math.Sqrt(norm)
@@ -750,26 +747,129 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 		wk.residual = math.Inf(1)
 	}
 	// Solve the Δm system.
-	if !wk.dm.solve(mm, n, bm) {
+	if !wk.dm.solveSystem(reducedSystem{cs}, n, bm) {
 		return nil, nil, nil, false
 	}
 	dm = bm
 	dc, dth = wk.dc, wk.dth
+	qx := wk.qx
+	cs.mulReduced(dm, wk.y)
 	for i := range n {
-		q0 := q[(2*i)*n : (2*i+1)*n]
-		q1 := q[(2*i+1)*n : (2*i+2)*n]
-		q0, q1 = q0[:len(dm)], q1[:len(dm)]
-		s0, s1 := p[i][0], p[i][1]
-		for c, v := range dm {
-			s0 -= q0[c] * v
-			s1 -= q1[c] * v
-		}
+		s0, s1 := p[i][0]-qx[i][0], p[i][1]-qx[i][1]
 		dc[i], dth[i] = s0, s1
 		if math.IsNaN(s0) || math.IsNaN(s1) || math.IsNaN(dm[i]) {
 			return nil, nil, nil, false
 		}
 	}
 	return dc, dth, dm, true
+}
+
+// stationLin is station i's part of the reduced Δm system of a Newton
+// step (newtonStep): its participants (itself, then its predecessors),
+// per participant q the derivatives of its three residuals with respect
+// to m_q (dm) and, through row r_q of D, to the edge velocity (du, times
+// the coupling λ and layerCoupling's factor), the predecessors' ∂R/∂(c,
+// θ) (b[q][v]), the combination z orthogonal to A_i's columns and A_i's
+// pseudo-inverse.
+type stationLin struct {
+	idx [3]int
+	n   int
+	row [3]int
+	dm  [3][3]float64
+	du  [3][3]float64
+	b   [3][2][3]float64
+	z   [3]float64
+	pin [2][3]float64
+}
+
+// reducedSystem is the Δm system of the state's last newtonStep, for
+// dmSolver.
+type reducedSystem struct{ cs *coupledState }
+
+func (r reducedSystem) mul(x, y []float64) { r.cs.mulReduced(x, y) }
+func (r reducedSystem) dense() []float64   { return r.cs.formReduced() }
+
+// mulReduced sets y = M x for the reduced system of the last newtonStep
+// (see there), leaving Q_i x in the workspace's qx.
+func (cs *coupledState) mulReduced(x, y []float64) {
+	n := len(cs.st)
+	wk := &cs.work
+	u, qx := wk.u, wk.qx
+	blas64.Gemv(blas.NoTrans, 1, blas64.General{Rows: n, Cols: n, Stride: n, Data: cs.d[:n*n]},
+		blas64.Vector{N: n, Inc: 1, Data: x}, 0, blas64.Vector{N: n, Inc: 1, Data: u})
+	for i := range n {
+		sl := &wk.lin[i]
+		var we [3]float64
+		for q := 0; q < sl.n; q++ {
+			xj, uj := x[sl.idx[q]], u[sl.row[q]]
+			for e := range 3 {
+				we[e] += sl.dm[q][e]*xj + sl.du[q][e]*uj
+			}
+		}
+		for q := 1; q < sl.n; q++ {
+			qj := qx[sl.idx[q]]
+			for e := range 3 {
+				we[e] -= sl.b[q][0][e]*qj[0] + sl.b[q][1][e]*qj[1]
+			}
+		}
+		y[i] = sl.z[0]*we[0] + sl.z[1]*we[1] + sl.z[2]*we[2]
+		for r := range 2 {
+			qx[i][r] = sl.pin[r][0]*we[0] + sl.pin[r][1]*we[1] + sl.pin[r][2]*we[2]
+		}
+	}
+}
+
+// formReduced returns M of the last newtonStep (n × n, row-major, the
+// workspace's), formed row by row: W_i as above with the rows of D and
+// the predecessors' Q rows, M's row z_i · W_i and Q_i = A⁺_i W_i.
+func (cs *coupledState) formReduced() []float64 {
+	n := len(cs.st)
+	wk := &cs.work
+	q, mm, w := wk.q, wk.mm, wk.w
+	for i := range n {
+		sl := &wk.lin[i]
+		clear(w)
+		for qq := 0; qq < sl.n; qq++ {
+			j := sl.idx[qq]
+			drow := cs.d[sl.row[qq]*n : (sl.row[qq]+1)*n]
+			for e := range 3 {
+				we := w[e*n : (e+1)*n]
+				we[j] += sl.dm[qq][e]
+				if a := sl.du[qq][e]; a != 0 {
+					axpy(a, drow, we)
+				}
+			}
+		}
+		for qq := 1; qq < sl.n; qq++ {
+			j := sl.idx[qq]
+			q0 := q[(2*j)*n : (2*j+1)*n]
+			q1 := q[(2*j+1)*n : (2*j+2)*n]
+			for e := range 3 {
+				b0, b1 := sl.b[qq][0][e], sl.b[qq][1][e]
+				we := w[e*n : (e+1)*n]
+				q0, q1 = q0[:len(we)], q1[:len(we)]
+				for c := range we {
+					we[c] -= b0*q0[c] + b1*q1[c]
+				}
+			}
+		}
+		row := mm[i*n : (i+1)*n]
+		w0, w1, w2 := w[:n], w[n:2*n], w[2*n:3*n]
+		w0, w1, w2 = w0[:len(row)], w1[:len(row)], w2[:len(row)]
+		z := sl.z
+		for c := range row {
+			row[c] = z[0]*w0[c] + z[1]*w1[c] + z[2]*w2[c]
+		}
+		for r := range 2 {
+			pin := sl.pin[r]
+			qr := q[(2*i+r)*n : (2*i+r+1)*n]
+			qr = qr[:len(w0)]
+			for c := range qr {
+				qr[c] = pin[0]*w0[c] + pin[1]*w1[c] + pin[2]*w2[c]
+			}
+		}
+	}
+	return mm
 }
 
 // luSolve solves A x = b in place for one right-hand side b, from the LU

@@ -59,6 +59,7 @@ type sigmaTerm struct {
 type coupledState struct {
 	strategy strategy
 	warmUe   []float64 // a warm start's edge velocities, carried onto this layout (warmFrom)
+	flow     *coupledFlow
 	sol      *Solution
 	geo      *geometry
 	opt      CoupledOptions
@@ -101,7 +102,7 @@ func newCoupledState(sol *Solution, opt CoupledOptions) (*coupledState, error) {
 // inviscid stagnation points.
 func stateOn(f *coupledFlow, opt CoupledOptions) *coupledState {
 	geo := f.sol.sys.geo
-	cs := &coupledState{sol: f.sol, geo: geo, opt: opt, lam: 1, wakes: f.wakes, resp: f.resp}
+	cs := &coupledState{flow: f, sol: f.sol, geo: geo, opt: opt, lam: 1, wakes: f.wakes, resp: f.resp}
 	cs.re = opt.Re[0] / geo.elems[0].chord
 	cs.ncrit = opt.NCrit
 	if cs.ncrit <= 0 {
@@ -274,14 +275,23 @@ func (cs *coupledState) setTrips() {
 	}
 }
 
-// buildSensitivities sets ue0 and d = ∂Ue/∂m for the current layout.
+// buildSensitivities sets ue0 and d = ∂Ue/∂m for the current layout,
+// from the flow's if it built them before.
 func (cs *coupledState) buildSensitivities() {
+	s := cs.flow.layoutSensitivities(cs.stag, cs.newSensitivities)
+	cs.ue0, cs.d = s.ue0, s.d
+	cs.setRefFactors()
+}
+
+// newSensitivities builds ue0 and d = ∂Ue/∂m for the current layout.
+func (cs *coupledState) newSensitivities() *sensitivities {
 	geo, r := cs.geo, cs.resp
 	n := len(cs.st)
 	ncol := r.cols.n
-	// New slices, never written once built: snapshots share them.
-	cs.ue0 = make([]float64, n)
-	cs.d = make([]float64, n*n)
+	// New slices, never written once built: snapshots and the flow's
+	// other states share them.
+	ue0 := make([]float64, n)
+	dd := make([]float64, n*n)
 	// σ columns in terms of station mass defects.
 	terms := make([][]sigmaTerm, ncol)
 	stOfNode := func(k, node int) int {
@@ -326,12 +336,12 @@ func (cs *coupledState) buildSensitivities() {
 			for c := range row {
 				row[c] = 0.5 * (ru[c] + rl[c])
 			}
-			cs.ue0[i] = 0.5 * (cs.ue0Of(u) + cs.ue0Of(l))
+			ue0[i] = 0.5 * (cs.ue0Of(u) + cs.ue0Of(l))
 		default:
 			cs.sigmaRow(s, row)
-			cs.ue0[i] = cs.ue0Of(s)
+			ue0[i] = cs.ue0Of(s)
 		}
-		d := cs.d[i*n : (i+1)*n] // zero (made above)
+		d := dd[i*n : (i+1)*n] // zero (made above)
 		for c, v := range row {
 			if v == 0 {
 				continue
@@ -341,7 +351,7 @@ func (cs *coupledState) buildSensitivities() {
 			}
 		}
 	}
-	cs.setRefFactors()
+	return &sensitivities{ue0: ue0, d: dd}
 }
 
 // setRefFactors sets each near-stagnation station's refFactor
