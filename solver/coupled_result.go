@@ -13,7 +13,7 @@ import (
 func (cs *coupledState) result() *CoupledSolution {
 	sol := cs.sol
 	geo := cs.geo
-	ue := cs.ue()
+	ue, ul := cs.ue(), cs.ueLayers()
 	c, sn := sol.cosA, sol.sinA
 	out := &CoupledSolution{
 		AlphaDeg:   sol.AlphaDeg,
@@ -46,9 +46,9 @@ func (cs *coupledState) result() *CoupledSolution {
 		fyT += fy
 		ce.Cl = (-fx*sn + fy*c) / e.chord
 		ce.Cm = -m / (e.chord * e.chord)
-		ce.Upper = cs.surface(k, sideUpper, ue)
-		ce.Lower = cs.surface(k, sideLower, ue)
-		ce.Wake = cs.surface(k, sideWake, ue)
+		ce.Upper = cs.surface(k, sideUpper, ue, ul)
+		ce.Lower = cs.surface(k, sideLower, ue, ul)
+		ce.Wake = cs.surface(k, sideWake, ue, ul)
 		last := cs.base[k] + e.np + len(cs.wakes[k].nodes)
 		drag := bl.SquireYoung(cs.stationOf(last, math.Max(ue[last], 1e-6)))
 		ce.Cd = drag / e.chord
@@ -61,8 +61,15 @@ func (cs *coupledState) result() *CoupledSolution {
 	return out
 }
 
-// surface returns one side of element k.
-func (cs *coupledState) surface(k, side int, ue []float64) CoupledSurface {
+// surface returns one side of element k: each station's edge velocity and
+// Cp from the coupled edge velocities ue, its layer (δ*, H, Cf) on the
+// speeds its equations use, ul (ueLayers). The two differ at the stations
+// next to a stagnation point that moved by a panel or two from the
+// layout: their layers take the speed of a station further on, scaled
+// (ueLayers), while the coupled speed there is near zero or even
+// reversed; δ* = m/Ue on the latter read 3 to 27 chords there (the
+// two-element example at 3°).
+func (cs *coupledState) surface(k, side int, ue, ul []float64) CoupledSurface {
 	e := &cs.geo.elems[k]
 	sf := CoupledSurface{Transition: math.NaN(), Separation: math.NaN()}
 	var pos []model.Point
@@ -74,7 +81,7 @@ func (cs *coupledState) surface(k, side int, ue []float64) CoupledSurface {
 		if s.elem != k || s.side != side {
 			continue
 		}
-		u := math.Max(ue[i], 1e-6)
+		u := math.Max(ul[i], 1e-6)
 		st := cs.stationOf(i, u)
 		cl := bl.Eval(s.kind, st, cs.re)
 		p := model.Point{}

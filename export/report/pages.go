@@ -348,16 +348,27 @@ func (r *writer) sweepPage() {
 }
 
 func (r *writer) viscousPage() {
-	v := r.in.Result.Viscous
-	if v == nil {
+	res := r.in.Result
+	if v := res.Viscous; v != nil {
+		r.need(110 + 32)
+		r.heading("Boundary layer")
+		for i, e := range v.Elements {
+			sc := r.scene()
+			sc.Element = i
+			r.figure(figure.ViewBoundaryLayer, sc, fmt.Sprintf("Boundary layer on %s: momentum and displacement thickness, shape factor and skin friction; transition and separation marked.", e.Name), 110)
+		}
 		return
 	}
-	r.need(110 + 32)
-	r.heading("Boundary layer")
-	for i, e := range v.Elements {
-		sc := r.scene()
-		sc.Element = i
-		r.figure(figure.ViewBoundaryLayer, sc, fmt.Sprintf("Boundary layer on %s: momentum and displacement thickness, shape factor and skin friction; transition and separation marked.", e.Name), 110)
+	// The coupled viscous solution's layers, when it converged (a point
+	// that did not has no layers to show: the results page says so).
+	if c := res.Coupled; c != nil && c.Converged && c.Detail != nil {
+		r.need(110 + 32)
+		r.heading("Boundary layers (coupled viscous solution)")
+		for i, e := range c.Elements {
+			sc := r.scene()
+			sc.Element = i
+			r.figure(figure.ViewBoundaryLayer, sc, fmt.Sprintf("Boundary layers on %s and its wake, against arc length from the stagnation point: momentum and displacement thickness, shape factor, skin friction and the e^N amplification; transition and separation marked.", e.Name), 110)
+		}
 	}
 }
 
