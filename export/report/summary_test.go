@@ -280,7 +280,11 @@ func TestSummaryFromCoupledEngine(t *testing.T) {
 		}
 	}
 	text := pdfText(t, in)
-	for _, w := range []string{"Viscous solution (coupled)", newtons(h.LoadN), "viscous solution (coupled)"} {
+	// The boundary-layer page shows the coupled layers, and the load
+	// against α is the viscous one (both were the one-way estimate's or
+	// the inviscid only).
+	for _, w := range []string{"Viscous solution (coupled)", newtons(h.LoadN), "viscous solution (coupled)",
+		"Boundary layers (coupled viscous solution)", "the sweep's viscous Cl (the inviscid load dashed for comparison)"} {
 		if !strings.Contains(text, w) {
 			t.Errorf("report lacks %q", w)
 		}
