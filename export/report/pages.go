@@ -367,7 +367,7 @@ func (r *writer) viscousPage() {
 		for i, e := range c.Elements {
 			sc := r.scene()
 			sc.Element = i
-			r.figure(figure.ViewBoundaryLayer, sc, fmt.Sprintf("Boundary layers on %s and its wake, against arc length from the stagnation point: momentum and displacement thickness, shape factor, skin friction and the e^N amplification; transition and separation marked.", e.Name), 110)
+			r.figure(figure.ViewBoundaryLayer, sc, fmt.Sprintf("Boundary layers on %s, against arc length from the stagnation point: momentum and displacement thickness, shape factor, skin friction and the e^N amplification; transition and separation marked.", e.Name), 110)
 		}
 	}
 }
