@@ -349,26 +349,31 @@ func (r *writer) sweepPage() {
 
 func (r *writer) viscousPage() {
 	res := r.in.Result
-	if v := res.Viscous; v != nil {
-		r.need(110 + 32)
-		r.heading("Boundary layer")
-		for i, e := range v.Elements {
-			sc := r.scene()
-			sc.Element = i
-			r.figure(figure.ViewBoundaryLayer, sc, fmt.Sprintf("Boundary layer on %s: momentum and displacement thickness, shape factor and skin friction; transition and separation marked.", e.Name), 110)
+	var names []string
+	heading, caption := "Boundary layer", "Boundary layer on %s: momentum and displacement thickness, shape factor and skin friction; transition and separation marked."
+	switch c := res.Coupled; {
+	case res.Viscous != nil:
+		for _, e := range res.Viscous.Elements {
+			names = append(names, e.Name)
 		}
+	case c != nil && c.Converged && c.Detail != nil:
+		// The coupled viscous solution's layers, when it converged (a
+		// point that did not has no layers to show: the results page
+		// says so).
+		for _, e := range c.Elements {
+			names = append(names, e.Name)
+		}
+		heading, caption = "Boundary layers (coupled viscous solution)", "Boundary layers on %s, against arc length from the stagnation point: momentum and displacement thickness, shape factor, skin friction and the e^N amplification; transition and separation marked."
+	}
+	if len(names) == 0 {
 		return
 	}
-	// The coupled viscous solution's layers, when it converged (a point
-	// that did not has no layers to show: the results page says so).
-	if c := res.Coupled; c != nil && c.Converged && c.Detail != nil {
-		r.need(110 + 32)
-		r.heading("Boundary layers (coupled viscous solution)")
-		for i, e := range c.Elements {
-			sc := r.scene()
-			sc.Element = i
-			r.figure(figure.ViewBoundaryLayer, sc, fmt.Sprintf("Boundary layers on %s, against arc length from the stagnation point: momentum and displacement thickness, shape factor, skin friction and the e^N amplification; transition and separation marked.", e.Name), 110)
-		}
+	r.need(110 + 32)
+	r.heading(heading)
+	for i, name := range names {
+		sc := r.scene()
+		sc.Element = i
+		r.figure(figure.ViewBoundaryLayer, sc, fmt.Sprintf(caption, name), 110)
 	}
 }
 
