@@ -85,7 +85,7 @@ func Plausibility(f PointFacts) []Flag {
 		}
 	}
 	if f.CpMin < CpMinPlausible {
-		flags = append(flags, Flag{FlagSuction, fmt.Sprintf("suction peak Cp %s is beyond the about %s real flows sustain at these Reynolds numbers: the wing would separate and give far less force than shown", minus(fmt.Sprintf("%.1f", f.CpMin)), minus(fmt.Sprint(CpMinPlausible)))})
+		flags = append(flags, Flag{FlagSuction, fmt.Sprintf("suction peak Cp %s is beyond the about %s real flows sustain at these Reynolds numbers: the wing would separate and give far less force than shown", Minus(fmt.Sprintf("%.1f", f.CpMin)), Minus(fmt.Sprint(CpMinPlausible)))})
 	}
 	if !math.IsNaN(f.HOverC) && f.HOverC < GroundHOverCMin {
 		flags = append(flags, Flag{FlagGround, fmt.Sprintf("ground clearance %.2f chords is below about %.1f, where real wings lose downforce as the suction side separates; this model shows only the rise", f.HOverC, GroundHOverCMin)})
@@ -93,8 +93,10 @@ func Plausibility(f PointFacts) []Flag {
 	return flags
 }
 
-// minus writes a number's sign as a true minus, as every message does.
-func minus(s string) string { return strings.Replace(s, "-", "−", 1) }
+// Minus writes the signs of a formatted number s (its own and its
+// exponent's) as true minus signs, U+2212, as every label and message
+// does.
+func Minus(s string) string { return strings.ReplaceAll(s, "-", "−") }
 
 // FlagWords joins the kinds of flags for a status line or table cell.
 func FlagWords(flags []Flag) string {

@@ -261,7 +261,7 @@ func estimate(x float64) string {
 		return "0"
 	}
 	s := strconv.FormatFloat(x, 'g', 2, 64)
-	return strings.ReplaceAll(s, "-", "−")
+	return model.Minus(s)
 }
 
 // signed formats a change with its sign, "—" when there is none.

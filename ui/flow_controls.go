@@ -208,9 +208,9 @@ func sci(x float64, prec int) string {
 	mant, exp, _ := strings.Cut(s, "e")
 	n, err := strconv.Atoi(exp)
 	if err != nil || n == 0 {
-		return strings.Replace(mant, "-", "−", 1)
+		return model.Minus(mant)
 	}
-	return strings.Replace(mant, "-", "−", 1) + "×10" + superscript(n)
+	return model.Minus(mant) + "×10" + superscript(n)
 }
 
 func superscript(n int) string {

@@ -14,7 +14,7 @@ func fixed(x float64, prec int) string {
 	if s == "-"+strconv.FormatFloat(0, 'f', prec, 64) {
 		s = s[1:]
 	}
-	return strings.Replace(s, "-", "−", 1)
+	return model.Minus(s)
 }
 
 // parseNumber reads a number typed by the user, accepting a true minus

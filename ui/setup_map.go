@@ -176,7 +176,7 @@ func describePoint(st *model.Study, vars []model.SetupVariable, p *engine.Point,
 
 // sig formats a value to four significant digits with a true minus sign.
 func sig(v float64) string {
-	return strings.Replace(fmt.Sprintf("%.4g", v), "-", "−", 1)
+	return model.Minus(fmt.Sprintf("%.4g", v))
 }
 
 // setupMaps is the Maps tab.

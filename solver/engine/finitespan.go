@@ -7,7 +7,6 @@ import (
 	"math"
 	"slices"
 	"strconv"
-	"strings"
 
 	"sectionbench/model"
 	"sectionbench/solver/liftingline"
@@ -154,7 +153,7 @@ func (fs *FiniteSpan) ExtensionNote() string {
 	if fs.PolarExtended == 0 {
 		return ""
 	}
-	from := strings.Replace(strconv.FormatFloat(fs.PolarExtendedFromDeg, 'f', -1, 64), "-", "−", 1)
+	from := model.Minus(strconv.FormatFloat(fs.PolarExtendedFromDeg, 'f', -1, 64))
 	return fmt.Sprintf("The viscous solution converged at no angle below %s°: for the %d below it the section polar takes the panel method's lift less the viscous loss at %s°, and its drag.",
 		from, fs.PolarExtended, from)
 }

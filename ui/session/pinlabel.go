@@ -150,5 +150,5 @@ func groundLabel(g model.Ground) string {
 // Number formats a setting compactly, as the workbench shows it: 0.5, 4,
 // −2.5.
 func Number(x float64) string {
-	return strings.Replace(strconv.FormatFloat(x, 'g', 4, 64), "-", "−", 1)
+	return model.Minus(strconv.FormatFloat(x, 'g', 4, 64))
 }
