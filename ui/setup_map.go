@@ -36,6 +36,7 @@ type mapRun struct {
 	limit    float64
 	forces   bool
 	inviscid bool // asked for the panel method only
+	compared bool // each point compared with a single solve
 	done     int
 	status   string // how the run ended; "" while it runs
 }
@@ -84,18 +85,18 @@ func (r *mapRun) grid(q engine.Quantity) figures.SetupGrid {
 		Title:  strings.ToUpper(q.Label(inv, r.forces)[:1]) + q.Label(inv, r.forces)[1:],
 		XLabel: r.vars[0].Label(r.st), YLabel: r.vars[1].Label(r.st), ZLabel: unitOf(q.Label(inv, r.forces)),
 		X: r.axes[0], Y: r.axes[1],
-		Z: make([][]float64, nx), Separated: make([][]bool, nx), Failed: make([][]bool, nx), FromNeighbour: make([][]bool, nx),
+		Z: make([][]float64, nx), Separated: make([][]bool, nx), Failed: make([][]bool, nx), NotSolve: make([][]bool, nx),
 		Start: [2]float64{math.NaN(), math.NaN()}, Best: [2]float64{math.NaN(), math.NaN()},
 	}
 	for i := range nx {
-		g.Z[i], g.Separated[i], g.Failed[i], g.FromNeighbour[i] = make([]float64, ny), make([]bool, ny), make([]bool, ny), make([]bool, ny)
+		g.Z[i], g.Separated[i], g.Failed[i], g.NotSolve[i] = make([]float64, ny), make([]bool, ny), make([]bool, ny), make([]bool, ny)
 		for j := range ny {
 			k := i*ny + j
 			g.Z[i][j] = math.NaN()
 			if r.arrived[k] {
 				g.Z[i][j] = q.Value(&r.points[k], r.forces)
 				g.Separated[i][j], g.Failed[i][j] = r.separated(k), r.failed(k)
-				g.FromNeighbour[i][j] = !g.Failed[i][j] && r.points[k].FromNeighbour()
+				g.NotSolve[i][j] = !g.Failed[i][j] && r.points[k].NotSolve()
 			}
 		}
 	}
@@ -169,7 +170,17 @@ func describePoint(st *model.Study, vars []model.SetupVariable, p *engine.Point,
 		for i, v := range vars {
 			from = append(from, fmt.Sprintf("%s %s %s", shortLabel(st, v), num(p.StartedFrom[i]), v.Unit()))
 		}
-		qs = append(qs, "converged only when started from the solution at "+strings.Join(from, ", ")+" (a single solve has no answer here)")
+		at := strings.Join(from, ", ")
+		switch p.Single {
+		case engine.SingleAnotherRoot:
+			qs = append(qs, fmt.Sprintf("started from the solution at %s; a single solve lands on another root here (Cl %s against %s)", at, sig(p.SingleCl), sig(p.Cl)))
+		case engine.SingleNoAnswer:
+			qs = append(qs, "converged only when started from the solution at "+at+" (a single solve has no answer here)")
+		case engine.SingleAgrees:
+			qs = append(qs, "started from the solution at "+at+" (a single solve agrees)")
+		default:
+			qs = append(qs, "started from the solution at "+at)
+		}
 	}
 	return s + strings.Join(qs, ", ")
 }
@@ -191,6 +202,7 @@ type setupMaps struct {
 	second         *widget.Check
 	secondBox      *fyne.Container
 	viscous        *widget.Check
+	compare        *widget.Check // compare each point with a single solve
 	limit          *widget.Entry
 	msg            *widget.Label
 	status         *widget.Label
@@ -229,7 +241,14 @@ func newSetupMaps(s *setupWindow) *setupMaps {
 		}
 		s.relayout()
 	})
-	m.viscous = widget.NewCheck("Viscous solution (coupled)", nil)
+	m.compare = widget.NewCheck("Compare each point with a single solve (slower)", nil)
+	m.viscous = widget.NewCheck("Viscous solution (coupled)", func(on bool) {
+		if on {
+			m.compare.Enable()
+		} else {
+			m.compare.Disable()
+		}
+	})
 	m.viscous.SetChecked(true)
 	m.limit = widget.NewEntry()
 	m.limit.SetText(entryNum(defaultSeparationLimit))
@@ -259,6 +278,8 @@ func newSetupMaps(s *setupWindow) *setupMaps {
 		m.second, m.secondBox,
 		widget.NewSeparator(),
 		m.viscous,
+		m.compare,
+		caption("Each point starts from its neighbour's solution. Where the viscous equations have two roots (near a slot, past maximum lift) it can land on another than a single solve of its setting: compared, such points are boxed."),
 		row("Separation limit, x/c", m.limit),
 		caption("A point whose suction side separates ahead of this x/c on any element is marked."),
 		m.msg,
@@ -384,7 +405,7 @@ func (m *setupMaps) begin(ranges []model.SetupRange, limit float64) error {
 		return err
 	}
 	m.stop()
-	r := &mapRun{st: st, limit: limit, inviscid: !m.viscous.Checked}
+	r := &mapRun{st: st, limit: limit, inviscid: !m.viscous.Checked, compared: m.viscous.Checked && m.compare.Checked}
 	total := 1
 	for _, rg := range ranges {
 		r.vars = append(r.vars, rg.Var)
@@ -410,10 +431,10 @@ func (m *setupMaps) begin(ranges []model.SetupRange, limit float64) error {
 	}
 	m.quantity.SetOptions(names)
 	m.quantity.SetSelectedIndex(int(engine.QuantityLoad))
-	inviscid := !m.viscous.Checked
+	opt := engine.MapOptions{PointOptions: engine.PointOptions{Inviscid: !m.viscous.Checked}, CompareWithSolve: m.compare.Checked}
 	do := m.s.w.do
 	m.launch(ctl.Activity(), func(ctx context.Context, gen int) {
-		_, err := runMap(ctx, st, secs, ranges, inviscid,
+		_, err := runMap(ctx, st, secs, ranges, opt,
 			func(done, total int) { do(func() { m.progressed(gen, float64(done)/float64(total)) }) },
 			func(p engine.Point) { do(func() { m.arrive(gen, p) }) })
 		do(func() { m.finish(gen, err) })
@@ -471,7 +492,7 @@ func (m *setupMaps) show() {
 		}
 		return
 	}
-	failed, separated, fromNeighbour := 0, 0, 0
+	failed, separated, notSolve := 0, 0, 0
 	for k := range r.points {
 		if r.failed(k) {
 			failed++
@@ -479,8 +500,8 @@ func (m *setupMaps) show() {
 		if r.separated(k) {
 			separated++
 		}
-		if r.arrived[k] && r.points[k].FromNeighbour() {
-			fromNeighbour++
+		if r.arrived[k] && r.points[k].NotSolve() {
+			notSolve++
 		}
 	}
 	st := r.status
@@ -490,8 +511,10 @@ func (m *setupMaps) show() {
 	viscous := r.viscous()
 	text := fmt.Sprintf("%s %d of %d points done; %d without an answer (not converged or not solvable), %d separated ahead of x/c %s. The map is of the study as it was when run.",
 		st, r.done, r.total(), failed, separated, num(r.limit))
-	if fromNeighbour > 0 {
-		text += fmt.Sprintf(" %d converged only when started from a neighbour's solution (boxed): a single solve has no answer there.", fromNeighbour)
+	if notSolve > 0 {
+		text += fmt.Sprintf(" %d (boxed) are not a single solve's answer: started from a neighbour's solution they reached another root of the coupled equations than a single solve, or converged where it has none.", notSolve)
+	} else if r.compared && r.done > 0 {
+		text += " Every point so far agrees with a single solve of its setting."
 	}
 	if !viscous {
 		text += " No drag, L/D or separation without the viscous solution (a speed or Reynolds number, and the box ticked)."

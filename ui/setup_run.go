@@ -33,13 +33,13 @@ func setupVariables(st *model.Study) []model.SetupVariable {
 }
 
 // runMap runs a set-up map (engine.Map); a panic becomes an error.
-func runMap(ctx context.Context, st *model.Study, secs []*model.Section, ranges []model.SetupRange, inviscid bool, progress func(done, total int), each func(engine.Point)) (pts []engine.Point, err error) {
+func runMap(ctx context.Context, st *model.Study, secs []*model.Section, ranges []model.SetupRange, opt engine.MapOptions, progress func(done, total int), each func(engine.Point)) (pts []engine.Point, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			pts, err = nil, session.InternalError("in the set-up map", r)
 		}
 	}()
-	return engine.Map(ctx, st, secs, ranges, engine.MapOptions{PointOptions: engine.PointOptions{Inviscid: inviscid}}, progress, each)
+	return engine.Map(ctx, st, secs, ranges, opt, progress, each)
 }
 
 // runFiniteSpan runs the finite-span estimate of st (engine.FiniteSpan);

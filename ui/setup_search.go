@@ -382,7 +382,7 @@ func (p *setupSearch) show() {
 	p.status.SetText(st)
 	steps := make([]figures.SearchStep, len(r.path))
 	for i := range r.path {
-		steps[i] = figures.SearchStep{Objective: r.objectiveValue(&r.path[i]), Feasible: r.opt.Meets(&r.path[i]), FromNeighbour: r.path[i].FromNeighbour()}
+		steps[i] = figures.SearchStep{Objective: r.objectiveValue(&r.path[i]), Feasible: r.opt.Meets(&r.path[i]), NotSolve: r.path[i].NotSolve()}
 	}
 	maximise := r.opt.Objective != searchObjectives[2]
 	title, label := "Search: "+r.objectiveLabel()+" at each solve", r.objectiveLabel()
@@ -445,7 +445,11 @@ func (p *setupSearch) comparison() string {
 	if !res.Feasible {
 		b.WriteString("No setting met every constraint: the start is kept.\n")
 	}
-	if res.Best.FromNeighbour() {
+	switch {
+	case !res.Best.NotSolve():
+	case res.Best.Single == engine.SingleAnotherRoot:
+		fmt.Fprintf(&b, "The best setting, started from the solution of a setting solved before it, lies on another root of the coupled equations than a single solve of it (Cl %s against %s): applied, the workbench shows the single solve's.\n", sig(res.Best.Cl), sig(res.Best.SingleCl))
+	default:
 		b.WriteString("The best setting converged only when started from the solution of a setting solved before it: a single solve of it has no answer (applied, the workbench may show none).\n")
 	}
 	b.WriteString(r.status)

@@ -53,13 +53,20 @@ type jsonMapKeys struct {
 	Cm         num  `json:"cm"`
 	ClInviscid num  `json:"cl_inviscid"`
 	Converged  bool `json:"converged"`
-	// StartedFromNeighbour: the point converged only when started from a
-	// neighbouring setting's solution (StartedFrom, under the variables'
-	// names); solve does not converge at its setting and the equations
-	// may have another root there.
+	// StartedFromNeighbour: the point's solve started from a
+	// neighbouring setting's converged solution (StartedFrom, under the
+	// variables' names).
 	StartedFromNeighbour bool         `json:"started_from_neighbour"`
 	StartedFrom          *namedValues `json:"started_from,omitempty"`
-	Iterations           int          `json:"iterations"`
+	// SingleSolve is what is known of `solve` of the point's setting
+	// (engine.SingleSolve): "identical", "agrees" (within the relative
+	// tolerances), "another root" (SingleSolveCl, Cd, Cm are solve's),
+	// "no answer" (solve does not converge) or "not compared".
+	SingleSolve   string `json:"single_solve"`
+	SingleSolveCl *num   `json:"single_solve_cl,omitempty"`
+	SingleSolveCd *num   `json:"single_solve_cd,omitempty"`
+	SingleSolveCm *num   `json:"single_solve_cm,omitempty"`
+	Iterations    int    `json:"iterations"`
 	// Downforce on an inverted wing (null without a speed), lift on an
 	// upright one with a speed; drag with a speed.
 	DownforceN *num `json:"downforce_per_span_n_per_m,omitempty"`
@@ -131,6 +138,10 @@ func mapPointJSON(vars []model.SetupVariable, p engine.Point, hasSpeed bool) jso
 		k.StartedFromNeighbour = true
 		k.StartedFrom = &namedValues{names: out.names, values: p.StartedFrom}
 	}
+	k.SingleSolve = p.Single.String()
+	if p.Single == engine.SingleAgrees || p.Single == engine.SingleAnotherRoot {
+		k.SingleSolveCl, k.SingleSolveCd, k.SingleSolveCm = ptr(p.SingleCl), ptr(p.SingleCd), ptr(p.SingleCm)
+	}
 	switch {
 	case p.Inverted:
 		k.DownforceN = ptr(p.DownforcePerSpan) // null without a speed
@@ -164,11 +175,30 @@ type jsonMap struct {
 	Inverted    bool           `json:"inverted"`
 	Points      []jsonMapPoint `json:"points"`
 	Converged   int            `json:"converged_points"`
-	// FromNeighbour counts the converged points that converged only from
+	// FromNeighbour counts the converged points whose solve started from
 	// a neighbour's solution (each says so: started_from_neighbour).
-	FromNeighbour int    `json:"started_from_neighbour_points"`
-	Caution       string `json:"caution"`
+	FromNeighbour int `json:"started_from_neighbour_points"`
+	// ComparedWithSolve: every point was compared with solve of its
+	// setting (--compare-with-solve); AnotherRoot and NoSingleSolve
+	// count the converged points where solve reached another root or
+	// none; Tolerance holds the relative tolerances of "agrees".
+	ComparedWithSolve bool          `json:"compared_with_solve"`
+	AnotherRoot       int           `json:"another_root_points"`
+	NoSingleSolve     int           `json:"no_single_solve_points"`
+	Tolerance         jsonTolerance `json:"single_solve_tolerance"`
+	Note              string        `json:"note"`
+	Caution           string        `json:"caution"`
 }
+
+// jsonTolerance is how far, relative, a map point and solve may differ
+// and agree (engine.SolveAgreementTolerance): cl and cm of |cl|, cd of cd.
+type jsonTolerance struct {
+	Cl float64 `json:"cl"`
+	Cd float64 `json:"cd"`
+}
+
+// warmNote says what a warm-started map's numbers are.
+const warmNote = "each point starts from its converged neighbour's solution; where the coupled equations have one root there it is solve's answer within single_solve_tolerance, where they have two (near a slot, past maximum lift) it can be the other one: --compare-with-solve solves every point as solve does and marks those (single_solve)"
 
 // explorerFlags are the flags map and search share beyond the inputs.
 type explorerFlags struct {
@@ -221,9 +251,10 @@ func setupUsage(err error) error {
 }
 
 func cmdMap(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("map", "map (--study FILE | --section SPEC) --vary NAME=FROM:TO:STEP [--vary NAME=FROM:TO:STEP] [--inviscid] [--alpha DEG] [--panels N] [--re RE] [--transition-n N] [--trip-upper XC] [--trip-lower XC] [--format text|csv|json]", stdout)
+	fs := newFlags("map", "map (--study FILE | --section SPEC) --vary NAME=FROM:TO:STEP [--vary NAME=FROM:TO:STEP] [--inviscid] [--compare-with-solve] [--alpha DEG] [--panels N] [--re RE] [--transition-n N] [--trip-upper XC] [--trip-lower XC] [--format text|csv|json]", stdout)
 	in := addInputs(fs, false, "text", "csv", "json")
 	ef := addExplorerFlags(fs, "a variable and its values `NAME=FROM:TO:STEP`")
+	compare := fs.Bool("compare-with-solve", false, "also solve every point as solve does (from the march: several times slower) and mark the points on another root of the coupled equations or where solve has no answer")
 	if _, err := fs.parse(args, 0); err != nil {
 		return err
 	}
@@ -235,7 +266,7 @@ func cmdMap(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	vars := rangeVars(ranges)
-	opt := engine.MapOptions{PointOptions: engine.PointOptions{Inviscid: ef.inviscid, CoupledMaxIterations: coupledMaxIterations}}
+	opt := engine.MapOptions{PointOptions: engine.PointOptions{Inviscid: ef.inviscid, CoupledMaxIterations: coupledMaxIterations}, CompareWithSolve: *compare}
 	var each func(engine.Point)
 	if ef.progress {
 		done, conv := 0, 0
@@ -255,7 +286,8 @@ func cmdMap(args []string, stdout, stderr io.Writer) error {
 	hasSpeed := st.Flow.SpeedMPS > 0 || slicesHasSpeed(vars)
 	switch in.format {
 	case "json":
-		out := jsonMap{ViscousMode: mode, Inverted: st.Inverted, Points: []jsonMapPoint{}, Caution: caution}
+		out := jsonMap{ViscousMode: mode, Inverted: st.Inverted, Points: []jsonMapPoint{}, Caution: caution,
+			ComparedWithSolve: *compare, Tolerance: jsonTolerance{engine.SolveAgreementTolerance, engine.SolveAgreementToleranceCd}, Note: warmNote}
 		for _, v := range vars {
 			out.Variables = append(out.Variables, v.Name())
 		}
@@ -264,12 +296,22 @@ func cmdMap(args []string, stdout, stderr io.Writer) error {
 			if p.Converged {
 				out.Converged++
 			}
+			switch {
+			case !p.NotSolve():
+			case p.Single == engine.SingleAnotherRoot:
+				out.AnotherRoot++
+			default:
+				out.NoSingleSolve++
+			}
 		}
 		out.FromNeighbour = fromNeighbour(points)
 		return writeJSON(stdout, out)
 	case "csv":
 		m := format.StudyMetadata(st, nil, "Sectionbench "+version)
 		m.Extra = append(m.Extra, "map solved with the "+modeWords(mode)+"; "+caution)
+		if mode == string(model.ViscousCoupled) {
+			m.Extra = append(m.Extra, warmNote+fmt.Sprintf(" (relative: cl and cm %g of |cl|, cd %g)", engine.SolveAgreementTolerance, engine.SolveAgreementToleranceCd))
+		}
 		return format.WriteMapTable(stdout, m, st, vars, points)
 	}
 	return mapText(stdout, st, vars, points, mode, hasSpeed)
@@ -364,16 +406,40 @@ func mapText(w io.Writer, st *model.Study, vars []model.SetupVariable, points []
 			state = fmt.Sprintf("NOT CONVERGED (%d iterations)", p.Iterations)
 		case !p.Viscous:
 			state = "inviscid"
-		case p.FromNeighbour():
+		case p.Single == engine.SingleAnotherRoot:
+			state = fmt.Sprintf("converged from the neighbour at %s; ANOTHER ROOT: solve gives cl %.4f cd %.5f", settingWords(vars, p.StartedFrom), p.SingleCl, p.SingleCd)
+		case p.Single == engine.SingleNoAnswer:
 			state = "converged only from the neighbour at " + settingWords(vars, p.StartedFrom) + " (solve does not converge here)"
+		case p.FromNeighbour():
+			state = "converged from the neighbour at " + settingWords(vars, p.StartedFrom)
+			if p.Single == engine.SingleAgrees {
+				state += " (solve agrees)"
+			}
 		}
 		fmt.Fprintln(tw, line+state+"\t")
 	}
 	if err := tw.Flush(); err != nil {
 		return err
 	}
-	if n := fromNeighbour(points); n > 0 {
-		fmt.Fprintf(w, "%d of %d points converged only from a neighbour's solution: solve does not converge at their settings, and the coupled equations may have another root there.\n", n, len(points))
+	other, none, compared := 0, 0, false
+	for i := range points {
+		p := &points[i]
+		compared = compared || p.Single == engine.SingleAgrees
+		switch {
+		case !p.NotSolve():
+		case p.Single == engine.SingleAnotherRoot:
+			other++
+		default:
+			none++
+		}
+	}
+	if mode == string(model.ViscousCoupled) {
+		fmt.Fprintf(w, "Each point started from its converged neighbour's solution (%d of %d). ", fromNeighbour(points), len(points))
+		if other+none > 0 || compared {
+			fmt.Fprintf(w, "Compared with solve of each setting: %d on another root of the coupled equations, %d where solve does not converge; the rest agree within %g of cl (cd %g).\n", other, none, engine.SolveAgreementTolerance, engine.SolveAgreementToleranceCd)
+		} else {
+			fmt.Fprintf(w, "Where the coupled equations have one root that is solve's answer within %g of cl (cd %g); near a slot or past maximum lift they can have two, and --compare-with-solve marks the points on the other.\n", engine.SolveAgreementTolerance, engine.SolveAgreementToleranceCd)
+		}
 	}
 	_, err := fmt.Fprintln(w, caution)
 	return err

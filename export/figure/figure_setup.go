@@ -30,10 +30,11 @@ type SetupCurve struct {
 	// Separated marks points whose suction side separates ahead of the
 	// limit the caller chose; Failed marks points with no answer (not
 	// converged, or not solvable): crossed on the x axis, never drawn as
-	// values; FromNeighbour marks points that converged only from a
-	// neighbouring setting's solution (engine.Point.StartedFrom): boxed,
-	// since a single solve has no answer there. Any may be nil.
-	Separated, Failed, FromNeighbour []bool
+	// values; NotSolve marks points known not to be a single solve's
+	// answer (engine.Point.NotSolve: a single solve of the setting
+	// reaches another root of the coupled equations, or none): boxed.
+	// Any may be nil.
+	Separated, Failed, NotSolve []bool
 	// Current is the study's own value of the variable (a vertical line),
 	// NaN for none; Onset is where separation sets in (a labelled vertical
 	// line), NaN for none.
@@ -53,7 +54,7 @@ var ErrNoSetupData = fmt.Errorf("no points with a value yet: %w", ErrNoData)
 
 // SetupCurvePlot draws a SetupCurve: the points with a value joined in
 // order of X, separated points in a hollow marker of their own, points
-// that converged only from a neighbour in a box, points without an
+// that are not a single solve's answer in a box, points without an
 // answer as crosses on the x axis (a point with a NaN value
 // that is not Failed, a quantity the point does not have, is left out),
 // and the study's value and the separation onset as vertical lines.
@@ -73,14 +74,14 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		q := pt{x: x, y: c.Y[i]}
 		q.sep = i < len(c.Separated) && c.Separated[i]
 		q.fail = i < len(c.Failed) && c.Failed[i]
-		q.from = i < len(c.FromNeighbour) && c.FromNeighbour[i]
+		q.from = i < len(c.NotSolve) && c.NotSolve[i]
 		if !q.fail && math.IsNaN(q.y) {
 			continue
 		}
 		pts = append(pts, q)
 	}
 	sort.Slice(pts, func(i, j int) bool { return pts[i].x < pts[j].x })
-	var line, attached, separated, fromNeighbour plotter.XYs
+	var line, attached, separated, notSolve plotter.XYs
 	var failed []float64
 	ext := newExtent()
 	for _, q := range pts {
@@ -93,7 +94,7 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		ext.add(q.x, q.y)
 		line = append(line, xy)
 		if q.from {
-			fromNeighbour = append(fromNeighbour, xy)
+			notSolve = append(notSolve, xy)
 		}
 		if q.sep {
 			separated = append(separated, xy)
@@ -122,7 +123,7 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		p.Add(s)
 		k.add("suction side separated", s)
 	}
-	addFromNeighbour(p, k, th, fromNeighbour)
+	addNotSolve(p, k, th, notSolve)
 	addNoAnswer(p, k, th, failed, len(pts))
 	for _, x := range failed {
 		k.keep(plotter.XYs{{X: x, Y: ext.y0}})
@@ -162,15 +163,15 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 // above the data for each key entry beyond the first.
 const keyRoomPerEntry = 0.16
 
-// addFromNeighbour boxes the points that converged only from a
-// neighbour's solution, with their key entry (none for none).
-func addFromNeighbour(p *plot.Plot, k *key, th *theme, xys plotter.XYs) {
+// addNotSolve boxes the points that are not a single solve's answer,
+// with their key entry (none for none).
+func addNotSolve(p *plot.Plot, k *key, th *theme, xys plotter.XYs) {
 	if len(xys) == 0 {
 		return
 	}
 	s := newScatter(xys, th.accent, glyphMarker*1.6, draw.SquareGlyph{})
 	p.Add(s)
-	k.add(fmt.Sprintf("only from a neighbour's solution (%d)", len(xys)), s)
+	k.add(fmt.Sprintf("a single solve differs (%d)", len(xys)), s)
 }
 
 // addNoAnswer crosses the points without an answer, at xs on the x axis,
@@ -191,9 +192,9 @@ type SetupGrid struct {
 	Title, XLabel, YLabel, ZLabel string
 	X, Y                          []float64 // increasing
 	Z                             [][]float64
-	// Separated, Failed and FromNeighbour mark cells as SetupCurve does;
+	// Separated, Failed and NotSolve mark cells as SetupCurve does;
 	// any may be nil.
-	Separated, Failed, FromNeighbour [][]bool
+	Separated, Failed, NotSolve [][]bool
 	// Path is a search's path in (X, Y), in the order evaluated; Start and
 	// Best are marked when not NaN.
 	Path        [][2]float64
@@ -212,7 +213,7 @@ func (s setupGridXYZ) Y(r int) float64    { return s.g.Y[r] }
 // palette (Kindlmann's, from gonum/plot) with contour lines when every
 // cell has a value, a key of the
 // palette's values, separated cells hatched, cells without an answer
-// greyed and crossed, cells that converged only from a neighbour with a
+// greyed and crossed, cells that are not a single solve's answer with a
 // box at their centre, and the search's path, start and best point when
 // given.
 func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
@@ -310,8 +311,8 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 	if anyTrue(g.Failed) {
 		k.add("no answer (grey, crossed)", swatch{fade(th.faint, 170)})
 	}
-	if anyTrue(g.FromNeighbour) {
-		k.add("only from a neighbour's solution (boxed)", boxThumb{lineStyle(th.accent, widthNormal, nil)})
+	if anyTrue(g.NotSolve) {
+		k.add("a single solve differs (boxed)", boxThumb{lineStyle(th.accent, widthNormal, nil)})
 	}
 	if len(g.Path) > 0 {
 		xys := make(plotter.XYs, len(g.Path))
@@ -449,7 +450,7 @@ func (m *cellMarks) Plot(c draw.Canvas, p *plot.Plot) {
 			case m.g.Separated != nil && m.g.Separated[i][j]:
 				hatchRect(c, r, lineStyle(m.hatch, widthThin, nil))
 			}
-			if m.g.FromNeighbour != nil && m.g.FromNeighbour[i][j] {
+			if m.g.NotSolve != nil && m.g.NotSolve[i][j] {
 				boxCell(c, r, lineStyle(m.box, widthNormal, nil))
 			}
 		}
@@ -506,14 +507,14 @@ func (h hatchThumb) Thumbnail(c *draw.Canvas) {
 type SearchStep struct {
 	Objective float64 // NaN when the point has no answer
 	Feasible  bool    // converged, attached to the limit, within every constraint
-	// FromNeighbour: the solve converged only when started from the
-	// solution of a setting solved before it (engine.Point.StartedFrom).
-	FromNeighbour bool
+	// NotSolve: the solve is known not to be a single solve's answer
+	// (engine.Point.NotSolve).
+	NotSolve bool
 }
 
 // SearchPlot draws a search's objective against the evaluation number:
-// feasible evaluations filled, others hollow, those that converged only
-// from a neighbour boxed, those without an answer crossed on the axis,
+// feasible evaluations filled, others hollow, those that are not a single
+// solve's answer boxed, those without an answer crossed on the axis,
 // the best feasible value so far (the largest when maximise, else the
 // smallest) as a step line, and the start as a horizontal reference.
 func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark bool) (*plot.Plot, error) {
@@ -531,7 +532,7 @@ func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark
 		}
 		xy := plotter.XY{X: float64(i + 1), Y: s.Objective}
 		ext.add(xy.X, xy.Y)
-		if s.FromNeighbour {
+		if s.NotSolve {
 			from = append(from, xy)
 		}
 		if s.Feasible {
@@ -570,7 +571,7 @@ func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark
 		p.Add(s)
 		k.add("outside a constraint", s)
 	}
-	addFromNeighbour(p, k, th, from)
+	addNotSolve(p, k, th, from)
 	addNoAnswer(p, k, th, failed, len(steps))
 	if len(steps) > 0 && !math.IsNaN(steps[0].Objective) {
 		p.Add(&refLine{value: steps[0].Objective, style: lineStyle(th.faint, widthThin, dashRef), label: "start", labelSty: noteStyle(th, th.faint, 8, text.XLeft, text.YBottom)})

@@ -14,8 +14,8 @@ import (
 // MapCurve returns quantity q of a one-variable map's points (those solved
 // so far, in any order) against the variable v of st: points without an
 // answer marked failed, points whose suction side separates ahead of
-// limit marked separated, points that converged only from a neighbour's
-// solution marked so, the study's own value current and the
+// limit marked separated, points that are not a single solve's answer
+// (engine.Point.NotSolve) marked so, the study's own value current and the
 // separation onset marked. forces gives the load and drag in N/m.
 //
 // The onset is the first separated point next to an attached one, among
@@ -45,7 +45,7 @@ func MapCurve(st *model.Study, v model.SetupVariable, points []engine.Point, q e
 		c.Y = append(c.Y, q.Value(p, forces))
 		c.Separated = append(c.Separated, sep)
 		c.Failed = append(c.Failed, failed)
-		c.FromNeighbour = append(c.FromNeighbour, !failed && p.FromNeighbour())
+		c.NotSolve = append(c.NotSolve, !failed && p.NotSolve())
 		if !failed && p.Viscous {
 			known = append(known, pt{p.Values[0], sep})
 		}

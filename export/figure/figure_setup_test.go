@@ -36,7 +36,7 @@ func writeSetup(t *testing.T, name string, p *plot.Plot) {
 
 // Invented curve: downforce against clearance rising as the clearance
 // falls, then dropping, with the lowest points separated, one without
-// an answer and two that converged only from a neighbour.
+// an answer and two that are not a single solve's answer.
 func TestSetupCurvePlot(t *testing.T) {
 	c := SetupCurve{Title: "Downforce against clearance (invented)", XLabel: "clearance, mm", YLabel: "downforce, N/m", Current: 150, Onset: 35, OnsetLabel: "separation from 35 mm"}
 	for h := 20.0; h <= 200; h += 15 {
@@ -44,7 +44,7 @@ func TestSetupCurvePlot(t *testing.T) {
 		c.Y = append(c.Y, 300+4000/h-math.Max(0, 40-h)*8)
 		c.Separated = append(c.Separated, h < 40)
 		c.Failed = append(c.Failed, h == 65)
-		c.FromNeighbour = append(c.FromNeighbour, h == 50 || h == 80)
+		c.NotSolve = append(c.NotSolve, h == 50 || h == 80)
 	}
 	p, err := SetupCurvePlot(c, false)
 	if err != nil {
@@ -57,7 +57,7 @@ func TestSetupCurvePlot(t *testing.T) {
 }
 
 // Invented map: a smooth bump with a separated corner, a failed cell,
-// cells that converged only from a neighbour (one of them separated) and
+// cells that are not a single solve's answer (one of them separated) and
 // a search path.
 func TestSetupGridPlot(t *testing.T) {
 	g := SetupGrid{Title: "Downforce (invented)", XLabel: "flap deflection, °", YLabel: "flap gap, mm", ZLabel: "N/m", Start: [2]float64{20, 10}, Best: [2]float64{28, 12}}
@@ -76,7 +76,7 @@ func TestSetupGridPlot(t *testing.T) {
 			f = append(f, x == 40 && y == 20)
 			n = append(n, (x == 37 && y == 18) || (x == 37 && y == 8))
 		}
-		g.Z, g.Separated, g.Failed, g.FromNeighbour = append(g.Z, z), append(g.Separated, s), append(g.Failed, f), append(g.FromNeighbour, n)
+		g.Z, g.Separated, g.Failed, g.NotSolve = append(g.Z, z), append(g.Separated, s), append(g.Failed, f), append(g.NotSolve, n)
 	}
 	g.Path = [][2]float64{{20, 10}, {24, 10}, {22, 13}, {27, 12}, {28, 12}}
 	p, err := SetupGridPlot(g, false)
@@ -96,7 +96,7 @@ func TestSetupGridPlot(t *testing.T) {
 	for i := 4; i < len(g.X); i++ {
 		for j := range g.Y {
 			g.Z[i][j] = math.NaN()
-			g.Separated[i][j], g.Failed[i][j], g.FromNeighbour[i][j] = false, false, false
+			g.Separated[i][j], g.Failed[i][j], g.NotSolve[i][j] = false, false, false
 		}
 	}
 	g.Path = nil
@@ -145,8 +145,12 @@ func TestMapCurveOnset(t *testing.T) {
 		if h <= 30 {
 			p.Elements[0].SeparationSuction = 0.5
 		}
-		if h == 40 {
+		if h == 40 || h == 100 {
 			p.StartedFrom = []float64{80}
+			p.Single = engine.SingleAnotherRoot // 100 mm: agrees
+		}
+		if h == 100 {
+			p.Single = engine.SingleAgrees
 		}
 		pts = append(pts, p)
 	}
@@ -157,8 +161,8 @@ func TestMapCurveOnset(t *testing.T) {
 	if !c.Failed[3] || c.Failed[0] || !c.Separated[0] || c.Separated[2] || c.Y[4] != 500 {
 		t.Errorf("marks: failed %v, separated %v, y %v", c.Failed, c.Separated, c.Y)
 	}
-	if want := []bool{false, false, true, false, false, false}; !slices.Equal(c.FromNeighbour, want) {
-		t.Errorf("from a neighbour %v, want %v (the 40 mm point)", c.FromNeighbour, want)
+	if want := []bool{false, false, true, false, false, false}; !slices.Equal(c.NotSolve, want) {
+		t.Errorf("not a single solve's answer %v, want %v (the 40 mm point)", c.NotSolve, want)
 	}
 	if c.Inviscid {
 		t.Error("a viscous map's curve says it is inviscid")

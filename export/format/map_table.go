@@ -13,10 +13,13 @@ import (
 // as CSV after the metadata m, one row per point in the order given: the
 // variables' values under their names (alpha_deg, elements[1].gap_mm, …);
 // cl, cd, cm and cl_inviscid; converged (yes or no);
-// started_from_neighbour (yes when the point converged only from a
-// neighbouring setting's solution: `solve` does not converge there) and
-// the setting it started from, started_from.NAME per variable (empty
-// otherwise); iterations;
+// started_from_neighbour (yes when the point's solve started from a
+// neighbouring setting's converged solution) and the setting it started
+// from, started_from.NAME per variable (empty otherwise); single_solve,
+// what is known of `solve` of the point's setting (engine.SingleSolve:
+// identical, agrees, another root, no answer, not compared) and
+// single_solve_cl, `solve`'s Cl when compared (empty otherwise);
+// iterations;
 // downforce_per_span_n_per_m on an inverted wing or lift_per_span_n_per_m
 // on an upright one, and drag_per_span_n_per_m (empty without a speed);
 // per element K, elements[K].separation_suction_xc (empty: attached, or
@@ -41,7 +44,7 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 	for _, v := range vars {
 		head = append(head, "started_from."+v.Name())
 	}
-	head = append(head, "iterations", load, "drag_per_span_n_per_m")
+	head = append(head, "single_solve", "single_solve_cl", "iterations", load, "drag_per_span_n_per_m")
 	for k := range st.Elements {
 		head = append(head, fmt.Sprintf("elements[%d].separation_suction_xc", k))
 		if k > 0 {
@@ -71,7 +74,7 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 			}
 			row = append(row, from)
 		}
-		row = append(row, strconv.Itoa(p.Iterations), cell(loadN), cell(p.DragPerSpan))
+		row = append(row, p.Single.String(), cell(p.SingleCl), strconv.Itoa(p.Iterations), cell(loadN), cell(p.DragPerSpan))
 		for k, e := range p.Elements {
 			row = append(row, cell(e.SeparationSuction))
 			if k > 0 {

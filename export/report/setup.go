@@ -57,8 +57,8 @@ func (r *writer) setupPage() {
 				caption += " No separation onset was found in this range."
 			}
 			note := s.CurveNote
-			if n := countTrue(s.Curve.FromNeighbour); n > 0 {
-				note += fmt.Sprintf(" %d of them (boxed) converged only when started from a neighbouring setting's solution: a single solve of their setting has no answer, and the coupled equations may have another root there.", n)
+			if n := countTrue(s.Curve.NotSolve); n > 0 {
+				note += fmt.Sprintf(" Boxed (%d): not a single solve's answer; started from a neighbouring setting's solution they converged where a single solve of their setting reaches another root of the coupled equations, or none.", n)
 			}
 			r.image(func(w io.Writer, win, hin float64) error {
 				return figure.WritePlot(w, pl, figure.FormatPNG, win, hin, FigureDPI)
@@ -118,7 +118,11 @@ func (r *writer) searchSection(s *Setup) {
 		name string
 		p    *engine.Point
 	}{{"start", &res.Start}, {"best setting", &res.Best}} {
-		if e.p.FromNeighbour() {
+		switch {
+		case !e.p.NotSolve():
+		case e.p.Single == engine.SingleAnotherRoot:
+			feasible += fmt.Sprintf(" The %s's solution, started from the solution of a setting solved before it, lies on another root of the coupled equations than a single solve of it (Cl %s against %s).", e.name, num(e.p.Cl, 4), num(e.p.SingleCl, 4))
+		default:
 			feasible += " The " + e.name + "'s solution converged only when started from the solution of a setting solved before it: a single solve of it has no answer, and the coupled equations may have another root there."
 		}
 	}

@@ -45,10 +45,11 @@ func TestReportSetupPage(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	// An inviscid map has no rescued points: one is marked so by hand, and
-	// the search's best too, for the page's notes of them.
-	pts[1].StartedFrom = []float64{pts[2].Values[0]}
-	sr.Best.StartedFrom = []float64{sr.Start.Values[0]}
+	// An inviscid map's points are all a single solve's: one is marked as
+	// on another root by hand, and the search's best as one a single
+	// solve has no answer at, for the page's notes of them.
+	pts[1].StartedFrom, pts[1].Single = []float64{pts[2].Values[0]}, engine.SingleAnotherRoot
+	sr.Best.StartedFrom, sr.Best.Single = []float64{sr.Start.Values[0]}, engine.SingleNoAnswer
 	curve := figure.MapCurve(st, clear, pts, engine.QuantityLoad, true, 0.9, st.Ground.ClearanceMM)
 	in := Input{Study: st, Result: res, AppVersion: "test", Setup: &Setup{
 		Curve: curve, CurveNote: "Panel method only (invented demo data).",
@@ -73,7 +74,7 @@ func TestReportSetupPage(t *testing.T) {
 		"flap deflection (°)", num(sr.Start.Values[0], 1), num(sr.Best.Values[0], 1), "a local optimum",
 		num(fs.LoadN, 1) + " N", num(fs.Load2DN, 1) + " N", num(fs.InducedDragN, 1) + " N", num(fs.EffectiveAspectRatio, 2),
 		"Glauert", "Hoerner", "validate by test", "qualified engineering review",
-		"1 of them (boxed) converged only when started from a neighbouring setting's solution",
+		"Boxed (1): not a single solve's answer",
 		"The best setting's solution converged only when started from the solution of a setting solved before it",
 	} {
 		if !strings.Contains(text, w) {

@@ -2,6 +2,7 @@ package engine
 
 import (
 	"context"
+	"math"
 	"runtime"
 	"testing"
 
@@ -11,27 +12,54 @@ import (
 // A 20 × 20 viscous map of the invented two-element example in ground
 // effect (assets/examples/two-element-ground.json, 160 panels per
 // element): ride height 40–135 mm in 5 mm against angle of attack −1° to
-// 8.5° in 0.5°, the coupled viscous solution at every point. Target
-// (issue "Set-up explorer"): 30 s on the project's 2-core machine.
-// Reports the points that converged. Slow today: run it once, with
+// 8.5° in 0.5°, the coupled viscous solution at every point, each point
+// started from its neighbour's solution (Map). Target (issue "Set-up
+// explorer"): 30 s on the project's 2-core machine. Reports the points
+// that converged. "compared with solve" also solves every point as
+// `solve` does (MapOptions.CompareWithSolve) and reports how many lie on
+// another root or have no single solve, and the largest relative
+// differences of Cl and Cd among the points that agree. Run once:
 // -bench MapTwoElement20x20 -benchtime 1x.
 func BenchmarkMapTwoElement20x20(b *testing.B) {
 	st, secs := exampleStudy(b, "two-element-ground.json")
 	ranges := []model.SetupRange{mustRange(b, "clearance_mm=40:135:5"), mustRange(b, "alpha_deg=-1:8.5:0.5")}
-	var conv int
-	for b.Loop() {
-		pts, err := Map(context.Background(), st, secs, ranges, MapOptions{}, nil, nil)
-		if err != nil {
-			b.Fatal(err)
-		}
-		conv = 0
-		for _, p := range pts {
-			if p.Converged {
-				conv++
+	for _, bc := range []struct {
+		name    string
+		compare bool
+	}{{"warm", false}, {"compared with solve", true}} {
+		b.Run(bc.name, func(b *testing.B) {
+			var conv, other, none int
+			var dcl, dcd float64
+			for b.Loop() {
+				pts, err := Map(context.Background(), st, secs, ranges, MapOptions{CompareWithSolve: bc.compare}, nil, nil)
+				if err != nil {
+					b.Fatal(err)
+				}
+				conv, other, none, dcl, dcd = 0, 0, 0, 0, 0
+				for _, p := range pts {
+					if p.Converged {
+						conv++
+					}
+					switch p.Single {
+					case SingleAnotherRoot:
+						other++
+					case SingleNoAnswer:
+						none++
+					case SingleAgrees:
+						dcl = max(dcl, math.Abs(p.Cl-p.SingleCl)/math.Abs(p.SingleCl))
+						dcd = max(dcd, math.Abs(p.Cd-p.SingleCd)/p.SingleCd)
+					}
+				}
 			}
-		}
+			b.ReportMetric(float64(conv), "converged-points")
+			if bc.compare {
+				b.ReportMetric(float64(other), "another-root-points")
+				b.ReportMetric(float64(none), "no-single-solve-points")
+				b.ReportMetric(dcl, "agreeing-max-rel-dCl")
+				b.ReportMetric(dcd, "agreeing-max-rel-dCd")
+			}
+		})
 	}
-	b.ReportMetric(float64(conv), "converged-points")
 }
 
 // A setting search over three variables of the invented two-element

@@ -15,6 +15,10 @@ type MapOptions struct {
 	// (the machine the tool is built for has two cores), or fewer when
 	// GOMAXPROCS is lower.
 	Workers int
+	// CompareWithSolve also solves every point that started from a
+	// neighbour as `solve` solves it, and says how the two compare
+	// (Point.Single); it costs a start from the march at every point.
+	CompareWithSolve bool
 }
 
 // Map solves st at every point of the grid its ranges span (one or two
@@ -29,34 +33,38 @@ type MapOptions struct {
 // Point.Converged); it is not an error. Cancellation returns ctx.Err()
 // and no points.
 //
-// Warm starts: when the angle of attack varies in free air, the grid is
-// walked in chains along it (one per value of the other variable), each
-// chain from the angle nearest zero up, then down, as a polar is. Each
-// point is first solved as `solve` solves it (the viscous solution from
-// the march, and if that fails a walk out from 0°), so that wherever that
-// converges the map gives `solve`'s numbers exactly; when it does not
-// converge, the point is solved again from the last converged point of
-// its chain (Engine.Run's warm start). That second try makes more points
-// converge, at the cost of time; those points are the map's own and a
-// `solve` of them does not converge. Elsewhere (clearance, gap, overlap,
-// deflection, speed, or angle in ground effect, where the wing pitches)
-// the grid is walked in rows (rowChains) and each point is first solved
-// as `solve` solves it too; one that does not converge is solved again
-// from the nearest two converged neighbours solved before it (mapSeeds:
-// in its row and the row before, or towards the middle of a one-variable
-// map; the solver carries a neighbour's layers over to another panel
-// system of as many elements and panels, by arc length), each attempt
-// within rescueIterations Newton iterations, so that a hopeless point
-// gives up quickly. Every point that converges from its own start, and
-// every point of an inviscid map, is `solve`'s answer exactly; the
-// rescued ones are the map's own, and which neighbour rescued a point
-// never depends on how the goroutines ran.
+// Warm starts (the issue's "each point warm-starts from its neighbour"):
+// a viscous map walks its grid in chains (mapWalk: along the angle of
+// attack when it varies, from the angle nearest zero, as a polar is
+// walked; else rows along the second variable, or a one-variable map
+// outwards from its middle), and each point starts from its
+// predecessor's converged solution (the solver carries the layers over
+// to the point's own panel system, pitched, moved or resized, by arc
+// length; its own fallbacks end with a start from the march), a chain's
+// first point from the chain before's; when that does not converge it
+// tries the next converged neighbours solved before it (mapSeeds), two
+// at most, each within rescueIterations Newton iterations. A point
+// without a converged neighbour is solved as `solve` solves it. Which
+// neighbour a point started from never depends on how the goroutines
+// ran. Point.StartedFrom names it, and Point.Single says what is known
+// of a single solve of the setting: the point's answer is that of the
+// root of the coupled equations its neighbour led to, which is `solve`'s
+// within SolveAgreementTolerance where the equations have one root near
+// there, and may be another where they have two (DEVELOPERS.md: near a
+// slot and past maximum lift). With opt.CompareWithSolve every such
+// point is also solved as `solve` solves it and compared (SingleAgrees,
+// SingleAnotherRoot with solve's numbers, SingleNoAnswer); a point that
+// did not converge from its neighbours takes solve's answer when that
+// converges. Every point of an inviscid map is `solve`'s answer exactly.
 //
 // Chains run on opt.Workers goroutines (rows of a two-variable map; the
-// two halves of a one-variable map). progress(done, total) and each(point)
-// are called after every point, one call at a time (never concurrently)
-// from the map's goroutines, in the order the points finish; either may be
-// nil. A caller with a window hands the point to its UI goroutine.
+// two halves of a one-variable map); a chain's points wait for the
+// neighbours they may start from on the chain before, so both cores stay
+// busy, the second a point or two behind the first. progress(done,
+// total) and each(point) are called after every point, one call at a
+// time (never concurrently) from the map's goroutines, in the order the
+// points finish; either may be nil. A caller with a window hands the
+// point to its UI goroutine.
 func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []model.SetupRange, opt MapOptions, progress func(done, total int), each func(Point)) ([]Point, error) {
 	if len(ranges) < 1 || len(ranges) > 2 {
 		panic("engine: Map: one or two ranges")
@@ -83,8 +91,17 @@ func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []m
 		opt.Inviscid = true
 	}
 
-	walk := alphaWalk(st, vars)
-	chains := mapChains(axes, walk)
+	alpha, clearance := -1, -1
+	for a, v := range vars {
+		switch v.Kind {
+		case model.SetupAlpha:
+			alpha = a
+		case model.SetupClearance:
+			clearance = a
+		}
+	}
+	walk := newMapWalk(axes, alpha, clearance)
+	chains := walk.chains()
 	points := make([]Point, total)
 	workers := opt.Workers
 	if workers <= 0 {
@@ -100,8 +117,8 @@ func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []m
 	var firstErr error
 	var wg sync.WaitGroup
 	var seeds *mapSeeds
-	if walk < 0 && !opt.Inviscid { // a walk in α has its own warm start (runColdFirst)
-		seeds = newMapSeeds(axes)
+	if !opt.Inviscid {
+		seeds = newMapSeeds(walk)
 	}
 	for range workers {
 		wg.Add(1)
@@ -109,6 +126,7 @@ func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []m
 			defer wg.Done()
 			for chain := range work {
 				ps := newPointSolver(st, secs, vars, opt.PointOptions)
+				ps.compare = opt.CompareWithSolve
 				for _, k := range chain {
 					idx := gridIndex(k, axes)
 					values := make([]float64, len(axes))
@@ -116,8 +134,8 @@ func Map(ctx context.Context, st *model.Study, secs []*model.Section, ranges []m
 						values[a] = axes[a][i]
 					}
 					if seeds != nil {
-						ps.neighbours = func(ctx context.Context, _ []float64) []seed {
-							return seeds.neighbours(ctx, k)
+						ps.neighbours = func(ctx context.Context, _ []float64, n int) []seed {
+							return seeds.neighbours(ctx, k, n)
 						}
 					}
 					p, err := ps.solve(ctx, values)
@@ -167,18 +185,6 @@ feed:
 	return points, nil
 }
 
-// alphaWalk returns the index of the angle of attack among vars when the
-// map walks it as a polar (in free air), -1 otherwise.
-func alphaWalk(st *model.Study, vars []model.SetupVariable) int {
-	walk := -1
-	for a, v := range vars {
-		if v.Kind == model.SetupAlpha && !st.Ground.Enabled {
-			walk = a
-		}
-	}
-	return walk
-}
-
 // gridIndex returns the per-axis indices of flat index k (row-major).
 func gridIndex(k int, axes [][]float64) []int {
 	idx := make([]int, len(axes))
@@ -189,43 +195,6 @@ func gridIndex(k int, axes [][]float64) []int {
 	return idx
 }
 
-// mapChains returns the flat grid indices in the chains Map walks. When
-// the angle of attack varies in free air, the chains run along it, one
-// per value of the other axis, in a polar's order (sweepOrder); a
-// one-variable map is split at its start into the walk up and the walk
-// down, so that both workers have one. Otherwise the chains are
-// rowChains'.
-func mapChains(axes [][]float64, walk int) [][]int {
-	if walk < 0 {
-		return rowChains(axes)
-	}
-	order := sweepOrder(axes[walk])
-	if len(axes) == 1 {
-		var up, down []int
-		for _, i := range order {
-			if i >= order[0] {
-				up = append(up, i)
-			} else {
-				down = append(down, i)
-			}
-		}
-		if len(down) == 0 {
-			return [][]int{up}
-		}
-		return [][]int{up, down}
-	}
-	other := 1 - walk
-	chains := make([][]int, len(axes[other]))
-	for j := range axes[other] {
-		for _, i := range order {
-			idx := [2]int{}
-			idx[walk], idx[other] = i, j
-			chains[j] = append(chains[j], idx[0]*len(axes[1])+idx[1])
-		}
-	}
-	return chains
-}
-
 // MapMode returns "coupled" or "inviscid": how Map solves st's points
 // under opt with these variables.
 func MapMode(st *model.Study, opt PointOptions, vars []model.SetupVariable) string {
@@ -233,37 +202,4 @@ func MapMode(st *model.Study, opt PointOptions, vars []model.SetupVariable) stri
 		return string(model.ViscousCoupled)
 	}
 	return "inviscid"
-}
-
-// rowChains returns the chains of a map whose points cannot start from
-// one another's own engine (no angle of attack walked in free air): a
-// one-variable map as two halves walking outward from its middle, a
-// two-variable map as its rows (along the second variable), in order, so
-// that a point that does not converge finds converged neighbours before
-// it in its own row and in the row before to start again from
-// (mapSeeds).
-func rowChains(axes [][]float64) [][]int {
-	if len(axes) == 1 {
-		n := len(axes[0])
-		mid := n / 2
-		var up, down []int
-		for i := mid; i < n; i++ {
-			up = append(up, i)
-		}
-		for i := mid - 1; i >= 0; i-- {
-			down = append(down, i)
-		}
-		if len(down) == 0 {
-			return [][]int{up}
-		}
-		return [][]int{up, down}
-	}
-	inner := len(axes[1])
-	chains := make([][]int, len(axes[0]))
-	for i := range chains {
-		for j := range inner {
-			chains[i] = append(chains[i], i*inner+j)
-		}
-	}
-	return chains
 }

@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"math"
 	"runtime"
+	"slices"
 	"sync"
 
 	"gonum.org/v1/gonum/optimize"
@@ -140,6 +141,18 @@ type evalFunc func(ctx context.Context, values []float64) (Point, error)
 // the bounds) is solved on two goroutines; the simplex steps after it are
 // one solve at a time.
 //
+// Warm starts: the start is solved as `solve` solves it; every other
+// solve starts from the converged solution of the nearest setting solved
+// before it (in the bounds' scale; the start's simplex from the start,
+// the steps after it from the whole path so far), and, when that does
+// not converge, from the next nearest within rescueIterations, as a
+// map's points do (Map): a step of the simplex costs a warm solve, not a
+// start from the march. Which solution a solve starts from does not
+// depend on how the goroutines ran. The best setting found is then
+// solved as `solve` solves it and compared (Point.Single: a start from
+// elsewhere can reach another root of the coupled equations), since
+// that is what Apply shows.
+//
 // When no point of the start's simplex converges the search stops there
 // (points that do not converge all rank alike, so the simplex has no
 // direction to go) and says so in Status.
@@ -179,7 +192,15 @@ func Search(ctx context.Context, st *model.Study, secs []*model.Section, bounds 
 	}
 	main := newSolver()
 	main.neighbours = seeds.neighbours
+	var pending []seed // the start's simplex's solutions, for the path after it
 	eval := func(ctx context.Context, values []float64) (Point, error) {
+		mu.Lock()
+		slices.SortFunc(pending, func(a, b seed) int { return slices.Compare(a.at, b.at) })
+		for _, sd := range pending { // in an order of their own, not the goroutines'
+			seeds.add(sd.at, sd.sol)
+		}
+		pending = nil
+		mu.Unlock()
 		p, err := main.solve(ctx, values)
 		if err == nil && seeds != nil {
 			seeds.add(values, main.last)
@@ -187,15 +208,43 @@ func Search(ctx context.Context, st *model.Study, secs []*model.Section, bounds 
 		return p, err
 	}
 	par := func(ctx context.Context, values []float64) (Point, error) {
-		// The start's simplex, solved side by side: each vertex may start
-		// again from what the path had converged before it (the start),
-		// and adds nothing to it, so no vertex's answer depends on
-		// another's timing.
+		// The start's simplex, solved side by side: each vertex starts
+		// from what the path had converged before it (the start), and
+		// adds its own solution to the path's only after all are solved
+		// (pending), so no vertex's answer depends on another's timing.
 		ps := newSolver()
 		ps.neighbours = seeds.clone().neighbours
-		return ps.solve(ctx, values)
+		p, err := ps.solve(ctx, values)
+		if err == nil && seeds != nil && ps.last != nil {
+			mu.Lock()
+			pending = append(pending, seed{at: slices.Clone(values), sol: ps.last})
+			mu.Unlock()
+		}
+		return p, err
 	}
-	return search(ctx, eval, par, bounds, start, opt, each)
+	res, err := search(ctx, eval, par, bounds, start, opt, each)
+	if err != nil {
+		return nil, err
+	}
+	if b := &res.Best; res.Feasible && b.Viscous && b.Single == SingleNotCompared {
+		// The best setting, reached from the path's nearest solve, against
+		// a single solve of it: what Apply then shows.
+		st, err := main.study(b.Values)
+		if err != nil {
+			return nil, err
+		}
+		one, err := NewEngine().Run(ctx, Request{Study: st, Sections: secs, CoupledMaxIterations: opt.CoupledMaxIterations})
+		if err != nil {
+			return nil, err
+		}
+		b.judge(one.Coupled)
+		for i := range res.Path {
+			if slices.Equal(res.Path[i].Values, b.Values) {
+				res.Path[i] = *b
+			}
+		}
+	}
+	return res, nil
 }
 
 // searchSeeds returns the bank of converged solves of a search's path

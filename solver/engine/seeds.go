@@ -10,8 +10,8 @@ import (
 )
 
 // seedBank holds the converged coupled solutions of a search's path by
-// their setting, for the rescue of a solve that did not converge from its
-// own start (pointSolver.solve). It is filled by one goroutine in the
+// their setting, for each solve to start from the nearest
+// (pointSolver.solve). It is filled by one goroutine in the
 // path's order, so that which neighbour a solve starts from, and so its
 // answer, does not depend on how the goroutines ran. Distances are measured in scale units
 // per variable (a map's step, a search's bounds' width), so that "nearest"
@@ -97,11 +97,11 @@ func (b *seedBank) nearest(values []float64, n int) []seed {
 }
 
 // neighbours is nearest for pointSolver.neighbours (nil for a nil bank).
-func (b *seedBank) neighbours(_ context.Context, values []float64) []seed {
+func (b *seedBank) neighbours(_ context.Context, values []float64, n int) []seed {
 	if b == nil {
 		return nil
 	}
-	return b.nearest(values, rescueSeeds)
+	return b.nearest(values, n)
 }
 
 // clone returns a bank holding b's solutions now, which later additions

@@ -62,47 +62,58 @@ func TestSeedBank(t *testing.T) {
 }
 
 // Rows in order along the second variable; one variable as two halves
-// walking outward from the middle.
-func TestRowChains(t *testing.T) {
+// walking outward from the middle; along the angle of attack from the
+// angle nearest zero, up then down, whichever axis it is; along the
+// clearance, when it varies with another, from the top down.
+func TestMapWalkChains(t *testing.T) {
 	for _, tc := range []struct {
-		name string
-		axes [][]float64
-		want [][]int
+		name             string
+		axes             [][]float64
+		alpha, clearance int
+		want             [][]int
 	}{
-		{"one variable", [][]float64{{1, 2, 3, 4, 5}}, [][]int{{2, 3, 4}, {1, 0}}},
-		{"one value", [][]float64{{1}}, [][]int{{0}}},
-		{"two variables", [][]float64{{1, 2}, {1, 2, 3}}, [][]int{{0, 1, 2}, {3, 4, 5}}},
+		{"one variable", [][]float64{{1, 2, 3, 4, 5}}, -1, -1, [][]int{{2, 3, 4}, {1, 0}}},
+		{"one value", [][]float64{{1}}, -1, -1, [][]int{{0}}},
+		{"two variables", [][]float64{{1, 2}, {1, 2, 3}}, -1, -1, [][]int{{0, 1, 2}, {3, 4, 5}}},
+		{"angle, one variable", [][]float64{{-2, -1, 0, 1}}, 0, -1, [][]int{{2, 3}, {1, 0}}},
+		{"angle second", [][]float64{{1, 2}, {-1, 0, 1}}, 1, -1, [][]int{{1, 2, 0}, {4, 5, 3}}},
+		{"angle first", [][]float64{{-1, 0, 1}, {1, 2}}, 0, -1, [][]int{{2, 4, 0}, {3, 5, 1}}},
+		{"clearance and angle: down from the top", [][]float64{{40, 60, 80}, {0, 1}}, 1, 0, [][]int{{4, 2, 0}, {5, 3, 1}}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			got := rowChains(tc.axes)
+			got := newMapWalk(tc.axes, tc.alpha, tc.clearance).chains()
 			if !slices.EqualFunc(got, tc.want, slices.Equal) {
-				t.Errorf("rowChains = %v, want %v", got, tc.want)
+				t.Errorf("chains = %v, want %v", got, tc.want)
 			}
 		})
 	}
 }
 
-// A map point starts again only from neighbours solved before it, nearest
-// first: in its row and the row before; in one variable towards the
-// middle, across it for the down half's first point.
+// A map point starts only from neighbours solved before it, nearest
+// first: its predecessor on its chain, the chain before's; in one
+// variable towards the middle, across it for the down half's first point.
 func TestMapSeedsBefore(t *testing.T) {
 	for _, tc := range []struct {
-		name string
-		axes [][]float64
-		k    int
-		want []int
+		name             string
+		axes             [][]float64
+		alpha, clearance int
+		k                int
+		want             []int
 	}{
-		{"first row, first point", [][]float64{{1, 2}, {1, 2, 3}}, 0, nil},
-		{"first row", [][]float64{{1, 2}, {1, 2, 3}}, 2, []int{1, 0}},
-		{"second row, first point", [][]float64{{1, 2}, {1, 2, 3}}, 3, []int{0, 1}},
-		{"second row, middle", [][]float64{{1, 2}, {1, 2, 3}}, 4, []int{3, 1, 0, 2}},
-		{"one variable, the middle", [][]float64{{1, 2, 3, 4, 5}}, 2, nil},
-		{"one variable, up", [][]float64{{1, 2, 3, 4, 5}}, 4, []int{3, 2}},
-		{"one variable, down from the middle", [][]float64{{1, 2, 3, 4, 5}}, 1, []int{2, 3}},
-		{"one variable, down", [][]float64{{1, 2, 3, 4, 5}}, 0, []int{1, 2}},
+		{"first row, first point", [][]float64{{1, 2}, {1, 2, 3}}, -1, -1, 0, nil},
+		{"first row", [][]float64{{1, 2}, {1, 2, 3}}, -1, -1, 2, []int{1, 0}},
+		{"second row, first point", [][]float64{{1, 2}, {1, 2, 3}}, -1, -1, 3, []int{0, 1}},
+		{"second row, middle", [][]float64{{1, 2}, {1, 2, 3}}, -1, -1, 4, []int{3, 1, 0, 2}},
+		{"one variable, the middle", [][]float64{{1, 2, 3, 4, 5}}, -1, -1, 2, nil},
+		{"one variable, up", [][]float64{{1, 2, 3, 4, 5}}, -1, -1, 4, []int{3, 2}},
+		{"one variable, down from the middle", [][]float64{{1, 2, 3, 4, 5}}, -1, -1, 1, []int{2, 3}},
+		{"one variable, down", [][]float64{{1, 2, 3, 4, 5}}, -1, -1, 0, []int{1, 2}},
+		{"angle first, second chain's start", [][]float64{{-1, 0, 1}, {1, 2}}, 0, -1, 3, []int{2, 4}},
+		{"angle first, second chain, below zero", [][]float64{{-1, 0, 1}, {1, 2}}, 0, -1, 1, []int{3, 0, 2, 5}},
+		{"clearance, second chain", [][]float64{{40, 60, 80}, {0, 1}}, 1, 0, 3, []int{5, 2, 4, 0}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			if got := newMapSeeds(tc.axes).before(tc.k); !slices.Equal(got, tc.want) {
+			if got := newMapWalk(tc.axes, tc.alpha, tc.clearance).before(tc.k); !slices.Equal(got, tc.want) {
 				t.Errorf("before(%d) = %v, want %v", tc.k, got, tc.want)
 			}
 		})
@@ -122,9 +133,10 @@ func TestMapSeedsDrop(t *testing.T) {
 		{"two variables, 20 by 20", [][]float64{make([]float64, 20), make([]float64, 20)}, 2*20 + 2},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			m := newMapSeeds(tc.axes)
+			w := newMapWalk(tc.axes, -1, -1)
+			m := newMapSeeds(w)
 			most := 0
-			for _, chain := range rowChains(tc.axes) { // one chain after another
+			for _, chain := range w.chains() { // one chain after another
 				for _, k := range chain {
 					m.solved(k, &solver.CoupledSolution{})
 					most = max(most, m.held())

@@ -40,17 +40,20 @@ type Point struct {
 	// inviscid point solved; false when it did not or Err is set.
 	Converged bool
 	// StartedFrom is the setting (the variables' values, parallel to
-	// Values) whose converged viscous solution this point's converged one
-	// was started from, when it did not converge from its own start: a
-	// map's or search's rescue from a neighbour (Map), or a free-air
-	// walk's start from the point before it. Such a point is the map's
-	// own answer: a `solve` of its setting does not converge, and the
-	// coupled equations may have another root there. Nil when the point
-	// converged from its own start (it is then `solve`'s answer exactly),
-	// did not converge, or is inviscid.
+	// Values) whose converged viscous solution this point's solve started
+	// from: a map's neighbour (Map), the nearest setting a search had
+	// solved (Search), or a free-air walk's point before it. Nil when the
+	// point was solved from its own start, as `solve` solves it, did not
+	// converge, or is inviscid. Single says how such a point compares
+	// with `solve`.
 	StartedFrom []float64
-	Iterations  int     // Newton iterations of the viscous solution
-	Residual    float64 // its last relative change; NaN inviscid
+	// Single says what is known of a single solve (`solve`, from the
+	// march) of the point's setting; SingleCl, SingleCd and SingleCm are
+	// its coefficients when it was compared and converged (NaN otherwise).
+	Single                       SingleSolve
+	SingleCl, SingleCd, SingleCm float64
+	Iterations                   int     // Newton iterations of the viscous solution
+	Residual                     float64 // its last relative change; NaN inviscid
 	// Cl, Cd and Cm are the configuration's coefficients on the reference
 	// chord (the solver's signs: Cl positive up, so negative on an
 	// inverted wing making downforce; Cm about the moment reference).
@@ -86,9 +89,96 @@ type PointElement struct {
 	GapMM float64
 }
 
-// FromNeighbour reports whether the point converged only when started
-// from a neighbouring setting's solution (StartedFrom).
+// FromNeighbour reports whether the point's solve started from a
+// neighbouring setting's converged solution (StartedFrom).
 func (p *Point) FromNeighbour() bool { return p.StartedFrom != nil }
+
+// NotSolve reports whether the point is known not to be `solve`'s answer
+// at its setting: it converged, and a single solve reached another root
+// (SingleAnotherRoot) or none (SingleNoAnswer).
+func (p *Point) NotSolve() bool {
+	return p.Converged && (p.Single == SingleAnotherRoot || p.Single == SingleNoAnswer)
+}
+
+// SingleSolve is what is known of a single solve (`solve`: a fresh
+// engine, the viscous solution from the march) of a point's setting.
+type SingleSolve int
+
+// The states of SingleSolve.
+const (
+	// SingleNotCompared: the point started from a neighbour's solution
+	// and was not compared with a single solve (a map without
+	// MapOptions.CompareWithSolve, a search's path but its best).
+	SingleNotCompared SingleSolve = iota
+	// SingleIdentical: the point was solved from its own start as
+	// `solve` solves it, or took `solve`'s answer: the same numbers to
+	// the last bit (converged or not). Every inviscid point.
+	SingleIdentical
+	// SingleAgrees: compared, and `solve`'s coefficients lie within
+	// SolveAgreementTolerance (Cd: SolveAgreementToleranceCd) of the
+	// point's: the same root.
+	SingleAgrees
+	// SingleAnotherRoot: compared, and `solve` converged to coefficients
+	// beyond the tolerance (SingleCl, SingleCd, SingleCm): the coupled
+	// equations have two roots here, and the point is on the one its
+	// neighbour led to.
+	SingleAnotherRoot
+	// SingleNoAnswer: `solve` does not converge at the setting; the
+	// point converged only from a neighbour's solution.
+	SingleNoAnswer
+)
+
+// String names the state in words, as the command line prints it.
+func (s SingleSolve) String() string {
+	switch s {
+	case SingleIdentical:
+		return "identical"
+	case SingleAgrees:
+		return "agrees"
+	case SingleAnotherRoot:
+		return "another root"
+	case SingleNoAnswer:
+		return "no answer"
+	}
+	return "not compared"
+}
+
+// SolveAgreementTolerance and SolveAgreementToleranceCd are how far,
+// relative, a map point and `solve` of its setting may lie apart and
+// still agree (SingleAgrees): Cl and Cm within SolveAgreementTolerance of
+// |Cl|, Cd within SolveAgreementToleranceCd of Cd. They come from the
+// solver's convergence criterion (solver.CoupledOptions.Tolerance): an
+// iterate is accepted when its last Newton step changed no θ, m or √Cτ by
+// more than 1e-5 of itself, so `solve`'s own answer is known to about
+// that in each variable, and the coefficients, sums over the stations,
+// amplify it: Cl and Cm through the edge velocities the mass defects
+// move, ten times the criterion; Cd, Squire and Young's θ Ue^((H+5)/2) at
+// each wake's end (the exponent about 3.2) summed over the wakes, a
+// hundred times. Answers closer than that count as one. Measured on the
+// two-element example (TestMapAgreesWithSolve): a point started from its
+// neighbour and `solve` of it differ by 1e-15 or less at most points and
+// by up to 4e-5 in Cl and 4.2e-4 in Cd at some, and those differences
+// stay when both are converged to 1e-9 instead of 1e-5: neighbouring
+// solutions of the discrete equations (the stations laid out about the
+// stagnation point as the start left them), far below the method's
+// uncertainty. Other roots lie further apart: transition a station apart
+// moves Cl by 0.005–0.012 (DEVELOPERS.md), a flap separating from
+// another station Cl by 1e-3 and Cd by 5 %, a slot blocked by its own
+// layer Cl by several percent.
+const (
+	SolveAgreementTolerance   = 1e-4
+	SolveAgreementToleranceCd = 1e-3
+)
+
+// sameRoot reports whether the coefficients (cl, cd, cm) and the
+// point's agree within SolveAgreementTolerance (Cd:
+// SolveAgreementToleranceCd).
+func (p *Point) sameRoot(cl, cd, cm float64) bool {
+	scale := math.Max(math.Abs(p.Cl), math.Abs(cl))
+	return math.Abs(p.Cl-cl) <= SolveAgreementTolerance*scale &&
+		math.Abs(p.Cm-cm) <= SolveAgreementTolerance*scale &&
+		math.Abs(p.Cd-cd) <= SolveAgreementToleranceCd*math.Max(math.Abs(p.Cd), math.Abs(cd))
+}
 
 // Load returns the point's load coefficient in the sense the wing is
 // mounted for: Cl upright, the downforce coefficient −Cl inverted.
@@ -157,11 +247,14 @@ type pointSolver struct {
 	opt     PointOptions
 	viscous bool
 	eng     *Engine
-	// neighbours, if not nil, returns the converged solutions of
-	// neighbouring settings, nearest first, that a point at values which
-	// did not converge from its own start tries again from (at most
-	// rescueSeeds of them).
-	neighbours func(ctx context.Context, values []float64) []seed
+	// neighbours, if not nil, returns at most n converged solutions of
+	// neighbouring settings, nearest first, that a point at values starts
+	// from: the first with the full iteration budget, the others, when
+	// that does not converge, within rescueIterations.
+	neighbours func(ctx context.Context, values []float64, n int) []seed
+	// compare: solve every point that started from a neighbour again as
+	// `solve` does, and compare (MapOptions.CompareWithSolve).
+	compare bool
 	// last is the converged coupled solution of the last solve, nil when
 	// it did not converge or was inviscid; lastAt is the setting of the
 	// last solve that converged (the engine's warm start's, in free air).
@@ -188,11 +281,13 @@ func (ps *pointSolver) study(values []float64) (*model.Study, error) {
 	return st, nil
 }
 
-// solve solves the point at values. Only cancellation is an error; any
-// other failure is a point with Err set.
+// solve solves the point at values: from the nearest converged
+// neighbour's solution when there is one (ps.neighbours), then from the
+// next ones within rescueIterations, else as `solve` solves it. Only
+// cancellation is an error; any other failure is a point with Err set.
 func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, error) {
 	ps.last = nil
-	p := Point{Values: append([]float64(nil), values...), Viscous: ps.viscous, Inverted: ps.base.Inverted}
+	p := Point{Values: append([]float64(nil), values...), Viscous: ps.viscous, Inverted: ps.base.Inverted, Single: SingleIdentical}
 	fail := func(err error) (Point, error) {
 		if ctx.Err() != nil || errors.Is(err, context.Canceled) || errors.Is(err, context.DeadlineExceeded) {
 			return Point{}, err
@@ -206,42 +301,99 @@ func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, erro
 		return fail(err)
 	}
 	req := Request{Study: st, Sections: ps.secs, CoupledMaxIterations: ps.opt.CoupledMaxIterations}
-	res, warmed, err := ps.eng.runColdFirst(ctx, req)
-	if err != nil {
-		return fail(err)
-	}
-	var from []float64 // the setting res started from; nil: its own start
-	if warmed {
-		from = ps.lastAt
-	}
-	if c := res.Coupled; c != nil && !c.Converged && c.Note == "" && ps.neighbours != nil {
-		// Rescue: from the nearest converged neighbours, each with a
-		// bounded budget, so that a hopeless point gives up quickly.
-		rq := req
-		rq.CoupledMaxIterations = rescueIterations(ps.opt.CoupledMaxIterations)
-		seeds := ps.neighbours(ctx, values)
+	var seeds []seed
+	if ps.viscous && ps.neighbours != nil {
+		seeds = ps.neighbours(ctx, values, 1)
 		if err := ctx.Err(); err != nil {
 			return fail(err)
 		}
-		for _, seed := range seeds[:min(len(seeds), rescueSeeds)] {
-			again, err := ps.eng.runFromSeed(ctx, rq, seed.sol, req.CoupledMaxIterations)
-			if err != nil {
+	}
+	var res *Result
+	var from []float64 // the setting res started from; nil: its own start
+	if len(seeds) == 0 {
+		// As `solve` solves it; in free air, when that does not converge,
+		// again from the engine's last converged point (the walk's).
+		var warmed bool
+		if res, warmed, err = ps.eng.runColdFirst(ctx, req); err != nil {
+			return fail(err)
+		}
+		if warmed {
+			from, p.Single = ps.lastAt, SingleNoAnswer
+		}
+	} else {
+		if res, err = ps.eng.runFromSeed(ctx, req, seeds[0].sol, req.CoupledMaxIterations); err != nil {
+			return fail(err)
+		}
+		from, p.Single = seeds[0].at, SingleNotCompared
+		if c := res.Coupled; c != nil && !c.Converged && c.Note == "" {
+			// The next neighbours, each with a bounded budget, so that a
+			// hopeless point gives up quickly.
+			rq := req
+			rq.CoupledMaxIterations = rescueIterations(ps.opt.CoupledMaxIterations)
+			more := ps.neighbours(ctx, values, rescueSeeds+1)
+			if err := ctx.Err(); err != nil {
 				return fail(err)
 			}
-			if again.Coupled != nil && again.Coupled.Converged {
-				res, from = again, seed.at
-				break
+			for _, seed := range more[min(1, len(more)):] {
+				again, err := ps.eng.runFromSeed(ctx, rq, seed.sol, req.CoupledMaxIterations)
+				if err != nil {
+					return fail(err)
+				}
+				if again.Coupled != nil && again.Coupled.Converged {
+					res, from = again, seed.at
+					break
+				}
 			}
 		}
 	}
-	if c := res.Coupled; c != nil && c.Converged {
+	c := res.Coupled
+	if c != nil && c.Converged {
 		ps.last, ps.lastAt = c.last, p.Values
 	}
 	p.fill(res, st, ps.secs)
-	if p.Converged && p.Viscous && from != nil {
+	switch {
+	case !p.Viscous:
+		p.Single = SingleIdentical
+	case p.Converged && from != nil:
 		p.StartedFrom = slices.Clone(from)
 	}
+	if ps.compare && p.Single == SingleNotCompared {
+		one, err := NewEngine().Run(ctx, req)
+		if err != nil {
+			return fail(err)
+		}
+		if c := one.Coupled; !p.Converged && c != nil && c.Converged {
+			// Not converged from its neighbours, converged as `solve`
+			// solves it: the point takes solve's answer.
+			ps.last, ps.lastAt = c.last, p.Values
+			p.fill(one, st, ps.secs)
+			p.Single = SingleIdentical
+		} else {
+			p.judge(c)
+		}
+	}
 	return p, nil
+}
+
+// judge sets p.Single and its single-solve coefficients from s, the
+// coupled solution of a single solve of p's setting (`solve`), for a
+// point that started from a neighbour.
+func (p *Point) judge(s *CoupledPoint) {
+	switch {
+	case s == nil || !s.Converged:
+		p.Single = SingleNoAnswer
+		if !p.Converged {
+			p.Single = SingleIdentical // no answer either way
+		}
+	case !p.Converged:
+		p.Single = SingleNotCompared // solve has an answer the point has not taken
+	default:
+		p.SingleCl, p.SingleCd, p.SingleCm = s.Cl, s.Cd, s.Cm
+		p.Single = SingleAnotherRoot
+		if p.sameRoot(s.Cl, s.Cd, s.Cm) {
+			p.Single = SingleAgrees
+		}
+	}
 }
 
 // rescueSeeds is how many converged neighbours a point that did not
@@ -283,6 +435,9 @@ func (e *Engine) runFromSeed(ctx context.Context, req Request, seed *solver.Coup
 func (p *Point) fill(res *Result, st *model.Study, secs []*model.Section) {
 	nan := math.NaN()
 	p.Cl, p.Cd, p.Cm, p.ClInviscid, p.Residual = nan, nan, nan, nan, nan
+	if p.Single != SingleAgrees && p.Single != SingleAnotherRoot {
+		p.SingleCl, p.SingleCd, p.SingleCm = nan, nan, nan
+	}
 	p.LiftPerSpan, p.DownforcePerSpan, p.DragPerSpan, p.ClearanceMM = nan, nan, nan, nan
 	p.Elements = make([]PointElement, len(st.Elements))
 	for i, e := range st.Elements {
