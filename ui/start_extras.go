@@ -8,7 +8,8 @@ import (
 // openWindowEnv names a window to open at start, for screenshots of the
 // real app (scripts/screenshot.sh): "density", "panel-sizes", "setup" (the
 // set-up window running a map of its first variable; "setup-two" over
-// two variables), "setup-span" (its
+// two variables; a suffix "-compare" compares each point with a single
+// solve), "setup-span" (its
 // finite-span estimate) or "setup-search" (its setting search).
 const openWindowEnv = "SECTIONBENCH_OPEN_WINDOW"
 
@@ -43,9 +44,11 @@ func (w *Workbench) startExtras() {
 
 // startSetup opens the set-up window at start when which names one of
 // its tabs, and starts that tab's run; it reports whether it did. A
-// suffix "-inviscid" runs a map or search with the panel method only.
+// suffix "-inviscid" runs a map or search with the panel method only,
+// "-compare" a map comparing each point with a single solve.
 func (w *Workbench) startSetup(which string) bool {
 	base, inviscid := strings.CutSuffix(which, "-inviscid")
+	base, compare := strings.CutSuffix(base, "-compare")
 	tab := map[string]int{"setup": setupTabMaps, "setup-two": setupTabMaps, "setup-span": setupTabSpan, "setup-search": setupTabSearch}
 	t, ok := tab[base]
 	if !ok {
@@ -60,6 +63,7 @@ func (w *Workbench) startSetup(which string) bool {
 			case setupTabMaps:
 				m := w.setup.maps
 				m.viscous.SetChecked(!inviscid)
+				m.compare.SetChecked(compare)
 				m.second.SetChecked(base == "setup-two")
 				m.start()
 			case setupTabSpan:

@@ -3,6 +3,7 @@ package engine
 import (
 	"context"
 	"math"
+	"slices"
 	"runtime"
 	"testing"
 
@@ -67,23 +68,32 @@ func BenchmarkMapTwoElement20x20(b *testing.B) {
 // (2–12 mm) and the angle of attack (0°–6°), most downforce with every
 // suction side attached to x/c 0.9, the default budget of solves. Target
 // (issue "Set-up explorer"): 60 s on the project's 2-core machine.
-// Reports the solves made and whether a setting met the constraints.
+// Reports the solves made, whether a setting met the constraints, the
+// best downforce (N/m) and the solve that found it (1 = the start).
 func BenchmarkSearchThreeVariables(b *testing.B) {
 	st, secs := exampleStudy(b, "two-element-ground.json")
 	bounds := []model.SetupRange{mustBounds(b, "elements[1].deflection_deg=5:25"), mustBounds(b, "elements[1].gap_mm=2:12"), mustBounds(b, "alpha_deg=0:6")}
-	var evals, feasible int
+	var evals, feasible, bestAt int
+	var best float64
 	for b.Loop() {
 		res, err := Search(context.Background(), st, secs, bounds, SearchOptions{Objective: ObjectiveDownforce, AttachedToXC: 0.9}, nil)
 		if err != nil {
 			b.Fatal(err)
 		}
-		evals, feasible = res.Evaluations, 0
+		evals, feasible, best, bestAt = res.Evaluations, 0, res.Best.DownforcePerSpan, 0
 		if res.Feasible {
 			feasible = 1
+		}
+		for i, p := range res.Path {
+			if slices.Equal(p.Values, res.Best.Values) && bestAt == 0 {
+				bestAt = i + 1
+			}
 		}
 	}
 	b.ReportMetric(float64(evals), "solves")
 	b.ReportMetric(float64(feasible), "feasible")
+	b.ReportMetric(best, "best-downforce-N/m")
+	b.ReportMetric(float64(bestAt), "best-at-solve")
 }
 
 // The memory a viscous map of the invented two-element example holds
