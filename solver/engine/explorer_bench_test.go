@@ -3,8 +3,8 @@ package engine
 import (
 	"context"
 	"math"
-	"slices"
 	"runtime"
+	"slices"
 	"testing"
 
 	"sectionbench/model"
