@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"os"
 	"path/filepath"
 )
@@ -101,14 +102,14 @@ func fileKind(m os.FileMode) string {
 func OpenRegular(path string) (*os.File, error) {
 	fi, err := os.Stat(path)
 	if err != nil {
-		return nil, err // a *os.PathError, which names the path
+		return nil, &FileError{Path: path, Err: pathCause(err)}
 	}
 	if !fi.Mode().IsRegular() {
 		return nil, &FileError{Path: path, Err: fmt.Errorf("%w: it is %s", ErrNotRegular, fileKind(fi.Mode()))}
 	}
 	f, err := os.OpenFile(path, os.O_RDONLY|openNoWait, 0)
 	if err != nil {
-		return nil, err
+		return nil, &FileError{Path: path, Err: pathCause(err)}
 	}
 	if fi, err = f.Stat(); err != nil || !fi.Mode().IsRegular() {
 		f.Close()
@@ -210,3 +211,16 @@ func writeTarget(path string, write func(io.Writer) error, through bool, inputs 
 // ReadRegular reads a regular file of at most limit bytes (OpenRegular's
 // checks; larger files are refused with ErrFileTooLarge without reading).
 func ReadRegular(path string, limit int64) ([]byte, error) { return readLimited(path, limit) }
+
+// pathCause returns the cause inside an *fs.PathError ("no such file or
+// directory", "permission denied"), without the system call's name that
+// its message starts with ("stat x: …"); FileError names the path. Other
+// errors are returned as they are. errors.Is(…, fs.ErrNotExist) holds as
+// before.
+func pathCause(err error) error {
+	var pe *fs.PathError
+	if errors.As(err, &pe) {
+		return pe.Err
+	}
+	return err
+}

@@ -5,6 +5,7 @@ import (
 	"flag"
 	"fmt"
 	"math"
+	"os"
 	"slices"
 	"strconv"
 	"strings"
@@ -137,7 +138,15 @@ func (in *inputs) load(fs *flags) (*model.Study, []*model.Section, []*model.Clea
 	if err != nil {
 		var fe *model.FieldError
 		if errors.As(err, &fe) {
-			err = fmt.Errorf("--section %s: %w", in.section, fe.Err)
+			inner := fe.Err
+			var fle *export.FileError
+			if errors.As(inner, &fle) && fle.Path == in.section {
+				inner = fle.Err // the flag names the path already
+			}
+			err = fmt.Errorf("--section %s: %w", in.section, inner)
+			if errors.Is(inner, os.ErrNotExist) {
+				err = fmt.Errorf("%w (a SPEC is naca:DIGITS, a NACA designation such as naca0012, kt:CX,CY,TAU or a coordinate file)", err)
+			}
 		}
 		return nil, nil, nil, err
 	}

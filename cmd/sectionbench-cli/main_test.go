@@ -42,14 +42,14 @@ func TestExitCodesAndMessages(t *testing.T) {
 		{"no section", []string{"solve"}, exitUsage, []string{"--section"}},
 		{"both sources", []string{"solve", "--section", "naca:0012", "--study", "x.json"}, exitUsage, []string{"not both"}},
 		{"bad NACA code", []string{"solve", "--section", "naca:12"}, exitInput, []string{"12"}},
-		{"missing file", []string{"solve", "--section", filepath.Join(dir, "nope.dat")}, exitInput, []string{"nope.dat"}},
+		{"missing file", []string{"solve", "--section", filepath.Join(dir, "nope.dat")}, exitInput, []string{"nope.dat", "no such file", "naca:DIGITS"}},
 		{"malformed file names the line", []string{"solve", "--section", bad}, exitInput, []string{"bad.dat", "line 3"}},
 		{"transition exponent out of range", []string{"solve", "--section", "naca:0012", "--re", "3e5", "--transition-n", "30"}, exitUsage, []string{"--transition-n", "30"}},
 		{"trip beyond the chord", []string{"solve", "--section", "naca:0012", "--re", "3e5", "--trip-upper", "1.5"}, exitUsage, []string{"--trip-upper"}},
 		{"unknown viscous mode", []string{"solve", "--section", "naca:0012", "--re", "3e5", "--viscous-mode", "exact"}, exitUsage, []string{"--viscous-mode", "exact"}},
 		{"bad sweep range", []string{"sweep", "--section", "naca:0012", "--alpha", "0:10"}, exitUsage, []string{"FROM:TO:STEP"}},
 		{"sweep step zero", []string{"sweep", "--section", "naca:0012", "--alpha", "0:10:0"}, exitUsage, []string{"step"}},
-		{"missing study", []string{"solve", "--study", filepath.Join(dir, "none.json")}, exitInput, []string{"none.json"}},
+		{"missing study", []string{"solve", "--study", filepath.Join(dir, "none.json")}, exitInput, []string{"none.json: no such file"}},
 		{"clean without file", []string{"clean"}, exitUsage, []string{"clean IN"}},
 		{"figure dpi zero", []string{"export", "--section", "naca:0012", "--what", "figure", "--dpi", "0", "-o", "x.png"}, exitUsage, []string{"--dpi"}},
 		{"figure dpi rounds to zero", []string{"export", "--section", "naca:0012", "--what", "figure", "--dpi", "0.4", "-o", "x.png"}, exitUsage, []string{"--dpi"}},
@@ -65,6 +65,9 @@ func TestExitCodesAndMessages(t *testing.T) {
 			}
 			if strings.Contains(stderr, "goroutine") || strings.Contains(stderr, "panic") {
 				t.Errorf("stderr shows a panic: %s", stderr)
+			}
+			if strings.Contains(stderr, "stat ") || strings.Contains(stderr, "open /") {
+				t.Errorf("stderr speaks of system calls: %s", stderr)
 			}
 			for _, s := range tc.contains {
 				if !strings.Contains(stderr, s) {
