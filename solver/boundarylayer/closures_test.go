@@ -52,15 +52,37 @@ func TestLaminarSeparationShape(t *testing.T) {
 }
 
 // marchFlatPlate integrates a layer of kind k on a flat plate (Ue = 1) at
-// unit Reynolds number re from x0 with state st to x1 in n geometric steps,
-// solving each interval's residuals by Newton's method with a
-// finite-difference Jacobian, and returns the last station.
+// unit Reynolds number re from x0 with state st to x1 in n geometric steps
+// (marchEdge) and returns the last station.
 func marchFlatPlate(t *testing.T, k Kind, st Station, re, x1 float64, n int) Station {
 	t.Helper()
 	ratio := math.Pow(x1/st.Xi, 1/float64(n))
-	for range n {
+	xs := make([]float64, n)
+	x := st.Xi
+	for i := range xs {
+		x *= ratio
+		xs[i] = x
+	}
+	last, ok := marchEdge(k, st, re, func(float64) float64 { return 1 }, xs, nil)
+	if !ok {
+		t.Fatalf("flat plate: no convergence at x = %g", last.Xi)
+	}
+	return last
+}
+
+// marchEdge integrates a layer of kind k at unit Reynolds number re from
+// station st through the stations at xs (increasing, beyond st.Xi) with
+// the prescribed edge velocity ue(x), solving each interval's residuals
+// by Newton's method with a finite-difference Jacobian (the direct mode:
+// θ, δ* and C unknown, Ue given). each, if not nil, sees every station
+// solved and stops the march by returning false. It returns the last
+// station solved and false if Newton's method failed at the next, as the
+// direct mode does where the layer approaches separation (the shape
+// equation's dH*/dH changes sign there).
+func marchEdge(k Kind, st Station, re float64, ue func(float64) float64, xs []float64, each func(Station) bool) (Station, bool) {
+	for _, xb := range xs {
 		b := st
-		b.Xi = st.Xi * ratio
+		b.Xi, b.Ue = xb, ue(xb)
 		for it := 0; ; it++ {
 			x := [3]float64{b.C, b.Theta, b.DStar}
 			f := func(x [3]float64) Residuals {
@@ -87,13 +109,16 @@ func marchFlatPlate(t *testing.T, k Kind, st Station, re, x1 float64, n int) Sta
 			if math.Abs(dx[1]/x[1])+math.Abs(dx[2]/x[2]) < 1e-12 {
 				break
 			}
-			if it > 50 {
-				t.Fatalf("flat plate: no convergence at x = %g", b.Xi)
+			if it > 50 || !(b.Theta > 0 && b.DStar > 0) {
+				return st, false
 			}
 		}
 		st = b
+		if each != nil && !each(st) {
+			break
+		}
 	}
-	return st
+	return st, true
 }
 
 func solve3x3(a [3][3]float64, b [3]float64) [3]float64 {
