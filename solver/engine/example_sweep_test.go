@@ -70,7 +70,7 @@ func TestExampleTwoElementSweep(t *testing.T) {
 	// more than one (DEVELOPERS.md), and which one a start reaches moves
 	// with the linear algebra's rounding: the point at 3° from scratch
 	// (the example as it opens) sat 3 % from the polar's row until
-	// 61b45b8 (Cl −3.294 against −3.202, reached from 0°) and now lands on
+	// a58ccb8 (Cl −3.294 against −3.202, reached from 0°) and now lands on
 	// the polar's root; measured now, every moved point is within 0.0006
 	// of its polar row (7°: −4.2087 against −4.2081).
 	e := NewEngine()
