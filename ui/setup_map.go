@@ -173,7 +173,7 @@ func describePoint(st *model.Study, vars []model.SetupVariable, p *engine.Point,
 		at := strings.Join(from, ", ")
 		switch p.Single {
 		case engine.SingleAnotherRoot:
-			qs = append(qs, fmt.Sprintf("started from the solution at %s; a single solve lands on another root here (Cl %s against %s)", at, sig(p.SingleCl), sig(p.Cl)))
+			qs = append(qs, fmt.Sprintf("started from the solution at %s; a single solve lands on another root here (its Cl %s, this point's %s)", at, sig(p.SingleCl), sig(p.Cl)))
 		case engine.SingleNoAnswer:
 			qs = append(qs, "converged only when started from the solution at "+at+" (a single solve has no answer here)")
 		case engine.SingleAgrees:
