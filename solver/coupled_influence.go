@@ -157,6 +157,9 @@ type sourceResponse struct {
 	gam    blas64.General
 	wakeUt blas64.General
 	wakeU0 []float64 // the inviscid speed along each wake node's tangent
+	// inner corrects the surface speeds of the aft nodes for the flow
+	// inside a thin section (coupled_interior.go).
+	inner *interiorSpeeds
 }
 
 // newSourceResponse assembles S, solves G = −A⁻¹ S with the kept factors
@@ -202,6 +205,10 @@ func newSourceResponse(sol *Solution, wakes []*wakeGeom) *sourceResponse {
 		row := r.gam.Data[i*cols.n : (i+1)*cols.n]
 		copy(row, body.Data[i*cols.body:(i+1)*cols.body])
 		copy(row[cols.body:], wg.Data[i*nwc:(i+1)*nwc])
+	}
+	r.inner = newInteriorSpeeds(sol, wakes, r)
+	if kuttaOnSpeeds(sol, r) {
+		r.inner = newInteriorSpeeds(sol, wakes, r)
 	}
 	// Wake rows: the vortex sheets' velocity per unit nodal γ times G, plus
 	// the sources' own.

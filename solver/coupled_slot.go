@@ -95,7 +95,7 @@ func distanceToContour(p model.Point, nodes []model.Point) float64 {
 // (slotWeights).
 func (cs *coupledState) speedNodes(s *station) (a, b int, wb float64) {
 	e := &cs.geo.elems[s.elem]
-	a = speedNode(e, s.node)
+	a = cs.resp.inner.stand[e.u0+speedNode(e, s.node)] - e.u0
 	w := cs.slot[s.elem]
 	if w == 0 || a != s.node {
 		return a, a, 0

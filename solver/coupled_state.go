@@ -424,9 +424,8 @@ func (cs *coupledState) sigmaRow(s *station, out []float64) {
 	if s.side == sideLower {
 		sg = -1
 	}
-	ra := r.gam.Data[(e.u0+a)*ncol : (e.u0+a+1)*ncol]
-	rb := r.gam.Data[(e.u0+b)*ncol : (e.u0+b+1)*ncol]
-	ra, rb = ra[:len(out)], rb[:len(out)]
+	ra := r.inner.nodeRow(r, e.u0+a)[:len(out)]
+	rb := r.inner.nodeRow(r, e.u0+b)[:len(out)]
 	for c := range out {
 		out[c] = sg * ((1-wb)*ra[c] + wb*rb[c])
 	}
@@ -440,7 +439,8 @@ func (cs *coupledState) ue0Of(s *station) float64 {
 	}
 	e := &cs.geo.elems[s.elem]
 	a, b, wb := cs.speedNodes(s)
-	g := (1-wb)*cs.sol.g[e.u0+a] + wb*cs.sol.g[e.u0+b]
+	in := cs.resp.inner
+	g := (1-wb)*in.speedRow(cs.resp, cs.sol.g, e.u0+a, nil) + wb*in.speedRow(cs.resp, cs.sol.g, e.u0+b, nil)
 	if s.side == sideLower {
 		return -g
 	}
