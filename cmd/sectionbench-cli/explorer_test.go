@@ -135,10 +135,12 @@ func TestMapJSONShape(t *testing.T) {
 	}
 }
 
-// A map gives `solve`'s numbers at its grid points exactly (the same
-// study and options): inviscid on the two-element example in ground
-// effect, and with the coupled viscous solution on NACA 0012 at Re 6e6
-// tripped at 5 % (where it converges) wherever solve converges.
+// A map gives `solve`'s numbers at its grid points (the same study and
+// options): inviscid on the two-element example in ground effect to the
+// digit, and with the coupled viscous solution on NACA 0012 at Re 6e6
+// tripped at 5 % (where it converges, with one root) wherever solve
+// converges, to the digit where the point was solved from its own start
+// and within single_solve_tolerance where it started from its neighbour.
 func TestMapReproducesSolve(t *testing.T) {
 	for _, tc := range []struct {
 		name   string
@@ -166,9 +168,22 @@ func TestMapReproducesSolve(t *testing.T) {
 					t.Logf("α %g: solve does not converge", a)
 					continue
 				}
+				// Identical: the same digits; started from a neighbour:
+				// within single_solve_tolerance (cl and cm of |cl|, cd of cd).
+				tol := map[string]any{}
+				if pm["single_solve"] != "identical" {
+					tol = m["single_solve_tolerance"].(map[string]any)
+				}
 				for _, k := range tc.keys {
-					if pm[k] != s[k] || pm[k] == nil {
-						t.Errorf("point %d, α %g: %s map %v, solve %v", i, a, k, pm[k], s[k])
+					x, ok1 := pm[k].(float64)
+					y, ok2 := s[k].(float64)
+					rel, scale := tol["cl"], s["cl"]
+					if k == "cd" {
+						rel, scale = tol["cd"], s["cd"]
+					}
+					sc, _ := scale.(float64)
+					if r, _ := rel.(float64); !ok1 || !ok2 || math.Abs(x-y) > r*math.Abs(sc) {
+						t.Errorf("point %d, α %g (%v): %s map %v, solve %v", i, a, pm["single_solve"], k, pm[k], s[k])
 					}
 				}
 			}
