@@ -314,8 +314,9 @@ func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, erro
 	var res *Result
 	var from []float64 // the setting res started from; nil: its own start
 	if len(seeds) == 0 {
-		// As `solve` solves it; in free air, when that does not converge,
-		// again from the engine's last converged point (the walk's).
+		// As `solve` solves it; when that does not converge, again from
+		// the engine's last converged point when it is near (Run's warm
+		// start): then `solve` has no answer here.
 		var warmed bool
 		if res, warmed, err = ps.eng.runColdFirst(ctx, req); err != nil {
 			return fail(err)
