@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/mat"
 )
 
 // The surface speed of the panel method is −γ, the jump of the tangential
@@ -264,52 +265,20 @@ func kuttaOnSpeeds(sol *Solution, r *sourceResponse) bool {
 			}
 		}
 	}
-	// X = μ⁻¹ M by Gaussian elimination with partial pivoting (ne is the
-	// number of closed edges, a handful).
-	for col := 0; col < ne; col++ {
-		piv := col
-		for i := col + 1; i < ne; i++ {
-			if math.Abs(mu[i*ne+col]) > math.Abs(mu[piv*ne+col]) {
-				piv = i
-			}
-		}
-		if mu[piv*ne+col] == 0 {
-			return false
-		}
-		for q := 0; q < ne; q++ {
-			mu[col*ne+q], mu[piv*ne+q] = mu[piv*ne+q], mu[col*ne+q]
-		}
-		for q := 0; q < ncol; q++ {
-			m[col*ncol+q], m[piv*ncol+q] = m[piv*ncol+q], m[col*ncol+q]
-		}
-		for i := 0; i < ne; i++ {
-			if i == col {
-				continue
-			}
-			f := mu[i*ne+col] / mu[col*ne+col]
-			if f == 0 {
-				continue
-			}
-			for q := 0; q < ne; q++ {
-				mu[i*ne+q] -= f * mu[col*ne+q]
-			}
-			for q := 0; q < ncol; q++ {
-				m[i*ncol+q] -= f * m[col*ncol+q]
-			}
-		}
+	// X = μ⁻¹ M (ne, the number of closed edges, is a handful); a gap
+	// system the modes cannot close (singular or nearly so) leaves the
+	// response as it is.
+	var x mat.Dense
+	if err := x.Solve(mat.NewDense(ne, ne, mu), mat.NewDense(ne, ncol, m)); err != nil {
+		return false
 	}
-	for i := 0; i < ne; i++ {
-		d := mu[i*ne+i]
-		for q := 0; q < ncol; q++ {
-			m[i*ncol+q] /= d
-		}
-	}
+	xr := x.RawMatrix()
 	// G ← G − C X.
 	for i := 0; i < n; i++ {
 		y := blas64.Vector{N: ncol, Inc: 1, Data: r.gam.Data[i*ncol : (i+1)*ncol]}
 		for j := 0; j < ne; j++ {
 			if v := c.Data[i*ne+j]; v != 0 {
-				blas64.Axpy(-v, blas64.Vector{N: ncol, Inc: 1, Data: m[j*ncol : (j+1)*ncol]}, y)
+				blas64.Axpy(-v, blas64.Vector{N: ncol, Inc: 1, Data: xr.Data[j*xr.Stride : j*xr.Stride+ncol]}, y)
 			}
 		}
 	}
