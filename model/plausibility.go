@@ -61,6 +61,9 @@ type ViscousFacts struct {
 	PastClMax    bool // beyond the angle of the viscous solution's maximum lift
 	NotConverged bool
 	Separated    bool // the coupled solution or the one-way estimate finds the flow separated well ahead of the trailing edge: the inviscid answer does not hold
+	// Coupled: the facts are the coupled solution's, whose forces already
+	// include the separation (the one-way estimate's lift is inviscid).
+	Coupled bool
 	// TransitionHeld: on some surface with free transition the coupled
 	// solution's transition lies upstream of where the e^N criterion
 	// puts it, because the solution with it further on did not converge.
@@ -71,8 +74,11 @@ type ViscousFacts struct {
 func Plausibility(f PointFacts) []Flag {
 	var flags []Flag
 	if v := f.Viscous; v != nil {
-		if v.Separated {
-			flags = append(flags, Flag{FlagSeparated, "the boundary layer separates well ahead of the trailing edge (viscous solution or estimate): the wing would stall here and the downforce or lift shown is not reached"})
+		switch {
+		case v.Separated && v.Coupled:
+			flags = append(flags, Flag{FlagSeparated, "the boundary layer separates well ahead of the trailing edge: the wing is at or near stall, where the viscous solution's forces are least certain; confirm by test before relying on them"})
+		case v.Separated:
+			flags = append(flags, Flag{FlagSeparated, "the boundary layer separates well ahead of the trailing edge (one-way estimate): the wing would stall here and the downforce or lift shown, the inviscid one, is not reached"})
 		}
 		if v.PastClMax {
 			flags = append(flags, Flag{FlagPastClMax, "past the viscous solution's maximum lift: the real wing gives less, not more, as the angle grows"})

@@ -499,7 +499,7 @@ func (r *writer) sweepFlags(i int) []model.Flag {
 	if r.in.Coupled == nil {
 		flags = res.SweepFlags(i) // with the one-way estimate's separation
 	} else {
-		flags = model.Plausibility(model.PointFacts{CpMin: res.Sweep[i].CpMin, HOverC: hOverC(res), Viscous: r.viscousFacts(i)})
+		flags = model.Plausibility(model.PointFacts{CpMin: r.suctionPeak(i, res.Sweep[i].CpMin), HOverC: hOverC(res), Viscous: r.viscousFacts(i)})
 	}
 	if len(res.SweepViscous) == len(res.Sweep) && !res.SweepViscous[i].Valid {
 		flags = append(flags, model.Flag{Kind: flagBLSeparates})

@@ -36,6 +36,13 @@ type Coupled struct {
 	// PointPastClMax and PointSeparated are the verdicts at the study's
 	// angle (engine.CoupledPoint.Facts).
 	PointPastClMax, PointSeparated bool
+	// PointCpMin is the coupled solution's suction peak at the study's
+	// angle and CpMin per sweep angle (engine.CoupledPoint.CpMin); NaN
+	// where it did not converge, and the flags then judge the inviscid
+	// peak. CoupledFrom fills them; a Coupled built otherwise sets them
+	// (NaN where not known), as 0 would read as a peak of Cp 0.
+	PointCpMin float64
+	CpMin      []float64
 }
 
 // CoupledElement is the coupled solution on one element; x/c NaN for none.
@@ -63,11 +70,13 @@ func CoupledFrom(st *model.Study, res *engine.Result) *Coupled {
 	}
 	f := cp.Facts()
 	c.PointPastClMax, c.PointSeparated = f.PastClMax, f.Separated
+	c.PointCpMin, _ = cp.CpMin()
 	if n := len(res.Sweep); n > 0 && len(res.SweepCoupled) == n {
-		c.PastClMax, c.NotConverged, c.Separated = make([]bool, n), make([]bool, n), make([]bool, n)
+		c.PastClMax, c.NotConverged, c.Separated, c.CpMin = make([]bool, n), make([]bool, n), make([]bool, n), make([]float64, n)
 		for i := range res.SweepCoupled {
 			f := res.SweepCoupled[i].Facts()
 			c.PastClMax[i], c.NotConverged[i], c.Separated[i] = f.PastClMax, f.NotConverged, f.Separated
+			c.CpMin[i], _ = res.SweepCoupled[i].CpMin()
 		}
 	}
 	return c
@@ -391,7 +400,26 @@ func (r *writer) flags() []model.Flag {
 	for _, e := range res.Solution.Elements {
 		cp = math.Min(cp, e.CpMin)
 	}
-	return model.Plausibility(model.PointFacts{CpMin: cp, HOverC: hOverC(res), Viscous: r.viscousFacts(-1)})
+	return model.Plausibility(model.PointFacts{CpMin: r.suctionPeak(-1, cp), HOverC: hOverC(res), Viscous: r.viscousFacts(-1)})
+}
+
+// suctionPeak is the suction peak the flags judge at sweep row i, or at
+// the study's angle for i < 0: the coupled solution's where it converged
+// (its forces are the ones shown), else inviscidCpMin.
+func (r *writer) suctionPeak(i int, inviscidCpMin float64) float64 {
+	c := r.in.Coupled
+	cp := math.NaN()
+	switch {
+	case c == nil:
+	case i < 0:
+		cp = c.PointCpMin
+	case i < len(c.CpMin):
+		cp = c.CpMin[i]
+	}
+	if math.IsNaN(cp) {
+		return inviscidCpMin
+	}
+	return cp
 }
 
 // viscousFacts are the coupled solution's verdicts at sweep row i, or at
@@ -402,10 +430,10 @@ func (r *writer) viscousFacts(i int) *model.ViscousFacts {
 		return nil
 	}
 	if i < 0 {
-		return &model.ViscousFacts{PastClMax: c.PointPastClMax, NotConverged: !c.Converged, Separated: c.PointSeparated}
+		return &model.ViscousFacts{PastClMax: c.PointPastClMax, NotConverged: !c.Converged, Separated: c.PointSeparated, Coupled: true}
 	}
 	at := func(v []bool) bool { return i < len(v) && v[i] }
-	return &model.ViscousFacts{PastClMax: at(c.PastClMax), NotConverged: at(c.NotConverged), Separated: at(c.Separated)}
+	return &model.ViscousFacts{PastClMax: at(c.PastClMax), NotConverged: at(c.NotConverged), Separated: at(c.Separated), Coupled: true}
 }
 
 func hOverC(res *engine.Result) float64 {

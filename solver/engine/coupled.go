@@ -57,13 +57,16 @@ type CoupledElementPoint struct {
 	// position (solver.CoupledSurface.TransitionHeld).
 	HeldUpper, HeldLower     bool
 	BubbleUpper, BubbleLower [2]float64 // laminar separation bubble from–to x/c; NaN, NaN for none
+	// CpMin is the lowest Cp of the coupled solution on the element's
+	// surfaces (1 − Ue² at its stations); NaN unless converged.
+	CpMin float64
 }
 
 // Facts returns the point's verdict for model.Plausibility: past maximum
 // lift, not converged, transition held, and, when it converged, separated
 // on some element (suctionSeparated).
 func (p *CoupledPoint) Facts() *model.ViscousFacts {
-	f := &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged, TransitionHeld: p.Converged && p.Held()}
+	f := &model.ViscousFacts{PastClMax: p.PastClMax, NotConverged: !p.Converged, TransitionHeld: p.Converged && p.Held(), Coupled: true}
 	if p.Converged {
 		for _, e := range p.Elements {
 			f.Separated = f.Separated || e.suctionSeparated()
@@ -121,10 +124,11 @@ func coupledPoint(alphaDeg float64, cs *solver.CoupledSolution) CoupledPoint {
 		ep := CoupledElementPoint{
 			Name: e.Name, Cl: nan, Cd: nan, Cm: nan, ClInviscid: e.ClInviscid,
 			TransitionUpper: nan, TransitionLower: nan, SeparationUpper: nan, SeparationLower: nan,
-			BubbleUpper: [2]float64{nan, nan}, BubbleLower: [2]float64{nan, nan},
+			BubbleUpper: [2]float64{nan, nan}, BubbleLower: [2]float64{nan, nan}, CpMin: nan,
 		}
 		if cs.Converged {
 			ep.Cl, ep.Cd, ep.Cm = e.Cl, e.Cd, e.Cm
+			ep.CpMin = surfaceCpMin(e.Upper, e.Lower)
 			ep.TransitionUpper, ep.TransitionLower = e.Upper.Transition, e.Lower.Transition
 			ep.SeparationUpper, ep.SeparationLower = e.Upper.Separation, e.Lower.Separation
 			ep.HeldUpper, ep.HeldLower = e.Upper.TransitionHeld, e.Lower.TransitionHeld
@@ -149,10 +153,34 @@ func failedPoint(alphaDeg float64, names []string, err error) CoupledPoint {
 		p.Elements = append(p.Elements, CoupledElementPoint{
 			Name: n, Cl: nan, Cd: nan, Cm: nan, ClInviscid: nan,
 			TransitionUpper: nan, TransitionLower: nan, SeparationUpper: nan, SeparationLower: nan,
-			BubbleUpper: [2]float64{nan, nan}, BubbleLower: [2]float64{nan, nan},
+			BubbleUpper: [2]float64{nan, nan}, BubbleLower: [2]float64{nan, nan}, CpMin: nan,
 		})
 	}
 	return p
+}
+
+// surfaceCpMin returns the lowest Cp over the stations of the surfaces.
+func surfaceCpMin(surfaces ...solver.CoupledSurface) float64 {
+	cp := math.Inf(1)
+	for _, s := range surfaces {
+		for _, st := range s.Stations {
+			cp = math.Min(cp, st.Cp)
+		}
+	}
+	return cp
+}
+
+// CpMin returns the lowest Cp of the coupled solution over every element
+// and true when the point converged; NaN and false otherwise.
+func (p *CoupledPoint) CpMin() (float64, bool) {
+	if p == nil || !p.Converged || len(p.Elements) == 0 {
+		return math.NaN(), false
+	}
+	cp := math.Inf(1)
+	for _, e := range p.Elements {
+		cp = math.Min(cp, e.CpMin)
+	}
+	return cp, true
 }
 
 // coupledOptions are the solver's options for a study.

@@ -73,6 +73,9 @@ func TestRowFlags(t *testing.T) {
 		{"close to the ground", -3, 0.05, nil, nil, []model.FlagKind{model.FlagGround}},
 		{"estimate separated", -3, nan, &ViscousPoint{Separated: true}, nil, []model.FlagKind{model.FlagSeparated}},
 		{"coupled past Cl max, not converged", -3, nan, nil, &CoupledPoint{PastClMax: true}, []model.FlagKind{model.FlagPastClMax, model.FlagNotConverged}},
+		{"inviscid peak beyond, coupled within", -10, nan, nil, &CoupledPoint{Converged: true, Elements: []CoupledElementPoint{{CpMin: -6.6, SeparationUpper: nan, SeparationLower: nan}}}, nil},
+		{"coupled peak beyond", -10, nan, nil, &CoupledPoint{Converged: true, Elements: []CoupledElementPoint{{CpMin: -8.5, SeparationUpper: nan, SeparationLower: nan}}}, []model.FlagKind{model.FlagSuction}},
+		{"not converged: the inviscid peak", -10, nan, nil, &CoupledPoint{Elements: []CoupledElementPoint{{CpMin: nan}}}, []model.FlagKind{model.FlagNotConverged, model.FlagSuction}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
