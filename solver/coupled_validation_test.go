@@ -25,7 +25,12 @@ import (
 // issue's 3 % on Cl is NOT met: the coupled Cl runs 3.6–5 % above
 // Ladson's from 4° up (8.6 % at 2°, where Ladson's own zero-lift offset,
 // Cl −0.013 at −0.05°, is a third of the difference); the test logs the
-// figures and DEVELOPERS.md lists it among the open items.
+// figures and DEVELOPERS.md lists it among the open items. Ladson's
+// tunnel ran at Mach 0.15, where compressibility raises Cl by the
+// Prandtl–Glauert factor 1/√(1 − M²) = 1.011 (Anderson, Fundamentals of
+// Aerodynamics, ch. 11; the factor in McCroskey's slope fit beside the
+// data): the solver is incompressible, so the incompressible comparison
+// flatters it by about 1 %; the log gives both.
 //
 // Maximum lift: the highest converged Cl within ±0.1 of Ladson's 1.6116
 // and its angle within ±1.5° of 17.13° (the tolerances), and a
@@ -74,8 +79,8 @@ func TestCoupledNACA0012Ladson(t *testing.T) {
 		}
 		cl, cd := g80.Cl[i], g80.Cd[i]
 		dcd := cs.Cd/cd - 1
-		t.Logf("α %5.2f°: Cl %.4f (inviscid %.4f, Ladson %.4f, %+.1f %%), Cd %.5f (Ladson %.5f, %+.1f %%), %d iterations",
-			a, cs.Cl, cs.ClInviscid, cl, 100*(cs.Cl/cl-1), cs.Cd, cd, 100*dcd, cs.Iterations)
+		t.Logf("α %5.2f°: Cl %.4f (inviscid %.4f, Ladson %.4f, %+.1f %%; at Ladson's Mach 0.15 %+.1f %%), Cd %.5f (Ladson %.5f, %+.1f %%), %d iterations",
+			a, cs.Cl, cs.ClInviscid, cl, 100*(cs.Cl/cl-1), 100*(cs.Cl*ladsonPrandtlGlauert/cl-1), cs.Cd, cd, 100*dcd, cs.Iterations)
 		if a <= 10.5 && math.Abs(dcd) > 0.10 {
 			t.Errorf("α = %.2f°: Cd %.5f, Ladson %.5f: %.1f %% off, 10 %% allowed", a, cs.Cd, cd, 100*dcd)
 		}
@@ -104,6 +109,11 @@ const (
 	ladsonClMax      = 1.6116
 	ladsonAlphaClMax = 17.13
 )
+
+// ladsonPrandtlGlauert is 1/√(1 − M²) at Ladson's Mach 0.15: the
+// incompressible Cl times it is the Cl to compare with his (Prandtl–Glauert
+// rule; Anderson, Fundamentals of Aerodynamics, ch. 11).
+var ladsonPrandtlGlauert = 1 / math.Sqrt(1-0.15*0.15)
 
 // readmeLiftExcess is the README's statement of how far the coupled Cl
 // may lie above the wind-tunnel data (its Limitations, in Cl): asserted
