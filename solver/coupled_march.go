@@ -171,11 +171,23 @@ const (
 // fixed: for hFix = 0 in (c, θ, m) with Ue = ueM[i]; otherwise in (c, θ,
 // Ue) with m = Ue hFix θ. It reports convergence.
 func (cs *coupledState) localNewton(i int, ueM []float64, hFix float64) bool {
+	// The predecessor is fixed: on a plain interval its closures are
+	// evaluated once (residual evaluates them at every call, to the same
+	// numbers).
+	plain, kind := cs.plainInterval(i)
+	var pst bl.Station
+	var pcl bl.Closure
+	if plain {
+		l := cs.localOf(i, ueM)
+		pst = cs.stationFrom(&l, 1)
+		pcl = bl.Eval(kind, pst, cs.re)
+	}
 	for range 30 {
 		x := [3]float64{cs.c[i], cs.th[i], cs.m[i]}
 		if hFix > 0 {
 			x[2] = ueM[i]
 		}
+		var memo bl.IntervalMemo
 		eval := func(x [3]float64) bl.Residuals {
 			ue := ueM[i]
 			m := x[2]
@@ -185,6 +197,10 @@ func (cs *coupledState) localNewton(i int, ueM []float64, hFix float64) bool {
 			}
 			l := cs.localOf(i, ueM)
 			l.v[0] = [4]float64{x[0], x[1], m, ue}
+			if plain {
+				me := cs.stationFrom(&l, 0)
+				return memo.IntervalOf(kind, pst, me, pcl, bl.Eval(kind, me, cs.re))
+			}
 			return cs.residual(i, &l)
 		}
 		r0 := eval(x)

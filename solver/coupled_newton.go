@@ -85,8 +85,8 @@ func (cs *coupledState) localOf(i int, ue []float64) local {
 func (cs *coupledState) stationFrom(l *local, q int) bl.Station {
 	j := l.idx[q]
 	v := l.v[q]
-	ue := math.Max(v[3], 1e-6)
-	return bl.Station{Xi: cs.st[j].xi, Ue: ue, Theta: math.Max(v[1], 1e-12), DStar: math.Max(v[2], 1e-14) / ue, C: v[0]}
+	ue := max(v[3], 1e-6)
+	return bl.Station{Xi: cs.st[j].xi, Ue: ue, Theta: max(v[1], 1e-12), DStar: max(v[2], 1e-14) / ue, C: v[0]}
 }
 
 // residual returns station i's residuals from the local variables.
@@ -485,7 +485,7 @@ func (cs *coupledState) residualNorm() float64 {
 	ev := cs.work.ev
 	for j := range n {
 		e := &ev[j]
-		e.kind = cs.st[j].kind
+		e.kind, e.re = cs.st[j].kind, cs.re
 		e.st[0] = cs.stationVars(j, [4]float64{cs.c[j], cs.th[j], cs.m[j], ue[j]})
 		e.cl[0] = bl.Eval(e.kind, e.st[0], cs.re)
 	}
@@ -513,14 +513,14 @@ func (cs *coupledState) residualNorm() float64 {
 func (cs *coupledState) clampState() {
 	ue := cs.ueLayers()
 	for i := range cs.st {
-		u := math.Max(ue[i], 1e-6)
+		u := max(ue[i], 1e-6)
 		if cs.m[i] < minH*cs.th[i]*u {
 			cs.m[i] = minH * cs.th[i] * u
 		}
 		if cs.st[i].kind != bl.Laminar {
-			cs.c[i] = math.Min(math.Max(cs.c[i], 1e-6), 0.3)
+			cs.c[i] = min(max(cs.c[i], 1e-6), 0.3)
 		} else {
-			cs.c[i] = math.Max(cs.c[i], 0)
+			cs.c[i] = max(cs.c[i], 0)
 		}
 	}
 }
@@ -553,9 +553,11 @@ type newtonWork struct {
 // station enters its own interval and its successor's; with these kept,
 // each closure is evaluated once per Newton step instead of once per
 // interval and perturbation (the closures' exp, log and pow are most of
-// the Jacobian's cost).
+// the Jacobian's cost). residualNorm leaves index 0 at the state it
+// measured, which the next Newton step usually linearises about.
 type stationEval struct {
 	kind bl.Kind
+	re   float64 // the Reynolds number per unit length cl was evaluated at
 	st   [5]bl.Station
 	cl   [5]bl.Closure
 	h    [4]float64
@@ -604,24 +606,33 @@ func (w *newtonWork) release() {
 // evalStation fills ev with station j's state and closures (kind k) at
 // local variables v and with each of them perturbed.
 func (cs *coupledState) evalStation(ev *stationEval, j int, k bl.Kind, v [4]float64) {
-	ev.kind = k
 	lam := cs.st[j].kind == bl.Laminar
-	ev.st[0] = cs.stationVars(j, v)
-	ev.cl[0] = bl.Eval(k, ev.st[0], cs.re)
+	st := cs.stationVars(j, v)
+	if ev.kind != k || ev.re != cs.re || ev.st[0] != st {
+		// Else cl[0] holds Eval(k, st, re) already (residualNorm's).
+		ev.kind, ev.re = k, cs.re
+		ev.cl[0] = bl.Eval(k, st, cs.re)
+	}
+	ev.st[0] = st
 	for x := range 4 {
 		h := fdStep(x, v[x], lam)
 		vp := v
 		vp[x] += h
 		ev.h[x] = h
 		ev.st[1+x] = cs.stationVars(j, vp)
+		if x == 0 {
+			// Only the third variable moved.
+			ev.cl[1] = bl.WithC(k, ev.cl[0], ev.st[1].C)
+			continue
+		}
 		ev.cl[1+x] = bl.Eval(k, ev.st[1+x], cs.re)
 	}
 }
 
 // stationVars is stationFrom for station j's variables v (c, θ, m, Ue).
 func (cs *coupledState) stationVars(j int, v [4]float64) bl.Station {
-	ue := math.Max(v[3], 1e-6)
-	return bl.Station{Xi: cs.st[j].xi, Ue: ue, Theta: math.Max(v[1], 1e-12), DStar: math.Max(v[2], 1e-14) / ue, C: v[0]}
+	ue := max(v[3], 1e-6)
+	return bl.Station{Xi: cs.st[j].xi, Ue: ue, Theta: max(v[1], 1e-12), DStar: max(v[2], 1e-14) / ue, C: v[0]}
 }
 
 // newtonStep assembles and solves one Newton step; ok is false if the
@@ -666,10 +677,11 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 				cs.evalStation(&fresh, l.idx[1], kind, l.v[1])
 				pv = &fresh
 			}
-			r0 = bl.IntervalOf(kind, pv.st[0], me.st[0], pv.cl[0], me.cl[0])
+			var memo bl.IntervalMemo
+			r0 = memo.IntervalOf(kind, pv.st[0], me.st[0], pv.cl[0], me.cl[0])
 			for x := range 4 {
-				r1 := bl.IntervalOf(kind, pv.st[0], me.st[1+x], pv.cl[0], me.cl[1+x])
-				r2 := bl.IntervalOf(kind, pv.st[1+x], me.st[0], pv.cl[1+x], me.cl[0])
+				r1 := memo.IntervalOf(kind, pv.st[0], me.st[1+x], pv.cl[0], me.cl[1+x])
+				r2 := memo.IntervalOf(kind, pv.st[1+x], me.st[0], pv.cl[1+x], me.cl[0])
 				for e := range 3 {
 					jac[0][x][e] = (r1[e] - r0[e]) / me.h[x]
 					jac[1][x][e] = (r2[e] - r0[e]) / pv.h[x]

@@ -88,14 +88,14 @@ func Eval(k Kind, st Station, re float64) Closure {
 	c.RTheta = re * st.Ue * st.Theta
 	switch k {
 	case Laminar:
-		c.Hk = math.Max(c.H, minHkLaminar)
+		c.Hk = max(c.H, minHkLaminar)
 		laminar(&c)
 		c.AmpRate /= st.Theta
 	case Turbulent:
-		c.Hk = math.Max(c.H, minHkTurbulent)
+		c.Hk = max(c.H, minHkTurbulent)
 		turbulent(&c, st, false)
 	default:
-		c.Hk = math.Max(c.H, minHkWake)
+		c.Hk = max(c.H, minHkWake)
 		turbulent(&c, st, true)
 	}
 	return c
@@ -120,7 +120,7 @@ func Eval(k Kind, st Station, re float64) Closure {
 // but moved two-element solutions onto other roots or out of convergence
 // (DEVELOPERS.md).
 func laminar(c *Closure) {
-	hk, rt := c.Hk, math.Max(c.RTheta, 1e-3)
+	hk, rt := c.Hk, max(c.RTheta, 1e-3)
 	if hk < 4 {
 		c.Hs = 1.515 + 0.076*(4-hk)*(4-hk)/hk
 	} else {
@@ -192,15 +192,15 @@ func ampRate(hk, rt float64) float64 {
 //	CD = Cf/2 Us + Cτ (1 − Us), twice the outer layer's on a wake (two halves)
 func turbulent(c *Closure, st Station, wake bool) {
 	hk := c.Hk
-	rt := math.Max(c.RTheta, minRThetaTurbulent)
+	rt := max(c.RTheta, minRThetaTurbulent)
 	h0 := 4.0
 	if rt > 400 {
 		h0 = 3 + 400/rt
 	}
-	lrt := math.Log(rt)
 	if hk < h0 {
 		c.Hs = 1.505 + 4/rt + (0.165-1.6/math.Sqrt(rt))*math.Pow(h0-hk, 1.6)/hk
 	} else {
+		lrt := math.Log(rt)
 		d := hk - h0
 		q := d + 4/lrt
 		c.Hs = 1.505 + 4/rt + d*d*(0.04/hk+0.007*lrt/(q*q))
@@ -213,14 +213,34 @@ func turbulent(c *Closure, st Station, wake bool) {
 	if wake {
 		maxUs, hkc = maxUsWake, hk-1
 	}
-	c.Us = math.Min(c.Us, maxUs)
-	hkc = math.Max(hkc, 0.01)
+	c.Us = min(c.Us, maxUs)
+	hkc = max(hkc, 0.01)
 	ctEq := ctEqConstant * c.Hs * (hk - 1) * hkc * hkc / ((1 - c.Us) * c.H * hk * hk)
-	c.SEq = math.Sqrt(math.Max(ctEq, 0))
-	ct := st.C * st.C
-	c.CD = 0.5*c.Cf*c.Us + ct*(1-c.Us)
+	c.SEq = math.Sqrt(max(ctEq, 0))
+	c.CD = dissipation(c, st.C, wake)
+	c.Delta = min(st.Theta*(3.15+1.72/(hk-1))+st.DStar, maxDeltaOver*st.Theta)
+}
+
+// dissipation returns CD of the turbulent (wake when wake is true)
+// closures c at √Cτ = s: Cf/2 Us + Cτ (1 − Us), twice that on a wake.
+func dissipation(c *Closure, s float64, wake bool) float64 {
+	ct := s * s
+	cd := 0.5*c.Cf*c.Us + ct*(1-c.Us)
 	if wake {
-		c.CD *= 2
+		cd *= 2
 	}
-	c.Delta = math.Min(st.Theta*(3.15+1.72/(hk-1))+st.DStar, maxDeltaOver*st.Theta)
+	return cd
+}
+
+// WithC returns the closures of a station of kind k whose closures are
+// cl (Eval) with its third variable set to c, the rest unchanged: a
+// laminar station's closures do not depend on ñ, and of a turbulent or
+// wake station's only CD depends on √Cτ, so this is Eval of that station
+// to the last bit without the cost of the rest (a finite-difference
+// Jacobian moves each variable in turn).
+func WithC(k Kind, cl Closure, c float64) Closure {
+	if k != Laminar {
+		cl.CD = dissipation(&cl, c, k == Wake)
+	}
+	return cl
 }

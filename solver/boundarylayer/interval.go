@@ -30,16 +30,84 @@ type Residuals [3]float64
 // Preconditions: ξb > ξa and both stations positive (Eval).
 func Interval(k Kind, a, b Station, re float64) Residuals {
 	ca, cb := Eval(k, a, re), Eval(k, b, re)
-	return interval(k, a, b, ca, cb)
+	return interval(k, a, b, ca, cb, nil)
 }
 
 // IntervalOf is Interval with the two stations' closures given (each
 // Eval(k, station, re)), for callers that vary one station at a time.
 func IntervalOf(k Kind, a, b Station, ca, cb Closure) Residuals {
-	return interval(k, a, b, ca, cb)
+	return interval(k, a, b, ca, cb, nil)
 }
 
-func interval(k Kind, a, b Station, ca, cb Closure) Residuals {
+// IntervalMemo evaluates the residuals of one interval and of small
+// variations of its two stations, as a finite-difference Jacobian asks
+// for them (IntervalOf with each variable of either station moved in
+// turn). Most variations leave most of the interval's logarithms
+// unchanged (moving θ leaves ln(Ueb/Uea) and ln ξ alone, moving √Cτ
+// leaves H* and the upwind weight alone), and the logarithms are most of
+// an interval's cost: it remembers each logarithm and the upwind weight
+// for the arguments of its first call and of its latest, and takes them
+// again where an argument is the same to the last bit, so its residuals
+// are those of IntervalOf to the last bit. The zero value is ready; use
+// one per interval.
+type IntervalMemo struct {
+	d, dlu, th, hs, c lnMemo
+	w                 upwindMemo
+}
+
+// IntervalOf is IntervalOf through the memo.
+func (m *IntervalMemo) IntervalOf(k Kind, a, b Station, ca, cb Closure) Residuals {
+	return interval(k, a, b, ca, cb, m)
+}
+
+// lnMemo is math.Log of the first argument it was asked for and of the
+// latest.
+type lnMemo struct {
+	n    int
+	x, v [2]float64
+}
+
+func (l *lnMemo) log(x float64) float64 {
+	for i := range l.n {
+		if l.x[i] == x {
+			return l.v[i]
+		}
+	}
+	v := math.Log(x)
+	i := min(l.n, 1)
+	l.x[i], l.v[i] = x, v
+	l.n = i + 1
+	return v
+}
+
+// upwindMemo is upwind of the first pair of shape factors it was asked
+// for and of the latest.
+type upwindMemo struct {
+	n        int
+	hka, hkb [2]float64
+	v        [2]float64
+}
+
+func (u *upwindMemo) weight(hka, hkb float64) float64 {
+	for i := range u.n {
+		if u.hka[i] == hka && u.hkb[i] == hkb {
+			return u.v[i]
+		}
+	}
+	v := upwind(hka, hkb)
+	i := min(u.n, 1)
+	u.hka[i], u.hkb[i], u.v[i] = hka, hkb, v
+	u.n = i + 1
+	return v
+}
+
+// interval returns the residuals of Interval, the logarithms and the
+// upwind weight through m if it is not nil.
+func interval(k Kind, a, b Station, ca, cb Closure, m *IntervalMemo) Residuals {
+	var own IntervalMemo
+	if m == nil {
+		m = &own
+	}
 	// On a surface the source terms are integrated in ln ξ: each is
 	// multiplied by ξ and the step is Δ ln ξ, which is exact for the
 	// power-law (similar) layers near a stagnation point, where the edge
@@ -48,16 +116,16 @@ func interval(k Kind, a, b Station, ca, cb Closure) Residuals {
 	d := b.Xi - a.Xi
 	xa, xb := 1.0, 1.0
 	if k != Wake && a.Xi > 0 {
-		d = math.Log(b.Xi / a.Xi)
+		d = m.d.log(b.Xi / a.Xi)
 		xa, xb = a.Xi, b.Xi
 	}
-	dlu := math.Log(b.Ue / a.Ue)
-	w := upwind(ca.Hk, cb.Hk)
+	dlu := m.dlu.log(b.Ue / a.Ue)
+	w := m.w.weight(ca.Hk, cb.Hk)
 	avg := func(fa, fb float64) float64 { return (1-w)*fa + w*fb }
 	var r Residuals
-	r[0] = math.Log(b.Theta/a.Theta) + (2+0.5*(ca.H+cb.H))*dlu - d*0.5*(xa*ca.Cf/(2*a.Theta)+xb*cb.Cf/(2*b.Theta))
+	r[0] = m.th.log(b.Theta/a.Theta) + (2+0.5*(ca.H+cb.H))*dlu - d*0.5*(xa*ca.Cf/(2*a.Theta)+xb*cb.Cf/(2*b.Theta))
 	shape := func(c Closure, st Station) float64 { return (2*c.CD/c.Hs - 0.5*c.Cf) / st.Theta }
-	r[1] = math.Log(cb.Hs/ca.Hs) + (1-avg(ca.H, cb.H))*dlu - d*avg(xa*shape(ca, a), xb*shape(cb, b))
+	r[1] = m.hs.log(cb.Hs/ca.Hs) + (1-avg(ca.H, cb.H))*dlu - d*avg(xa*shape(ca, a), xb*shape(cb, b))
 	if k == Laminar {
 		r[2] = b.C - a.C - d*0.5*(xa*ca.AmpRate+xb*cb.AmpRate)
 		return r
@@ -66,14 +134,14 @@ func interval(k Kind, a, b Station, ca, cb Closure) Residuals {
 		g := (c.Hk - 1) / (gbA * c.Hk)
 		return lagConstant*(c.SEq-st.C)/(2*c.Delta) + 4/(3*st.DStar)*(0.5*c.Cf-g*g)
 	}
-	r[2] = math.Log(b.C/a.C) + dlu - d*avg(xa*lag(ca, a), xb*lag(cb, b))
+	r[2] = m.c.log(b.C/a.C) + dlu - d*avg(xa*lag(ca, a), xb*lag(cb, b))
 	return r
 }
 
 // upwind returns the weight of the downstream station in the shape and lag
 // equations (see Interval).
 func upwind(hka, hkb float64) float64 {
-	l := math.Log(math.Max(hkb-1, 1e-6) / math.Max(hka-1, 1e-6))
+	l := math.Log(max(hkb-1, 1e-6) / max(hka-1, 1e-6))
 	return 1 - 0.5*math.Exp(-l*l*5/(hkb*hkb))
 }
 
@@ -106,9 +174,9 @@ func TransitionInterval(a, b Station, re, nCrit, tripXi float64) (Residuals, flo
 	d := b.Xi - a.Xi
 	xt := b.Xi
 	if grow := d * 0.5 * (ca.AmpRate + cbl.AmpRate); grow > 0 && a.C+grow > nCrit {
-		xt = a.Xi + d*math.Max(0, nCrit-a.C)/grow
+		xt = a.Xi + d*max(0, nCrit-a.C)/grow
 	}
-	xt = math.Max(a.Xi, math.Min(xt, tripXi))
+	xt = max(a.Xi, min(xt, tripXi))
 	f := (xt - a.Xi) / d
 	t := Station{
 		Xi:    xt,
@@ -119,14 +187,14 @@ func TransitionInterval(a, b Station, re, nCrit, tripXi float64) (Residuals, flo
 	var lam Residuals
 	if f > 0 {
 		t.C = nCrit
-		lam = interval(Laminar, a, t, ca, Eval(Laminar, t, re))
+		lam = interval(Laminar, a, t, ca, Eval(Laminar, t, re), nil)
 	}
 	ct := Eval(Turbulent, t, re)
 	t.C = transitionCoef * math.Exp(-transitionExp/(ct.Hk-1)) * ct.SEq
 	ct = Eval(Turbulent, t, re)
 	var tur Residuals
 	if f < 1 {
-		tur = interval(Turbulent, t, b, ct, Eval(Turbulent, b, re))
+		tur = interval(Turbulent, t, b, ct, Eval(Turbulent, b, re), nil)
 	} else {
 		tur[2] = math.Log(b.C / t.C)
 	}
