@@ -385,14 +385,9 @@ func (cs *coupledState) speedStep(dm []float64) (ue, du []float64) {
 	ue = cs.ueIterated()
 	coup := cs.coupling()
 	du = make([]float64, n)
-	for i := range n {
-		d := cs.d[i*n : (i+1)*n]
-		d = d[:len(dm)]
-		s := 0.0
-		for j, v := range dm {
-			s += d[j] * v
-		}
-		du[i] = s * coup
+	rowProducts(cs.d, n, dm, nil, du)
+	for i := range du {
+		du[i] *= coup
 	}
 	return ue, du
 }
@@ -809,25 +804,28 @@ func (cs *coupledState) mulReduced(x, y []float64) {
 	u, qx := wk.u, wk.qx
 	blas64.Gemv(blas.NoTrans, 1, blas64.General{Rows: n, Cols: n, Stride: n, Data: cs.d[:n*n]},
 		blas64.Vector{N: n, Inc: 1, Data: x}, 0, blas64.Vector{N: n, Inc: 1, Data: u})
+	// The loops over the three residuals are written out (the compiler
+	// does not unroll them); the operations are those of the loops.
 	for i := range n {
 		sl := &wk.lin[i]
-		var we [3]float64
-		for q := 0; q < sl.n; q++ {
+		var we0, we1, we2 float64
+		for q := range sl.n {
 			xj, uj := x[sl.idx[q]], u[sl.row[q]]
-			for e := range 3 {
-				we[e] += sl.dm[q][e]*xj + sl.du[q][e]*uj
-			}
+			dm, du := &sl.dm[q], &sl.du[q]
+			we0 += dm[0]*xj + du[0]*uj
+			we1 += dm[1]*xj + du[1]*uj
+			we2 += dm[2]*xj + du[2]*uj
 		}
 		for q := 1; q < sl.n; q++ {
-			qj := qx[sl.idx[q]]
-			for e := range 3 {
-				we[e] -= sl.b[q][0][e]*qj[0] + sl.b[q][1][e]*qj[1]
-			}
+			qj := &qx[sl.idx[q]]
+			b0, b1 := &sl.b[q][0], &sl.b[q][1]
+			we0 -= b0[0]*qj[0] + b1[0]*qj[1]
+			we1 -= b0[1]*qj[0] + b1[1]*qj[1]
+			we2 -= b0[2]*qj[0] + b1[2]*qj[1]
 		}
-		y[i] = sl.z[0]*we[0] + sl.z[1]*we[1] + sl.z[2]*we[2]
-		for r := range 2 {
-			qx[i][r] = sl.pin[r][0]*we[0] + sl.pin[r][1]*we[1] + sl.pin[r][2]*we[2]
-		}
+		y[i] = sl.z[0]*we0 + sl.z[1]*we1 + sl.z[2]*we2
+		p0, p1 := &sl.pin[0], &sl.pin[1]
+		qx[i] = [2]float64{p0[0]*we0 + p0[1]*we1 + p0[2]*we2, p1[0]*we0 + p1[1]*we1 + p1[2]*we2}
 	}
 }
 

@@ -32,15 +32,7 @@ func (cs *coupledState) ueIterated() []float64 {
 		c.d, c.ue0 = cs.d, cs.ue0
 		c.m = append(c.m[:0], cs.m...)
 		c.v = slices.Grow(c.v[:0], n)[:n]
-		for i := range n {
-			v := cs.ue0[i]
-			d := cs.d[i*n : (i+1)*n]
-			d = d[:len(cs.m)]
-			for j, mj := range cs.m {
-				v += d[j] * mj
-			}
-			c.v[i] = v
-		}
+		rowProducts(cs.d, n, cs.m, cs.ue0, c.v)
 	}
 	out := make([]float64, n)
 	for i, v := range c.v {
@@ -50,4 +42,44 @@ func (cs *coupledState) ueIterated() []float64 {
 		out[i] = v
 	}
 	return out
+}
+
+// rowProducts sets out[i] = init[i] + Σ_j a[i n + j] x[j] (init nil: 0)
+// for the n × n row-major matrix a, each row summed from its first column
+// to its last (the order of the plain loop, so the numbers are the same
+// to the last bit). Four rows are summed at once: a single row's sum is
+// one chain of dependent additions, which keeps the processor waiting.
+func rowProducts(a []float64, n int, x, init, out []float64) {
+	x = x[:n]
+	i := 0
+	for ; i+4 <= n; i += 4 {
+		var v0, v1, v2, v3 float64
+		if init != nil {
+			v0, v1, v2, v3 = init[i], init[i+1], init[i+2], init[i+3]
+		}
+		r0 := a[i*n : i*n+n]
+		r1 := a[(i+1)*n : (i+1)*n+n]
+		r2 := a[(i+2)*n : (i+2)*n+n]
+		r3 := a[(i+3)*n : (i+3)*n+n]
+		r0, r1, r2, r3 = r0[:len(x)], r1[:len(x)], r2[:len(x)], r3[:len(x)]
+		for j, xj := range x {
+			v0 += r0[j] * xj
+			v1 += r1[j] * xj
+			v2 += r2[j] * xj
+			v3 += r3[j] * xj
+		}
+		out[i], out[i+1], out[i+2], out[i+3] = v0, v1, v2, v3
+	}
+	for ; i < n; i++ {
+		var v float64
+		if init != nil {
+			v = init[i]
+		}
+		r := a[i*n : i*n+n]
+		r = r[:len(x)]
+		for j, xj := range x {
+			v += r[j] * xj
+		}
+		out[i] = v
+	}
 }

@@ -452,16 +452,11 @@ func (cs *coupledState) ue0Of(s *station) float64 {
 func (cs *coupledState) ue() []float64 {
 	n := len(cs.st)
 	out := make([]float64, n)
-	for i := range out {
-		v := cs.ue0[i]
-		d := cs.d[i*n : (i+1)*n]
-		for j, mj := range cs.m {
-			v += d[j] * mj
+	rowProducts(cs.d, n, cs.m, cs.ue0, out)
+	if cs.ueMarch != nil {
+		for i, v := range out {
+			out[i] = (1-cs.lam)*cs.ueMarch[i] + cs.lam*v
 		}
-		if cs.ueMarch != nil {
-			v = (1-cs.lam)*cs.ueMarch[i] + cs.lam*v
-		}
-		out[i] = v
 	}
 	return out
 }
