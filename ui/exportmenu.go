@@ -269,7 +269,7 @@ func writeReport(w io.Writer, st *model.Study, res *engine.Result, secs []*model
 	}
 	var vd []report.ViscousDensityRow
 	if len(secs) == len(st.Elements) {
-		vd = report.ViscousDensity(context.Background(), st, secs) // nil with the boundary layer off
+		vd = report.ViscousDensity(context.Background(), st, secs, density) // nil with the boundary layer off; from the density study's rows when it solved the coupled solution
 	}
 	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version, Sections: secs, CleanReports: reps, ViscousDensity: vd, Setup: setup})
 }

@@ -305,7 +305,7 @@ func cmdReport(args []string, stdout, stderr io.Writer) error {
 		if input.Density, err = e.Density(context.Background(), st, secs, nil); err != nil {
 			return err
 		}
-		input.ViscousDensity = report.ViscousDensity(context.Background(), st, secs)
+		input.ViscousDensity = report.ViscousDensity(context.Background(), st, secs, input.Density)
 	}
 	if input.Setup, err = setupFlags.setup(st, secs); err != nil {
 		return err

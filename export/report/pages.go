@@ -399,9 +399,11 @@ func (r *writer) densityPage() {
 		tolCp = engine.DefaultTolCpMinPct
 	}
 	var rows [][]string
+	var skipped []string // the reasons, in full under the table: a cell would cut them
 	for _, row := range d.Rows {
 		if !row.Solved() {
-			rows = append(rows, []string{strconv.Itoa(row.Panels), num(row.Nose, 2), "skipped: " + row.Skipped, "", "", "", "", ""})
+			rows = append(rows, []string{strconv.Itoa(row.Panels), num(row.Nose, 2), "skipped", "", "", "", "", ""})
+			skipped = append(skipped, fmt.Sprintf("Skipped %d panels (nose %s): %s.", row.Panels, num(row.Nose, 2), row.Skipped))
 			continue
 		}
 		rows = append(rows, []string{strconv.Itoa(row.Panels), num(row.Nose, 2), Coef(row.Cl), Coef(row.DCl), Coef(row.Cm), Cp(row.CpMin), Cp(row.DCpMin), num(row.ShortestPanel*1000, 3)})
@@ -426,7 +428,7 @@ func (r *writer) densityPage() {
 		}
 		lines = append(lines, fmt.Sprintf("Nose %s: %s; %s; %s%s; %s.", num(se.Nose, 2), ex("Cl", se.Cl), ex("Cm", se.Cm), ex("Cp min", se.CpMin), viscous, rec))
 	}
-	r.bullets(lines)
+	r.bullets(append(skipped, lines...))
 	used := fmt.Sprintf("This study uses %d panels per element.", st.Panelling.Panels)
 	if d.RecommendedPanels > 0 {
 		used = fmt.Sprintf("Recommended: %d panels per element, the smallest count from which every finer count stays within %s %% in Cl and %s %% in Cp min; this study uses %d.",

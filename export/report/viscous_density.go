@@ -5,34 +5,41 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+	"strings"
 
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 )
 
-// ViscousDensityRow is the viscous answer at one panel count: drag and the
-// main element's transition, from the coupled solution when the study
-// uses it, else from the one-way estimate. Skipped says why there is no
-// answer at this count ("" when there is one).
+// ViscousDensityRow is the viscous answer at one panel count: lift, drag
+// and the main element's transition, from the coupled solution when the
+// study uses it, else drag and transition from the one-way estimate (its
+// lift is the inviscid one: Cl NaN). Skipped says why there is no answer
+// at this count ("" when there is one).
 type ViscousDensityRow struct {
 	Panels                           int
-	Cd                               float64
+	Cl, Cd                           float64
 	TransitionUpper, TransitionLower float64 // x/c on the main element, NaN for none
 	Skipped                          string
 }
 
-// ViscousDensity solves st (boundary layer on) at half, once and twice its
-// panel count, a refinement ratio of 2, and returns the viscous answer at
-// each: the density study of the drag and transition. It returns nil when
-// the boundary layer is off. Each count is a full solve; the coupled
-// solution takes seconds for each.
-func ViscousDensity(ctx context.Context, st *model.Study, secs []*model.Section) []ViscousDensityRow {
+// ViscousDensity returns the viscous answer of st (boundary layer on)
+// against panel count: the density study of the lift, drag and
+// transition. When d is the density study of st with the coupled solution
+// (d.Viscous), its rows of the first nose value are the answer, with no
+// more solving; otherwise it solves st at half, once and twice its panel
+// count (a refinement ratio of 2), a full solve each. It returns nil when
+// the boundary layer is off.
+func ViscousDensity(ctx context.Context, st *model.Study, secs []*model.Section, d *engine.DensityResult) []ViscousDensityRow {
 	if !st.Viscous.Enabled {
 		return nil
 	}
+	if d != nil && d.Viscous && len(d.Series) > 0 {
+		return viscousDensityFrom(d)
+	}
 	var rows []ViscousDensityRow
 	for _, n := range []int{st.Panelling.Panels / 2, st.Panelling.Panels, 2 * st.Panelling.Panels} {
-		row := ViscousDensityRow{Panels: n, Cd: math.NaN(), TransitionUpper: math.NaN(), TransitionLower: math.NaN()}
+		row := ViscousDensityRow{Panels: n, Cl: math.NaN(), Cd: math.NaN(), TransitionUpper: math.NaN(), TransitionLower: math.NaN()}
 		if n < model.MinPanels || n > model.MaxPanels {
 			row.Skipped = fmt.Sprintf("outside %d to %d panels", model.MinPanels, model.MaxPanels)
 			rows = append(rows, row)
@@ -45,10 +52,10 @@ func ViscousDensity(ctx context.Context, st *model.Study, secs []*model.Section)
 		case err != nil:
 			row.Skipped = err.Error()
 		case res.Coupled != nil && !res.Coupled.Converged:
-			row.Skipped = fmt.Sprintf("the viscous solution did not converge (%d iterations)", res.Coupled.Iterations)
+			row.Skipped = notConverged(res.Coupled.Iterations)
 		case res.Coupled != nil && len(res.Coupled.Elements) > 0:
 			e := res.Coupled.Elements[0]
-			row.Cd, row.TransitionUpper, row.TransitionLower = res.Coupled.Cd, e.TransitionUpper, e.TransitionLower
+			row.Cl, row.Cd, row.TransitionUpper, row.TransitionLower = res.Coupled.Cl, res.Coupled.Cd, e.TransitionUpper, e.TransitionLower
 		case res.Viscous != nil && len(res.Viscous.Elements) > 0:
 			e := res.Viscous.Elements[0]
 			// Cd is NaN where the estimate separates; transition still holds.
@@ -61,38 +68,101 @@ func ViscousDensity(ctx context.Context, st *model.Study, secs []*model.Section)
 	return rows
 }
 
-// viscousDensitySection reports the drag's and transition's density study:
-// a row per count with the change from the count before, and Richardson's
-// extrapolation of Cd over the three counts when they converge steadily.
+// viscousDensityFrom takes the coupled solution's rows of a density study's
+// first nose value.
+func viscousDensityFrom(d *engine.DensityResult) []ViscousDensityRow {
+	var rows []ViscousDensityRow
+	for _, r := range d.Rows {
+		if r.Nose != d.Series[0].Nose {
+			continue
+		}
+		row := ViscousDensityRow{Panels: r.Panels, Cl: r.ViscousCl, Cd: r.ViscousCd, TransitionUpper: r.ViscousTransitionUpper, TransitionLower: r.ViscousTransitionLower}
+		switch {
+		case !r.Solved():
+			row.Skipped = r.Skipped
+		case math.IsNaN(r.ViscousCl):
+			row.Skipped = notConverged(r.ViscousIterations)
+		}
+		rows = append(rows, row)
+	}
+	return rows
+}
+
+func notConverged(iterations int) string {
+	return fmt.Sprintf("the viscous solution did not converge (%d iterations)", iterations)
+}
+
+// viscousDensitySection reports the viscous answer's density study: a row
+// per count with the change from the count before, and Richardson's
+// extrapolation of Cl (coupled solution) and Cd over the three finest
+// counts when they converge steadily.
 func (r *writer) viscousDensitySection() {
 	rows := r.in.ViscousDensity
 	if len(rows) == 0 {
 		return
 	}
-	r.need(tableHeight(len(rows)) + 30)
-	r.subheading("Drag and transition against panel count")
-	var t [][]string
-	prev := math.NaN()
+	withCl := false
 	for _, row := range rows {
+		withCl = withCl || (row.Skipped == "" && !math.IsNaN(row.Cl))
+	}
+	r.need(tableHeight(len(rows)) + 30)
+	head, widths := []string{"Panels", "Cd", "ΔCd from the count before", "Transition x/c on the main element, upper / lower"}, []float64{0.8, 1, 1.3, 2}
+	if withCl {
+		r.subheading("Viscous lift, drag and transition against panel count")
+		head, widths = append([]string{"Panels", "Cl viscous", "ΔCl from the count before"}, head[1:]...), []float64{0.7, 0.9, 1.1, 0.9, 1.1, 1.8}
+	} else {
+		r.subheading("Drag and transition against panel count")
+	}
+	var t [][]string
+	var skipped []string // the reasons, in full under the table: a cell would cut them
+	prevCl, prevCd := math.NaN(), math.NaN()
+	for _, row := range rows {
+		var cells []string
 		if row.Skipped != "" {
-			t = append(t, []string{strconv.Itoa(row.Panels), "skipped: " + row.Skipped, "", ""})
-			prev = math.NaN()
-			continue
+			cells = append([]string{strconv.Itoa(row.Panels), "no answer"}, make([]string, len(head)-2)...)
+			skipped = append(skipped, fmt.Sprintf("%d panels: %s.", row.Panels, row.Skipped))
+			prevCl, prevCd = math.NaN(), math.NaN()
+		} else {
+			cells = []string{strconv.Itoa(row.Panels)}
+			if withCl {
+				cells = append(cells, Coef(row.Cl), Coef(row.Cl-prevCl))
+			}
+			cells = append(cells, num(row.Cd, 5), num(row.Cd-prevCd, 5), XC(row.TransitionUpper)+" / "+XC(row.TransitionLower))
+			prevCl, prevCd = row.Cl, row.Cd
 		}
-		t = append(t, []string{strconv.Itoa(row.Panels), num(row.Cd, 5), num(row.Cd-prev, 5), XC(row.TransitionUpper) + " / " + XC(row.TransitionLower)})
-		prev = row.Cd
+		t = append(t, cells)
 	}
-	r.table([]string{"Panels", "Cd", "ΔCd from the count before", "Transition x/c on the main element, upper / lower"},
-		[]float64{0.8, 1, 1.3, 2}, []string{"R", "R", "R", "R"}, t)
-	msg := "No extrapolation of Cd: a count has no drag (skipped, or n/a where the boundary layer separates)."
-	finite := func(row ViscousDensityRow) bool { return row.Skipped == "" && !math.IsNaN(row.Cd) }
-	if len(rows) == 3 && finite(rows[0]) && finite(rows[1]) && finite(rows[2]) {
-		change := fmt.Sprintf("Cd changes by %.2g %% from %d to %d panels", 100*math.Abs(rows[2].Cd-rows[1].Cd)/math.Abs(rows[2].Cd), rows[1].Panels, rows[2].Panels)
-		msg = change + "; the three counts do not converge steadily enough for an extrapolation."
-		if p, ok := engine.ObservedOrder(rows[0].Cd, rows[1].Cd, rows[2].Cd, 2); ok && p >= engine.MinObservedOrder && p <= engine.MaxObservedOrder {
-			v, e := engine.Richardson(rows[1].Cd, rows[2].Cd, 2, p)
-			msg = fmt.Sprintf("%s; Cd → %s ± %.2g extrapolated (observed order %s, Richardson over the three counts).", change, num(v, 5), e, num(p, 2))
-		}
+	align := make([]string, len(head))
+	for i := range align {
+		align[i] = "R"
 	}
-	r.small(msg + " Transition moves by whole panels: its change between counts is the panel spacing there.")
+	r.table(head, widths, align, t)
+	msgs := []string{}
+	if len(skipped) > 0 {
+		msgs = append(msgs, "No answer at "+strings.Join(skipped, " "))
+	}
+	if withCl {
+		msgs = append(msgs, viscousExtrapolation("Cl", 4, rows, func(row ViscousDensityRow) float64 { return row.Cl }))
+	}
+	msgs = append(msgs, viscousExtrapolation("Cd", 5, rows, func(row ViscousDensityRow) float64 { return row.Cd }))
+	r.small(strings.Join(msgs, " ") + " Transition is placed inside the interval between two stations where the amplification reaches N (or at the trip), so it moves smoothly with the panel count; a trip's position is fixed.")
+}
+
+// viscousExtrapolation says how coefficient name (printed to digits
+// decimals) of the three finest rows converges: Richardson's extrapolation
+// when the three have answers, double in count and converge steadily.
+func viscousExtrapolation(name string, digits int, rows []ViscousDensityRow, value func(ViscousDensityRow) float64) string {
+	n := len(rows)
+	finite := func(row ViscousDensityRow) bool { return row.Skipped == "" && !math.IsNaN(value(row)) }
+	if n < 3 || !finite(rows[n-3]) || !finite(rows[n-2]) || !finite(rows[n-1]) ||
+		rows[n-2].Panels != 2*rows[n-3].Panels || rows[n-1].Panels != 2*rows[n-2].Panels {
+		return fmt.Sprintf("No extrapolation of %s: one of the three finest counts has no answer (skipped, not converged, or n/a where the boundary layer separates).", name)
+	}
+	f1, f2, f3 := value(rows[n-3]), value(rows[n-2]), value(rows[n-1])
+	change := fmt.Sprintf("%s changes by %.2g %% from %d to %d panels", name, 100*math.Abs(f3-f2)/math.Abs(f3), rows[n-2].Panels, rows[n-1].Panels)
+	if p, ok := engine.ObservedOrder(f1, f2, f3, 2); ok && p >= engine.MinObservedOrder && p <= engine.MaxObservedOrder {
+		v, e := engine.Richardson(f2, f3, 2, p)
+		return fmt.Sprintf("%s; %s → %s ± %.2g extrapolated (observed order %s, Richardson over the three finest counts).", change, name, num(v, digits), e, num(p, 2))
+	}
+	return change + "; the three finest counts do not converge steadily enough for an extrapolation."
 }

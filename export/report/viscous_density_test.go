@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"sectionbench/solver/engine"
 )
 
 // The drag's density study extrapolates Cd = 0.01 + 40/N², second order
@@ -15,15 +17,48 @@ func TestViscousDensity(t *testing.T) {
 	st := demoStudy()
 	st.Viscous.Enabled = false
 	res := solve(t, st)
-	if rows := ViscousDensity(context.Background(), st, nil); rows != nil {
+	if rows := ViscousDensity(context.Background(), st, nil, nil); rows != nil {
 		t.Errorf("boundary layer off: %d rows", len(rows))
 	}
 	var rows []ViscousDensityRow
 	for _, n := range []int{80, 160, 320} {
-		rows = append(rows, ViscousDensityRow{Panels: n, Cd: 0.01 + 40/float64(n*n), TransitionUpper: 0.3, TransitionLower: math.NaN()})
+		rows = append(rows, ViscousDensityRow{Panels: n, Cl: math.NaN(), Cd: 0.01 + 40/float64(n*n), TransitionUpper: 0.3, TransitionLower: math.NaN()})
 	}
 	text := pdfText(t, Input{Study: st, Result: res, ViscousDensity: rows})
 	for _, w := range []string{"Drag and transition against panel count", "Cd → 0.01000", "observed order 2.00", num(rows[0].Cd, 5)} {
+		if !strings.Contains(text, w) {
+			t.Errorf("report lacks %q", w)
+		}
+	}
+}
+
+// With the coupled solution the density study has solved it at every
+// count already: the report takes its rows of the first nose value (no
+// solving), with the viscous Cl beside the drag, a row that did not
+// converge shown so, and extrapolates Cl = 0.45 − 20/N² and
+// Cd = 0.01 + 40/N² (invented values of the method's formal order 2) to
+// 0.45 and 0.01 by Richardson (Roache 1998, ch. 5).
+func TestViscousDensityFromDensityStudy(t *testing.T) {
+	st := demoStudy()
+	res := solve(t, st)
+	nan := math.NaN()
+	d := &engine.DensityResult{Viscous: true, Series: []engine.DensitySeries{{Nose: 0.5}, {Nose: 0.8}}}
+	for _, nose := range []float64{0.5, 0.8} {
+		for _, n := range []int{40, 80, 160, 320} {
+			f := float64(n * n)
+			row := engine.DensityRow{Panels: n, Nose: nose, ViscousCl: 0.45 - 20/f, ViscousCd: 0.01 + 40/f, ViscousTransitionUpper: 0.3, ViscousTransitionLower: nan, ViscousIterations: 9}
+			if n == 40 {
+				row.ViscousCl, row.ViscousCd, row.ViscousIterations = nan, nan, 400
+			}
+			d.Rows = append(d.Rows, row)
+		}
+	}
+	rows := ViscousDensity(context.Background(), st, nil, d)
+	if len(rows) != 4 || rows[0].Skipped == "" || rows[1].Skipped != "" || rows[3].Cl != 0.45-20.0/(320*320) {
+		t.Fatalf("rows %+v: want the four counts of nose 0.5, the first not converged", rows)
+	}
+	text := pdfText(t, Input{Study: st, Result: res, ViscousDensity: rows})
+	for _, w := range []string{"Viscous lift, drag and transition against panel count", "Cl → 0.4500", "Cd → 0.01000", "observed order 2.00", "did not converge (400 iterations)"} {
 		if !strings.Contains(text, w) {
 			t.Errorf("report lacks %q", w)
 		}

@@ -53,6 +53,14 @@ type DensityRow struct {
 	// Cd when the study solves it (DensityResult.Viscous), NaN otherwise
 	// and where it did not converge.
 	ViscousCl, ViscousCd float64
+	// ViscousTransitionUpper and ViscousTransitionLower are the coupled
+	// solution's transition on the main element, x/c on its surfaces as
+	// mounted; NaN as for ViscousCl and for a layer laminar to its
+	// trailing edge.
+	ViscousTransitionUpper, ViscousTransitionLower float64
+	// ViscousIterations is how many iterations the coupled solution took
+	// (0 without it), for a row that did not converge.
+	ViscousIterations int
 	// MinPanelLength and MaxPanelLength are the shortest and longest panel
 	// over all elements, each as a fraction of its own element's chord
 	// (0.0062 is 0.62% of chord, not a length: at 40 cosine-spaced panels
@@ -201,8 +209,12 @@ func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int
 				row = densityRow(sol, n, nose)
 				if cpl != nil {
 					res.Viscous = true
+					row.ViscousIterations = cpl.Iterations
 					if cpl.Converged {
 						row.ViscousCl, row.ViscousCd = cpl.Cl, cpl.Cd
+						if len(cpl.Elements) > 0 {
+							row.ViscousTransitionUpper, row.ViscousTransitionLower = cpl.Elements[0].TransitionUpper, cpl.Elements[0].TransitionLower
+						}
 					}
 				}
 				if prev >= 0 {
@@ -247,7 +259,7 @@ func skippableDensityError(err error) bool {
 // skippedRow is the row of a count that was not solved.
 func skippedRow(n int, nose float64, err error) DensityRow {
 	nan := math.NaN()
-	return DensityRow{Panels: n, Nose: nose, Cl: nan, Cm: nan, CpMin: nan, DCl: nan, DCm: nan, DCpMin: nan, ViscousCl: nan, ViscousCd: nan,
+	return DensityRow{Panels: n, Nose: nose, Cl: nan, Cm: nan, CpMin: nan, DCl: nan, DCm: nan, DCpMin: nan, ViscousCl: nan, ViscousCd: nan, ViscousTransitionUpper: nan, ViscousTransitionLower: nan,
 		MinPanelLength: nan, MaxPanelLength: nan, ShortestPanel: nan, LongestPanel: nan,
 		Skipped: err.Error(), Err: err}
 }
@@ -294,7 +306,7 @@ func (o DensityOptions) withDefaults() (DensityOptions, error) {
 func densityRow(sol *solver.Solution, n int, nose float64) DensityRow {
 	nan := math.NaN()
 	row := DensityRow{Panels: n, Nose: nose, Cl: sol.Cl, Cm: sol.Cm, CpMin: math.Inf(1),
-		DCl: nan, DCm: nan, DCpMin: nan, ViscousCl: nan, ViscousCd: nan, MinPanelLength: math.Inf(1), MaxPanelLength: 0}
+		DCl: nan, DCm: nan, DCpMin: nan, ViscousCl: nan, ViscousCd: nan, ViscousTransitionUpper: nan, ViscousTransitionLower: nan, MinPanelLength: math.Inf(1), MaxPanelLength: 0}
 	for _, e := range sol.Elements {
 		row.CpMin = math.Min(row.CpMin, e.CpMin)
 		// solver.Panel lengths from the midpoint arc lengths: S_0 = L_0/2 and
