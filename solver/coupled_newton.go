@@ -186,6 +186,14 @@ func (cs *coupledState) solve(ctx context.Context, ueMarch []float64) (converged
 				cs.ueMarch, cs.lam = nil, 1
 				return false, iters, math.Inf(1), err
 			}
+			if lam == 0 {
+				// The uncoupled system's factors (M without D) do
+				// not precondition the coupled one's: GMRES through
+				// them ran to its bound and failed at the next
+				// step's first solve (NACA 0012 from cold), which
+				// now factorises directly.
+				cs.work.dm.fresh = true
+			}
 		}
 		cs.ueMarch, cs.lam = nil, 1
 	}
