@@ -60,44 +60,58 @@ func (m *IntervalMemo) IntervalOf(k Kind, a, b Station, ca, cb Closure) Residual
 	return interval(k, a, b, ca, cb, m)
 }
 
-// lnMemo is math.Log of the first argument it was asked for and of the
-// latest.
+// lnMemo is math.Log of the first argument it was asked for (x0, once
+// n > 0) and of the latest other one (x1, once n > 1).
 type lnMemo struct {
-	n    int
-	x, v [2]float64
+	n              int
+	x0, v0, x1, v1 float64
 }
 
 func (l *lnMemo) log(x float64) float64 {
-	for i := range l.n {
-		if l.x[i] == x {
-			return l.v[i]
-		}
+	if l.n > 0 && l.x0 == x {
+		return l.v0
 	}
+	if l.n > 1 && l.x1 == x {
+		return l.v1
+	}
+	return l.miss(x)
+}
+
+func (l *lnMemo) miss(x float64) float64 {
 	v := math.Log(x)
-	i := min(l.n, 1)
-	l.x[i], l.v[i] = x, v
-	l.n = i + 1
+	if l.n == 0 {
+		l.x0, l.v0, l.n = x, v, 1
+	} else {
+		l.x1, l.v1, l.n = x, v, 2
+	}
 	return v
 }
 
 // upwindMemo is upwind of the first pair of shape factors it was asked
-// for and of the latest.
+// for and of the latest other one, as lnMemo.
 type upwindMemo struct {
-	n        int
-	hka, hkb [2]float64
-	v        [2]float64
+	n                  int
+	a0, b0, v0, a1, b1 float64
+	v1                 float64
 }
 
 func (u *upwindMemo) weight(hka, hkb float64) float64 {
-	for i := range u.n {
-		if u.hka[i] == hka && u.hkb[i] == hkb {
-			return u.v[i]
-		}
+	if u.n > 0 && u.a0 == hka && u.b0 == hkb {
+		return u.v0
 	}
+	if u.n > 1 && u.a1 == hka && u.b1 == hkb {
+		return u.v1
+	}
+	return u.miss(hka, hkb)
+}
+
+func (u *upwindMemo) miss(hka, hkb float64) float64 {
 	v := upwind(hka, hkb)
-	i := min(u.n, 1)
-	u.hka[i], u.hkb[i], u.v[i] = hka, hkb, v
-	u.n = i + 1
+	if u.n == 0 {
+		u.a0, u.b0, u.v0, u.n = hka, hkb, v, 1
+	} else {
+		u.a1, u.b1, u.v1, u.n = hka, hkb, v, 2
+	}
 	return v
 }
 
