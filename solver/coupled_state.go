@@ -75,6 +75,9 @@ type coupledState struct {
 	st    []station
 	ue0   []float64 // inviscid edge velocity at each station
 	d     []float64 // ∂Ue/∂m, nst × nst, row-major
+	// ueKept, on a start copy (StartCopy), is ue() computed before d
+	// was dropped.
+	ueKept []float64
 	// The continuation of a cold start (coupled_newton.go): Ue =
 	// (1 − lam) ueMarch + lam (ue0 + D m); ueMarch is nil outside it.
 	lam     float64
@@ -450,6 +453,9 @@ func (cs *coupledState) ue0Of(s *station) float64 {
 // ue returns the edge velocities of the current mass defects (during the
 // continuation blended with the march's, homotopySteps).
 func (cs *coupledState) ue() []float64 {
+	if cs.ueKept != nil {
+		return append([]float64(nil), cs.ueKept...)
+	}
 	n := len(cs.st)
 	out := make([]float64, n)
 	rowProducts(cs.d, n, cs.m, cs.ue0, out)

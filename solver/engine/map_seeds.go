@@ -159,9 +159,11 @@ func (w mapWalk) before(k int) []int {
 // neighbour a point started from, and so its answer, does not depend on
 // how the goroutines ran. Chains are handed out in order and a point
 // never waits for a later chain, so the waits end. A solution is dropped
-// as soon as every point that may start from it is solved (each holds its
-// panel system, about 10 MB for the two-element example), so a map holds
-// a few rows' worth at most, however long it is.
+// as soon as every point that may start from it is solved, so a map holds
+// a row's worth or two at most, however long it is; and it holds each as
+// a StartCopy, what a start from it reads (on the two-element example
+// with 160 panels per element well under 1 MB, where the solution with
+// its panel system, source responses and sensitivities takes some 7 MB).
 type mapSeeds struct {
 	walk  mapWalk
 	ready []chan struct{} // closed when the point is solved
@@ -190,7 +192,7 @@ func newMapSeeds(w mapWalk) *mapSeeds {
 func (m *mapSeeds) solved(k int, sol *solver.CoupledSolution) {
 	m.mu.Lock()
 	if m.users[k] > 0 {
-		m.sols[k] = sol
+		m.sols[k] = sol.StartCopy() // what a start reads: a tenth of the solution
 	}
 	for _, j := range m.walk.before(k) {
 		if m.users[j]--; m.users[j] == 0 {

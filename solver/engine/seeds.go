@@ -16,7 +16,7 @@ import (
 // answer, does not depend on how the goroutines ran. Distances are measured in scale units
 // per variable (a map's step, a search's bounds' width), so that "nearest"
 // means the same on every axis. It keeps the newest limit solutions only:
-// each holds its panel system, a few megabytes, and the path moves on,
+// each (a StartCopy, what a start reads) holds its stations, and the path moves on,
 // so the older ones are mostly the far ones. Safe for concurrent use.
 type seedBank struct {
 	mu    sync.Mutex
@@ -54,7 +54,7 @@ func (b *seedBank) add(values []float64, sol *solver.CoupledSolution) {
 	if len(b.seeds) >= b.limit {
 		b.seeds = slices.Delete(b.seeds, 0, len(b.seeds)-b.limit+1)
 	}
-	b.seeds = append(b.seeds, seed{at: append([]float64(nil), values...), sol: sol})
+	b.seeds = append(b.seeds, seed{at: append([]float64(nil), values...), sol: sol.StartCopy()})
 }
 
 // nearest returns at most n solutions within b.within of values, nearest

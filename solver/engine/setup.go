@@ -426,7 +426,7 @@ func rescueIterations(own int) int {
 // iteration bound of the points' own solves (the bound of a start does
 // not change the solution it converges to).
 func (e *Engine) runFromSeed(ctx context.Context, req Request, seed *solver.CoupledSolution, ownMax int) (*Result, error) {
-	e.seed = seed
+	e.seed = seed.StartCopy() // what this solve tries is dropped with the copy
 	defer func() { e.seed = nil }()
 	res, err := e.Run(ctx, req)
 	if err == nil && res.Coupled != nil && res.Coupled.Converged && e.warm == res.Coupled.last {
