@@ -58,14 +58,14 @@ func ISASeaLevel() Air {
 // MinPressurePa..MaxPressurePa.
 func AirFromCelsius(tc, p float64) (Air, error) {
 	if !finite(tc) {
-		return Air{}, &FieldError{Field: "flow.temperature_c", Err: ErrNonFinite}
+		return Air{}, &FieldError{Field: "flow.temperature_c", Err: errNotFinite}
 	}
 	if tc < MinTemperatureC || tc > MaxTemperatureC {
 		return Air{}, &FieldError{Field: "flow.temperature_c",
 			Err: fmt.Errorf("%g °C is outside %g..%g °C", tc, MinTemperatureC, MaxTemperatureC)}
 	}
 	if !finite(p) {
-		return Air{}, &FieldError{Field: "flow.pressure_pa", Err: ErrNonFinite}
+		return Air{}, &FieldError{Field: "flow.pressure_pa", Err: errNotFinite}
 	}
 	if p < MinPressurePa || p > MaxPressurePa {
 		return Air{}, &FieldError{Field: "flow.pressure_pa",

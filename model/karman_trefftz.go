@@ -81,7 +81,7 @@ func (k KarmanTrefftz) validateMap() error {
 		v    float64
 	}{{"kt.cx", k.CenterX}, {"kt.cy", k.CenterY}, {"kt.tau", k.TEAngleDeg}} {
 		if !finite(f.v) {
-			return &FieldError{Field: f.name, Err: ErrNonFinite}
+			return &FieldError{Field: f.name, Err: errNotFinite}
 		}
 	}
 	if k.CenterX >= 0 {

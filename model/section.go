@@ -16,6 +16,17 @@ var (
 	ErrNonFinite    = errors.New("coordinate is not a finite number")
 )
 
+// errNotFinite is ErrNonFinite for a value that is not a coordinate (an
+// angle, a Reynolds number, a trip position, a temperature): its message
+// says only "not a finite number", so a field's error does not call the
+// angle of attack a coordinate, and errors.Is still matches ErrNonFinite.
+var errNotFinite error = notFinite{}
+
+type notFinite struct{}
+
+func (notFinite) Error() string        { return "not a finite number" }
+func (notFinite) Is(target error) bool { return target == ErrNonFinite }
+
 // PointError reports a problem with one point of a contour.
 type PointError struct {
 	Index int // zero-based index into the points given

@@ -322,7 +322,7 @@ func (st *Study) ApplySetup(v SetupVariable, x float64, secs []*Section) error {
 		return err
 	}
 	if math.IsNaN(x) || math.IsInf(x, 0) {
-		return &SetupError{Variable: v.Name(), Err: ErrNonFinite}
+		return &SetupError{Variable: v.Name(), Err: errNotFinite}
 	}
 	switch v.Kind {
 	case SetupAlpha:

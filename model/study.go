@@ -161,7 +161,7 @@ func (r SweepRange) Validate() error {
 		x float64
 	}{{"sweep.from_deg", r.FromDeg}, {"sweep.to_deg", r.ToDeg}, {"sweep.step_deg", r.StepDeg}} {
 		if !finite(v.x) {
-			return &FieldError{Field: v.f, Err: ErrNonFinite}
+			return &FieldError{Field: v.f, Err: errNotFinite}
 		}
 		if v.x < -MaxAlphaDeg || v.x > MaxAlphaDeg {
 			return &FieldError{Field: v.f, Err: fmt.Errorf("%g is outside ±%g°", v.x, float64(MaxAlphaDeg))}

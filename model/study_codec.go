@@ -453,7 +453,7 @@ func (st *Study) Validate() error {
 
 func inRange(v, lo, hi float64) error {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return ErrNonFinite
+		return errNotFinite
 	}
 	if v < lo || v > hi {
 		return fmt.Errorf("%g is outside %g..%g", v, lo, hi)

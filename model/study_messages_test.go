@@ -2,6 +2,7 @@ package model
 
 import (
 	"errors"
+	"math"
 	"strings"
 	"testing"
 )
@@ -39,5 +40,49 @@ func TestStudyMessagesInWords(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestNonFiniteFieldSaysNoCoordinate: a field that is not finite (an
+// angle, a Reynolds number, a trip, the air, a Kármán–Trefftz parameter)
+// is "not a finite number", still ErrNonFinite for errors.Is, and is not
+// called a coordinate (it was "flow.alpha_deg: coordinate is not a finite
+// number", and so the command line's "--alpha: coordinate is …").
+func TestNonFiniteFieldSaysNoCoordinate(t *testing.T) {
+	nan := math.NaN()
+	valid := func(edit func(*Study)) error {
+		st := NewStudy()
+		st.Elements = []StudyElement{{Name: "main", Section: SectionSource{Spec: "naca:0012"}, ChordMM: 250}}
+		edit(st)
+		return st.Validate()
+	}
+	for _, tc := range []struct {
+		name, field string
+		err         error
+	}{
+		{"angle of attack", "flow.alpha_deg", valid(func(st *Study) { st.Flow.AlphaDeg = nan })},
+		{"Reynolds number", "flow.reynolds", valid(func(st *Study) { st.Flow.Reynolds = math.Inf(1) })},
+		{"upper trip", "viscous.trip_upper", valid(func(st *Study) { st.Viscous.TripUpper = nan })},
+		{"chord", "elements[0].chord_mm", valid(func(st *Study) { st.Elements[0].ChordMM = nan })},
+		{"sweep step", "sweep.step_deg", valid(func(st *Study) { st.Sweep.StepDeg = nan })},
+		{"temperature", "flow.temperature_c", func() error { _, err := AirFromCelsius(nan, 101325); return err }()},
+		{"Kármán–Trefftz centre", "kt.cy", KarmanTrefftz{CenterX: -0.1, CenterY: nan, TEAngleDeg: 10}.validateMap()},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			var fe *FieldError
+			if !errors.As(tc.err, &fe) || fe.Field != tc.field {
+				t.Fatalf("error %v, want field %s", tc.err, tc.field)
+			}
+			if !errors.Is(tc.err, ErrNonFinite) {
+				t.Errorf("error %v does not match ErrNonFinite", tc.err)
+			}
+			if want := tc.field + ": not a finite number"; tc.err.Error() != want {
+				t.Errorf("message %q, want %q", tc.err, want)
+			}
+		})
+	}
+	// A coordinate keeps its word.
+	if _, err := NewSection("x", []Point{{1, 0}, {0.5, nan}, {0, 0}, {0.5, -0.1}, {1, 0}}); err == nil || !strings.Contains(err.Error(), "coordinate is not a finite number") {
+		t.Errorf("a NaN coordinate: %v, want it called a coordinate", err)
 	}
 }
