@@ -67,6 +67,10 @@ type jsonCoupled struct {
 	BubbleUpper *[2]num `json:"bubble_upper,omitempty"`
 	BubbleLower *[2]num `json:"bubble_lower,omitempty"`
 	Note        string  `json:"note,omitempty"`
+	// Rejected says why iterations that met their tolerance were not
+	// taken as converged (a spurious solution); without it a point with
+	// a tiny residual and converged false reads as a contradiction.
+	Rejected string `json:"rejected,omitempty"`
 }
 
 // coupledKeys fills the coupled solution's keys of one element (k ≥ 0)
@@ -76,7 +80,7 @@ type jsonCoupled struct {
 func coupledKeys(p *engine.CoupledPoint, k int) (jsonCoefficients, jsonViscous, jsonCoupled) {
 	conv, it := p.Converged, p.Iterations
 	e := p.Elements[max(k, 0)]
-	c := jsonCoupled{Converged: &conv, Iterations: &it, Residual: ptr(p.Residual), Note: p.Note,
+	c := jsonCoupled{Converged: &conv, Iterations: &it, Residual: ptr(p.Residual), Note: p.Note, Rejected: p.Rejected,
 		BubbleUpper: bubble(e.BubbleUpper), BubbleLower: bubble(e.BubbleLower)}
 	v := jsonViscous{ptr(p.Cd), ptr(e.TransitionUpper), ptr(e.TransitionLower), ptr(e.SeparationUpper), ptr(e.SeparationLower)}
 	co := jsonCoefficients{Cl: num(p.Cl), Cm: num(p.Cm)}
@@ -184,6 +188,9 @@ var coupledMaxIterations int
 func notConverged(c *engine.CoupledPoint) string {
 	if c.Note != "" {
 		return fmt.Sprintf("viscous solution at %g° failed (%s): no viscous numbers", c.AlphaDeg, c.Note)
+	}
+	if c.Rejected != "" {
+		return fmt.Sprintf("viscous solution at %g° not taken as converged (%d iterations): %s; it gives no viscous numbers", c.AlphaDeg, c.Iterations, c.Rejected)
 	}
 	return fmt.Sprintf("viscous solution at %g° did not converge (%d iterations, residual %.2g): it gives no viscous numbers", c.AlphaDeg, c.Iterations, c.Residual)
 }
@@ -348,6 +355,8 @@ func convergenceWords(c *engine.CoupledPoint) string {
 	switch {
 	case c.Note != "":
 		return "FAILED: " + c.Note
+	case c.Rejected != "":
+		return fmt.Sprintf("NOT CONVERGED after %d iterations: %s; its numbers are not an answer", c.Iterations, c.Rejected)
 	case c.Converged:
 		if c.Iterations == 1 {
 			return fmt.Sprintf("converged in 1 iteration (residual %.1e)", c.Residual)

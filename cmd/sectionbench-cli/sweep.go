@@ -170,6 +170,9 @@ func sweepCoupledText(w io.Writer, res *engine.Result) error {
 		if !p.Converged {
 			state = fmt.Sprintf("NOT CONVERGED (%d iterations, residual %.1e)", p.Iterations, p.Residual)
 		}
+		if p.Rejected != "" {
+			state = fmt.Sprintf("NOT CONVERGED (%d iterations; rejected: %s)", p.Iterations, p.Rejected)
+		}
 		if p.Note != "" {
 			state = "FAILED: " + p.Note
 		}
