@@ -865,18 +865,30 @@ func (cs *coupledState) mulReduced(x, y []float64) {
 // workspace's), formed row by row: W_i as above with the rows of D and
 // the predecessors' Q rows, M's row z_i · W_i and Q_i = A⁺_i W_i.
 func (cs *coupledState) formReduced() []float64 {
+	// Column c of every row needs only column c of the rows before it:
+	// the columns are split between the machine's cores.
+	parallelRows(len(cs.st), cs.formReducedColumns)
+	return cs.work.mm
+}
+
+// formReducedColumns forms columns [lo, hi) of M and Q (formReduced).
+func (cs *coupledState) formReducedColumns(lo, hi int) {
 	n := len(cs.st)
 	wk := &cs.work
 	q, mm, w := wk.q, wk.mm, wk.w
 	for i := range n {
 		sl := &wk.lin[i]
-		clear(w)
+		for e := range 3 {
+			clear(w[e*n+lo : e*n+hi])
+		}
 		for qq := 0; qq < sl.n; qq++ {
 			j := sl.idx[qq]
-			drow := cs.d[sl.row[qq]*n : (sl.row[qq]+1)*n]
+			drow := cs.d[sl.row[qq]*n+lo : sl.row[qq]*n+hi]
 			for e := range 3 {
-				we := w[e*n : (e+1)*n]
-				we[j] += sl.dm[qq][e]
+				we := w[e*n+lo : e*n+hi]
+				if j >= lo && j < hi {
+					we[j-lo] += sl.dm[qq][e]
+				}
 				if a := sl.du[qq][e]; a != 0 {
 					axpy(a, drow, we)
 				}
@@ -884,19 +896,19 @@ func (cs *coupledState) formReduced() []float64 {
 		}
 		for qq := 1; qq < sl.n; qq++ {
 			j := sl.idx[qq]
-			q0 := q[(2*j)*n : (2*j+1)*n]
-			q1 := q[(2*j+1)*n : (2*j+2)*n]
+			q0 := q[(2*j)*n+lo : (2*j)*n+hi]
+			q1 := q[(2*j+1)*n+lo : (2*j+1)*n+hi]
 			for e := range 3 {
 				b0, b1 := sl.b[qq][0][e], sl.b[qq][1][e]
-				we := w[e*n : (e+1)*n]
+				we := w[e*n+lo : e*n+hi]
 				q0, q1 = q0[:len(we)], q1[:len(we)]
 				for c := range we {
 					we[c] -= b0*q0[c] + b1*q1[c]
 				}
 			}
 		}
-		row := mm[i*n : (i+1)*n]
-		w0, w1, w2 := w[:n], w[n:2*n], w[2*n:3*n]
+		row := mm[i*n+lo : i*n+hi]
+		w0, w1, w2 := w[lo:hi], w[n+lo:n+hi], w[2*n+lo:2*n+hi]
 		w0, w1, w2 = w0[:len(row)], w1[:len(row)], w2[:len(row)]
 		z := sl.z
 		for c := range row {
@@ -904,14 +916,13 @@ func (cs *coupledState) formReduced() []float64 {
 		}
 		for r := range 2 {
 			pin := sl.pin[r]
-			qr := q[(2*i+r)*n : (2*i+r+1)*n]
+			qr := q[(2*i+r)*n+lo : (2*i+r)*n+hi]
 			qr = qr[:len(w0)]
 			for c := range qr {
 				qr[c] = pin[0]*w0[c] + pin[1]*w1[c] + pin[2]*w2[c]
 			}
 		}
 	}
-	return mm
 }
 
 // luSolve solves A x = b in place for one right-hand side b, from the LU
