@@ -65,7 +65,7 @@ func (cs *coupledState) solveFrom(ctx context.Context, w *coupledState, steps wa
 		if steps&warmContinuation != 0 {
 			snap = cs.snapshot()
 		}
-		conv, iters, res, err = cs.iterate(ctx, warmDirectIterations, tolerance(cs.opt))
+		conv, iters, res, err = cs.iterate(ctx, warmDirectIterations, warmDirectGrace, tolerance(cs.opt))
 		if err != nil || conv || steps&warmContinuation == 0 {
 			return conv, iters, res, true, err
 		}

@@ -180,7 +180,7 @@ func (cs *coupledState) solve(ctx context.Context, ueMarch []float64) (converged
 			if lam == 0 {
 				maxIt = 2 * homotopyMaxIter
 			}
-			_, n, _, err := cs.iterate(ctx, maxIt, homotopyTolerance)
+			_, n, _, err := cs.iterate(ctx, maxIt, 0, homotopyTolerance)
 			iters += n
 			if err != nil {
 				cs.ueMarch, cs.lam = nil, 1
@@ -197,11 +197,13 @@ func (cs *coupledState) solve(ctx context.Context, ueMarch []float64) (converged
 		}
 		cs.ueMarch, cs.lam = nil, 1
 	}
-	converged, n, res, err := cs.iterate(ctx, maxIt, tol)
+	converged, n, res, err := cs.iterate(ctx, maxIt, 0, tol)
 	return converged, iters + n, res, err
 }
 
-// iterate runs at most maxIt Newton iterations from the current state.
+// iterate runs at most maxIt Newton iterations from the current state,
+// the first round up to grace more while its steps keep falling
+// (newtonIterations).
 //
 // Within the Newton iterations transition may only move upstream (retype
 // without relaminarising): a transition station turning laminar and
@@ -218,7 +220,7 @@ func (cs *coupledState) solve(ctx context.Context, ueMarch []float64) (converged
 // and the iterations go on: at high lift the boundary layers take a
 // quarter of the circulation away and the stagnation points move by
 // several leading-edge panels (NACA 4412 at 12.5° converges only so).
-func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64) (converged bool, iters int, res float64, err error) {
+func (cs *coupledState) iterate(ctx context.Context, maxIt, grace int, tol float64) (converged bool, iters int, res float64, err error) {
 	var fallback *snapshot
 	var fallbackRes float64
 	for relaminarised := 0; ; relaminarised++ {
@@ -228,7 +230,8 @@ func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64) (co
 		// budget cut short with transition still upstream of its e^N
 		// position (NACA 4412 at Re 2.8e5 and 5°: x/c 0.42 instead of
 		// 0.49, Cl 2 % low).
-		conv, n, r, err := cs.newtonIterations(ctx, maxIt, tol)
+		conv, n, r, err := cs.newtonIterations(ctx, maxIt, grace, tol)
+		grace = 0 // for reaching convergence, not for moving transition after it
 		iters += n
 		if err != nil {
 			return false, iters, r, err
@@ -261,11 +264,16 @@ func (cs *coupledState) iterate(ctx context.Context, maxIt int, tol float64) (co
 }
 
 // newtonIterations runs at most maxIt Newton iterations from the current
-// state, transition moving upstream only (iterate).
-func (cs *coupledState) newtonIterations(ctx context.Context, maxIt int, tol float64) (converged bool, iters int, res float64, err error) {
+// state, transition moving upstream only (iterate). Past maxIt it goes on,
+// up to grace iterations more, while the step has fallen in each of the
+// last graceFalling iterations: the iterations are then converging, and
+// stopping them throws their progress away for the costlier routes
+// (solveFrom).
+func (cs *coupledState) newtonIterations(ctx context.Context, maxIt, grace int, tol float64) (converged bool, iters int, res float64, err error) {
 	n := len(cs.st)
-	prevRes, grown := math.Inf(1), 0
-	for it := 1; it <= maxIt; it++ {
+	prevRes, grown, falling := math.Inf(1), 0, 0
+	bound := maxIt
+	for it := 1; it <= bound; it++ {
 		if err := ctx.Err(); err != nil {
 			return false, it - 1, res, err
 		}
@@ -317,6 +325,11 @@ func (cs *coupledState) newtonIterations(ctx context.Context, maxIt int, tol flo
 		if diverging(res, &grown, prevRes) {
 			return false, it, res, nil
 		}
+		if res < prevRes {
+			falling++
+		} else {
+			falling = 0
+		}
 		prevRes = res
 		// Backtracking: the step is halved (up to lineSearchHalvings
 		// times) while the residuals' norm grows past lineSearchGrowth
@@ -347,8 +360,11 @@ func (cs *coupledState) newtonIterations(ctx context.Context, maxIt int, tol flo
 		if res < tol && rlx == 1 && !changed {
 			return true, it, res, nil
 		}
+		if it == bound && bound < maxIt+grace && falling >= graceFalling {
+			bound++
+		}
 	}
-	return false, maxIt, res, nil
+	return false, bound, res, nil
 }
 
 // Divergence: newtonIterations gives up before its bound when the
