@@ -27,6 +27,10 @@ func coupledState(res *engine.Result) string {
 	switch {
 	case c.Note != "":
 		return "no viscous solution: " + firstLine(c.Note)
+	case c.Rejected != "":
+		// Met its tolerance, but on a solution the solver does not
+		// accept: a residual of 1e-10 and "not converged" need the why.
+		return fmt.Sprintf("viscous solution not converged after %d iteration%s (%s)", c.Iterations, plural(c.Iterations), c.Rejected)
 	case !c.Converged:
 		return fmt.Sprintf("viscous solution not converged after %d iteration%s", c.Iterations, plural(c.Iterations))
 	}
@@ -134,6 +138,8 @@ func coupledResultsText(res *engine.Result) (table, note string) {
 		n = append(n, fmt.Sprintf("Viscous: coupled boundary layers and wakes, %s (largest last change %s); a 2-D estimate, validate by test.", state, sci(c.Residual, 2)))
 	} else if c.Note != "" {
 		n = append(n, "Viscous: "+state+"; only the inviscid Cl is given.")
+	} else if c.Rejected != "" {
+		n = append(n, "Viscous: "+state+", so no viscous numbers (—); the inviscid Cl is beside.")
 	} else {
 		n = append(n, fmt.Sprintf("Viscous: not converged after %d iterations, so no viscous numbers (—); the inviscid Cl is beside.", c.Iterations))
 	}
