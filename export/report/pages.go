@@ -224,7 +224,7 @@ func (r *writer) resultsSection() {
 		r.subheading("Viscous solution (coupled)")
 		state := fmt.Sprintf("Converged in %d %s: Cl %s, Cd %s on the reference chord (inviscid Cl %s beside it).", c.Iterations, plural(c.Iterations, "iteration", "iterations"), Coef(c.Cl), Coef(c.Cd), Coef(res.Solution.Cl))
 		if !c.Converged {
-			state = fmt.Sprintf("Did not converge (%d iterations): no viscous numbers at this angle; the inviscid ones above are for orientation only.", c.Iterations)
+			state = fmt.Sprintf("Did not converge (%d iterations%s): no viscous numbers at this angle; the inviscid ones above are for orientation only.", c.Iterations, rejectedWhy(c))
 		}
 		r.para(state)
 		var rows [][]string

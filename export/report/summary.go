@@ -19,8 +19,11 @@ import (
 type Coupled struct {
 	Converged  bool
 	Iterations int
-	Cl         float64 // configuration, standard sense (positive up); NaN unless converged
-	Cd         float64 // configuration, on the reference chord
+	// Rejected says why iterations that met their tolerance were not
+	// taken as converged (engine.CoupledPoint.Rejected); empty otherwise.
+	Rejected string
+	Cl       float64 // configuration, standard sense (positive up); NaN unless converged
+	Cd       float64 // configuration, on the reference chord
 	// ClMax is the largest lift coefficient of the sweep in the sense that
 	// loads the wing (−Cl, downforce, for an inverted study) and
 	// AlphaClMaxDeg its angle; NaN when the sweep found no maximum.
@@ -61,7 +64,7 @@ func CoupledFrom(st *model.Study, res *engine.Result) *Coupled {
 	if cp == nil {
 		return nil
 	}
-	c := &Coupled{Converged: cp.Converged, Iterations: cp.Iterations, Cl: cp.Cl, Cd: cp.Cd,
+	c := &Coupled{Converged: cp.Converged, Iterations: cp.Iterations, Rejected: cp.Rejected, Cl: cp.Cl, Cd: cp.Cd,
 		ClMax: loadSign(st) * res.ClMax, AlphaClMaxDeg: res.AlphaClMax, ClMaxIsPeak: res.ClMaxIsPeak}
 	for _, e := range cp.Elements {
 		c.Elements = append(c.Elements, CoupledElement{Name: e.Name, Cd: e.Cd,
@@ -320,7 +323,7 @@ func (r *writer) confidence(h headline) [][2]string {
 	case c != nil && c.Converged:
 		conv = fmt.Sprintf("yes, the coupled viscous solution converged in %d %s", c.Iterations, plural(c.Iterations, "iteration", "iterations"))
 	case c != nil:
-		conv = fmt.Sprintf("NO: the coupled viscous solution did not converge (%d iterations); its numbers are not an answer", c.Iterations)
+		conv = fmt.Sprintf("NO: the coupled viscous solution did not converge (%d iterations)%s; its numbers are not an answer", c.Iterations, rejectedWhy(c))
 	case res.Viscous != nil:
 		conv = "potential flow with a one-way boundary-layer estimate (no iteration)"
 	}
@@ -482,4 +485,14 @@ func (r *writer) small(s string) {
 	p.SetFont(fontFamily, "I", tablePt)
 	p.MultiCell(0, 4, s, "", "L", false)
 	p.Ln(1.5)
+}
+
+// rejectedWhy is ": " and the reason a point's iterations that met their
+// tolerance were not taken as converged, or "" when they were not
+// rejected.
+func rejectedWhy(c *Coupled) string {
+	if c.Rejected == "" {
+		return ""
+	}
+	return ": " + c.Rejected
 }
