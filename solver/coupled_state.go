@@ -328,32 +328,35 @@ func (cs *coupledState) newSensitivities() *sensitivities {
 			terms[r.cols.wake0[k]+j] = []sigmaTerm{{w0 + hi, h}, {w0 + lo, -h}}
 		}
 	}
-	row, ru, rl := make([]float64, ncol), make([]float64, ncol), make([]float64, ncol)
-	for i := range cs.st {
-		s := &cs.st[i]
-		switch {
-		case s.side == sideWake && s.wakeStart:
-			u, l := &cs.st[s.prev[0]], &cs.st[s.prev[1]]
-			cs.sigmaRow(u, ru)
-			cs.sigmaRow(l, rl)
-			for c := range row {
-				row[c] = 0.5 * (ru[c] + rl[c])
+	// Each station's row on its own: split between the machine's cores.
+	parallelRows(n, func(lo, hi int) {
+		row, ru, rl := make([]float64, ncol), make([]float64, ncol), make([]float64, ncol)
+		for i := lo; i < hi; i++ {
+			s := &cs.st[i]
+			switch {
+			case s.side == sideWake && s.wakeStart:
+				u, l := &cs.st[s.prev[0]], &cs.st[s.prev[1]]
+				cs.sigmaRow(u, ru)
+				cs.sigmaRow(l, rl)
+				for c := range row {
+					row[c] = 0.5 * (ru[c] + rl[c])
+				}
+				ue0[i] = 0.5 * (cs.ue0Of(u) + cs.ue0Of(l))
+			default:
+				cs.sigmaRow(s, row)
+				ue0[i] = cs.ue0Of(s)
 			}
-			ue0[i] = 0.5 * (cs.ue0Of(u) + cs.ue0Of(l))
-		default:
-			cs.sigmaRow(s, row)
-			ue0[i] = cs.ue0Of(s)
+			d := dd[i*n : (i+1)*n] // zero (made above)
+			for c, v := range row {
+				if v == 0 {
+					continue
+				}
+				for _, t := range terms[c] {
+					d[t.st] += v * t.coef
+				}
+			}
 		}
-		d := dd[i*n : (i+1)*n] // zero (made above)
-		for c, v := range row {
-			if v == 0 {
-				continue
-			}
-			for _, t := range terms[c] {
-				d[t.st] += v * t.coef
-			}
-		}
-	}
+	})
 	return &sensitivities{ue0: ue0, d: dd}
 }
 
