@@ -6,6 +6,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 	"text/tabwriter"
@@ -36,6 +37,8 @@ type jsonExtrapolation struct {
 	Error num  `json:"error_estimate"`
 	Order num  `json:"observed_order"`
 	OK    bool `json:"ok"`
+	// Why says why there is no extrapolation (absent when OK).
+	Why string `json:"why,omitempty"`
 }
 
 type jsonDensity struct {
@@ -162,6 +165,11 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 	for _, s := range skipped {
 		fmt.Fprintln(stdout, "skipped "+s)
 	}
+	for _, r := range res.Rows {
+		if why := engine.ViscousFailure(r); why != "" {
+			fmt.Fprintln(stdout, why)
+		}
+	}
 	for _, q := range []struct {
 		name    string
 		e       engine.Extrapolation
@@ -170,10 +178,13 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 		if q.viscous && !res.Viscous {
 			continue
 		}
-		if q.e.OK {
+		switch {
+		case q.e.OK:
 			fmt.Fprintf(stdout, "%-7s extrapolated %.5f ± %.5f, observed order %.2f\n", q.name, q.e.Value, q.e.ErrorEstimate, q.e.ObservedOrder)
-		} else {
-			fmt.Fprintf(stdout, "%-7s not converging monotonically over the finest counts; finest value %.5f\n", q.name, q.e.Value)
+		case q.viscous:
+			fmt.Fprintf(stdout, "%-7s no extrapolation over the counts where the viscous solution converged: %s%s\n", q.name, q.e.Why, finest(q.e.Value))
+		default:
+			fmt.Fprintf(stdout, "%-7s no extrapolation: %s%s\n", q.name, q.e.Why, finest(q.e.Value))
 		}
 	}
 	if res.RecommendedPanels > 0 {
@@ -185,8 +196,17 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 	return nil
 }
 
+// finest is the text giving the finest value of a quantity without an
+// extrapolation, empty when there is none.
+func finest(v float64) string {
+	if math.IsNaN(v) {
+		return ""
+	}
+	return fmt.Sprintf("; finest value %.5f", v)
+}
+
 func extrap(e engine.Extrapolation) jsonExtrapolation {
-	return jsonExtrapolation{num(e.Value), num(e.ErrorEstimate), num(e.ObservedOrder), e.OK}
+	return jsonExtrapolation{num(e.Value), num(e.ErrorEstimate), num(e.ObservedOrder), e.OK, e.Why}
 }
 
 func g(x float64) string {

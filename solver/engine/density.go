@@ -61,6 +61,12 @@ type DensityRow struct {
 	// ViscousIterations is how many iterations the coupled solution took
 	// (0 without it), for a row that did not converge.
 	ViscousIterations int
+	// ViscousResidual is the coupled solution's last step
+	// (CoupledPoint.Residual: the largest relative change of its first
+	// attempt's last iteration), NaN without it. Where the solution did
+	// not converge, a value above DivergedStep says that its iterations
+	// diverged and were given up early, not stopped by their bound.
+	ViscousResidual float64
 	// MinPanelLength and MaxPanelLength are the shortest and longest panel
 	// over all elements, each as a fraction of its own element's chord
 	// (0.0062 is 0.62% of chord, not a length: at 40 cosine-spaced panels
@@ -87,6 +93,11 @@ type Extrapolation struct {
 	ErrorEstimate float64 // |Value − finest value|; NaN when !OK
 	ObservedOrder float64 // NaN when !OK or when the values did not change
 	OK            bool    // false when the three finest values are not monotonically converging, the ratio is not constant or the observed order is outside [MinObservedOrder, MaxObservedOrder]
+	// Why says in words why OK is false (empty when it is true): fewer
+	// than three values, counts not at one refinement ratio, changes
+	// that do not shrink with one sign, or the observed order outside the
+	// band.
+	Why string
 }
 
 // The band of observed orders a density study accepts for a Richardson
@@ -105,6 +116,29 @@ const (
 	MinObservedOrder = 0.5
 	MaxObservedOrder = 6.0
 )
+
+// DivergedStep is the last Newton step, as a multiple of the variables'
+// values, above which a coupled solution that did not converge is said to
+// have diverged: the solver gives up on iterations whose step grows past
+// ten times the values four times in a row, or past 10⁴ times at once
+// (solver/coupled_newton.go), and none that converged ever took a step
+// above 170 times.
+const DivergedStep = 10
+
+// ViscousFailure says in words why the coupled solution of row did not
+// converge, or "" when it did or was not solved: the iterations spent over
+// all its attempts and whether the first attempt's iterations diverged or
+// ran out.
+func ViscousFailure(row DensityRow) string {
+	if !row.Solved() || !math.IsNaN(row.ViscousCl) || row.ViscousIterations == 0 {
+		return ""
+	}
+	why := fmt.Sprintf("stopped at the iteration bound with a last step of %.2g times the values", row.ViscousResidual)
+	if !(row.ViscousResidual <= DivergedStep) {
+		why = fmt.Sprintf("diverged (a last step of %.2g times the values) and was given up before the iteration bound", row.ViscousResidual)
+	}
+	return fmt.Sprintf("the viscous solution did not converge at %d panels: %d Newton iterations over all its attempts; the first attempt %s", row.Panels, row.ViscousIterations, why)
+}
 
 // DensitySeries is the outcome for one nose clustering value.
 type DensitySeries struct {
@@ -209,7 +243,7 @@ func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int
 				row = densityRow(sol, n, nose)
 				if cpl != nil {
 					res.Viscous = true
-					row.ViscousIterations = cpl.Iterations
+					row.ViscousIterations, row.ViscousResidual = cpl.Iterations, cpl.Residual
 					if cpl.Converged {
 						row.ViscousCl, row.ViscousCd = cpl.Cl, cpl.Cd
 						if len(cpl.Elements) > 0 {
@@ -259,7 +293,7 @@ func skippableDensityError(err error) bool {
 // skippedRow is the row of a count that was not solved.
 func skippedRow(n int, nose float64, err error) DensityRow {
 	nan := math.NaN()
-	return DensityRow{Panels: n, Nose: nose, Cl: nan, Cm: nan, CpMin: nan, DCl: nan, DCm: nan, DCpMin: nan, ViscousCl: nan, ViscousCd: nan, ViscousTransitionUpper: nan, ViscousTransitionLower: nan,
+	return DensityRow{Panels: n, Nose: nose, Cl: nan, Cm: nan, CpMin: nan, DCl: nan, DCm: nan, DCpMin: nan, ViscousCl: nan, ViscousCd: nan, ViscousTransitionUpper: nan, ViscousTransitionLower: nan, ViscousResidual: nan,
 		MinPanelLength: nan, MaxPanelLength: nan, ShortestPanel: nan, LongestPanel: nan,
 		Skipped: err.Error(), Err: err}
 }
@@ -306,7 +340,7 @@ func (o DensityOptions) withDefaults() (DensityOptions, error) {
 func densityRow(sol *solver.Solution, n int, nose float64) DensityRow {
 	nan := math.NaN()
 	row := DensityRow{Panels: n, Nose: nose, Cl: sol.Cl, Cm: sol.Cm, CpMin: math.Inf(1),
-		DCl: nan, DCm: nan, DCpMin: nan, ViscousCl: nan, ViscousCd: nan, ViscousTransitionUpper: nan, ViscousTransitionLower: nan, MinPanelLength: math.Inf(1), MaxPanelLength: 0}
+		DCl: nan, DCm: nan, DCpMin: nan, ViscousCl: nan, ViscousCd: nan, ViscousTransitionUpper: nan, ViscousTransitionLower: nan, ViscousResidual: nan, MinPanelLength: math.Inf(1), MaxPanelLength: 0}
 	for _, e := range sol.Elements {
 		row.CpMin = math.Min(row.CpMin, e.CpMin)
 		// solver.Panel lengths from the midpoint arc lengths: S_0 = L_0/2 and
@@ -389,11 +423,13 @@ func extrapolate(counts []int, f []float64) Extrapolation {
 		bad.Value = f[n-1]
 	}
 	if n < 3 {
+		bad.Why = fmt.Sprintf("values at %d counts, and it takes three", n)
 		return bad
 	}
 	n1, n2, n3 := float64(counts[n-3]), float64(counts[n-2]), float64(counts[n-1])
 	r := n3 / n2
 	if math.Abs(n2/n1-r) > 1e-9*r {
+		bad.Why = fmt.Sprintf("the three finest counts with values, %d, %d and %d, are not at one refinement ratio", counts[n-3], counts[n-2], counts[n-1])
 		return bad
 	}
 	f1, f2, f3 := f[n-3], f[n-2], f[n-1]
@@ -401,7 +437,12 @@ func extrapolate(counts []int, f []float64) Extrapolation {
 		return Extrapolation{Value: f3, ErrorEstimate: 0, ObservedOrder: math.NaN(), OK: true}
 	}
 	p, ok := ObservedOrder(f1, f2, f3, r)
-	if !ok || p < MinObservedOrder || p > MaxObservedOrder {
+	if !ok {
+		bad.Why = fmt.Sprintf("not converging monotonically over the counts %d, %d, %d (changes %+.2g, then %+.2g)", counts[n-3], counts[n-2], counts[n-1], f2-f1, f3-f2)
+		return bad
+	}
+	if p < MinObservedOrder || p > MaxObservedOrder {
+		bad.Why = fmt.Sprintf("observed order %.2f over the counts %d, %d, %d, outside [%g, %g]", p, counts[n-3], counts[n-2], counts[n-1], MinObservedOrder, MaxObservedOrder)
 		return bad
 	}
 	v, e := Richardson(f2, f3, r, p)
