@@ -169,6 +169,9 @@ func cmdDensity(args []string, stdout, stderr io.Writer) error {
 		if why := engine.ViscousFailure(r); why != "" {
 			fmt.Fprintln(stdout, why)
 		}
+		if r.ViscousHeld {
+			fmt.Fprintf(stdout, "at %d panels the viscous solution holds transition upstream of its e^N position: its answer is that of a trip there, not the free transition of the other counts\n", r.Panels)
+		}
 	}
 	for _, q := range []struct {
 		name    string

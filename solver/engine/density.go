@@ -67,6 +67,11 @@ type DensityRow struct {
 	// not converge, a value above DivergedStep says that its iterations
 	// diverged and were given up early, not stopped by their bound.
 	ViscousResidual float64
+	// ViscousHeld: the converged coupled solution holds transition
+	// upstream of its e^N position on some surface
+	// (CoupledElementPoint.HeldUpper, HeldLower): its answer is that of a
+	// trip there, not the free-transition answer of the other counts.
+	ViscousHeld bool
 	// MinPanelLength and MaxPanelLength are the shortest and longest panel
 	// over all elements, each as a fraction of its own element's chord
 	// (0.0062 is 0.62% of chord, not a length: at 40 cosine-spaced panels
@@ -248,6 +253,9 @@ func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int
 						row.ViscousCl, row.ViscousCd = cpl.Cl, cpl.Cd
 						if len(cpl.Elements) > 0 {
 							row.ViscousTransitionUpper, row.ViscousTransitionLower = cpl.Elements[0].TransitionUpper, cpl.Elements[0].TransitionLower
+							for _, e := range cpl.Elements {
+								row.ViscousHeld = row.ViscousHeld || e.HeldUpper || e.HeldLower
+							}
 						}
 					}
 				}
