@@ -49,17 +49,12 @@ func (cs *coupledState) ueIterated() []float64 {
 // to its last (the order of the plain loop, so the numbers are the same
 // to the last bit). Four rows are summed at once: a single row's sum is
 // one chain of dependent additions, which keeps the processor waiting.
-//
-// The rows are split between the machine's cores.
+// It runs on one core: a product takes a few tens of microseconds, the
+// order of what starting and joining workers costs.
 func rowProducts(a []float64, n int, x, init, out []float64) {
-	parallelRows(n, func(lo, hi int) { rowProductsOf(a, n, x, init, out, lo, hi) })
-}
-
-// rowProductsOf is rowProducts for rows [lo, hi).
-func rowProductsOf(a []float64, n int, x, init, out []float64, lo, hi int) {
 	x = x[:n]
-	i := lo
-	for ; i+4 <= hi; i += 4 {
+	i := 0
+	for ; i+4 <= n; i += 4 {
 		var v0, v1, v2, v3 float64
 		if init != nil {
 			v0, v1, v2, v3 = init[i], init[i+1], init[i+2], init[i+3]
@@ -77,7 +72,7 @@ func rowProductsOf(a []float64, n int, x, init, out []float64, lo, hi int) {
 		}
 		out[i], out[i+1], out[i+2], out[i+3] = v0, v1, v2, v3
 	}
-	for ; i < hi; i++ {
+	for ; i < n; i++ {
 		var v float64
 		if init != nil {
 			v = init[i]
