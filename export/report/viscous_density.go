@@ -81,7 +81,11 @@ func viscousDensityFrom(d *engine.DensityResult) []ViscousDensityRow {
 		case !r.Solved():
 			row.Skipped = r.Skipped
 		case math.IsNaN(r.ViscousCl):
-			row.Skipped = notConverged(r.ViscousIterations)
+			// Why, in the density study's words: the iterations
+			// spent and whether they diverged or ran out.
+			if row.Skipped = engine.ViscousFailure(r); row.Skipped == "" {
+				row.Skipped = notConverged(r.ViscousIterations)
+			}
 		}
 		rows = append(rows, row)
 	}
