@@ -79,23 +79,35 @@ func TestCoupledNewtonUncoupled(t *testing.T) {
 }
 
 // A solution with more lift than the potential flow is rejected as
-// spurious (the boundary layers take lift away); one with less is not.
+// spurious where every suction side's layer is the thicker at the
+// trailing edge (the boundary layers then take lift away); one with less
+// is not, nor one whose pressure-side layer is the thicker (a one-sided
+// trip: the displacement cambers the section and may add lift).
 func TestCoupledImplausible(t *testing.T) {
+	edge := func(dStar float64) CoupledSurface {
+		return CoupledSurface{Stations: []CoupledStation{{DStar: dStar / 2}, {DStar: dStar}}}
+	}
 	for _, tc := range []struct {
-		name       string
-		cl, clInv  float64
-		wantReject bool
+		name           string
+		cl, clInv      float64
+		dUpper, dLower float64 // displacement thickness at the trailing edge
+		wantReject     bool
 	}{
-		{"less lift", 0.39, 0.42, false},
-		{"within the margin", 0.425, 0.42, false},
-		{"more lift", 0.50, 0.42, true},
-		{"inverted, less downforce", -0.39, -0.42, false},
-		{"inverted, more downforce", -0.50, -0.42, true},
+		{"less lift", 0.39, 0.42, 0.006, 0.003, false},
+		{"within the margin", 0.425, 0.42, 0.006, 0.003, false},
+		{"more lift", 0.50, 0.42, 0.006, 0.003, true},
+		{"inverted, less downforce", -0.39, -0.42, 0.003, 0.006, false},
+		{"inverted, more downforce", -0.50, -0.42, 0.003, 0.006, true},
+		{"more lift, the pressure side the thicker", 0.031, 0.019, 0.004, 0.005, false},
+		{"near zero lift, the upper surface tripped", -0.145, -0.121, 0.006, 0.003, false},
+		{"inverted, more downforce, the pressure side the thicker", -0.50, -0.42, 0.006, 0.003, false},
 	} {
-		got := implausible(&CoupledSolution{Cl: tc.cl, ClInviscid: tc.clInv}) != ""
-		if got != tc.wantReject {
-			t.Errorf("%s: Cl %.2f against inviscid %.2f: rejected %v, want %v", tc.name, tc.cl, tc.clInv, got, tc.wantReject)
-		}
+		t.Run(tc.name, func(t *testing.T) {
+			s := &CoupledSolution{Cl: tc.cl, ClInviscid: tc.clInv, Elements: []CoupledElement{{ClInviscid: tc.clInv, Upper: edge(tc.dUpper), Lower: edge(tc.dLower)}}}
+			if got := implausible(s) != ""; got != tc.wantReject {
+				t.Errorf("Cl %.3f against inviscid %.3f, δ* upper %.3f lower %.3f: rejected %v, want %v", tc.cl, tc.clInv, tc.dUpper, tc.dLower, got, tc.wantReject)
+			}
+		})
 	}
 }
 
