@@ -502,14 +502,12 @@ func (cs *coupledState) residualNorm() float64 {
 	n := len(cs.st)
 	cs.work.size(n)
 	ev := cs.work.ev
-	parallelRows(n, func(lo, hi int) {
-		for j := lo; j < hi; j++ {
-			e := &ev[j]
-			e.kind, e.re = cs.st[j].kind, cs.re
-			e.st[0] = cs.stationVars(j, [4]float64{cs.c[j], cs.th[j], cs.m[j], ue[j]})
-			e.cl[0] = bl.Eval(e.kind, e.st[0], cs.re)
-		}
-	})
+	for j := range n {
+		e := &ev[j]
+		e.kind, e.re = cs.st[j].kind, cs.re
+		e.st[0] = cs.stationVars(j, [4]float64{cs.c[j], cs.th[j], cs.m[j], ue[j]})
+		e.cl[0] = bl.Eval(e.kind, e.st[0], cs.re)
+	}
 	s := 0.0
 	for i := range n {
 		var r bl.Residuals
@@ -564,8 +562,6 @@ type newtonWork struct {
 	c0, t0   []float64
 	m0       []float64
 	ev       []stationEval
-	r0       []bl.Residuals     // each station's residuals (newtonStep)
-	jac      [][3][4][3]float64 // and their derivatives (stationJacobian)
 	speeds   speedCache
 	residual float64 // 2-norm of the residuals at the state of the last newtonStep
 }
@@ -604,7 +600,6 @@ func (w *newtonWork) size(n int) {
 		bm: make([]float64, n), w: make([]float64, 3*n), dm: w.dm,
 		lin: make([]stationLin, n), u: make([]float64, n), y: make([]float64, n), qx: make([][2]float64, n), dc: make([]float64, n), dth: make([]float64, n),
 		c0: make([]float64, n), t0: make([]float64, n), m0: make([]float64, n), ev: make([]stationEval, n), speeds: w.speeds,
-		r0: make([]bl.Residuals, n), jac: make([][3][4][3]float64, n),
 	}
 }
 
@@ -682,24 +677,56 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 	wk.size(n)
 	p, bm := wk.p, wk.bm
 	coup := cs.coupling()
-	// Each station's closures, at its own regime, once; then each
-	// station's residuals and their derivatives. Both are independent
-	// from station to station and run on the machine's cores; the
-	// elimination after them runs in marching order.
-	parallelRows(n, func(lo, hi int) {
-		for j := lo; j < hi; j++ {
-			cs.evalStation(&wk.ev[j], j, cs.st[j].kind, [4]float64{cs.c[j], cs.th[j], cs.m[j], ue[j]})
-		}
-	})
-	parallelRows(n, func(lo, hi int) {
-		for i := lo; i < hi; i++ {
-			wk.r0[i], wk.jac[i] = cs.stationJacobian(i, ue)
-		}
-	})
+	// Each station's closures, at its own regime, once. (Split between
+	// this machine's two cores, this loop and the residuals' derivatives
+	// below took half as much CPU again and longer on the clock: the
+	// cold point 35-39 ms against 30-35 under a load average of 5-6.
+	// Starting and joining workers several times a step costs more than
+	// it saves.)
+	for j := range n {
+		cs.evalStation(&wk.ev[j], j, cs.st[j].kind, [4]float64{cs.c[j], cs.th[j], cs.m[j], ue[j]})
+	}
 	norm := 0.0
 	for i := range n {
 		l := cs.localOf(i, ue)
-		r0, jac := wk.r0[i], &wk.jac[i]
+		var r0 bl.Residuals
+		var jac [3][4][3]float64 // participant, variable, residual
+		if plain, kind := cs.plainInterval(i); plain {
+			// A plain interval's residuals depend on each station
+			// through its own closure only.
+			me := &wk.ev[i]
+			pv := &wk.ev[l.idx[1]]
+			if pv.kind != kind {
+				var fresh stationEval
+				cs.evalStation(&fresh, l.idx[1], kind, l.v[1])
+				pv = &fresh
+			}
+			var memo bl.IntervalMemo
+			r0 = memo.IntervalOf(kind, pv.st[0], me.st[0], pv.cl[0], me.cl[0])
+			for x := range 4 {
+				r1 := memo.IntervalOf(kind, pv.st[0], me.st[1+x], pv.cl[0], me.cl[1+x])
+				r2 := memo.IntervalOf(kind, pv.st[1+x], me.st[0], pv.cl[1+x], me.cl[0])
+				for e := range 3 {
+					jac[0][x][e] = (r1[e] - r0[e]) / me.h[x]
+					jac[1][x][e] = (r2[e] - r0[e]) / pv.h[x]
+				}
+			}
+		} else {
+			r0 = cs.residual(i, &l)
+			for qq := 0; qq < l.n; qq++ {
+				plam := cs.st[l.idx[qq]].kind == bl.Laminar
+				for v := range 4 {
+					h := fdStep(v, l.v[qq][v], plam)
+					save := l.v[qq][v]
+					l.v[qq][v] = save + h
+					r1 := cs.residual(i, &l)
+					l.v[qq][v] = save
+					for e := range 3 {
+						jac[qq][v][e] = (r1[e] - r0[e]) / h
+					}
+				}
+			}
+		}
 		for _, v := range r0 {
 			norm += v * v
 		}
@@ -773,52 +800,6 @@ func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
 	return dc, dth, dm, true
 }
 
-// stationJacobian returns station i's residuals at the speeds ue and
-// their derivatives by finite differences, per participant (itself,
-// then its predecessors), variable (c, θ, m, Ue) and residual, from the
-// closures evalStation left in the workspace.
-func (cs *coupledState) stationJacobian(i int, ue []float64) (r0 bl.Residuals, jac [3][4][3]float64) {
-	wk := &cs.work
-	l := cs.localOf(i, ue)
-	if plain, kind := cs.plainInterval(i); plain {
-		// A plain interval's residuals depend on each station
-		// through its own closure only.
-		me := &wk.ev[i]
-		pv := &wk.ev[l.idx[1]]
-		if pv.kind != kind {
-			var fresh stationEval
-			cs.evalStation(&fresh, l.idx[1], kind, l.v[1])
-			pv = &fresh
-		}
-		var memo bl.IntervalMemo
-		r0 = memo.IntervalOf(kind, pv.st[0], me.st[0], pv.cl[0], me.cl[0])
-		for x := range 4 {
-			r1 := memo.IntervalOf(kind, pv.st[0], me.st[1+x], pv.cl[0], me.cl[1+x])
-			r2 := memo.IntervalOf(kind, pv.st[1+x], me.st[0], pv.cl[1+x], me.cl[0])
-			for e := range 3 {
-				jac[0][x][e] = (r1[e] - r0[e]) / me.h[x]
-				jac[1][x][e] = (r2[e] - r0[e]) / pv.h[x]
-			}
-		}
-	} else {
-		r0 = cs.residual(i, &l)
-		for qq := 0; qq < l.n; qq++ {
-			plam := cs.st[l.idx[qq]].kind == bl.Laminar
-			for v := range 4 {
-				h := fdStep(v, l.v[qq][v], plam)
-				save := l.v[qq][v]
-				l.v[qq][v] = save + h
-				r1 := cs.residual(i, &l)
-				l.v[qq][v] = save
-				for e := range 3 {
-					jac[qq][v][e] = (r1[e] - r0[e]) / h
-				}
-			}
-		}
-	}
-	return r0, jac
-}
-
 // stationLin is station i's part of the reduced Δm system of a Newton
 // step (newtonStep): its participants (itself, then its predecessors),
 // per participant q the derivatives of its three residuals with respect
@@ -881,9 +862,7 @@ func (cs *coupledState) mulReduced(x, y []float64) {
 // workspace's), formed row by row: W_i as above with the rows of D and
 // the predecessors' Q rows, M's row z_i · W_i and Q_i = A⁺_i W_i.
 func (cs *coupledState) formReduced() []float64 {
-	// Column c of every row needs only column c of the rows before it:
-	// the columns are split between the machine's cores.
-	parallelRows(len(cs.st), cs.formReducedColumns)
+	cs.formReducedColumns(0, len(cs.st))
 	return cs.work.mm
 }
 
