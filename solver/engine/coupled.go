@@ -231,10 +231,11 @@ func solveCoupled(ctx context.Context, sys *solver.System, alphaDeg, fs float64,
 func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs float64, opt solver.CoupledOptions, optKey string) (CoupledPoint, error) {
 	names := e.elementNames()
 	if seed := e.seed; seed != nil {
-		// A neighbouring setting's solution (runFromSeed): one start from
-		// it, no walk.
+		// Neighbouring settings' solutions (runFromSeeds): starts from
+		// them, no walk.
 		e.seed = nil
-		p, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, seed, names)
+		p, from, err := fromSeeds(ctx, sys, alphaDeg, fs, opt, seed, e.seedMore, e.rescueMax, names)
+		e.seedFrom = from
 		e.keepWarm(p, optKey)
 		return p, err
 	}
@@ -275,6 +276,51 @@ func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs
 	}
 	e.keepWarm(p, optKey)
 	return p, nil
+}
+
+// fromSeeds solves sys from converged solutions of neighbouring
+// settings: first, the nearest, with all of SolveCoupled's fallbacks (the
+// continuation from its layers, the other strategy, the start from the
+// march), then, when that does not converge, from those more returns
+// (nearer first; it may wait for them to be solved), each within
+// rescueMax Newton iterations an attempt. It returns the point with the
+// index of the solution it converged from (0 first, i for more's i−1;
+// −1: none). Each start is from a StartCopy of its solution, so that what
+// it tries is dropped with it.
+func fromSeeds(ctx context.Context, sys *solver.System, alphaDeg, fs float64, opt solver.CoupledOptions, first *solver.CoupledSolution, more func() []*solver.CoupledSolution, rescueMax int, names []string) (CoupledPoint, int, error) {
+	fail := func(err error) (CoupledPoint, int, error) {
+		if ctx.Err() != nil || errors.Is(err, context.Canceled) || errors.Is(err, context.DeadlineExceeded) {
+			return CoupledPoint{}, -1, err
+		}
+		return failedPoint(alphaDeg, names, err), -1, nil
+	}
+	cs, err := sys.SolveCoupled(ctx, fs, opt, first.StartCopy())
+	if err != nil {
+		return fail(err)
+	}
+	p := coupledPoint(alphaDeg, cs)
+	switch {
+	case cs.Converged:
+		return p, 0, nil
+	case more == nil:
+		return p, -1, nil
+	}
+	starts := more()
+	if err := ctx.Err(); err != nil {
+		return fail(err)
+	}
+	ropt := opt
+	ropt.MaxIterations = rescueMax
+	for i, start := range starts {
+		cs, err := sys.SolveCoupled(ctx, fs, ropt, start.StartCopy())
+		if err != nil {
+			return fail(err)
+		}
+		if cs.Converged {
+			return coupledPoint(alphaDeg, cs), i + 1, nil
+		}
+	}
+	return p, -1, nil
 }
 
 // keepWarm remembers a converged point of the cached free-air system.

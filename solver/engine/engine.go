@@ -89,9 +89,15 @@ type Engine struct {
 
 	// seed, when set, is a converged coupled solution of a neighbouring
 	// setting (another system with as many elements and panels) that the
-	// next coupled solve starts from instead of its own start; the set-up
-	// explorer's rescue of a point that did not converge (runFromSeed).
-	seed *solver.CoupledSolution
+	// next coupled solve starts from instead of its own start, and
+	// seedMore, if not nil, gives the next nearest when that does not
+	// converge (runFromSeeds, fromSeeds); rescueMax bounds the
+	// iterations of the starts from those. seedFrom is the one the solve
+	// converged from (0 seed, i seedMore's i−1; −1: none).
+	seed      *solver.CoupledSolution
+	seedMore  func() []*solver.CoupledSolution
+	rescueMax int
+	seedFrom  int
 }
 
 // NewEngine returns an engine with nothing cached.

@@ -42,8 +42,9 @@ type MapOptions struct {
 // to the point's own panel system, pitched, moved or resized, by arc
 // length; its own fallbacks end with a start from the march), a chain's
 // first point from the chain before's; when that does not converge it
-// tries the next converged neighbours solved before it (mapSeeds), two
-// at most, each within rescueIterations Newton iterations. A point
+// tries the next converged neighbour solved before it (mapSeeds,
+// fromSeeds), one, within rescueIterations Newton iterations an attempt.
+// A point
 // without a converged neighbour is solved as `solve` solves it. Which
 // neighbour a point started from never depends on how the goroutines
 // ran. Point.StartedFrom names it, and Point.Single says what is known

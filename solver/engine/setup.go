@@ -3,7 +3,6 @@ package engine
 import (
 	"context"
 	"errors"
-	"fmt"
 	"math"
 	"slices"
 
@@ -253,7 +252,7 @@ type pointSolver struct {
 	// neighbours, if not nil, returns at most n converged solutions of
 	// neighbouring settings, nearest first, that a point at values starts
 	// from: the first with the full iteration budget, the others, when
-	// that does not converge, within rescueIterations.
+	// that does not converge, within rescueIterations (fromSeeds).
 	neighbours func(ctx context.Context, values []float64, n int) []seed
 	// compare: solve every point that started from a neighbour again as
 	// `solve` does, and compare (MapOptions.CompareWithSolve).
@@ -286,7 +285,7 @@ func (ps *pointSolver) study(values []float64) (*model.Study, error) {
 
 // solve solves the point at values: from the nearest converged
 // neighbour's solution when there is one (ps.neighbours), then from the
-// next ones within rescueIterations, else as `solve` solves it. Only
+// next ones (fromSeeds), else as `solve` solves it. Only
 // cancellation is an error; any other failure is a point with Err set.
 func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, error) {
 	ps.last = nil
@@ -325,29 +324,28 @@ func (ps *pointSolver) solve(ctx context.Context, values []float64) (Point, erro
 			from, p.Single = ps.lastAt, SingleNoAnswer
 		}
 	} else {
-		if res, err = ps.eng.runFromSeed(ctx, req, seeds[0].sol, req.CoupledMaxIterations); err != nil {
+		var more []seed
+		next := func() []*solver.CoupledSolution {
+			// The next nearest, waiting for them to be solved.
+			if all := ps.neighbours(ctx, values, rescueSeeds+1); len(all) > 1 {
+				more = all[1:]
+			}
+			sols := make([]*solver.CoupledSolution, len(more))
+			for i, s := range more {
+				sols[i] = s.sol
+			}
+			return sols
+		}
+		var i int
+		if res, i, err = ps.eng.runFromSeeds(ctx, req, seeds[0].sol, next, rescueIterations(ps.opt.CoupledMaxIterations)); err != nil {
 			return fail(err)
 		}
-		from, p.Single = seeds[0].at, SingleNotCompared
-		if c := res.Coupled; c != nil && !c.Converged && c.Note == "" {
-			// The next neighbours, each with a bounded budget, so that a
-			// hopeless point gives up quickly.
-			rq := req
-			rq.CoupledMaxIterations = rescueIterations(ps.opt.CoupledMaxIterations)
-			more := ps.neighbours(ctx, values, rescueSeeds+1)
-			if err := ctx.Err(); err != nil {
-				return fail(err)
-			}
-			for _, seed := range more[min(1, len(more)):] {
-				again, err := ps.eng.runFromSeed(ctx, rq, seed.sol, req.CoupledMaxIterations)
-				if err != nil {
-					return fail(err)
-				}
-				if again.Coupled != nil && again.Coupled.Converged {
-					res, from = again, seed.at
-					break
-				}
-			}
+		p.Single = SingleNotCompared
+		switch {
+		case i == 0:
+			from = seeds[0].at
+		case i > 0:
+			from = more[i-1].at
 		}
 	}
 	c := res.Coupled
@@ -400,16 +398,19 @@ func (p *Point) judge(s *CoupledPoint) {
 	}
 }
 
-// rescueSeeds is how many converged neighbours a point that did not
-// converge from its own start tries, nearest first; each try costs at
-// most about what a cold start costs.
-const rescueSeeds = 2
+// rescueSeeds is how many more converged neighbours a point that did not
+// converge from its nearest tries, nearest first (fromSeeds). On the
+// 20 × 20 map of BenchmarkMapTwoElement20x20 every point a rescue
+// converged (5 of 13 tried) converged from the first it tried; a second
+// only cost the solver's whole fallback once more at each point that
+// does not converge.
+const rescueSeeds = 1
 
 // rescueIterations is the Newton iteration bound of each attempt of a
-// rescue from a neighbour (the solver's default is 60): a start from a
-// converged neighbour one grid step away converges in a few tens of
-// iterations when it converges at all, and a rescue that cannot must not
-// cost as much as the cold start that already failed.
+// rescue from a further neighbour (fromSeeds; the solver's default is
+// 60): a start from a converged neighbour one grid step away converges in
+// a few tens of iterations when it converges at all, and a rescue that
+// cannot must not cost as much as the attempts that already failed.
 func rescueIterations(own int) int {
 	const bound = 30
 	if own > 0 && own < bound {
@@ -418,21 +419,22 @@ func rescueIterations(own int) int {
 	return bound
 }
 
-// runFromSeed is Run with the coupled solution started from seed, a
-// converged solution of a neighbouring setting (any system with as many
+// runFromSeeds is Run with the coupled solution started from first, a
+// converged solution of the nearest neighbouring setting, and, as it
+// needs them, from those more returns (any systems with as many
 // elements and panels: the solver carries the layers over by arc
-// length), without the engine's own warm start or walk. A solution it
-// reaches becomes the engine's warm start as if solved with ownMax, the
-// iteration bound of the points' own solves (the bound of a start does
-// not change the solution it converges to).
-func (e *Engine) runFromSeed(ctx context.Context, req Request, seed *solver.CoupledSolution, ownMax int) (*Result, error) {
-	e.seed = seed.StartCopy() // what this solve tries is dropped with the copy
-	defer func() { e.seed = nil }()
+// length), as fromSeeds tries them, without the engine's own warm start
+// or walk; rescueMax bounds the iterations of the starts from more's.
+// It returns the index of the solution converged from (0 first, i
+// more's i−1; −1: none).
+func (e *Engine) runFromSeeds(ctx context.Context, req Request, first *solver.CoupledSolution, more func() []*solver.CoupledSolution, rescueMax int) (*Result, int, error) {
+	e.seed, e.seedMore, e.rescueMax, e.seedFrom = first, more, rescueMax, -1
+	defer func() { e.seed, e.seedMore = nil, nil }()
 	res, err := e.Run(ctx, req)
-	if err == nil && res.Coupled != nil && res.Coupled.Converged && e.warm == res.Coupled.last {
-		e.warmKey = fmt.Sprint(coupledOptions(req.Study, res.Reynolds, ownMax))
+	if err != nil {
+		return nil, -1, err
 	}
-	return res, err
+	return res, e.seedFrom, nil
 }
 
 // fill sets the point's numbers from res (nil: none).
