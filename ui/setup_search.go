@@ -39,18 +39,22 @@ type setupSearch struct {
 	minGap    *widget.Entry
 	minClear  *widget.Entry
 	viscous   *widget.Check
-	budget    *widget.Entry
-	msg       *widget.Label
-	status    *widget.Label
-	table     *widget.Label
-	apply     *widget.Button
-	pin       *widget.Button
-	applyMsg  *widget.Label
-	applyNote *widget.Label // what the workbench shows after an apply
-	trace     *figureBox
-	plane     *figureBox
-	planeCell *readoutBox
-	readout   *widget.Label
+	// reproducible: prefer a best setting a single solve reproduces
+	// (engine.SearchOptions.PreferReproducible), so that Apply shows
+	// the number found.
+	reproducible *widget.Check
+	budget       *widget.Entry
+	msg          *widget.Label
+	status       *widget.Label
+	table        *widget.Label
+	apply        *widget.Button
+	pin          *widget.Button
+	applyMsg     *widget.Label
+	applyNote    *widget.Label // what the workbench shows after an apply
+	trace        *figureBox
+	plane        *figureBox
+	planeCell    *readoutBox
+	readout      *widget.Label
 
 	*runControls
 	cur *searchRun
@@ -93,6 +97,8 @@ func newSetupSearch(s *setupWindow) *setupSearch {
 	p.minClear.SetPlaceHolder("the study's own minimum")
 	p.viscous = widget.NewCheck("Viscous solution (coupled)", nil)
 	p.viscous.SetChecked(true)
+	p.reproducible = widget.NewCheck("Prefer a setting a single solve reproduces", nil)
+	p.reproducible.SetChecked(true)
 	p.budget = widget.NewEntry()
 	p.budget.SetText(fmt.Sprint(engine.DefaultSearchEvaluations))
 	p.msg = message()
@@ -126,6 +132,8 @@ func newSetupSearch(s *setupWindow) *setupSearch {
 			row("Clearance at least (mm)", p.minClear),
 			caption("Every point must also converge; the configuration stays clear of the ground."),
 			p.viscous,
+			p.reproducible,
+			caption("A setting reached from another's solution can lie on another root than a single solve of it, which is what Apply shows: the best setting then gives way to the best one a single solve reproduces."),
 			row("At most (solves)", p.budget),
 		)...)
 	result := container.NewVBox(heading("Best against start"), p.table,
@@ -271,6 +279,7 @@ func (p *setupSearch) read() ([]model.SetupRange, engine.SearchOptions, int, err
 	}
 	opt.MaxEvaluations = int(budget)
 	opt.Inviscid = !p.viscous.Checked
+	opt.PreferReproducible = p.reproducible.Checked
 	if opt.Inviscid && opt.AttachedToXC == defaultSeparationLimit {
 		opt.AttachedToXC = 0 // the default limit needs the viscous solution; without it, none
 	}
@@ -445,6 +454,13 @@ func (p *setupSearch) comparison() string {
 	if !res.Feasible {
 		b.WriteString("No setting met every constraint: the start is kept.\n")
 	}
+	if u := res.Unreproduced; u != nil {
+		what := "lands on another root"
+		if u.Single == engine.SingleNoAnswer {
+			what = "has no answer"
+		}
+		fmt.Fprintf(&b, "A single solve of the best setting found (%s) %s: the best shown is the best setting a single solve reproduces.\n", settingWords(r, u.Values), what)
+	}
 	switch {
 	case !res.Best.NotSolve():
 	case res.Best.Single == engine.SingleAnotherRoot:
@@ -454,6 +470,15 @@ func (p *setupSearch) comparison() string {
 	}
 	b.WriteString(r.status)
 	return strings.TrimSpace(b.String())
+}
+
+// settingWords names a setting of the search's variables in words.
+func settingWords(r *searchRun, values []float64) string {
+	var parts []string
+	for i, v := range r.vars {
+		parts = append(parts, fmt.Sprintf("%s %s %s", shortLabel(r.st, v), num(values[i]), v.Unit()))
+	}
+	return strings.Join(parts, ", ")
 }
 
 // orSig formats a value, "—" for none.

@@ -285,8 +285,11 @@ func TestMapReproducesSolveTwoElement(t *testing.T) {
 // The search's JSON: start, best (the variables and a map point's keys),
 // evaluations and the path.
 func TestSearchJSONShape(t *testing.T) {
-	m := runJSON(t, "search", "--study", example("two-element-ground.json"), "--vary", "alpha_deg=0:4", "--vary", "clearance_mm=80:120", "--objective", "downforce", "--inviscid", "--max-evaluations", "15", "--format", "json")
+	m := runJSON(t, "search", "--study", example("two-element-ground.json"), "--vary", "alpha_deg=0:4", "--vary", "clearance_mm=80:120", "--objective", "downforce", "--inviscid", "--max-evaluations", "15", "--prefer-reproducible", "--format", "json")
 	vars := []string{"alpha_deg", "clearance_mm"}
+	if u, ok := m["unreproduced_best"]; ok {
+		t.Errorf("unreproduced_best %v: every inviscid solve is a single solve's", u)
+	}
 	for _, k := range []string{"start", "best"} {
 		p, ok := m[k].(map[string]any)
 		if !ok {

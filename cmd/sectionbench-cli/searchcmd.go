@@ -27,17 +27,21 @@ type jsonSearch struct {
 	Status      string       `json:"status"`
 	// Target is the drag objective's least downforce as used (the flag,
 	// or the start's); null otherwise.
-	Target  *num           `json:"downforce_target,omitempty"`
-	Path    []jsonMapPoint `json:"path"`
-	Note    string         `json:"note"`
-	Caution string         `json:"caution"`
+	Target *num `json:"downforce_target,omitempty"`
+	// Unreproduced is, with --prefer-reproducible, the best setting found
+	// when a single solve does not reproduce it (best is then the best
+	// that one does); absent otherwise.
+	Unreproduced *jsonMapPoint  `json:"unreproduced_best,omitempty"`
+	Path         []jsonMapPoint `json:"path"`
+	Note         string         `json:"note"`
+	Caution      string         `json:"caution"`
 }
 
 // localNote says what the search's answer is.
 const localNote = "a local optimum near the start (Nelder–Mead simplex): a map of the same bounds shows whether a better setting lies elsewhere"
 
 func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
-	fs := newFlags("search", "search (--study FILE | --section SPEC) --vary NAME=LO:HI [--vary …] --objective downforce|lift-to-drag|drag [--downforce-target N] [--attached-to XC] [--min-gap MM] [--min-clearance MM] [--max-evaluations N] [--inviscid] [--apply-to FILE [--pin-start]] [--format text|json]", stdout)
+	fs := newFlags("search", "search (--study FILE | --section SPEC) --vary NAME=LO:HI [--vary …] --objective downforce|lift-to-drag|drag [--downforce-target N] [--attached-to XC] [--min-gap MM] [--min-clearance MM] [--max-evaluations N] [--prefer-reproducible] [--inviscid] [--apply-to FILE [--pin-start]] [--format text|json]", stdout)
 	in := addInputs(fs, false, "text", "json")
 	ef := addExplorerFlags(fs, "a variable and its bounds `NAME=LO:HI`")
 	objective := fs.String("objective", "downforce", "what to optimise: `downforce` (the most; lift on an upright wing), lift-to-drag (the best ratio) or drag (the least, at --downforce-target)")
@@ -46,6 +50,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 	minGap := fs.Float64("min-gap", 0, "the least slot gap in `mm` behind every element after the first (a manufacturing minimum; 0: none)")
 	minClear := fs.Float64("min-clearance", 0, "the least ground clearance in `mm` (0: the method's own minimum only)")
 	maxEval := fs.Int("max-evaluations", engine.DefaultSearchEvaluations, "the most `solves` the search may make")
+	reproducible := fs.Bool("prefer-reproducible", false, "when a single solve (what solve and --apply-to's study give) does not reproduce the best setting found, take the best setting of the path that one reproduces (up to 3 more single solves)")
 	pinStart := fs.Bool("pin-start", false, "with --apply-to: the written study also carries a pin of the start (its Cp and polar, the panel method's), as the app's Pin the starting point")
 	applyTo := fs.String("apply-to", "", "write the study with the best setting found applied to `FILE` (the app's Apply; the start stays in the --study file); nothing is written, and the exit status is 1, when no setting met every limit")
 	if _, err := fs.parse(args, 0); err != nil {
@@ -69,6 +74,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 	opt := engine.SearchOptions{
 		PointOptions: engine.PointOptions{Inviscid: ef.inviscid, CoupledMaxIterations: coupledMaxIterations},
 		Objective:    obj, DownforceTarget: *target, MinGapMM: *minGap, MinClearanceMM: *minClear, MaxEvaluations: *maxEval,
+		PreferReproducible: *reproducible,
 	}
 	mode := engine.MapMode(st, opt.PointOptions, vars)
 	if mode == string(model.ViscousCoupled) || fs.isSet("attached-to") {
@@ -115,6 +121,10 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 		}
 		if obj == engine.ObjectiveDrag {
 			out.Target = ptr(res.Target)
+		}
+		if u := res.Unreproduced; u != nil {
+			p := mapPointJSON(vars, *u, hasSpeed)
+			out.Unreproduced = &p
 		}
 		for _, p := range res.Path {
 			out.Path = append(out.Path, mapPointJSON(vars, p, hasSpeed))

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"cmp"
 	"context"
 	"errors"
 	"fmt"
@@ -71,6 +72,14 @@ type SearchOptions struct {
 	// than this fraction of itself over searchStallIterations simplex
 	// steps per variable; 0 means DefaultSearchTolerance.
 	Tolerance float64
+	// PreferReproducible: when a single solve (`solve`, what Apply
+	// shows) of the best setting found lands on another root or has no
+	// answer, the best of the path's other settings that meet every
+	// constraint and that a single solve reproduces takes its place
+	// (SearchResult.Unreproduced keeps the first). Settings solved from
+	// their own start are reproduced already; of the others at most
+	// reproducibleTries are solved again to be compared, best first.
+	PreferReproducible bool
 }
 
 // Defaults of a search: a budget of 60 solves and a relative improvement
@@ -117,6 +126,10 @@ type SearchResult struct {
 	// the start's load); NaN for the other objectives or when the start
 	// gave none.
 	Target float64
+	// Unreproduced is, with SearchOptions.PreferReproducible, the best
+	// setting found when a single solve did not reproduce it and Best is
+	// another that one does; nil otherwise.
+	Unreproduced *Point
 }
 
 // evalFunc solves one setting (values parallel to the bounds); only
@@ -156,7 +169,9 @@ type evalFunc func(ctx context.Context, values []float64) (Point, error)
 // depend on how the goroutines ran. The best setting found is then
 // solved as `solve` solves it and compared (Point.Single: a start from
 // elsewhere can reach another root of the coupled equations), since
-// that is what Apply shows.
+// that is what Apply shows; with opt.PreferReproducible a best setting
+// it does not reproduce gives way to the best one it does
+// (preferReproduced).
 //
 // When no point of the start's simplex converges the search stops there
 // (points that do not converge all rank alike, so the simplex has no
@@ -243,13 +258,101 @@ func Search(ctx context.Context, st *model.Study, secs []*model.Section, bounds 
 			return nil, err
 		}
 		b.judge(one.Coupled)
-		for i := range res.Path {
-			if slices.Equal(res.Path[i].Values, b.Values) {
-				res.Path[i] = *b
+		res.setPath(*b)
+	}
+	if opt.PreferReproducible && res.Feasible && res.Best.NotSolve() {
+		single := func(values []float64) (*CoupledPoint, error) {
+			st, err := main.study(values)
+			if err != nil {
+				return nil, err
 			}
+			one, err := NewEngine().Run(ctx, Request{Study: st, Sections: secs, CoupledMaxIterations: opt.CoupledMaxIterations})
+			if err != nil {
+				return nil, err
+			}
+			return one.Coupled, nil
+		}
+		if err := res.preferReproduced(opt, single); err != nil {
+			return nil, err
 		}
 	}
 	return res, nil
+}
+
+// setPath puts p in place of every solve of the path at its setting.
+func (r *SearchResult) setPath(p Point) {
+	for i := range r.Path {
+		if slices.Equal(r.Path[i].Values, p.Values) {
+			r.Path[i] = p
+		}
+	}
+}
+
+// reproducibleTries is how many settings of a search's path that started
+// from a neighbour PreferReproducible solves again to compare, best first:
+// each costs a start from the march (1–2 s on the two-element example
+// where it converges, the solver's whole fallback where it does not).
+const reproducibleTries = 3
+
+// preferReproduced replaces r.Best, which a single solve does not
+// reproduce, by the best setting of the path that meets every
+// constraint and that a single solve (single) reproduces: one solved
+// from its own start (SingleIdentical), or one that agrees with a single
+// solve within SolveAgreementTolerance, comparing at most
+// reproducibleTries. When none does, r.Best stays and r.Status says so.
+func (r *SearchResult) preferReproduced(opt SearchOptions, single func([]float64) (*CoupledPoint, error)) error {
+	if !math.IsNaN(r.Target) {
+		opt.DownforceTarget = r.Target
+	}
+	type cand struct {
+		v float64
+		i int
+	}
+	var cs []cand
+	for i, p := range r.Path {
+		if v, ok := searchValue(&p, opt); ok && !slices.Equal(p.Values, r.Best.Values) {
+			cs = append(cs, cand{v, i})
+		}
+	}
+	slices.SortStableFunc(cs, func(a, b cand) int { return cmp.Compare(a.v, b.v) })
+	tries := 0
+	var seen [][]float64
+	for _, c := range cs {
+		p := r.Path[c.i]
+		if slices.ContainsFunc(seen, func(v []float64) bool { return slices.Equal(v, p.Values) }) {
+			continue
+		}
+		seen = append(seen, p.Values)
+		if p.Single == SingleNotCompared {
+			if tries == reproducibleTries {
+				continue
+			}
+			tries++
+			s, err := single(p.Values)
+			if err != nil {
+				return err
+			}
+			p.judge(s)
+			r.setPath(p)
+		}
+		if p.Single == SingleIdentical || p.Single == SingleAgrees {
+			first := r.Best
+			r.Unreproduced, r.Best = &first, p
+			r.Status += fmt.Sprintf("; a single solve of the best setting found gives %s, so the best shown is the best setting a single solve reproduces", singleWords(first.Single))
+			return nil
+		}
+	}
+	r.Status += fmt.Sprintf("; a single solve of the best setting found gives %s, and of the next best it reproduces none (%d compared)", singleWords(r.Best.Single), tries)
+	return nil
+}
+
+// singleWords says what a single solve gives for a point that it does
+// not reproduce.
+func singleWords(s SingleSolve) string {
+	if s == SingleNoAnswer {
+		return "no answer"
+	}
+	return "another root"
 }
 
 // searchSeeds returns the bank of converged solves of a search's path

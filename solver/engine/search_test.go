@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"math"
+	"slices"
 	"strings"
 	"testing"
 
@@ -295,5 +296,74 @@ func TestSearchNoWorseThanMapTwoElement(t *testing.T) {
 	}
 	if conv < 2 {
 		t.Errorf("only %d of %d grid points converged", conv, len(grid))
+	}
+}
+
+// With PreferReproducible a best setting that a single solve does not
+// reproduce gives way to the best of the path that one does
+// (preferReproduced, with an injected single solve): settings that
+// started from a neighbour are compared best first, at most
+// reproducibleTries of them, and a setting solved from its own start is
+// reproduced without a solve. The points are made up: downforce
+// coefficients (Cl = −load) on an inverted wing.
+func TestSearchPreferReproducible(t *testing.T) {
+	nan := math.NaN()
+	pt := func(x, load float64, single SingleSolve) Point {
+		return Point{Values: []float64{x}, Viscous: true, Converged: true, Inverted: true, Cl: -load, Cd: 0.02, Cm: 0.1, Single: single,
+			SingleCl: nan, SingleCd: nan, SingleCm: nan,
+			LiftPerSpan: nan, DownforcePerSpan: nan, DragPerSpan: nan, ClearanceMM: nan,
+			Elements: []PointElement{{SeparationSuction: nan, GapMM: nan}}}
+	}
+	// single gives, per setting, the single solve's Cl (NaN: no answer).
+	singleOf := func(cl map[float64]float64, calls *[]float64) func([]float64) (*CoupledPoint, error) {
+		return func(v []float64) (*CoupledPoint, error) {
+			*calls = append(*calls, v[0])
+			c, ok := cl[v[0]]
+			if !ok || math.IsNaN(c) {
+				return &CoupledPoint{Cl: nan, Cd: nan, Cm: nan}, nil
+			}
+			return &CoupledPoint{Converged: true, Cl: c, Cd: 0.02, Cm: 0.1}, nil
+		}
+	}
+	for _, tc := range []struct {
+		name      string
+		path      []Point
+		single    map[float64]float64
+		wantBest  float64
+		wantCalls []float64
+	}{
+		{
+			name:      "the next best is on another root, the one after agrees",
+			path:      []Point{pt(0, 3.0, SingleIdentical), pt(1, 3.4, SingleNotCompared), pt(2, 3.5, SingleNotCompared), pt(3, 3.6, SingleAnotherRoot)},
+			single:    map[float64]float64{2: -3.3, 1: -3.4000001},
+			wantBest:  1,
+			wantCalls: []float64{2, 1},
+		},
+		{
+			name:      "none compared agrees: the start, solved from its own start",
+			path:      []Point{pt(0, 3.0, SingleIdentical), pt(1, 3.1, SingleNotCompared), pt(2, 3.2, SingleNotCompared), pt(4, 3.3, SingleNotCompared), pt(5, 3.4, SingleNotCompared), pt(3, 3.6, SingleNoAnswer)},
+			single:    map[float64]float64{},
+			wantBest:  0,
+			wantCalls: []float64{5, 4, 2},
+		},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			best := tc.path[len(tc.path)-1]
+			r := &SearchResult{Start: tc.path[0], Best: best, Feasible: true, Path: tc.path, Target: nan}
+			var calls []float64
+			if err := r.preferReproduced(SearchOptions{Objective: ObjectiveDownforce}, singleOf(tc.single, &calls)); err != nil {
+				t.Fatal(err)
+			}
+			if r.Best.Values[0] != tc.wantBest || r.Unreproduced == nil || r.Unreproduced.Values[0] != best.Values[0] {
+				t.Errorf("best %v, unreproduced %v; want %v and %v", r.Best.Values, r.Unreproduced, tc.wantBest, best.Values)
+			}
+			if !slices.Equal(calls, tc.wantCalls) {
+				t.Errorf("single solves at %v, want %v", calls, tc.wantCalls)
+			}
+			if r.Best.Single != SingleIdentical && r.Best.Single != SingleAgrees {
+				t.Errorf("the best is %v", r.Best.Single)
+			}
+			t.Log(r.Status)
+		})
 	}
 }
