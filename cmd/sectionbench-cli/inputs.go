@@ -119,6 +119,11 @@ func (in *inputs) load(fs *flags) (*model.Study, []*model.Section, []*model.Clea
 		st.Viscous.Mode = model.ViscousMode(in.viscousMode)
 	}
 	if in.set["transition-n"] {
+		// A study's 0 stands for the default; typed on the command line
+		// it is a value outside the range the flag states.
+		if in.transitionN == 0 {
+			return nil, nil, nil, usagef("--transition-n: 0 is outside %d..%d (leave the flag out for the default %g)", model.MinTransitionN, model.MaxTransitionN, float64(model.DefaultTransitionN))
+		}
 		st.Viscous.TransitionN = in.transitionN
 	}
 	if in.set["trip-upper"] {

@@ -45,6 +45,7 @@ func TestExitCodesAndMessages(t *testing.T) {
 		{"missing file", []string{"solve", "--section", filepath.Join(dir, "nope.dat")}, exitInput, []string{"nope.dat", "no such file", "naca:DIGITS"}},
 		{"malformed file names the line", []string{"solve", "--section", bad}, exitInput, []string{"bad.dat", "line 3"}},
 		{"transition exponent out of range", []string{"solve", "--section", "naca:0012", "--re", "3e5", "--transition-n", "30"}, exitUsage, []string{"--transition-n", "30"}},
+		{"transition exponent 0 typed", []string{"solve", "--section", "naca:0012", "--re", "3e5", "--transition-n", "0"}, exitUsage, []string{"--transition-n", "0 is outside", "default 9"}},
 		{"trip beyond the chord", []string{"solve", "--section", "naca:0012", "--re", "3e5", "--trip-upper", "1.5"}, exitUsage, []string{"--trip-upper"}},
 		{"unknown viscous mode", []string{"solve", "--section", "naca:0012", "--re", "3e5", "--viscous-mode", "exact"}, exitUsage, []string{"--viscous-mode", "exact"}},
 		{"bad sweep range", []string{"sweep", "--section", "naca:0012", "--alpha", "0:10"}, exitUsage, []string{"FROM:TO:STEP"}},
