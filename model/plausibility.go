@@ -27,6 +27,7 @@ const (
 	FlagNotConverged FlagKind = "viscous solution not converged"
 	FlagSeparated    FlagKind = "separated"
 	FlagHeld         FlagKind = "transition held upstream"
+	FlagReynolds     FlagKind = "Reynolds number outside the checked range"
 )
 
 // CpMinPlausible is the lowest suction-peak pressure coefficient taken as
@@ -44,6 +45,19 @@ const CpMinPlausible = -8
 // potential flow shows only the rise.
 const GroundHOverCMin = 0.1
 
+// ReynoldsMinChecked and ReynoldsMaxChecked bound the chord Reynolds
+// numbers at which the viscous solution's boundary layers are taken on
+// trust. The project's own validation spans 2e5 (E387, Illinois) to 6e6
+// (NACA 0012, Ladson); integral boundary layers with e^N transition of
+// this kind are used from about 5e4 (below it laminar separation without
+// reattachment dominates and the closures' fits end) to about 5e7 (from
+// memory, common practice). The team's range, 1.5e5–8e5, lies well
+// inside.
+const (
+	ReynoldsMinChecked = 5e4
+	ReynoldsMaxChecked = 5e7
+)
+
 // PointFacts are what the plausibility rules look at for one result.
 type PointFacts struct {
 	CpMin float64 // smallest Cp over every element
@@ -53,6 +67,9 @@ type PointFacts struct {
 	// Viscous holds the viscous solution's verdict on this point; nil
 	// when it has not run.
 	Viscous *ViscousFacts
+	// Reynolds are the elements' chord Reynolds numbers where a viscous
+	// solution ran (nil otherwise).
+	Reynolds []float64
 }
 
 // ViscousFacts are the states the coupled viscous solution reports for a
@@ -90,6 +107,12 @@ func Plausibility(f PointFacts) []Flag {
 			flags = append(flags, Flag{FlagHeld, "the free-transition solution did not converge here: transition is held upstream of where the e^N criterion puts it, as if tripped there, and lift and drag are those of that earlier transition"})
 		}
 	}
+	for _, re := range f.Reynolds {
+		if re < ReynoldsMinChecked || re > ReynoldsMaxChecked {
+			flags = append(flags, Flag{FlagReynolds, fmt.Sprintf("Reynolds number %s is outside %s to %s, where the boundary layers' closures and transition criterion are taken on trust: treat the viscous numbers as a rough guide", reynoldsWords(re), reynoldsWords(ReynoldsMinChecked), reynoldsWords(ReynoldsMaxChecked))})
+			break
+		}
+	}
 	if f.CpMin < CpMinPlausible {
 		flags = append(flags, Flag{FlagSuction, fmt.Sprintf("suction peak Cp %s is beyond the about %s real flows sustain at these Reynolds numbers: the wing would separate and give far less force than shown", Minus(fmt.Sprintf("%.1f", f.CpMin)), Minus(fmt.Sprint(CpMinPlausible)))})
 	}
@@ -123,4 +146,15 @@ func (l *Layout) HOverC() float64 {
 		return math.NaN()
 	}
 	return l.ClearanceM / l.Elements[0].Chord
+}
+
+// reynoldsWords writes a Reynolds number as a reader writes it: 3 × 10⁴.
+func reynoldsWords(re float64) string {
+	if !(re > 0) || math.IsInf(re, 0) {
+		return Minus(fmt.Sprint(re))
+	}
+	e := math.Floor(math.Log10(re))
+	m := re / math.Pow(10, e)
+	sup := strings.NewReplacer("-", "⁻", "0", "⁰", "1", "¹", "2", "²", "3", "³", "4", "⁴", "5", "⁵", "6", "⁶", "7", "⁷", "8", "⁸", "9", "⁹").Replace(fmt.Sprint(int(e)))
+	return fmt.Sprintf("%s × 10%s", strings.TrimSuffix(strings.TrimRight(fmt.Sprintf("%.2f", m), "0"), "."), sup)
 }

@@ -57,3 +57,32 @@ func TestPlausibilitySeparatedWording(t *testing.T) {
 		})
 	}
 }
+
+// A viscous result outside the Reynolds numbers the method is taken on
+// trust for says so, once, with the number as a reader writes it.
+func TestPlausibilityReynolds(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		re   []float64
+		want string // in the message; "" for no flag
+	}{
+		{"the team's range", []float64{3.7e5, 1.77e5}, ""},
+		{"at the bounds", []float64{ReynoldsMinChecked, ReynoldsMaxChecked}, ""},
+		{"a slip of the keyboard", []float64{10}, "Reynolds number 1 × 10¹ is outside 5 × 10⁴ to 5 × 10⁷"},
+		{"a flap far below", []float64{3e5, 2.5e4}, "2.5 × 10⁴"},
+		{"beyond", []float64{1e8}, "1 × 10⁸"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			fl := Plausibility(PointFacts{CpMin: -2, HOverC: math.NaN(), Reynolds: tc.re})
+			if tc.want == "" {
+				if len(fl) != 0 {
+					t.Errorf("flags %v, want none", fl)
+				}
+				return
+			}
+			if len(fl) != 1 || fl[0].Kind != FlagReynolds || !strings.Contains(fl[0].Message, tc.want) {
+				t.Errorf("flags %v, want one %q saying %q", fl, FlagReynolds, tc.want)
+			}
+		})
+	}
+}

@@ -8,6 +8,7 @@ import (
 	"strings"
 	"testing"
 
+	"sectionbench/model"
 	"sectionbench/solver/engine"
 )
 
@@ -238,6 +239,7 @@ type sweepOut struct {
 	Rows       []map[string]any `json:"rows"`
 	ClMax      *float64         `json:"cl_max"`
 	AlphaClMax *float64         `json:"alpha_cl_max"`
+	Warnings   []string         `json:"warnings"`
 }
 
 // sweepJSONOf runs a sweep command line with --format json and reads its
@@ -319,4 +321,36 @@ func TestRejectedPointSaysWhy(t *testing.T) {
 	if b, _ := json.Marshal(c); strings.Contains(string(b), "rejected") {
 		t.Errorf("a plain non-converged point has a rejected key: %s", b)
 	}
+}
+
+// A Reynolds number outside the range the boundary layers are taken on
+// trust for (model.ReynoldsMinChecked) is said once by solve and by a
+// sweep, not at the team's Reynolds numbers.
+func TestReynoldsOutsideCheckedRange(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		re   string
+		want bool
+	}{{"below", "2e4", true}, {"the team's", "3e5", false}} {
+		t.Run(tc.name, func(t *testing.T) {
+			sw := sweepJSONOf(t, "sweep", "--section", "naca:0012", "--alpha", "1:2:1", "--re", tc.re, "--trip-upper", "0.05", "--trip-lower", "0.05")
+			code, out, stderr := runCLI(t, "solve", "--section", "naca:0012", "--alpha", "1", "--re", tc.re, "--trip-upper", "0.05", "--trip-lower", "0.05", "--format", "json")
+			if code != exitOK {
+				t.Fatalf("solve: exit %d: %s", code, stderr)
+			}
+			if got := strings.Count(strings.Join(sw.Warnings, "\n"), string(model.FlagReynolds)); got != b2i(tc.want) {
+				t.Errorf("sweep warnings %q: %d of %q, want %d", sw.Warnings, got, model.FlagReynolds, b2i(tc.want))
+			}
+			if got := strings.Count(out, string(model.FlagReynolds)); got != b2i(tc.want) {
+				t.Errorf("solve: %d of %q, want %d", got, model.FlagReynolds, b2i(tc.want))
+			}
+		})
+	}
+}
+
+func b2i(b bool) int {
+	if b {
+		return 1
+	}
+	return 0
 }

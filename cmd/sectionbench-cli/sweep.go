@@ -82,15 +82,28 @@ func cmdSweep(args []string, stdout, stderr io.Writer) error {
 	} else if err := sweepText(stdout, res); err != nil {
 		return err
 	}
-	for _, w := range res.Solution.Warnings {
+	for _, w := range sweepWarnings(res) {
 		fmt.Fprintln(stdout, "warning: "+w)
 	}
 	_, err = fmt.Fprintln(stdout, caution)
 	return err
 }
 
+// sweepWarnings are the solution's warnings and the one flag that holds
+// for every row alike, a Reynolds number outside the checked range (the
+// rows carry their own flags).
+func sweepWarnings(res *engine.Result) []string {
+	w := append([]string{}, res.Solution.Warnings...)
+	for _, f := range res.Flags() {
+		if f.Kind == model.FlagReynolds {
+			w = append(w, "caution, "+string(f.Kind)+": "+f.Message)
+		}
+	}
+	return w
+}
+
 func sweepJSON(res *engine.Result) jsonSweep {
-	out := jsonSweep{Rows: make([]jsonSweepRow, len(res.Sweep)), ClMax: num(res.ClMax), AlphaClMax: num(res.AlphaClMax), ClMaxIsPeak: res.ClMaxIsPeak, Warnings: append([]string{}, res.Solution.Warnings...)}
+	out := jsonSweep{Rows: make([]jsonSweepRow, len(res.Sweep)), ClMax: num(res.ClMax), AlphaClMax: num(res.AlphaClMax), ClMaxIsPeak: res.ClMaxIsPeak, Warnings: sweepWarnings(res)}
 	if res.SweepViscous != nil {
 		out.ViscousMode = string(model.ViscousEstimate)
 	}

@@ -52,6 +52,9 @@ func (r *Result) Flags() []model.Flag {
 	case r.Viscous != nil:
 		f.Viscous = &model.ViscousFacts{Separated: estimateSeparated(r.Viscous)}
 	}
+	if f.Viscous != nil {
+		f.Reynolds = r.Reynolds
+	}
 	return model.Plausibility(f)
 }
 
