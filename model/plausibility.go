@@ -155,6 +155,9 @@ func reynoldsWords(re float64) string {
 	}
 	e := math.Floor(math.Log10(re))
 	m := re / math.Pow(10, e)
+	if math.Round(m*100)/100 >= 10 { // 99 999 is 1 × 10⁵, not 10 × 10⁴
+		e, m = e+1, m/10
+	}
 	sup := strings.NewReplacer("-", "⁻", "0", "⁰", "1", "¹", "2", "²", "3", "³", "4", "⁴", "5", "⁵", "6", "⁶", "7", "⁷", "8", "⁸", "9", "⁹").Replace(fmt.Sprint(int(e)))
 	return fmt.Sprintf("%s × 10%s", strings.TrimSuffix(strings.TrimRight(fmt.Sprintf("%.2f", m), "0"), "."), sup)
 }

@@ -71,6 +71,7 @@ func TestPlausibilityReynolds(t *testing.T) {
 		{"a slip of the keyboard", []float64{10}, "Reynolds number 1 × 10¹ is outside 5 × 10⁴ to 5 × 10⁷"},
 		{"a flap far below", []float64{3e5, 2.5e4}, "2.5 × 10⁴"},
 		{"beyond", []float64{1e8}, "1 × 10⁸"},
+		{"rounding up to the next power", []float64{9.9999e3}, "Reynolds number 1 × 10⁴ is outside"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			fl := Plausibility(PointFacts{CpMin: -2, HOverC: math.NaN(), Reynolds: tc.re})

@@ -85,7 +85,7 @@ func TestCoupledNewtonUncoupled(t *testing.T) {
 // trip: the displacement cambers the section and may add lift).
 func TestCoupledImplausible(t *testing.T) {
 	edge := func(dStar float64) CoupledSurface {
-		return CoupledSurface{Stations: []CoupledStation{{DStar: dStar / 2}, {DStar: dStar}}}
+		return CoupledSurface{Stations: []CoupledStation{{DStar: dStar / 2}, {DStar: dStar}}, Separation: math.NaN()}
 	}
 	for _, tc := range []struct {
 		name           string
@@ -106,6 +106,31 @@ func TestCoupledImplausible(t *testing.T) {
 			s := &CoupledSolution{Cl: tc.cl, ClInviscid: tc.clInv, Elements: []CoupledElement{{ClInviscid: tc.clInv, Upper: edge(tc.dUpper), Lower: edge(tc.dLower)}}}
 			if got := implausible(s) != ""; got != tc.wantReject {
 				t.Errorf("Cl %.3f against inviscid %.3f, δ* upper %.3f lower %.3f: rejected %v, want %v", tc.cl, tc.clInv, tc.dUpper, tc.dLower, got, tc.wantReject)
+			}
+		})
+	}
+}
+
+// A pressure side thicker only by separating over its last stations is the
+// spurious root the check was written for (E387 at Re 3e5 and 0°); one
+// separating from x/c 0.9 (NACA 0012 at Re 3e5 and 3–5°) may add lift.
+func TestCoupledImplausiblePressureSideSeparation(t *testing.T) {
+	edge := func(dStar, sepXC float64) CoupledSurface {
+		return CoupledSurface{Stations: []CoupledStation{{DStar: dStar / 2}, {DStar: dStar}}, Separation: sepXC}
+	}
+	for _, tc := range []struct {
+		name       string
+		sepXC      float64
+		wantReject bool
+	}{
+		{"separated at its last station", 0.995, true},
+		{"separated from 0.9", 0.9, false},
+		{"attached", math.NaN(), false},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			s := &CoupledSolution{Cl: 0.50, ClInviscid: 0.42, Elements: []CoupledElement{{ClInviscid: 0.42, Upper: edge(0.004, math.NaN()), Lower: edge(0.009, tc.sepXC)}}}
+			if got := implausible(s) != ""; got != tc.wantReject {
+				t.Errorf("lower surface separated from x/c %g: rejected %v, want %v", tc.sepXC, got, tc.wantReject)
 			}
 		})
 	}

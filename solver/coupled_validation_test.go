@@ -216,7 +216,9 @@ func e387Data(t *testing.T) (map[string]e387Polar, Element) {
 //     section (common practice); below 0° the lower surface separates at
 //     its leading edge and is turbulent from x/c 0.14 (at −2°), its layer
 //     at the edge the thicker, and the coupled Cl may sit at the inviscid
-//     one: there it is held to the solver's own bound (implausible);
+//     one: there it is held to within the solver's bound on a spurious
+//     excess (liftExcessAbs + liftExcessRel·|Cl inviscid|; implausible
+//     itself exempts a thicker pressure-side layer);
 //   - Cl within readmeLiftExcess of the measured (the README's figure).
 //
 // Above about 7° transition moves to a small leading-edge bubble too early
@@ -292,8 +294,8 @@ func TestCoupledE387Illinois(t *testing.T) {
 			if a >= 0 && !(cs.Cl < cs.ClInviscid && math.Abs(cs.Cl-cl) < math.Abs(cs.ClInviscid-cl)) {
 				t.Errorf("%s α = %.2f°: coupled Cl %.4f is not between the inviscid %.4f and the measured %.3f", name, a, cs.Cl, cs.ClInviscid, cl)
 			}
-			if why := implausible(cs); why != "" {
-				t.Errorf("%s α = %.2f°: %s", name, a, why)
+			if excess := cs.Cl - cs.ClInviscid; a < 0 && excess > liftExcessAbs+liftExcessRel*math.Abs(cs.ClInviscid) {
+				t.Errorf("%s α = %.2f°: coupled Cl %.4f is %.4f above the inviscid %.4f, more than the solver's bound on a spurious excess", name, a, cs.Cl, excess, cs.ClInviscid)
 			}
 			if cs.Cl-cl > readmeLiftExcess {
 				t.Errorf("%s α = %.2f°: coupled Cl %.4f is %.3f above the measured %.3f; the README states at most %.2f", name, a, cs.Cl, cs.Cl-cl, cl, readmeLiftExcess)

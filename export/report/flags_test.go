@@ -65,3 +65,44 @@ func TestReportFlagsSeparation(t *testing.T) {
 		}
 	})
 }
+
+// A Reynolds number outside the range the boundary layers are taken on
+// trust for is flagged on the report, with the coupled solution as with
+// the one-way estimate (model.ReynoldsMinChecked).
+func TestReportFlagsReynolds(t *testing.T) {
+	st := demoStudy()
+	st.Viscous.Enabled = false
+	st.Ground.ClearanceMM = 150 // clear of the ground flag
+	res := solve(t, st)
+	for _, tc := range []struct {
+		name    string
+		re      float64
+		coupled bool
+		want    bool
+	}{
+		{"coupled, 2e4", 2e4, true, true},
+		{"coupled, 3e5", 3e5, true, false},
+		{"estimate, 2e4", 2e4, false, true},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			r := *res
+			r.Reynolds = make([]float64, len(res.Solution.Elements))
+			for i := range r.Reynolds {
+				r.Reynolds[i] = tc.re
+			}
+			in := Input{Study: st, Result: &r}
+			if tc.coupled {
+				in.Coupled = &Coupled{Converged: true, Iterations: 9, Cl: res.Solution.Cl, Cd: 0.02, ClMax: math.NaN(), AlphaClMaxDeg: math.NaN(), PointCpMin: math.NaN()}
+			} else {
+				r.Viscous = &solver.ViscousResult{Cd: 0.02, Elements: make([]solver.ElementBL, len(res.Solution.Elements))}
+				for i := range r.Viscous.Elements {
+					r.Viscous.Elements[i].Upper.TurbulentSeparationXC, r.Viscous.Elements[i].Lower.TurbulentSeparationXC = math.NaN(), math.NaN()
+				}
+			}
+			w := &writer{in: in}
+			if got := strings.Contains(model.FlagWords(w.flags()), string(model.FlagReynolds)); got != tc.want {
+				t.Errorf("flags %q: %q present %v, want %v", model.FlagWords(w.flags()), model.FlagReynolds, got, tc.want)
+			}
+		})
+	}
+}

@@ -403,7 +403,7 @@ func (r *writer) flags() []model.Flag {
 	for _, e := range res.Solution.Elements {
 		cp = math.Min(cp, e.CpMin)
 	}
-	return model.Plausibility(model.PointFacts{CpMin: r.suctionPeak(-1, cp), HOverC: hOverC(res), Viscous: r.viscousFacts(-1)})
+	return model.Plausibility(model.PointFacts{CpMin: r.suctionPeak(-1, cp), HOverC: hOverC(res), Viscous: r.viscousFacts(-1), Reynolds: res.Reynolds})
 }
 
 // suctionPeak is the suction peak the flags judge at sweep row i, or at

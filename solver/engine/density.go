@@ -67,6 +67,9 @@ type DensityRow struct {
 	// not converge, a value above DivergedStep says that its iterations
 	// diverged and were given up early, not stopped by their bound.
 	ViscousResidual float64
+	// ViscousRejected says why iterations that met their tolerance were
+	// not accepted (CoupledPoint.Rejected); empty otherwise.
+	ViscousRejected string
 	// ViscousHeld: the converged coupled solution holds transition
 	// upstream of its e^N position on some surface
 	// (CoupledElementPoint.HeldUpper, HeldLower): its answer is that of a
@@ -137,6 +140,9 @@ const DivergedStep = 10
 func ViscousFailure(row DensityRow) string {
 	if !row.Solved() || !math.IsNaN(row.ViscousCl) || row.ViscousIterations == 0 {
 		return ""
+	}
+	if row.ViscousRejected != "" {
+		return fmt.Sprintf("the viscous solution at %d panels was not accepted: %s", row.Panels, row.ViscousRejected)
 	}
 	why := fmt.Sprintf("stopped at the iteration bound with a last step of %.2g times the values", row.ViscousResidual)
 	if !(row.ViscousResidual <= DivergedStep) {
@@ -248,7 +254,7 @@ func DensityStudy(ctx context.Context, opt DensityOptions, solve func(panels int
 				row = densityRow(sol, n, nose)
 				if cpl != nil {
 					res.Viscous = true
-					row.ViscousIterations, row.ViscousResidual = cpl.Iterations, cpl.Residual
+					row.ViscousIterations, row.ViscousResidual, row.ViscousRejected = cpl.Iterations, cpl.Residual, cpl.Rejected
 					if cpl.Converged {
 						row.ViscousCl, row.ViscousCd = cpl.Cl, cpl.Cd
 						if len(cpl.Elements) > 0 {

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"strings"
 	"testing"
 
 	"sectionbench/model"
@@ -549,5 +550,29 @@ func TestDensityStudyViscousConverges(t *testing.T) {
 		if !q.ex.OK || !(q.ex.ObservedOrder >= MinObservedOrder && q.ex.ObservedOrder <= MaxObservedOrder) {
 			t.Errorf("viscous %s: no observed order reported (%+v)", q.name, q.ex)
 		}
+	}
+}
+
+// A count whose coupled solution did not converge says how: not accepted
+// (with the solver's reason), stopped at the iteration bound, or given up
+// after diverging (DivergedStep); a converged count says nothing.
+func TestViscousFailure(t *testing.T) {
+	nan := math.NaN()
+	for _, tc := range []struct {
+		name string
+		row  DensityRow
+		want string
+	}{
+		{"converged", DensityRow{Panels: 160, ViscousCl: 0.45, ViscousIterations: 9, ViscousResidual: 1e-6}, ""},
+		{"rejected", DensityRow{Panels: 160, ViscousCl: nan, ViscousIterations: 40, ViscousResidual: 1e-10, ViscousRejected: "a spurious solution"}, "not accepted: a spurious solution"},
+		{"at the bound", DensityRow{Panels: 160, ViscousCl: nan, ViscousIterations: 400, ViscousResidual: 1e-3}, "stopped at the iteration bound"},
+		{"diverged", DensityRow{Panels: 640, ViscousCl: nan, ViscousIterations: 64, ViscousResidual: 1e4}, "diverged"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			got := ViscousFailure(tc.row)
+			if (tc.want == "") != (got == "") || !strings.Contains(got, tc.want) {
+				t.Errorf("%q, want %q in it", got, tc.want)
+			}
+		})
 	}
 }
