@@ -383,6 +383,13 @@ const (
 	minDivergingStep = 10
 )
 
+// DivergedStep is the Newton step, as a multiple of the variables'
+// values, above which iterations that keep growing are given up as
+// diverging (minDivergingStep; see diverging): a solution that did not
+// converge with a last step above it diverged, one below it stopped at
+// the iteration bound.
+const DivergedStep = minDivergingStep
+
 // diverging reports whether the iterations clearly diverge (see
 // maxStepRatio), given this iteration's step res, the previous one's
 // prev, and grown, the count of growing steps before, which it updates.

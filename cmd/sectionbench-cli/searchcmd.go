@@ -50,7 +50,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 	minGap := fs.Float64("min-gap", 0, "the least slot gap in `mm` behind every element after the first (a manufacturing minimum; 0: none)")
 	minClear := fs.Float64("min-clearance", 0, "the least ground clearance in `mm` (0: the method's own minimum only)")
 	maxEval := fs.Int("max-evaluations", engine.DefaultSearchEvaluations, "the most `solves` the search may make")
-	reproducible := fs.Bool("prefer-reproducible", false, "when a single solve (what solve and --apply-to's study give) does not reproduce the best setting found, take the best setting of the path that one reproduces (up to 3 more single solves)")
+	reproducible := fs.Bool("prefer-reproducible", false, fmt.Sprintf("when a single solve (what solve and --apply-to's study give) does not reproduce the best setting found, take the best setting of the path that one reproduces (up to %d more single solves)", engine.ReproducibleTries))
 	pinStart := fs.Bool("pin-start", false, "with --apply-to: the written study also carries a pin of the start (its Cp and polar, the panel method's), as the app's Pin the starting point")
 	applyTo := fs.String("apply-to", "", "write the study with the best setting found applied to `FILE` (the app's Apply; the start stays in the --study file); nothing is written, and the exit status is 1, when no setting met every limit")
 	if _, err := fs.parse(args, 0); err != nil {

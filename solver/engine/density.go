@@ -62,8 +62,8 @@ type DensityRow struct {
 	// (0 without it), for a row that did not converge.
 	ViscousIterations int
 	// ViscousResidual is the coupled solution's last step
-	// (CoupledPoint.Residual: the largest relative change of its first
-	// attempt's last iteration), NaN without it. Where the solution did
+	// (CoupledPoint.Residual: the largest relative change of the last
+	// iteration of the attempt the solver reports), NaN without it. Where the solution did
 	// not converge, a value above DivergedStep says that its iterations
 	// diverged and were given up early, not stopped by their bound.
 	ViscousResidual float64
@@ -129,9 +129,8 @@ const (
 // values, above which a coupled solution that did not converge is said to
 // have diverged: the solver gives up on iterations whose step grows past
 // ten times the values four times in a row, or past 10⁴ times at once
-// (solver/coupled_newton.go), and none that converged ever took a step
-// above 170 times.
-const DivergedStep = 10
+// (solver.DivergedStep).
+const DivergedStep = solver.DivergedStep
 
 // ViscousFailure says in words why the coupled solution of row did not
 // converge, or "" when it did or was not solved: the iterations spent over

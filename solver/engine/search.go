@@ -78,7 +78,7 @@ type SearchOptions struct {
 	// constraint and that a single solve reproduces takes its place
 	// (SearchResult.Unreproduced keeps the first). Settings solved from
 	// their own start are reproduced already; of the others at most
-	// reproducibleTries are solved again to be compared, best first.
+	// ReproducibleTries are solved again to be compared, best first.
 	PreferReproducible bool
 }
 
@@ -288,18 +288,18 @@ func (r *SearchResult) setPath(p Point) {
 	}
 }
 
-// reproducibleTries is how many settings of a search's path that started
+// ReproducibleTries is how many settings of a search's path that started
 // from a neighbour PreferReproducible solves again to compare, best first:
 // each costs a start from the march (1–2 s on the two-element example
 // where it converges, the solver's whole fallback where it does not).
-const reproducibleTries = 3
+const ReproducibleTries = 3
 
 // preferReproduced replaces r.Best, which a single solve does not
 // reproduce, by the best setting of the path that meets every
 // constraint and that a single solve (single) reproduces: one solved
 // from its own start (SingleIdentical), or one that agrees with a single
 // solve within SolveAgreementTolerance, comparing at most
-// reproducibleTries. When none does, r.Best stays and r.Status says so.
+// ReproducibleTries. When none does, r.Best stays and r.Status says so.
 func (r *SearchResult) preferReproduced(opt SearchOptions, single func([]float64) (*CoupledPoint, error)) error {
 	if !math.IsNaN(r.Target) {
 		opt.DownforceTarget = r.Target
@@ -324,7 +324,7 @@ func (r *SearchResult) preferReproduced(opt SearchOptions, single func([]float64
 		}
 		seen = append(seen, p.Values)
 		if p.Single == SingleNotCompared {
-			if tries == reproducibleTries {
+			if tries == ReproducibleTries {
 				continue
 			}
 			tries++

@@ -303,7 +303,7 @@ func TestSearchNoWorseThanMapTwoElement(t *testing.T) {
 // reproduce gives way to the best of the path that one does
 // (preferReproduced, with an injected single solve): settings that
 // started from a neighbour are compared best first, at most
-// reproducibleTries of them, and a setting solved from its own start is
+// ReproducibleTries of them, and a setting solved from its own start is
 // reproduced without a solve. The points are made up: downforce
 // coefficients (Cl = −load) on an inverted wing.
 func TestSearchPreferReproducible(t *testing.T) {
