@@ -156,17 +156,25 @@ func (r *writer) viscousDensitySection() {
 // decimals) of the three finest rows converges: Richardson's extrapolation
 // when the three have answers, double in count and converge steadily.
 func viscousExtrapolation(name string, digits int, rows []ViscousDensityRow, value func(ViscousDensityRow) float64) string {
-	n := len(rows)
-	finite := func(row ViscousDensityRow) bool { return row.Skipped == "" && !math.IsNaN(value(row)) }
-	if n < 3 || !finite(rows[n-3]) || !finite(rows[n-2]) || !finite(rows[n-1]) ||
-		rows[n-2].Panels != 2*rows[n-3].Panels || rows[n-1].Panels != 2*rows[n-2].Panels {
-		return fmt.Sprintf("No extrapolation of %s: one of the three finest counts has no answer (skipped, not converged, or n/a where the boundary layer separates).", name)
+	var counts []int
+	var f []float64
+	for _, row := range rows {
+		if row.Skipped == "" && !math.IsNaN(value(row)) {
+			counts, f = append(counts, row.Panels), append(f, value(row))
+		}
 	}
-	f1, f2, f3 := value(rows[n-3]), value(rows[n-2]), value(rows[n-1])
-	change := fmt.Sprintf("%s changes by %.2g %% from %d to %d panels", name, 100*math.Abs(f3-f2)/math.Abs(f3), rows[n-2].Panels, rows[n-1].Panels)
-	if p, ok := engine.ObservedOrder(f1, f2, f3, 2); ok && p >= engine.MinObservedOrder && p <= engine.MaxObservedOrder {
-		v, e := engine.Richardson(f2, f3, 2, p)
-		return fmt.Sprintf("%s; %s → %s ± %.2g extrapolated (observed order %s, Richardson over the three finest counts).", change, name, num(v, digits), e, num(p, 2))
+	ex := engine.Extrapolate(counts, f)
+	change := ""
+	if n := len(f); n >= 2 {
+		change = fmt.Sprintf("%s changes by %.2g %% from %d to %d panels; ", name, 100*math.Abs(f[n-1]-f[n-2])/math.Abs(f[n-1]), counts[n-2], counts[n-1])
 	}
-	return change + "; the three finest counts do not converge steadily enough for an extrapolation."
+	switch {
+	case !ex.OK && change == "":
+		return fmt.Sprintf("No extrapolation of %s: %s.", name, ex.Why)
+	case !ex.OK:
+		return fmt.Sprintf("%sno extrapolation of %s: %s.", change, name, ex.Why)
+	case math.IsNaN(ex.ObservedOrder):
+		return fmt.Sprintf("%s%s is the same to the last digit over the three finest counts with an answer.", change, name)
+	}
+	return fmt.Sprintf("%s%s → %s ± %.2g extrapolated (observed order %s, Richardson over the three finest counts with an answer).", change, name, num(ex.Value, digits), ex.ErrorEstimate, num(ex.ObservedOrder, 2))
 }

@@ -429,6 +429,12 @@ func extrapolateFinite(rows []DensityRow, value func(DensityRow) float64) Extrap
 	return extrapolate(counts, f)
 }
 
+// Extrapolate is the density study's extrapolation of values f at panel
+// counts (ascending, one value each): Richardson's from the three finest,
+// with Why saying in words why there is none; for callers that hold
+// values of their own (a report's viscous counts).
+func Extrapolate(counts []int, f []float64) Extrapolation { return extrapolate(counts, f) }
+
 func extrapolate(counts []int, f []float64) Extrapolation {
 	n := len(f)
 	bad := Extrapolation{Value: math.NaN(), ErrorEstimate: math.NaN(), ObservedOrder: math.NaN()}
