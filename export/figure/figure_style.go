@@ -378,9 +378,10 @@ type key struct {
 	// instead, where they cannot cover data.
 	above bool
 	// width is the room for a row of an above key (zero: unknown, one
-	// row); fitKeys sets it from the canvas before the plot is drawn,
-	// since GlyphBoxes, which reserves the band, is not told the size.
-	width vg.Length
+	// row) and height the figure's height (zero: unknown); fitKeys sets
+	// them from the canvas before the plot is drawn, since GlyphBoxes,
+	// which reserves the band, is not told the size.
+	width, height vg.Length
 }
 
 type keyEntry struct {
@@ -389,7 +390,7 @@ type keyEntry struct {
 }
 
 func newKey(th *theme, corner int) *key {
-	return &key{corner: corner, text: textStyle(th.fg, 8.5, text.XLeft, text.YCenter), bg: fade(th.bg, 225), border: th.grid}
+	return &key{corner: corner, text: textStyle(th.fg, keyTextPt, text.XLeft, text.YCenter), bg: fade(th.bg, 225), border: th.grid}
 }
 
 func (k *key) add(label string, t plot.Thumbnailer) {
@@ -412,6 +413,10 @@ func keyRect(c draw.Canvas, corner int, w, h vg.Length) vg.Rectangle {
 	default:
 		x0, y1 = c.Min.X+keyMargin, c.Min.Y+keyMargin+h
 	}
+	// A box wider or taller than the data area starts at its left or top
+	// edge rather than off it, where its symbols would be lost.
+	x0 = max(x0, c.Min.X+keyMargin)
+	y1 = min(y1, c.Max.Y-keyMargin)
 	return vg.Rectangle{Min: vg.Point{X: x0, Y: y1 - h}, Max: vg.Point{X: x0 + w, Y: y1}}
 }
 
@@ -489,9 +494,37 @@ func (k *key) rows(w vg.Length) [][]keyEntry {
 	return rows
 }
 
-// maxKeyRows is the most rows an above key takes; beyond it the key is a
-// box in a corner.
+// maxKeyRows is the most rows an above key takes whatever the figure's
+// height; a taller figure gives it up to keyBandShare of its height.
+// Beyond that the key is a box in a corner, over the data.
 const maxKeyRows = 4
+
+// keyBandShare is the largest share of a figure's height the band of an
+// above key may take when it needs more than maxKeyRows rows: the data
+// area keeps well over half of the figure (the title and the axes take
+// the rest).
+const keyBandShare = 0.3
+
+// keyTextPt is the size of a key's text, and keySmallPt the size an above
+// key shrinks to when its rows do not fit the band at keyTextPt (a
+// polar of two elements with its viscous curve has six entries, some of
+// them long); the box in a corner, which covers data, is the last resort.
+const (
+	keyTextPt  = 8.5
+	keySmallPt = 7
+)
+
+// lineHeight is the height of one row of the key.
+func (k *key) lineHeight() vg.Length { return k.text.Height("Xg") * 1.25 }
+
+// maxRows is the most rows the band above the data area may hold.
+func (k *key) maxRows() int {
+	n := maxKeyRows
+	if k.height > 0 {
+		n = max(n, int(keyBandShare*k.height/k.lineHeight()))
+	}
+	return n
+}
 
 // reservedRows is the number of rows the band above the data area holds:
 // none when the key is a box in a corner.
@@ -499,7 +532,7 @@ func (k *key) reservedRows() int {
 	if !k.above || len(k.entries) == 0 {
 		return 0
 	}
-	if n := len(k.rows(k.width)); n <= maxKeyRows {
+	if n := len(k.rows(k.width)); n <= k.maxRows() {
 		return n
 	}
 	return 0
@@ -511,7 +544,7 @@ func (k *key) GlyphBoxes(*plot.Plot) []plot.GlyphBox {
 	if n == 0 {
 		return nil
 	}
-	h := k.text.Height("Xg")*1.25*vg.Length(n) + keyPad
+	h := k.lineHeight()*vg.Length(n) + keyPad
 	return []plot.GlyphBox{{X: 0.5, Y: 1, Rectangle: vg.Rectangle{Min: vg.Point{X: -1}, Max: vg.Point{X: 1, Y: h}}}}
 }
 
@@ -522,9 +555,22 @@ const keyAxesAllowance = vg.Length(120)
 
 // fitKeys tells each above key of a figure the room its rows have on
 // canvas c.
+// An above key whose rows do not fit at keyTextPt is set at keySmallPt
+// when they fit at that size.
 func fitKeys(c draw.Canvas, keys ...*key) {
 	for _, k := range keys {
 		k.width = max(c.Max.X-c.Min.X-keyAxesAllowance, 0)
+		k.height = c.Max.Y - c.Min.Y
+		if !k.above {
+			continue
+		}
+		k.text.Font.Size = vg.Points(keyTextPt)
+		if k.reservedRows() == 0 {
+			k.text.Font.Size = vg.Points(keySmallPt)
+			if k.reservedRows() == 0 {
+				k.text.Font.Size = vg.Points(keyTextPt) // a box, at the usual size
+			}
+		}
 	}
 }
 
@@ -533,7 +579,7 @@ func (k *key) Plot(c draw.Canvas, p *plot.Plot) {
 		return
 	}
 	if rows := k.rows(c.Max.X - c.Min.X); k.above && len(rows) <= k.reservedRows() { // else a box in a corner
-		lh := k.text.Height("Xg") * 1.25
+		lh := k.lineHeight()
 		// The rows from the top of the band down, each centred.
 		yc := c.Max.Y + keyPad/2 + lh*(vg.Length(k.reservedRows())-0.5)
 		for _, row := range rows {
@@ -554,7 +600,7 @@ func (k *key) Plot(c draw.Canvas, p *plot.Plot) {
 		}
 		return
 	}
-	lh := k.text.Height("Xg") * 1.25
+	lh := k.lineHeight()
 	tw := vg.Length(0)
 	for _, e := range k.entries {
 		tw = max(tw, k.text.Width(e.label))
