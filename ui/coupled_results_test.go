@@ -4,6 +4,11 @@ import (
 	"strings"
 	"testing"
 
+	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/widget"
+
+	"sectionbench/model"
+	"sectionbench/solver"
 	"sectionbench/solver/engine"
 )
 
@@ -20,5 +25,33 @@ func TestCoupledStateSaysWhyRejected(t *testing.T) {
 	res.Coupled.Rejected = ""
 	if s := coupledState(res); s != "viscous solution not converged after 492 iterations" {
 		t.Errorf("plain non-converged point: %q", s)
+	}
+}
+
+// TestCoupledStatusKeepsForces: the two-element rear wing with its
+// coupled solution on, at 2° (free transition held upstream, so a caution
+// leads the line), in the window at its default width: the status line
+// keeps the downforce and the drag in newtons after the coefficients.
+// The caution, the coefficients and the Cd with L/D had taken the width,
+// and the forces, listed after them, were left off.
+func TestCoupledStatusKeepsForces(t *testing.T) {
+	test.NewTempApp(t)
+	w := openTestBench(t, rearWing)
+	current(t, w)
+	// The figures of the case (the window, 14:29 UTC), set by hand: the
+	// point itself takes seconds to solve.
+	res := &engine.Result{
+		Layout:   &model.Layout{Inverted: true},
+		Solution: &solver.Solution{Cl: -2.898},
+		Coupled:  &engine.CoupledPoint{Cl: -2.5914, ClInviscid: -2.897, Cd: 0.0183, Cm: 0.507, Converged: true, Iterations: 390},
+		Forces:   &engine.Forces{LiftPerSpan: -284.5, DownforcePerSpan: 284.5, DragPerSpan: 2.01, SpanM: 1, Coupled: true},
+	}
+	items := append([]string{"Caution: transition held upstream"}, statusItems(res)...)
+	w.status.set(items, widget.WarningImportance)
+	shown := w.status.Text()
+	for _, want := range []string{"viscous −Cl 2.591 (+ down)", "downforce 284.5 N, drag 2.01 N on 1 m"} {
+		if !strings.Contains(shown, want) {
+			t.Errorf("status line %q (of %q) lacks %q", shown, w.status.Full(), want)
+		}
 	}
 }

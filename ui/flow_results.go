@@ -95,7 +95,11 @@ func resultsText(res *engine.Result) (table, note string) {
 		}
 	}
 	if v != nil {
-		cols = append(cols, "Cd", "transition up/low", "separation up/low")
+		cols = append(cols, "Cd")
+		if f != nil {
+			cols = append(cols, "drag N/m")
+		}
+		cols = append(cols, transitionColumn, separationColumn)
 	}
 	sign := func(x float64) float64 {
 		if inv {
@@ -114,8 +118,11 @@ func resultsText(res *engine.Result) (table, note string) {
 		}
 		if v != nil && i < len(v.Elements) {
 			b := v.Elements[i]
-			r = append(r, cdText(b.Cd),
-				xcText(b.Upper.TransitionXC)+" / "+xcText(b.Lower.TransitionXC),
+			r = append(r, cdText(b.Cd))
+			if f != nil {
+				r = append(r, orDash(elementDrag(res, i, b.Cd), 2))
+			}
+			r = append(r, xcText(b.Upper.TransitionXC)+" / "+xcText(b.Lower.TransitionXC),
 				xcText(b.Upper.TurbulentSeparationXC)+" / "+xcText(b.Lower.TurbulentSeparationXC))
 		}
 		rows = append(rows, r)
@@ -129,7 +136,11 @@ func resultsText(res *engine.Result) (table, note string) {
 			}
 		}
 		if v != nil {
-			r = append(r, cdText(v.Cd), "", "")
+			r = append(r, cdText(v.Cd))
+			if f != nil {
+				r = append(r, orDash(f.DragPerSpan, 2))
+			}
+			r = append(r, "", "")
 		}
 		rows = append(rows, r)
 	}
@@ -141,7 +152,7 @@ func resultsText(res *engine.Result) (table, note string) {
 		n = append(n, "Span totals are 2-D values times the span (no end effects).")
 	}
 	if v != nil {
-		n = append(n, "x/c from each element's leading edge; — none. Cd "+dash+": a surface separated, outside the method's range.")
+		n = append(n, xcNote+" Cd "+dash+": a surface separated, outside the method's range.")
 	}
 	n = append(n, fmt.Sprintf("Solved in %d ms.", res.Elapsed.Milliseconds()))
 	return table, strings.Join(append(cautions(res), n...), " ")
@@ -199,6 +210,24 @@ func refChordMM(res *engine.Result) float64 { return res.Layout.RefChordM * mmPe
 
 // elementChordMM returns a placed element's chord in millimetres.
 func elementChordMM(res *engine.Result, i int) float64 { return res.Layout.Elements[i].Chord * mmPerM }
+
+// The results tables' transition and separation columns, and what their
+// figures mean.
+const (
+	transitionColumn = "transition upper/lower"
+	separationColumn = "separation upper/lower"
+	xcNote           = "Transition and separation in x/c from each element's leading edge, on its upper and lower surfaces as mounted; " + dash + " where there is none."
+)
+
+// elementDrag is element i's drag in N/m from its Cd on its own chord
+// (q c Cd), NaN without forces.
+func elementDrag(res *engine.Result, i int, cd float64) float64 {
+	f := res.Forces
+	if f == nil || i >= len(res.Layout.Elements) {
+		return math.NaN()
+	}
+	return f.DynamicPressurePa * res.Layout.Elements[i].Chord * cd
+}
 
 // resultFlags returns the plausibility flags of a result at the study's
 // angle (engine.Result.Flags).

@@ -145,7 +145,7 @@ func TestCoupledResultShown(t *testing.T) {
 		}
 	}
 	table, note := w.results.table.Text, w.results.note.Text
-	for _, want := range []string{"−Cl viscous", "−Cl inviscid", fixed(-c.Elements[0].Cl, 3), fixed(c.Elements[0].Cd, 4)} {
+	for _, want := range []string{"−Cl viscous", "−Cl inviscid", fixed(-c.Elements[0].Cl, 3), fixed(c.Elements[0].Cd, 4), "drag N/m", fixed(res.Forces.DragPerSpan, 2)} {
 		if !strings.Contains(table, want) {
 			t.Errorf("results table lacks %q:\n%s", want, table)
 		}

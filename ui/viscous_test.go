@@ -73,7 +73,7 @@ func TestBoundaryLayerToggle(t *testing.T) {
 	if want := "Cd " + fixed(res.Viscous.Cd, 4); !strings.Contains(w.status.Full(), want) || !strings.Contains(w.status.Full(), "−Cl/Cd") {
 		t.Errorf("status %q does not give %q and −Cl/Cd", w.status.Full(), want)
 	}
-	for _, want := range []string{"Cd", "transition up/low", "separation up/low"} {
+	for _, want := range []string{"Cd", "drag N/m", transitionColumn, separationColumn} {
 		if !strings.Contains(w.results.table.Text, want) {
 			t.Errorf("results table lacks %q:\n%s", want, w.results.table.Text)
 		}

@@ -312,7 +312,8 @@ func (w *Workbench) showStatus(res *engine.Result) {
 	items, imp := statusItems(res), widget.MediumImportance
 	if fl := resultFlags(res); len(fl) > 0 {
 		// First, so that it is never left off a narrow line.
-		items = append([]string{"Caution: " + model.FlagWords(fl) + " (see results)"}, items...)
+		// Short: the results table below and its note say more.
+		items = append([]string{"Caution: " + model.FlagWords(fl)}, items...)
 		imp = widget.WarningImportance
 	}
 	w.status.set(items, imp)
