@@ -22,6 +22,11 @@ type plotView struct {
 	tools   []fyne.CanvasObject
 	title   *widget.Label
 	stale   *staleVeil // over the drawing while its figure is out of date
+	// emptyNote says why the view is empty ("" when it shows a figure);
+	// sweeping is set while a sweep the view waits for runs, which the
+	// note then says instead.
+	emptyNote string
+	sweeping  bool
 
 	// Pressure view: the element shown and the boundary-layer switch.
 	elements *widget.Select
@@ -56,12 +61,8 @@ func newPlotView(kind viewKind, act *session.Activity, do func(func()), onEnlarg
 	v.note.Wrapping = fyne.TextWrapWord // a long note must not widen the view
 	v.note.Hide()
 	v.canvas.onNote = func(s string) {
-		v.note.SetText(s)
-		if s == "" {
-			v.note.Hide()
-		} else {
-			v.note.Show()
-		}
+		v.emptyNote = s
+		v.showNote()
 	}
 	v.enlarge = widget.NewButtonWithIcon("", theme.ViewFullScreenIcon(), func() { onEnlarge(kind) })
 	v.enlarge.Importance = widget.LowImportance
@@ -101,6 +102,38 @@ func newPlotView(kind viewKind, act *session.Activity, do func(func()), onEnlarg
 	}
 	v.ExtendBaseWidget(v)
 	return v
+}
+
+// sweepRunningNote stands in an empty polar while its first sweep runs.
+const sweepRunningNote = "Sweep running: the polar appears when it ends (progress in the Panels & sweep tab)."
+
+// showNote shows why the view is empty, or that its sweep is running.
+func (v *plotView) showNote() {
+	s := v.emptyNote
+	if s != "" && v.sweeping {
+		s = sweepRunningNote
+	}
+	v.note.SetText(s)
+	if s == "" {
+		v.note.Hide()
+	} else {
+		v.note.Show()
+	}
+}
+
+// setStale marks the view out of date while a solve (solving) or a sweep
+// it waits for (sweeping) runs. A view with no figure has nothing to dim:
+// it keeps its note, which says when the sweep it waits for is running
+// (the veil's "Previous sweep: running…" stood over "No sweep for this
+// configuration yet: press Run sweep."). UI goroutine.
+func (v *plotView) setStale(solving, sweeping bool) {
+	v.sweeping = sweeping
+	if v.emptyNote != "" {
+		v.stale.set(false, false)
+	} else {
+		v.stale.set(solving, sweeping)
+	}
+	v.showNote()
 }
 
 // setEnlarged switches the enlarge button's icon.

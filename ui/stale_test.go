@@ -2,6 +2,7 @@ package ui
 
 import (
 	"context"
+	"strings"
 	"testing"
 	"time"
 
@@ -65,15 +66,35 @@ func TestViewsMarkedStale(t *testing.T) {
 	}
 }
 
-// TestPolarMarkedStaleWhileSweeping: a sweep running longer than
-// busyDelay veils the polar (the previous sweep) and no other view; the
-// veil goes when the sweep ends, here cancelled.
+// TestPolarMarkedStaleWhileSweeping: with no sweep for the configuration
+// (the coupled solution just turned on) the empty polar asks for one;
+// while its first sweep runs it says that the sweep runs, with no veil
+// over the empty view (it read "Previous sweep: running…" over "No sweep
+// for this configuration yet: press Run sweep."). A second sweep running
+// longer than busyDelay veils the polar, which shows the first, and no
+// other view; the veil goes when the sweep ends, here cancelled.
 func TestPolarMarkedStaleWhileSweeping(t *testing.T) {
 	w := newTestBench(t)
 	w.controls.vc.mode.SetSelected(modeCoupled) // a coupled sweep takes seconds
 	w.WaitIdle()
-	w.controls.runSweep()
 	polar := w.views[viewPolar]
+	askNote := polar.note.Text
+	if polar.note.Hidden || !strings.Contains(askNote, "press Run sweep") {
+		t.Fatalf("the polar without a sweep says %q (hidden %v)", askNote, polar.note.Hidden)
+	}
+	w.controls.runSweep()
+	if !waitFor(t, w, 10*busyDelay, func() bool { return polar.note.Text == sweepRunningNote }) {
+		t.Fatalf("while the first sweep runs the empty polar says %q", polar.note.Text)
+	}
+	if polar.stale.Visible() || polar.note.Hidden {
+		t.Errorf("veil %v over the empty polar, note hidden %v", polar.stale.Visible(), polar.note.Hidden)
+	}
+	w.WaitIdle()
+	if !waitFor(t, w, 10*busyDelay, func() bool { return polar.note.Hidden && polar.canvas.Figure() != nil }) {
+		t.Fatalf("after the sweep the polar shows no figure: note %q", polar.note.Text)
+	}
+
+	w.controls.runSweep()
 	if !waitFor(t, w, 10*busyDelay, func() bool { return polar.stale.Visible() && polar.stale.caption.Text == staleSweeping }) {
 		t.Fatal("a long sweep left the polar unmarked")
 	}

@@ -297,7 +297,7 @@ func (w *Workbench) present(gen uint64, sc *figures.Scene, res *engine.Result, e
 func (w *Workbench) refreshStale() {
 	solving := w.busy.Visible()
 	for k, v := range w.views {
-		v.stale.set(solving, w.sweeping && viewKind(k) == viewPolar)
+		v.setStale(solving, w.sweeping && viewKind(k) == viewPolar)
 	}
 }
 

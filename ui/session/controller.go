@@ -441,7 +441,7 @@ func (c *Controller) RunSweep(progress func(done, total int), done func(err erro
 				c.sweep, c.sweepVis, c.sweepKey = res.Sweep, res.SweepViscous, sweepKey(st)
 				c.sweepCpl = coupledSweepOf(res)
 				c.mu.Unlock()
-				c.changed(false) // redraw the polar with the new sweep
+				c.showSweep()
 			}
 			if done != nil {
 				done(err)
@@ -449,6 +449,32 @@ func (c *Controller) RunSweep(progress func(done, total int), done func(err erro
 		})
 	}()
 	return nil
+}
+
+// showSweep shows the sweep just run. When the result on hand is the
+// newest request's, it is presented again with the sweep, off the UI
+// goroutine as a solve's result is: solving the study's point again (as
+// every change does) took seconds with the coupled solution, and the
+// polar stayed empty, or showed the previous sweep, until it ended. Else
+// the study is solved as after a change. UI goroutine.
+func (c *Controller) showSweep() {
+	c.mu.Lock()
+	res, gen := c.result, c.resGen
+	ready := res != nil && gen == c.sched.Latest() && !(c.resErr != nil && c.errGen == gen)
+	var sc *figure.Scene
+	if ready {
+		sc = sceneOf(res, c.state.study.Clone(), c.sweep, c.sweepVis, c.sweepCpl)
+	}
+	c.mu.Unlock()
+	if !ready || c.OnResult == nil {
+		c.changed(false)
+		return
+	}
+	c.act.Add()
+	go func() {
+		defer c.act.Done()
+		c.OnResult(gen, sc, res, nil)
+	}()
 }
 
 // CancelSweep stops a running sweep.

@@ -2,10 +2,13 @@ package session
 
 import (
 	"context"
+	"errors"
+	"sync"
 	"testing"
 	"time"
 
 	"sectionbench/assets"
+	"sectionbench/export/figure"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 	"sectionbench/ui/session/sessiontest"
@@ -160,5 +163,54 @@ func TestSetSpeedTurnsViscousOn(t *testing.T) {
 	c.idle()
 	if st := c.Study(); st.Viscous.Enabled || st.Flow.SpeedMPS != 0 {
 		t.Errorf("undo left speed %g, viscous %+v", st.Flow.SpeedMPS, st.Viscous)
+	}
+}
+
+// countingEngine counts the runs it is given.
+type countingEngine struct {
+	inner Runner
+	mu    sync.Mutex
+	runs  int
+}
+
+func (e *countingEngine) Run(ctx context.Context, req engine.Request) (*engine.Result, error) {
+	e.mu.Lock()
+	e.runs++
+	e.mu.Unlock()
+	return e.inner.Run(ctx, req)
+}
+
+// TestRunSweepShowsWithoutResolving: a sweep that ends while the result
+// on hand is the newest is presented with that result at once; the study's
+// point is not solved again (with the coupled solution that took seconds,
+// and the polar stayed empty meanwhile).
+func TestRunSweepShowsWithoutResolving(t *testing.T) {
+	w := newTestController(t)
+	if err := w.Edit("", func(s *model.Study) { s.Ground.Enabled = true }); err != nil { // no live sweep
+		t.Fatal(err)
+	}
+	w.idle()
+	var scenes []*figure.Scene
+	w.OnResult = func(gen uint64, sc *figure.Scene, res *engine.Result, err error) {
+		if err == nil {
+			w.q.Post(func() { scenes = append(scenes, sc) })
+		}
+	}
+	count := &countingEngine{inner: w.sched.eng}
+	w.SetRunner(count)
+	gen := w.Latest()
+	var done error = errors.New("not ended")
+	if err := w.RunSweep(nil, func(err error) { done = err }); err != nil {
+		t.Fatal(err)
+	}
+	w.idle()
+	if done != nil {
+		t.Fatalf("sweep: %v", done)
+	}
+	if count.runs != 0 || w.Latest() != gen { // the sweep runs on an engine of its own
+		t.Errorf("the point was solved again: %d runs, generation %d → %d", count.runs, gen, w.Latest())
+	}
+	if len(scenes) != 1 || len(scenes[0].Sweep) == 0 {
+		t.Fatalf("%d scenes presented, want one with the sweep", len(scenes))
 	}
 }
