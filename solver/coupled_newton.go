@@ -138,28 +138,6 @@ func fdStep(k int, v float64, laminar bool) float64 {
 	return 1e-7*math.Abs(v) + 1e-12
 }
 
-// homotopySteps are the coupling strengths λ of a cold start. The march
-// solves the layers on its own edge velocities Ue_march; the coupled
-// problem is reached through the family
-//
-//	Ue(λ) = (1 − λ) Ue_march + λ (Ue0 + D m),
-//
-// each member solved by Newton's method from the one before, starting
-// with λ = 0, the march's own problem solved as a whole (a
-// continuation, Allgower & Georg, Numerical Continuation Methods, 1990,
-// ch. 1). Near a trailing edge Ue0 + D m is very sensitive to the mass
-// defects (entries of D of order 1/panel length), so the full coupling
-// from the march's state puts edge velocities far from any solution;
-// each step of the family starts within Newton's reach.
-var homotopySteps = []float64{0, 0.1, 0.2, 0.35, 0.5, 0.65, 0.8, 0.9, 0.95}
-
-// Iteration bounds of the continuation's intermediate steps, which need
-// only be close enough to start the next.
-const (
-	homotopyMaxIter   = 12
-	homotopyTolerance = 1e-3
-)
-
 // solve runs the coupled iterations. With ueMarch (a cold start from the
 // march) it first follows the continuation; otherwise it iterates the
 // full coupling from the current state (a warm start).
@@ -173,29 +151,11 @@ func (cs *coupledState) solve(ctx context.Context, ueMarch []float64) (converged
 		tol = defaultTolerance
 	}
 	if ueMarch != nil {
-		cs.ueMarch = ueMarch
-		for _, lam := range homotopySteps {
-			cs.lam = lam
-			maxIt := homotopyMaxIter
-			if lam == 0 {
-				maxIt = 2 * homotopyMaxIter
-			}
-			_, n, _, err := cs.iterate(ctx, maxIt, 0, homotopyTolerance)
-			iters += n
-			if err != nil {
-				cs.ueMarch, cs.lam = nil, 1
-				return false, iters, math.Inf(1), err
-			}
-			if lam == 0 {
-				// The uncoupled system's factors (M without D) do
-				// not precondition the coupled one's: GMRES through
-				// them ran to its bound and failed at the next
-				// step's first solve (NACA 0012 from cold), which
-				// now factorises directly.
-				cs.work.dm.fresh = true
-			}
+		n, err := cs.continuation(ctx, ueMarch)
+		iters += n
+		if err != nil {
+			return false, iters, math.Inf(1), err
 		}
-		cs.ueMarch, cs.lam = nil, 1
 	}
 	converged, n, res, err := cs.iterate(ctx, maxIt, 0, tol)
 	return converged, iters + n, res, err
