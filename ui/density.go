@@ -112,7 +112,7 @@ func newDensityWindow(w *Workbench) *densityWindow {
 	d.progress.Hide()
 	d.runRow = container.NewBorder(nil, nil, nil, d.cancel, d.run)
 
-	d.caseLabel = widget.NewLabel("Not run yet. The study runs at the current angle of attack, re-panelling every element at each count.")
+	d.caseLabel = widget.NewLabel(densityNotRun)
 	d.caseLabel.Wrapping = fyne.TextWrapWord
 	d.series = widget.NewSelect(nil, func(string) {
 		if i := d.series.SelectedIndex(); i >= 0 && i != d.seriesIdx {
@@ -190,7 +190,10 @@ func newDensityWindow(w *Workbench) *densityWindow {
 		d.recommendWhy,
 		d.use,
 	)
-	side := container.NewPadded(container.NewStack(widthOf(densityControlWidth), container.NewBorder(plan, nil, nil, nil)))
+	// The column scrolls: a long summary (every skipped count with its
+	// reason) made the window taller than the screen, its Use button and
+	// caution off it.
+	side := container.NewPadded(container.NewStack(widthOf(densityControlWidth), container.NewVScroll(plan)))
 	note := widget.NewLabelWithStyle(cautionShort+"; a converged count is converged for this method, not for the real flow.", fyne.TextAlignTrailing, fyne.TextStyle{Italic: true})
 	content := container.NewBorder(nil, note, side, nil, d.tabs)
 	d.win.SetContent(content)
@@ -433,6 +436,13 @@ func (d *densityWindow) studyChanged() {
 }
 
 // start stores the plan in the study and runs it on a goroutine.
+// What the density window's result says before its first study and while
+// that runs.
+const (
+	densityNotRun  = "Not run yet. The study runs at the current angle of attack, re-panelling every element at each count."
+	densityRunning = "Running at α = %s°: the results appear when every count is solved."
+)
+
 func (d *densityWindow) start() {
 	plan, err := d.readPlan()
 	if err != nil {
@@ -456,6 +466,9 @@ func (d *densityWindow) start() {
 	d.cancel.Show()
 	d.progress.SetValue(0)
 	d.progress.Show()
+	if d.out == nil {
+		d.caseLabel.SetText(fmt.Sprintf(densityRunning, num(st.Flow.AlphaDeg)))
+	}
 	d.relayout()
 	ctl.Activity().Add()
 	go func() {
@@ -513,6 +526,9 @@ func (d *densityWindow) finish(gen int, st *model.Study, out *densityOutcome, er
 	d.cancel.Hide()
 	d.progress.Hide()
 	d.relayout()
+	if d.out == nil {
+		d.caseLabel.SetText(densityNotRun)
+	}
 	if errors.Is(err, context.Canceled) {
 		d.setMsg(errors.New("density study cancelled; the table keeps the last complete study"))
 		return

@@ -245,8 +245,11 @@ func TestDensitySkippedRows(t *testing.T) {
 	w.openDensity(densityTabConvergence)
 	w.WaitIdle()
 	d := w.density
-	d.panels.SetText("20, 80, 160")
+	d.panels.SetText("20, 40, 80, 160")
 	d.start()
+	if !strings.HasPrefix(d.caseLabel.Text, "Running at α") {
+		t.Errorf("while the first study runs the summary says %q", d.caseLabel.Text)
+	}
 	w.WaitIdle()
 	rows, cols := d.tableSize()
 	skipped := 0
@@ -267,6 +270,11 @@ func TestDensitySkippedRows(t *testing.T) {
 	}
 	if !strings.Contains(d.caseLabel.Text, "skipped: 20 panels") {
 		t.Errorf("summary %q does not give the skipped count and its reason", d.caseLabel.Text)
+	}
+	// The summary scrolls in its column: it made the window taller than
+	// its size and the screen.
+	if h := d.win.Content().MinSize().Height; h > densityHeight {
+		t.Errorf("the window needs %g high, more than its %d", h, densityHeight)
 	}
 }
 
