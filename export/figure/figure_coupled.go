@@ -118,6 +118,22 @@ func coupledRows(sc *Scene) (valid, past plotter.XYs, cm []plotter.XY, failed []
 	return valid, past, append(cm, pastCm...), failed
 }
 
+// separatedRows are the converged rows of the coupled sweep whose flow
+// separates ahead of engine.SeparatedFromXC (CoupledPoint.Facts), at their
+// viscous Cl.
+func separatedRows(sc *Scene) plotter.XYs {
+	if len(sc.SweepCoupled) != len(sc.Sweep) {
+		return nil
+	}
+	var out plotter.XYs
+	for i := range sc.SweepCoupled {
+		if r := &sc.SweepCoupled[i]; r.Converged && r.Facts().Separated {
+			out = append(out, plotter.XY{X: r.AlphaDeg, Y: r.Cl})
+		}
+	}
+	return out
+}
+
 // bottomMarks draws a glyph on the bottom edge of the data area at each
 // angle: the angles where the viscous solution gave no answer, marked
 // without a value that could be read as one.
@@ -159,11 +175,18 @@ func addCoupledPolar(p *plot.Plot, k *key, sc *Scene, th *theme) bool {
 	if len(valid) > 0 {
 		p.Add(newScatter(valid, th.lower, glyphSmall, draw.CircleGlyph{}))
 	}
-	k.add("Cl viscous (left axis)", legendLine{sty})
+	k.add("Cl viscous", legendLine{sty})
 	if len(past) > 0 {
 		ps := newScatter(past, th.lower, glyphMarker, draw.TriangleGlyph{})
 		p.Add(ps)
 		k.add("viscous, past maximum lift", ps)
+	}
+	// Rows whose layers separate well ahead of the trailing edge (the
+	// sweep table's "separated" mark): the real wing stalls there.
+	if sep := separatedRows(sc); len(sep) > 0 {
+		ss := newScatter(sep, th.lower, glyphMarker*1.4, draw.RingGlyph{})
+		p.Add(ss)
+		k.add(fmt.Sprintf("viscous, separated ahead of x/c %g", engine.SeparatedFromXC), ss)
 	}
 	if cl, a := sc.ClMax, sc.AlphaClMax; !math.IsNaN(cl) && len(all) > 0 {
 		m := newScatter(plotter.XYs{{X: a, Y: cl}}, th.accent, glyphMarker*1.6, draw.PyramidGlyph{})
@@ -178,7 +201,7 @@ func addCoupledPolar(p *plot.Plot, k *key, sc *Scene, th *theme) bool {
 		// under the key.
 		rel, why := " ", ""
 		if !sc.ClMaxIsPeak {
-			rel, why = " ≥ ", "; ≥: none converged beyond"
+			rel, why = " ≥ ", "; none converged beyond"
 		}
 		k.add(fmt.Sprintf("%s%s%s at %s° (viscous%s)", name, rel, formatTick(v, 3), formatTick(a, 2), why), m)
 	}

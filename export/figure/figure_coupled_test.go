@@ -94,7 +94,7 @@ func TestPolarCoupledSweep(t *testing.T) {
 	sc.ClMax, sc.AlphaClMax, sc.ClMaxIsPeak = peak.Cl, peak.AlphaDeg, true
 	s := svgText(t, ViewPolar, sc)
 	for _, want := range []string{
-		"Cl inviscid (left axis)", "Cl viscous (left axis)", "viscous, past maximum lift",
+		"Cl inviscid", "Cl viscous", "viscous, past maximum lift",
 		"Cl max " + formatTick(peak.Cl, 3) + " at " + formatTick(peak.AlphaDeg, 2) + "°",
 		fmt.Sprintf("viscous not converged (1 of %d angles)", len(sc.Sweep)),
 	} {

@@ -3,14 +3,19 @@ package figure
 import (
 	"image"
 	"image/png"
+	"math"
 	"os"
+	"strings"
 	"testing"
+
+	"sectionbench/solver/engine"
 )
 
 // TestPolarKeyAboveInAppView: the polar of a two-element inverted wing
-// with its coupled sweep carries six key entries (the inviscid Cl, Cm,
-// the flagged points, the viscous Cl, the most downforce as a lower bound
-// and the rows that did not converge). Drawn at the size of the
+// with its coupled sweep carries seven key entries (the inviscid Cl, Cm,
+// the flagged points, the viscous Cl, the rows past maximum lift, those
+// separated, the most downforce as a lower bound and the rows that did
+// not converge). Drawn at the size of the
 // workbench's polar view (about 450 × 240 pixels at 96 dpi), and
 // enlarged, the key must stay in its band above the data area: as a box
 // in a corner it was wider than the data area and covered the curves.
@@ -23,6 +28,10 @@ func TestPolarKeyAboveInAppView(t *testing.T) {
 	for i := range sc.Sweep {
 		sc.Sweep[i].CpMin = -9 // beyond real flows: ringed, an entry of its own
 	}
+	for i := range sc.SweepCoupled { // the last converged row separated
+		sc.SweepCoupled[i].Elements = []engine.CoupledElementPoint{{Cl: 1, SeparationUpper: math.NaN(), SeparationLower: math.NaN()}}
+	}
+	sc.SweepCoupled[len(sc.SweepCoupled)-2].Elements[0].SeparationUpper = 0.8
 	for _, size := range []struct {
 		name string
 		w, h int
@@ -40,8 +49,8 @@ func TestPolarKeyAboveInAppView(t *testing.T) {
 				t.Fatalf("%d keys, want the polar's one", len(info.keys))
 			}
 			k := info.keys[0]
-			if len(k.entries) < 6 {
-				t.Fatalf("%d key entries, want the six of the case", len(k.entries))
+			if len(k.entries) < 7 {
+				t.Fatalf("%d key entries, want the seven of the case", len(k.entries))
 			}
 			img := image.NewRGBA(image.Rect(0, 0, size.w, size.h))
 			renderPlot(p, info, img, 96)
@@ -56,5 +65,35 @@ func TestPolarKeyAboveInAppView(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestPolarMarksSeparatedRows: a converged row of the coupled sweep whose
+// suction side separates ahead of x/c 0.9 (the sweep table's "separated"
+// mark) is ringed on the viscous curve with its own key entry; attached
+// rows are not. The polar marked rows past maximum lift and rows that did
+// not converge, but not separated ones, which the report's table marked.
+func TestPolarMarksSeparatedRows(t *testing.T) {
+	sc := synthCoupledScene()
+	nan := math.NaN()
+	for i := range sc.SweepCoupled {
+		sc.SweepCoupled[i].Elements = []engine.CoupledElementPoint{{Cl: 1, SeparationUpper: nan, SeparationLower: nan}}
+	}
+	const at = 5
+	sc.SweepCoupled[at].Elements[0].SeparationUpper = 0.7
+	sep := separatedRows(sc)
+	if len(sep) != 1 || sep[0].X != sc.SweepCoupled[at].AlphaDeg || sep[0].Y != sc.SweepCoupled[at].Cl {
+		t.Fatalf("separated rows %v, want the row at %g°", sep, sc.SweepCoupled[at].AlphaDeg)
+	}
+	_, info, err := buildView(ViewPolar, sc)
+	if err != nil {
+		t.Fatal(err)
+	}
+	found := false
+	for _, e := range info.keys[0].entries {
+		found = found || strings.HasPrefix(e.label, "viscous, separated ahead of x/c 0.9")
+	}
+	if !found {
+		t.Error("the key has no entry for the separated rows")
 	}
 }

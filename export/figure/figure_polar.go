@@ -178,9 +178,11 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, *key, error) {
 	k.keep(xl, xm)
 	p.Add(newLine(xl, clSty), newScatter(xl, th.upper, glyphSmall, draw.CircleGlyph{}))
 	p.Add(newLine(xm, cmSty), newScatter(xm, th.second, glyphSmall, draw.SquareGlyph{}))
-	clName := "Cl from circulation (left axis)"
+	// The Cl curves read on the left axis, which says Cl; Cm says it
+	// reads on the right. Short entries keep the key in its band.
+	clName := "Cl from circulation"
 	if len(sc.SweepCoupled) > 0 && len(sc.SweepCoupled) == len(sc.Sweep) {
-		clName = "Cl inviscid (left axis)"
+		clName = "Cl inviscid"
 	}
 	k.add(clName, legendLine{clSty})
 	k.add("Cm (right axis)", legendLine{cmSty})

@@ -501,9 +501,10 @@ const maxKeyRows = 4
 
 // keyBandShare is the largest share of a figure's height the band of an
 // above key may take when it needs more than maxKeyRows rows: the data
-// area keeps well over half of the figure (the title and the axes take
-// the rest).
-const keyBandShare = 0.3
+// area keeps about half of the figure (the title and the axes take the
+// rest), which a key in a box over it would cover (the polar of a
+// two-element wing with its coupled sweep has eight entries).
+const keyBandShare = 0.35
 
 // keyTextPt is the size of a key's text, and keySmallPt the size an above
 // key shrinks to when its rows do not fit the band at keyTextPt (a
