@@ -106,7 +106,11 @@ func (r *writer) inputsSection() {
 		}
 	}
 	if st.Viscous.Enabled {
-		kv = append(kv, [2]string{"Boundary-layer estimate", trips(st)})
+		name := "Boundary-layer estimate"
+		if st.Viscous.IsCoupled() {
+			name = "Viscous solution"
+		}
+		kv = append(kv, [2]string{name, trips(st)})
 	}
 	r.need(tableHeight(len(kv)) + 10)
 	r.subheading("Panelling and flow")
@@ -303,7 +307,7 @@ func (r *writer) sweepPage() {
 	}
 	if coupled {
 		head = append(head, "Cl (viscous)", "Cd (viscous)", "Cm (viscous)")
-		widths = append(widths, 0.9, 0.8, 0.9)
+		widths = append(widths, 0.9, 0.9, 0.9) // "(viscous)" whole on its line
 		align = append(align, "R", "R", "R")
 	}
 	head = append(head, "Marks")
@@ -468,7 +472,7 @@ var references = []string{
 }
 
 const limitations = "2-D estimates; validate by test; structural design and mounting follow the competition's rules and qualified engineering review.\n" +
-	"The panel method assumes attached, incompressible, steady two-dimensional flow; alone it does not predict stall or maximum lift, and it overstates lift near and beyond separation. The coupled viscous solution adds the boundary layers and wakes acting back on that flow: drag, transition, trailing-edge separation and the section's maximum lift, with lift still a few percent above wind-tunnel data (NACA 0012 at Re 6e6), up to a fifth on a section with laminar bubbles at Re 2e5 (E387), and no leading-edge stall; a point that did not converge is shown as such. Ground effect is modelled with a fixed ground; a moving ground, wheels and the car's body change the flow. The boundary-layer estimate is sensitive to transition, which the criterion predicts only roughly; trips fix it where the test article has them. Check convergence with the panel density study before quoting a number."
+	"The panel method assumes attached, incompressible, steady two-dimensional flow; alone it does not predict stall or maximum lift, and it overstates lift near and beyond separation. The coupled viscous solution adds the boundary layers and wakes acting back on that flow: drag, transition, trailing-edge separation and the section's maximum lift, with lift still above wind-tunnel data, by 4–9 % on NACA 0012 at Re 6e6 (0.02 to 0.08 in Cl) and by up to a third on a section with laminar bubbles at Re 2e5 (E387: 5–32 %, 0.03 to 0.10 in Cl), and no leading-edge stall; a point that did not converge is shown as such. Ground effect is modelled with a fixed ground; a moving ground, wheels and the car's body change the flow. The boundary-layer estimate is sensitive to transition, which the criterion predicts only roughly; trips fix it where the test article has them. Check convergence with the panel density study before quoting a number."
 
 // The leading-edge close-up of the report frames the first 15 % of the
 // main element's chord: the nose region where panel density matters most

@@ -334,7 +334,14 @@ func (r *writer) confidence(h headline) [][2]string {
 	} else {
 		band := "no steady convergence seen over the counts tried: no error band"
 		if d.Cl.OK {
-			band = fmt.Sprintf("Cl → %s ± %.2g extrapolated (observed order %s)", Coef(d.Cl.Value), d.Cl.ErrorEstimate, num(d.Cl.ObservedOrder, 2))
+			// The density study judges the panel method: with a viscous
+			// solution above it, say that its Cl is the inviscid one (the
+			// summary's coefficient is the viscous one, and differs).
+			name := "Cl"
+			if st.Viscous.Enabled {
+				name = "inviscid Cl"
+			}
+			band = fmt.Sprintf("%s → %s ± %.2g extrapolated (observed order %s)", name, Coef(d.Cl.Value), d.Cl.ErrorEstimate, num(d.Cl.ObservedOrder, 2))
 		}
 		rec := "no count met the tolerances"
 		if d.RecommendedPanels > 0 {

@@ -13,6 +13,7 @@ import (
 	"sectionbench/export"
 	"sectionbench/model"
 	"sectionbench/solver"
+	"sectionbench/solver/engine"
 )
 
 // pdfText writes in as a PDF and returns its text as poppler's pdftotext
@@ -260,6 +261,10 @@ func TestSummaryFromCoupledEngine(t *testing.T) {
 	}
 	in := Input{Study: st, Result: res}
 	in.Coupled = CoupledFrom(st, res)
+	// A density study of the panel method (invented rows): its Cl is the
+	// inviscid one, which the summary must say beside the viscous Cl.
+	in.Density = &engine.DensityResult{RecommendedPanels: 80, Rows: []engine.DensityRow{{Panels: 80, Nose: 0.5, Cl: 0.9}},
+		Cl: engine.Extrapolation{Value: 0.91, ErrorEstimate: 1e-4, ObservedOrder: 2, OK: true}}
 	h := (&writer{in: in}).headline()
 	f := res.Forces
 	for _, c := range []struct {
@@ -283,10 +288,20 @@ func TestSummaryFromCoupledEngine(t *testing.T) {
 	// The boundary-layer page shows the coupled layers, and the load
 	// against α is the viscous one (both were the one-way estimate's or
 	// the inviscid only).
+	// The inputs name the coupled solution as such (they said
+	// "Boundary-layer estimate"), the density study's Cl is said to be
+	// the inviscid one, and the sweep table's "Cd (viscous)" header is
+	// not cut inside its word ("(viscou" / "s)").
 	for _, w := range []string{"Viscous solution (coupled)", newtons(h.LoadN), "viscous solution (coupled)",
-		"Boundary layers (coupled viscous solution)", "the sweep's viscous Cl (the inviscid load dashed for comparison)"} {
+		"Boundary layers (coupled viscous solution)", "the sweep's viscous Cl (the inviscid load dashed for comparison)",
+		"Viscous solution on (coupled viscous solution", "inviscid Cl → 0.9100"} {
 		if !strings.Contains(text, w) {
 			t.Errorf("report lacks %q", w)
+		}
+	}
+	for _, w := range []string{"Boundary-layer estimate", "(viscou "} {
+		if strings.Contains(text, w) {
+			t.Errorf("report has %q", w)
 		}
 	}
 }
