@@ -15,6 +15,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	figures "sectionbench/export/figure"
+	"sectionbench/export/report"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 	"sectionbench/ui/session"
@@ -592,7 +593,7 @@ func (d *densityWindow) showOutcome() {
 	var skipped []string
 	for _, r := range res.Rows {
 		if !r.Solved() {
-			skipped = append(skipped, fmt.Sprintf("%d panels (nose %s): %s", r.Panels, fixed(r.Nose, 2), firstLine(r.Skipped)))
+			skipped = append(skipped, fmt.Sprintf("%d panels (nose %s): %s", r.Panels, fixed(r.Nose, 2), firstLine(report.SkipReason(r))))
 		}
 	}
 	if n := len(skipped); n > 0 {

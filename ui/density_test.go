@@ -268,8 +268,11 @@ func TestDensitySkippedRows(t *testing.T) {
 	if skipped == 0 {
 		t.Fatalf("no row skipped at 20 panels (%s)", d.caseLabel.Text)
 	}
-	if !strings.Contains(d.caseLabel.Text, "skipped: 20 panels") {
+	if !strings.Contains(d.caseLabel.Text, "skipped: 20 panels") || !strings.Contains(d.caseLabel.Text, "gap too small") {
 		t.Errorf("summary %q does not give the skipped count and its reason", d.caseLabel.Text)
+	}
+	if strings.Contains(d.caseLabel.Text, "density study at") {
+		t.Errorf("summary %q gives the count twice", d.caseLabel.Text)
 	}
 	// The summary scrolls in its column: it made the window taller than
 	// its size and the screen.

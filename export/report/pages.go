@@ -277,7 +277,7 @@ func (r *writer) figurePages() {
 		for i, e := range r.in.Result.Solution.Elements {
 			one := *sc
 			one.Element = i
-			r.figure(figure.ViewPressure, &one, fmt.Sprintf("Pressure coefficient on %s alone, on its own scale: its suction peak is far smaller than another element's.", e.Name), figureHMM*0.8)
+			r.figure(figure.ViewPressure, &one, fmt.Sprintf("Pressure coefficient on %s alone, on its own scale: the elements' suction peaks differ too much to read them all on one scale.", e.Name), figureHMM*0.8)
 		}
 	}
 	r.figure(figure.ViewStreamlines, sc, "Streamlines; the dividing streamline of each element is drawn bold.", figureHMM)

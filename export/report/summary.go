@@ -372,7 +372,7 @@ func (r *writer) openIssues(h headline) []string {
 		}
 		for _, row := range d.Rows {
 			if !row.Solved() {
-				out = append(out, fmt.Sprintf("The density study could not place %d panels (nose %s): %s.", row.Panels, num(row.Nose, 2), row.Skipped))
+				out = append(out, fmt.Sprintf("The density study could not place %d panels (nose %s): %s.", row.Panels, num(row.Nose, 2), SkipReason(row)))
 			}
 		}
 	}
@@ -502,4 +502,13 @@ func rejectedWhy(c *Coupled) string {
 		return ""
 	}
 	return ": " + c.Rejected
+}
+
+// SkipReason is why a density study skipped a row, without the count and
+// nose the engine's message starts with ("density study at 20 panels,
+// nose 0.5: "), which the report and the app give in their own words
+// before it: the summary read "could not place 20 panels (nose 0.50):
+// density study at 20 panels, nose 0.5: elements …".
+func SkipReason(row engine.DensityRow) string {
+	return strings.TrimPrefix(row.Skipped, fmt.Sprintf("density study at %d panels, nose %g: ", row.Panels, row.Nose))
 }

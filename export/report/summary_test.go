@@ -305,3 +305,16 @@ func TestSummaryFromCoupledEngine(t *testing.T) {
 		}
 	}
 }
+
+// TestSkipReason: a skipped count's reason without the engine's own
+// "density study at N panels, nose X: " before it.
+func TestSkipReason(t *testing.T) {
+	row := engine.DensityRow{Panels: 20, Nose: 0.5, Skipped: `density study at 20 panels, nose 0.5: elements "main" and "flap": gap too small for the panels`}
+	if got, want := SkipReason(row), `elements "main" and "flap": gap too small for the panels`; got != want {
+		t.Errorf("SkipReason = %q, want %q", got, want)
+	}
+	row.Skipped = "some other reason"
+	if got := SkipReason(row); got != row.Skipped {
+		t.Errorf("SkipReason = %q, want the reason unchanged", got)
+	}
+}
