@@ -556,7 +556,18 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 // liftExcess is rejected as a spurious root of the discrete equations
 // only when every element's suction-side layer is at least as thick at
 // its trailing edge as its pressure side's (pressureSideThicker).
+//
+// A solution whose layer jumps from separated to attached where its edge
+// speed does not fall is rejected too (branchJump).
 func implausible(s *CoupledSolution) string {
+	if why := branchJump(s); why != "" {
+		return why
+	}
+	return spuriousLift(s)
+}
+
+// spuriousLift is implausible's lift check alone (see there).
+func spuriousLift(s *CoupledSolution) string {
 	inv := s.ClInviscid
 	if math.Copysign(1, inv)*(s.Cl-inv) > liftExcessAbs+liftExcessRel*math.Abs(inv) && !pressureSideThicker(s) {
 		return fmt.Sprintf("the iterations met their tolerance with Cl %.3f, above the inviscid %.3f, with no pressure-side layer the thicker at its trailing edge (but by separating over its last stations only), which cannot give more lift: a spurious solution", s.Cl, inv)

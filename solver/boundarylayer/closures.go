@@ -193,10 +193,7 @@ func ampRate(hk, rt float64) float64 {
 func turbulent(c *Closure, st Station, wake bool) {
 	hk := c.Hk
 	rt := max(c.RTheta, minRThetaTurbulent)
-	h0 := 4.0
-	if rt > 400 {
-		h0 = 3 + 400/rt
-	}
+	h0 := ShapeMinimum(Turbulent, rt)
 	if hk < h0 {
 		c.Hs = 1.505 + 4/rt + (0.165-1.6/math.Sqrt(rt))*math.Pow(h0-hk, 1.6)/hk
 	} else {
@@ -219,6 +216,26 @@ func turbulent(c *Closure, st Station, wake bool) {
 	c.SEq = math.Sqrt(max(ctEq, 0))
 	c.CD = dissipation(c, st.C, wake)
 	c.Delta = min(st.Theta*(3.15+1.72/(hk-1))+st.DStar, maxDeltaOver*st.Theta)
+}
+
+// ShapeMinimum returns the kinematic shape factor H0 at which the
+// kinetic-energy shape factor H* of a layer of kind k at momentum-thickness
+// Reynolds number rTheta is least: 4 on a laminar layer (the two branches
+// of the laminar H* fit meet there with zero slope), and on a turbulent
+// layer or a wake H0 = 3 + 400/Reθ, 4 below Reθ = 400 (the turbulent
+// closures, which take Reθ no lower than 200). Every H* above the minimum
+// belongs to two shape factors, an attached one below H0 and a separated
+// one above it, and where H* has its minimum the shape equation's
+// dH*/dξ cannot tell them apart.
+func ShapeMinimum(k Kind, rTheta float64) float64 {
+	if k == Laminar {
+		return 4
+	}
+	rt := max(rTheta, minRThetaTurbulent)
+	if rt > 400 {
+		return 3 + 400/rt
+	}
+	return 4
 }
 
 // dissipation returns CD of the turbulent (wake when wake is true)

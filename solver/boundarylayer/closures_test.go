@@ -212,3 +212,35 @@ func TestStagnationTheta(t *testing.T) {
 		t.Errorf("θ² a/ν = %.4f, want 0.0854 (Hiemenz) within 5 %%", k)
 	}
 }
+
+// ShapeMinimum is where H* is least: on either side of it, at every
+// Reynolds number, H* is larger (a property of the closures' fits,
+// checked at shape factors from 0.01 to 1 away from it).
+func TestShapeMinimum(t *testing.T) {
+	for _, tc := range []struct {
+		name   string
+		k      Kind
+		rTheta float64
+	}{
+		{"laminar", Laminar, 300},
+		{"turbulent below Reθ 400", Turbulent, 350},
+		{"turbulent at Reθ 2000", Turbulent, 2000},
+		{"turbulent at Reθ 10⁴", Turbulent, 1e4},
+		{"wake at Reθ 5000", Wake, 5000},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			const ue, theta = 1.0, 1e-3
+			re := tc.rTheta / (ue * theta)
+			hs := func(h float64) float64 {
+				return Eval(tc.k, Station{Ue: ue, Theta: theta, DStar: h * theta, C: 0.03}, re).Hs
+			}
+			h0 := ShapeMinimum(tc.k, tc.rTheta)
+			least := hs(h0)
+			for _, d := range []float64{0.01, 0.1, 0.5, 1} {
+				if lo, hi := hs(h0-d), hs(h0+d); !(lo > least && hi > least) {
+					t.Errorf("H* %.5f at H0 %.3f, %.5f at H0 − %g and %.5f at H0 + %g: want both larger", least, h0, lo, d, hi, d)
+				}
+			}
+		})
+	}
+}
