@@ -55,7 +55,8 @@ func (t *table) close() error {
 // lower), x_mm and y_mm (panel midpoint in the study frame, the solution's
 // metres × 1000), xc (along the element's own chord), cp and
 // tangential_velocity (over the freestream speed, positive along the node
-// ordering).
+// ordering), both inviscid, which the metadata says (the workbench shows
+// the coupled viscous Cp beside them; the bl table has it).
 func WriteCpTable(w io.Writer, m Metadata, sol *solver.Solution) error {
 	if sol == nil {
 		panic("format: nil solution")
@@ -63,7 +64,7 @@ func WriteCpTable(w io.Writer, m Metadata, sol *solver.Solution) error {
 	if math.IsNaN(m.AlphaDeg) {
 		m.AlphaDeg = sol.AlphaDeg
 	}
-	if err := m.write(w, "x_mm and y_mm in millimetres in the study frame as mounted (x downstream, y up); cp and tangential_velocity without units (tangential_velocity over the freestream speed, positive along the node order)",
+	if err := m.write(w, "x_mm and y_mm in millimetres in the study frame as mounted (x downstream, y up); cp and tangential_velocity without units (tangential_velocity over the freestream speed, positive along the node order); both are the panel method's, inviscid: with the coupled viscous solution the bl table gives its cp at each station",
 		"along each element's own chord from its leading edge"); err != nil {
 		return err
 	}

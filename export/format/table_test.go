@@ -67,6 +67,11 @@ func TestCpTable(t *testing.T) {
 	if err := WriteCpTable(&b, Metadata{Study: "demo", AlphaDeg: NoAngle}, sol); err != nil {
 		t.Fatal(err)
 	}
+	// The units say whose Cp it is: the panel method's, beside the
+	// coupled viscous Cp the workbench shows.
+	if !strings.Contains(b.String(), "the panel method's, inviscid") {
+		t.Errorf("the cp table does not say its cp is inviscid:\n%s", b.String()[:min(b.Len(), 600)])
+	}
 	recs := readCSV(t, b.Bytes())
 	want := []string{"element", "side", "x_mm", "y_mm", "xc", "cp", "tangential_velocity"}
 	if len(recs[0]) != len(want) {
