@@ -63,6 +63,7 @@ type controls struct {
 	flowMsg     *widget.Label
 	inverted    *widget.Check
 	ground      *widget.Check
+	groundNote  *widget.Label // groundCaution, as the viscous mode has it
 	clearance   *field
 
 	from, to, step *field
@@ -443,14 +444,14 @@ func (c *controls) mountingControls() []fyne.CanvasObject {
 			setMessage(c.flowMsg, ctl.SetGround("", g))
 		}
 	})
-	groundNote := caption(groundCaution)
-	groundNote.TextStyle = fyne.TextStyle{Italic: true}
-	groundNote.Importance = widget.WarningImportance
+	c.groundNote = caption(groundCaution(ctl.Current()))
+	c.groundNote.TextStyle = fyne.TextStyle{Italic: true}
+	c.groundNote.Importance = widget.WarningImportance
 	return []fyne.CanvasObject{
 		heading("Mounting and ground"),
 		c.inverted,
 		container.NewBorder(nil, nil, nil, sized(c.clearance, 72), c.ground),
-		groundNote,
+		c.groundNote,
 		c.flowMsg,
 	}
 }
@@ -693,6 +694,9 @@ func (c *controls) sync(st *model.Study) {
 	c.alphaSense.SetText("Angle of attack as mounted: " + model.AngleSense(st.Inverted) + ".")
 	c.inverted.SetChecked(st.Inverted)
 	c.ground.SetChecked(st.Ground.Enabled)
+	if t := groundCaution(st); c.groundNote.Text != t {
+		c.groundNote.SetText(t)
+	}
 	setIfDiffers(c.clearance, entryNum(st.Ground.ClearanceMM), numberIs(st.Ground.ClearanceMM))
 	step := num(st.Sweep.StepDeg) + "°"
 	c.alphaDown.SetText("−" + step)

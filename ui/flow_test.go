@@ -182,3 +182,23 @@ func TestResultsToggle(t *testing.T) {
 		t.Error("Results did not show the table again")
 	}
 }
+
+// TestGroundCautionFollowsMode: the caution under the ground control says
+// that potential flow shows only the rise of downforce near the ground;
+// with the coupled viscous solution, which shows the fall in 2-D, it says
+// that instead, and not to rely on the peak. It kept the first.
+func TestGroundCautionFollowsMode(t *testing.T) {
+	w := openRearWing(t) // inviscid
+	note := w.controls.groundNote
+	if !strings.HasPrefix(note.Text, "Potential flow shows only the rise") {
+		t.Errorf("inviscid: %q", note.Text)
+	}
+	w.controls.vc.mode.SetSelected(modeCoupled)
+	if !strings.Contains(note.Text, "falling close to the ground only in 2-D") || !strings.Contains(note.Text, "Do not rely on where it peaks") {
+		t.Errorf("coupled: %q", note.Text)
+	}
+	w.controls.vc.mode.SetSelected(modeEstimate)
+	if !strings.HasPrefix(note.Text, "Potential flow shows only the rise") {
+		t.Errorf("estimate: %q", note.Text)
+	}
+}
