@@ -159,7 +159,7 @@ func describePoint(st *model.Study, vars []model.SetupVariable, p *engine.Point,
 	var qs []string
 	for q := range engine.NumQuantities {
 		if v := q.Value(p, forces); !math.IsNaN(v) {
-			qs = append(qs, q.Short(st.Inverted)+" "+sig(v))
+			qs = append(qs, readoutQuantity(q, st.Inverted, forces, v))
 		}
 	}
 	if note != "" {
@@ -183,6 +183,39 @@ func describePoint(st *model.Study, vars []model.SetupVariable, p *engine.Point,
 		}
 	}
 	return s + strings.Join(qs, ", ")
+}
+
+// readoutQuantity is quantity q's value v in the readout of a point, with
+// its unit or its coefficient's name as the figures' axes give them: the
+// load and drag in N/m with a speed, else −Cl (Cl) and Cd; the ratio as
+// −Cl/Cd on an inverted wing, as the status line says; separation at 1 as
+// attached. It read "downforce 369.5, drag 3.006, L/D 122.9, separation
+// x/c 1", without units.
+func readoutQuantity(q engine.Quantity, inverted, forces bool, v float64) string {
+	coef := "Cl"
+	if inverted {
+		coef = "−Cl"
+	}
+	switch q {
+	case engine.QuantityLoad:
+		if forces {
+			return q.Short(inverted) + " " + sig(v) + " N/m"
+		}
+		return coef + " " + sig(v)
+	case engine.QuantityDrag:
+		if forces {
+			return "drag " + sig(v) + " N/m"
+		}
+		return "Cd " + sig(v)
+	case engine.QuantityLiftToDrag:
+		return coef + "/Cd " + sig(v)
+	case engine.QuantitySeparation:
+		if v >= 1 {
+			return "suction sides attached"
+		}
+		return "suction side separated from x/c " + sig(v)
+	}
+	return q.Short(inverted) + " " + sig(v)
 }
 
 // sig formats a value to four significant digits with a true minus sign.

@@ -95,8 +95,8 @@ func TestSetupMapRideHeight(t *testing.T) {
 	if !strings.Contains(m.status.Text, "without the viscous solution") {
 		t.Errorf("status %q does not say why there is no drag", m.status.Text)
 	}
-	if d := r.describe(r.nearest(118, 0)); !strings.Contains(d, "clearance 120 mm") || !strings.Contains(d, "downforce") {
-		t.Errorf("readout %q", d)
+	if d := r.describe(r.nearest(118, 0)); !strings.Contains(d, "clearance 120 mm") || !strings.Contains(d, "downforce "+sig(r.points[r.nearest(118, 0)].DownforcePerSpan)+" N/m") {
+		t.Errorf("readout %q: want the clearance and the downforce in N/m", d)
 	}
 	dir := t.TempDir()
 	files, err := m.csvJob()(dir)
@@ -382,5 +382,30 @@ func TestSetupKeepsRangesOnStudyChange(t *testing.T) {
 	m.var1.SetSelectedIndex(1) // speed, now that the clearance is gone
 	if !strings.Contains(m.var1.Selected, "speed") || m.from[0].Text == "-3" {
 		t.Errorf("a new variable keeps the old range: %q from %q", m.var1.Selected, m.from[0].Text)
+	}
+}
+
+// TestReadoutQuantityUnits: the map's and the search's readout give each
+// quantity with its unit or its coefficient's name ("downforce 369.5,
+// drag 3.006, L/D 122.9, separation x/c 1" had none).
+func TestReadoutQuantityUnits(t *testing.T) {
+	for _, c := range []struct {
+		q               engine.Quantity
+		inverted, force bool
+		v               float64
+		want            string
+	}{
+		{engine.QuantityLoad, true, true, 369.5, "downforce 369.5 N/m"},
+		{engine.QuantityLoad, true, false, 3.2, "−Cl 3.2"},
+		{engine.QuantityLoad, false, false, 1.1, "Cl 1.1"},
+		{engine.QuantityDrag, true, true, 3.006, "drag 3.006 N/m"},
+		{engine.QuantityDrag, true, false, 0.0183, "Cd 0.0183"},
+		{engine.QuantityLiftToDrag, true, true, 122.9, "−Cl/Cd 122.9"},
+		{engine.QuantitySeparation, true, true, 1, "suction sides attached"},
+		{engine.QuantitySeparation, true, true, 0.84, "suction side separated from x/c 0.84"},
+	} {
+		if got := readoutQuantity(c.q, c.inverted, c.force, c.v); got != c.want {
+			t.Errorf("%s (inverted %v, forces %v) %g: %q, want %q", c.q.Short(c.inverted), c.inverted, c.force, c.v, got, c.want)
+		}
 	}
 }
