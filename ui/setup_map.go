@@ -63,7 +63,11 @@ func (r *mapRun) curve(q engine.Quantity) figures.SetupCurve {
 			pts = append(pts, r.points[k])
 		}
 	}
-	return figures.MapCurve(r.st, r.vars[0], pts, q, r.forces, r.limit, r.current[0])
+	c := figures.MapCurve(r.st, r.vars[0], pts, q, r.forces, r.limit, r.current[0])
+	if ax := r.axes[0]; len(ax) > 0 { // the whole range from the first point on
+		c.XFrom, c.XTo = slices.Min(ax), slices.Max(ax)
+	}
+	return c
 }
 
 // viscous reports whether the map has the viscous solution: asked for,

@@ -46,6 +46,15 @@ type SetupCurve struct {
 	// OnsetShort is the figure's label of the line (OnsetLabel when
 	// empty).
 	OnsetLabel, OnsetShort string
+	// XFrom and XTo are the range the variable runs over, drawn whole
+	// from the first point on (equal: the points' own range): a map's
+	// first point alone had an axis ±1 about it, its tick labels run
+	// together, and the axis jumped as points streamed in.
+	XFrom, XTo float64
+	// AtMostOne: the quantity is at most 1 (separation x/c, 1 attached),
+	// and the axis stops just above it (0 to 2 when every point was
+	// attached).
+	AtMostOne bool
 }
 
 // ErrNoSetupData is the set-up figures' error when there is nothing to
@@ -147,8 +156,14 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 	if ext.y0 > ext.y1 { // only crosses
 		ext.y0, ext.y1 = 0, 1
 	}
+	if c.XTo > c.XFrom && !math.IsInf(c.XTo-c.XFrom, 0) {
+		ext.x0, ext.x1 = math.Min(ext.x0, c.XFrom), math.Max(ext.x1, c.XTo)
+	}
 	p.X.Min, p.X.Max = padRange(ext.x0, ext.x1, 0.04)
 	p.Y.Min, p.Y.Max = padRange(ext.y0, ext.y1, 0.08)
+	if c.AtMostOne && p.Y.Max > 1 {
+		p.Y.Max = 1 + 0.05*math.Max(1-p.Y.Min, 0.1)
+	}
 	if n := len(k.entries); n > 1 {
 		// Room above the data for a key of several entries, which would
 		// otherwise cover points of a small figure (the app's cells):

@@ -29,6 +29,7 @@ func MapCurve(st *model.Study, v model.SetupVariable, points []engine.Point, q e
 		Title:  strings.ToUpper(label[:1]) + label[1:],
 		XLabel: v.Label(st), YLabel: label,
 		Current: current, Onset: math.NaN(),
+		AtMostOne: q == engine.QuantitySeparation,
 	}
 	type pt struct {
 		x   float64

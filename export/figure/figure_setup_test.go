@@ -205,3 +205,27 @@ func TestSetupGridKeyLowest(t *testing.T) {
 		t.Fatal(err)
 	}
 }
+
+// TestSetupCurveRanges: a map's curve with its first point alone spans
+// the whole range the variable runs over (its axis was ±1 about the point,
+// the tick labels running together, and it jumped as points came in);
+// separation x/c, attached everywhere (1), stops just above 1 (it ran
+// from 0 to 2).
+func TestSetupCurveRanges(t *testing.T) {
+	nan := math.NaN()
+	c := SetupCurve{Title: "one point (invented)", X: []float64{160}, Y: []float64{276.8}, Current: nan, Onset: nan, XFrom: 20, XTo: 300}
+	p, err := SetupCurvePlot(c, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if p.X.Min > 20 || p.X.Max < 300 || p.X.Max > 320 {
+		t.Errorf("x axis %g to %g, want about 20 to 300", p.X.Min, p.X.Max)
+	}
+	c = SetupCurve{Title: "separation (invented)", X: []float64{20, 40, 60}, Y: []float64{1, 1, 1}, Current: nan, Onset: nan, AtMostOne: true}
+	if p, err = SetupCurvePlot(c, false); err != nil {
+		t.Fatal(err)
+	}
+	if p.Y.Max < 1 || p.Y.Max > 1.1 {
+		t.Errorf("separation axis up to %g, want just above 1", p.Y.Max)
+	}
+}
