@@ -76,9 +76,10 @@ func (cs *coupledState) continuation(ctx context.Context, ueMarch []float64) (it
 	// factorises directly.
 	cs.work.dm.fresh = true
 	k, stride, easy := 0, 1, false
+	var saved stepSave // reused: the kept factors are n² numbers
 	for k < last {
 		if to := min(k+2*stride, last); easy && to > k+1 {
-			saved := cs.saveForStep()
+			cs.saveForStep(&saved)
 			cs.lam = steps[to]
 			conv, n, _, err := cs.iterate(ctx, homotopyLongIter, 0, homotopyTolerance)
 			iters += n
@@ -114,14 +115,15 @@ type stepSave struct {
 	ipiv    []int
 }
 
-func (cs *coupledState) saveForStep() stepSave {
+// saveForStep saves into s what a long step changes, reusing s's slices.
+func (cs *coupledState) saveForStep(s *stepSave) {
 	dm := &cs.work.dm
-	s := stepSave{snap: cs.snapshot(), lam: cs.lam, ueMarch: append([]float64(nil), cs.ueMarch...), n: dm.n, fresh: dm.fresh}
+	s.snap, s.lam, s.n, s.fresh = cs.snapshot(), cs.lam, dm.n, dm.fresh
+	s.ueMarch = append(s.ueMarch[:0], cs.ueMarch...)
 	if !dm.fresh {
-		s.lu = append([]float64(nil), dm.lu...)
-		s.ipiv = append([]int(nil), dm.ipiv...)
+		s.lu = append(s.lu[:0], dm.lu...)
+		s.ipiv = append(s.ipiv[:0], dm.ipiv...)
 	}
-	return s
 }
 
 func (cs *coupledState) restoreForStep(s stepSave) {

@@ -28,7 +28,8 @@ func TestContinuationLongStepRestores(t *testing.T) {
 			}
 		}
 		if detour {
-			saved := cs.saveForStep()
+			var saved stepSave
+			cs.saveForStep(&saved)
 			cs.lam = 0.9
 			if _, _, _, err := cs.iterate(ctx, 2, 0, homotopyTolerance); err != nil {
 				t.Fatal(err)
