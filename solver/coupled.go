@@ -511,24 +511,28 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 			warmRejected = true
 		}
 	}
+	var out *CoupledSolution
 	if !conv && (cold || iters == 0) {
-		// A cold start, or a warm start that failed: from the march.
-		if iters > 0 {
-			cs.reset()
-		}
+		// A cold start, or a warm start that failed: from the march, or
+		// its outcome if it was made on this flow before (marches).
 		n := iters
-		conv, iters, res, err = cs.solve(ctx, cs.march())
-		iters += n
-		if err != nil {
-			return nil, err
+		m, ok := flow.marches.get(opt, st)
+		if !ok {
+			if iters > 0 {
+				cs.reset()
+			}
+			conv, iters, res, err = cs.solve(ctx, cs.march())
+			if err != nil {
+				return nil, err
+			}
+			m = cs.outcome(conv, iters, res)
+			kept := *m
+			flow.marches.put(opt, st, &kept)
 		}
-	}
-	out := cs.result()
-	out.Converged, out.Iterations, out.Residual = conv, iters, res
-	if conv {
-		if why := implausible(out); why != "" {
-			out.Converged, out.Rejected = false, why
-		}
+		out = m
+		out.Iterations += n
+	} else {
+		out = cs.outcome(conv, iters, res)
 	}
 	out.attempts, out.warmRejected = &attempts{}, warmRejected
 	memo.put(key, out)
@@ -537,6 +541,20 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	// to the next attempt.
 	cs.work.release()
 	return out, nil
+}
+
+// outcome returns cs's result after iterations that converged (conv) or
+// not, iters of them, the last with the step res; one that converged on an
+// implausible solution is not taken as converged.
+func (cs *coupledState) outcome(conv bool, iters int, res float64) *CoupledSolution {
+	out := cs.result()
+	out.Converged, out.Iterations, out.Residual = conv, iters, res
+	if conv {
+		if why := implausible(out); why != "" {
+			out.Converged, out.Rejected = false, why
+		}
+	}
+	return out
 }
 
 // implausible returns why a solution that met the tolerance cannot be the

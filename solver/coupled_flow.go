@@ -17,6 +17,8 @@ type coupledFlow struct {
 
 	mu   sync.Mutex
 	sens []*sensitivities // the layouts' most recent last (layoutSensitivities)
+
+	marches marches // the starts from the march made on this flow (coupled_attempts.go)
 }
 
 // sensitivities are the inviscid edge velocities ue0 and their
