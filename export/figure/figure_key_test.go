@@ -97,3 +97,24 @@ func TestPolarMarksSeparatedRows(t *testing.T) {
 		t.Error("the key has no entry for the separated rows")
 	}
 }
+
+// TestPressureTitleInviscidAsStatus: with a converged coupled point the
+// pressure title gives the inviscid Cl the status line and the results
+// give beside the viscous one (from the surface pressure), not the Cl
+// from circulation, which differs in the fourth digit (the views read
+// −2.8980 against 2.897 on the two-element example).
+func TestPressureTitleInviscidAsStatus(t *testing.T) {
+	sc := synthCoupledScene()
+	sc.Coupled.ClInviscid = sc.Solution.Cl - 0.0013 // as pressure and circulation differ
+	s := svgText(t, ViewPressure, sc)
+	if want := "Cl inviscid " + formatTick(sc.Coupled.ClInviscid, 4) + ", viscous " + formatTick(sc.Coupled.Cl, 4); !strings.Contains(s, want) {
+		t.Errorf("pressure title lacks %q", want)
+	}
+	if strings.Contains(s, "Cl from circulation") {
+		t.Error("the title gives the Cl from circulation beside the viscous Cl")
+	}
+	sc.Coupled.Converged = false
+	if s := svgText(t, ViewPressure, sc); !strings.Contains(s, "Cl from circulation") || !strings.Contains(s, "viscous solution not converged") {
+		t.Error("a point that did not converge: the title should keep the Cl from circulation and say so")
+	}
+}

@@ -87,19 +87,24 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		}
 		xlabel = "x/c (reference chord, from the foremost leading edge)"
 	}
-	title := fmt.Sprintf("Pressure: α = %s°, Cl from circulation %s", formatTick(sol.AlphaDeg, 2), formatTick(sol.Cl, 4))
-	if ab.perElement {
-		es := sol.Elements[shown[0]]
-		title = fmt.Sprintf("Pressure on %s: α = %s°, Cl from circulation %s", es.Name, formatTick(sol.AlphaDeg, 2), formatTick(es.Cl, 4))
-		if len(sol.Elements) == 1 {
-			title = fmt.Sprintf("Pressure: α = %s°, Cl from circulation %s", formatTick(sol.AlphaDeg, 2), formatTick(es.Cl, 4))
-		}
-	}
 	elem := -1
 	if ab.perElement {
 		elem = shown[0]
 	}
-	title += coupledTitle(sc.Coupled, elem)
+	on, cl := "Pressure", sol.Cl
+	if ab.perElement {
+		es := sol.Elements[shown[0]]
+		cl = es.Cl
+		if len(sol.Elements) > 1 {
+			on = "Pressure on " + es.Name
+		}
+	}
+	title := fmt.Sprintf("%s: α = %s°, Cl from circulation %s", on, formatTick(sol.AlphaDeg, 2), formatTick(cl, 4))
+	if ct, ok := coupledTitle(sc.Coupled, elem); ok {
+		title = fmt.Sprintf("%s: α = %s°, %s", on, formatTick(sol.AlphaDeg, 2), ct)
+	} else {
+		title += ct
+	}
 	p := newPlot(th, title, xlabel, "Cp")
 	k := newKey(th, keyTopRight)
 	p.Y.Scale = plot.InvertedScale{Normalizer: plot.LinearScale{}}
