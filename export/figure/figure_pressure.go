@@ -174,12 +174,15 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		}
 		mins = append(mins, plotter.XY{X: xmin, Y: es.CpMin})
 		stags = append(stags, plotter.XY{X: xst, Y: cpStagnation})
-		name := ""
+		// On the reference chord's axis the labels name their element and
+		// say that their x/c is along its own chord, not the axis's (the
+		// flap's peak at x/c 0.231 was drawn at 0.75).
+		name, own := "", ""
 		if !ab.perElement {
-			name = es.Name + ": "
+			name, own = es.Name+": ", " (own chord)"
 		}
-		labels.add(&note{x: xmin, y: es.CpMin, dx: vg.Points(5), text: fmt.Sprintf("%sCp min %s at x/c %.3f", name, formatTick(es.CpMin, 3), es.XCpMin), style: noteSty})
-		labels.add(&note{x: xst, y: cpStagnation, dx: vg.Points(5), dy: vg.Points(-2), text: fmt.Sprintf("stagnation x/c %.4f", es.Stagnation.XC), style: noteStyle(th, th.faint, 8, text.XLeft, text.YTop)})
+		labels.add(&note{x: xmin, y: es.CpMin, dx: vg.Points(5), text: fmt.Sprintf("%sCp min %s at x/c %.3f%s", name, formatTick(es.CpMin, 3), es.XCpMin, own), style: noteSty})
+		labels.add(&note{x: xst, y: cpStagnation, dx: vg.Points(5), dy: vg.Points(-2), text: fmt.Sprintf("stagnation x/c %.4f%s", es.Stagnation.XC, own), style: noteStyle(th, th.faint, 8, text.XLeft, text.YTop)})
 	}
 	viscous := addViscousCp(p, k, sc, shown, ab, th)
 	p.Add(labels)
