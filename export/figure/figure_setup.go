@@ -672,14 +672,21 @@ func SpanLoadPlot(s SpanLoad, dark bool) (*plot.Plot, error) {
 	k.add("lifting line", legendLine{sty})
 	if !math.IsNaN(s.TwoD) {
 		r := lineStyle(th.faint, widthNormal, dashRef)
-		p.Add(newLine(plotter.XYs{{X: -half, Y: s.TwoD}, {X: half, Y: s.TwoD}}, r))
+		twoD := plotter.XYs{{X: -half, Y: s.TwoD}, {X: half, Y: s.TwoD}}
+		p.Add(newLine(twoD, r))
 		k.add("two-dimensional", legendLine{r})
+		k.keep(twoD) // the key went over the line's end
 		ext.add(0, s.TwoD)
 	}
 	ext.add(0, 0)
 	k.keep(xys)
 	p.X.Min, p.X.Max = -half*1.04, half*1.04
 	p.Y.Min, p.Y.Max = padRange(ext.y0, ext.y1, 0.06)
+	if len(k.entries) > 1 {
+		// Room above the two-dimensional line for the key, which
+		// otherwise lies over its end.
+		p.Y.Max += (p.Y.Max - p.Y.Min) * keyRoomPerEntry * (float64(len(k.entries)) - 0.5)
+	}
 	p.Add(k)
 	return p, nil
 }

@@ -229,3 +229,21 @@ func TestSetupCurveRanges(t *testing.T) {
 		t.Errorf("separation axis up to %g, want just above 1", p.Y.Max)
 	}
 }
+
+// TestSpanLoadKeyRoom: the span load's axis leaves room above the
+// two-dimensional line for the key, which lay over the line's end.
+func TestSpanLoadKeyRoom(t *testing.T) {
+	s := SpanLoad{Title: "spanwise load (invented)", YLabel: "N/m", SpanM: 1, TwoD: 284.5}
+	for i := range 40 {
+		y := 0.5 * float64(i) / 40
+		s.YM = append(s.YM, y)
+		s.Load = append(s.Load, 185*math.Sqrt(1-4*y*y))
+	}
+	p, err := SpanLoadPlot(s, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if room := (p.Y.Max - s.TwoD) / (p.Y.Max - p.Y.Min); room < 0.2 {
+		t.Errorf("%.0f %% of the axis above the two-dimensional line, want room for the key", 100*room)
+	}
+}
