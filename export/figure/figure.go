@@ -183,7 +183,9 @@ func buildView(v View, sc *Scene) (*plot.Plot, viewInfo, error) {
 		p, err = panelsPlot(sc, th)
 		info.equal = true
 	case ViewPressure:
-		p, err = pressurePlot(sc, th)
+		var k *key
+		p, k, err = pressurePlot(sc, th)
+		info.keys = append(info.keys, k)
 	case ViewStreamlines:
 		p, err = streamlinesPlot(sc, th)
 		info.equal = true

@@ -54,13 +54,13 @@ func (a cpAbscissa) pinX(sc *Scene, i int, xc float64) (float64, bool) {
 
 // pressurePlot draws Cp against x/c, negative up (the trade's convention:
 // suction plotted upwards), upper surface solid, lower dashed.
-func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
+func pressurePlot(sc *Scene, th *theme) (*plot.Plot, *key, error) {
 	sol := sc.Solution
 	if sol == nil || len(sol.Elements) == 0 {
-		return nil, noData(ViewPressure, "no solution")
+		return nil, nil, noData(ViewPressure, "no solution")
 	}
 	if sc.Element < -1 || sc.Element >= len(sol.Elements) {
-		return nil, &ViewError{View: ViewPressure, Err: fmt.Errorf("element %d is not in 0..%d", sc.Element, len(sol.Elements)-1)}
+		return nil, nil, &ViewError{View: ViewPressure, Err: fmt.Errorf("element %d is not in 0..%d", sc.Element, len(sol.Elements)-1)}
 	}
 	shown := []int{sc.Element}
 	if sc.Element < 0 {
@@ -107,6 +107,9 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	}
 	p := newPlot(th, title, xlabel, "Cp")
 	k := newKey(th, keyTopRight)
+	// In rows above the data: Cp curves run through every corner (the
+	// viscous lower surface ran under the key's box at mid-chord).
+	k.above = true
 	p.Y.Scale = plot.InvertedScale{Normalizer: plot.LinearScale{}}
 	p.Add(&refLine{value: 0, style: lineStyle(th.faint, widthThin, nil)})
 
@@ -206,7 +209,7 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	p.Y.Min, p.Y.Max = lo-0.08*d, hi+0.06*d
 	p.X.Min, p.X.Max = padRange(p.X.Min, p.X.Max, 0.02)
 	p.Add(k)
-	return p, nil
+	return p, k, nil
 }
 
 // cpElementX maps an x/c on element es to the configuration abscissa by

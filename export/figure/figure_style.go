@@ -690,9 +690,17 @@ func (ns *noteSet) Plot(c draw.Canvas, p *plot.Plot) {
 			step = -step // a note above its point moves down the page only if it must: try up first
 		}
 		r := box.Add(at)
+		shifted := false
 		for k := 0; k < maxNoteShifts && overlaps(r); k++ {
 			at.Y -= step
 			r = box.Add(at)
+			shifted = true
+		}
+		if shifted && (overlaps(r) || r.Min.Y < c.Min.Y || r.Max.Y > c.Max.Y) {
+			// Moved off the data area (over the axis's tick labels, in a
+			// small figure) or still over another: left out rather than
+			// overprinted.
+			continue
 		}
 		placed = append(placed, r)
 		c.FillText(sty, at, n.text)
