@@ -183,18 +183,15 @@ type reportJob struct {
 
 // newReportJob gathers the report's input: the current result with the
 // sweep shown in the polar (and its drag and transition, when the sweep
-// ran with the boundary layer), and the density study when it holds for
-// the current study.
+// ran with the boundary layer, or its coupled solution with maximum lift),
+// and the density study when it holds for the current study.
 func (w *Workbench) newReportJob() (*reportJob, error) {
 	res, _, _ := w.ctl.Result()
 	if res == nil {
 		return nil, errNoResult
 	}
 	r := *res
-	r.Sweep, r.SweepViscous = w.ctl.Sweep(), w.ctl.SweepViscous()
-	if len(r.SweepViscous) != len(r.Sweep) {
-		r.SweepViscous = nil
-	}
+	w.ctl.AddSweepTo(&r)
 	file := filepath.Base(w.ctl.Path())
 	if w.ctl.Path() == "" {
 		file = "unsaved study"

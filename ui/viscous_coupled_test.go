@@ -13,6 +13,7 @@ import (
 	"sectionbench/assets"
 	"sectionbench/export"
 	figures "sectionbench/export/figure"
+	"sectionbench/export/report"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 	"sectionbench/ui/session"
@@ -253,6 +254,19 @@ func TestCoupledSweep(t *testing.T) {
 	polar := w.views[viewPolar]
 	if polar.canvas.Figure() == nil || !polar.note.Hidden {
 		t.Errorf("polar not drawn after the coupled sweep (%v)", polar.canvas.err)
+	}
+	// The team report written from the window has the coupled sweep and
+	// its maximum lift, as the polar shows them (it said "margin to
+	// maximum lift not known" beside a polar marking it).
+	job, err := w.newReportJob()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r := job.result; len(r.SweepCoupled) != 4 || r.ClMax != clMax || r.AlphaClMax != aMax {
+		t.Errorf("report job: %d coupled rows, Cl max %g at %g°; the window's %g at %g°", len(r.SweepCoupled), r.ClMax, r.AlphaClMax, clMax, aMax)
+	}
+	if c := report.CoupledFrom(job.study, job.result); c == nil || math.IsNaN(c.ClMax) {
+		t.Errorf("the report's coupled summary has no maximum lift: %+v", c)
 	}
 	// Changing only the angle keeps the sweep and its coupled rows.
 	c.alphaEntry.submit("3")

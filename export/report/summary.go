@@ -387,7 +387,9 @@ func (r *writer) openIssues(h headline) []string {
 		}
 	}
 	if math.IsNaN(h.ClMaxMargin) {
-		out = append(out, "How far the wing is from stall is not known: this program estimates no maximum lift yet. Find it by test.")
+		// Only the coupled viscous solution's sweep gives a maximum lift
+		// (it said "this program estimates no maximum lift yet").
+		out = append(out, "How far the wing is from stall is not known: only a sweep with the coupled viscous solution gives a maximum lift, and none converged here (or none ran). Find it by test.")
 	}
 	if n := reynoldsMismatch(st, res); n != "" {
 		out = append(out, n)

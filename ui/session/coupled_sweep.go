@@ -43,3 +43,22 @@ func (c *Controller) SweepCoupled() (rows []engine.CoupledPoint, clMax, alphaClM
 	}
 	return c.sweepCpl.rows, c.sweepCpl.clMax, c.sweepCpl.alphaClMax
 }
+
+// AddSweepTo puts the sweep shown in the polar into res: its rows, the
+// boundary-layer estimate's and the coupled solution's when they ran,
+// and the coupled sweep's maximum lift, so that what is written from res
+// (the team report) says what the window shows. A report written from the
+// window said "margin to maximum lift not known" beside a polar marking
+// it, as it took the sweep's rows but not its coupled solution.
+func (c *Controller) AddSweepTo(res *engine.Result) {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	res.Sweep, res.SweepViscous = c.sweep, c.sweepVis
+	if len(res.SweepViscous) != len(res.Sweep) {
+		res.SweepViscous = nil
+	}
+	res.SweepCoupled, res.ClMax, res.AlphaClMax, res.ClMaxIsPeak = nil, math.NaN(), math.NaN(), false
+	if cs := c.sweepCpl; cs != nil && len(cs.rows) == len(c.sweep) {
+		res.SweepCoupled, res.ClMax, res.AlphaClMax, res.ClMaxIsPeak = cs.rows, cs.clMax, cs.alphaClMax, cs.peak
+	}
+}
