@@ -539,12 +539,24 @@ func appliedNote(r *searchRun, st *model.Study) string {
 		set = append(set, shortLabel(r.st, v)+" "+num(r.res.Best.Values[i])+" "+v.Unit())
 	}
 	note := "Applied " + strings.Join(set, ", ") + " (Edit ▸ Undo takes it back)."
+	pinned := false
+	for _, pin := range st.Pins {
+		pinned = pinned || strings.HasPrefix(pin.Label, searchStartPin)
+	}
+	if !pinned {
+		// Pin the starting point works only on the study at the start:
+		// after Apply it is greyed out without a word.
+		note += " To compare with the start: Undo, Pin the starting point, then apply again."
+	}
 	coupled := st.Viscous.Enabled && st.Viscous.IsCoupled()
 	if r.res.Best.Viscous && !coupled {
 		note += " The search used the coupled viscous solution; the workbench solves the study with its own viscous setting, which is not the coupled solution, so its numbers differ from the search's: choose the coupled viscous solution in the Flow tab to compare them."
 	}
 	return note
 }
+
+// searchStartPin begins the name of the pin of a search's start.
+const searchStartPin = "search start, "
 
 // pinStart pins the study's current result, the starting point, for
 // comparison with the setting applied after it, named as the search's
@@ -561,7 +573,7 @@ func (p *setupSearch) pinStart() {
 		for i, v := range r.vars {
 			set = append(set, shortLabel(r.st, v)+" "+num(r.res.Start.Values[i])+" "+v.Unit())
 		}
-		if e := ctl.RenamePin(n, "search start, "+strings.Join(set, ", ")); e != nil {
+		if e := ctl.RenamePin(n, searchStartPin+strings.Join(set, ", ")); e != nil {
 			err = fmt.Errorf("pinned, with the workbench's name (%v)", e)
 		}
 	}

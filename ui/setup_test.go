@@ -246,6 +246,16 @@ func TestSetupSearchApplyAndPin(t *testing.T) {
 	if p.applyNote.Hidden || !strings.Contains(p.applyNote.Text, "Applied flap deflection") || !strings.Contains(p.applyNote.Text, "Undo") {
 		t.Errorf("after apply the note says %q", p.applyNote.Text)
 	}
+	// The start was pinned before: the note does not ask for it. Without
+	// that pin it says how to get one, Pin being greyed out after Apply.
+	if strings.Contains(p.applyNote.Text, "Pin the starting point") {
+		t.Errorf("the start is pinned, yet the note says %q", p.applyNote.Text)
+	}
+	unpinned := w.ctl.Study().Clone()
+	unpinned.Pins = nil
+	if n := appliedNote(r, unpinned); !strings.Contains(n, "Undo, Pin the starting point, then apply again") {
+		t.Errorf("without a pin of the start the note says %q", n)
+	}
 	w.ctl.Undo()
 	w.WaitIdle()
 	if got := w.ctl.Study().SetupValue(r.vars[0], secs); math.Abs(got-15) > 1e-6 {
