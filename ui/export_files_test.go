@@ -1,6 +1,8 @@
 package ui
 
 import (
+	"context"
+	"errors"
 	"math"
 	"os"
 	"path/filepath"
@@ -151,5 +153,24 @@ func TestExportBoundaryLayerCoupled(t *testing.T) {
 		if !strings.Contains(s, want) {
 			t.Errorf("the coupled boundary-layer table lacks %q", want)
 		}
+	}
+}
+
+// TestReportExportCancels: the team report's export stops when cancelled
+// (its busy dialog has Cancel: the density study it runs first takes
+// minutes on a two-element wing with the coupled solution) and writes
+// nothing.
+func TestReportExportCancels(t *testing.T) {
+	w := newTestBench(t)
+	w.WaitIdle()
+	job := w.writeReportCtx()
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	dir := t.TempDir()
+	if _, err := job(ctx, dir); !errors.Is(err, context.Canceled) {
+		t.Errorf("cancelled export: %v, want the cancellation", err)
+	}
+	if ents, _ := os.ReadDir(dir); len(ents) != 0 {
+		t.Errorf("a cancelled export left %d files", len(ents))
 	}
 }

@@ -32,7 +32,7 @@ const (
 // a folder the user picks, through one export call per file.
 func (w *Workbench) exportItems() []*fyne.MenuItem {
 	items := []*fyne.MenuItem{
-		fyne.NewMenuItem("Team report (PDF)…", func() { w.exportTo(w.writeReport()) }),
+		fyne.NewMenuItem("Team report (PDF)…", func() { w.exportWith(w.writeReportCtx(), true) }),
 		fyne.NewMenuItemSeparator(),
 		fyne.NewMenuItem("Figures (PNG)…", func() { w.exportTo(w.writeFigures("png")) }),
 		fyne.NewMenuItem("Figures (SVG)…", func() { w.exportTo(w.writeFigures("svg")) }),
@@ -48,6 +48,19 @@ func (w *Workbench) exportItems() []*fyne.MenuItem {
 // exportTo asks for a folder and runs write in it, reporting the files
 // written or the error.
 func (w *Workbench) exportTo(write exportJob) {
+	w.exportWith(func(_ context.Context, dir string) ([]string, error) { return write(dir) }, false)
+}
+
+// cancellableJob is an exportJob that stops, writing nothing, when ctx is
+// cancelled.
+type cancellableJob func(ctx context.Context, dir string) ([]string, error)
+
+// exportWith asks for a folder and runs write in it, reporting the files
+// written or the error; with cancellable the busy dialog has a Cancel
+// button (the team report runs a density study first, which takes
+// minutes with the coupled solution on two elements, and the dialog
+// had no way out).
+func (w *Workbench) exportWith(write cancellableJob, cancellable bool) {
 	d := dialog.NewFolderOpen(func(u fyne.ListableURI, err error) {
 		if err != nil {
 			w.userError(err)
@@ -58,20 +71,31 @@ func (w *Workbench) exportTo(write exportJob) {
 		}
 		// Writing can take a few seconds (print-resolution figures): do it
 		// off the UI goroutine behind a busy dialog.
-		busy := dialog.NewCustomWithoutButtons("Exporting…", widget.NewProgressBarInfinite(), w.win)
+		ctx, cancel := context.WithCancel(context.Background())
+		var busy dialog.Dialog
+		if cancellable {
+			busy = dialog.NewCustom("Exporting…", "Cancel", widget.NewProgressBarInfinite(), w.win)
+			busy.SetOnClosed(cancel)
+		} else {
+			busy = dialog.NewCustomWithoutButtons("Exporting…", widget.NewProgressBarInfinite(), w.win)
+		}
 		busy.Show()
 		dir := u.Path()
 		w.ctl.Activity().Add()
 		go func() {
 			defer w.ctl.Activity().Done()
+			defer cancel()
 			var files []string
 			err := recovered(func() error {
 				var err error
-				files, err = write(dir)
+				files, err = write(ctx, dir)
 				return err
 			})
 			w.do(func() {
 				busy.Hide()
+				if errors.Is(err, context.Canceled) {
+					return // cancelled by the user: nothing was written
+				}
 				if err != nil {
 					w.userError(err)
 					return
@@ -202,14 +226,21 @@ func (w *Workbench) newReportJob() (*reportJob, error) {
 // writeReport gathers the report's input on the UI goroutine; the returned
 // function writes it.
 func (w *Workbench) writeReport() exportJob {
+	job := w.writeReportCtx()
+	return func(dir string) ([]string, error) { return job(context.Background(), dir) }
+}
+
+// writeReportCtx is writeReport, stopped (nothing written) when its
+// context is cancelled.
+func (w *Workbench) writeReportCtx() cancellableJob {
 	job, err := w.newReportJob()
 	name := w.exportBase() + "-report.pdf"
-	return func(dir string) ([]string, error) {
+	return func(ctx context.Context, dir string) ([]string, error) {
 		if err != nil {
 			return nil, err
 		}
 		return []string{name}, export.WriteFileAtomic(filepath.Join(dir, name), func(out io.Writer) error {
-			return writeReport(out, job.study, job.result, job.sections, job.reports, job.density, job.file, job.version, job.setup)
+			return writeReport(ctx, out, job.study, job.result, job.sections, job.reports, job.density, job.file, job.version, job.setup)
 		})
 	}
 }
@@ -258,15 +289,18 @@ func tableMetadata(st *model.Study, res *engine.Result, version string) format.M
 // and their cleaning reports. Without a density study the report runs one
 // (a report always carries its convergence evidence); it takes tens of
 // milliseconds inviscid, and this runs off the UI goroutine.
-func writeReport(w io.Writer, st *model.Study, res *engine.Result, secs []*model.Section, reps []*model.CleanReport, density *engine.DensityResult, fileName, version string, setup *report.Setup) error {
+func writeReport(ctx context.Context, w io.Writer, st *model.Study, res *engine.Result, secs []*model.Section, reps []*model.CleanReport, density *engine.DensityResult, fileName, version string, setup *report.Setup) error {
 	if density == nil && len(secs) == len(st.Elements) {
-		if d, err := engine.NewEngine().Density(context.Background(), st, secs, nil); err == nil {
+		if d, err := engine.NewEngine().Density(ctx, st, secs, nil); err == nil {
 			density = d
 		}
 	}
 	var vd []report.ViscousDensityRow
 	if len(secs) == len(st.Elements) {
-		vd = report.ViscousDensity(context.Background(), st, secs, density) // nil with the boundary layer off; from the density study's rows when it solved the coupled solution
+		vd = report.ViscousDensity(ctx, st, secs, density) // nil with the boundary layer off; from the density study's rows when it solved the coupled solution
+	}
+	if err := ctx.Err(); err != nil {
+		return err // cancelled: no report without its density study
 	}
 	return report.Write(w, report.Input{Study: st, Result: res, Density: density, FileName: fileName, AppVersion: version, Sections: secs, CleanReports: reps, ViscousDensity: vd, Setup: setup})
 }
