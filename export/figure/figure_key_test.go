@@ -1,10 +1,12 @@
 package figure
 
 import (
+	"bytes"
 	"image"
 	"image/png"
 	"math"
 	"os"
+	"slices"
 	"strings"
 	"testing"
 
@@ -116,5 +118,34 @@ func TestPressureTitleInviscidAsStatus(t *testing.T) {
 	sc.Coupled.Converged = false
 	if s := svgText(t, ViewPressure, sc); !strings.Contains(s, "Cl from circulation") || !strings.Contains(s, "viscous solution not converged") {
 		t.Error("a point that did not converge: the title should keep the Cl from circulation and say so")
+	}
+}
+
+// TestTwinAxisShortLabel: in a figure as small as the workbench's polar
+// cell (4.7 × 2.5 inches) the right axis says "Cm" at a readable size
+// rather than its whole label shrunk to 6 pt; a larger figure keeps the
+// whole label.
+func TestTwinAxisShortLabel(t *testing.T) {
+	sc := synthCoupledScene()
+	for _, c := range []struct {
+		name          string
+		wIn, hIn      float64
+		whole, shortL bool
+	}{
+		{"cell", 4.7, 2.5, false, true},
+		{"page", 8, 5, true, false},
+	} {
+		var b bytes.Buffer
+		if err := WriteFigure(&b, ViewPolar, sc, "svg", c.wIn, c.hIn, 96); err != nil {
+			t.Fatal(err)
+		}
+		texts, err := svgTexts(b.Bytes())
+		if err != nil {
+			t.Fatal(err)
+		}
+		whole, short := slices.Contains(texts, "Cm (about the moment reference)"), slices.Contains(texts, "Cm")
+		if whole != c.whole || short != c.shortL {
+			t.Errorf("%s: whole label %v, short %v; want %v, %v", c.name, whole, short, c.whole, c.shortL)
+		}
 	}
 }

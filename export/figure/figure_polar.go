@@ -23,6 +23,7 @@ type twinAxis struct {
 	color     color.Color
 	tickLabel text.Style
 	axisLabel text.Style
+	short     string // the label where the whole one would shrink below twinReadablePt
 }
 
 const (
@@ -53,6 +54,10 @@ func (t *twinAxis) width() vg.Length {
 	return twinTickLen + twinGap + w + twinGap + t.axisLabel.Height(t.label)
 }
 
+// twinReadablePt is the smallest size the twin axis's whole label is
+// shrunk to before it gives way to its short form.
+const twinReadablePt = 8
+
 func (t *twinAxis) Plot(c draw.Canvas, p *plot.Plot) {
 	sty := lineStyle(t.color, widthThin, nil)
 	x := c.Max.X
@@ -70,11 +75,19 @@ func (t *twinAxis) Plot(c draw.Canvas, p *plot.Plot) {
 	}
 	ls := t.axisLabel
 	ls.Rotation = -math.Pi / 2
-	// Shrunk to the data area's height, as fitLabels shrinks the others.
-	if w, room := ls.Width(t.label), c.Max.Y-c.Min.Y-vg.Points(8); w > room && room > 0 {
-		ls.Font.Size = max(ls.Font.Size*room/w, minLabelPt)
+	// Shrunk to the data area's height, as fitLabels shrinks the others;
+	// where that would make it smaller than twinReadablePt (the
+	// workbench's small cell drew it at 6 pt beside a 10 pt left axis),
+	// the short label instead.
+	label := t.label
+	if w, room := ls.Width(label), c.Max.Y-c.Min.Y-vg.Points(8); w > room && room > 0 {
+		if size := ls.Font.Size * room / w; size < vg.Points(twinReadablePt) && t.short != "" {
+			label = t.short
+		} else {
+			ls.Font.Size = max(size, minLabelPt)
+		}
 	}
-	c.FillText(ls, vg.Point{X: x + twinTickLen + 2*twinGap + tw + t.axisLabel.Height(t.label)/2, Y: c.Center().Y}, t.label)
+	c.FillText(ls, vg.Point{X: x + twinTickLen + 2*twinGap + tw + t.axisLabel.Height(label)/2, Y: c.Center().Y}, label)
 }
 
 // GlyphBoxes reserves the axis's width on the right of the data area.
@@ -150,7 +163,7 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, *key, error) {
 	p.X.Min, p.X.Max = padRange(a0, a1, 0.03)
 	lo, hi := padRange(cm0, cm1, 0.06)
 	tw := &twinAxis{
-		min: lo, max: hi, label: "Cm (about the moment reference)", color: th.second,
+		min: lo, max: hi, label: "Cm (about the moment reference)", short: "Cm", color: th.second,
 		tickLabel: noteStyle(th, th.fg, 9, text.XLeft, text.YCenter),
 		axisLabel: noteStyle(th, th.fg, 10, text.XCenter, text.YCenter),
 	}
