@@ -226,7 +226,15 @@ func (r *writer) resultsSection() {
 	if c := r.in.Coupled; c != nil {
 		r.need(tableHeight(len(c.Elements)) + 15)
 		r.subheading("Viscous solution (coupled)")
-		state := fmt.Sprintf("Converged in %d %s: Cl %s, Cd %s on the reference chord (inviscid Cl %s beside it).", c.Iterations, plural(c.Iterations, "iteration", "iterations"), Coef(c.Cl), Coef(c.Cd), Coef(res.Solution.Cl))
+		// The inviscid Cl the coupled solution is compared with, as the
+		// window's status line and results give it (from the surface
+		// pressure); it gave the Cl from circulation, which differs in
+		// the fourth digit.
+		inv := res.Solution.Cl
+		if res.Coupled != nil && !math.IsNaN(res.Coupled.ClInviscid) {
+			inv = res.Coupled.ClInviscid
+		}
+		state := fmt.Sprintf("Converged in %d %s: Cl %s, Cd %s on the reference chord (inviscid Cl %s beside it).", c.Iterations, plural(c.Iterations, "iteration", "iterations"), Coef(c.Cl), Coef(c.Cd), Coef(inv))
 		if !c.Converged {
 			state = fmt.Sprintf("Did not converge (%d iterations%s): no viscous numbers at this angle; the inviscid ones above are for orientation only.", c.Iterations, rejectedWhy(c))
 		}

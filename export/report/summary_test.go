@@ -294,7 +294,8 @@ func TestSummaryFromCoupledEngine(t *testing.T) {
 	// not cut inside its word ("(viscou" / "s)").
 	for _, w := range []string{"Viscous solution (coupled)", newtons(h.LoadN), "viscous solution (coupled)",
 		"Boundary layers (coupled viscous solution)", "the sweep's viscous Cl (the inviscid load dashed for comparison)",
-		"Viscous solution on (coupled viscous solution", "inviscid Cl → 0.9100"} {
+		"Viscous solution on (coupled viscous solution", "inviscid Cl → 0.9100",
+		"(inviscid Cl " + Coef(res.Coupled.ClInviscid) + " beside it)"} {
 		if !strings.Contains(text, w) {
 			t.Errorf("report lacks %q", w)
 		}
