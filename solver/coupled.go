@@ -477,24 +477,22 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	if r, ok := memo.get(key); ok {
 		return r, nil
 	}
-	skipWarm := false
 	if steps == warmBoth {
 		// The iterations straight from warm, made before on their own
 		// (cheapRoute): converged, this attempt ends as they did; met
 		// on an implausible solution, which ends the warm part too, it
-		// ends as they did or, cold, goes on from the march without
-		// making them again (on BenchmarkCoupledPolar41TwoElement 7–12
-		// iterations each, eight times at −9.5° and −10°); failed, it
-		// goes on with the continuation.
+		// ends as they did when it is not to go on from the march (on
+		// BenchmarkCoupledPolar41TwoElement 7–11 iterations each, four
+		// times at −9.5° and −10°; cold, they are made again, for the
+		// march after them starts from the factors they leave);
+		// failed, it goes on with the continuation.
 		if r, ok := memo.get(newAttemptKey(s, alphaDeg, opt, st, warmDirect, false)); ok {
 			switch {
 			case r.Converged:
 				return r, nil
 			case r.warmRejected && !cold:
 				return r, nil
-			case r.warmRejected:
-				skipWarm = true
-			case r.Rejected == "":
+			case !r.warmRejected && r.Rejected == "":
 				steps = warmContinuation
 			}
 		}
@@ -505,10 +503,10 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	}
 	cs := stateOn(flow, opt)
 	cs.strategy = st
-	conv, warmRejected := false, skipWarm
+	var conv, warmRejected bool
 	var iters int
 	var res float64
-	if !skipWarm && warm != nil && warm.state != nil && s.sameElements(warm.state.sol.sys) {
+	if warm != nil && warm.state != nil && s.sameElements(warm.state.sol.sys) {
 		var ok bool
 		conv, iters, res, ok, err = cs.solveFrom(ctx, warm.state, steps)
 		if err != nil {
@@ -521,24 +519,31 @@ func (s *System) solveOnce(ctx context.Context, alphaDeg float64, opt CoupledOpt
 	}
 	var out *CoupledSolution
 	if !conv && (cold || iters == 0) {
-		// A cold start, or a warm start that failed: from the march, or
-		// its outcome if it was made on this flow before (marches).
-		n := iters
-		m, ok := flow.marches.get(opt, st)
+		// A cold start, or a warm start that failed: from the march. A
+		// start from the march on a state of its own (no warm start
+		// iterated on it before) is made once per flow (marches).
+		fresh := iters == 0
+		var m *CoupledSolution
+		ok := false
+		if fresh {
+			m, ok = flow.marches.get(opt, st)
+		}
 		if !ok {
-			if iters > 0 {
+			n := iters
+			if n > 0 {
 				cs.reset()
 			}
 			conv, iters, res, err = cs.solve(ctx, cs.march())
 			if err != nil {
 				return nil, err
 			}
-			m = cs.outcome(conv, iters, res)
-			kept := *m
-			flow.marches.put(opt, st, &kept)
+			m = cs.outcome(conv, iters+n, res)
+			if fresh {
+				kept := *m
+				flow.marches.put(opt, st, &kept)
+			}
 		}
 		out = m
-		out.Iterations += n
 	} else {
 		out = cs.outcome(conv, iters, res)
 	}

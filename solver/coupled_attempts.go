@@ -70,60 +70,38 @@ func (a *attempts) put(k attemptKey, r *CoupledSolution) {
 }
 
 // marches remembers, on a flow, the outcome of each start from the march
-// made on it (solveOnce), so that it is not made again. The march and
-// the iterations from it do not depend on the warm start that failed
-// before them (the state is laid out afresh, reset), so the same start
-// came up again and again: on a polar, an angle's halving solves the
-// angle half way between from the march, and the next angle, whose
-// neighbour failed, halves through the same angle (on
-// BenchmarkCoupledPolar41TwoElement −9.5° from the march twice, 192
-// iterations); on a map, the rescue from a further neighbour ends with
-// the same march as the nearest neighbour's attempts (on
-// BenchmarkMapTwoElement20x20 every point that did not converge made
-// both strategies' marches twice, with the same iterations). The outcome
-// is kept with the iteration bound it had: one that failed within a
-// bound fails within any lower one (the iterations are the same up to
-// it), so a rescue's shorter bound (engine rescueIterations) takes it too.
+// made on a state of its own (solveOnce: a cold start, not the march after
+// a warm start failed on the same state, which starts from the factors
+// that left), so that it is not made again: such a start depends only on
+// the flow, the options and the strategy. On a polar the same one came up
+// again: an angle's halving solves the angle half way between from the
+// march, and the next angle, whose neighbour failed, halves through the
+// same angle (on BenchmarkCoupledPolar41TwoElement −10° made −9.5°'s
+// marches again, 192 iterations). The outcome is taken again only with
+// the same iteration bound: a march that failed within 60 iterations can
+// converge within fewer, for iterate keeps the converged state before a
+// round that fails (on BenchmarkMapTwoElement20x20 the point at 45 mm,
+// 6.5° converges so in its rescue's 30).
 type marches struct {
 	mu   sync.Mutex
-	done map[marchKey]marchOutcome
+	done map[marchKey]*CoupledSolution
 }
 
 type marchKey struct {
-	opt string // the options but the iteration bound
+	opt string
 	st  strategy
 }
 
-type marchOutcome struct {
-	sol   *CoupledSolution
-	bound int // the iteration bound it was made with
-}
-
-func newMarchKey(opt CoupledOptions, st strategy) marchKey {
-	opt.MaxIterations = 0
-	return marchKey{opt: fmt.Sprint(opt), st: st}
-}
-
-// iterationBound returns opt's bound on the Newton iterations.
-func iterationBound(opt CoupledOptions) int {
-	if opt.MaxIterations > 0 {
-		return opt.MaxIterations
-	}
-	return defaultMaxIter
-}
-
 // get returns a copy of the remembered outcome of the start from the
-// march with opt and st, with no iterations, if there is one made with
-// opt's bound, or one that failed with a bound at least as high.
+// march with opt and st, with no iterations, and whether there was one.
 func (m *marches) get(opt CoupledOptions, st strategy) (*CoupledSolution, bool) {
 	m.mu.Lock()
 	defer m.mu.Unlock()
-	r, ok := m.done[newMarchKey(opt, st)]
-	bound := iterationBound(opt)
-	if !ok || !(r.bound == bound || !r.sol.Converged && r.bound > bound) {
+	r, ok := m.done[marchKey{opt: fmt.Sprint(opt), st: st}]
+	if !ok {
 		return nil, false
 	}
-	c := *r.sol
+	c := *r
 	c.Iterations = 0
 	return &c, true
 }
@@ -133,7 +111,7 @@ func (m *marches) put(opt CoupledOptions, st strategy, r *CoupledSolution) {
 	m.mu.Lock()
 	defer m.mu.Unlock()
 	if m.done == nil {
-		m.done = map[marchKey]marchOutcome{}
+		m.done = map[marchKey]*CoupledSolution{}
 	}
-	m.done[newMarchKey(opt, st)] = marchOutcome{sol: r, bound: iterationBound(opt)}
+	m.done[marchKey{opt: fmt.Sprint(opt), st: st}] = r
 }

@@ -121,9 +121,6 @@ func stateOn(f *coupledFlow, opt CoupledOptions) *coupledState {
 // reset lays the stations out again at the inviscid stagnation points
 // with zeroed variables, keeping the wakes and source sensitivities (the
 // costly part), for a start from the march after a failed warm start.
-// The factors the failed start left are dropped too, so that the start
-// from the march is the same to the last bit as on a state of its own
-// (its outcome is remembered for both: marches).
 func (cs *coupledState) reset() {
 	for k := range cs.geo.elems {
 		cs.stag[k], cs.sStag[k] = stagnationSplit(&cs.geo.elems[k], cs.sol.g, -1)
@@ -132,7 +129,6 @@ func (cs *coupledState) reset() {
 	cs.layout()
 	n := len(cs.st)
 	cs.c, cs.th, cs.m = make([]float64, n), make([]float64, n), make([]float64, n)
-	cs.work.dm.fresh = true
 }
 
 // stagnationSplit returns the node k such that the stagnation point lies
