@@ -5,6 +5,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -195,19 +196,21 @@ func TestSolveStudyViscousMode(t *testing.T) {
  "elements": [{"name": "main", "section": "naca:0012", "chord_mm": 1000}],
  "panelling": {"panels": 160, "spacing": "cosine", "nose": 0.5, "tail": 0.2},
  "flow": {"alpha_deg": 4, "reynolds": 6e6}, "sweep": {"from_deg": 0, "to_deg": 4, "step_deg": 2},
- "viscous": {"enabled": true, "trip_upper": 0.05, "trip_lower": 0.05%s}, "pins": []}`
+ "viscous": {"enabled": %v, "trip_upper": 0.05, "trip_lower": 0.05%s}, "pins": []}`
 	for _, tc := range []struct {
 		name, extra string
 		flags       []string
 		mode        string
+		off         bool // saved with the viscous solution off
 	}{
-		{"coupled", `, "mode": "coupled"`, nil, "coupled"},
-		{"saved before the coupled solution", ``, nil, "estimate"},
-		{"mode from the command line", ``, []string{"--viscous-mode", "coupled", "--trip-upper", "0.1"}, "coupled"},
+		{"coupled", `, "mode": "coupled"`, nil, "coupled", false},
+		{"saved before the coupled solution", ``, nil, "estimate", false},
+		{"mode from the command line", ``, []string{"--viscous-mode", "coupled", "--trip-upper", "0.1"}, "coupled", false},
+		{"mode from the command line on a study saved with it off", `, "mode": "coupled"`, []string{"--viscous-mode", "coupled", "--trip-upper", "0.1"}, "coupled", true},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			path := filepath.Join(dir, "study.json")
-			if err := os.WriteFile(path, []byte(strings.Replace(doc, "%s", tc.extra, 1)), 0o644); err != nil {
+			if err := os.WriteFile(path, []byte(strings.NewReplacer("%v", strconv.FormatBool(!tc.off), "%s", tc.extra).Replace(doc)), 0o644); err != nil {
 				t.Fatal(err)
 			}
 			code, out, stderr := runCLI(t, append([]string{"solve", "--study", path, "--format", "json"}, tc.flags...)...)

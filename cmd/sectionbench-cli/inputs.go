@@ -116,7 +116,13 @@ func (in *inputs) load(fs *flags) (*model.Study, []*model.Section, []*model.Clea
 		st.Viscous.Enabled = in.re > 0
 	}
 	if in.set["viscous-mode"] {
+		// Naming a mode asks for the viscous solution: a study saved with
+		// it off gets it on, rather than the flag doing nothing.
+		if in.set["re"] && !(in.re > 0) {
+			return nil, nil, nil, usagef("--viscous-mode %s with --re %g: a viscous solution needs a Reynolds number (--re 0 turns it off)", in.viscousMode, in.re)
+		}
 		st.Viscous.Mode = model.ViscousMode(in.viscousMode)
+		st.Viscous.Enabled = true
 	}
 	if in.set["transition-n"] {
 		// A study's 0 stands for the default; typed on the command line
@@ -131,6 +137,15 @@ func (in *inputs) load(fs *flags) (*model.Study, []*model.Section, []*model.Clea
 	}
 	if in.set["trip-lower"] {
 		st.Viscous.TripLower = in.tripLower
+	}
+	if !st.Viscous.Enabled {
+		// A viscous setting typed while the viscous solution is off would
+		// change nothing: say so instead of answering inviscid silently.
+		for _, f := range []string{"transition-n", "trip-upper", "trip-lower"} {
+			if in.set[f] {
+				return nil, nil, nil, usagef("--%s: the viscous solution is off here; add --viscous-mode coupled (or estimate), or --re", f)
+			}
+		}
 	}
 	if err := st.Validate(); err != nil {
 		return nil, nil, nil, flagError(err)
