@@ -234,7 +234,10 @@ func (o *Outline) titleLines() []string {
 	}
 	var els []string
 	for _, e := range o.Elements {
-		els = append(els, fmt.Sprintf("%s chord %.1f mm", asciiText(e.Name), e.TE.Dist(e.LE)))
+		// The study's chord: the distance from the leading-edge node to the
+		// trailing edge differs from it where the contour reaches ahead of
+		// the chord's origin (a cambered NACA section: x/c −0.0003).
+		els = append(els, fmt.Sprintf("%s chord %.1f mm", asciiText(e.Name), e.ChordMM))
 	}
 	lines = append(lines, "Elements: "+strings.Join(els, "; "), "Drawing: "+kind)
 	var mat []string

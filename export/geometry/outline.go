@@ -32,6 +32,7 @@ type OutlineElement struct {
 	Contour []model.Point // closed loop (the last point joins the first), counter-clockwise
 	Inner   *Offset       // inward offset by the skin thickness; nil when not asked for
 	LE, TE  model.Point   // chord line ends
+	ChordMM float64       // the element's chord as the study sets it
 	Marks   []MarkShape
 }
 
@@ -192,7 +193,7 @@ func NewOutline(name string, l *model.Layout, opt OutlineOptions) (*Outline, err
 		if model.PolygonArea(pts) < 0 { // mirrored for inverted mounting
 			pts = reverseLoop(pts, closed)
 		}
-		oe := OutlineElement{Name: e.Name, Contour: pts, LE: le, TE: te}
+		oe := OutlineElement{Name: e.Name, Contour: pts, LE: le, TE: te, ChordMM: e.Chord * mmPerM}
 		if opt.SkinMM > 0 {
 			// The offset of a mirrored section is the mirror of the
 			// section's offset: compute it the right way up.
