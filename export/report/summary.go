@@ -201,7 +201,7 @@ func (r *writer) summaryPage() {
 	if !math.IsNaN(h.LiftToDrag) {
 		ld = num(h.LiftToDrag, 1)
 	}
-	kv = append(kv, [2]string{h.LoadName + " over drag", ld})
+	kv = append(kv, [2]string{h.LoadName + " to drag", ld})
 	margin := "not known: maximum lift needs the coupled viscous solution, which has not run; potential flow never stalls"
 	if !math.IsNaN(h.ClMaxMargin) {
 		margin = fmt.Sprintf("%s in the coefficient (%s of %s at Cl max), %s° in angle of attack", Coef(h.ClMaxMargin), Coef(h.LoadCoef), Coef(r.in.Coupled.ClMax), num(h.AlphaMargin, 1))

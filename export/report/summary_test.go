@@ -68,7 +68,7 @@ func TestSummaryNumbers(t *testing.T) {
 	}
 	text := pdfText(t, in)
 	for _, w := range []string{newtons(h.LoadN), newtons(h.DragN), num(h.LiftToDrag, 1), Coef(0.42), "converged in 12 iterations",
-		"Chord rise, mm", "+ = leading edge down", model.FrameText, "Downforce over drag"} {
+		"Chord rise, mm", "+ = leading edge down", model.FrameText, "Downforce to drag"} {
 		if !strings.Contains(text, w) {
 			t.Errorf("summary lacks %q", w)
 		}
