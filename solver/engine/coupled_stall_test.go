@@ -30,8 +30,14 @@ import (
 // hops were 0.032 and more); the maximum is a peak inside the sweep, with
 // separation ahead of x/c 0.7 there (where the trailing-edge stall of such
 // sections takes its maximum, common practice); and the single solve at
-// 12° on a fresh engine lands on the sweep's root, within
-// SolveAgreementTolerance.
+// 12° and at 16° (the maximum) on a fresh engine land on the sweep's
+// roots, within SolveAgreementTolerance. The single solve at 16° walks
+// from 0° in steps of under 2° (coupledAt), not the sweep's path; it
+// reached 13.125° and no further until a warm start laid its stations out
+// about its neighbour's coupled stagnation point (solver's
+// warmStagnation). At 15° it lands 1.3e-4 from the sweep's row (1.52278
+// against 1.52291), the sweep's reached with the other strategy
+// (following the stagnation point), so 15° is not checked here.
 func TestEngineCoupledCamberedStall(t *testing.T) {
 	if testing.Short() {
 		t.Skip("long coupled sweep: run without -short (the race pass uses -short)")
@@ -76,9 +82,11 @@ func TestEngineCoupledCamberedStall(t *testing.T) {
 	if !res.ClMaxIsPeak || !(rows[at].Elements[0].SeparationUpper < 0.7) {
 		t.Errorf("Cl max %.4f at %g°, peak %v, upper separation x/c %.3f: want a peak with separation ahead of x/c 0.7", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak, rows[at].Elements[0].SeparationUpper)
 	}
-	st.Flow.AlphaDeg = 12
-	single := run(t, NewEngine(), st, secs, false).Coupled
-	if want := rows[12].Cl; !single.Converged || math.Abs(single.Cl-want) > SolveAgreementTolerance {
-		t.Errorf("α 12° solved alone: converged %v, Cl %.5f; the sweep's %.5f", single.Converged, single.Cl, want)
+	for _, a := range []int{12, 16} {
+		st.Flow.AlphaDeg = float64(a)
+		single := run(t, NewEngine(), st, secs, false).Coupled
+		if want := rows[a].Cl; !single.Converged || math.Abs(single.Cl-want) > SolveAgreementTolerance {
+			t.Errorf("α %d° solved alone: converged %v, Cl %.5f; the sweep's %.5f", a, single.Converged, single.Cl, want)
+		}
 	}
 }
