@@ -621,20 +621,15 @@ func (cs *coupledState) warmFrom(w *coupledState) bool {
 // moved any.
 //
 // The neighbour's coupled stagnation point is found from its coupled
-// speeds (splitsOf) where that lies nearStagnationStations panels or more
-// from its layout's: a solution converged with the layout held (strategy
-// "hold") can keep a layout panels from its coupled stagnation point, and
-// that far its first coupled station (past the near-stagnation ones,
-// whose speeds the layers take from it, ueLayers) lies in flow nearly at
-// rest. Nearer, the near-stagnation stations take up the difference and
-// the layout's is kept: taken from the speeds there too (1–2 panels
-// away), the two-element example's free 3° at 100 mm
-// (TestCoupledTwoElementGround) no longer converged. Only in free air,
-// from the same system: in ground effect, where each angle is a system
-// of its own pitched above the ground, it moved the two-element example's
-// main-element layout three panels at 10° from 9° (tripped,
-// TestExampleTwoElementSweep) onto another root, Cl −4.650 where 9° has
-// −4.740; why was not found.
+// speeds (splitsOf), not taken from its layout: a solution converged with
+// the layout held (strategy "hold") can keep a layout panels from its
+// coupled stagnation point, its first coupled station (past the
+// near-stagnation ones, whose speeds the layers take from it, ueLayers)
+// then in flow nearly at rest. Only in free air: in ground effect it lost
+// the two-element example's free 3° at 100 mm
+// (TestCoupledTwoElementGround) and moved its main-element layout three
+// panels at 10° from 9° (tripped, TestExampleTwoElementSweep) onto
+// another root, Cl −4.650 where 9° has −4.740; why was not found.
 //
 // Measured on kt:-0.1,0.1,10 at Re 1e6 (free transition, 240 panels): the
 // 1° sweep's 12° solution had its layout at the inviscid stagnation panel
@@ -647,11 +642,11 @@ func (cs *coupledState) warmFrom(w *coupledState) bool {
 func (cs *coupledState) warmStagnation(w *coupledState) bool {
 	moved := false
 	wc, wcs := w.splitsOf(w.ue())
-	sameSystem := w.sol.sys == cs.sol.sys
+	free := !cs.geo.ground
 	for k := range cs.geo.elems {
 		e := &cs.geo.elems[k]
 		wk, ws := stagnationSplit(&w.geo.elems[k], w.sol.g, -1)
-		if d := wc[k] - w.stag[k]; !sameSystem || wcs[k] < 0 || d < nearStagnationStations && -d < nearStagnationStations {
+		if !free || wcs[k] < 0 {
 			wc[k], wcs[k] = w.stag[k], w.sStag[k]
 		}
 		if d := wc[k] - wk; d < minRelayoutShift && -d < minRelayoutShift {
