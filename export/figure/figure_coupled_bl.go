@@ -3,10 +3,10 @@ package figure
 import (
 	"fmt"
 	"math"
-	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
@@ -43,8 +43,8 @@ func surfaceArcXYs(s solver.CoupledSurface, get func(solver.CoupledStation) floa
 // coupledBoundaryLayerPlot draws the converged coupled solution's boundary
 // layer on one element (sc.Element; the first when −1): θ, δ*, H, Cf and
 // the amplification ñ of the upper and lower surface against the arc
-// length from the stagnation point, in panels, with transition and
-// separation in the title's second line.
+// length from the stagnation point, in panels laid out by coupledBLPanels
+// for the size drawn at, with transition and separation in a caption.
 func coupledBoundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	d := coupledDetail(sc)
 	if d == nil || len(d.Elements) == 0 {
@@ -57,13 +57,16 @@ func coupledBoundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 	e := d.Elements[i]
 	upSty := lineStyle(th.upper, widthNormal, nil)
 	loSty := lineStyle(th.lower, widthNormal, dashLower)
-	var subs []*plot.Plot
-	var peaks []string
-	for j, q := range coupledBLQuantities {
+	b := &coupledBLPanels{
+		caption:    coupledBLCaption(e),
+		captionSty: noteStyle(th, th.fg, blCaptionPt, text.XCenter, text.YTop),
+		keySty:     textStyle(th.fg, keyTextPt, text.XLeft, text.YCenter),
+		key:        []keyEntry{{"upper surface", legendLine{upSty}}, {"lower surface", legendLine{loSty}}},
+	}
+	for _, q := range coupledBLQuantities {
 		p := newPlot(th, "", "s/c from stagnation", q.label)
 		p.Y.Label.TextStyle.Font.Size = vg.Points(blLabelPt)
 		p.X.Label.TextStyle.Font.Size = vg.Points(blLabelPt)
-		k := newKey(th, keyTopLeft)
 		var lines []plotter.XYs
 		for _, s := range []struct {
 			surf solver.CoupledSurface
@@ -71,40 +74,127 @@ func coupledBoundaryLayerPlot(sc *Scene, th *theme) (*plot.Plot, error) {
 		}{{e.Upper, upSty}, {e.Lower, loSty}} {
 			if xys := surfaceArcXYs(s.surf, q.get); len(xys) > 1 {
 				p.Add(newLine(xys, s.sty))
-				k.keep(xys)
 				lines = append(lines, xys)
 			}
-		}
-		if j == 0 {
-			k.add("upper surface", legendLine{upSty})
-			k.add("lower surface", legendLine{loSty})
-			p.Add(k)
 		}
 		if p.Y.Min > p.Y.Max {
 			p.Y.Min, p.Y.Max = 0, 1
 		}
 		// The stagnation peak (of Cf, say) runs off the top, as in the
 		// estimate's figure (blRange).
+		peak := ""
 		if aft, all := blRange(lines); aft > 0 && all > blPeakRatio*aft {
 			p.Y.Max = aft
-			peaks = append(peaks, fmt.Sprintf("%s peak %.3g at stagnation off scale", q.label, all))
+			peak = fmt.Sprintf("%s peak %.3g at stagnation off scale", q.label, all)
 		}
 		p.Y.Min = math.Min(p.Y.Min, 0)
 		if low := math.Min(aftMin(lines), 0); p.Y.Min < low {
 			p.Y.Min = low // a dip at stagnation, likewise
 		}
 		p.Y.Min, p.Y.Max = padRange(p.Y.Min, p.Y.Max, 0.05)
-		subs = append(subs, p)
+		b.tiles = append(b.tiles, p)
+		b.peaks = append(b.peaks, peak)
 	}
-	title := fmt.Sprintf("Boundary layer on %s, viscous solution: Cd %s\n%s", e.Name, formatTick(e.Cd, 4), coupledBLCaption(e))
-	if len(peaks) > 0 {
-		title += "\n" + strings.Join(peaks, " · ")
-	}
-	return compositePlot(th, title, 2, 3, subs...), nil
+	p := compositePlot(th, fmt.Sprintf("Boundary layer on %s, viscous solution: Cd %s", e.Name, formatTick(e.Cd, 4)), 1, 1)
+	p.Add(b)
+	return p, nil
 }
 
-// coupledBLCaption says where each surface's layer changes, in x/c.
-func coupledBLCaption(e solver.CoupledElement) string {
+// coupledBLSmall are the panels (indices into coupledBLQuantities) that a
+// figure too small for all five draws, side by side: H and Cf, which show
+// transition and separation; the thicknesses and ñ are left out and the
+// caption says so (coupledBLSmallNote).
+var coupledBLSmall = []int{2, 3}
+
+// coupledBLSmallNote ends the caption of a figure drawn with coupledBLSmall.
+const coupledBLSmallNote = "θ, δ* and ñ left out: too small a figure for them"
+
+// coupledBLPanels lays out the coupled boundary-layer figure inside the
+// data area of a plot without axes: the caption lines, a row naming the
+// surfaces' lines (above the panels, where it covers no curve), then the
+// five panels in two rows of three; with less than 2 blMinPanelPt of
+// height for them (the workbench's view cell), the coupledBLSmall panels
+// in one row.
+type coupledBLPanels struct {
+	caption    []string
+	captionSty text.Style
+	keySty     text.Style
+	key        []keyEntry
+	tiles      []*plot.Plot
+	peaks      []string // per tile, "" when its curves fit
+}
+
+// layout returns the caption lines for a data area of w × h and the
+// panels to draw there.
+func (b *coupledBLPanels) layout(w, h vg.Length) (lines []string, shown []int) {
+	items := func(shown []int, note ...string) []string {
+		it := append([]string(nil), b.caption...)
+		for _, i := range shown {
+			if b.peaks[i] != "" {
+				it = append(it, b.peaks[i])
+			}
+		}
+		return append(it, note...)
+	}
+	all := make([]int, len(b.tiles))
+	for i := range all {
+		all[i] = i
+	}
+	lines = packLines(items(all), blCaptionSep, b.captionSty, w)
+	if h-b.height(lines)-b.keyHeight() >= 2*vg.Points(blMinPanelPt) {
+		return lines, all
+	}
+	return packLines(items(coupledBLSmall, coupledBLSmallNote), blCaptionSep, b.captionSty, w), coupledBLSmall
+}
+
+func (b *coupledBLPanels) height(lines []string) vg.Length {
+	var h vg.Length
+	for _, l := range lines {
+		h += b.captionSty.Height(l)
+	}
+	return h
+}
+
+func (b *coupledBLPanels) keyHeight() vg.Length { return b.keySty.Height("Xg") * 1.4 }
+
+func (b *coupledBLPanels) Plot(c draw.Canvas, _ *plot.Plot) {
+	lines, shown := b.layout(c.Max.X-c.Min.X, c.Max.Y-c.Min.Y)
+	y := c.Max.Y
+	mid := (c.Min.X + c.Max.X) / 2
+	for _, l := range lines {
+		c.FillText(b.captionSty, vg.Point{X: mid, Y: y}, l)
+		y -= b.captionSty.Height(l)
+	}
+	// The key's entries centred in one row.
+	var w vg.Length
+	for _, e := range b.key {
+		w += keyThumb + keyPad + b.keySty.Width(e.label) + 3*keyPad
+	}
+	kh := b.keyHeight()
+	x, ky := mid-w/2, y-kh/2
+	for _, e := range b.key {
+		tc := c
+		tc.Rectangle = vg.Rectangle{Min: vg.Point{X: x, Y: ky - kh/4}, Max: vg.Point{X: x + keyThumb, Y: ky + kh/4}}
+		e.thumb.Thumbnail(&tc)
+		x += keyThumb + keyPad
+		c.FillText(b.keySty, vg.Point{X: x, Y: ky}, e.label)
+		x += b.keySty.Width(e.label) + 3*keyPad
+	}
+	area := c
+	area.Max.Y = y - kh - vg.Points(4) // the top tick label reaches above its panel
+	rows, cols := 2, 3
+	if len(shown) < len(b.tiles) {
+		rows, cols = 1, len(shown)
+	}
+	ts := draw.Tiles{Rows: rows, Cols: cols, PadX: vg.Points(6), PadY: vg.Points(4)}
+	for k, i := range shown {
+		b.tiles[i].Draw(ts.At(area, k%cols, k/cols))
+	}
+}
+
+// coupledBLCaption says where each surface's layer changes, in x/c, an
+// item per surface.
+func coupledBLCaption(e solver.CoupledElement) []string {
 	var parts []string
 	for _, s := range []struct {
 		name string
@@ -127,7 +217,7 @@ func coupledBLCaption(e solver.CoupledElement) string {
 		}
 		parts = append(parts, t)
 	}
-	return strings.Join(parts, " · ")
+	return parts
 }
 
 // aftMin returns the smallest value of lines aft of blRangeFromXC (in

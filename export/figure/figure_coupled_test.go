@@ -5,6 +5,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 
@@ -164,5 +166,56 @@ func TestStreamlinesDisplacement(t *testing.T) {
 	sc.Coupled = &engine.CoupledPoint{Converged: false}
 	if s := svgText(t, ViewStreamlines, sc); strings.Contains(s, "displacement surface") {
 		t.Error("a point that did not converge draws a displacement surface")
+	}
+}
+
+// TestCoupledBoundaryLayerCellSize: in the workbench's view cell (about
+// 450 × 240 px) the boundary-layer view draws H and Cf side by side and
+// says what it left out; enlarged (900 × 520 px) it draws all five
+// panels. The surfaces' key is a row above the panels at both sizes.
+func TestCoupledBoundaryLayerCellSize(t *testing.T) {
+	sc := synthCoupledScene()
+	for _, tc := range []struct {
+		name         string
+		wPx, hPx     int
+		want, absent []string
+	}{
+		{"cell", 450, 240, []string{"H = δ*/θ", "Cf × 1000, on local Ue", coupledBLSmallNote, "upper surface", "lower surface"},
+			[]string{"θ/c × 1000", "δ*/c × 1000", "ñ, amplification (e^N)"}},
+		{"enlarged", 900, 520, []string{"θ/c × 1000", "δ*/c × 1000", "H = δ*/θ", "Cf × 1000, on local Ue", "ñ, amplification (e^N)", "upper surface"},
+			[]string{coupledBLSmallNote}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			var b bytes.Buffer
+			if err := WriteFigure(&b, ViewBoundaryLayer, sc, "svg", float64(tc.wPx)/96, float64(tc.hPx)/96, 96); err != nil {
+				t.Fatal(err)
+			}
+			texts, err := svgTexts(b.Bytes())
+			if err != nil {
+				t.Fatal(err)
+			}
+			all := strings.Join(texts, "\n")
+			for _, w := range tc.want {
+				if !strings.Contains(all, w) {
+					t.Errorf("lacks %q", w)
+				}
+			}
+			for _, a := range tc.absent {
+				for _, s := range texts {
+					if s == a {
+						t.Errorf("draws %q", a)
+					}
+				}
+			}
+			if *figureDir != "" {
+				var png bytes.Buffer
+				if err := WriteFigure(&png, ViewBoundaryLayer, sc, FormatPNG, float64(tc.wPx)/96, float64(tc.hPx)/96, 96); err != nil {
+					t.Fatal(err)
+				}
+				if err := os.WriteFile(filepath.Join(*figureDir, "boundary-layer-coupled-"+tc.name+".png"), png.Bytes(), 0o644); err != nil {
+					t.Fatal(err)
+				}
+			}
+		})
 	}
 }
