@@ -5,6 +5,7 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/export/report"
@@ -106,6 +107,23 @@ func (s *setupWindow) relayout() {
 	if c := s.win.Content(); c != nil {
 		c.Refresh()
 	}
+}
+
+// What each tab's figure area says before its first run: what to do and
+// what will be drawn there.
+const (
+	mapsEmptyNote        = "Choose what to vary and its range, then press Run map: a curve of each quantity is drawn here as the points are solved."
+	searchTraceEmptyNote = "Set the ranges, the objective and the limits, then press Search: the objective at each solve is drawn here as the search runs."
+	searchPlaneEmptyNote = "The path over the first two variables is drawn here."
+	spanEmptyNote        = "Set the span and end plates, then press Estimate the finite wing: the load along the span is drawn here."
+)
+
+// emptyFigureNote is a figure area's note before its first run, centred
+// and wrapped to the area's width.
+func emptyFigureNote(text string) *fyne.Container {
+	l := widget.NewLabelWithStyle(text, fyne.TextAlignCenter, fyne.TextStyle{Italic: true})
+	l.Wrapping = fyne.TextWrapWord
+	return container.NewVBox(layout.NewSpacer(), l, layout.NewSpacer())
 }
 
 // setupColumn is a control column of the window's width.

@@ -252,6 +252,7 @@ type setupMaps struct {
 	curveArea      *fyne.Container
 	gridBox        *figureBox
 	gridArea       *fyne.Container
+	emptyNote      *fyne.Container // what to do, over the empty curves before the first run
 
 	*runControls
 	run0 *mapRun // the map shown; nil before the first run
@@ -323,7 +324,8 @@ func newSetupMaps(s *setupWindow) *setupMaps {
 		m.row,
 		m.progress, m.status, m.export,
 	)
-	m.content = container.NewBorder(nil, m.readout, side, nil, container.NewStack(m.curveArea, m.gridArea))
+	m.emptyNote = emptyFigureNote(mapsEmptyNote)
+	m.content = container.NewBorder(nil, m.readout, side, nil, container.NewStack(m.curveArea, m.gridArea, m.emptyNote))
 	return m
 }
 
@@ -525,10 +527,12 @@ func (m *setupMaps) show() {
 	r := m.run0
 	if r == nil {
 		for _, b := range m.curves {
-			b.setDrawing(nil, "") // the status says the map has not run
+			b.setDrawing(nil, "")
 		}
+		m.emptyNote.Show()
 		return
 	}
+	m.emptyNote.Hide()
 	failed, separated, notSolve := 0, 0, 0
 	for k := range r.points {
 		if r.failed(k) {

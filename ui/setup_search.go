@@ -379,8 +379,8 @@ func (p *setupSearch) show() {
 	r := p.cur
 	p.syncButtons()
 	if r == nil {
-		p.trace.setDrawing(nil, "") // the status says the search has not run
-		p.plane.setDrawing(nil, "")
+		p.trace.setDrawing(nil, searchTraceEmptyNote)
+		p.plane.setDrawing(nil, searchPlaneEmptyNote)
 		p.table.SetText("")
 		return
 	}

@@ -145,7 +145,7 @@ func (p *setupSpan) show() {
 	fs := p.out
 	if fs == nil {
 		p.totals.SetText("")
-		p.load.setDrawing(nil, "") // the status says the estimate has not run
+		p.load.setDrawing(nil, spanEmptyNote)
 		return
 	}
 	p.totals.SetText(finiteSpanText(fs, p.stale()))

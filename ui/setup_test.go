@@ -11,6 +11,7 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/assets"
 	"sectionbench/solver/engine"
@@ -417,5 +418,41 @@ func TestReadoutQuantityUnits(t *testing.T) {
 		if got := readoutQuantity(c.q, c.inverted, c.force, c.v); got != c.want {
 			t.Errorf("%s (inverted %v, forces %v) %g: %q, want %q", c.q.Short(c.inverted), c.inverted, c.force, c.v, got, c.want)
 		}
+	}
+}
+
+// TestSetupEmptyFiguresSay: before the first run each tab's figure area
+// says what to do there (it was blank), and the note goes when a map has
+// run.
+func TestSetupEmptyFiguresSay(t *testing.T) {
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabMaps)
+	s := w.setup
+	if s.maps.emptyNote.Hidden || !strings.Contains(s.maps.emptyNote.Objects[1].(*widget.Label).Text, "Run map") {
+		t.Error("the maps' empty area says nothing")
+	}
+	for _, c := range []struct {
+		name string
+		box  *figureBox
+		want string
+	}{
+		{"search trace", s.search.trace, "press Search"},
+		{"search plane", s.search.plane, "first two variables"},
+		{"finite span", s.span.load, "Estimate the finite wing"},
+	} {
+		if c.box.note.Hidden || !strings.Contains(c.box.note.Text, c.want) {
+			t.Errorf("%s: note %q (hidden %v), want it to say %q", c.name, c.box.note.Text, c.box.note.Hidden, c.want)
+		}
+	}
+	m := s.maps
+	m.viscous.SetChecked(false)
+	m.from[0].SetText("40")
+	m.to[0].SetText("80")
+	m.step[0].SetText("40")
+	test.Tap(m.run)
+	w.WaitIdle()
+	if !m.emptyNote.Hidden {
+		t.Error("the note stays over the map's curves")
 	}
 }
