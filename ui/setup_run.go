@@ -93,11 +93,7 @@ func renderSpanLoad(s figures.SpanLoad, dark bool, w, h int, dpi float64) (*figu
 }
 
 func renderSearch(title, objective string, steps []figures.SearchStep, maximise, dark bool, w, h int, dpi float64) (*figures.Figure, error) {
-	p, err := figures.SearchPlot(title, objective, steps, maximise, dark)
-	if err != nil {
-		return nil, err
-	}
-	return figures.RenderPlot(p, false, w, h, dpi), nil
+	return figures.RenderSearch(title, objective, steps, maximise, dark, w, h, dpi)
 }
 
 // parseSetupRange reads a map's range of v from its three numbers

@@ -149,3 +149,49 @@ func TestTwinAxisShortLabel(t *testing.T) {
 		}
 	}
 }
+
+// TestSearchKeyAboveData: the search trace's key goes in rows above the
+// data at the set-up window's size (its box in a corner covered points:
+// after some fifty solves every corner holds some), with every kind of
+// entry (invented steps: feasible, outside a constraint, not a single
+// solve's answer, without an answer).
+func TestSearchKeyAboveData(t *testing.T) {
+	var steps []SearchStep
+	for i := range 52 {
+		v := 300 + 40*math.Sin(float64(i)*0.7) + float64(i)
+		s := SearchStep{Objective: v, Feasible: i%3 != 1, NotSolve: i%11 == 5}
+		if i%13 == 7 {
+			s.Objective = math.NaN()
+		}
+		steps = append(steps, s)
+	}
+	for _, size := range []struct {
+		name string
+		w, h int
+	}{
+		{"window cell", 420, 300},
+		{"wide", 640, 420},
+	} {
+		t.Run(size.name, func(t *testing.T) {
+			p, k, err := searchPlot("Search (invented)", "downforce, N/m", steps, true, false)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if len(k.entries) < 5 {
+				t.Fatalf("%d key entries, want the five of the case", len(k.entries))
+			}
+			img := image.NewRGBA(image.Rect(0, 0, size.w, size.h))
+			renderPlot(p, viewInfo{keys: []*key{k}}, img, 96)
+			if n := k.reservedRows(); n == 0 {
+				t.Errorf("the key is a box over the data (%d rows needed at %v)", len(k.rows(k.width)), k.text.Font.Size)
+			}
+			if out := os.Getenv("FIGURE_KEY_OUT"); out != "" {
+				f, err := os.Create(out + "-search-" + strings.ReplaceAll(size.name, " ", "-") + ".png")
+				if err == nil {
+					png.Encode(f, img)
+					f.Close()
+				}
+			}
+		})
+	}
+}

@@ -2,6 +2,7 @@ package figure
 
 import (
 	"fmt"
+	"image"
 	"image/color"
 	"math"
 	"sort"
@@ -531,11 +532,39 @@ type SearchStep struct {
 // feasible evaluations filled, others hollow, those that are not a single
 // solve's answer boxed, those without an answer crossed on the axis,
 // the best feasible value so far (the largest when maximise, else the
-// smallest) as a step line, and the start as a horizontal reference.
+// smallest) as a step line, and the start as a horizontal reference. Its
+// key is in rows above the data, laid out for a 6 × 4 inch figure;
+// RenderSearch lays it out for the size drawn at.
 func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark bool) (*plot.Plot, error) {
+	p, k, err := searchPlot(title, objective, steps, maximise, dark)
+	if err != nil {
+		return nil, err
+	}
+	fitKeys(draw.Canvas{Rectangle: vg.Rectangle{Max: vg.Point{X: 6 * vg.Inch, Y: 4 * vg.Inch}}}, k)
+	return p, nil
+}
+
+// RenderSearch draws SearchPlot into a widthPx × heightPx image at dpi,
+// its key's rows fitted to that size. It panics as RenderPlot does.
+func RenderSearch(title, objective string, steps []SearchStep, maximise, dark bool, widthPx, heightPx int, dpi float64) (*Figure, error) {
+	if widthPx <= 0 || heightPx <= 0 || !(dpi > 0) {
+		panic(fmt.Sprintf("figure: bad render size %d×%d at %g dpi", widthPx, heightPx, dpi))
+	}
+	p, k, err := searchPlot(title, objective, steps, maximise, dark)
+	if err != nil {
+		return nil, err
+	}
+	return renderPlot(p, viewInfo{keys: []*key{k}}, image.NewRGBA(image.Rect(0, 0, widthPx, heightPx)), dpi), nil
+}
+
+// searchPlot is SearchPlot with its key, which goes in rows above the
+// data: once a search has made some fifty solves its points reach every
+// corner, where a box would cover them.
+func searchPlot(title, objective string, steps []SearchStep, maximise bool, dark bool) (*plot.Plot, *key, error) {
 	th := themeFor(dark)
 	p := newPlot(th, title, "evaluation", objective)
 	k := newKey(th, keyBottomRight)
+	k.above = true
 	var ok, bad, best, from plotter.XYs
 	var failed []float64
 	ext := newExtent()
@@ -563,7 +592,7 @@ func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark
 		}
 	}
 	if ext.empty() && len(failed) == 0 {
-		return nil, ErrNoSetupData
+		return nil, nil, ErrNoSetupData
 	}
 	if ext.empty() { // only solves without an answer: crosses on an empty plane
 		ext.add(float64(len(steps)), 0)
@@ -598,7 +627,7 @@ func SearchPlot(title, objective string, steps []SearchStep, maximise bool, dark
 		k.keep(plotter.XYs{{X: x, Y: p.Y.Min}})
 	}
 	p.Add(k)
-	return p, nil
+	return p, k, nil
 }
 
 // SpanLoad is the spanwise load of a finite-span estimate over the half
