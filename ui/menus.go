@@ -110,18 +110,31 @@ func (w *Workbench) menu() *fyne.MainMenu {
 	return fyne.NewMainMenu(file, edit, fyne.NewMenu("View", viewItems...), help)
 }
 
-// syncUndoItems greys out Undo and Redo when there is no step to take. The
+// syncUndoItems greys out Undo and Redo when there is no step to take and
+// names what each would set ("Undo (back to flap deflection 17.7°)"). The
 // menu bar is rebuilt only when one of them changes (a native menu bar is
-// rebuilt whole).
+// rebuilt whole); during a slider's drag the step and its label stay the
+// same.
 func (w *Workbench) syncUndoItems() {
 	undo, redo := !w.ctl.CanUndo(), !w.ctl.CanRedo()
-	if w.undoItem.Disabled == undo && w.redoItem.Disabled == redo {
+	undoLabel, redoLabel := stepItemLabel("Undo", "back to ", w.ctl.UndoLabel()), stepItemLabel("Redo", "", w.ctl.RedoLabel())
+	if w.undoItem.Disabled == undo && w.redoItem.Disabled == redo && w.undoItem.Label == undoLabel && w.redoItem.Label == redoLabel {
 		return
 	}
 	w.undoItem.Disabled, w.redoItem.Disabled = undo, redo
+	w.undoItem.Label, w.redoItem.Label = undoLabel, redoLabel
 	if m := w.win.MainMenu(); m != nil {
 		w.win.SetMainMenu(m)
 	}
+}
+
+// stepItemLabel is the Undo or Redo menu item's text: verb alone when
+// there is nothing to name.
+func stepItemLabel(verb, lead, change string) string {
+	if change == "" {
+		return verb
+	}
+	return verb + " (" + lead + change + ")"
 }
 
 // confirmDiscard runs then at once if the study has no unsaved changes,

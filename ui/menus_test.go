@@ -7,6 +7,7 @@ import (
 	"fyne.io/fyne/v2"
 
 	"sectionbench/model"
+	"sectionbench/ui/session"
 )
 
 func TestFileNameFor(t *testing.T) {
@@ -67,4 +68,36 @@ func TestUndoRedoGreyedOut(t *testing.T) {
 	}
 	check("new study", false, false)
 	w.WaitIdle()
+}
+
+// TestUndoItemNamesChange: Edit ▸ Undo and Redo name what they would set
+// (they said only "Undo"), with the value they go back to; a change of
+// the study's name is named too, and with nothing to undo the item is
+// plain "Undo", greyed out.
+func TestUndoItemNamesChange(t *testing.T) {
+	w := newTestBench(t)
+	current(t, w)
+	if w.undoItem.Label != "Undo" || !w.undoItem.Disabled {
+		t.Errorf("fresh study: %q, disabled %v", w.undoItem.Label, w.undoItem.Disabled)
+	}
+	was := w.ctl.Study().Flow.AlphaDeg
+	if err := w.ctl.SetAlpha("", was+3); err != nil {
+		t.Fatal(err)
+	}
+	current(t, w)
+	if want := "Undo (back to α=" + session.Number(was) + "°)"; w.undoItem.Label != want || w.undoItem.Disabled {
+		t.Errorf("after a change of angle: %q (disabled %v), want %q", w.undoItem.Label, w.undoItem.Disabled, want)
+	}
+	if err := w.ctl.SetStudyName("renamed"); err != nil {
+		t.Fatal(err)
+	}
+	current(t, w)
+	if !strings.Contains(w.undoItem.Label, "name “") {
+		t.Errorf("after a rename: %q", w.undoItem.Label)
+	}
+	w.ctl.Undo()
+	current(t, w)
+	if want := "Redo (name “renamed”)"; w.redoItem.Label != want {
+		t.Errorf("redo after undoing the rename: %q, want %q", w.redoItem.Label, want)
+	}
 }

@@ -75,6 +75,18 @@ func (h *history) Redo(cur *model.Study) (*model.Study, bool) {
 	return next.Clone(), true
 }
 
+// peekUndo and peekRedo return the study a step would go to (not a
+// copy: callers only read it), nil when there is none.
+func (h *history) peekUndo() *model.Study { return peek(h.undo) }
+func (h *history) peekRedo() *model.Study { return peek(h.redo) }
+
+func peek(s []*model.Study) *model.Study {
+	if len(s) == 0 {
+		return nil
+	}
+	return s[len(s)-1]
+}
+
 // CanUndo and CanRedo report whether a step is available.
 func (h *history) CanUndo() bool { return len(h.undo) > 0 }
 func (h *history) CanRedo() bool { return len(h.redo) > 0 }

@@ -20,6 +20,16 @@ func pinLabel(prev, cur *model.Study, prevSecs, curSecs []*model.Section) string
 	if prev == nil {
 		return strings.Join([]string{sourceLabel(cur), panelsLabel(cur), string(cur.Panelling.Spacing)}, ", ")
 	}
+	parts := settingDiffs(prev, cur, prevSecs, curSecs)
+	if len(parts) == 0 {
+		return panelsLabel(cur) + ", " + string(cur.Panelling.Spacing) + " (unchanged)"
+	}
+	return strings.Join(parts, ", ")
+}
+
+// settingDiffs names the settings of cur that differ from prev's, those
+// that change the solution, with cur's values.
+func settingDiffs(prev, cur *model.Study, prevSecs, curSecs []*model.Section) []string {
 	var parts []string
 	add := func(differs bool, s string) {
 		if differs {
@@ -46,10 +56,7 @@ func pinLabel(prev, cur *model.Study, prevSecs, curSecs []*model.Section) string
 	add(prev.Viscous.TripUpper != cur.Viscous.TripUpper || prev.Viscous.TripLower != cur.Viscous.TripLower,
 		"trips "+Number(cur.Viscous.TripUpper)+"/"+Number(cur.Viscous.TripLower))
 	add(prev.Viscous.SeparationH != cur.Viscous.SeparationH, "separation H "+Number(cur.Viscous.SeparationH))
-	if len(parts) == 0 {
-		return panelsLabel(cur) + ", " + string(cur.Panelling.Spacing) + " (unchanged)"
-	}
-	return strings.Join(parts, ", ")
+	return parts
 }
 
 // elementDiffs names what differs element by element: section (beyond
@@ -86,7 +93,7 @@ func elementDiffs(prev, cur *model.Study, prevSecs, curSecs []*model.Section) []
 			if i < len(curSecs) && i < len(prevSecs) && curSecs[i] != nil {
 				parts = append(parts, e.Name+" gap "+Number(cur.SlotOf(i, curSecs[i]).GapMM)+" mm")
 			} else {
-				parts = append(parts, e.Name+" gap changed")
+				parts = append(parts, e.Name+" gap")
 			}
 		}
 	}

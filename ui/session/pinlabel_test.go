@@ -66,3 +66,29 @@ func TestPinLabelFlap(t *testing.T) {
 		t.Errorf("pinLabel = %q, want %q", got, want)
 	}
 }
+
+// TestChangeLabel: what a step of the history sets, named with the values
+// it sets, at most two settings before "…"; a change the pin label does
+// not name (the sweep, the name) is named too.
+func TestChangeLabel(t *testing.T) {
+	base := model.NewStudy()
+	for _, c := range []struct {
+		name string
+		edit func(*model.Study)
+		want string
+	}{
+		{"nothing", func(*model.Study) {}, ""},
+		{"angle", func(s *model.Study) { s.Flow.AlphaDeg = 6 }, "α=6°"},
+		{"sweep", func(s *model.Study) { s.Sweep.FromDeg, s.Sweep.ToDeg = -2, 12 }, "sweep −2° to 12°"},
+		{"name", func(s *model.Study) { s.Name = "rear" }, "name “rear”"},
+		{"three at once", func(s *model.Study) { s.Flow.AlphaDeg = 6; s.Panelling.Panels = 200; s.Name = "rear" }, "N=200, α=6°, …"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			to := base.Clone()
+			c.edit(to)
+			if got := changeLabel(base, to, nil, nil); got != c.want {
+				t.Errorf("got %q, want %q", got, c.want)
+			}
+		})
+	}
+}
