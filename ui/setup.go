@@ -114,7 +114,7 @@ func (s *setupWindow) relayout() {
 const (
 	mapsEmptyNote        = "Choose what to vary and its range, then press Run map: a curve of each quantity is drawn here as the points are solved."
 	searchTraceEmptyNote = "Set the ranges, the objective and the limits, then press Search: the objective at each solve is drawn here as the search runs."
-	searchPlaneEmptyNote = "The path over the first two variables is drawn here."
+	searchPlaneEmptyNote = "With two variables or more, the path over the first two is drawn here."
 	spanEmptyNote        = "Set the span and end plates, then press Estimate the finite wing: the load along the span is drawn here."
 )
 
