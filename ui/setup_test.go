@@ -438,7 +438,7 @@ func TestSetupEmptyFiguresSay(t *testing.T) {
 		want string
 	}{
 		{"search trace", s.search.trace, "press Search"},
-		{"search plane", s.search.plane, "first two variables"},
+		{"search plane", s.search.plane, "over the first two"},
 		{"finite span", s.span.load, "Estimate the finite wing"},
 	} {
 		if c.box.note.Hidden || !strings.Contains(c.box.note.Text, c.want) {
