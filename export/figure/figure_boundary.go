@@ -159,7 +159,7 @@ type blPanels struct {
 // it is too small for every panel.
 func (b *blPanels) layout(w, h vg.Length) (lines []string, small bool) {
 	lines = packLines(b.caption, blCaptionSep, b.captionSty, w)
-	if h-b.height(lines) >= 2*vg.Points(blMinPanelPt) {
+	if h-captionHeight(b.captionSty, lines) >= 2*vg.Points(blMinPanelPt) {
 		return lines, false
 	}
 	return packLines(append(b.caption[:len(b.caption):len(b.caption)], blSmallNote), blCaptionSep, b.captionSty, w), true
@@ -167,12 +167,7 @@ func (b *blPanels) layout(w, h vg.Length) (lines []string, small bool) {
 
 func (b *blPanels) Plot(c draw.Canvas, _ *plot.Plot) {
 	lines, small := b.layout(c.Max.X-c.Min.X, c.Max.Y-c.Min.Y)
-	y := c.Max.Y
-	mid := (c.Min.X + c.Max.X) / 2
-	for _, l := range lines {
-		c.FillText(b.captionSty, vg.Point{X: mid, Y: y}, l)
-		y -= b.captionSty.Height(l)
-	}
+	y := drawCaption(c, b.captionSty, lines)
 	area := c
 	area.Max.Y = y - vg.Points(2)
 	if small {
@@ -187,13 +182,25 @@ func (b *blPanels) Plot(c draw.Canvas, _ *plot.Plot) {
 	b.cf.Draw(rows.At(area, 0, 1))
 }
 
-// height returns the height of caption lines.
-func (b *blPanels) height(lines []string) vg.Length {
+// captionHeight returns the height of caption lines set in sty.
+func captionHeight(sty text.Style, lines []string) vg.Length {
 	var h vg.Length
 	for _, l := range lines {
-		h += b.captionSty.Height(l)
+		h += sty.Height(l)
 	}
 	return h
+}
+
+// drawCaption draws caption lines centred from the top of c down and
+// returns the height below them.
+func drawCaption(c draw.Canvas, sty text.Style, lines []string) vg.Length {
+	y := c.Max.Y
+	mid := (c.Min.X + c.Max.X) / 2
+	for _, l := range lines {
+		c.FillText(sty, vg.Point{X: mid, Y: y}, l)
+		y -= sty.Height(l)
+	}
+	return y
 }
 
 // blCaptionSep separates caption items that share a line.

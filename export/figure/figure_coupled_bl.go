@@ -141,30 +141,18 @@ func (b *coupledBLPanels) layout(w, h vg.Length) (lines []string, shown []int) {
 		all[i] = i
 	}
 	lines = packLines(items(all), blCaptionSep, b.captionSty, w)
-	if h-b.height(lines)-b.keyHeight() >= 2*vg.Points(blMinPanelPt) {
+	if h-captionHeight(b.captionSty, lines)-b.keyHeight() >= 2*vg.Points(blMinPanelPt) {
 		return lines, all
 	}
 	return packLines(items(coupledBLSmall, coupledBLSmallNote), blCaptionSep, b.captionSty, w), coupledBLSmall
-}
-
-func (b *coupledBLPanels) height(lines []string) vg.Length {
-	var h vg.Length
-	for _, l := range lines {
-		h += b.captionSty.Height(l)
-	}
-	return h
 }
 
 func (b *coupledBLPanels) keyHeight() vg.Length { return b.keySty.Height("Xg") * 1.4 }
 
 func (b *coupledBLPanels) Plot(c draw.Canvas, _ *plot.Plot) {
 	lines, shown := b.layout(c.Max.X-c.Min.X, c.Max.Y-c.Min.Y)
-	y := c.Max.Y
+	y := drawCaption(c, b.captionSty, lines)
 	mid := (c.Min.X + c.Max.X) / 2
-	for _, l := range lines {
-		c.FillText(b.captionSty, vg.Point{X: mid, Y: y}, l)
-		y -= b.captionSty.Height(l)
-	}
 	// The key's entries centred in one row.
 	var w vg.Length
 	for _, e := range b.key {
