@@ -99,6 +99,9 @@ func sweepWarnings(res *engine.Result) []string {
 			w = append(w, "caution, "+string(f.Kind)+": "+f.Message)
 		}
 	}
+	if b := res.HigherPastClMaxWords(res.Layout != nil && res.Layout.Inverted); b != "" {
+		w = append(w, b)
+	}
 	return w
 }
 

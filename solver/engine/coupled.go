@@ -1,9 +1,14 @@
 package engine
 
 import (
+	"cmp"
 	"context"
 	"errors"
+	"fmt"
 	"math"
+	"slices"
+	"strconv"
+	"strings"
 
 	"sectionbench/model"
 	"sectionbench/solver"
@@ -455,32 +460,100 @@ func (e *Engine) sweepSystem(ctx context.Context, alphaDeg float64) (*solver.Sys
 	return e.sys, fs, nil
 }
 
-// ClMax finds the maximum lift among the converged rows: the largest Cl
-// on an upright wing, the most negative (the most downforce) on an
-// inverted one, where a positive angle loads the wing the other way
+// ClMax finds the maximum lift of a sweep among its converged rows: the
+// largest Cl on an upright wing, the most negative (the most downforce) on
+// an inverted one, where a positive angle loads the wing the other way
 // (model.AngleSense). It returns NaN, NaN when no row converged. peak is
 // true when a converged row at a larger angle gives less lift, so the
 // maximum is a stall inside the sweep and not its end.
+//
+// The maximum is the first one on the way up: from the row of least lift
+// below the sweep's largest (the far side of a negative stall, or the
+// sweep's start) the rows are taken in order of angle, and the first whose
+// next converged row gives less lift is the stall. Past a stall the
+// coupled solution can follow another branch whose lift rises again above
+// the first maximum (E387 at Re 2e5: 1.246 at 9°, 1.233 at 10°, 1.270 at
+// 14° with its separation aft of 13°'s; DEVELOPERS.md "What does not
+// yet"): the stall a team sets its wing by is where the lift first stops
+// rising, so such a row is marked past the maximum
+// (HigherPastClMax) instead of being taken as it.
 func ClMax(rows []CoupledPoint, inverted bool) (cl, alphaDeg float64, peak bool) {
 	sense := 1.0
 	if inverted {
 		sense = -1
 	}
-	best := -1
+	var order []int
 	for i, r := range rows {
-		if r.Converged && (best < 0 || sense*r.Cl > sense*rows[best].Cl) {
-			best = i
+		if r.Converged {
+			order = append(order, i)
 		}
 	}
-	if best < 0 {
+	if len(order) == 0 {
 		return math.NaN(), math.NaN(), false
 	}
-	for _, r := range rows {
-		if r.Converged && r.AlphaDeg > rows[best].AlphaDeg {
-			peak = true
+	slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(rows[a].AlphaDeg, rows[b].AlphaDeg) })
+	load := func(k int) float64 { return sense * rows[order[k]].Cl }
+	top := 0
+	for k := range order {
+		if load(k) > load(top) {
+			top = k
 		}
 	}
-	return rows[best].Cl, rows[best].AlphaDeg, peak
+	low := 0
+	for k := 0; k <= top; k++ {
+		if load(k) < load(low) {
+			low = k
+		}
+	}
+	best := low
+	for k := low + 1; k < len(order); k++ {
+		if load(k) < load(best) {
+			peak = true
+			break
+		}
+		if load(k) > load(best) {
+			best = k
+		}
+	}
+	r := rows[order[best]]
+	return r.Cl, r.AlphaDeg, peak
+}
+
+// HigherPastClMaxWords says in a sentence which rows of the result's
+// coupled sweep lie past its maximum lift with more lift than it
+// (HigherPastClMax), or is empty.
+func (r *Result) HigherPastClMaxWords(inverted bool) string {
+	rows := HigherPastClMax(r.SweepCoupled, r.ClMax, r.AlphaClMax, r.ClMaxIsPeak, inverted)
+	if len(rows) == 0 {
+		return ""
+	}
+	var at []string
+	for _, p := range rows {
+		at = append(at, model.Minus(strconv.FormatFloat(p.AlphaDeg, 'f', -1, 64))+"°")
+	}
+	return fmt.Sprintf("past the maximum lift at %s° (Cl %s) the lift falls, and at %s it rises above that maximum again: another branch of the coupled solution past the stall, not a higher maximum (marked past maximum lift); trust no row past the stall without a test",
+		model.Minus(strconv.FormatFloat(r.AlphaClMax, 'f', -1, 64)), model.Minus(strconv.FormatFloat(r.ClMax, 'f', 3, 64)), strings.Join(at, ", "))
+}
+
+// HigherPastClMax returns the converged rows past a peak of maximum lift
+// (ClMax) that give more lift than it: rows of another branch of the
+// coupled solution past the stall, which a sweep shows marked and says
+// in words.
+func HigherPastClMax(rows []CoupledPoint, clMax, alphaClMax float64, peak, inverted bool) []CoupledPoint {
+	if !peak {
+		return nil
+	}
+	sense := 1.0
+	if inverted {
+		sense = -1
+	}
+	var out []CoupledPoint
+	for _, r := range rows {
+		if r.Converged && r.AlphaDeg > alphaClMax && sense*r.Cl > sense*clMax {
+			out = append(out, r)
+		}
+	}
+	return out
 }
 
 // markPastClMax marks the rows beyond the angle of a peak.

@@ -240,6 +240,13 @@ func TestClMax(t *testing.T) {
 		{"rising to the end", []CoupledPoint{row(0, 0.2, true), row(2, 0.4, true), row(4, 0, false)}, false, 0.4, 2, false, []bool{false, false, false}},
 		{"inverted", []CoupledPoint{row(0, -0.5, true), row(4, -1.6, true), row(8, -1.5, true)}, true, -1.6, 4, true, []bool{false, false, true}},
 		{"none converged", []CoupledPoint{row(0, 0, false)}, false, nan, nan, false, []bool{false}},
+		// E387 at Re 2e5 (main c671c67, 1° sweep): the lift falls after 9°
+		// and another branch gives more at 14°; the stall is the first.
+		{"higher branch past the stall", []CoupledPoint{row(8, 1.195, true), row(9, 1.246, true), row(10, 1.233, true), row(11, 0, false), row(13, 1.196, true), row(14, 1.270, true), row(15, 1.207, true)}, false, 1.246, 9, true, []bool{false, false, true, true, true, true, true}},
+		// From the far side of a negative stall (NACA 0012 at Re 1e6):
+		// the way up starts at the least lift, not at the sweep's start.
+		{"negative stall first", []CoupledPoint{row(-20, -1.03, true), row(-16, -1.20, true), row(-14, -1.33, true), row(0, 0, true), row(14, 1.33, true), row(15, 1.27, true)}, false, 1.33, 14, true, []bool{false, false, false, false, false, true}},
+		{"rows out of order", []CoupledPoint{row(14, 1.3, true), row(10, 1.2, true), row(12, 1.4, true)}, false, 1.4, 12, true, []bool{true, false, false}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			cl, a, peak := ClMax(tc.rows, tc.inverted)
