@@ -7,9 +7,9 @@ import (
 	bl "sectionbench/solver/boundarylayer"
 )
 
-// branchJump returns, in words, where a surface layer of s jumps from the
-// separated branch of its shape equation to the attached one, or "" where
-// none does.
+// branchJump returns, in words, where a surface layer of s jumps between
+// the separated and the attached branch of its shape equation, or ""
+// where none does.
 //
 // The shape equation carries a layer through its kinetic-energy shape
 // factor H*, which is least at H0 (boundarylayer.ShapeMinimum): every H*
@@ -51,6 +51,24 @@ import (
 // the root that stays separated (9°: 1.498 against 1.390; 15°: 1.855
 // against 1.523), with no separation reported; a sweep hopped between
 // the two and took its maximum lift from the jump.
+//
+// The same argument forbids the opposite crossing, an attached layer
+// taking the separated shape factor of its H*: below H0, where the speed
+// does not fall, H* grows too, so H moves down, away from H0, and the
+// layer can only reach the separated branch through H*'s minimum, which
+// needs H* to fall, that is a falling speed (the adverse gradient that
+// separates real layers). The argument needs the dissipation term
+// positive at H0, which holds with Cf near zero there (laminar Cf < 0 at
+// H 4; a turbulent layer's 2CD/H* comes from its shear stress, Cτ of
+// order 1e-3, against a Cf of order 1e-4). Measured on the two-element
+// example in ground effect (tripped at 5 % on every surface, 45 mm,
+// 3.5°): the main element's pressure-side layer had H 2.95 at x/c
+// 0.9964 and 3.98 at 0.9983, at one edge speed (0.575), 0.43 θ on, and
+// stayed separated over the last stations; its δ* at the edge, 0.018
+// chord against 0.001 on the neighbours' root, acted as a flap on the
+// trailing edge, and the map's point came out at Cl −5.899 between
+// −5.185 (3°) and −5.683 (4°); the single solve at 45 mm and 3° landed on
+// such a root too (−5.659).
 func branchJump(s *CoupledSolution) string {
 	if s.state == nil {
 		return ""
@@ -70,10 +88,18 @@ func branchJump(s *CoupledSolution) string {
 				// Reθ (Theta is on the element's chord).
 				ra := re * math.Abs(a.Ue) * a.Theta * e.Chord
 				rb := re * math.Abs(b.Ue) * b.Theta * e.Chord
-				if a.H > bl.ShapeMinimum(a.Regime, ra) && b.H < bl.ShapeMinimum(b.Regime, rb) {
-					return fmt.Sprintf("the %s layer on the %s surface of %s goes from separated (H %.2f) to attached (H %.2f) at x/c %.4f with an edge speed that does not fall, which the boundary-layer equations forbid (the two states share one H*): a spurious solution",
-						b.Regime, side.name, e.Name, a.H, b.H, b.XC)
+				h0a, h0b := bl.ShapeMinimum(a.Regime, ra), bl.ShapeMinimum(b.Regime, rb)
+				from, to := "", ""
+				switch {
+				case a.H > h0a && b.H < h0b:
+					from, to = "separated", "attached"
+				case a.H < h0a && b.H > h0b:
+					from, to = "attached", "separated"
+				default:
+					continue
 				}
+				return fmt.Sprintf("the %s layer on the %s surface of %s goes from %s (H %.2f) to %s (H %.2f) at x/c %.4f with an edge speed that does not fall, which the boundary-layer equations forbid (the two states share one H*): a spurious solution",
+					b.Regime, side.name, e.Name, from, a.H, to, b.H, b.XC)
 			}
 		}
 	}

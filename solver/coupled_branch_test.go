@@ -6,11 +6,12 @@ import (
 	bl "sectionbench/solver/boundarylayer"
 )
 
-// branchJump rejects a layer that goes from above H0 (the least H*) to
-// below it within less than its momentum thickness where its edge speed
-// does not fall, and nothing else: not the same layer where the speed
-// falls (the recovery that reattaches a bubble's turbulent layer) or over
-// a longer interval, nor one that stays on one side, nor a wake. Re 1e6
+// branchJump rejects a layer that crosses H0 (the least H*), from above
+// to below it or from below to above, within less than its momentum
+// thickness where its edge speed does not fall, and nothing else: not the
+// same layer where the speed falls (the recovery that reattaches a
+// bubble's turbulent layer; the adverse gradient that separates a layer)
+// or over a longer interval, nor one that stays on one side, nor a wake. Re 1e6
 // on a unit chord, θ 0.006 and Ue 1: Reθ 6000, H0 3.07; the stations
 // 0.0004 chord (0.07 θ) apart unless the case says otherwise.
 func TestBranchJump(t *testing.T) {
@@ -28,7 +29,12 @@ func TestBranchJump(t *testing.T) {
 		{"separated to attached, the speed falling", bl.Turbulent, [2]float64{4.06, 2.31}, [2]float64{1.0, 0.95}, 0, false},
 		{"separated to attached over two θ", bl.Turbulent, [2]float64{4.06, 2.31}, [2]float64{0.997, 0.997}, 0.012, false},
 		{"staying separated", bl.Turbulent, [2]float64{4.06, 4.10}, [2]float64{0.997, 0.997}, 0, false},
-		{"separating", bl.Turbulent, [2]float64{2.9, 3.4}, [2]float64{0.997, 0.997}, 0, false},
+		{"attached to separated at one speed", bl.Turbulent, [2]float64{2.9, 3.4}, [2]float64{0.997, 0.997}, 0, true},
+		{"attached to separated, the speed rising", bl.Turbulent, [2]float64{2.9, 3.4}, [2]float64{0.997, 1.0}, 0, true},
+		{"attached to separated, the speed falling", bl.Turbulent, [2]float64{2.9, 3.4}, [2]float64{1.0, 0.95}, 0, false},
+		{"attached to separated over two θ", bl.Turbulent, [2]float64{2.9, 3.4}, [2]float64{0.997, 0.997}, 0.012, false},
+		{"staying attached", bl.Turbulent, [2]float64{2.3, 2.9}, [2]float64{0.997, 0.997}, 0, false},
+		{"laminar, attached to separated at one speed", bl.Laminar, [2]float64{3.0, 5.0}, [2]float64{1, 1}, 0, true},
 		{"laminar, separated to attached at one speed", bl.Laminar, [2]float64{5.0, 3.0}, [2]float64{1, 1}, 0, true},
 		{"wake", bl.Wake, [2]float64{4.06, 2.31}, [2]float64{0.997, 0.997}, 0, false},
 	} {

@@ -162,8 +162,8 @@ func TestCoupledTwoElementGround(t *testing.T) {
 	}{
 		{"tripped, angle scan at 100 mm", 0.05, []point{{-4, 100}, {0, 100}, {4, 100}, {8, 100}}},
 		{"tripped, ride heights at 3°", 0.05, []point{{3, 260}, {3, 200}, {3, 160}, {3, 120}, {3, 80}}},
-		{"free transition, ride heights at 3° (the example's angle)", 0, []point{{3, 220}, {3, 160}, {3, 100}}},
-		{"free transition, angle scan at 100 mm", 0, []point{{0, 100}, {2, 100}}},
+		{"free transition, ride heights at 3° (the example's angle)", 0, []point{{3, 220}, {3, 160}}},
+		{"free transition, angle scan at 100 mm", 0, []point{{0, 100}}},
 	} {
 		prev := math.NaN()
 		for _, p := range tc.points {
@@ -183,6 +183,24 @@ func TestCoupledTwoElementGround(t *testing.T) {
 				t.Errorf("%s: downforce coefficient %.4f, not above %.4f at the higher clearance", name, -cs.Cl, prev)
 			}
 			prev = -cs.Cl
+		}
+	}
+	// With free transition at 100 mm, 2° and 3° the only roots the solver
+	// finds have the main element's pressure-side layer jump from the
+	// attached to the separated branch of H* at one edge speed near its
+	// trailing edge (H 3.14 → 3.67 at x/c 0.9983 at 3°), which the
+	// boundary-layer equations forbid (branchJump): they are reported as
+	// not converged rather than as numbers (they read Cl −3.6832 and
+	// −3.3657 before the check saw that crossing). When a root without the
+	// jump is found there, these points go back to the converging cases.
+	for _, p := range []point{{2, 100}, {3, 100}} {
+		sys, re := twoElementExample(t, p.alpha, p.clearance)
+		cs, err := sys.SolveCoupled(context.Background(), 0, CoupledOptions{Re: re}, nil)
+		if err != nil {
+			t.Fatalf("free transition, α %g°, clearance %g mm: %v", p.alpha, p.clearance, err)
+		}
+		if cs.Converged {
+			t.Errorf("free transition, α %g°, clearance %g mm: converged at Cl %.4f; the roots known there jump branches (branchJump %q)", p.alpha, p.clearance, cs.Cl, branchJump(cs))
 		}
 	}
 }
