@@ -641,14 +641,20 @@ func (cs *coupledState) warmFrom(w *coupledState) bool {
 // walked from 0°, failed from 13.125° and reaches the sweep's root so.
 func (cs *coupledState) warmStagnation(w *coupledState) bool {
 	moved := false
-	wc, wcs := w.splitsOf(w.ue())
-	free := !cs.geo.ground
+	// The neighbour's layout, replaced in free air by its coupled split
+	// wherever one was found.
+	wc, wcs := w.stag, w.sStag
+	if !cs.geo.ground {
+		wc, wcs = w.splitsOf(w.ue())
+		for k := range wc {
+			if wcs[k] < 0 {
+				wc[k], wcs[k] = w.stag[k], w.sStag[k]
+			}
+		}
+	}
 	for k := range cs.geo.elems {
 		e := &cs.geo.elems[k]
 		wk, ws := stagnationSplit(&w.geo.elems[k], w.sol.g, -1)
-		if !free || wcs[k] < 0 {
-			wc[k], wcs[k] = w.stag[k], w.sStag[k]
-		}
 		if d := wc[k] - wk; d < minRelayoutShift && -d < minRelayoutShift {
 			continue
 		}
