@@ -99,7 +99,7 @@ func sweepWarnings(res *engine.Result) []string {
 			w = append(w, "caution, "+string(f.Kind)+": "+f.Message)
 		}
 	}
-	if b := res.HigherPastClMaxWords(res.Layout != nil && res.Layout.Inverted); b != "" {
+	if b := res.HigherPastClMaxWords(); b != "" {
 		w = append(w, b)
 	}
 	return w

@@ -476,12 +476,9 @@ func (e *Engine) sweepSystem(ctx context.Context, alphaDeg float64) (*solver.Sys
 // 14° with its separation aft of 13°'s; DEVELOPERS.md "What does not
 // yet"): the stall a team sets its wing by is where the lift first stops
 // rising, so such a row is marked past the maximum
-// (HigherPastClMax) instead of being taken as it.
+// (Result.HigherPastClMaxWords) instead of being taken as it.
 func ClMax(rows []CoupledPoint, inverted bool) (cl, alphaDeg float64, peak bool) {
-	sense := 1.0
-	if inverted {
-		sense = -1
-	}
+	sense := loadSense(inverted)
 	var order []int
 	for i, r := range rows {
 		if r.Converged {
@@ -519,41 +516,35 @@ func ClMax(rows []CoupledPoint, inverted bool) (cl, alphaDeg float64, peak bool)
 	return r.Cl, r.AlphaDeg, peak
 }
 
-// HigherPastClMaxWords says in a sentence which rows of the result's
-// coupled sweep lie past its maximum lift with more lift than it
-// (HigherPastClMax), or is empty.
-func (r *Result) HigherPastClMaxWords(inverted bool) string {
-	rows := HigherPastClMax(r.SweepCoupled, r.ClMax, r.AlphaClMax, r.ClMaxIsPeak, inverted)
-	if len(rows) == 0 {
+// loadSense is the sign that turns a Cl into the load a wing is set for:
+// 1 on an upright wing (lift), −1 on an inverted one (downforce).
+func loadSense(inverted bool) float64 {
+	if inverted {
+		return -1
+	}
+	return 1
+}
+
+// HigherPastClMaxWords says in a sentence which converged rows of the
+// result's coupled sweep lie past its peak of maximum lift (ClMax) with
+// more lift than it — rows of another branch of the coupled solution past
+// the stall, which the sweep marks past the maximum — or is empty.
+func (r *Result) HigherPastClMaxWords() string {
+	if !r.ClMaxIsPeak {
 		return ""
 	}
+	sense := loadSense(r.Layout != nil && r.Layout.Inverted)
 	var at []string
-	for _, p := range rows {
-		at = append(at, model.Minus(strconv.FormatFloat(p.AlphaDeg, 'f', -1, 64))+"°")
+	for _, p := range r.SweepCoupled {
+		if p.Converged && p.AlphaDeg > r.AlphaClMax && sense*p.Cl > sense*r.ClMax {
+			at = append(at, model.Minus(strconv.FormatFloat(p.AlphaDeg, 'f', -1, 64))+"°")
+		}
+	}
+	if len(at) == 0 {
+		return ""
 	}
 	return fmt.Sprintf("past the maximum lift at %s° (Cl %s) the lift falls, and at %s it rises above that maximum again: another branch of the coupled solution past the stall, not a higher maximum (marked past maximum lift); trust no row past the stall without a test",
 		model.Minus(strconv.FormatFloat(r.AlphaClMax, 'f', -1, 64)), model.Minus(strconv.FormatFloat(r.ClMax, 'f', 3, 64)), strings.Join(at, ", "))
-}
-
-// HigherPastClMax returns the converged rows past a peak of maximum lift
-// (ClMax) that give more lift than it: rows of another branch of the
-// coupled solution past the stall, which a sweep shows marked and says
-// in words.
-func HigherPastClMax(rows []CoupledPoint, clMax, alphaClMax float64, peak, inverted bool) []CoupledPoint {
-	if !peak {
-		return nil
-	}
-	sense := 1.0
-	if inverted {
-		sense = -1
-	}
-	var out []CoupledPoint
-	for _, r := range rows {
-		if r.Converged && r.AlphaDeg > alphaClMax && sense*r.Cl > sense*clMax {
-			out = append(out, r)
-		}
-	}
-	return out
 }
 
 // markPastClMax marks the rows beyond the angle of a peak.

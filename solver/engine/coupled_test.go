@@ -5,6 +5,7 @@ import (
 	"errors"
 	"math"
 	"slices"
+	"strings"
 	"testing"
 
 	"sectionbench/model"
@@ -364,4 +365,29 @@ func BenchmarkEngineCoupledPoint(b *testing.B) {
 			}
 		}
 	})
+}
+
+// A row past the stall with more lift than the first maximum is named in
+// words (E387 at Re 2e5 on main c671c67, 1° sweep); a sweep that falls
+// after its maximum, or ends before one, says nothing.
+func TestHigherPastClMaxWords(t *testing.T) {
+	row := func(a, cl float64) CoupledPoint { return CoupledPoint{AlphaDeg: a, Cl: cl, Converged: true} }
+	for _, tc := range []struct {
+		name string
+		rows []CoupledPoint
+		want string // in the words; "" for none
+	}{
+		{"higher branch past the stall", []CoupledPoint{row(8, 1.195), row(9, 1.246), row(10, 1.233), row(13, 1.196), row(14, 1.270), row(15, 1.207)}, "at 14° it rises above"},
+		{"falling past the stall", []CoupledPoint{row(8, 1.195), row(9, 1.246), row(10, 1.233)}, ""},
+		{"rising to the end", []CoupledPoint{row(8, 1.195), row(9, 1.246)}, ""},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			res := &Result{SweepCoupled: tc.rows}
+			res.ClMax, res.AlphaClMax, res.ClMaxIsPeak = ClMax(tc.rows, false)
+			got := res.HigherPastClMaxWords()
+			if tc.want == "" && got != "" || !strings.Contains(got, tc.want) {
+				t.Errorf("words %q, want them to contain %q", got, tc.want)
+			}
+		})
+	}
 }

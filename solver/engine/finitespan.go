@@ -237,10 +237,7 @@ func FiniteSpanEstimate(st *model.Study, res *Result) (*FiniteSpan, error) {
 	if len(res.Sweep) == 0 {
 		panic("engine: FiniteSpanEstimate of a result without a sweep")
 	}
-	sense := 1.0
-	if st.Inverted {
-		sense = -1
-	}
+	sense := loadSense(st.Inverted)
 	n := len(res.Sweep)
 	al, load, cd, used, extended, from := polarTable(res, sense)
 	tbl, err := liftingline.NewTable(al, load, cd)
