@@ -138,7 +138,7 @@ func coupledResultsText(res *engine.Result) (table, note string) {
 			r = append(r, forceCells(f.ElementLift[i])...)
 		}
 		if f != nil {
-			r = append(r, orDash(elementDrag(res, i, e.Cd), 2))
+			r = append(r, orDash(f.ElementDrag[i], 2))
 		}
 		r = append(r, xcText(e.TransitionUpper)+" / "+xcText(e.TransitionLower), xcText(e.SeparationUpper)+" / "+xcText(e.SeparationLower))
 		rows = append(rows, r)

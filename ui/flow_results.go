@@ -120,7 +120,7 @@ func resultsText(res *engine.Result) (table, note string) {
 			b := v.Elements[i]
 			r = append(r, cdText(b.Cd))
 			if f != nil {
-				r = append(r, orDash(elementDrag(res, i, b.Cd), 2))
+				r = append(r, orDash(f.ElementDrag[i], 2))
 			}
 			r = append(r, xcText(b.Upper.TransitionXC)+" / "+xcText(b.Lower.TransitionXC),
 				xcText(b.Upper.TurbulentSeparationXC)+" / "+xcText(b.Lower.TurbulentSeparationXC))
@@ -218,16 +218,6 @@ const (
 	separationColumn = "separation upper/lower"
 	xcNote           = "Transition and separation in x/c from each element's leading edge, on its upper and lower surfaces as mounted; " + dash + " where there is none."
 )
-
-// elementDrag is element i's drag in N/m from its Cd on its own chord
-// (q c Cd), NaN without forces.
-func elementDrag(res *engine.Result, i int, cd float64) float64 {
-	f := res.Forces
-	if f == nil || i >= len(res.Layout.Elements) {
-		return math.NaN()
-	}
-	return f.DynamicPressurePa * res.Layout.Elements[i].Chord * cd
-}
 
 // resultFlags returns the plausibility flags of a result at the study's
 // angle (engine.Result.Flags).

@@ -53,6 +53,10 @@ func TestEngineCoupledPoint(t *testing.T) {
 	if !f.Coupled || relErr(f.LiftPerSpan, q*c.Cl) > 1e-12 || relErr(f.DragPerSpan, q*c.Cd) > 1e-12 || relErr(f.InviscidLiftPerSpan, q*res.Solution.Cl) > 1e-12 {
 		t.Errorf("forces %+v do not follow the viscous Cl %.4f and Cd %.5f at q = %.1f Pa", f, c.Cl, c.Cd, q)
 	}
+	// One element on the reference chord: its drag is the wing's.
+	if len(f.ElementDrag) != 1 || relErr(f.ElementDrag[0], f.DragPerSpan) > 1e-12 {
+		t.Errorf("element drag %v N/m, the wing's %.4f N/m", f.ElementDrag, f.DragPerSpan)
+	}
 	if math.IsNaN(res.LiftToDrag()) {
 		t.Error("no lift-to-drag ratio from a converged point")
 	}

@@ -17,6 +17,7 @@ type Forces struct {
 	DragPerSpan       float64   // N/m from the viscous solution, NaN when not available
 	MomentPerSpan     float64   // N·m/m about the moment reference, nose-up positive
 	ElementLift       []float64 // N/m per element, positive up
+	ElementDrag       []float64 // N/m per element from its Cd on its own chord, NaN where not available
 	SpanM             float64   // 0 when not given
 	// Coupled is true when lift, moment and drag come from the coupled
 	// viscous solution; they are then NaN if it did not converge.
@@ -103,9 +104,15 @@ func forces(st *model.Study, l *model.Layout, sol *solver.Solution, v *solver.Vi
 	f.DownforcePerSpan = -f.LiftPerSpan
 	for i, e := range sol.Elements {
 		f.ElementLift = append(f.ElementLift, q*l.Elements[i].Chord*e.Cl)
+		f.ElementDrag = append(f.ElementDrag, math.NaN())
 	}
 	if v != nil && !math.IsNaN(v.Cd) {
 		f.DragPerSpan = q * l.RefChordM * v.Cd
+	}
+	if v != nil {
+		for i, e := range v.Elements {
+			f.ElementDrag[i] = q * l.Elements[i].Chord * e.Cd
+		}
 	}
 	f.InviscidLiftPerSpan = f.LiftPerSpan
 	if cp != nil {
@@ -116,6 +123,7 @@ func forces(st *model.Study, l *model.Layout, sol *solver.Solution, v *solver.Vi
 		f.DragPerSpan = q * l.RefChordM * cp.Cd
 		for i, e := range cp.Elements {
 			f.ElementLift[i] = q * l.Elements[i].Chord * e.Cl
+			f.ElementDrag[i] = q * l.Elements[i].Chord * e.Cd
 		}
 	}
 	return f
