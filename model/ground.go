@@ -37,3 +37,20 @@ func (st *Study) checkGround() error {
 	}
 	return nil
 }
+
+// NearGround reports whether a ground clearance of clearanceMM puts st's
+// wing below GroundHOverCMin of its main element's chord, where
+// Plausibility raises FlagGround: real wings lose downforce there as the
+// suction side separates, and this model shows only the rise. False in
+// free air, for a NaN clearance or a study without elements. The set-up
+// maps mark their points with it, as the workbench flags the study.
+func (st *Study) NearGround(clearanceMM float64) bool {
+	c := st.GroundChordMM()
+	return st.Ground.Enabled && c > 0 && clearanceMM/c < GroundHOverCMin
+}
+
+// NearGroundMM is the clearance, in mm, below which NearGround holds:
+// GroundHOverCMin of the main element's chord (0 without elements).
+func (st *Study) NearGroundMM() float64 {
+	return GroundHOverCMin * st.GroundChordMM()
+}

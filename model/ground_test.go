@@ -12,7 +12,8 @@ import (
 // band below GroundHOverCMin is accepted and flagged (Plausibility); above it,
 // and with the ground off, nothing is said. (1 mm on a 250 mm chord gave
 // Cl −887 and 1e-9 mm 3.6 GN/m; 10–20 mm, front-wing heights, gave Cl
-// −36 and −15, all without a word.)
+// −36 and −15, all without a word.) NearGround, which marks the set-up
+// maps' points, agrees with the flag.
 func TestGroundRule(t *testing.T) {
 	for _, tc := range []struct {
 		name    string
@@ -53,6 +54,10 @@ func TestGroundRule(t *testing.T) {
 			}
 			if tc.warned != (len(flags) == 1 && flags[0].Kind == FlagGround) {
 				t.Errorf("flags %v, want the ground flagged: %v", flags, tc.warned)
+			}
+			// The set-up maps mark their points by the same rule.
+			if got := st.NearGround(tc.h); got != tc.warned {
+				t.Errorf("NearGround(%g) = %v, want %v as the flag", tc.h, got, tc.warned)
 			}
 		})
 	}

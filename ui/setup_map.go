@@ -89,11 +89,11 @@ func (r *mapRun) grid(q engine.Quantity) figures.SetupGrid {
 		Title:  strings.ToUpper(q.Label(inv, r.forces)[:1]) + q.Label(inv, r.forces)[1:],
 		XLabel: r.vars[0].Label(r.st), YLabel: r.vars[1].Label(r.st), ZLabel: unitOf(q.Label(inv, r.forces)),
 		X: r.axes[0], Y: r.axes[1],
-		Z: make([][]float64, nx), Separated: make([][]bool, nx), Failed: make([][]bool, nx), NotSolve: make([][]bool, nx),
+		Z: make([][]float64, nx), Separated: make([][]bool, nx), Failed: make([][]bool, nx), NotSolve: make([][]bool, nx), NearGround: make([][]bool, nx),
 		Start: [2]float64{math.NaN(), math.NaN()}, Best: [2]float64{math.NaN(), math.NaN()},
 	}
 	for i := range nx {
-		g.Z[i], g.Separated[i], g.Failed[i], g.NotSolve[i] = make([]float64, ny), make([]bool, ny), make([]bool, ny), make([]bool, ny)
+		g.Z[i], g.Separated[i], g.Failed[i], g.NotSolve[i], g.NearGround[i] = make([]float64, ny), make([]bool, ny), make([]bool, ny), make([]bool, ny), make([]bool, ny)
 		for j := range ny {
 			k := i*ny + j
 			g.Z[i][j] = math.NaN()
@@ -101,6 +101,7 @@ func (r *mapRun) grid(q engine.Quantity) figures.SetupGrid {
 				g.Z[i][j] = q.Value(&r.points[k], r.forces)
 				g.Separated[i][j], g.Failed[i][j] = r.separated(k), r.failed(k)
 				g.NotSolve[i][j] = !g.Failed[i][j] && r.points[k].NotSolve()
+				g.NearGround[i][j] = !g.Failed[i][j] && r.st.NearGround(r.points[k].ClearanceMM)
 			}
 		}
 	}
@@ -139,10 +140,14 @@ func (r *mapRun) nearest(x, y float64) int {
 
 // describe is the readout of point k: its setting and every quantity.
 func (r *mapRun) describe(k int) string {
-	note := ""
+	var notes []string
 	if r.separated(k) {
-		note = "suction side separated ahead of x/c " + num(r.limit)
+		notes = append(notes, "suction side separated ahead of x/c "+num(r.limit))
 	}
+	if p := &r.points[k]; r.arrived[k] && !r.failed(k) && r.st.NearGround(p.ClearanceMM) {
+		notes = append(notes, fmt.Sprintf("very close to the ground (h/c %.2f, below %g): real wings lose downforce here, this model shows only the rise", p.ClearanceMM/r.st.GroundChordMM(), model.GroundHOverCMin))
+	}
+	note := strings.Join(notes, ", ")
 	return describePoint(r.st, r.vars, &r.points[k], r.forces, note)
 }
 

@@ -456,3 +456,30 @@ func TestSetupEmptyFiguresSay(t *testing.T) {
 		t.Error("the note stays over the map's curves")
 	}
 }
+
+// TestSetupMapNearGround: a ride-height map down to 20 mm on the
+// two-element example's 250 mm main chord marks the points below 25 mm
+// (0.1 chord) in its curves and says so in the readout, as the main
+// window flags the study there "very close to the ground" (the inviscid
+// map drew 1880 N/m at 20 mm without a word).
+func TestSetupMapNearGround(t *testing.T) {
+	_, m := inviscidMap(t, "20", "40", "10")
+	r := m.run0
+	if r == nil || r.done != 3 {
+		t.Fatalf("map: %+v", r)
+	}
+	c := r.curve(engine.QuantityLoad)
+	near := map[float64]bool{}
+	for i, x := range c.X {
+		near[x] = c.NearGround[i]
+	}
+	if !near[20] || near[30] || near[40] {
+		t.Errorf("marked too near the ground: %v, want 20 mm only", near)
+	}
+	if d := r.describe(r.nearest(20, 0)); !strings.Contains(d, "very close to the ground (h/c 0.08") {
+		t.Errorf("readout at 20 mm %q does not say it is very close to the ground", d)
+	}
+	if d := r.describe(r.nearest(40, 0)); strings.Contains(d, "close to the ground") {
+		t.Errorf("readout at 40 mm %q says it is close to the ground", d)
+	}
+}

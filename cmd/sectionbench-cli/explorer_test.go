@@ -446,3 +446,33 @@ func TestSectionsReachable(t *testing.T) {
 		t.Errorf("another folder: %v, want a refusal naming elements[1].section", err)
 	}
 }
+
+// TestMapNearGroundFlags: a ride-height map of the two-element example
+// (250 mm main chord) flags the points below 25 mm "very close to the
+// ground" in every format, as solve and sweep flag such a clearance
+// (the inviscid map gave 1879 N/m at 20 mm without a word).
+func TestMapNearGroundFlags(t *testing.T) {
+	args := []string{"map", "--study", example("two-element-ground.json"), "--vary", "clearance_mm=20:30:10", "--inviscid"}
+	m := runJSON(t, append(args, "--format", "json")...)
+	pts, _ := m["points"].([]any)
+	if len(pts) != 2 {
+		t.Fatalf("%d points, want 2", len(pts))
+	}
+	for i, want := range []string{"very close to the ground", ""} {
+		flags, ok := pts[i].(map[string]any)["flags"].([]any)
+		got := ""
+		if ok && len(flags) > 0 {
+			got = fmt.Sprint(flags[0])
+		}
+		if !ok || got != want || len(flags) > 1 {
+			t.Errorf("point %d: flags %v, want [%s]", i, pts[i].(map[string]any)["flags"], want)
+		}
+	}
+	code, out, stderr := runCLI(t, args...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if !strings.Contains(out, "very close to the ground: below 25 mm") {
+		t.Errorf("text map does not say what the flag means:\n%s", out)
+	}
+}

@@ -77,7 +77,11 @@ type jsonMapKeys struct {
 	SeparationLower num              `json:"separation_lower"`
 	ClearanceMM     *num             `json:"ground_clearance_mm,omitempty"`
 	Elements        []jsonMapElement `json:"elements"`
-	Error           string           `json:"error,omitempty"`
+	// Flags say, in words, why the point is not to be taken at face
+	// value beyond its other keys (format.MapFlags: "very close to the
+	// ground"); empty when none.
+	Flags []string `json:"flags"`
+	Error string   `json:"error,omitempty"`
 }
 
 // MarshalJSON writes the variables' keys, then the fixed ones.
@@ -126,7 +130,7 @@ func writeNamed(b *bytes.Buffer, names []string, values []float64) {
 }
 
 // mapPointJSON is p's JSON form; speed says whether forces are known.
-func mapPointJSON(vars []model.SetupVariable, p engine.Point, hasSpeed bool) jsonMapPoint {
+func mapPointJSON(st *model.Study, vars []model.SetupVariable, p engine.Point, hasSpeed bool) jsonMapPoint {
 	out := jsonMapPoint{values: p.Values}
 	for _, v := range vars {
 		out.names = append(out.names, v.Name())
@@ -153,6 +157,10 @@ func mapPointJSON(vars []model.SetupVariable, p engine.Point, hasSpeed bool) jso
 	}
 	if p.ClearanceMM == p.ClearanceMM {
 		k.ClearanceMM = ptr(p.ClearanceMM)
+	}
+	k.Flags = []string{}
+	for _, f := range format.MapFlags(st, &p) {
+		k.Flags = append(k.Flags, string(f.Kind))
 	}
 	k.Elements = []jsonMapElement{}
 	for i, e := range p.Elements {
@@ -292,7 +300,7 @@ func cmdMap(args []string, stdout, stderr io.Writer) error {
 			out.Variables = append(out.Variables, v.Name())
 		}
 		for _, p := range points {
-			out.Points = append(out.Points, mapPointJSON(vars, p, hasSpeed))
+			out.Points = append(out.Points, mapPointJSON(st, vars, p, hasSpeed))
 			if p.Converged {
 				out.Converged++
 			}
@@ -374,7 +382,8 @@ func mapText(w io.Writer, st *model.Study, vars []model.SetupVariable, points []
 	for k := range st.Elements {
 		head += fmt.Sprintf("elements[%d] separation x/c (%s)\t", k, model.SuctionSurface(st.Inverted))
 	}
-	fmt.Fprintln(tw, head+"state\t")
+	fmt.Fprintln(tw, head+"flags\tstate\t")
+	near := false
 	for _, p := range points {
 		line := ""
 		for _, x := range p.Values {
@@ -398,6 +407,11 @@ func mapText(w io.Writer, st *model.Study, vars []model.SetupVariable, points []
 				line += fmt.Sprintf("%.3f\t", e.SeparationSuction)
 			}
 		}
+		flags := "none"
+		if f := format.MapFlags(st, &p); len(f) > 0 {
+			flags, near = model.FlagWords(f), true
+		}
+		line += flags + "\t"
 		state := "converged"
 		switch {
 		case p.Err != "":
@@ -420,6 +434,10 @@ func mapText(w io.Writer, st *model.Study, vars []model.SetupVariable, points []
 	}
 	if err := tw.Flush(); err != nil {
 		return err
+	}
+	if near {
+		fmt.Fprintf(w, "%s: below %g mm (%g of the main element's %g mm chord) real wings lose downforce as the suction side separates; this model shows only the rise\n",
+			model.FlagGround, st.NearGroundMM(), model.GroundHOverCMin, st.GroundChordMM())
 	}
 	other, none, compared := 0, 0, false
 	for i := range points {

@@ -114,7 +114,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 	hasSpeed := st.Flow.SpeedMPS > 0 || slicesHasSpeed(vars)
 	if in.format == "json" {
 		out := jsonSearch{Objective: string(obj), ViscousMode: mode, Inverted: st.Inverted,
-			Start: mapPointJSON(vars, res.Start, hasSpeed), Best: mapPointJSON(vars, res.Best, hasSpeed),
+			Start: mapPointJSON(st, vars, res.Start, hasSpeed), Best: mapPointJSON(st, vars, res.Best, hasSpeed),
 			Feasible: res.Feasible, Evaluations: res.Evaluations, Status: res.Status, Path: []jsonMapPoint{}, Note: localNote, Caution: caution}
 		for _, v := range vars {
 			out.Variables = append(out.Variables, v.Name())
@@ -123,11 +123,11 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 			out.Target = ptr(res.Target)
 		}
 		if u := res.Unreproduced; u != nil {
-			p := mapPointJSON(vars, *u, hasSpeed)
+			p := mapPointJSON(st, vars, *u, hasSpeed)
 			out.Unreproduced = &p
 		}
 		for _, p := range res.Path {
-			out.Path = append(out.Path, mapPointJSON(vars, p, hasSpeed))
+			out.Path = append(out.Path, mapPointJSON(st, vars, p, hasSpeed))
 		}
 		return writeJSON(stdout, out)
 	}

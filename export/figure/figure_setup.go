@@ -14,6 +14,7 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
+	"sectionbench/model"
 	"sectionbench/solver/engine"
 )
 
@@ -36,6 +37,14 @@ type SetupCurve struct {
 	// reaches another root of the coupled equations, or none): boxed.
 	// Any may be nil.
 	Separated, Failed, NotSolve []bool
+	// NearGround marks points closer to the ground than
+	// model.GroundHOverCMin of the main element's chord
+	// (model.Study.NearGround), where the workbench flags the study
+	// "very close to the ground": real wings lose downforce there, and
+	// the model shows only the rise. Drawn in a triangle of their own;
+	// may be nil. NearGroundLabel says so in words, for captions.
+	NearGround      []bool
+	NearGroundLabel string
 	// Current is the study's own value of the variable (a vertical line),
 	// NaN for none; Onset is where separation sets in (a labelled vertical
 	// line), NaN for none.
@@ -76,8 +85,8 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 	p := newPlot(th, c.Title, c.XLabel, c.YLabel)
 	k := newKey(th, keyTopRight)
 	type pt struct {
-		x, y            float64
-		sep, fail, from bool
+		x, y                  float64
+		sep, fail, from, near bool
 	}
 	var pts []pt
 	for i, x := range c.X {
@@ -85,13 +94,14 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		q.sep = i < len(c.Separated) && c.Separated[i]
 		q.fail = i < len(c.Failed) && c.Failed[i]
 		q.from = i < len(c.NotSolve) && c.NotSolve[i]
+		q.near = i < len(c.NearGround) && c.NearGround[i]
 		if !q.fail && math.IsNaN(q.y) {
 			continue
 		}
 		pts = append(pts, q)
 	}
 	sort.Slice(pts, func(i, j int) bool { return pts[i].x < pts[j].x })
-	var line, attached, separated, notSolve plotter.XYs
+	var line, attached, separated, notSolve, near plotter.XYs
 	var failed []float64
 	ext := newExtent()
 	for _, q := range pts {
@@ -105,6 +115,9 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		line = append(line, xy)
 		if q.from {
 			notSolve = append(notSolve, xy)
+		}
+		if q.near {
+			near = append(near, xy)
 		}
 		if q.sep {
 			separated = append(separated, xy)
@@ -134,6 +147,7 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		k.add("suction side separated", s)
 	}
 	addNotSolve(p, k, th, notSolve)
+	addNearGround(p, k, th, near)
 	addNoAnswer(p, k, th, failed, len(pts))
 	for _, x := range failed {
 		k.keep(plotter.XYs{{X: x, Y: ext.y0}})
@@ -190,6 +204,22 @@ func addNotSolve(p *plot.Plot, k *key, th *theme, xys plotter.XYs) {
 	k.add(fmt.Sprintf("a single solve differs (%d)", len(xys)), s)
 }
 
+// nearGroundKey is the key entry of the points too near the ground
+// (SetupCurve.NearGround, SetupGrid.NearGround): short enough for the
+// set-up window's cells.
+var nearGroundKey = fmt.Sprintf("too near the ground (h/c < %g)", model.GroundHOverCMin)
+
+// addNearGround puts a triangle round the points too near the ground,
+// with their key entry (none for none).
+func addNearGround(p *plot.Plot, k *key, th *theme, xys plotter.XYs) {
+	if len(xys) == 0 {
+		return
+	}
+	s := newScatter(xys, th.accent, glyphMarker*1.7, draw.TriangleGlyph{})
+	p.Add(s)
+	k.add(nearGroundKey, s)
+}
+
 // addNoAnswer crosses the points without an answer, at xs on the x axis,
 // with their key entry (none for none).
 func addNoAnswer(p *plot.Plot, k *key, th *theme, xs []float64, total int) {
@@ -208,9 +238,9 @@ type SetupGrid struct {
 	Title, XLabel, YLabel, ZLabel string
 	X, Y                          []float64 // increasing
 	Z                             [][]float64
-	// Separated, Failed and NotSolve mark cells as SetupCurve does;
-	// any may be nil.
-	Separated, Failed, NotSolve [][]bool
+	// Separated, Failed, NotSolve and NearGround mark cells as
+	// SetupCurve does; any may be nil.
+	Separated, Failed, NotSolve, NearGround [][]bool
 	// Path is a search's path in (X, Y), in the order evaluated; Start and
 	// Best are marked when not NaN.
 	Path        [][2]float64
@@ -329,6 +359,9 @@ func SetupGridPlot(g SetupGrid, dark bool) (*plot.Plot, error) {
 	}
 	if anyTrue(g.NotSolve) {
 		k.add("a single solve differs (boxed)", boxThumb{lineStyle(th.accent, widthNormal, nil)})
+	}
+	if anyTrue(g.NearGround) {
+		k.add(nearGroundKey, newScatter(nil, th.accent, glyphMarker*1.7, draw.TriangleGlyph{}))
 	}
 	if len(g.Path) > 0 {
 		xys := make(plotter.XYs, len(g.Path))
@@ -468,6 +501,10 @@ func (m *cellMarks) Plot(c draw.Canvas, p *plot.Plot) {
 			}
 			if m.g.NotSolve != nil && m.g.NotSolve[i][j] {
 				boxCell(c, r, lineStyle(m.box, widthNormal, nil))
+			}
+			if m.g.NearGround != nil && m.g.NearGround[i][j] && !(m.g.Failed != nil && m.g.Failed[i][j]) {
+				g := draw.GlyphStyle{Color: m.box, Radius: vg.Length(math.Min(float64(glyphMarker*1.7), float64(r.Size().X)/3)), Shape: draw.TriangleGlyph{}}
+				c.DrawGlyph(g, vg.Point{X: (r.Min.X + r.Max.X) / 2, Y: (r.Min.Y + r.Max.Y) / 2})
 			}
 		}
 	}

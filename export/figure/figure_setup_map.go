@@ -15,8 +15,10 @@ import (
 // so far, in any order) against the variable v of st: points without an
 // answer marked failed, points whose suction side separates ahead of
 // limit marked separated, points that are not a single solve's answer
-// (engine.Point.NotSolve) marked so, the study's own value current and the
-// separation onset marked. forces gives the load and drag in N/m.
+// (engine.Point.NotSolve) marked so, points too near the ground
+// (model.Study.NearGround of their clearance) marked so, the study's own
+// value current and the separation onset marked. forces gives the load
+// and drag in N/m.
 //
 // The onset is the first separated point next to an attached one, among
 // the viscous points with an answer in order of the variable (the one
@@ -47,6 +49,11 @@ func MapCurve(st *model.Study, v model.SetupVariable, points []engine.Point, q e
 		c.Separated = append(c.Separated, sep)
 		c.Failed = append(c.Failed, failed)
 		c.NotSolve = append(c.NotSolve, !failed && p.NotSolve())
+		near := !failed && st.NearGround(p.ClearanceMM)
+		c.NearGround = append(c.NearGround, near)
+		if near {
+			c.NearGroundLabel = NearGroundWords(st)
+		}
 		if !failed && p.Viscous {
 			known = append(known, pt{p.Values[0], sep})
 		}
@@ -69,4 +76,13 @@ func MapCurve(st *model.Study, v model.SetupVariable, points []engine.Point, q e
 		c.OnsetShort = fmt.Sprintf("separation from %s %s", strconv.FormatFloat(c.Onset, 'g', 4, 64), v.Unit())
 	}
 	return c
+}
+
+// NearGroundWords says, for a caption or a note, what a map's triangles
+// mark: points closer to the ground than model.GroundHOverCMin of st's
+// main element's chord, where the workbench flags "very close to the
+// ground".
+func NearGroundWords(st *model.Study) string {
+	return fmt.Sprintf("points closer to the ground than %s mm (%g of the main element's chord) are marked with a triangle: real wings lose downforce there as the suction side separates, and this model shows only the rise",
+		strconv.FormatFloat(st.NearGroundMM(), 'g', 4, 64), model.GroundHOverCMin)
 }

@@ -247,3 +247,68 @@ func TestSpanLoadKeyRoom(t *testing.T) {
 		t.Errorf("%.0f %% of the axis above the two-dimensional line, want room for the key", 100*room)
 	}
 }
+
+// TestMapCurveNearGround: a ride-height map marks the points closer to
+// the ground than 0.1 of the main chord, where the workbench flags the
+// study "very close to the ground" (an inviscid map of the two-element
+// example drew 1880 N/m at 20 mm on a 250 mm chord without a word), in
+// the figure's key and in the caption's words; the rule is the flag's
+// (model.GroundHOverCMin, Zerihan & Zhang 2000, in model). A point
+// without an answer is crossed, not marked; in free air nothing is.
+func TestMapCurveNearGround(t *testing.T) {
+	st := model.NewStudy()
+	st.Elements[0].ChordMM = 250
+	st.Inverted = true
+	st.Ground = model.Ground{Enabled: true, ClearanceMM: 100}
+	v := model.SetupVariable{Kind: model.SetupClearance}
+	var pts []engine.Point
+	for _, h := range []float64{10, 20, 24.9, 25, 40, 100} {
+		pts = append(pts, engine.Point{Values: []float64{h}, Converged: h != 10, Inverted: true, Cl: -40 / math.Sqrt(h),
+			DownforcePerSpan: 4000 / math.Sqrt(h), ClearanceMM: h, Elements: []engine.PointElement{{SeparationSuction: math.NaN()}}})
+	}
+	c := MapCurve(st, v, pts, engine.QuantityLoad, true, 0.9, 100)
+	if want := []bool{false, true, true, false, false, false}; !slices.Equal(c.NearGround, want) {
+		t.Errorf("near the ground %v, want %v (20 and 24.9 mm: below 25 mm; 10 mm has no answer)", c.NearGround, want)
+	}
+	if !strings.Contains(c.NearGroundLabel, "25 mm") || !strings.Contains(c.NearGroundLabel, "lose downforce") {
+		t.Errorf("caption words %q do not give the 25 mm and what it means", c.NearGroundLabel)
+	}
+	p, err := SetupCurvePlot(c, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	writeSetup(t, "setup-curve-near-ground", p)
+	var svg bytes.Buffer
+	if err := WritePlot(&svg, p, FormatSVG, 6, 4, 96); err != nil {
+		t.Fatal(err)
+	}
+	texts, err := svgTexts(svg.Bytes())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !slices.Contains(texts, nearGroundKey) {
+		t.Errorf("the key has no entry for the points too near the ground: %q", texts)
+	}
+
+	g := SetupGrid{Title: "t", X: []float64{20, 40}, Y: []float64{1, 2}, Z: [][]float64{{900, 800}, {600, 500}}, NearGround: [][]bool{{true, true}, {false, false}}}
+	gp, err := SetupGridPlot(g, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	writeSetup(t, "setup-grid-near-ground", gp)
+	svg.Reset()
+	if err := WritePlot(&svg, gp, FormatSVG, 6, 4, 96); err != nil {
+		t.Fatal(err)
+	}
+	if texts, _ = svgTexts(svg.Bytes()); !slices.Contains(texts, nearGroundKey) {
+		t.Errorf("the grid's key has no entry for the cells too near the ground: %q", texts)
+	}
+
+	st.Ground.Enabled = false
+	for i := range pts {
+		pts[i].ClearanceMM = math.NaN()
+	}
+	if c := MapCurve(st, v, pts, engine.QuantityLoad, true, 0.9, 100); slices.Contains(c.NearGround, true) || c.NearGroundLabel != "" {
+		t.Errorf("free air: near the ground %v, %q", c.NearGround, c.NearGroundLabel)
+	}
+}

@@ -24,8 +24,9 @@ import (
 // on an upright one, and drag_per_span_n_per_m (empty without a speed);
 // per element K, elements[K].separation_suction_xc (empty: attached, or
 // not converged) and, behind the main element, elements[K].gap_mm; then
-// error (why a point could not be solved). Coefficients are empty where
-// the point did not converge.
+// flags (MapFlags in words, as a sweep's rows give them: "very close to
+// the ground", or none) and error (why a point could not be solved).
+// Coefficients are empty where the point did not converge.
 func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupVariable, points []engine.Point) error {
 	m.AlphaDeg = NoAngle
 	units := "angles in degrees, lengths in millimetres, speed in m/s, forces in N per metre of span; coefficients on the reference chord, cl positive away from the ground (standard sense); " + model.FrameText
@@ -51,7 +52,7 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 			head = append(head, fmt.Sprintf("elements[%d].gap_mm", k))
 		}
 	}
-	head = append(head, "error")
+	head = append(head, "flags", "error")
 	t, err := newTable(w, head...)
 	if err != nil {
 		return err
@@ -81,10 +82,26 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 				row = append(row, cell(e.GapMM))
 			}
 		}
-		row = append(row, p.Err)
+		flags := "none"
+		if f := MapFlags(st, &p); len(f) > 0 {
+			flags = model.FlagWords(f)
+		}
+		row = append(row, flags, p.Err)
 		if err := t.row(row...); err != nil {
 			return err
 		}
 	}
 	return t.close()
+}
+
+// MapFlags returns the flags a map's or a search's point raises that
+// its other columns do not say: a clearance below model.GroundHOverCMin
+// of the main element's chord (model.Study.NearGround), flagged as the
+// workbench flags the study, "very close to the ground". A point without
+// an answer raises none (it has no numbers to doubt).
+func MapFlags(st *model.Study, p *engine.Point) []model.Flag {
+	if !p.Converged || p.Err != "" || !st.NearGround(p.ClearanceMM) {
+		return nil
+	}
+	return model.Plausibility(model.PointFacts{HOverC: p.ClearanceMM / st.GroundChordMM()})
 }

@@ -307,3 +307,41 @@ func TestCoupledBoundaryLayerTable(t *testing.T) {
 		t.Errorf("shear-stress cells %q, want %q", ctau, want)
 	}
 }
+
+// TestMapTableFlags: a map's CSV row says "very close to the ground" where
+// the point's clearance is below 0.1 of the main chord, as a sweep's row
+// and the workbench say of the study (an inviscid ride-height map of the
+// two-element example gave 1880 N/m at 20 mm on its 250 mm chord without
+// a word); a point without an answer, and one above the limit, say none.
+func TestMapTableFlags(t *testing.T) {
+	st := model.NewStudy()
+	st.Elements[0].ChordMM = 250
+	st.Inverted = true
+	st.Ground = model.Ground{Enabled: true, ClearanceMM: 100}
+	vars := []model.SetupVariable{{Kind: model.SetupClearance}}
+	el := []engine.PointElement{{SeparationSuction: math.NaN()}}
+	pts := []engine.Point{
+		{Values: []float64{10}, Converged: false, Inverted: true, ClearanceMM: 10, Elements: el},
+		{Values: []float64{20}, Converged: true, Inverted: true, Cl: -7.5, ClearanceMM: 20, Elements: el},
+		{Values: []float64{25}, Converged: true, Inverted: true, Cl: -6, ClearanceMM: 25, Elements: el},
+	}
+	var b bytes.Buffer
+	if err := WriteMapTable(&b, Metadata{Study: "ride height (invented)", AlphaDeg: NoAngle}, st, vars, pts); err != nil {
+		t.Fatal(err)
+	}
+	r := csv.NewReader(strings.NewReader(b.String()))
+	r.Comment = '#'
+	rows, err := r.ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	col := slices.Index(rows[0], "flags")
+	if col < 0 {
+		t.Fatalf("no flags column: %v", rows[0])
+	}
+	for i, want := range []string{"none", string(model.FlagGround), "none"} {
+		if got := rows[i+1][col]; got != want {
+			t.Errorf("%s mm: flags %q, want %q", rows[i+1][0], got, want)
+		}
+	}
+}

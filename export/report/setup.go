@@ -60,6 +60,9 @@ func (r *writer) setupPage() {
 			if n := countTrue(s.Curve.NotSolve); n > 0 {
 				note += fmt.Sprintf(" Boxed (%d): not a single solve's answer; started from a neighbouring setting's solution they converged where a single solve of their setting reaches another root of the coupled equations, or none.", n)
 			}
+			if n := countTrue(s.Curve.NearGround); n > 0 {
+				note += fmt.Sprintf(" Very close to the ground (%d): %s.", n, s.Curve.NearGroundLabel)
+			}
 			r.image(func(w io.Writer, win, hin float64) error {
 				return figure.WritePlot(w, pl, figure.FormatPNG, win, hin, FigureDPI)
 			}, "set-up curve", caption+" "+note, figureHMM*0.85)
