@@ -5,7 +5,6 @@ import (
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
-	"gonum.org/v1/gonum/lapack/lapack64"
 )
 
 // The Newton step's mass-defect system M Δm = b (newtonStep) is dense,
@@ -25,7 +24,7 @@ import (
 // (the Newton iterations converge to 1e-5 of the variables).
 type dmSolver struct {
 	n     int
-	lu    []float64 // LU factors of an earlier M (lapack64.Getrf), row-major
+	lu    []float64 // LU factors of an earlier M (factorise, as lapack64.Getrf), row-major
 	ipiv  []int
 	fresh bool // lu holds no factors yet
 	// GMRES's workspace: the Krylov basis v (dmMaxKrylov+1 rows of n),
@@ -114,7 +113,7 @@ func (s *dmSolver) solveSystem(sys linearSystem, n int, b []float64) (ok bool) {
 	}
 	copy(s.lu, sys.dense())
 	s.factorisations++
-	if !lapack64.Getrf(blas64.General{Rows: n, Cols: n, Stride: n, Data: s.lu}, s.ipiv) {
+	if !factorise(s.lu, n, s.ipiv) {
 		s.fresh = true
 		return false
 	}
