@@ -148,12 +148,15 @@ func newDensityWindow(w *Workbench) *densityWindow {
 		return widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	}
 	d.table.UpdateHeader = func(id widget.TableCellID, o fyne.CanvasObject) {
-		if id.Col >= 0 && id.Col < len(densityColumns) {
-			o.(*widget.Label).SetText(densityColumns[id.Col])
+		if cols := d.columns(); id.Col >= 0 && id.Col < len(cols) {
+			o.(*widget.Label).SetText(cols[id.Col])
 		}
 	}
 	for i, wd := range densityColumnWidths {
 		d.table.SetColumnWidth(i, wd)
+	}
+	for i, wd := range densityViscousWidths {
+		d.table.SetColumnWidth(len(densityColumnWidths)+i, wd)
 	}
 
 	d.conv = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(420, 320))
@@ -210,17 +213,30 @@ func newDensityWindow(w *Workbench) *densityWindow {
 	return d
 }
 
-// Columns of the density table.
+// Columns of the density table: the panel method's, then, when the study
+// solves the coupled viscous solution, its Cl and Cd at each count (the
+// command line's density table has them; the window showed only their
+// finest values, and not how they moved with the count).
 var (
-	densityColumns      = []string{"panels", "nose", "Cl", "ΔCl", "Cm", "min Cp", "Δ min Cp"}
-	densityColumnWidths = []float32{76, 52, 76, 84, 70, 70, 84}
+	densityColumns       = []string{"panels", "nose", "Cl", "ΔCl", "Cm", "min Cp", "Δ min Cp"}
+	densityColumnWidths  = []float32{76, 52, 76, 84, 70, 70, 84}
+	densityViscous       = []string{"Cl viscous", "Cd viscous"}
+	densityViscousWidths = []float32{92, 92}
 )
+
+// columns returns the table's columns for the outcome shown.
+func (d *densityWindow) columns() []string {
+	if d.out != nil && d.out.res.Viscous {
+		return append(slices.Clip(densityColumns), densityViscous...)
+	}
+	return densityColumns
+}
 
 func (d *densityWindow) tableSize() (int, int) {
 	if d.out == nil {
 		return 0, len(densityColumns)
 	}
-	return len(d.out.res.Rows), len(densityColumns)
+	return len(d.out.res.Rows), len(d.columns())
 }
 
 func (d *densityWindow) tableCell(id widget.TableCellID, o fyne.CanvasObject) {
@@ -255,6 +271,12 @@ func (d *densityWindow) tableCell(id widget.TableCellID, o fyne.CanvasObject) {
 		s = fixed(r.CpMin, 3)
 	case id.Col == 6:
 		s = signed(r.DCpMin, 4)
+	case id.Col == 7 && math.IsNaN(r.ViscousCl), id.Col == 8 && math.IsNaN(r.ViscousCd):
+		s = "no answer" // did not converge at this count
+	case id.Col == 7:
+		s = fixed(r.ViscousCl, 4)
+	case id.Col == 8:
+		s = fixed(r.ViscousCd, 5)
 	}
 	l.SetText(s)
 }
@@ -664,7 +686,11 @@ func (d *densityWindow) showOutcome() {
 		d.use.Disable()
 	} else {
 		d.recommend.SetText(fmt.Sprintf("Recommended: %d panels", ser.RecommendedPanels))
-		d.recommendWhy.SetText(fmt.Sprintf("The fewest for which this and every finer count keep Cl within %s %% and min Cp within %s %% of their extrapolated values.", num(tolCl), num(tolCp)))
+		why := fmt.Sprintf("The fewest for which this and every finer count keep Cl within %s %% and min Cp within %s %% of their extrapolated values.", num(tolCl), num(tolCp))
+		if res.Viscous {
+			why += " It judges the panel method's (inviscid) Cl and min Cp only: check in the table that the viscous Cl and Cd have settled at that count."
+		}
+		d.recommendWhy.SetText(why)
 		label := fmt.Sprintf("Use %d panels", ser.RecommendedPanels)
 		if ser.Nose != cur.Nose {
 			label += ", nose " + fixed(ser.Nose, 2)

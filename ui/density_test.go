@@ -339,3 +339,41 @@ func TestDensityFieldsApplyOnCommit(t *testing.T) {
 		t.Errorf("after undo the counts show %q, want %q", got, start)
 	}
 }
+
+// TestDensityViscousColumns: with the coupled viscous solution on (the
+// demo as the app opens it) the density table gives the viscous Cl and
+// Cd at each count beside the panel method's, as the command line's
+// table does (the window gave only their finest values), and the
+// recommendation says it judges the panel method only.
+func TestDensityViscousColumns(t *testing.T) {
+	w := newDemoBench(t)
+	w.openDensity(densityTabConvergence)
+	w.WaitIdle()
+	d := w.density
+	d.panels.SetText("40, 80, 160")
+	d.start()
+	w.WaitIdle()
+	if !d.msg.Hidden || d.out == nil || !d.out.res.Viscous {
+		t.Fatalf("run: %q, outcome %v", d.msg.Text, d.out)
+	}
+	rows, cols := d.tableSize()
+	if got := d.columns(); cols != 9 || got[7] != "Cl viscous" || got[8] != "Cd viscous" {
+		t.Fatalf("columns %q (%d), want the viscous Cl and Cd after the panel method's", got, cols)
+	}
+	for r := range rows {
+		row := d.out.res.Rows[r]
+		for c, want := range map[int]string{7: fixed(row.ViscousCl, 4), 8: fixed(row.ViscousCd, 5)} {
+			if math.IsNaN(row.ViscousCl) {
+				want = "no answer"
+			}
+			l := d.table.CreateCell().(*widget.Label)
+			d.tableCell(widget.TableCellID{Row: r, Col: c}, l)
+			if l.Text != want {
+				t.Errorf("%d panels, column %d: %q, want %q", row.Panels, c, l.Text, want)
+			}
+		}
+	}
+	if d.out.res.Series[0].RecommendedPanels > 0 && !strings.Contains(d.recommendWhy.Text, "panel method's (inviscid) Cl and min Cp only") {
+		t.Errorf("recommendation %q does not say it judges the panel method only", d.recommendWhy.Text)
+	}
+}
