@@ -221,7 +221,7 @@ var (
 	densityColumns       = []string{"panels", "nose", "Cl", "ΔCl", "Cm", "min Cp", "Δ min Cp"}
 	densityColumnWidths  = []float32{76, 52, 76, 84, 70, 70, 84}
 	densityViscous       = []string{"Cl viscous", "Cd viscous"}
-	densityViscousWidths = []float32{92, 92}
+	densityViscousWidths = []float32{120, 120}
 )
 
 // columns returns the table's columns for the outcome shown.
@@ -277,6 +277,9 @@ func (d *densityWindow) tableCell(id widget.TableCellID, o fyne.CanvasObject) {
 		s = fixed(r.ViscousCl, 4)
 	case id.Col == 8:
 		s = fixed(r.ViscousCd, 5)
+	}
+	if id.Col >= 7 && r.ViscousHeld && !math.IsNaN(r.ViscousCl) {
+		s += " held" // transition held upstream: a trip's answer (the summary says so)
 	}
 	l.SetText(s)
 }
@@ -620,6 +623,15 @@ func (d *densityWindow) showOutcome() {
 	}
 	if n := len(skipped); n > 0 {
 		text += fmt.Sprintf(" %d count%s skipped: %s.", n, plural(n), strings.Join(skipped, "; "))
+	}
+	var held []int
+	for _, r := range res.Rows {
+		if r.Nose == ser.Nose && r.Solved() && r.ViscousHeld && !math.IsNaN(r.ViscousCl) {
+			held = append(held, r.Panels)
+		}
+	}
+	if w := report.HeldWords(held); w != "" {
+		text += " " + w
 	}
 	fresh := d.fresh()
 	if !fresh {

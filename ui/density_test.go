@@ -377,3 +377,29 @@ func TestDensityViscousColumns(t *testing.T) {
 		t.Errorf("recommendation %q does not say it judges the panel method only", d.recommendWhy.Text)
 	}
 }
+
+// TestDensityHeldMarked: a count whose coupled solution holds transition
+// upstream of its e^N position is marked held in the table and said in
+// the summary (a hand-typed NACA 2412 at 4° showed −0.6993 at 320 panels
+// and −0.6740 at 640, a tripped wing's answer, unmarked). Invented rows.
+func TestDensityHeldMarked(t *testing.T) {
+	w, d := openDensityTest(t)
+	nan := math.NaN()
+	res := &engine.DensityResult{Viscous: true, Series: []engine.DensitySeries{{Nose: 0.5, RecommendedPanels: 320}}}
+	for _, n := range []int{160, 320, 640} {
+		res.Rows = append(res.Rows, engine.DensityRow{Panels: n, Nose: 0.5, Cl: -0.7439, CpMin: -1.44, DCl: nan, DCm: nan, DCpMin: nan,
+			ViscousCl: -0.6998, ViscousCd: 0.0092, ViscousTransitionUpper: nan, ViscousTransitionLower: 0.45, ViscousHeld: n == 640})
+	}
+	d.out, d.runStudy = &densityOutcome{res: res}, w.ctl.Current()
+	d.showOutcome()
+	for r, want := range []bool{false, false, true} {
+		l := d.table.CreateCell().(*widget.Label)
+		d.tableCell(widget.TableCellID{Row: r, Col: 7}, l)
+		if got := strings.HasSuffix(l.Text, " held"); got != want {
+			t.Errorf("%d panels: viscous Cl %q, held mark %v, want %v", res.Rows[r].Panels, l.Text, got, want)
+		}
+	}
+	if !strings.Contains(d.caseLabel.Text, "At 640 panels the viscous solution holds transition upstream") {
+		t.Errorf("summary %q does not say 640 panels is held", d.caseLabel.Text)
+	}
+}

@@ -21,6 +21,31 @@ type ViscousDensityRow struct {
 	Cl, Cd                           float64
 	TransitionUpper, TransitionLower float64 // x/c on the main element, NaN for none
 	Skipped                          string
+	// Held: the coupled solution converged only with transition held
+	// upstream of its e^N position (engine.DensityRow.ViscousHeld): the
+	// answer of a trip there, not the free transition of the other counts.
+	Held bool
+}
+
+// HeldWords says at which counts of a density study the coupled
+// solution's transition is held upstream ("" for none), for the report
+// and the density window: such a count's Cl and Cd are a tripped wing's,
+// and among free-transition counts they look like a convergence failure
+// of the panelling (a hand-typed NACA 2412 at 4° gave viscous Cl
+// −0.6993 at 320 panels and a held −0.6740 at 640, unmarked).
+func HeldWords(panels []int) string {
+	if len(panels) == 0 {
+		return ""
+	}
+	counts := make([]string, len(panels))
+	for i, n := range panels {
+		counts[i] = strconv.Itoa(n)
+	}
+	list := counts[0]
+	if n := len(counts); n > 1 {
+		list = strings.Join(counts[:n-1], ", ") + " and " + counts[n-1]
+	}
+	return fmt.Sprintf("At %s panels the viscous solution holds transition upstream of its e^N position (marked held): the answer there is that of a trip, not the free transition of the other counts.", list)
 }
 
 // ViscousDensity returns the viscous answer of st (boundary layer on)
@@ -76,7 +101,7 @@ func viscousDensityFrom(d *engine.DensityResult) []ViscousDensityRow {
 		if r.Nose != d.Series[0].Nose {
 			continue
 		}
-		row := ViscousDensityRow{Panels: r.Panels, Cl: r.ViscousCl, Cd: r.ViscousCd, TransitionUpper: r.ViscousTransitionUpper, TransitionLower: r.ViscousTransitionLower}
+		row := ViscousDensityRow{Panels: r.Panels, Cl: r.ViscousCl, Cd: r.ViscousCd, TransitionUpper: r.ViscousTransitionUpper, TransitionLower: r.ViscousTransitionLower, Held: r.ViscousHeld}
 		switch {
 		case !r.Solved():
 			row.Skipped = r.Skipped
@@ -119,6 +144,7 @@ func (r *writer) viscousDensitySection() {
 	}
 	var t [][]string
 	var skipped []string // the reasons, in full under the table: a cell would cut them
+	var held []int
 	prevCl, prevCd := math.NaN(), math.NaN()
 	for _, row := range rows {
 		var cells []string
@@ -128,6 +154,10 @@ func (r *writer) viscousDensitySection() {
 			prevCl, prevCd = math.NaN(), math.NaN()
 		} else {
 			cells = []string{strconv.Itoa(row.Panels)}
+			if row.Held {
+				cells[0] += " held"
+				held = append(held, row.Panels)
+			}
 			if withCl {
 				cells = append(cells, Coef(row.Cl), Coef(row.Cl-prevCl))
 			}
@@ -144,6 +174,9 @@ func (r *writer) viscousDensitySection() {
 	msgs := []string{}
 	if len(skipped) > 0 {
 		msgs = append(msgs, "No answer at "+strings.Join(skipped, " "))
+	}
+	if w := HeldWords(held); w != "" {
+		msgs = append(msgs, w)
 	}
 	if withCl {
 		msgs = append(msgs, viscousExtrapolation("Cl", 4, rows, func(row ViscousDensityRow) float64 { return row.Cl }))

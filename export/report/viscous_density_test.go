@@ -64,3 +64,35 @@ func TestViscousDensityFromDensityStudy(t *testing.T) {
 		}
 	}
 }
+
+// A count whose coupled solution converged only with transition held
+// upstream of its e^N position is marked held in the report's table and
+// said in words: its Cl is a tripped wing's (a hand-typed NACA 2412 at 4°
+// gave −0.6993 at 320 panels and a held −0.6740 at 640, unmarked, so the
+// table read as a panel count that had not converged).
+func TestViscousDensityHeld(t *testing.T) {
+	st := demoStudy()
+	res := solve(t, st)
+	nan := math.NaN()
+	d := &engine.DensityResult{Viscous: true, Series: []engine.DensitySeries{{Nose: 0.5}}}
+	for _, n := range []int{160, 320, 640} {
+		d.Rows = append(d.Rows, engine.DensityRow{Panels: n, Nose: 0.5, ViscousCl: -0.6998, ViscousCd: 0.0092, ViscousTransitionUpper: nan, ViscousTransitionLower: 0.45, ViscousHeld: n == 640})
+	}
+	d.Rows[2].ViscousCl = -0.6740
+	rows := ViscousDensity(context.Background(), st, nil, d)
+	if len(rows) != 3 || rows[1].Held || !rows[2].Held {
+		t.Fatalf("rows %+v: want 640 panels held", rows)
+	}
+	text := pdfText(t, Input{Study: st, Result: res, ViscousDensity: rows})
+	for _, w := range []string{"640 held", "At 640 panels the viscous solution holds transition upstream of its e^N position"} {
+		if !strings.Contains(text, w) {
+			t.Errorf("report lacks %q", w)
+		}
+	}
+	if got := HeldWords([]int{320, 640}); !strings.HasPrefix(got, "At 320 and 640 panels") {
+		t.Errorf("HeldWords of two counts: %q", got)
+	}
+	if HeldWords(nil) != "" {
+		t.Error("HeldWords of none says something")
+	}
+}
