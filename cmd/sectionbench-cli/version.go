@@ -1,4 +1,6 @@
 package main
 
-// version is the program's version, as in FyneApp.toml.
-const version = "0.1.0"
+import "sectionbench/export"
+
+// version is the program's version, as in FyneApp.toml (export.Version).
+const version = export.Version

@@ -10,6 +10,7 @@ import (
 
 	"fyne.io/fyne/v2/app"
 
+	"sectionbench/export"
 	"sectionbench/ui"
 )
 
@@ -23,6 +24,16 @@ func main() {
 		path = os.Args[1]
 	}
 	a := app.NewWithID("org.sectionbench.app")
+	// The toolkit reads FyneApp.toml only when started from the
+	// repository's folder (or packaged); elsewhere its version was 0.0.1,
+	// which the report's appendix then gave to reproduce it.
+	if m := a.Metadata(); m.Version != export.Version {
+		m.Version, m.Name = export.Version, "Sectionbench"
+		if m.ID == "" {
+			m.ID = "org.sectionbench.app"
+		}
+		app.SetMetadata(m)
+	}
 	w, err := ui.New(a, path)
 	if err != nil {
 		fmt.Fprintln(os.Stderr, "sectionbench:", err)
