@@ -13,6 +13,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	figures "sectionbench/export/figure"
+	"sectionbench/export/format"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 )
@@ -453,6 +454,8 @@ func (p *setupSearch) comparison() string {
 	}
 	if !res.Feasible {
 		b.WriteString("No setting met every constraint: the start is kept.\n")
+	} else if w := format.NearGroundAdvice(r.st, &res.Best); w != "" {
+		b.WriteString(w + "\n")
 	}
 	if u := res.Unreproduced; u != nil {
 		what := "lands on another root"

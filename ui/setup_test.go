@@ -483,3 +483,34 @@ func TestSetupMapNearGround(t *testing.T) {
 		t.Errorf("readout at 40 mm %q says it is close to the ground", d)
 	}
 }
+
+// TestSetupSearchNearGround: a downforce search over the ride height
+// of the two-element example runs to its lowest bound, 20 mm on the 250
+// mm main chord, below 0.1 chord, since the model's downforce keeps
+// rising towards the ground; the comparison says so and how to search
+// above it (it said nothing, and Apply set 20 mm).
+func TestSetupSearchNearGround(t *testing.T) {
+	w := newTestBench(t)
+	openTwoElement(t, w)
+	w.openSetup(setupTabSearch)
+	p := w.setup.search
+	p.pick[0].SetSelected("ground clearance (mm)")
+	p.use[1].SetChecked(false)
+	p.use[2].SetChecked(false)
+	p.lo[0].SetText("20")
+	p.hi[0].SetText("120")
+	p.viscous.SetChecked(false)
+	p.budget.SetText("15")
+	test.Tap(p.run)
+	w.WaitIdle()
+	r := p.cur
+	if !p.msg.Hidden || r == nil || r.res == nil || !strings.Contains(r.vars[0].Label(r.st), "clearance") {
+		t.Fatalf("search: message %q, run %+v", p.msg.Text, r)
+	}
+	if h := r.res.Best.Values[0]; h >= 25 {
+		t.Skipf("the search stopped at %g mm, above 0.1 chord", h)
+	}
+	if !strings.Contains(p.table.Text, "very close to the ground") || !strings.Contains(p.table.Text, "at least 25 mm") {
+		t.Errorf("comparison %q does not say the best lies too near the ground", p.table.Text)
+	}
+}

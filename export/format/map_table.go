@@ -105,3 +105,17 @@ func MapFlags(st *model.Study, p *engine.Point) []model.Flag {
 	}
 	return model.Plausibility(model.PointFacts{HOverC: p.ClearanceMM / st.GroundChordMM()})
 }
+
+// NearGroundAdvice says, for a search's best setting p, when it lies too
+// near the ground (MapFlags): the model shows downforce rising all the
+// way down, so a search for downforce over the clearance runs to the
+// lowest it may, where real wings lose it; "" otherwise. The app's
+// search and the report's set-up page give it.
+func NearGroundAdvice(st *model.Study, p *engine.Point) string {
+	f := MapFlags(st, p)
+	if len(f) == 0 {
+		return ""
+	}
+	return fmt.Sprintf("The best setting is %s: %s. A search for downforce goes there because the model's downforce keeps rising towards the ground; keep the clearance to at least %s mm to search above it.",
+		f[0].Kind, f[0].Message, strconv.FormatFloat(st.NearGroundMM(), 'g', 4, 64))
+}

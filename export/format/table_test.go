@@ -344,4 +344,11 @@ func TestMapTableFlags(t *testing.T) {
 			t.Errorf("%s mm: flags %q, want %q", rows[i+1][0], got, want)
 		}
 	}
+	// A search's best there gets the advice the app and the report give.
+	if w := NearGroundAdvice(st, &pts[1]); !strings.Contains(w, "very close to the ground") || !strings.Contains(w, "at least 25 mm") {
+		t.Errorf("advice at 20 mm: %q", w)
+	}
+	if w := NearGroundAdvice(st, &pts[2]); w != "" {
+		t.Errorf("advice at 25 mm: %q", w)
+	}
 }

@@ -8,6 +8,7 @@ import (
 	"strings"
 
 	"sectionbench/export/figure"
+	"sectionbench/export/format"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 )
@@ -116,6 +117,8 @@ func (r *writer) searchSection(s *Setup) {
 	feasible := ""
 	if !res.Feasible {
 		feasible = " No setting met every limit: the start is kept."
+	} else if w := format.NearGroundAdvice(st, &res.Best); w != "" {
+		feasible = " " + w
 	}
 	for _, e := range []struct {
 		name string
