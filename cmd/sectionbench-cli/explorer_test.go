@@ -476,3 +476,23 @@ func TestMapNearGroundFlags(t *testing.T) {
 		t.Errorf("text map does not say what the flag means:\n%s", out)
 	}
 }
+
+// TestSearchText: the search's text gives its start and best under its
+// own heading, not a map's ("Map of …" stood under "Search of …"), with
+// settings to six digits (21.875000000000004 mm), and flags the best
+// setting very close to the ground.
+func TestSearchText(t *testing.T) {
+	code, out, stderr := runCLI(t, "search", "--study", example("two-element-ground.json"), "--vary", "clearance_mm=20:120", "--objective", "downforce", "--inviscid", "--max-evaluations", "10")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if !strings.HasPrefix(out, "Search of ") || strings.Contains(out, "Map of ") {
+		t.Errorf("search text headed as a map:\n%s", out)
+	}
+	if strings.Contains(out, "0000000") {
+		t.Errorf("settings printed with rounding noise:\n%s", out)
+	}
+	if !strings.Contains(out, "very close to the ground") {
+		t.Errorf("the best setting near the ground is not flagged:\n%s", out)
+	}
+}

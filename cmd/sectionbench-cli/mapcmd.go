@@ -322,7 +322,7 @@ func cmdMap(args []string, stdout, stderr io.Writer) error {
 		}
 		return format.WriteMapTable(stdout, m, st, vars, points)
 	}
-	return mapText(stdout, st, vars, points, mode, hasSpeed)
+	return mapText(stdout, true, st, vars, points, mode, hasSpeed)
 }
 
 // settingWords is a setting as "name value, name value".
@@ -362,9 +362,13 @@ func modeWords(mode string) string {
 }
 
 // mapText is the map as a table: the variables, then the load and drag,
-// the state and each element's suction-side separation.
-func mapText(w io.Writer, st *model.Study, vars []model.SetupVariable, points []engine.Point, mode string, hasSpeed bool) error {
-	fmt.Fprintf(w, "Map of %s, %s; %s\n", st.Name, modeWords(mode), model.LiftSense(st.Inverted))
+// the state and each element's suction-side separation; titled "Map of"
+// the study when title, else (a search's start and best, under the
+// search's own heading) without a heading.
+func mapText(w io.Writer, title bool, st *model.Study, vars []model.SetupVariable, points []engine.Point, mode string, hasSpeed bool) error {
+	if title {
+		fmt.Fprintf(w, "Map of %s, %s; %s\n", st.Name, modeWords(mode), model.LiftSense(st.Inverted))
+	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	head := ""
 	for _, v := range vars {
@@ -387,7 +391,7 @@ func mapText(w io.Writer, st *model.Study, vars []model.SetupVariable, points []
 	for _, p := range points {
 		line := ""
 		for _, x := range p.Values {
-			line += fmt.Sprintf("%g\t", x)
+			line += fmt.Sprintf("%.6g\t", x) // a search's settings are not on a grid: 21.875000000000004
 		}
 		line += fmtShort(p.Cl, "%.4f") + "\t" + fmtShort(p.Cd, "%.5f") + "\t"
 		if hasSpeed {

@@ -133,7 +133,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 	}
 	fmt.Fprintf(stdout, "Search of %s for the %s, %s; %s\n", st.Name, objectiveWords(obj, *target), modeWords(mode), model.LiftSense(st.Inverted))
 	fmt.Fprintf(stdout, "%d solves; %s\n", res.Evaluations, res.Status)
-	if err := mapText(stdout, st, vars, []engine.Point{res.Start, res.Best}, mode, hasSpeed); err != nil {
+	if err := mapText(stdout, false, st, vars, []engine.Point{res.Start, res.Best}, mode, hasSpeed); err != nil {
 		return err
 	}
 	_, err = fmt.Fprintf(stdout, "first row: the start (the study's setting); second: the best setting found, %s\n", localNote)
