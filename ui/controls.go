@@ -710,7 +710,7 @@ func (c *controls) sync(st *model.Study) {
 	setMessage(c.sweepMsg, nil)
 
 	if len(st.Pins) == 0 {
-		c.pins.SetText("No pins. A pin freezes the current Cp and polar for comparison.")
+		c.pins.SetText("No pins. A pin freezes the current Cp and polar for comparison (the panel method's, inviscid, also with the viscous solution on).")
 	} else {
 		c.pins.SetText("Each pin has its own colour and line style in the views; its name says what differed from the pin before. Rename a pin in its field.")
 	}

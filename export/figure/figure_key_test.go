@@ -195,3 +195,45 @@ func TestSearchKeyAboveData(t *testing.T) {
 		})
 	}
 }
+
+// TestPinsSayInviscid: a pin holds the panel method's Cp and polar
+// (engine.PinOf); beside the viscous solution's curves its key entry
+// says so (a pinned search start read as the viscous answer's
+// comparison), and alone with the panel method's it stays plain.
+func TestPinsSayInviscid(t *testing.T) {
+	entry := func(v View, sc *Scene) string {
+		t.Helper()
+		_, info, err := buildView(v, sc)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, k := range info.keys {
+			for _, e := range k.entries {
+				if strings.HasPrefix(e.label, "pin") {
+					return e.label
+				}
+			}
+		}
+		return ""
+	}
+	coupled := synthCoupledScene()
+	coupled.Pins = synthPins()
+	plain := synthScene()
+	for _, tc := range []struct {
+		name string
+		v    View
+		sc   *Scene
+		want string
+	}{
+		{"pressure, coupled", ViewPressure, coupled, "pin (inviscid): 160 panels"},
+		{"polar, coupled", ViewPolar, coupled, "pin (inviscid): 160 panels"},
+		{"pressure, panel method", ViewPressure, plain, "pin: 160 panels"},
+		{"polar, panel method", ViewPolar, plain, "pin: 160 panels"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			if got := entry(tc.v, tc.sc); got != tc.want {
+				t.Errorf("pin's key entry %q, want %q", got, tc.want)
+			}
+		})
+	}
+}

@@ -181,7 +181,7 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, *key, error) {
 		}
 		k.keep(pl, pm)
 		p.Add(newLine(pl, lineStyle(c, widthNormal, pinDash(j))), newLine(pm, lineStyle(c, widthThin, pinDash(j))))
-		k.add("pin: "+pin.Label, legendLine{lineStyle(c, widthNormal, pinDash(j))})
+		k.add(pinKeyPrefix+pin.Label, legendLine{lineStyle(c, widthNormal, pinDash(j))})
 	}
 	xl, xm := make(plotter.XYs, len(sc.Sweep)), make(plotter.XYs, len(sc.Sweep))
 	for i, c := range sc.Sweep {
@@ -220,6 +220,9 @@ func polarPlot(sc *Scene, th *theme) (*plot.Plot, *key, error) {
 		k.add("not to be trusted: "+model.FlagWords(kinds), fs)
 	}
 	addCoupledPolar(p, k, sc, th)
+	if len(sc.SweepCoupled) > 0 {
+		k.pinsInviscid()
+	}
 	p.Add(alphaMark(th, sc.AlphaDeg))
 	if s := sc.Solution; s != nil {
 		cur := plotter.XYs{{X: s.AlphaDeg, Y: s.Cl}}

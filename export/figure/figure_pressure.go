@@ -141,7 +141,7 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, *key, error) {
 			l := newLine(xys, lineStyle(c, widthNormal, dash))
 			p.Add(l)
 			if !added {
-				k.add("pin: "+pin.Label, legendLine{lineStyle(c, widthNormal, pinDash(j))})
+				k.add(pinKeyPrefix+pin.Label, legendLine{lineStyle(c, widthNormal, pinDash(j))})
 				added = true
 			}
 		}
@@ -194,6 +194,7 @@ func pressurePlot(sc *Scene, th *theme) (*plot.Plot, *key, error) {
 	p.Add(ms, ss)
 	k.keep(mins, stags)
 	if viscous {
+		k.pinsInviscid()
 		k.add("inviscid upper", legendLine{upSty})
 		k.add("inviscid lower", legendLine{loSty})
 		keyViscousCp(k, th)

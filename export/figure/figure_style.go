@@ -397,6 +397,26 @@ func (k *key) add(label string, t plot.Thumbnailer) {
 	k.entries = append(k.entries, keyEntry{label, t})
 }
 
+// pinKeyPrefix begins a pin's key entry; pinKeyInviscid replaces it
+// where the view also draws the viscous solution's curves.
+const (
+	pinKeyPrefix   = "pin: "
+	pinKeyInviscid = "pin (inviscid): "
+)
+
+// pinsInviscid says in the key that the pins' curves are the panel
+// method's (engine.PinOf freezes the inviscid Cp and polar): beside the
+// viscous solution's curves a pin read as the same quantity, and a
+// comparison of a pinned start with the viscous answer compared inviscid
+// with viscous without a word.
+func (k *key) pinsInviscid() {
+	for i, e := range k.entries {
+		if rest, ok := strings.CutPrefix(e.label, pinKeyPrefix); ok {
+			k.entries[i].label = pinKeyInviscid + rest
+		}
+	}
+}
+
 // keep registers data the key should not cover.
 func (k *key) keep(xys ...plotter.XYs) { k.avoid = append(k.avoid, xys...) }
 
