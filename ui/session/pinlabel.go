@@ -82,14 +82,18 @@ func elementDiffs(prev, cur *model.Study, prevSecs, curSecs []*model.Section) []
 			}
 			continue
 		}
+		// A slot quantity named only where it differs as the label writes
+		// it: applying a searched deflection keeps the gap to within
+		// 2e-5 mm, and "Undo (back to flap deflection 15°, flap gap
+		// 2.231 mm)" named a gap that had not changed.
 		fp, fc := prev.FlapPlacementOf(i), cur.FlapPlacementOf(i)
-		if fp.DeflectionDeg != fc.DeflectionDeg {
+		if Number(fp.DeflectionDeg) != Number(fc.DeflectionDeg) {
 			parts = append(parts, e.Name+" deflection "+Number(fc.DeflectionDeg)+"°")
 		}
-		if fp.OverlapMM != fc.OverlapMM {
+		if Number(fp.OverlapMM) != Number(fc.OverlapMM) {
 			parts = append(parts, e.Name+" overlap "+Number(fc.OverlapMM)+" mm")
 		}
-		if fp.GapMM != fc.GapMM {
+		if Number(fp.GapMM) != Number(fc.GapMM) {
 			if i < len(curSecs) && i < len(prevSecs) && curSecs[i] != nil {
 				parts = append(parts, e.Name+" gap "+Number(cur.SlotOf(i, curSecs[i]).GapMM)+" mm")
 			} else {

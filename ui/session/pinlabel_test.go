@@ -92,3 +92,32 @@ func TestChangeLabel(t *testing.T) {
 		})
 	}
 }
+
+// TestChangeLabelSlotNoise: a flap's slot quantity is named only where it
+// differs as the label writes it. Applying a searched deflection kept the
+// gap to within 2e-5 mm, and the Edit menu read "Undo (back to flap
+// deflection 15°, flap gap 2.231 mm)", naming a gap that had not changed.
+func TestChangeLabelSlotNoise(t *testing.T) {
+	base := model.NewStudy()
+	base.AppendFlap("flap")
+	fp := base.FlapPlacementOf(1)
+	for _, c := range []struct {
+		name string
+		edit func(*model.FlapPlacement)
+		want string
+	}{
+		{"gap noise", func(f *model.FlapPlacement) { f.GapMM += 2e-5 }, "elements"}, // the fallback: something changed
+		{"deflection, gap noise", func(f *model.FlapPlacement) { f.DeflectionDeg += 3; f.GapMM += 2e-5 }, "flap deflection " + Number(fp.DeflectionDeg+3) + "°"},
+		{"gap", func(f *model.FlapPlacement) { f.GapMM += 1 }, "flap gap"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			to := base.Clone()
+			f := fp
+			c.edit(&f)
+			to.PlaceFlapAt(1, f)
+			if got := changeLabel(base, to, nil, nil); got != c.want {
+				t.Errorf("got %q, want %q", got, c.want)
+			}
+		})
+	}
+}
