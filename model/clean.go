@@ -22,6 +22,10 @@ type CleanOptions struct {
 	// The size is the larger side of the bounding box of the input, which
 	// is the chord to within the cosine of the section's incidence.
 	DuplicateTol float64
+	// Lines optionally holds the file line of each input point
+	// (Parsed.Lines): the report then names the points it drops or finds
+	// by their lines too, which a user can find in the file.
+	Lines []int
 }
 
 // DefaultCleanOptions derotates and leaves the trailing edge as it is.
@@ -405,7 +409,7 @@ func (c *cleaner) dropDuplicates(q []Point) (ring []Point, orig []int, closed bo
 	}
 	if len(dropped) > 0 {
 		c.rep.Changes = append(c.rep.Changes, fmt.Sprintf("dropped %d duplicate %s (within %g of the size of the previous point): %s",
-			len(dropped), plural(len(dropped), "point", "points"), c.tol, pointList(dropped)))
+			len(dropped), plural(len(dropped), "point", "points"), c.tol, pointList(dropped)+c.lineList(dropped)))
 	}
 	if len(ring) < MinSectionPoints-1 {
 		return nil, nil, false, c.fail(-1, fmt.Errorf("only %d distinct points: %w", len(ring), ErrTooFewPoints))
@@ -452,9 +456,9 @@ func (c *cleaner) startAtTrailingEdge(ring []Point, orig []int, closed bool) (co
 		rep.Changes = append(rep.Changes, fmt.Sprintf("dropped %s, drawn along the trailing-edge base, and took the base's midpoint (%s) as the trailing edge; the base is left open as a blunt trailing edge", pointList(onBase), fmtPoint(mid)))
 	case te.edge:
 		j := (te.i + 1) % n
-		rep.Detected = append(rep.Detected, fmt.Sprintf("trailing edge: the gap between points %d and %d (corners turning by %.0f° together)", orig[te.i]+1, orig[j]+1, te.score))
+		rep.Detected = append(rep.Detected, fmt.Sprintf("trailing edge: the gap between points %d%s and %d%s (corners turning by %.0f° together)", orig[te.i]+1, c.lineOf(orig[te.i]), orig[j]+1, c.lineOf(orig[j]), te.score))
 	default:
-		rep.Detected = append(rep.Detected, fmt.Sprintf("trailing edge: the corner at point %d (turning by %.0f°)", orig[te.i]+1, te.score))
+		rep.Detected = append(rep.Detected, fmt.Sprintf("trailing edge: the corner at point %d%s (turning by %.0f°)", orig[te.i]+1, c.lineOf(orig[te.i]), te.score))
 	}
 	fileStart := te.i == n-1 && te.edge && !closed || te.i == 0 && !te.edge && closed
 	switch {
@@ -547,13 +551,13 @@ func (c *cleaner) findLeadingEdge(cont []Point, idx []int) (leadingEdge, error) 
 		d := cont[origin].Dist(le) / chordQ
 		alt := math.Abs(math.Atan2(teMid.Y-le.Y, teMid.X-le.X)-math.Atan2(teMid.Y-cont[origin].Y, teMid.X-cont[origin].X)) * 180 / math.Pi
 		le, leIdx = cont[origin], origin
-		rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d, at the origin of the file, whose trailing edge lies on its x axis: the file's own chord line is kept (the farthest point of the spline is %.2g of the chord away and would incline the chord by %.3g°)", idx[origin]+1, d, alt))
+		rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d%s, at the origin of the file, whose trailing edge lies on its x axis: the file's own chord line is kept (the farthest point of the spline is %.2g of the chord away and would incline the chord by %.3g°)", idx[origin]+1, c.lineOf(idx[origin]), d, alt))
 	case nd <= LESnapTol:
 		le = cont[near]
 		if nd < reportTol {
-			rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d, the farthest point of the spline", idx[near]+1))
+			rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d%s, the farthest point of the spline", idx[near]+1, c.lineOf(idx[near])))
 		} else {
-			rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d, %.2g of the chord from the farthest point of the spline (within %g)", idx[near]+1, nd, LESnapTol))
+			rep.Detected = append(rep.Detected, fmt.Sprintf("leading edge: point %d%s, %.2g of the chord from the farthest point of the spline (within %g)", idx[near]+1, c.lineOf(idx[near]), nd, LESnapTol))
 		}
 	default:
 		knots := spl.Knots()
@@ -919,6 +923,35 @@ func plural(n int, one, many string) string {
 }
 
 // pointList lists 1-based point numbers, at most 8 of them.
+// lineOf gives the file line of input point i, " on line 48", or "" when
+// the lines are not known.
+func (c *cleaner) lineOf(i int) string {
+	if len(c.opt.Lines) != len(c.pts) || i < 0 || i >= len(c.opt.Lines) || c.opt.Lines[i] <= 0 {
+		return ""
+	}
+	return fmt.Sprintf(" on line %d", c.opt.Lines[i])
+}
+
+// lineList gives the file lines of input points idx, " on lines 15, 48,
+// 69 of the file", or "" when the lines are not known.
+func (c *cleaner) lineList(idx []int) string {
+	if len(c.opt.Lines) != len(c.pts) || len(idx) == 0 {
+		return ""
+	}
+	var s []string
+	for k, i := range idx {
+		if k == 8 {
+			s = append(s, "…")
+			break
+		}
+		if i < 0 || i >= len(c.opt.Lines) || c.opt.Lines[i] <= 0 {
+			return ""
+		}
+		s = append(s, fmt.Sprint(c.opt.Lines[i]))
+	}
+	return " on " + plural(len(idx), "line ", "lines ") + strings.Join(s, ", ") + " of the file"
+}
+
 func pointList(idx []int) string {
 	var s []string
 	for k, i := range idx {

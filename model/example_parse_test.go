@@ -46,8 +46,8 @@ func ExampleParseCoordinates() {
 	//   - 1 comment line skipped
 	//   - values separated by spaces, commas
 	//   - one loop of 15 points, taken in the order listed
-	//   - trailing edge: the corner at point 1 (turning by 166°)
-	//   - leading edge: point 8, the farthest point of the spline
+	//   - trailing edge: the corner at point 1 on line 3 (turning by 166°)
+	//   - leading edge: point 8 on line 10, the farthest point of the spline
 	// Changes:
 	//   - reversed the point order: the contour ran clockwise (lower surface first); the package runs counter-clockwise, upper surface first
 	//   - moved the leading edge from (10, 0) to the origin

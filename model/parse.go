@@ -136,6 +136,10 @@ type Parsed struct {
 	// surface run towards the leading edge, then the second away from it).
 	// Orientation, start point, duplicates and scale are left to Clean.
 	Points []Point
+	// Lines holds the file line of each of Points (as reordered), so
+	// that the cleaning report can name a point by the line the user
+	// sees in the file.
+	Lines []int
 	// Notes says, in words, everything that was detected or assumed.
 	Notes []string
 }
@@ -146,6 +150,9 @@ func (p *Parsed) Section() (*Section, error) { return NewSection(p.Name, p.Point
 // Clean cleans the parsed points (see Clean) and fills in the report's
 // source and what the parser detected.
 func (p *Parsed) Clean(opt CleanOptions) (*Section, *CleanReport, error) {
+	if opt.Lines == nil && len(p.Lines) == len(p.Points) {
+		opt.Lines = p.Lines
+	}
 	sec, rep, err := Clean(p.Name, p.Points, opt)
 	if rep != nil {
 		rep.Source = p.Source
@@ -836,6 +843,7 @@ func (p *parser) finish() (*Parsed, error) {
 			return nil, p.errAt(countLine, 0, fmt.Errorf("the point-count line says %d + %d = %d points, but %d follow: %w", counts[0], counts[1], counts[0]+counts[1], len(pts), ErrCountMismatch))
 		}
 		out.Layout = LayoutSurfacesCounted
+		out.Lines = joinLines(pts[:counts[0]], pts[counts[0]:], pointLines[:counts[0]], pointLines[counts[0]:])
 		out.Points, p.notes = joinSurfaces(pts[:counts[0]], pts[counts[0]:], p.notes,
 			fmt.Sprintf("point-count line %d: two surfaces of %d and %d points", countLine, counts[0], counts[1]))
 		out.Notes = p.notes
@@ -845,6 +853,7 @@ func (p *parser) finish() (*Parsed, error) {
 		if out.Layout == "" {
 			out.Layout = LayoutSurfaces
 		}
+		out.Lines = joinLines(pts[:k], pts[k:], pointLines[:k], pointLines[k:])
 		out.Points, p.notes = joinSurfaces(pts[:k], pts[k:], p.notes,
 			fmt.Sprintf("x runs end to end and jumps back at line %d: two surfaces", pointLines[k]))
 		out.Notes = p.notes
@@ -853,7 +862,7 @@ func (p *parser) finish() (*Parsed, error) {
 	if out.Layout == "" {
 		out.Layout = LayoutLoop
 	}
-	out.Points = pts
+	out.Points, out.Lines = pts, pointLines
 	p.notes = append(p.notes, fmt.Sprintf("one loop of %d points, taken in the order listed", len(pts)))
 	out.Notes = p.notes
 	return out, nil
@@ -959,6 +968,26 @@ func joinSurfaces(a, b []Point, notes []string, what string) ([]Point, []string)
 	notes = append(notes, fmt.Sprintf("%s, %s (%d %s, %d %s points; %s surface first); joined into one loop at the leading edge",
 		what, listed, len(a), first, len(b), second, first))
 	return loop, notes
+}
+
+// joinLines orders the file lines of two surfaces a and b (with lines la
+// and lb) as joinSurfaces orders their points.
+func joinLines(a, b []Point, la, lb []int) []int {
+	loop := make([]int, 0, len(la)+len(lb))
+	if a[0].X <= a[len(a)-1].X {
+		for i := len(la) - 1; i >= 0; i-- {
+			loop = append(loop, la[i])
+		}
+	} else {
+		loop = append(loop, la...)
+	}
+	if b[0].X <= b[len(b)-1].X {
+		return append(loop, lb...)
+	}
+	for i := len(lb) - 1; i >= 0; i-- {
+		loop = append(loop, lb[i])
+	}
+	return loop
 }
 
 // cleanName trims a name line, drops control characters and limits it to
