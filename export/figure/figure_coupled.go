@@ -140,6 +140,24 @@ func separatedRows(sc *Scene) plotter.XYs {
 	return out
 }
 
+// heldRows returns the converged coupled rows whose transition is held
+// upstream of its e^N position (engine.CoupledPoint.Held): the
+// free-transition solution did not converge there, and the row is the
+// answer of a wing tripped at that station (the sweep table's
+// "transition held upstream" flag). The polar drew them as ordinary rows.
+func heldRows(sc *Scene) plotter.XYs {
+	if len(sc.SweepCoupled) != len(sc.Sweep) {
+		return nil
+	}
+	var out plotter.XYs
+	for i := range sc.SweepCoupled {
+		if r := &sc.SweepCoupled[i]; r.Converged && r.Held() {
+			out = append(out, plotter.XY{X: r.AlphaDeg, Y: r.Cl})
+		}
+	}
+	return out
+}
+
 // bottomMarks draws a glyph on the bottom edge of the data area at each
 // angle: the angles where the viscous solution gave no answer, marked
 // without a value that could be read as one.
@@ -193,6 +211,11 @@ func addCoupledPolar(p *plot.Plot, k *key, sc *Scene, th *theme) bool {
 		ss := newScatter(sep, th.lower, glyphMarker*1.4, draw.RingGlyph{})
 		p.Add(ss)
 		k.add(fmt.Sprintf("viscous, separated ahead of x/c %g", engine.SeparatedFromXC), ss)
+	}
+	if held := heldRows(sc); len(held) > 0 {
+		hs := newScatter(held, th.lower, glyphMarker*1.5, draw.BoxGlyph{})
+		p.Add(hs)
+		k.add("viscous, transition held upstream (as if tripped)", hs)
 	}
 	if cl, a := sc.ClMax, sc.AlphaClMax; !math.IsNaN(cl) && len(all) > 0 {
 		m := newScatter(plotter.XYs{{X: a, Y: cl}}, th.accent, glyphMarker*1.6, draw.PyramidGlyph{})

@@ -237,3 +237,33 @@ func TestPinsSayInviscid(t *testing.T) {
 		})
 	}
 }
+
+// TestPolarMarksHeldRows: a converged coupled row whose transition is
+// held upstream of its e^N position (a tripped wing's answer, flagged
+// "transition held upstream" in the sweep table) is marked on the polar
+// with its key entry; the two-element example with free transition drew
+// its rows at 3°, 4°, 6° and 10° as ordinary ones.
+func TestPolarMarksHeldRows(t *testing.T) {
+	sc := synthCoupledScene()
+	nan := math.NaN()
+	for i := range sc.SweepCoupled {
+		sc.SweepCoupled[i].Elements = []engine.CoupledElementPoint{{Cl: 1, SeparationUpper: nan, SeparationLower: nan}}
+	}
+	const at = 4
+	sc.SweepCoupled[at].Elements[0].HeldLower = true
+	held := heldRows(sc)
+	if len(held) != 1 || held[0].X != sc.SweepCoupled[at].AlphaDeg {
+		t.Fatalf("held rows %v, want the row at %g°", held, sc.SweepCoupled[at].AlphaDeg)
+	}
+	_, info, err := buildView(ViewPolar, sc)
+	if err != nil {
+		t.Fatal(err)
+	}
+	found := false
+	for _, e := range info.keys[0].entries {
+		found = found || strings.HasPrefix(e.label, "viscous, transition held upstream")
+	}
+	if !found {
+		t.Error("the key has no entry for the held rows")
+	}
+}
