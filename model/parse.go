@@ -843,7 +843,7 @@ func (p *parser) finish() (*Parsed, error) {
 			return nil, p.errAt(countLine, 0, fmt.Errorf("the point-count line says %d + %d = %d points, but %d follow: %w", counts[0], counts[1], counts[0]+counts[1], len(pts), ErrCountMismatch))
 		}
 		out.Layout = LayoutSurfacesCounted
-		out.Lines = joinLines(pts[:counts[0]], pts[counts[0]:], pointLines[:counts[0]], pointLines[counts[0]:])
+		out.Lines = joinedLoop(pts[:counts[0]], pts[counts[0]:], pointLines[:counts[0]], pointLines[counts[0]:])
 		out.Points, p.notes = joinSurfaces(pts[:counts[0]], pts[counts[0]:], p.notes,
 			fmt.Sprintf("point-count line %d: two surfaces of %d and %d points", countLine, counts[0], counts[1]))
 		out.Notes = p.notes
@@ -853,7 +853,7 @@ func (p *parser) finish() (*Parsed, error) {
 		if out.Layout == "" {
 			out.Layout = LayoutSurfaces
 		}
-		out.Lines = joinLines(pts[:k], pts[k:], pointLines[:k], pointLines[k:])
+		out.Lines = joinedLoop(pts[:k], pts[k:], pointLines[:k], pointLines[k:])
 		out.Points, p.notes = joinSurfaces(pts[:k], pts[k:], p.notes,
 			fmt.Sprintf("x runs end to end and jumps back at line %d: two surfaces", pointLines[k]))
 		out.Notes = p.notes
@@ -941,22 +941,7 @@ func joinSurfaces(a, b []Point, notes []string, what string) ([]Point, []string)
 		return "from the trailing edge"
 	}
 	da, db := dir(a), dir(b)
-	loop := make([]Point, 0, len(a)+len(b))
-	// First surface towards the LE: reverse it if it starts there.
-	if a[0].X <= a[len(a)-1].X {
-		for i := len(a) - 1; i >= 0; i-- {
-			loop = append(loop, a[i])
-		}
-	} else {
-		loop = append(loop, a...)
-	}
-	if b[0].X <= b[len(b)-1].X {
-		loop = append(loop, b...)
-	} else {
-		for i := len(b) - 1; i >= 0; i-- {
-			loop = append(loop, b[i])
-		}
-	}
+	loop := joinedLoop(a, b, a, b)
 	first, second := "upper", "lower"
 	if PolygonArea(loop) < 0 {
 		first, second = "lower", "upper"
@@ -970,22 +955,25 @@ func joinSurfaces(a, b []Point, notes []string, what string) ([]Point, []string)
 	return loop, notes
 }
 
-// joinLines orders the file lines of two surfaces a and b (with lines la
-// and lb) as joinSurfaces orders their points.
-func joinLines(a, b []Point, la, lb []int) []int {
-	loop := make([]int, 0, len(la)+len(lb))
+// joinedLoop orders va and vb, which belong to the points of two
+// surfaces a and b, as one loop joined at the leading edge: the first
+// surface run towards the leading edge (reversed if it starts there),
+// then the second away from it (reversed if it ends there). joinSurfaces
+// orders the points with it, Parse their file lines.
+func joinedLoop[T any](a, b []Point, va, vb []T) []T {
+	loop := make([]T, 0, len(va)+len(vb))
 	if a[0].X <= a[len(a)-1].X {
-		for i := len(la) - 1; i >= 0; i-- {
-			loop = append(loop, la[i])
+		for i := len(va) - 1; i >= 0; i-- {
+			loop = append(loop, va[i])
 		}
 	} else {
-		loop = append(loop, la...)
+		loop = append(loop, va...)
 	}
 	if b[0].X <= b[len(b)-1].X {
-		return append(loop, lb...)
+		return append(loop, vb...)
 	}
-	for i := len(lb) - 1; i >= 0; i-- {
-		loop = append(loop, lb[i])
+	for i := len(vb) - 1; i >= 0; i-- {
+		loop = append(loop, vb[i])
 	}
 	return loop
 }
