@@ -357,3 +357,23 @@ func b2i(b bool) int {
 	}
 	return 0
 }
+
+// TestSolveTextDownforceCoefficient: the text's downforce coefficient is
+// the viscous answer where the coupled solution converged, as the JSON's
+// downforce_coefficient is, and says which it is; it gave the panel
+// method's 3.92137 on the two-element example, whose viscous answer is
+// 3.20162, under the plain name.
+func TestSolveTextDownforceCoefficient(t *testing.T) {
+	m := runJSON(t, "solve", "--study", example("two-element-ground.json"), "--format", "json")
+	if m["converged"] != true {
+		t.Skip("the example's point did not converge")
+	}
+	code, out, stderr := runCLI(t, "solve", "--study", example("two-element-ground.json"))
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	want := "downforce coefficient (viscous)    " + strconv.FormatFloat(m["downforce_coefficient"].(float64), 'f', 5, 64)
+	if !strings.Contains(out, want) {
+		t.Errorf("text lacks %q:\n%s", want, out)
+	}
+}

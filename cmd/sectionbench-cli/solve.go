@@ -295,7 +295,20 @@ func solveText(w io.Writer, st *model.Study, res *engine.Result, out jsonSolve) 
 	// study has a 1000 mm chord, so they are chord lengths there too).
 	fmt.Fprintf(tw, "stagnation point\tx = %.2f mm, y = %.2f mm\t(main element, as mounted)\n", 1000*float64(out.Stagnation.X), 1000*float64(out.Stagnation.Y))
 	if st.Inverted {
-		fmt.Fprintf(tw, "downforce coefficient\t%.5f\t(inverted: downforce positive = −Cl)\n", -sol.Cl)
+		// The JSON's downforce_coefficient is −cl, the viscous one where
+		// the coupled solution converged; the text gave the panel
+		// method's here without saying so (3.92137 on the two-element
+		// example, whose viscous answer is 3.20162).
+		switch c := res.Coupled; {
+		case c != nil && c.Converged:
+			fmt.Fprintf(tw, "downforce coefficient (viscous)\t%.5f\t(inverted: downforce positive = −Cl; inviscid %.5f)\n", -c.Cl, -c.ClInviscid)
+		case c != nil:
+			fmt.Fprintf(tw, "downforce coefficient (inviscid)\t%.5f\t(inverted: downforce positive = −Cl; the viscous solution did not converge)\n", -sol.Cl)
+		case res.Viscous != nil:
+			fmt.Fprintf(tw, "downforce coefficient (inviscid)\t%.5f\t(inverted: downforce positive = −Cl)\n", -sol.Cl)
+		default:
+			fmt.Fprintf(tw, "downforce coefficient\t%.5f\t(inverted: downforce positive = −Cl)\n", -sol.Cl)
+		}
 	}
 	if v := res.Viscous; v != nil {
 		fmt.Fprintf(tw, "Cd (one-way boundary-layer estimate)\t%s\n", fmtNum(v.Cd, "%.5f"))
