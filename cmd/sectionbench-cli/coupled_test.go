@@ -377,3 +377,16 @@ func TestSolveTextDownforceCoefficient(t *testing.T) {
 		t.Errorf("text lacks %q:\n%s", want, out)
 	}
 }
+
+// TestSweepTextMostDownforce: on an inverted wing the sweep's text gives
+// its maximum as the most downforce, −Cl, as the app's polar does; it
+// read "largest Cl -3.2016", the least downforce in words.
+func TestSweepTextMostDownforce(t *testing.T) {
+	code, out, stderr := runCLI(t, "sweep", "--study", example("two-element-ground.json"), "--alpha", "0:1:1")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if !strings.Contains(out, "most downforce −Cl ") || strings.Contains(out, "largest Cl") {
+		t.Errorf("inverted sweep's maximum not given as the most downforce:\n%s", out)
+	}
+}

@@ -202,15 +202,25 @@ func sweepCoupledText(w io.Writer, res *engine.Result) error {
 	if err := tw.Flush(); err != nil {
 		return err
 	}
+	// On an inverted wing the maximum is the most downforce, the most
+	// negative Cl, said so as the app's polar says it: "largest Cl
+	// -5.4360" read as the least downforce.
+	most := fmt.Sprintf("Cl max %.4f", res.ClMax)
+	if res.Layout != nil && res.Layout.Inverted {
+		most = fmt.Sprintf("most downforce −Cl %.4f (Cl %.4f)", -res.ClMax, res.ClMax)
+	}
 	switch {
 	case res.ClMax != res.ClMax:
 		_, err := fmt.Fprintln(w, "Cl max: none (no row converged)")
 		return err
 	case res.ClMaxIsPeak:
-		_, err := fmt.Fprintf(w, "Cl max %.4f at %g° (viscous, converged rows)\n", res.ClMax, res.AlphaClMax)
+		_, err := fmt.Fprintf(w, "%s at %g° (viscous, converged rows)\n", most, res.AlphaClMax)
 		return err
 	}
-	_, err := fmt.Fprintf(w, "largest Cl %.4f at %g°; no converged row beyond it shows lift falling, so Cl max is not found in this sweep\n", res.ClMax, res.AlphaClMax)
+	if res.Layout == nil || !res.Layout.Inverted {
+		most = fmt.Sprintf("largest Cl %.4f", res.ClMax)
+	}
+	_, err := fmt.Fprintf(w, "%s at %g°; no converged row beyond it shows lift falling, so the maximum is not found in this sweep\n", most, res.AlphaClMax)
 	return err
 }
 
