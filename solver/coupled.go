@@ -331,6 +331,12 @@ func (s *System) solveStrategies(ctx context.Context, alphaDeg float64, opt Coup
 				out = o
 				break
 			}
+			if r := s.rejectedStraight(alphaDeg, opt, warm, st); r != nil {
+				if out == nil {
+					out = r
+				}
+				continue
+			}
 		}
 		o, err := s.solveCoupled(ctx, alphaDeg, opt, warm, halvings, st)
 		if err != nil {
@@ -345,6 +351,39 @@ func (s *System) solveStrategies(ctx context.Context, alphaDeg float64, opt Coup
 		}
 	}
 	return s.finish(ctx, out, iters)
+}
+
+// rejectedStraight returns, when the iterations straight from warm at
+// alphaDeg with strategy st (cheapRoute) met the tolerance on a solution
+// implausible rejects, that solution, not converged and saying why;
+// otherwise nil. solveStrategies then ends the strategy there instead of
+// taking its costly routes (the continuation and the start from the
+// march, at the angle and at its half step): the root the neighbour's
+// solution leads to at this angle is one the method rejects, and those
+// routes, started elsewhere, met the same root or none. On
+// BenchmarkCoupledPolar41TwoElement that is −9.5° and −10° (every
+// straight start's lift above the inviscid): of the six costly attempts
+// there five failed and one, hold's march at −10°, converged on the
+// straight start's own root (Cl −0.15023, the same to 14 digits), in
+// 436 and 162 Newton iterations, now 29 and 18. No solve of the
+// solver's TestCoupled tests and the engine's coupled, map and
+// example-sweep tests (231 solves: slot, ground, validation, sweeps) has
+// such a straight start, so none that converges is lost. Only in free
+// air: on the two-element example's 20 × 20 map (ground effect; its
+// points are solved two at a time, so the trace does not say which
+// point each attempt belongs to) such straight starts occur, and
+// whether the same strategy's costly routes then converge was not
+// checked.
+func (s *System) rejectedStraight(alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, st strategy) *CoupledSolution {
+	if s.geo.ground {
+		return nil
+	}
+	r, ok := warm.attempts.get(newAttemptKey(s, alphaDeg, opt, st, warmDirect, false))
+	if !ok || !r.warmRejected {
+		return nil
+	}
+	r.Rejected = implausible(r)
+	return r
 }
 
 // finish completes solveStrategies' answer out, with iters iterations

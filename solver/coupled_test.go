@@ -211,6 +211,44 @@ func TestCoupledMainAndFlap(t *testing.T) {
 	t.Logf("Cl %.4f (inviscid %.4f), Cd %.5f, %d iterations", cs.Cl, cs.ClInviscid, cs.Cd, cs.Iterations)
 }
 
+// The main element and flap of TestCoupledMainAndFlap walked down from 0°
+// in the polar's half-degree steps reach −9°; from it, every straight
+// start at −9.5° (both strategies, and at the half step −9.25°) meets the
+// tolerance with more lift than the inviscid, a root implausible
+// rejects. The row ends there, not converged and saying why, without the
+// continuations and starts from the march that found that root again or
+// none (rejectedStraight).
+func TestCoupledRejectedStraightStartEnds(t *testing.T) {
+	skipUnderRace(t)
+	sys, err := NewSystem(mainAndFlap(t))
+	if err != nil {
+		t.Fatal(err)
+	}
+	opt := CoupledOptions{Re: []float64{1e6, 0.35e6}, TripUpper: 0.05, TripLower: 0.05}
+	var warm *CoupledSolution
+	for a := 0.0; a >= -9; a -= 0.5 {
+		cs, err := sys.SolveCoupled(context.Background(), a, opt, warm)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !cs.Converged {
+			t.Fatalf("%.1f°: not converged on the way down (%d iterations)", a, cs.Iterations)
+		}
+		warm = cs
+	}
+	cs, err := sys.SolveCoupled(context.Background(), -9.5, opt, warm)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The four straight starts take 29; with the costly routes the
+	// chain took 436.
+	const maxIterations = 100
+	if cs.Converged || cs.Rejected == "" || cs.Iterations > maxIterations {
+		t.Errorf("−9.5°: converged %v, rejected %q, %d iterations: want not converged, why, at most %d iterations", cs.Converged, cs.Rejected, cs.Iterations, maxIterations)
+	}
+	t.Logf("−9.5°: %s, %d iterations", cs.Rejected, cs.Iterations)
+}
+
 // A symmetric section at exactly 0° puts the stagnation point on its
 // leading-edge node; SolveCoupled then returns the mean of ±0.01°, which
 // must give Cl = 0 by symmetry and Ladson's drag at −0.05° (0.00809, NASA
