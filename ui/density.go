@@ -161,6 +161,10 @@ func newDensityWindow(w *Workbench) *densityWindow {
 
 	d.conv = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(420, 320))
 	d.le = newFigureBox(w.ctl.Activity(), w.do, fyne.NewSize(420, 320))
+	// Before the first run the figure areas say what to do (they were
+	// blank), as the set-up window's do.
+	d.conv.setDrawing(nil, densityConvEmptyNote)
+	d.le.setDrawing(nil, densityLEEmptyNote)
 	d.leElement = widget.NewSelect(nil, func(string) { d.drawLE() })
 	d.leElement.Hide()
 	d.sizes = newPanelSizeView(w)
@@ -465,8 +469,10 @@ func (d *densityWindow) studyChanged() {
 // What the density window's result says before its first study and while
 // that runs.
 const (
-	densityNotRun  = "Not run yet. The study runs at the current angle of attack, re-panelling every element at each count."
-	densityRunning = "Running at α = %s°: the results appear when every count is solved."
+	densityConvEmptyNote = "Press Run density study: Cl and min Cp against the panel count are drawn here, with the recommended count marked."
+	densityLEEmptyNote   = "Press Run density study: the Cp near the leading edge at each panel count is drawn here."
+	densityNotRun        = "Not run yet. The study runs at the current angle of attack, re-panelling every element at each count."
+	densityRunning       = "Running at α = %s°: the results appear when every count is solved."
 )
 
 func (d *densityWindow) start() {

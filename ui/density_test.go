@@ -403,3 +403,24 @@ func TestDensityHeldMarked(t *testing.T) {
 		t.Errorf("summary %q does not say 640 panels is held", d.caseLabel.Text)
 	}
 }
+
+// TestDensityEmptyFiguresSay: before the first run the density window's
+// figure areas say what to do and what is drawn there (they were blank),
+// and the notes go once a study has run.
+func TestDensityEmptyFiguresSay(t *testing.T) {
+	w, d := openDensityTest(t)
+	for name, c := range map[string]struct {
+		b    *figureBox
+		want string
+	}{"convergence": {d.conv, densityConvEmptyNote}, "leading edge": {d.le, densityLEEmptyNote}} {
+		if c.b.note.Hidden || c.b.note.Text != c.want {
+			t.Errorf("%s figure before a run: note %q (hidden %v), want %q", name, c.b.note.Text, c.b.note.Hidden, c.want)
+		}
+	}
+	d.panels.SetText("40, 80, 160")
+	d.start()
+	w.WaitIdle()
+	if !d.conv.note.Hidden {
+		t.Errorf("after a run the convergence figure still says %q", d.conv.note.Text)
+	}
+}
