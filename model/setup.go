@@ -93,6 +93,12 @@ func (v SetupVariable) Unit() string { return setupNames[v.Kind].unit }
 // Label returns the variable in words for a figure's axis, with the
 // element's name from st when it has one: "flap deflection (°)".
 func (v SetupVariable) Label(st *Study) string {
+	return v.Words(st) + " (" + v.Unit() + ")"
+}
+
+// Words returns the variable in words without its unit, "flap
+// deflection": the labels of the set-up window's settings and pins.
+func (v SetupVariable) Words(st *Study) string {
 	w := setupNames[v.Kind].words
 	if v.PerElement() {
 		name := fmt.Sprintf("element %d", v.Element)
@@ -101,7 +107,7 @@ func (v SetupVariable) Label(st *Study) string {
 		}
 		w = name + " " + w
 	}
-	return w + " (" + v.Unit() + ")"
+	return w
 }
 
 // SetupError reports a set-up variable or range that cannot be used,

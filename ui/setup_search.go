@@ -426,13 +426,7 @@ func (p *setupSearch) show() {
 }
 
 // shortLabel is a variable's label without its unit.
-func shortLabel(st *model.Study, v model.SetupVariable) string {
-	l := v.Label(st)
-	if i := strings.LastIndex(l, " ("); i > 0 {
-		return l[:i]
-	}
-	return l
-}
+func shortLabel(st *model.Study, v model.SetupVariable) string { return v.Words(st) }
 
 // comparison is the best setting beside the start, in words.
 func (p *setupSearch) comparison() string {

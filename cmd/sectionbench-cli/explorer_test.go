@@ -416,7 +416,7 @@ func TestSearchApplyTo(t *testing.T) {
 	if got := st.SetupValue(v, secs); math.Abs(got-best) > 1e-9 || st.Ground.ClearanceMM != 100 {
 		t.Errorf("written deflection %g, want the best %g (clearance %g, want the study's 100)", got, best, st.Ground.ClearanceMM)
 	}
-	if n := len(st.Pins); n != 1 || st.Pins[0].Label != "search start, elements[1].deflection_deg 15" || len(st.Pins[0].Cp) != 4 || len(st.Pins[0].Polar) == 0 {
+	if n := len(st.Pins); n != 1 || st.Pins[0].Label != "search start, flap deflection 15 °" || len(st.Pins[0].Cp) != 4 || len(st.Pins[0].Polar) == 0 {
 		t.Errorf("%d pins (%+v), want the start's, named so, with Cp on 2 elements × 2 surfaces and a polar", n, st.Pins)
 	}
 	code, _, stderr := runCLI(t, append(args, "--pin-start")...)

@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"io"
 	"path/filepath"
+	"strconv"
 	"strings"
 
 	"sectionbench/export"
@@ -162,7 +163,8 @@ func writeApplied(path string, st *model.Study, vars []model.SetupVariable, res 
 		}
 		var set []string
 		for i, v := range vars {
-			set = append(set, fmt.Sprintf("%s %g", v.Name(), res.Start.Values[i]))
+			// As the app names the pin: "flap deflection 15 °".
+			set = append(set, v.Words(st)+" "+model.Minus(strconv.FormatFloat(res.Start.Values[i], 'g', 4, 64))+" "+v.Unit())
 		}
 		next.Pins = append(next.Pins, engine.PinOf("search start, "+strings.Join(set, ", "), r, r.Sweep))
 	}
