@@ -347,10 +347,37 @@ func (r *writer) confidence(h headline) [][2]string {
 		if d.RecommendedPanels > 0 {
 			rec = fmt.Sprintf("%d recommended against %d used", d.RecommendedPanels, st.Panelling.Panels)
 		}
-		kv = append(kv, [2]string{"Panel density study", band + "; " + rec})
+		kv = append(kv, [2]string{"Panel density study", band + "; " + rec + r.viscousDensityWords()})
 	}
 	kv = append(kv, [2]string{"Warnings", fmt.Sprintf("%d (listed under Warnings)", h.WarningCount)})
 	return kv
+}
+
+// viscousDensityWords says, for the summary's confidence, how the coupled
+// viscous solution's Cl moved with the panel count, which the
+// recommendation does not judge: its extrapolation, or that it did not
+// settle, and the counts whose transition was held (a tripped answer).
+// Page 1 gave only the inviscid Cl's band, though the headline is the
+// viscous Cl. "" without the coupled solution in the density study.
+func (r *writer) viscousDensityWords() string {
+	d := r.in.Density
+	if d == nil || !d.Viscous {
+		return ""
+	}
+	w := "; viscous Cl: no steady convergence over the finest counts"
+	if e := d.ViscousCl; e.OK {
+		w = fmt.Sprintf("; viscous Cl → %s ± %.2g", Coef(e.Value), e.ErrorEstimate)
+	}
+	var held []string
+	for _, row := range r.in.ViscousDensity {
+		if row.Held {
+			held = append(held, strconv.Itoa(row.Panels))
+		}
+	}
+	if len(held) > 0 {
+		w += fmt.Sprintf(" (transition held upstream at %s panels)", strings.Join(held, ", "))
+	}
+	return w
 }
 
 // openIssues says in plain words what a reader must know before acting.

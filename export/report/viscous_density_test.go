@@ -96,3 +96,23 @@ func TestViscousDensityHeld(t *testing.T) {
 		t.Error("HeldWords of none says something")
 	}
 }
+
+// TestSummaryViscousDensity: page 1's confidence gives how the viscous
+// Cl moved with the panel count beside the inviscid band (the headline
+// is the viscous Cl; the recommendation judges the panel method only),
+// with the counts whose transition was held.
+func TestSummaryViscousDensity(t *testing.T) {
+	st := demoStudy()
+	res := solve(t, st)
+	nan := math.NaN()
+	d := &engine.DensityResult{Viscous: true, Series: []engine.DensitySeries{{Nose: 0.5, RecommendedPanels: 160}}, RecommendedPanels: 160}
+	for _, n := range []int{160, 320, 640} {
+		d.Rows = append(d.Rows, engine.DensityRow{Panels: n, Nose: 0.5, Cl: -0.74, ViscousCl: -0.6998, ViscousCd: 0.0092, ViscousTransitionUpper: nan, ViscousTransitionLower: 0.45, ViscousHeld: n == 640})
+	}
+	text := pdfText(t, Input{Study: st, Result: res, Density: d, ViscousDensity: ViscousDensity(context.Background(), st, nil, d)})
+	for _, w := range []string{"viscous Cl: no steady convergence over the finest counts", "(transition held upstream at 640 panels)"} {
+		if !strings.Contains(text, w) {
+			t.Errorf("summary lacks %q", w)
+		}
+	}
+}
