@@ -476,7 +476,10 @@ func (e *Engine) sweepSystem(ctx context.Context, alphaDeg float64) (*solver.Sys
 // 14° with its separation aft of 13°'s; DEVELOPERS.md "What does not
 // yet"): the stall a team sets its wing by is where the lift first stops
 // rising, so such a row is marked past the maximum
-// (Result.HigherPastClMaxWords) instead of being taken as it.
+// (Result.HigherPastClMaxWords) instead of being taken as it. The way up
+// ends, too, at a row whose suction side separates further aft than the
+// maximum so far's, or not at all where that one separates
+// (separationAft): a row of another branch, even where its lift rises.
 func ClMax(rows []CoupledPoint, inverted bool) (cl, alphaDeg float64, peak bool) {
 	sense := loadSense(inverted)
 	var order []int
@@ -504,7 +507,7 @@ func ClMax(rows []CoupledPoint, inverted bool) (cl, alphaDeg float64, peak bool)
 	}
 	best := low
 	for k := low + 1; k < len(order); k++ {
-		if load(k) < load(best) {
+		if load(k) < load(best) || separationAft(&rows[order[best]], &rows[order[k]], sense) {
 			peak = true
 			break
 		}
@@ -514,6 +517,50 @@ func ClMax(rows []CoupledPoint, inverted bool) (cl, alphaDeg float64, peak bool)
 	}
 	r := rows[order[best]]
 	return r.Cl, r.AlphaDeg, peak
+}
+
+// separationJitterXC is how far aft of a lower angle's a suction side's
+// separation may lie and still be taken as the same stall: one station's
+// spacing at mid-chord at the default 160 panels (cosine spacing, 80
+// panels a surface: π/80 · ½ ≈ 0.02 of chord), the resolution the
+// separation is found to.
+const separationJitterXC = 0.02
+
+// separationAft reports whether some element of q, a converged row at a
+// larger angle than p, separates on its suction side (the upper surface
+// as mounted on a wing loaded upwards, sense 1, the lower on one loaded
+// downwards; elements of p or q loaded the other way are not compared)
+// more than separationJitterXC aft of where p's does, or not
+// at all where p's separates. Through a trailing-edge stall the
+// separation moves forward as the angle rises (common practice;
+// TestEngineCoupledCamberedStall, TestEngineCoupledGroundStall), so such
+// a row is not on the stall's branch but on another root of the coupled
+// equations whose layer stays attached further (E387 at Re 2e5, 14°:
+// separated from x/c 0.585 after 0.503 at 13°; NACA 0012 at Re 3e5 in
+// free air, 13°: from 0.974 after 0.861 at 12°, Cl 1.196 after 1.073; NACA
+// 0012 at Re 1.5e5 tripped at 5 %, inverted at h/c 0.5: 0.832 at 14° after
+// 0.669 at 13°, then no separation and downforce Cl −1.910 at 15° after
+// −1.198), and the first maximum on the way up ends before it (ClMax).
+func separationAft(p, q *CoupledPoint, sense float64) bool {
+	for i := range min(len(p.Elements), len(q.Elements)) {
+		pe, qe := &p.Elements[i], &q.Elements[i]
+		if !(sense*pe.Cl > 0 && sense*qe.Cl > 0) {
+			// Loaded the other way (the far side of a negative stall):
+			// its suction side is the other surface.
+			continue
+		}
+		a, b := pe.SeparationUpper, qe.SeparationUpper
+		if sense < 0 {
+			a, b = pe.SeparationLower, qe.SeparationLower
+		}
+		if math.IsNaN(a) {
+			continue
+		}
+		if math.IsNaN(b) || b > a+separationJitterXC {
+			return true
+		}
+	}
+	return false
 }
 
 // loadSense is the sign that turns a Cl into the load a wing is set for:

@@ -233,6 +233,13 @@ func TestClMax(t *testing.T) {
 		}
 		return CoupledPoint{AlphaDeg: a, Cl: cl, Converged: ok}
 	}
+	// sep is a converged row whose one element separates on its upper
+	// and lower surface (as mounted) from these x/c (NaN: attached).
+	sep := func(a, cl, upper, lower float64) CoupledPoint {
+		r := row(a, cl, true)
+		r.Elements = []CoupledElementPoint{{Cl: cl, SeparationUpper: upper, SeparationLower: lower}}
+		return r
+	}
 	for _, tc := range []struct {
 		name     string
 		rows     []CoupledPoint
@@ -252,6 +259,17 @@ func TestClMax(t *testing.T) {
 		// the way up starts at the least lift, not at the sweep's start.
 		{"negative stall first", []CoupledPoint{row(-20, -1.03, true), row(-16, -1.20, true), row(-14, -1.33, true), row(0, 0, true), row(14, 1.33, true), row(15, 1.27, true)}, false, 1.33, 14, true, []bool{false, false, false, false, false, true}},
 		{"rows out of order", []CoupledPoint{row(14, 1.3, true), row(10, 1.2, true), row(12, 1.4, true)}, false, 1.4, 12, true, []bool{true, false, false}},
+		// NACA 0012 at Re 3e5, free transition, free air (main 9f47411,
+		// `sweep --alpha -2:18:1`): 13° separates aft of 12° and gives
+		// 0.12 more lift, 15° not at all; the stall is 12°'s.
+		{"separation aft of the maximum's", []CoupledPoint{sep(11, 1.0408, 0.968, nan), sep(12, 1.0734, 0.861, nan), sep(13, 1.1962, 0.974, nan), sep(14, 1.1152, 0.682, nan), sep(15, 1.4390, nan, nan)}, false, 1.0734, 12, true, []bool{false, false, true, true, true}},
+		// NACA 0012 at Re 1.5e5 tripped at 5 %, inverted at h/c 0.5 (the
+		// same build): the suction side is the lower surface; 14°
+		// separates aft of 13°, 15° not at all, with Cl −1.910.
+		{"inverted, separation aft then none", []CoupledPoint{sep(12, -1.1619, nan, 0.697), sep(13, -1.1981, nan, 0.669), sep(14, -1.4362, nan, 0.832), sep(15, -1.9102, nan, nan)}, true, -1.1981, 13, true, []bool{false, false, true, true}},
+		// A station's spacing aft (0.015 < separationJitterXC) is the
+		// same stall, and a pressure side's separation does not count.
+		{"separation within a station", []CoupledPoint{sep(10, 1.20, 0.800, nan), sep(11, 1.25, 0.815, 0.95), sep(12, 1.22, 0.700, nan)}, false, 1.25, 11, true, []bool{false, false, true}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			cl, a, peak := ClMax(tc.rows, tc.inverted)
