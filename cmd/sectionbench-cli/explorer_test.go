@@ -496,3 +496,19 @@ func TestSearchText(t *testing.T) {
 		t.Errorf("the best setting near the ground is not flagged:\n%s", out)
 	}
 }
+
+// TestMapTextSigns: the map's text heading states the signs of its own
+// columns, cl in the standard sense (negative on an inverted wing making
+// downforce) and the downforce in N/m positive; it gave the workbench's
+// "downforce coefficient −Cl, positive towards the ground" above a cl
+// column of negative numbers.
+func TestMapTextSigns(t *testing.T) {
+	code, out, stderr := runCLI(t, "map", "--study", example("two-element-ground.json"), "--vary", "clearance_mm=100:100:10", "--inviscid")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	head, _, _ := strings.Cut(out, "\n")
+	if !strings.Contains(head, "cl positive up, away from the ground (negative: downforce)") || strings.Contains(head, "−Cl, positive") {
+		t.Errorf("heading %q does not state the cl column's sign", head)
+	}
+}

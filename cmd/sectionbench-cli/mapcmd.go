@@ -367,7 +367,7 @@ func modeWords(mode string) string {
 // search's own heading) without a heading.
 func mapText(w io.Writer, title bool, st *model.Study, vars []model.SetupVariable, points []engine.Point, mode string, hasSpeed bool) error {
 	if title {
-		fmt.Fprintf(w, "Map of %s, %s; %s\n", st.Name, modeWords(mode), model.LiftSense(st.Inverted))
+		fmt.Fprintf(w, "Map of %s, %s; %s\n", st.Name, modeWords(mode), tableSense(st.Inverted))
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	head := ""
@@ -465,6 +465,17 @@ func mapText(w io.Writer, title bool, st *model.Study, vars []model.SetupVariabl
 	}
 	_, err := fmt.Fprintln(w, caution)
 	return err
+}
+
+// tableSense states the signs of the map's and search's text columns:
+// cl in the standard sense, the load in N/m as named. Their heading gave
+// the workbench's "downforce coefficient −Cl, positive towards the
+// ground" above a cl column of negative numbers.
+func tableSense(inverted bool) string {
+	if inverted {
+		return "cl positive up, away from the ground (negative: downforce); downforce N/m positive towards the ground"
+	}
+	return "cl positive up"
 }
 
 // fromNeighbour counts the points that converged only from a neighbour.
