@@ -382,11 +382,15 @@ func TestSolveTextDownforceCoefficient(t *testing.T) {
 // its maximum as the most downforce, −Cl, as the app's polar does; it
 // read "largest Cl -3.2016", the least downforce in words.
 func TestSweepTextMostDownforce(t *testing.T) {
+	// Its heading states the sign of cl, as the map's does.
 	code, out, stderr := runCLI(t, "sweep", "--study", example("two-element-ground.json"), "--alpha", "0:1:1")
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, stderr)
 	}
 	if !strings.Contains(out, "most downforce −Cl ") || strings.Contains(out, "largest Cl") {
 		t.Errorf("inverted sweep's maximum not given as the most downforce:\n%s", out)
+	}
+	if head, _, _ := strings.Cut(out, "\n"); !strings.Contains(head, "cl positive up, away from the ground (negative: downforce)") {
+		t.Errorf("heading %q does not state the sign of cl", head)
 	}
 }

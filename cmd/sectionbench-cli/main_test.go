@@ -175,7 +175,7 @@ func TestSweepCSVAndText(t *testing.T) {
 		}
 		rows := 0
 		for _, l := range strings.Split(strings.TrimSpace(out), "\n") {
-			if !strings.HasPrefix(l, "caution:") && !strings.HasPrefix(l, "warning:") && !strings.HasPrefix(l, "# ") {
+			if !strings.HasPrefix(l, "caution:") && !strings.HasPrefix(l, "Sweep of ") && !strings.HasPrefix(l, "warning:") && !strings.HasPrefix(l, "# ") {
 				rows++
 			}
 		}

@@ -367,7 +367,7 @@ func modeWords(mode string) string {
 // search's own heading) without a heading.
 func mapText(w io.Writer, title bool, st *model.Study, vars []model.SetupVariable, points []engine.Point, mode string, hasSpeed bool) error {
 	if title {
-		fmt.Fprintf(w, "Map of %s, %s; %s\n", st.Name, modeWords(mode), tableSense(st.Inverted))
+		fmt.Fprintf(w, "Map of %s, %s; %s\n", st.Name, modeWords(mode), tableSense(st.Inverted, true))
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	head := ""
@@ -471,9 +471,13 @@ func mapText(w io.Writer, title bool, st *model.Study, vars []model.SetupVariabl
 // cl in the standard sense, the load in N/m as named. Their heading gave
 // the workbench's "downforce coefficient −Cl, positive towards the
 // ground" above a cl column of negative numbers.
-func tableSense(inverted bool) string {
-	if inverted {
+// load adds the sign of the downforce column (a map's and a search's).
+func tableSense(inverted, load bool) string {
+	switch {
+	case inverted && load:
 		return "cl positive up, away from the ground (negative: downforce); downforce N/m positive towards the ground"
+	case inverted:
+		return "cl positive up, away from the ground (negative: downforce)"
 	}
 	return "cl positive up"
 }

@@ -132,7 +132,7 @@ func cmdSearch(args []string, stdout, stderr io.Writer) (err error) {
 		}
 		return writeJSON(stdout, out)
 	}
-	fmt.Fprintf(stdout, "Search of %s for the %s, %s; %s\n", st.Name, objectiveWords(obj, *target), modeWords(mode), tableSense(st.Inverted))
+	fmt.Fprintf(stdout, "Search of %s for the %s, %s; %s\n", st.Name, objectiveWords(obj, *target), modeWords(mode), tableSense(st.Inverted, true))
 	fmt.Fprintf(stdout, "%d solves; %s\n", res.Evaluations, res.Status)
 	if err := mapText(stdout, false, st, vars, []engine.Point{res.Start, res.Best}, mode, hasSpeed); err != nil {
 		return err

@@ -75,6 +75,16 @@ func cmdSweep(args []string, stdout, stderr io.Writer) error {
 	case "csv":
 		return sweepCSV(stdout, st, res)
 	}
+	// The heading states the signs of the columns, as the map's does:
+	// on an inverted wing cl is negative where it makes downforce.
+	how := "panel method"
+	switch {
+	case res.SweepCoupled != nil:
+		how = "coupled viscous solution (cl, cd, cm viscous)"
+	case res.SweepViscous != nil:
+		how = "panel method with the one-way boundary-layer estimate (cl inviscid)"
+	}
+	fmt.Fprintf(stdout, "Sweep of %s, %s; %s\n", st.Name, how, tableSense(st.Inverted, false))
 	if res.SweepCoupled != nil {
 		if err := sweepCoupledText(stdout, res); err != nil {
 			return err
