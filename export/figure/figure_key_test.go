@@ -87,15 +87,7 @@ func TestPolarMarksSeparatedRows(t *testing.T) {
 	if len(sep) != 1 || sep[0].X != sc.SweepCoupled[at].AlphaDeg || sep[0].Y != sc.SweepCoupled[at].Cl {
 		t.Fatalf("separated rows %v, want the row at %g°", sep, sc.SweepCoupled[at].AlphaDeg)
 	}
-	_, info, err := buildView(ViewPolar, sc)
-	if err != nil {
-		t.Fatal(err)
-	}
-	found := false
-	for _, e := range info.keys[0].entries {
-		found = found || strings.HasPrefix(e.label, "viscous, separated ahead of x/c 0.9")
-	}
-	if !found {
+	if keyEntryWith(t, ViewPolar, sc, "viscous, separated ahead of x/c 0.9") == "" {
 		t.Error("the key has no entry for the separated rows")
 	}
 }
@@ -201,21 +193,6 @@ func TestSearchKeyAboveData(t *testing.T) {
 // says so (a pinned search start read as the viscous answer's
 // comparison), and alone with the panel method's it stays plain.
 func TestPinsSayInviscid(t *testing.T) {
-	entry := func(v View, sc *Scene) string {
-		t.Helper()
-		_, info, err := buildView(v, sc)
-		if err != nil {
-			t.Fatal(err)
-		}
-		for _, k := range info.keys {
-			for _, e := range k.entries {
-				if strings.HasPrefix(e.label, "pin") {
-					return e.label
-				}
-			}
-		}
-		return ""
-	}
 	coupled := synthCoupledScene()
 	coupled.Pins = synthPins()
 	plain := synthScene()
@@ -231,7 +208,7 @@ func TestPinsSayInviscid(t *testing.T) {
 		{"polar, panel method", ViewPolar, plain, "pin: 160 panels"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			if got := entry(tc.v, tc.sc); got != tc.want {
+			if got := keyEntryWith(t, tc.v, tc.sc, "pin"); got != tc.want {
 				t.Errorf("pin's key entry %q, want %q", got, tc.want)
 			}
 		})
@@ -255,15 +232,25 @@ func TestPolarMarksHeldRows(t *testing.T) {
 	if len(held) != 1 || held[0].X != sc.SweepCoupled[at].AlphaDeg {
 		t.Fatalf("held rows %v, want the row at %g°", held, sc.SweepCoupled[at].AlphaDeg)
 	}
-	_, info, err := buildView(ViewPolar, sc)
+	if keyEntryWith(t, ViewPolar, sc, "viscous, transition held upstream") == "" {
+		t.Error("the key has no entry for the held rows")
+	}
+}
+
+// keyEntryWith returns the first key entry of view v of sc that begins
+// with prefix, "" for none.
+func keyEntryWith(t *testing.T, v View, sc *Scene, prefix string) string {
+	t.Helper()
+	_, info, err := buildView(v, sc)
 	if err != nil {
 		t.Fatal(err)
 	}
-	found := false
-	for _, e := range info.keys[0].entries {
-		found = found || strings.HasPrefix(e.label, "viscous, transition held upstream")
+	for _, k := range info.keys {
+		for _, e := range k.entries {
+			if strings.HasPrefix(e.label, prefix) {
+				return e.label
+			}
+		}
 	}
-	if !found {
-		t.Error("the key has no entry for the held rows")
-	}
+	return ""
 }
