@@ -130,6 +130,8 @@ type CoupledSolution struct {
 // try the failed side again from that solution if it converged, and
 // return the solution at α if a side still fails.
 func (s *System) SolveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution) (*CoupledSolution, error) {
+	solving.Add(1)
+	defer solving.Add(-1)
 	if s.geo.ground {
 		return s.solveStrategies(ctx, alphaDeg, opt, warm, maxAlphaHalvings)
 	}

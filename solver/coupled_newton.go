@@ -230,8 +230,6 @@ func (cs *coupledState) iterate(ctx context.Context, maxIt, grace int, tol float
 // stopping them throws their progress away for the costlier routes
 // (solveFrom).
 func (cs *coupledState) newtonIterations(ctx context.Context, maxIt, grace int, tol float64) (converged bool, iters int, res float64, err error) {
-	iterating.Add(1)
-	defer iterating.Add(-1)
 	n := len(cs.st)
 	prevRes, grown, falling := math.Inf(1), 0, 0
 	bound := maxIt

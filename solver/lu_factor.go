@@ -10,20 +10,21 @@ import (
 	"gonum.org/v1/gonum/lapack/lapack64"
 )
 
-// iterating counts the goroutines in a coupled solution's Newton
-// iterations (newtonIterations), for factorise.
-var iterating atomic.Int32
+// solving counts the goroutines in System.SolveCoupled (all of it
+// numerics: wakes, sensitivities, marches, Newton iterations), for
+// factorise.
+var solving atomic.Int32
 
 // factorise LU-factorises the n × n row-major a in place (P A = L U,
 // partial pivoting) to the same bits either way: through gonum's
 // lapack64.Getrf, whose trailing updates run on all cores, when this is
-// the only coupled solution iterating, else on the calling goroutine
-// (luFactor) when as many solutions as the machine has cores iterate at
-// once (a map or a search solves two points at a time), where Getrf's
-// workers only wait for cores that are busy. ok is false if a is
-// singular.
+// the only coupled solution being solved, else on the calling goroutine
+// (luFactor) when as many solutions as the machine has cores are solved
+// at once (a map or a search solves two points at a time), where
+// Getrf's workers only wait for cores that are busy. ok is false if a
+// is singular.
 func factorise(a []float64, n int, ipiv []int) (ok bool) {
-	if int(iterating.Load()) >= runtime.GOMAXPROCS(0) {
+	if int(solving.Load()) >= runtime.GOMAXPROCS(0) {
 		return luFactor(a, n, n, ipiv)
 	}
 	return lapack64.Getrf(blas64.General{Rows: n, Cols: n, Stride: n, Data: a}, ipiv)
