@@ -588,28 +588,6 @@ func (cs *coupledState) resolveStagnation() {
 // start of a continuation from it); it reports false (and changes nothing) when the
 // wakes differ in length. A transition station that is laminar at this
 // angle turns laminar (retype).
-//
-// Laid out at the neighbour's own stagnation panels, the carry and that
-// retype leave out the in-iteration envelope test of relaminariseAlways:
-// the carried transition stations are then the neighbour's converged
-// ones, at nearly the same ξ, and the test, made before any iteration
-// at this angle, can only turn one laminar, moving transition
-// downstream where the new angle may move it upstream. On
-// BenchmarkCoupledPolar41TwoElement at −8.5° from −8° the lower
-// surface's leading-edge bubble moves its transition upstream (x/c
-// 0.0358 → 0.0320); the test turned the carried transition station (x/c
-// 0.0365) laminar, the first step asked eleven times its neighbour's
-// √Cτ, the turbulent stations behind it fell to H ≈ 1 and every step was
-// cut to a fifth: the start failed, and the chain took 435 Newton
-// iterations to reach the angle by the other strategy's halving (−9°
-// 109); without the test −8.5° takes 6 and −9° 8, the same transition
-// and bubble. Laid out elsewhere (the neighbour's layout followed its
-// coupled stagnation point off this angle's inviscid panel, or
-// warmStagnation moved this one), the carry by arc length can put a
-// spurious transition just behind the new stagnation point, which the
-// test removes: at 8.5° from 8° (the neighbour at panel 88, this layout
-// at the inviscid 90) the start without it failed and the row took 315
-// iterations instead of 11.
 func (cs *coupledState) warmFrom(w *coupledState) bool {
 	if len(w.st) != len(cs.st) {
 		return false
@@ -622,13 +600,8 @@ func (cs *coupledState) warmFrom(w *coupledState) bool {
 	if cs.warmStagnation(w) {
 		cs.layout()
 	}
-	st := cs.strategy
-	if slices.Equal(cs.stag, w.stag) {
-		cs.strategy.relaminariseAlways = false
-	}
 	cs.warmUe = cs.carryFrom(w.stationValues(w.ue()))
 	cs.retype(true)
-	cs.strategy = st
 	return true
 }
 
