@@ -454,12 +454,17 @@ func (s *System) cheapRoute(ctx context.Context, alphaDeg float64, opt CoupledOp
 	return s.cheapRoute(ctx, alphaDeg, opt, mid, halvings-1, st, iters)
 }
 
+//
+// The answer's Iterations count every attempt made for it: the half
+// steps' and the first try's at alphaDeg as well as its own.
 func (s *System) solveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, halvings int, st strategy) (*CoupledSolution, error) {
+	spent := 0 // iterations of the attempts before the answer's own
 	if warm != nil && halvings > 0 && math.Abs(alphaDeg-warm.AlphaDeg) > minAlphaStep {
 		out, err := s.solveOnce(ctx, alphaDeg, opt, warm, warmBoth, false, st)
 		if err != nil || out.Converged && !out.held() {
 			return out, err
 		}
+		spent += out.Iterations
 		// Not converged, or converged with transition held upstream of
 		// its e^N position (kept, should the half steps do no better).
 		var held *CoupledSolution
@@ -470,21 +475,39 @@ func (s *System) solveCoupled(ctx context.Context, alphaDeg float64, opt Coupled
 		if err != nil {
 			return nil, err
 		}
+		spent += mid.Iterations
 		if mid.Converged && !mid.held() {
 			// Its last resort is the start from the march below, which
 			// would only repeat it.
 			out, err := s.solveCoupled(ctx, alphaDeg, opt, mid, halvings-1, st)
-			if err == nil && held != nil && (!out.Converged || out.held()) {
-				return held, nil
+			if err != nil {
+				return nil, err
 			}
-			return out, err
+			spent += out.Iterations
+			if held != nil && (!out.Converged || out.held()) {
+				out = held
+			}
+			return withIterations(out, spent), nil
 		}
 		if held != nil {
-			return held, nil
+			return withIterations(held, spent), nil
 		}
 		warm = nil
 	}
-	return s.solveOnce(ctx, alphaDeg, opt, warm, warmBoth, true, st)
+	out, err := s.solveOnce(ctx, alphaDeg, opt, warm, warmBoth, true, st)
+	if err != nil {
+		return nil, err
+	}
+	return withIterations(out, spent+out.Iterations), nil
+}
+
+// withIterations returns a copy of c with n iterations: c may be an
+// attempt's outcome that other attempts keep (attempts, marches), whose
+// own count must not change.
+func withIterations(c *CoupledSolution, n int) *CoupledSolution {
+	o := *c
+	o.Iterations = n
+	return &o
 }
 
 // held reports whether transition is held upstream of its e^N position
