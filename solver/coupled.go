@@ -454,7 +454,6 @@ func (s *System) cheapRoute(ctx context.Context, alphaDeg float64, opt CoupledOp
 	return s.cheapRoute(ctx, alphaDeg, opt, mid, halvings-1, st, iters)
 }
 
-//
 // The answer's Iterations count every attempt made for it: the half
 // steps' and the first try's at alphaDeg as well as its own.
 func (s *System) solveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, halvings int, st strategy) (*CoupledSolution, error) {
