@@ -454,8 +454,10 @@ func (s *System) cheapRoute(ctx context.Context, alphaDeg float64, opt CoupledOp
 	return s.cheapRoute(ctx, alphaDeg, opt, mid, halvings-1, st, iters)
 }
 
-// The answer's Iterations count every attempt made for it: the half
-// steps' and the first try's at alphaDeg as well as its own.
+// solveCoupled solves at alphaDeg with strategy st: from warm, through
+// the angle half way between while halvings are left, and from the
+// march. The answer's Iterations count every attempt made for it: the
+// half steps' and the first try's at alphaDeg as well as its own.
 func (s *System) solveCoupled(ctx context.Context, alphaDeg float64, opt CoupledOptions, warm *CoupledSolution, halvings int, st strategy) (*CoupledSolution, error) {
 	spent := 0 // iterations of the attempts before the answer's own
 	if warm != nil && halvings > 0 && math.Abs(alphaDeg-warm.AlphaDeg) > minAlphaStep {
