@@ -1,7 +1,6 @@
 package engine
 
 import (
-	"math"
 	"testing"
 
 	"sectionbench/model"
@@ -57,35 +56,7 @@ func TestEngineCoupledGroundStall(t *testing.T) {
 	st.Viscous = model.Viscous{Enabled: true, Mode: model.ViscousCoupled}
 	st.Sweep = model.SweepRange{FromDeg: 0, ToDeg: 18, StepDeg: 1}
 	res := run(t, NewEngine(), st, []*model.Section{sec}, true)
-	rows := res.SweepCoupled
 	// Downforce: Cl is negative; its suction side is the lower surface as
 	// mounted.
-	for i, r := range rows {
-		t.Logf("α %4.1f°: converged %v, Cl %.4f, Cd %.5f, suction-side separation x/c %.3f, held %v, %d iterations", r.AlphaDeg, r.Converged, r.Cl, r.Cd, r.Elements[0].SeparationLower, r.Held(), r.Iterations)
-		if !r.Converged {
-			t.Errorf("α %g°: not converged", r.AlphaDeg)
-			continue
-		}
-		if i == 0 || !rows[i-1].Converged {
-			continue
-		}
-		p := rows[i-1]
-		if ps, rs := p.Elements[0].SeparationLower, r.Elements[0].SeparationLower; !math.IsNaN(ps) && !(rs < ps) {
-			t.Errorf("α %g° → %g°: suction-side separation x/c %.3f → %.3f, want it further forward", p.AlphaDeg, r.AlphaDeg, ps, rs)
-		}
-		if i > 1 && rows[i-2].Converged && r.AlphaDeg <= res.AlphaClMax {
-			if rise, before := p.Cl-r.Cl, rows[i-2].Cl-p.Cl; rise > before+liftKink {
-				t.Errorf("α %g° → %g°: downforce rises %.4f after %.4f: a jump to another root", p.AlphaDeg, r.AlphaDeg, rise, before)
-			}
-		}
-	}
-	t.Logf("Cl max %.4f at %g° (peak %v)", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak)
-	at := int(res.AlphaClMax)
-	if at < 0 || at >= len(rows) || !res.ClMaxIsPeak || !(rows[at].Elements[0].SeparationLower < 0.7) {
-		sep := math.NaN()
-		if at >= 0 && at < len(rows) {
-			sep = rows[at].Elements[0].SeparationLower
-		}
-		t.Errorf("Cl max %.4f at %g°, peak %v, suction-side separation x/c %.3f: want a peak with separation ahead of x/c 0.7", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak, sep)
-	}
+	checkTrailingEdgeStall(t, res, liftKink, -1, "suction-side separation", func(r CoupledPoint) float64 { return r.Elements[0].SeparationLower })
 }

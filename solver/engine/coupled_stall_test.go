@@ -58,8 +58,33 @@ func TestEngineCoupledCamberedStall(t *testing.T) {
 	secs := []*model.Section{sec}
 	res := run(t, NewEngine(), st, secs, true)
 	rows := res.SweepCoupled
+	checkTrailingEdgeStall(t, res, liftKink, 1, "upper separation", func(r CoupledPoint) float64 { return r.Elements[0].SeparationUpper })
+	for _, a := range []int{12, 16} {
+		st.Flow.AlphaDeg = float64(a)
+		single := run(t, NewEngine(), st, secs, false).Coupled
+		if want := rows[a].Cl; !single.Converged || math.Abs(single.Cl-want) > SolveAgreementTolerance {
+			t.Errorf("α %d° solved alone: converged %v, Cl %.5f; the sweep's %.5f", a, single.Converged, single.Cl, want)
+		}
+	}
+}
+
+// checkTrailingEdgeStall checks a sweep through a trailing-edge stall, as
+// TestEngineCoupledCamberedStall and TestEngineCoupledGroundStall state it:
+// every row converges; the suction side's separation (suction), once there,
+// moves forward at every step; up to the maximum the lift's rise per degree
+// in the sense of sense (1 for lift, −1 for downforce) never grows by more
+// than liftKink; and the maximum is a peak inside the sweep with separation
+// ahead of x/c 0.7. The sweep runs from 0° in 1° steps (the maximum's row
+// is its angle). side names the separation in the messages.
+func checkTrailingEdgeStall(t *testing.T, res *Result, liftKink, sense float64, side string, suction func(CoupledPoint) float64) {
+	t.Helper()
+	quantity := "Cl"
+	if sense < 0 {
+		quantity = "downforce"
+	}
+	rows := res.SweepCoupled
 	for i, r := range rows {
-		t.Logf("α %4.1f°: converged %v, Cl %.4f, Cd %.5f, upper separation x/c %.3f, %d iterations", r.AlphaDeg, r.Converged, r.Cl, r.Cd, r.Elements[0].SeparationUpper, r.Iterations)
+		t.Logf("α %4.1f°: converged %v, Cl %.4f, Cd %.5f, %s x/c %.3f, held %v, %d iterations", r.AlphaDeg, r.Converged, r.Cl, r.Cd, side, suction(r), r.Held(), r.Iterations)
 		if !r.Converged {
 			t.Errorf("α %g°: not converged", r.AlphaDeg)
 			continue
@@ -68,25 +93,22 @@ func TestEngineCoupledCamberedStall(t *testing.T) {
 			continue
 		}
 		p := rows[i-1]
-		if ps, rs := p.Elements[0].SeparationUpper, r.Elements[0].SeparationUpper; !math.IsNaN(ps) && !(rs < ps) {
-			t.Errorf("α %g° → %g°: upper separation x/c %.3f → %.3f, want it further forward", p.AlphaDeg, r.AlphaDeg, ps, rs)
+		if ps, rs := suction(p), suction(r); !math.IsNaN(ps) && !(rs < ps) {
+			t.Errorf("α %g° → %g°: %s x/c %.3f → %.3f, want it further forward", p.AlphaDeg, r.AlphaDeg, side, ps, rs)
 		}
 		if i > 1 && rows[i-2].Converged && r.AlphaDeg <= res.AlphaClMax {
-			if rise, before := r.Cl-p.Cl, p.Cl-rows[i-2].Cl; rise > before+liftKink {
-				t.Errorf("α %g° → %g°: Cl rises %.4f after %.4f: a jump to another root", p.AlphaDeg, r.AlphaDeg, rise, before)
+			if rise, before := sense*(r.Cl-p.Cl), sense*(p.Cl-rows[i-2].Cl); rise > before+liftKink {
+				t.Errorf("α %g° → %g°: %s rises %.4f after %.4f: a jump to another root", p.AlphaDeg, r.AlphaDeg, quantity, rise, before)
 			}
 		}
 	}
 	t.Logf("Cl max %.4f at %g° (peak %v)", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak)
 	at := int(res.AlphaClMax)
-	if !res.ClMaxIsPeak || !(rows[at].Elements[0].SeparationUpper < 0.7) {
-		t.Errorf("Cl max %.4f at %g°, peak %v, upper separation x/c %.3f: want a peak with separation ahead of x/c 0.7", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak, rows[at].Elements[0].SeparationUpper)
-	}
-	for _, a := range []int{12, 16} {
-		st.Flow.AlphaDeg = float64(a)
-		single := run(t, NewEngine(), st, secs, false).Coupled
-		if want := rows[a].Cl; !single.Converged || math.Abs(single.Cl-want) > SolveAgreementTolerance {
-			t.Errorf("α %d° solved alone: converged %v, Cl %.5f; the sweep's %.5f", a, single.Converged, single.Cl, want)
+	if at < 0 || at >= len(rows) || !res.ClMaxIsPeak || !(suction(rows[at]) < 0.7) {
+		sep := math.NaN()
+		if at >= 0 && at < len(rows) {
+			sep = suction(rows[at])
 		}
+		t.Errorf("Cl max %.4f at %g°, peak %v, %s x/c %.3f: want a peak with separation ahead of x/c 0.7", res.ClMax, res.AlphaClMax, res.ClMaxIsPeak, side, sep)
 	}
 }
