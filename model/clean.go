@@ -922,7 +922,6 @@ func plural(n int, one, many string) string {
 	return many
 }
 
-// pointList lists 1-based point numbers, at most 8 of them.
 // lineOf gives the file line of input point i, " on line 48", or "" when
 // the lines are not known.
 func (c *cleaner) lineOf(i int) string {
@@ -940,7 +939,7 @@ func (c *cleaner) lineList(idx []int) string {
 	}
 	var s []string
 	for k, i := range idx {
-		if k == 8 {
+		if k == listedPoints {
 			s = append(s, "…")
 			break
 		}
@@ -952,11 +951,17 @@ func (c *cleaner) lineList(idx []int) string {
 	return " on " + plural(len(idx), "line ", "lines ") + strings.Join(s, ", ") + " of the file"
 }
 
+// listedPoints is how many points a report line names before it says how
+// many more there are: enough to find a few stray points in the file,
+// short enough to read in one line.
+const listedPoints = 8
+
+// pointList lists 1-based point numbers, at most listedPoints of them.
 func pointList(idx []int) string {
 	var s []string
 	for k, i := range idx {
-		if k == 8 {
-			s = append(s, fmt.Sprintf("and %d more", len(idx)-8))
+		if k == listedPoints {
+			s = append(s, fmt.Sprintf("and %d more", len(idx)-listedPoints))
 			break
 		}
 		s = append(s, fmt.Sprint(i+1))
