@@ -390,6 +390,11 @@ func TestSweepTextMostDownforce(t *testing.T) {
 	if !strings.Contains(out, "most downforce −Cl ") || strings.Contains(out, "largest Cl") {
 		t.Errorf("inverted sweep's maximum not given as the most downforce:\n%s", out)
 	}
+	// 0° and 1° lie below the stall: the maximum is not found, and what
+	// would show it is the downforce falling, not the lift.
+	if !strings.Contains(out, "shows the downforce falling") || strings.Contains(out, "shows lift falling") {
+		t.Errorf("inverted sweep's unfound maximum not said in terms of downforce:\n%s", out)
+	}
 	if head, _, _ := strings.Cut(out, "\n"); !strings.Contains(head, "cl positive up, away from the ground (negative: downforce)") {
 		t.Errorf("heading %q does not state the sign of cl", head)
 	}

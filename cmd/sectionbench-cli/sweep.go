@@ -215,9 +215,11 @@ func sweepCoupledText(w io.Writer, res *engine.Result) error {
 	// On an inverted wing the maximum is the most downforce, the most
 	// negative Cl, said so as the app's polar says it: "largest Cl
 	// -5.4360" read as the least downforce.
-	most := fmt.Sprintf("Cl max %.4f", res.ClMax)
-	if res.Layout != nil && res.Layout.Inverted {
+	inverted := res.Layout != nil && res.Layout.Inverted
+	most, largest, load := fmt.Sprintf("Cl max %.4f", res.ClMax), fmt.Sprintf("largest Cl %.4f", res.ClMax), "lift"
+	if inverted {
 		most = fmt.Sprintf("most downforce −Cl %.4f (Cl %.4f)", -res.ClMax, res.ClMax)
+		largest, load = most, "the downforce"
 	}
 	switch {
 	case res.ClMax != res.ClMax:
@@ -227,10 +229,7 @@ func sweepCoupledText(w io.Writer, res *engine.Result) error {
 		_, err := fmt.Fprintf(w, "%s at %g° (viscous, converged rows)\n", most, res.AlphaClMax)
 		return err
 	}
-	if res.Layout == nil || !res.Layout.Inverted {
-		most = fmt.Sprintf("largest Cl %.4f", res.ClMax)
-	}
-	_, err := fmt.Fprintf(w, "%s at %g°; no converged row beyond it shows lift falling, so the maximum is not found in this sweep\n", most, res.AlphaClMax)
+	_, err := fmt.Fprintf(w, "%s at %g°; no converged row beyond it shows %s falling, so the maximum is not found in this sweep\n", largest, res.AlphaClMax, load)
 	return err
 }
 
