@@ -16,13 +16,13 @@ import (
 var solving atomic.Int32
 
 // factorise LU-factorises the n × n row-major a in place (P A = L U,
-// partial pivoting) to the same bits either way: through gonum's
-// lapack64.Getrf, whose trailing updates run on all cores, when this is
-// the only coupled solution being solved, else on the calling goroutine
-// (luFactor) when as many solutions as the machine has cores are solved
-// at once (a map or a search solves two points at a time), where
-// Getrf's workers only wait for cores that are busy. ok is false if a
-// is singular.
+// partial pivoting) to the same bits either way: on the calling
+// goroutine (luFactor) when at least as many coupled solutions as
+// GOMAXPROCS are being solved at once (a map or a search solves two
+// points at a time; on a two-core machine that is every map), where
+// Getrf's workers would only wait for cores that are busy; otherwise
+// through gonum's lapack64.Getrf, whose trailing updates run on all
+// cores. ok is false if a is singular.
 func factorise(a []float64, n int, ipiv []int) (ok bool) {
 	if int(solving.Load()) >= runtime.GOMAXPROCS(0) {
 		return luFactor(a, n, n, ipiv)
@@ -42,9 +42,9 @@ const luBlock = 64
 // Dtrsm, with the trailing update A22 −= L21 U12 made on the calling
 // goroutine, one row at a time in gonum's serial Dgemm's order (each
 // element updated by ascending k, a zero multiplier skipped). gonum's
-// Dgemm splits that update between goroutines by 64 × 64 blocks; a map
-// or search already solves two points at once on this machine's two
-// cores, and the workers' start and join then cost more than they gain.
+// Dgemm splits that update between goroutines by 64 × 64 blocks; when
+// the cores are already busy with other solutions (factorise), the
+// workers' start and join cost more than they gain.
 // ok is false if a is singular (the factors are still computed).
 func luFactor(a []float64, n, lda int, ipiv []int) (ok bool) {
 	if lda < n || len(a) < (n-1)*lda+n || len(ipiv) < n {
