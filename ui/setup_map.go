@@ -101,7 +101,7 @@ func (r *mapRun) grid(q engine.Quantity) figures.SetupGrid {
 				g.Z[i][j] = q.Value(&r.points[k], r.forces)
 				g.Separated[i][j], g.Failed[i][j] = r.separated(k), r.failed(k)
 				g.NotSolve[i][j] = !g.Failed[i][j] && r.points[k].NotSolve()
-				g.NearGround[i][j] = !g.Failed[i][j] && r.st.NearGround(r.points[k].ClearanceMM)
+				g.NearGround[i][j] = r.points[k].NearGround(r.st)
 			}
 		}
 	}
@@ -144,7 +144,7 @@ func (r *mapRun) describe(k int) string {
 	if r.separated(k) {
 		notes = append(notes, "suction side separated ahead of x/c "+num(r.limit))
 	}
-	if p := &r.points[k]; r.arrived[k] && !r.failed(k) && r.st.NearGround(p.ClearanceMM) {
+	if p := &r.points[k]; r.arrived[k] && p.NearGround(r.st) {
 		notes = append(notes, fmt.Sprintf("very close to the ground (h/c %.2f, below %g): real wings lose downforce here, this model shows only the rise", p.ClearanceMM/r.st.GroundChordMM(), model.GroundHOverCMin))
 	}
 	note := strings.Join(notes, ", ")

@@ -49,7 +49,7 @@ func MapCurve(st *model.Study, v model.SetupVariable, points []engine.Point, q e
 		c.Separated = append(c.Separated, sep)
 		c.Failed = append(c.Failed, failed)
 		c.NotSolve = append(c.NotSolve, !failed && p.NotSolve())
-		near := !failed && st.NearGround(p.ClearanceMM)
+		near := p.NearGround(st)
 		c.NearGround = append(c.NearGround, near)
 		if near {
 			c.NearGroundLabel = NearGroundWords(st)

@@ -100,7 +100,7 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 // workbench flags the study, "very close to the ground". A point without
 // an answer raises none (it has no numbers to doubt).
 func MapFlags(st *model.Study, p *engine.Point) []model.Flag {
-	if !p.Converged || p.Err != "" || !st.NearGround(p.ClearanceMM) {
+	if !p.NearGround(st) {
 		return nil
 	}
 	return model.Plausibility(model.PointFacts{HOverC: p.ClearanceMM / st.GroundChordMM()})

@@ -99,6 +99,16 @@ func (p *Point) NotSolve() bool {
 	return p.Converged && (p.Single == SingleAnotherRoot || p.Single == SingleNoAnswer)
 }
 
+// NearGround reports whether the point has an answer (converged, no
+// error) at a clearance below model.GroundHOverCMin of st's main chord
+// (model.Study.NearGround), where the workbench flags the study "very
+// close to the ground". A point without an answer is not marked: it has
+// no numbers to doubt. The map's tables, figures and readout mark their
+// points by it.
+func (p *Point) NearGround(st *model.Study) bool {
+	return p.Converged && p.Err == "" && st.NearGround(p.ClearanceMM)
+}
+
 // SingleSolve is what is known of a single solve (`solve`: a fresh
 // engine, the viscous solution from the march) of a point's setting.
 type SingleSolve int
