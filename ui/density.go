@@ -236,6 +236,16 @@ func (d *densityWindow) columns() []string {
 	return densityColumns
 }
 
+// heldMark marks a viscous value of r whose transition is held upstream
+// of its e^N position: a trip's answer (the summary says so). A cell
+// without an answer ("no answer") gets none.
+func heldMark(r *engine.DensityRow) string {
+	if r.ViscousHeld {
+		return " held"
+	}
+	return ""
+}
+
 func (d *densityWindow) tableSize() (int, int) {
 	if d.out == nil {
 		return 0, len(densityColumns)
@@ -278,12 +288,9 @@ func (d *densityWindow) tableCell(id widget.TableCellID, o fyne.CanvasObject) {
 	case id.Col == 7 && math.IsNaN(r.ViscousCl), id.Col == 8 && math.IsNaN(r.ViscousCd):
 		s = "no answer" // did not converge at this count
 	case id.Col == 7:
-		s = fixed(r.ViscousCl, 4)
+		s = fixed(r.ViscousCl, 4) + heldMark(&r)
 	case id.Col == 8:
-		s = fixed(r.ViscousCd, 5)
-	}
-	if id.Col >= 7 && r.ViscousHeld && !math.IsNaN(r.ViscousCl) {
-		s += " held" // transition held upstream: a trip's answer (the summary says so)
+		s = fixed(r.ViscousCd, 5) + heldMark(&r)
 	}
 	l.SetText(s)
 }

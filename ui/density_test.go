@@ -399,6 +399,14 @@ func TestDensityHeldMarked(t *testing.T) {
 			t.Errorf("%d panels: viscous Cl %q, held mark %v, want %v", res.Rows[r].Panels, l.Text, got, want)
 		}
 	}
+	// A held count without a drag gives no answer there, unmarked.
+	res.Rows[2].ViscousCd = nan
+	l := d.table.CreateCell().(*widget.Label)
+	d.tableCell(widget.TableCellID{Row: 2, Col: 8}, l)
+	if l.Text != "no answer" {
+		t.Errorf("640 panels without a viscous Cd: %q, want \"no answer\"", l.Text)
+	}
+	res.Rows[2].ViscousCd = 0.0092
 	if !strings.Contains(d.caseLabel.Text, "At 640 panels the viscous solution holds transition upstream") {
 		t.Errorf("summary %q does not say 640 panels is held", d.caseLabel.Text)
 	}
