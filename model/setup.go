@@ -110,6 +110,14 @@ func (v SetupVariable) Words(st *Study) string {
 	return w
 }
 
+// Setting returns the variable set to x in words, as the pins, the undo
+// labels and the search's readouts name a setting: "flap deflection 15
+// °", x to four significant digits with a true minus sign. The command
+// line's pins name it so too.
+func (v SetupVariable) Setting(st *Study, x float64) string {
+	return v.Words(st) + " " + Minus(strconv.FormatFloat(x, 'g', 4, 64)) + " " + v.Unit()
+}
+
 // SetupError reports a set-up variable or range that cannot be used,
 // naming the variable as the user wrote it.
 type SetupError struct {

@@ -222,3 +222,27 @@ func ExampleParseSetupRange() {
 	// elements[1].deflection_deg [10 15 20]
 	// elements[1].gap_mm: bad range "5:1:1": 1 is below 5
 }
+
+// TestSetupVariableSetting: a setting in words, as pins and labels name
+// it: the variable's words, the value to four significant digits with a
+// true minus sign, and its unit.
+func TestSetupVariableSetting(t *testing.T) {
+	st := NewStudy()
+	st.Elements = []StudyElement{{Name: "main"}, {Name: "flap"}}
+	for _, tc := range []struct {
+		name string
+		v    SetupVariable
+		x    float64
+		want string
+	}{
+		{"flap deflection", SetupVariable{Kind: SetupDeflection, Element: 1}, 15, "flap deflection 15 °"},
+		{"search's unrounded clearance", SetupVariable{Kind: SetupClearance}, 21.875000000000004, "ground clearance 21.88 mm"},
+		{"negative angle", SetupVariable{Kind: SetupAlpha}, -2.5, "angle of attack −2.5 °"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			if got := tc.v.Setting(st, tc.x); got != tc.want {
+				t.Errorf("Setting(%g) = %q, want %q", tc.x, got, tc.want)
+			}
+		})
+	}
+}

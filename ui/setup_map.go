@@ -156,7 +156,7 @@ func (r *mapRun) describe(k int) string {
 func describePoint(st *model.Study, vars []model.SetupVariable, p *engine.Point, forces bool, note string) string {
 	var set []string
 	for i, v := range vars {
-		set = append(set, fmt.Sprintf("%s %s %s", shortLabel(st, v), num(p.Values[i]), v.Unit()))
+		set = append(set, v.Setting(st, p.Values[i]))
 	}
 	s := strings.Join(set, ", ") + ": "
 	switch {
@@ -177,7 +177,7 @@ func describePoint(st *model.Study, vars []model.SetupVariable, p *engine.Point,
 	if p.FromNeighbour() {
 		var from []string
 		for i, v := range vars {
-			from = append(from, fmt.Sprintf("%s %s %s", shortLabel(st, v), num(p.StartedFrom[i]), v.Unit()))
+			from = append(from, v.Setting(st, p.StartedFrom[i]))
 		}
 		at := strings.Join(from, ", ")
 		switch p.Single {

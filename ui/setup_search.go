@@ -401,7 +401,7 @@ func (p *setupSearch) show() {
 	}, "")
 	if len(r.vars) >= 2 {
 		g := figures.SetupGrid{
-			Title:  "Path in " + shortLabel(r.st, r.vars[0]) + " and " + shortLabel(r.st, r.vars[1]),
+			Title:  "Path in " + r.vars[0].Words(r.st) + " and " + r.vars[1].Words(r.st),
 			XLabel: r.vars[0].Label(r.st), YLabel: r.vars[1].Label(r.st),
 			X: []float64{r.bounds[0].From, r.bounds[0].To}, Y: []float64{r.bounds[1].From, r.bounds[1].To},
 			Start: [2]float64{math.NaN(), math.NaN()}, Best: [2]float64{math.NaN(), math.NaN()},
@@ -425,9 +425,6 @@ func (p *setupSearch) show() {
 	p.table.SetText(p.comparison())
 }
 
-// shortLabel is a variable's label without its unit.
-func shortLabel(st *model.Study, v model.SetupVariable) string { return v.Words(st) }
-
 // comparison is the best setting beside the start, in words.
 func (p *setupSearch) comparison() string {
 	r := p.cur
@@ -437,7 +434,7 @@ func (p *setupSearch) comparison() string {
 	res := r.res
 	var b strings.Builder
 	for i, v := range r.vars {
-		fmt.Fprintf(&b, "%s: %s → %s %s\n", shortLabel(r.st, v), num(res.Start.Values[i]), num(res.Best.Values[i]), v.Unit())
+		fmt.Fprintf(&b, "%s: %s → %s %s\n", v.Words(r.st), num(res.Start.Values[i]), num(res.Best.Values[i]), v.Unit())
 	}
 	for q := range engine.NumQuantities {
 		a, z := q.Value(&res.Start, r.forces), q.Value(&res.Best, r.forces)
@@ -473,7 +470,7 @@ func (p *setupSearch) comparison() string {
 func settingWords(r *searchRun, values []float64) string {
 	var parts []string
 	for i, v := range r.vars {
-		parts = append(parts, fmt.Sprintf("%s %s %s", shortLabel(r.st, v), num(values[i]), v.Unit()))
+		parts = append(parts, v.Setting(r.st, values[i]))
 	}
 	return strings.Join(parts, ", ")
 }
@@ -533,7 +530,7 @@ func (p *setupSearch) applyBest() {
 func appliedNote(r *searchRun, st *model.Study) string {
 	var set []string
 	for i, v := range r.vars {
-		set = append(set, shortLabel(r.st, v)+" "+num(r.res.Best.Values[i])+" "+v.Unit())
+		set = append(set, v.Setting(r.st, r.res.Best.Values[i]))
 	}
 	note := "Applied " + strings.Join(set, ", ") + " (Edit ▸ Undo takes it back)."
 	pinned := false
@@ -568,7 +565,7 @@ func (p *setupSearch) pinStart() {
 		// workbench's label.
 		var set []string
 		for i, v := range r.vars {
-			set = append(set, shortLabel(r.st, v)+" "+num(r.res.Start.Values[i])+" "+v.Unit())
+			set = append(set, v.Setting(r.st, r.res.Start.Values[i]))
 		}
 		if e := ctl.RenamePin(n, searchStartPin+strings.Join(set, ", ")); e != nil {
 			err = fmt.Errorf("pinned, with the workbench's name (%v)", e)

@@ -7,7 +7,6 @@ import (
 	"fmt"
 	"io"
 	"path/filepath"
-	"strconv"
 	"strings"
 
 	"sectionbench/export"
@@ -164,7 +163,7 @@ func writeApplied(path string, st *model.Study, vars []model.SetupVariable, res 
 		var set []string
 		for i, v := range vars {
 			// As the app names the pin: "flap deflection 15 °".
-			set = append(set, v.Words(st)+" "+model.Minus(strconv.FormatFloat(res.Start.Values[i], 'g', 4, 64))+" "+v.Unit())
+			set = append(set, v.Setting(st, res.Start.Values[i]))
 		}
 		next.Pins = append(next.Pins, engine.PinOf("search start, "+strings.Join(set, ", "), r, r.Sweep))
 	}
