@@ -24,7 +24,7 @@ import (
 //
 // Checked: every row converges; the upper separation, once there, moves
 // forward at every step; up to the maximum the lift's rise per degree
-// never grows by more than liftKink (a tenth of the attached lift slope,
+// never grows by more than stallLiftKink (a tenth of the attached lift slope,
 // 0.096 per degree at 4°–5°: the separation's advance station by station
 // makes the steps uneven by a few thousandths, 0.0023 at 12°–13°; the
 // hops were 0.032 and more); the maximum is a peak inside the sweep, with
@@ -39,26 +39,10 @@ import (
 // against 1.52291), the sweep's reached with the other strategy
 // (following the stagnation point), so 15° is not checked here.
 func TestEngineCoupledCamberedStall(t *testing.T) {
-	if testing.Short() {
-		t.Skip("long coupled sweep: run without -short (the race pass uses -short)")
-	}
-	const (
-		spec     = "kt:-0.1,0.1,10"
-		liftKink = 0.0096
-	)
-	sec, _, err := model.SectionFromSpec(spec, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	st := model.NewStudy()
-	st.Elements = []model.StudyElement{{Name: "section", Section: model.SectionSource{Spec: spec}, ChordMM: 1000}}
-	st.Flow.Reynolds = 1e6
-	st.Viscous = model.Viscous{Enabled: true, Mode: model.ViscousCoupled}
-	st.Sweep = model.SweepRange{FromDeg: 0, ToDeg: 18, StepDeg: 1}
-	secs := []*model.Section{sec}
+	st, secs := stallStudy(t, 1000, 1e6)
 	res := run(t, NewEngine(), st, secs, true)
 	rows := res.SweepCoupled
-	checkTrailingEdgeStall(t, res, liftKink, 1, "upper separation", func(r CoupledPoint) float64 { return r.Elements[0].SeparationUpper })
+	checkTrailingEdgeStall(t, res, 1, "upper separation", func(r CoupledPoint) float64 { return r.Elements[0].SeparationUpper })
 	for _, a := range []int{12, 16} {
 		st.Flow.AlphaDeg = float64(a)
 		single := run(t, NewEngine(), st, secs, false).Coupled
@@ -68,15 +52,46 @@ func TestEngineCoupledCamberedStall(t *testing.T) {
 	}
 }
 
+// stallSpec is the section of the trailing-edge stall tests: a strongly
+// cambered Kármán–Trefftz section, the race-car team's kind.
+const stallSpec = "kt:-0.1,0.1,10"
+
+// stallLiftKink bounds how much the lift's rise per degree may grow from
+// one step to the next on the way to a trailing-edge stall: a tenth of
+// the free-air attached slope of stallSpec (0.096 per degree at 4°–5°,
+// TestEngineCoupledCamberedStall); hops between roots grew it by 0.032
+// and more.
+const stallLiftKink = 0.0096
+
+// stallStudy returns stallSpec on a chord of chordMM at Reynolds number
+// re, free transition, the coupled viscous solution, swept from 0° to
+// 18° in 1° steps (skipped under -short: a long coupled sweep).
+func stallStudy(t *testing.T, chordMM, re float64) (*model.Study, []*model.Section) {
+	t.Helper()
+	if testing.Short() {
+		t.Skip("long coupled sweep: run without -short (the race pass uses -short)")
+	}
+	sec, _, err := model.SectionFromSpec(stallSpec, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	st := model.NewStudy()
+	st.Elements = []model.StudyElement{{Name: "section", Section: model.SectionSource{Spec: stallSpec}, ChordMM: chordMM}}
+	st.Flow.Reynolds = re
+	st.Viscous = model.Viscous{Enabled: true, Mode: model.ViscousCoupled}
+	st.Sweep = model.SweepRange{FromDeg: 0, ToDeg: 18, StepDeg: 1}
+	return st, []*model.Section{sec}
+}
+
 // checkTrailingEdgeStall checks a sweep through a trailing-edge stall, as
 // TestEngineCoupledCamberedStall and TestEngineCoupledGroundStall state it:
 // every row converges; the suction side's separation (suction), once there,
 // moves forward at every step; up to the maximum the lift's rise per degree
 // in the sense of sense (1 for lift, −1 for downforce) never grows by more
-// than liftKink; and the maximum is a peak inside the sweep with separation
+// than stallLiftKink; and the maximum is a peak inside the sweep with separation
 // ahead of x/c 0.7. The sweep runs from 0° in 1° steps (the maximum's row
 // is its angle). side names the separation in the messages.
-func checkTrailingEdgeStall(t *testing.T, res *Result, liftKink, sense float64, side string, suction func(CoupledPoint) float64) {
+func checkTrailingEdgeStall(t *testing.T, res *Result, sense float64, side string, suction func(CoupledPoint) float64) {
 	t.Helper()
 	quantity := "Cl"
 	if sense < 0 {
@@ -97,7 +112,7 @@ func checkTrailingEdgeStall(t *testing.T, res *Result, liftKink, sense float64, 
 			t.Errorf("α %g° → %g°: %s x/c %.3f → %.3f, want it further forward", p.AlphaDeg, r.AlphaDeg, side, ps, rs)
 		}
 		if i > 1 && rows[i-2].Converged && r.AlphaDeg <= res.AlphaClMax {
-			if rise, before := sense*(r.Cl-p.Cl), sense*(p.Cl-rows[i-2].Cl); rise > before+liftKink {
+			if rise, before := sense*(r.Cl-p.Cl), sense*(p.Cl-rows[i-2].Cl); rise > before+stallLiftKink {
 				t.Errorf("α %g° → %g°: %s rises %.4f after %.4f: a jump to another root", p.AlphaDeg, r.AlphaDeg, quantity, rise, before)
 			}
 		}
