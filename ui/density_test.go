@@ -373,7 +373,12 @@ func TestDensityViscousColumns(t *testing.T) {
 			}
 		}
 	}
-	if d.out.res.Series[0].RecommendedPanels > 0 && !strings.Contains(d.recommendWhy.Text, "panel method's (inviscid) Cl and min Cp only") {
+	// 40, 80 and 160 panels recommend one (the demo's Cl settles), so
+	// the words are there to check.
+	if d.out.res.Series[0].RecommendedPanels == 0 {
+		t.Fatalf("no count recommended: %q", d.recommendWhy.Text)
+	}
+	if !strings.Contains(d.recommendWhy.Text, "panel method's (inviscid) Cl and min Cp only") {
 		t.Errorf("recommendation %q does not say it judges the panel method only", d.recommendWhy.Text)
 	}
 }
