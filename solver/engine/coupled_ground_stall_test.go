@@ -24,7 +24,7 @@ import (
 // coupled solution has nearly at rest), so the polar had no maximum: its
 // largest downforce was the last converged row's (Cl −1.5886 at 12°, not
 // a peak). After: every row converges, the separation moves forward at
-// every step from x/c 0.91 at 8° to 0.39 at 18°, and the downforce peaks
+// every step from x/c 0.95 at 7°, where it appears, to 0.39 at 18°, and the downforce peaks
 // at 15° (Cl −1.6115, separated from x/c 0.53).
 //
 // Checked: every row converges; the suction side's separation (the lower
