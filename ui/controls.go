@@ -697,6 +697,11 @@ func (c *controls) sync(st *model.Study) {
 	if t := groundCaution(st); c.groundNote.Text != t {
 		c.groundNote.SetText(t)
 	}
+	if st.Ground.Enabled {
+		c.groundNote.Show()
+	} else {
+		c.groundNote.Hide() // a caution about the ground, with no ground
+	}
 	setIfDiffers(c.clearance, entryNum(st.Ground.ClearanceMM), numberIs(st.Ground.ClearanceMM))
 	step := num(st.Sweep.StepDeg) + "°"
 	c.alphaDown.SetText("−" + step)

@@ -202,3 +202,22 @@ func TestGroundCautionFollowsMode(t *testing.T) {
 		t.Errorf("estimate: %q", note.Text)
 	}
 }
+
+// TestGroundCautionOnlyWithGround: the caution under the ground control
+// is about the ground, so it shows only while the ground is on; it showed
+// with the ground off too.
+func TestGroundCautionOnlyWithGround(t *testing.T) {
+	w := openRearWing(t)
+	note := w.controls.groundNote
+	if !w.ctl.Current().Ground.Enabled || note.Hidden {
+		t.Fatalf("the rear wing opens with the ground on (%v) and its caution shown (hidden %v)", w.ctl.Current().Ground.Enabled, note.Hidden)
+	}
+	test.Tap(w.controls.ground)
+	if w.ctl.Current().Ground.Enabled || !note.Hidden {
+		t.Errorf("ground off: ground %v, caution hidden %v; want off and hidden", w.ctl.Current().Ground.Enabled, note.Hidden)
+	}
+	test.Tap(w.controls.ground)
+	if !w.ctl.Current().Ground.Enabled || note.Hidden {
+		t.Errorf("ground on again: ground %v, caution hidden %v; want on and shown", w.ctl.Current().Ground.Enabled, note.Hidden)
+	}
+}
