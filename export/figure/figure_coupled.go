@@ -128,16 +128,7 @@ func coupledRows(sc *Scene) (valid, past plotter.XYs, cm []plotter.XY, failed []
 // separates ahead of engine.SeparatedFromXC (CoupledPoint.Facts), at their
 // viscous Cl.
 func separatedRows(sc *Scene) plotter.XYs {
-	if len(sc.SweepCoupled) != len(sc.Sweep) {
-		return nil
-	}
-	var out plotter.XYs
-	for i := range sc.SweepCoupled {
-		if r := &sc.SweepCoupled[i]; r.Converged && r.Facts().Separated {
-			out = append(out, plotter.XY{X: r.AlphaDeg, Y: r.Cl})
-		}
-	}
-	return out
+	return convergedRowsWhere(sc, func(r *engine.CoupledPoint) bool { return r.Facts().Separated })
 }
 
 // heldRows returns the converged coupled rows whose transition is held
@@ -146,12 +137,19 @@ func separatedRows(sc *Scene) plotter.XYs {
 // answer of a wing tripped at that station (the sweep table's
 // "transition held upstream" flag). The polar drew them as ordinary rows.
 func heldRows(sc *Scene) plotter.XYs {
+	return convergedRowsWhere(sc, (*engine.CoupledPoint).Held)
+}
+
+// convergedRowsWhere returns the converged rows of the coupled sweep for
+// which keep holds, at their viscous Cl (none when the coupled sweep is
+// not the sweep's).
+func convergedRowsWhere(sc *Scene, keep func(*engine.CoupledPoint) bool) plotter.XYs {
 	if len(sc.SweepCoupled) != len(sc.Sweep) {
 		return nil
 	}
 	var out plotter.XYs
 	for i := range sc.SweepCoupled {
-		if r := &sc.SweepCoupled[i]; r.Converged && r.Held() {
+		if r := &sc.SweepCoupled[i]; r.Converged && keep(r) {
 			out = append(out, plotter.XY{X: r.AlphaDeg, Y: r.Cl})
 		}
 	}

@@ -76,11 +76,7 @@ func TestPolarKeyAboveInAppView(t *testing.T) {
 // rows are not. The polar marked rows past maximum lift and rows that did
 // not converge, but not separated ones, which the report's table marked.
 func TestPolarMarksSeparatedRows(t *testing.T) {
-	sc := synthCoupledScene()
-	nan := math.NaN()
-	for i := range sc.SweepCoupled {
-		sc.SweepCoupled[i].Elements = []engine.CoupledElementPoint{{Cl: 1, SeparationUpper: nan, SeparationLower: nan}}
-	}
+	sc := attachedCoupledScene()
 	const at = 5
 	sc.SweepCoupled[at].Elements[0].SeparationUpper = 0.7
 	sep := separatedRows(sc)
@@ -221,11 +217,7 @@ func TestPinsSayInviscid(t *testing.T) {
 // with its key entry; the two-element example with free transition drew
 // its rows at 3°, 4°, 6° and 10° as ordinary ones.
 func TestPolarMarksHeldRows(t *testing.T) {
-	sc := synthCoupledScene()
-	nan := math.NaN()
-	for i := range sc.SweepCoupled {
-		sc.SweepCoupled[i].Elements = []engine.CoupledElementPoint{{Cl: 1, SeparationUpper: nan, SeparationLower: nan}}
-	}
+	sc := attachedCoupledScene()
 	const at = 4
 	sc.SweepCoupled[at].Elements[0].HeldLower = true
 	held := heldRows(sc)
@@ -253,4 +245,16 @@ func keyEntryWith(t *testing.T, v View, sc *Scene, prefix string) string {
 		}
 	}
 	return ""
+}
+
+// attachedCoupledScene is synthCoupledScene with one element per row,
+// attached on both surfaces and without held transition, for a test to
+// mark one row.
+func attachedCoupledScene() *Scene {
+	sc := synthCoupledScene()
+	nan := math.NaN()
+	for i := range sc.SweepCoupled {
+		sc.SweepCoupled[i].Elements = []engine.CoupledElementPoint{{Cl: 1, SeparationUpper: nan, SeparationLower: nan}}
+	}
+	return sc
 }
