@@ -41,11 +41,7 @@ func HeldWords(panels []int) string {
 	for i, n := range panels {
 		counts[i] = strconv.Itoa(n)
 	}
-	list := counts[0]
-	if n := len(counts); n > 1 {
-		list = strings.Join(counts[:n-1], ", ") + " and " + counts[n-1]
-	}
-	return fmt.Sprintf("At %s panels the viscous solution holds transition upstream of its e^N position (marked held): the answer there is that of a trip, not the free transition of the other counts.", list)
+	return fmt.Sprintf("At %s panels the viscous solution holds transition upstream of its e^N position (marked held): the answer there is that of a trip, not the free transition of the other counts.", joinWords(counts))
 }
 
 // ViscousDensity returns the viscous answer of st (boundary layer on)
