@@ -264,6 +264,8 @@ func (d *densityWindow) tableCell(id widget.TableCellID, o fyne.CanvasObject) {
 	rec := r.Nose == ser.Nose && r.Panels == ser.RecommendedPanels
 	l.TextStyle = fyne.TextStyle{Bold: rec}
 	var s string
+	// The viscous Cl and Cd follow the panel method's columns (columns).
+	clViscous, cdViscous := len(densityColumns), len(densityColumns)+1
 	switch {
 	case id.Col == 0:
 		s = strconv.Itoa(r.Panels)
@@ -285,11 +287,11 @@ func (d *densityWindow) tableCell(id widget.TableCellID, o fyne.CanvasObject) {
 		s = fixed(r.CpMin, 3)
 	case id.Col == 6:
 		s = signed(r.DCpMin, 4)
-	case id.Col == 7 && math.IsNaN(r.ViscousCl), id.Col == 8 && math.IsNaN(r.ViscousCd):
+	case id.Col == clViscous && math.IsNaN(r.ViscousCl), id.Col == cdViscous && math.IsNaN(r.ViscousCd):
 		s = "no answer" // did not converge at this count
-	case id.Col == 7:
+	case id.Col == clViscous:
 		s = fixed(r.ViscousCl, 4) + heldMark(&r)
-	case id.Col == 8:
+	case id.Col == cdViscous:
 		s = fixed(r.ViscousCd, 5) + heldMark(&r)
 	}
 	l.SetText(s)
