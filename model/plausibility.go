@@ -45,6 +45,32 @@ const CpMinPlausible = -8
 // potential flow shows only the rise.
 const GroundHOverCMin = 0.1
 
+// groundCaution is the one sentence every place gives about a clearance
+// below GroundHOverCMin: the app's caution under the ground control, the
+// flag of a result, a map's key and readout, the command line's and the
+// report's notes (GroundCaution). It holds for every viscous mode: potential flow
+// and the one-way estimate show only the rise; the coupled solution can
+// show the fall, but in 2-D over a ground without a boundary layer (a
+// fixed ground, no moving-belt floor), so its peak is no guide.
+var groundCaution = fmt.Sprintf("real wings lose downforce below about %g chords of ground clearance as the suction side separates (Zerihan & Zhang 2000); potential flow shows only the rise, and the coupled viscous solution shows the fall only in 2-D over a ground without a boundary layer: do not rely on where it peaks", GroundHOverCMin)
+
+// GroundCaution returns the near-ground caution as a clause, lower case
+// and without a full stop, for a message that leads into it ("…: " +
+// GroundCaution()). Capitalised as a sentence of its own:
+// GroundCautionSentence.
+func GroundCaution() string { return groundCaution }
+
+// GroundCautionSentence returns GroundCaution as a sentence of its own.
+func GroundCautionSentence() string {
+	return strings.ToUpper(groundCaution[:1]) + groundCaution[1:] + "."
+}
+
+// GroundFlag is the flag of a result at a clearance of hOverC chords
+// below GroundHOverCMin (Plausibility raises it; a map's point too).
+func GroundFlag(hOverC float64) Flag {
+	return Flag{FlagGround, fmt.Sprintf("ground clearance %.2f chords; %s", hOverC, groundCaution)}
+}
+
 // ReynoldsMinChecked and ReynoldsMaxChecked bound the chord Reynolds
 // numbers at which the viscous solution's boundary layers are taken on
 // trust. The project's own validation spans 2e5 (E387, Illinois) to 6e6
@@ -117,7 +143,7 @@ func Plausibility(f PointFacts) []Flag {
 		flags = append(flags, Flag{FlagSuction, fmt.Sprintf("suction peak Cp %s is beyond the about %s real flows sustain at these Reynolds numbers: the wing would separate and give far less force than shown", Minus(fmt.Sprintf("%.1f", f.CpMin)), Minus(fmt.Sprint(CpMinPlausible)))})
 	}
 	if !math.IsNaN(f.HOverC) && f.HOverC < GroundHOverCMin {
-		flags = append(flags, Flag{FlagGround, fmt.Sprintf("ground clearance %.2f chords is below about %.1f, where real wings lose downforce as the suction side separates; this model shows only the rise", f.HOverC, GroundHOverCMin)})
+		flags = append(flags, GroundFlag(f.HOverC))
 	}
 	return flags
 }

@@ -87,3 +87,26 @@ func TestPlausibilityReynolds(t *testing.T) {
 		})
 	}
 }
+
+// TestGroundFlagSaysTheOneCaution: the flag of a result too near the
+// ground gives the model's one near-ground caution (GroundCaution), which
+// the app, the maps, the command line and the report give too; the five
+// places worded it five ways, two of them wrong for the coupled viscous
+// solution ("this model shows only the rise"), which shows the fall in 2-D.
+func TestGroundFlagSaysTheOneCaution(t *testing.T) {
+	fl := Plausibility(PointFacts{CpMin: -2, HOverC: 0.08})
+	if len(fl) != 1 || fl[0].Kind != FlagGround {
+		t.Fatalf("flags %+v, want the ground's", fl)
+	}
+	if !strings.Contains(fl[0].Message, "0.08 chords") || !strings.HasSuffix(fl[0].Message, GroundCaution()) {
+		t.Errorf("message %q does not give the clearance and the caution %q", fl[0].Message, GroundCaution())
+	}
+	for _, words := range []string{"0.1 chords", "Zerihan & Zhang", "potential flow shows only the rise", "coupled viscous solution"} {
+		if !strings.Contains(GroundCaution(), words) {
+			t.Errorf("caution %q does not say %q", GroundCaution(), words)
+		}
+	}
+	if s := GroundCautionSentence(); !strings.HasPrefix(s, "Real wings") || !strings.HasSuffix(s, "peaks.") {
+		t.Errorf("sentence %q", s)
+	}
+}

@@ -21,19 +21,11 @@ const (
 	unitMPS = "m/s"
 )
 
-// groundCaution is shown under the ground control: the image method and
-// the one-way estimate cannot show the loss of downforce very close to the
-// ground; the coupled viscous solution shows it in 2-D only, over a ground
-// without a boundary layer (README, Limitations), so that its peak is not
-// to be relied on. It said the first for the coupled solution too.
-func groundCaution(st *model.Study) string {
-	const measured = "real wings lose downforce below about h/c = 0.1 (Zerihan & Zhang 2000)."
-	if st != nil && st.Viscous.Enabled && st.Viscous.IsCoupled() {
-		return "The viscous solution shows downforce falling close to the ground only in 2-D, over a ground without a boundary layer; " +
-			measured + " Do not rely on where it peaks."
-	}
-	return "Potential flow shows only the rise of downforce near the ground; " + measured
-}
+// groundCaution is shown under the ground control: the model's one
+// near-ground caution (model.GroundCautionSentence), which says what each
+// viscous mode shows there, as the flags, the maps, the command line and
+// the report say it.
+func groundCaution(*model.Study) string { return model.GroundCautionSentence() }
 
 // flowControls are speed, air, span and Reynolds number, with the values
 // derived from them.

@@ -160,7 +160,7 @@ func TestGroundCautionShown(t *testing.T) {
 	found := false
 	for _, it := range w.controls.tabs.Items {
 		if it.Text == "Wing" {
-			found = strings.Contains(dumpText(it.Content), "real wings lose downforce below about h/c = 0.1 (Zerihan & Zhang 2000)")
+			found = strings.Contains(dumpText(it.Content), model.GroundCautionSentence())
 		}
 	}
 	if !found {
@@ -183,23 +183,22 @@ func TestResultsToggle(t *testing.T) {
 	}
 }
 
-// TestGroundCautionFollowsMode: the caution under the ground control says
-// that potential flow shows only the rise of downforce near the ground;
-// with the coupled viscous solution, which shows the fall in 2-D, it says
-// that instead, and not to rely on the peak. It kept the first.
-func TestGroundCautionFollowsMode(t *testing.T) {
+// TestGroundCautionIsTheModels: the caution under the ground control is
+// the model's one near-ground caution (model.GroundCautionSentence) in
+// every viscous mode, worded as the flags, the maps, the command line and
+// the report word it; it said it a fifth way, by mode.
+func TestGroundCautionIsTheModels(t *testing.T) {
 	w := openRearWing(t) // inviscid
 	note := w.controls.groundNote
-	if !strings.HasPrefix(note.Text, "Potential flow shows only the rise") {
-		t.Errorf("inviscid: %q", note.Text)
+	want := model.GroundCautionSentence()
+	if note.Text != want {
+		t.Errorf("inviscid: %q, want %q", note.Text, want)
 	}
-	w.controls.vc.mode.SetSelected(modeCoupled)
-	if !strings.Contains(note.Text, "falling close to the ground only in 2-D") || !strings.Contains(note.Text, "Do not rely on where it peaks") {
-		t.Errorf("coupled: %q", note.Text)
-	}
-	w.controls.vc.mode.SetSelected(modeEstimate)
-	if !strings.HasPrefix(note.Text, "Potential flow shows only the rise") {
-		t.Errorf("estimate: %q", note.Text)
+	for _, mode := range []string{modeCoupled, modeEstimate} {
+		w.controls.vc.mode.SetSelected(mode)
+		if note.Text != want {
+			t.Errorf("%s: %q, want %q", mode, note.Text, want)
+		}
 	}
 }
 

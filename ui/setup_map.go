@@ -145,7 +145,8 @@ func (r *mapRun) describe(k int) string {
 		notes = append(notes, "suction side separated ahead of x/c "+num(r.limit))
 	}
 	if p := &r.points[k]; r.arrived[k] && p.NearGround(r.st) {
-		notes = append(notes, fmt.Sprintf("very close to the ground (h/c %.2f, below %g): real wings lose downforce here, this model shows only the rise", p.ClearanceMM/r.st.GroundChordMM(), model.GroundHOverCMin))
+		f := model.GroundFlag(p.ClearanceMM / r.st.GroundChordMM())
+		notes = append(notes, string(f.Kind)+" ("+f.Message+")")
 	}
 	note := strings.Join(notes, ", ")
 	return describePoint(r.st, r.vars, &r.points[k], r.forces, note)

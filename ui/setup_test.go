@@ -14,6 +14,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"sectionbench/assets"
+	"sectionbench/model"
 	"sectionbench/solver/engine"
 )
 
@@ -476,7 +477,7 @@ func TestSetupMapNearGround(t *testing.T) {
 	if !near[20] || near[30] || near[40] {
 		t.Errorf("marked too near the ground: %v, want 20 mm only", near)
 	}
-	if d := r.describe(r.nearest(20, 0)); !strings.Contains(d, "very close to the ground (h/c 0.08") {
+	if d := r.describe(r.nearest(20, 0)); !strings.Contains(d, "very close to the ground ("+model.GroundFlag(0.08).Message) {
 		t.Errorf("readout at 20 mm %q does not say it is very close to the ground", d)
 	}
 	if d := r.describe(r.nearest(40, 0)); strings.Contains(d, "close to the ground") {

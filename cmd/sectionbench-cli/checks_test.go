@@ -6,6 +6,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"sectionbench/model"
 )
 
 // TestLiftDisagreementReachesTheOutput: an under-resolved solution (16
@@ -98,7 +100,7 @@ func TestGroundBandFlagged(t *testing.T) {
 		if err := json.Unmarshal([]byte(out), &r); err != nil {
 			t.Fatal(err)
 		}
-		if got := strings.Contains(strings.Join(r.Warnings, "\n"), "lose downforce"); got != tc.warned {
+		if got := strings.Contains(strings.Join(r.Warnings, "\n"), model.GroundCaution()); got != tc.warned {
 			t.Errorf("%s mm: flagged %v, want %v (%q)", tc.h, got, tc.warned, r.Warnings)
 		}
 	}

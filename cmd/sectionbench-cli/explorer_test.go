@@ -472,7 +472,7 @@ func TestMapNearGroundFlags(t *testing.T) {
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, stderr)
 	}
-	if !strings.Contains(out, "very close to the ground: below 25 mm") {
+	if !strings.Contains(out, "very close to the ground: below 25 mm (0.1 of the main element's 250 mm chord): "+model.GroundCaution()) {
 		t.Errorf("text map does not say what the flag means:\n%s", out)
 	}
 }

@@ -440,8 +440,8 @@ func mapText(w io.Writer, title bool, st *model.Study, vars []model.SetupVariabl
 		return err
 	}
 	if near {
-		fmt.Fprintf(w, "%s: below %g mm (%g of the main element's %g mm chord) real wings lose downforce as the suction side separates; this model shows only the rise\n",
-			model.FlagGround, st.NearGroundMM(), model.GroundHOverCMin, st.GroundChordMM())
+		fmt.Fprintf(w, "%s: below %g mm (%g of the main element's %g mm chord): %s\n",
+			model.FlagGround, st.NearGroundMM(), model.GroundHOverCMin, st.GroundChordMM(), model.GroundCaution())
 	}
 	other, none, compared := 0, 0, false
 	for i := range points {

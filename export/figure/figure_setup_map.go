@@ -83,6 +83,6 @@ func MapCurve(st *model.Study, v model.SetupVariable, points []engine.Point, q e
 // main element's chord, where the workbench flags "very close to the
 // ground".
 func NearGroundWords(st *model.Study) string {
-	return fmt.Sprintf("points closer to the ground than %s mm (%g of the main element's chord) are marked with a triangle: real wings lose downforce there as the suction side separates, and this model shows only the rise",
-		strconv.FormatFloat(st.NearGroundMM(), 'g', 4, 64), model.GroundHOverCMin)
+	return fmt.Sprintf("points closer to the ground than %s mm (%g of the main element's chord) are marked with a triangle: %s",
+		strconv.FormatFloat(st.NearGroundMM(), 'g', 4, 64), model.GroundHOverCMin, model.GroundCaution())
 }

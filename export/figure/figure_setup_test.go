@@ -270,7 +270,7 @@ func TestMapCurveNearGround(t *testing.T) {
 	if want := []bool{false, true, true, false, false, false}; !slices.Equal(c.NearGround, want) {
 		t.Errorf("near the ground %v, want %v (20 and 24.9 mm: below 25 mm; 10 mm has no answer)", c.NearGround, want)
 	}
-	if !strings.Contains(c.NearGroundLabel, "25 mm") || !strings.Contains(c.NearGroundLabel, "lose downforce") {
+	if !strings.Contains(c.NearGroundLabel, "25 mm") || !strings.HasSuffix(c.NearGroundLabel, model.GroundCaution()) {
 		t.Errorf("caption words %q do not give the 25 mm and what it means", c.NearGroundLabel)
 	}
 	p, err := SetupCurvePlot(c, false)

@@ -106,3 +106,13 @@ func TestReportFlagsReynolds(t *testing.T) {
 		})
 	}
 }
+
+// TestGroundWordsAreTheModels: the report's footnote for a row too near
+// the ground gives the model's one near-ground caution
+// (model.GroundCaution), as the app, the maps and the command line do; it
+// said "potential flow shows only the rise" also of the coupled solution.
+func TestGroundWordsAreTheModels(t *testing.T) {
+	if m := flagMeaning[model.FlagGround]; !strings.Contains(m, model.GroundCaution()) {
+		t.Errorf("footnote %q does not give %q", m, model.GroundCaution())
+	}
+}

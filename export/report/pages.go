@@ -252,7 +252,7 @@ func (r *writer) resultsSection() {
 		notes = append(notes, caveatCirculation)
 	}
 	if st.Ground.Enabled {
-		notes = append(notes, caveatGround)
+		notes = append(notes, model.GroundCautionSentence())
 	}
 	if len(notes) > 0 {
 		r.box("Notes on these results", strings.Join(notes, "\n"), [3]int{243, 244, 246})
@@ -500,7 +500,7 @@ var flagMeaning = map[model.FlagKind]string{
 	model.FlagPastClMax:    "beyond the angle of maximum lift; the real wing gives less, not more.",
 	model.FlagNotConverged: "the viscous solution did not converge; the row is no answer.",
 	model.FlagSuction:      fmt.Sprintf("suction peak below Cp %d, beyond what real flows sustain at these Reynolds numbers; the wing would separate.", model.CpMinPlausible),
-	model.FlagGround:       fmt.Sprintf("closer to the ground than %.1f chords, where real wings lose downforce; potential flow shows only the rise.", model.GroundHOverCMin),
+	model.FlagGround:       fmt.Sprintf("closer to the ground than %g chords: %s.", model.GroundHOverCMin, model.GroundCaution()),
 	flagBLSeparates:        "the boundary-layer estimate separates before the trailing edge: near or past stall, drag not given.",
 }
 

@@ -90,7 +90,6 @@ const (
 	monoFamily        = "mono"
 	cautionText       = "These are two-dimensional estimates: a panel method for the flow, with boundary layers and wakes coupled to it (or a one-way boundary-layer estimate) where shown. They do not include three-dimensional effects (finite span, end plates, wheels and body), leading-edge stall, large separated regions, unsteady flow or a moving ground; the viscous lift runs above wind-tunnel data, by up to 0.13 in Cl (4–32 %, the most at small lift and on sections with laminar bubbles). Validate by test before relying on them. Structural design, mounting and the wing's attachment to the car follow the competition's rules and qualified engineering review."
 	caveatCirculation = "With the ground or other elements present, the circulation lift of an element is its vortex force: its vortex sheet in the velocity induced by the other elements and the ground's images (Lagally's theorem), not 2Γ/(Uc) alone. It and the lift from surface pressure agree to the discretisation error."
-	caveatGround      = "Potential flow shows downforce rising as the wing nears the ground; real wings lose downforce close to the ground once the suction side separates."
 )
 
 // Write writes the report of in as a PDF to w. It returns an error
