@@ -15,6 +15,7 @@ import (
 
 	"sectionbench/export"
 	figures "sectionbench/export/figure"
+	"sectionbench/export/format"
 	"sectionbench/model"
 	"sectionbench/solver/engine"
 )
@@ -144,9 +145,13 @@ func (r *mapRun) describe(k int) string {
 	if r.separated(k) {
 		notes = append(notes, "suction side separated ahead of x/c "+num(r.limit))
 	}
-	if p := &r.points[k]; r.arrived[k] && p.NearGround(r.st) {
-		f := model.GroundFlag(p.ClearanceMM / r.st.GroundChordMM())
-		notes = append(notes, string(f.Kind)+" ("+f.Message+")")
+	if r.arrived[k] {
+		// As `solve` and a sweep's rows flag it: the ground, a suction
+		// peak beyond real flows, transition held upstream (it gave the
+		// ground's alone).
+		for _, f := range format.MapFlags(r.st, &r.points[k]) {
+			notes = append(notes, string(f.Kind)+" ("+f.Message+")")
+		}
 	}
 	note := strings.Join(notes, ", ")
 	return describePoint(r.st, r.vars, &r.points[k], r.forces, note)

@@ -483,6 +483,11 @@ func TestSetupMapNearGround(t *testing.T) {
 	if d := r.describe(r.nearest(40, 0)); strings.Contains(d, "close to the ground") {
 		t.Errorf("readout at 40 mm %q says it is close to the ground", d)
 	}
+	// The panel method's suction peak there (Cp below −8) is flagged as
+	// solve and the main window flag it; the readout said nothing of it.
+	if d := r.describe(r.nearest(40, 0)); !strings.Contains(d, string(model.FlagSuction)+" (suction peak Cp −") {
+		t.Errorf("readout at 40 mm %q does not flag the suction peak", d)
+	}
 }
 
 // TestSetupSearchNearGround: a downforce search over the ride height

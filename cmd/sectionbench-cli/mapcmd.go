@@ -7,6 +7,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"slices"
 	"strings"
 	"text/tabwriter"
 
@@ -79,7 +80,8 @@ type jsonMapKeys struct {
 	Elements        []jsonMapElement `json:"elements"`
 	// Flags say, in words, why the point is not to be taken at face
 	// value beyond its other keys (format.MapFlags: "very close to the
-	// ground"); empty when none.
+	// ground", "transition held upstream", "suction beyond real flows"),
+	// as a sweep's rows say them; empty when none.
 	Flags []string `json:"flags"`
 	Error string   `json:"error,omitempty"`
 }
@@ -413,7 +415,8 @@ func mapText(w io.Writer, title bool, st *model.Study, vars []model.SetupVariabl
 		}
 		flags := "none"
 		if f := format.MapFlags(st, &p); len(f) > 0 {
-			flags, near = model.FlagWords(f), true
+			flags = model.FlagWords(f)
+			near = near || slices.ContainsFunc(f, func(f model.Flag) bool { return f.Kind == model.FlagGround })
 		}
 		line += flags + "\t"
 		state := "converged"

@@ -25,7 +25,8 @@ import (
 // per element K, elements[K].separation_suction_xc (empty: attached, or
 // not converged) and, behind the main element, elements[K].gap_mm; then
 // flags (MapFlags in words, as a sweep's rows give them: "very close to
-// the ground", or none) and error (why a point could not be solved).
+// the ground", "transition held upstream", "suction beyond real flows",
+// or none) and error (why a point could not be solved).
 // Coefficients are empty where the point did not converge.
 func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupVariable, points []engine.Point) error {
 	m.AlphaDeg = NoAngle
@@ -95,15 +96,38 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 }
 
 // MapFlags returns the flags a map's or a search's point raises that
-// its other columns do not say: a clearance below model.GroundHOverCMin
-// of the main element's chord (model.Study.NearGround), flagged as the
-// workbench flags the study, "very close to the ground". A point without
-// an answer raises none (it has no numbers to doubt).
+// its other columns do not say, as `solve` and a sweep's rows raise them
+// (engine.Point.Flags): a suction peak beyond real flows, transition held
+// upstream, a Reynolds number outside the checked range, and a clearance
+// below model.GroundHOverCMin of the main element's chord
+// (model.Study.NearGround), "very close to the ground". Separation and
+// convergence have columns of their own (the map judges separation
+// against its own x/c). A point without an answer raises none (it has no
+// numbers to doubt). Ground-only before: a point whose suction peak
+// `solve` flagged was "none" on the map.
 func MapFlags(st *model.Study, p *engine.Point) []model.Flag {
-	if !p.NearGround(st) {
+	if !p.Converged || p.Err != "" {
 		return nil
 	}
-	return model.Plausibility(model.PointFacts{HOverC: p.ClearanceMM / st.GroundChordMM()})
+	var flags []model.Flag
+	for _, f := range p.Flags {
+		switch f.Kind {
+		case model.FlagSeparated, model.FlagNotConverged, model.FlagPastClMax:
+		default:
+			flags = append(flags, f)
+		}
+	}
+	return flags
+}
+
+// groundFlag returns the ground's flag among MapFlags(st, p), if any.
+func groundFlag(st *model.Study, p *engine.Point) (model.Flag, bool) {
+	for _, f := range MapFlags(st, p) {
+		if f.Kind == model.FlagGround {
+			return f, true
+		}
+	}
+	return model.Flag{}, false
 }
 
 // NearGroundAdvice says, for a search's best setting p, when it lies too
@@ -112,10 +136,10 @@ func MapFlags(st *model.Study, p *engine.Point) []model.Flag {
 // lowest it may, where real wings lose it; "" otherwise. The app's
 // search and the report's set-up page give it.
 func NearGroundAdvice(st *model.Study, p *engine.Point) string {
-	f := MapFlags(st, p)
-	if len(f) == 0 {
+	f, ok := groundFlag(st, p)
+	if !ok {
 		return ""
 	}
 	return fmt.Sprintf("The best setting is %s: %s. A search for downforce goes there because the model's downforce keeps rising towards the ground; keep the clearance to at least %s mm to search above it.",
-		f[0].Kind, f[0].Message, strconv.FormatFloat(st.NearGroundMM(), 'g', 4, 64))
+		f.Kind, f.Message, strconv.FormatFloat(st.NearGroundMM(), 'g', 4, 64))
 }

@@ -320,10 +320,15 @@ func TestMapTableFlags(t *testing.T) {
 	st.Ground = model.Ground{Enabled: true, ClearanceMM: 100}
 	vars := []model.SetupVariable{{Kind: model.SetupClearance}}
 	el := []engine.PointElement{{SeparationSuction: math.NaN()}}
+	ground := model.GroundFlag(0.08)
+	held := model.Flag{Kind: model.FlagHeld}
+	suction := model.Flag{Kind: model.FlagSuction}
+	separated := model.Flag{Kind: model.FlagSeparated}
 	pts := []engine.Point{
-		{Values: []float64{10}, Converged: false, Inverted: true, ClearanceMM: 10, Elements: el},
-		{Values: []float64{20}, Converged: true, Inverted: true, Cl: -7.5, ClearanceMM: 20, Elements: el},
+		{Values: []float64{10}, Converged: false, Inverted: true, ClearanceMM: 10, Elements: el, Flags: []model.Flag{{Kind: model.FlagNotConverged}, ground}},
+		{Values: []float64{20}, Converged: true, Inverted: true, Cl: -7.5, ClearanceMM: 20, Elements: el, Flags: []model.Flag{ground}},
 		{Values: []float64{25}, Converged: true, Inverted: true, Cl: -6, ClearanceMM: 25, Elements: el},
+		{Values: []float64{30}, Converged: true, Inverted: true, Cl: -5, ClearanceMM: 30, Elements: el, Flags: []model.Flag{separated, held, suction}},
 	}
 	var b bytes.Buffer
 	if err := WriteMapTable(&b, Metadata{Study: "ride height (invented)", AlphaDeg: NoAngle}, st, vars, pts); err != nil {
@@ -339,7 +344,9 @@ func TestMapTableFlags(t *testing.T) {
 	if col < 0 {
 		t.Fatalf("no flags column: %v", rows[0])
 	}
-	for i, want := range []string{"none", string(model.FlagGround), "none"} {
+	// The flags of solve (engine.Point.Flags) but separation, which has
+	// its column: the map gave the ground's alone.
+	for i, want := range []string{"none", string(model.FlagGround), "none", string(model.FlagHeld) + "; " + string(model.FlagSuction)} {
 		if got := rows[i+1][col]; got != want {
 			t.Errorf("%s mm: flags %q, want %q", rows[i+1][0], got, want)
 		}
@@ -348,7 +355,9 @@ func TestMapTableFlags(t *testing.T) {
 	if w := NearGroundAdvice(st, &pts[1]); !strings.Contains(w, "very close to the ground") || !strings.Contains(w, "at least 25 mm") {
 		t.Errorf("advice at 20 mm: %q", w)
 	}
-	if w := NearGroundAdvice(st, &pts[2]); w != "" {
-		t.Errorf("advice at 25 mm: %q", w)
+	for _, k := range []int{2, 3} {
+		if w := NearGroundAdvice(st, &pts[k]); w != "" {
+			t.Errorf("advice at %g mm: %q", pts[k].Values[0], w)
+		}
 	}
 }

@@ -70,6 +70,11 @@ type Point struct {
 	// places the elements into each other, a gap the flap cannot reach, a
 	// study value out of range, a solver failure); empty otherwise.
 	Err string
+	// Flags are the plausibility flags of the point's result as `solve`
+	// and a sweep's rows raise them (Result.Flags: a suction peak beyond
+	// real flows, transition held upstream, the ground, …); nil when the
+	// point could not be solved.
+	Flags []model.Flag
 }
 
 // PointElement is one element's share of a Point.
@@ -455,6 +460,7 @@ func (p *Point) fill(res *Result, st *model.Study, secs []*model.Section) {
 		p.SingleCl, p.SingleCd, p.SingleCm = nan, nan, nan
 	}
 	p.LiftPerSpan, p.DownforcePerSpan, p.DragPerSpan, p.ClearanceMM = nan, nan, nan, nan
+	p.Flags = nil
 	p.Elements = make([]PointElement, len(st.Elements))
 	for i, e := range st.Elements {
 		p.Elements[i] = PointElement{Name: e.Name, Cl: nan, Cd: nan, SeparationUpper: nan, SeparationLower: nan, SeparationSuction: nan, GapMM: nan}
@@ -469,6 +475,7 @@ func (p *Point) fill(res *Result, st *model.Study, secs []*model.Section) {
 		p.Elements[i].GapMM = st.SlotOf(i, secs[i]).GapMM
 	}
 	p.ClInviscid = res.Solution.Cl
+	p.Flags = res.Flags()
 	if c := res.Coupled; c != nil {
 		p.Converged, p.Iterations, p.Residual = c.Converged, c.Iterations, c.Residual
 		p.ClInviscid = c.ClInviscid

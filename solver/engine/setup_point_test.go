@@ -1,7 +1,9 @@
 package engine
 
 import (
+	"context"
 	"math"
+	"slices"
 	"testing"
 
 	"sectionbench/model"
@@ -37,5 +39,51 @@ func TestPointNearGround(t *testing.T) {
 	free.Ground.Enabled = false
 	if p := (Point{Converged: true, ClearanceMM: below}); p.NearGround(&free) {
 		t.Error("marked near the ground in free air")
+	}
+}
+
+// TestPointFlagsAsSolve: a map's point carries the plausibility flags
+// `solve` raises at its setting (Result.Flags), not the ground's alone:
+// the two-element example's inviscid suction peak (Cp about −11.6 at
+// 100 mm, beyond model.CpMinPlausible) was flagged by solve and a sweep's
+// row, and "none" on the map; and a coupled point that converged with
+// transition held upstream carries the held flag, as a sweep's row does.
+func TestPointFlagsAsSolve(t *testing.T) {
+	st, secs := exampleStudy(t, "two-element-ground.json")
+	st.Viscous.Enabled = false
+	ranges := []model.SetupRange{mustRange(t, "clearance_mm=20:100:80")}
+	pts, err := Map(context.Background(), st, secs, ranges, MapOptions{PointOptions: PointOptions{Inviscid: true}}, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range pts {
+		one := st.Clone()
+		one.Ground.ClearanceMM = p.Values[0]
+		want := run(t, NewEngine(), one, secs, false).Flags()
+		if !slices.Equal(p.Flags, want) {
+			t.Errorf("%g mm: map flags %v, solve's %v", p.Values[0], p.Flags, want)
+		}
+		if !slices.ContainsFunc(p.Flags, func(f model.Flag) bool { return f.Kind == model.FlagSuction }) {
+			t.Errorf("%g mm: flags %v lack the suction peak's", p.Values[0], p.Flags)
+		}
+	}
+
+	// A converged coupled answer with transition held on the main
+	// element's lower surface (made up: a coupled map costs minutes).
+	res := run(t, NewEngine(), st, secs, false)
+	nan := math.NaN()
+	res.Coupled = &CoupledPoint{Converged: true, Cl: -3, Cd: 0.02, Elements: []CoupledElementPoint{
+		{Name: "main", Cl: -2, SeparationUpper: nan, SeparationLower: nan, HeldLower: true, CpMin: -5},
+		{Name: "flap", Cl: -1, SeparationUpper: nan, SeparationLower: nan, CpMin: -3},
+	}}
+	var p Point
+	p.fill(res, st, secs)
+	if !slices.ContainsFunc(p.Flags, func(f model.Flag) bool { return f.Kind == model.FlagHeld }) ||
+		slices.ContainsFunc(p.Flags, func(f model.Flag) bool { return f.Kind == model.FlagSuction }) {
+		t.Errorf("held coupled point: flags %v, want the held one and no suction (its own peak is −5)", p.Flags)
+	}
+	p.fill(nil, st, secs)
+	if p.Flags != nil {
+		t.Errorf("a point without a result keeps flags %v", p.Flags)
 	}
 }
