@@ -223,16 +223,18 @@ func solveCoupled(ctx context.Context, sys *solver.System, alphaDeg, fs float64,
 	return coupledPoint(alphaDeg, cs), nil
 }
 
-// coupledAt solves the coupled flow at the study's angle. In free air it
-// starts from the engine's last converged solution when that is near, and
-// when a start from scratch does not converge it walks from the angle
-// nearest zero to alphaDeg, each step warm-started from the one before
-// (the way a polar reaches it). In ground effect the configuration
-// pitches, so every angle is a new system: it starts from the last
-// converged point when that is near (the solver carries the layers over
-// to the pitched system), and from scratch otherwise, without a walk (a
-// map's points, each on a fresh engine, must stay the single solve of
-// their setting or say that they are not).
+// coupledAt solves the coupled flow at the study's angle. It starts from
+// the engine's last converged solution when that is near, and when a
+// start from scratch does not converge it walks from the angle nearest
+// zero to alphaDeg, each step warm-started from the one before (the way a
+// polar reaches it). In ground effect the configuration pitches, so every
+// angle of the walk is a system of its own (groundSystem; the solver
+// carries the layers over to the pitched system). A map's points, each
+// on a fresh engine (runColdFirst), walk as `solve` walks, and so stay
+// the single solve of their setting. Without the walk in ground effect
+// the two-element example with free transition had no answer at 3° from
+// `solve` (2326 iterations, not converged) while its sweep's row, walked
+// from 0°, converged (look9's E2).
 func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs float64, opt solver.CoupledOptions, optKey string) (CoupledPoint, error) {
 	names := e.elementNames()
 	if seed := e.seed; seed != nil {
@@ -249,7 +251,7 @@ func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs
 		warm = e.warm
 	}
 	p, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, warm, names)
-	if err != nil || p.Converged || e.layout.Ground {
+	if err != nil || p.Converged {
 		e.keepWarm(p, optKey)
 		return p, err
 	}
@@ -258,8 +260,18 @@ func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs
 	warm = nil
 	for i := 0; i < steps; i++ {
 		a := alphaDeg * float64(i) / float64(steps)
-		_, _, f := e.layout.At(a)
-		q, err := solveCoupled(ctx, sys, a, f, opt, warm, names)
+		at, f := sys, 0.0
+		if e.layout.Ground {
+			if at, f, err = e.groundSystem(ctx, a); err != nil {
+				if ctx.Err() != nil {
+					return CoupledPoint{}, ctx.Err()
+				}
+				return p, nil // no system there: no walk
+			}
+		} else {
+			_, _, f = e.layout.At(a)
+		}
+		q, err := solveCoupled(ctx, at, a, f, opt, warm, names)
 		if err != nil {
 			return CoupledPoint{}, err
 		}
