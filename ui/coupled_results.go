@@ -60,12 +60,14 @@ func coupledStatusItems(res *engine.Result) []string {
 	}
 	// The forces in newtons come second: on a line too narrow for every
 	// item (a caution first takes a third of it) they are what a team
-	// reads; the coefficients' ratio can go first.
+	// reads. Then the lift-to-drag ratio, which nothing else on screen
+	// gives, before the Cd, which the results table gives (at the default
+	// width, with a caution, the ratio was left off).
 	parts := []string{"viscous " + coef + " " + fixed(sign(c.Cl), 3) + " (" + sense + "), inviscid " + fixed(sign(c.ClInviscid), 3)}
 	if f != nil {
 		parts = append(parts, coupledForceText(f, inv, sign))
 	}
-	parts = append(parts, "Cd "+fixed(c.Cd, 4), coef+"/Cd "+orDash(sign(res.LiftToDrag()), 1))
+	parts = append(parts, coef+"/Cd "+orDash(sign(res.LiftToDrag()), 1), "Cd "+fixed(c.Cd, 4))
 	return append(parts, "viscous Cm "+fixed(c.Cm, 3), coupledState(res), fmt.Sprintf("solve %d ms", res.Elapsed.Milliseconds()))
 }
 

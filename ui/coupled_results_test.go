@@ -55,3 +55,31 @@ func TestCoupledStatusKeepsForces(t *testing.T) {
 		}
 	}
 }
+
+// TestCoupledStatusKeepsLiftToDrag: the two-element example as it opens
+// (tripped, 3°, 100 mm: a caution for its suction peak leads the line),
+// in the window at its default width: the status line keeps the −Cl/Cd
+// after the forces. It left it off, and the ratio is nowhere else on
+// screen (the results table gives Cd, not the ratio); the Cd, which the
+// table gives, now comes after it.
+func TestCoupledStatusKeepsLiftToDrag(t *testing.T) {
+	test.NewTempApp(t)
+	w := openTestBench(t, rearWing)
+	current(t, w)
+	// The figures of the case (look10's screenshot, 21:37 UTC), set by
+	// hand: the point takes seconds to solve.
+	res := &engine.Result{
+		Layout:   &model.Layout{Inverted: true},
+		Solution: &solver.Solution{Cl: -3.920},
+		Coupled:  &engine.CoupledPoint{Cl: -3.2016, ClInviscid: -3.9198, Cd: 0.0262, Cm: 0.570, Converged: true, Iterations: 63},
+		Forces:   &engine.Forces{LiftPerSpan: -351.5, DownforcePerSpan: 351.5, DragPerSpan: 2.88, SpanM: 1, Coupled: true},
+	}
+	items := append([]string{"Caution: suction beyond real flows"}, statusItems(res)...)
+	w.status.set(items, widget.WarningImportance)
+	shown := w.status.Text()
+	for _, want := range []string{"viscous −Cl 3.202 (+ down)", "downforce 351.5 N, drag 2.88 N on 1 m", "−Cl/Cd 122.2"} {
+		if !strings.Contains(shown, want) {
+			t.Errorf("status line %q (of %q) lacks %q", shown, w.status.Full(), want)
+		}
+	}
+}
