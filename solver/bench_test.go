@@ -173,6 +173,7 @@ func BenchmarkCoupledCold(b *testing.B) {
 		b.Fatal(err)
 	}
 	opt := CoupledOptions{Re: []float64{6e6}, TripUpper: 0.05, TripLower: 0.05}
+	defer reportCounts(b, ReadCoupledCounts())()
 	for b.Loop() {
 		sys.flows.clear()
 		if cs, err := sys.SolveCoupled(context.Background(), 4, opt, nil); err != nil || !cs.Converged {
@@ -191,6 +192,7 @@ func BenchmarkCoupledWarm(b *testing.B) {
 	if err != nil || !warm.Converged {
 		b.Fatalf("no starting solution: %v", err)
 	}
+	defer reportCounts(b, ReadCoupledCounts())()
 	for b.Loop() {
 		sys.flows.clear()
 		warm.attempts = &attempts{} // what solving from it again would take
@@ -215,6 +217,7 @@ func BenchmarkCoupledPolar41TwoElement(b *testing.B) {
 	opt := CoupledOptions{Re: []float64{1e6, 0.35e6}, TripUpper: 0.05, TripLower: 0.05}
 	alphas := sweep41()
 	var conv int
+	defer reportCounts(b, ReadCoupledCounts())()
 	for b.Loop() {
 		sys.flows.clear()
 		conv = 0
@@ -237,6 +240,20 @@ func BenchmarkCoupledPolar41TwoElement(b *testing.B) {
 		}
 	}
 	b.ReportMetric(float64(conv), "converged-rows")
+}
+
+// reportCounts returns a function that reports the coupled solution's
+// work per operation since c0 (CoupledCounts): the Newton steps and the
+// factorisations of their mass-defect systems, which on this shared
+// machine say more than the time does. It counts the operations as
+// b.Loop runs them (b.N is not theirs).
+func reportCounts(b *testing.B, c0 CoupledCounts) func() {
+	return func() {
+		d := ReadCoupledCounts().Sub(c0)
+		n := float64(max(b.N, 1))
+		b.ReportMetric(float64(d.NewtonSteps)/n, "newton-steps/op")
+		b.ReportMetric(float64(d.Factorisations)/n, "factorisations/op")
+	}
 }
 
 // polarOrder returns the indices of an odd number n of angles centred on

@@ -104,6 +104,7 @@ func (s *dmSolver) solveSystem(sys linearSystem, n int, b []float64) (ok bool) {
 		if it, conv := s.krylov(sys, b); conv {
 			s.krylovSolves++
 			s.krylovIterations += it
+			counts.krylovSolves.Add(1)
 			if it >= dmSlowKrylov {
 				s.fresh = true
 			}
@@ -113,6 +114,7 @@ func (s *dmSolver) solveSystem(sys linearSystem, n int, b []float64) (ok bool) {
 	}
 	copy(s.lu, sys.dense())
 	s.factorisations++
+	counts.factorisations.Add(1)
 	if !factorise(s.lu, n, s.ipiv) {
 		s.fresh = true
 		return false

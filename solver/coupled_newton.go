@@ -638,6 +638,7 @@ func (cs *coupledState) stationVars(j int, v [4]float64) bl.Station {
 // dmSolver factorises it, and the back-substitution L_i = P_i − Q_i Δm
 // takes the same recursion.
 func (cs *coupledState) newtonStep() (dc, dth, dm []float64, ok bool) {
+	counts.newtonSteps.Add(1)
 	n := len(cs.st)
 	ue := cs.ueLayers()
 	wk := &cs.work

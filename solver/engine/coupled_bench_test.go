@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"sectionbench/model"
+	"sectionbench/solver"
 )
 
 // A 41-angle coupled viscous polar, one element (NACA 0012, 160 panels,
@@ -19,6 +20,7 @@ func BenchmarkCoupledPolar41(b *testing.B) {
 	st.Viscous = model.Viscous{Enabled: true, Mode: model.ViscousCoupled, TripUpper: 0.05, TripLower: 0.05}
 	st.Sweep = model.SweepRange{FromDeg: -10, ToDeg: 10, StepDeg: 0.5}
 	var conv int
+	defer reportCounts(b, solver.ReadCoupledCounts())()
 	for b.Loop() {
 		res, err := NewEngine().Run(context.Background(), Request{Study: st, Sections: secs, Sweep: true})
 		if err != nil {
@@ -32,4 +34,17 @@ func BenchmarkCoupledPolar41(b *testing.B) {
 		}
 	}
 	b.ReportMetric(float64(conv), "converged-rows")
+}
+
+// reportCounts returns a function that reports the coupled solution's
+// work per operation since c0 (solver.CoupledCounts): the Newton steps
+// and the factorisations of their mass-defect systems, which on this
+// shared machine say more than the time does.
+func reportCounts(b *testing.B, c0 solver.CoupledCounts) func() {
+	return func() {
+		d := solver.ReadCoupledCounts().Sub(c0)
+		n := float64(max(b.N, 1))
+		b.ReportMetric(float64(d.NewtonSteps)/n, "newton-steps/op")
+		b.ReportMetric(float64(d.Factorisations)/n, "factorisations/op")
+	}
 }

@@ -4,6 +4,8 @@ import (
 	"context"
 	"math"
 	"testing"
+
+	"sectionbench/solver"
 )
 
 // The two-element example (assets/examples/two-element-ground.json: an
@@ -92,6 +94,7 @@ func TestExampleTwoElementSweep(t *testing.T) {
 // 15 of 15 rows converged.
 func BenchmarkExampleTwoElementSweep(b *testing.B) {
 	st, secs := exampleStudy(b, "two-element-ground.json")
+	defer reportCounts(b, solver.ReadCoupledCounts())()
 	for b.Loop() {
 		res, err := NewEngine().Run(context.Background(), Request{Study: st, Sections: secs, Sweep: true})
 		if err != nil {

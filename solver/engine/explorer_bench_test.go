@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"sectionbench/model"
+	"sectionbench/solver"
 )
 
 // A 20 × 20 viscous map of the invented two-element example in ground
@@ -31,6 +32,7 @@ func BenchmarkMapTwoElement20x20(b *testing.B) {
 		b.Run(bc.name, func(b *testing.B) {
 			var conv, other, none int
 			var dcl, dcd float64
+			c0 := solver.ReadCoupledCounts()
 			for b.Loop() {
 				pts, err := Map(context.Background(), st, secs, ranges, MapOptions{CompareWithSolve: bc.compare}, nil, nil)
 				if err != nil {
@@ -53,6 +55,7 @@ func BenchmarkMapTwoElement20x20(b *testing.B) {
 				}
 			}
 			b.ReportMetric(float64(conv), "converged-points")
+			reportCounts(b, c0)()
 			if bc.compare {
 				b.ReportMetric(float64(other), "another-root-points")
 				b.ReportMetric(float64(none), "no-single-solve-points")
