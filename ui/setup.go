@@ -1,8 +1,6 @@
 package ui
 
 import (
-	"fmt"
-
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/layout"
@@ -155,8 +153,7 @@ func (s *setupWindow) reportPart() *report.Setup {
 		if r.inviscid {
 			viscous = "with the panel method only (no separation)"
 		}
-		out.CurveNote = fmt.Sprintf("A map of %d points %s; %d without an answer are crossed on the axis, not drawn; points separating ahead of x/c %s are ringed.",
-			r.done, viscous, countFailed(r), num(r.limit))
+		out.CurveNote = report.CurveNote(r.done, viscous, "", countFailed(r), r.limit)
 		if !studiesEqual(r.st, cur) {
 			out.CurveNote += " The map is of the study as it was before its last changes."
 		}

@@ -2,7 +2,6 @@ package main
 
 import (
 	"context"
-	"fmt"
 	"math"
 
 	"sectionbench/export/figure"
@@ -79,8 +78,7 @@ func (f *reportSetupFlags) setup(st *model.Study, secs []*model.Section) (*repor
 		if engine.ViscousFor(st, opt, []model.SetupVariable{r.Var}) {
 			how = "with the coupled viscous solution"
 		}
-		out.CurveNote = fmt.Sprintf("A map of %d points %s (report --map %s); %d without an answer are crossed on the axis, not drawn; points separating ahead of x/c %g are ringed.",
-			len(points), how, f.mapRange, failed, f.limit)
+		out.CurveNote = report.CurveNote(len(points), how, "report --map "+f.mapRange, failed, f.limit)
 	}
 	if len(f.search) > 0 {
 		if err := f.runSearch(ctx, st, secs, out); err != nil {

@@ -89,3 +89,24 @@ func TestReportSetupPage(t *testing.T) {
 		t.Errorf("finite span %g N, 2-D %g N", fs.LoadN, fs.Load2DN)
 	}
 }
+
+// TestCurveNoteCounts: the map's caption note agrees with its counts
+// ("1 without an answer are crossed" stood on the two-element example's
+// report, look10) and names how the map was made.
+func TestCurveNoteCounts(t *testing.T) {
+	for _, tc := range []struct {
+		name           string
+		points, failed int
+		madeBy, want   string
+	}{
+		{"one failed", 7, 1, "report --map clearance_mm=30:150:20", "A map of 7 points with the coupled viscous solution (report --map clearance_mm=30:150:20); 1 without an answer is crossed on the axis"},
+		{"none failed", 1, 0, "", "A map of 1 point with the coupled viscous solution; 0 without an answer are crossed on the axis"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			got := CurveNote(tc.points, "with the coupled viscous solution", tc.madeBy, tc.failed, 0.9)
+			if !strings.HasPrefix(got, tc.want) || !strings.HasSuffix(got, "ahead of x/c 0.9 are ringed.") {
+				t.Errorf("%q, want it to start %q", got, tc.want)
+			}
+		})
+	}
+}

@@ -600,7 +600,11 @@ func searchStatus(s optimize.Status, res *SearchResult) string {
 		}
 	}
 	if failed > 0 && res.Feasible {
-		why += fmt.Sprintf("; %d of %d solves did not converge: where they lie next to the best setting, it may mark the edge of what the solver can answer rather than the wing's optimum", failed, len(res.Path))
+		they := "where they lie"
+		if failed == 1 {
+			they = "where it lies"
+		}
+		why += fmt.Sprintf("; %d of %d solves did not converge: %s next to the best setting, it may mark the edge of what the solver can answer rather than the wing's optimum", failed, len(res.Path), they)
 	}
 	return why
 }
