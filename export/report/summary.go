@@ -3,6 +3,7 @@ package report
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -202,16 +203,7 @@ func (r *writer) summaryPage() {
 		ld = num(h.LiftToDrag, 1)
 	}
 	kv = append(kv, [2]string{h.LoadName + " to drag", ld})
-	margin := "not known: maximum lift needs the coupled viscous solution, which has not run; potential flow never stalls"
-	if !math.IsNaN(h.ClMaxMargin) {
-		margin = fmt.Sprintf("%s in the coefficient (%s of %s at Cl max), %s° in angle of attack", Coef(h.ClMaxMargin), Coef(h.LoadCoef), Coef(r.in.Coupled.ClMax), num(h.AlphaMargin, 1))
-		if !r.in.Coupled.ClMaxIsPeak {
-			margin = "at least " + margin + ": the sweep ends before lift falls, so the real maximum lies beyond it"
-		}
-	} else if c := r.in.Coupled; c != nil && math.IsNaN(c.ClMax) {
-		margin = "not known: no angle of the sweep converged (or no sweep ran)"
-	}
-	kv = append(kv, [2]string{"Margin to maximum lift", margin})
+	kv = append(kv, [2]string{"Margin to maximum lift", r.marginWords(h)})
 	r.box("Conditions", speed+".", [3]int{232, 239, 248})
 	r.keyValues(kv)
 
@@ -540,4 +532,52 @@ func rejectedWhy(c *Coupled) string {
 // density study at 20 panels, nose 0.5: elements …".
 func SkipReason(row engine.DensityRow) string {
 	return strings.TrimPrefix(row.Skipped, fmt.Sprintf("density study at %d panels, nose %g: ", row.Panels, row.Nose))
+}
+
+// marginWords is the summary's margin to maximum lift in words. Where
+// the suction peak lies beyond what real flows sustain (model.FlagSuction)
+// at the study's angle or a sweep angle short of the maximum, it says that
+// the margin is the model's: a real wing separates there first. It gave
+// the two-element example "at least 1.8160 … the real maximum lies
+// beyond it" with every row from 3° flagged (look10).
+func (r *writer) marginWords(h headline) string {
+	c := r.in.Coupled
+	if math.IsNaN(h.ClMaxMargin) {
+		if c != nil && math.IsNaN(c.ClMax) {
+			return "not known: no angle of the sweep converged (or no sweep ran)"
+		}
+		return "not known: maximum lift needs the coupled viscous solution, which has not run; potential flow never stalls"
+	}
+	margin := fmt.Sprintf("%s in the coefficient (%s of %s at Cl max), %s° in angle of attack", Coef(h.ClMaxMargin), Coef(h.LoadCoef), Coef(c.ClMax), num(h.AlphaMargin, 1))
+	if !c.ClMaxIsPeak {
+		margin = "at least " + margin + ": the sweep ends before the model's lift falls, so its maximum lies beyond it"
+	}
+	if a, ok := r.suctionFromDeg(); ok {
+		margin += fmt.Sprintf("; but from %s° the suction peak is beyond the Cp %s real flows sustain, where a real wing separates first: this margin is the model's, not the wing's", num(a, 1), model.Minus(fmt.Sprint(model.CpMinPlausible)))
+	}
+	return margin
+}
+
+// suctionFromDeg returns the lowest angle, from the study's own up to
+// that of the coupled solution's maximum lift, whose flags say the
+// suction peak is beyond real flows (model.FlagSuction), and whether
+// there is one. A larger angle loads the wing more, upright or inverted.
+func (r *writer) suctionFromDeg() (float64, bool) {
+	st, res, c := r.in.Study, r.in.Result, r.in.Coupled
+	suction := func(fl []model.Flag) bool {
+		return slices.ContainsFunc(fl, func(f model.Flag) bool { return f.Kind == model.FlagSuction })
+	}
+	if suction(r.flags()) {
+		return st.Flow.AlphaDeg, true
+	}
+	from, ok := math.Inf(1), false
+	for i, row := range res.Sweep {
+		if row.AlphaDeg < st.Flow.AlphaDeg || row.AlphaDeg > c.AlphaClMaxDeg || row.AlphaDeg >= from {
+			continue
+		}
+		if suction(r.sweepFlags(i)) {
+			from, ok = row.AlphaDeg, true
+		}
+	}
+	return from, ok
 }

@@ -319,3 +319,39 @@ func TestSkipReason(t *testing.T) {
 		t.Errorf("SkipReason = %q, want the reason unchanged", got)
 	}
 }
+
+// TestMarginSaysSuction: the margin to maximum lift says it is the
+// model's when the suction peak lies beyond real flows
+// (model.CpMinPlausible) at an angle between the study's and Cl max's:
+// the two-element example's report gave "at least 1.8160 … the real
+// maximum lies beyond it" with every sweep row from 3° flagged so.
+func TestMarginSaysSuction(t *testing.T) {
+	st := demoStudy()
+	st.Viscous.Enabled = false
+	st.Flow.AlphaDeg = 2
+	res := solve(t, st) // sweep −2° to 6° in 2°
+	if len(res.Sweep) != 5 {
+		t.Fatalf("%d sweep rows, want 5", len(res.Sweep))
+	}
+	for _, tc := range []struct {
+		name  string
+		cpMin []float64
+		want  string // "" for no such words
+	}{
+		{"beyond from 4°", []float64{-2, -3, -4, -9, -10}, "but from 4.0° the suction peak is beyond the Cp −8 real flows sustain"},
+		{"beyond only below the study's angle", []float64{-9, -3, -4, -5, -6}, ""},
+		{"never beyond", []float64{-2, -3, -4, -5, -6}, ""},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			c := &Coupled{Converged: true, Iterations: 12, Cl: res.Solution.Cl, Cd: 0.031, ClMax: -res.Solution.Cl + 0.5, AlphaClMaxDeg: 6, PointCpMin: -4, CpMin: tc.cpMin}
+			w := &writer{in: Input{Study: st, Result: res, Coupled: c}}
+			got := w.marginWords(w.headline())
+			if !strings.HasPrefix(got, "at least ") || !strings.Contains(got, "the model's lift falls") {
+				t.Errorf("margin %q does not say it is a lower bound of the model's maximum", got)
+			}
+			if has := strings.Contains(got, "but from"); tc.want == "" && has || tc.want != "" && !strings.Contains(got, tc.want) {
+				t.Errorf("margin %q, want %q", got, tc.want)
+			}
+		})
+	}
+}
