@@ -199,14 +199,22 @@ func coupledOptions(st *model.Study, re []float64, maxIter int) solver.CoupledOp
 
 // Warm starts: the engine keeps the last converged solution of its cached
 // system and starts the next one from it when the angle moved at most
-// maxWarmStepDeg (a neighbouring angle); a walk towards an angle that did
-// not converge from a cold start goes in steps of at most walkStepDeg. Both
-// are of the size at which the solver's own continuation in α (two
-// halvings) usually holds on a polar (the lead's trials on NACA 0012 and
-// E387).
+// maxWarmStepDeg (a neighbouring angle), of the size at which the
+// solver's own continuation in α (two halvings) usually holds on a polar
+// (the lead's trials on NACA 0012 and E387). A walk towards an angle that
+// did not converge from a cold start goes through the angles of a sweep
+// from 0° in steps of walkStepDeg, the sweep's usual step, so that near
+// the maximum it follows the sweep's roots: in 2° steps the walk of an
+// inverted kt:-0.1,0.1,10 at h/c 1 failed at 8°, where the 1° sweep goes
+// on to 18°, and over the team's sections (roots11's note) single solves
+// near the maximum gave the sweep's rows less often.
 const (
-	maxWarmStepDeg = 3
-	walkStepDeg    = 2
+	maxWarmStepDeg    = 3
+	walkStepDeg       = 1
+	walkFirstAboveDeg = 4
+	// walkSameAngle: a step of the walk closer to alphaDeg than this
+	// fraction of walkStepDeg is alphaDeg itself (rounding in the angle).
+	walkSameAngle = 1e-9
 )
 
 // solveCoupled solves sys at the freestream angle fs for the study angle
@@ -224,17 +232,23 @@ func solveCoupled(ctx context.Context, sys *solver.System, alphaDeg, fs float64,
 }
 
 // coupledAt solves the coupled flow at the study's angle. It starts from
-// the engine's last converged solution when that is near, and when a
-// start from scratch does not converge it walks from the angle nearest
-// zero to alphaDeg, each step warm-started from the one before (the way a
-// polar reaches it). In ground effect the configuration pitches, so every
-// angle of the walk is a system of its own (groundSystem; the solver
-// carries the layers over to the pitched system). A map's points, each
-// on a fresh engine (runColdFirst), walk as `solve` walks, and so stay
-// the single solve of their setting. Without the walk in ground effect
-// the two-element example with free transition had no answer at 3° from
-// `solve` (2326 iterations, not converged) while its sweep's row, walked
-// from 0°, converged (look9's E2).
+// the engine's last converged solution when that is near. Otherwise, up
+// to walkFirstAboveDeg it starts from scratch, and beyond it, or when
+// that start does not converge, it walks from 0° as a sweep does
+// (walk), and starts from scratch only when the walk does not reach
+// alphaDeg. In ground effect the configuration pitches, so every angle
+// of the walk is a new system, built as a sweep builds it (sweepSystem),
+// and the solver carries each step's layers over to the next pitched
+// system as a sweep's neighbour does: without the walk, an inverted
+// kt:-0.1,0.1,10 at h/c 1 (TestEngineCoupledGroundStall) did not
+// converge alone at 12°, 15° and 16°, where the sweep converges. A map
+// point that starts from its neighbours' solutions (runFromSeeds) does
+// not walk; one that does not is solved here as `solve` solves it (a
+// map's points, each on a fresh engine, runColdFirst, walk as `solve`
+// walks). Without the walk in ground effect the two-element example with
+// free transition had no answer at 3° from `solve` (2326 iterations, not
+// converged) while its sweep's row, walked from 0°, converged (look9's
+// E2, TestExampleFreeTransitionSolveWalks).
 func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs float64, opt solver.CoupledOptions, optKey string) (CoupledPoint, error) {
 	names := e.elementNames()
 	if seed := e.seed; seed != nil {
@@ -250,49 +264,82 @@ func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs
 	if e.warmKey == optKey && e.warm != nil && math.Abs(e.warmAlpha-alphaDeg) <= maxWarmStepDeg {
 		warm = e.warm
 	}
-	p, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, warm, names)
-	if err != nil || p.Converged {
-		e.keepWarm(p, optKey)
-		return p, err
-	}
-	// The walk: from the angle of the sweep's usual start, 0°, outwards.
-	steps := int(math.Ceil(math.Abs(alphaDeg) / walkStepDeg))
-	warm = nil
-	for i := 0; i < steps; i++ {
-		a := alphaDeg * float64(i) / float64(steps)
-		at, f := sys, 0.0
-		if e.layout.Ground {
-			if at, f, err = e.groundSystem(ctx, a); err != nil {
-				if ctx.Err() != nil {
-					return CoupledPoint{}, ctx.Err()
-				}
-				return p, nil // no system there: no walk
-			}
-		} else {
-			_, _, f = e.layout.At(a)
-		}
-		q, err := solveCoupled(ctx, at, a, f, opt, warm, names)
-		if err != nil {
-			return CoupledPoint{}, err
-		}
-		if !q.Converged {
+	own := warm != nil || math.Abs(alphaDeg) <= walkFirstAboveDeg
+	var p CoupledPoint
+	if own {
+		var err error
+		if p, err = solveCoupled(ctx, sys, alphaDeg, fs, opt, warm, names); err != nil || p.Converged {
 			e.keepWarm(p, optKey)
-			return p, nil
+			return p, err
 		}
-		warm = q.last
 	}
-	if warm == nil {
-		return p, nil
-	}
-	q, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, warm, names)
+	q, walked, err := e.walk(ctx, sys, alphaDeg, fs, opt, names)
 	if err != nil {
 		return CoupledPoint{}, err
 	}
-	if q.Converged {
-		p = q
+	// The iterations of every attempt made for the answer, as the
+	// solver counts its fallbacks': the own start's, the walk's.
+	total := p.Iterations + walked
+	if q != nil {
+		total += q.Iterations
 	}
+	switch {
+	case q != nil && q.Converged:
+		p = *q
+	case !own:
+		if p, err = solveCoupled(ctx, sys, alphaDeg, fs, opt, nil, names); err != nil {
+			return CoupledPoint{}, err
+		}
+		total += p.Iterations
+	}
+	p.Iterations = total
 	e.keepWarm(p, optKey)
 	return p, nil
+}
+
+// walk solves sys at alphaDeg the way a sweep from 0° in steps of
+// walkStepDeg reaches it (coupledSweep's first pass): from scratch at 0°,
+// then through the whole multiples of walkStepDeg short of alphaDeg,
+// each from the last angle that converged, a step that does not converge
+// passed over, and last alphaDeg. It gives up, returning nil, when 0°
+// does not converge or the next angle is further than maxWarmStepDeg
+// from the last that converged. walked is the Newton iterations of the
+// steps before alphaDeg (q's own are in q).
+func (e *Engine) walk(ctx context.Context, sys *solver.System, alphaDeg, fs float64, opt solver.CoupledOptions, names []string) (q *CoupledPoint, walked int, err error) {
+	steps := int(math.Ceil(math.Abs(alphaDeg)/walkStepDeg - walkSameAngle))
+	var warm *solver.CoupledSolution
+	from := 0.0 // the angle warm was solved at
+	for i := 0; i < steps; i++ {
+		a := math.Copysign(float64(i)*walkStepDeg, alphaDeg)
+		if math.Abs(a-from) > maxWarmStepDeg {
+			return nil, walked, nil
+		}
+		s, f, err := e.sweepSystem(ctx, a)
+		if err != nil {
+			if ctx.Err() != nil {
+				return nil, walked, ctx.Err()
+			}
+			return nil, walked, nil // no system there: no walk
+		}
+		r, err := solveCoupled(ctx, s, a, f, opt, warm, names)
+		walked += r.Iterations
+		switch {
+		case err != nil:
+			return nil, walked, err
+		case r.Converged:
+			warm, from = r.last, a
+		case i == 0:
+			return nil, walked, nil
+		}
+	}
+	if warm == nil || math.Abs(alphaDeg-from) > maxWarmStepDeg {
+		return nil, walked, nil
+	}
+	p, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, warm, names)
+	if err != nil {
+		return nil, walked, err
+	}
+	return &p, walked, nil
 }
 
 // fromSeeds solves sys from converged solutions of neighbouring

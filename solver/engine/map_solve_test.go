@@ -92,10 +92,10 @@ func mapTwice(t *testing.T, st *model.Study, secs []*model.Section, ranges []mod
 // solve of its setting (checkAgainstSolve: identical to the last bit,
 // within SolveAgreementTolerance, on another root beyond it, or where
 // solve has no answer), and the map without the comparison gives the
-// same numbers. At least half the points agree (measured: 5 of 9, the
+// same numbers. At least half the points agree (measured: 7 of 9, the
 // map walking down from 160 mm at each angle); the coupled equations of
-// this slot have more than one root (DEVELOPERS.md), and at 80 mm (3°,
-// 5°), 120 mm and 160 mm (5°) the walk and a start from the march land
+// this slot have more than one root (DEVELOPERS.md), and at 5° (80 and
+// 120 mm) the map's walk and the single solve, walked from 0° in α, land
 // on different ones (Cl 0.002–0.086 apart), which the comparison must
 // find: the test fails if none is found, since then it no longer
 // exercises the detection (pick a case that does).
