@@ -45,6 +45,12 @@ type SetupCurve struct {
 	// may be nil. NearGroundLabel says so in words, for captions.
 	NearGround      []bool
 	NearGroundLabel string
+	// Held marks points whose coupled solution converged only with
+	// transition held upstream of its e^N position, as if tripped
+	// (model.FlagHeld): filled boxes, as the polar draws such rows; may
+	// be nil. A held root can be attached between separated neighbours
+	// (the two-element example's ride-height map at 40 mm).
+	Held []bool
 	// Current is the study's own value of the variable (a vertical line),
 	// NaN for none; Onset is where separation sets in (a labelled vertical
 	// line), NaN for none.
@@ -85,8 +91,8 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 	p := newPlot(th, c.Title, c.XLabel, c.YLabel)
 	k := newKey(th, keyTopRight)
 	type pt struct {
-		x, y                  float64
-		sep, fail, from, near bool
+		x, y                        float64
+		sep, fail, from, near, held bool
 	}
 	var pts []pt
 	for i, x := range c.X {
@@ -95,13 +101,14 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		q.fail = i < len(c.Failed) && c.Failed[i]
 		q.from = i < len(c.NotSolve) && c.NotSolve[i]
 		q.near = i < len(c.NearGround) && c.NearGround[i]
+		q.held = i < len(c.Held) && c.Held[i]
 		if !q.fail && math.IsNaN(q.y) {
 			continue
 		}
 		pts = append(pts, q)
 	}
 	sort.Slice(pts, func(i, j int) bool { return pts[i].x < pts[j].x })
-	var line, attached, separated, notSolve, near plotter.XYs
+	var line, attached, separated, notSolve, near, held plotter.XYs
 	var failed []float64
 	ext := newExtent()
 	for _, q := range pts {
@@ -118,6 +125,9 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		}
 		if q.near {
 			near = append(near, xy)
+		}
+		if q.held {
+			held = append(held, xy)
 		}
 		if q.sep {
 			separated = append(separated, xy)
@@ -145,6 +155,11 @@ func SetupCurvePlot(c SetupCurve, dark bool) (*plot.Plot, error) {
 		s := newScatter(separated, th.lower, glyphMarker*1.2, draw.RingGlyph{})
 		p.Add(s)
 		k.add("suction side separated", s)
+	}
+	if len(held) > 0 {
+		s := newScatter(held, th.lower, glyphMarker*1.5, draw.BoxGlyph{})
+		p.Add(s)
+		k.add(heldKey, s)
 	}
 	addNotSolve(p, k, th, notSolve)
 	addNearGround(p, k, th, near)
@@ -203,6 +218,9 @@ func addNotSolve(p *plot.Plot, k *key, th *theme, xys plotter.XYs) {
 	p.Add(s)
 	k.add(fmt.Sprintf("a single solve differs (%d)", len(xys)), s)
 }
+
+// heldKey is the key entry of the points held (SetupCurve.Held).
+const heldKey = "transition held upstream (as if tripped)"
 
 // nearGroundKey is the key entry of the points too near the ground
 // (SetupCurve.NearGround, SetupGrid.NearGround): short enough for the

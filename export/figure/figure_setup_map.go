@@ -3,6 +3,7 @@ package figure
 import (
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strconv"
 	"strings"
@@ -51,6 +52,7 @@ func MapCurve(st *model.Study, v model.SetupVariable, points []engine.Point, q e
 		c.NotSolve = append(c.NotSolve, !failed && p.NotSolve())
 		near := p.NearGround(st)
 		c.NearGround = append(c.NearGround, near)
+		c.Held = append(c.Held, !failed && slices.ContainsFunc(p.Flags, func(f model.Flag) bool { return f.Kind == model.FlagHeld }))
 		if near {
 			c.NearGroundLabel = NearGroundWords(st)
 		}

@@ -312,3 +312,45 @@ func TestMapCurveNearGround(t *testing.T) {
 		t.Errorf("free air: near the ground %v, %q", c.NearGround, c.NearGroundLabel)
 	}
 }
+
+// TestMapCurveHeld: a map's point whose coupled solution converged only
+// with transition held upstream (model.FlagHeld in engine.Point.Flags) is
+// boxed in the curve with its key entry, as the polar boxes such rows; the
+// two-element example's ride-height map drew its 40 mm point, held and
+// attached between separated neighbours, as a plain "attached" dot.
+func TestMapCurveHeld(t *testing.T) {
+	st := model.NewStudy()
+	st.Elements[0].ChordMM = 250
+	st.Inverted = true
+	st.Ground = model.Ground{Enabled: true, ClearanceMM: 100}
+	v := model.SetupVariable{Kind: model.SetupClearance}
+	var pts []engine.Point
+	for _, h := range []float64{40, 60, 80, 100} {
+		p := engine.Point{Values: []float64{h}, Converged: true, Viscous: true, Inverted: true, Cl: -40 / math.Sqrt(h),
+			DownforcePerSpan: 4000 / math.Sqrt(h), ClearanceMM: h, Elements: []engine.PointElement{{SeparationSuction: math.NaN()}}}
+		if h == 40 {
+			p.Flags = []model.Flag{{Kind: model.FlagHeld}}
+		}
+		pts = append(pts, p)
+	}
+	c := MapCurve(st, v, pts, engine.QuantityLoad, true, 0.9, 100)
+	if want := []bool{true, false, false, false}; !slices.Equal(c.Held, want) {
+		t.Errorf("held %v, want %v", c.Held, want)
+	}
+	p, err := SetupCurvePlot(c, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	writeSetup(t, "setup-curve-held", p)
+	var svg bytes.Buffer
+	if err := WritePlot(&svg, p, FormatSVG, 6, 4, 96); err != nil {
+		t.Fatal(err)
+	}
+	texts, err := svgTexts(svg.Bytes())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !slices.Contains(texts, heldKey) {
+		t.Errorf("the key has no entry for the held point: %q", texts)
+	}
+}
