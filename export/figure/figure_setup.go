@@ -219,8 +219,10 @@ func addNotSolve(p *plot.Plot, k *key, th *theme, xys plotter.XYs) {
 	k.add(fmt.Sprintf("a single solve differs (%d)", len(xys)), s)
 }
 
-// heldKey is the key entry of the points held (SetupCurve.Held).
-const heldKey = "transition held upstream (as if tripped)"
+// heldKey is the key entry of the points held (SetupCurve.Held): short
+// enough for the set-up window's cells ("… (as if tripped)" ran past
+// their edge); the readout and the flags say the rest.
+const heldKey = "transition held upstream"
 
 // nearGroundKey is the key entry of the points too near the ground
 // (SetupCurve.NearGround, SetupGrid.NearGround): short enough for the
