@@ -40,10 +40,10 @@ func (st *Study) checkGround() error {
 
 // NearGround reports whether a ground clearance of clearanceMM puts st's
 // wing below GroundHOverCMin of its main element's chord, where
-// Plausibility raises FlagGround: real wings lose downforce there as the
-// suction side separates, and this model shows only the rise. False in
-// free air, for a NaN clearance or a study without elements. The set-up
-// maps mark their points with it, as the workbench flags the study.
+// Plausibility raises FlagGround (GroundCaution says what that means).
+// False in free air, for a NaN clearance or a study without elements.
+// The set-up maps mark their points with it, as the workbench flags the
+// study.
 func (st *Study) NearGround(clearanceMM float64) bool {
 	c := st.GroundChordMM()
 	return st.Ground.Enabled && c > 0 && clearanceMM/c < GroundHOverCMin

@@ -63,7 +63,7 @@ type controls struct {
 	flowMsg     *widget.Label
 	inverted    *widget.Check
 	ground      *widget.Check
-	groundNote  *widget.Label // groundCaution, as the viscous mode has it
+	groundNote  *widget.Label // model.GroundCautionSentence, shown with a ground
 	clearance   *field
 
 	from, to, step *field
@@ -444,7 +444,7 @@ func (c *controls) mountingControls() []fyne.CanvasObject {
 			setMessage(c.flowMsg, ctl.SetGround("", g))
 		}
 	})
-	c.groundNote = caption(groundCaution(ctl.Current()))
+	c.groundNote = caption(model.GroundCautionSentence())
 	c.groundNote.TextStyle = fyne.TextStyle{Italic: true}
 	c.groundNote.Importance = widget.WarningImportance
 	return []fyne.CanvasObject{
@@ -694,9 +694,6 @@ func (c *controls) sync(st *model.Study) {
 	c.alphaSense.SetText("Angle of attack as mounted: " + model.AngleSense(st.Inverted) + ".")
 	c.inverted.SetChecked(st.Inverted)
 	c.ground.SetChecked(st.Ground.Enabled)
-	if t := groundCaution(st); c.groundNote.Text != t {
-		c.groundNote.SetText(t)
-	}
 	if st.Ground.Enabled {
 		c.groundNote.Show()
 	} else {

@@ -21,12 +21,6 @@ const (
 	unitMPS = "m/s"
 )
 
-// groundCaution is shown under the ground control: the model's one
-// near-ground caution (model.GroundCautionSentence), which says what each
-// viscous mode shows there, as the flags, the maps, the command line and
-// the report say it.
-func groundCaution(*model.Study) string { return model.GroundCautionSentence() }
-
 // flowControls are speed, air, span and Reynolds number, with the values
 // derived from them.
 type flowControls struct {

@@ -40,9 +40,9 @@ type SetupCurve struct {
 	// NearGround marks points closer to the ground than
 	// model.GroundHOverCMin of the main element's chord
 	// (model.Study.NearGround), where the workbench flags the study
-	// "very close to the ground": real wings lose downforce there, and
-	// the model shows only the rise. Drawn in a triangle of their own;
-	// may be nil. NearGroundLabel says so in words, for captions.
+	// "very close to the ground" (model.GroundCaution). Drawn in a
+	// triangle of their own; may be nil. NearGroundLabel says so in
+	// words, for captions.
 	NearGround      []bool
 	NearGroundLabel string
 	// Held marks points whose coupled solution converged only with
