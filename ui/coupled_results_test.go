@@ -28,58 +28,49 @@ func TestCoupledStateSaysWhyRejected(t *testing.T) {
 	}
 }
 
-// TestCoupledStatusKeepsForces: the two-element rear wing with its
-// coupled solution on, at 2° (free transition held upstream, so a caution
-// leads the line), in the window at its default width: the status line
-// keeps the downforce and the drag in newtons after the coefficients.
-// The caution, the coefficients and the Cd with L/D had taken the width,
-// and the forces, listed after them, were left off.
-func TestCoupledStatusKeepsForces(t *testing.T) {
-	test.NewTempApp(t)
-	w := openTestBench(t, rearWing)
-	current(t, w)
-	// The figures of the case (the window, 14:29 UTC), set by hand: the
-	// point itself takes seconds to solve.
-	res := &engine.Result{
-		Layout:   &model.Layout{Inverted: true},
-		Solution: &solver.Solution{Cl: -2.898},
-		Coupled:  &engine.CoupledPoint{Cl: -2.5914, ClInviscid: -2.897, Cd: 0.0183, Cm: 0.507, Converged: true, Iterations: 390},
-		Forces:   &engine.Forces{LiftPerSpan: -284.5, DownforcePerSpan: 284.5, DragPerSpan: 2.01, SpanM: 1, Coupled: true},
-	}
-	items := append([]string{"Caution: transition held upstream"}, statusItems(res)...)
-	w.status.set(items, widget.WarningImportance)
-	shown := w.status.Text()
-	for _, want := range []string{"viscous −Cl 2.591 (+ down)", "downforce 284.5 N, drag 2.01 N on 1 m"} {
-		if !strings.Contains(shown, want) {
-			t.Errorf("status line %q (of %q) lacks %q", shown, w.status.Full(), want)
-		}
-	}
-}
-
-// TestCoupledStatusKeepsLiftToDrag: the two-element example as it opens
-// (tripped, 3°, 100 mm: a caution for its suction peak leads the line),
-// in the window at its default width: the status line keeps the −Cl/Cd
-// after the forces. It left it off, and the ratio is nowhere else on
-// screen (the results table gives Cd, not the ratio); the Cd, which the
-// table gives, now comes after it.
-func TestCoupledStatusKeepsLiftToDrag(t *testing.T) {
-	test.NewTempApp(t)
-	w := openTestBench(t, rearWing)
-	current(t, w)
-	// The figures of the case (look10's screenshot, 21:37 UTC), set by
-	// hand: the point takes seconds to solve.
-	res := &engine.Result{
-		Layout:   &model.Layout{Inverted: true},
-		Solution: &solver.Solution{Cl: -3.920},
-		Coupled:  &engine.CoupledPoint{Cl: -3.2016, ClInviscid: -3.9198, Cd: 0.0262, Cm: 0.570, Converged: true, Iterations: 63},
-		Forces:   &engine.Forces{LiftPerSpan: -351.5, DownforcePerSpan: 351.5, DragPerSpan: 2.88, SpanM: 1, Coupled: true},
-	}
-	items := append([]string{"Caution: suction beyond real flows"}, statusItems(res)...)
-	w.status.set(items, widget.WarningImportance)
-	shown := w.status.Text()
-	for _, want := range []string{"viscous −Cl 3.202 (+ down)", "downforce 351.5 N, drag 2.88 N on 1 m", "−Cl/Cd 122.2"} {
-		if !strings.Contains(shown, want) {
-			t.Errorf("status line %q (of %q) lacks %q", shown, w.status.Full(), want)
-		}
+// TestCoupledStatusKeeps: the two-element rear wing with its coupled
+// solution on, a caution leading the status line, in the window at its
+// default width (the figures of each case set by hand: the point itself
+// takes seconds to solve).
+//   - "forces": at 2°, free transition held upstream (the window, 14:29
+//     UTC): the line keeps the downforce and the drag in newtons after the
+//     coefficients. The caution, the coefficients and the Cd with L/D had
+//     taken the width, and the forces, listed after them, were left off.
+//   - "lift to drag": the two-element example as it opens (tripped, 3°,
+//     100 mm, a caution for its suction peak; look10's screenshot, 21:37
+//     UTC): the line keeps the −Cl/Cd after the forces. It left it off,
+//     and the ratio is nowhere else on screen (the results table gives Cd,
+//     not the ratio); the Cd, which the table gives, now comes after it.
+func TestCoupledStatusKeeps(t *testing.T) {
+	for _, tc := range []struct {
+		name, caution string
+		res           *engine.Result
+		want          []string
+	}{
+		{"forces", "Caution: transition held upstream", &engine.Result{
+			Layout:   &model.Layout{Inverted: true},
+			Solution: &solver.Solution{Cl: -2.898},
+			Coupled:  &engine.CoupledPoint{Cl: -2.5914, ClInviscid: -2.897, Cd: 0.0183, Cm: 0.507, Converged: true, Iterations: 390},
+			Forces:   &engine.Forces{LiftPerSpan: -284.5, DownforcePerSpan: 284.5, DragPerSpan: 2.01, SpanM: 1, Coupled: true},
+		}, []string{"viscous −Cl 2.591 (+ down)", "downforce 284.5 N, drag 2.01 N on 1 m"}},
+		{"lift to drag", "Caution: suction beyond real flows", &engine.Result{
+			Layout:   &model.Layout{Inverted: true},
+			Solution: &solver.Solution{Cl: -3.920},
+			Coupled:  &engine.CoupledPoint{Cl: -3.2016, ClInviscid: -3.9198, Cd: 0.0262, Cm: 0.570, Converged: true, Iterations: 63},
+			Forces:   &engine.Forces{LiftPerSpan: -351.5, DownforcePerSpan: 351.5, DragPerSpan: 2.88, SpanM: 1, Coupled: true},
+		}, []string{"viscous −Cl 3.202 (+ down)", "downforce 351.5 N, drag 2.88 N on 1 m", "−Cl/Cd 122.2"}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			test.NewTempApp(t)
+			w := openTestBench(t, rearWing)
+			current(t, w)
+			w.status.set(append([]string{tc.caution}, statusItems(tc.res)...), widget.WarningImportance)
+			shown := w.status.Text()
+			for _, want := range tc.want {
+				if !strings.Contains(shown, want) {
+					t.Errorf("status line %q (of %q) lacks %q", shown, w.status.Full(), want)
+				}
+			}
+		})
 	}
 }
