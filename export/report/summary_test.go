@@ -334,16 +334,18 @@ func TestMarginSaysSuction(t *testing.T) {
 		t.Fatalf("%d sweep rows, want 5", len(res.Sweep))
 	}
 	for _, tc := range []struct {
-		name  string
-		cpMin []float64
-		want  string // "" for no such words
+		name     string
+		cpMin    []float64
+		clMaxDeg float64
+		want     string // "" for no such words
 	}{
-		{"beyond from 4°", []float64{-2, -3, -4, -9, -10}, "but from 4.0° the suction peak is beyond the Cp −8 real flows sustain"},
-		{"beyond only below the study's angle", []float64{-9, -3, -4, -5, -6}, ""},
-		{"never beyond", []float64{-2, -3, -4, -5, -6}, ""},
+		{"beyond from 4°", []float64{-2, -3, -4, -9, -10}, 6, "but from 4.0° the suction peak is beyond the Cp −8 real flows sustain"},
+		{"beyond only below the study's angle", []float64{-9, -3, -4, -5, -6}, 6, ""},
+		{"beyond only past Cl max", []float64{-2, -3, -4, -5, -9}, 4, ""},
+		{"never beyond", []float64{-2, -3, -4, -5, -6}, 6, ""},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			c := &Coupled{Converged: true, Iterations: 12, Cl: res.Solution.Cl, Cd: 0.031, ClMax: -res.Solution.Cl + 0.5, AlphaClMaxDeg: 6, PointCpMin: -4, CpMin: tc.cpMin}
+			c := &Coupled{Converged: true, Iterations: 12, Cl: res.Solution.Cl, Cd: 0.031, ClMax: -res.Solution.Cl + 0.5, AlphaClMaxDeg: tc.clMaxDeg, PointCpMin: -4, CpMin: tc.cpMin}
 			w := &writer{in: Input{Study: st, Result: res, Coupled: c}}
 			got := w.marginWords(w.headline())
 			if !strings.HasPrefix(got, "at least ") || !strings.Contains(got, "the model's lift falls") {
