@@ -1,7 +1,6 @@
 package engine
 
 import (
-	"math"
 	"testing"
 
 	"sectionbench/model"
@@ -48,13 +47,5 @@ func TestEngineCoupledGroundStall(t *testing.T) {
 	// Downforce: Cl is negative; its suction side is the lower surface as
 	// mounted.
 	checkTrailingEdgeStall(t, res, -1, "suction-side separation", func(r CoupledPoint) float64 { return r.Elements[0].SeparationLower })
-	rows := res.SweepCoupled
-	for a := 12; a <= 16; a++ {
-		st.Flow.AlphaDeg = float64(a)
-		single := run(t, NewEngine(), st, secs, false).Coupled
-		t.Logf("α %d° solved alone: converged %v, Cl %.6f (the sweep's %.6f)", a, single.Converged, single.Cl, rows[a].Cl)
-		if want := rows[a].Cl; !single.Converged || math.Abs(single.Cl-want) > SolveAgreementTolerance {
-			t.Errorf("α %d° solved alone: converged %v, Cl %.5f; the sweep's %.5f", a, single.Converged, single.Cl, want)
-		}
-	}
+	checkSingleSolves(t, st, secs, res.SweepCoupled, 12, 16)
 }

@@ -45,12 +45,30 @@ func TestEngineCoupledCamberedStall(t *testing.T) {
 	res := run(t, NewEngine(), st, secs, true)
 	rows := res.SweepCoupled
 	checkTrailingEdgeStall(t, res, 1, "upper separation", func(r CoupledPoint) float64 { return r.Elements[0].SeparationUpper })
-	for a := 12; a <= 16; a++ {
+	checkSingleSolves(t, st, secs, rows, 12, 16)
+}
+
+// checkSingleSolves solves st alone at each whole angle from fromDeg to
+// toDeg, each on a fresh engine as `solve` solves it, and checks that it
+// converges on the sweep's root there: rows, a sweep from 0° in 1° steps,
+// and the single solve agree as a map's point and `solve` must
+// (Point.sameRoot: Cl and Cm within SolveAgreementTolerance of |Cl|, Cd
+// within SolveAgreementToleranceCd of Cd, relative).
+func checkSingleSolves(t *testing.T, st *model.Study, secs []*model.Section, rows []CoupledPoint, fromDeg, toDeg int) {
+	t.Helper()
+	st = st.Clone()
+	for a := fromDeg; a <= toDeg; a++ {
+		row := rows[a]
+		if row.AlphaDeg != float64(a) {
+			t.Fatalf("row %d is at %g°, want %d°", a, row.AlphaDeg, a)
+		}
 		st.Flow.AlphaDeg = float64(a)
 		single := run(t, NewEngine(), st, secs, false).Coupled
-		t.Logf("α %d° solved alone: converged %v, Cl %.6f (the sweep's %.6f)", a, single.Converged, single.Cl, rows[a].Cl)
-		if want := rows[a].Cl; !single.Converged || math.Abs(single.Cl-want) > SolveAgreementTolerance {
-			t.Errorf("α %d° solved alone: converged %v, Cl %.5f; the sweep's %.5f", a, single.Converged, single.Cl, want)
+		t.Logf("α %d° solved alone: converged %v, Cl %.6f Cd %.6f (the sweep's %.6f %.6f)", a, single.Converged, single.Cl, single.Cd, row.Cl, row.Cd)
+		p := Point{Cl: row.Cl, Cd: row.Cd, Cm: row.Cm}
+		if !row.Converged || !single.Converged || !p.sameRoot(single.Cl, single.Cd, single.Cm) {
+			t.Errorf("α %d° solved alone: converged %v, Cl %.5f Cd %.5f Cm %.5f; the sweep's (converged %v) %.5f %.5f %.5f",
+				a, single.Converged, single.Cl, single.Cd, single.Cm, row.Converged, row.Cl, row.Cd, row.Cm)
 		}
 	}
 }
