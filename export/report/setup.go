@@ -17,20 +17,6 @@ import (
 // variable (the ride height, normally) with where the suction side starts
 // to separate, the best setting a search found, and the finite-span
 // totals. Each part is left out when empty.
-// CurveNote is the caption note of a one-variable map of points points
-// solved how ("with the coupled viscous solution"), failed of them
-// without an answer, its separation limit limitXC: the app and the
-// command line give it alike (made by, say, "report --map …", given as
-// made, or "" for none). "1 without an answer are crossed" stood on the
-// team's report.
-func CurveNote(points int, how, madeBy string, failed int, limitXC float64) string {
-	if madeBy != "" {
-		how += " (" + madeBy + ")"
-	}
-	return fmt.Sprintf("A map of %d %s %s; %d without an answer %s crossed on the axis, not drawn; points separating ahead of x/c %s are ringed.",
-		points, plural(points, "point", "points"), how, failed, plural(failed, "is", "are"), strconv.FormatFloat(limitXC, 'g', 3, 64))
-}
-
 type Setup struct {
 	// Curve is downforce (or lift) against one set-up variable, with the
 	// separation onset and the study's value marked (figure.SetupCurve);
@@ -44,6 +30,20 @@ type Setup struct {
 	SearchOptions engine.SearchOptions
 	// FiniteSpan is the finite-span estimate; nil leaves it out.
 	FiniteSpan *engine.FiniteSpan
+}
+
+// CurveNote is the caption note of a one-variable map of points points
+// solved how ("with the coupled viscous solution"), failed of them
+// without an answer, its separation limit limitXC: the app and the
+// command line give it alike (made by, say, "report --map …", given as
+// made, or "" for none). "1 without an answer are crossed" stood on the
+// team's report.
+func CurveNote(points int, how, madeBy string, failed int, limitXC float64) string {
+	if madeBy != "" {
+		how += " (" + madeBy + ")"
+	}
+	return fmt.Sprintf("A map of %d %s %s; %d without an answer %s crossed on the axis, not drawn; points separating ahead of x/c %s are ringed.",
+		points, plural(points, "point", "points"), how, failed, plural(failed, "is", "are"), strconv.FormatFloat(limitXC, 'g', 3, 64))
 }
 
 // setupCaution is the set-up page's caution.

@@ -240,8 +240,8 @@ func solveCoupled(ctx context.Context, sys *solver.System, alphaDeg, fs float64,
 // of the walk is a new system, built as a sweep builds it (sweepSystem),
 // and the solver carries each step's layers over to the next pitched
 // system as a sweep's neighbour does: without the walk, an inverted
-// kt:-0.1,0.1,10 at h/c 1 (TestEngineCoupledGroundStall) did not
-// converge alone at 12°, 15° and 16°, where the sweep converges. A map
+// kt:-0.1,0.1,10 at h/c 1 (TestEngineCoupledGroundStall) converged
+// alone at none of 12°–16°, where the sweep converges. A map
 // point that starts from its neighbours' solutions (runFromSeeds) does
 // not walk; one that does not is solved here as `solve` solves it (a
 // map's points, each on a fresh engine, runColdFirst, walk as `solve`
