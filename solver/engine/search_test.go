@@ -8,6 +8,8 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/gonum/optimize"
+
 	"sectionbench/model"
 )
 
@@ -364,6 +366,32 @@ func TestSearchPreferReproducible(t *testing.T) {
 				t.Errorf("the best is %v", r.Best.Single)
 			}
 			t.Log(r.Status)
+		})
+	}
+}
+
+// TestSearchStatusFailedSolves: the search's stop words count the solves
+// that did not converge and agree with the count ("1 of 5 solves did not
+// converge: where they lie" stood for one).
+func TestSearchStatusFailedSolves(t *testing.T) {
+	for _, tc := range []struct {
+		name   string
+		failed int
+		want   string
+	}{
+		{"none", 0, ""},
+		{"one", 1, "; 1 of 5 solves did not converge: where it lies next to the best setting"},
+		{"two", 2, "; 2 of 5 solves did not converge: where they lie next to the best setting"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			res := &SearchResult{Feasible: true, Path: make([]Point, 5)}
+			for i := range res.Path {
+				res.Path[i].Converged = i >= tc.failed
+			}
+			got := searchStatus(optimize.FunctionConvergence, res)
+			if tc.want == "" && strings.Contains(got, "did not converge") || tc.want != "" && !strings.Contains(got, tc.want) {
+				t.Errorf("%q, want it to say %q", got, tc.want)
+			}
 		})
 	}
 }
