@@ -149,7 +149,7 @@ func (r *mapRun) describe(k int) string {
 		// As `solve` and a sweep's rows flag it: the ground, a suction
 		// peak beyond real flows, transition held upstream (it gave the
 		// ground's alone).
-		for _, f := range format.MapFlags(r.st, &r.points[k]) {
+		for _, f := range format.MapFlags(&r.points[k]) {
 			notes = append(notes, string(f.Kind)+" ("+f.Message+")")
 		}
 	}

@@ -161,7 +161,7 @@ func mapPointJSON(st *model.Study, vars []model.SetupVariable, p engine.Point, h
 		k.ClearanceMM = ptr(p.ClearanceMM)
 	}
 	k.Flags = []string{}
-	for _, f := range format.MapFlags(st, &p) {
+	for _, f := range format.MapFlags(&p) {
 		k.Flags = append(k.Flags, string(f.Kind))
 	}
 	k.Elements = []jsonMapElement{}
@@ -414,7 +414,7 @@ func mapText(w io.Writer, title bool, st *model.Study, vars []model.SetupVariabl
 			}
 		}
 		flags := "none"
-		if f := format.MapFlags(st, &p); len(f) > 0 {
+		if f := format.MapFlags(&p); len(f) > 0 {
 			flags = model.FlagWords(f)
 			near = near || slices.ContainsFunc(f, func(f model.Flag) bool { return f.Kind == model.FlagGround })
 		}

@@ -84,7 +84,7 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 			}
 		}
 		flags := "none"
-		if f := MapFlags(st, &p); len(f) > 0 {
+		if f := MapFlags(&p); len(f) > 0 {
 			flags = model.FlagWords(f)
 		}
 		row = append(row, flags, p.Err)
@@ -105,7 +105,7 @@ func WriteMapTable(w io.Writer, m Metadata, st *model.Study, vars []model.SetupV
 // against its own x/c). A point without an answer raises none (it has no
 // numbers to doubt). Ground-only before: a point whose suction peak
 // `solve` flagged was "none" on the map.
-func MapFlags(st *model.Study, p *engine.Point) []model.Flag {
+func MapFlags(p *engine.Point) []model.Flag {
 	if !p.Converged || p.Err != "" {
 		return nil
 	}
@@ -120,9 +120,9 @@ func MapFlags(st *model.Study, p *engine.Point) []model.Flag {
 	return flags
 }
 
-// groundFlag returns the ground's flag among MapFlags(st, p), if any.
-func groundFlag(st *model.Study, p *engine.Point) (model.Flag, bool) {
-	for _, f := range MapFlags(st, p) {
+// groundFlag returns the ground's flag among MapFlags(p), if any.
+func groundFlag(p *engine.Point) (model.Flag, bool) {
+	for _, f := range MapFlags(p) {
 		if f.Kind == model.FlagGround {
 			return f, true
 		}
@@ -136,7 +136,7 @@ func groundFlag(st *model.Study, p *engine.Point) (model.Flag, bool) {
 // lowest it may, where real wings lose it; "" otherwise. The app's
 // search and the report's set-up page give it.
 func NearGroundAdvice(st *model.Study, p *engine.Point) string {
-	f, ok := groundFlag(st, p)
+	f, ok := groundFlag(p)
 	if !ok {
 		return ""
 	}
