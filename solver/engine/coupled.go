@@ -301,7 +301,9 @@ func (e *Engine) coupledAt(ctx context.Context, sys *solver.System, alphaDeg, fs
 // walkStepDeg reaches it (coupledSweep's first pass): from scratch at 0°,
 // then through the whole multiples of walkStepDeg short of alphaDeg,
 // each from the last angle that converged, a step that does not converge
-// passed over, and last alphaDeg. It gives up, returning nil, when 0°
+// passed over, and last alphaDeg; when that does not converge, alphaDeg
+// from the next angle beyond it, as the sweep's second pass reaches a row
+// from the row above. It gives up, returning nil, when 0°
 // does not converge or the next angle is further than maxWarmStepDeg
 // from the last that converged. walked is the Newton iterations of the
 // steps before alphaDeg (q's own are in q).
@@ -336,10 +338,38 @@ func (e *Engine) walk(ctx context.Context, sys *solver.System, alphaDeg, fs floa
 		return nil, walked, nil
 	}
 	p, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, warm, names)
+	if err != nil || p.Converged {
+		return &p, walked, err
+	}
+	// As the sweep's second pass (coupledSweep) for a row that did not
+	// converge: the next angle beyond alphaDeg from the last that
+	// converged, and alphaDeg from it when that converged. Over the
+	// team's sections (roots11's note) 2 of 175 single solves near
+	// maximum lift converged so, on the sweep's rows, that did not
+	// converge before, and no other changed. Not for a last step that
+	// converged with transition held, which the sweep's second pass also
+	// replaces: that lost as many single solves as it won (E387 at Re
+	// 8e5, h/c 1, 10°: 0.194 from the sweep's row).
+	b := math.Copysign((math.Floor(math.Abs(alphaDeg)/walkStepDeg+walkSameAngle)+1)*walkStepDeg, alphaDeg)
+	if math.Abs(b-from) > maxWarmStepDeg {
+		return &p, walked, nil
+	}
+	s, f, err := e.sweepSystem(ctx, b)
+	if err != nil {
+		if ctx.Err() != nil {
+			return nil, walked, ctx.Err()
+		}
+		return &p, walked, nil
+	}
+	r, err := solveCoupled(ctx, s, b, f, opt, warm, names)
+	if err != nil || !r.Converged {
+		return &p, walked + r.Iterations, err
+	}
+	t, err := solveCoupled(ctx, sys, alphaDeg, fs, opt, r.last, names)
 	if err != nil {
 		return nil, walked, err
 	}
-	return &p, walked, nil
+	return &t, walked + p.Iterations + r.Iterations, nil
 }
 
 // fromSeeds solves sys from converged solutions of neighbouring
