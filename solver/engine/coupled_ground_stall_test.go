@@ -50,3 +50,22 @@ func TestEngineCoupledGroundStall(t *testing.T) {
 	checkTrailingEdgeStall(t, res, -1, "suction-side separation", func(r CoupledPoint) float64 { return r.Elements[0].SeparationLower })
 	checkSingleSolves(t, st, secs, res.SweepCoupled, 12, 16)
 }
+
+// A single solve whose walk fails at its last step tries that angle again
+// from the next degree beyond, as a sweep's second pass reaches a row its
+// first pass did not converge (Engine.walk). The case is one of the
+// team's sweeps where that happens at the maximum (roots11's note):
+// kt:-0.1,0.1,10 inverted on a 250 mm chord, 125 mm above the ground (h/c
+// 0.5), Re 8e5, free transition, swept 0°–11° in 1° steps; at 10° the
+// first pass does not converge from 9° and the second reaches it from
+// 11°. Checked: the single solve at 10°, on a fresh engine as `solve`
+// solves it, converges on the sweep's row (checkSingleSolves; without the
+// retry it did not converge).
+func TestEngineSingleSolveRetriesFromBeyond(t *testing.T) {
+	st, secs := stallStudy(t, 250, 8e5)
+	st.Inverted = true
+	st.Ground = model.Ground{Enabled: true, ClearanceMM: 125}
+	st.Sweep.ToDeg = 11
+	res := run(t, NewEngine(), st, secs, true)
+	checkSingleSolves(t, st, secs, res.SweepCoupled, 10, 10)
+}
