@@ -34,6 +34,22 @@ func writeSetup(t *testing.T, name string, p *plot.Plot) {
 	}
 }
 
+// plotTexts writes p as the PNG name (writeSetup) and returns the texts
+// of its SVG rendering, for checks on what its key says.
+func plotTexts(t *testing.T, name string, p *plot.Plot) []string {
+	t.Helper()
+	writeSetup(t, name, p)
+	var svg bytes.Buffer
+	if err := WritePlot(&svg, p, FormatSVG, 6, 4, 96); err != nil {
+		t.Fatal(err)
+	}
+	texts, err := svgTexts(svg.Bytes())
+	if err != nil {
+		t.Fatal(err)
+	}
+	return texts
+}
+
 // Invented curve: downforce against clearance rising as the clearance
 // falls, then dropping, with the lowest points separated, one without
 // an answer and two that are not a single solve's answer.
@@ -277,16 +293,7 @@ func TestMapCurveNearGround(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	writeSetup(t, "setup-curve-near-ground", p)
-	var svg bytes.Buffer
-	if err := WritePlot(&svg, p, FormatSVG, 6, 4, 96); err != nil {
-		t.Fatal(err)
-	}
-	texts, err := svgTexts(svg.Bytes())
-	if err != nil {
-		t.Fatal(err)
-	}
-	if !slices.Contains(texts, nearGroundKey) {
+	if texts := plotTexts(t, "setup-curve-near-ground", p); !slices.Contains(texts, nearGroundKey) {
 		t.Errorf("the key has no entry for the points too near the ground: %q", texts)
 	}
 
@@ -295,12 +302,7 @@ func TestMapCurveNearGround(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	writeSetup(t, "setup-grid-near-ground", gp)
-	svg.Reset()
-	if err := WritePlot(&svg, gp, FormatSVG, 6, 4, 96); err != nil {
-		t.Fatal(err)
-	}
-	if texts, _ = svgTexts(svg.Bytes()); !slices.Contains(texts, nearGroundKey) {
+	if texts := plotTexts(t, "setup-grid-near-ground", gp); !slices.Contains(texts, nearGroundKey) {
 		t.Errorf("the grid's key has no entry for the cells too near the ground: %q", texts)
 	}
 
@@ -341,16 +343,7 @@ func TestMapCurveHeld(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	writeSetup(t, "setup-curve-held", p)
-	var svg bytes.Buffer
-	if err := WritePlot(&svg, p, FormatSVG, 6, 4, 96); err != nil {
-		t.Fatal(err)
-	}
-	texts, err := svgTexts(svg.Bytes())
-	if err != nil {
-		t.Fatal(err)
-	}
-	if !slices.Contains(texts, heldKey) {
+	if texts := plotTexts(t, "setup-curve-held", p); !slices.Contains(texts, heldKey) {
 		t.Errorf("the key has no entry for the held point: %q", texts)
 	}
 }
