@@ -272,11 +272,7 @@ func TestSpanLoadKeyRoom(t *testing.T) {
 // (model.GroundHOverCMin, Zerihan & Zhang 2000, in model). A point
 // without an answer is crossed, not marked; in free air nothing is.
 func TestMapCurveNearGround(t *testing.T) {
-	st := model.NewStudy()
-	st.Elements[0].ChordMM = 250
-	st.Inverted = true
-	st.Ground = model.Ground{Enabled: true, ClearanceMM: 100}
-	v := model.SetupVariable{Kind: model.SetupClearance}
+	st, v := rideHeightStudy()
 	var pts []engine.Point
 	for _, h := range []float64{10, 20, 24.9, 25, 40, 100} {
 		pts = append(pts, engine.Point{Values: []float64{h}, Converged: h != 10, Inverted: true, Cl: -40 / math.Sqrt(h),
@@ -321,11 +317,7 @@ func TestMapCurveNearGround(t *testing.T) {
 // two-element example's ride-height map drew its 40 mm point, held and
 // attached between separated neighbours, as a plain "attached" dot.
 func TestMapCurveHeld(t *testing.T) {
-	st := model.NewStudy()
-	st.Elements[0].ChordMM = 250
-	st.Inverted = true
-	st.Ground = model.Ground{Enabled: true, ClearanceMM: 100}
-	v := model.SetupVariable{Kind: model.SetupClearance}
+	st, v := rideHeightStudy()
 	var pts []engine.Point
 	for _, h := range []float64{40, 60, 80, 100} {
 		p := engine.Point{Values: []float64{h}, Converged: true, Viscous: true, Inverted: true, Cl: -40 / math.Sqrt(h),
@@ -346,4 +338,15 @@ func TestMapCurveHeld(t *testing.T) {
 	if texts := plotTexts(t, "setup-curve-held", p); !slices.Contains(texts, heldKey) {
 		t.Errorf("the key has no entry for the held point: %q", texts)
 	}
+}
+
+// rideHeightStudy returns an inverted 250 mm element over the ground and
+// the clearance as the map's variable: the ride-height map of the curve
+// tests.
+func rideHeightStudy() (*model.Study, model.SetupVariable) {
+	st := model.NewStudy()
+	st.Elements[0].ChordMM = 250
+	st.Inverted = true
+	st.Ground = model.Ground{Enabled: true, ClearanceMM: 100}
+	return st, model.SetupVariable{Kind: model.SetupClearance}
 }
